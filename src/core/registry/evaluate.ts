@@ -1,0 +1,76 @@
+// Argument validation and evaluation of one spec: the single path from raw cell values to a
+// number or an error message. The engine plugin, the CLI and the site roll-up all call this.
+import { isOptional, type Args, type FunctionSpec, type Interval, type ParamSpec } from './spec.ts';
+import { msg, withFunction } from './messages.ts';
+
+/** What a cell can hand over: null is a blank cell, undefined an argument not given at all. */
+export type RawArg = number | boolean | string | null | undefined;
+
+export type Outcome = { readonly ok: true; readonly value: number } | { readonly ok: false; readonly message: string };
+
+export function inInterval(x: number, d: Interval | undefined): boolean {
+  if (!d) return true;
+  if (d.lo !== undefined && (d.loOpen ? !(x > d.lo) : !(x >= d.lo))) return false;
+  if (d.hi !== undefined && (d.hiOpen ? !(x < d.hi) : !(x <= d.hi))) return false;
+  return true;
+}
+
+type One = { ok: true; value: number | boolean | undefined } | { ok: false; message: string };
+
+function coerceOne(pos: number, p: ParamSpec, raw: RawArg): One {
+  const optional = isOptional(p);
+  if (raw === undefined || (raw === null && optional)) return { ok: true, value: undefined };
+  if (raw === null) return { ok: false, message: msg.blank(pos, p) };
+  if (p.type === 'boolean') {
+    if (typeof raw === 'boolean') return { ok: true, value: raw };
+    if (raw === 0 || raw === 1) return { ok: true, value: raw === 1 };
+    return { ok: false, message: msg.notABoolean(pos, p, raw) };
+  }
+  if (typeof raw !== 'number' || !Number.isFinite(raw)) return { ok: false, message: msg.notANumber(pos, p, raw) };
+  if (!inInterval(raw, p.domain)) return { ok: false, message: msg.outOfDomain(pos, p, raw) };
+  return { ok: true, value: raw };
+}
+
+/** Fill defaults: constants, or the value of another (earlier or later) argument. */
+function applyDefaults(spec: FunctionSpec, vals: Array<number | boolean | undefined>): void {
+  spec.params.forEach((p, i) => {
+    if (vals[i] !== undefined || p.default === undefined) return;
+    const d = p.default;
+    if (typeof d === 'number' || typeof d === 'boolean') vals[i] = d;
+    else if ('sameAs' in d) vals[i] = vals[spec.params.findIndex((q) => q.name === d.sameAs)];
+  });
+}
+
+/** Validate raw arguments and compute. Never throws. */
+export function evaluate(spec: FunctionSpec, raw: readonly RawArg[]): Outcome {
+  const fail = (tail: string): Outcome => ({ ok: false, message: withFunction(spec.name, tail) });
+  try {
+    const required = spec.params.filter((p) => !isOptional(p)).length;
+    if (raw.length > spec.params.length) return fail(msg.tooMany(spec.params.length, raw.length));
+    const vals: Array<number | boolean | undefined> = [];
+    for (let i = 0; i < spec.params.length; i++) {
+      const p = spec.params[i] as ParamSpec;
+      if (raw[i] === undefined && !isOptional(p)) {
+        return fail(raw.length < required ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p) : msg.missing(i + 1, p));
+      }
+      const one = coerceOne(i + 1, p, raw[i]);
+      if (!one.ok) return fail(one.message);
+      vals.push(one.value);
+    }
+    applyDefaults(spec, vals);
+    const cross = spec.check?.(vals);
+    if (cross) return fail(cross);
+    const value = spec.compute(vals as Args);
+    if (!Number.isFinite(value)) return fail(msg.notFinite(value));
+    return { ok: true, value: value === 0 ? 0 : value };
+  } catch (e) {
+    return fail(msg.internal(e));
+  }
+}
+
+/** Convenience for code that wants a number and has already validated its inputs. */
+export function evaluateOrThrow(spec: FunctionSpec, raw: readonly RawArg[]): number {
+  const r = evaluate(spec, raw);
+  if (!r.ok) throw new Error(r.message);
+  return r.value;
+}

@@ -1,0 +1,37 @@
+import { describe, expect, it } from 'vitest';
+import { evaluate, inInterval } from '../../../src/core/registry/evaluate.ts';
+import { expandCall, isCellReference } from '../../../src/core/registry/expand.ts';
+import { COSPHI, KVA_TOTAL } from '../../../src/core/functions/powerTriangle.ts';
+
+describe('argument validation', () => {
+  it('names function, position, argument and value for text', () => {
+    const r = evaluate(COSPHI, ['abc', 1]);
+    expect(r).toEqual({ ok: false, message: 'COSPHI: argument 1 (p_kw) must be a number in kW; got text "abc"' });
+  });
+  it('reports a blank required argument', () => {
+    const r = evaluate(KVA_TOTAL, [3, null]);
+    expect(r.ok).toBe(false);
+    expect(!r.ok && r.message).toContain('argument 2 (q_kvar) is a blank cell');
+  });
+  it('reports too many arguments', () => {
+    const r = evaluate(KVA_TOTAL, [3, 4, 5]);
+    expect(!r.ok && r.message).toBe('KVA.TOTAL: takes at most 2 arguments; got 3');
+  });
+  it('interval bounds honour open and closed ends', () => {
+    expect(inInterval(0, { lo: 0, loOpen: true })).toBe(false);
+    expect(inInterval(0, { lo: 0 })).toBe(true);
+    expect(inInterval(1, { lo: 0, hi: 1, loOpen: true })).toBe(true);
+    expect(inInterval(Number.NaN, { lo: 0 })).toBe(false);
+  });
+});
+
+describe('plain-formula expansion', () => {
+  it('guards a required cell reference against blank', () => {
+    expect(expandCall(COSPHI, ['A1', 'B1'])).toBe('IF(OR(ISBLANK(A1),ISBLANK(B1),AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2)))');
+  });
+  it('recognises cell references but not ranges', () => {
+    expect(isCellReference('$B$2')).toBe(true);
+    expect(isCellReference("'Motors list'!C3")).toBe(true);
+    expect(isCellReference('A1:B2')).toBe(false);
+  });
+});

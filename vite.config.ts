@@ -1,0 +1,42 @@
+import { defineConfig } from 'vitest/config';
+
+// One config for the app build and the three test suites.
+// unit: needs nothing beyond `npm install`; browser and crossengine need Debian's
+// chromium and libreoffice-calc-nogui (see README).
+export default defineConfig({
+  base: './',
+  build: {
+    target: 'es2022',
+    chunkSizeWarningLimit: 2000,
+  },
+  test: {
+    projects: [
+      {
+        test: {
+          name: 'unit',
+          include: ['tests/**/*.test.ts'],
+          exclude: ['tests/browser/**', 'tests/crossengine/**', 'node_modules/**'],
+          testTimeout: 30_000,
+        },
+      },
+      {
+        test: {
+          name: 'browser',
+          include: ['tests/browser/**/*.test.ts'],
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        test: {
+          name: 'crossengine',
+          include: ['tests/crossengine/**/*.test.ts'],
+          testTimeout: 300_000,
+          hookTimeout: 300_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
