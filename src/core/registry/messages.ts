@@ -53,3 +53,33 @@ export const msg = {
 export function withFunction(name: string, tail: string): string {
   return `${name}: ${tail}`;
 }
+
+/** One argument as a cross-argument message refers to it: its position, spec and value. */
+export interface ArgValue {
+  readonly position: number;
+  readonly param: ParamSpec;
+  readonly value: number;
+}
+
+/** ArgValue for the parameter at zero-based `index` of a spec's params. */
+export function argAt(params: readonly ParamSpec[], index: number, value: number): ArgValue {
+  const param = params[index];
+  if (!param) throw new Error(`no parameter at index ${index}`);
+  return { position: index + 1, param, value };
+}
+
+/** Builders for cross-argument rules (message tails, without "NAME: "). */
+export const relation = {
+  /** "argument 2 (p_kw) must not exceed argument 1 (s_kva); got 120 > 100" */
+  notAbove: (a: ArgValue, b: ArgValue) =>
+    `${argLabel(a.position, a.param)} must not exceed ${argLabel(b.position, b.param)}; got ${formatNumber(a.value)} > ${formatNumber(b.value)}`,
+  /** "argument 3 (d_cond_mm) must be less than argument 2 (d_ins_mm); got 30 ≥ 25" */
+  below: (a: ArgValue, b: ArgValue) =>
+    `${argLabel(a.position, a.param)} must be less than ${argLabel(b.position, b.param)}; got ${formatNumber(a.value)} ≥ ${formatNumber(b.value)}`,
+  /** "argument 3 (p0_kw) must not exceed i0/100·S = 10 (why); got 12" */
+  notAboveLimit: (a: ArgValue, limitText: string, limit: number, why: string) =>
+    `${argLabel(a.position, a.param)} must not exceed ${limitText} = ${formatNumber(limit)} (${why}); got ${formatNumber(a.value)}`,
+  /** "argument 4 (pk_kw) must be below limitText = 60 (why); got 70" */
+  belowLimit: (a: ArgValue, limitText: string, limit: number, why: string) =>
+    `${argLabel(a.position, a.param)} must be below ${limitText} = ${formatNumber(limit)} (${why}); got ${formatNumber(a.value)}`,
+} as const;
