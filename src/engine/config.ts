@@ -1,0 +1,42 @@
+// The one place the formula engine is configured. Every engine the app, the CLI and the tests
+// build gets its settings from here, so a value computed in the grid, printed by the CLI and
+// cached in an export is the same number.
+import type { ConfigParams } from 'hyperformula';
+
+/**
+ * The engine is used under the GPL v3 (the whole program is GPL-3.0-only). Without a key every
+ * function returns a licence error.
+ */
+export const ENGINE_LICENSE_KEY = 'gpl-v3';
+
+/** The language whose function names formulas are written in; our plugin translates into it. */
+export const ENGINE_LANGUAGE = 'enGB';
+
+/**
+ * Settings shared by every engine instance.
+ *
+ * smartRounding: false. By default the engine rounds every result to 10 significant digits and
+ * compares numbers with a relative tolerance. We keep full double precision in values instead:
+ * - what the grid shows is decided by each column's number format, not by the engine;
+ * - an export caches the full value, so a program that recalculates the file on load agrees
+ *   with the cached number to the last digit rather than to 10 digits;
+ * - the catalogue's worked examples are checked to 1e-12 relative through the engine and
+ *   through the plain-formula expansion, which 10-digit rounding would blur.
+ * Switching smartRounding off also switches off the engine's comparison tolerance
+ * (precisionEpsilon is only used with smartRounding), so `=` and the domain guards of an
+ * expansion compare exactly, like the pure compute does.
+ *
+ * useArrayArithmetic: false. Catalogue functions take one value per argument and report a range
+ * as a clear error; spilling arrays from ordinary formulas is not something the workbook uses.
+ */
+const SHARED: Partial<ConfigParams> = {
+  licenseKey: ENGINE_LICENSE_KEY,
+  language: ENGINE_LANGUAGE,
+  smartRounding: false,
+  useArrayArithmetic: false,
+};
+
+/** Engine settings, with optional overrides for a caller that knows why it needs them. */
+export function engineConfig(overrides: Partial<ConfigParams> = {}): Partial<ConfigParams> {
+  return { ...SHARED, ...overrides };
+}
