@@ -56,7 +56,7 @@ async function* inflated(bytes: Uint8Array, e: ZipEntry, start: number): AsyncGe
     yield data;
     return;
   }
-  const stream = new Blob([data]).stream().pipeThrough(new DecompressionStream('deflate-raw'));
+  const stream = new Blob([data as Uint8Array<ArrayBuffer>]).stream().pipeThrough(new DecompressionStream('deflate-raw'));
   const reader = stream.getReader();
   try {
     for (;;) {
