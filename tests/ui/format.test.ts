@@ -1,0 +1,57 @@
+import { describe, expect, it } from 'vitest';
+import { formatGeneral, formatNumber } from '../../src/ui/format/numberFormat.ts';
+import { headerLabel, unitOf, widthPx } from '../../src/ui/format/columnHeader.ts';
+import { a1, columnLetters, rangeLabel, sheetRef } from '../../src/ui/model/address.ts';
+
+describe('number formats', () => {
+  it('rounds to the decimals of the code', () => {
+    expect(formatNumber(41.3379, '0.0')).toBe('41.3');
+    expect(formatNumber(0.86, '0.000')).toBe('0.860');
+    expect(formatNumber(-12.25, '0')).toBe('-12');
+    expect(formatNumber(1234567.891, '#,##0.0')).toBe('1,234,567.9');
+    expect(formatNumber(999.95, '#,##0.0')).toBe('1,000.0');
+  });
+  it('shows percent and scientific codes', () => {
+    expect(formatNumber(0.0567, '0.00%')).toBe('5.67%');
+    expect(formatNumber(0.000123, '0.00E+00')).toBe('1.23E-04');
+  });
+  it('never shows minus zero', () => {
+    expect(formatNumber(-0.00004, '0.0')).toBe('0.0');
+  });
+  it('falls back to General for codes it does not know', () => {
+    expect(formatNumber(1 / 3, 'mm/dd/yy')).toBe('0.3333333333');
+    expect(formatGeneral(1e12)).toBe('1e+12');
+    expect(formatGeneral(2.5e-7)).toBe('2.5e-7');
+    expect(formatGeneral(-0.1 - 0.2)).toBe('-0.3');
+  });
+});
+
+describe('column headers', () => {
+  it('takes the unit from the last parenthesis', () => {
+    expect(unitOf('P (kW)')).toBe('kW');
+    expect(unitOf('C (µF/km)')).toBe('µF/km');
+    expect(unitOf('cos φ')).toBeUndefined();
+  });
+  it('joins unit and format', () => {
+    expect(headerLabel('C', { header: 'Q (kvar)', format: '0.0', computed: true })).toEqual({ letter: 'C', detail: 'kvar · 0.0', computed: true });
+    expect(headerLabel('A', undefined)).toEqual({ letter: 'A', detail: '', computed: false });
+  });
+  it('keeps widths within bounds', () => {
+    expect(widthPx({ header: 'x', width: 1 })).toBe(48);
+    expect(widthPx({ header: 'x', width: 999 })).toBe(420);
+    expect(widthPx({ header: 'tag', width: 10 })).toBe(88);
+  });
+});
+
+describe('addresses', () => {
+  it('names columns like other spreadsheet programs', () => {
+    expect([0, 25, 26, 51, 52, 701, 702].map(columnLetters)).toEqual(['A', 'Z', 'AA', 'AZ', 'BA', 'ZZ', 'AAA']);
+    expect(a1(4, 2)).toBe('C5');
+    expect(rangeLabel(8, 3, 1, 1)).toBe('B2:D9');
+    expect(rangeLabel(0, 0, 0, 0)).toBe('A1');
+  });
+  it('quotes sheet names that need it', () => {
+    expect(sheetRef('Buses')).toBe('Buses');
+    expect(sheetRef("Bob's loads")).toBe("'Bob''s loads'");
+  });
+});
