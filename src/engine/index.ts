@@ -1,7 +1,7 @@
 // Building formula engines and reading results out of them. The app, the CLI and the tests all
 // build engines here, so the configuration and the plugin registration happen in one way.
 import { DetailedCellError, HyperFormula } from 'hyperformula';
-import type { CellValue, ConfigParams } from 'hyperformula';
+import type { CellValue, ConfigParams, SerializedNamedExpression } from 'hyperformula';
 import type { CellContent } from '../core/workbook/document.ts';
 import { engineConfig } from './config.ts';
 import { registerCataloguePlugin, registerOwnPlugin, standardPlugins, type OwnPlugin } from './plugins.ts';
@@ -22,8 +22,19 @@ export interface EngineOptions {
   readonly config?: Partial<ConfigParams>;
 }
 
+/**
+ * The engine reads TRUE and FALSE only as the functions TRUE() and FALSE(); a bare TRUE is an
+ * unknown name to it. Every other spreadsheet program, our own parser and users write the bare
+ * words, so each engine defines them as workbook-level names for the two values.
+ */
+export const BOOLEAN_NAMES: readonly SerializedNamedExpression[] = Object.freeze([
+  { name: 'TRUE', expression: '=TRUE()' },
+  { name: 'FALSE', expression: '=FALSE()' },
+]);
+
 function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): HyperFormula {
-  if (sheets.length === 0) return HyperFormula.buildEmpty(config);
+  const names = BOOLEAN_NAMES.map((n) => ({ ...n }));
+  if (sheets.length === 0) return HyperFormula.buildEmpty(config, names);
   const seen = new Map<string, string>();
   const data: Record<string, CellContent[][]> = {};
   for (const s of sheets) {
@@ -33,7 +44,7 @@ function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): Hy
     seen.set(key, s.name);
     data[s.name] = s.cells.map((row) => [...row]);
   }
-  return HyperFormula.buildFromSheets(data, config);
+  return HyperFormula.buildFromSheets(data, config, names);
 }
 
 /** An engine with the function catalogue (and any further plugins of ours) registered. */
