@@ -4,7 +4,7 @@ import { argAt, relation } from '../registry/messages.ts';
 import { loadReactivePower } from '../elements/load.ts';
 import { motorCapacitorMax, motorInputPower, motorNoLoadTooHigh, motorReactivePower } from '../elements/motor.ts';
 import { generatorReactiveCapability, generatorReactivePower } from '../elements/generator.ts';
-import { squareText, tanText } from './formulaText.ts';
+import { boolText, squareText, tanText } from './formulaText.ts';
 
 const FAMILY = 'Loads and machines';
 const num = (x: number | boolean | undefined): number => x as number;
@@ -32,7 +32,7 @@ export const KVAR_LOAD = defineFunction({
     { args: [100, 1.2], expect: { error: 'argument 2 (cos_phi) must be in (0, 1]; got 1.2' }, note: 'a power factor above 1 is a typing error' },
   ],
   compute: ([p, c, lead]) => loadReactivePower(num(p), num(c), lead === true),
-  expand: ([p, c, lead]) => `IF(${lead},-1,1)*${p}*${tanText(c as string)}`,
+  expand: ([p, c, lead]) => `IF(${boolText(lead)},-1,1)*${p}*${tanText(c as string)}`,
 });
 
 export const KW_MOTOR = defineFunction({
@@ -138,7 +138,7 @@ export const KVAR_GEN = defineFunction({
     { args: [1000, 0], expect: { error: 'argument 2 (cos_phi) must be in (0, 1]; got 0' }, note: 'cos φ = 0 has no active power' },
   ],
   compute: ([p, c, abs]) => generatorReactivePower(num(p), num(c), abs === true),
-  expand: ([p, c, abs]) => `IF(${abs},1,-1)*${p}*${tanText(c as string)}`,
+  expand: ([p, c, abs]) => `IF(${boolText(abs)},1,-1)*${p}*${tanText(c as string)}`,
 });
 
 const GEN_MAX_PARAMS: readonly ParamSpec[] = [
