@@ -1,0 +1,225 @@
+// The bus balance of one operating case, in the load convention (Q > 0 absorbed, Q < 0
+// delivered; delivered P counts negative). Every element's P and Q is per unit × running from
+// the catalogue (see cases.ts for load factors and what 0 means). Buses are summed from the
+// bottom up: a transformer or line adds the total of the bus it feeds plus its own losses at
+// that loading into its upstream bus, level by level to the root, the point of connection.
+import type { EquipmentKind, EquipmentRow, Site } from './model.ts';
+import { runCall, shuntPlans, transformerPlans, linePlans, type CallPlan } from './calls.ts';
+import { inService, loadFactor, resolveCase, unitsRunning } from './cases.ts';
+import { buildBusGraph, type BusGraph } from './graph.ts';
+import { error, type Problem } from './problems.ts';
+import { busVoltages } from './voltages.ts';
+import { apparentPower, powerFactor, tanPhi } from '../elements/powerTriangle.ts';
+
+export type Sense = 'lagging' | 'leading' | 'unity';
+
+export interface ElementBalance {
+  readonly row: number;
+  readonly tag: string;
+  readonly kind: EquipmentKind;
+  /** The bus whose total includes this element (for a transformer or line: its upstream bus). */
+  readonly bus: string;
+  readonly running: number;
+  /** Load factor in the case (undefined for transformers and lines). */
+  readonly load?: number;
+  readonly p_kw: number;
+  readonly q_kvar: number;
+  readonly q_absorbed_kvar: number;
+  readonly q_delivered_kvar: number;
+  /** Transformers and lines: apparent power carried (all units together) and loading of one unit. */
+  readonly s_load_kva?: number;
+  readonly loading_pct?: number;
+  /** Present when the catalogue refused the values; the element then counts as 0. */
+  readonly error?: string;
+}
+
+export interface BusBalance {
+  readonly bus: string;
+  readonly level: number;
+  /** Tag of the transformer or line feeding the bus; undefined at the root. */
+  readonly fed_by?: string;
+  readonly u_kv?: number;
+  /** Everything the bus draws from upstream: own items plus fed buses plus their feeders' losses. */
+  readonly p_kw: number;
+  readonly q_kvar: number;
+  readonly q_absorbed_kvar: number;
+  readonly q_delivered_kvar: number;
+  readonly s_kva: number;
+  /** null when S = 0. */
+  readonly cos_phi: number | null;
+  /** null when P = 0. */
+  readonly tan_phi: number | null;
+  /** By the sign of Q: lagging = draws kvar, leading = delivers kvar. */
+  readonly sense: Sense;
+  /** Items connected directly to this bus (no fed buses, no feeder losses). */
+  readonly own_p_kw: number;
+  readonly own_q_kvar: number;
+}
+
+export interface CaseBalance {
+  readonly case: string;
+  readonly hz: number;
+  /** Root first, then level by level. */
+  readonly buses: readonly BusBalance[];
+  readonly root: BusBalance;
+  readonly elements: readonly ElementBalance[];
+  readonly problems: readonly Problem[];
+}
+
+/** Thrown when the site cannot be balanced at all (no single root, a loop, an unknown case). */
+export class SiteStructureError extends Error {
+  constructor(readonly problems: readonly Problem[]) {
+    super(problems.map((p) => p.message).join('\n'));
+    this.name = 'SiteStructureError';
+  }
+}
+
+interface Sum {
+  p: number;
+  abs: number;
+  del: number;
+}
+const add = (s: Sum, p: number, q: number) => {
+  s.p += p;
+  if (q > 0) s.abs += q;
+  else s.del -= q;
+};
+
+function evalOr0(plan: CallPlan | undefined, errors: string[]): number {
+  if (!plan) return 0;
+  const r = runCall(plan);
+  if (r.ok) return r.value;
+  errors.push(r.message);
+  return 0;
+}
+
+function shuntElement(row: EquipmentRow, caseName: string, hz: number): ElementBalance {
+  const n = unitsRunning(row);
+  const lf = loadFactor(row, caseName);
+  const base = { row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, running: n, load: lf.value };
+  if (!inService(row, caseName) || n === 0) return { ...base, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0 };
+  const errors: string[] = [];
+  const plans = shuntPlans(row, lf.value, lf.column, hz);
+  let p = plans.pProduct ? plans.pProduct.value : evalOr0(plans.p, errors);
+  let q = evalOr0(plans.q, errors);
+  if (row.kind === 'generator') p = -p;
+  // Capacitors and reactors: the load factor is the share of the nameplate in service.
+  if (row.kind === 'capacitor' || row.kind === 'reactor') q *= lf.value;
+  if (errors.length > 0 || !Number.isFinite(p)) {
+    return { ...base, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0, error: errors.join('; ') || 'p_kw is missing' };
+  }
+  p *= n;
+  q *= n;
+  return { ...base, p_kw: p, q_kvar: q, q_absorbed_kvar: Math.max(q, 0), q_delivered_kvar: Math.max(-q, 0) };
+}
+
+/** Losses of a transformer or line carrying the apparent power sKva of the bus it feeds. */
+function branchElement(row: EquipmentRow, sKva: number, hz: number): ElementBalance {
+  const n = Math.max(unitsRunning(row), 1);
+  const sUnit = sKva / n;
+  const errors: string[] = [];
+  const base = { row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, running: n, s_load_kva: sKva };
+  let p = 0;
+  let abs = 0;
+  let del = 0;
+  let loading: number | undefined;
+  if (row.kind === 'transformer') {
+    const t = transformerPlans(row, sUnit);
+    p = n * evalOr0(t.p, errors);
+    abs = n * (evalOr0(t.mag, errors) + evalOr0(t.leak, errors));
+    const rated = row.values.s_kva;
+    if (rated) loading = (100 * sUnit) / rated;
+  } else {
+    // A line: series absorption and charging shown apart (net = KVAR.LINE, charging = net at no load).
+    const l = linePlans(row, sUnit, hz);
+    const net = evalOr0(l.net, errors);
+    const charging = evalOr0(l.charging, errors);
+    abs = n * (net - charging);
+    del = -n * charging;
+  }
+  const out = { ...base, ...(loading !== undefined ? { loading_pct: loading } : {}) };
+  if (errors.length > 0) return { ...out, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0, error: errors.join('; ') };
+  return { ...out, p_kw: p, q_kvar: abs - del, q_absorbed_kvar: abs, q_delivered_kvar: del };
+}
+
+function busResult(bus: string, graph: BusGraph, u: number | undefined, total: Sum, own: Sum): BusBalance {
+  const q = total.abs - total.del;
+  const s = apparentPower(total.p, q);
+  const fed = graph.feeder.get(bus)?.tag;
+  return {
+    bus,
+    level: graph.level.get(bus) ?? 0,
+    ...(fed !== undefined ? { fed_by: fed } : {}),
+    ...(u !== undefined ? { u_kv: u } : {}),
+    p_kw: total.p,
+    q_kvar: q,
+    q_absorbed_kvar: total.abs,
+    q_delivered_kvar: total.del,
+    s_kva: s,
+    cos_phi: powerFactor(total.p, q) ?? null,
+    tan_phi: tanPhi(total.p, q) ?? null,
+    sense: q > 0 ? 'lagging' : q < 0 ? 'leading' : 'unity',
+    own_p_kw: own.p,
+    own_q_kvar: own.abs - own.del,
+  };
+}
+
+/** The balance of every bus in one case. Throws SiteStructureError when the site is not a tree or the case is unknown. */
+export function rollUp(site: Site, caseName: string): CaseBalance {
+  const found = resolveCase(site.settings.cases, caseName);
+  if (found === undefined) {
+    throw new SiteStructureError([error({}, `unknown case "${caseName}"; the site's cases are ${site.settings.cases.join(', ')}`)]);
+  }
+  const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
+  const structural = graph.problems.filter((p) => p.severity === 'error');
+  if (structural.length > 0 || graph.root === undefined) {
+    throw new SiteStructureError(structural.length > 0 ? structural : [error({}, 'the site has no bus fed by nothing (no point of connection)')]);
+  }
+  const hz = site.settings.hz;
+  const voltages = busVoltages(site.equipment).voltages;
+  const own = new Map<string, Sum>();
+  const total = new Map<string, Sum>();
+  for (const b of graph.order) {
+    own.set(b, { p: 0, abs: 0, del: 0 });
+    total.set(b, { p: 0, abs: 0, del: 0 });
+  }
+  const elements: ElementBalance[] = [];
+  const problems: Problem[] = [];
+  for (const row of site.equipment) {
+    if (row.kind === 'transformer' || row.kind === 'line') continue;
+    const sum = own.get(row.bus);
+    if (!sum) continue;
+    const e = shuntElement(row, found, hz);
+    elements.push(e);
+    if (e.error) problems.push(error({ row: row.row, tag: row.tag }, e.error));
+    add(sum, e.p_kw, e.q_absorbed_kvar);
+    add(sum, 0, -e.q_delivered_kvar);
+  }
+  // Bottom-up: children come after parents in graph.order, so walk it backwards.
+  const results = new Map<string, BusBalance>();
+  for (const bus of [...graph.order].reverse()) {
+    const t = total.get(bus) as Sum;
+    const o = own.get(bus) as Sum;
+    t.p += o.p;
+    t.abs += o.abs;
+    t.del += o.del;
+    for (const br of graph.branches.get(bus) ?? []) {
+      const child = total.get(br.to_bus as string) as Sum;
+      const e = branchElement(br, apparentPower(child.p, child.abs - child.del), hz);
+      elements.push(e);
+      if (e.error) problems.push(error({ row: br.row, tag: br.tag }, e.error));
+      t.p += child.p + e.p_kw;
+      t.abs += child.abs + e.q_absorbed_kvar;
+      t.del += child.del + e.q_delivered_kvar;
+    }
+    results.set(bus, busResult(bus, graph, voltages.get(bus)?.u_kv, t, o));
+  }
+  const buses = graph.order.map((b) => results.get(b) as BusBalance);
+  elements.sort((a, b) => a.row - b.row);
+  return { case: found, hz, buses, root: buses[0] as BusBalance, elements, problems };
+}
+
+/** Every case of the site, in the order of the settings. */
+export function rollUpAll(site: Site): CaseBalance[] {
+  return site.settings.cases.map((c) => rollUp(site, c));
+}
