@@ -1,0 +1,236 @@
+// The bus roll-up in one pass: BUS.SUMS and BUS.SUMS.SPLIT add up value columns per bus name
+// for a whole list of buses at once and return the totals as an array that spills over the
+// buses sheet. One conditional sum per bus and case (SUMIF) would rescan the equipment rows
+// for every cell after any edit, which is what makes large workbooks slow; here one edit costs
+// one scan of the rows, whatever the number of buses.
+//
+//   BUS.SUMS(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])
+//     → one row per bus of `buses`, one column per column of the values: the sum of the
+//       values on the rows whose bus column names that bus (names compared ignoring case,
+//       like SUMIF; text and blank values count as nothing, like SUMIF).
+//   BUS.SUMS.SPLIT(...same arguments...)
+//     → two columns per value column: the sum of the positive values, then of the negative
+//       ones (absorbed and delivered kvar in the load convention).
+// An error value on a row that belongs to a bus shows in that bus's cell of that column only,
+// so one bad item marks its own bus, as SUMIF would.
+import { ArraySize, CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
+import type { ImplementedFunctions } from 'hyperformula';
+import { ENGINE_LANGUAGE } from './config.ts';
+import type { OwnPlugin } from './plugins.ts';
+
+export const BUS_SUMS = 'BUS.SUMS';
+export const BUS_SUMS_SPLIT = 'BUS.SUMS.SPLIT';
+
+/** A cell value as the kernel sees it: numbers, text, booleans, blanks (null) and errors. */
+export type Cell = number | string | boolean | null | CellError;
+
+/** One pair of arguments: the bus name of each row and that row's value columns. */
+export interface KeyedColumns {
+  readonly height: number;
+  readonly width: number;
+  key(row: number): Cell;
+  value(row: number, col: number): Cell;
+}
+
+/** Fold bus names the way the comparison ignores case. */
+function fold(name: string): string {
+  return name.toUpperCase();
+}
+
+/**
+ * The kernel: totals per bus (rows of `buses`) for every value column, or per column the
+ * positive and the negative part when `split`. Pure: no engine involved, so it is tested directly.
+ */
+export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[], split: boolean): Cell[][] {
+  const width = pairs[0]?.width ?? 0;
+  const index = new Map<string, number[]>();
+  buses.forEach((b, i) => {
+    if (typeof b !== 'string' || b === '') return;
+    const list = index.get(fold(b)) ?? [];
+    list.push(i);
+    index.set(fold(b), list);
+  });
+  const outWidth = split ? 2 * width : width;
+  const out: Cell[][] = buses.map(() => new Array<Cell>(outWidth).fill(0));
+  for (const pair of pairs) {
+    for (let r = 0; r < pair.height; r++) {
+      const key = pair.key(r);
+      if (typeof key !== 'string') continue;
+      const targets = index.get(fold(key));
+      if (targets === undefined) continue;
+      for (let c = 0; c < width; c++) {
+        const v = pair.value(r, c);
+        if (v instanceof CellError) {
+          for (const t of targets) {
+            const row = out[t] as Cell[];
+            if (split) row[2 * c] = row[2 * c + 1] = v;
+            else row[c] = v;
+          }
+          continue;
+        }
+        if (typeof v !== 'number' || v === 0) continue;
+        const col = split ? 2 * c + (v > 0 ? 0 : 1) : c;
+        for (const t of targets) {
+          const row = out[t] as Cell[];
+          const prev = row[col];
+          if (typeof prev === 'number') row[col] = prev + v;
+        }
+      }
+    }
+  }
+  return out;
+}
+
+/** What we read of the engine's argument nodes. */
+interface ArgNode {
+  readonly type: string;
+  readonly start?: { toSimpleCellAddress(base: unknown): { sheet: number; col: number; row: number } };
+  readonly end?: { toSimpleCellAddress(base: unknown): { sheet: number; col: number; row: number } };
+}
+interface CallNode {
+  readonly args: readonly ArgNode[];
+}
+interface State {
+  readonly formulaAddress: unknown;
+}
+interface Block {
+  readonly sheet: number;
+  readonly col: number;
+  readonly row: number;
+  readonly width: number;
+  readonly height: number;
+}
+/** The engine's cell store, as far as we use it (a stable method of its dependency graph). */
+interface CellStore {
+  getCellValue(address: { sheet: number; col: number; row: number }): unknown;
+}
+
+function blockOf(node: ArgNode, state: State): Block | undefined {
+  if (node.type !== 'CELL_RANGE' || !node.start || !node.end) return undefined;
+  const s = node.start.toSimpleCellAddress(state.formulaAddress);
+  const e = node.end.toSimpleCellAddress(state.formulaAddress);
+  if (s.sheet !== e.sheet) return undefined;
+  return { sheet: s.sheet, col: Math.min(s.col, e.col), row: Math.min(s.row, e.row), width: Math.abs(e.col - s.col) + 1, height: Math.abs(e.row - s.row) + 1 };
+}
+
+function asCell(v: unknown): Cell {
+  if (v instanceof CellError) return v;
+  if (typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean') return v;
+  if (typeof v === 'object' && v !== null && typeof (v as { val?: unknown }).val === 'number') return (v as { val: number }).val;
+  return null;
+}
+
+/** Reads a block straight from the engine's cell store: no copy of the range is made. */
+function storeReader(store: CellStore, b: Block): (row: number, col: number) => Cell {
+  const address = { sheet: b.sheet, col: 0, row: 0 };
+  return (row, col) => {
+    address.col = b.col + col;
+    address.row = b.row + row;
+    return asCell(store.getCellValue(address));
+  };
+}
+
+function valueReader(v: SimpleRangeValue): (row: number, col: number) => Cell {
+  const data = v.data;
+  return (row, col) => asCell(data[row]?.[col]);
+}
+
+const fail = (fn: string, tail: string) => new CellError(ErrorType.VALUE, `${fn}: ${tail}`);
+
+export class BusRollupPlugin extends FunctionPlugin {
+  static override implementedFunctions: ImplementedFunctions = {
+    [BUS_SUMS]: metadata('busSums', 'busSumsSize'),
+    [BUS_SUMS_SPLIT]: metadata('busSumsSplit', 'busSumsSplitSize'),
+  };
+
+  busSums(node: CallNode, state: State): SimpleRangeValue | CellError {
+    return this.rollUp(BUS_SUMS, node, state, false);
+  }
+  busSumsSplit(node: CallNode, state: State): SimpleRangeValue | CellError {
+    return this.rollUp(BUS_SUMS_SPLIT, node, state, true);
+  }
+  busSumsSize(node: CallNode, state: State): ArraySize {
+    return this.resultSize(node, state, 1);
+  }
+  busSumsSplitSize(node: CallNode, state: State): ArraySize {
+    return this.resultSize(node, state, 2);
+  }
+
+  /** The spill size must be known before evaluation: rows of the bus list × value columns. */
+  private resultSize(node: CallNode, state: State, perColumn: number): ArraySize {
+    const [buses, , values] = node.args;
+    if (!buses || !values) return ArraySize.error();
+    const b = this.arraySizeForAst(buses as never, state as never);
+    const v = this.arraySizeForAst(values as never, state as never);
+    return new ArraySize(v.width * perColumn, b.height);
+  }
+
+  private rollUp(fn: string, node: CallNode, state: State, split: boolean): SimpleRangeValue | CellError {
+    try {
+      const args = node.args;
+      if (args.length < 3 || args.length % 2 === 0) {
+        return fail(fn, `takes a bus list and then pairs of (bus column, values); got ${args.length} arguments`);
+      }
+      const buses = this.column(fn, args[0] as ArgNode, state, 1, 'bus list');
+      if (buses instanceof CellError) return buses;
+      const pairs: KeyedColumns[] = [];
+      for (let k = 1; k < args.length; k += 2) {
+        const keys = this.column(fn, args[k] as ArgNode, state, k + 1, 'bus column');
+        if (keys instanceof CellError) return keys;
+        const values = this.block(args[k + 1] as ArgNode, state);
+        if (values instanceof CellError) return values;
+        const first = pairs[0];
+        if (values.height !== keys.length) {
+          return fail(fn, `argument ${k + 2} (values) has ${values.height} rows but argument ${k + 1} (bus column) has ${keys.length}; they must cover the same rows`);
+        }
+        if (first && values.width !== first.width) {
+          return fail(fn, `argument ${k + 2} (values) has ${values.width} columns but argument 3 has ${first.width}; every values range must have as many columns`);
+        }
+        pairs.push({ height: values.height, width: values.width, key: (r) => keys[r] ?? null, value: values.read });
+      }
+      return SimpleRangeValue.onlyValues(sumByBus(buses, pairs, split) as never);
+    } catch (e) {
+      return fail(fn, `internal error: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  }
+
+  /** A one-column argument as a list of cells. */
+  private column(fn: string, node: ArgNode, state: State, position: number, what: string): Cell[] | CellError {
+    const b = this.block(node, state);
+    if (b instanceof CellError) return b;
+    if (b.width !== 1) return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
+    const out: Cell[] = new Array<Cell>(b.height);
+    for (let r = 0; r < b.height; r++) out[r] = b.read(r, 0);
+    return out;
+  }
+
+  private block(node: ArgNode, state: State): { width: number; height: number; read: (row: number, col: number) => Cell } | CellError {
+    const store = (this as unknown as { dependencyGraph?: Partial<CellStore> }).dependencyGraph;
+    const b = blockOf(node, state);
+    if (b && store && typeof store.getCellValue === 'function') {
+      return { width: b.width, height: b.height, read: storeReader(store as CellStore, b) };
+    }
+    // Anything but a plain range (a named range, a function's result): the engine's own copy.
+    const v: unknown = this.evaluateAst(node as never, state as never);
+    if (v instanceof CellError) return v;
+    if (v instanceof SimpleRangeValue) return { width: v.width(), height: v.height(), read: valueReader(v) };
+    const one = asCell(v);
+    return { width: 1, height: 1, read: () => one };
+  }
+}
+
+function metadata(method: string, sizeMethod: string) {
+  return {
+    method,
+    sizeOfResultArrayMethod: sizeMethod,
+    // Ranges are read by the method itself; never spread a range into one call per cell.
+    vectorizationForbidden: true,
+    parameters: [{ argumentType: FunctionArgumentType.RANGE }, { argumentType: FunctionArgumentType.RANGE }, { argumentType: FunctionArgumentType.RANGE }],
+    repeatLastArgs: 2,
+  };
+}
+
+export const BUS_ROLLUP_PLUGIN: OwnPlugin = {
+  plugin: BusRollupPlugin,
+  translations: { [ENGINE_LANGUAGE]: { [BUS_SUMS]: BUS_SUMS, [BUS_SUMS_SPLIT]: BUS_SUMS_SPLIT } },
+};
