@@ -16,6 +16,7 @@ export const KVA_TOTAL = defineFunction({
   examples: [
     { args: [300, 400], expect: 500, note: 'the 3-4-5 triangle; exact' },
     { args: [650, -760], expect: 1000.0499987500625, tol: 1e-12, note: 'delivered Q gives the same magnitude as absorbed' },
+    { args: [1.5e308, 1.5e308], expect: { error: 'the result is not a finite number' }, note: 'beyond the range of floating-point numbers: an error, never a wrong number' },
   ],
   compute: ([p, q]) => apparentPower(p as number, q as number),
   expand: ([p, q]) => `SQRT(POWER(${p},2)+POWER(${q},2))`,
