@@ -55,3 +55,30 @@ describe('addresses', () => {
     expect(sheetRef("Bob's loads")).toBe("'Bob''s loads'");
   });
 });
+
+import { contentOf, editText, typedContent } from '../../src/ui/model/typedInput.ts';
+
+describe('typed input', () => {
+  it('reads numbers, booleans, formulas and text', () => {
+    expect(typedContent('12.5')).toBe(12.5);
+    expect(typedContent(' -3e2 ')).toBe(-300);
+    expect(typedContent('.5')).toBe(0.5);
+    expect(typedContent('')).toBeNull();
+    expect(typedContent('true')).toBe(true);
+    expect(typedContent('=KVA.TOTAL(3,4)')).toBe('=KVA.TOTAL(3,4)');
+    expect(typedContent('M-101')).toBe('M-101');
+    expect(typedContent('1,5')).toBe('1,5');
+    expect(typedContent("'007")).toBe('007');
+    expect(typedContent('=')).toBe('=');
+  });
+  it('keeps what other values are', () => {
+    expect(contentOf(undefined)).toBeNull();
+    expect(contentOf(Number.NaN)).toBeNull();
+    expect(contentOf(false)).toBe(false);
+  });
+  it('gives editor text that reads back to the same content', () => {
+    for (const c of ['007', 'TRUE', 'M-101', '=SUM(A1:A3)', 42, true, null, ' padded'] as const) {
+      expect(typedContent(editText(c))).toBe(c === ' padded' ? ' padded' : c);
+    }
+  });
+});
