@@ -1,0 +1,14 @@
+// The subcommands of `kvar-ledger`, one line each. A command lives in its own file exporting
+// `run(argv, io)`; it is loaded only when used, so `eval` does not load the xlsx library.
+import type { RunCommand } from './io.ts';
+
+export interface CommandEntry {
+  /** One line for the usage text. */
+  readonly summary: string;
+  readonly load: () => Promise<{ run: RunCommand }>;
+}
+
+export const COMMANDS: Readonly<Record<string, CommandEntry>> = {
+  eval: { summary: 'evaluate formulas with the function catalogue', load: () => import('./eval.ts') },
+  functions: { summary: 'list the function catalogue (signatures, units, sources)', load: () => import('./functions.ts') },
+};
