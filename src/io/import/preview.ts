@@ -1,0 +1,123 @@
+// The preview of an import: the list converted to our columns and units, read and checked by the
+// same parser and validation the rest of the app uses, with every problem pointing at the row
+// and the column of the client's file. Nothing here changes the open workbook.
+import type { EquipmentRow, Site, SiteSettings } from '../../core/site/model.ts';
+import { DEFAULT_CASE, parseEquipmentTable } from '../../core/site/parse.ts';
+import { describeWhere, problem, type Problem } from '../../core/site/problems.ts';
+import { mergeProblems, validateSite } from '../../core/site/validate.ts';
+import type { ColumnMapping, MappingProposal } from './mapping.ts';
+import { readCell } from './values.ts';
+
+export interface PreviewRow {
+  /** 1-based row in the client's file. */
+  readonly row: number;
+  /** Converted values by target column (numbers in our units; text as given; null = blank). */
+  readonly cells: Readonly<Record<string, string | number | null>>;
+  readonly status: 'ok' | 'warning' | 'error';
+}
+
+export interface ImportPreview {
+  readonly proposal: MappingProposal;
+  /** The preview's columns in order (the mapped targets). */
+  readonly targets: readonly string[];
+  readonly rows: readonly PreviewRow[];
+  /** Rows the parser could type (rows with an unknown kind are not among them, but are reported). */
+  readonly equipment: readonly EquipmentRow[];
+  /** The default case, then the cases of the load:<case> columns. */
+  readonly cases: readonly string[];
+  /** Every problem, with the file's row and column ("row 7, column C (Motor kW): ..."). */
+  readonly problems: readonly Problem[];
+  readonly counts: { readonly rows: number; readonly ok: number; readonly withErrors: number; readonly withWarnings: number };
+  /** True when required columns are mapped and no problem is an error. */
+  readonly canApply: boolean;
+}
+
+export interface PreviewOptions {
+  /** The open site's settings: its first case names the plain load column, its other cases are kept. */
+  readonly settings?: SiteSettings;
+}
+
+export const DEFAULT_IMPORT_SETTINGS: SiteSettings = {
+  name: 'Imported list',
+  hz: 50,
+  cases: [DEFAULT_CASE],
+  requirement: { kind: 'cosphi', target: 0.95 },
+};
+
+function isBlank(cells: readonly unknown[]): boolean {
+  return cells.every((c) => c === null || c === undefined || (typeof c === 'string' && c.trim() === ''));
+}
+
+/** The table in our columns and units, header first, as text for the parser. */
+function canonicalTable(p: MappingProposal, mapped: readonly ColumnMapping[]): { rows: string[][]; cells: Array<Record<string, string | number | null>>; fileRows: number[] } {
+  const rows: string[][] = [mapped.map((c) => c.target as string)];
+  const cells: Array<Record<string, string | number | null>> = [];
+  const fileRows: number[] = [];
+  p.table.rows.slice(p.headerRow).forEach((raw, k) => {
+    const out: string[] = [];
+    const shown: Record<string, string | number | null> = {};
+    for (const c of mapped) {
+      const r = readCell(raw[c.index] ?? null, c.target as string, c.unit, p.table.decimalComma);
+      const text = r.kind === 'blank' ? '' : r.kind === 'number' ? String(r.value) : r.text;
+      out.push(text);
+      shown[c.target as string] = r.kind === 'blank' ? null : r.kind === 'number' ? r.value : r.text;
+    }
+    // Blank rows stay in place (the parser skips them) so row numbers keep matching the file.
+    rows.push(isBlank(raw) ? out.map(() => '') : out);
+    cells.push(shown);
+    fileRows.push(p.headerRow + 1 + k);
+  });
+  return { rows, cells, fileRows };
+}
+
+/** Point a problem at the client's column: "row 7, column C (Motor kW)". */
+function inFileTerms(pr: Problem, byTarget: ReadonlyMap<string, ColumnMapping>): Problem {
+  const c = pr.column === undefined ? undefined : byTarget.get(pr.column);
+  if (!c) return pr;
+  const oldPrefix = describeWhere(pr);
+  const text = oldPrefix && pr.message.startsWith(oldPrefix + ': ') ? pr.message.slice(oldPrefix.length + 2) : pr.message;
+  const where = { ...(pr.row !== undefined ? { row: pr.row } : {}), column: `${c.letter} (${c.header || c.target})`, ...(pr.bus !== undefined ? { bus: pr.bus } : {}), ...(pr.tag !== undefined ? { tag: pr.tag } : {}) };
+  return problem(pr.severity, where, text);
+}
+
+function settingsWith(base: SiteSettings, cases: readonly string[]): SiteSettings {
+  const all = [...base.cases];
+  for (const c of cases) if (!all.includes(c)) all.push(c);
+  return { ...base, cases: all };
+}
+
+/** Convert, parse and check the table under a mapping. */
+export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): ImportPreview {
+  const base = opts.settings ?? DEFAULT_IMPORT_SETTINGS;
+  const mapped = p.columns.filter((c) => c.target !== null);
+  const byTarget = new Map(mapped.map((c) => [c.target as string, c]));
+  const { rows, cells, fileRows } = canonicalTable(p, mapped);
+  const parsed = parseEquipmentTable(rows, { headerRow: p.headerRow, defaultCase: base.cases[0] ?? DEFAULT_CASE });
+  const settings = settingsWith(base, parsed.cases);
+  const site: Site = { settings, equipment: parsed.equipment };
+  const validated = parsed.equipment.length > 0 ? validateSite(site) : [];
+  const problems = mergeProblems(parsed.problems, validated).map((x) => inFileTerms(x, byTarget));
+  const worst = new Map<number, 'warning' | 'error'>();
+  for (const x of problems) {
+    if (x.row === undefined || x.severity === 'info') continue;
+    if (x.severity === 'error' || !worst.has(x.row)) worst.set(x.row, x.severity);
+  }
+  const previewRows: PreviewRow[] = [];
+  cells.forEach((c, k) => {
+    const row = fileRows[k] as number;
+    if (isBlank(Object.values(c))) return;
+    previewRows.push({ row, cells: c, status: worst.get(row) ?? 'ok' });
+  });
+  const withErrors = previewRows.filter((r) => r.status === 'error').length;
+  const withWarnings = previewRows.filter((r) => r.status === 'warning').length;
+  return {
+    proposal: p,
+    targets: mapped.map((c) => c.target as string),
+    rows: previewRows,
+    equipment: parsed.equipment,
+    cases: parsed.cases,
+    problems,
+    counts: { rows: previewRows.length, ok: previewRows.length - withErrors - withWarnings, withErrors, withWarnings },
+    canApply: p.missing.length === 0 && !problems.some((x) => x.severity === 'error'),
+  };
+}
