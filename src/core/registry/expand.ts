@@ -46,10 +46,12 @@ export function expandCall(spec: FunctionSpec, args: ArgTexts): string {
     if (!isOptional(p) && isCellReference(t)) guards.push(`ISBLANK(${t})`);
     guards.push(...domainGuards(t, p));
   });
-  guards.push(...(spec.expandGuards?.(texts) ?? []));
-  const body = spec.expand(texts);
-  if (guards.length === 0) return body;
-  return `IF(OR(${guards.join(',')}),NA(),${body})`;
+  // Cross-argument guards only run once every argument passed its own guards, as in evaluate:
+  // they may divide by an argument, and OR would pass that error on instead of giving NA().
+  const cross = spec.expandGuards?.(texts) ?? [];
+  const checked = cross.length === 0 ? spec.expand(texts) : `IF(OR(${cross.join(',')}),NA(),${spec.expand(texts)})`;
+  if (guards.length === 0) return checked;
+  return `IF(OR(${guards.join(',')}),NA(),${checked})`;
 }
 
 export { isOptional };

@@ -27,7 +27,7 @@ describe('argument validation', () => {
 
 describe('plain-formula expansion', () => {
   it('guards a required cell reference against blank', () => {
-    expect(expandCall(COSPHI, ['A1', 'B1'])).toBe('IF(OR(ISBLANK(A1),ISBLANK(B1),AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2)))');
+    expect(expandCall(COSPHI, ['A1', 'B1'])).toBe('IF(OR(ISBLANK(A1),ISBLANK(B1)),NA(),IF(OR(AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2))))');
   });
   it('recognises cell references but not ranges', () => {
     expect(isCellReference('$B$2')).toBe(true);
