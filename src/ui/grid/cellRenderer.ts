@@ -1,0 +1,42 @@
+// The grid's one renderer: reads the engine's value for the cell and writes it as text
+// (textContent, never HTML), with classes that make errors, formulas and headers visible.
+import type { HyperFormula } from 'hyperformula';
+import type { ColumnInfo } from '../../core/workbook/document.ts';
+import { cellView, type EngineValue } from './cellView.ts';
+
+export interface RenderContext {
+  readonly engine: HyperFormula;
+  readonly sheetId: () => number;
+  readonly columns: () => readonly ColumnInfo[] | undefined;
+  /** Row 0 is the header row of this sheet. */
+  readonly hasHeaderRow: () => boolean;
+}
+
+const KIND_CLASSES = ['kl-num', 'kl-text', 'kl-bool', 'kl-err', 'kl-empty', 'kl-head', 'kl-calc', 'kl-formula'] as const;
+
+export function makeCellRenderer(ctx: RenderContext) {
+  return function renderCell(
+    _hot: unknown,
+    td: HTMLTableCellElement,
+    row: number,
+    col: number,
+  ): void {
+    const sheet = ctx.sheetId();
+    const address = { sheet, row, col };
+    const header = row === 0 && ctx.hasHeaderRow();
+    const info = ctx.columns()?.[col];
+    let view;
+    try {
+      view = cellView(ctx.engine.getCellValue(address) as EngineValue, header ? undefined : info);
+    } catch {
+      view = cellView(undefined);
+    }
+    td.classList.remove(...KIND_CLASSES);
+    td.classList.add(header ? 'kl-head' : `kl-${view.kind === 'number' ? 'num' : view.kind}`);
+    if (!header && info?.computed) td.classList.add('kl-calc');
+    if (!header && ctx.engine.doesCellHaveFormula(address)) td.classList.add('kl-formula');
+    td.textContent = view.text;
+    if (view.error) td.title = `${view.error.code} ${view.error.message}`;
+    else if (td.title) td.removeAttribute('title');
+  };
+}

@@ -1,0 +1,62 @@
+// Row and fill commands, from the grid's right-click menu, the keyboard and the menu bar.
+import type { WorkbookSession } from '../model/session.ts';
+import type { Selection } from './gridView.ts';
+
+export interface CommandHost {
+  readonly session: WorkbookSession;
+  selection(): Selection | undefined;
+  select(row: number, col: number, row2?: number, col2?: number): void;
+}
+
+export function insertRows(host: CommandHost, where: 'above' | 'below'): void {
+  const sel = host.selection();
+  if (!sel) return;
+  const count = sel.bottom - sel.top + 1;
+  const at = where === 'above' ? sel.top : sel.bottom + 1;
+  host.session.insertRows(sel.sheetId, at, count);
+  host.select(at, sel.left, at + count - 1, sel.right);
+}
+
+export function deleteRows(host: CommandHost): void {
+  const sel = host.selection();
+  if (!sel) return;
+  host.session.removeRows(sel.sheetId, sel.top, sel.bottom - sel.top + 1);
+  host.select(sel.top, sel.col);
+}
+
+/** Fill down: the top row of the selection into the rest; with one row selected, the row above into it. */
+export function fillDown(host: CommandHost): boolean {
+  const sel = host.selection();
+  if (!sel) return false;
+  const sheet = sel.sheetId;
+  const sourceRow = sel.bottom > sel.top ? sel.top : sel.top - 1;
+  if (sourceRow < 0) return false;
+  const targetTop = sel.bottom > sel.top ? sel.top + 1 : sel.top;
+  host.session.fill(
+    { start: { sheet, row: sourceRow, col: sel.left }, end: { sheet, row: sourceRow, col: sel.right } },
+    { start: { sheet, row: targetTop, col: sel.left }, end: { sheet, row: sel.bottom, col: sel.right } },
+  );
+  return true;
+}
+
+export function clearCells(host: CommandHost): void {
+  const sel = host.selection();
+  if (!sel) return;
+  const cells = [];
+  for (let row = sel.top; row <= sel.bottom; row++) for (let col = sel.left; col <= sel.right; col++) cells.push({ row, col, content: null });
+  host.session.setCells(sel.sheetId, cells);
+}
+
+export function contextMenuItems(host: CommandHost) {
+  return {
+    kl_row_above: { name: 'Insert rows above', callback: () => insertRows(host, 'above') },
+    kl_row_below: { name: 'Insert rows below', callback: () => insertRows(host, 'below') },
+    kl_row_delete: { name: 'Delete rows', callback: () => deleteRows(host) },
+    sep1: '---------',
+    kl_fill_down: { name: 'Fill down   Ctrl+D', callback: () => void fillDown(host) },
+    kl_clear: { name: 'Clear contents   Del', callback: () => clearCells(host) },
+    sep2: '---------',
+    copy: { name: 'Copy   Ctrl+C' },
+    cut: { name: 'Cut   Ctrl+X' },
+  };
+}

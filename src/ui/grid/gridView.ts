@@ -1,0 +1,187 @@
+// The grid over the open workbook: one Handsontable showing the current sheet. The engine is the
+// source of truth; the grid shows engine values through its renderer and hands every edit,
+// paste, fill and row change to the session as one undoable step (see gridEdits.ts).
+import type { GridSettings, HotInstance } from 'handsontable/base';
+import type { ColumnInfo } from '../../core/workbook/document.ts';
+import { columnLetters } from '../model/address.ts';
+import type { SessionChange, WorkbookSession } from '../model/session.ts';
+import { escapeHtml } from '../dom.ts';
+import { widthPx } from '../format/columnHeader.ts';
+import { makeCellRenderer } from './cellRenderer.ts';
+import { decorateColumnHeader } from './columnHeaderView.ts';
+import { gridData } from './gridData.ts';
+import { GRID_LICENSE_KEY, Handsontable, registerGridModules } from './hotModules.ts';
+import { installEditHandlers, type EditHost } from './gridEdits.ts';
+import { contextMenuItems } from './gridMenu.ts';
+
+export interface Selection {
+  readonly sheetId: number;
+  /** The active cell. */
+  readonly row: number;
+  readonly col: number;
+  /** The selected block (ordered). */
+  readonly top: number;
+  readonly left: number;
+  readonly bottom: number;
+  readonly right: number;
+}
+
+export interface GridCallbacks {
+  onSelect(sel: Selection): void;
+  onEditorOpen(input: HTMLTextAreaElement | HTMLInputElement): void;
+  onKey(e: KeyboardEvent): boolean;
+  onNotice(text: string): void;
+}
+
+/** Only text ever reaches the grid's HTML sinks; pasted HTML is dropped so the TSV text is used. */
+function textOnlySanitizer(content: string, source: string): string {
+  return source.startsWith('CopyPaste') ? '' : escapeHtml(content);
+}
+
+export class GridView implements EditHost {
+  readonly hot: HotInstance;
+  private current = -1;
+  /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
+  applying = false;
+
+  constructor(host: HTMLElement, readonly session: WorkbookSession, readonly callbacks: GridCallbacks) {
+    registerGridModules();
+    const renderer = makeCellRenderer({
+      engine: session.engine,
+      sheetId: () => this.current,
+      columns: () => this.columns(),
+      hasHeaderRow: () => this.hasHeaderRow(),
+    });
+    const settings: GridSettings = {
+      data: [['']],
+      licenseKey: GRID_LICENSE_KEY,
+      themeName: 'ht-theme-main',
+      renderer,
+      editor: 'text',
+      rowHeaders: true,
+      colHeaders: (i: number) => columnLetters(i),
+      afterGetColHeader: (col: number, th: HTMLTableCellElement) => decorateColumnHeader(col, th, this.columns()),
+      width: '100%',
+      height: '100%',
+      outsideClickDeselects: false,
+      autoWrapRow: false,
+      autoWrapCol: false,
+      enterBeginsEditing: true,
+      fillHandle: { autoInsertRow: false },
+      manualColumnResize: true,
+      copyPaste: { copyColumnHeaders: false },
+      contextMenu: { items: contextMenuItems(this) },
+      sanitizer: textOnlySanitizer,
+      minSpareRows: 5,
+      afterSelection: () => this.reportSelection(),
+      afterBeginEditing: () => {
+        const editor = this.hot.getActiveEditor() as unknown as { TEXTAREA?: HTMLTextAreaElement | HTMLInputElement } | undefined;
+        if (editor?.TEXTAREA) callbacks.onEditorOpen(editor.TEXTAREA);
+      },
+      beforeKeyDown: (e: KeyboardEvent) => {
+        if (callbacks.onKey(e)) {
+          e.preventDefault();
+          e.stopImmediatePropagation();
+        }
+      },
+    };
+    this.hot = new Handsontable(host, settings) as HotInstance;
+    installEditHandlers(this);
+    session.onChange((c) => this.onSessionChange(c));
+  }
+
+  get sheetId(): number {
+    return this.current;
+  }
+
+  columns(): readonly ColumnInfo[] | undefined {
+    return this.current < 0 ? undefined : this.session.meta(this.current).columns;
+  }
+
+  hasHeaderRow(): boolean {
+    return (this.columns()?.length ?? 0) > 0;
+  }
+
+  /** Show a sheet: its data, frozen header row, column widths. */
+  show(sheetId: number): void {
+    this.current = sheetId;
+    const cols = this.columns();
+    this.hot.updateSettings({
+      data: gridData(this.session.sheetContents(sheetId), cols?.length ?? 0),
+      fixedRowsTop: this.hasHeaderRow() ? 1 : 0,
+      colWidths: (i: number) => widthPx(cols?.[i], cols ? 9 : 11),
+    });
+    this.hot.selectCell(this.hasHeaderRow() ? 1 : 0, 0);
+    this.reportSelection();
+  }
+
+  /** Reload the grid's copy of the sheet from the engine (after pastes, fills, row changes, undo). */
+  reload(): void {
+    if (this.current < 0) return;
+    if (!this.session.sheetIds().includes(this.current)) return;
+    this.hot.updateData(gridData(this.session.sheetContents(this.current), this.columns()?.length ?? 0));
+    this.reportSelection();
+  }
+
+  private onSessionChange(c: SessionChange): void {
+    if (c.kind === 'title' || c.kind === 'sheets') {
+      this.hot.render();
+      return;
+    }
+    if (this.applying && c.kind === 'cells' && c.sheetId === this.current) {
+      this.hot.render();
+      return;
+    }
+    this.reload();
+  }
+
+  selection(): Selection | undefined {
+    const range = this.hot.getSelectedRangeLast();
+    if (!range || this.current < 0) return undefined;
+    const tl = range.getTopStartCorner();
+    const br = range.getBottomEndCorner();
+    const clamp = (n: number | null | undefined) => Math.max(0, n ?? 0);
+    return {
+      sheetId: this.current,
+      row: clamp(range.highlight.row),
+      col: clamp(range.highlight.col),
+      top: clamp(tl.row),
+      left: clamp(tl.col),
+      bottom: clamp(br.row),
+      right: clamp(br.col),
+    };
+  }
+
+  reportSelection(): void {
+    const sel = this.selection();
+    if (sel) this.callbacks.onSelect(sel);
+  }
+
+  select(row: number, col: number, row2 = row, col2 = col): void {
+    this.hot.selectCell(row, col, row2, col2);
+  }
+
+  /** Open the cell editor on the active cell with the given text (e.g. from "insert into cell"). */
+  editWith(text: string): void {
+    const sel = this.selection();
+    if (!sel) return;
+    this.hot.selectCell(sel.row, sel.col);
+    const editor = this.hot.getActiveEditor() as unknown as { beginEditing(v?: string): void; TEXTAREA?: HTMLTextAreaElement } | undefined;
+    editor?.beginEditing(text);
+    const ta = editor?.TEXTAREA;
+    if (ta) ta.setSelectionRange(text.length, text.length);
+  }
+
+  isEditing(): boolean {
+    const editor = this.hot.getActiveEditor() as unknown as { isOpened?: () => boolean } | undefined;
+    return editor?.isOpened?.() === true;
+  }
+
+  focus(): void {
+    this.hot.listen();
+  }
+
+  destroy(): void {
+    this.hot.destroy();
+  }
+}

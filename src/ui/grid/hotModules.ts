@@ -1,0 +1,25 @@
+// The grid library is imported piece by piece (its base plus the few plugins registered here) to
+// keep the initial download inside the budget; the full package would add what we never use.
+import Handsontable from 'handsontable/base';
+import { registerPlugin } from 'handsontable/plugins/registry';
+import { CopyPaste } from 'handsontable/plugins/copyPaste';
+import { ContextMenu } from 'handsontable/plugins/contextMenu';
+import { Autofill } from 'handsontable/plugins/autofill';
+import { ManualColumnResize } from 'handsontable/plugins/manualColumnResize';
+import 'handsontable/styles/ht-theme-main-no-icons.css';
+
+let registered = false;
+
+export function registerGridModules(): void {
+  if (registered) return;
+  registerPlugin(CopyPaste);
+  registerPlugin(ContextMenu);
+  registerPlugin(Autofill);
+  registerPlugin(ManualColumnResize);
+  registered = true;
+}
+
+/** The grid's licence key: the non-commercial terms (commercial users need their own licence). */
+export const GRID_LICENSE_KEY = 'non-commercial-and-evaluation';
+
+export { Handsontable };
