@@ -9,8 +9,9 @@
 //       values on the rows whose bus column names that bus (names compared ignoring case,
 //       like SUMIF; text and blank values count as nothing, like SUMIF).
 //   BUS.SUMS.SPLIT(...same arguments...)
-//     → two columns per value column: the sum of the positive values, then of the negative
-//       ones (absorbed and delivered kvar in the load convention).
+//     → two columns per value column: the sum of the positive values, then the size of the
+//       sum of the negative ones (absorbed and delivered kvar in the load convention, both
+//       shown as positive amounts, so value = first − second).
 // An error value on a row that belongs to a bus shows in that bus's cell of that column only,
 // so one bad item marks its own bus, as SUMIF would.
 import { ArraySize, CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
@@ -32,31 +33,37 @@ export interface KeyedColumns {
   value(row: number, col: number): Cell;
 }
 
-/** Fold bus names the way the comparison ignores case. */
-function fold(name: string): string {
-  return name.toUpperCase();
+/**
+ * The comparison key of a bus name, ignoring case. A name like "1" that the engine read as a
+ * number still matches (both sides are read the same way); blanks, booleans and errors name no bus.
+ */
+function busKey(v: Cell): string | undefined {
+  if (typeof v === 'string') return v === '' ? undefined : v.toUpperCase();
+  if (typeof v === 'number') return String(v);
+  return undefined;
 }
 
 /**
  * The kernel: totals per bus (rows of `buses`) for every value column, or per column the
- * positive and the negative part when `split`. Pure: no engine involved, so it is tested directly.
+ * positive part and the size of the negative part when `split`. Pure: no engine involved, so it is tested directly.
  */
 export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[], split: boolean): Cell[][] {
   const width = pairs[0]?.width ?? 0;
   const index = new Map<string, number[]>();
   buses.forEach((b, i) => {
-    if (typeof b !== 'string' || b === '') return;
-    const list = index.get(fold(b)) ?? [];
+    const key = busKey(b);
+    if (key === undefined) return;
+    const list = index.get(key) ?? [];
     list.push(i);
-    index.set(fold(b), list);
+    index.set(key, list);
   });
   const outWidth = split ? 2 * width : width;
   const out: Cell[][] = buses.map(() => new Array<Cell>(outWidth).fill(0));
   for (const pair of pairs) {
     for (let r = 0; r < pair.height; r++) {
-      const key = pair.key(r);
-      if (typeof key !== 'string') continue;
-      const targets = index.get(fold(key));
+      const key = busKey(pair.key(r));
+      if (key === undefined) continue;
+      const targets = index.get(key);
       if (targets === undefined) continue;
       for (let c = 0; c < width; c++) {
         const v = pair.value(r, c);
@@ -70,10 +77,11 @@ export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[],
         }
         if (typeof v !== 'number' || v === 0) continue;
         const col = split ? 2 * c + (v > 0 ? 0 : 1) : c;
+        const amount = split && v < 0 ? -v : v;
         for (const t of targets) {
           const row = out[t] as Cell[];
           const prev = row[col];
-          if (typeof prev === 'number') row[col] = prev + v;
+          if (typeof prev === 'number') row[col] = prev + amount;
         }
       }
     }

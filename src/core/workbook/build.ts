@@ -1,0 +1,86 @@
+// buildWorkbook: a site becomes a workbook of live formulas. Sheets, in order: Site (settings),
+// one sheet per equipment class, Buses, Compensation. Inputs are the site's values as typed;
+// every computed cell is a formula of catalogue and classic functions that refers to its inputs
+// and to the Site sheet by cell, so an edit in the grid flows through to the point of connection.
+import type { EquipmentRow, Site } from '../site/model.ts';
+import { buildBusGraph } from '../site/graph.ts';
+import { busVoltages } from '../site/voltages.ts';
+import type { SheetDoc, WorkbookDoc } from './document.ts';
+import { EQUIPMENT_SHEETS, SHEETS } from './buildLayout.ts';
+import { planColumns } from './buildColumns.ts';
+import { buildEquipmentSheet, type EquipmentSheetPlan } from './buildEquipment.ts';
+import { buildBusesSheet, planBusColumns, type BranchRef, type BusEntry, type Flavour } from './buildBuses.ts';
+import { buildSettingsSheet } from './buildSettings.ts';
+import { cellOn } from './buildRefs.ts';
+
+export type { Flavour } from './buildBuses.ts';
+
+export interface BuildOptions {
+  /**
+   * 'live': bus totals by one BUS.SUMS call (needs the engine's roll-up plugin; fast for the app).
+   * 'portable': only catalogue and classic functions (SUMIF/SUMIFS), for the xlsx export.
+   */
+  readonly flavour: Flavour;
+}
+
+/** The bus list: the point of connection first, then level by level, then any bus the tree misses. */
+function busEntries(site: Site, plans: readonly EquipmentSheetPlan[]): BusEntry[] {
+  const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
+  const names = [...graph.order, ...[...graph.firstRow.keys()].filter((b) => !graph.level.has(b))];
+  const where = new Map<EquipmentRow, { plan: EquipmentSheetPlan; row: number }>();
+  for (const plan of plans) plan.rows.forEach((r, i) => where.set(r, { plan, row: i + 1 }));
+  const byRowNumber = new Map<number, EquipmentRow>();
+  for (const r of site.equipment) if (!byRowNumber.has(r.row)) byRowNumber.set(r.row, r);
+  const voltages = busVoltages(site.equipment).voltages;
+
+  return names.map((name) => {
+    const feeder = graph.feeder.get(name);
+    const v = voltages.get(name);
+    const src = v ? byRowNumber.get(v.row) : undefined;
+    const at = src ? where.get(src) : undefined;
+    const uCol = at?.plan.cols.input.get('u_kv');
+    const level = graph.level.get(name);
+    return {
+      name,
+      ...(level !== undefined ? { level } : {}),
+      ...(feeder ? { fedBy: feeder.tag, upstream: feeder.bus } : {}),
+      ...(at && uCol !== undefined ? { uRef: cellOn(at.plan.layout.sheet, at.row, uCol, true) } : {}),
+    };
+  });
+}
+
+export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
+  const cases = site.settings.cases;
+  const plans: EquipmentSheetPlan[] = EQUIPMENT_SHEETS.map((layout) => {
+    const rows = site.equipment.filter((r) => layout.kinds.includes(r.kind));
+    return { layout, rows, cols: planColumns(layout, cases, rows) };
+  });
+  const buses = busEntries(site, plans);
+  const busRow = new Map(buses.map((b, i) => [b.name, i + 1]));
+  const busCols = planBusColumns(cases);
+
+  const branchesFrom = new Map<string, BranchRef[]>();
+  for (const plan of plans) {
+    if (plan.layout.role !== 'branch') continue;
+    plan.rows.forEach((r, i) => {
+      if (!r.to_bus || !busRow.has(r.to_bus) || !busRow.has(r.bus)) return;
+      const list = branchesFrom.get(r.bus) ?? [];
+      list.push({ plan, row: i + 1, toBus: r.to_bus });
+      branchesFrom.set(r.bus, list);
+    });
+  }
+
+  const ctx = {
+    cases,
+    busApparentPower: (bus: string, k: number) => {
+      const r = busRow.get(bus);
+      return r === undefined ? undefined : cellOn(SHEETS.buses, r, busCols.s[k] as number, true);
+    },
+  };
+  const sheets: SheetDoc[] = [
+    buildSettingsSheet(site.settings),
+    ...plans.map((p) => buildEquipmentSheet(p, ctx)),
+    buildBusesSheet({ cases, buses, cols: busCols, plans, branchesFrom, flavour: opts.flavour }),
+  ];
+  return { format: 'kvar-ledger-workbook', version: 1, title: site.settings.name, sheets };
+}

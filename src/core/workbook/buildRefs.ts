@@ -1,0 +1,51 @@
+// A1-style references for the formulas the workbook builder writes. Rows and columns are
+// 0-based here (as in SheetDoc.cells) and become 1-based letters and numbers in the text.
+
+/** 0 → A, 25 → Z, 26 → AA. */
+export function columnLetters(col: number): string {
+  let n = col + 1;
+  let s = '';
+  while (n > 0) {
+    const r = (n - 1) % 26;
+    s = String.fromCharCode(65 + r) + s;
+    n = Math.floor((n - 1) / 26);
+  }
+  return s;
+}
+
+/** Sheet name as a formula prefix: bare when it is a plain word, quoted otherwise. */
+export function sheetPrefix(sheet: string): string {
+  return /^[A-Za-z_][A-Za-z0-9_]*$/.test(sheet) ? `${sheet}!` : `'${sheet.replace(/'/g, "''")}'!`;
+}
+
+/** A cell on the same sheet, relative: F12. */
+export function cell(row: number, col: number): string {
+  return `${columnLetters(col)}${row + 1}`;
+}
+
+/** A cell fixed in place: $F$12. */
+export function absCell(row: number, col: number): string {
+  return `$${columnLetters(col)}$${row + 1}`;
+}
+
+/** A cell on another sheet: Motors!F12 (or the absolute form). */
+export function cellOn(sheet: string | undefined, row: number, col: number, absolute = false): string {
+  const ref = absolute ? absCell(row, col) : cell(row, col);
+  return sheet === undefined ? ref : sheetPrefix(sheet) + ref;
+}
+
+/** A fixed block: Motors!$C$2:$C$51 (rows and columns inclusive). */
+export function rangeOn(sheet: string | undefined, row0: number, col0: number, row1: number, col1: number): string {
+  const ref = `${absCell(row0, col0)}:${absCell(row1, col1)}`;
+  return sheet === undefined ? ref : sheetPrefix(sheet) + ref;
+}
+
+/** A text literal inside a formula. */
+export function textLiteral(text: string): string {
+  return `"${text.replace(/"/g, '""')}"`;
+}
+
+/** A number literal as the engine and other programs read it. */
+export function numberLiteral(x: number): string {
+  return String(x);
+}
