@@ -33,6 +33,28 @@ describe('robustness', () => {
   });
 });
 
+/** Numbers only, mixing plausible values with extremes, so that many calls reach the compute. */
+const numericArg = fc.oneof(
+  fc.constantFrom(0, 0.5, 0.8, 0.95, 1, 1.2, 7, 14, 50, 60, 100, 400, 1000),
+  fc.constantFrom(1e-300, 1e300, Number.MAX_VALUE, Number.MIN_VALUE, 5e-324, -1e300),
+  fc.double({ min: -1e3, max: 1e3, noNaN: true }),
+);
+
+describe('robustness at extreme magnitudes', () => {
+  it.each(CATALOGUE.map((s) => [s.name, s] as const))('%s: huge and tiny numbers give finite results or named errors', (_n, spec) => {
+    let computed = 0;
+    fc.assert(
+      fc.property(fc.array(numericArg, { minLength: spec.params.length, maxLength: spec.params.length }), (args) => {
+        const r = evaluate(spec, args);
+        if (r.ok) computed++;
+        return r.ok ? Number.isFinite(r.value) : r.message.startsWith(`${spec.name}: `) && !r.message.includes('internal error');
+      }),
+      { numRuns: 400 },
+    );
+    expect(computed).toBeGreaterThan(0); // the property reached the compute, not only validation
+  });
+});
+
 const finite = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
 const cos = fc.double({ min: 0.01, max: 1, noNaN: true });
 
