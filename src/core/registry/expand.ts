@@ -18,26 +18,43 @@ function domainGuards(t: string, p: ParamSpec): string[] {
   return out;
 }
 
+/** An optional argument whose default is "omitted" changes the formula itself, not a value. */
+function defaultIsOmitted(p: ParamSpec): boolean {
+  return typeof p.default === 'object' && 'omitted' in p.default;
+}
+
 /**
  * Expand one call. `args` are the argument formula texts (already expanded and parenthesised
  * where needed); undefined for arguments not given. A bare cell reference given for an optional
  * argument is treated like the engine treats it: blank means "use the default".
  */
 export function expandCall(spec: FunctionSpec, args: ArgTexts): string {
-  const blankOptional = spec.params.findIndex((p, i) => isOptional(p) && args[i] !== undefined && isCellReference(args[i] as string));
-  if (blankOptional >= 0) {
-    const ref = args[blankOptional] as string;
-    const without = args.map((a, i) => (i === blankOptional ? undefined : a));
-    return `IF(ISBLANK(${ref}),${expandCall(spec, without)},${expandCall(spec, args.map((a, i) => (i === blankOptional ? `(${ref}+0)` : a)))})`;
+  // A blank reference for an "omitted" default selects a different formula: split the call.
+  const blankOmitted = spec.params.findIndex((p, i) => defaultIsOmitted(p) && args[i] !== undefined && isCellReference(args[i] as string));
+  if (blankOmitted >= 0) {
+    const ref = args[blankOmitted] as string;
+    const without = args.map((a, i) => (i === blankOmitted ? undefined : a));
+    return `IF(ISBLANK(${ref}),${expandCall(spec, without)},${expandCall(spec, args.map((a, i) => (i === blankOmitted ? `(${ref}+0)` : a)))})`;
   }
   const texts: Array<string | undefined> = spec.params.map((_, i) => args[i]);
-  // Defaults: constants become literals; sameAs copies the other argument's text.
-  spec.params.forEach((p, i) => {
-    if (texts[i] !== undefined || p.default === undefined) return;
+  const defaultText = (p: ParamSpec, bool: (b: boolean) => string): string | undefined => {
     const d = p.default;
-    if (typeof d === 'number') texts[i] = formatNumber(d);
-    else if (typeof d === 'boolean') texts[i] = d ? 'TRUE' : 'FALSE';
-    else if ('sameAs' in d) texts[i] = texts[spec.params.findIndex((q) => q.name === d.sameAs)];
+    if (typeof d === 'number') return formatNumber(d);
+    if (typeof d === 'boolean') return bool(d);
+    if (d && 'sameAs' in d) return texts[spec.params.findIndex((q) => q.name === d.sameAs)];
+    return undefined;
+  };
+  // Defaults of arguments not given: constants become literals; sameAs copies the other text.
+  spec.params.forEach((p, i) => {
+    if (texts[i] === undefined) texts[i] = defaultText(p, (b) => (b ? 'TRUE' : 'FALSE'));
+  });
+  // A blank reference for a constant or sameAs default: the value is chosen inline, which keeps
+  // the formula linear in the number of such arguments (splitting the call doubled it for each).
+  spec.params.forEach((p, i) => {
+    const t = args[i];
+    if (!isOptional(p) || t === undefined || !isCellReference(t)) return;
+    const fallback = defaultText(p, (b) => (b ? 'TRUE()' : 'FALSE()'));
+    if (fallback !== undefined) texts[i] = `IF(ISBLANK(${t}),${fallback},${t})`;
   });
   const guards: string[] = [];
   spec.params.forEach((p, i) => {
