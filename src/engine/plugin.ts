@@ -15,7 +15,7 @@ import { CellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin,
 import type { FunctionMetadata, ImplementedFunctions } from 'hyperformula';
 import { CATALOGUE } from '../core/functions/index.ts';
 import { evaluate, type RawArg } from '../core/registry/evaluate.ts';
-import { argLabel, msg, withFunction } from '../core/registry/messages.ts';
+import { msg, withFunction } from '../core/registry/messages.ts';
 import { isOptional, type FunctionSpec } from '../core/registry/spec.ts';
 import { ENGINE_LANGUAGE } from './config.ts';
 
@@ -54,7 +54,7 @@ export class CataloguePlugin extends FunctionPlugin {
       }
       const param = range ? spec.params[range.position - 1] : undefined;
       if (range && param) {
-        const tail = `${argLabel(range.position, param)} must be one value or one cell; got a range of ${range.rows}×${range.cols} cells`;
+        const tail = msg.notOneValue(range.position, param, `a range of ${range.rows}×${range.cols} cells`);
         return new CellError(ErrorType.NA, withFunction(spec.name, tail));
       }
       // A range beyond the last parameter falls through: evaluate reports the argument count.

@@ -48,6 +48,8 @@ export const msg = {
   internal: (e: unknown) => `internal error: ${e instanceof Error ? e.message : String(e)}`,
   /** A cross-argument rule, e.g. "argument 2 (p_kw) must not exceed argument 1 (s_kva); got 120 > 100". */
   relation: (text: string) => text,
+  /** A range where one value belongs; `what` is e.g. "a range of 2×3 cells" or "the range A1:B3". */
+  notOneValue: (pos: number, p: ParamSpec, what: string) => `${argLabel(pos, p)} must be one value or one cell; got ${what}`,
 } as const;
 
 export function withFunction(name: string, tail: string): string {

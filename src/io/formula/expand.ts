@@ -34,8 +34,17 @@ function arityProblem(spec: FunctionSpec, args: readonly (Node | null)[]): strin
   return args.length < required ? `${msg.tooFew(required, args.length)}; ${missing}` : missing;
 }
 
+/** A range or array given where one value belongs (the engine reports it; a plain formula would not). */
+function rangeProblem(spec: FunctionSpec, args: readonly (Node | null)[]): string | undefined {
+  const i = args.findIndex((a) => (a?.type === 'ref' && a.range) || a?.type === 'array');
+  const a = args[i];
+  const p = spec.params[i];
+  if (!a || !p) return undefined;
+  return msg.notOneValue(i + 1, p, a.type === 'array' ? `the array ${printNode(a)}` : `the range ${printNode(a)}`);
+}
+
 function expandCatalogueCall(spec: FunctionSpec, call: CallNode, args: readonly (Node | null)[]): Node {
-  const problem = arityProblem(spec, args);
+  const problem = arityProblem(spec, args) ?? rangeProblem(spec, args);
   if (problem) throw new ExpandError(withFunction(spec.name, problem) + where(call));
   const texts = spec.params.map((_, i) => {
     const a = args[i];
