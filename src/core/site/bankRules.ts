@@ -1,0 +1,119 @@
+// The rules of thumb and series a bank design is chosen from. Every threshold is a named
+// constant with where it comes from: "published" (a standard says so) or "common practice"
+// (the trade's habit, no single source). Change them here, nowhere else.
+import { runCall } from './calls.ts';
+
+/** Characteristic harmonics of six-pulse converters, h = 6k ± 1 (published: IEEE Std 519, IEC 61000-2-4). */
+export const CHARACTERISTIC_HARMONICS: readonly number[] = [5, 7, 11, 13];
+
+/** A parallel resonance closer than this share to a characteristic harmonic is flagged (common practice: ±10 %). */
+export const RESONANCE_MARGIN = 0.1;
+
+/** Detuning factors offered (common practice; tuning orders 4.20, 3.78, 2.67). */
+export const DETUNING_CHOICES: readonly number[] = [5.67, 7, 14];
+/** Used when resonance forces detuning (common practice: 7 % for networks where the 5th dominates). */
+export const DEFAULT_DETUNING_PCT = 7;
+/** Used instead when the option says the 3rd harmonic is significant (common practice: 14 %). */
+export const THIRD_HARMONIC_DETUNING_PCT = 14;
+
+/** Step outputs offered at the operating voltage, kvar (common practice: makers' usual step sizes). */
+export const STEP_SERIES_KVAR: readonly number[] = [
+  5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300, 400, 500, 600, 750,
+  1000, 1250, 1500, 2000, 2500, 3000, 4000, 5000,
+];
+/** Fixed capacitor outputs, kvar (common practice; small units for transformer no-load compensation). */
+export const FIXED_SERIES_KVAR: readonly number[] = [2.5, 5, 7.5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 150, 200];
+/** Shunt reactor ratings, kvar (common practice). */
+export const REACTOR_SERIES_KVAR: readonly number[] = [
+  50, 100, 150, 200, 250, 300, 400, 500, 600, 750, 1000, 1250, 1500, 2000, 2500, 3000, 4000, 5000, 6000, 8000, 10000, 12500, 15000, 20000,
+];
+
+/** Made-to-order reactor ratings are rounded up to this, kvar (common practice). */
+export const REACTOR_ROUNDING_KVAR = 50;
+
+/** Low voltage is up to 1 kV AC (published: IEC 60038 / IEC 60050-601). */
+export const LV_MAX_KV = 1;
+/** Steps aimed for: LV controllers commonly have 6 or 12 outputs, MV banks 1–4 stages (common practice). */
+export const PREFERRED_STEPS_LV = 6;
+export const PREFERRED_STEPS_MV = 3;
+/** A bus whose share of the need stays below this is not given a bank of its own (common practice). */
+export const MIN_BANK_KVAR_LV = 25;
+export const MIN_BANK_KVAR_MV = 300;
+
+/** Capacitor rated voltage at least this share above the voltage across it (common practice for detuned banks: +10 %). */
+export const CAP_VOLTAGE_MARGIN = 0.1;
+/** Capacitors stand 1.10 Un for 8 h in 24 h only (published: IEC 60831-1 and IEC 60871-1). */
+export const CAP_OVERVOLTAGE_LIMIT = 1.1;
+/** Below this share of the rating a capacitor gives much less than its nameplate (it scales with U²; common practice). */
+export const CAP_UNDERUSE = 0.9;
+/** LV capacitor rated voltages, kV (common practice: makers' ranges). */
+export const LV_CAPACITOR_RATINGS_KV: readonly number[] = [0.4, 0.415, 0.44, 0.48, 0.525, 0.55, 0.69, 0.8, 0.9, 1.0];
+
+/** Steady-state voltage step on switching one step, %: above this, warn (common practice: ~3 %, cf. rapid voltage change limits). */
+export const STEP_VRISE_LIMIT_PCT = 3;
+
+export function isLowVoltage(uKv: number): boolean {
+  return uKv <= LV_MAX_KV;
+}
+
+/** Smallest value of the series at or above q; the largest when q exceeds them all. */
+export function roundUpToSeries(q: number, series: readonly number[]): number {
+  return series.find((s) => s >= q - 1e-9) ?? (series[series.length - 1] as number);
+}
+
+/** Largest value of the series at or below q; 0 when q is below them all. */
+export function roundDownToSeries(q: number, series: readonly number[]): number {
+  let out = 0;
+  for (const s of series) if (s <= q + 1e-9) out = s;
+  return out;
+}
+
+/** Smallest standard step that covers q in at most the preferred number of steps for the voltage. */
+export function chooseStep(qKvar: number, uKv: number): { step: number; steps: number } {
+  const preferred = isLowVoltage(uKv) ? PREFERRED_STEPS_LV : PREFERRED_STEPS_MV;
+  const step = STEP_SERIES_KVAR.find((s) => Math.ceil(qKvar / s - 1e-9) <= preferred) ?? (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
+  return { step, steps: Math.max(1, Math.ceil(qKvar / step - 1e-9)) };
+}
+
+/** Rated voltage for capacitors that see uCapKv: LV from the makers' range, MV rounded up to 0.1 kV. */
+export function capacitorRatedVoltage(uCapKv: number): number {
+  const wanted = uCapKv * (1 + CAP_VOLTAGE_MARGIN);
+  if (isLowVoltage(uCapKv)) {
+    const lv = LV_CAPACITOR_RATINGS_KV.find((u) => u >= wanted - 1e-9);
+    if (lv !== undefined) return lv;
+  }
+  return Math.ceil(wanted * 10 - 1e-9) / 10;
+}
+
+/** The harmonic within RESONANCE_MARGIN of order h, if any. */
+export function nearHarmonic(h: number): number | undefined {
+  return CHARACTERISTIC_HARMONICS.find((n) => Math.abs(h - n) <= RESONANCE_MARGIN * n);
+}
+
+/** Output magnitude per 1 kvar of nameplate at uRated, run at u with p % detuning: |KVAR.CAPBANK(1, ...)|. */
+export function outputPerNameplateKvar(uRatedKv: number, uKv: number, pPct: number, hz: number): number {
+  const r = runCall({ fn: 'KVAR.CAPBANK', args: [1, uRatedKv, uKv, pPct, hz, hz], columns: [] });
+  if (!r.ok) throw new Error(r.message);
+  return -r.value;
+}
+
+/** CAPBANK.UCAP through the catalogue. */
+export function capacitorVoltage(uKv: number, pPct: number): number {
+  const r = runCall({ fn: 'CAPBANK.UCAP', args: [uKv, pPct], columns: [] });
+  if (!r.ok) throw new Error(r.message);
+  return r.value;
+}
+
+/** RESONANCE.ORDER through the catalogue; undefined when there is no capacitor. */
+export function resonanceOrderOf(sscMva: number, qKvar: number, pPct: number): number | undefined {
+  if (!(qKvar > 0)) return undefined;
+  const r = runCall({ fn: 'RESONANCE.ORDER', args: [sscMva, qKvar, pPct], columns: [] });
+  return r.ok ? r.value : undefined;
+}
+
+/** VRISE.PCT through the catalogue. */
+export function voltageRise(qKvar: number, sscMva: number): number {
+  const r = runCall({ fn: 'VRISE.PCT', args: [Math.max(qKvar, 0), sscMva], columns: [] });
+  if (!r.ok) throw new Error(r.message);
+  return r.value;
+}

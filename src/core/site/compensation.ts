@@ -1,0 +1,271 @@
+// Compensation design for a whole site across all its operating cases.
+//
+// 1. The need: at the point of connection, per case, the capacitive kvar to come down to the
+//    lagging limit and the inductive kvar to come up to the leading limit (requirement.ts).
+//    The same is reported for every bus, as if a bank there alone had to meet the requirement.
+// 2. Capacitors go where the lagging demand is: by default every bus whose own items draw kvar
+//    (or the buses named in options.bankBuses). In each case the root's need is shared among
+//    them in proportion to their own lagging kvar; a bus whose largest share stays below the
+//    minimum bank size gives its share to the others. Each bank is sized over all cases
+//    (bankSizing.ts) and its steps follow the need case by case.
+// 3. The proposal is checked by rolling the site up again with the proposed rows added; if the
+//    requirement is still missed (e.g. transformer kvar that moved with the loading), the
+//    shortfall is added and the banks resized, a few passes at most.
+// 4. Where the site is still leading beyond the limit (cable and line charging at light load,
+//    or fixed capacitors), a shunt reactor goes on the bus with the most charging, switched in
+//    only in the cases that need it.
+import type { EquipmentRow, Site } from './model.ts';
+import { buildBusGraph } from './graph.ts';
+import { rollUp, type BusBalance, type CaseBalance } from './rollup.ts';
+import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
+import { busShortCircuit } from './shortCircuit.ts';
+import { busVoltages } from './voltages.ts';
+import { MIN_BANK_KVAR_LV, MIN_BANK_KVAR_MV, REACTOR_ROUNDING_KVAR, REACTOR_SERIES_KVAR, isLowVoltage } from './bankRules.ts';
+import { bankRows, sizeBank, type BankDesign } from './bankSizing.ts';
+import { checkInstalled } from './installedChecks.ts';
+import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
+
+export interface CompensationOptions {
+  /** Buses that may receive a capacitor bank; default: buses whose own items draw kvar. */
+  readonly bankBuses?: readonly string[];
+  /** Detuning per bus, % (0, 5.67, 7 or 14), overriding the automatic choice. */
+  readonly detuning?: Readonly<Record<string, number>>;
+  /** Significant 3rd harmonic (many single-phase loads): detune at 14 % instead of 7 %. */
+  readonly thirdHarmonic?: boolean;
+  /** Bus for a shunt reactor; default: the bus with the most cable and line charging. */
+  readonly reactorBus?: string;
+}
+
+export interface ReactorDesign {
+  readonly bus: string;
+  readonly u_kv: number;
+  readonly q_kvar: number;
+  readonly in_service: Readonly<Record<string, boolean>>;
+  readonly why: string;
+}
+
+export interface PowerPoint {
+  readonly p_kw: number;
+  readonly q_kvar: number;
+  readonly s_kva: number;
+  readonly cos_phi: number | null;
+  readonly tan_phi: number | null;
+  readonly sense: BusBalance['sense'];
+}
+
+export interface CaseOutcome {
+  readonly case: string;
+  readonly before: PowerPoint;
+  readonly after: PowerPoint;
+  readonly need: Need;
+  readonly met_before: boolean;
+  readonly met_after: boolean;
+}
+
+export interface BusNeed extends Need {
+  readonly bus: string;
+  readonly case: string;
+}
+
+export interface CompensationDesign {
+  readonly requirement: string;
+  readonly lag_tan: number;
+  readonly lead_tan: number;
+  readonly needs: readonly BusNeed[];
+  readonly banks: readonly BankDesign[];
+  readonly reactors: readonly ReactorDesign[];
+  readonly cases: readonly CaseOutcome[];
+  /** The rows that install the proposal (tags NEW-...), for the workbook and the file. */
+  readonly proposedRows: readonly EquipmentRow[];
+  /** Balances with the proposal in place, one per case. */
+  readonly after: readonly CaseBalance[];
+  readonly warnings: readonly DesignWarning[];
+}
+
+const TOL_KVAR = 0.5;
+const MAX_PASSES = 4;
+
+const point = (b: BusBalance): PowerPoint => ({ p_kw: b.p_kw, q_kvar: b.q_kvar, s_kva: b.s_kva, cos_phi: b.cos_phi, tan_phi: b.tan_phi, sense: b.sense });
+const withRows = (site: Site, rows: readonly EquipmentRow[]): Site => ({ settings: site.settings, equipment: [...site.equipment, ...rows] });
+const rollAll = (site: Site) => site.settings.cases.map((c) => rollUp(site, c));
+
+function uniqueTag(base: string, taken: Set<string>): string {
+  let tag = base;
+  for (let i = 2; taken.has(tag); i++) tag = `${base}-${i}`;
+  taken.add(tag);
+  return tag;
+}
+
+/** Share of the root's need per bus and case, in proportion to each bus's own lagging kvar. */
+function allocate(candidates: readonly string[], before: readonly CaseBalance[], need: readonly number[]): Map<string, Record<string, number>> {
+  const out = new Map<string, Record<string, number>>(candidates.map((b) => [b, {}]));
+  before.forEach((bal, i) => {
+    const weights = candidates.map((b) => Math.max(0, bal.buses.find((x) => x.bus === b)?.own_q_kvar ?? 0));
+    const sum = weights.reduce((a, w) => a + w, 0);
+    candidates.forEach((b, k) => {
+      const w = sum > 0 ? (weights[k] as number) / sum : 1 / candidates.length;
+      (out.get(b) as Record<string, number>)[bal.case] = (need[i] ?? 0) * w;
+    });
+  });
+  return out;
+}
+
+export function designCompensation(site: Site, balance?: CaseBalance | readonly CaseBalance[], options: CompensationOptions = {}): CompensationDesign {
+  const given: readonly CaseBalance[] = balance === undefined ? [] : 'case' in balance ? [balance as CaseBalance] : (balance as readonly CaseBalance[]);
+  const cases = site.settings.cases;
+  const before = cases.map((c) => given.find((b) => b.case === c) ?? rollUp(site, c));
+  const req = site.settings.requirement;
+  const band = requirementBand(req);
+  const graph = buildBusGraph(site.equipment);
+  const ssc = busShortCircuit(site, graph);
+  const voltages = busVoltages(site.equipment).voltages;
+  const warnings: DesignWarning[] = [...checkInstalled(site, graph, ssc, voltages)];
+  const needs: BusNeed[] = before.flatMap((bal) => bal.buses.map((b) => ({ bus: b.bus, case: bal.case, ...kvarNeeded(b.p_kw, b.q_kvar, req) })));
+  const taken = new Set(site.equipment.map((r) => r.tag));
+  let nextRow = Math.max(0, ...site.equipment.map((r) => r.row)) + 1;
+
+  // Capacitors.
+  const rootNeed = before.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
+  let banks: BankDesign[] = [];
+  let capRows: EquipmentRow[] = [];
+  let bankWarnings: DesignWarning[] = [];
+  if (Math.max(...rootNeed) > TOL_KVAR) {
+    const lagging = (b: string) => before.some((bal) => (bal.buses.find((x) => x.bus === b)?.own_q_kvar ?? 0) > 0);
+    let candidates = (options.bankBuses ?? graph.order.filter(lagging)).filter((b) => {
+      if (voltages.has(b)) return true;
+      warnings.push(designWarning('warning', 'bus-voltage-unknown', { bus: b }, `no bank proposed on bus ${b}: its voltage is unknown (no row on it states u_kv)`));
+      return false;
+    });
+    if (candidates.length === 0 && graph.root !== undefined && voltages.has(graph.root)) candidates = [graph.root];
+    const extra = rootNeed.map(() => 0);
+    for (let pass = 0; pass < MAX_PASSES && candidates.length > 0; pass++) {
+      const need = rootNeed.map((n, i) => n + (extra[i] as number));
+      let shares = allocate(candidates, before, need);
+      const big = candidates.filter((b) => Math.max(...Object.values(shares.get(b) ?? {})) >= (isLowVoltage(voltages.get(b)?.u_kv ?? 0) ? MIN_BANK_KVAR_LV : MIN_BANK_KVAR_MV));
+      if (big.length > 0 && big.length < candidates.length) shares = allocate(big, before, need);
+      const chosen = big.length > 0 ? big : candidates;
+      banks = [];
+      capRows = [];
+      bankWarnings = [];
+      const tagsNow = new Set(taken);
+      for (const bus of chosen) {
+        const sized = sizeBank(bus, shares.get(bus) ?? {}, {
+          site, graph, sc: ssc.get(bus), uKv: (voltages.get(bus) as { u_kv: number }).u_kv,
+          ...(options.detuning?.[bus] !== undefined ? { detuning: options.detuning[bus] } : {}),
+          ...(options.thirdHarmonic ? { thirdHarmonic: true } : {}),
+        });
+        if (sized.bank.total_kvar <= 0) continue;
+        banks.push(sized.bank);
+        bankWarnings.push(...sized.warnings);
+        const rows = bankRows(sized.bank, uniqueTag(`NEW-C-${bus}`, tagsNow), nextRow, cases);
+        nextRow += rows.length;
+        capRows.push(...rows);
+      }
+      const short = rollAll(withRows(site, capRows)).map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
+      if (short.every((s) => s <= TOL_KVAR)) break;
+      short.forEach((s, i) => (extra[i] = (extra[i] as number) + s));
+    }
+    for (const r of capRows) taken.add(r.tag);
+  }
+  warnings.push(...bankWarnings);
+
+  // Shunt reactor where the site is leading beyond the limit even with every step out.
+  const afterCaps = rollAll(withRows(site, capRows));
+  const leadNeed = afterCaps.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar);
+  const reactors: ReactorDesign[] = [];
+  let reactorRows: EquipmentRow[] = [];
+  if (Math.max(...leadNeed) > TOL_KVAR) {
+    const worst = leadNeed.indexOf(Math.max(...leadNeed));
+    const bal = afterCaps[worst] as CaseBalance;
+    const bus = options.reactorBus ?? chargingBus(bal, voltages, graph.root);
+    const u = bus === undefined ? undefined : voltages.get(bus)?.u_kv;
+    if (bus === undefined || u === undefined) {
+      warnings.push(designWarning('warning', 'bus-voltage-unknown', { bus: bus ?? graph.root ?? '' }, 'a shunt reactor is needed but no bus with a known voltage is available for it (state u_kv on a row of the bus)'));
+    } else {
+      const inService: Record<string, boolean> = {};
+      cases.forEach((c, i) => (inService[c] = (leadNeed[i] as number) > TOL_KVAR));
+      const tag = uniqueTag(`NEW-R-${bus}`, taken);
+      const loads: Record<string, number> = {};
+      for (const c of cases) loads[c] = inService[c] ? 1 : 0;
+      const rowFor = (q: number): EquipmentRow[] => [{ row: nextRow, tag, description: 'proposed shunt reactor', bus, kind: 'reactor', values: { q_kvar: q, u_rated_kv: u, u_kv: u }, loads }];
+      // As for the capacitors: check by rolling up again; transformer kvar moves with the loading.
+      const want = [...leadNeed];
+      let q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
+      for (let pass = 1; pass < MAX_PASSES; pass++) {
+        const short = rollAll(withRows(site, [...capRows, ...rowFor(q)])).map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar);
+        if (short.every((x, i) => x <= TOL_KVAR || !inService[cases[i] as string])) break;
+        short.forEach((x, i) => (want[i] = (want[i] as number) + (inService[cases[i] as string] ? x : 0)));
+        q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
+      }
+      reactors.push({ bus, u_kv: u, q_kvar: q, in_service: inService, why: 'cable and line charging (or fixed capacitors) leave the point of connection leading beyond the limit at light load' });
+      reactorRows = rowFor(q);
+      before.forEach((b, i) => {
+        if ((leadNeed[i] as number) <= TOL_KVAR) return;
+        const charging = b.elements.filter((e) => e.kind === 'cable' || e.kind === 'line').reduce((s, e) => s + e.q_delivered_kvar, 0);
+        warnings.push(designWarning('warning', 'charging-dominates', { bus: b.root.bus, case: b.case },
+          `the point of connection delivers ${(-b.root.q_kvar).toFixed(0)} kvar at ${b.root.p_kw.toFixed(0)} kW (cable and line charging ${charging.toFixed(0)} kvar), beyond the leading limit; a ${q} kvar shunt reactor on bus ${bus} is proposed for this case`));
+      });
+    }
+  }
+
+  const proposedRows = [...capRows, ...reactorRows];
+  const after = rollAll(withRows(site, proposedRows));
+  const outcomes: CaseOutcome[] = before.map((b, i) => {
+    const a = after[i] as CaseBalance;
+    return { case: b.case, before: point(b.root), after: point(a.root), need: kvarNeeded(b.root.p_kw, b.root.q_kvar, req), met_before: meets(b.root.p_kw, b.root.q_kvar, req, TOL_KVAR), met_after: meets(a.root.p_kw, a.root.q_kvar, req, TOL_KVAR) };
+  });
+  warnings.push(...afterChecks(outcomes, after, req, proposedRows));
+  return { requirement: band.text, lag_tan: band.lagTan, lead_tan: band.leadTan, needs, banks, reactors, cases: outcomes, proposedRows, after, warnings: sortWarnings(warnings) };
+}
+
+/**
+ * Reactor rating: enough for the largest leading excess, yet not so much that a case it is
+ * switched in for ends up lagging beyond the limit (its window is need .. need + (lag+lead)·|P|).
+ * A standard rating inside every window if there is one, else the need rounded up to
+ * REACTOR_ROUNDING_KVAR (a made-to-order rating).
+ */
+function reactorSize(bal: readonly CaseBalance[], need: readonly number[], bandWidth: number): number {
+  let lo = 0;
+  let hi = Infinity;
+  need.forEach((n, i) => {
+    if (n <= TOL_KVAR) return;
+    lo = Math.max(lo, n);
+    hi = Math.min(hi, n + bandWidth * Math.abs((bal[i] as CaseBalance).root.p_kw));
+  });
+  const standard = REACTOR_SERIES_KVAR.find((q) => q >= lo && q <= hi);
+  return standard ?? Math.ceil(lo / REACTOR_ROUNDING_KVAR - 1e-9) * REACTOR_ROUNDING_KVAR;
+}
+
+/** The bus with the most cable and line charging in this case (lines count at their upstream bus). */
+function chargingBus(bal: CaseBalance, voltages: ReadonlyMap<string, unknown>, root: string | undefined): string | undefined {
+  const byBus = new Map<string, number>();
+  for (const e of bal.elements) {
+    if ((e.kind === 'cable' || e.kind === 'line') && voltages.has(e.bus)) byBus.set(e.bus, (byBus.get(e.bus) ?? 0) + e.q_delivered_kvar);
+  }
+  let best = root !== undefined && voltages.has(root) ? root : undefined;
+  let most = best === undefined ? -1 : (byBus.get(best) ?? 0);
+  for (const [b, q] of byBus) if (q > most) [best, most] = [b, q];
+  return best;
+}
+
+function afterChecks(outcomes: readonly CaseOutcome[], after: readonly CaseBalance[], req: Site['settings']['requirement'], proposed: readonly EquipmentRow[]): DesignWarning[] {
+  const out: DesignWarning[] = [];
+  outcomes.forEach((o, i) => {
+    const bal = after[i] as CaseBalance;
+    if (!o.met_after) {
+      const n = kvarNeeded(o.after.p_kw, o.after.q_kvar, req);
+      const what = n.capacitive_kvar > 0 ? `${n.capacitive_kvar.toFixed(0)} kvar capacitive still missing` : `${n.inductive_kvar.toFixed(0)} kvar inductive still missing`;
+      out.push(designWarning('warning', 'requirement-not-met', { bus: bal.root.bus, case: o.case },
+        `after the proposal the point of connection is at cos φ ${o.after.cos_phi?.toFixed(3) ?? '–'} ${o.after.sense} (${what}); review the steps or add compensation`));
+    }
+    const leadingTooFar = kvarNeeded(o.after.p_kw, o.after.q_kvar, req).inductive_kvar > TOL_KVAR;
+    for (const b of bal.buses) {
+      const caps = bal.elements.filter((e) => e.bus === b.bus && e.kind === 'capacitor' && e.q_delivered_kvar > 0);
+      if (caps.length === 0 || b.own_q_kvar >= 0) continue;
+      const fromProposal = caps.some((e) => proposed.some((r) => r.tag === e.tag));
+      out.push(designWarning(leadingTooFar ? 'warning' : 'info', 'overcompensation', { bus: b.bus, case: o.case },
+        `bus ${b.bus} is overcompensated: its own items deliver ${(-b.own_q_kvar).toFixed(1)} kvar with capacitors ${caps.map((e) => e.tag).join(', ')} in service${fromProposal ? '' : ' (installed)'}; switch capacitors out at light load`));
+    }
+  });
+  return out;
+}

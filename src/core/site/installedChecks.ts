@@ -1,0 +1,108 @@
+// Checks on the capacitors already in the equipment list: voltage across them against their
+// rating, parallel resonance with the supply, plain and detuned units on one bus, and the motor
+// self-excitation limit.
+//
+// Self-excitation rule (stated here, applied by the design too): a bus that holds exactly one
+// motor row, one or more capacitor rows and nothing else (no loads, generators, cables, reactors,
+// and no transformer or line leaving it) is taken as individual motor compensation: the
+// capacitors are switched with the motor. Their output at the operating voltage, per running
+// motor unit, must not exceed KVAR.MOTORCAP.MAX = 0.9·√3·U·I0 of one motor, with I0 taken from
+// the motor's no-load kvar (i0_pct, or the catalogue's 0.7·Qr assumption when blank).
+import type { EquipmentRow, Site } from './model.ts';
+import { runCall } from './calls.ts';
+import { unitsRunning } from './cases.ts';
+import type { BusGraph } from './graph.ts';
+import type { BusShortCircuit } from './shortCircuit.ts';
+import { CAP_OVERVOLTAGE_LIMIT, CAP_UNDERUSE, capacitorVoltage, nearHarmonic, outputPerNameplateKvar, resonanceOrderOf, RESONANCE_MARGIN } from './bankRules.ts';
+import { designWarning, type DesignWarning } from './warnings.ts';
+import { motorNoLoadReactivePower } from '../elements/motor.ts';
+import { formatNumber } from '../registry/messages.ts';
+
+const f = (x: number, digits = 1) => x.toFixed(digits);
+
+/** Output of an installed capacitor row at its operating voltage, all running units, kvar (> 0). */
+export function installedCapacitorKvar(row: EquipmentRow, hz: number): number {
+  const { q_kvar: q, u_rated_kv: ur, u_kv: u, p_pct: p } = row.values;
+  if (q === undefined || ur === undefined) return 0;
+  try {
+    return q * outputPerNameplateKvar(ur, u ?? ur, p ?? 0, hz) * unitsRunning(row);
+  } catch {
+    return 0;
+  }
+}
+
+/** The motor whose bus holds only it and capacitors (individual compensation), if any. */
+export function soleMotorOf(bus: string, site: Site, graph: BusGraph): EquipmentRow | undefined {
+  if ((graph.branches.get(bus) ?? []).length > 0) return undefined;
+  const items = site.equipment.filter((r) => r.bus === bus && r.kind !== 'transformer' && r.kind !== 'line');
+  const motors = items.filter((r) => r.kind === 'motor');
+  const others = items.filter((r) => r.kind !== 'motor' && r.kind !== 'capacitor');
+  return motors.length === 1 && others.length === 0 ? motors[0] : undefined;
+}
+
+/** KVAR.MOTORCAP.MAX for one unit of the motor at voltage u. */
+export function motorCapacitorLimit(motor: EquipmentRow, uKv: number): number | undefined {
+  const { p_kw: p, eff, cos_phi: cos, i0_pct: i0 } = motor.values;
+  if (p === undefined || eff === undefined || cos === undefined || !(uKv > 0)) return undefined;
+  const q0 = motorNoLoadReactivePower(p, eff, cos, i0);
+  if (!(q0 > 0)) return undefined;
+  const i0A = q0 / (Math.sqrt(3) * uKv);
+  const r = runCall({ fn: 'KVAR.MOTORCAP.MAX', args: [uKv, i0A], columns: ['u_kv', 'i0_pct'] });
+  return r.ok ? r.value : undefined;
+}
+
+export function checkInstalled(site: Site, graph: BusGraph, ssc: ReadonlyMap<string, BusShortCircuit>, voltages: ReadonlyMap<string, { u_kv: number }>): DesignWarning[] {
+  const out: DesignWarning[] = [];
+  const hz = site.settings.hz;
+  const caps = site.equipment.filter((r) => r.kind === 'capacitor');
+  for (const row of caps) {
+    const { u_rated_kv: ur, u_kv: u, p_pct: p } = row.values;
+    if (ur === undefined) continue;
+    const uc = capacitorVoltage(u ?? ur, p ?? 0);
+    const where = { row: row.row, column: 'u_rated_kv', tag: row.tag, bus: row.bus };
+    if (uc > CAP_OVERVOLTAGE_LIMIT * ur) {
+      out.push(designWarning('error', 'capacitor-overvoltage', where, `capacitor ${row.tag} sees ${f(uc, 3)} kV (CAPBANK.UCAP) but is rated ${formatNumber(ur)} kV: above the ${CAP_OVERVOLTAGE_LIMIT} × rating it may stand only 8 h a day (IEC 60831-1); choose a higher rated voltage`));
+    } else if (uc > ur * (1 + 1e-9)) {
+      out.push(designWarning('warning', 'capacitor-overvoltage', where, `capacitor ${row.tag} sees ${f(uc, 3)} kV continuously, above its rating of ${formatNumber(ur)} kV; choose a higher rated voltage`));
+    } else if (uc < CAP_UNDERUSE * ur) {
+      out.push(designWarning('info', 'capacitor-underrated-use', where, `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * (uc / ur) ** 2, 0)} % of its nameplate kvar`));
+    }
+  }
+  const buses = [...new Set(caps.map((r) => r.bus))];
+  for (const bus of buses) {
+    const onBus = caps.filter((r) => r.bus === bus);
+    const plain = onBus.filter((r) => !(r.values.p_pct && r.values.p_pct > 0));
+    const detuned = onBus.filter((r) => r.values.p_pct && r.values.p_pct > 0);
+    if (plain.length > 0 && detuned.length > 0) {
+      out.push(designWarning('warning', 'detuned-and-plain-mixed', { bus, row: (plain[0] as EquipmentRow).row, column: 'p_pct' },
+        `plain capacitors (${plain.map((r) => r.tag).join(', ')}) share bus ${bus} with detuned ones (${detuned.map((r) => r.tag).join(', ')}); the plain ones can resonate with the detuning reactors and overload them: detune all or none`));
+    }
+    out.push(...checkResonance(bus, plain, ssc.get(bus), hz));
+    const motor = soleMotorOf(bus, site, graph);
+    const u = voltages.get(bus)?.u_kv;
+    if (motor && u !== undefined) {
+      const limit = motorCapacitorLimit(motor, u);
+      const perMotor = onBus.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0) / Math.max(unitsRunning(motor), 1);
+      if (limit !== undefined && perMotor > limit * (1 + 1e-9)) {
+        const first = onBus[0] as EquipmentRow;
+        out.push(designWarning('error', 'self-excitation', { bus, row: first.row, column: 'q_kvar', tag: first.tag },
+          `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit)} kvar (90 % of its no-load kvar): the motor can self-excite when switched off; reduce the capacitor or switch it separately`));
+      }
+    }
+  }
+  return out;
+}
+
+function checkResonance(bus: string, plain: readonly EquipmentRow[], sc: BusShortCircuit | undefined, hz: number): DesignWarning[] {
+  if (plain.length === 0) return [];
+  const q = plain.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
+  if (!sc) {
+    return [designWarning('info', 'resonance-not-assessed', { bus }, `resonance of the ${f(q)} kvar of plain capacitors on bus ${bus} not assessed: give the supply's short-circuit power (sscMva) in the settings`)];
+  }
+  const h = resonanceOrderOf(sc.ssc_mva, q, 0);
+  const n = h === undefined ? undefined : nearHarmonic(h);
+  if (h === undefined || n === undefined) return [];
+  const first = plain[0] as EquipmentRow;
+  return [designWarning('warning', 'resonance', { bus, row: first.row, column: 'q_kvar', tag: first.tag },
+    `${f(q)} kvar of plain capacitors on bus ${bus} (short-circuit power ${f(sc.ssc_mva, 2)} MVA) resonate at order ${h.toFixed(2)} (RESONANCE.ORDER), within ${RESONANCE_MARGIN * 100} % of the ${n}th harmonic: harmonic currents there are amplified; detune the bank or change its size`)];
+}

@@ -1,0 +1,53 @@
+// The utility's requirement at the point of connection, as a band of tan φ: how far the site may
+// draw kvar (lagging) and deliver kvar (leading) per kW. A cos φ target is read as the same limit
+// both ways (cos φ ≥ target, lagging or leading), since most tariffs and grid codes penalise
+// both; a tan φ requirement gives the two limits separately.
+import type { Requirement } from './model.ts';
+import { runCall } from './calls.ts';
+import { tanFromCos } from '../elements/powerTriangle.ts';
+import { formatNumber } from '../registry/messages.ts';
+
+export interface Band {
+  /** Largest Q/|P| drawn (lagging). */
+  readonly lagTan: number;
+  /** Largest −Q/|P| delivered (leading). */
+  readonly leadTan: number;
+  readonly text: string;
+}
+
+export function requirementBand(r: Requirement): Band {
+  if (r.kind === 'cosphi') {
+    const t = tanFromCos(r.target);
+    return { lagTan: t, leadTan: t, text: `cos φ ≥ ${formatNumber(r.target)} lagging or leading (|tan φ| ≤ ${t.toFixed(4)})` };
+  }
+  return { lagTan: r.lagMax, leadTan: r.leadMax, text: `tan φ between ${formatNumber(-r.leadMax)} (leading) and ${formatNumber(r.lagMax)} (lagging)` };
+}
+
+export interface Need {
+  /** Capacitive kvar to add to come down to the lagging limit (0 when within). */
+  readonly capacitive_kvar: number;
+  /** Inductive kvar to add to come up to the leading limit (0 when within). */
+  readonly inductive_kvar: number;
+}
+
+/**
+ * kvar needed at a bus with totals P, Q to meet the band. Through the catalogue: KVAR.TOPF for a
+ * cos φ target, KVAR.TOTAN for a tan φ band. Exported power (P < 0) is judged by |P|.
+ */
+export function kvarNeeded(pKw: number, qKvar: number, r: Requirement): Need {
+  const band = requirementBand(r);
+  const p = Math.abs(pKw);
+  const lag = r.kind === 'cosphi'
+    ? runCall({ fn: 'KVAR.TOPF', args: [p, qKvar, r.target], columns: [] })
+    : runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, band.lagTan], columns: [] });
+  const lead = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] });
+  if (!lag.ok) throw new Error(lag.message);
+  if (!lead.ok) throw new Error(lead.message);
+  return { capacitive_kvar: Math.max(0, lag.value), inductive_kvar: Math.max(0, -lead.value) };
+}
+
+/** Within the band, with a small tolerance for rounding (kvar). */
+export function meets(pKw: number, qKvar: number, r: Requirement, tolKvar = 1e-6): boolean {
+  const n = kvarNeeded(pKw, qKvar, r);
+  return n.capacitive_kvar <= tolKvar && n.inductive_kvar <= tolKvar;
+}
