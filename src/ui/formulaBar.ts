@@ -1,0 +1,115 @@
+// The bar above the grid: where the active cell is, what it holds (editable), what it computes
+// to, and for an error the full message: which function, which argument, the allowed range and
+// the value given.
+import type { ColumnInfo } from '../core/workbook/document.ts';
+import { el } from './dom.ts';
+import { cellView, type EngineValue } from './grid/cellView.ts';
+import { formatGeneral } from './format/numberFormat.ts';
+import { unitOf } from './format/columnHeader.ts';
+import { rangeLabel, sheetRef } from './model/address.ts';
+import type { WorkbookSession } from './model/session.ts';
+import { editText, typedContent } from './model/typedInput.ts';
+import type { Selection } from './grid/gridView.ts';
+import type { FormulaAssist } from './autocomplete/formulaAssist.ts';
+
+export interface FormulaBarHost {
+  readonly session: WorkbookSession;
+  readonly assist: FormulaAssist;
+  columns(sheetId: number): readonly ColumnInfo[] | undefined;
+  hasHeaderRow(sheetId: number): boolean;
+  /** Give the keyboard back to the grid. */
+  returnFocus(): void;
+}
+
+export class FormulaBar {
+  readonly root: HTMLElement;
+  private readonly address: HTMLOutputElement;
+  readonly input: HTMLInputElement;
+  private readonly value: HTMLOutputElement;
+  private readonly problem: HTMLDivElement;
+  private sel: Selection | undefined;
+  private original = '';
+
+  constructor(private readonly host: FormulaBarHost) {
+    this.address = el('output', { className: 'kl-fb-address', attrs: { 'data-testid': 'fb-address', 'aria-label': 'Active cell' } });
+    this.input = el('input', {
+      className: 'kl-fb-input',
+      attrs: { type: 'text', spellcheck: 'false', autocomplete: 'off', 'aria-label': 'Cell content', 'data-testid': 'fb-input', placeholder: 'Type a value or a formula starting with =' },
+    });
+    this.value = el('output', { className: 'kl-fb-value', attrs: { 'data-testid': 'fb-value', 'aria-label': 'Value' } });
+    this.problem = el('div', { className: 'kl-fb-problem', attrs: { 'data-testid': 'fb-problem', role: 'status' } });
+    this.problem.hidden = true;
+    this.root = el('section', { className: 'kl-formula-bar', attrs: { 'aria-label': 'Formula bar' } }, [
+      el('div', { className: 'kl-fb-row' }, [this.address, el('span', { className: 'kl-fb-eq', text: 'content' }), this.input, el('span', { className: 'kl-fb-eq', text: 'value' }), this.value]),
+      this.problem,
+    ]);
+    host.assist.attach(this.input);
+    this.input.addEventListener('keydown', (e) => this.onKey(e));
+    this.input.addEventListener('focus', () => (this.original = this.input.value));
+  }
+
+  /** Show the active cell (after a selection change or a recalculation). */
+  show(sel: Selection | undefined): void {
+    this.sel = sel;
+    if (!sel) return;
+    const { session } = this.host;
+    const name = session.sheetName(sel.sheetId);
+    const block = sel.top !== sel.bottom || sel.left !== sel.right;
+    this.address.textContent = `${sheetRef(name)}!${rangeLabel(sel.row, sel.col, sel.row, sel.col)}${block ? `  (${rangeLabel(sel.top, sel.left, sel.bottom, sel.right)})` : ''}`;
+    if (document.activeElement !== this.input) this.input.value = editText(session.cellContent(sel.sheetId, sel.row, sel.col));
+    const raw = session.engine.getCellValue({ sheet: sel.sheetId, row: sel.row, col: sel.col }) as EngineValue;
+    const view = cellView(raw);
+    const header = sel.row === 0 && this.host.hasHeaderRow(sel.sheetId);
+    const info = header ? undefined : this.host.columns(sel.sheetId)?.[sel.col];
+    const unit = info ? unitOf(info.header) : undefined;
+    if (view.kind === 'number' && typeof raw === 'number') {
+      this.value.textContent = `${formatGeneral(raw)}${unit ? ` ${unit}` : ''}`;
+      this.value.title = String(raw);
+    } else {
+      this.value.textContent = view.text;
+      this.value.title = view.text;
+    }
+    this.value.classList.toggle('is-error', view.kind === 'error');
+    this.problem.hidden = !view.error;
+    this.problem.textContent = view.error ? `${view.error.code}  ${view.error.message}` : '';
+  }
+
+  /** While the cell editor is open, the bar shows the text being typed. */
+  mirror(text: string): void {
+    if (document.activeElement !== this.input) this.input.value = text;
+  }
+
+  /** Put text into the bar and start editing there (e.g. "insert into cell" from the reference). */
+  begin(text: string): void {
+    this.input.focus();
+    this.input.value = text;
+    this.input.setSelectionRange(text.length, text.length);
+    this.host.assist.update();
+  }
+
+  private commit(): void {
+    const sel = this.sel;
+    if (!sel) return;
+    const content = typedContent(this.input.value);
+    this.host.session.setCells(sel.sheetId, [{ row: sel.row, col: sel.col, content }]);
+    this.original = this.input.value;
+  }
+
+  private onKey(e: KeyboardEvent): void {
+    if (this.host.assist.handleKey(e)) {
+      e.preventDefault();
+      return;
+    }
+    if (e.key === 'Enter') {
+      e.preventDefault();
+      this.commit();
+      this.host.assist.hide();
+      this.host.returnFocus();
+    } else if (e.key === 'Escape') {
+      e.preventDefault();
+      this.input.value = this.original;
+      this.host.assist.hide();
+      this.host.returnFocus();
+    }
+  }
+}
