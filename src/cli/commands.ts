@@ -11,4 +11,5 @@ export interface CommandEntry {
 export const COMMANDS: Readonly<Record<string, CommandEntry>> = {
   eval: { summary: 'evaluate formulas with the function catalogue', load: () => import('./eval.ts') },
   functions: { summary: 'list the function catalogue (signatures, units, sources)', load: () => import('./functions.ts') },
+  balance: { summary: 'bus balance of a site for one operating case, with compensation and warnings', load: () => import('./balance.ts') },
 };
