@@ -11,9 +11,12 @@ import { planColumns } from './buildColumns.ts';
 import { buildEquipmentSheet, type EquipmentSheetPlan } from './buildEquipment.ts';
 import { buildBusesSheet, planBusColumns, type BranchRef, type BusEntry, type Flavour } from './buildBuses.ts';
 import { buildSettingsSheet } from './buildSettings.ts';
+import { buildCompensationSheet, planCompensationColumns, type BankChoice } from './buildCompensation.ts';
+import { proposeChoices } from './buildChoices.ts';
 import { cellOn } from './buildRefs.ts';
 
 export type { Flavour } from './buildBuses.ts';
+export type { BankChoice } from './buildCompensation.ts';
 
 export interface BuildOptions {
   /**
@@ -21,6 +24,11 @@ export interface BuildOptions {
    * 'portable': only catalogue and classic functions (SUMIF/SUMIFS), for the xlsx export.
    */
   readonly flavour: Flavour;
+  /**
+   * Banks on the Compensation sheet. Default: the compensation design's proposal for the site
+   * (none when it cannot be designed). Pass what siteFromWorkbook read to keep a user's choice.
+   */
+  readonly banks?: readonly BankChoice[];
 }
 
 /** The bus list: the point of connection first, then level by level, then any bus the tree misses. */
@@ -77,10 +85,21 @@ export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
       return r === undefined ? undefined : cellOn(SHEETS.buses, r, busCols.s[k] as number, true);
     },
   };
+  const feederOf = new Map<string, BranchRef>();
+  const childrenOf = new Map<string, string[]>();
+  for (const [bus, list] of branchesFrom) {
+    childrenOf.set(bus, list.map((b) => b.toBus));
+    for (const b of list) if (!feederOf.has(b.toBus)) feederOf.set(b.toBus, b);
+  }
+  const choices = new Map((opts.banks ?? proposeChoices(site)).map((c) => [c.bus, c]));
   const sheets: SheetDoc[] = [
     buildSettingsSheet(site.settings),
     ...plans.map((p) => buildEquipmentSheet(p, ctx)),
     buildBusesSheet({ cases, buses, cols: busCols, plans, branchesFrom, flavour: opts.flavour }),
+    buildCompensationSheet({
+      cases, buses, busCols, cols: planCompensationColumns(cases), flavour: opts.flavour, feederOf, childrenOf,
+      banksPlan: plans.find((p) => p.layout.id === 'banks'), choices,
+    }),
   ];
   return { format: 'kvar-ledger-workbook', version: 1, title: site.settings.name, sheets };
 }

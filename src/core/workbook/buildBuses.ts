@@ -94,7 +94,7 @@ export interface BusSheetInput {
 }
 
 /** SUMIF criterion for a bus: the name cell, or an exact-match text when the name holds criterion characters. */
-function criterion(name: string, nameCell: string): string {
+export function criterion(name: string, nameCell: string): string {
   if (/^[A-Za-z0-9 _.\-/]+$/.test(name)) return nameCell;
   return textLiteral('=' + name.replace(/[~*?]/g, (c) => '~' + c));
 }

@@ -14,6 +14,8 @@ export const SETTING_LABELS = {
   tanLag: 'tan φ limit, lagging',
   tanLead: 'tan φ limit, leading',
   ssc: 'Short-circuit power at the connection point',
+  lagInUse: 'tan φ limit in use, lagging',
+  leadInUse: 'tan φ limit in use, leading',
   case: 'Case',
   assumption: 'Assumption',
   caution: 'Caution',
@@ -23,7 +25,7 @@ export const SETTING_LABELS = {
 export const REQUIREMENT_TEXT = { cosphi: 'cos φ', tanphi: 'tan φ' } as const;
 
 /** Fixed rows (0-based) of the single settings; cases, assumptions and cautions follow. */
-export const SETTING_ROWS = { name: 1, hz: 2, requirement: 3, cosTarget: 4, tanLag: 5, tanLead: 6, ssc: 7, firstCase: 8 } as const;
+export const SETTING_ROWS = { name: 1, hz: 2, requirement: 3, cosTarget: 4, tanLag: 5, tanLead: 6, ssc: 7, lagInUse: 8, leadInUse: 9, firstCase: 10 } as const;
 const VALUE_COL = 1;
 
 /** Absolute reference to a setting's value from another sheet, e.g. Site!$B$3. */
@@ -44,6 +46,12 @@ const COLUMNS: readonly ColumnInfo[] = [
   { header: 'Note', width: 70 },
 ];
 
+/** The tan φ limit the compensation works to, from whichever requirement the Site sheet states. */
+function inUse(limit: 'tanLag' | 'tanLead'): string {
+  const here = (row: number) => cellOn(undefined, row, VALUE_COL);
+  return `=IF(${here(SETTING_ROWS.requirement)}="${REQUIREMENT_TEXT.tanphi}",${here(SETTING_ROWS[limit])},TAN(ACOS(${here(SETTING_ROWS.cosTarget)})))`;
+}
+
 export function buildSettingsSheet(s: SiteSettings): SheetDoc {
   const req = s.requirement;
   const rows: CellContent[][] = [
@@ -55,6 +63,8 @@ export function buildSettingsSheet(s: SiteSettings): SheetDoc {
     [SETTING_LABELS.tanLag, req.kind === 'tanphi' ? req.lagMax : null, null, 'Used when the requirement is tan φ: the largest tan φ allowed while drawing kvar.'],
     [SETTING_LABELS.tanLead, req.kind === 'tanphi' ? req.leadMax : null, null, 'Used when the requirement is tan φ: the largest |tan φ| allowed while delivering kvar.'],
     [SETTING_LABELS.ssc, s.sscMva ?? null, 'MVA', 'Of the supply at the point of connection; resonance and voltage rise need it. Blank = unknown.'],
+    [SETTING_LABELS.lagInUse, inUse('tanLag'), null, 'What the Compensation sheet aims at: from the tan φ limit, or tan(acos target) for a cos φ target.'],
+    [SETTING_LABELS.leadInUse, inUse('tanLead'), null, 'A cos φ target is read as the same limit leading and lagging.'],
   ];
   s.cases.forEach((c, i) => {
     rows.push([SETTING_LABELS.case, c, null, i === 0 ? 'The first case: items without a load factor of their own use the Load (default) column.' : null]);
