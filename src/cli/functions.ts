@@ -36,7 +36,7 @@ function textReference(refs: readonly FunctionReference[]): string {
   for (const [family, members] of byFamily(refs)) {
     lines.push(`== ${family} ==`, '');
     for (const r of members) {
-      lines.push(`${r.signature} → ${r.result.unit}`, `  ${r.summary}`);
+      lines.push(`${r.signature} → ${r.result.unit}`, `  ${r.summary}`, `  ${r.description}`);
       for (const p of r.params) {
         const def = p.default !== undefined ? `; default ${p.default}` : '';
         lines.push(`  ${p.name.padEnd(14)} ${p.unit.padEnd(10)} ${p.allowed}${def} — ${p.doc}`);

@@ -24,7 +24,9 @@ export const ENGINE_LANGUAGE = 'enGB';
  *   through the plain-formula expansion, which 10-digit rounding would blur.
  * Switching smartRounding off also switches off the engine's comparison tolerance
  * (precisionEpsilon is only used with smartRounding), so `=` and the domain guards of an
- * expansion compare exactly, like the pure compute does.
+ * expansion compare exactly, like the pure compute does. precisionRounding is then unused and
+ * stays at the engine default. (With smartRounding on, results near 1e-308 even came out as
+ * NaN: the rounding multiplies by 10^(10 − exponent), which overflows.)
  *
  * useArrayArithmetic: false. Catalogue functions take one value per argument and report a range
  * as a clear error; spilling arrays from ordinary formulas is not something the workbook uses.
