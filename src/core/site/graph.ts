@@ -104,6 +104,9 @@ function reportLoops(firstRow: ReadonlyMap<string, number>, feeder: ReadonlyMap<
       const downstream = [...loop].reverse();
       const rows = downstream.map((b) => feeder.get(b) as EquipmentRow);
       const first = rows.reduce((a, r) => (r.row < a.row ? r : a));
+      // Start the description at the upstream bus of the first row in the loop.
+      const k = downstream.indexOf(first.bus);
+      downstream.push(...downstream.splice(0, k));
       problems.push(error({ row: first.row, column: 'to_bus', tag: first.tag, bus },
         `buses ${[...downstream, downstream[0]].join(' → ')} form a loop (rows ${rows.map((r) => r.row).sort((a, b) => a - b).join(', ')}); ` +
         'power must flow from the point of connection down a tree'));
