@@ -221,8 +221,8 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
 /**
  * Reactor rating: enough for the largest leading excess, yet not so much that a case it is
  * switched in for ends up lagging beyond the limit (its window is need .. need + (lag+lead)·|P|).
- * A standard rating inside every window if there is one, else the need rounded up to
- * REACTOR_ROUNDING_KVAR (a made-to-order rating).
+ * A standard rating inside every window if there is one, else a made-to-order rating: the need
+ * rounded up to REACTOR_ROUNDING_KVAR, or finer when the window is narrower.
  */
 function reactorSize(bal: readonly CaseBalance[], need: readonly number[], bandWidth: number): number {
   let lo = 0;
@@ -233,7 +233,13 @@ function reactorSize(bal: readonly CaseBalance[], need: readonly number[], bandW
     hi = Math.min(hi, n + bandWidth * Math.abs((bal[i] as CaseBalance).root.p_kw));
   });
   const standard = REACTOR_SERIES_KVAR.find((q) => q >= lo && q <= hi);
-  return standard ?? Math.ceil(lo / REACTOR_ROUNDING_KVAR - 1e-9) * REACTOR_ROUNDING_KVAR;
+  if (standard !== undefined) return standard;
+  // Made to order: the coarsest rounding that still lands inside the window (narrow when P is small).
+  for (const step of [REACTOR_ROUNDING_KVAR, 10, 1]) {
+    const q = Math.ceil(lo / step - 1e-9) * step;
+    if (q <= hi) return q;
+  }
+  return Math.ceil(lo);
 }
 
 /** The bus with the most cable and line charging in this case (lines count at their upstream bus). */
