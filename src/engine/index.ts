@@ -5,6 +5,7 @@ import type { CellValue, ConfigParams, SerializedNamedExpression } from 'hyperfo
 import type { CellContent } from '../core/workbook/document.ts';
 import { engineConfig } from './config.ts';
 import { registerCataloguePlugin, registerOwnPlugin, standardPlugins, type OwnPlugin } from './plugins.ts';
+import { BUS_ROLLUP_PLUGIN } from './rollupPlugin.ts';
 
 export { CATALOGUE_PLUGIN, registerOwnPlugin, type OwnPlugin } from './plugins.ts';
 export { engineConfig, ENGINE_LICENSE_KEY } from './config.ts';
@@ -50,6 +51,8 @@ function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): Hy
 /** An engine with the function catalogue (and any further plugins of ours) registered. */
 export function createEngine(sheets: readonly SheetInput[] = [], opts: EngineOptions = {}): HyperFormula {
   registerCataloguePlugin();
+  // The bus roll-up (BUS.SUMS) that 'live' workbooks use for their bus totals.
+  registerOwnPlugin(BUS_ROLLUP_PLUGIN);
   for (const p of opts.plugins ?? []) registerOwnPlugin(p);
   return build(sheets, engineConfig(opts.config));
 }

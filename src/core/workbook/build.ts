@@ -37,14 +37,15 @@ function busEntries(site: Site, plans: readonly EquipmentSheetPlan[]): BusEntry[
   const names = [...graph.order, ...[...graph.firstRow.keys()].filter((b) => !graph.level.has(b))];
   const where = new Map<EquipmentRow, { plan: EquipmentSheetPlan; row: number }>();
   for (const plan of plans) plan.rows.forEach((r, i) => where.set(r, { plan, row: i + 1 }));
-  const byRowNumber = new Map<number, EquipmentRow>();
-  for (const r of site.equipment) if (!byRowNumber.has(r.row)) byRowNumber.set(r.row, r);
   const voltages = busVoltages(site.equipment).voltages;
+  // The row that stated the voltage: same row number, touching the bus, stating that voltage.
+  const source = (bus: string, v: { row: number; u_kv: number }) => site.equipment.find((r) =>
+    r.row === v.row && r.values.u_kv === v.u_kv && (r.bus === bus || r.to_bus === bus));
 
   return names.map((name) => {
     const feeder = graph.feeder.get(name);
     const v = voltages.get(name);
-    const src = v ? byRowNumber.get(v.row) : undefined;
+    const src = v ? source(name, v) : undefined;
     const at = src ? where.get(src) : undefined;
     const uCol = at?.plan.cols.input.get('u_kv');
     const level = graph.level.get(name);
