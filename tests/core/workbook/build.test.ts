@@ -1,0 +1,165 @@
+// The workbook of live formulas against the site roll-up (src/core/site/rollup.ts): every bus,
+// every case, both flavours; and the portable flavour, expanded to classic functions and
+// evaluated by an engine without our plugins, against the live one cell by cell.
+import { describe, expect, it } from 'vitest';
+import type { HyperFormula } from 'hyperformula';
+import { rollUp } from '../../../src/core/site/rollup.ts';
+import type { Site } from '../../../src/core/site/model.ts';
+import { buildWorkbook } from '../../../src/core/workbook/build.ts';
+import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
+import { readCell } from '../../../src/engine/index.ts';
+import { PLANT } from './sites.ts';
+import { busRow, close, expandDoc, liveEngine, num, portableEngine, templateSites, valueAt } from './engineDoc.ts';
+
+const SITES: Array<{ name: string; site: Site }> = [{ name: 'invented plant (tests/core/workbook/sites.ts)', site: PLANT }, ...templateSites()];
+
+function compareWithRollUp(site: Site, doc: WorkbookDoc, hf: HyperFormula): number {
+  let checked = 0;
+  for (const c of site.settings.cases) {
+    const bal = rollUp(site, c);
+    expect(bal.problems).toEqual([]);
+    for (const b of bal.buses) {
+      const r = busRow(doc, b.bus);
+      const at = (h: string) => valueAt(hf, doc, 'Buses', r, h);
+      const scale = Math.max(1, b.s_kva, b.q_absorbed_kvar, b.q_delivered_kvar);
+      const pairs: Array<[string, number]> = [
+        [`P ${c} (kW)`, b.p_kw], [`Q ${c} (kvar)`, b.q_kvar], [`Q absorbed ${c} (kvar)`, b.q_absorbed_kvar],
+        [`Q delivered ${c} (kvar)`, b.q_delivered_kvar], [`S ${c} (kVA)`, b.s_kva],
+        [`P own items ${c} (kW)`, b.own_p_kw], [`Q own items ${c} (kvar)`, b.own_q_kvar],
+      ];
+      for (const [h, want] of pairs) {
+        const got = num(at(h));
+        if (!close(got, want, 1e-9, scale)) expect.fail(`${b.bus} ${h}: workbook ${got}, roll-up ${want}`);
+        checked++;
+      }
+      const cos = at(`cos φ ${c}`);
+      if (b.cos_phi === null) expect(cos).toEqual({ ok: true, value: '' });
+      else expect(close(num(cos), b.cos_phi, 1e-9)).toBe(true);
+      const tan = at(`tan φ ${c}`);
+      if (b.tan_phi === null) expect(tan).toEqual({ ok: true, value: '' });
+      else expect(close(num(tan), b.tan_phi, 1e-9, 1e-6)).toBe(true);
+      expect(at(`Sense ${c}`)).toEqual({ ok: true, value: b.sense });
+      expect(at('Level')).toEqual({ ok: true, value: b.level });
+      expect(at('Fed by')).toEqual({ ok: true, value: b.fed_by ?? null });
+      if (b.u_kv !== undefined) expect(num(at('U (kV)'))).toBe(b.u_kv);
+    }
+  }
+  return checked;
+}
+
+describe('buildWorkbook: bus totals equal the site roll-up', () => {
+  for (const { name, site } of SITES) {
+    for (const flavour of ['live', 'portable'] as const) {
+      it(`${name}, ${flavour}`, () => {
+        const doc = buildWorkbook(site, { flavour });
+        const hf = flavour === 'live' ? liveEngine(doc) : portableEngine(doc);
+        expect(compareWithRollUp(site, doc, hf)).toBeGreaterThan(0);
+      });
+    }
+  }
+});
+
+describe('portable flavour: classic functions only, same values as live', () => {
+  for (const { name, site } of SITES) {
+    it(name, () => {
+      const live = buildWorkbook(site, { flavour: 'live' });
+      const portable = buildWorkbook(site, { flavour: 'portable' });
+      const text = JSON.stringify(portable);
+      expect(text).not.toContain('BUS.SUMS');
+      expect(text).toMatch(/SUMIFS?\(/);
+      // xlsx keeps formulas of at most 8192 characters.
+      expect(expandDoc(portable).longest).toBeLessThanOrEqual(8192);
+      const a = liveEngine(live);
+      const b = portableEngine(portable);
+      let compared = 0;
+      for (const s of live.sheets) {
+        s.cells.forEach((row, r) => row.forEach((_, c) => {
+          const x = readCell(a, s.name, r, c);
+          const y = readCell(b, s.name, r, c);
+          if (x.ok && y.ok && typeof x.value === 'number' && typeof y.value === 'number') {
+            if (!close(x.value, y.value, 1e-9, 1e-6)) expect.fail(`${s.name} row ${r + 1} col ${c + 1}: live ${x.value}, portable ${y.value}`);
+          } else if (x.ok && y.ok) {
+            expect([s.name, r, c, y.value]).toEqual([s.name, r, c, x.value]);
+          } else {
+            expect([s.name, r, c, y.ok ? y.value : y.error]).toEqual([s.name, r, c, x.ok ? x.value : x.error]);
+          }
+          compared++;
+        }));
+      }
+      expect(compared).toBeGreaterThan(100);
+    });
+  }
+});
+
+describe('workbook shape', () => {
+  const doc = buildWorkbook(PLANT, { flavour: 'live' });
+
+  it('has the settings, equipment, buses and compensation sheets in order', () => {
+    expect(doc.sheets.map((s) => s.name)).toEqual(['Site', 'Motors', 'Loads', 'Generators', 'Transformers', 'Lines', 'Cables', 'Capacitors and reactors', 'Buses', 'Compensation']);
+    expect(doc.title).toBe(PLANT.settings.name);
+  });
+
+  it('gives every sheet a header row matching its column infos, with widths, and a purpose', () => {
+    for (const s of doc.sheets) {
+      expect(s.columns, s.name).toBeDefined();
+      expect(s.cells[0]).toEqual(s.columns?.map((c) => c.header));
+      for (const c of s.columns ?? []) expect(c.width, `${s.name}: ${c.header}`).toBeGreaterThan(0);
+      expect(s.purpose?.length ?? 0).toBeGreaterThan(20);
+      for (const row of s.cells) expect(row.length).toBe(s.columns?.length);
+    }
+  });
+
+  it('puts units in the headers of computed power columns and formats on numbers', () => {
+    const buses = doc.sheets.find((s) => s.name === 'Buses');
+    const headers = buses?.columns?.map((c) => c.header) ?? [];
+    expect(headers).toContain('P day (kW)');
+    expect(headers).toContain('Q absorbed night (kvar)');
+    expect(headers).toContain('S outage (kVA)');
+    expect(buses?.columns?.find((c) => c.header === 'cos φ day')?.format).toBe('0.000');
+  });
+
+  it('writes a formula in every computed cell of every equipment row (no hidden values)', () => {
+    for (const s of doc.sheets.slice(1, 8)) {
+      s.columns?.forEach((info, c) => {
+        if (!info.computed) return;
+        for (const row of s.cells.slice(1)) {
+          const v = row[c];
+          if (v === null) continue; // a transformer or line that feeds no bus carries nothing
+          expect(typeof v === 'string' && v.startsWith('='), `${s.name}: ${info.header}: ${String(v)}`).toBe(true);
+        }
+      });
+    }
+  });
+
+  it('refers to the frequency on the Site sheet instead of copying it', () => {
+    const cables = doc.sheets.find((s) => s.name === 'Cables');
+    expect(JSON.stringify(cables?.cells)).toContain('KVAR.CABLE(F2,G2,H2,Site!$B$3)');
+    const site = doc.sheets[0];
+    expect(site?.cells[2]).toEqual(['Frequency', 50, 'Hz', expect.any(String)]);
+  });
+
+  it('carries the cautions on the Site sheet', () => {
+    const text = JSON.stringify(doc.sheets[0]?.cells);
+    expect(text).toContain('licensed engineer');
+    expect(text).toMatch(/resonance and overvoltage can hurt people/i);
+  });
+
+  it('writes the live roll-up as one BUS.SUMS call for all buses', () => {
+    const text = JSON.stringify(doc.sheets.find((s) => s.name === 'Buses')?.cells);
+    expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(1);
+    expect(text.match(/BUS\.SUMS\.SPLIT\(/g)).toHaveLength(1);
+    expect(text).not.toContain('SUMIF');
+  });
+});
+
+describe('a setting changed on the Site sheet flows through', () => {
+  it('60 Hz raises cable charging by 60/50 (KVAR.CABLE ∝ f)', () => {
+    const doc = buildWorkbook(PLANT, { flavour: 'live' });
+    const hf = liveEngine(doc);
+    const before = num(valueAt(hf, doc, 'Cables', 1, 'Q day (kvar)'));
+    hf.setCellContents({ sheet: hf.getSheetId('Site') as number, row: 2, col: 1 }, [[60]]);
+    const after = num(valueAt(hf, doc, 'Cables', 1, 'Q day (kvar)'));
+    expect(before).toBeLessThan(0);
+    expect(close(after, before * 1.2, 1e-12)).toBe(true);
+  });
+});
