@@ -94,14 +94,4 @@ export function readHeader(text: string): HeaderReading {
   return withUnit({ target: null, match: 'none' });
 }
 
-/** 0 → 'A', 25 → 'Z', 26 → 'AA'. */
-export function columnLetter(index: number): string {
-  let n = index + 1;
-  let s = '';
-  while (n > 0) {
-    const r = (n - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return s;
-}
+export { columnLetter } from '../xlsx/sheetNames.ts';

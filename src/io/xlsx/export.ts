@@ -1,0 +1,150 @@
+// exportWorkbookXlsx: the hand-off file. Every sheet of the workbook with plain formulas and the
+// app's cached results, styled (header row, number formats, widths, frozen header), a cover, the
+// list of catalogue functions used, and the hidden metadata that lets our import restore it all.
+// The xlsx library is loaded on first use only (see loadExcelJs.ts).
+import type { Workbook, Worksheet } from 'exceljs';
+import type { SiteSettings } from '../../core/site/model.ts';
+import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import { createEngine, type OwnPlugin } from '../../engine/index.ts';
+import { coverRows, functionRows, FUNCTION_HEADER } from './exportCover.ts';
+import { exportSheetCells, fileError, type CellIssue, type ExportCell, type SheetCells } from './exportCells.ts';
+import { styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
+import { loadExcelJs } from './loadExcelJs.ts';
+import { META_MARKER, META_SHEET_NAME, META_VERSION, metaChunks, rowFingerprint, type ExportMeta, type FingerprintCell, type SheetMeta } from './metadata.ts';
+import { sheetNameProblem, uniqueSheetName } from './sheetNames.ts';
+
+export interface XlsxExportOptions {
+  /** The site's settings, for the cover (name, frequency, requirement, cases, notes). */
+  readonly settings?: SiteSettings;
+  /** Date on the cover; default now. */
+  readonly date?: Date;
+  /** Engine plugins of ours the workbook's formulas need to compute their cached values. */
+  readonly plugins?: readonly OwnPlugin[];
+  /** Refuse (throw XlsxExportError) when any formula has to be written as a value. */
+  readonly strict?: boolean;
+  /** Program name and version on the cover. */
+  readonly generator?: string;
+}
+
+export interface XlsxExportReport {
+  readonly bytes: Uint8Array;
+  /** Cells whose formula could not be written for other programs (their value was written). */
+  readonly issues: readonly CellIssue[];
+  /** Later functions that were stored with the `_xlfn.` prefix. */
+  readonly newerFunctions: readonly string[];
+  readonly catalogueFunctions: readonly string[];
+}
+
+export class XlsxExportError extends Error {
+  constructor(
+    message: string,
+    readonly issues: readonly CellIssue[] = [],
+  ) {
+    super(message);
+    this.name = 'XlsxExportError';
+  }
+}
+
+export const COVER_SHEET_NAME = 'Cover';
+export const FUNCTIONS_SHEET_NAME = 'Functions used';
+export const DEFAULT_GENERATOR = 'Kvar Ledger 0.1.0';
+
+function checkNames(doc: WorkbookDoc): void {
+  const seen = new Set<string>();
+  for (const s of doc.sheets) {
+    const p = sheetNameProblem(s.name);
+    if (p) throw new XlsxExportError(`cannot export: ${p}; rename the sheet and export again`);
+    if (seen.has(s.name.toLowerCase())) throw new XlsxExportError(`cannot export: two sheets are named "${s.name}" (names must differ, ignoring case)`);
+    seen.add(s.name.toLowerCase());
+  }
+  if (doc.sheets.length === 0) throw new XlsxExportError('cannot export: the workbook has no sheets');
+}
+
+type ExcelValue = number | string | boolean | null | { formula: string; result?: number | string | boolean | { error: string } } | { error: string };
+
+function excelValue(c: ExportCell | undefined): ExcelValue {
+  if (!c || c.kind === 'empty') return null;
+  if (c.kind === 'value') return c.value;
+  if (c.kind === 'error') return { error: c.error };
+  const r = c.result;
+  if (!r.ok) return { formula: c.formula, result: { error: fileError(r.error) } };
+  return r.value === null ? { formula: c.formula } : { formula: c.formula, result: r.value };
+}
+
+function fingerprintCells(row: readonly ExportCell[]): FingerprintCell[] {
+  const out: FingerprintCell[] = [];
+  row.forEach((c, col) => {
+    if (c.kind === 'formula') out.push({ col, formula: c.formula });
+    else if (c.kind === 'value') out.push({ col, value: c.value });
+    else if (c.kind === 'error') out.push({ col, error: c.error });
+  });
+  return out;
+}
+
+function writeDataSheet(ws: Worksheet, cells: SheetCells): string[] {
+  const fingerprints: string[] = [];
+  for (const row of cells.rows) {
+    ws.addRow(row.map(excelValue));
+    fingerprints.push(rowFingerprint(fingerprintCells(row)));
+  }
+  return fingerprints;
+}
+
+function writeMeta(wb: Workbook, meta: ExportMeta): void {
+  const ws = wb.addWorksheet(META_SHEET_NAME, { state: 'veryHidden' });
+  const chunks = metaChunks(meta);
+  ws.addRow([META_MARKER, chunks.length]);
+  for (const c of chunks) ws.addRow([c]);
+}
+
+/** Export with a report of what could not be written as a live formula. */
+export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxExportOptions = {}): Promise<XlsxExportReport> {
+  checkNames(doc);
+  const hf = createEngine(doc.sheets, opts.plugins ? { plugins: opts.plugins } : {});
+  const converted = doc.sheets.map((s) => exportSheetCells(hf, hf.getSheetId(s.name) as number, s));
+  hf.destroy();
+  const issues = converted.flatMap((c) => c.issues);
+  if (opts.strict && issues.length > 0) {
+    throw new XlsxExportError(`cannot export: ${issues.length} formula(s) cannot be written for other programs; first: ${issues[0]?.where}: ${issues[0]?.message}`, issues);
+  }
+  const catalogue = new Set(converted.flatMap((c) => [...c.catalogue]));
+  const newer = [...new Set(converted.flatMap((c) => [...c.newer]))].sort();
+
+  const taken = doc.sheets.map((s) => s.name);
+  const coverName = uniqueSheetName(COVER_SHEET_NAME, taken);
+  const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
+  const notes = [
+    ...(newer.length > 0 ? [`Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`] : []),
+    ...issues.map((i) => `${i.where}: ${i.message}.`),
+  ];
+
+  const ExcelJS = await loadExcelJs();
+  const wb = new ExcelJS.Workbook();
+  wb.creator = opts.generator ?? DEFAULT_GENERATOR;
+  wb.title = doc.title;
+  wb.calcProperties.fullCalcOnLoad = true;
+
+  const cover = wb.addWorksheet(coverName);
+  const date = opts.date ?? new Date();
+  styleCover(cover, coverRows({ doc, date, generator: opts.generator ?? DEFAULT_GENERATOR, notes, functionsSheet: functionsName, ...(opts.settings ? { settings: opts.settings } : {}) }));
+
+  const sheetsMeta: SheetMeta[] = [];
+  doc.sheets.forEach((s, i) => {
+    const ws = wb.addWorksheet(s.name);
+    const cells = converted[i] as SheetCells;
+    styleDataSheet(ws, s);
+    sheetsMeta.push({ doc: s.name, file: s.name, rows: writeDataSheet(ws, cells) });
+    styleDataSheet(ws, s, { headerOnly: true });
+  });
+
+  styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));
+  writeMeta(wb, { format: META_MARKER, version: META_VERSION, doc, sheets: sheetsMeta, generated: [coverName, functionsName] });
+
+  const buffer = await wb.xlsx.writeBuffer();
+  return { bytes: new Uint8Array(buffer as ArrayBuffer), issues, newerFunctions: newer, catalogueFunctions: [...catalogue] };
+}
+
+/** The hand-off xlsx as bytes. */
+export async function exportWorkbookXlsx(doc: WorkbookDoc, opts: XlsxExportOptions = {}): Promise<Uint8Array> {
+  return (await exportWorkbookXlsxWithReport(doc, opts)).bytes;
+}

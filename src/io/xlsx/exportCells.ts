@@ -1,0 +1,114 @@
+// Each cell of the workbook as it goes into the xlsx: a plain formula (catalogue calls expanded,
+// later functions prefixed) with the app's own result cached beside it, or the value the engine
+// reads from what was typed. Problems are collected with the cell they concern.
+import type { HyperFormula } from 'hyperformula';
+import type { CellContent, SheetDoc } from '../../core/workbook/document.ts';
+import { toResult, type CellResult } from '../../engine/index.ts';
+import { expandFormula, referencedFunctions } from '../formula/expand.ts';
+import { toFileFormula } from './functionNames.ts';
+import { columnLetter } from './sheetNames.ts';
+
+/** Longest formula other programs accept (characters) and deepest nesting of calls. */
+export const MAX_FORMULA_LENGTH = 8192;
+export const MAX_NESTING = 64;
+
+/** Error values the 2007 file format knows; the engine's own ones map to the nearest. */
+const FILE_ERRORS = new Set(['#NULL!', '#DIV/0!', '#VALUE!', '#REF!', '#NAME?', '#NUM!', '#N/A']);
+export function fileError(code: string): string {
+  if (FILE_ERRORS.has(code)) return code;
+  return code === '#CYCLE!' ? '#REF!' : '#VALUE!';
+}
+
+export type ExportCell =
+  | { readonly kind: 'empty' }
+  | { readonly kind: 'value'; readonly value: number | string | boolean }
+  | { readonly kind: 'error'; readonly error: string }
+  | { readonly kind: 'formula'; readonly formula: string; readonly result: CellResult };
+
+export interface CellIssue {
+  /** "Sheet!B7" */
+  readonly where: string;
+  readonly message: string;
+}
+
+export interface SheetCells {
+  readonly rows: ExportCell[][];
+  /** Catalogue functions used on the sheet, canonical names. */
+  readonly catalogue: Set<string>;
+  /** Later functions stored with a prefix. */
+  readonly newer: Set<string>;
+  /** Cells that cannot be written as a formula for other programs. */
+  readonly issues: CellIssue[];
+}
+
+/** Characters XML 1.0 cannot hold; they would make the file unreadable. */
+const XML_INVALID = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
+export function xmlSafe(text: string): string {
+  return text.replace(XML_INVALID, '\uFFFD');
+}
+
+function nesting(formula: string): number {
+  let depth = 0;
+  let max = 0;
+  let inString = false;
+  for (const ch of formula) {
+    if (ch === '"') inString = !inString;
+    else if (!inString && ch === '(') max = Math.max(max, ++depth);
+    else if (!inString && ch === ')') depth--;
+  }
+  return max;
+}
+
+function valueCell(r: CellResult): ExportCell {
+  if (!r.ok) return { kind: 'error', error: fileError(r.error) };
+  const v = r.value;
+  if (v === null) return { kind: 'empty' };
+  if (typeof v === 'string') return { kind: 'value', value: xmlSafe(v) };
+  return { kind: 'value', value: v };
+}
+
+function isFormula(c: CellContent): boolean {
+  return typeof c === 'string' && c.startsWith('=');
+}
+
+/** Convert one sheet; `sheetIndex` is its engine sheet id. */
+export function exportSheetCells(hf: HyperFormula, sheetIndex: number, sheet: SheetDoc): SheetCells {
+  const out: SheetCells = { rows: [], catalogue: new Set(), newer: new Set(), issues: [] };
+  sheet.cells.forEach((row, r) => {
+    const cells: ExportCell[] = [];
+    row.forEach((content, c) => {
+      const result = toResult(hf.getCellValue({ sheet: sheetIndex, row: r, col: c }));
+      if (!isFormula(content)) {
+        cells.push(content === null || content === '' ? { kind: 'empty' } : valueCell(result));
+        return;
+      }
+      const where = `${sheet.name}!${columnLetter(c)}${r + 1}`;
+      const formula = content as string;
+      for (const f of referencedFunctions(formula)) out.catalogue.add(f);
+      const expanded = expandFormula(formula);
+      if (!expanded.ok) {
+        out.issues.push({ where, message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead` });
+        cells.push(valueCell(result));
+        return;
+      }
+      const file = toFileFormula(expanded.formula);
+      file.newer.forEach((n) => out.newer.add(n));
+      const problem =
+        file.unknown.length > 0
+          ? `uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have`
+          : file.text.length > MAX_FORMULA_LENGTH
+            ? `is ${file.text.length} characters long once written out; other programs accept at most ${MAX_FORMULA_LENGTH} (move nested calls into cells of their own)`
+            : nesting(file.text) > MAX_NESTING
+              ? `nests calls deeper than the ${MAX_NESTING} levels other programs accept`
+              : undefined;
+      if (problem) {
+        out.issues.push({ where, message: `the formula ${problem}; its value is written instead` });
+        cells.push(valueCell(result));
+        return;
+      }
+      cells.push({ kind: 'formula', formula: xmlSafe(file.text), result });
+    });
+    out.rows.push(cells);
+  });
+  return out;
+}

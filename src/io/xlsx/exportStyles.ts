@@ -1,0 +1,71 @@
+// How the exported sheets look: a frozen, tinted header row (inputs and computed columns tinted
+// apart), number formats and widths from the workbook's column info, a readable cover.
+import type { Worksheet } from 'exceljs';
+import type { SheetDoc } from '../../core/workbook/document.ts';
+import type { CoverRow } from './exportCover.ts';
+
+const INK = 'FF1F2A33';
+const INPUT_HEADER = 'FFE3E9EE';
+const COMPUTED_HEADER = 'FFE6EFE3';
+const RULE = 'FF8A99A6';
+
+const MIN_WIDTH = 8;
+const MAX_WIDTH = 48;
+
+function solid(argb: string) {
+  return { type: 'pattern' as const, pattern: 'solid' as const, fgColor: { argb } };
+}
+
+/** Before rows: widths and number formats by column. With headerOnly: after rows, the header and panes. */
+export function styleDataSheet(ws: Worksheet, sheet: SheetDoc, opts: { headerOnly?: boolean } = {}): void {
+  const cols = sheet.columns ?? [];
+  if (!opts.headerOnly) {
+    cols.forEach((c, i) => {
+      const col = ws.getColumn(i + 1);
+      col.width = Math.max(MIN_WIDTH, Math.min(MAX_WIDTH, c.width ?? c.header.length + 2));
+      if (c.format) col.numFmt = c.format;
+    });
+    return;
+  }
+  if (cols.length === 0) return;
+  const header = ws.getRow(1);
+  cols.forEach((c, i) => {
+    const cell = header.getCell(i + 1);
+    cell.numFmt = 'General';
+    cell.font = { bold: true, color: { argb: INK } };
+    cell.fill = solid(c.computed ? COMPUTED_HEADER : INPUT_HEADER);
+    cell.border = { bottom: { style: 'thin', color: { argb: RULE } } };
+    cell.alignment = { vertical: 'bottom', wrapText: true };
+  });
+  ws.views = [{ state: 'frozen', xSplit: 0, ySplit: 1, topLeftCell: 'A2', activeCell: 'A2' }];
+}
+
+export function styleCover(ws: Worksheet, rows: readonly CoverRow[]): void {
+  ws.getColumn(1).width = 30;
+  ws.getColumn(2).width = 110;
+  rows.forEach((r, i) => {
+    const row = ws.addRow([...r]);
+    const heading = r.length === 1 && r[0] !== undefined;
+    if (i === 0) row.getCell(1).font = { bold: true, size: 14, color: { argb: INK } };
+    else if (heading) row.getCell(1).font = { bold: true, color: { argb: INK } };
+    row.getCell(2).alignment = { wrapText: true, vertical: 'top' };
+    row.getCell(1).alignment = { vertical: 'top' };
+  });
+}
+
+const FUNCTION_WIDTHS = [34, 40, 52, 30, 90, 60, 16];
+
+export function styleFunctionsSheet(ws: Worksheet, header: string[], rows: readonly string[][]): void {
+  FUNCTION_WIDTHS.forEach((w, i) => (ws.getColumn(i + 1).width = w));
+  const h = ws.addRow(header);
+  h.eachCell((cell) => {
+    cell.font = { bold: true, color: { argb: INK } };
+    cell.fill = solid(INPUT_HEADER);
+    cell.border = { bottom: { style: 'thin', color: { argb: RULE } } };
+  });
+  for (const r of rows) {
+    const row = ws.addRow(r);
+    row.eachCell((cell) => (cell.alignment = { wrapText: true, vertical: 'top' }));
+  }
+  ws.views = [{ state: 'frozen', xSplit: 0, ySplit: 1, topLeftCell: 'A2', activeCell: 'A2' }];
+}

@@ -1,0 +1,106 @@
+// What lets our own export come back exactly: the original workbook (catalogue formulas and
+// everything typed) as JSON in a very hidden sheet, plus one fingerprint per exported row. On
+// import a row whose fingerprint still matches is restored from the JSON; a row someone changed
+// in another program is read as that program left it. Other programs only see plain formulas.
+import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import { tokenize } from '../formula/tokenize.ts';
+
+export const META_SHEET_NAME = '_kvar_ledger';
+export const META_MARKER = 'kvar-ledger-xlsx-meta';
+export const META_VERSION = 1;
+/** Characters per cell (the format allows 32,767). */
+export const META_CHUNK = 30_000;
+
+export interface SheetMeta {
+  /** Sheet name in the workbook document. */
+  readonly doc: string;
+  /** Sheet name in the xlsx (the same unless it had to change). */
+  readonly file: string;
+  /** Fingerprint of each exported row, row 1 first. */
+  readonly rows: readonly string[];
+}
+
+export interface ExportMeta {
+  readonly format: typeof META_MARKER;
+  readonly version: typeof META_VERSION;
+  readonly doc: WorkbookDoc;
+  readonly sheets: readonly SheetMeta[];
+  /** Sheets the export added (cover, functions list): not part of the document. */
+  readonly generated: readonly string[];
+}
+
+/** A cell as written or read back, reduced to what a fingerprint compares. */
+export type FingerprintCell = { readonly col: number; readonly formula: string } | { readonly col: number; readonly value: number | string | boolean } | { readonly col: number; readonly error: string };
+
+/**
+ * A formula in a form that survives another program's re-saving: no spaces, upper-case names,
+ * no storage prefixes, no quotes around simple sheet names, numbers in one spelling.
+ */
+export function normaliseFormula(text: string): string {
+  return tokenize(text.startsWith('=') ? text.slice(1) : text)
+    .filter((t) => t.kind !== 'space')
+    .map((t) => {
+      switch (t.kind) {
+        case 'string':
+          return t.text;
+        case 'number':
+          return String(Number(t.text));
+        case 'func':
+        case 'name':
+          return t.text.toUpperCase().replace(/^(?:_XLFN\.)?(?:_XLWS\.)?/, '');
+        case 'ref':
+          return t.text.replace(/'([A-Za-z_][A-Za-z0-9_.]*)'!/g, '$1!').toUpperCase();
+        default:
+          return t.text.toUpperCase();
+      }
+    })
+    .join('');
+}
+
+/** FNV-1a, 32 bits: enough to tell an edited row from an untouched one. */
+function fnv1a(text: string): string {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) {
+    h ^= text.charCodeAt(i);
+    h = Math.imul(h, 0x01000193);
+  }
+  return (h >>> 0).toString(16).padStart(8, '0');
+}
+
+export function rowFingerprint(cells: readonly FingerprintCell[]): string {
+  const parts = cells.map((c) => {
+    if ('formula' in c) return `${c.col}f${normaliseFormula(c.formula)}`;
+    if ('error' in c) return `${c.col}e${c.error}`;
+    return `${c.col}${typeof c.value === 'number' ? 'n' : typeof c.value === 'boolean' ? 'b' : 's'}${String(c.value)}`;
+  });
+  return fnv1a(parts.join('\u0001'));
+}
+
+/** The JSON split into cell-sized chunks. */
+export function metaChunks(meta: ExportMeta): string[] {
+  const json = JSON.stringify(meta);
+  const chunks: string[] = [];
+  for (let i = 0; i < json.length; i += META_CHUNK) chunks.push(json.slice(i, i + META_CHUNK));
+  return chunks;
+}
+
+function isSheetDocLike(x: unknown): boolean {
+  if (typeof x !== 'object' || x === null) return false;
+  const s = x as { name?: unknown; cells?: unknown };
+  return typeof s.name === 'string' && Array.isArray(s.cells) && s.cells.every((r) => Array.isArray(r) && r.every((c) => c === null || ['number', 'string', 'boolean'].includes(typeof c)));
+}
+
+/** Parse and check the stored JSON; undefined when it is absent, damaged or of another version. */
+export function parseMeta(json: string): ExportMeta | undefined {
+  try {
+    const m = JSON.parse(json) as Partial<ExportMeta>;
+    if (m.format !== META_MARKER || m.version !== META_VERSION) return undefined;
+    const doc = m.doc as Partial<WorkbookDoc> | undefined;
+    if (!doc || doc.format !== 'kvar-ledger-workbook' || !Array.isArray(doc.sheets) || !doc.sheets.every(isSheetDocLike)) return undefined;
+    if (!Array.isArray(m.sheets) || !Array.isArray(m.generated)) return undefined;
+    const sheetsOk = m.sheets.every((s) => typeof s?.doc === 'string' && typeof s.file === 'string' && Array.isArray(s.rows));
+    return sheetsOk ? (m as ExportMeta) : undefined;
+  } catch {
+    return undefined;
+  }
+}
