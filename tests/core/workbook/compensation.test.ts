@@ -1,0 +1,112 @@
+// The Compensation sheet: the design's banks as inputs, their consequences as formulas. Checked
+// against the compensation design (src/core/site/compensation.ts) for every template, and for one
+// bus against the textbook formulas written out here.
+import { describe, expect, it } from 'vitest';
+import { designCompensation } from '../../../src/core/site/compensation.ts';
+import { buildBusGraph } from '../../../src/core/site/graph.ts';
+import type { Site } from '../../../src/core/site/model.ts';
+import { rollUp } from '../../../src/core/site/rollup.ts';
+import { busShortCircuit } from '../../../src/core/site/shortCircuit.ts';
+import { buildWorkbook } from '../../../src/core/workbook/build.ts';
+import { PLANT } from './sites.ts';
+import { busRow, close, liveEngine, num, templateSites, valueAt } from './engineDoc.ts';
+
+const SITES: Array<{ name: string; site: Site }> = [{ name: 'invented plant', site: PLANT }, ...templateSites()];
+
+describe('Compensation sheet follows the compensation design', () => {
+  for (const { name, site } of SITES) {
+    it(name, () => {
+      const design = designCompensation(site);
+      const doc = buildWorkbook(site, { flavour: 'live' });
+      const hf = liveEngine(doc);
+      const at = (bus: string, h: string) => valueAt(hf, doc, 'Compensation', busRow(doc, bus, 'Compensation'), h);
+      for (const bank of design.banks) {
+        expect(num(at(bank.bus, 'Bank total (kvar)'))).toBe(bank.total_kvar);
+        for (const c of site.settings.cases) expect(num(at(bank.bus, `Steps in ${c}`)), `${bank.bus} ${c}`).toBe(bank.steps_in[c]);
+        if (bank.vrise_step_pct !== null) expect(close(num(at(bank.bus, 'Voltage rise per step (%)')), bank.vrise_step_pct, 1e-12)).toBe(true);
+        if (bank.vrise_total_pct !== null) expect(close(num(at(bank.bus, 'Voltage rise, whole bank (%)')), bank.vrise_total_pct, 1e-12)).toBe(true);
+        if (bank.p_pct > 0) expect(close(num(at(bank.bus, 'Capacitor voltage (kV)')), bank.u_cap_kv, 1e-12)).toBe(true);
+        if (bank.steps > 0) expect(close(num(at(bank.bus, 'Step nameplate (kvar)')), bank.step_rated_kvar, 1e-9)).toBe(true);
+      }
+      for (const r of design.reactors) {
+        for (const c of site.settings.cases) expect(num(at(r.bus, `Reactor in ${c} (kvar)`))).toBe(r.in_service[c] ? r.q_kvar : 0);
+      }
+      const root = rollUp(site, site.settings.cases[0] as string).root.bus;
+      for (const o of design.cases) expect(at(root, `Within requirement ${o.case}`)).toEqual({ ok: true, value: o.met_after ? 'yes' : 'no' });
+      // Short-circuit power per bus, as the design computes it.
+      const ssc = busShortCircuit(site, buildBusGraph(site.equipment));
+      for (const [bus, s] of ssc) expect(close(num(at(bus, 'Short-circuit power (MVA)')), s.ssc_mva, 1e-12), bus).toBe(true);
+    });
+  }
+
+  it('without banks the point of connection shows where the requirement is missed', () => {
+    for (const { site } of SITES) {
+      const design = designCompensation(site);
+      const doc = buildWorkbook(site, { flavour: 'live', banks: [] });
+      const hf = liveEngine(doc);
+      const root = rollUp(site, site.settings.cases[0] as string).root.bus;
+      for (const o of design.cases) {
+        expect(valueAt(hf, doc, 'Compensation', busRow(doc, root, 'Compensation'), `Within requirement ${o.case}`)).toEqual({ ok: true, value: o.met_before ? 'yes' : 'no' });
+      }
+    }
+  });
+});
+
+describe('one bus by hand (invented plant, bus LV2, case day)', () => {
+  const doc = buildWorkbook(PLANT, { flavour: 'live' });
+  const hf = liveEngine(doc);
+  const r = busRow(doc, 'LV2', 'Compensation');
+  const at = (h: string) => num(valueAt(hf, doc, 'Compensation', r, h));
+  const bus = rollUp(PLANT, 'day').buses.find((b) => b.bus === 'LV2');
+  if (!bus) throw new Error('no LV2');
+
+  it('short-circuit power below 2 × 1000 kVA, uk 6 %, from 250 MVA: 1/(0.06/2 + 1/250) (IEC 60909-0 impedances in series)', () => {
+    expect(close(at('Short-circuit power (MVA)'), 1 / (0.06 / 2 + 1 / 250), 1e-12)).toBe(true);
+  });
+
+  it('capacitive need Q − P·tan(acos 0.95) (power triangle, IEC 60050-131)', () => {
+    const want = bus.q_kvar - bus.p_kw * Math.tan(Math.acos(0.95));
+    expect(close(at('Capacitive need day (kvar)'), want, 1e-12)).toBe(true);
+  });
+
+  it('steps: whole steps covering the share less the fixed part, at most the steps installed', () => {
+    const share = at('Share of the site need day (kvar)');
+    expect(at('Steps in day')).toBe(Math.min(6, Math.ceil((share - 15) / 60)));
+    expect(at('Capacitor output day (kvar)')).toBe(15 + 60 * at('Steps in day'));
+  });
+
+  it('resonance order with 7 % detuning: 1/√(p/100 + Qc/Ssc) (functions.md RESONANCE.ORDER)', () => {
+    const qc = at('Capacitors connected day (kvar)');
+    const ssc = at('Short-circuit power (MVA)');
+    expect(close(at('Resonance order day'), 1 / Math.sqrt(0.07 + qc / (ssc * 1000)), 1e-12)).toBe(true);
+  });
+
+  it('voltage rise of one step: 100·Qc/Ssc (common practice, ΔU/U ≈ Q/Ssc)', () => {
+    expect(close(at('Voltage rise per step (%)'), (100 * 60) / (at('Short-circuit power (MVA)') * 1000), 1e-12)).toBe(true);
+  });
+
+  it('cos φ after = P/√(P² + Q after²)', () => {
+    const q = at('Q after day (kvar)');
+    expect(close(q, bus.q_kvar - at('Capacitor output day (kvar)'), 1e-12)).toBe(true);
+    expect(close(at('cos φ after day'), bus.p_kw / Math.hypot(bus.p_kw, q), 1e-12)).toBe(true);
+  });
+});
+
+describe('a bank changed on the sheet changes its consequences', () => {
+  it('a smaller step switches more steps; without steps the root misses the target', () => {
+    const doc = buildWorkbook(PLANT, { flavour: 'live' });
+    const hf = liveEngine(doc);
+    const sheetId = hf.getSheetId('Compensation') as number;
+    const header = doc.sheets.find((s) => s.name === 'Compensation')?.cells[0] as string[];
+    const r = busRow(doc, 'LV2', 'Compensation');
+    const stepsDay = () => num(valueAt(hf, doc, 'Compensation', r, 'Steps in day'));
+    const before = stepsDay();
+    hf.setCellContents({ sheet: sheetId, row: r, col: header.indexOf('Step (kvar)') }, [[30]]);
+    hf.setCellContents({ sheet: sheetId, row: r, col: header.indexOf('Steps') }, [[12]]);
+    expect(stepsDay()).toBeGreaterThan(before);
+    hf.setCellContents({ sheet: sheetId, row: r, col: header.indexOf('Steps') }, [[0]]);
+    hf.setCellContents({ sheet: sheetId, row: r, col: header.indexOf('Fixed (kvar)') }, [[0]]);
+    hf.setCellContents({ sheet: sheetId, row: busRow(doc, 'LV1', 'Compensation'), col: header.indexOf('Steps') }, [[0]]);
+    expect(valueAt(hf, doc, 'Compensation', busRow(doc, 'MV', 'Compensation'), 'Within requirement night')).toEqual({ ok: true, value: 'no' });
+  });
+});
