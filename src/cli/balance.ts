@@ -145,7 +145,9 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     return 1;
   }
   const { site } = loaded;
-  const problems = mergeProblems(loaded.problems, validateSite(site));
+  // A file that could not be read at all has no rows to validate; say only why it could not.
+  const unreadable = site.equipment.length === 0 && loaded.problems.some((p) => p.severity === 'error');
+  const problems = mergeProblems(loaded.problems, unreadable ? [] : validateSite(site));
   const errors = problems.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
     io.err(`balance: ${file} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was balanced:\n` + problems.map((p) => `  ${p.severity}: ${p.message}\n`).join(''));

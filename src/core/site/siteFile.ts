@@ -11,6 +11,7 @@
 import { NUMERIC_COLUMNS, type EquipmentRow, type Requirement, type Site, type SiteSettings } from './model.ts';
 import { CASE_PREFIX, parseEquipmentTable } from './parse.ts';
 import { error, type Problem } from './problems.ts';
+import { jsonErrorOffset, lineAndCharacter } from './jsonWhere.ts';
 
 export const SITE_FORMAT = 'kvar-ledger-site';
 export const SITE_VERSION = 1;
@@ -18,13 +19,10 @@ export const SITE_VERSION = 1;
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
 const isObject = (x: unknown): x is Record<string, Json> => typeof x === 'object' && x !== null && !Array.isArray(x);
 
-/** Where a JSON syntax error is, as "line L, character C", from the parser's position. */
-function syntaxWhere(text: string, e: unknown): string {
-  const m = /position (\d+)/.exec(e instanceof Error ? e.message : '');
-  if (!m) return '';
-  const before = text.slice(0, Number(m[1]));
-  const line = before.split('\n').length;
-  return ` at line ${line}, character ${before.length - before.lastIndexOf('\n')}`;
+/** Where a JSON syntax error is, as " at line L, character C". */
+function syntaxWhere(text: string): string {
+  const at = jsonErrorOffset(text);
+  return at === undefined ? '' : ` at ${lineAndCharacter(text, at)}`;
 }
 
 function readRequirement(r: unknown, problems: Problem[]): Requirement {
@@ -80,7 +78,7 @@ function equipmentTable(items: readonly Json[], problems: Problem[]): string[][]
   const header: string[] = ['tag', 'bus', 'kind'];
   items.forEach((it, i) => {
     if (!isObject(it)) {
-      problems.push(error({ row: i + 1 }, `equipment row ${i + 1} must be an object like {"tag":"M1","bus":"LV1","kind":"motor",...}; got ${JSON.stringify(it)}`));
+      problems.push(error({ row: i + 1 }, `an equipment row must be an object like {"tag":"M1","bus":"LV1","kind":"motor",...}; got ${JSON.stringify(it)}`));
       return;
     }
     for (const k of Object.keys(it)) if (!header.includes(k)) header.push(k);
@@ -104,7 +102,7 @@ export function readSiteFile(text: string): { site: Site; problems: Problem[] } 
   try {
     doc = JSON.parse(text.startsWith('\uFEFF') ? text.slice(1) : text);
   } catch (e) {
-    problems.push(error({}, `the site file is not valid JSON${syntaxWhere(text, e)}: ${e instanceof Error ? e.message : String(e)}`));
+    problems.push(error({}, `the site file is not valid JSON${syntaxWhere(text.startsWith('\uFEFF') ? text.slice(1) : text)}: ${e instanceof Error ? e.message : String(e)}`));
     return { site: empty, problems };
   }
   if (!isObject(doc) || doc.format !== SITE_FORMAT) {

@@ -1,0 +1,152 @@
+// `kvar-ledger balance`: templates, CSV and xlsx lists, --case, --hz, --json, and bad input.
+// The bus totals are checked against handCalc.ts, an independent recomputation from the
+// published formulas that reads the template JSON itself.
+import { execFile } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import ExcelJS from 'exceljs';
+import { run } from '../../src/cli/balance.ts';
+import { handTotals, type HandRow } from '../core/site/handCalc.ts';
+
+const ROOT = fileURLToPath(new URL('../../', import.meta.url));
+const COLD = join(ROOT, 'templates/cold-store.json');
+const tmp = mkdtempSync(join(tmpdir(), 'kvar-balance-'));
+
+async function balance(...argv: string[]) {
+  let out = '';
+  let err = '';
+  const code = await run(argv, { out: (t) => void (out += t), err: (t) => void (err += t) });
+  return { code, out, err };
+}
+
+function cliProcess(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  const bin = (JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { bin: Record<string, string> }).bin['kvar-ledger'] as string;
+  return new Promise((resolve) => {
+    execFile(process.execPath, [bin, ...args], { cwd: ROOT }, (error, stdout, stderr) => {
+      resolve({ code: error ? (typeof error.code === 'number' ? error.code : 1) : 0, stdout, stderr });
+    });
+  });
+}
+
+interface BusJson { bus: string; p_kw: number; q_kvar: number; s_kva: number; cos_phi: number | null; tan_phi: number | null; sense: string; q_absorbed_kvar: number; q_delivered_kvar: number }
+
+function expectHandTotals(buses: BusJson[], caseName: string) {
+  const raw = JSON.parse(readFileSync(COLD, 'utf8')) as { equipment: HandRow[] };
+  const hand = handTotals(raw.equipment, caseName, 50);
+  expect(buses.map((b) => b.bus).sort()).toEqual([...hand.keys()].sort());
+  for (const b of buses) {
+    const h = hand.get(b.bus) as { p: number; q: number; s: number };
+    expect(b.p_kw).toBeCloseTo(h.p, 9);
+    expect(b.q_kvar).toBeCloseTo(h.q, 9);
+    expect(b.s_kva).toBeCloseTo(h.s, 9);
+    expect(b.cos_phi).toBeCloseTo(h.p / h.s, 12);
+    expect(b.tan_phi).toBeCloseTo(h.q / h.p, 12);
+  }
+}
+
+describe('kvar-ledger balance', () => {
+  it('reproduces hand-computed bus totals of the cold store in its second case (as a separate process)', async () => {
+    const r = await cliProcess('balance', 'templates/cold-store.json', '--case', 'winter-night', '--json');
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout) as { case: string; buses: BusJson[]; root: BusJson };
+    expect(j.case).toBe('winter-night');
+    expectHandTotals(j.buses, 'winter-night');
+    expect(j.root.bus).toBe('MV-11');
+  });
+  it('and in its first case, the default', async () => {
+    const r = await balance(COLD, '--json');
+    const j = JSON.parse(r.out) as { case: string; buses: BusJson[] };
+    expect(j.case).toBe('summer-day');
+    expectHandTotals(j.buses, 'summer-day');
+  });
+  it('--json shape: case, buses, root, compensation, warnings', async () => {
+    const j = JSON.parse((await balance(COLD, '--case', 'winter-night', '--json')).out) as Record<string, unknown>;
+    expect(Object.keys(j)).toEqual(expect.arrayContaining(['case', 'buses', 'root', 'compensation', 'warnings', 'cases', 'hz']));
+    const bus = (j.buses as Record<string, unknown>[])[0] as Record<string, unknown>;
+    expect(Object.keys(bus)).toEqual(expect.arrayContaining(['bus', 'p_kw', 'q_kvar', 's_kva', 'cos_phi', 'tan_phi', 'q_absorbed_kvar', 'q_delivered_kvar', 'sense', 'u_kv', 'fed_by']));
+    const comp = j.compensation as { banks: Array<{ bus: string; steps_in_case: number }>; met_after: boolean; root_after: BusJson };
+    expect(comp.banks.map((b) => b.bus)).toEqual(['LV-REF', 'LV-SVC']);
+    expect(comp.met_after).toBe(true);
+    expect(comp.root_after.cos_phi).toBeGreaterThanOrEqual(0.95);
+    expect(Array.isArray(j.warnings)).toBe(true);
+  });
+  it('prints a readable aligned table by default', async () => {
+    const r = await balance(join(ROOT, 'templates/solar-collector.json'), '--case', 'night');
+    expect(r.code).toBe(0);
+    const lines = r.out.split('\n');
+    const header = lines.find((l) => l.startsWith('bus')) as string;
+    expect(header).toMatch(/bus\s+fed by\s+U kV\s+P kW\s+Q kvar\s+Q abs\s+Q del\s+S kVA\s+cos φ\s+tan φ\s+sense/);
+    const start = lines.indexOf(header) + 2;
+    const rows = lines.slice(start, lines.indexOf('', start));
+    expect(rows).toHaveLength(11);
+    // Right-aligned numbers end in the same column as their header.
+    const pEnd = header.indexOf('P kW') + 'P kW'.length;
+    for (const row of rows) expect(row.slice(0, pEnd)).toMatch(/\d$/);
+    expect(r.out).toContain('shunt reactor');
+    expect(r.out).toContain('licensed engineer');
+  });
+  it('reads a CSV list with a load:<case> column; --hz changes the cable charging', async () => {
+    const csv = join(tmp, 'list.csv');
+    writeFileSync(csv, 'tag,bus,kind,p_kw,cos_phi,u_kv,c_uf_km,len_km,load:night\nL1,MAIN,load,100,0.8,,,,0.5\nK1,MAIN,cable,,,11,0.3,2,\n');
+    const at = async (hz: string) => JSON.parse((await balance(csv, '--case', 'night', '--hz', hz, '--json')).out) as { root: BusJson; cases: string[] };
+    const j50 = await at('50');
+    const j60 = await at('60');
+    expect(j50.cases).toEqual(['normal', 'night']);
+    expect(j50.root.p_kw).toBeCloseTo(50, 12);
+    // 100 kW at 0.8: Q = 75 kvar at full load, 37.5 at half; cable −ω·C·len·U².
+    expect(j50.root.q_kvar).toBeCloseTo(37.5 - (2 * Math.PI * 50 * 0.3e-6 * 2 * 11000 ** 2) / 1000, 9);
+    expect(j60.root.q_kvar).toBeCloseTo(37.5 - (2 * Math.PI * 60 * 0.3e-6 * 2 * 11000 ** 2) / 1000, 9);
+  });
+  it('reads the first sheet of an xlsx list', async () => {
+    const wb = new ExcelJS.Workbook();
+    const ws = wb.addWorksheet('list');
+    ws.addRows([['tag', 'bus', 'kind', 'p_kw', 'cos_phi'], ['L1', 'MAIN', 'load', 300, 0.6]]);
+    const xlsx = join(tmp, 'book.xlsx');
+    await wb.xlsx.writeFile(xlsx);
+    const j = JSON.parse((await balance(xlsx, '--json')).out) as { root: BusJson };
+    expect(j.root.q_kvar).toBeCloseTo(400, 9);
+  });
+});
+
+describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {
+  it('a list with bad rows: every problem with row and column, nothing balanced', async () => {
+    const csv = join(tmp, 'bad.csv');
+    writeFileSync(csv, 'tag,bus,kind,p_kw,eff,cos_phi\nM1,LV,motor,75,0.95,1.3\nM1,LV,heater,1,1,1\n,LV,load,5,,0.9\n');
+    const r = await balance(csv);
+    expect(r.code).toBe(1);
+    expect(r.out).toBe('');
+    // The unknown kind keeps row 3 out, so its duplicate tag is not reported as well.
+    expect(r.err).toContain('has 3 errors; nothing was balanced');
+    expect(r.err).toContain('row 2, column cos_phi: KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3');
+    expect(r.err).toContain('row 3, column kind: kind must be one of');
+    expect(r.err).toContain('row 4, column tag: tag is blank');
+  });
+  it('a missing file, an unreadable site file, an unknown case, a bad --hz, an unknown option, no file', async () => {
+    const cases: Array<[string[], RegExp]> = [
+      [[join(tmp, 'nope.csv')], /cannot read .*nope\.csv: no such file/],
+      [[join(tmp, 'broken.json')], /the site file is not valid JSON at line 1/],
+      [[COLD, '--case', 'spring'], /--case "spring" is not a case of .*; its cases are summer-day, winter-night/],
+      [[COLD, '--hz', '55'], /--hz must be 50 or 60; got "55"/],
+      [[COLD, '--colour'], /unknown option --colour/],
+      [[], /give exactly one file/],
+    ];
+    writeFileSync(join(tmp, 'broken.json'), '{"format": kvar}');
+    for (const [argv, message] of cases) {
+      const r = await balance(...argv);
+      expect(r.code, argv.join(' ')).toBe(1);
+      expect(r.err).toMatch(message);
+    }
+  });
+  it('an empty or corrupt list file', async () => {
+    writeFileSync(join(tmp, 'empty.csv'), '');
+    expect((await balance(join(tmp, 'empty.csv'))).err).toMatch(/the file is empty/);
+    writeFileSync(join(tmp, 'q.csv'), 'tag,bus\n"open,LV\n');
+    const r = await balance(join(tmp, 'q.csv'));
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/line 2, character 1: a quoted field is never closed/);
+  });
+});
