@@ -1,0 +1,107 @@
+// The page in headless Chromium (Debian's, through playwright-core): the built app served on
+// 127.0.0.1, the 10,000-row workbook opened the way a user opens a *.kvar.json file
+// (Workbook → Open file…), then a reload, which restores it from the browser's storage: that is
+// "navigation to an interactive grid" for this site. Edits are typed into a motor's load cell with
+// the charts panel (bus totals) open; each is timed from the Enter key to the next frame after the
+// charts changed. Memory from the DevTools protocol; initial JavaScript from the built files.
+import { mkdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
+import { HEADERS, SHEETS } from '../../src/core/workbook/buildLayout.ts';
+import { buildApp, initialJsSize, serveStatic } from './appServer.ts';
+import { floorRoots } from './floor.ts';
+import { generateSite } from './generateSite.ts';
+import type { BrowserResult, Check } from './record.ts';
+import { SIZES } from './sizes.ts';
+import { median } from './timing.ts';
+import { MotorEdits } from './workbookView.ts';
+import { installPaintProbe, measureEditPaint, readyAt, selectCell } from './pageProbes.ts';
+
+const CHROMIUM = '/usr/bin/chromium';
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const EDITS = 7;
+const WAIT_MS = 120_000;
+
+const firstLine = (e: unknown) => (e instanceof Error ? e.message : String(e)).split('\n')[0] ?? '';
+
+async function heapUsedMb(page: Page): Promise<number> {
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Performance.enable');
+  const { metrics } = await cdp.send('Performance.getMetrics');
+  await cdp.detach();
+  const used = metrics.find((m) => m.name === 'JSHeapUsedSize')?.value ?? Number.NaN;
+  return used / 1048576;
+}
+
+/** Root P of the first case as the page shows it on the Buses sheet, checked against the floor of the edited site. */
+async function checkRoot(page: Page, edits: MotorEdits, site: ReturnType<typeof generateSite>): Promise<Check> {
+  await page.click(`[data-testid=sheet-tab][data-sheet="${SHEETS.buses}"]`);
+  await selectCell(page, 1, 5);
+  const text = (await page.textContent('[data-testid=fb-value]')) ?? '';
+  const shown = Number(text.replace(/[^0-9.eE+-]/g, ''));
+  const want = floorRoots(edits.editedSite()).p[0] as number;
+  // The page may show the value rounded to its number format (0.1 kW).
+  const ok = Math.abs(shown - want) <= 0.05 + 1e-9 * Math.abs(want);
+  return { agrees: ok, detail: `the page shows root P ${text.trim()} after the edits; the floor of the edited site gives ${want.toFixed(3)}` };
+}
+
+export async function measureBrowser(workDir: string, liveFile: string, rows: number): Promise<BrowserResult> {
+  const outDir = join(workDir, 'app');
+  try {
+    await buildApp(outDir);
+  } catch (e) {
+    return { status: 'not available', note: `the app does not build yet: ${firstLine(e)}` };
+  }
+  const js = initialJsSize(outDir);
+  const base = { rows, initialJsBytes: js.bytes, initialJsGzipBytes: js.gzipBytes };
+  const { url, server } = await serveStatic(outDir);
+  const profile = join(workDir, 'chromium-profile');
+  mkdirSync(profile, { recursive: true });
+  const { chromium } = await import('playwright-core');
+  const context = await chromium.launchPersistentContext(profile, { executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 1600, height: 1000 } });
+  try {
+    const page = context.pages()[0] ?? (await context.newPage());
+    page.setDefaultTimeout(WAIT_MS);
+    const doc = JSON.parse(readFileSync(liveFile, 'utf8')) as WorkbookDoc;
+    await page.goto(url);
+    await readyAt(page, undefined);
+
+    // Open the file as a user does; the app autosaves it into the browser's storage.
+    await page.click('[data-testid=menu-workbook]');
+    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.click('[data-testid=menu-open]')]);
+    const t0 = performance.now();
+    await chooser.setFiles(liveFile);
+    await readyAt(page, doc.title);
+    const fileOpenMs = performance.now() - t0;
+    await page.waitForFunction(() => document.querySelector('[data-testid=save-status]')?.textContent?.startsWith('Saved') === true, undefined, { timeout: WAIT_MS });
+
+    // Navigation to an interactive grid of this workbook (restored from storage).
+    await page.reload();
+    const openMs = await readyAt(page, doc.title);
+
+    // Edits with the bus totals (charts panel) on screen.
+    const size = SIZES.find((s) => s.rows === rows) ?? { rows, buses: 300 };
+    const site = generateSite(size);
+    const edits = new MotorEdits(doc, site);
+    await page.click('[data-testid=toggle-charts]');
+    await page.click(`[data-testid=sheet-tab][data-sheet="${SHEETS.motors}"]`);
+    await selectCell(page, 1, edits.col);
+    await installPaintProbe(page, '[data-testid=charts]');
+    const times: number[] = [];
+    for (let k = 0; k < EDITS; k++) {
+      const value = edits.value(k);
+      times.push(await measureEditPaint(page, String(value)));
+      edits.record(1 + k, value); // Enter moves the selection one row down: the next motor.
+    }
+    const jsHeapUsedMb = await heapUsedMb(page);
+    const check = await checkRoot(page, edits, site);
+    const note = `file open (choose → interactive) ${Math.round(fileOpenMs)} ms; edits in "${HEADERS.loadCase(site.settings.cases[0] as string)}" of ${SHEETS.motors}`;
+    return { status: 'ok', note, ...base, openMs, editPaintMs: median(times), editPaintRuns: times.length, jsHeapUsedMb, check };
+  } catch (e) {
+    return { status: 'failed', note: firstLine(e), ...base };
+  } finally {
+    await context.close();
+    server.close();
+  }
+}

@@ -1,0 +1,69 @@
+// The shape of a measurement, shared by the steps, the child-process phases, the peer, the
+// browser part and the report. A step that could not give a number says why in `status` and
+// `note`; there are never made-up figures.
+
+export const STEP_NAMES = {
+  floor: 'Floor: typed-array loop, all cases',
+  rollup: 'Core rollUp, all cases',
+  buildLive: 'buildWorkbook (live) to a WorkbookDoc',
+  buildPortable: 'buildWorkbook (portable) to a WorkbookDoc',
+  engineBuild: 'Engine build (catalogue + bus roll-up plugin)',
+  editOne: 'One edit (motor load) to updated root P',
+  editBatch: 'Batch of 1,000 edits to updated root P',
+  xlsxExport: 'xlsx export (portable workbook)',
+  xlsxImport: 'xlsx import',
+  cliStart: 'CLI start-up alone (--version), process',
+  cliBalance: 'CLI balance --json, whole process',
+  peerStartup: 'Peer: LibreOffice no-op start-up (tiny file)',
+  peerGross: 'Peer: LibreOffice load + recalc + CSV, whole process',
+  peerRecalc: 'Peer: LibreOffice recalculation (gross − start-up)',
+} as const;
+
+export type StepId = keyof typeof STEP_NAMES;
+
+export type Status = 'ok' | 'exceeded' | 'not available' | 'failed' | 'not run';
+
+export interface Check {
+  /** true when the step's bus totals agree with the reference named in `detail`. */
+  readonly agrees: boolean;
+  readonly detail: string;
+}
+
+export interface StepResult {
+  readonly step: StepId;
+  readonly rows: number;
+  readonly status: Status;
+  /** Median of `runs` timings (one run for slow steps). */
+  readonly ms?: number;
+  readonly minMs?: number;
+  readonly runs?: number;
+  readonly note?: string;
+  readonly check?: Check;
+}
+
+/** Peak resident memory of a child-process phase, MB (from process.resourceUsage().maxRSS). */
+export interface MemoryResult {
+  readonly rows: number;
+  readonly phase: string;
+  readonly peakRssMb: number;
+  /** false when the phase was stopped before its end (the peak is then a lower bound). */
+  readonly complete: boolean;
+}
+
+export interface BrowserResult {
+  readonly status: Status;
+  readonly note?: string;
+  readonly rows?: number;
+  readonly openMs?: number;
+  readonly editPaintMs?: number;
+  readonly editPaintRuns?: number;
+  readonly jsHeapUsedMb?: number;
+  readonly initialJsBytes?: number;
+  readonly initialJsGzipBytes?: number;
+  readonly check?: Check;
+}
+
+/** Relative agreement of two totals, with a scale floor so a zero total does not divide. */
+export function agreeRel(a: number, b: number, tol = 1e-9): boolean {
+  return Math.abs(a - b) <= tol * Math.max(1, Math.abs(a), Math.abs(b));
+}

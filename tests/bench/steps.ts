@@ -1,0 +1,126 @@
+// The measured steps, each a function of its inputs that returns a StepResult (and what the
+// next step needs). Every step that yields bus totals checks them against the floor, so a fast
+// but wrong path cannot look good. Site generation and file writing are never timed.
+import type { HyperFormula } from 'hyperformula';
+import type { Site } from '../../src/core/site/model.ts';
+import { rollUp } from '../../src/core/site/rollup.ts';
+import { buildWorkbook, type Flavour } from '../../src/core/workbook/build.ts';
+import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
+import { createEngine } from '../../src/engine/index.ts';
+import { BUS_ROLLUP_PLUGIN } from '../../src/engine/rollupPlugin.ts';
+import { floorRootIndex, floorRoots, floorTotals, prepareFloor } from './floor.ts';
+import { agreeRel, type Check, type StepResult } from './record.ts';
+import { timeOnce, timeOnceAsync, timeRepeated } from './timing.ts';
+import { busesView, MotorEdits, readRoot, readRootP, type RootTotals } from './workbookView.ts';
+import { findExporter, findImporter, importFailure } from './xlsxModules.ts';
+
+const fmt = (x: number) => x.toFixed(6);
+
+/** Compare root totals of every case with a reference. */
+export function compareRoots(got: RootTotals, ref: RootTotals, refName: string): Check {
+  const bad: string[] = [];
+  if (got.bus !== ref.bus) bad.push(`root bus ${got.bus} ≠ ${ref.bus}`);
+  ref.p.forEach((p, k) => {
+    const gp = got.p[k] ?? Number.NaN, gq = got.q[k] ?? Number.NaN, rq = ref.q[k] as number;
+    if (!agreeRel(gp, p) || !agreeRel(gq, rq)) bad.push(`case ${k + 1}: P ${fmt(gp)} vs ${fmt(p)}, Q ${fmt(gq)} vs ${fmt(rq)}`);
+  });
+  return bad.length === 0
+    ? { agrees: true, detail: `root ${ref.bus} P and Q of ${ref.p.length} case(s) equal the ${refName} to 1e-9 relative` }
+    : { agrees: false, detail: `differs from the ${refName}: ${bad.join('; ')}` };
+}
+
+export function measureFloor(site: Site): { result: StepResult; roots: RootTotals } {
+  const x = prepareFloor(site);
+  const root = floorRootIndex(x);
+  const t = timeRepeated(() => site.settings.cases.map((_, k) => floorTotals(x, k)), 21, 1_000);
+  const roots = { bus: x.busNames[root] as string, p: t.value.map((v) => v.p[root] as number), q: t.value.map((v) => v.q[root] as number) };
+  return { result: { step: 'floor', rows: site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs, note: 'unpacking into typed arrays not timed' }, roots };
+}
+
+export function measureRollUp(site: Site, floor: RootTotals): StepResult {
+  const t = timeRepeated(() => site.settings.cases.map((c) => rollUp(site, c)), 5, 3_000);
+  const got = { bus: t.value[0]?.root.bus ?? '', p: t.value.map((b) => b.root.p_kw), q: t.value.map((b) => b.root.q_kvar) };
+  return { step: 'rollup', rows: site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs, check: compareRoots(got, floor, 'floor') };
+}
+
+export function measureBuild(site: Site, flavour: Flavour): { result: StepResult; doc: WorkbookDoc } {
+  const t = timeOnce(() => buildWorkbook(site, { flavour }));
+  const cells = t.value.sheets.reduce((n, s) => n + s.cells.reduce((m, r) => m + r.length, 0), 0);
+  const step = flavour === 'live' ? 'buildLive' : 'buildPortable';
+  return { result: { step, rows: site.equipment.length, status: 'ok', ms: t.ms, runs: 1, note: `${t.value.sheets.length} sheets, ${cells.toLocaleString('en-GB')} cells` }, doc: t.value };
+}
+
+export function measureEngineBuild(doc: WorkbookDoc, site: Site, floor: RootTotals): { result: StepResult; hf: HyperFormula } {
+  const t = timeOnce(() => createEngine(doc.sheets, { plugins: [BUS_ROLLUP_PLUGIN] }));
+  const got = readRoot(t.value, busesView(t.value, site.settings.cases));
+  return { result: { step: 'engineBuild', rows: site.equipment.length, status: 'ok', ms: t.ms, runs: 1, check: compareRoots(got, floor, 'floor') }, hf: t.value };
+}
+
+/** Edits the engine and checks its root against the floor of the site with the same edits. */
+export class EngineEdits {
+  readonly edits: MotorEdits;
+  private readonly sheet: number;
+  private k = 0;
+
+  constructor(
+    private readonly hf: HyperFormula,
+    doc: WorkbookDoc,
+    private readonly site: Site,
+  ) {
+    this.edits = new MotorEdits(doc, site);
+    const id = hf.getSheetId(this.edits.sheetName);
+    if (id === undefined) throw new Error(`the engine has no sheet "${this.edits.sheetName}"`);
+    this.sheet = id;
+  }
+
+  private check(): Check {
+    const got = readRoot(this.hf, busesView(this.hf, this.site.settings.cases));
+    return compareRoots(got, floorRoots(this.edits.editedSite()), 'floor of the edited site');
+  }
+
+  /** One cell edit, then the root P read back; several edits on different motors, median reported. */
+  one(): StepResult {
+    const view = busesView(this.hf, this.site.settings.cases);
+    const t = timeRepeated(() => {
+      this.edits.write(this.hf, this.sheet, this.k++);
+      return readRootP(this.hf, view);
+    }, 9, 5_000);
+    return {
+      step: 'editOne', rows: this.site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs,
+      note: `${t.runs} edits on different motors, setCellContents then getCellValue of the root P`, check: this.check(),
+    };
+  }
+
+  /** 1,000 edits in one engine batch, then the root P read back. */
+  batch(count = 1_000): StepResult {
+    const view = busesView(this.hf, this.site.settings.cases);
+    const t = timeRepeated(() => {
+      this.hf.batch(() => {
+        for (let i = 0; i < count; i++) this.edits.write(this.hf, this.sheet, this.k++);
+      });
+      return readRootP(this.hf, view);
+    }, 3, 4_000);
+    return {
+      step: 'editBatch', rows: this.site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs,
+      note: `${count} motor load cells in one hf.batch`, check: this.check(),
+    };
+  }
+}
+
+export async function measureExport(doc: WorkbookDoc, rows: number): Promise<{ result: StepResult; bytes?: Uint8Array }> {
+  const exporter = await findExporter();
+  if (!exporter.ok) return { result: { step: 'xlsxExport', rows, status: 'not available', note: exporter.why } };
+  const t = await timeOnceAsync(() => exporter.fn(doc));
+  const mb = (t.value.byteLength / 1048576).toFixed(1);
+  return { result: { step: 'xlsxExport', rows, status: 'ok', ms: t.ms, runs: 1, note: `${exporter.from}; ${mb} MB` }, bytes: t.value };
+}
+
+export async function measureImport(bytes: Uint8Array | undefined, rows: number): Promise<StepResult> {
+  if (!bytes) return { step: 'xlsxImport', rows, status: 'not available', note: 'no exported file to read (export not available)' };
+  const importer = await findImporter();
+  if (!importer.ok) return { step: 'xlsxImport', rows, status: 'not available', note: importer.why };
+  const t = await timeOnceAsync(() => importer.fn(bytes));
+  const failure = importFailure(t.value);
+  if (failure !== undefined) return { step: 'xlsxImport', rows, status: 'failed', ms: t.ms, note: `${importer.from}: ${failure}` };
+  return { step: 'xlsxImport', rows, status: 'ok', ms: t.ms, runs: 1, note: importer.from };
+}
