@@ -82,3 +82,14 @@ describe('typed input', () => {
     }
   });
 });
+
+describe('optional decimals', () => {
+  it('drops trailing zeros after the required decimals', () => {
+    expect(formatNumber(11, '0.0##')).toBe('11.0');
+    expect(formatNumber(0.4, '0.0##')).toBe('0.4');
+    expect(formatNumber(6.6, '0.0##')).toBe('6.6');
+    expect(formatNumber(0.415, '0.0##')).toBe('0.415');
+    expect(formatNumber(0.41567, '0.0##')).toBe('0.416');
+    expect(formatNumber(3, '0.##')).toBe('3');
+  });
+});

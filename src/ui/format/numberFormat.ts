@@ -1,9 +1,11 @@
 // Display of numbers by the column's format code (ColumnInfo.format). Only the small set of codes
-// the workbook uses: '0', '0.0', '0.000', '#,##0.0', '0.0%', '0.00E+00'; anything else is General.
+// the workbook uses: '0', '0.0', '0.0##', '#,##0.0', '0.0%', '0.00E+00'; anything else is General.
 // Display only: the engine keeps full precision and copies carry the full value.
 
 interface Parsed {
   readonly decimals: number;
+  /** With '#' after the zeros: up to this many decimals, trailing zeros beyond `decimals` dropped. */
+  readonly maxDecimals: number;
   readonly grouping: boolean;
   readonly percent: boolean;
   readonly scientific: boolean;
@@ -14,9 +16,15 @@ const cache = new Map<string, Parsed | null>();
 function parse(code: string): Parsed | null {
   const hit = cache.get(code);
   if (hit !== undefined) return hit;
-  const m = /^(#,##)?0(?:\.(0+))?(%|E\+00)?$/.exec(code.trim());
+  const m = /^(#,##)?0(?:\.(0*)(#*))?(%|E\+00)?$/.exec(code.trim());
   const parsed = m
-    ? { grouping: m[1] !== undefined, decimals: m[2]?.length ?? 0, percent: m[3] === '%', scientific: m[3] === 'E+00' }
+    ? {
+        grouping: m[1] !== undefined,
+        decimals: m[2]?.length ?? 0,
+        maxDecimals: (m[2]?.length ?? 0) + (m[3]?.length ?? 0),
+        percent: m[4] === '%',
+        scientific: m[4] === 'E+00',
+      }
     : null;
   cache.set(code, parsed);
   return parsed;
@@ -45,7 +53,11 @@ export function formatNumber(x: number, code?: string): string {
     return `${mant}E${e < 0 ? '-' : '+'}${String(Math.abs(e)).padStart(2, '0')}`;
   }
   const v = f.percent ? x * 100 : x;
-  let text = Math.abs(v).toFixed(f.decimals);
+  let text = Math.abs(v).toFixed(f.maxDecimals);
+  if (f.maxDecimals > f.decimals) {
+    const cut = new RegExp(`0{1,${f.maxDecimals - f.decimals}}$`);
+    text = text.replace(cut, '').replace(/\.$/, '');
+  }
   if (f.grouping) {
     const [i, d] = text.split('.') as [string, string | undefined];
     text = d === undefined ? group(i) : `${group(i)}.${d}`;

@@ -46,17 +46,3 @@ export function clearCells(host: CommandHost): void {
   for (let row = sel.top; row <= sel.bottom; row++) for (let col = sel.left; col <= sel.right; col++) cells.push({ row, col, content: null });
   host.session.setCells(sel.sheetId, cells);
 }
-
-export function contextMenuItems(host: CommandHost) {
-  return {
-    kl_row_above: { name: 'Insert rows above', callback: () => insertRows(host, 'above') },
-    kl_row_below: { name: 'Insert rows below', callback: () => insertRows(host, 'below') },
-    kl_row_delete: { name: 'Delete rows', callback: () => deleteRows(host) },
-    sep1: '---------',
-    kl_fill_down: { name: 'Fill down   Ctrl+D', callback: () => void fillDown(host) },
-    kl_clear: { name: 'Clear contents   Del', callback: () => clearCells(host) },
-    sep2: '---------',
-    copy: { name: 'Copy   Ctrl+C' },
-    cut: { name: 'Cut   Ctrl+X' },
-  };
-}

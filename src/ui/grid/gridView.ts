@@ -12,7 +12,7 @@ import { decorateColumnHeader } from './columnHeaderView.ts';
 import { gridData } from './gridData.ts';
 import { GRID_LICENSE_KEY, Handsontable, registerGridModules } from './hotModules.ts';
 import { installEditHandlers, type EditHost } from './gridEdits.ts';
-import { contextMenuItems } from './gridMenu.ts';
+import { attachContextMenu } from './gridContextMenu.ts';
 
 export interface Selection {
   readonly sheetId: number;
@@ -70,7 +70,10 @@ export class GridView implements EditHost {
       fillHandle: { autoInsertRow: false },
       manualColumnResize: true,
       copyPaste: { copyColumnHeaders: false },
-      contextMenu: { items: contextMenuItems(this) },
+      injectCoreCss: false,
+      // One line per row keeps the sheet dense; the full text is in the formula bar.
+      wordWrap: false,
+      textEllipsis: true,
       sanitizer: textOnlySanitizer,
       minSpareRows: 5,
       afterSelection: () => this.reportSelection(),
@@ -87,6 +90,7 @@ export class GridView implements EditHost {
     };
     this.hot = new Handsontable(host, settings) as HotInstance;
     installEditHandlers(this);
+    attachContextMenu(host, this);
     session.onChange((c) => this.onSessionChange(c));
   }
 

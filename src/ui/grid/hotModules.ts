@@ -1,11 +1,14 @@
 // The grid library is imported piece by piece (its base plus the few plugins registered here) to
 // keep the initial download inside the budget; the full package would add what we never use.
+// The right-click menu is our own (gridContextMenu.ts), smaller than the library's.
 import Handsontable from 'handsontable/base';
 import { registerPlugin } from 'handsontable/plugins/registry';
 import { CopyPaste } from 'handsontable/plugins/copyPaste';
-import { ContextMenu } from 'handsontable/plugins/contextMenu';
 import { Autofill } from 'handsontable/plugins/autofill';
 import { ManualColumnResize } from 'handsontable/plugins/manualColumnResize';
+// The grid's core styles as a file (not injected by the grid: injectCoreCss is off, see the
+// alias in vite.config.ts), then its plain theme, which styles/grid.css recolours.
+import 'handsontable/styles/handsontable.min.css';
 import 'handsontable/styles/ht-theme-main-no-icons.css';
 
 let registered = false;
@@ -13,7 +16,6 @@ let registered = false;
 export function registerGridModules(): void {
   if (registered) return;
   registerPlugin(CopyPaste);
-  registerPlugin(ContextMenu);
   registerPlugin(Autofill);
   registerPlugin(ManualColumnResize);
   registered = true;

@@ -30,8 +30,8 @@ export class FunctionReference {
     this.list = el('div', { className: 'kl-ref-list', attrs: { 'data-testid': 'ref-list' } });
     this.detail = el('article', { className: 'kl-ref-detail', attrs: { 'data-testid': 'ref-detail' } });
     this.root = el('section', { className: 'kl-ref', attrs: { 'aria-label': 'Function reference' } }, [this.search, this.list, this.detail]);
+    // The detail's examples need the engine: drawn when the panel is first shown (refresh).
     this.renderList();
-    this.renderDetail();
   }
 
   show(name: string): void {

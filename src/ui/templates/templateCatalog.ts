@@ -1,22 +1,15 @@
 // The starter workbooks: the site files in templates/, bundled as raw text at build time (each
-// in its own chunk, fetched when needed) and built into live workbooks by the shared builder.
-import { readSiteFile } from '../../core/site/siteFile.ts';
-import { buildWorkbook } from '../../core/workbook/build.ts';
+// in its own chunk) and built into live workbooks by the shared builder, which is fetched with
+// the first template so a returning visit does not download it.
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import type { TemplateInfo } from './templateBuild.ts';
+
+export type { TemplateInfo } from './templateBuild.ts';
 
 const files = import.meta.glob<string>('../../../templates/*.json', { query: '?raw', import: 'default' });
 
 /** The template the first visit opens. */
 export const DEMO_TEMPLATE = 'cold-store';
-
-export interface TemplateInfo {
-  readonly id: string;
-  readonly title: string;
-  readonly notes: readonly string[];
-  readonly buses: number;
-  readonly items: number;
-  readonly cases: readonly string[];
-}
 
 export function templateIds(): string[] {
   return Object.keys(files)
@@ -31,21 +24,12 @@ async function text(id: string): Promise<string> {
 }
 
 export async function templateInfo(id: string): Promise<TemplateInfo> {
-  const { site } = readSiteFile(await text(id));
-  return {
-    id,
-    title: site.settings.name,
-    notes: site.settings.notes ?? [],
-    buses: new Set(site.equipment.flatMap((r) => [r.bus, ...(r.to_bus ? [r.to_bus] : [])])).size,
-    items: site.equipment.length,
-    cases: site.settings.cases,
-  };
+  const [{ infoOf }, t] = await Promise.all([import('./templateBuild.ts'), text(id)]);
+  return infoOf(id, t);
 }
 
 /** A template as a live workbook; refuses a template with errors rather than showing half a site. */
 export async function templateWorkbook(id: string): Promise<WorkbookDoc> {
-  const { site, problems } = readSiteFile(await text(id));
-  const errors = problems.filter((p) => p.severity === 'error');
-  if (errors.length > 0) throw new Error(`template "${id}" has problems: ${errors.slice(0, 3).map((p) => p.message).join('; ')}`);
-  return buildWorkbook(site, { flavour: 'live' });
+  const [{ workbookOf }, t] = await Promise.all([import('./templateBuild.ts'), text(id)]);
+  return workbookOf(id, t);
 }

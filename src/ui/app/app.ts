@@ -1,0 +1,213 @@
+// The page: wires the open workbook (session) to the grid, formula bar, sheet index, panels,
+// status bar and autosave. Replacing the workbook (template, file, restore) builds a new session
+// and a new grid; everything else stays.
+import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import { CATALOGUE } from '../../core/functions/index.ts';
+import { el } from '../dom.ts';
+import { FormulaAssist } from '../autocomplete/formulaAssist.ts';
+import { FormulaBar } from '../formulaBar.ts';
+import { GridView, type Selection } from '../grid/gridView.ts';
+import { fillDown } from '../grid/gridMenu.ts';
+import { WorkbookSession, SessionError } from '../model/session.ts';
+import { FunctionReference } from '../panels/functionReference.ts';
+import { SheetList } from '../sheetList.ts';
+import { StatusBar } from '../statusBar.ts';
+import { Autosaver } from '../storage/autosave.ts';
+import type { WorkbookStore } from '../storage/idbStore.ts';
+import { SidePanel } from './sidePanel.ts';
+import { buildTopBar } from './topBar.ts';
+import { scanErrors, selectionNumbers } from './sheetScan.ts';
+import type { ChartsPanel } from '../charts/chartsPanel.ts';
+
+export class App {
+  session!: WorkbookSession;
+  grid!: GridView;
+  readonly assist: FormulaAssist;
+  readonly formulaBar: FormulaBar;
+  readonly sheets: SheetList;
+  readonly status: StatusBar;
+  readonly side = new SidePanel();
+  readonly reference: FunctionReference;
+  charts: ChartsPanel | undefined;
+  private readonly gridHost: HTMLElement;
+  private readonly caption: HTMLElement;
+  private readonly titleInput: HTMLInputElement;
+  private autosaver: Autosaver | undefined;
+  private sheet = -1;
+  private lastSelection: Selection | undefined;
+  private scanQueued = false;
+
+  constructor(readonly root: HTMLElement, readonly store: WorkbookStore | undefined, standardNames: readonly string[]) {
+    const app = this; // eslint-disable-line @typescript-eslint/no-this-alias -- getters below read the current session
+    this.assist = new FormulaAssist(standardNames, (f) => this.formulaBar.mirror(f.value));
+    this.formulaBar = new FormulaBar({
+      get session() { return app.session; },
+      assist: this.assist,
+      columns: (id) => this.session.meta(id).columns,
+      hasHeaderRow: (id) => (this.session.meta(id).columns?.length ?? 0) > 0,
+      returnFocus: () => this.grid.focus(),
+    });
+    this.sheets = new SheetList({
+      get session() { return app.session; },
+      current: () => this.sheet,
+      open: (id) => this.openSheet(id),
+      notice: (t, k) => this.status.show(t, k),
+    });
+    this.status = new StatusBar(() => this.nextError());
+    this.reference = new FunctionReference({
+      session: () => this.session,
+      currentSheet: () => this.sheet,
+      insert: (text) => this.insertIntoCell(text),
+    });
+    this.side.add('functions', 'Function reference', this.reference.root, () => this.reference.refresh());
+    this.gridHost = el('div', { className: 'kl-grid-host', attrs: { 'data-testid': 'grid' } });
+    this.caption = el('div', { className: 'kl-caption', attrs: { 'data-testid': 'sheet-caption' } });
+    const top = buildTopBar(this);
+    this.titleInput = top.title;
+    root.append(
+      top.root,
+      this.formulaBar.root,
+      el('div', { className: 'kl-main' }, [this.sheets.root, el('section', { className: 'kl-work' }, [this.caption, this.gridHost]), this.side.root]),
+      this.status.root,
+    );
+    if (store) {
+      this.autosaver = new Autosaver(store, () => this.session.toDoc(), { onStatus: (s) => this.status.saveStatus(s) });
+    } else {
+      this.status.saveStatus({ state: 'failed', message: 'Browser storage is not available here, so changes are NOT kept when the page closes. Save the workbook to a file to keep it.' });
+    }
+  }
+
+  /** Show a workbook in place of the current one. `changed`: save it right away (a new workbook). */
+  open(doc: WorkbookDoc, opts: { note?: string; changed?: boolean } = {}): void {
+    const next = WorkbookSession.fromDoc(doc);
+    this.grid?.destroy();
+    this.session?.destroy();
+    this.gridHost.replaceChildren();
+    this.session = next;
+    this.grid = new GridView(this.gridHost, next, {
+      onSelect: (sel) => this.onSelect(sel),
+      onEditorOpen: (input) => this.onEditorOpen(input),
+      onKey: (e) => this.onGridKey(e),
+      onNotice: (t) => this.status.show(t),
+    });
+    next.onChange((c) => {
+      if (c.kind === 'sheets' || c.kind === 'history') this.afterSheetsChange();
+      if (c.kind === 'title') this.titleInput.value = next.title;
+      this.formulaBar.show(this.grid.selection());
+      this.queueScan();
+      this.charts?.update(next);
+      this.autosaver?.changed();
+    });
+    this.titleInput.value = next.title;
+    this.sheet = -1;
+    this.openSheet(next.sheetIds()[0] as number);
+    this.charts?.update(next);
+    if (this.side.shown === 'functions') this.reference.refresh();
+    if (opts.note) this.status.show(opts.note, 'info', 10_000);
+    if (opts.changed) this.autosaver?.changed();
+  }
+
+  currentSheet(): number {
+    return this.sheet;
+  }
+
+  openSheet(id: number): void {
+    this.sheet = id;
+    this.grid.show(id);
+    this.sheets.render();
+    const name = this.session.sheetName(id);
+    const purpose = this.session.meta(id).purpose;
+    this.caption.replaceChildren(el('strong', { text: name }), purpose ? el('span', { text: ` — ${purpose}` }) : '');
+    this.queueScan();
+  }
+
+  private afterSheetsChange(): void {
+    const ids = this.session.sheetIds();
+    if (!ids.includes(this.sheet)) this.openSheet(ids[0] as number);
+    else {
+      this.sheets.render();
+      this.openSheetCaption();
+    }
+  }
+
+  private openSheetCaption(): void {
+    const purpose = this.session.meta(this.sheet).purpose;
+    this.caption.replaceChildren(el('strong', { text: this.session.sheetName(this.sheet) }), purpose ? el('span', { text: ` — ${purpose}` }) : '');
+  }
+
+  private onSelect(sel: Selection): void {
+    this.lastSelection = sel;
+    this.formulaBar.show(sel);
+    const cells = (sel.bottom - sel.top + 1) * (sel.right - sel.left + 1);
+    this.status.selection(selectionNumbers(this.session, sel), cells);
+  }
+
+  private onEditorOpen(input: HTMLTextAreaElement | HTMLInputElement): void {
+    this.assist.attach(input);
+    if (!input.dataset.klMirror) {
+      input.dataset.klMirror = '1';
+      input.addEventListener('input', () => this.formulaBar.mirror(input.value));
+    }
+    this.formulaBar.mirror(input.value);
+  }
+
+  /** Keys the grid hands over first; true = handled here. */
+  private onGridKey(e: KeyboardEvent): boolean {
+    if (this.grid.isEditing()) return this.assist.handleKey(e);
+    const mod = e.ctrlKey || e.metaKey;
+    if (!mod || e.altKey) return false;
+    const k = e.key.toLowerCase();
+    if (k === 'z' && !e.shiftKey) return this.undo(), true;
+    if (k === 'y' || (k === 'z' && e.shiftKey)) return this.redo(), true;
+    if (k === 'd') return this.run(() => fillDown(this.grid)), true;
+    return false;
+  }
+
+  /** Run a command, turning a refusal into a message instead of an exception. */
+  run(fn: () => unknown): void {
+    try {
+      fn();
+    } catch (e) {
+      this.status.show(e instanceof SessionError || e instanceof Error ? e.message : String(e), 'error');
+    }
+  }
+
+  undo(): void {
+    if (!this.session.undo()) this.status.show('Nothing to undo.');
+  }
+
+  redo(): void {
+    if (!this.session.redo()) this.status.show('Nothing to redo.');
+  }
+
+  insertIntoCell(text: string): void {
+    if (this.formulaBar.input === document.activeElement) this.formulaBar.begin(text);
+    else this.grid.editWith(text);
+  }
+
+  /** Flush pending autosave (page hidden or closing). */
+  flush(): Promise<void> {
+    return this.autosaver?.flush() ?? Promise.resolve();
+  }
+
+  private queueScan(): void {
+    if (this.scanQueued) return;
+    this.scanQueued = true;
+    requestAnimationFrame(() => {
+      this.scanQueued = false;
+      if (this.sheet >= 0) this.status.errorCount(scanErrors(this.session, this.sheet).length);
+    });
+  }
+
+  private nextError(): void {
+    const errors = scanErrors(this.session, this.sheet);
+    if (errors.length === 0) return;
+    const at = this.lastSelection;
+    const after = errors.find(([r, c]) => !at || r > at.row || (r === at.row && c > at.col)) ?? errors[0];
+    if (after) this.grid.select(after[0], after[1]);
+  }
+
+  catalogueSize(): number {
+    return CATALOGUE.length;
+  }
+}

@@ -1,0 +1,50 @@
+// Start-up: open the browser storage, bring back the last good workbook (or the one before it),
+// or open the demo template on a first visit; then keep saving.
+import { HyperFormula } from 'hyperformula';
+import { ENGINE_LANGUAGE } from '../../engine/config.ts';
+import { ChartsPanel } from '../charts/chartsPanel.ts';
+import { WorkbookStore } from '../storage/idbStore.ts';
+import { describeStorageError } from '../storage/storageErrors.ts';
+import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts';
+import { App } from './app.ts';
+import { saveFile } from './fileActions.ts';
+
+async function openStore(): Promise<{ store?: WorkbookStore; problem?: string }> {
+  try {
+    if (typeof indexedDB === 'undefined') return { problem: 'This browser offers no IndexedDB storage.' };
+    return { store: await WorkbookStore.open(indexedDB) };
+  } catch (e) {
+    return { problem: describeStorageError(e) };
+  }
+}
+
+export async function boot(root: HTMLElement): Promise<App> {
+  const { store, problem } = await openStore();
+  const app = new App(root, store, HyperFormula.getRegisteredFunctionNames(ENGINE_LANGUAGE));
+  const charts = new ChartsPanel();
+  app.charts = charts;
+  app.side.add('charts', 'Charts', charts.root, () => charts.draw());
+  if (problem) app.status.show(problem, 'error', 0);
+
+  const restored = store ? await store.load().catch(() => ({ found: false as const, note: 'The saved workbook could not be read.' })) : undefined;
+  if (restored?.found) {
+    app.open(restored.doc, { note: restored.note ?? `Welcome back: your workbook as saved ${new Date(restored.savedAt).toLocaleString()}.` });
+  } else {
+    const demo = await templateWorkbook(DEMO_TEMPLATE);
+    app.open(demo, { note: `${restored?.note ? `${restored.note} ` : ''}A demo workbook of an invented site is open. Start your own from Workbook → New from template, or import an equipment list.`, changed: true });
+  }
+
+  // Keep what was typed when the tab is hidden or closed.
+  document.addEventListener('visibilitychange', () => {
+    if (document.visibilityState === 'hidden') void app.flush();
+  });
+  window.addEventListener('pagehide', () => void app.flush());
+  document.addEventListener('keydown', (e) => {
+    if ((e.ctrlKey || e.metaKey) && !e.altKey && e.key.toLowerCase() === 's') {
+      e.preventDefault();
+      saveFile(app);
+    }
+  });
+  root.dataset.ready = 'true';
+  return app;
+}

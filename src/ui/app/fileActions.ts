@@ -1,0 +1,90 @@
+// Workbook-level commands: start from a template, open and save the native file, restore the
+// previous autosaved state, import an equipment list, export the hand-off xlsx. The xlsx code
+// (and its library) is fetched only when one of the last two is used.
+import { el } from '../dom.ts';
+import { confirmDialog, openDialog } from '../dialogs/dialog.ts';
+import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from '../storage/nativeFile.ts';
+import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
+import type { App } from './app.ts';
+
+const REPLACE_NOTE = 'The open workbook is replaced. Its last state stays in this browser once more (Workbook → Restore the previous state); save it to a file first to keep it for good.';
+
+export async function newFromTemplate(app: App): Promise<void> {
+  const ids = templateIds();
+  const infos = await Promise.all(ids.map((id) => templateInfo(id).catch(() => undefined)));
+  const cards = infos.flatMap((info) => {
+    if (!info) return [];
+    const open = el('button', { className: 'kl-btn kl-btn-primary', text: 'Open', attrs: { type: 'button', 'data-testid': `template-${info.id}` } });
+    open.addEventListener('click', async () => {
+      dlg.close();
+      try {
+        app.open(await templateWorkbook(info.id), { note: `Opened the template "${info.title}".`, changed: true });
+      } catch (e) {
+        app.status.show(e instanceof Error ? e.message : String(e), 'error', 0);
+      }
+    });
+    return [el('article', { className: 'kl-template' }, [
+      el('h3', { text: info.title }),
+      el('p', { className: 'kl-muted', text: `${info.items} items · ${info.buses} buses · cases: ${info.cases.join(', ')}` }),
+      ...info.notes.slice(0, 2).map((n) => el('p', { text: n })),
+      open,
+    ])];
+  });
+  const dlg = openDialog('New from template', [el('p', { className: 'kl-muted', text: REPLACE_NOTE }), el('div', { className: 'kl-template-list' }, cards)], [{ label: 'Cancel' }], { wide: true, testId: 'templates' });
+}
+
+export async function openFile(app: App): Promise<void> {
+  const file = await pickFile('.json,.kvar.json,application/json');
+  if (!file) return;
+  const r = await readNativeFile(file);
+  if (!r.ok) {
+    app.status.show(r.message, 'error', 0);
+    openDialog('The file was not opened', [el('p', { text: r.message }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }]);
+    return;
+  }
+  app.open(r.doc, { note: `Opened "${file.name}".`, changed: true });
+}
+
+export function saveFile(app: App): void {
+  const r = saveNativeFile(app.session.toDoc());
+  if (r.ok) app.status.show(`Saved as ${r.name} in your downloads.`);
+  else app.status.show(r.message, 'error', 0);
+}
+
+export async function restorePrevious(app: App): Promise<void> {
+  await app.flush();
+  const prev = await app.store?.loadPrevious();
+  if (!prev) {
+    app.status.show('There is no earlier state in this browser.');
+    return;
+  }
+  const when = new Date(prev.savedAt).toLocaleString();
+  const ok = await confirmDialog('Restore the previous state?', [
+    `"${prev.doc.title}", as it was saved at ${when}, replaces the open workbook.`,
+    'The open workbook becomes the previous state in turn, so this can be reversed the same way.',
+  ], 'Restore');
+  if (ok) app.open(prev.doc, { note: `Restored the state of ${when}.`, changed: true });
+}
+
+export async function exportXlsx(app: App): Promise<void> {
+  app.status.show('Preparing the xlsx…', 'info', 0);
+  try {
+    const { handOff } = await import('./handOff.ts');
+    const r = await handOff(app.session.toDoc());
+    download(r.bytes as BlobPart, fileNameFor(app.session.title, '.xlsx'), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+    app.status.show(r.issues > 0 ? `Exported; ${r.issues} cell(s) were written as values (see the cover sheet).` : 'Exported: formulas stay live in other spreadsheet programs.', r.issues > 0 ? 'error' : 'info');
+  } catch (e) {
+    app.status.show(`Export failed: ${e instanceof Error ? e.message : String(e)}`, 'error', 0);
+  }
+}
+
+export async function importEquipmentList(app: App): Promise<void> {
+  const file = await pickFile('.xlsx,.csv,.txt,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+  if (!file) return;
+  try {
+    const { runImport } = await import('../import/importDialog.ts');
+    await runImport(app, file);
+  } catch (e) {
+    app.status.show(`Import failed: ${e instanceof Error ? e.message : String(e)}`, 'error', 0);
+  }
+}

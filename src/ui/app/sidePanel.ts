@@ -1,0 +1,42 @@
+// The panel on the right: the function reference or the charts, one at a time, or closed.
+import { el } from '../dom.ts';
+
+export type PanelName = 'functions' | 'charts';
+
+export class SidePanel {
+  readonly root: HTMLElement;
+  private readonly body: HTMLElement;
+  private readonly title: HTMLElement;
+  private current: PanelName | undefined;
+  private readonly views = new Map<PanelName, { title: string; node: HTMLElement; onShow?: () => void }>();
+  onToggle: (name: PanelName | undefined) => void = () => {};
+
+  constructor() {
+    this.title = el('span', { className: 'kl-pane-title' });
+    const close = el('button', { className: 'kl-icon-btn', text: '×', title: 'Close the panel', attrs: { type: 'button', 'aria-label': 'Close the panel' } });
+    close.addEventListener('click', () => this.toggle(undefined));
+    this.body = el('div', { className: 'kl-side-body' });
+    this.root = el('aside', { className: 'kl-side', attrs: { 'data-testid': 'side-panel' } }, [el('div', { className: 'kl-pane-head' }, [this.title, close]), this.body]);
+    this.root.hidden = true;
+  }
+
+  add(name: PanelName, title: string, node: HTMLElement, onShow?: () => void): void {
+    this.views.set(name, { title, node, ...(onShow ? { onShow } : {}) });
+  }
+
+  get shown(): PanelName | undefined {
+    return this.current;
+  }
+
+  toggle(name: PanelName | undefined): void {
+    this.current = name === this.current ? undefined : name;
+    const view = this.current ? this.views.get(this.current) : undefined;
+    this.root.hidden = !view;
+    if (view) {
+      this.title.textContent = view.title;
+      this.body.replaceChildren(view.node);
+      view.onShow?.();
+    }
+    this.onToggle(this.current);
+  }
+}

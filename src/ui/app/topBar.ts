@@ -1,0 +1,81 @@
+// The top bar: the product mark, the workbook title, the two command menus, undo/redo, and the
+// switches for the side panel and the about box.
+import { el, svg } from '../dom.ts';
+import { menuButton } from '../menu.ts';
+import { openAbout } from '../dialogs/about.ts';
+import { deleteRows, fillDown, insertRows } from '../grid/gridMenu.ts';
+import type { App } from './app.ts';
+import { exportXlsx, importEquipmentList, newFromTemplate, openFile, restorePrevious, saveFile } from './fileActions.ts';
+import type { PanelName } from './sidePanel.ts';
+
+function mark(): SVGSVGElement {
+  // Our mark: a right triangle (P along, Q up) with its hypotenuse, in two strokes.
+  const m = svg('svg', { viewBox: '0 0 24 24', width: 22, height: 22, class: 'kl-mark', 'aria-hidden': 'true' });
+  m.append(svg('path', { d: 'M3 20 H21 V6', class: 'kl-mark-legs' }), svg('path', { d: 'M3 20 L21 6', class: 'kl-mark-hyp' }));
+  return m;
+}
+
+export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElement } {
+  const title = el('input', { className: 'kl-title', attrs: { type: 'text', 'aria-label': 'Workbook title', spellcheck: 'false', 'data-testid': 'title' } });
+  const commitTitle = () => app.session.setTitle(title.value);
+  title.addEventListener('change', commitTitle);
+  title.addEventListener('keydown', (e) => {
+    if (e.key === 'Enter') {
+      commitTitle();
+      app.grid.focus();
+    }
+  });
+  const workbook = menuButton('Workbook', [
+    { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
+    { label: 'Open file…', hint: '.kvar.json', run: () => void openFile(app), testId: 'menu-open' },
+    { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
+    { label: 'Restore the previous state…', run: () => void restorePrevious(app), testId: 'menu-restore', enabled: () => app.store !== undefined },
+    'separator',
+    { label: 'Import equipment list…', hint: '.xlsx .csv', run: () => void importEquipmentList(app), testId: 'menu-import' },
+    { label: 'Export for other spreadsheet programs', hint: '.xlsx', run: () => void exportXlsx(app), testId: 'menu-export' },
+  ], 'menu-workbook');
+  const edit = menuButton('Edit', [
+    { label: 'Undo', hint: 'Ctrl+Z', run: () => app.undo(), enabled: () => app.session.canUndo },
+    { label: 'Redo', hint: 'Ctrl+Y', run: () => app.redo(), enabled: () => app.session.canRedo },
+    'separator',
+    { label: 'Fill down', hint: 'Ctrl+D', run: () => app.run(() => fillDown(app.grid)) },
+    { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
+    { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
+    { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
+  ], 'menu-edit');
+  const iconButton = (text: string, label: string, run: () => void, testId: string) => {
+    const b = el('button', { className: 'kl-icon-btn', text, title: label, attrs: { type: 'button', 'aria-label': label, 'data-testid': testId } });
+    b.addEventListener('click', run);
+    return b;
+  };
+  const toggle = (name: PanelName, label: string) => {
+    const b = el('button', { className: 'kl-toggle', text: label, attrs: { type: 'button', 'aria-pressed': 'false', 'data-testid': `toggle-${name}` } });
+    b.addEventListener('click', () => app.side.toggle(name));
+    return b;
+  };
+  const fnToggle = toggle('functions', 'Functions');
+  const chartToggle = toggle('charts', 'Charts');
+  app.side.onToggle = (shown) => {
+    fnToggle.setAttribute('aria-pressed', String(shown === 'functions'));
+    chartToggle.setAttribute('aria-pressed', String(shown === 'charts'));
+    if (app.charts) app.charts.visible = shown === 'charts';
+    if (shown === 'charts') app.charts?.draw();
+  };
+  const about = el('button', { className: 'kl-toggle kl-about-btn', text: 'About & cautions', attrs: { type: 'button', 'data-testid': 'about-open' } });
+  about.addEventListener("click", () => openAbout(app.catalogueSize()));
+  const root = el('header', { className: 'kl-top' }, [
+    el('div', { className: 'kl-brand' }, [mark(), el('span', { className: 'kl-brand-name', text: 'Kvar Ledger' })]),
+    title,
+    el('nav', { className: 'kl-commands', attrs: { 'aria-label': 'Commands' } }, [
+      workbook,
+      edit,
+      iconButton('↶', 'Undo (Ctrl+Z)', () => app.undo(), 'undo'),
+      iconButton('↷', 'Redo (Ctrl+Y)', () => app.redo(), 'redo'),
+    ]),
+    el('span', { className: 'kl-spacer' }),
+    fnToggle,
+    chartToggle,
+    about,
+  ]);
+  return { root, title };
+}

@@ -1,0 +1,85 @@
+// The charts panel: per operating case, absorbed vs delivered kvar and the net for every bus,
+// and the power triangle at the point of connection before and after compensation. Redrawn
+// after every recalculation while visible.
+import { SHEETS } from '../../core/workbook/buildLayout.ts';
+import { clear, el } from '../dom.ts';
+import type { WorkbookSession } from '../model/session.ts';
+import { busBarChart } from './barChart.ts';
+import { readChartData, type ChartData, type Grid } from './chartData.ts';
+import { triangleChart, triangleRows } from './triangleChart.ts';
+
+function sheetValues(session: WorkbookSession, name: string): Grid | undefined {
+  const id = session.engine.getSheetId(name);
+  return id === undefined ? undefined : session.engine.getSheetValues(id);
+}
+
+export class ChartsPanel {
+  readonly root: HTMLElement;
+  private readonly cases: HTMLElement;
+  private readonly body: HTMLElement;
+  private chosen: string | undefined;
+  private session: WorkbookSession | undefined;
+  private dirty = true;
+  visible = false;
+
+  constructor() {
+    this.cases = el('div', { className: 'kl-segmented', attrs: { role: 'radiogroup', 'aria-label': 'Operating case' } });
+    this.body = el('div', { className: 'kl-charts-body' });
+    this.root = el('section', { className: 'kl-charts', attrs: { 'data-testid': 'charts' } }, [this.cases, this.body]);
+  }
+
+  /** Called after every change; draws now when visible, else when next shown. */
+  update(session: WorkbookSession): void {
+    this.session = session;
+    this.dirty = true;
+    if (this.visible) this.draw();
+  }
+
+  draw(): void {
+    if (!this.session || !this.dirty) return;
+    this.dirty = false;
+    const data = readChartData(sheetValues(this.session, SHEETS.buses), sheetValues(this.session, SHEETS.compensation));
+    this.render(data);
+  }
+
+  private render(data: ChartData): void {
+    clear(this.cases);
+    clear(this.body);
+    if (data.cases.length === 0) {
+      this.body.append(el('p', { className: 'kl-muted', text: `No "${SHEETS.buses}" sheet with per-case totals in this workbook. Start from a template (Workbook → New from template) to get bus totals and charts.` }));
+      return;
+    }
+    if (!this.chosen || !data.cases.includes(this.chosen)) this.chosen = data.cases[0];
+    for (const c of data.cases) {
+      const b = el('button', { className: `kl-seg${c === this.chosen ? ' is-on' : ''}`, text: c, attrs: { type: 'button', role: 'radio', 'aria-checked': String(c === this.chosen) } });
+      b.addEventListener('click', () => {
+        this.chosen = c;
+        this.render(data);
+      });
+      this.cases.append(b);
+    }
+    const c = this.chosen as string;
+    const tri = data.triangles.get(c);
+    if (tri) {
+      const rows = triangleRows(tri);
+      this.body.append(
+        el('h3', { className: 'kl-chart-title', text: `Point of connection ${tri.bus} — ${c}` }),
+        triangleChart(tri),
+        el('table', { className: 'kl-chart-table', attrs: { 'data-testid': 'triangle-table' } }, [
+          el('thead', {}, [el('tr', {}, ['', 'P kW', 'Q kvar', 'S kVA', 'cos φ'].map((h) => el('th', { text: h })))]),
+          el('tbody', {}, rows.map((r) => el('tr', { className: `is-${r.label}` }, [el('th', { text: r.label }), el('td', { text: r.p }), el('td', { text: r.q }), el('td', { text: r.s }), el('td', { text: r.cos })]))),
+        ]),
+      );
+    }
+    const bars = data.bars.get(c) ?? [];
+    this.body.append(
+      el('h3', { className: 'kl-chart-title', text: `kvar per bus — ${c}` }),
+      el('div', { className: 'kl-legend' }, [
+        el('span', { className: 'kl-key is-absorbed', text: 'absorbed' }),
+        el('span', { className: 'kl-key is-delivered', text: 'delivered' }),
+        el('span', { className: 'kl-key is-net', text: 'net' }),
+      ]),
+      busBarChart(bars),
+    );
+  }
+}

@@ -1,0 +1,42 @@
+import { describe, expect, it } from 'vitest';
+import { casesOf, cosPhi, niceCeil, readChartData } from '../../src/ui/charts/chartData.ts';
+
+// Header texts as the workbook builder writes them (src/core/workbook/buildBuses.ts).
+const buses = [
+  ['Bus', 'Level', 'Fed by', 'Upstream bus', 'U (kV)', 'P day (kW)', 'Q day (kvar)', 'Q absorbed day (kvar)', 'Q delivered day (kvar)', 'P night (kW)', 'Q night (kvar)', 'Q absorbed night (kvar)', 'Q delivered night (kvar)', 'Q absorbed own items day (kvar)'],
+  ['POC', 0, null, null, 11, 800, 600, 650, -50, 100, -40, 30, -70, 1],
+  ['LV1', 1, 'T1', 'POC', 0.4, 500, 420, 420, 0, 60, 20, 20, 0, 2],
+];
+const compensation = [
+  ['Bus', 'U (kV)', 'Q after day (kvar)', 'Q after night (kvar)'],
+  ['LV1', 0.4, 100, 20],
+  ['poc', 11, 262.9, -40],
+];
+
+describe('chart data', () => {
+  it('finds the cases from the bus sheet headers, not the own-items columns', () => {
+    expect(casesOf(buses)).toEqual(['day', 'night']);
+  });
+  it('reads absorbed and delivered as magnitudes and the net with its sign', () => {
+    const d = readChartData(buses, compensation);
+    expect(d.bars.get('night')).toEqual([
+      { bus: 'POC', absorbed: 30, delivered: 70, net: -40 },
+      { bus: 'LV1', absorbed: 20, delivered: 0, net: 20 },
+    ]);
+  });
+  it('takes the point of connection before and after compensation', () => {
+    const d = readChartData(buses, compensation);
+    expect(d.triangles.get('day')).toEqual({ bus: 'POC', before: { p: 800, q: 600 }, after: { p: 800, q: 262.9 } });
+  });
+  it('draws no "after" when there is no compensation sheet', () => {
+    expect(readChartData(buses, undefined).triangles.get('day')?.after).toBeUndefined();
+    expect(readChartData(undefined, undefined).cases).toEqual([]);
+  });
+  it('cos φ of the 3-4-5 triangle is 0.8 (IEC 60050-131, 131-11-46)', () => {
+    expect(cosPhi({ p: 400, q: 300 })).toBeCloseTo(0.8, 15);
+    expect(cosPhi({ p: 0, q: 0 })).toBeUndefined();
+  });
+  it('rounds axis ends up to 1, 2, 2.5 or 5 times a power of ten', () => {
+    expect([0.7, 3, 240, 251, 1000, 0].map(niceCeil)).toEqual([1, 5, 250, 500, 1000, 1]);
+  });
+});
