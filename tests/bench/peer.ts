@@ -7,7 +7,7 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync
 import { basename, join } from 'node:path';
 import type * as ExcelJSNamespace from 'exceljs';
 import { agreeRel, type Check, type StepResult } from './record.ts';
-import { median } from './timing.ts';
+import { withChildCpu } from './childCpu.ts';
 import type { RootTotals } from './workbookView.ts';
 
 const RECALC_ALWAYS = `<?xml version="1.0" encoding="UTF-8"?>
@@ -40,6 +40,7 @@ export function makePeer(workDir: string): Peer {
 
 interface Conversion {
   readonly ms: number;
+  readonly cpuMs?: number;
   readonly csv?: string;
   readonly error?: string;
   readonly timedOut?: boolean;
@@ -51,13 +52,13 @@ function convert(peer: Peer, file: string, sheet: number, budgetS: number): Conv
   mkdirSync(out, { recursive: true });
   const args = [`-env:UserInstallation=file://${peer.profile}`, '--headless', '--norestore', '--convert-to', csvFilter(sheet), '--outdir', out, file];
   const t0 = performance.now();
-  const r = spawnSync('soffice', args, { encoding: 'utf8', timeout: budgetS * 1_000, killSignal: 'SIGKILL' });
+  const { value: r, cpuMs } = withChildCpu(() => spawnSync('soffice', args, { encoding: 'utf8', timeout: budgetS * 1_000, killSignal: 'SIGKILL' }));
   const ms = performance.now() - t0;
   if ((r.error as NodeJS.ErrnoException | undefined)?.code === 'ETIMEDOUT') return { ms, timedOut: true, error: `exceeded ${budgetS} s` };
   const stem = basename(file).replace(/\.xlsx$/, '');
   const made = existsSync(out) ? readdirSync(out).find((f) => f.startsWith(stem) && f.endsWith('.csv')) : undefined;
   if (r.status !== 0 || made === undefined) return { ms, error: `soffice exit ${r.status}, no CSV written: ${(r.stderr || r.stdout).trim().split('\n')[0] ?? ''}` };
-  return { ms, csv: readFileSync(join(out, made), 'utf8') };
+  return { ms, ...(cpuMs !== undefined ? { cpuMs } : {}), csv: readFileSync(join(out, made), 'utf8') };
 }
 
 /** A tiny workbook whose one formula has a wrong cached result: 2 after a recalculation, 999 if not. */
@@ -78,20 +79,28 @@ export interface Startup {
   readonly recalculates: boolean;
 }
 
-/** One unmeasured run (the profile is created), then the median of three. */
+/** Fastest wall time and least CPU time of a set of runs (the machine is shared: the minimum is the least disturbed). */
+function fastest(runs: readonly Conversion[]) {
+  const ms = runs.map((r) => r.ms);
+  const cpu = runs.map((r) => r.cpuMs).filter((x): x is number => x !== undefined);
+  return { ms: Math.min(...ms), minMs: Math.min(...ms), runs: ms.length, ...(cpu.length > 0 ? { cpuMs: Math.min(...cpu) } : {}) };
+}
+
+const wallList = (runs: readonly Conversion[]) => runs.map((r) => Math.round(r.ms)).join(', ');
+
+/** One unmeasured run (the profile is created), then five. */
 export async function measureStartup(peer: Peer): Promise<Startup> {
   const tiny = await tinyFile(peer);
   convert(peer, tiny, 1, 120);
-  const runs = [0, 1, 2].map(() => convert(peer, tiny, 1, 60));
+  const runs = [0, 1, 2, 3, 4].map(() => convert(peer, tiny, 1, 60));
   const bad = runs.find((r) => r.error !== undefined);
   if (bad) return { result: { step: 'peerStartup', rows: 0, status: 'failed', note: bad.error as string }, recalculates: false };
   const lines = (runs[0]?.csv ?? '').trim().split(/\r?\n/);
   const recalculates = lines[1]?.trim() === '2';
-  const ms = runs.map((r) => r.ms);
   const check: Check = recalculates
     ? { agrees: true, detail: 'a stale cached result (999) came out recalculated (2): loading recalculates' }
     : { agrees: false, detail: `the stale cached result was not recalculated (got ${lines[1] ?? 'nothing'}); peer times do not include recalculation` };
-  return { result: { step: 'peerStartup', rows: 0, status: 'ok', ms: median(ms), minMs: Math.min(...ms), runs: ms.length, note: 'tiny xlsx to CSV', check }, recalculates };
+  return { result: { step: 'peerStartup', rows: 0, status: 'ok', ...fastest(runs), note: `tiny xlsx to CSV; wall of ${wallList(runs)} ms`, check }, recalculates };
 }
 
 /** Root P and Q of the first case from the Buses CSV, compared with the floor. */
@@ -110,21 +119,31 @@ function checkCsv(csv: string, floor: RootTotals, caseName: string): Check {
 }
 
 /**
- * The exported workbook recalculated by the peer: gross (whole process) and net (gross minus the
- * start-up). `busesSheet` is the 1-based position of the Buses sheet in the file.
+ * The exported workbook recalculated by the peer: gross (whole process, fastest of up to three
+ * runs within a third of the budget) and net (gross minus the start-up, wall and CPU alike).
+ * `busesSheet` is the 1-based position of the Buses sheet in the file.
  */
-export function measurePeer(peer: Peer, xlsx: string, busesSheet: number, floor: RootTotals, caseName: string, startupMs: number, rows: number, budgetS: number): StepResult[] {
-  const c = convert(peer, xlsx, busesSheet, budgetS);
-  if (c.error !== undefined) {
-    const status = c.timedOut ? ('exceeded' as const) : ('failed' as const);
-    return [
-      { step: 'peerGross', rows, status, note: c.error },
-      { step: 'peerRecalc', rows, status, note: c.error },
-    ];
+export function measurePeer(peer: Peer, xlsx: string, busesSheet: number, floor: RootTotals, caseName: string, startup: StepResult, rows: number, budgetS: number): StepResult[] {
+  const runs: Conversion[] = [];
+  let spent = 0;
+  while (runs.length < 3 && (runs.length === 0 || spent < (budgetS * 1_000) / 3)) {
+    const c = convert(peer, xlsx, busesSheet, budgetS);
+    if (c.error !== undefined) {
+      const status = c.timedOut ? ('exceeded' as const) : ('failed' as const);
+      return [
+        { step: 'peerGross', rows, status, note: c.error },
+        { step: 'peerRecalc', rows, status, note: c.error },
+      ];
+    }
+    runs.push(c);
+    spent += c.ms;
   }
-  const check = checkCsv(c.csv as string, floor, caseName);
+  const check = checkCsv(runs[0]?.csv as string, floor, caseName);
+  const gross = fastest(runs);
+  const ms = Math.max(0, gross.ms - (startup.ms ?? 0));
+  const cpu = gross.cpuMs !== undefined && startup.cpuMs !== undefined ? { cpuMs: Math.max(0, gross.cpuMs - startup.cpuMs) } : {};
   return [
-    { step: 'peerGross', rows, status: 'ok', ms: c.ms, runs: 1, note: 'soffice --headless --convert-to csv (Buses sheet)', check },
-    { step: 'peerRecalc', rows, status: 'ok', ms: Math.max(0, c.ms - startupMs), runs: 1, note: `gross ${c.ms.toFixed(0)} ms − start-up ${startupMs.toFixed(0)} ms` },
+    { step: 'peerGross', rows, status: 'ok', ...gross, note: `soffice --headless --convert-to csv (Buses sheet); wall of ${wallList(runs)} ms`, check },
+    { step: 'peerRecalc', rows, status: 'ok', ms, runs: gross.runs, ...cpu, note: `fastest gross ${Math.round(gross.ms)} ms − fastest start-up ${Math.round(startup.ms ?? 0)} ms` },
   ];
 }

@@ -33,10 +33,12 @@ export interface StepResult {
   readonly step: StepId;
   readonly rows: number;
   readonly status: Status;
-  /** Median of `runs` timings (one run for slow steps). */
+  /** Median of `runs` timings (one run for slow steps); whole-process steps give their fastest run. */
   readonly ms?: number;
   readonly minMs?: number;
   readonly runs?: number;
+  /** Whole-process steps: CPU time of the process (user + system, minimum over the runs). */
+  readonly cpuMs?: number;
   readonly note?: string;
   readonly check?: Check;
 }

@@ -33,7 +33,7 @@ function busesSheetInFile(portableFile: string): number {
   return 2 + doc.sheets.findIndex((s) => s.name === SHEETS.buses);
 }
 
-async function runSize(size: BenchSize, workDir: string, peer: { peer: Peer; startupMs: number } | undefined, cli: boolean, steps: StepResult[], memory: MemoryResult[]) {
+async function runSize(size: BenchSize, workDir: string, peer: { peer: Peer; startup: StepResult } | undefined, cli: boolean, steps: StepResult[], memory: MemoryResult[]) {
   say(`${sizeLabel(size)}`);
   const files = workFiles(workDir, size.rows);
   const phase = async (name: PhaseName, needs: string | undefined, why: string) => {
@@ -55,7 +55,7 @@ async function runSize(size: BenchSize, workDir: string, peer: { peer: Peer; sta
   } else if (!roots || !existsSync(files.xlsx)) {
     for (const step of ['peerGross', 'peerRecalc'] as const) add({ step, rows: size.rows, status: 'not available', note: 'no exported workbook of this size (see xlsx export)' });
   } else {
-    measurePeer(peer.peer, files.xlsx, busesSheetInFile(files.portable), roots, roots.cases[0] as string, peer.startupMs, size.rows, size.budget.peer).forEach(add);
+    measurePeer(peer.peer, files.xlsx, busesSheetInFile(files.portable), roots, roots.cases[0] as string, peer.startup, size.rows, size.budget.peer).forEach(add);
   }
 }
 
@@ -68,7 +68,7 @@ async function main(): Promise<void> {
   say(`bench: ${machine.cpu}, ${machine.cores} cores, Node ${machine.node}, load ${machine.loadAverage.join(' ')}; work files in ${workDir}`);
   const steps: StepResult[] = [];
   const memory: MemoryResult[] = [];
-  let peer: { peer: Peer; startupMs: number } | undefined;
+  let peer: { peer: Peer; startup: StepResult } | undefined;
   try {
     if (opts.cli) {
       const r = measureCliStart(0);
@@ -81,7 +81,7 @@ async function main(): Promise<void> {
       const s = await measureStartup(p);
       show(s.result);
       steps.push(s.result);
-      if (s.result.status === 'ok' && s.result.ms !== undefined) peer = { peer: p, startupMs: s.result.ms };
+      if (s.result.status === 'ok' && s.result.ms !== undefined) peer = { peer: p, startup: s.result };
     }
     for (const size of opts.sizes) await runSize(size, workDir, peer, opts.cli, steps, memory);
     const liveTarget = workFiles(workDir, TARGET_ROWS).live;

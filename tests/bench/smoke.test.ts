@@ -1,0 +1,62 @@
+// Smoke test of the bench on the 1,000-row site: the core steps run in this process and give
+// results, and the floor, the core roll-up and the engine agree on the point of connection's
+// P and Q, before and after edits. A correctness check only: no timing is asserted.
+import { describe, expect, it } from 'vitest';
+import { generateSite } from './generateSite.ts';
+import { floorRoots } from './floor.ts';
+import { compareRoots, EngineEdits, measureBuild, measureEngineBuild, measureFloor, measureRollUp } from './steps.ts';
+import { busesView, readRoot } from './workbookView.ts';
+import { renderMarkdown, type BenchResults } from './report.ts';
+import { describeMachine } from './machine.ts';
+import { parseOptions, SIZES } from './sizes.ts';
+import type { StepResult } from './record.ts';
+
+describe('bench smoke (1,000 rows / 30 buses)', () => {
+  it('runs floor, rollUp, buildWorkbook, engine build and edits; all agree on the root totals', () => {
+    const size = SIZES[0] as (typeof SIZES)[number];
+    const site = generateSite(size);
+    expect(site.equipment).toHaveLength(1_000);
+
+    const floor = measureFloor(site);
+    // The floor's own root equals the independent unpack-and-sum helper (same arrays, same loop).
+    expect(compareRoots(floor.roots, floorRoots(site), 'floor helper').agrees).toBe(true);
+    expect(floor.roots.p.every((p) => p > 0)).toBe(true);
+
+    const roll = measureRollUp(site, floor.roots);
+    expect(roll.check?.agrees, roll.check?.detail).toBe(true);
+
+    const live = measureBuild(site, 'live');
+    const engine = measureEngineBuild(live.doc, site, floor.roots);
+    expect(engine.result.check?.agrees, engine.result.check?.detail).toBe(true);
+
+    const edits = new EngineEdits(engine.hf, live.doc, site);
+    const one = edits.one();
+    expect(one.check?.agrees, one.check?.detail).toBe(true);
+    const batch = edits.batch(200);
+    expect(batch.check?.agrees, batch.check?.detail).toBe(true);
+    // The edits moved the root: the engine did not just keep its first answer.
+    const after = readRoot(engine.hf, busesView(engine.hf, site.settings.cases));
+    expect(compareRoots(after, floor.roots, 'unedited floor').agrees).toBe(false);
+    engine.hf.destroy();
+
+    const steps: StepResult[] = [floor.result, roll, live.result, engine.result, one, batch];
+    for (const s of steps) {
+      expect(s.status).toBe('ok');
+      expect(s.ms).toBeGreaterThanOrEqual(0);
+    }
+    const results: BenchResults = {
+      machine: describeMachine(), sizes: [size], steps, memory: [], browser: { status: 'not run', note: 'smoke test' }, wallSeconds: 0,
+    };
+    const md = renderMarkdown(results);
+    expect(md).toContain('| One edit (motor load) to updated root P | 1,000 / 30 |');
+    expect(md).toContain('agrees');
+    expect(md).not.toContain('**differs**');
+  });
+
+  it('reads its options and refuses a size it does not know', () => {
+    const o = parseOptions(['--sizes', '1000', '--no-browser', '--no-peer'], '/tmp');
+    expect(o.sizes.map((s) => s.rows)).toEqual([1_000]);
+    expect([o.browser, o.peer, o.cli]).toEqual([false, false, true]);
+    expect(() => parseOptions(['--sizes', '2000'], '/tmp')).toThrow(/2000 is not a bench size; allowed: 1000, 10000, 50000/);
+  });
+});
