@@ -98,3 +98,10 @@ export function encryptedContainer(): Uint8Array {
   });
   return new Uint8Array(Buffer.concat([header, dir, Buffer.alloc(1024)]));
 }
+
+let million: Uint8Array | undefined;
+/** A well-formed xlsx whose one sheet has 1,000,000 rows (built once per test file). */
+export function millionRowXlsx(): Uint8Array {
+  million ??= xlsxShell(sheetXmlWithRows(1_000_000));
+  return million;
+}
