@@ -33,15 +33,29 @@ export async function newFromTemplate(app: App): Promise<void> {
   const dlg = openDialog('New from template', [el('p', { className: 'kl-muted', text: REPLACE_NOTE }), el('div', { className: 'kl-template-list' }, cards)], [{ label: 'Cancel' }], { wide: true, testId: 'templates' });
 }
 
+function refused(app: App, message: string): void {
+  app.status.show(message, 'error', 0);
+  openDialog('The file was not opened', [el('p', { text: message }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }], { testId: 'open-failed' });
+}
+
+/** Open the native file, or an xlsx (our own export comes back with its catalogue formulas). */
 export async function openFile(app: App): Promise<void> {
-  const file = await pickFile('.json,.kvar.json,application/json');
+  const file = await pickFile('.json,.kvar.json,application/json,.xlsx,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
   if (!file) return;
-  const r = await readNativeFile(file);
-  if (!r.ok) {
-    app.status.show(r.message, 'error', 0);
-    openDialog('The file was not opened', [el('p', { text: r.message }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }]);
+  if (/\.xlsx$/i.test(file.name)) {
+    app.status.show(`Reading "${file.name}"…`, 'info', 0);
+    try {
+      const { openXlsx } = await import('./handOff.ts');
+      const x = await openXlsx(new Uint8Array(await file.arrayBuffer()));
+      if (!x.ok) return refused(app, `"${file.name}" cannot be opened: ${x.message}`);
+      app.open(x.doc, { note: [`Opened "${file.name}".`, ...x.notes].join(' '), changed: true });
+    } catch (e) {
+      refused(app, `"${file.name}" cannot be opened: ${e instanceof Error ? e.message : String(e)}`);
+    }
     return;
   }
+  const r = await readNativeFile(file);
+  if (!r.ok) return refused(app, r.message);
   app.open(r.doc, { note: `Opened "${file.name}".`, changed: true });
 }
 
@@ -70,9 +84,17 @@ export async function exportXlsx(app: App): Promise<void> {
   app.status.show('Preparing the xlsx…', 'info', 0);
   try {
     const { handOff } = await import('./handOff.ts');
-    const r = await handOff(app.session.toDoc());
-    download(r.bytes as BlobPart, fileNameFor(app.session.title, '.xlsx'), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-    app.status.show(r.issues > 0 ? `Exported; ${r.issues} cell(s) were written as values (see the cover sheet).` : 'Exported: formulas stay live in other spreadsheet programs.', r.issues > 0 ? 'error' : 'info');
+    const { session } = app;
+    const valueAt = (sheet: string, row: number, col: number) => {
+      const id = session.engine.getSheetId(sheet);
+      const v = id === undefined ? undefined : session.engine.getCellValue({ sheet: id, row, col });
+      return typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean' ? v : undefined;
+    };
+    const r = await handOff(session.toDoc(), valueAt);
+    const name = fileNameFor(session.title, '.xlsx');
+    download(r.bytes as BlobPart, name, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+    const caveat = [r.note, r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined].filter(Boolean).join('; ');
+    app.status.show(caveat ? `Exported ${name}, but ${caveat}.` : `Exported ${name}: formulas stay live in other spreadsheet programs.`, caveat ? 'error' : 'info', caveat ? 0 : 8000);
   } catch (e) {
     app.status.show(`Export failed: ${e instanceof Error ? e.message : String(e)}`, 'error', 0);
   }

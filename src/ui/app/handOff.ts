@@ -1,10 +1,47 @@
-// The xlsx hand-off of the open workbook (loaded on demand with the xlsx library). The engine
-// needs our bus roll-up plugin to compute the cached values of a live workbook.
-import type { WorkbookDoc } from '../../core/workbook/document.ts';
-import { BUS_ROLLUP_PLUGIN } from '../../engine/rollupPlugin.ts';
+// The xlsx hand-off of the open workbook (loaded on demand with the xlsx library). A workbook
+// made by the builder is rebuilt in its portable flavour (classic SUMIF instead of the app's fast
+// roll-up) from the inputs as typed, with the banks chosen, so other programs can recompute every
+// bus; sheets the user added travel unchanged.
+import type { CellContent, WorkbookDoc } from '../../core/workbook/document.ts';
+import type { SiteSettings } from '../../core/site/model.ts';
+import { buildWorkbook } from '../../core/workbook/build.ts';
+import { SHEETS } from '../../core/workbook/buildLayout.ts';
+import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { exportWorkbookXlsxWithReport } from '../../io/xlsx/export.ts';
+import { importKvarXlsx } from '../../io/xlsx/importKvar.ts';
+import { describeProblem } from '../../io/xlsx/fileProblem.ts';
 
-export async function handOff(doc: WorkbookDoc): Promise<{ bytes: Uint8Array; issues: number }> {
-  const r = await exportWorkbookXlsxWithReport(doc, { plugins: [BUS_ROLLUP_PLUGIN] });
-  return { bytes: r.bytes, issues: r.issues.length };
+export type ValueReader = (sheet: string, row: number, col: number) => CellContent | undefined;
+
+export interface HandOffDoc {
+  readonly doc: WorkbookDoc;
+  readonly settings?: SiteSettings;
+  /** Why the workbook went out as it is (not rebuilt), if so. */
+  readonly note?: string;
+}
+
+/** The document to export: the portable rebuild for a builder workbook, else the workbook itself. */
+export function handOffDoc(doc: WorkbookDoc, valueAt?: ValueReader): HandOffDoc {
+  const hasBuses = doc.sheets.some((s) => s.name === SHEETS.buses);
+  if (!hasBuses) return { doc };
+  const read = siteFromWorkbook(doc, valueAt ? { valueAt } : {});
+  const errors = read.problems.filter((p) => p.severity === 'error');
+  if (errors.length > 0) {
+    return { doc, settings: read.site.settings, note: `the inputs could not all be read (${errors[0]?.message}${errors.length > 1 ? `, and ${errors.length - 1} more` : ''}), so bus totals go out as values` };
+  }
+  const portable = buildWorkbook(read.site, { flavour: 'portable', banks: read.banks });
+  const extra = doc.sheets.filter((s) => !portable.sheets.some((p) => p.name.toLowerCase() === s.name.toLowerCase()));
+  return { doc: { ...portable, title: doc.title, sheets: [...portable.sheets, ...extra] }, settings: read.site.settings };
+}
+
+export async function handOff(doc: WorkbookDoc, valueAt?: ValueReader): Promise<{ bytes: Uint8Array; issues: number; note?: string }> {
+  const out = handOffDoc(doc, valueAt);
+  const r = await exportWorkbookXlsxWithReport(out.doc, out.settings ? { settings: out.settings } : {});
+  return { bytes: r.bytes, issues: r.issues.length, ...(out.note ? { note: out.note } : {}) };
+}
+
+/** Open an xlsx (our own export comes back with its catalogue formulas). */
+export async function openXlsx(bytes: Uint8Array): Promise<{ ok: true; doc: WorkbookDoc; notes: readonly string[] } | { ok: false; message: string }> {
+  const r = await importKvarXlsx(bytes);
+  return r.ok ? { ok: true, doc: r.doc, notes: r.notes } : { ok: false, message: describeProblem(r.problem) };
 }

@@ -27,7 +27,7 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
   });
   const workbook = menuButton('Workbook', [
     { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
-    { label: 'Open file…', hint: '.kvar.json', run: () => void openFile(app), testId: 'menu-open' },
+    { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
     { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
     { label: 'Restore the previous state…', run: () => void restorePrevious(app), testId: 'menu-restore', enabled: () => app.store !== undefined },
     'separator',

@@ -1,17 +1,12 @@
-// The open workbook's site as the import sees it: its settings (name, cases, requirement) and
-// its equipment, read back from the sheets by the shared reader.
-import type { Site, SiteSettings } from '../../core/site/model.ts';
+// The open workbook's site as the import sees it: settings (name, cases, requirement), equipment
+// and the banks chosen, read back from the sheets by the shared reader.
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
-import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
+import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
 
-export function currentSite(doc: WorkbookDoc): Site | undefined {
+export function currentSite(doc: WorkbookDoc): SiteFromWorkbook | undefined {
   try {
-    return siteFromWorkbook(doc).site;
+    return siteFromWorkbook(doc);
   } catch {
     return undefined;
   }
-}
-
-export function currentSettings(doc: WorkbookDoc): SiteSettings | undefined {
-  return currentSite(doc)?.settings;
 }

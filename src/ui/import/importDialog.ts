@@ -12,7 +12,7 @@ import { unitChoicesFor } from '../../io/import/units.ts';
 import { el } from '../dom.ts';
 import { openDialog } from '../dialogs/dialog.ts';
 import type { App } from '../app/app.ts';
-import { currentSettings } from './currentSite.ts';
+import { currentSite } from './currentSite.ts';
 
 function loadMemory() {
   try {
@@ -79,7 +79,10 @@ export async function runImport(app: App, file: File): Promise<void> {
     openDialog('The list was not imported', [el('p', { text: `"${file.name}": ${describeProblem(read.problem)}` }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }], { testId: 'import-failed' });
     return;
   }
-  const settings: SiteSettings = currentSettings(app.session.toDoc()) ?? DEFAULT_IMPORT_SETTINGS;
+  const current = currentSite(app.session.toDoc());
+  const settings: SiteSettings = current?.site.settings ?? DEFAULT_IMPORT_SETTINGS;
+  const existing = current?.site.equipment ?? [];
+  const existingTags = new Set(existing.map((r) => r.tag.toLowerCase()));
   let proposal = proposeMapping(read.value, loadMemory());
   const body = el('div', { className: 'kl-import' });
   const missing = el('p', { className: 'kl-field-problem', attrs: { role: 'alert' } });
@@ -95,13 +98,22 @@ export async function runImport(app: App, file: File): Promise<void> {
         el('div', { className: 'kl-scroll' }, [mappingTable(proposal, settings.cases, (next) => ((proposal = next), render()))]),
       );
     } else if (preview) {
-      body.replaceChildren(...previewNodes(preview));
+      const clashes = preview.equipment.filter((r) => existingTags.has(r.tag.toLowerCase())).map((r) => r.tag);
+      body.replaceChildren(
+        ...previewNodes(preview),
+        el('p', { className: 'kl-muted', text: existing.length === 0 ? 'The workbook has no equipment yet.' : clashes.length > 0 ? `Adding is not offered: ${clashes.length} tag(s) already in the workbook (${clashes.slice(0, 5).join(', ')}${clashes.length > 5 ? ', …' : ''}).` : `The workbook holds ${existing.length} items: add the list to them, or replace them.` }),
+      );
+      add.hidden = existing.length === 0;
+      add.disabled = !preview.canApply || clashes.length > 0;
     }
     next.textContent = step === 'map' ? 'Preview' : 'Accept: replace the equipment';
     next.disabled = step === 'map' ? proposal.missing.length > 0 : !preview?.canApply;
     back.hidden = step === 'map';
+    if (step === 'map') add.hidden = true;
   };
   const back = el('button', { className: 'kl-btn', text: 'Back to the mapping', attrs: { type: 'button' } });
+  const add = el('button', { className: 'kl-btn kl-btn-primary', text: 'Accept: add to the equipment', attrs: { type: 'button', 'data-testid': 'import-add' } });
+  add.addEventListener('click', () => accept('add'));
   const next = el('button', { className: 'kl-btn kl-btn-primary', attrs: { type: 'button', 'data-testid': 'import-next' } });
   back.addEventListener('click', () => ((step = 'map'), render()));
   next.addEventListener('click', () => {
@@ -111,16 +123,21 @@ export async function runImport(app: App, file: File): Promise<void> {
       render();
       return;
     }
+    accept('replace');
+  });
+  const accept = (how: 'add' | 'replace') => {
     if (!preview?.canApply) return;
     try {
       localStorage.setItem(MAPPING_MEMORY_STORAGE_KEY, JSON.stringify(rememberMapping(loadMemory(), proposal)));
     } catch {
       // Remembering the mapping is a convenience; a full or blocked localStorage must not stop the import.
     }
-    const doc = buildWorkbook({ settings: { ...settings, cases: [...new Set([...settings.cases, ...preview.cases])] }, equipment: preview.equipment }, { flavour: 'live' });
+    const equipment = how === 'add' ? [...existing, ...preview.equipment] : [...preview.equipment];
+    const cases = [...new Set([...settings.cases, ...preview.cases])];
+    const doc = buildWorkbook({ settings: { ...settings, cases }, equipment }, { flavour: 'live', ...(current ? { banks: current.banks } : {}) });
     dlg.close();
-    app.open({ ...doc, title: app.session.title }, { note: `Imported ${preview.equipment.length} items from "${file.name}". The workbook before the import: Workbook → Restore the previous state.`, changed: true });
-  });
-  const dlg = openDialog(`Import equipment list`, [body, el('div', { className: 'kl-dialog-actions' }, [back, next])], [{ label: 'Cancel' }], { wide: true, testId: 'import' });
+    app.open({ ...doc, title: app.session.title }, { note: `Imported ${preview.equipment.length} items from "${file.name}" (${how === 'add' ? 'added' : 'replacing the equipment'}). The workbook before the import: Workbook → Restore the previous state.`, changed: true });
+  };
+  const dlg = openDialog(`Import equipment list`, [body, el('div', { className: 'kl-dialog-actions' }, [back, add, next])], [{ label: 'Cancel' }], { wide: true, testId: 'import' });
   render();
 }
