@@ -25,8 +25,12 @@ const BY_UNIT: Partial<Record<Dimension, string>> = {
 const SHORT_UNITS = new Set(['v', 'w', 'm']);
 
 interface Split {
+  /** Normalised words, for matching synonyms. */
   readonly words: string[];
+  /** For each word, the token it came from as written (case names keep their spelling). */
+  readonly rawOf: string[];
   readonly unit?: string;
+  /** Bracketed text that is not a unit, as written. */
   readonly qualifier: string[];
 }
 
@@ -36,22 +40,37 @@ export function splitHeader(text: string): Split {
   const qualifier: string[] = [];
   const rest = text.replace(/[([{]\s*([^)\]}]*?)\s*[)\]}]/g, (_, inner: string) => {
     if (unit === undefined && isKnownUnitSpelling(inner)) unit = inner.trim();
-    else if (inner.trim() !== '') qualifier.push(...normaliseWords(inner).split(' ').filter(Boolean));
+    else if (inner.trim() !== '') qualifier.push(inner.trim());
     return ' ';
   });
   // "%Z", "Eff%": a percent sign glued to a word is a unit of its own.
   const spaced = rest.replace(/%/g, ' % ');
   const raw = spaced.split(/\s+/).filter(Boolean);
   const words: string[] = [];
+  const rawOf: string[] = [];
   raw.forEach((tok, i) => {
     const t = tok.replace(/^[.,:;]+|[.,:;]+$/g, '');
     const lower = t.toLowerCase();
     const last = i === raw.length - 1;
     const isUnit = isKnownUnitSpelling(lower) && (!SHORT_UNITS.has(lower) || (last && raw.length > 1)) && lower !== 'fraction';
     if (unit === undefined && isUnit) unit = t;
-    else words.push(...normaliseWords(t).split(' ').filter(Boolean));
+    else {
+      for (const w of normaliseWords(t).split(' ').filter(Boolean)) {
+        words.push(w);
+        rawOf.push(t);
+      }
+    }
   });
-  return unit === undefined ? { words, qualifier } : { words, unit, qualifier };
+  return unit === undefined ? { words, rawOf, qualifier } : { words, rawOf, unit, qualifier };
+}
+
+/** The words outside [from, to) as written, each source token once, then the bracketed text. */
+function leftoverText(split: Split, from: number, to: number): string {
+  const tokens: string[] = [];
+  split.rawOf.forEach((t, i) => {
+    if ((i < from || i >= to) && tokens[tokens.length - 1] !== t) tokens.push(t);
+  });
+  return [...tokens, ...split.qualifier].join(' ').trim();
 }
 
 /** Longest run of words that is a synonym; ties go to the rightmost (the head noun is last). */
@@ -82,8 +101,8 @@ export function readHeader(text: string): HeaderReading {
 
   const phrase = bestPhrase(split.words);
   if (phrase) {
-    const leftover = [...split.words.slice(0, phrase.from), ...split.words.slice(phrase.to), ...split.qualifier];
-    if (phrase.target === 'load' && leftover.length > 0) return withUnit({ target: CASE_PREFIX + leftover.join(' '), match: 'synonym' });
+    const leftover = leftoverText(split, phrase.from, phrase.to);
+    if (phrase.target === 'load' && leftover !== '') return withUnit({ target: CASE_PREFIX + leftover, match: 'synonym' });
     // The unit outranks the words when they disagree: 'Rating (kVA)' is an apparent power.
     const synDim = dimensionOf(phrase.target);
     const physical = unitDim !== undefined && unitDim !== 'fraction' && unitDim !== 'percent';
