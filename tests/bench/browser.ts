@@ -35,7 +35,7 @@ async function heapUsedMb(page: Page): Promise<number> {
 }
 
 /** Root P of the first case as the page shows it on the Buses sheet, checked against the floor of the edited site. */
-async function checkRoot(page: Page, edits: MotorEdits, site: ReturnType<typeof generateSite>): Promise<Check> {
+async function checkRoot(page: Page, edits: MotorEdits): Promise<Check> {
   await page.click(`[data-testid=sheet-tab][data-sheet="${SHEETS.buses}"]`);
   await selectCell(page, 1, 5);
   const text = (await page.textContent('[data-testid=fb-value]')) ?? '';
@@ -74,12 +74,6 @@ export async function measureBrowser(workDir: string, liveFile: string, rows: nu
     await chooser.setFiles(liveFile);
     await readyAt(page, doc.title);
     const fileOpenMs = performance.now() - t0;
-    await page.waitForFunction(() => document.querySelector('[data-testid=save-status]')?.textContent?.startsWith('Saved') === true, undefined, { timeout: WAIT_MS });
-
-    // Navigation to an interactive grid of this workbook (restored from storage).
-    await page.reload();
-    const openMs = await readyAt(page, doc.title);
-
     // Edits with the bus totals (charts panel) on screen.
     const size = SIZES.find((s) => s.rows === rows) ?? { rows, buses: 300 };
     const site = generateSite(size);
@@ -95,8 +89,18 @@ export async function measureBrowser(workDir: string, liveFile: string, rows: nu
       edits.record(1 + k, value); // Enter moves the selection one row down: the next motor.
     }
     const jsHeapUsedMb = await heapUsedMb(page);
-    const check = await checkRoot(page, edits, site);
-    const note = `file open (choose → interactive) ${Math.round(fileOpenMs)} ms; edits in "${HEADERS.loadCase(site.settings.cases[0] as string)}" of ${SHEETS.motors}`;
+    const check = await checkRoot(page, edits);
+
+    // Navigation to an interactive grid of this workbook: a reload restores it from the browser's storage.
+    await page.waitForFunction(() => document.querySelector('[data-testid=save-status]')?.textContent?.startsWith('Saved') === true, undefined, { timeout: WAIT_MS });
+    await page.reload();
+    const openMs = await readyAt(page, doc.title);
+    const restored = await checkRoot(page, edits);
+    const note = [
+      `file open (choose → interactive) ${Math.round(fileOpenMs)} ms`,
+      `edits typed into "${HEADERS.loadCase(site.settings.cases[0] as string)}" of ${SHEETS.motors}`,
+      restored.agrees ? 'the restored workbook shows the same root P' : `after the reload (restored from browser storage) ${restored.detail}`,
+    ].join('; ');
     return { status: 'ok', note, ...base, openMs, editPaintMs: median(times), editPaintRuns: times.length, jsHeapUsedMb, check };
   } catch (e) {
     return { status: 'failed', note: firstLine(e), ...base };
