@@ -82,7 +82,7 @@ export function sizeBank(bus: string, share: Readonly<Record<string, number>>, c
   const shares = Object.values(share);
   const most = Math.max(0, ...shares);
   const least = Math.max(0, Math.min(...shares));
-  const installed = site.equipment.filter((r) => r.kind === 'capacitor' && r.bus === bus);
+  const installed = (graph.items.get(bus) ?? []).filter((r) => r.kind === 'capacitor');
   const plainInstalled = installed.filter((r) => !(r.values.p_pct && r.values.p_pct > 0)).reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
   const installedP = installed.map((r) => r.values.p_pct ?? 0).find((p) => p > 0);
 
@@ -90,7 +90,7 @@ export function sizeBank(bus: string, share: Readonly<Record<string, number>>, c
   let step = 0;
   let steps = 0;
   let why: string;
-  const motor = soleMotorOf(bus, site, graph);
+  const motor = soleMotorOf(bus, graph);
   const limit = motor ? motorCapacitorLimit(motor, uKv) : undefined;
   if (motor && limit !== undefined) {
     const perBus = limit * Math.max(unitsRunning(motor), 1);

@@ -16,7 +16,7 @@
 //    only in the cases that need it.
 import type { EquipmentRow, Site } from './model.ts';
 import { buildBusGraph } from './graph.ts';
-import { rollUp, type BusBalance, type CaseBalance } from './rollup.ts';
+import { rollUp, type BusBalance, type CaseBalance, type ElementBalance } from './rollup.ts';
 import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { busVoltages } from './voltages.ts';
@@ -100,7 +100,8 @@ function uniqueTag(base: string, taken: Set<string>): string {
 function allocate(candidates: readonly string[], before: readonly CaseBalance[], need: readonly number[]): Map<string, Record<string, number>> {
   const out = new Map<string, Record<string, number>>(candidates.map((b) => [b, {}]));
   before.forEach((bal, i) => {
-    const weights = candidates.map((b) => Math.max(0, bal.buses.find((x) => x.bus === b)?.own_q_kvar ?? 0));
+    const byBus = new Map(bal.buses.map((x) => [x.bus, x]));
+    const weights = candidates.map((b) => Math.max(0, byBus.get(b)?.own_q_kvar ?? 0));
     const sum = weights.reduce((a, w) => a + w, 0);
     candidates.forEach((b, k) => {
       const w = sum > 0 ? (weights[k] as number) / sum : 1 / candidates.length;
@@ -110,6 +111,11 @@ function allocate(candidates: readonly string[], before: readonly CaseBalance[],
   return out;
 }
 
+/**
+ * Design over all cases of a valid site (validateSite without errors; a site that is not a tree
+ * throws SiteStructureError from the roll-up). `balance` may hold balances already computed
+ * (one case or several); missing cases are rolled up here.
+ */
 export function designCompensation(site: Site, balance?: CaseBalance | readonly CaseBalance[], options: CompensationOptions = {}): CompensationDesign {
   const given: readonly CaseBalance[] = balance === undefined ? [] : 'case' in balance ? [balance as CaseBalance] : (balance as readonly CaseBalance[]);
   const cases = site.settings.cases;
@@ -129,8 +135,11 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
   let banks: BankDesign[] = [];
   let capRows: EquipmentRow[] = [];
   let bankWarnings: DesignWarning[] = [];
+  // The balances with the current proposal in place (none yet: the balances as given).
+  let afterCaps: CaseBalance[] = before;
   if (Math.max(...rootNeed) > TOL_KVAR) {
-    const lagging = (b: string) => before.some((bal) => (bal.buses.find((x) => x.bus === b)?.own_q_kvar ?? 0) > 0);
+    const laggingBuses = new Set(before.flatMap((bal) => bal.buses.filter((x) => x.own_q_kvar > 0).map((x) => x.bus)));
+    const lagging = (b: string) => laggingBuses.has(b);
     let candidates = (options.bankBuses ?? graph.order.filter(lagging)).filter((b) => {
       if (voltages.has(b)) return true;
       warnings.push(designWarning('warning', 'bus-voltage-unknown', { bus: b }, `no bank proposed on bus ${b}: its voltage is unknown (no row on it states u_kv)`));
@@ -161,7 +170,8 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
         nextRow += rows.length;
         capRows.push(...rows);
       }
-      const short = rollAll(withRows(site, capRows)).map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
+      afterCaps = rollAll(withRows(site, capRows));
+      const short = afterCaps.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
       if (short.every((s) => s <= TOL_KVAR)) break;
       short.forEach((s, i) => (extra[i] = (extra[i] as number) + s));
     }
@@ -170,7 +180,6 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
   warnings.push(...bankWarnings);
 
   // Shunt reactor where the site is leading beyond the limit even with every step out.
-  const afterCaps = rollAll(withRows(site, capRows));
   const leadNeed = afterCaps.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar);
   const reactors: ReactorDesign[] = [];
   let reactorRows: EquipmentRow[] = [];
@@ -209,7 +218,7 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
   }
 
   const proposedRows = [...capRows, ...reactorRows];
-  const after = rollAll(withRows(site, proposedRows));
+  const after = reactorRows.length === 0 ? afterCaps : rollAll(withRows(site, proposedRows));
   const outcomes: CaseOutcome[] = before.map((b, i) => {
     const a = after[i] as CaseBalance;
     return { case: b.case, before: point(b.root), after: point(a.root), need: kvarNeeded(b.root.p_kw, b.root.q_kvar, req), met_before: meets(b.root.p_kw, b.root.q_kvar, req, TOL_KVAR), met_after: meets(a.root.p_kw, a.root.q_kvar, req, TOL_KVAR) };
@@ -265,10 +274,16 @@ function afterChecks(outcomes: readonly CaseOutcome[], after: readonly CaseBalan
         `after the proposal the point of connection is at cos φ ${o.after.cos_phi?.toFixed(3) ?? '–'} ${o.after.sense} (${what}); review the steps or add compensation`));
     }
     const leadingTooFar = kvarNeeded(o.after.p_kw, o.after.q_kvar, req).inductive_kvar > TOL_KVAR;
+    const capsByBus = new Map<string, ElementBalance[]>();
+    for (const e of bal.elements) {
+      if (e.kind !== 'capacitor' || !(e.q_delivered_kvar > 0)) continue;
+      capsByBus.set(e.bus, [...(capsByBus.get(e.bus) ?? []), e]);
+    }
+    const proposedTags = new Set(proposed.map((r) => r.tag));
     for (const b of bal.buses) {
-      const caps = bal.elements.filter((e) => e.bus === b.bus && e.kind === 'capacitor' && e.q_delivered_kvar > 0);
+      const caps = capsByBus.get(b.bus) ?? [];
       if (caps.length === 0 || b.own_q_kvar >= 0) continue;
-      const fromProposal = caps.some((e) => proposed.some((r) => r.tag === e.tag));
+      const fromProposal = caps.some((e) => proposedTags.has(e.tag));
       out.push(designWarning(leadingTooFar ? 'warning' : 'info', 'overcompensation', { bus: b.bus, case: o.case },
         `bus ${b.bus} is overcompensated: its own items deliver ${(-b.own_q_kvar).toFixed(1)} kvar with capacitors ${caps.map((e) => e.tag).join(', ')} in service${fromProposal ? '' : ' (installed)'}; switch capacitors out at light load`));
     }

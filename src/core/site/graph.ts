@@ -15,6 +15,8 @@ export interface BusGraph {
   readonly branches: ReadonlyMap<string, readonly EquipmentRow[]>;
   /** 0 for the root, +1 per branch. */
   readonly level: ReadonlyMap<string, number>;
+  /** Items connected to each bus (everything but transformers and lines), in row order. */
+  readonly items: ReadonlyMap<string, readonly EquipmentRow[]>;
   /** The first row that names each bus, for messages. */
   readonly firstRow: ReadonlyMap<string, number>;
   readonly problems: readonly Problem[];
@@ -37,6 +39,13 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
 
   const feeder = new Map<string, EquipmentRow>();
   const branches = new Map<string, EquipmentRow[]>();
+  const items = new Map<string, EquipmentRow[]>();
+  for (const r of equipment) {
+    if (r.kind === 'transformer' || r.kind === 'line' || r.bus === '') continue;
+    const list = items.get(r.bus) ?? [];
+    list.push(r);
+    items.set(r.bus, list);
+  }
   for (const r of equipment) {
     if (!isBranch(r) || r.bus === '') continue;
     const to = r.to_bus as string;
@@ -83,7 +92,7 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
       }
     }
   }
-  return { order, root, feeder, branches, level, firstRow, problems };
+  return { order, root, feeder, branches, items, level, firstRow, problems };
 }
 
 /** Follow feeders upward from every bus; a walk that returns to a bus it passed is a loop. */

@@ -32,9 +32,9 @@ export function installedCapacitorKvar(row: EquipmentRow, hz: number): number {
 }
 
 /** The motor whose bus holds only it and capacitors (individual compensation), if any. */
-export function soleMotorOf(bus: string, site: Site, graph: BusGraph): EquipmentRow | undefined {
+export function soleMotorOf(bus: string, graph: BusGraph): EquipmentRow | undefined {
   if ((graph.branches.get(bus) ?? []).length > 0) return undefined;
-  const items = site.equipment.filter((r) => r.bus === bus && r.kind !== 'transformer' && r.kind !== 'line');
+  const items = graph.items.get(bus) ?? [];
   const motors = items.filter((r) => r.kind === 'motor');
   const others = items.filter((r) => r.kind !== 'motor' && r.kind !== 'capacitor');
   return motors.length === 1 && others.length === 0 ? motors[0] : undefined;
@@ -78,7 +78,7 @@ export function checkInstalled(site: Site, graph: BusGraph, ssc: ReadonlyMap<str
         `plain capacitors (${plain.map((r) => r.tag).join(', ')}) share bus ${bus} with detuned ones (${detuned.map((r) => r.tag).join(', ')}); the plain ones can resonate with the detuning reactors and overload them: detune all or none`));
     }
     out.push(...checkResonance(bus, plain, ssc.get(bus), hz));
-    const motor = soleMotorOf(bus, site, graph);
+    const motor = soleMotorOf(bus, graph);
     const u = voltages.get(bus)?.u_kv;
     if (motor && u !== undefined) {
       const limit = motorCapacitorLimit(motor, u);
