@@ -11,8 +11,8 @@ export interface BenchSize {
 
 export const SIZES: readonly BenchSize[] = [
   { rows: 1_000, buses: 30, budget: { core: 60, engine: 60, xlsx: 90, cli: 60, peer: 60 } },
-  { rows: 10_000, buses: 300, budget: { core: 120, engine: 120, xlsx: 150, cli: 90, peer: 120 } },
-  { rows: 50_000, buses: 1_000, budget: { core: 120, engine: 90, xlsx: 90, cli: 90, peer: 90 } },
+  { rows: 10_000, buses: 300, budget: { core: 120, engine: 120, xlsx: 240, cli: 90, peer: 120 } },
+  { rows: 50_000, buses: 1_000, budget: { core: 150, engine: 100, xlsx: 45, cli: 60, peer: 60 } },
 ];
 
 /** The size the targets of the issue are stated for. */

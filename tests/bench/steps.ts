@@ -45,9 +45,16 @@ export function measureRollUp(site: Site, floor: RootTotals): StepResult {
 
 export function measureBuild(site: Site, flavour: Flavour): { result: StepResult; doc: WorkbookDoc } {
   const t = timeOnce(() => buildWorkbook(site, { flavour }));
-  const cells = t.value.sheets.reduce((n, s) => n + s.cells.reduce((m, r) => m + r.length, 0), 0);
+  let cells = 0;
+  let formulas = 0;
+  for (const s of t.value.sheets) {
+    for (const r of s.cells) {
+      cells += r.length;
+      for (const c of r) if (typeof c === 'string' && c.startsWith('=')) formulas++;
+    }
+  }
   const step = flavour === 'live' ? 'buildLive' : 'buildPortable';
-  return { result: { step, rows: site.equipment.length, status: 'ok', ms: t.ms, runs: 1, note: `${t.value.sheets.length} sheets, ${cells.toLocaleString('en-GB')} cells` }, doc: t.value };
+  return { result: { step, rows: site.equipment.length, status: 'ok', ms: t.ms, runs: 1, note: `${t.value.sheets.length} sheets, ${cells.toLocaleString('en-GB')} cells, ${formulas.toLocaleString('en-GB')} formulas` }, doc: t.value };
 }
 
 export function measureEngineBuild(doc: WorkbookDoc, site: Site, floor: RootTotals): { result: StepResult; hf: HyperFormula } {

@@ -45,13 +45,15 @@ export function readRoot(hf: HyperFormula, v: BusesView): RootTotals {
   return { bus: String(hf.getCellValue({ sheet: v.sheet, row: 1, col: 0 })), p: v.pCols.map(at), q: v.qCols.map(at) };
 }
 
-/** The Motors sheet's load cells of the first case, and a log of the values written there. */
+/** The Motors sheet's load cells of the first case, and a log of the values written there (by motor tag). */
 export class MotorEdits {
   readonly sheetName = SHEETS.motors;
   readonly col: number;
-  /** Data rows (1-based cells rows) = motors in site order. */
+  /** Data rows of the sheet (cells rows 1 … count). */
   readonly count: number;
-  private readonly log = new Map<number, number>();
+  /** Tag of each data row (index 0 = cells row 1): the builder may order rows its own way. */
+  private readonly tags: readonly string[];
+  private readonly log = new Map<string, number>();
 
   constructor(
     doc: WorkbookDoc,
@@ -62,12 +64,14 @@ export class MotorEdits {
     const caseName = site.settings.cases[0] as string;
     this.col = header.indexOf(HEADERS.loadCase(caseName));
     if (this.col < 0) throw new Error(`the Motors sheet has no column "${HEADERS.loadCase(caseName)}"`);
-    const motors = site.equipment.filter((r) => r.kind === 'motor');
-    this.count = sheet.cells.length - 1;
-    if (this.count !== motors.length || this.count === 0) throw new Error(`the Motors sheet has ${this.count} rows; the site has ${motors.length} motors`);
     const tagCol = header.indexOf('Tag');
-    const last = sheet.cells[this.count]?.[tagCol];
-    if (last !== motors[this.count - 1]?.tag) throw new Error(`the Motors sheet's last row is ${String(last)}, not the site's last motor`);
+    if (tagCol < 0) throw new Error('the Motors sheet has no column "Tag"');
+    this.tags = sheet.cells.slice(1).map((r) => String(r[tagCol] ?? ''));
+    this.count = this.tags.length;
+    const motors = new Set(site.equipment.filter((r) => r.kind === 'motor').map((r) => r.tag));
+    if (this.count !== motors.size || this.count === 0 || !this.tags.every((t) => motors.has(t))) {
+      throw new Error(`the Motors sheet's ${this.count} rows are not the site's ${motors.size} motors`);
+    }
   }
 
   /** The k-th edit of a run: a spread of rows and load factors in 0.30 … 0.89. */
@@ -87,16 +91,16 @@ export class MotorEdits {
 
   /** Log an edit made elsewhere (in the page): data row `row` (1-based) now holds `value`. */
   record(row: number, value: number): void {
-    this.log.set(row, value);
+    const tag = this.tags[row - 1];
+    if (tag === undefined) throw new Error(`the Motors sheet has no data row ${row}`);
+    this.log.set(tag, value);
   }
 
   /** The site with every logged edit applied (the first case's load factor of those motors). */
   editedSite(): Site {
     const caseName = this.site.settings.cases[0] as string;
-    let m = 0;
     const equipment = this.site.equipment.map((r) => {
-      if (r.kind !== 'motor') return r;
-      const v = this.log.get(++m);
+      const v = r.kind === 'motor' ? this.log.get(r.tag) : undefined;
       return v === undefined ? r : { ...r, loads: { ...r.loads, [caseName]: v } };
     });
     return { ...this.site, equipment };
