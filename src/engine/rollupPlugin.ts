@@ -1,8 +1,5 @@
 // The bus roll-up in one pass: BUS.SUMS and BUS.SUMS.SPLIT add up value columns per bus name
-// for a whole list of buses at once and return the totals as an array that spills over the
-// buses sheet. One conditional sum per bus and case (SUMIF) would rescan the equipment rows
-// for every cell after any edit, which is what makes large workbooks slow; here one edit costs
-// one scan of the rows, whatever the number of buses.
+// for a list of buses and return the totals as an array that spills over the buses sheet.
 //
 //   BUS.SUMS(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])
 //     → one row per bus of `buses`, one column per column of the values: the sum of the
@@ -12,8 +9,14 @@
 //     → two columns per value column: the sum of the positive values, then the size of the
 //       sum of the negative ones (absorbed and delivered kvar in the load convention, both
 //       shown as positive amounts, so value = first − second).
-// An error value on a row that belongs to a bus shows in that bus's cell of that column only,
-// so one bad item marks its own bus, as SUMIF would.
+// Unlike SUMIF, a row that names a bus outside the list is an error, not silently left out: in
+// the live workbook each bus sums the block of rows kept together for it, so a row whose bus
+// was changed shows up at once. An error value on a row shows in its bus's cell of that column.
+//
+// Why per bus and not one call for all buses: the engine re-walks everything downstream of a
+// changed cell. One array for all buses puts every bus formula downstream of every item (an
+// edit of one motor then revisits the whole Buses sheet); one call per bus over that bus's rows
+// keeps an edit to the item's own bus and the buses above it.
 import { ArraySize, CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
 import type { ImplementedFunctions } from 'hyperformula';
 import { ENGINE_LANGUAGE } from './config.ts';
@@ -31,6 +34,8 @@ export interface KeyedColumns {
   readonly width: number;
   key(row: number): Cell;
   value(row: number, col: number): Cell;
+  /** Where row r is, for messages, e.g. 'Motors row 153'. */
+  where?(row: number): string;
 }
 
 /**
@@ -43,11 +48,19 @@ function busKey(v: Cell): string | undefined {
   return undefined;
 }
 
+export type SumResult = { readonly ok: true; readonly rows: Cell[][] } | { readonly ok: false; readonly message: string };
+
+function listText(buses: readonly Cell[]): string {
+  const names = buses.filter((b) => busKey(b) !== undefined).map(String);
+  return names.length <= 3 ? names.join(', ') : `${names.length} buses`;
+}
+
 /**
  * The kernel: totals per bus (rows of `buses`) for every value column, or per column the
- * positive part and the size of the negative part when `split`. Pure: no engine involved, so it is tested directly.
+ * positive part and the size of the negative part when `split`. Pure: no engine involved, so
+ * it is tested directly. A row naming a bus outside the list makes the whole result an error.
  */
-export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[], split: boolean): Cell[][] {
+export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[], split: boolean): SumResult {
   const width = pairs[0]?.width ?? 0;
   const index = new Map<string, number[]>();
   buses.forEach((b, i) => {
@@ -59,12 +72,18 @@ export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[],
   });
   const outWidth = split ? 2 * width : width;
   const out: Cell[][] = buses.map(() => new Array<Cell>(outWidth).fill(0));
-  for (const pair of pairs) {
+  for (let k = 0; k < pairs.length; k++) {
+    const pair = pairs[k] as KeyedColumns;
     for (let r = 0; r < pair.height; r++) {
-      const key = busKey(pair.key(r));
+      const name = pair.key(r);
+      const key = busKey(name);
       if (key === undefined) continue;
       const targets = index.get(key);
-      if (targets === undefined) continue;
+      if (targets === undefined) {
+        const where = pair.where?.(r) ?? `argument ${2 * k + 2}, row ${r + 1}`;
+        return { ok: false, message: `${where} names bus "${String(name)}", which is not among the buses summed here (${listText(buses)}); ` +
+          'correct the bus name, or rebuild the workbook if the item moved to another bus' };
+      }
       for (let c = 0; c < width; c++) {
         const v = pair.value(r, c);
         if (v instanceof CellError) {
@@ -86,7 +105,7 @@ export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[],
       }
     }
   }
-  return out;
+  return { ok: true, rows: out };
 }
 
 /** What we read of the engine's argument nodes. */
@@ -194,12 +213,29 @@ export class BusRollupPlugin extends FunctionPlugin {
         if (first && values.width !== first.width) {
           return fail(fn, `argument ${k + 2} (values) has ${values.width} columns but argument 3 has ${first.width}; every values range must have as many columns`);
         }
-        pairs.push({ height: values.height, width: values.width, key: (r) => keys[r] ?? null, value: values.read });
+        const where = this.rowLabel(args[k] as ArgNode, state);
+        pairs.push({ height: values.height, width: values.width, key: (r) => keys[r] ?? null, value: values.read, ...(where ? { where } : {}) });
       }
-      return SimpleRangeValue.onlyValues(sumByBus(buses, pairs, split) as never);
+      const result = sumByBus(buses, pairs, split);
+      if (!result.ok) return new CellError(ErrorType.NA, `${fn}: ${result.message}`);
+      return SimpleRangeValue.onlyValues(result.rows as never);
     } catch (e) {
       return fail(fn, `internal error: ${e instanceof Error ? e.message : String(e)}`);
     }
+  }
+
+  /** 'Motors row 153' for row r of a plain range argument (the sheet's name when the engine tells it). */
+  private rowLabel(node: ArgNode, state: State): ((row: number) => string) | undefined {
+    const b = blockOf(node, state);
+    if (!b) return undefined;
+    let sheet = `sheet ${b.sheet + 1}`;
+    try {
+      const name = (this as unknown as { dependencyGraph?: { sheetMapping?: { getSheetName?(id: number): string | undefined } } }).dependencyGraph?.sheetMapping?.getSheetName?.(b.sheet);
+      if (typeof name === 'string') sheet = name;
+    } catch {
+      // keep the number
+    }
+    return (row) => `${sheet} row ${b.row + row + 1}`;
   }
 
   /** A one-column argument as a list of cells. */

@@ -10,41 +10,54 @@ function pair(keys: Cell[], values: Cell[][]): KeyedColumns {
   return { height: keys.length, width: values[0]?.length ?? 0, key: (r) => keys[r] ?? null, value: (r, c) => values[r]?.[c] ?? null };
 }
 
+const rows = (r: ReturnType<typeof sumByBus>) => {
+  if (!r.ok) throw new Error(r.message);
+  return r.rows;
+};
+
 describe('sumByBus (kernel)', () => {
-  it('sums per bus over several tables, ignoring case, text, blanks and unknown buses', () => {
-    const a = pair(['MCC1', 'mcc1', 'MCC2', null, 'NOWHERE'], [[1, 10], [2, 'x'], [4, 40], [8, 80], [16, 160]]);
+  it('sums per bus over several tables, ignoring case, text and blanks', () => {
+    const a = pair(['MCC1', 'mcc1', 'MCC2', null, ''], [[1, 10], [2, 'x'], [4, 40], [8, 80], [16, 160]]);
     const b = pair(['Mcc2', 'MCC1'], [[100, null], [true, 1000]]);
-    expect(sumByBus(['MCC1', 'MCC2', 'EMPTY'], [a, b], false)).toEqual([[3, 1010], [104, 40], [0, 0]]);
+    expect(rows(sumByBus(['MCC1', 'MCC2', 'EMPTY'], [a, b], false))).toEqual([[3, 1010], [104, 40], [0, 0]]);
+  });
+
+  it('refuses a row that names a bus outside the list, saying where (SUMIF would drop it silently)', () => {
+    const a: KeyedColumns = { ...pair(['MCC1', 'MCC9'], [[1], [2]]), where: (r) => `Motors row ${r + 40}` };
+    expect(sumByBus(['MCC1'], [a], false)).toEqual({
+      ok: false,
+      message: 'Motors row 41 names bus "MCC9", which is not among the buses summed here (MCC1); correct the bus name, or rebuild the workbook if the item moved to another bus',
+    });
   });
 
   it('splits into the positive part and the size of the negative part', () => {
     const a = pair(['A', 'A', 'B', 'A'], [[5], [-2], [-7], [0]]);
-    expect(sumByBus(['A', 'B'], [a], true)).toEqual([[5, 2], [0, 7]]);
+    expect(rows(sumByBus(['A', 'B'], [a], true))).toEqual([[5, 2], [0, 7]]);
   });
 
   it('keeps an error on the bus it belongs to', () => {
     const err = new CellError(ErrorType.NA, 'bad row');
     const a = pair(['A', 'B', 'B'], [[1, 1], [err, 2], [3, 3]]);
-    const out = sumByBus(['A', 'B'], [a], false);
+    const out = rows(sumByBus(['A', 'B'], [a], false));
     expect(out[0]).toEqual([1, 1]);
     expect(out[1]?.[0]).toBe(err);
     expect(out[1]?.[1]).toBe(5);
-    const split = sumByBus(['A', 'B'], [a], true);
+    const split = rows(sumByBus(['A', 'B'], [a], true));
     expect(split[1]?.slice(0, 2)).toEqual([err, err]);
   });
 
   it('matches a bus name the engine read as a number', () => {
-    expect(sumByBus([1, '2'], [pair([1, 2, '1'], [[1], [2], [4]])], false)).toEqual([[5], [2]]);
+    expect(rows(sumByBus([1, '2'], [pair([1, 2, '1'], [[1], [2], [4]])], false))).toEqual([[5], [2]]);
   });
 
   it('gives every row of a bus listed twice the same totals', () => {
-    expect(sumByBus(['A', 'a'], [pair(['A'], [[3]])], false)).toEqual([[3], [3]]);
+    expect(rows(sumByBus(['A', 'a'], [pair(['A'], [[3]])], false))).toEqual([[3], [3]]);
   });
 });
 
 describe('BUS.SUMS in the engine equals SUMIF / SUMIFS', () => {
   const busNames = ['MV', 'LV1', 'LV2', 'lv2', 'PUMP'];
-  const row = fc.tuple(fc.constantFrom(...busNames, 'OTHER', null), fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.integer({ min: -500, max: 500 }));
+  const row = fc.tuple(fc.constantFrom(...busNames, null), fc.double({ min: -1e4, max: 1e4, noNaN: true }), fc.integer({ min: -500, max: 500 }));
 
   it('for random tables (sum and split, two tables)', () => {
     fc.assert(fc.property(fc.array(row, { minLength: 1, maxLength: 40 }), fc.array(row, { minLength: 1, maxLength: 15 }), (t1, t2) => {
@@ -88,8 +101,19 @@ describe('BUS.SUMS in the engine equals SUMIF / SUMIFS', () => {
       { name: 'Buses', cells: [['A', '=BUS.SUMS(A1:A2,Items!A1:A3,Items!B1:B3)'], ['B', null]] },
     ]);
     expect([readCell(hf, 'Buses', 0, 1), readCell(hf, 'Buses', 1, 1)]).toEqual([{ ok: true, value: 4 }, { ok: true, value: 2 }]);
-    hf.setCellContents({ sheet: hf.getSheetId('Items') as number, row: 1, col: 0 }, [['a']]);
+    hf.setCellContents({ sheet: hf.getSheetId('Items') as number, row: 1, col: 0 }, [['a']]); // moved to bus A
     expect([readCell(hf, 'Buses', 0, 1), readCell(hf, 'Buses', 1, 1)]).toEqual([{ ok: true, value: 6 }, { ok: true, value: 0 }]);
+  });
+
+  it('names the sheet and row of an item on a bus outside the list', () => {
+    const hf = createEngine([
+      { name: 'Items', cells: [['A', 1], ['B', 2]] },
+      { name: 'Buses', cells: [['A', '=BUS.SUMS(A1:A1,Items!A1:A2,Items!B1:B2)']] },
+    ]);
+    expect(readCell(hf, 'Buses', 0, 1)).toEqual({
+      ok: false, error: '#N/A',
+      message: 'BUS.SUMS: Items row 2 names bus "B", which is not among the buses summed here (A); correct the bus name, or rebuild the workbook if the item moved to another bus',
+    });
   });
 
   it('reads a named range through the engine when an argument is not a plain range', () => {

@@ -3,10 +3,10 @@
 // every computed cell is a formula of catalogue and classic functions that refers to its inputs
 // and to the Site sheet by cell, so an edit in the grid flows through to the point of connection.
 import type { EquipmentRow, Site } from '../site/model.ts';
-import { buildBusGraph } from '../site/graph.ts';
+import { buildBusGraph, type BusGraph } from '../site/graph.ts';
 import { busVoltages } from '../site/voltages.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
-import { EQUIPMENT_SHEETS, SHEETS } from './buildLayout.ts';
+import { EQUIPMENT_SHEETS, SHEETS, type EquipmentSheetLayout } from './buildLayout.ts';
 import { planColumns } from './buildColumns.ts';
 import { buildEquipmentSheet, type EquipmentSheetPlan } from './buildEquipment.ts';
 import { buildBusesSheet, planBusColumns, type BranchRef, type BusEntry, type Flavour } from './buildBuses.ts';
@@ -31,10 +31,12 @@ export interface BuildOptions {
   readonly banks?: readonly BankChoice[];
 }
 
-/** The bus list: the point of connection first, then level by level, then any bus the tree misses. */
-function busEntries(site: Site, plans: readonly EquipmentSheetPlan[]): BusEntry[] {
-  const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
-  const names = [...graph.order, ...[...graph.firstRow.keys()].filter((b) => !graph.level.has(b))];
+/** The bus names: the point of connection first, then level by level, then any bus the tree misses. */
+function busNames(graph: BusGraph): string[] {
+  return [...graph.order, ...[...graph.firstRow.keys()].filter((b) => !graph.level.has(b))];
+}
+
+function busEntries(site: Site, graph: BusGraph, names: readonly string[], plans: readonly EquipmentSheetPlan[]): BusEntry[] {
   const where = new Map<EquipmentRow, { plan: EquipmentSheetPlan; row: number }>();
   for (const plan of plans) plan.rows.forEach((r, i) => where.set(r, { plan, row: i + 1 }));
   const voltages = busVoltages(site.equipment).voltages;
@@ -58,13 +60,32 @@ function busEntries(site: Site, plans: readonly EquipmentSheetPlan[]): BusEntry[
   });
 }
 
+/**
+ * An equipment sheet's rows kept together by bus, in the order of the bus list (items on no
+ * known bus last), and where each bus's block of rows sits. Each bus then sums its own block, so
+ * an edit reaches only that bus and the buses above it.
+ */
+function planSheet(layout: EquipmentSheetLayout, site: Site, order: ReadonlyMap<string, number>): EquipmentSheetPlan {
+  const rank = (r: EquipmentRow) => order.get(r.bus) ?? order.size;
+  const rows = site.equipment.filter((r) => layout.kinds.includes(r.kind)).map((r, i) => ({ r, i }))
+    .sort((a, b) => rank(a.r) - rank(b.r) || a.i - b.i).map((x) => x.r);
+  const blocks = new Map<string, { first: number; last: number }>();
+  rows.forEach((r, i) => {
+    if (!order.has(r.bus)) return;
+    const b = blocks.get(r.bus);
+    if (b) b.last = i + 1;
+    else blocks.set(r.bus, { first: i + 1, last: i + 1 });
+  });
+  return { layout, rows, blocks, cols: planColumns(layout, site.settings.cases, rows) };
+}
+
 export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
   const cases = site.settings.cases;
-  const plans: EquipmentSheetPlan[] = EQUIPMENT_SHEETS.map((layout) => {
-    const rows = site.equipment.filter((r) => layout.kinds.includes(r.kind));
-    return { layout, rows, cols: planColumns(layout, cases, rows) };
-  });
-  const buses = busEntries(site, plans);
+  const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
+  const names = busNames(graph);
+  const order = new Map(names.map((n, i) => [n, i]));
+  const plans = EQUIPMENT_SHEETS.map((layout) => planSheet(layout, site, order));
+  const buses = busEntries(site, graph, names, plans);
   const busRow = new Map(buses.map((b, i) => [b.name, i + 1]));
   const busCols = planBusColumns(cases);
 

@@ -2,13 +2,14 @@
 // case ΣP, ΣQ with absorbed and delivered apart, S, cos φ, tan φ and the sense; then the items
 // connected to the bus itself. A bus's total = its own items + for every transformer or line it
 // feeds: the total of the bus fed + that branch's losses at that loading. The branches are
-// referenced cell by cell, so there is no circular reference; the items are summed by bus name:
-// in the 'live' flavour by one BUS.SUMS call for all buses (fast in the app's engine), in the
-// 'portable' flavour by SUMIF/SUMIFS per cell (classic functions any program knows).
+// referenced cell by cell, so there is no circular reference. The own items are summed by bus
+// name: in the 'live' flavour by one BUS.SUMS call per bus over the block of rows kept together
+// for that bus (an edit then reaches that bus and the buses above it only), in the 'portable'
+// flavour by SUMIF/SUMIFS over the whole columns (classic functions any program knows).
 import type { CellContent, ColumnInfo, SheetDoc } from './document.ts';
 import { FORMATS, SHEETS } from './buildLayout.ts';
 import type { EquipmentSheetPlan } from './buildEquipment.ts';
-import { absCell, cell, cellOn, rangeOn, textLiteral } from './buildRefs.ts';
+import { absCell, cell, cellOn, columnLetters, rangeOn, sheetPrefix, textLiteral } from './buildRefs.ts';
 
 export type Flavour = 'live' | 'portable';
 
@@ -168,27 +169,54 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
     });
     cells.push(out);
   });
-  if (flavour === 'live' && buses.length > 0) writeLiveSums(cells, cols, buses.length, pBlocks, qBlocks);
+  if (flavour === 'live') {
+    buses.forEach((b, i) => writeLiveSums(cells[i + 1] as CellContent[], cols, i + 1, b.name, plans));
+    if (buses.length > 0) cells.push(...layoutCheck(cols, plans));
+  }
   return {
     name: SHEETS.buses,
     cells,
     columns: cols.columns,
-    purpose: 'Every bus in every case: what it draws from upstream (own items, plus each bus it feeds and that transformer\'s or line\'s losses), S, cos φ, tan φ; the point of connection is the first row.',
+    purpose: 'Every bus in every case: what it draws from upstream (own items, plus each bus it feeds and that transformer\'s or line\'s losses), S, cos φ, tan φ; the point of connection is the first row.' +
+      (flavour === 'live' ? ' Each bus sums the rows kept together for it on the equipment sheets: after adding, removing or moving items between buses, rebuild the workbook (the count below the buses says when).' : ''),
   };
 }
 
-/** One spilled call for the P of own items and one for absorbed/delivered kvar, all buses at once. */
-function writeLiveSums(cells: CellContent[][], cols: BusColumns, count: number,
-  pBlocks: ReturnType<typeof shuntBlocks>, qBlocks: ReturnType<typeof shuntBlocks>): void {
-  const list = `${absCell(1, cols.bus)}:${absCell(count, cols.bus)}`;
-  const pairs = (blocks: ReturnType<typeof shuntBlocks>) => blocks.map((bl) =>
-    `${rangeOn(bl.sheet, 1, bl.busCol, bl.last, bl.busCol)},${rangeOn(bl.sheet, 1, bl.cols[0] as number, bl.last, bl.cols[bl.cols.length - 1] as number)}`).join(',');
-  const first = cells[1] as CellContent[];
-  const fillZero = (colsList: readonly number[]) => {
-    for (let r = 1; r <= count; r++) for (const c of colsList) (cells[r] as CellContent[])[c] = '=0';
-  };
-  if (pBlocks.length > 0) first[cols.pOwn[0] as number] = `=BUS.SUMS(${list},${pairs(pBlocks)})`;
-  else fillZero(cols.pOwn);
-  if (qBlocks.length > 0) first[cols.qAbsOwn[0] as number] = `=BUS.SUMS.SPLIT(${list},${pairs(qBlocks)})`;
-  else fillZero([...cols.qAbsOwn, ...cols.qDelOwn]);
+/**
+ * The bus's own items in 'live': one BUS.SUMS call for P per case and one BUS.SUMS.SPLIT call
+ * for absorbed/delivered kvar per case, each over this bus's block of rows on every sheet.
+ */
+function writeLiveSums(row: CellContent[], cols: BusColumns, r: number, bus: string, plans: readonly EquipmentSheetPlan[]): void {
+  const pairs = (which: 'p' | 'q') => plans.flatMap((pl) => {
+    const block = pl.blocks.get(bus);
+    const vc = pl.cols[which];
+    if (pl.layout.role !== 'shunt' || !block || !vc) return [];
+    const busCol = pl.cols.input.get('bus') as number;
+    return [`${rangeOn(pl.layout.sheet, block.first, busCol, block.last, busCol)},${rangeOn(pl.layout.sheet, block.first, vc[0] as number, block.last, vc[vc.length - 1] as number)}`];
+  });
+  const me = absCell(r, cols.bus);
+  const p = pairs('p');
+  const q = pairs('q');
+  if (p.length > 0) row[cols.pOwn[0] as number] = `=BUS.SUMS(${me},${p.join(',')})`;
+  else for (const c of cols.pOwn) row[c] = '=0';
+  if (q.length > 0) row[cols.qAbsOwn[0] as number] = `=BUS.SUMS.SPLIT(${me},${q.join(',')})`;
+  else for (const c of [...cols.qAbsOwn, ...cols.qDelOwn]) row[c] = '=0';
+}
+
+export const LAYOUT_CHECK_LABEL = 'Rows added or removed since this layout was built';
+
+/**
+ * Below the buses ('live' only): how many equipment rows were added or removed on the shunt
+ * sheets since the workbook was built. Not 0 → rebuild the workbook so every bus sums its rows.
+ */
+function layoutCheck(cols: BusColumns, plans: readonly EquipmentSheetPlan[]): CellContent[][] {
+  const shunt = plans.filter((pl) => pl.layout.role === 'shunt');
+  const tagCol = (pl: EquipmentSheetPlan) => columnLetters(pl.cols.input.get('tag') as number);
+  const counts = shunt.map((pl) => `COUNTA(${sheetPrefix(pl.layout.sheet)}$${tagCol(pl)}:$${tagCol(pl)})`).join('+');
+  const built = shunt.reduce((n, pl) => n + pl.rows.filter((r) => r.tag !== '').length + 1, 0);
+  const blank = () => new Array<CellContent>(cols.columns.length).fill(null);
+  const check = blank();
+  check[cols.bus] = LAYOUT_CHECK_LABEL;
+  check[cols.level] = `=${counts}-${built}`;
+  return [blank(), check];
 }

@@ -174,6 +174,8 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
     const upRow = feeder ? rowOf.get(feeder.plan.rows[feeder.row - 1]?.bus ?? '') : undefined;
     out[cols.ssc] = sscFormula(b, feeder, upRow === undefined ? undefined : cell(upRow, cols.ssc));
     const choice = choices.get(b.name);
+    const hasBank = hasBankChoice(choice);
+    const hasReactor = (choice?.reactor_kvar ?? 0) > 0;
     for (const k of BANK_INPUTS) out[cols.input[k.key]] = choice?.[k.key] ?? null;
     out[cols.note] = choice?.note ?? null;
     const [fixed, step, steps, p, ur, reactor] = [inp('fixed_kvar'), inp('step_kvar'), inp('steps'), `N(${inp('p_pct')})`, inp('u_rated_kv'), inp('reactor_kvar')];
@@ -194,64 +196,80 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
         const cr = rowOf.get(c);
         return cr === undefined ? [] : [`-(${cellOn(SHEETS.buses, cr, busCols.q[k] as number, true)}-${cell(cr, list[k] as number)})`];
       }).join('');
-      const needCap = at(cols.needCap), stepsIn = at(cols.stepsIn), capOut = at(cols.capOut), qAfterCaps = at(cols.qAfterCaps);
-      const needInd = at(cols.needInd), reactorIn = at(cols.reactorIn), qAfter = at(cols.qAfter), conn = at(cols.connected), order = at(cols.order);
-      const ownQ = cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true);
-      const summary = (row: number) => absCell(row, cols.share[k] as number);
+      const needCap = at(cols.needCap), stepsIn = at(cols.stepsIn), qAfterCaps = at(cols.qAfterCaps);
+      const needInd = at(cols.needInd), qAfter = at(cols.qAfter), conn = at(cols.connected), order = at(cols.order);
+      // Only buses with a bank or a reactor switch anything: the others get no formulas that
+      // depend on the whole site, so an edit elsewhere does not reach them.
+      const capOut = hasBank ? `-${at(cols.capOut)}` : '';
+      const reactorIn = hasReactor ? `+${at(cols.reactorIn)}` : '';
       // As if a bank on this bus alone had to bring it within the requirement.
       out[cols.needCap[k] as number] =
         `=MAX(0,IF(${reqKind}="${REQUIREMENT_TEXT.tanphi}",KVAR.TOTAN(${P},${Q},${settingRef('tanLag')}),KVAR.TOPF(${P},${Q},${settingRef('cosTarget')})))`;
-      out[cols.share[k] as number] =
-        `=IF(${total}=0,0,${root(cols.needCap)}*IF(${summary(summaryRows.weight)}=0,1/${summary(summaryRows.count)},MAX(0,${ownQ})/${summary(summaryRows.weight)}))`;
-      out[cols.stepsIn[k] as number] = `=IF(OR(${step}=0,${steps}=0),0,MIN(${steps},BANK.ROUNDUP(${at(cols.share)}-${fixed},${step})/${step}))`;
-      out[cols.capOut[k] as number] = `=${fixed}+${step}*${stepsIn}`;
-      out[cols.qAfterCaps[k] as number] = `=${Q}-${capOut}${below(cols.qAfterCaps)}`;
+      if (hasBank) {
+        const ownQ = cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true);
+        const summary = (row: number) => absCell(row, cols.share[k] as number);
+        out[cols.share[k] as number] =
+          `=IF(${total}=0,0,${root(cols.needCap)}*IF(${summary(summaryRows.weight)}=0,1/${summary(summaryRows.count)},MAX(0,${ownQ})/${summary(summaryRows.weight)}))`;
+        out[cols.stepsIn[k] as number] = `=IF(OR(${step}=0,${steps}=0),0,MIN(${steps},BANK.ROUNDUP(${at(cols.share)}-${fixed},${step})/${step}))`;
+        out[cols.capOut[k] as number] = `=${fixed}+${step}*${stepsIn}`;
+        out[cols.connected[k] as number] = `=${at(cols.capOut)}+${at(cols.capsInstalled)}`;
+        out[cols.order[k] as number] = `=IF(OR(${ssc}="",${conn}=0),"",RESONANCE.ORDER(${ssc},${conn},${p}))`;
+        out[cols.check[k] as number] = resonanceCheck(order);
+        if (flavour === 'portable') installedPortable(out, cols, k, b.name, cell(r, cols.bus), banksPlan);
+      }
+      out[cols.qAfterCaps[k] as number] = `=${Q}${capOut}${below(cols.qAfterCaps)}`;
       out[cols.needInd[k] as number] = `=MAX(0,-KVAR.TOTAN(${P},${qAfterCaps},-${lead}))`;
-      out[cols.reactorIn[k] as number] = `=IF(AND(${reactor}>0,${root(cols.needInd)}>${TOL_KVAR}),${reactor},0)`;
-      out[cols.qAfter[k] as number] = `=${Q}-${capOut}+${reactorIn}${below(cols.qAfter)}`;
+      if (hasReactor) out[cols.reactorIn[k] as number] = `=IF(AND(${reactor}>0,${root(cols.needInd)}>${TOL_KVAR}),${reactor},0)`;
+      out[cols.qAfter[k] as number] = `=${Q}${capOut}${reactorIn}${below(cols.qAfter)}`;
       out[cols.cosAfter[k] as number] = `=IF(AND(${P}=0,${qAfter}=0),"",COSPHI(${P},${qAfter}))`;
       // The requirement holds at the point of connection; other buses are not held to it.
       if (b.level === 0) out[cols.within[k] as number] =
         `=IF(AND(KVAR.TOTAN(${P},${qAfter},${lag})<=${TOL_KVAR},-KVAR.TOTAN(${P},${qAfter},-${lead})<=${TOL_KVAR}),"yes","no")`;
-      out[cols.connected[k] as number] = `=${capOut}+${at(cols.capsInstalled)}`;
-      out[cols.order[k] as number] = `=IF(OR(${ssc}="",${conn}=0),"",RESONANCE.ORDER(${ssc},${conn},${p}))`;
-      out[cols.check[k] as number] = resonanceCheck(order);
-      if (flavour === 'portable') {
-        const q = banksPlan && banksPlan.rows.length > 0 ? banksPlan : undefined;
-        if (!q) {
-          out[cols.reactorsInstalled[k] as number] = '=0';
-          out[cols.capsInstalled[k] as number] = '=0';
-        } else {
-          const busCol = q.cols.input.get('bus') as number;
-          const keys = rangeOn(q.layout.sheet, 1, busCol, q.rows.length, busCol);
-          const vals = rangeOn(q.layout.sheet, 1, (q.cols.q as readonly number[])[k] as number, q.rows.length, (q.cols.q as readonly number[])[k] as number);
-          const crit = criterion(b.name, `$${cell(r, cols.bus)}`);
-          out[cols.reactorsInstalled[k] as number] = `=SUMIFS(${vals},${keys},${crit},${vals},">0")`;
-          out[cols.capsInstalled[k] as number] = `=-SUMIFS(${vals},${keys},${crit},${vals},"<0")`;
-        }
-      }
     });
+    if (hasBank && flavour === 'live') installedLive(out, cols, r, b.name, banksPlan);
     cells.push(out);
   });
   if (buses.length > 0) cells.push(...summaryBlock(input));
-  if (flavour === 'live' && buses.length > 0) {
-    const first = cells[1] as CellContent[];
-    const q = banksPlan && banksPlan.rows.length > 0 ? banksPlan : undefined;
-    if (q) {
-      const busCol = q.cols.input.get('bus') as number;
-      const qCols = q.cols.q as readonly number[];
-      first[cols.reactorsInstalled[0] as number] = `=BUS.SUMS.SPLIT(${absCell(1, cols.bus)}:${absCell(buses.length, cols.bus)},` +
-        `${rangeOn(q.layout.sheet, 1, busCol, q.rows.length, busCol)},${rangeOn(q.layout.sheet, 1, qCols[0] as number, q.rows.length, qCols[qCols.length - 1] as number)})`;
-    } else {
-      for (let r = 1; r <= buses.length; r++) for (const c of [...cols.reactorsInstalled, ...cols.capsInstalled]) (cells[r] as CellContent[])[c] = '=0';
-    }
-  }
   return {
     name: SHEETS.compensation,
     cells,
     columns: cols.columns,
-    purpose: 'Per bus: the bank chosen there (inputs) and, per case, the kvar needed for the requirement, steps switched in, cos φ after, resonance order and voltage rise. Each bus works like its own controller, from the lowest buses up; transformer losses are taken before compensation.',
+    purpose: 'Per bus: the bank chosen there (inputs) and, per case, the kvar needed for the requirement, its share of the site\'s need, steps switched in, cos φ after, resonance order and voltage rise; at the point of connection, whether the requirement is met. ' +
+      'Transformer losses are taken before compensation. Switching formulas are written for buses that have a bank or reactor: after entering one on another bus, rebuild the workbook.',
   };
+}
+
+function hasBankChoice(choice: BankChoice | undefined): boolean {
+  return choice !== undefined && ((choice.fixed_kvar ?? 0) > 0 || ((choice.step_kvar ?? 0) > 0 && (choice.steps ?? 0) > 0));
+}
+
+/** Capacitors and reactors already installed on a bank's bus ('portable': SUMIFS). */
+function installedPortable(out: CellContent[], cols: CompensationColumns, k: number, bus: string, busCell: string, plan: EquipmentSheetPlan | undefined): void {
+  if (!plan || plan.rows.length === 0) {
+    out[cols.reactorsInstalled[k] as number] = '=0';
+    out[cols.capsInstalled[k] as number] = '=0';
+    return;
+  }
+  const busCol = plan.cols.input.get('bus') as number;
+  const q = (plan.cols.q as readonly number[])[k] as number;
+  const keys = rangeOn(plan.layout.sheet, 1, busCol, plan.rows.length, busCol);
+  const vals = rangeOn(plan.layout.sheet, 1, q, plan.rows.length, q);
+  const crit = criterion(bus, `$${busCell}`);
+  out[cols.reactorsInstalled[k] as number] = `=SUMIFS(${vals},${keys},${crit},${vals},">0")`;
+  out[cols.capsInstalled[k] as number] = `=-SUMIFS(${vals},${keys},${crit},${vals},"<0")`;
+}
+
+/** The same in 'live': one BUS.SUMS.SPLIT over the bus's block of rows, all cases at once. */
+function installedLive(out: CellContent[], cols: CompensationColumns, r: number, bus: string, plan: EquipmentSheetPlan | undefined): void {
+  const block = plan?.blocks.get(bus);
+  if (!plan || !block) {
+    for (const c of [...cols.reactorsInstalled, ...cols.capsInstalled]) out[c] = '=0';
+    return;
+  }
+  const busCol = plan.cols.input.get('bus') as number;
+  const q = plan.cols.q as readonly number[];
+  out[cols.reactorsInstalled[0] as number] = `=BUS.SUMS.SPLIT(${absCell(r, cols.bus)},` +
+    `${rangeOn(plan.layout.sheet, block.first, busCol, block.last, busCol)},${rangeOn(plan.layout.sheet, block.first, q[0] as number, block.last, q[q.length - 1] as number)})`;
 }
 
 export const SUMMARY_LABELS = {
@@ -261,7 +279,7 @@ export const SUMMARY_LABELS = {
 
 /** The count of banks and, per case, the lagging kvar that weighs each bank's share. */
 function summaryBlock(input: CompensationSheetInput): CellContent[][] {
-  const { cols, busCols, buses, cases } = input;
+  const { cols, busCols, buses, cases, choices } = input;
   const n = buses.length;
   const totals = rangeOn(undefined, 1, cols.total, n, cols.total);
   const blank = () => new Array<CellContent>(cols.columns.length).fill(null);
@@ -270,9 +288,11 @@ function summaryBlock(input: CompensationSheetInput): CellContent[][] {
   count[cols.total] = `=COUNTIF(${totals},">0")`;
   const weight = blank();
   weight[cols.bus] = SUMMARY_LABELS.weight;
+  // Named bank by bank (not a SUMIFS over every bus), so an edit on a bus without a bank does not reach it.
+  const withBank = buses.map((b, i) => ({ b, r: i + 1 })).filter(({ b }) => hasBankChoice(choices.get(b.name)));
   cases.forEach((_, k) => {
-    const own = rangeOn(SHEETS.buses, 1, busCols.qOwn[k] as number, n, busCols.qOwn[k] as number);
-    weight[cols.share[k] as number] = `=SUMIFS(${own},${totals},">0",${own},">0")`;
+    const terms = withBank.map(({ r }) => `IF(${absCell(r, cols.total)}>0,MAX(0,${cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true)}),0)`);
+    weight[cols.share[k] as number] = terms.length === 0 ? '=0' : `=${terms.join('+')}`;
   });
   return [blank(), count, weight];
 }

@@ -13,8 +13,10 @@ import { cell } from './buildRefs.ts';
 
 export interface EquipmentSheetPlan {
   readonly layout: EquipmentSheetLayout;
-  /** Row i of the list sits in cells row i + 1 (row 0 is the header). */
+  /** Row i of the list sits in cells row i + 1 (row 0 is the header); rows are kept together by bus. */
   readonly rows: readonly EquipmentRow[];
+  /** Each bus's block of rows: first and last cell row (0-based, inclusive). */
+  readonly blocks: ReadonlyMap<string, { readonly first: number; readonly last: number }>;
   readonly cols: SheetColumns;
 }
 

@@ -72,7 +72,8 @@ describe('portable flavour: classic functions only, same values as live', () => 
       const a = liveEngine(live);
       const b = portableEngine(portable);
       let compared = 0;
-      for (const s of live.sheets) {
+      // Every cell of the portable workbook; the live one adds only its layout check below the buses.
+      for (const s of portable.sheets) {
         s.cells.forEach((row, r) => row.forEach((_, c) => {
           const x = readCell(a, s.name, r, c);
           const y = readCell(b, s.name, r, c);
@@ -144,11 +145,26 @@ describe('workbook shape', () => {
     expect(text).toMatch(/resonance and overvoltage can hurt people/i);
   });
 
-  it('writes the live roll-up as one BUS.SUMS call for all buses', () => {
-    const text = JSON.stringify(doc.sheets.find((s) => s.name === 'Buses')?.cells);
-    expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(1);
-    expect(text.match(/BUS\.SUMS\.SPLIT\(/g)).toHaveLength(1);
+  it('keeps each bus\'s items together and sums each bus over its own rows in the live flavour', () => {
+    const buses = doc.sheets.find((s) => s.name === 'Buses');
+    const motors = doc.sheets.find((s) => s.name === 'Motors');
+    expect(motors?.cells.slice(1).map((r) => [r[0], r[2]])).toEqual([['M1', 'LV1'], ['M2', 'LV1'], ['M3', 'LV2'], ['P1', 'PUMP']]);
+    const lv1 = buses?.cells.find((r) => r[0] === 'LV1');
+    expect(lv1).toContain('=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$S$2:$U$3,Loads!$C$2:$C$2,Loads!$Q$2:$S$2)');
+    const text = JSON.stringify(buses?.cells);
+    // P: the three buses with motors, loads or generators; kvar: all four (MV has a cable).
+    expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(3);
+    expect(text.match(/BUS\.SUMS\.SPLIT\(/g)).toHaveLength(4);
     expect(text).not.toContain('SUMIF');
+  });
+
+  it('counts rows added since the layout was built (0 when built)', () => {
+    const hf = liveEngine(doc);
+    const buses = doc.sheets.find((s) => s.name === 'Buses');
+    const r = buses?.cells.findIndex((row) => row[0] === 'Rows added or removed since this layout was built') ?? -1;
+    expect(readCell(hf, 'Buses', r, 1)).toEqual({ ok: true, value: 0 });
+    hf.setCellContents({ sheet: hf.getSheetId('Loads') as number, row: 20, col: 0 }, [['L99']]);
+    expect(readCell(hf, 'Buses', r, 1)).toEqual({ ok: true, value: 1 });
   });
 });
 

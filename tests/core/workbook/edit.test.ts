@@ -6,6 +6,7 @@ import { ancestors, buildBusGraph } from '../../../src/core/site/graph.ts';
 import { rollUp } from '../../../src/core/site/rollup.ts';
 import type { EquipmentRow, Site } from '../../../src/core/site/model.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
+import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { PLANT } from './sites.ts';
 import { busRow, close, liveEngine, num, portableEngine, sheet, valueAt } from './engineDoc.ts';
@@ -66,15 +67,25 @@ describe('editing one motor', () => {
     });
   }
 
-  it('moves a motor to another bus by its bus name alone (live)', () => {
+  it('moving a motor to another bus shows at once on its old bus, and a rebuild puts it on the new one (live)', () => {
     const doc = buildWorkbook(PLANT, { flavour: 'live' });
     const hf = liveEngine(doc);
     const row = sheet(doc, 'Motors').cells.findIndex((r) => r[0] === 'M3');
-    setCell(hf, doc, 'Motors', row, 'Bus', 'lv1'); // bus names compare ignoring case, as SUMIF does
+    setCell(hf, doc, 'Motors', row, 'Bus', 'lv1');
+    const lv2 = valueAt(hf, doc, 'Buses', busRow(doc, 'LV2'), 'P day (kW)');
+    expect(lv2).toMatchObject({ ok: false, error: '#N/A' });
+    if (!lv2.ok) expect(lv2.message).toBe(`BUS.SUMS: Motors row ${row + 1} names bus "lv1", which is not among the buses summed here (LV2); correct the bus name, or rebuild the workbook if the item moved to another bus`);
+    expect(valueAt(hf, doc, 'Buses', busRow(doc, 'PUMP'), 'P day (kW)').ok).toBe(true);
+
+    // The app's rebuild: the inputs as typed become the site, the site a new workbook.
+    doc.sheets.find((s) => s.name === 'Motors')!.cells[row]![2] = 'LV1';
+    const back = siteFromWorkbook(doc);
+    const rebuilt = buildWorkbook(back.site, { flavour: 'live', banks: back.banks });
+    const hf2 = liveEngine(rebuilt);
     const moved: Site = { settings: PLANT.settings, equipment: PLANT.equipment.map((r) => (r.tag === 'M3' ? { ...r, bus: 'LV1' } : r)) };
     for (const c of PLANT.settings.cases) {
       for (const b of rollUp(moved, c).buses) {
-        expect(close(num(valueAt(hf, doc, 'Buses', busRow(doc, b.bus), `P ${c} (kW)`)), b.p_kw, 1e-9), `${c} ${b.bus}`).toBe(true);
+        expect(close(num(valueAt(hf2, rebuilt, 'Buses', busRow(rebuilt, b.bus), `P ${c} (kW)`)), b.p_kw, 1e-9), `${c} ${b.bus}`).toBe(true);
       }
     }
   });
