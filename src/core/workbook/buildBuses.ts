@@ -5,11 +5,12 @@
 // referenced cell by cell, so there is no circular reference. The own items are summed by bus
 // name: in the 'live' flavour by one BUS.SUMS call per bus over the block of rows kept together
 // for that bus (an edit then reaches that bus and the buses above it only), in the 'portable'
-// flavour by SUMIF/SUMIFS over the whole columns (classic functions any program knows).
+// flavour by SUMIF/SUMIFS over whole columns (classic functions any program knows; a row added
+// at the bottom in another program still counts).
 import type { CellContent, ColumnInfo, SheetDoc } from './document.ts';
 import { FORMATS, SHEETS } from './buildLayout.ts';
 import type { EquipmentSheetPlan } from './buildEquipment.ts';
-import { absCell, cell, cellOn, columnLetters, rangeOn, sheetPrefix, textLiteral } from './buildRefs.ts';
+import { absCell, cell, cellOn, columnLetters, columnOn, rangeOn, sheetPrefix, textLiteral } from './buildRefs.ts';
 
 export type Flavour = 'live' | 'portable';
 
@@ -155,8 +156,9 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
         const crit = criterion(b.name, `$${cell(r, cols.bus)}`);
         const sumif = (blocks: ReturnType<typeof shuntBlocks>, extra?: string) => {
           const parts = blocks.map((bl) => {
-            const keys = rangeOn(bl.sheet, 1, bl.busCol, bl.last, bl.busCol);
-            const vals = rangeOn(bl.sheet, 1, bl.cols[k] as number, bl.last, bl.cols[k] as number);
+            // Whole columns: a row a colleague adds at the bottom in another program still counts.
+            const keys = columnOn(bl.sheet, bl.busCol);
+            const vals = columnOn(bl.sheet, bl.cols[k] as number);
             return extra === undefined ? `SUMIF(${keys},${crit},${vals})` : `SUMIFS(${vals},${keys},${crit},${vals},${extra})`;
           });
           return parts.length === 0 ? '=0' : '=' + parts.join('+');

@@ -11,7 +11,7 @@ import { FORMATS, SHEETS } from './buildLayout.ts';
 import type { EquipmentSheetPlan } from './buildEquipment.ts';
 import { criterion, type BranchRef, type BusColumns, type BusEntry, type Flavour } from './buildBuses.ts';
 import { REQUIREMENT_TEXT, settingRef } from './buildSettings.ts';
-import { absCell, cell, cellOn, rangeOn } from './buildRefs.ts';
+import { absCell, cell, cellOn, columnOn, rangeOn } from './buildRefs.ts';
 
 /** A bank (and reactor) chosen for a bus; outputs in kvar at the bus's operating voltage. */
 export interface BankChoice {
@@ -252,8 +252,8 @@ function installedPortable(out: CellContent[], cols: CompensationColumns, k: num
   }
   const busCol = plan.cols.input.get('bus') as number;
   const q = (plan.cols.q as readonly number[])[k] as number;
-  const keys = rangeOn(plan.layout.sheet, 1, busCol, plan.rows.length, busCol);
-  const vals = rangeOn(plan.layout.sheet, 1, q, plan.rows.length, q);
+  const keys = columnOn(plan.layout.sheet, busCol);
+  const vals = columnOn(plan.layout.sheet, q);
   const crit = criterion(bus, `$${busCell}`);
   out[cols.reactorsInstalled[k] as number] = `=SUMIFS(${vals},${keys},${crit},${vals},">0")`;
   out[cols.capsInstalled[k] as number] = `=-SUMIFS(${vals},${keys},${crit},${vals},"<0")`;

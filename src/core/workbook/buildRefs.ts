@@ -49,3 +49,9 @@ export function textLiteral(text: string): string {
 export function numberLiteral(x: number): string {
   return String(x);
 }
+
+/** A whole column: Motors!$C:$C (rows added below the last one are still inside). */
+export function columnOn(sheet: string, col: number): string {
+  const c = columnLetters(col);
+  return `${sheetPrefix(sheet)}$${c}:$${c}`;
+}

@@ -90,6 +90,16 @@ describe('editing one motor', () => {
     }
   });
 
+  it('a row added below the last one counts in the portable flavour (SUMIF over whole columns)', () => {
+    const doc = buildWorkbook(PLANT, { flavour: 'portable' });
+    const hf = portableEngine(doc);
+    const before = num(valueAt(hf, doc, 'Buses', busRow(doc, 'PUMP'), 'P own items day (kW)'));
+    const r = sheet(doc, 'Loads').cells.length + 3; // a few rows below the list, as someone might type it
+    setCell(hf, doc, 'Loads', r, 'Bus', 'PUMP');
+    setCell(hf, doc, 'Loads', r, 'P day (kW)', 100);
+    expect(num(valueAt(hf, doc, 'Buses', busRow(doc, 'PUMP'), 'P own items day (kW)'))).toBe(before + 100);
+  });
+
   it('switching a motor off (load 0) drops its magnetising kvar too, as the roll-up does', () => {
     const doc = buildWorkbook(PLANT, { flavour: 'live' });
     const hf = liveEngine(doc);
