@@ -95,8 +95,13 @@ export interface BusSheetInput {
   readonly flavour: Flavour;
 }
 
-/** SUMIF criterion for a bus: the name cell, or an exact-match text when the name holds criterion characters. */
-export function criterion(name: string, nameCell: string): string {
+/**
+ * SUMIF criterion for a bus: the name cell, or an exact-match text when the name holds pattern
+ * characters (* ? ~). Undefined for a name starting with < > or =, which conditional sums read
+ * as a comparison in one program or another: such a bus sums its own block of rows instead.
+ */
+export function criterion(name: string, nameCell: string): string | undefined {
+  if (/^[<>=]/.test(name)) return undefined;
   if (/^[A-Za-z0-9 _.\-/]+$/.test(name)) return nameCell;
   return textLiteral('=' + name.replace(/[~*?]/g, (c) => '~' + c));
 }
@@ -105,7 +110,29 @@ export function criterion(name: string, nameCell: string): string {
 function shuntBlocks(plans: readonly EquipmentSheetPlan[], which: 'p' | 'q') {
   return plans
     .filter((pl) => pl.layout.role === 'shunt' && pl.rows.length > 0 && pl.cols[which] !== undefined)
-    .map((pl) => ({ sheet: pl.layout.sheet, last: pl.rows.length, busCol: pl.cols.input.get('bus') as number, cols: pl.cols[which] as readonly number[] }));
+    .map((pl) => ({ sheet: pl.layout.sheet, blocks: pl.blocks, busCol: pl.cols.input.get('bus') as number, cols: pl.cols[which] as readonly number[] }));
+}
+
+/**
+ * 'portable': one bus's own items in case k as classic conditional sums over whole columns
+ * (a row a colleague adds at the bottom in another program still counts); `positive` keeps
+ * the positive values only. A bus whose name cannot be a criterion sums its own rows instead.
+ */
+function portableSum(blocks: ReturnType<typeof shuntBlocks>, k: number, bus: string, nameCell: string, positive: boolean): string {
+  const crit = criterion(bus, nameCell);
+  const parts = blocks.flatMap((bl) => {
+    const col = bl.cols[k] as number;
+    if (crit === undefined) {
+      const own = bl.blocks.get(bus);
+      if (!own) return [];
+      const vals = rangeOn(bl.sheet, own.first, col, own.last, col);
+      return [positive ? `SUMIF(${vals},">0")` : `SUM(${vals})`];
+    }
+    const keys = columnOn(bl.sheet, bl.busCol);
+    const vals = columnOn(bl.sheet, col);
+    return [positive ? `SUMIFS(${vals},${keys},${crit},${vals},">0")` : `SUMIF(${keys},${crit},${vals})`];
+  });
+  return parts.length === 0 ? '0' : parts.join('+');
 }
 
 export function buildBusesSheet(input: BusSheetInput): SheetDoc {
@@ -153,20 +180,11 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
       out[cols.sense[k] as number] = `=IF(${Q}>0,"lagging",IF(${Q}<0,"leading","unity"))`;
       out[cols.qOwn[k] as number] = `=${here(cols.qAbsOwn[k] as number)}-${here(cols.qDelOwn[k] as number)}`;
       if (flavour === 'portable') {
-        const crit = criterion(b.name, `$${cell(r, cols.bus)}`);
-        const sumif = (blocks: ReturnType<typeof shuntBlocks>, extra?: string) => {
-          const parts = blocks.map((bl) => {
-            // Whole columns: a row a colleague adds at the bottom in another program still counts.
-            const keys = columnOn(bl.sheet, bl.busCol);
-            const vals = columnOn(bl.sheet, bl.cols[k] as number);
-            return extra === undefined ? `SUMIF(${keys},${crit},${vals})` : `SUMIFS(${vals},${keys},${crit},${vals},${extra})`;
-          });
-          return parts.length === 0 ? '=0' : '=' + parts.join('+');
-        };
-        out[cols.pOwn[k] as number] = sumif(pBlocks);
-        out[cols.qAbsOwn[k] as number] = sumif(qBlocks, '">0"');
+        const nameCell = `$${cell(r, cols.bus)}`;
+        out[cols.pOwn[k] as number] = `=${portableSum(pBlocks, k, b.name, nameCell, false)}`;
+        out[cols.qAbsOwn[k] as number] = `=${portableSum(qBlocks, k, b.name, nameCell, true)}`;
         // Delivered = absorbed − net: the net SUMIF passes on an error value where SUMIFS would skip it.
-        out[cols.qDelOwn[k] as number] = `=${here(cols.qAbsOwn[k] as number)}-(${sumif(qBlocks).slice(1)})`;
+        out[cols.qDelOwn[k] as number] = `=${here(cols.qAbsOwn[k] as number)}-(${portableSum(qBlocks, k, b.name, nameCell, false)})`;
       }
     });
     cells.push(out);

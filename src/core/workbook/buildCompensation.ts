@@ -252,9 +252,17 @@ function installedPortable(out: CellContent[], cols: CompensationColumns, k: num
   }
   const busCol = plan.cols.input.get('bus') as number;
   const q = (plan.cols.q as readonly number[])[k] as number;
+  const crit = criterion(bus, `$${busCell}`);
+  const own = plan.blocks.get(bus);
+  if (crit === undefined) {
+    // A name a criterion cannot hold: this bus's own rows.
+    const vals = own ? rangeOn(plan.layout.sheet, own.first, q, own.last, q) : undefined;
+    out[cols.reactorsInstalled[k] as number] = vals ? `=SUMIF(${vals},">0")` : '=0';
+    out[cols.capsInstalled[k] as number] = vals ? `=-SUMIF(${vals},"<0")` : '=0';
+    return;
+  }
   const keys = columnOn(plan.layout.sheet, busCol);
   const vals = columnOn(plan.layout.sheet, q);
-  const crit = criterion(bus, `$${busCell}`);
   out[cols.reactorsInstalled[k] as number] = `=SUMIFS(${vals},${keys},${crit},${vals},">0")`;
   out[cols.capsInstalled[k] as number] = `=-SUMIFS(${vals},${keys},${crit},${vals},"<0")`;
 }

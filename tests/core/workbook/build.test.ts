@@ -11,7 +11,27 @@ import { readCell } from '../../../src/engine/index.ts';
 import { PLANT } from './sites.ts';
 import { busRow, close, expandDoc, liveEngine, num, portableEngine, templateSites, valueAt } from './engineDoc.ts';
 
-const SITES: Array<{ name: string; site: Site }> = [{ name: 'invented plant (tests/core/workbook/sites.ts)', site: PLANT }, ...templateSites()];
+/** Bus names a conditional sum would read as patterns or comparisons, or as a number. */
+const ODD_NAMES: Site = {
+  settings: { name: 'Odd bus names', hz: 50, cases: ['one', 'two'], requirement: { kind: 'cosphi', target: 0.95 } },
+  equipment: [
+    { row: 2, tag: 'T1', bus: 'MV*1', kind: 'transformer', to_bus: 'LV?2', values: { s_kva: 630, uk_pct: 4, p0_kw: 0.9, pk_kw: 6.5, i0_pct: 1.2, u_kv: 0.4 }, loads: {} },
+    { row: 3, tag: 'T2', bus: 'MV*1', kind: 'transformer', to_bus: '>5', values: { s_kva: 400, uk_pct: 4, p0_kw: 0.6, pk_kw: 4.6, i0_pct: 1.4, u_kv: 0.4 }, loads: {} },
+    { row: 4, tag: 'T3', bus: 'MV*1', kind: 'transformer', to_bus: '12', values: { s_kva: 250, uk_pct: 4, p0_kw: 0.45, pk_kw: 3.2, i0_pct: 1.6, u_kv: 0.4 }, loads: {} },
+    { row: 5, tag: 'M1', bus: 'LV?2', kind: 'motor', values: { p_kw: 90, eff: 0.94, cos_phi: 0.86 }, loads: { two: 0.5 } },
+    { row: 6, tag: 'M2', bus: 'LVA2', kind: 'motor', values: { p_kw: 1, eff: 0.9, cos_phi: 0.8 }, loads: {} },
+    { row: 7, tag: 'L1', bus: '>5', kind: 'load', values: { p_kw: 50, cos_phi: 0.9 }, loads: {} },
+    { row: 8, tag: 'L2', bus: '12', kind: 'load', values: { p_kw: 20, cos_phi: 0.85 }, loads: {} },
+    { row: 9, tag: 'L3', bus: 'MV*1', kind: 'load', values: { p_kw: 5, cos_phi: 0.7 }, loads: {} },
+    { row: 10, tag: 'T4', bus: 'MV*1', kind: 'transformer', to_bus: 'LVA2', values: { s_kva: 100, uk_pct: 4, p0_kw: 0.2, pk_kw: 1.75, i0_pct: 2 }, loads: {} },
+  ],
+};
+
+const SITES: Array<{ name: string; site: Site }> = [
+  { name: 'invented plant (tests/core/workbook/sites.ts)', site: PLANT },
+  { name: 'bus names with *, ?, > and digits', site: ODD_NAMES },
+  ...templateSites(),
+];
 
 function compareWithRollUp(site: Site, doc: WorkbookDoc, hf: HyperFormula): number {
   let checked = 0;
@@ -177,5 +197,26 @@ describe('a setting changed on the Site sheet flows through', () => {
     const after = num(valueAt(hf, doc, 'Cables', 1, 'Q day (kvar)'));
     expect(before).toBeLessThan(0);
     expect(close(after, before * 1.2, 1e-12)).toBe(true);
+  });
+});
+
+describe('a site that cannot be balanced still builds, and shows why', () => {
+  it('a loop of buses gives #CYCLE! on those buses; an empty site gives empty sheets', () => {
+    const loop: Site = {
+      settings: { name: 'Loop', hz: 50, cases: ['a'], requirement: { kind: 'cosphi', target: 0.95 } },
+      equipment: [
+        { row: 2, tag: 'T1', bus: 'A', kind: 'transformer', to_bus: 'B', values: { s_kva: 100, uk_pct: 4, p0_kw: 0.3, pk_kw: 1.5, i0_pct: 2 }, loads: {} },
+        { row: 3, tag: 'T2', bus: 'B', kind: 'transformer', to_bus: 'A', values: { s_kva: 100, uk_pct: 4, p0_kw: 0.3, pk_kw: 1.5, i0_pct: 2 }, loads: {} },
+        { row: 4, tag: 'M', bus: 'B', kind: 'motor', values: { p_kw: 10, eff: 0.9, cos_phi: 0.8 }, loads: {} },
+      ],
+    };
+    for (const flavour of ['live', 'portable'] as const) {
+      const doc = buildWorkbook(loop, { flavour });
+      const hf = flavour === 'live' ? liveEngine(doc) : portableEngine(doc);
+      expect(valueAt(hf, doc, 'Buses', busRow(doc, 'A'), 'P a (kW)')).toMatchObject({ ok: false, error: '#CYCLE!' });
+      const empty = buildWorkbook({ settings: loop.settings, equipment: [] }, { flavour });
+      expect(empty.sheets.find((s) => s.name === 'Buses')?.cells).toHaveLength(1);
+      expect(() => (flavour === 'live' ? liveEngine(empty) : portableEngine(empty))).not.toThrow();
+    }
   });
 });
