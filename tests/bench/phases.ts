@@ -47,6 +47,7 @@ export function workFiles(workDir: string, rows: number) {
 const readJson = <T>(file: string): T => JSON.parse(readFileSync(file, 'utf8')) as T;
 
 async function step<T>(emit: Emit, id: StepId, run: () => T | Promise<T>): Promise<T> {
+  emit({ type: 'memory', peakRssMb: peakRssMb() });
   emit({ type: 'start', step: id });
   const out = await run();
   emit({ type: 'memory', peakRssMb: peakRssMb() });

@@ -151,6 +151,7 @@ export function renderMarkdown(r: BenchResults): string {
   lines.push(`| JS heap used (MB) | ${b.jsHeapUsedMb !== undefined ? b.jsHeapUsedMb.toFixed(0) : '–'} |`);
   lines.push(`| Initial JavaScript (raw / gzip) | ${kb(b.initialJsBytes)} / ${kb(b.initialJsGzipBytes)} |`);
   if (b.check) lines.push(`| Check | ${b.check.agrees ? 'agrees' : '**differs**'}: ${b.check.detail} |`);
+  if (b.status === 'ok' && b.note) lines.push(`| Notes | ${b.note} |`);
   lines.push('');
 
   const notes = r.steps.filter((s) => s.note && (s.status !== 'ok' || s.check?.agrees === false));

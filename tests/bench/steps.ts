@@ -32,9 +32,11 @@ export function compareRoots(got: RootTotals, ref: RootTotals, refName: string):
 export function measureFloor(site: Site): { result: StepResult; roots: RootTotals } {
   const x = prepareFloor(site);
   const root = floorRootIndex(x);
+  // The floor is the yardstick: warm it up first, so it is timed as optimised code.
+  for (let w = performance.now(); performance.now() - w < 200; ) site.settings.cases.forEach((_, k) => floorTotals(x, k));
   const t = timeRepeated(() => site.settings.cases.map((_, k) => floorTotals(x, k)), 21, 1_000);
   const roots = { bus: x.busNames[root] as string, p: t.value.map((v) => v.p[root] as number), q: t.value.map((v) => v.q[root] as number) };
-  return { result: { step: 'floor', rows: site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs, note: 'unpacking into typed arrays not timed' }, roots };
+  return { result: { step: 'floor', rows: site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs, note: 'warmed up for 200 ms; unpacking into typed arrays not timed' }, roots };
 }
 
 export function measureRollUp(site: Site, floor: RootTotals): StepResult {
