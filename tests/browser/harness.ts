@@ -67,7 +67,7 @@ export async function launch(): Promise<Browser> {
     p.on('console', (m) => {
       if (m.type() === 'error') errors.push(m.text());
     });
-    p.on('pageerror', (e) => errors.push(String(e)));
+    p.on('pageerror', (e) => errors.push(e.stack ?? String(e)));
   };
   watch(page);
   context.on('page', watch);

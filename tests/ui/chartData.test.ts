@@ -6,6 +6,8 @@ const buses = [
   ['Bus', 'Level', 'Fed by', 'Upstream bus', 'U (kV)', 'P day (kW)', 'Q day (kvar)', 'Q absorbed day (kvar)', 'Q delivered day (kvar)', 'P night (kW)', 'Q night (kvar)', 'Q absorbed night (kvar)', 'Q delivered night (kvar)', 'Q absorbed own items day (kvar)'],
   ['POC', 0, null, null, 11, 800, 600, 650, -50, 100, -40, 30, -70, 1],
   ['LV1', 1, 'T1', 'POC', 0.4, 500, 420, 420, 0, 60, 20, 20, 0, 2],
+  [null],
+  ['Rows added or moved by hand are not part of the bus list.'],
 ];
 const compensation = [
   ['Bus', 'U (kV)', 'Q after day (kvar)', 'Q after night (kvar)'],

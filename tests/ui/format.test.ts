@@ -40,6 +40,9 @@ describe('column headers', () => {
     expect(widthPx({ header: 'x', width: 1 })).toBe(48);
     expect(widthPx({ header: 'x', width: 999 })).toBe(420);
     expect(widthPx({ header: 'tag', width: 10 })).toBe(88);
+    // A long header widens a narrow column so it can be read, up to a limit.
+    expect(widthPx({ header: 'Rated output (kW)', width: 8 })).toBe(128);
+    expect(widthPx({ header: 'x'.repeat(80), width: 8 })).toBe(230);
   });
 });
 

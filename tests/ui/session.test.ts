@@ -92,3 +92,47 @@ describe('WorkbookSession', () => {
     expect(s.toDoc()).toEqual(doc);
   });
 });
+
+import { readFileSync } from 'node:fs';
+import { readSiteFile } from '../../src/core/site/siteFile.ts';
+import { buildWorkbook } from '../../src/core/workbook/build.ts';
+
+describe('a live workbook (bus totals spilled by one formula)', () => {
+  const site = readSiteFile(readFileSync(new URL('../../templates/cold-store.json', import.meta.url), 'utf8')).site;
+  const doc = buildWorkbook(site, { flavour: 'live' });
+
+  // Trailing blanks of a row carry nothing; the session drops them.
+  const trimmed = (d: WorkbookDoc): WorkbookDoc => ({
+    ...d,
+    sheets: d.sheets.map((sh) => {
+      const cells = sh.cells.map((r) => {
+        const row = [...r];
+        while (row.length > 0 && row[row.length - 1] === null) row.pop();
+        return row;
+      });
+      while (cells.length > 0 && cells[cells.length - 1]?.length === 0) cells.pop();
+      return { ...sh, cells };
+    }),
+  });
+
+  it('saves only what was typed, not the values a formula spills', () => {
+    expect(WorkbookSession.fromDoc(doc).toDoc()).toEqual(trimmed(doc));
+  });
+
+  it('computes the same bus totals after a save and reopen', () => {
+    const a = WorkbookSession.fromDoc(doc);
+    const b = WorkbookSession.fromDoc(a.toDoc());
+    const buses = (s: WorkbookSession) => s.engine.getSheetValues(s.engine.getSheetId('Buses') as number);
+    expect(buses(b)).toEqual(buses(a));
+    expect(typeof buses(b)[1]?.[5]).toBe('number');
+  });
+
+  it('shows a spilled cell as holding nothing typed', () => {
+    const s = WorkbookSession.fromDoc(doc);
+    const id = s.engine.getSheetId('Buses') as number;
+    const row = s.sheetContents(id)[2] as unknown[];
+    const spilled = row.findIndex((v, c) => v === null && typeof s.engine.getCellValue({ sheet: id, row: 2, col: c }) === 'number');
+    expect(spilled).toBeGreaterThan(0);
+    expect(s.cellContent(id, 2, spilled)).toBeNull();
+  });
+});

@@ -182,7 +182,10 @@ export class App {
 
   insertIntoCell(text: string): void {
     if (this.formulaBar.input === document.activeElement) this.formulaBar.begin(text);
-    else this.grid.editWith(text);
+    else {
+      this.grid.editWith(text);
+      this.formulaBar.mirror(text);
+    }
   }
 
   /** Flush pending autosave (page hidden or closing). */

@@ -61,9 +61,10 @@ export function readChartData(buses: Grid | undefined, compensation: Grid | unde
     const iAbs = col(bh, `Q absorbed ${c} (kvar)`), iDel = col(bh, `Q delivered ${c} (kvar)`);
     const iQ = col(bh, `Q ${c} (kvar)`), iP = col(bh, `P ${c} (kW)`);
     const list: BusBar[] = [];
+    // The bus list runs from row 2 to the first row without a bus name (notes may follow).
     for (const row of (buses ?? []).slice(1)) {
       const bus = row[0];
-      if (typeof bus !== 'string' || bus === '') continue;
+      if (typeof bus !== 'string' || bus.trim() === '') break;
       const absorbed = Math.abs(num(iAbs === undefined ? undefined : row[iAbs]) ?? 0);
       const delivered = Math.abs(num(iDel === undefined ? undefined : row[iDel]) ?? 0);
       const net = num(iQ === undefined ? undefined : row[iQ]) ?? absorbed - delivered;

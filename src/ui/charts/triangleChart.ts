@@ -1,36 +1,42 @@
 // The power triangle at the point of connection: P along, Q up (absorbed, lagging) or down
-// (delivered, leading), S the hypotenuse; before compensation and after, on one scale.
+// (delivered, leading), S the hypotenuse; before and after compensation on one true-to-angle
+// scale, so the change of φ is what the eye sees.
 import { svg } from '../dom.ts';
 import { formatNumber } from '../format/numberFormat.ts';
 import { cosPhi, niceCeil, type Triangle, type TrianglePoint } from './chartData.ts';
 
-export function triangleChart(t: Triangle, width = 360, height = 220): SVGSVGElement {
+export function triangleChart(t: Triangle, width = 380, height = 210): SVGSVGElement {
   const pts = [t.before, ...(t.after ? [t.after] : [])];
   const pMax = niceCeil(Math.max(1, ...pts.map((x) => Math.abs(x.p))));
-  const qMax = niceCeil(Math.max(1, ...pts.map((x) => Math.abs(x.q))));
-  const left = 44, right = width - 16, top = 16, bottom = height - 26;
-  const s = Math.min((right - left) / pMax, (bottom - top) / 2 / qMax);
-  const y0 = (top + bottom) / 2;
+  const qUp = Math.max(0, ...pts.map((x) => x.q));
+  const qDown = Math.max(0, ...pts.map((x) => -x.q));
+  const left = 40, right = width - 92, top = 14, bottom = height - 24;
+  // One scale for P and Q keeps the angle φ true.
+  const s = Math.min((right - left) / pMax, (bottom - top) / Math.max(1, qUp + qDown));
+  const y0 = top + qUp * s;
   const X = (p: number) => left + Math.abs(p) * s;
   const Y = (q: number) => y0 - q * s;
   const root = svg('svg', { viewBox: `0 0 ${width} ${height}`, width, height, class: 'kl-chart kl-triangle', role: 'img', 'aria-label': `Power triangle at ${t.bus}` });
   root.append(
     svg('line', { x1: left, x2: right, y1: y0, y2: y0, class: 'kl-axis' }),
-    svg('line', { x1: left, x2: left, y1: top, y2: bottom, class: 'kl-axis' }),
-    svg('text', { x: left - 6, y: top + 8, class: 'kl-axis-label', 'text-anchor': 'end' }, 'lag'),
-    svg('text', { x: left - 6, y: bottom, class: 'kl-axis-label', 'text-anchor': 'end' }, 'lead'),
-    svg('text', { x: right, y: height - 8, class: 'kl-axis-label', 'text-anchor': 'end' }, `P (kW), scale to ${formatNumber(pMax, '0')}`),
+    svg('text', { x: left - 6, y: Math.max(top + 8, y0 - 6), class: 'kl-axis-label', 'text-anchor': 'end' }, qUp > 0 ? 'lag ↑' : ''),
+    svg('text', { x: left - 6, y: Math.min(bottom, y0 + 14), class: 'kl-axis-label', 'text-anchor': 'end' }, qDown > 0 ? 'lead ↓' : ''),
+    svg('text', { x: left, y: height - 6, class: 'kl-axis-label' }, 'P (kW) →'),
   );
-  const draw = (pt: TrianglePoint, cls: string) => {
+  const draw = (pt: TrianglePoint, cls: string, label: string) => {
     const x = X(pt.p), y = Y(pt.q);
+    const c = cosPhi(pt);
     root.append(
       svg('polygon', { points: `${left},${y0} ${x},${y0} ${x},${y}`, class: `kl-tri ${cls}` }),
+      svg('line', { x1: x, y1: y0, x2: x, y2: y, class: `kl-tri-q ${cls}` }),
       svg('line', { x1: left, y1: y0, x2: x, y2: y, class: `kl-tri-s ${cls}` }),
       svg('circle', { cx: x, cy: y, r: 3, class: `kl-tri-dot ${cls}` }),
+      svg('text', { x: x + 6, y: y + 4, class: `kl-tri-label ${cls}` }, `${label}: ${formatNumber(pt.q, '0')} kvar${c === undefined ? '' : `, cos φ ${formatNumber(c, '0.000')}`}`),
     );
   };
-  draw(t.before, 'is-before');
-  if (t.after) draw(t.after, 'is-after');
+  draw(t.before, 'is-before', 'before');
+  if (t.after) draw(t.after, 'is-after', 'after');
+  root.append(svg('text', { x: X(t.before.p), y: y0 + (qDown > 0 && qUp === 0 ? -6 : 14), class: 'kl-axis-label', 'text-anchor': 'end' }, `${formatNumber(t.before.p, '0')} kW`));
   return root;
 }
 

@@ -14,10 +14,14 @@ export function formatHint(info: ColumnInfo | undefined): string | undefined {
   return info.format;
 }
 
-/** Column width in pixels from a width in characters (ColumnInfo.width), within sane bounds. */
+/**
+ * Column width in pixels: the width in characters (ColumnInfo.width), widened so the header text
+ * in the frozen row fits up to a limit, within sane bounds.
+ */
 export function widthPx(info: ColumnInfo | undefined, fallbackChars = 11): number {
-  const chars = info?.width ?? Math.max(fallbackChars, Math.min(28, (info?.header.length ?? 0) + 2));
-  return Math.round(Math.max(48, Math.min(420, chars * 7.4 + 14)));
+  const chars = info?.width ?? fallbackChars;
+  const forHeader = info ? Math.min(230, info.header.length * 6.6 + 16) : 0;
+  return Math.round(Math.max(48, Math.min(420, Math.max(chars * 7.4 + 14, forHeader))));
 }
 
 export interface HeaderLabel {

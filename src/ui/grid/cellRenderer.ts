@@ -10,6 +10,8 @@ export interface RenderContext {
   readonly columns: () => readonly ColumnInfo[] | undefined;
   /** Row 0 is the header row of this sheet. */
   readonly hasHeaderRow: () => boolean;
+  /** Rows holding data; computed columns are tinted only there. */
+  readonly dataRows: () => number;
 }
 
 const KIND_CLASSES = ['kl-num', 'kl-text', 'kl-bool', 'kl-err', 'kl-empty', 'kl-head', 'kl-calc', 'kl-formula'] as const;
@@ -33,7 +35,7 @@ export function makeCellRenderer(ctx: RenderContext) {
     }
     td.classList.remove(...KIND_CLASSES);
     td.classList.add(header ? 'kl-head' : `kl-${view.kind === 'number' ? 'num' : view.kind}`);
-    if (!header && info?.computed) td.classList.add('kl-calc');
+    if (!header && info?.computed && row < ctx.dataRows()) td.classList.add('kl-calc');
     if (!header && ctx.engine.doesCellHaveFormula(address)) td.classList.add('kl-formula');
     td.textContent = view.text;
     if (view.error) td.title = `${view.error.code} ${view.error.message}`;

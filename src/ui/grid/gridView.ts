@@ -41,6 +41,7 @@ function textOnlySanitizer(content: string, source: string): string {
 export class GridView implements EditHost {
   readonly hot: HotInstance;
   private current = -1;
+  private dataRows = 0;
   /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
   applying = false;
 
@@ -51,6 +52,7 @@ export class GridView implements EditHost {
       sheetId: () => this.current,
       columns: () => this.columns(),
       hasHeaderRow: () => this.hasHeaderRow(),
+      dataRows: () => this.dataRows,
     });
     const settings: GridSettings = {
       data: [['']],
@@ -59,6 +61,8 @@ export class GridView implements EditHost {
       renderer,
       editor: 'text',
       rowHeaders: true,
+      // Two lines: the letter, then the column's unit and number format.
+      columnHeaderHeight: 34,
       colHeaders: (i: number) => columnLetters(i),
       afterGetColHeader: (col: number, th: HTMLTableCellElement) => decorateColumnHeader(col, th, this.columns()),
       width: '100%',
@@ -82,10 +86,11 @@ export class GridView implements EditHost {
         if (editor?.TEXTAREA) callbacks.onEditorOpen(editor.TEXTAREA);
       },
       beforeKeyDown: (e: KeyboardEvent) => {
-        if (callbacks.onKey(e)) {
-          e.preventDefault();
-          e.stopImmediatePropagation();
-        }
+        if (!callbacks.onKey(e)) return;
+        e.preventDefault();
+        // The grid's own way of saying "handled": its key handling checks this flag, not the DOM's.
+        (e as KeyboardEvent & { isImmediatePropagationEnabled?: boolean }).isImmediatePropagationEnabled = false;
+        e.stopImmediatePropagation();
       },
     };
     this.hot = new Handsontable(host, settings) as HotInstance;
@@ -106,15 +111,24 @@ export class GridView implements EditHost {
     return (this.columns()?.length ?? 0) > 0;
   }
 
+  private measure(): void {
+    this.dataRows = this.current < 0 ? 0 : this.session.engine.getSheetDimensions(this.current).height;
+  }
+
   /** Show a sheet: its data, frozen header row, column widths. */
   show(sheetId: number): void {
     this.current = sheetId;
+    this.measure();
     const cols = this.columns();
+    // Selection first goes to a plain cell, so no frozen-row overlay is asked for a cell while
+    // the number of frozen rows changes; then the new sheet; then its first data cell.
+    this.hot.deselectCell();
     this.hot.updateSettings({
       data: gridData(this.session.sheetContents(sheetId), cols?.length ?? 0),
       fixedRowsTop: this.hasHeaderRow() ? 1 : 0,
       colWidths: (i: number) => widthPx(cols?.[i], cols ? 9 : 11),
     });
+    this.hot.render();
     this.hot.selectCell(this.hasHeaderRow() ? 1 : 0, 0);
     this.reportSelection();
   }
@@ -123,16 +137,15 @@ export class GridView implements EditHost {
   reload(): void {
     if (this.current < 0) return;
     if (!this.session.sheetIds().includes(this.current)) return;
+    this.measure();
     this.hot.updateData(gridData(this.session.sheetContents(this.current), this.columns()?.length ?? 0));
     this.reportSelection();
   }
 
   private onSessionChange(c: SessionChange): void {
-    if (c.kind === 'title' || c.kind === 'sheets') {
-      this.hot.render();
-      return;
-    }
+    if (c.kind === 'title') return;
     if (this.applying && c.kind === 'cells' && c.sheetId === this.current) {
+      this.measure();
       this.hot.render();
       return;
     }

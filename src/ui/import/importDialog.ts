@@ -1,14 +1,13 @@
 // Importing a client's equipment list (loaded on demand): file → header mapping (suggested,
 // remembered choices) → preview with every problem at its row and column → accept. Nothing in
-// the open workbook changes before "accept". Reading and mapping are src/io/import's work.
+// the open workbook changes before "accept". Reading, mapping, preview and the merge into a new
+// workbook are src/io/import's work; this is the dialog around them.
 import type { SiteSettings } from '../../core/site/model.ts';
-import { buildWorkbook } from '../../core/workbook/build.ts';
-import { describeProblem } from '../../io/xlsx/fileProblem.ts';
-import { readEquipmentFile } from '../../io/import/table.ts';
-import { mappingTargets, proposeMapping, rememberMapping, withColumnTarget, withColumnUnit, type MappingProposal } from '../../io/import/mapping.ts';
-import { MAPPING_MEMORY_STORAGE_KEY, parseMappingMemory } from '../../io/import/memory.ts';
-import { DEFAULT_IMPORT_SETTINGS, previewImport, type ImportPreview } from '../../io/import/preview.ts';
-import { unitChoicesFor } from '../../io/import/units.ts';
+import {
+  applyImport, describeProblem, mappingTargets, MAPPING_MEMORY_STORAGE_KEY, parseMappingMemory, previewImport, proposeMapping,
+  readEquipmentFile, rememberMapping, unitChoicesFor, withColumnTarget, withColumnUnit, type ImportPreview, type MappingProposal,
+} from '../../io/import/index.ts';
+import { DEFAULT_IMPORT_SETTINGS } from '../../io/import/preview.ts';
 import { el } from '../dom.ts';
 import { openDialog } from '../dialogs/dialog.ts';
 import type { App } from '../app/app.ts';
@@ -79,65 +78,71 @@ export async function runImport(app: App, file: File): Promise<void> {
     openDialog('The list was not imported', [el('p', { text: `"${file.name}": ${describeProblem(read.problem)}` }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }], { testId: 'import-failed' });
     return;
   }
-  const current = currentSite(app.session.toDoc());
+  const currentDoc = app.session.toDoc();
+  const current = currentSite(currentDoc);
   const settings: SiteSettings = current?.site.settings ?? DEFAULT_IMPORT_SETTINGS;
-  const existing = current?.site.equipment ?? [];
-  const existingTags = new Set(existing.map((r) => r.tag.toLowerCase()));
+  const existing = current?.site.equipment.length ?? 0;
   let proposal = proposeMapping(read.value, loadMemory());
-  const body = el('div', { className: 'kl-import' });
-  const missing = el('p', { className: 'kl-field-problem', attrs: { role: 'alert' } });
   let step: 'map' | 'preview' = 'map';
   let preview: ImportPreview | undefined;
-
-  const render = () => {
-    if (step === 'map') {
-      missing.textContent = proposal.missing.length ? `Still needed: a column for ${proposal.missing.join(', ')}.` : '';
-      body.replaceChildren(
-        el('p', { text: `${file.name}${read.value.sheet ? `, sheet "${read.value.sheet}"` : ''}: header found in row ${proposal.headerRow}. Check what each column feeds and its unit.` }),
-        missing,
-        el('div', { className: 'kl-scroll' }, [mappingTable(proposal, settings.cases, (next) => ((proposal = next), render()))]),
-      );
-    } else if (preview) {
-      const clashes = preview.equipment.filter((r) => existingTags.has(r.tag.toLowerCase())).map((r) => r.tag);
-      body.replaceChildren(
-        ...previewNodes(preview),
-        el('p', { className: 'kl-muted', text: existing.length === 0 ? 'The workbook has no equipment yet.' : clashes.length > 0 ? `Adding is not offered: ${clashes.length} tag(s) already in the workbook (${clashes.slice(0, 5).join(', ')}${clashes.length > 5 ? ', …' : ''}).` : `The workbook holds ${existing.length} items: add the list to them, or replace them.` }),
-      );
-      add.hidden = existing.length === 0;
-      add.disabled = !preview.canApply || clashes.length > 0;
-    }
-    next.textContent = step === 'map' ? 'Preview' : 'Accept: replace the equipment';
-    next.disabled = step === 'map' ? proposal.missing.length > 0 : !preview?.canApply;
-    back.hidden = step === 'map';
-    if (step === 'map') add.hidden = true;
-  };
+  const body = el('div', { className: 'kl-import' });
+  const note = el('p', { className: 'kl-field-problem', attrs: { role: 'alert', 'data-testid': 'import-note' } });
+  const dropBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-drop' } });
+  const drop = el('label', { className: 'kl-check' }, [dropBox, ' Leave out the rows with errors']);
   const back = el('button', { className: 'kl-btn', text: 'Back to the mapping', attrs: { type: 'button' } });
   const add = el('button', { className: 'kl-btn kl-btn-primary', text: 'Accept: add to the equipment', attrs: { type: 'button', 'data-testid': 'import-add' } });
-  add.addEventListener('click', () => accept('add'));
   const next = el('button', { className: 'kl-btn kl-btn-primary', attrs: { type: 'button', 'data-testid': 'import-next' } });
-  back.addEventListener('click', () => ((step = 'map'), render()));
-  next.addEventListener('click', () => {
+
+  const render = () => {
+    note.textContent = '';
     if (step === 'map') {
-      preview = previewImport(proposal, { settings });
-      step = 'preview';
-      render();
+      if (proposal.missing.length) note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}.`;
+      body.replaceChildren(
+        el('p', { text: `${file.name}${read.value.sheet ? `, sheet "${read.value.sheet}"` : ''}: header found in row ${proposal.headerRow}. Check what each column feeds and its unit.` }),
+        el('div', { className: 'kl-scroll' }, [mappingTable(proposal, settings.cases, (p) => ((proposal = p), render()))]),
+      );
+    } else if (preview) {
+      body.replaceChildren(
+        ...previewNodes(preview),
+        el('p', { className: 'kl-muted', text: existing === 0 ? 'The workbook has no equipment yet.' : `The workbook holds ${existing} items: add the list to them, or replace them.` }),
+      );
+    }
+    const hasErrors = preview?.counts.withErrors ? preview.counts.withErrors > 0 : false;
+    drop.hidden = step === 'map' || !hasErrors;
+    const acceptable = step === 'preview' && !!preview && preview.proposal.missing.length === 0 && (preview.canApply || (hasErrors && dropBox.checked));
+    next.textContent = step === 'map' ? 'Preview' : 'Accept: replace the equipment';
+    next.disabled = step === 'map' ? proposal.missing.length > 0 : !acceptable;
+    add.hidden = step === 'map' || existing === 0;
+    add.disabled = !acceptable;
+    back.hidden = step === 'map';
+  };
+
+  const accept = (mode: 'append' | 'replace') => {
+    if (!preview) return;
+    const r = applyImport(currentDoc, preview, { mode, dropRowsWithErrors: dropBox.checked });
+    if (!r.ok) {
+      note.textContent = r.message;
       return;
     }
-    accept('replace');
-  });
-  const accept = (how: 'add' | 'replace') => {
-    if (!preview?.canApply) return;
     try {
       localStorage.setItem(MAPPING_MEMORY_STORAGE_KEY, JSON.stringify(rememberMapping(loadMemory(), proposal)));
     } catch {
       // Remembering the mapping is a convenience; a full or blocked localStorage must not stop the import.
     }
-    const equipment = how === 'add' ? [...existing, ...preview.equipment] : [...preview.equipment];
-    const cases = [...new Set([...settings.cases, ...preview.cases])];
-    const doc = buildWorkbook({ settings: { ...settings, cases }, equipment }, { flavour: 'live', ...(current ? { banks: current.banks } : {}) });
     dlg.close();
-    app.open({ ...doc, title: app.session.title }, { note: `Imported ${preview.equipment.length} items from "${file.name}" (${how === 'add' ? 'added' : 'replacing the equipment'}). The workbook before the import: Workbook → Restore the previous state.`, changed: true });
+    const left = r.dropped > 0 ? `, ${r.dropped} row(s) with errors left out` : '';
+    app.open(r.doc, { note: `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}). The workbook before the import: Workbook → Restore the previous state.`, changed: true });
   };
-  const dlg = openDialog(`Import equipment list`, [body, el('div', { className: 'kl-dialog-actions' }, [back, add, next])], [{ label: 'Cancel' }], { wide: true, testId: 'import' });
+
+  back.addEventListener('click', () => ((step = 'map'), render()));
+  add.addEventListener('click', () => accept('append'));
+  dropBox.addEventListener('change', render);
+  next.addEventListener('click', () => {
+    if (step === 'preview') return accept('replace');
+    preview = previewImport(proposal, { settings });
+    step = 'preview';
+    render();
+  });
+  const dlg = openDialog('Import equipment list', [body, note, el('div', { className: 'kl-dialog-actions' }, [drop, back, add, next])], [{ label: 'Cancel' }], { wide: true, testId: 'import' });
   render();
 }

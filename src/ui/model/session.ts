@@ -197,16 +197,43 @@ export class WorkbookSession {
     return true;
   }
 
+  /**
+   * The engine writes the values a formula spills over its neighbours (the bus roll-up returns
+   * one array for all buses) as if they were typed there; they belong to the formula, not to the
+   * cell, and saved as constants they would block the spill on reload. Only formula cells can
+   * anchor a spill, so the search starts from them.
+   */
+  private clearSpills(id: number, rows: CellContent[][]): void {
+    const isArray = (row: number, col: number) => this.engine.isCellPartOfArray({ sheet: id, row, col });
+    const isFormula = (v: unknown) => typeof v === 'string' && v.startsWith('=');
+    rows.forEach((cells, r) => cells.forEach((v, c) => {
+      if (!isFormula(v) || !isArray(r, c)) return;
+      for (let rr = r; rr < rows.length && (rr === r || (!isFormula(rows[rr]?.[c]) && isArray(rr, c))); rr++) {
+        const line = rows[rr] as CellContent[];
+        for (let cc = rr === r ? c + 1 : c; cc < line.length && !isFormula(line[cc]) && isArray(rr, cc); cc++) line[cc] = null;
+        if (rr !== r && !isFormula(line[c])) line[c] = null;
+      }
+    }));
+  }
+
   /** Raw contents of a sheet (formulas as typed), trailing blanks trimmed. */
   sheetContents(id: number): CellContent[][] {
     const rows = this.engine.getSheetSerialized(id).map((r) => normalizeRow(r as unknown[]));
-    while (rows.length > 0 && (rows[rows.length - 1] as CellContent[]).length === 0) rows.pop();
-    return rows;
+    this.clearSpills(id, rows);
+    const out = rows.map((r) => normalizeRow(r));
+    while (out.length > 0 && (out[out.length - 1] as CellContent[]).length === 0) out.pop();
+    return out;
+  }
+
+  private isSpilled(sheet: number, row: number, col: number, v: unknown): boolean {
+    if (v === null || v === undefined || (typeof v === 'string' && v.startsWith('='))) return false;
+    return this.engine.isCellPartOfArray({ sheet, row, col });
   }
 
   cellContent(sheetId: number, row: number, col: number): CellContent {
     const v = this.engine.getCellSerialized({ sheet: sheetId, row, col });
-    return v === undefined || v === '' ? null : (v as CellContent);
+    if (v === undefined || v === '' || this.isSpilled(sheetId, row, col, v)) return null;
+    return v as CellContent;
   }
 
   toDoc(): WorkbookDoc {

@@ -1,0 +1,229 @@
+// The workbook in a real browser (Debian's chromium): the demo, typing formulas with the typing
+// help, error messages, undo, clipboard in and out, fill down, sheets, autosave across a
+// reload, templates, charts, the reference, hostile text. Screenshots go to test-artifacts/.
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
+import { addSheet, cell, cellText, openSheet, saved, selectCell, sheetNames, typeInCell } from './gridHelpers.ts';
+
+let server: { url: string; close(): Promise<void> };
+let browser: Browser;
+let page: Page;
+const dialogs: string[] = [];
+
+beforeAll(async () => {
+  await buildApp();
+  server = await serve();
+  browser = await launch();
+  page = browser.page;
+  page.on('dialog', (d) => {
+    dialogs.push(d.message());
+    void d.dismiss();
+  });
+  await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: server.url.replace(/\/$/, '') });
+  await openApp(page, server.url);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+afterEach((ctx) => {
+  console.log(`after "${ctx.task.name}": ${JSON.stringify(browser.errors)}`);
+});
+
+const fb = (id: string) => page.locator(`[data-testid="fb-${id}"]`);
+
+describe('Kvar Ledger in the browser', () => {
+  it('opens the demo workbook on the first visit', async () => {
+    expect(await page.locator('[data-testid="title"]').inputValue()).toMatch(/Cold store/);
+    expect(await sheetNames(page)).toEqual(expect.arrayContaining(['Site', 'Motors', 'Transformers', 'Buses', 'Compensation']));
+    await openSheet(page, 'Buses');
+    // Row 1 is the header row; the first bus is the point of connection with a computed P.
+    expect(await cellText(page, 0, 0)).toBe('Bus');
+    expect(await cellText(page, 1, 0)).toBe('MV-11');
+    expect(Number((await cellText(page, 1, 5)).replace(/,/g, ''))).toBeGreaterThan(0);
+    await screenshot(page, '01-demo-buses');
+  });
+
+  it('computes a catalogue formula typed into a cell, with the typing help on the way', async () => {
+    await addSheet(page, 'Scratch');
+    await selectCell(page, 0, 0);
+    await page.keyboard.type('=kva.to', { delay: 10 });
+    const assist = page.locator('[data-testid="assist"]');
+    await expect.poll(() => assist.locator('.kl-assist-item.is-active .kl-assist-name').textContent()).toBe('KVA.TOTAL');
+    await page.keyboard.press('Tab');
+    await page.keyboard.type('300,', { delay: 10 });
+    // The signature shows, with the second argument (q_kvar, in kvar) marked.
+    expect(await assist.locator('.kl-sig-arg.is-active').textContent()).toBe('q_kvar kvar');
+    expect(await assist.locator('.kl-sig-doc').textContent()).toMatch(/^q_kvar: reactive power/);
+    await screenshot(page, '02-typing-help');
+    await page.keyboard.type('400)', { delay: 10 });
+    await page.keyboard.press('Enter');
+    // The 3-4-5 triangle: √(300² + 400²) = 500 (IEC 60050-131, 131-11-41).
+    expect(await cellText(page, 0, 0)).toBe('500');
+    await selectCell(page, 0, 0);
+    expect(await fb('input').inputValue()).toBe('=KVA.TOTAL(300,400)');
+    expect(await fb('value').textContent()).toBe('500');
+    expect(await fb('address').textContent()).toBe('Scratch!A1');
+  });
+
+  it('marks a bad argument in the grid and explains it in the formula bar', async () => {
+    await typeInCell(page, 1, 0, '=KVAR.MOTOR(90,0.95,1.2)');
+    const bad = cell(page, 1, 0);
+    expect(await bad.getAttribute('class')).toMatch(/kl-err/);
+    expect(await bad.textContent()).toMatch(/^#/);
+    await selectCell(page, 1, 0);
+    const problem = fb('problem');
+    await expect.poll(() => problem.isVisible()).toBe(true);
+    expect(await problem.textContent()).toMatch(/KVAR\.MOTOR: argument 3 \(cos_phi\) must be in \(0, 1\]; got 1\.2/);
+    expect(await page.locator('[data-testid="error-count"]').textContent()).toMatch(/^1 cell with errors/);
+    await screenshot(page, '03-error-explained');
+  });
+
+  it('undoes and redoes an edit', async () => {
+    await typeInCell(page, 2, 0, '42');
+    expect(await cellText(page, 2, 0)).toBe('42');
+    await selectCell(page, 2, 0);
+    await page.keyboard.press('Control+z');
+    expect(await cellText(page, 2, 0)).toBe('');
+    await page.keyboard.press('Control+y');
+    expect(await cellText(page, 2, 0)).toBe('42');
+    await page.keyboard.press('Control+z');
+    expect(await cellText(page, 2, 0)).toBe('');
+  });
+
+  it('takes a tab-separated block pasted from another program', async () => {
+    await selectCell(page, 4, 1);
+    await page.evaluate(() => navigator.clipboard.writeText('P kW\tQ kvar\n300\t400\n650\t-760\n'));
+    await page.keyboard.press('Control+v');
+    await expect.poll(() => cellText(page, 6, 2)).toBe('-760');
+    expect(await cellText(page, 4, 1)).toBe('P kW');
+    expect(await cellText(page, 5, 2)).toBe('400');
+    // A formula beside the block sees the pasted numbers, then fill down copies it with moved references.
+    await typeInCell(page, 5, 3, '=KVA.TOTAL(B6,C6)');
+    expect(await cellText(page, 5, 3)).toBe('500');
+    await selectCell(page, 5, 3);
+    await page.keyboard.down('Shift');
+    await selectCell(page, 6, 3);
+    await page.keyboard.up('Shift');
+    await page.keyboard.press('Control+d');
+    expect(await cellText(page, 6, 3)).toBe('1000.049999');
+    await selectCell(page, 6, 3);
+    expect(await fb('input').inputValue()).toBe('=KVA.TOTAL(B7,C7)');
+  });
+
+  it('copies values at full precision for other programs', async () => {
+    // (Clicking the cell that is already active would open its editor, as a double-click does.)
+    await selectCell(page, 6, 2);
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('Control+c');
+    await expect.poll(() => page.evaluate(() => navigator.clipboard.readText())).toMatch(/^1000\.04999875006\d*$/);
+  });
+
+  it('shows hostile text as text', async () => {
+    const hostile = '<img src=x onerror=alert(1)>';
+    await typeInCell(page, 8, 0, hostile);
+    expect(await cellText(page, 8, 0)).toBe(hostile);
+    expect(await page.locator('.kl-grid-host img').count()).toBe(0);
+    // A sheet name made of markup stays text in the sheet index and the caption.
+    const tab = page.locator('[data-testid="sheet-tab"][data-sheet="Scratch"]');
+    await tab.dblclick();
+    await page.locator('[data-testid="prompt"] input').fill(hostile);
+    await page.locator('[data-testid="prompt"] .kl-btn-primary').click();
+    await page.waitForSelector(`[data-testid="sheet-tab"][data-sheet="${hostile}"]`);
+    expect(await page.locator('.kl-sheets img, .kl-caption img, .kl-formula-bar img').count()).toBe(0);
+    expect(await page.locator('[data-testid="sheet-caption"] strong').textContent()).toBe(hostile);
+    expect(dialogs).toEqual([]);
+  });
+
+  it('keeps every change across a reload', async () => {
+    await saved(page);
+    await page.reload();
+    await page.waitForSelector('#app[data-ready="true"]');
+    expect(await page.locator('[data-testid="notice"]').textContent()).toMatch(/^Welcome back/);
+    const hostile = '<img src=x onerror=alert(1)>';
+    expect(await sheetNames(page)).toContain(hostile);
+    await openSheet(page, hostile);
+    expect(await cellText(page, 0, 0)).toBe('500');
+    expect(await cellText(page, 6, 3)).toBe('1000.049999');
+    expect(dialogs).toEqual([]);
+  });
+
+  it('deletes a sheet after asking, and undo brings it back', async () => {
+    const hostile = '<img src=x onerror=alert(1)>';
+    await page.locator(`[data-testid="sheet-tab"][data-sheet="${hostile}"] + [data-testid="sheet-more"]`).click();
+    await page.click('[data-testid="sheet-delete"]');
+    const confirm = page.locator('[data-testid="confirm"]');
+    expect(await confirm.textContent()).toMatch(/You can bring it back with Undo/);
+    await confirm.locator('.kl-btn-danger').click();
+    expect(await sheetNames(page)).not.toContain(hostile);
+    await page.locator('[data-testid="undo"]').click();
+    expect(await sheetNames(page)).toContain(hostile);
+    await openSheet(page, hostile);
+    expect(await cellText(page, 0, 0)).toBe('500');
+  });
+
+  it('redraws the charts when an input changes', async () => {
+    await openSheet(page, 'Motors');
+    await page.click('[data-testid="toggle-charts"]');
+    const charts = page.locator('[data-testid="charts"]');
+    await charts.locator('svg.kl-bars').waitFor();
+    const netBefore = await charts.locator('.kl-bar-value').first().textContent();
+    const beforeRow = await page.locator('[data-testid="triangle-table"] tr.is-before td').nth(1).textContent();
+    await screenshot(page, '04-charts');
+    // Double the rated output of the first motor row: the point of connection draws more kvar.
+    const header = await page.locator('.kl-grid-host .ht_master .htCore tbody tr').first().locator('td').allTextContents();
+    const col = header.findIndex((h) => h.startsWith('Rated output'));
+    expect(col).toBeGreaterThan(0);
+    await typeInCell(page, 1, col, '500');
+    await expect.poll(() => charts.locator('.kl-bar-value').first().textContent()).not.toBe(netBefore);
+    expect(await page.locator('[data-testid="triangle-table"] tr.is-before td').nth(1).textContent()).not.toBe(beforeRow);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => charts.locator('.kl-bar-value').first().textContent()).toBe(netBefore);
+  });
+
+  it('lists the catalogue with live examples and inserts a call into a cell', async () => {
+    await page.click('[data-testid="toggle-functions"]');
+    await page.fill('[data-testid="ref-search"]', 'motor');
+    await page.locator('[data-testid="ref-list"] [data-fn="KVAR.MOTOR"]').click();
+    const detail = page.locator('[data-testid="ref-detail"]');
+    expect(await detail.locator('h2').textContent()).toBe('KVAR.MOTOR');
+    const rows = detail.locator('[data-testid="ref-examples"] tbody tr');
+    expect(await rows.count()).toBeGreaterThan(1);
+    expect(await rows.first().locator('td').nth(1).textContent()).toMatch(/^\d/);
+    await screenshot(page, '05-function-reference');
+    await selectCell(page, 8, 1);
+    await detail.locator('[data-testid="ref-insert"]').click();
+    expect(await fb('input').inputValue()).toBe('=KVAR.MOTOR(');
+    await page.keyboard.press('Escape');
+  });
+
+  it('opens a template from the menu', async () => {
+    await page.click('[data-testid="menu-workbook"]');
+    await page.click('[data-testid="menu-template"]');
+    await page.locator('[data-testid="templates"] .kl-template').first().waitFor();
+    await screenshot(page, '06-templates');
+    await page.click('[data-testid="template-pumping-station"]');
+    await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toMatch(/[Pp]umping/);
+    await openSheet(page, 'Buses');
+    expect(await cellText(page, 0, 0)).toBe('Bus');
+    expect((await cellText(page, 1, 0)).length).toBeGreaterThan(0);
+  });
+
+  it('shows the cautions and licences', async () => {
+    await page.click('[data-testid="about-open"]');
+    const about = page.locator('[data-testid="about"]');
+    const text = (await about.textContent()) ?? '';
+    expect(text).toMatch(/licensed engineer/);
+    expect(text).toMatch(/GPL-3\.0/);
+    expect(text).toMatch(/non-commercial/);
+    await screenshot(page, '07-about');
+    await about.locator('.kl-btn-primary').click();
+  });
+
+  it('logged no console errors', () => {
+    expect(browser.errors).toEqual([]);
+  });
+});
