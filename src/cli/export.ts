@@ -84,7 +84,9 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const doc = buildWorkbook(loaded.site, { flavour: 'portable' });
   // The xlsx library loads only for this command.
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
-  const report = await exportWorkbookXlsxWithReport(doc, { settings: loaded.site.settings });
+  // Cached results come from the live flavour (same layout, same values, one fast roll-up).
+  const live = buildWorkbook(loaded.site, { flavour: 'live' });
+  const report = await exportWorkbookXlsxWithReport(doc, { settings: loaded.site.settings, valuesFrom: live });
   try {
     writeFileSync(output, report.bytes);
   } catch (e) {

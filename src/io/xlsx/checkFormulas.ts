@@ -1,48 +1,62 @@
 // Formulas an opened workbook cannot compute: calls of functions the engine does not have (from
-// another program, or misspelt) and references that loop back on themselves. Found by building
-// the engine over the document and reading the error type of every formula cell.
-import { DetailedCellError, ErrorType } from 'hyperformula';
+// another program, or misspelt), unknown names, and references that loop back on themselves.
+// Read from the formulas themselves, so even a large workbook is checked in a moment.
+import { HyperFormula } from 'hyperformula';
+import { findFunction } from '../../core/functions/index.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { createEngine, type OwnPlugin } from '../../engine/index.ts';
+import { tokenize } from '../formula/tokenize.ts';
+import { findCircularCells, type CellAt } from './cycles.ts';
 import type { FileProblem } from './fileProblem.ts';
 import { columnLetter } from './sheetNames.ts';
 
-/** At most this many problems are listed; the count says how many more. */
+/** At most this many problems are listed; the last line says how many more. */
 export const MAX_LISTED_PROBLEMS = 50;
 
-const UNKNOWN_NAME = /(?:Function name|Named expression) (.+?) not recognized/i;
+/** Which rows to check: every formula, or only these rows (0-based) of these sheets. */
+export type CheckScope = 'all' | ReadonlyMap<string, 'all' | ReadonlySet<number>>;
 
-export function checkFormulas(doc: WorkbookDoc, plugins?: readonly OwnPlugin[]): FileProblem[] {
-  let hf;
-  try {
-    hf = createEngine(doc.sheets, plugins ? { plugins } : {});
-  } catch (e) {
-    return [{ code: 'wrong-layout', message: `the workbook cannot be opened: ${e instanceof Error ? e.message : String(e)}` }];
+function knownFunctions(plugins?: readonly OwnPlugin[]): Set<string> {
+  createEngine([], plugins ? { plugins } : {}).destroy(); // registers our plugins, once
+  return new Set(HyperFormula.getRegisteredFunctionNames('enGB').map((n) => n.toUpperCase()));
+}
+
+function inScope(scope: CheckScope, sheet: string, row: number): boolean {
+  if (scope === 'all') return true;
+  const s = scope.get(sheet);
+  return s === 'all' || (s !== undefined && s.has(row));
+}
+
+function unknownName(formula: string, known: ReadonlySet<string>): string | undefined {
+  for (const t of tokenize(formula)) {
+    if (t.kind === 'func' && !known.has(t.text.toUpperCase()) && !findFunction(t.text)) return `the function ${t.text.toUpperCase()}`;
+    if (t.kind === 'name') return `the name ${t.text}`;
   }
+  return undefined;
+}
+
+export function checkFormulas(doc: WorkbookDoc, scope: CheckScope = 'all', plugins?: readonly OwnPlugin[]): FileProblem[] {
+  if (scope !== 'all' && scope.size === 0) return [];
+  const known = knownFunctions(plugins);
   const problems: FileProblem[] = [];
-  let more = 0;
-  doc.sheets.forEach((sheet) => {
-    const id = hf.getSheetId(sheet.name) as number;
-    sheet.cells.forEach((row, r) =>
+  const starts: CellAt[] = [];
+  doc.sheets.forEach((sheet, s) =>
+    sheet.cells.forEach((row, r) => {
+      if (!inScope(scope, sheet.name, r)) return;
       row.forEach((content, c) => {
         if (typeof content !== 'string' || !content.startsWith('=')) return;
-        const v = hf.getCellValue({ sheet: id, row: r, col: c });
-        if (!(v instanceof DetailedCellError)) return;
-        const where = `${sheet.name}!${columnLetter(c)}${r + 1}`;
-        let p: FileProblem | undefined;
-        if (v.type === ErrorType.NAME) {
-          const name = UNKNOWN_NAME.exec(v.message)?.[1] ?? 'a name';
-          p = { code: 'unknown-function', message: `the formula ${content} uses ${name}, which Kvar Ledger does not know`, where };
-        } else if (v.type === ErrorType.CYCLE) {
-          p = { code: 'circular-reference', message: `the formula ${content} refers to itself through a loop of references`, where };
-        }
-        if (!p) return;
-        if (problems.length < MAX_LISTED_PROBLEMS) problems.push(p);
-        else more++;
-      }),
-    );
-  });
-  hf.destroy();
-  if (more > 0) problems.push({ code: problems[0]?.code ?? 'unknown-function', message: `and ${more} more formula problems` });
-  return problems;
+        starts.push({ sheet: s, row: r, col: c });
+        const name = unknownName(content, known);
+        if (name) problems.push({ code: 'unknown-function', message: `the formula ${content} uses ${name}, which Kvar Ledger does not know`, where: `${sheet.name}!${columnLetter(c)}${r + 1}` });
+      });
+    }),
+  );
+  for (const at of findCircularCells(doc, starts)) {
+    const sheet = doc.sheets[at.sheet] as WorkbookDoc['sheets'][number];
+    const content = sheet.cells[at.row]?.[at.col];
+    problems.push({ code: 'circular-reference', message: `the formula ${String(content)} refers to itself through a loop of references`, where: `${sheet.name}!${columnLetter(at.col)}${at.row + 1}` });
+  }
+  if (problems.length <= MAX_LISTED_PROBLEMS) return problems;
+  const more = problems.length - MAX_LISTED_PROBLEMS;
+  return [...problems.slice(0, MAX_LISTED_PROBLEMS), { code: problems[MAX_LISTED_PROBLEMS]?.code ?? 'unknown-function', message: `and ${more} more formula problems` }];
 }

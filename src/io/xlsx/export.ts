@@ -5,7 +5,7 @@
 import type { Workbook, Worksheet } from 'exceljs';
 import type { SiteSettings } from '../../core/site/model.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
-import { createEngine, type OwnPlugin } from '../../engine/index.ts';
+import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';
 import { coverRows, functionRows, FUNCTION_HEADER } from './exportCover.ts';
 import { exportSheetCells, fileError, type CellIssue, type ExportCell, type SheetCells } from './exportCells.ts';
 import { styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
@@ -20,6 +20,14 @@ export interface XlsxExportOptions {
   readonly date?: Date;
   /** Engine plugins of ours the workbook's formulas need to compute their cached values. */
   readonly plugins?: readonly OwnPlugin[];
+  /**
+   * Where the cached results come from. Default: an engine built over the document itself.
+   * `valueAt`: the caller's own engine (e.g. the app's, already computed; no engine is built).
+   * `valuesFrom`: a document of the same layout that computes faster and gives the same values
+   * cell by cell (the live flavour of the same site); ignored unless sheet names and row counts match.
+   */
+  readonly valueAt?: (sheet: string, row: number, col: number) => CellResult | undefined;
+  readonly valuesFrom?: WorkbookDoc;
   /** Refuse (throw XlsxExportError) when any formula has to be written as a value. */
   readonly strict?: boolean;
   /** Program name and version on the cover. */
@@ -58,6 +66,39 @@ function checkNames(doc: WorkbookDoc): void {
     seen.add(s.name.toLowerCase());
   }
   if (doc.sheets.length === 0) throw new XlsxExportError('cannot export: the workbook has no sheets');
+}
+
+const BLANK: CellResult = { ok: true, value: null };
+
+const isFormula = (c: unknown): boolean => typeof c === 'string' && c.startsWith('=');
+
+/**
+ * Can `source` stand in for `doc`? Same sheets in order and every typed value identical; where
+ * `doc` has a formula the source may compute the value otherwise (e.g. one roll-up filling a
+ * block of cells), and it may have more rows below.
+ */
+function alignedWith(doc: WorkbookDoc, source: WorkbookDoc): boolean {
+  if (doc.sheets.length !== source.sheets.length) return false;
+  return doc.sheets.every((s, i) => {
+    const t = source.sheets[i];
+    if (!t || t.name !== s.name) return false;
+    return s.cells.every((row, r) => row.every((c, col) => {
+      const u = t.cells[r]?.[col] ?? null;
+      return isFormula(c) || c === u || ((c === null || c === '') && (u === null || u === ''));
+    }));
+  });
+}
+
+/** Run `use` with a reader of cached results, building (and then freeing) an engine if needed. */
+function withValues<T>(doc: WorkbookDoc, opts: XlsxExportOptions, use: (valueAt: (sheet: string, row: number, col: number) => CellResult | undefined) => T): T {
+  if (opts.valueAt) return use(opts.valueAt);
+  const source = opts.valuesFrom && alignedWith(doc, opts.valuesFrom) ? opts.valuesFrom : doc;
+  const hf = createEngine(source.sheets, opts.plugins ? { plugins: opts.plugins } : {});
+  try {
+    return use((sheet, row, col) => readCell(hf, sheet, row, col));
+  } finally {
+    hf.destroy();
+  }
 }
 
 type ExcelValue = number | string | boolean | null | { formula: string; result?: number | string | boolean | { error: string } } | { error: string };
@@ -100,9 +141,7 @@ function writeMeta(wb: Workbook, meta: ExportMeta): void {
 /** Export with a report of what could not be written as a live formula. */
 export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxExportOptions = {}): Promise<XlsxExportReport> {
   checkNames(doc);
-  const hf = createEngine(doc.sheets, opts.plugins ? { plugins: opts.plugins } : {});
-  const converted = doc.sheets.map((s) => exportSheetCells(hf, hf.getSheetId(s.name) as number, s));
-  hf.destroy();
+  const converted = withValues(doc, opts, (valueAt) => doc.sheets.map((s) => exportSheetCells((r, c) => valueAt(s.name, r, c) ?? BLANK, s)));
   const issues = converted.flatMap((c) => c.issues);
   if (opts.strict && issues.length > 0) {
     throw new XlsxExportError(`cannot export: ${issues.length} formula(s) cannot be written for other programs; first: ${issues[0]?.where}: ${issues[0]?.message}`, issues);

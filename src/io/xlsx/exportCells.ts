@@ -1,11 +1,12 @@
 // Each cell of the workbook as it goes into the xlsx: a plain formula (catalogue calls expanded,
 // later functions prefixed) with the app's own result cached beside it, or the value the engine
 // reads from what was typed. Problems are collected with the cell they concern.
-import type { HyperFormula } from 'hyperformula';
+import { CATALOGUE } from '../../core/functions/index.ts';
 import type { CellContent, SheetDoc } from '../../core/workbook/document.ts';
-import { toResult, type CellResult } from '../../engine/index.ts';
-import { expandFormula, referencedFunctions } from '../formula/expand.ts';
-import { toFileFormula } from './functionNames.ts';
+import type { CellResult } from '../../engine/index.ts';
+import { expandFormula, type ExpandResult } from '../formula/expand.ts';
+import { parseFormula } from '../formula/parse.ts';
+import { toFileFormula, withoutText } from './functionNames.ts';
 import { columnLetter } from './sheetNames.ts';
 
 /** Longest formula other programs accept (characters) and deepest nesting of calls. */
@@ -47,6 +48,18 @@ export function xmlSafe(text: string): string {
   return text.replace(XML_INVALID, '\uFFFD');
 }
 
+/** Could the formula call a catalogue function? (A cheap test; the tokenizer decides.) */
+const CATALOGUE_NAMES = CATALOGUE.map((f) => f.name.replace(/\./g, '\\.')).join('|');
+const CATALOGUE_CALL = new RegExp(`(?<![A-Za-z0-9_.])(?:${CATALOGUE_NAMES})\\(`, 'i');
+/** The same, capturing each name (the tokenizer takes a name directly followed by '(' as a call). */
+const CATALOGUE_CALLS = new RegExp(`(?<![A-Za-z0-9_.])(${CATALOGUE_NAMES})\\(`, 'gi');
+
+/** A formula without catalogue calls goes out as written, once we know it can be read at all. */
+function readable(formula: string): ExpandResult {
+  const parsed = parseFormula(formula);
+  return parsed.ok ? { ok: true, formula } : { ok: false, message: parsed.message };
+}
+
 function nesting(formula: string): number {
   let depth = 0;
   let max = 0;
@@ -71,21 +84,27 @@ function isFormula(c: CellContent): boolean {
   return typeof c === 'string' && c.startsWith('=');
 }
 
-/** Convert one sheet; `sheetIndex` is its engine sheet id. */
-export function exportSheetCells(hf: HyperFormula, sheetIndex: number, sheet: SheetDoc): SheetCells {
+/** The app's result in a cell of the sheet being converted (0-based row and column). */
+export type ValueOf = (row: number, col: number) => CellResult;
+
+const BLANK: CellResult = { ok: true, value: null };
+
+/** Convert one sheet, with each cell's result from `valueOf`. */
+export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells {
   const out: SheetCells = { rows: [], catalogue: new Set(), newer: new Set(), issues: [] };
   sheet.cells.forEach((row, r) => {
     const cells: ExportCell[] = [];
     row.forEach((content, c) => {
-      const result = toResult(hf.getCellValue({ sheet: sheetIndex, row: r, col: c }));
+      const result = valueOf(r, c) ?? BLANK;
       if (!isFormula(content)) {
         cells.push(content === null || content === '' ? { kind: 'empty' } : valueCell(result));
         return;
       }
       const where = `${sheet.name}!${columnLetter(c)}${r + 1}`;
       const formula = content as string;
-      for (const f of referencedFunctions(formula)) out.catalogue.add(f);
-      const expanded = expandFormula(formula);
+      const calls = CATALOGUE_CALL.test(formula);
+      if (calls) for (const m of withoutText(formula).matchAll(CATALOGUE_CALLS)) out.catalogue.add((m[1] as string).toUpperCase());
+      const expanded = calls ? expandFormula(formula) : readable(formula);
       if (!expanded.ok) {
         out.issues.push({ where, message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead` });
         cells.push(valueCell(result));

@@ -5,7 +5,7 @@
 import type { Workbook, Worksheet } from 'exceljs';
 import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { checkXlsxBytes } from './checkFile.ts';
-import { checkFormulas } from './checkFormulas.ts';
+import { checkFormulas, type CheckScope } from './checkFormulas.ts';
 import type { OwnPlugin } from '../../engine/index.ts';
 import type { FileProblem } from './fileProblem.ts';
 import { DEFAULT_XLSX_LIMITS, type XlsxLimits } from './limits.ts';
@@ -50,6 +50,7 @@ function metaText(ws: Worksheet): string | undefined {
 
 /** A sheet from our metadata, row by row: untouched rows restored, changed rows as found. */
 function restoreSheet(ws: Worksheet, original: SheetDoc, meta: SheetMeta, date1904: boolean): { sheet: SheetDoc; changed: number[] } {
+  // `changed` holds 1-based row numbers, as the user's program shows them.
   const rows: CellContent[][] = [];
   const changed: number[] = [];
   const last = Math.max(ws.rowCount, meta.rows.length);
@@ -75,34 +76,38 @@ function rowsText(rows: readonly number[]): string {
   return rows.length > 8 ? `${shown} and ${rows.length - 8} more` : shown;
 }
 
-function fromMeta(wb: Workbook, meta: ExportMeta, date1904: boolean): { doc: WorkbookDoc; notes: string[]; partly: boolean } {
+interface FromMeta {
+  readonly doc: WorkbookDoc;
+  readonly notes: string[];
+  /** Rows (0-based) and sheets that came from the file, not from our metadata: the ones to check. */
+  readonly fresh: Map<string, 'all' | Set<number>>;
+}
+
+function fromMeta(wb: Workbook, meta: ExportMeta, date1904: boolean): FromMeta {
   const notes: string[] = [];
+  const fresh = new Map<string, 'all' | Set<number>>();
   const byFile = new Map(meta.sheets.map((s, i) => [s.file, { meta: s, original: meta.doc.sheets[i] as SheetDoc }]));
   const skip = new Set([...meta.generated, META_SHEET_NAME]);
   const sheets: SheetDoc[] = [];
-  let partly = false;
   for (const ws of wb.worksheets) {
     if (skip.has(ws.name)) continue;
     const known = byFile.get(ws.name);
     if (!known) {
       notes.push(`sheet "${ws.name}" was added in another program; read as plain formulas and values`);
       sheets.push({ name: ws.name, cells: readSheet(ws, date1904) });
-      partly = true;
+      fresh.set(ws.name, 'all');
       continue;
     }
     byFile.delete(ws.name);
     const { sheet, changed } = restoreSheet(ws, known.original, known.meta, date1904);
     if (changed.length > 0) {
-      partly = true;
+      fresh.set(ws.name, new Set(changed.map((r) => r - 1)));
       notes.push(`sheet "${ws.name}": row(s) ${rowsText(changed)} were changed in another program; read as plain formulas and values`);
     }
     sheets.push(sheet);
   }
-  for (const gone of byFile.keys()) {
-    notes.push(`sheet "${gone}" was removed in another program`);
-    partly = true;
-  }
-  return { doc: { ...meta.doc, sheets }, notes, partly };
+  for (const gone of byFile.keys()) notes.push(`sheet "${gone}" was removed in another program`);
+  return { doc: { ...meta.doc, sheets }, notes, fresh };
 }
 
 function plainDoc(wb: Workbook, date1904: boolean): WorkbookDoc {
@@ -133,17 +138,20 @@ export async function importKvarXlsx(bytes: Uint8Array, opts: KvarImportOptions 
 
   let doc: WorkbookDoc;
   let restored: 'restored' | 'partly' | 'plain' = 'plain';
+  // Formulas restored from our metadata were the app's own; only what came from the file is checked.
+  let scope: CheckScope = 'all';
   if (meta) {
     const m = fromMeta(wb, meta, date1904);
     doc = m.doc;
     notes.push(...m.notes);
-    restored = m.partly ? 'partly' : 'restored';
+    restored = m.notes.length > 0 ? 'partly' : 'restored';
+    scope = m.fresh;
   } else doc = plainDoc(wb, date1904);
 
   if (doc.sheets.length === 0 || doc.sheets.every((s) => s.cells.every((r) => r.length === 0))) {
     return refuse({ code: 'wrong-layout', message: 'the workbook holds no data (every sheet is empty)' });
   }
-  const problems = checkFormulas(doc, opts.plugins);
+  const problems = checkFormulas(doc, scope, opts.plugins);
   if (problems.length > 0 && !opts.acceptFormulaProblems) return refuse(problems[0] as FileProblem, problems);
   return { ok: true, doc, restored, notes, problems };
 }

@@ -3,7 +3,6 @@
 // import a row whose fingerprint still matches is restored from the JSON; a row someone changed
 // in another program is read as that program left it. Other programs only see plain formulas.
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
-import { tokenize } from '../formula/tokenize.ts';
 
 export const META_SHEET_NAME = '_kvar_ledger';
 export const META_MARKER = 'kvar-ledger-xlsx-meta';
@@ -37,25 +36,30 @@ export type FingerprintCell = { readonly col: number; readonly formula: string }
  * no storage prefixes, no quotes around simple sheet names, numbers in one spelling.
  */
 export function normaliseFormula(text: string): string {
-  return tokenize(text.startsWith('=') ? text.slice(1) : text)
-    .filter((t) => t.kind !== 'space')
-    .map((t) => {
-      switch (t.kind) {
-        case 'string':
-          return t.text;
-        case 'number':
-          return String(Number(t.text));
-        case 'func':
-        case 'name':
-          return t.text.toUpperCase().replace(/^(?:_XLFN\.)?(?:_XLWS\.)?/, '');
-        case 'ref':
-          return t.text.replace(/'([A-Za-z_][A-Za-z0-9_.]*)'!/g, '$1!').toUpperCase();
-        default:
-          return t.text.toUpperCase();
-      }
-    })
+  const body = text.startsWith('=') ? text.slice(1) : text;
+  // Text literals stay exactly as written, quoted sheet names lose only needless quotes;
+  // every other rule is a plain substitution.
+  return body
+    .split(/("(?:[^"]|"")*"?|'(?:[^']|'')*'?)/)
+    .map((part, i) => (i % 2 === 0 ? normaliseOutsideText(part) : part.startsWith('"') ? part : sheetName(part)))
     .join('');
 }
+
+function sheetName(quoted: string): string {
+  const inner = quoted.slice(1, -1);
+  return /^[A-Za-z_][A-Za-z0-9_.]*$/.test(inner) ? inner.toUpperCase() : quoted.toUpperCase();
+}
+
+function normaliseOutsideText(part: string): string {
+  return part
+    .replace(/\s+/g, '')
+    .toUpperCase()
+    .replace(/_XLFN\.|_XLWS\./g, '')
+    .replace(NUMBER_LITERAL, (n) => String(Number(n)));
+}
+
+/** A number literal: not part of a name, a cell address or a sheet name. */
+const NUMBER_LITERAL = /(?<![A-Z0-9_.$])(?:\d+\.?\d*|\.\d+)(?:E[+-]?\d+)?(?![A-Z0-9_.(!])/g;
 
 /** FNV-1a, 32 bits: enough to tell an edited row from an untouched one. */
 function fnv1a(text: string): string {

@@ -62,7 +62,7 @@ describe('importKvarXlsx refuses bad files with a clear message', () => {
       ws.getCell('B3').value = { formula: '_xlfn.IFNA(A1,0)', result: 5 } as ExcelJS.CellFormulaValue;
     });
     const r = await refusal(bytes);
-    expect(r.problem).toEqual({ code: 'unknown-function', message: 'the formula =A1*FROBNICATE(2) uses FROBNICATE, which Kvar Ledger does not know', where: 'Loads!B2' });
+    expect(r.problem).toEqual({ code: 'unknown-function', message: 'the formula =A1*FROBNICATE(2) uses the function FROBNICATE, which Kvar Ledger does not know', where: 'Loads!B2' });
     expect(r.problems).toHaveLength(1);
     const accepted = await importKvarXlsx(bytes, { acceptFormulaProblems: true });
     expect(accepted.ok && accepted.doc.sheets[0]?.cells).toEqual([[5], [null, '=A1*FROBNICATE(2)'], [null, '=IFNA(A1,0)']]);
