@@ -17,6 +17,8 @@ export interface SheetColumns {
   readonly loadUsed?: readonly number[];
   readonly p?: readonly number[];
   readonly q?: readonly number[];
+  /** Capacitors and reactors: a capacitor's full output when it is not detuned (for resonance). */
+  readonly plainCap?: number;
   /** Transformers and lines: apparent power carried per case. */
   readonly sCarried?: readonly number[];
   /** Transformers. */
@@ -66,7 +68,8 @@ export function planColumns(layout: EquipmentSheetLayout, cases: readonly string
     const loadUsed = perCase(HEADERS.loadUsed, '0.00', 9);
     const p = layout.hasP ? perCase(HEADERS.p, FORMATS.kw, 10) : undefined;
     const q = perCase(HEADERS.q, FORMATS.kvar, 10);
-    return { ...base, loadUsed, ...(p ? { p } : {}), q, columns };
+    const plainCap = layout.id === 'banks' ? add({ header: HEADERS.plainCap, format: FORMATS.kvar, width: 12, computed: true }) : undefined;
+    return { ...base, loadUsed, ...(p ? { p } : {}), q, ...(plainCap !== undefined ? { plainCap } : {}), columns };
   }
   if (layout.id === 'transformers') {
     const sCarried = perCase(HEADERS.sLoad, FORMATS.kva, 11);

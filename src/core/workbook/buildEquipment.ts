@@ -104,6 +104,14 @@ export function buildEquipmentSheet(plan: EquipmentSheetPlan, ctx: EquipmentCont
         if (cols.p) out[cols.p[k] as number] = f.p ?? '=0';
         out[(cols.q as readonly number[])[k] as number] = f.q;
       });
+      if (cols.plainCap !== undefined) {
+        // What a capacitor without a detuning reactor delivers with every unit in, whatever the
+        // case: the capacitance the supply sees at harmonics (the Compensation sheet's resonance).
+        const hz = settingRef('hz');
+        out[cols.plainCap] = row.kind === 'capacitor'
+          ? `=IF(N(${at('p_pct')})>0,0,-${n}*KVAR.CAPBANK(${at('q_kvar')},${at('u_rated_kv')},${at('u_kv')},${at('p_pct')},${hz},${hz}))`
+          : '=0';
+      }
     } else {
       // At least one unit carries the bus it feeds, whatever `running` says.
       out[cols.inService] = `=MAX(1,${units})`;

@@ -121,6 +121,7 @@ export const HEADERS = {
   qLoss: (c: string) => `Q loss ${c} (kvar)`,
   qSeries: (c: string) => `Q absorbed ${c} (kvar)`,
   qCharging: 'Q delivered (kvar)',
+  plainCap: 'Plain capacitor, full output (kvar)',
 } as const;
 
 /** Formats and widths of computed columns. */

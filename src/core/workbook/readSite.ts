@@ -6,7 +6,7 @@ import { NUMERIC_COLUMNS, type EquipmentKind, type EquipmentRow, type NumericCol
 import type { Problem } from '../site/problems.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { EQUIPMENT_SHEETS, HEADERS, SHEETS, type EquipmentSheetLayout } from './buildLayout.ts';
-import { BANK_INPUTS, NOTE_HEADER, type BankChoice } from './buildCompensation.ts';
+import { BANK_INPUTS, NOTE_HEADER, type BankChoice } from './buildCompensationColumns.ts';
 import { findSheet, headerIndex, readNumber, readText, report, type CellValueReader, type ReadContext, type Spot } from './readCells.ts';
 import { readSettings } from './readSettings.ts';
 

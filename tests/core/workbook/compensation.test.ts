@@ -27,6 +27,14 @@ describe('Compensation sheet follows the compensation design', () => {
         if (bank.vrise_total_pct !== null) expect(close(num(at(bank.bus, 'Voltage rise, whole bank (%)')), bank.vrise_total_pct, 1e-12)).toBe(true);
         if (bank.p_pct > 0) expect(close(num(at(bank.bus, 'Capacitor voltage (kV)')), bank.u_cap_kv, 1e-12)).toBe(true);
         if (bank.steps > 0) expect(close(num(at(bank.bus, 'Step nameplate (kvar)')), bank.step_rated_kvar, 1e-9)).toBe(true);
+        // Resonance from the first switching state to the whole bank, plain installed capacitors included.
+        const [first, last] = [bank.resonance[0], bank.resonance[bank.resonance.length - 1]];
+        if (first && last) {
+          expect(close(num(at(bank.bus, 'Resonance order, first step')), first.order, 1e-12)).toBe(true);
+          expect(close(num(at(bank.bus, 'Resonance order, whole bank')), last.order, 1e-12)).toBe(true);
+          const check = at(bank.bus, 'Resonance check');
+          if (bank.resonance.some((x) => x.near !== null)) expect(check).toMatchObject({ ok: true, value: expect.stringMatching(/^may come near the \d+th$/) });
+        }
       }
       for (const r of design.reactors) {
         for (const c of site.settings.cases) expect(num(at(r.bus, `Reactor in ${c} (kvar)`))).toBe(r.in_service[c] ? r.q_kvar : 0);
@@ -69,16 +77,28 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
     expect(close(at('Capacitive need day (kvar)'), want, 1e-12)).toBe(true);
   });
 
-  it('steps: whole steps covering the share less the fixed part, at most the steps installed', () => {
-    const share = at('Share of the site need day (kvar)');
-    expect(at('Steps in day')).toBe(Math.min(6, Math.ceil((share - 15) / 60)));
-    expect(at('Capacitor output day (kvar)')).toBe(15 + 60 * at('Steps in day'));
+  it('steps: whole steps covering its share of the site need less the fixed part, at most the steps installed', () => {
+    // The share, recomputed from the roll-up: the site's need split by the lagging kvar of the
+    // own items of the buses with a bank (LV1 and LV2).
+    const day = rollUp(PLANT, 'day');
+    const own = (b: string) => Math.max(0, day.buses.find((x) => x.bus === b)?.own_q_kvar ?? 0);
+    const siteNeed = day.root.q_kvar - day.root.p_kw * Math.tan(Math.acos(0.95));
+    const share = (siteNeed * own('LV2')) / (own('LV1') + own('LV2'));
+    const [fixed, step, steps] = [at('Fixed (kvar)'), at('Step (kvar)'), at('Steps')];
+    expect(step).toBeGreaterThan(0);
+    expect(at('Steps in day')).toBe(Math.min(steps, Math.ceil((share - fixed) / step)));
+    expect(at('Capacitor output day (kvar)')).toBe(fixed + step * at('Steps in day'));
   });
 
-  it('resonance order with 7 % detuning: 1/√(p/100 + Qc/Ssc) (functions.md RESONANCE.ORDER)', () => {
-    const qc = at('Capacitors connected day (kvar)');
+  it('resonance order of the whole bank with 7 % detuning, the old 50 kvar plain capacitor included: 1/√(p/100 + Qc/Ssc) (functions.md RESONANCE.ORDER)', () => {
     const ssc = at('Short-circuit power (MVA)');
-    expect(close(at('Resonance order day'), 1 / Math.sqrt(0.07 + qc / (ssc * 1000)), 1e-12)).toBe(true);
+    // CB2: 50 kvar at its rated 0.4 kV, no detuning: it counts in full.
+    expect(at('Plain capacitors installed (kvar)')).toBe(50);
+    const total = at('Fixed (kvar)') + at('Step (kvar)') * at('Steps');
+    expect(at('Bank total (kvar)')).toBe(total);
+    expect(close(at('Resonance order, whole bank'), 1 / Math.sqrt(0.07 + (total + 50) / (ssc * 1000)), 1e-12)).toBe(true);
+    expect(close(at('Resonance order, first step'), 1 / Math.sqrt(0.07 + (at('Fixed (kvar)') + 50) / (ssc * 1000)), 1e-12)).toBe(true);
+    expect(valueAt(hf, doc, 'Compensation', r, 'Resonance check')).toEqual({ ok: true, value: '' });
   });
 
   it('voltage rise of one step: 100·Qc/Ssc (common practice, ΔU/U ≈ Q/Ssc)', () => {

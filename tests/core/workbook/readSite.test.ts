@@ -110,7 +110,8 @@ describe('bad inputs are reported with sheet, row and column', () => {
     const messages = problems.map((p) => p.message);
     expect(messages).toContain('sheet Motors, row 2, column "Efficiency": must be a number; got "high"');
     expect(messages).toContain('sheet Loads, row 3, column "P (kW)": holds the formula =100*2; inputs are read as typed numbers');
-    expect(messages).toContain('sheet Capacitors and reactors, row 3, column "Kind": kind must be one of capacitor, reactor on this sheet; got "inductor"; row skipped');
+    const r1 = sheet(doc, 'Capacitors and reactors').cells.findIndex((r) => r[0] === 'R1') + 1;
+    expect(messages).toContain(`sheet Capacitors and reactors, row ${r1}, column "Kind": kind must be one of capacitor, reactor on this sheet; got "inductor"; row skipped`);
     expect(messages).toContain('sheet Site, row 3, column "Frequency": must be 50 or 60 (Hz); got 55; 50 Hz assumed');
     expect(problems.find((p) => p.message.includes('Efficiency'))).toMatchObject({ severity: 'error', row: 2, column: 'eff', tag: 'M1' });
     expect(site.equipment.some((r) => r.tag === 'R1')).toBe(false);

@@ -32,6 +32,7 @@ export const PLANT: Site = {
     { tag: 'CB1', bus: 'LV1', kind: 'capacitor', values: { q_kvar: 300, u_rated_kv: 0.44, u_kv: 0.4, p_pct: 7 }, loads: { night: 0.5 } },
     { tag: 'M3', bus: 'LV2', kind: 'motor', values: { qty: 4, p_kw: 55, eff: 0.93, cos_phi: 0.84, load: 0.9, u_kv: 0.4 }, loads: { outage: 0.2 } },
     { tag: 'L2', bus: 'LV2', kind: 'load', values: { qty: 2, p_kw: 200, cos_phi: 0.8, load: 0.7 } },
+    { tag: 'CB2', description: 'Old plain capacitor', bus: 'LV2', kind: 'capacitor', values: { q_kvar: 50, u_rated_kv: 0.4 } },
     { tag: 'G1', description: 'Standby set', bus: 'LV2', kind: 'generator', values: { p_kw: 400, cos_phi: 0.8 }, loads: { day: 0, night: 0, outage: 0.9 } },
     { tag: 'P1', bus: 'PUMP', kind: 'motor', values: { p_kw: 450, eff: 0.955, cos_phi: 0.87, load: 0.85, u_kv: 11 }, loads: { night: 1 } },
     { tag: 'R1', bus: 'PUMP', kind: 'reactor', values: { q_kvar: 150, u_rated_kv: 11 }, loads: { day: 0 } },
