@@ -6,6 +6,15 @@ import { defineConfig } from 'vitest/config';
 // chromium and libreoffice-calc-nogui (see README).
 export default defineConfig({
   base: './',
+  plugins: [
+    {
+      // index.html ships a strict Content-Security-Policy (style-src 'self'). The development
+      // server injects CSS as <style> elements, so only there inline styles are allowed.
+      name: 'kvar-ledger-dev-csp',
+      apply: 'serve',
+      transformIndexHtml: (html: string) => html.replace("style-src 'self';", "style-src 'self' 'unsafe-inline';"),
+    },
+  ],
   resolve: {
     alias: [
       // The grid library carries its core stylesheet twice: as a CSS file and as a JS string it

@@ -12,13 +12,16 @@ export class StatusBar {
   private readonly notice: HTMLElement;
   private noticeTimer: ReturnType<typeof setTimeout> | undefined;
 
-  constructor(onNextError: () => void) {
+  constructor(onNextError: () => void, onCautions: () => void) {
     this.save = el('span', { className: 'kl-status-save', attrs: { 'data-testid': 'save-status', role: 'status' } });
     this.summary = el('span', { className: 'kl-status-summary', attrs: { 'data-testid': 'sel-summary' } });
     this.errors = el('button', { className: 'kl-status-errors', attrs: { type: 'button', 'data-testid': 'error-count' } });
     this.errors.addEventListener('click', onNextError);
     this.notice = el('span', { className: 'kl-status-notice', attrs: { 'data-testid': 'notice', role: 'status' } });
-    this.root = el('footer', { className: 'kl-status' }, [this.save, this.notice, el('span', { className: 'kl-spacer' }), this.errors, this.summary]);
+    // Always in sight: the figures are estimates; the cautions are one click away.
+    const caution = el('button', { className: 'kl-status-caution', text: 'Estimates only — read the cautions', attrs: { type: 'button', 'data-testid': 'cautions' } });
+    caution.addEventListener('click', onCautions);
+    this.root = el('footer', { className: 'kl-status' }, [this.save, this.notice, el('span', { className: 'kl-spacer' }), this.errors, this.summary, caution]);
   }
 
   saveStatus(s: AutosaveStatus): void {

@@ -72,7 +72,9 @@ describe('Kvar Ledger in the browser', () => {
   it('marks a bad argument in the grid and explains it in the formula bar', async () => {
     await typeInCell(page, 1, 0, '=KVAR.MOTOR(90,0.95,1.2)');
     const bad = cell(page, 1, 0);
-    expect(await bad.getAttribute('class')).toMatch(/kl-err/);
+    expect(await bad.getAttribute('class')).toMatch(/\bkl-err\b/);
+    // The error style is applied (not only the class name): brick text on a pale ground.
+    expect(await bad.evaluate((e) => getComputedStyle(e).fontWeight)).toBe('700');
     expect(await bad.textContent()).toMatch(/^#/);
     await selectCell(page, 1, 0);
     const problem = fb('problem');
@@ -197,7 +199,9 @@ describe('Kvar Ledger in the browser', () => {
     await selectCell(page, 8, 1);
     await detail.locator('[data-testid="ref-insert"]').click();
     expect(await fb('input').inputValue()).toBe('=KVAR.MOTOR(');
+    // Escape drops the edit, and the bar shows the cell's content again.
     await page.keyboard.press('Escape');
+    await expect.poll(() => fb('input').inputValue()).toBe('');
   });
 
   it('opens a template from the menu', async () => {

@@ -33,7 +33,10 @@ describe('column headers', () => {
     expect(unitOf('cos φ')).toBeUndefined();
   });
   it('joins unit and format', () => {
-    expect(headerLabel('C', { header: 'Q (kvar)', format: '0.0', computed: true })).toEqual({ letter: 'C', detail: 'kvar · 0.0', computed: true });
+    expect(headerLabel('C', { header: 'Q (kvar)', format: '0.0', computed: true })).toEqual({ letter: 'C', detail: 'kvar · 1 dp', computed: true });
+    expect(headerLabel('E', { header: 'U (kV)', format: '0.0##' }).detail).toBe('kV · 1–3 dp');
+    expect(headerLabel('D', { header: 'Qty', format: '0' }).detail).toBe('0 dp');
+    expect(headerLabel('F', { header: 'Share', format: '0.0%' }).detail).toBe('1 dp %');
     expect(headerLabel('A', undefined)).toEqual({ letter: 'A', detail: '', computed: false });
   });
   it('keeps widths within bounds', () => {

@@ -15,6 +15,7 @@ import { StatusBar } from '../statusBar.ts';
 import { Autosaver } from '../storage/autosave.ts';
 import type { WorkbookStore } from '../storage/idbStore.ts';
 import { SidePanel } from './sidePanel.ts';
+import { openAbout } from '../dialogs/about.ts';
 import { buildTopBar } from './topBar.ts';
 import { scanErrors, selectionNumbers } from './sheetScan.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
@@ -53,7 +54,7 @@ export class App {
       open: (id) => this.openSheet(id),
       notice: (t, k) => this.status.show(t, k),
     });
-    this.status = new StatusBar(() => this.nextError());
+    this.status = new StatusBar(() => this.nextError(), () => openAbout(CATALOGUE.length));
     this.reference = new FunctionReference({
       session: () => this.session,
       currentSheet: () => this.sheet,
@@ -153,7 +154,12 @@ export class App {
 
   /** Keys the grid hands over first; true = handled here. */
   private onGridKey(e: KeyboardEvent): boolean {
-    if (this.grid.isEditing()) return this.assist.handleKey(e);
+    if (this.grid.isEditing()) {
+      if (this.assist.handleKey(e)) return true;
+      // Escape drops the edit: the bar goes back to the cell's content once the editor closed.
+      if (e.key === 'Escape') setTimeout(() => this.formulaBar.show(this.grid.selection()), 0);
+      return false;
+    }
     const mod = e.ctrlKey || e.metaKey;
     if (!mod || e.altKey) return false;
     const k = e.key.toLowerCase();
@@ -173,11 +179,11 @@ export class App {
   }
 
   undo(): void {
-    if (!this.session.undo()) this.status.show('Nothing to undo.');
+    this.status.show(this.session.undo() ? 'Undone.' : 'Nothing to undo.', 'info', 2500);
   }
 
   redo(): void {
-    if (!this.session.redo()) this.status.show('Nothing to redo.');
+    this.status.show(this.session.redo() ? 'Redone.' : 'Nothing to redo.', 'info', 2500);
   }
 
   insertIntoCell(text: string): void {

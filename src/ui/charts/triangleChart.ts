@@ -3,25 +3,26 @@
 // scale, so the change of φ is what the eye sees.
 import { svg } from '../dom.ts';
 import { formatNumber } from '../format/numberFormat.ts';
-import { cosPhi, niceCeil, type Triangle, type TrianglePoint } from './chartData.ts';
+import { cosPhi, type Triangle, type TrianglePoint } from './chartData.ts';
 
-export function triangleChart(t: Triangle, width = 380, height = 210): SVGSVGElement {
+export function triangleChart(t: Triangle, width = 380): SVGSVGElement {
   const pts = [t.before, ...(t.after ? [t.after] : [])];
-  const pMax = niceCeil(Math.max(1, ...pts.map((x) => Math.abs(x.p))));
+  const pMax = Math.max(1, ...pts.map((x) => Math.abs(x.p)));
   const qUp = Math.max(0, ...pts.map((x) => x.q));
   const qDown = Math.max(0, ...pts.map((x) => -x.q));
-  const left = 40, right = width - 92, top = 14, bottom = height - 24;
-  // One scale for P and Q keeps the angle φ true.
-  const s = Math.min((right - left) / pMax, (bottom - top) / Math.max(1, qUp + qDown));
+  const left = 44, right = width - 150, top = 16;
+  // One scale for P and Q keeps the angle φ true; the drawing is as tall as the triangles need.
+  const s = Math.min((right - left) / pMax, 170 / Math.max(1, qUp + qDown));
   const y0 = top + qUp * s;
+  const height = Math.max(70, y0 + qDown * s + 30);
   const X = (p: number) => left + Math.abs(p) * s;
   const Y = (q: number) => y0 - q * s;
   const root = svg('svg', { viewBox: `0 0 ${width} ${height}`, width, height, class: 'kl-chart kl-triangle', role: 'img', 'aria-label': `Power triangle at ${t.bus}` });
   root.append(
-    svg('line', { x1: left, x2: right, y1: y0, y2: y0, class: 'kl-axis' }),
-    svg('text', { x: left - 6, y: Math.max(top + 8, y0 - 6), class: 'kl-axis-label', 'text-anchor': 'end' }, qUp > 0 ? 'lag ↑' : ''),
-    svg('text', { x: left - 6, y: Math.min(bottom, y0 + 14), class: 'kl-axis-label', 'text-anchor': 'end' }, qDown > 0 ? 'lead ↓' : ''),
-    svg('text', { x: left, y: height - 6, class: 'kl-axis-label' }, 'P (kW) →'),
+    svg('line', { x1: left, x2: X(pMax) + 8, y1: y0, y2: y0, class: 'kl-axis' }),
+    svg('text', { x: left - 6, y: Math.max(top + 4, y0 - 4), class: 'kl-axis-label', 'text-anchor': 'end' }, qUp > 0 ? 'lag ↑' : ''),
+    svg('text', { x: left - 6, y: y0 + 12, class: 'kl-axis-label', 'text-anchor': 'end' }, qDown > 0 ? 'lead ↓' : ''),
+    svg('text', { x: X(pMax) + 12, y: y0 + 4, class: 'kl-axis-label' }, 'P'),
   );
   const draw = (pt: TrianglePoint, cls: string, label: string) => {
     const x = X(pt.p), y = Y(pt.q);
@@ -31,12 +32,12 @@ export function triangleChart(t: Triangle, width = 380, height = 210): SVGSVGEle
       svg('line', { x1: x, y1: y0, x2: x, y2: y, class: `kl-tri-q ${cls}` }),
       svg('line', { x1: left, y1: y0, x2: x, y2: y, class: `kl-tri-s ${cls}` }),
       svg('circle', { cx: x, cy: y, r: 3, class: `kl-tri-dot ${cls}` }),
-      svg('text', { x: x + 6, y: y + 4, class: `kl-tri-label ${cls}` }, `${label}: ${formatNumber(pt.q, '0')} kvar${c === undefined ? '' : `, cos φ ${formatNumber(c, '0.000')}`}`),
+      svg('text', { x: x + 8, y: y + 4, class: `kl-tri-label ${cls}` }, `${label}: ${formatNumber(pt.q, '0')} kvar${c === undefined ? '' : `, cos φ ${formatNumber(c, '0.000')}`}`),
     );
   };
   draw(t.before, 'is-before', 'before');
   if (t.after) draw(t.after, 'is-after', 'after');
-  root.append(svg('text', { x: X(t.before.p), y: y0 + (qDown > 0 && qUp === 0 ? -6 : 14), class: 'kl-axis-label', 'text-anchor': 'end' }, `${formatNumber(t.before.p, '0')} kW`));
+  root.append(svg('text', { x: (left + X(t.before.p)) / 2, y: y0 + (qDown > 0 && qUp === 0 ? -6 : 14), class: 'kl-axis-label', 'text-anchor': 'middle' }, `P = ${formatNumber(t.before.p, '0')} kW`));
   return root;
 }
 

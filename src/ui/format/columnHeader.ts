@@ -8,10 +8,18 @@ export function unitOf(header: string): string | undefined {
   return m ? (m[1] as string).trim() : undefined;
 }
 
-/** '0.000' → '0.000'; undefined → undefined. A short hint of how numbers in the column look. */
+/**
+ * How numbers in the column are shown, in words an estimator reads at a glance: decimal places
+ * ('0.0' → '1 dp', '0.0##' → '1–3 dp', '0' → '0 dp', '0.0%' → '1 dp %'); undefined for General.
+ */
 export function formatHint(info: ColumnInfo | undefined): string | undefined {
-  if (!info?.format || info.format.toLowerCase() === 'general') return undefined;
-  return info.format;
+  const code = info?.format?.trim();
+  if (!code || code.toLowerCase() === 'general') return undefined;
+  const m = /^(?:#,##)?0(?:\.(0*)(#*))?(%|E\+00)?$/.exec(code);
+  if (!m) return code;
+  const min = m[1]?.length ?? 0, max = min + (m[2]?.length ?? 0);
+  const dp = max > min ? `${min}–${max} dp` : `${min} dp`;
+  return m[3] === '%' ? `${dp} %` : m[3] ? `${dp} exp` : dp;
 }
 
 /**

@@ -2,7 +2,7 @@
 // (textContent, never HTML), with classes that make errors, formulas and headers visible.
 import type { HyperFormula } from 'hyperformula';
 import type { ColumnInfo } from '../../core/workbook/document.ts';
-import { cellView, type EngineValue } from './cellView.ts';
+import { cellView, type CellKind, type EngineValue } from './cellView.ts';
 
 export interface RenderContext {
   readonly engine: HyperFormula;
@@ -14,7 +14,8 @@ export interface RenderContext {
   readonly dataRows: () => number;
 }
 
-const KIND_CLASSES = ['kl-num', 'kl-text', 'kl-bool', 'kl-err', 'kl-empty', 'kl-head', 'kl-calc', 'kl-formula'] as const;
+const KIND_CLASS: Readonly<Record<CellKind, string>> = { number: 'kl-num', text: 'kl-text', bool: 'kl-bool', error: 'kl-err', empty: 'kl-empty' };
+const ALL_CLASSES = [...Object.values(KIND_CLASS), 'kl-head', 'kl-calc', 'kl-formula'];
 
 export function makeCellRenderer(ctx: RenderContext) {
   return function renderCell(
@@ -33,8 +34,8 @@ export function makeCellRenderer(ctx: RenderContext) {
     } catch {
       view = cellView(undefined);
     }
-    td.classList.remove(...KIND_CLASSES);
-    td.classList.add(header ? 'kl-head' : `kl-${view.kind === 'number' ? 'num' : view.kind}`);
+    td.classList.remove(...ALL_CLASSES);
+    td.classList.add(header ? 'kl-head' : KIND_CLASS[view.kind]);
     if (!header && info?.computed && row < ctx.dataRows()) td.classList.add('kl-calc');
     if (!header && ctx.engine.doesCellHaveFormula(address)) td.classList.add('kl-formula');
     td.textContent = view.text;

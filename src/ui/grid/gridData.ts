@@ -6,7 +6,7 @@ import { editText } from '../model/typedInput.ts';
 export const SPARE_ROWS = 40;
 export const SPARE_COLS = 4;
 const MIN_ROWS = 60;
-const MIN_COLS = 12;
+const MIN_COLS = 26;
 
 export function gridShape(contents: readonly (readonly CellContent[])[], describedCols = 0): { rows: number; cols: number } {
   const widest = contents.reduce((m, r) => Math.max(m, r.length), 0);

@@ -73,7 +73,7 @@ export class FunctionReference {
       el('tbody', {}, f.params.map((p, i) => el('tr', {}, [
         el('td', { text: String(i + 1) }),
         el('td', { className: 'kl-mono', text: isOptional(p) ? `[${p.name}]` : p.name }),
-        el('td', { text: p.unit }),
+        el('td', { text: p.unit === '1' ? '—' : p.unit }),
         el('td', { text: p.type === 'boolean' ? 'TRUE/FALSE' : describeInterval(p.domain) }),
         el('td', { text: p.doc }),
       ]))),
