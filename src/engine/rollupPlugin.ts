@@ -25,6 +25,20 @@ import type { OwnPlugin } from './plugins.ts';
 export const BUS_SUMS = 'BUS.SUMS';
 export const BUS_SUMS_SPLIT = 'BUS.SUMS.SPLIT';
 
+/** For the app's formula help: these two are not catalogue functions (no physics, no export). */
+export const ROLLUP_FUNCTION_DOCS: ReadonlyArray<{ readonly name: string; readonly signature: string; readonly summary: string }> = [
+  {
+    name: BUS_SUMS,
+    signature: 'BUS.SUMS(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])',
+    summary: 'Per bus of the list, the sum of each value column over the rows naming that bus (ignoring case); a row naming another bus is an error. Spills one row per bus.',
+  },
+  {
+    name: BUS_SUMS_SPLIT,
+    signature: 'BUS.SUMS.SPLIT(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])',
+    summary: 'As BUS.SUMS, with two columns per value column: the positive values summed (absorbed kvar) and the size of the negative ones (delivered kvar).',
+  },
+];
+
 /** A cell value as the kernel sees it: numbers, text, booleans, blanks (null) and errors. */
 export type Cell = number | string | boolean | null | CellError;
 
