@@ -7,6 +7,7 @@ import type { CellResult } from '../../engine/index.ts';
 import { expandFormula, type ExpandResult } from '../formula/expand.ts';
 import { parseFormula } from '../formula/parse.ts';
 import { toFileFormula, withoutText } from './functionNames.ts';
+import { fromShape, toShape } from './formulaShape.ts';
 import { columnLetter } from './sheetNames.ts';
 
 /** Longest formula other programs accept (characters) and deepest nesting of calls. */
@@ -89,9 +90,34 @@ export type ValueOf = (row: number, col: number) => CellResult;
 
 const BLANK: CellResult = { ok: true, value: null };
 
+/** What a formula becomes in the file, worked out once per shape (see formulaShape.ts). */
+type Conversion =
+  | { readonly ok: true; readonly shape: string; readonly catalogue: readonly string[]; readonly newer: readonly string[] }
+  | { readonly ok: false; readonly message: string };
+
+function convert(formula: string, row1: number): Conversion {
+  const calls = CATALOGUE_CALL.test(formula);
+  const catalogue = calls ? [...withoutText(formula).matchAll(CATALOGUE_CALLS)].map((m) => (m[1] as string).toUpperCase()) : [];
+  const expanded = calls ? expandFormula(formula) : readable(formula);
+  if (!expanded.ok) return { ok: false, message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead` };
+  const file = toFileFormula(expanded.formula);
+  if (file.unknown.length > 0) return { ok: false, message: `the formula uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have; its value is written instead` };
+  return { ok: true, shape: toShape(xmlSafe(file.text), row1), catalogue, newer: file.newer };
+}
+
+/** Checks that depend on the written text itself (its length grows with row numbers). */
+function sizeProblem(text: string): string | undefined {
+  if (text.length > MAX_FORMULA_LENGTH) {
+    return `the formula is ${text.length} characters long once written out; other programs accept at most ${MAX_FORMULA_LENGTH} (move nested calls into cells of their own); its value is written instead`;
+  }
+  if (nesting(text) > MAX_NESTING) return `the formula nests calls deeper than the ${MAX_NESTING} levels other programs accept; its value is written instead`;
+  return undefined;
+}
+
 /** Convert one sheet, with each cell's result from `valueOf`. */
 export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells {
   const out: SheetCells = { rows: [], catalogue: new Set(), newer: new Set(), issues: [] };
+  const shapes = new Map<string, Conversion>();
   sheet.cells.forEach((row, r) => {
     const cells: ExportCell[] = [];
     row.forEach((content, c) => {
@@ -100,32 +126,26 @@ export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells 
         cells.push(content === null || content === '' ? { kind: 'empty' } : valueCell(result));
         return;
       }
-      const where = `${sheet.name}!${columnLetter(c)}${r + 1}`;
       const formula = content as string;
-      const calls = CATALOGUE_CALL.test(formula);
-      if (calls) for (const m of withoutText(formula).matchAll(CATALOGUE_CALLS)) out.catalogue.add((m[1] as string).toUpperCase());
-      const expanded = calls ? expandFormula(formula) : readable(formula);
-      if (!expanded.ok) {
-        out.issues.push({ where, message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead` });
+      const key = `${c}|${toShape(formula, r + 1)}`;
+      let conv = shapes.get(key);
+      if (!conv) {
+        conv = convert(formula, r + 1);
+        shapes.set(key, conv);
+        if (conv.ok) {
+          conv.catalogue.forEach((f) => out.catalogue.add(f));
+          conv.newer.forEach((n) => out.newer.add(n));
+        }
+      }
+      const where = `${sheet.name}!${columnLetter(c)}${r + 1}`;
+      const text = conv.ok ? fromShape(conv.shape, r + 1) : undefined;
+      const problem = conv.ok ? sizeProblem(text as string) : conv.message;
+      if (problem !== undefined) {
+        out.issues.push({ where, message: problem });
         cells.push(valueCell(result));
         return;
       }
-      const file = toFileFormula(expanded.formula);
-      file.newer.forEach((n) => out.newer.add(n));
-      const problem =
-        file.unknown.length > 0
-          ? `uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have`
-          : file.text.length > MAX_FORMULA_LENGTH
-            ? `is ${file.text.length} characters long once written out; other programs accept at most ${MAX_FORMULA_LENGTH} (move nested calls into cells of their own)`
-            : nesting(file.text) > MAX_NESTING
-              ? `nests calls deeper than the ${MAX_NESTING} levels other programs accept`
-              : undefined;
-      if (problem) {
-        out.issues.push({ where, message: `the formula ${problem}; its value is written instead` });
-        cells.push(valueCell(result));
-        return;
-      }
-      cells.push({ kind: 'formula', formula: xmlSafe(file.text), result });
+      cells.push({ kind: 'formula', formula: text as string, result });
     });
     out.rows.push(cells);
   });
