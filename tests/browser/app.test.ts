@@ -80,7 +80,7 @@ describe('Kvar Ledger in the browser', () => {
     const problem = fb('problem');
     await expect.poll(() => problem.isVisible()).toBe(true);
     expect(await problem.textContent()).toMatch(/KVAR\.MOTOR: argument 3 \(cos_phi\) must be in \(0, 1\]; got 1\.2/);
-    expect(await page.locator('[data-testid="error-count"]').textContent()).toMatch(/^1 cell with errors/);
+    await expect.poll(() => page.locator('[data-testid="error-count"]').textContent()).toMatch(/^1 cell with errors/);
     await screenshot(page, '03-error-explained');
   });
 

@@ -36,7 +36,7 @@ export class App {
   private autosaver: Autosaver | undefined;
   private sheet = -1;
   private lastSelection: Selection | undefined;
-  private scanQueued = false;
+  private scanQueued: ReturnType<typeof setTimeout> | undefined;
 
   constructor(readonly root: HTMLElement, readonly store: WorkbookStore | undefined, standardNames: readonly string[]) {
     const app = this; // eslint-disable-line @typescript-eslint/no-this-alias -- getters below read the current session
@@ -199,13 +199,13 @@ export class App {
     return this.autosaver?.flush() ?? Promise.resolve();
   }
 
+  /** Count error cells once typing pauses: a full scan of a large sheet must not slow each edit. */
   private queueScan(): void {
-    if (this.scanQueued) return;
-    this.scanQueued = true;
-    requestAnimationFrame(() => {
-      this.scanQueued = false;
-      if (this.sheet >= 0) this.status.errorCount(scanErrors(this.session, this.sheet).length);
-    });
+    if (this.scanQueued) clearTimeout(this.scanQueued);
+    this.scanQueued = setTimeout(() => {
+      this.scanQueued = undefined;
+      if (this.sheet >= 0 && this.session.sheetIds().includes(this.sheet)) this.status.errorCount(scanErrors(this.session, this.sheet).length);
+    }, 250);
   }
 
   private nextError(): void {

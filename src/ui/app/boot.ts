@@ -24,7 +24,6 @@ export async function boot(root: HTMLElement): Promise<App> {
   const charts = new ChartsPanel();
   app.charts = charts;
   app.side.add('charts', 'Charts', charts.root, () => charts.draw());
-  if (problem) app.status.show(problem, 'error', 0);
 
   const restored = store ? await store.load().catch(() => ({ found: false as const, note: 'The saved workbook could not be read.' })) : undefined;
   if (restored?.found) {
@@ -33,6 +32,9 @@ export async function boot(root: HTMLElement): Promise<App> {
     const demo = await templateWorkbook(DEMO_TEMPLATE);
     app.open(demo, { note: `${restored?.note ? `${restored.note} ` : ''}A demo workbook of an invented site is open. Start your own from Workbook → New from template, or import an equipment list.`, changed: true });
   }
+
+  // After the welcome note, so it stays in sight.
+  if (problem) app.status.show(problem, 'error', 0);
 
   // Keep what was typed when the tab is hidden or closed.
   document.addEventListener('visibilitychange', () => {

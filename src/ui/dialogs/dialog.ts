@@ -14,7 +14,12 @@ export interface OpenDialog {
   close(): void;
 }
 
-export function openDialog(title: string, body: readonly Node[], actions: readonly DialogAction[], opts: { wide?: boolean; testId?: string } = {}): OpenDialog {
+export function openDialog(
+  title: string,
+  body: readonly Node[],
+  actions: readonly DialogAction[],
+  opts: { wide?: boolean; testId?: string; footer?: readonly Node[] } = {},
+): OpenDialog {
   const dialog = el('dialog', { className: `kl-dialog${opts.wide ? ' is-wide' : ''}`, attrs: opts.testId ? { 'data-testid': opts.testId } : {} });
   const close = () => {
     if (dialog.open) dialog.close();
@@ -31,7 +36,7 @@ export function openDialog(title: string, body: readonly Node[], actions: readon
   dialog.append(
     el('header', { className: 'kl-dialog-head' }, [el('h2', { text: title })]),
     el('div', { className: 'kl-dialog-body' }, body),
-    el('footer', { className: 'kl-dialog-actions' }, buttons),
+    el('footer', { className: 'kl-dialog-actions' }, [...(opts.footer ?? []), ...buttons]),
   );
   dialog.addEventListener('cancel', () => dialog.remove());
   document.body.append(dialog);

@@ -7,7 +7,8 @@ interface MenuHost extends CommandHost {
   readonly hot: HotInstance;
 }
 
-export function attachContextMenu(host: HTMLElement, grid: MenuHost): void {
+/** Returns a function that takes the menu off `host` again. */
+export function attachContextMenu(host: HTMLElement, grid: MenuHost): () => void {
   let open: HTMLElement | undefined;
   const close = () => {
     open?.remove();
@@ -37,7 +38,7 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): void {
     ['Copy', 'Ctrl+C', () => clipboard('copy')],
     ['Cut', 'Ctrl+X', () => clipboard('cut')],
   ];
-  host.addEventListener('contextmenu', (e) => {
+  const onMenu = (e: MouseEvent) => {
     const cell = (e.target as HTMLElement).closest('td');
     if (!cell) return;
     e.preventDefault();
@@ -71,5 +72,10 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): void {
     open = menu;
     document.addEventListener('mousedown', away, true);
     document.addEventListener('keydown', escape, true);
-  });
+  };
+  host.addEventListener('contextmenu', onMenu);
+  return () => {
+    close();
+    host.removeEventListener('contextmenu', onMenu);
+  };
 }

@@ -42,6 +42,7 @@ export class GridView implements EditHost {
   readonly hot: HotInstance;
   private current = -1;
   private dataRows = 0;
+  private readonly detachMenu: () => void;
   /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
   applying = false;
 
@@ -95,7 +96,7 @@ export class GridView implements EditHost {
     };
     this.hot = new Handsontable(host, settings) as HotInstance;
     installEditHandlers(this);
-    attachContextMenu(host, this);
+    this.detachMenu = attachContextMenu(host, this);
     session.onChange((c) => this.onSessionChange(c));
   }
 
@@ -199,6 +200,7 @@ export class GridView implements EditHost {
   }
 
   destroy(): void {
+    this.detachMenu();
     this.hot.destroy();
   }
 }

@@ -40,7 +40,8 @@ function mappingTable(p: MappingProposal, cases: readonly string[], onChange: (n
     target.addEventListener('change', () => onChange(withColumnTarget(p, c.index, target.value === '' ? null : target.value)));
     const unit = el('select', { className: 'kl-select', attrs: { 'aria-label': `Unit of column ${c.letter}` } });
     const choices = c.target ? unitChoicesFor(c.target) : [];
-    unit.append(...choices.map((u) => el('option', { text: u.label === '' ? '(plain number)' : u.label, attrs: { value: u.label } })));
+    const textOnly = choices.length <= 1 && (choices[0]?.label ?? '') === '';
+    unit.append(...choices.map((u) => el('option', { text: textOnly ? '—' : u.label === '' ? '(plain number)' : u.label, attrs: { value: u.label } })));
     unit.value = c.unit.label;
     unit.disabled = choices.length <= 1;
     unit.addEventListener('change', () => onChange(withColumnUnit(p, c.index, unit.value)));
@@ -143,6 +144,6 @@ export async function runImport(app: App, file: File): Promise<void> {
     step = 'preview';
     render();
   });
-  const dlg = openDialog('Import equipment list', [body, note, el('div', { className: 'kl-dialog-actions' }, [drop, back, add, next])], [{ label: 'Cancel' }], { wide: true, testId: 'import' });
+  const dlg = openDialog('Import equipment list', [body, note], [{ label: 'Cancel' }], { wide: true, testId: 'import', footer: [drop, back, add, next] });
   render();
 }
