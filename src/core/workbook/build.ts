@@ -9,7 +9,7 @@ import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { EQUIPMENT_SHEETS, SHEETS, type EquipmentSheetLayout } from './buildLayout.ts';
 import { planColumns } from './buildColumns.ts';
 import { buildEquipmentSheet, type EquipmentSheetPlan } from './buildEquipment.ts';
-import { buildBusesSheet, planBusColumns, type BranchRef, type BusEntry, type Flavour } from './buildBuses.ts';
+import { buildBusesSheet, layoutCheckRow, planBusColumns, type BranchRef, type BusEntry, type Flavour } from './buildBuses.ts';
 import { buildSettingsSheet } from './buildSettings.ts';
 import { buildCompensationSheet, planCompensationColumns, type BankChoice } from './buildCompensation.ts';
 import { proposeChoices } from './buildChoices.ts';
@@ -114,8 +114,10 @@ export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
     for (const b of list) if (!feederOf.has(b.toBus)) feederOf.set(b.toBus, b);
   }
   const choices = new Map((opts.banks ?? proposeChoices(site)).map((c) => [c.bus, c]));
+  const settings = buildSettingsSheet(site.settings);
+  if (opts.flavour === 'live') settings.cells.push(layoutCheckRow(plans));
   const sheets: SheetDoc[] = [
-    buildSettingsSheet(site.settings),
+    settings,
     ...plans.map((p) => buildEquipmentSheet(p, ctx)),
     buildBusesSheet({ cases, buses, cols: busCols, plans, branchesFrom, flavour: opts.flavour }),
     buildCompensationSheet({

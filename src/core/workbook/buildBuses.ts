@@ -189,16 +189,13 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
     });
     cells.push(out);
   });
-  if (flavour === 'live') {
-    buses.forEach((b, i) => writeLiveSums(cells[i + 1] as CellContent[], cols, i + 1, b.name, plans));
-    if (buses.length > 0) cells.push(...layoutCheck(cols, plans));
-  }
+  if (flavour === 'live') buses.forEach((b, i) => writeLiveSums(cells[i + 1] as CellContent[], cols, i + 1, b.name, plans));
   return {
     name: SHEETS.buses,
     cells,
     columns: cols.columns,
     purpose: 'Every bus in every case: what it draws from upstream (own items, plus each bus it feeds and that transformer\'s or line\'s losses), S, cos φ, tan φ; the point of connection is the first row.' +
-      (flavour === 'live' ? ' Each bus sums the rows kept together for it on the equipment sheets: after adding, removing or moving items between buses, rebuild the workbook (the count below the buses says when).' : ''),
+      (flavour === 'live' ? ' Each bus sums the rows kept together for it on the equipment sheets: after adding, removing or moving items between buses, rebuild the workbook (the Site sheet counts the rows added since).' : ''),
   };
 }
 
@@ -226,17 +223,14 @@ function writeLiveSums(row: CellContent[], cols: BusColumns, r: number, bus: str
 export const LAYOUT_CHECK_LABEL = 'Rows added or removed since this layout was built';
 
 /**
- * Below the buses ('live' only): how many equipment rows were added or removed on the shunt
- * sheets since the workbook was built. Not 0 → rebuild the workbook so every bus sums its rows.
+ * A Site sheet row for the 'live' flavour: how many equipment rows were added or removed on the
+ * shunt sheets since the workbook was built. Not 0 → rebuild so every bus sums all its rows.
  */
-function layoutCheck(cols: BusColumns, plans: readonly EquipmentSheetPlan[]): CellContent[][] {
+export function layoutCheckRow(plans: readonly EquipmentSheetPlan[]): CellContent[] {
   const shunt = plans.filter((pl) => pl.layout.role === 'shunt');
   const tagCol = (pl: EquipmentSheetPlan) => columnLetters(pl.cols.input.get('tag') as number);
   const counts = shunt.map((pl) => `COUNTA(${sheetPrefix(pl.layout.sheet)}$${tagCol(pl)}:$${tagCol(pl)})`).join('+');
   const built = shunt.reduce((n, pl) => n + pl.rows.filter((r) => r.tag !== '').length + 1, 0);
-  const blank = () => new Array<CellContent>(cols.columns.length).fill(null);
-  const check = blank();
-  check[cols.bus] = LAYOUT_CHECK_LABEL;
-  check[cols.level] = `=${counts}-${built}`;
-  return [blank(), check];
+  return [LAYOUT_CHECK_LABEL, `=${counts}-${built}`, null,
+    'Each bus sums the rows kept together for it on the equipment sheets: when this is not 0, rebuild the workbook so new or moved items count.'];
 }
