@@ -2,6 +2,7 @@
 // app's cached results, styled (header row, number formats, widths, frozen header), a cover, the
 // list of catalogue functions used, and the hidden metadata that lets our import restore it all.
 // The xlsx library is loaded on first use only (see loadExcelJs.ts).
+import type * as ExcelJS from 'exceljs';
 import type { Workbook, Worksheet } from 'exceljs';
 import type { SiteSettings } from '../../core/site/model.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
@@ -179,7 +180,8 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));
   writeMeta(wb, { format: META_MARKER, version: META_VERSION, doc, sheets: sheetsMeta, generated: [coverName, functionsName] });
 
-  const buffer = await wb.xlsx.writeBuffer();
+  // Fastest deflate level: the file grows by about a third, the export is much quicker.
+  const buffer = await wb.xlsx.writeBuffer({ zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } } } as ExcelJS.XlsxWriteOptions);
   return { bytes: new Uint8Array(buffer as ArrayBuffer), issues, newerFunctions: newer, catalogueFunctions: [...catalogue] };
 }
 
