@@ -3,7 +3,8 @@
 // (the common practice recommended by OWASP for CSV injection), numbers stay numbers, and
 // fields are quoted per RFC 4180 when they hold the separator, a quote or a line break.
 
-export type CsvValue = string | number | boolean | null | undefined;
+/** A cell value; an error value (e.g. the engine's, whose `value` is '#N/A') is written as its code. */
+export type CsvValue = string | number | boolean | null | undefined | { readonly value: string };
 
 export interface CsvWriteOptions {
   /** Field separator; default ','. */
@@ -33,6 +34,7 @@ function fieldText(v: CsvValue): string {
     return Number.isFinite(v) ? String(v) : '#NUM!';
   }
   if (typeof v === 'boolean') return v ? 'TRUE' : 'FALSE';
+  if (typeof v === 'object') return neutraliseText(String(v.value));
   return neutraliseText(v);
 }
 

@@ -26,6 +26,7 @@ describe('CSV injection', () => {
     expect(csvField(true)).toBe('TRUE');
     expect(csvField(null)).toBe('');
     expect(csvField(Number.POSITIVE_INFINITY)).toBe('#NUM!');
+    expect(csvField({ value: '#N/A' })).toBe('#N/A');
   });
 
   it('quotes separators, quotes and line breaks (RFC 4180)', () => {
