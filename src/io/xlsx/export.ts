@@ -2,13 +2,12 @@
 // app's cached results, styled (header row, number formats, widths, frozen header), a cover, the
 // list of catalogue functions used, and the hidden metadata that lets our import restore it all.
 // The xlsx library is loaded on first use only (see loadExcelJs.ts).
-import type * as ExcelJS from 'exceljs';
-import type { Workbook, Worksheet } from 'exceljs';
+import type { Workbook, Worksheet, XlsxWriteOptions } from 'exceljs';
 import type { SiteSettings } from '../../core/site/model.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';
 import { coverRows, functionRows, FUNCTION_HEADER } from './exportCover.ts';
-import { exportSheetCells, fileError, type CellIssue, type ExportCell, type SheetCells } from './exportCells.ts';
+import { exportSheetCells, fileError, xmlSafe, type CellIssue, type ExportCell, type SheetCells } from './exportCells.ts';
 import { styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
 import { loadExcelJs } from './loadExcelJs.ts';
 import { META_MARKER, META_SHEET_NAME, META_VERSION, metaChunks, rowFingerprint, type ExportMeta, type FingerprintCell, type SheetMeta } from './metadata.ts';
@@ -57,6 +56,8 @@ export class XlsxExportError extends Error {
 export const COVER_SHEET_NAME = 'Cover';
 export const FUNCTIONS_SHEET_NAME = 'Functions used';
 export const DEFAULT_GENERATOR = 'Kvar Ledger 0.1.0';
+/** Cells written as values that the cover lists one by one. */
+export const MAX_COVER_ISSUES = 20;
 
 function checkNames(doc: WorkbookDoc): void {
   const seen = new Set<string>();
@@ -110,7 +111,8 @@ function excelValue(c: ExportCell | undefined): ExcelValue {
   if (c.kind === 'error') return { error: c.error };
   const r = c.result;
   if (!r.ok) return { formula: c.formula, result: { error: fileError(r.error) } };
-  return r.value === null ? { formula: c.formula } : { formula: c.formula, result: r.value };
+  if (r.value === null) return { formula: c.formula };
+  return { formula: c.formula, result: typeof r.value === 'string' ? xmlSafe(r.value) : r.value };
 }
 
 function fingerprintCells(row: readonly ExportCell[]): FingerprintCell[] {
@@ -155,13 +157,14 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
   const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
   const notes = [
     ...(newer.length > 0 ? [`Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`] : []),
-    ...issues.map((i) => `${i.where}: ${i.message}.`),
+    ...issues.slice(0, MAX_COVER_ISSUES).map((i) => `${i.where}: ${i.message}.`),
+    ...(issues.length > MAX_COVER_ISSUES ? [`… and ${issues.length - MAX_COVER_ISSUES} more cells written as values.`] : []),
   ];
 
   const ExcelJS = await loadExcelJs();
   const wb = new ExcelJS.Workbook();
   wb.creator = opts.generator ?? DEFAULT_GENERATOR;
-  wb.title = doc.title;
+  wb.title = xmlSafe(doc.title);
   wb.calcProperties.fullCalcOnLoad = true;
 
   const cover = wb.addWorksheet(coverName);
@@ -181,7 +184,7 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
   writeMeta(wb, { format: META_MARKER, version: META_VERSION, doc, sheets: sheetsMeta, generated: [coverName, functionsName] });
 
   // Fastest deflate level: the file grows by about a third, the export is much quicker.
-  const buffer = await wb.xlsx.writeBuffer({ zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } } } as ExcelJS.XlsxWriteOptions);
+  const buffer = await wb.xlsx.writeBuffer({ zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } } } as XlsxWriteOptions);
   return { bytes: new Uint8Array(buffer as ArrayBuffer), issues, newerFunctions: newer, catalogueFunctions: [...catalogue] };
 }
 

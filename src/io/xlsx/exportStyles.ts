@@ -3,6 +3,7 @@
 import type { Worksheet } from 'exceljs';
 import type { SheetDoc } from '../../core/workbook/document.ts';
 import type { CoverRow } from './exportCover.ts';
+import { xmlSafe } from './exportCells.ts';
 
 const INK = 'FF1F2A33';
 const INPUT_HEADER = 'FFE3E9EE';
@@ -44,7 +45,7 @@ export function styleCover(ws: Worksheet, rows: readonly CoverRow[]): void {
   ws.getColumn(1).width = 30;
   ws.getColumn(2).width = 110;
   rows.forEach((r, i) => {
-    const row = ws.addRow([...r]);
+    const row = ws.addRow(r.map(xmlSafe));
     const heading = r.length === 1 && r[0] !== undefined;
     if (i === 0) row.getCell(1).font = { bold: true, size: 14, color: { argb: INK } };
     else if (heading) row.getCell(1).font = { bold: true, color: { argb: INK } };
@@ -64,7 +65,7 @@ export function styleFunctionsSheet(ws: Worksheet, header: string[], rows: reado
     cell.border = { bottom: { style: 'thin', color: { argb: RULE } } };
   });
   for (const r of rows) {
-    const row = ws.addRow(r);
+    const row = ws.addRow(r.map(xmlSafe));
     row.eachCell((cell) => (cell.alignment = { wrapText: true, vertical: 'top' }));
   }
   ws.views = [{ state: 'frozen', xSplit: 0, ySplit: 1, topLeftCell: 'A2', activeCell: 'A2' }];

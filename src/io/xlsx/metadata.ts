@@ -82,7 +82,8 @@ export function rowFingerprint(cells: readonly FingerprintCell[]): string {
 
 /** The JSON split into cell-sized chunks. */
 export function metaChunks(meta: ExportMeta): string[] {
-  const json = JSON.stringify(meta);
+  // JSON escapes control characters and lone surrogates, but not these two, which XML forbids.
+  const json = JSON.stringify(meta).replace(/[\uFFFE\uFFFF]/g, (c) => `\\u${c.charCodeAt(0).toString(16)}`);
   const chunks: string[] = [];
   for (let i = 0; i < json.length; i += META_CHUNK) chunks.push(json.slice(i, i + META_CHUNK));
   return chunks;

@@ -28,7 +28,7 @@ export function sampleDoc(): WorkbookDoc {
           ['M-103', 11, 0.9, 1.3, 1, '=KW.MOTOR(B4,C4,E4)', '=KVAR.MOTOR(B4,C4,D4,E4)', ''],
           ['H-1', '007', true, false, '', '=KVAR.LOAD(40,0.92)', '=IFNA(G4,0)', "'=1+1"],
           [],
-          ['Σ', null, null, null, null, '=SUM(F2:F5)', '=SUM(G2:G3)+G5', 'ctrl\u0001char ünï €'],
+          ['Σ', null, null, null, null, '=SUM(F2:F5)', '=SUM(G2:G3)+G5', 'ctrl\u0001char ünï € \uFFFF \uD800'],
         ],
       },
       {
