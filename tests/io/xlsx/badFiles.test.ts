@@ -114,6 +114,7 @@ describe('readEquipmentFile refuses bad lists with a clear message', () => {
     ['list.xlsx', 'encrypted', () => encryptedContainer()],
     ['list.xlsx', 'too-many-rows', () => millionRowXlsx()],
     ['list.csv', 'empty', () => new Uint8Array()],
+    ['list.csv', 'too-many-rows', () => new TextEncoder().encode('tag,bus,kind\n' + 'M,B,motor\n'.repeat(1_000_000))],
     ['list.csv', 'corrupt', () => new TextEncoder().encode('tag,bus\n"M1,LV\n')],
   ] as const)('%s: %s', async (name, code, make) => {
     const r = await readEquipmentFile(name, make());
