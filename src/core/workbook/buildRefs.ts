@@ -45,10 +45,6 @@ export function textLiteral(text: string): string {
   return `"${text.replace(/"/g, '""')}"`;
 }
 
-/** A number literal as the engine and other programs read it. */
-export function numberLiteral(x: number): string {
-  return String(x);
-}
 
 /** A whole column: Motors!$C:$C (rows added below the last one are still inside). */
 export function columnOn(sheet: string, col: number): string {
