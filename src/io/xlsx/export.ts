@@ -4,7 +4,9 @@
 // The xlsx library is loaded on first use only (see loadExcelJs.ts).
 import type { Workbook, Worksheet, XlsxWriteOptions } from 'exceljs';
 import type { SiteSettings } from '../../core/site/model.ts';
+import { SHEETS } from '../../core/workbook/buildLayout.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';
 import { coverRows, functionRows, FUNCTION_HEADER } from './exportCover.ts';
 import { exportSheetCells, fileError, xmlSafe, type CellIssue, type ExportCell, type SheetCells } from './exportCells.ts';
@@ -71,6 +73,16 @@ function checkNames(doc: WorkbookDoc): void {
 }
 
 const BLANK: CellResult = { ok: true, value: null };
+
+/** The site settings of a workbook made by the builder (as the app reads them), for the cover. */
+function settingsOf(doc: WorkbookDoc): SiteSettings | undefined {
+  if (!doc.sheets.some((s) => s.name === SHEETS.settings)) return undefined;
+  try {
+    return siteFromWorkbook(doc).site.settings;
+  } catch {
+    return undefined;
+  }
+}
 
 const isFormula = (c: unknown): boolean => typeof c === 'string' && c.startsWith('=');
 
@@ -169,7 +181,8 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
 
   const cover = wb.addWorksheet(coverName);
   const date = opts.date ?? new Date();
-  styleCover(cover, coverRows({ doc, date, generator: opts.generator ?? DEFAULT_GENERATOR, notes, functionsSheet: functionsName, ...(opts.settings ? { settings: opts.settings } : {}) }));
+  const settings = opts.settings ?? settingsOf(doc);
+  styleCover(cover, coverRows({ doc, date, generator: opts.generator ?? DEFAULT_GENERATOR, notes, functionsSheet: functionsName, ...(settings ? { settings } : {}) }));
 
   const sheetsMeta: SheetMeta[] = [];
   doc.sheets.forEach((s, i) => {

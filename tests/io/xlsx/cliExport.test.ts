@@ -30,6 +30,12 @@ describe('kvar-ledger export', () => {
     const back = await importKvarXlsx(new Uint8Array(readFileSync(out)));
     const { site } = readSiteFile(readFileSync('templates/cold-store.json', 'utf8'));
     expect(back.ok && back.doc).toEqual(buildWorkbook(site, { flavour: 'portable' }));
+    // The cover names the site, its cases and the requirement.
+    const { default: ExcelJS } = await import('exceljs');
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(readFileSync(out) as unknown as ArrayBuffer);
+    const cover = wb.getWorksheet('Cover')!.getSheetValues().flat().join('\n');
+    for (const s of [site.settings.name, site.settings.cases.join(', '), 'cos φ at least 0.95', '50 Hz']) expect(cover).toContain(s);
   });
 
   it('writes the workbook of a CSV list', async () => {

@@ -208,3 +208,17 @@ describe('export refusals', () => {
     await expect(exportWorkbookXlsx(doc, { strict: true })).rejects.toThrow(/S!A2: the formula uses COUNTUNIQUE/);
   });
 });
+
+describe('cover of a builder workbook without settings given', () => {
+  it('reads the settings from the workbook itself', async () => {
+    const { readSiteFile } = await import('../../../src/core/site/siteFile.ts');
+    const { buildWorkbook } = await import('../../../src/core/workbook/build.ts');
+    const { readFileSync } = await import('node:fs');
+    const { site } = readSiteFile(readFileSync('templates/solar-collector.json', 'utf8'));
+    const wb = await load(await exportWorkbookXlsx(buildWorkbook(site, { flavour: 'live' }), { date: DATE }));
+    const cover = wb.worksheets[0]!.getSheetValues().flat().join('\n');
+    expect(cover).toContain(site.settings.name);
+    expect(cover).toContain(`Operating cases`);
+    expect(cover).toContain(site.settings.cases.join(', '));
+  });
+});
