@@ -222,3 +222,12 @@ describe('cover of a builder workbook without settings given', () => {
     expect(cover).toContain(site.settings.cases.join(', '));
   });
 });
+
+describe('sheet names the export also uses', () => {
+  it('keep their own sheets; the added ones step aside and are dropped again on import', async () => {
+    const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 't', sheets: [{ name: 'Cover', cells: [['mine', 1]] }, { name: 'functions USED', cells: [['=KVA.TOTAL(3,4)']] }] };
+    const bytes = await exportWorkbookXlsx(doc, { date: DATE });
+    expect((await load(bytes)).worksheets.map((w) => w.name)).toEqual(['Cover (2)', 'Cover', 'functions USED', 'Functions used (2)', META_SHEET_NAME]);
+    expect(await restored(bytes)).toEqual(doc);
+  });
+});
