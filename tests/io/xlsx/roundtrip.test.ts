@@ -231,3 +231,24 @@ describe('sheet names the export also uses', () => {
     expect(await restored(bytes)).toEqual(doc);
   });
 });
+
+describe('where cached results come from', () => {
+  const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 't', sheets: [{ name: 'S', cells: [[3, 4, '=KVA.TOTAL(A1,B1)']] }] };
+  const cached = async (bytes: Uint8Array) => (await load(bytes)).getWorksheet('S')!.getCell('C1').result;
+
+  it('by default from an engine over the document', async () => {
+    expect(await cached(await exportWorkbookXlsx(doc))).toBe(5);
+  });
+
+  it('from the caller’s engine when given (no engine is built)', async () => {
+    const r = await exportWorkbookXlsx(doc, { valueAt: (s, row, col) => (s === 'S' && row === 0 && col === 2 ? { ok: true, value: 5.5 } : undefined) });
+    expect(await cached(r)).toBe(5.5);
+  });
+
+  it('from an aligned faster document, but never from one whose typed values differ', async () => {
+    const twin: WorkbookDoc = { ...doc, sheets: [{ name: 'S', cells: [[3, 4, '=SQRT(A1^2+B1^2)+0.25']] }] };
+    expect(await cached(await exportWorkbookXlsx(doc, { valuesFrom: twin }))).toBe(5.25);
+    const other: WorkbookDoc = { ...doc, sheets: [{ name: 'S', cells: [[6, 8, '=SQRT(A1^2+B1^2)']] }] };
+    expect(await cached(await exportWorkbookXlsx(doc, { valuesFrom: other }))).toBe(5);
+  });
+});
