@@ -12,6 +12,7 @@ import type { Site } from '../core/site/model.ts';
 import { parseEquipmentTable } from '../core/site/parse.ts';
 import type { Problem } from '../core/site/problems.ts';
 import { readSiteFile } from '../core/site/siteFile.ts';
+import { siteFromWorkbook } from '../core/workbook/readSite.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import { resolveCase } from '../core/site/cases.ts';
 import { rollUpAll, SiteStructureError, type BusBalance, type CaseBalance } from '../core/site/rollup.ts';
@@ -45,12 +46,29 @@ async function load(file: string, hz: 50 | 60 | undefined): Promise<Loaded> {
     const s = hz ? { ...site, settings: { ...site.settings, hz } } : site;
     return { ok: true, site: s, problems };
   }
+  if (extname(file).toLowerCase() === '.xlsx') {
+    const own = await siteFromOwnExport(bytes, hz);
+    if (own) return own;
+  }
   const table = await readEquipmentFile(basename(file), bytes);
   if (!table.ok) return { ok: false, message: describeProblem(table.problem) };
   const rows = table.value.rows.map((r) => r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))));
   const parsed = parseEquipmentTable(rows, { decimalComma: table.value.decimalComma });
   const site: Site = { settings: { name: basename(file), hz: hz ?? 50, cases: parsed.cases, requirement: LIST_REQUIREMENT }, equipment: parsed.equipment };
   return { ok: true, site, problems: parsed.problems };
+}
+
+/**
+ * A workbook exported by Kvar Ledger carries the whole site (its first sheet is the cover, not
+ * an equipment list): read the site back from its sheets. undefined = not one of ours.
+ */
+async function siteFromOwnExport(bytes: Uint8Array, hz: 50 | 60 | undefined): Promise<Loaded | undefined> {
+  const { importKvarXlsx } = await import('../io/xlsx/index.ts');
+  const imported = await importKvarXlsx(bytes);
+  if (!imported.ok || imported.restored === 'plain') return undefined;
+  const { site, problems } = siteFromWorkbook(imported.doc);
+  const s = hz ? { ...site, settings: { ...site.settings, hz } } : site;
+  return { ok: true, site: s, problems };
 }
 
 function busJson(b: BusBalance) {

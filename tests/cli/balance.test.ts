@@ -110,6 +110,17 @@ describe('kvar-ledger balance', () => {
     const j = JSON.parse((await balance(xlsx, '--json')).out) as { root: BusJson };
     expect(j.root.q_kvar).toBeCloseTo(400, 9);
   });
+
+  it('reads the site back from its own xlsx export (whose first sheet is the cover) and matches the hand totals', async () => {
+    const xlsx = join(tmp, 'cold-store-export.xlsx');
+    const exported = await cliProcess('export', COLD, xlsx);
+    expect(exported.code, exported.stderr).toBe(0);
+    const r = await balance(xlsx, '--case', 'winter-night', '--json');
+    expect(r.code, r.err).toBe(0);
+    const j = JSON.parse(r.out) as { case: string; buses: BusJson[] };
+    expect(j.case).toBe('winter-night');
+    expectHandTotals(j.buses, 'winter-night');
+  });
 });
 
 describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {
