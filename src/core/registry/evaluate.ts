@@ -41,30 +41,43 @@ function applyDefaults(spec: FunctionSpec, vals: Array<number | boolean | undefi
   });
 }
 
-/** Validate raw arguments and compute. Never throws. */
+function failed(spec: FunctionSpec, tail: string): Outcome {
+  return { ok: false, message: withFunction(spec.name, tail) };
+}
+
+/**
+ * Validate raw arguments and compute. Never throws. The common case (a finite number inside the
+ * parameter's domain) takes a short path; every other value goes through coerceOne, so the
+ * messages are built only when there is something to report.
+ */
 export function evaluate(spec: FunctionSpec, raw: readonly RawArg[]): Outcome {
-  const fail = (tail: string): Outcome => ({ ok: false, message: withFunction(spec.name, tail) });
   try {
-    const required = spec.params.filter((p) => !isOptional(p)).length;
-    if (raw.length > spec.params.length) return fail(msg.tooMany(spec.params.length, raw.length));
-    const vals: Array<number | boolean | undefined> = [];
-    for (let i = 0; i < spec.params.length; i++) {
-      const p = spec.params[i] as ParamSpec;
-      if (raw[i] === undefined && !isOptional(p)) {
-        return fail(raw.length < required ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p) : msg.missing(i + 1, p));
+    const params = spec.params;
+    if (raw.length > params.length) return failed(spec, msg.tooMany(params.length, raw.length));
+    const vals: Array<number | boolean | undefined> = new Array<number | boolean | undefined>(params.length);
+    for (let i = 0; i < params.length; i++) {
+      const p = params[i] as ParamSpec;
+      const r = raw[i];
+      if (typeof r === 'number' && p.type !== 'boolean' && Number.isFinite(r) && inInterval(r, p.domain)) {
+        vals[i] = r;
+        continue;
       }
-      const one = coerceOne(i + 1, p, raw[i]);
-      if (!one.ok) return fail(one.message);
-      vals.push(one.value);
+      if (r === undefined && !isOptional(p)) {
+        const required = params.filter((q) => !isOptional(q)).length;
+        return failed(spec, raw.length < required ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p) : msg.missing(i + 1, p));
+      }
+      const one = coerceOne(i + 1, p, r);
+      if (!one.ok) return failed(spec, one.message);
+      vals[i] = one.value;
     }
     applyDefaults(spec, vals);
     const cross = spec.check?.(vals);
-    if (cross) return fail(cross);
+    if (cross) return failed(spec, cross);
     const value = spec.compute(vals as Args);
-    if (!Number.isFinite(value)) return fail(msg.notFinite(value));
+    if (!Number.isFinite(value)) return failed(spec, msg.notFinite(value));
     return { ok: true, value: value === 0 ? 0 : value };
   } catch (e) {
-    return fail(msg.internal(e));
+    return failed(spec, msg.internal(e));
   }
 }
 

@@ -93,11 +93,19 @@ function evalOr0(plan: CallPlan | undefined, errors: string[]): number {
   return 0;
 }
 
+/** One element's balance; fields in the order the JSON output shows them. */
+function shuntResult(row: EquipmentRow, n: number, load: number, p: number, q: number, error?: string): ElementBalance {
+  const e: ElementBalance = {
+    row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, running: n, load,
+    p_kw: p, q_kvar: q, q_absorbed_kvar: Math.max(q, 0), q_delivered_kvar: Math.max(-q, 0),
+  };
+  return error === undefined ? e : { ...e, error };
+}
+
 function shuntElement(row: EquipmentRow, caseName: string, hz: number): ElementBalance {
   const n = unitsRunning(row);
   const lf = loadFactor(row, caseName);
-  const base = { row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, running: n, load: lf.value };
-  if (!inService(row, caseName) || n === 0) return { ...base, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0 };
+  if (!inService(row, caseName) || n === 0) return shuntResult(row, n, lf.value, 0, 0);
   const errors: string[] = [];
   const plans = shuntPlans(row, lf.value, lf.column, hz);
   let p = plans.pProduct ? plans.pProduct.value : evalOr0(plans.p, errors);
@@ -105,12 +113,8 @@ function shuntElement(row: EquipmentRow, caseName: string, hz: number): ElementB
   if (row.kind === 'generator') p = -p;
   // Capacitors and reactors: the load factor is the share of the nameplate in service.
   if (row.kind === 'capacitor' || row.kind === 'reactor') q *= lf.value;
-  if (errors.length > 0 || !Number.isFinite(p)) {
-    return { ...base, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0, error: errors.join('; ') || 'p_kw is missing' };
-  }
-  p *= n;
-  q *= n;
-  return { ...base, p_kw: p, q_kvar: q, q_absorbed_kvar: Math.max(q, 0), q_delivered_kvar: Math.max(-q, 0) };
+  if (errors.length > 0 || !Number.isFinite(p)) return shuntResult(row, n, lf.value, 0, 0, errors.join('; ') || 'p_kw is missing');
+  return shuntResult(row, n, lf.value, p * n, q * n);
 }
 
 /** Losses of a transformer or line carrying the apparent power sKva of the bus it feeds. */
