@@ -1,0 +1,76 @@
+// The Checks panel: input problems and compensation findings, most severe first, each saying
+// where. Recomputed a moment after the last change while visible (reading the site back and
+// designing takes a while on large sites, so it never runs on every keystroke).
+import { clear, el } from '../dom.ts';
+import type { WorkbookSession } from '../model/session.ts';
+import { collectChecks, type CheckItem, type ChecksReport } from './checksModel.ts';
+
+const QUIET_MS = 600;
+
+export class ChecksPanel {
+  readonly root: HTMLElement;
+  private readonly body: HTMLElement;
+  private session: WorkbookSession | undefined;
+  private timer: ReturnType<typeof setTimeout> | undefined;
+  private dirty = true;
+  visible = false;
+  /** Set by the app: select the row an item concerns. */
+  onJump: (target: { sheet: string; row: number }) => void = () => {};
+
+  constructor() {
+    this.body = el('div', { className: 'kl-checks-body' });
+    this.root = el('section', { className: 'kl-checks', attrs: { 'data-testid': 'checks' } }, [
+      el('p', { className: 'kl-muted', text: 'Input problems, then the findings for the compensation Kvar Ledger proposes from these inputs. The Compensation sheet checks the banks you enter there.' }),
+      this.body,
+    ]);
+  }
+
+  update(session: WorkbookSession): void {
+    this.session = session;
+    this.dirty = true;
+    if (!this.visible) return;
+    if (this.timer) clearTimeout(this.timer);
+    this.timer = setTimeout(() => this.draw(), QUIET_MS);
+  }
+
+  draw(): void {
+    this.timer = undefined;
+    if (!this.session || !this.dirty) return;
+    this.dirty = false;
+    let report: ChecksReport;
+    try {
+      report = collectChecks(this.session.toDoc());
+    } catch (e) {
+      clear(this.body);
+      this.body.append(el('p', { className: 'kl-check is-error', text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}` }));
+      return;
+    }
+    this.render(report);
+  }
+
+  private render(r: ChecksReport): void {
+    clear(this.body);
+    const { error, warning, info } = r.counts;
+    this.body.append(el('p', { className: 'kl-checks-summary', attrs: { 'data-testid': 'checks-summary' }, text: `${error} error${error === 1 ? '' : 's'}, ${warning} warning${warning === 1 ? '' : 's'}, ${info} note${info === 1 ? '' : 's'}` }));
+    if (r.items.length === 0 && !r.designSkipped) this.body.append(el('p', { className: 'kl-muted', text: 'Nothing to report for these inputs.' }));
+    const list = el('ul', { className: 'kl-check-list' }, r.items.map((i) => this.item(i)));
+    this.body.append(list);
+    if (r.designSkipped) this.body.append(el('p', { className: 'kl-muted', text: r.designSkipped }));
+  }
+
+  private item(i: CheckItem): HTMLElement {
+    const where = el('span', { className: 'kl-check-where', text: i.where || 'site' });
+    const li = el('li', { className: `kl-check is-${i.severity}`, attrs: { 'data-severity': i.severity } }, [
+      el('span', { className: 'kl-check-sev', text: i.severity }),
+      where,
+      el('span', { className: 'kl-check-text', text: i.text }),
+    ]);
+    const target = i.target;
+    if (target) {
+      const go = el('button', { className: 'kl-link-btn', text: 'show', title: `Go to ${target.sheet} row ${target.row}`, attrs: { type: 'button' } });
+      go.addEventListener('click', () => this.onJump(target));
+      li.append(go);
+    }
+    return li;
+  }
+}

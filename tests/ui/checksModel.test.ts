@@ -1,0 +1,56 @@
+// The Checks panel's model: input problems located by sheet and grid row, design findings by
+// bus and case. Sites here are built from the invented templates and then broken on purpose.
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { readSiteFile } from '../../src/core/site/siteFile.ts';
+import { buildWorkbook } from '../../src/core/workbook/build.ts';
+import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
+import { collectChecks } from '../../src/ui/panels/checksModel.ts';
+
+function template(name: string): WorkbookDoc {
+  const { site } = readSiteFile(readFileSync(new URL(`../../templates/${name}.json`, import.meta.url), 'utf8'));
+  return buildWorkbook(site, { flavour: 'live' });
+}
+
+describe('checks of a workbook', () => {
+  it('the solar collector at night: cable charging beyond the leading limit is reported on its bus and case', () => {
+    const r = collectChecks(template('solar-collector'));
+    const charging = r.items.find((i) => i.code === 'charging-dominates');
+    expect(charging?.severity).toBe('warning');
+    expect(charging?.where).toMatch(/^bus /);
+    expect(charging?.text).toMatch(/^case night: /);
+    expect(r.counts.warning).toBeGreaterThanOrEqual(1);
+  });
+
+  it('a cos φ of 1.3 typed on the Motors sheet is an input error at that sheet row and column, and the design waits', () => {
+    const doc = template('pumping-station');
+    const motors = doc.sheets.find((s) => s.name === 'Motors');
+    expect(motors).toBeDefined();
+    const header = (motors?.cells[0] ?? []) as unknown[];
+    const col = header.indexOf('cos φ');
+    expect(col).toBeGreaterThan(0);
+    (motors?.cells[2] as unknown[])[col] = 1.3;
+    const r = collectChecks(doc);
+    const bad = r.items.find((i) => i.severity === 'error');
+    expect(bad?.target).toEqual({ sheet: 'Motors', row: 3 });
+    expect(bad?.where).toBe('Motors row 3, column cos_phi');
+    expect(bad?.text).toContain('got 1.3');
+    expect(r.designSkipped).toMatch(/input errors/);
+    expect(r.items.some((i) => i.code !== 'input')).toBe(false);
+  });
+
+  it('a blank bus on any equipment sheet is listed, errors first, and the design findings wait for it', () => {
+    const doc = template('solar-collector');
+    // Blank the bus of the first item on any equipment sheet that has one (an input error),
+    // while the night-time charging warning stays.
+    const sheet = doc.sheets.find((s) => s.name !== 'Site' && s.cells.length > 1 && (s.cells[0] ?? []).includes('Bus'));
+    const header = (sheet?.cells[0] ?? []) as unknown[];
+    (sheet?.cells[1] as unknown[])[header.indexOf('Bus')] = '';
+    const r = collectChecks(doc);
+    const ranks = r.items.map((i) => ({ error: 0, warning: 1, info: 2 })[i.severity]);
+    expect(ranks).toEqual([...ranks].sort((a, b) => a - b));
+    expect(r.counts.error).toBeGreaterThan(0);
+    expect(r.items[0]?.severity).toBe('error');
+    expect(r.items.some((i) => i.code === 'charging-dominates')).toBe(false);
+  });
+});
