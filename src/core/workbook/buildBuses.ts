@@ -201,23 +201,27 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
 
 /**
  * The bus's own items in 'live': one BUS.SUMS call for P per case and one BUS.SUMS.SPLIT call
- * for absorbed/delivered kvar per case, each over this bus's block of rows on every sheet.
+ * for absorbed/delivered kvar per case, each over this bus's block of rows on every sheet. One
+ * call per case, not one for all cases: an edit in one case then reaches only that case's
+ * totals and what hangs on them (with banks on most buses, half the cells to revisit).
  */
 function writeLiveSums(row: CellContent[], cols: BusColumns, r: number, bus: string, plans: readonly EquipmentSheetPlan[]): void {
-  const pairs = (which: 'p' | 'q') => plans.flatMap((pl) => {
+  const pairs = (which: 'p' | 'q', k: number) => plans.flatMap((pl) => {
     const block = pl.blocks.get(bus);
     const vc = pl.cols[which];
     if (pl.layout.role !== 'shunt' || !block || !vc) return [];
     const busCol = pl.cols.input.get('bus') as number;
-    return [`${rangeOn(pl.layout.sheet, block.first, busCol, block.last, busCol)},${rangeOn(pl.layout.sheet, block.first, vc[0] as number, block.last, vc[vc.length - 1] as number)}`];
+    const c = vc[k] as number;
+    return [`${rangeOn(pl.layout.sheet, block.first, busCol, block.last, busCol)},${rangeOn(pl.layout.sheet, block.first, c, block.last, c)}`];
   });
   const me = absCell(r, cols.bus);
-  const p = pairs('p');
-  const q = pairs('q');
-  if (p.length > 0) row[cols.pOwn[0] as number] = `=BUS.SUMS(${me},${p.join(',')})`;
-  else for (const c of cols.pOwn) row[c] = '=0';
-  if (q.length > 0) row[cols.qAbsOwn[0] as number] = `=BUS.SUMS.SPLIT(${me},${q.join(',')})`;
-  else for (const c of [...cols.qAbsOwn, ...cols.qDelOwn]) row[c] = '=0';
+  cols.pOwn.forEach((col, k) => {
+    const p = pairs('p', k);
+    row[col] = p.length > 0 ? `=BUS.SUMS(${me},${p.join(',')})` : '=0';
+    const q = pairs('q', k);
+    if (q.length > 0) row[cols.qAbsOwn[k] as number] = `=BUS.SUMS.SPLIT(${me},${q.join(',')})`;
+    else for (const c of [cols.qAbsOwn[k] as number, cols.qDelOwn[k] as number]) row[c] = '=0';
+  });
 }
 
 export const LAYOUT_CHECK_LABEL = 'Rows added or removed since this layout was built';

@@ -170,11 +170,13 @@ describe('workbook shape', () => {
     const motors = doc.sheets.find((s) => s.name === 'Motors');
     expect(motors?.cells.slice(1).map((r) => [r[0], r[2]])).toEqual([['M1', 'LV1'], ['M2', 'LV1'], ['M3', 'LV2'], ['P1', 'PUMP']]);
     const lv1 = buses?.cells.find((r) => r[0] === 'LV1');
-    expect(lv1).toContain('=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$S$2:$U$3,Loads!$C$2:$C$2,Loads!$Q$2:$S$2)');
+    // One call per case (three cases here), so an edit in one case reaches only that case's totals.
+    expect(lv1).toContain('=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$S$2:$S$3,Loads!$C$2:$C$2,Loads!$Q$2:$Q$2)');
+    expect(lv1).toContain('=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$U$2:$U$3,Loads!$C$2:$C$2,Loads!$S$2:$S$2)');
     const text = JSON.stringify(buses?.cells);
-    // P: the three buses with motors, loads or generators; kvar: all four (MV has a cable).
-    expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(3);
-    expect(text.match(/BUS\.SUMS\.SPLIT\(/g)).toHaveLength(4);
+    // P: the three buses with motors, loads or generators; kvar: all four (MV has a cable); per case.
+    expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(3 * 3);
+    expect(text.match(/BUS\.SUMS\.SPLIT\(/g)).toHaveLength(4 * 3);
     expect(text).not.toContain('SUMIF');
   });
 
