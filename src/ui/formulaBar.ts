@@ -81,10 +81,11 @@ export class FormulaBar {
 
   /** Put text into the bar and start editing there (e.g. "insert into cell" from the reference). */
   begin(text: string): void {
+    this.original = this.sel ? editText(this.host.session.cellContent(this.sel.sheetId, this.sel.row, this.sel.col)) : '';
     this.input.focus();
     this.input.value = text;
     this.input.setSelectionRange(text.length, text.length);
-    this.host.assist.update();
+    this.host.assist.follow(this.input);
   }
 
   private commit(): void {
@@ -100,16 +101,13 @@ export class FormulaBar {
       e.preventDefault();
       return;
     }
-    if (e.key === 'Enter') {
-      e.preventDefault();
-      this.commit();
-      this.host.assist.hide();
-      this.host.returnFocus();
-    } else if (e.key === 'Escape') {
-      e.preventDefault();
-      this.input.value = this.original;
-      this.host.assist.hide();
-      this.host.returnFocus();
-    }
+    if (e.key !== 'Enter' && e.key !== 'Escape') return;
+    // The key is ours: it must not reach the grid, which would take it as its own once it has the focus.
+    e.preventDefault();
+    e.stopPropagation();
+    if (e.key === 'Enter') this.commit();
+    else this.input.value = this.original;
+    this.host.assist.hide();
+    setTimeout(() => this.host.returnFocus(), 0);
   }
 }

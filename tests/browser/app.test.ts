@@ -198,10 +198,15 @@ describe('Kvar Ledger in the browser', () => {
     await screenshot(page, '05-function-reference');
     await selectCell(page, 8, 1);
     await detail.locator('[data-testid="ref-insert"]').click();
+    // The call goes into the formula bar for the active cell, with the signature shown.
     expect(await fb('input').inputValue()).toBe('=KVAR.MOTOR(');
-    // Escape drops the edit, and the bar shows the cell's content again.
-    await page.keyboard.press('Escape');
-    await expect.poll(() => fb('input').inputValue()).toBe('');
+    expect(await page.locator('[data-testid="assist"] .kl-sig-arg.is-active').textContent()).toBe('p_out_kw kW');
+    await page.keyboard.type('90,0.95,0.85)');
+    await page.keyboard.press('Enter');
+    // Full load: Qr = 90/0.95·tan(acos 0.85) = 58.71 kvar (the catalogue's own worked example).
+    expect(await cellText(page, 8, 1)).toBe('58.71262153');
+    await page.keyboard.press('Control+z');
+    expect(await cellText(page, 8, 1)).toBe('');
   });
 
   it('opens a template from the menu', async () => {

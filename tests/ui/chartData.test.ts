@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { casesOf, cosPhi, niceCeil, readChartData } from '../../src/ui/charts/chartData.ts';
+import { busesToDraw, casesOf, cosPhi, niceCeil, readChartData } from '../../src/ui/charts/chartData.ts';
 
 // Header texts as the workbook builder writes them (src/core/workbook/buildBuses.ts).
 const buses = [
@@ -40,5 +40,13 @@ describe('chart data', () => {
   });
   it('rounds axis ends up to 1, 2, 2.5 or 5 times a power of ten', () => {
     expect([0.7, 3, 240, 251, 1000, 0].map(niceCeil)).toEqual([1, 5, 250, 500, 1000, 1]);
+  });
+});
+
+describe('buses drawn', () => {
+  it('keeps the point of connection and the largest buses, in sheet order', () => {
+    const bars = [5, 1, 9, 3, 7].map((q, i) => ({ bus: `B${i}`, absorbed: q, delivered: 0, net: q }));
+    expect(busesToDraw(bars, 3).map((b) => b.bus)).toEqual(['B0', 'B2', 'B4']);
+    expect(busesToDraw(bars, 10)).toHaveLength(5);
   });
 });

@@ -17,7 +17,8 @@ import type { WorkbookStore } from '../storage/idbStore.ts';
 import { SidePanel } from './sidePanel.ts';
 import { openAbout } from '../dialogs/about.ts';
 import { buildTopBar } from './topBar.ts';
-import { scanErrors, selectionNumbers } from './sheetScan.ts';
+import { selectionNumbers } from './sheetScan.ts';
+import { ErrorTracker } from './errorTracker.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 
 export class App {
@@ -37,6 +38,7 @@ export class App {
   private sheet = -1;
   private lastSelection: Selection | undefined;
   private scanQueued: ReturnType<typeof setTimeout> | undefined;
+  private errors: ErrorTracker | undefined;
 
   constructor(readonly root: HTMLElement, readonly store: WorkbookStore | undefined, standardNames: readonly string[]) {
     const app = this; // eslint-disable-line @typescript-eslint/no-this-alias -- getters below read the current session
@@ -81,10 +83,12 @@ export class App {
   /** Show a workbook in place of the current one. `changed`: save it right away (a new workbook). */
   open(doc: WorkbookDoc, opts: { note?: string; changed?: boolean } = {}): void {
     const next = WorkbookSession.fromDoc(doc);
+    this.errors?.dispose();
     this.grid?.destroy();
     this.session?.destroy();
     this.gridHost.replaceChildren();
     this.session = next;
+    this.errors = new ErrorTracker(next.engine);
     this.grid = new GridView(this.gridHost, next, {
       onSelect: (sel) => this.onSelect(sel),
       onEditorOpen: (input) => this.onEditorOpen(input),
@@ -92,6 +96,7 @@ export class App {
       onNotice: (t) => this.status.show(t),
     });
     next.onChange((c) => {
+      if (c.kind !== 'cells' && c.kind !== 'title') this.errors?.invalidate();
       if (c.kind === 'sheets' || c.kind === 'history') this.afterSheetsChange();
       if (c.kind === 'title') this.titleInput.value = next.title;
       this.formulaBar.show(this.grid.selection());
@@ -114,6 +119,7 @@ export class App {
 
   openSheet(id: number): void {
     this.sheet = id;
+    this.errors?.watch(id);
     this.grid.show(id);
     this.sheets.render();
     const name = this.session.sheetName(id);
@@ -186,12 +192,9 @@ export class App {
     this.status.show(this.session.redo() ? 'Redone.' : 'Nothing to redo.', 'info', 2500);
   }
 
+  /** "Insert into cell": the text goes into the formula bar for the active cell, ready to finish and Enter. */
   insertIntoCell(text: string): void {
-    if (this.formulaBar.input === document.activeElement) this.formulaBar.begin(text);
-    else {
-      this.grid.editWith(text);
-      this.formulaBar.mirror(text);
-    }
+    this.formulaBar.begin(text);
   }
 
   /** Flush pending autosave (page hidden or closing). */
@@ -199,17 +202,20 @@ export class App {
     return this.autosaver?.flush() ?? Promise.resolve();
   }
 
-  /** Count error cells once typing pauses: a full scan of a large sheet must not slow each edit. */
+  /** The error count: kept current from the engine's changes; a full scan waits for a pause. */
   private queueScan(): void {
+    const tracker = this.errors;
+    if (!tracker) return;
+    if (!tracker.needsScan) return this.status.errorCount(tracker.count());
     if (this.scanQueued) clearTimeout(this.scanQueued);
     this.scanQueued = setTimeout(() => {
       this.scanQueued = undefined;
-      if (this.sheet >= 0 && this.session.sheetIds().includes(this.sheet)) this.status.errorCount(scanErrors(this.session, this.sheet).length);
+      if (this.errors === tracker) this.status.errorCount(tracker.count());
     }, 250);
   }
 
   private nextError(): void {
-    const errors = scanErrors(this.session, this.sheet);
+    const errors = this.errors?.list() ?? [];
     if (errors.length === 0) return;
     const at = this.lastSelection;
     const after = errors.find(([r, c]) => !at || r > at.row || (r === at.row && c > at.col)) ?? errors[0];

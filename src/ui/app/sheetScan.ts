@@ -1,22 +1,6 @@
-// Reading a sheet's values in bulk: the error cells (for the status bar's count and jump) and
-// the numbers of a selection (for its sum and mean).
+// The numbers of a selection, for the status line's sum and mean.
 import type { WorkbookSession } from '../model/session.ts';
 import type { Selection } from '../grid/gridView.ts';
-
-function isError(v: unknown): boolean {
-  return typeof v === 'object' && v !== null && 'type' in v && 'value' in v;
-}
-
-/** [row, col] of every error cell, in reading order. */
-export function scanErrors(session: WorkbookSession, sheetId: number): Array<[number, number]> {
-  const out: Array<[number, number]> = [];
-  if (!session.sheetIds().includes(sheetId)) return out;
-  const values = session.engine.getSheetValues(sheetId);
-  values.forEach((row, r) => row.forEach((v, c) => {
-    if (isError(v)) out.push([r, c]);
-  }));
-  return out;
-}
 
 export const SUMMARY_CELL_LIMIT = 20_000;
 

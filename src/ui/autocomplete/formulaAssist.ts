@@ -64,6 +64,13 @@ export class FormulaAssist {
     return false;
   }
 
+  /** Show the help for this field now (text was put into it by a command, not typed). */
+  follow(field: Field): void {
+    this.attach(field);
+    this.field = field;
+    this.update();
+  }
+
   hide(): void {
     this.box.hidden = true;
     this.items = [];

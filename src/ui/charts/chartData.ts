@@ -99,3 +99,11 @@ export function niceCeil(x: number): number {
   for (const m of [1, 2, 2.5, 5, 10]) if (m * e >= x) return m * e;
   return 10 * e;
 }
+
+/** At most `limit` bars stay readable: the point of connection (first), then the buses with the most kvar, in sheet order. */
+export function busesToDraw(bars: readonly BusBar[], limit = 30): BusBar[] {
+  if (bars.length <= limit) return [...bars];
+  const [root, ...rest] = bars;
+  const keep = new Set([...rest].sort((a, b) => b.absorbed + b.delivered - (a.absorbed + a.delivered)).slice(0, limit - 1));
+  return [...(root ? [root] : []), ...rest.filter((b) => keep.has(b))];
+}

@@ -5,7 +5,7 @@ import { SHEETS } from '../../core/workbook/buildLayout.ts';
 import { clear, el } from '../dom.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import { busBarChart } from './barChart.ts';
-import { readChartData, type ChartData, type Grid } from './chartData.ts';
+import { busesToDraw, readChartData, type ChartData, type Grid } from './chartData.ts';
 import { triangleChart, triangleRows } from './triangleChart.ts';
 
 function sheetValues(session: WorkbookSession, name: string): Grid | undefined {
@@ -28,11 +28,17 @@ export class ChartsPanel {
     this.root = el('section', { className: 'kl-charts', attrs: { 'data-testid': 'charts' } }, [this.cases, this.body]);
   }
 
-  /** Called after every change; draws now when visible, else when next shown. */
+  private frame = 0;
+
+  /** Called after every change; draws at the next frame when visible (a burst of changes draws once), else when next shown. */
   update(session: WorkbookSession): void {
     this.session = session;
     this.dirty = true;
-    if (this.visible) this.draw();
+    if (!this.visible || this.frame) return;
+    this.frame = requestAnimationFrame(() => {
+      this.frame = 0;
+      this.draw();
+    });
   }
 
   draw(): void {
@@ -71,9 +77,11 @@ export class ChartsPanel {
         ]),
       );
     }
-    const bars = data.bars.get(c) ?? [];
+    const all = data.bars.get(c) ?? [];
+    const bars = busesToDraw(all);
     this.body.append(
       el('h3', { className: 'kl-chart-title', text: `kvar per bus — ${c}` }),
+      bars.length < all.length ? el('p', { className: 'kl-muted', text: `The point of connection and the ${bars.length - 1} buses with the most kvar, of ${all.length}; every bus is on the Buses sheet.` }) : '',
       el('div', { className: 'kl-legend' }, [
         el('span', { className: 'kl-key is-absorbed', text: 'absorbed' }),
         el('span', { className: 'kl-key is-delivered', text: 'delivered' }),

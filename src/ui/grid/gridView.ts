@@ -146,8 +146,8 @@ export class GridView implements EditHost {
   private onSessionChange(c: SessionChange): void {
     if (c.kind === 'title') return;
     if (this.applying && c.kind === 'cells' && c.sheetId === this.current) {
+      // The grid renders itself once the change is applied; rendering here would draw twice.
       this.measure();
-      this.hot.render();
       return;
     }
     this.reload();
@@ -179,24 +179,18 @@ export class GridView implements EditHost {
     this.hot.selectCell(row, col, row2, col2);
   }
 
-  /** Open the cell editor on the active cell with the given text (e.g. from "insert into cell"). */
-  editWith(text: string): void {
-    const sel = this.selection();
-    if (!sel) return;
-    this.hot.selectCell(sel.row, sel.col);
-    const editor = this.hot.getActiveEditor() as unknown as { beginEditing(v?: string): void; TEXTAREA?: HTMLTextAreaElement } | undefined;
-    editor?.beginEditing(text);
-    const ta = editor?.TEXTAREA;
-    if (ta) ta.setSelectionRange(text.length, text.length);
-  }
-
   isEditing(): boolean {
     const editor = this.hot.getActiveEditor() as unknown as { isOpened?: () => boolean } | undefined;
     return editor?.isOpened?.() === true;
   }
 
+  /** Give the keyboard back to the grid (after the formula bar or a dialog had it). */
   focus(): void {
+    const active = document.activeElement;
+    if (active instanceof HTMLElement && !this.hot.rootElement.contains(active)) active.blur();
     this.hot.listen();
+    const sel = this.selection();
+    if (sel) this.hot.selectCell(sel.row, sel.col);
   }
 
   destroy(): void {

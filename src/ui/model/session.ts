@@ -6,6 +6,7 @@ import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/doc
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
 import { LayoutHistory, type Layout, type SheetMeta } from './sheetLayout.ts';
 import { sheetNameProblem } from './sheetNames.ts';
+import { SheetContents } from './sheetContents.ts';
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -16,19 +17,15 @@ export type SessionChange =
 
 export class SessionError extends Error {}
 
-function normalizeRow(row: readonly unknown[]): CellContent[] {
-  const out = Array.from(row, (v): CellContent => (v === undefined || v === "" ? null : (v as CellContent)));
-  while (out.length > 0 && out[out.length - 1] === null) out.pop();
-  return out;
-}
-
 export class WorkbookSession {
   private layout: Layout;
   private readonly history = new LayoutHistory(UNDO_LIMIT);
   private readonly listeners = new Set<(c: SessionChange) => void>();
+  private readonly contents: SheetContents;
 
   private constructor(readonly engine: HyperFormula, private titleText: string, layout: Layout) {
     this.layout = layout;
+    this.contents = new SheetContents(engine);
   }
 
   static fromDoc(doc: WorkbookDoc): WorkbookSession {
@@ -41,7 +38,10 @@ export class WorkbookSession {
       meta.set(id, { ...(s.columns ? { columns: s.columns } : {}), ...(s.purpose ? { purpose: s.purpose } : {}) });
     }
     engine.clearUndoStack();
-    return new WorkbookSession(engine, doc.title, { order, meta });
+    const session = new WorkbookSession(engine, doc.title, { order, meta });
+    // What was opened is what the engine holds: no need to write every formula out again.
+    doc.sheets.forEach((s, i) => session.contents.seed(order[i] as number, s.cells));
+    return session;
   }
 
   onChange(fn: (c: SessionChange) => void): () => void {
@@ -94,6 +94,7 @@ export class WorkbookSession {
   setBlock(sheetId: number, row: number, col: number, block: CellContent[][]): void {
     if (block.length === 0) return;
     this.act(() => this.engine.setCellContents({ sheet: sheetId, row, col }, block));
+    this.contents.patch(sheetId, block.flatMap((line, r) => line.map((_, c) => ({ row: row + r, col: col + c }))));
     this.emit({ kind: 'cells', sheetId });
   }
 
@@ -103,6 +104,7 @@ export class WorkbookSession {
     this.act(() => this.engine.batch(() => {
       for (const c of cells) this.engine.setCellContents({ sheet: sheetId, row: c.row, col: c.col }, c.content);
     }));
+    this.contents.patch(sheetId, cells);
     this.emit({ kind: 'cells', sheetId });
   }
 
@@ -121,11 +123,13 @@ export class WorkbookSession {
 
   insertRows(sheetId: number, at: number, count: number): void {
     this.act(() => this.engine.addRows(sheetId, [at, count]));
+    this.contents.forget();
     this.emit({ kind: 'rows', sheetId });
   }
 
   removeRows(sheetId: number, at: number, count: number): void {
     this.act(() => this.engine.removeRows(sheetId, [at, count]));
+    this.contents.forget();
     this.emit({ kind: 'rows', sheetId });
   }
 
@@ -147,6 +151,7 @@ export class WorkbookSession {
         return { order, meta };
       },
     );
+    this.contents.forget(id);
     this.emit({ kind: 'sheets' });
     return id;
   }
@@ -157,6 +162,7 @@ export class WorkbookSession {
     const problem = sheetNameProblem(name, this.sheetNames(), current);
     if (problem) throw new SessionError(problem);
     this.act(() => this.engine.renameSheet(id, name));
+    this.contents.forget();
     this.emit({ kind: 'sheets' });
   }
 
@@ -170,6 +176,7 @@ export class WorkbookSession {
         return { order: l.order.filter((x) => x !== id), meta };
       },
     );
+    this.contents.forget();
     this.emit({ kind: 'sheets' });
   }
 
@@ -184,6 +191,7 @@ export class WorkbookSession {
   undo(): boolean {
     if (!this.canUndo) return false;
     this.engine.undo();
+    this.contents.forget();
     this.layout = this.history.undo() ?? this.layout;
     this.emit({ kind: 'history' });
     return true;
@@ -192,48 +200,19 @@ export class WorkbookSession {
   redo(): boolean {
     if (!this.canRedo) return false;
     this.engine.redo();
+    this.contents.forget();
     this.layout = this.history.redo() ?? this.layout;
     this.emit({ kind: 'history' });
     return true;
   }
 
-  /**
-   * The engine writes the values a formula spills over its neighbours (the bus roll-up returns
-   * one array for all buses) as if they were typed there; they belong to the formula, not to the
-   * cell, and saved as constants they would block the spill on reload. Only formula cells can
-   * anchor a spill, so the search starts from them.
-   */
-  private clearSpills(id: number, rows: CellContent[][]): void {
-    const isArray = (row: number, col: number) => this.engine.isCellPartOfArray({ sheet: id, row, col });
-    const isFormula = (v: unknown) => typeof v === 'string' && v.startsWith('=');
-    rows.forEach((cells, r) => cells.forEach((v, c) => {
-      if (!isFormula(v) || !isArray(r, c)) return;
-      for (let rr = r; rr < rows.length && (rr === r || (!isFormula(rows[rr]?.[c]) && isArray(rr, c))); rr++) {
-        const line = rows[rr] as CellContent[];
-        for (let cc = rr === r ? c + 1 : c; cc < line.length && !isFormula(line[cc]) && isArray(rr, cc); cc++) line[cc] = null;
-        if (rr !== r && !isFormula(line[c])) line[c] = null;
-      }
-    }));
-  }
-
-  /** Raw contents of a sheet (formulas as typed), trailing blanks trimmed. */
+  /** Contents of a sheet as typed (formulas as text), trailing blanks trimmed. Do not modify. */
   sheetContents(id: number): CellContent[][] {
-    const rows = this.engine.getSheetSerialized(id).map((r) => normalizeRow(r as unknown[]));
-    this.clearSpills(id, rows);
-    const out = rows.map((r) => normalizeRow(r));
-    while (out.length > 0 && (out[out.length - 1] as CellContent[]).length === 0) out.pop();
-    return out;
-  }
-
-  private isSpilled(sheet: number, row: number, col: number, v: unknown): boolean {
-    if (v === null || v === undefined || (typeof v === 'string' && v.startsWith('='))) return false;
-    return this.engine.isCellPartOfArray({ sheet, row, col });
+    return this.contents.get(id);
   }
 
   cellContent(sheetId: number, row: number, col: number): CellContent {
-    const v = this.engine.getCellSerialized({ sheet: sheetId, row, col });
-    if (v === undefined || v === '' || this.isSpilled(sheetId, row, col, v)) return null;
-    return v as CellContent;
+    return this.contents.cell(sheetId, row, col);
   }
 
   toDoc(): WorkbookDoc {

@@ -1,6 +1,6 @@
 // Browser storage of the open workbook: the last good state and the one before it, in IndexedDB.
-// A state is written only after it validated and survived a JSON round trip, so a broken
-// workbook can never replace the last good one.
+// A state is written only after it passed the workbook check, and a stored state is checked
+// again when read, so a broken workbook can never replace the last good one.
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { workbookProblems } from '../model/docValidate.ts';
 import { describeStorageError } from './storageErrors.ts';
@@ -39,19 +39,18 @@ function done(tx: IDBTransaction): Promise<void> {
   });
 }
 
-/** Serialize and check a workbook; the text is what gets stored. */
+/**
+ * Check, then serialize a workbook; the text is what gets stored. The check admits only finite
+ * numbers, text, TRUE/FALSE and blanks, which JSON writes and reads back exactly.
+ */
 export function serializeForStorage(doc: WorkbookDoc): { ok: true; text: string } | { ok: false; message: string } {
-  const before = workbookProblems(doc);
-  if (before.length > 0) return { ok: false, message: `Not saved, the workbook failed its check: ${before.slice(0, 3).join(' ')}` };
-  let text: string;
+  const problems = workbookProblems(doc);
+  if (problems.length > 0) return { ok: false, message: `Not saved, the workbook failed its check: ${problems.slice(0, 3).join(' ')}` };
   try {
-    text = JSON.stringify(doc);
+    return { ok: true, text: JSON.stringify(doc) };
   } catch (e) {
     return { ok: false, message: `Not saved, the workbook could not be written out: ${e instanceof Error ? e.message : String(e)}` };
   }
-  const after = workbookProblems(JSON.parse(text));
-  if (after.length > 0) return { ok: false, message: `Not saved, the workbook changed when written out: ${after[0]}` };
-  return { ok: true, text };
 }
 
 function readState(value: unknown): { doc: WorkbookDoc; savedAt: string } | undefined {
