@@ -59,6 +59,13 @@ export function measureCliStart(rows: number): StepResult {
   return { step: 'cliStart', rows, status: 'ok', ...timing(r.runs), note: `node + tsx loader + argument parsing; wall of ${r.runs.map((x) => Math.round(x.ms)).join(', ')} ms` };
 }
 
+/** The CLI's export as a user runs it: site file in, xlsx out (it builds both flavours and an engine itself). */
+export function measureCliExport(siteFile: string, outFile: string, rows: number, budgetS: number): StepResult {
+  const r = repeat(['export', siteFile, outFile], budgetS, 1);
+  if (r.failed) return { step: 'cliExport', rows, ...failure(r.failed, budgetS) };
+  return { step: 'cliExport', rows, status: 'ok', ...timing(r.runs), note: 'site file to xlsx: start-up, both workbook flavours, engine over the live one, export, file written; one run' };
+}
+
 export function measureCliBalance(siteFile: string, floor: RootTotals, rows: number, budgetS: number): StepResult {
   const r = repeat(['balance', siteFile, '--json'], budgetS, 3);
   if (r.failed) return { step: 'cliBalance', rows, ...failure(r.failed, budgetS) };

@@ -1,6 +1,6 @@
 // Where the time goes in one step: `npx tsx tests/bench/profile.ts <step> [rows]` runs the step
 // on the bench site under the V8 sampling profiler and prints the functions with the most self
-// time and the project files most often on the stack. Steps: rollup, build, engine, edit, export.
+// time and the project files most often on the stack. Steps: rollup, build, engine, edit, export, import.
 // A tool for reading the figures, not part of `npm run bench`.
 import { Session } from 'node:inspector/promises';
 import type { Site } from '../../src/core/site/model.ts';
@@ -11,7 +11,8 @@ import { BUS_ROLLUP_PLUGIN } from '../../src/engine/rollupPlugin.ts';
 import { generateSite } from './generateSite.ts';
 import { SIZES } from './sizes.ts';
 import { MotorEdits } from './workbookView.ts';
-import { findExporter } from './xlsxModules.ts';
+import { exportWorkbookXlsx, importKvarXlsx } from '../../src/io/xlsx/index.ts';
+import { engineValues } from './steps.ts';
 import { summarise, type Profile } from './profileSummary.ts';
 
 type Prepared = () => Promise<unknown> | unknown;
@@ -34,13 +35,17 @@ async function prepare(step: string, site: Site): Promise<Prepared> {
       for (let k = 0; k < 5; k++) edits.write(hf, sheet, k);
     };
   }
-  if (step === 'export') {
+  if (step === 'export' || step === 'import') {
+    // As the app exports: the portable document, cached results read from the live engine.
     const doc = buildWorkbook(site, { flavour: 'portable' });
-    const exporter = await findExporter();
-    if (!exporter.ok) throw new Error(exporter.why);
-    return () => exporter.fn(doc);
+    const hf = engineOf();
+    const exported = () => exportWorkbookXlsx(doc, { valueAt: engineValues(hf) });
+    if (step === 'export') return exported;
+    const bytes = await exported();
+    hf.destroy();
+    return () => importKvarXlsx(bytes);
   }
-  throw new Error(`unknown step "${step}"; steps: rollup, build, engine, edit, export`);
+  throw new Error(`unknown step "${step}"; steps: rollup, build, engine, edit, export, import`);
 }
 
 async function main(): Promise<void> {

@@ -9,7 +9,7 @@ import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
 import { SHEETS } from '../../src/core/workbook/buildLayout.ts';
 import { measureBrowser } from './browser.ts';
 import { notRun, runPhaseInChild } from './child.ts';
-import { measureCliBalance, measureCliStart } from './cliProcess.ts';
+import { measureCliBalance, measureCliExport, measureCliStart } from './cliProcess.ts';
 import { describeMachine } from './machine.ts';
 import { makePeer, measurePeer, measureStartup, soffice, type Peer } from './peer.ts';
 import { workFiles, type PhaseName } from './phases.ts';
@@ -45,12 +45,15 @@ async function runSize(size: BenchSize, workDir: string, peer: { peer: Peer; sta
   };
   await phase('core', undefined, '');
   await phase('engine', files.live, 'not run: buildWorkbook (live) did not finish');
-  await phase('xlsx', files.portable, 'not run: buildWorkbook (portable) did not finish');
+  await phase('xlsx', files.xlsx, 'not run: the xlsx export (engine phase) did not finish');
   const roots = existsSync(files.roots) ? (JSON.parse(readFileSync(files.roots, 'utf8')) as RootTotals & { cases: string[] }) : undefined;
   const add = (r: StepResult) => (show(r), steps.push(r));
   if (!cli) add({ step: 'cliBalance', rows: size.rows, status: 'not run', note: '--no-cli' });
   else if (!roots) add({ step: 'cliBalance', rows: size.rows, status: 'not run', note: 'the core phase did not finish' });
   else add(measureCliBalance(files.site, roots, size.rows, size.budget.cli));
+  if (!cli) add({ step: 'cliExport', rows: size.rows, status: 'not run', note: '--no-cli' });
+  else if (!existsSync(files.site)) add({ step: 'cliExport', rows: size.rows, status: 'not run', note: 'the core phase did not finish' });
+  else add(measureCliExport(files.site, join(workDir, `cli-${size.rows}.xlsx`), size.rows, size.budget.cliExport));
   if (!peer) {
     for (const step of ['peerGross', 'peerRecalc'] as const) add({ step, rows: size.rows, status: 'not run', note: 'LibreOffice not measured in this run' });
   } else if (!roots || !existsSync(files.xlsx)) {
