@@ -116,6 +116,24 @@ describe('Kvar Ledger in the browser', () => {
     expect(await fb('input').inputValue()).toBe('=KVA.TOTAL(B7,C7)');
   });
 
+  it('fills with the fill handle, moving relative references', async () => {
+    // D6 holds =KVA.TOTAL(B6,C6); drag its handle down over D7 (which fill down already set) and D8.
+    await typeInCell(page, 7, 1, '30');
+    await typeInCell(page, 7, 2, '40');
+    await selectCell(page, 5, 3);
+    const handle = page.locator('.kl-grid-host .ht_master .wtBorder.current.corner').first();
+    const box = await handle.boundingBox();
+    const target = await cell(page, 7, 3).boundingBox();
+    expect(box && target).toBeTruthy();
+    await page.mouse.move((box?.x ?? 0) + 2, (box?.y ?? 0) + 2);
+    await page.mouse.down();
+    await page.mouse.move((target?.x ?? 0) + 10, (target?.y ?? 0) + 8, { steps: 6 });
+    await page.mouse.up();
+    await expect.poll(() => cellText(page, 7, 3)).toBe('50');
+    await selectCell(page, 7, 3);
+    expect(await fb('input').inputValue()).toBe('=KVA.TOTAL(B8,C8)');
+  });
+
   it('copies values at full precision for other programs', async () => {
     // (Clicking the cell that is already active would open its editor, as a double-click does.)
     await selectCell(page, 6, 2);

@@ -87,11 +87,11 @@ describe('files', () => {
   it('imports an equipment list with foreign headers through mapping and preview', async () => {
     // An invented list in MW and V, with one row whose power factor is out of range.
     const csv = [
-      'Item No.,Service,Switchboard,Type,Rated power (MW),Efficiency,Power factor,Load factor,Voltage (V)',
-      'P-201,raw water pump 1,MCC-1,motor,0.09,0.95,0.86,0.8,400',
-      'P-202,raw water pump 2,MCC-1,motor,0.09,0.95,0.86,0.8,400',
-      'L-01,lighting,MCC-1,load,0.012,,0.9,1,400',
-      'P-203,faulty row,MCC-1,motor,0.05,0.95,1.3,1,400',
+      'Item No.,Service,Switchboard,Type,Rated power (MW),Efficiency,Power factor,Load factor,Voltage (V),<img src=x onerror=alert(1)>',
+      'P-201,raw water pump 1,MCC-1,motor,0.09,0.95,0.86,0.8,400,',
+      'P-202,raw water pump 2,MCC-1,motor,0.09,0.95,0.86,0.8,400,',
+      'L-01,lighting,MCC-1,load,0.012,,0.9,1,400,',
+      'P-203,faulty row,MCC-1,motor,0.05,0.95,1.3,1,400,',
     ].join('\n');
     const path = join(work, 'client-list.csv');
     await writeFile(path, csv);
@@ -100,6 +100,10 @@ describe('files', () => {
     await dlg.waitFor();
     // Suggested: "Rated power (MW)" feeds p_kw, read in MW.
     expect(await dlg.locator('[data-testid="map-E"]').inputValue()).toBe('p_kw');
+    // A header made of markup is shown as text and maps to nothing.
+    expect(await dlg.locator('img').count()).toBe(0);
+    expect(await dlg.textContent()).toContain('<img src=x onerror=alert(1)>');
+    expect(await dlg.locator('[data-testid="map-J"]').inputValue()).toBe('');
     await screenshot(page, '08-import-mapping');
     await dlg.locator('[data-testid="import-next"]').click();
     expect(await dlg.locator('[data-testid="import-counts"]').textContent()).toMatch(/4 rows: 3 fine, 0 with warnings, 1 with errors/);
