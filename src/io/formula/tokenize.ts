@@ -37,13 +37,14 @@ const COL = String.raw`\$?[A-Za-z]{1,3}`;
 const ROW = String.raw`\$?[0-9]+`;
 /** A reference must not run on into a name, a call or a number. */
 const END = String.raw`(?![A-Za-z0-9_.(!])`;
-const REF = new RegExp(
-  String.raw`^(?:${SHEET})?(?:${CELL}(?::(?:${SHEET})?${CELL})?|${COL}:${COL}|${ROW}:${ROW})${END}`,
-);
-const NUMBER = /^(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)(?:[eE][+-]?[0-9]+)?/;
-const NAME = /^[A-Za-z_\\][A-Za-z0-9_.]*/;
-const ERROR = /^#(?:NULL!|DIV\/0!|VALUE!|REF!|NAME\?|NUM!|N\/A|SPILL!|CYCLE!|ERROR!|LIC!|GETTING_DATA)/i;
-const SPACE = /^\s+/;
+// Sticky patterns, matched at an index of the whole text: no copy of the rest at every step,
+// so long formulas tokenize in linear time.
+const REF = new RegExp(String.raw`(?:${SHEET})?(?:${CELL}(?::(?:${SHEET})?${CELL})?|${COL}:${COL}|${ROW}:${ROW})${END}`, 'y');
+const NUMBER = /(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)(?:[eE][+-]?[0-9]+)?/y;
+const NAME = /[A-Za-z_\\][A-Za-z0-9_.]*/y;
+const ERROR = /#(?:NULL!|DIV\/0!|VALUE!|REF!|NAME\?|NUM!|N\/A|SPILL!|CYCLE!|ERROR!|LIC!|GETTING_DATA)/iy;
+const SPACE = /\s+/y;
+const BOOL = /^(?:TRUE|FALSE)$/i;
 const OPERATORS = ['<>', '<=', '>=', '+', '-', '*', '/', '^', '&', '=', '<', '>', '%'];
 const SINGLE: Readonly<Record<string, TokenKind>> = {
   '(': 'lparen',
@@ -53,6 +54,13 @@ const SINGLE: Readonly<Record<string, TokenKind>> = {
   '{': 'lbrace',
   '}': 'rbrace',
 };
+
+/** Length of the match of a sticky pattern at `i`, or 0. */
+function matchAt(re: RegExp, text: string, i: number): number {
+  re.lastIndex = i;
+  const m = re.exec(text);
+  return m ? m[0].length : 0;
+}
 
 /** Read a string literal starting at `i` (a double quote). */
 function readString(text: string, i: number): { end: number; unterminated: boolean } {
@@ -75,28 +83,26 @@ export function tokenize(text: string): Token[] {
     i = end;
   };
   while (i < text.length) {
-    const rest = text.slice(i);
-    const c = rest[0] as string;
-    let m: RegExpExecArray | null;
+    const c = text[i] as string;
+    let n: number;
     if (c === '"') {
       const s = readString(text, i);
       push('string', s.end, s.unterminated);
-    } else if ((m = SPACE.exec(rest))) push('space', i + m[0].length);
-    else if ((m = ERROR.exec(rest))) push('error', i + m[0].length);
-    else if ((m = REF.exec(rest))) push('ref', i + m[0].length);
-    else if ((m = NUMBER.exec(rest))) push('number', i + m[0].length);
+    } else if ((n = matchAt(SPACE, text, i))) push('space', i + n);
+    else if (c === '#' && (n = matchAt(ERROR, text, i))) push('error', i + n);
+    else if ((n = matchAt(REF, text, i))) push('ref', i + n);
+    else if ((n = matchAt(NUMBER, text, i))) push('number', i + n);
     else if (c === "'") {
       // A quoted sheet name not followed by a valid reference: keep it together for the message.
       const close = text.indexOf("'", i + 1);
       push('unknown', close < 0 ? text.length : close + 1);
-    } else if ((m = NAME.exec(rest))) {
-      const word = m[0];
-      const end = i + word.length;
+    } else if ((n = matchAt(NAME, text, i))) {
+      const end = i + n;
       if (text[end] === '(') push('func', end);
-      else push(/^(TRUE|FALSE)$/i.test(word) ? 'bool' : 'name', end);
+      else push(BOOL.test(text.slice(i, end)) ? 'bool' : 'name', end);
     } else if (SINGLE[c]) push(SINGLE[c] as TokenKind, i + 1);
     else {
-      const op = OPERATORS.find((o) => rest.startsWith(o));
+      const op = OPERATORS.find((o) => text.startsWith(o, i));
       if (op) push('op', i + op.length);
       else push('unknown', i + 1);
     }
