@@ -6,7 +6,7 @@ import { niceCeil, type BusBar } from './chartData.ts';
 
 const ROW = 22, LABEL = 92, PAD = 10, VALUE = 58;
 
-export function busBarChart(bars: readonly BusBar[], width = 360): SVGSVGElement {
+export function busBarChart(bars: readonly BusBar[], width = 380): SVGSVGElement {
   const max = niceCeil(Math.max(1, ...bars.map((b) => Math.max(b.absorbed, b.delivered, Math.abs(b.net)))));
   const plotLeft = LABEL + PAD, plotRight = width - VALUE;
   const zero = (plotLeft + plotRight) / 2;

@@ -10,19 +10,18 @@ export function triangleChart(t: Triangle, width = 380): SVGSVGElement {
   const pMax = Math.max(1, ...pts.map((x) => Math.abs(x.p)));
   const qUp = Math.max(0, ...pts.map((x) => x.q));
   const qDown = Math.max(0, ...pts.map((x) => -x.q));
-  const left = 44, right = width - 150, top = 16;
+  const left = 44, right = width - 178, top = 16;
   // One scale for P and Q keeps the angle φ true; the drawing is as tall as the triangles need.
   const s = Math.min((right - left) / pMax, 170 / Math.max(1, qUp + qDown));
   const y0 = top + qUp * s;
-  const height = Math.max(70, y0 + qDown * s + 30);
+  const height = Math.max(80, y0 + qDown * s + 34);
   const X = (p: number) => left + Math.abs(p) * s;
   const Y = (q: number) => y0 - q * s;
   const root = svg('svg', { viewBox: `0 0 ${width} ${height}`, width, height, class: 'kl-chart kl-triangle', role: 'img', 'aria-label': `Power triangle at ${t.bus}` });
   root.append(
     svg('line', { x1: left, x2: X(pMax) + 8, y1: y0, y2: y0, class: 'kl-axis' }),
-    svg('text', { x: left - 6, y: Math.max(top + 4, y0 - 4), class: 'kl-axis-label', 'text-anchor': 'end' }, qUp > 0 ? 'lag ↑' : ''),
-    svg('text', { x: left - 6, y: y0 + 12, class: 'kl-axis-label', 'text-anchor': 'end' }, qDown > 0 ? 'lead ↓' : ''),
-    svg('text', { x: X(pMax) + 12, y: y0 + 4, class: 'kl-axis-label' }, 'P'),
+    // How to read it, under the drawing where it cannot collide with the triangles.
+    svg('text', { x: left, y: height - 6, class: 'kl-axis-label' }, 'P → · Q ↑ absorbed (lagging) · Q ↓ delivered (leading)'),
   );
   const draw = (pt: TrianglePoint, cls: string, label: string) => {
     const x = X(pt.p), y = Y(pt.q);
@@ -37,7 +36,6 @@ export function triangleChart(t: Triangle, width = 380): SVGSVGElement {
   };
   draw(t.before, 'is-before', 'before');
   if (t.after) draw(t.after, 'is-after', 'after');
-  root.append(svg('text', { x: (left + X(t.before.p)) / 2, y: y0 + (qDown > 0 && qUp === 0 ? -6 : 14), class: 'kl-axis-label', 'text-anchor': 'middle' }, `P = ${formatNumber(t.before.p, '0')} kW`));
   return root;
 }
 
