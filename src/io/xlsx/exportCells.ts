@@ -7,7 +7,7 @@ import type { CellResult } from '../../engine/index.ts';
 import { expandFormula, type ExpandResult } from '../formula/expand.ts';
 import { parseFormula } from '../formula/parse.ts';
 import { toFileFormula, withoutText } from './functionNames.ts';
-import { fromShape, toShape } from './formulaShape.ts';
+import { compileShape, renderShape, toShape, type ShapeTemplate } from './formulaShape.ts';
 import { columnLetter } from './sheetNames.ts';
 
 /** Longest formula other programs accept (characters) and deepest nesting of calls. */
@@ -92,7 +92,7 @@ const BLANK: CellResult = { ok: true, value: null };
 
 /** What a formula becomes in the file, worked out once per shape (see formulaShape.ts). */
 type Conversion =
-  | { readonly ok: true; readonly shape: string; readonly catalogue: readonly string[]; readonly newer: readonly string[] }
+  | { readonly ok: true; readonly file: ShapeTemplate; readonly tooDeep: boolean; readonly catalogue: readonly string[]; readonly newer: readonly string[] }
   | { readonly ok: false; readonly message: string };
 
 function convert(formula: string, row1: number): Conversion {
@@ -102,22 +102,49 @@ function convert(formula: string, row1: number): Conversion {
   if (!expanded.ok) return { ok: false, message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead` };
   const file = toFileFormula(expanded.formula);
   if (file.unknown.length > 0) return { ok: false, message: `the formula uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have; its value is written instead` };
-  return { ok: true, shape: toShape(xmlSafe(file.text), row1), catalogue, newer: file.newer };
+  const text = xmlSafe(file.text);
+  // Nesting does not change with the row numbers: checked once per shape.
+  return { ok: true, file: compileShape(toShape(text, row1)), tooDeep: nesting(text) > MAX_NESTING, catalogue, newer: file.newer };
 }
 
-/** Checks that depend on the written text itself (its length grows with row numbers). */
-function sizeProblem(text: string): string | undefined {
+/** Checks of the written text (its length grows with row numbers; its nesting is the shape's). */
+function sizeProblem(text: string, tooDeep: boolean): string | undefined {
   if (text.length > MAX_FORMULA_LENGTH) {
     return `the formula is ${text.length} characters long once written out; other programs accept at most ${MAX_FORMULA_LENGTH} (move nested calls into cells of their own); its value is written instead`;
   }
-  if (nesting(text) > MAX_NESTING) return `the formula nests calls deeper than the ${MAX_NESTING} levels other programs accept; its value is written instead`;
+  if (tooDeep) return `the formula nests calls deeper than the ${MAX_NESTING} levels other programs accept; its value is written instead`;
   return undefined;
+}
+
+/** The last shape met in a column: the next row's formula is most often the same shape again. */
+interface ColumnShape {
+  readonly source: ShapeTemplate;
+  readonly conv: Conversion;
 }
 
 /** Convert one sheet, with each cell's result from `valueOf`. */
 export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells {
   const out: SheetCells = { rows: [], catalogue: new Set(), newer: new Set(), issues: [] };
   const shapes = new Map<string, Conversion>();
+  const lastInColumn: (ColumnShape | undefined)[] = [];
+  /** The conversion of a formula: the column's last shape when it writes out to this very text, else by shape. */
+  const conversionOf = (formula: string, r: number, c: number): Conversion => {
+    const last = lastInColumn[c];
+    if (last && renderShape(last.source, r + 1) === formula) return last.conv;
+    const shape = toShape(formula, r + 1);
+    const key = `${c}|${shape}`;
+    let conv = shapes.get(key);
+    if (!conv) {
+      conv = convert(formula, r + 1);
+      shapes.set(key, conv);
+      if (conv.ok) {
+        conv.catalogue.forEach((f) => out.catalogue.add(f));
+        conv.newer.forEach((n) => out.newer.add(n));
+      }
+    }
+    lastInColumn[c] = { source: compileShape(shape), conv };
+    return conv;
+  };
   sheet.cells.forEach((row, r) => {
     const cells: ExportCell[] = [];
     row.forEach((content, c) => {
@@ -126,22 +153,11 @@ export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells 
         cells.push(content === null || content === '' ? { kind: 'empty' } : valueCell(result));
         return;
       }
-      const formula = content as string;
-      const key = `${c}|${toShape(formula, r + 1)}`;
-      let conv = shapes.get(key);
-      if (!conv) {
-        conv = convert(formula, r + 1);
-        shapes.set(key, conv);
-        if (conv.ok) {
-          conv.catalogue.forEach((f) => out.catalogue.add(f));
-          conv.newer.forEach((n) => out.newer.add(n));
-        }
-      }
-      const where = `${sheet.name}!${columnLetter(c)}${r + 1}`;
-      const text = conv.ok ? fromShape(conv.shape, r + 1) : undefined;
-      const problem = conv.ok ? sizeProblem(text as string) : conv.message;
+      const conv = conversionOf(content as string, r, c);
+      const text = conv.ok ? renderShape(conv.file, r + 1) : undefined;
+      const problem = conv.ok ? sizeProblem(text as string, conv.tooDeep) : conv.message;
       if (problem !== undefined) {
-        out.issues.push({ where, message: problem });
+        out.issues.push({ where: `${sheet.name}!${columnLetter(c)}${r + 1}`, message: problem });
         cells.push(valueCell(result));
         return;
       }

@@ -6,7 +6,7 @@ import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { expandFormula } from '../../../src/io/formula/expand.ts';
 import { exportWorkbookXlsx } from '../../../src/io/xlsx/export.ts';
-import { fromShape, toShape } from '../../../src/io/xlsx/formulaShape.ts';
+import { compileShape, fromShape, renderShape, toShape } from '../../../src/io/xlsx/formulaShape.ts';
 import { toFileFormula } from '../../../src/io/xlsx/functionNames.ts';
 
 describe('formula shapes', () => {
@@ -19,6 +19,16 @@ describe('formula shapes', () => {
     expect(fromShape(shape, 12)).toBe(f);
     expect(fromShape(shape, 40)).toBe("=KVAR.MOTOR(F40,$G$3,H40*2)+'Sheet 1'!A39+Loads!B$9+SUM(C:C)+LOG10(A41)+\"A12\"");
     expect(toShape('=F40*2', 40)).toBe(toShape('=F7*2', 7));
+  });
+
+  it('write out from a compiled shape exactly as from the shape text', () => {
+    for (const f of ["=KVAR.MOTOR(F12,$G$3,H12*2)+'Sheet 1'!A11+Loads!B$9+SUM(C:C)+LOG10(A13)+\"A12\"", '=1+2', '=A12', '="B3"&C12&"D4"']) {
+      const shape = toShape(f, 12);
+      for (const row of [1, 12, 13, 999]) expect(renderShape(compileShape(shape), row)).toBe(fromShape(shape, row));
+      expect(renderShape(compileShape(shape), 12)).toBe(f);
+    }
+    // A different formula in the same column is not taken for the same shape.
+    expect(renderShape(compileShape(toShape('=F12*2', 12)), 13)).not.toBe('=F12*2');
   });
 
   it('give the same file formulas as converting every cell on its own (a template, portable)', async () => {
