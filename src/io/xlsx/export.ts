@@ -76,9 +76,11 @@ const BLANK: CellResult = { ok: true, value: null };
 
 /** The site settings of a workbook made by the builder (as the app reads them), for the cover. */
 function settingsOf(doc: WorkbookDoc): SiteSettings | undefined {
-  if (!doc.sheets.some((s) => s.name === SHEETS.settings)) return undefined;
+  const sheets = doc.sheets.filter((s) => s.name === SHEETS.settings);
+  if (sheets.length === 0) return undefined;
   try {
-    return siteFromWorkbook(doc).site.settings;
+    // The settings sheet alone: reading every equipment row only to drop it took a second on big sites.
+    return siteFromWorkbook({ ...doc, sheets }).site.settings;
   } catch {
     return undefined;
   }
@@ -130,7 +132,7 @@ function excelValue(c: ExportCell | undefined): ExcelValue {
 function fingerprintCells(row: readonly ExportCell[]): FingerprintCell[] {
   const out: FingerprintCell[] = [];
   row.forEach((c, col) => {
-    if (c.kind === 'formula') out.push({ col, formula: c.formula });
+    if (c.kind === 'formula') out.push({ col, normalised: c.normalised });
     else if (c.kind === 'value') out.push({ col, value: c.value });
     else if (c.kind === 'error') out.push({ col, error: c.error });
   });

@@ -8,6 +8,7 @@ import { expandFormula, type ExpandResult } from '../formula/expand.ts';
 import { parseFormula } from '../formula/parse.ts';
 import { toFileFormula, withoutText } from './functionNames.ts';
 import { compileShape, renderShape, toShape, type ShapeTemplate } from './formulaShape.ts';
+import { normaliseFormula } from './metadata.ts';
 import { columnLetter } from './sheetNames.ts';
 
 /** Longest formula other programs accept (characters) and deepest nesting of calls. */
@@ -25,7 +26,8 @@ export type ExportCell =
   | { readonly kind: 'empty' }
   | { readonly kind: 'value'; readonly value: number | string | boolean }
   | { readonly kind: 'error'; readonly error: string }
-  | { readonly kind: 'formula'; readonly formula: string; readonly result: CellResult };
+  /** `normalised`: normaliseFormula(formula), for the row fingerprints. */
+  | { readonly kind: 'formula'; readonly formula: string; readonly normalised: string; readonly result: CellResult };
 
 export interface CellIssue {
   /** "Sheet!B7" */
@@ -92,7 +94,7 @@ const BLANK: CellResult = { ok: true, value: null };
 
 /** What a formula becomes in the file, worked out once per shape (see formulaShape.ts). */
 type Conversion =
-  | { readonly ok: true; readonly file: ShapeTemplate; readonly tooDeep: boolean; readonly catalogue: readonly string[]; readonly newer: readonly string[] }
+  | { readonly ok: true; readonly file: ShapeTemplate; readonly normalised: ShapeTemplate; readonly tooDeep: boolean; readonly catalogue: readonly string[]; readonly newer: readonly string[] }
   | { readonly ok: false; readonly message: string };
 
 function convert(formula: string, row1: number): Conversion {
@@ -104,7 +106,9 @@ function convert(formula: string, row1: number): Conversion {
   if (file.unknown.length > 0) return { ok: false, message: `the formula uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have; its value is written instead` };
   const text = xmlSafe(file.text);
   // Nesting does not change with the row numbers: checked once per shape.
-  return { ok: true, file: compileShape(toShape(text, row1)), tooDeep: nesting(text) > MAX_NESTING, catalogue, newer: file.newer };
+  const shape = toShape(text, row1);
+  // Normalising leaves row numbers and the offset marks as they are, so it too is done once per shape.
+  return { ok: true, file: compileShape(shape), normalised: compileShape(normaliseFormula(shape)), tooDeep: nesting(text) > MAX_NESTING, catalogue, newer: file.newer };
 }
 
 /** Checks of the written text (its length grows with row numbers; its nesting is the shape's). */
@@ -161,7 +165,7 @@ export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells 
         cells.push(valueCell(result));
         return;
       }
-      cells.push({ kind: 'formula', formula: text as string, result });
+      cells.push({ kind: 'formula', formula: text as string, normalised: renderShape((conv as { normalised: ShapeTemplate }).normalised, r + 1), result });
     });
     out.rows.push(cells);
   });

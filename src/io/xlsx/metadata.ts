@@ -29,7 +29,11 @@ export interface ExportMeta {
 }
 
 /** A cell as written or read back, reduced to what a fingerprint compares. */
-export type FingerprintCell = { readonly col: number; readonly formula: string } | { readonly col: number; readonly value: number | string | boolean } | { readonly col: number; readonly error: string };
+export type FingerprintCell =
+  | { readonly col: number; readonly formula: string }
+  /** A formula already normalised (normaliseFormula of its text), e.g. worked out once per shape. */
+  | { readonly col: number; readonly normalised: string }
+  | { readonly col: number; readonly value: number | string | boolean } | { readonly col: number; readonly error: string };
 
 /**
  * A formula in a form that survives another program's re-saving: no spaces, upper-case names,
@@ -73,6 +77,7 @@ function fnv1a(text: string): string {
 
 export function rowFingerprint(cells: readonly FingerprintCell[]): string {
   const parts = cells.map((c) => {
+    if ('normalised' in c) return `${c.col}f${c.normalised}`;
     if ('formula' in c) return `${c.col}f${normaliseFormula(c.formula)}`;
     if ('error' in c) return `${c.col}e${c.error}`;
     return `${c.col}${typeof c.value === 'number' ? 'n' : typeof c.value === 'boolean' ? 'b' : 's'}${String(c.value)}`;

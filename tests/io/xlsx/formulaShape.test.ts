@@ -8,6 +8,9 @@ import { expandFormula } from '../../../src/io/formula/expand.ts';
 import { exportWorkbookXlsx } from '../../../src/io/xlsx/export.ts';
 import { compileShape, fromShape, renderShape, toShape } from '../../../src/io/xlsx/formulaShape.ts';
 import { toFileFormula } from '../../../src/io/xlsx/functionNames.ts';
+import { exportSheetCells } from '../../../src/io/xlsx/exportCells.ts';
+import { normaliseFormula } from '../../../src/io/xlsx/metadata.ts';
+import { generateSite } from '../../bench/generateSite.ts';
 
 describe('formula shapes', () => {
   it('turn relative rows into offsets and back', () => {
@@ -48,5 +51,23 @@ describe('formula shapes', () => {
       }));
     }
     expect(compared).toBeGreaterThan(200);
+  });
+
+  it('give per shape the same normalised text (for row fingerprints) as normalising each written formula', () => {
+    const { site } = readSiteFile(readFileSync('templates/pumping-station.json', 'utf8'));
+    const docs = [buildWorkbook(site, { flavour: 'portable' }), buildWorkbook(generateSite({ rows: 1_000, buses: 30 }), { flavour: 'portable' })];
+    let compared = 0;
+    for (const doc of docs) {
+      for (const s of doc.sheets) {
+        for (const row of exportSheetCells(() => ({ ok: true, value: null }), s).rows) {
+          for (const c of row) {
+            if (c.kind !== 'formula') continue;
+            if (c.normalised !== normaliseFormula(c.formula)) expect([s.name, c.formula, c.normalised]).toEqual([s.name, c.formula, normaliseFormula(c.formula)]);
+            compared++;
+          }
+        }
+      }
+    }
+    expect(compared).toBeGreaterThan(5_000);
   });
 });
