@@ -103,9 +103,10 @@ function allocate(candidates: readonly string[], before: readonly CaseBalance[],
     const byBus = new Map(bal.buses.map((x) => [x.bus, x]));
     const weights = candidates.map((b) => Math.max(0, byBus.get(b)?.own_q_kvar ?? 0));
     const sum = weights.reduce((a, w) => a + w, 0);
+    // need/sum × weight (or need/count): the Compensation sheet computes it in this order too.
+    const n = need[i] ?? 0;
     candidates.forEach((b, k) => {
-      const w = sum > 0 ? (weights[k] as number) / sum : 1 / candidates.length;
-      (out.get(b) as Record<string, number>)[bal.case] = (need[i] ?? 0) * w;
+      (out.get(b) as Record<string, number>)[bal.case] = sum > 0 ? (n / sum) * (weights[k] as number) : n / candidates.length;
     });
   });
   return out;

@@ -77,7 +77,7 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
   const lead = settingRef('leadInUse');
   const reqKind = settingRef('requirement');
   // Below the buses, after one blank row: how the site need is shared among the banks.
-  const summaryRows = { count: buses.length + 2, weight: buses.length + 3 };
+  const summaryRows = { count: buses.length + 2, weight: buses.length + 3, perKvar: buses.length + 4, even: buses.length + 5 };
   const switching = busesWithSwitching(buses, childrenOf, choices);
   const n = buses.length;
   buses.forEach((b, i) => {
@@ -122,10 +122,12 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
       out[cols.needCap[k] as number] =
         `=MAX(0,IF(${reqKind}="${REQUIREMENT_TEXT.tanphi}",KVAR.TOTAN(${P},${Q},${settingRef('tanLag')}),KVAR.TOPF(${P},${Q},${settingRef('cosTarget')})))`;
       if (hasBank) {
-        // The bank's share of the site's need: by the lagging kvar of its bus's own items.
+        // The bank's share of the site's need: by the lagging kvar of its bus's own items, as
+        // need/weight × own kvar, or need/count when no bank's bus lags (one of the two summary
+        // terms is 0). Every edit revisits this cell on every bank: kept short.
         const ownQ = cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true);
         const sum = (row: number) => absCell(row, cols.needCap[k] as number);
-        const share = `${root(cols.needCap)}*IF(${sum(summaryRows.weight)}=0,1/${absCell(summaryRows.count, cols.total)},MAX(0,${ownQ})/${sum(summaryRows.weight)})`;
+        const share = `(${sum(summaryRows.perKvar)}*MAX(0,${ownQ})+${sum(summaryRows.even)})`;
         out[cols.stepsIn[k] as number] = `=IF(OR(${step}=0,${steps}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
         out[cols.capOut[k] as number] = `=${fixed}+${step}*${at(cols.stepsIn)}`;
       }
@@ -208,5 +210,16 @@ function summaryBlock(input: CompensationSheetInput): CellContent[][] {
     const terms = withBank.map(({ r }) => `IF(${absCell(r, cols.total)}>0,MAX(0,${cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true)}),0)`);
     weight[cols.needCap[k] as number] = terms.length === 0 ? '=0' : `=${terms.join('+')}`;
   });
-  return [blank(), count, weight];
+  const perKvar = blank();
+  perKvar[cols.bus] = SUMMARY_LABELS.perKvar;
+  const even = blank();
+  even[cols.bus] = SUMMARY_LABELS.even;
+  const r0 = n + 3;
+  cases.forEach((_, k) => {
+    const c = cols.needCap[k] as number;
+    const [need, w] = [absCell(1, c), absCell(r0, c)];
+    perKvar[c] = `=IF(${w}=0,0,${need}/${w})`;
+    even[c] = `=IF(${w}=0,${need}/${absCell(n + 2, cols.total)},0)`;
+  });
+  return [blank(), count, weight, perKvar, even];
 }

@@ -38,6 +38,8 @@ export const NOTE_HEADER = 'Design notes';
 export const SUMMARY_LABELS = {
   count: 'Buses with a bank',
   weight: 'Lagging kvar of their own items (kvar)',
+  perKvar: 'Site need per kvar of that (kvar/kvar)',
+  even: 'Site need per bank when none lags (kvar)',
 } as const;
 
 export interface CompensationColumns {
