@@ -137,6 +137,19 @@ describe('files', () => {
     expect(await cellText(page, 2, 0)).toBe(second);
   });
 
+  it('brings back the workbook a template replaced', async () => {
+    const before = await page.locator('[data-testid="title"]').inputValue();
+    await menu('menu-template');
+    await page.click('[data-testid="template-solar-collector"]');
+    await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toMatch(/Solar/);
+    expect(await page.locator('[data-testid="notice"]').textContent()).toMatch(/set aside: Workbook → Bring back the replaced workbook/);
+    await menu('menu-bring-back');
+    await page.locator('[data-testid="confirm"] .kl-btn-primary').click();
+    await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toBe(before);
+    await openSheet(page, 'Motors');
+    expect([await cellText(page, 1, 0), await cellText(page, 2, 0)].sort()).toEqual(['P-201', 'P-202']);
+  });
+
   it('logged no console errors', () => {
     expect(browser.errors).toEqual([]);
   });

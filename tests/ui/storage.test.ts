@@ -114,4 +114,17 @@ describe('WorkbookStore', () => {
     const loaded = await store.load();
     expect(loaded.found && loaded.doc.title).toBe('Kept');
   });
+
+  it('sets a replaced workbook aside apart from the autosaved states', async () => {
+    const store = await storeOn(new IDBFactory());
+    expect(await store.loadSetAside()).toBeUndefined();
+    await store.save(book('Open one', 50));
+    expect((await store.setAside(book('Replaced', 60))).ok).toBe(true);
+    await store.save(book('Open one', 70));
+    await store.save(book('Open one', 80));
+    expect((await store.loadSetAside())?.doc).toEqual(book('Replaced', 60));
+    const bad = await store.setAside({ ...book('Broken', 1), sheets: [] });
+    expect(!bad.ok && bad.message).toMatch(/at least one sheet/);
+    expect((await store.loadSetAside())?.doc.title).toBe('Replaced');
+  });
 });

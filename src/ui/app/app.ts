@@ -113,6 +113,20 @@ export class App {
     if (opts.changed) this.autosaver?.changed();
   }
 
+  /**
+   * Replace the open workbook by another (template, file, import, bringing one back): the one on
+   * screen is first set aside in the browser, so Workbook → Bring back returns it.
+   */
+  async replaceWith(doc: WorkbookDoc, note: string): Promise<void> {
+    let aside = '';
+    if (this.store) {
+      await this.flush();
+      const r = await this.store.setAside(this.session.toDoc());
+      aside = r.ok ? ' The workbook it replaced is set aside: Workbook → Bring back the replaced workbook.' : ` The workbook it replaced could not be set aside (${r.message}).`;
+    }
+    this.open(doc, { note: note + aside, changed: true });
+  }
+
   currentSheet(): number {
     return this.sheet;
   }

@@ -7,7 +7,7 @@ import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from 
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
 import type { App } from './app.ts';
 
-const REPLACE_NOTE = 'The open workbook is replaced. Its last state stays in this browser once more (Workbook → Restore the previous state); save it to a file first to keep it for good.';
+const REPLACE_NOTE = 'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
 
 export async function newFromTemplate(app: App): Promise<void> {
   const ids = templateIds();
@@ -18,7 +18,7 @@ export async function newFromTemplate(app: App): Promise<void> {
     open.addEventListener('click', async () => {
       dlg.close();
       try {
-        app.open(await templateWorkbook(info.id), { note: `Opened the template "${info.title}".`, changed: true });
+        await app.replaceWith(await templateWorkbook(info.id), `Opened the template "${info.title}".`);
       } catch (e) {
         app.status.show(e instanceof Error ? e.message : String(e), 'error', 0);
       }
@@ -48,7 +48,7 @@ export async function openFile(app: App): Promise<void> {
       const { openXlsx } = await import('./handOff.ts');
       const x = await openXlsx(new Uint8Array(await file.arrayBuffer()));
       if (!x.ok) return refused(app, `"${file.name}" cannot be opened: ${x.message}`);
-      app.open(x.doc, { note: [`Opened "${file.name}".`, ...x.notes].join(' '), changed: true });
+      await app.replaceWith(x.doc, [`Opened "${file.name}".`, ...x.notes].join(' '));
     } catch (e) {
       refused(app, `"${file.name}" cannot be opened: ${e instanceof Error ? e.message : String(e)}`);
     }
@@ -56,7 +56,7 @@ export async function openFile(app: App): Promise<void> {
   }
   const r = await readNativeFile(file);
   if (!r.ok) return refused(app, r.message);
-  app.open(r.doc, { note: `Opened "${file.name}".`, changed: true });
+  await app.replaceWith(r.doc, `Opened "${file.name}".`);
 }
 
 export function saveFile(app: App): void {
@@ -65,19 +65,19 @@ export function saveFile(app: App): void {
   else app.status.show(r.message, 'error', 0);
 }
 
-export async function restorePrevious(app: App): Promise<void> {
-  await app.flush();
-  const prev = await app.store?.loadPrevious();
-  if (!prev) {
-    app.status.show('There is no earlier state in this browser.');
+/** Swap the open workbook with the one set aside when it was last replaced. */
+export async function bringBack(app: App): Promise<void> {
+  const aside = await app.store?.loadSetAside();
+  if (!aside) {
+    app.status.show('No workbook has been replaced in this browser yet.');
     return;
   }
-  const when = new Date(prev.savedAt).toLocaleString();
-  const ok = await confirmDialog('Restore the previous state?', [
-    `"${prev.doc.title}", as it was saved at ${when}, replaces the open workbook.`,
-    'The open workbook becomes the previous state in turn, so this can be reversed the same way.',
-  ], 'Restore');
-  if (ok) app.open(prev.doc, { note: `Restored the state of ${when}.`, changed: true });
+  const when = new Date(aside.savedAt).toLocaleString();
+  const ok = await confirmDialog('Bring back the replaced workbook?', [
+    `"${aside.doc.title}", as it was when it was replaced (${when}), takes the place of the open workbook.`,
+    'The open workbook is set aside in turn, so this can be reversed the same way.',
+  ], 'Bring back');
+  if (ok) await app.replaceWith(aside.doc, `Brought back "${aside.doc.title}".`);
 }
 
 export async function exportXlsx(app: App): Promise<void> {

@@ -5,7 +5,7 @@ import { menuButton } from '../menu.ts';
 import { openAbout } from '../dialogs/about.ts';
 import { deleteRows, fillDown, insertRows } from '../grid/gridMenu.ts';
 import type { App } from './app.ts';
-import { exportXlsx, importEquipmentList, newFromTemplate, openFile, restorePrevious, saveFile } from './fileActions.ts';
+import { bringBack, exportXlsx, importEquipmentList, newFromTemplate, openFile, saveFile } from './fileActions.ts';
 import type { PanelName } from './sidePanel.ts';
 
 function mark(): SVGSVGElement {
@@ -29,7 +29,7 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
     { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
     { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
     { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
-    { label: 'Restore the previous state…', run: () => void restorePrevious(app), testId: 'menu-restore', enabled: () => app.store !== undefined },
+    { label: 'Bring back the replaced workbook…', run: () => void bringBack(app), testId: 'menu-bring-back', enabled: () => app.store !== undefined },
     'separator',
     { label: 'Import equipment list…', hint: '.xlsx .csv', run: () => void importEquipmentList(app), testId: 'menu-import' },
     { label: 'Export for other spreadsheet programs', hint: '.xlsx', run: () => void exportXlsx(app), testId: 'menu-export' },

@@ -132,7 +132,7 @@ export async function runImport(app: App, file: File): Promise<void> {
     }
     dlg.close();
     const left = r.dropped > 0 ? `, ${r.dropped} row(s) with errors left out` : '';
-    app.open(r.doc, { note: `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}). The workbook before the import: Workbook → Restore the previous state.`, changed: true });
+    void app.replaceWith(r.doc, `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`);
   };
 
   back.addEventListener('click', () => ((step = 'map'), render()));

@@ -9,6 +9,8 @@ export const DB_NAME = 'kvar-ledger';
 const STORE = 'workbooks';
 export const LAST_GOOD = 'last-good';
 export const PREVIOUS = 'previous';
+/** The workbook that was open before a template, file or import replaced it. */
+export const SET_ASIDE = 'set-aside';
 
 export interface StoredState {
   readonly text: string;
@@ -111,10 +113,31 @@ export class WorkbookStore {
     return { found: false, ...(last !== undefined ? { note: 'The saved workbook in this browser could not be read.' } : {}) };
   }
 
-  /** The state before the last one, for "restore previous". */
+  /** The state before the last one (what load() falls back to). */
   async loadPrevious(): Promise<{ doc: WorkbookDoc; savedAt: string } | undefined> {
     const tx = this.db.transaction(STORE, 'readonly');
     return readState(await request(tx.objectStore(STORE).get(PREVIOUS)));
+  }
+
+  /** Keep a workbook that is about to be replaced, so it can be brought back. */
+  async setAside(doc: WorkbookDoc, now: Date = new Date()): Promise<SaveResult> {
+    const ser = serializeForStorage(doc);
+    if (!ser.ok) return { ok: false, reason: 'invalid', message: ser.message };
+    const savedAt = now.toISOString();
+    try {
+      const tx = this.db.transaction(STORE, 'readwrite');
+      const finished = done(tx);
+      tx.objectStore(STORE).put({ text: ser.text, savedAt, title: doc.title } satisfies StoredState, SET_ASIDE);
+      await finished;
+      return { ok: true, savedAt, unchanged: false };
+    } catch (e) {
+      return { ok: false, reason: 'storage', message: describeStorageError(e) };
+    }
+  }
+
+  async loadSetAside(): Promise<{ doc: WorkbookDoc; savedAt: string } | undefined> {
+    const tx = this.db.transaction(STORE, 'readonly');
+    return readState(await request(tx.objectStore(STORE).get(SET_ASIDE)));
   }
 
   close(): void {
