@@ -41,6 +41,8 @@ export type FingerprintCell =
  */
 export function normaliseFormula(text: string): string {
   const body = text.startsWith('=') ? text.slice(1) : text;
+  // Most formulas have no text literal and no quoted sheet name: one pass, no splitting.
+  if (!body.includes('"') && !body.includes("'")) return normaliseOutsideText(body);
   // Text literals stay exactly as written, quoted sheet names lose only needless quotes;
   // every other rule is a plain substitution.
   return body
