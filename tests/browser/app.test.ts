@@ -36,6 +36,15 @@ afterEach((ctx) => {
 const fb = (id: string) => page.locator(`[data-testid="fb-${id}"]`);
 
 describe('Kvar Ledger in the browser', () => {
+  it('runs under a strict Content-Security-Policy', async () => {
+    const csp = await page.locator('meta[http-equiv="Content-Security-Policy"]').getAttribute('content');
+    expect(csp).toMatch(/script-src 'self';/);
+    expect(csp).toMatch(/style-src 'self';/);
+    expect(csp).not.toMatch(/unsafe/);
+    // The grid's stylesheet comes as a file: no style element is injected at run time.
+    expect(await page.locator('style').count()).toBe(0);
+  });
+
   it('opens the demo workbook on the first visit', async () => {
     expect(await page.locator('[data-testid="title"]').inputValue()).toMatch(/Cold store/);
     expect(await sheetNames(page)).toEqual(expect.arrayContaining(['Site', 'Motors', 'Transformers', 'Buses', 'Compensation']));
