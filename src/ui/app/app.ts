@@ -82,7 +82,10 @@ export class App {
 
   /** Show a workbook in place of the current one. `changed`: save it right away (a new workbook). */
   open(doc: WorkbookDoc, opts: { note?: string; changed?: boolean } = {}): void {
-    const next = WorkbookSession.fromDoc(doc);
+    this.show(WorkbookSession.fromDoc(doc), opts);
+  }
+
+  private show(next: WorkbookSession, opts: { note?: string; changed?: boolean }): void {
     this.errors?.dispose();
     this.grid?.destroy();
     this.session?.destroy();
@@ -117,14 +120,26 @@ export class App {
    * Replace the open workbook by another (template, file, import, bringing one back): the one on
    * screen is first set aside in the browser, so Workbook → Bring back returns it.
    */
-  async replaceWith(doc: WorkbookDoc, note: string): Promise<void> {
+  async replaceWith(doc: WorkbookDoc, note: string): Promise<boolean> {
+    let next: WorkbookSession;
+    try {
+      next = WorkbookSession.fromDoc(doc);
+    } catch (e) {
+      this.status.show(`The workbook could not be opened: ${e instanceof Error ? e.message : String(e)}. The open workbook is unchanged.`, 'error', 0);
+      return false;
+    }
     let aside = '';
     if (this.store) {
       await this.flush();
       const r = await this.store.setAside(this.session.toDoc());
       aside = r.ok ? ' The workbook it replaced is set aside: Workbook → Bring back the replaced workbook.' : ` The workbook it replaced could not be set aside (${r.message}).`;
     }
-    this.open(doc, { note: note + aside, changed: true });
+    this.show(next, { note: note + aside, changed: true });
+    return true;
+  }
+
+  get hasWorkbook(): boolean {
+    return this.session !== undefined;
   }
 
   currentSheet(): number {

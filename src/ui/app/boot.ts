@@ -26,11 +26,18 @@ export async function boot(root: HTMLElement): Promise<App> {
   app.side.add('charts', 'Charts', charts.root, () => charts.draw());
 
   const restored = store ? await store.load().catch(() => ({ found: false as const, note: 'The saved workbook could not be read.' })) : undefined;
+  let note = restored?.note;
   if (restored?.found) {
-    app.open(restored.doc, { note: restored.note ?? `Welcome back: your workbook as saved ${new Date(restored.savedAt).toLocaleString()}.` });
-  } else {
+    try {
+      app.open(restored.doc, { note: note ?? `Welcome back: your workbook as saved ${new Date(restored.savedAt).toLocaleString()}.` });
+    } catch (e) {
+      // Never a dead page: the demo opens, and the stored workbook stays stored as the state before.
+      note = `The workbook saved in this browser could not be opened (${e instanceof Error ? e.message : String(e)}).`;
+    }
+  }
+  if (!app.hasWorkbook) {
     const demo = await templateWorkbook(DEMO_TEMPLATE);
-    app.open(demo, { note: `${restored?.note ? `${restored.note} ` : ''}A demo workbook of an invented site is open. Start your own from Workbook → New from template, or import an equipment list.`, changed: true });
+    app.open(demo, { note: `${note ? `${note} ` : ''}A demo workbook of an invented site is open. Start your own from Workbook → New from template, or import an equipment list.`, changed: true });
   }
 
   // After the welcome note, so it stays in sight.
