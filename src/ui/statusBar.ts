@@ -17,6 +17,7 @@ export class StatusBar {
     this.summary = el('span', { className: 'kl-status-summary', attrs: { 'data-testid': 'sel-summary' } });
     this.errors = el('button', { className: 'kl-status-errors', attrs: { type: 'button', 'data-testid': 'error-count' } });
     this.errors.addEventListener('click', onNextError);
+    this.errors.hidden = true;
     this.notice = el('span', { className: 'kl-status-notice', attrs: { 'data-testid': 'notice', role: 'status' } });
     // Always in sight: the figures are estimates; the cautions are one click away.
     const caution = el('button', { className: 'kl-status-caution', text: 'Estimates only — read the cautions', attrs: { type: 'button', 'data-testid': 'cautions' } });
