@@ -1,7 +1,7 @@
 // `npm run bench`: every size through its phases (each a child process under a time budget),
 // the command line as a process, the peer, the page; then results.json and results.md.
 // Site generation, file writing and set-up are never timed. Progress goes to stderr.
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -109,6 +109,7 @@ async function main(): Promise<void> {
         : { status: 'not run' as const, note: `the ${TARGET_ROWS.toLocaleString('en-GB')}-row workbook was not built in this run` };
     say(`page: ${browser.status}${browser.note ? ` — ${browser.note}` : ''}`);
     const results: BenchResults = { machine, sizes: opts.sizes.map(({ rows, buses }) => ({ rows, buses })), steps, memory, browser, wallSeconds: (performance.now() - t0) / 1_000 };
+    mkdirSync(opts.outDir, { recursive: true });
     writeFileSync(join(opts.outDir, 'results.json'), JSON.stringify(results, null, 1) + '\n');
     const md = renderMarkdown(results);
     writeFileSync(join(opts.outDir, 'results.md'), md + '\n');
