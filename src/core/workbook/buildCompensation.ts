@@ -194,6 +194,9 @@ function plainInstalled(bus: string, busCell: string, r: number, cols: Compensat
   return crit === undefined ? `=SUM(${block(col)})` : `=SUMIF(${columnOn(plan.layout.sheet, busCol)},${crit},${columnOn(plan.layout.sheet, col)})`;
 }
 
+/** Terms of about 40 characters each: 120 keep a formula far below the xlsx limit of 8,192. */
+const TERMS_PER_FORMULA = 120;
+
 function summaryBlock(input: CompensationSheetInput): CellContent[][] {
   const { cols, busCols, buses, cases, choices } = input;
   const n = buses.length;
@@ -206,9 +209,25 @@ function summaryBlock(input: CompensationSheetInput): CellContent[][] {
   weight[cols.bus] = SUMMARY_LABELS.weight;
   // Named bank by bank (not a SUMIFS over every bus), so an edit on a bus without a bank does not reach it.
   const withBank = buses.map((b, i) => ({ b, r: i + 1 })).filter(({ b }) => hasBankChoice(choices.get(b.name)));
+  // A formula may hold at most 8,192 characters in xlsx: many banks are summed in parts, one row
+  // per part below the summary, and the weight row adds the parts.
+  const parts: CellContent[][] = [];
+  const firstPartRow = n + 6;
   cases.forEach((_, k) => {
+    const c = cols.needCap[k] as number;
     const terms = withBank.map(({ r }) => `IF(${absCell(r, cols.total)}>0,MAX(0,${cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true)}),0)`);
-    weight[cols.needCap[k] as number] = terms.length === 0 ? '=0' : `=${terms.join('+')}`;
+    if (terms.length <= TERMS_PER_FORMULA) {
+      weight[c] = terms.length === 0 ? '=0' : `=${terms.join('+')}`;
+      return;
+    }
+    const refs: string[] = [];
+    for (let i = 0, part = 0; i < terms.length; i += TERMS_PER_FORMULA, part++) {
+      const row = (parts[part] ??= blank());
+      row[cols.bus] = `${SUMMARY_LABELS.weightPart} ${part + 1}`;
+      row[c] = `=${terms.slice(i, i + TERMS_PER_FORMULA).join('+')}`;
+      refs.push(absCell(firstPartRow + part, c));
+    }
+    weight[c] = `=${refs.join('+')}`;
   });
   const perKvar = blank();
   perKvar[cols.bus] = SUMMARY_LABELS.perKvar;
@@ -221,5 +240,5 @@ function summaryBlock(input: CompensationSheetInput): CellContent[][] {
     perKvar[c] = `=IF(${w}=0,0,${need}/${w})`;
     even[c] = `=IF(${w}=0,${need}/${absCell(n + 2, cols.total)},0)`;
   });
-  return [blank(), count, weight, perKvar, even];
+  return [blank(), count, weight, perKvar, even, ...parts];
 }

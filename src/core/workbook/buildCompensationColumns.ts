@@ -40,6 +40,8 @@ export const SUMMARY_LABELS = {
   weight: 'Lagging kvar of their own items (kvar)',
   perKvar: 'Site need per kvar of that (kvar/kvar)',
   even: 'Site need per bank when none lags (kvar)',
+  /** Partial sums of the weight row when it has too many banks for one formula. */
+  weightPart: 'Lagging kvar of their own items, part',
 } as const;
 
 export interface CompensationColumns {
