@@ -4,6 +4,7 @@ import './styles/layout.css';
 import './styles/formula.css';
 import './styles/grid.css';
 import './styles/panels.css';
+import './styles/checks.css';
 import { boot } from './app/boot.ts';
 
 const root = document.getElementById('app');

@@ -20,6 +20,7 @@ import { buildTopBar } from './topBar.ts';
 import { selectionNumbers } from './sheetScan.ts';
 import { ErrorTracker } from './errorTracker.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
+import type { ChecksPanel } from '../panels/checksPanel.ts';
 
 export class App {
   session!: WorkbookSession;
@@ -31,6 +32,7 @@ export class App {
   readonly side = new SidePanel();
   readonly reference: FunctionReference;
   charts: ChartsPanel | undefined;
+  checks: ChecksPanel | undefined;
   private readonly gridHost: HTMLElement;
   private readonly caption: HTMLElement;
   private readonly titleInput: HTMLInputElement;
@@ -105,12 +107,14 @@ export class App {
       this.formulaBar.show(this.grid.selection());
       this.queueScan();
       this.charts?.update(next);
+      this.checks?.update(next);
       this.autosaver?.changed();
     });
     this.titleInput.value = next.title;
     this.sheet = -1;
     this.openSheet(next.sheetIds()[0] as number);
     this.charts?.update(next);
+    this.checks?.update(next);
     if (this.side.shown === 'functions') this.reference.refresh();
     if (opts.note) this.status.show(opts.note, 'info', 10_000);
     if (opts.changed) this.autosaver?.changed();

@@ -3,6 +3,7 @@
 import { HyperFormula } from 'hyperformula';
 import { ENGINE_LANGUAGE } from '../../engine/config.ts';
 import { ChartsPanel } from '../charts/chartsPanel.ts';
+import { ChecksPanel } from '../panels/checksPanel.ts';
 import { WorkbookStore } from '../storage/idbStore.ts';
 import { describeStorageError } from '../storage/storageErrors.ts';
 import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts';
@@ -24,6 +25,15 @@ export async function boot(root: HTMLElement): Promise<App> {
   const charts = new ChartsPanel();
   app.charts = charts;
   app.side.add('charts', 'Charts', charts.root, () => charts.draw());
+  const checks = new ChecksPanel();
+  app.checks = checks;
+  app.side.add('checks', 'Checks', checks.root, () => checks.draw());
+  checks.onJump = ({ sheet, row }) => {
+    const id = app.session.engine.getSheetId(sheet);
+    if (id === undefined) return;
+    app.openSheet(id);
+    app.grid.select(row - 1, 0);
+  };
 
   const restored = store ? await store.load().catch(() => ({ found: false as const, note: 'The saved workbook could not be read.' })) : undefined;
   let note = restored?.note;

@@ -1,7 +1,7 @@
-// The panel on the right: the function reference or the charts, one at a time, or closed.
+// The panel on the right: the function reference, the charts or the checks, one at a time, or closed.
 import { el } from '../dom.ts';
 
-export type PanelName = 'functions' | 'charts';
+export type PanelName = 'functions' | 'charts' | 'checks';
 
 export class SidePanel {
   readonly root: HTMLElement;

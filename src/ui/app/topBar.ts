@@ -55,11 +55,14 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
   };
   const fnToggle = toggle('functions', 'Functions');
   const chartToggle = toggle('charts', 'Charts');
+  const checksToggle = toggle('checks', 'Checks');
   app.side.onToggle = (shown) => {
     fnToggle.setAttribute('aria-pressed', String(shown === 'functions'));
     chartToggle.setAttribute('aria-pressed', String(shown === 'charts'));
     if (app.charts) app.charts.visible = shown === 'charts';
     if (shown === 'charts') app.charts?.draw();
+    checksToggle.setAttribute('aria-pressed', String(shown === 'checks'));
+    if (app.checks) app.checks.visible = shown === 'checks';
   };
   const about = el('button', { className: 'kl-toggle kl-about-btn', text: 'About & cautions', attrs: { type: 'button', 'data-testid': 'about-open' } });
   about.addEventListener("click", () => openAbout(app.catalogueSize()));
@@ -75,6 +78,7 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
     el('span', { className: 'kl-spacer' }),
     fnToggle,
     chartToggle,
+    checksToggle,
     about,
   ]);
   return { root, title };
