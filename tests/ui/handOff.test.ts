@@ -5,7 +5,10 @@ import { describe, expect, it } from 'vitest';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../src/core/workbook/build.ts';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
-import { handOffDoc } from '../../src/ui/app/handOff.ts';
+import { handOff, handOffDoc } from '../../src/ui/app/handOff.ts';
+import { alignedWith } from '../../src/io/xlsx/export.ts';
+import { importKvarXlsx } from '../../src/io/xlsx/importKvar.ts';
+import { toResult } from '../../src/engine/index.ts';
 import { WorkbookSession } from '../../src/ui/model/session.ts';
 
 const formulas = (doc: WorkbookDoc) => doc.sheets.flatMap((s) => s.cells.flat()).filter((c): c is string => typeof c === 'string' && c.startsWith('='));
@@ -50,5 +53,36 @@ describe('hand-off document', () => {
   it('sends a workbook without a Buses sheet as it is', () => {
     const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 'Scratch', sheets: [{ name: 'Sheet 1', cells: [[1, '=A1*2']] }] };
     expect(handOffDoc(doc)).toEqual({ doc });
+  });
+
+  it('takes the cached results from the open engine when the rebuilt document has its layout, and gives the same file values', async () => {
+    const live = WorkbookSession.fromDoc(buildWorkbook(site, { flavour: 'live' }));
+    const doc = live.toDoc();
+    expect(alignedWith(handOffDoc(doc).doc, doc)).toBe(true);
+    let reads = 0;
+    const resultAt = (sheet: string, row: number, col: number) => {
+      reads++;
+      const id = live.engine.getSheetId(sheet);
+      return id === undefined ? undefined : toResult(live.engine.getCellValue({ sheet: id, row, col }));
+    };
+    const fast = await handOff(doc, undefined, resultAt);
+    expect(reads).toBeGreaterThan(100);
+    const slow = await handOff(doc);
+    const [a, b] = [await importKvarXlsx(fast.bytes), await importKvarXlsx(slow.bytes)];
+    expect(a.ok && b.ok).toBe(true);
+    if (a.ok && b.ok) expect(a.doc.sheets).toEqual(b.doc.sheets);
+    expect(fast.issues).toBe(slow.issues);
+  });
+
+  it('does not read the open engine when a row was added by copying another (its formulas differ from a rebuild)', async () => {
+    const doc = buildWorkbook(site, { flavour: 'live' });
+    const motors = doc.sheets.find((s) => s.name === 'Motors');
+    const grown: WorkbookDoc = { ...doc, sheets: doc.sheets.map((s) => (s === motors ? { ...s, cells: [...s.cells.slice(0, 2), [...(s.cells[1] ?? [])].map((c, i) => (i === 0 ? 'P-EXTRA' : c)), ...s.cells.slice(2)] } : s)) };
+    let reads = 0;
+    await handOff(grown, undefined, () => {
+      reads++;
+      return undefined;
+    });
+    expect(reads).toBe(0);
   });
 });

@@ -93,7 +93,7 @@ const isFormula = (c: unknown): boolean => typeof c === 'string' && c.startsWith
  * `doc` has a formula the source may compute the value otherwise (e.g. one roll-up filling a
  * block of cells), and it may have more rows below.
  */
-function alignedWith(doc: WorkbookDoc, source: WorkbookDoc): boolean {
+export function alignedWith(doc: WorkbookDoc, source: WorkbookDoc): boolean {
   if (doc.sheets.length !== source.sheets.length) return false;
   return doc.sheets.every((s, i) => {
     const t = source.sheets[i];

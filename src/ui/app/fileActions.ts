@@ -6,6 +6,7 @@ import { confirmDialog, openDialog } from '../dialogs/dialog.ts';
 import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from '../storage/nativeFile.ts';
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
 import type { App } from './app.ts';
+import { toResult } from '../../engine/index.ts';
 
 const REPLACE_NOTE = 'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
 
@@ -90,7 +91,11 @@ export async function exportXlsx(app: App): Promise<void> {
       const v = id === undefined ? undefined : session.engine.getCellValue({ sheet: id, row, col });
       return typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean' ? v : undefined;
     };
-    const r = await handOff(session.toDoc(), valueAt);
+    const resultAt = (sheet: string, row: number, col: number) => {
+      const id = session.engine.getSheetId(sheet);
+      return id === undefined ? undefined : toResult(session.engine.getCellValue({ sheet: id, row, col }));
+    };
+    const r = await handOff(session.toDoc(), valueAt, resultAt);
     const name = fileNameFor(session.title, '.xlsx');
     download(r.bytes as BlobPart, name, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     const caveat = [r.note, r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined].filter(Boolean).join('; ');

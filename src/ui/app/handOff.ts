@@ -7,7 +7,8 @@ import type { SiteSettings } from '../../core/site/model.ts';
 import { buildWorkbook } from '../../core/workbook/build.ts';
 import { SHEETS } from '../../core/workbook/buildLayout.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
-import { exportWorkbookXlsxWithReport } from '../../io/xlsx/export.ts';
+import { alignedWith, exportWorkbookXlsxWithReport } from '../../io/xlsx/export.ts';
+import type { CellResult } from '../../engine/index.ts';
 import { importKvarXlsx } from '../../io/xlsx/importKvar.ts';
 import { describeProblem } from '../../io/xlsx/fileProblem.ts';
 
@@ -18,6 +19,8 @@ export interface HandOffDoc {
   readonly settings?: SiteSettings;
   /** Why the workbook went out as it is (not rebuilt), if so. */
   readonly note?: string;
+  /** The live flavour the builder makes from the same inputs (when rebuilt). */
+  readonly liveTwin?: WorkbookDoc;
 }
 
 /** The document to export: the portable rebuild for a builder workbook, else the workbook itself. */
@@ -31,12 +34,36 @@ export function handOffDoc(doc: WorkbookDoc, valueAt?: ValueReader): HandOffDoc 
   }
   const portable = buildWorkbook(read.site, { flavour: 'portable', banks: read.banks });
   const extra = doc.sheets.filter((s) => !portable.sheets.some((p) => p.name.toLowerCase() === s.name.toLowerCase()));
-  return { doc: { ...portable, title: doc.title, sheets: [...portable.sheets, ...extra] }, settings: read.site.settings };
+  const liveTwin = buildWorkbook(read.site, { flavour: 'live', banks: read.banks });
+  return { doc: { ...portable, title: doc.title, sheets: [...portable.sheets, ...extra] }, settings: read.site.settings, liveTwin };
 }
 
-export async function handOff(doc: WorkbookDoc, valueAt?: ValueReader): Promise<{ bytes: Uint8Array; issues: number; note?: string }> {
+/**
+ * The open engine's results serve the export only when the open workbook is, cell for cell, what
+ * the builder makes from its inputs (formulas included): then live and portable agree cell by
+ * cell. A row added or a formula typed over in the grid sends the export the slow, safe way.
+ */
+function engineMatches(out: HandOffDoc, doc: WorkbookDoc): boolean {
+  const twin = out.liveTwin;
+  if (!twin || !alignedWith(out.doc, doc)) return false;
+  return twin.sheets.every((t) => {
+    const s = doc.sheets.find((d) => d.name === t.name);
+    return s !== undefined && s.cells.length === t.cells.length && t.cells.every((row, r) => row.every((c, k) => (s.cells[r]?.[k] ?? null) === c));
+  });
+}
+
+/** Cached results as the app's engine holds them (value or error with its message). */
+export type ResultReader = (sheet: string, row: number, col: number) => CellResult | undefined;
+
+/**
+ * Export the open workbook. When the rebuilt document has the open one's layout (the usual case:
+ * the builder made both), the cached results come straight from the app's engine, already
+ * computed; otherwise the exporter computes them itself (slower on large sites).
+ */
+export async function handOff(doc: WorkbookDoc, valueAt?: ValueReader, resultAt?: ResultReader): Promise<{ bytes: Uint8Array; issues: number; note?: string }> {
   const out = handOffDoc(doc, valueAt);
-  const r = await exportWorkbookXlsxWithReport(out.doc, out.settings ? { settings: out.settings } : {});
+  const cached = resultAt && engineMatches(out, doc) ? { valueAt: resultAt } : {};
+  const r = await exportWorkbookXlsxWithReport(out.doc, { ...(out.settings ? { settings: out.settings } : {}), ...cached });
   return { bytes: r.bytes, issues: r.issues.length, ...(out.note ? { note: out.note } : {}) };
 }
 
