@@ -1,16 +1,8 @@
 // Sheet names and cell addresses as the xlsx format wants them.
+import { columnLetters } from '../../core/workbook/buildRefs.ts';
 
-/** 0 → 'A', 25 → 'Z', 26 → 'AA'. */
-export function columnLetter(index: number): string {
-  let n = index + 1;
-  let s = '';
-  while (n > 0) {
-    const r = (n - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return s;
-}
+/** 0 → 'A', 25 → 'Z', 26 → 'AA' (the one implementation lives with the workbook builder). */
+export const columnLetter = columnLetters;
 
 export const MAX_SHEET_NAME_LENGTH = 31;
 const FORBIDDEN = /[\\/?*[\]:]/;

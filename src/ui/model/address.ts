@@ -1,16 +1,7 @@
 // Spreadsheet addresses as the user sees them: column letters and A1 references.
+import { columnLetters } from '../../core/workbook/buildRefs.ts';
 
-/** 0 → A, 25 → Z, 26 → AA. */
-export function columnLetters(col: number): string {
-  let n = Math.floor(col) + 1;
-  let s = '';
-  while (n > 0) {
-    const r = (n - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return s;
-}
+export { columnLetters };
 
 /** 'C5' for row 4, column 2 (both 0-based). */
 export function a1(row: number, col: number): string {
