@@ -78,7 +78,20 @@ export class WorkbookStore {
   }
 
   /** Validate, then in one transaction move last-good to previous and write the new state. */
-  async save(doc: WorkbookDoc, now: Date = new Date()): Promise<SaveResult> {
+  save(doc: WorkbookDoc, now: Date = new Date()): Promise<SaveResult> {
+    return this.write(LAST_GOOD, doc, now, async (store, text) => {
+      const current = (await request(store.get(LAST_GOOD))) as StoredState | undefined;
+      if (current?.text === text) return { ok: true, savedAt: current.savedAt, unchanged: true };
+      if (current && readState(current)) store.put(current, PREVIOUS);
+      return undefined;
+    });
+  }
+
+  /**
+   * Validate, then write one state under `key` in one transaction. `before` runs in that
+   * transaction first and may answer instead (nothing is then written).
+   */
+  private async write(key: string, doc: WorkbookDoc, now: Date, before?: (store: IDBObjectStore, text: string) => Promise<SaveResult | undefined>): Promise<SaveResult> {
     const ser = serializeForStorage(doc);
     if (!ser.ok) return { ok: false, reason: 'invalid', message: ser.message };
     const savedAt = now.toISOString();
@@ -86,15 +99,10 @@ export class WorkbookStore {
       const tx = this.db.transaction(STORE, 'readwrite');
       const finished = done(tx);
       const store = tx.objectStore(STORE);
-      const current = (await request(store.get(LAST_GOOD))) as StoredState | undefined;
-      if (current?.text === ser.text) {
-        await finished;
-        return { ok: true, savedAt: current.savedAt, unchanged: true };
-      }
-      if (current && readState(current)) store.put(current, PREVIOUS);
-      store.put({ text: ser.text, savedAt, title: doc.title } satisfies StoredState, LAST_GOOD);
+      const answer = await before?.(store, ser.text);
+      if (!answer) store.put({ text: ser.text, savedAt, title: doc.title } satisfies StoredState, key);
       await finished;
-      return { ok: true, savedAt, unchanged: false };
+      return answer ?? { ok: true, savedAt, unchanged: false };
     } catch (e) {
       return { ok: false, reason: 'storage', message: describeStorageError(e) };
     }
@@ -120,19 +128,8 @@ export class WorkbookStore {
   }
 
   /** Keep a workbook that is about to be replaced, so it can be brought back. */
-  async setAside(doc: WorkbookDoc, now: Date = new Date()): Promise<SaveResult> {
-    const ser = serializeForStorage(doc);
-    if (!ser.ok) return { ok: false, reason: 'invalid', message: ser.message };
-    const savedAt = now.toISOString();
-    try {
-      const tx = this.db.transaction(STORE, 'readwrite');
-      const finished = done(tx);
-      tx.objectStore(STORE).put({ text: ser.text, savedAt, title: doc.title } satisfies StoredState, SET_ASIDE);
-      await finished;
-      return { ok: true, savedAt, unchanged: false };
-    } catch (e) {
-      return { ok: false, reason: 'storage', message: describeStorageError(e) };
-    }
+  setAside(doc: WorkbookDoc, now: Date = new Date()): Promise<SaveResult> {
+    return this.write(SET_ASIDE, doc, now);
   }
 
   async loadSetAside(): Promise<{ doc: WorkbookDoc; savedAt: string } | undefined> {
