@@ -19,8 +19,8 @@ export interface HandOffDoc {
   readonly settings?: SiteSettings;
   /** Why the workbook went out as it is (not rebuilt), if so. */
   readonly note?: string;
-  /** The live flavour the builder makes from the same inputs (when rebuilt). */
-  readonly liveTwin?: WorkbookDoc;
+  /** Builds the live flavour from the same inputs (when rebuilt); only the export from the page needs it. */
+  readonly liveTwin?: () => WorkbookDoc;
 }
 
 /** The document to export: the portable rebuild for a builder workbook, else the workbook itself. */
@@ -34,7 +34,7 @@ export function handOffDoc(doc: WorkbookDoc, valueAt?: ValueReader): HandOffDoc 
   }
   const portable = buildWorkbook(read.site, { flavour: 'portable', banks: read.banks });
   const extra = doc.sheets.filter((s) => !portable.sheets.some((p) => p.name.toLowerCase() === s.name.toLowerCase()));
-  const liveTwin = buildWorkbook(read.site, { flavour: 'live', banks: read.banks });
+  const liveTwin = () => buildWorkbook(read.site, { flavour: 'live', banks: read.banks });
   return { doc: { ...portable, title: doc.title, sheets: [...portable.sheets, ...extra] }, settings: read.site.settings, liveTwin };
 }
 
@@ -44,9 +44,8 @@ export function handOffDoc(doc: WorkbookDoc, valueAt?: ValueReader): HandOffDoc 
  * cell. A row added or a formula typed over in the grid sends the export the slow, safe way.
  */
 function engineMatches(out: HandOffDoc, doc: WorkbookDoc): boolean {
-  const twin = out.liveTwin;
-  if (!twin || !alignedWith(out.doc, doc)) return false;
-  return twin.sheets.every((t) => {
+  if (!out.liveTwin || !alignedWith(out.doc, doc)) return false;
+  return out.liveTwin().sheets.every((t) => {
     const s = doc.sheets.find((d) => d.name === t.name);
     return s !== undefined && s.cells.length === t.cells.length && t.cells.every((row, r) => row.every((c, k) => (s.cells[r]?.[k] ?? null) === c));
   });
