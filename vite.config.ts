@@ -12,7 +12,8 @@ export default defineConfig({
       // server injects CSS as <style> elements, so only there inline styles are allowed.
       name: 'kvar-ledger-dev-csp',
       apply: 'serve',
-      transformIndexHtml: (html: string) => html.replace("style-src 'self';", "style-src 'self' 'unsafe-inline';"),
+      transformIndexHtml: (html: string) =>
+        html.replace("style-src 'self';", "style-src 'self' 'unsafe-inline';"),
     },
   ],
   resolve: {
@@ -21,7 +22,10 @@ export default defineConfig({
       // injects at run time. The app loads the CSS file (src/ui/grid/hotModules.ts, with
       // injectCoreCss: false), so the JS copy is replaced by an empty one: ~20 KB gzip less
       // initial JavaScript and no <style> injected by the grid.
-      { find: /^.*\/styles\/handsontableStyles\.mjs$/, replacement: fileURLToPath(new URL('./src/ui/grid/noInjectedGridCss.ts', import.meta.url)) },
+      {
+        find: /^.*\/styles\/handsontableStyles\.mjs$/,
+        replacement: fileURLToPath(new URL('./src/ui/grid/noInjectedGridCss.ts', import.meta.url)),
+      },
     ],
   },
   build: {

@@ -14,7 +14,12 @@ export function specifiers(source: string): string[] {
   const out: string[] = [];
   // Comments are not dependencies: drop block comments and line comments (not "://" in URLs).
   source = source.replace(/\/\*[\s\S]*?\*\//g, '').replace(/(^|[^:])\/\/.*$/gm, '$1');
-  const patterns = [/\b(?:import|export)\b[^'"`;]*?\bfrom\s*['"]([^'"]+)['"]/g, /\bimport\s*['"]([^'"]+)['"]/g, /\bimport\s*\(\s*['"]([^'"]+)['"]\s*\)/g, /\brequire\s*\(\s*['"]([^'"]+)['"]\s*\)/g];
+  const patterns = [
+    /\b(?:import|export)\b[^'"`;]*?\bfrom\s*['"]([^'"]+)['"]/g,
+    /\bimport\s*['"]([^'"]+)['"]/g,
+    /\bimport\s*\(\s*['"]([^'"]+)['"]\s*\)/g,
+    /\brequire\s*\(\s*['"]([^'"]+)['"]\s*\)/g,
+  ];
   for (const re of patterns) for (const m of source.matchAll(re)) out.push(m[1] as string);
   return out;
 }
@@ -60,10 +65,22 @@ describe('architecture', () => {
       mkdirSync(join(root, 'core', 'deep'), { recursive: true });
       const plant = (path: string, text: string) => writeFileSync(join(root, path), text);
       plant('core/a.ts', "import { createEngine } from '../engine/index.ts';\n");
-      plant('core/deep/b.ts', "import type { Token } from '../../io/formula/tokenize.ts';\nimport HF from 'hyperformula';\n");
-      plant('core/c.ts', "export async function f() { return import('exceljs'); }\nexport { x } from \"../ui/x.ts\";\n");
-      plant('core/d.ts', "import 'handsontable/dist/handsontable.css';\nimport {\n  run,\n} from '../cli/main.ts';\n");
-      plant('core/ok.ts', "import { a } from './a.ts';\nimport { b } from './deep/b.ts';\nimport { x } from '../core/c.ts';\nimport fc from 'fast-check';\n// import from '../engine/index.ts' in a comment is not an import statement\n");
+      plant(
+        'core/deep/b.ts',
+        "import type { Token } from '../../io/formula/tokenize.ts';\nimport HF from 'hyperformula';\n",
+      );
+      plant(
+        'core/c.ts',
+        'export async function f() { return import(\'exceljs\'); }\nexport { x } from "../ui/x.ts";\n',
+      );
+      plant(
+        'core/d.ts',
+        "import 'handsontable/dist/handsontable.css';\nimport {\n  run,\n} from '../cli/main.ts';\n",
+      );
+      plant(
+        'core/ok.ts',
+        "import { a } from './a.ts';\nimport { b } from './deep/b.ts';\nimport { x } from '../core/c.ts';\nimport fc from 'fast-check';\n// import from '../engine/index.ts' in a comment is not an import statement\n",
+      );
       const found = coreViolations(root);
       expect(found.sort()).toEqual(
         [

@@ -15,7 +15,8 @@ export interface ParsedArgs {
   readonly values: Map<string, string>;
 }
 
-export type ArgsResult = { readonly ok: true; readonly args: ParsedArgs } | { readonly ok: false; readonly message: string };
+export type ArgsResult =
+  { readonly ok: true; readonly args: ParsedArgs } | { readonly ok: false; readonly message: string };
 
 function allowedText(spec: ArgSpec): string {
   const all = [...(spec.flags ?? []), ...(spec.values ?? []).map((v) => `${v} VALUE`), '--help'];
@@ -52,7 +53,10 @@ export function parseArgs(argv: readonly string[], spec: ArgSpec): ArgsResult {
     } else if (spec.flags?.includes(name) && eq < 0) {
       flags.add(name);
     } else {
-      return { ok: false, message: `${spec.command}: unknown option ${a} (argument ${i + 1}); allowed: ${allowedText(spec)}` };
+      return {
+        ok: false,
+        message: `${spec.command}: unknown option ${a} (argument ${i + 1}); allowed: ${allowedText(spec)}`,
+      };
     }
   }
   return { ok: true, args: { positional, flags, values } };

@@ -29,7 +29,8 @@ A CSV or xlsx list carries no settings: the requirement is then taken as cos φ 
 
 /** Requirement assumed for a bare equipment list (common practice: many tariffs start at 0.95). */
 const LIST_REQUIREMENT = { kind: 'cosphi', target: 0.95 } as const;
-const CAUTION = 'Estimate only: capacitor banks, resonance and overvoltage can hurt people and plant; the final design follows local codes, the utility and a licensed engineer.';
+const CAUTION =
+  'Estimate only: capacitor banks, resonance and overvoltage can hurt people and plant; the final design follows local codes, the utility and a licensed engineer.';
 
 type Loaded = { ok: true; site: Site; problems: Problem[] } | { ok: false; message: string };
 
@@ -39,7 +40,10 @@ async function load(file: string, hz: 50 | 60 | undefined): Promise<Loaded> {
     bytes = readFileSync(file);
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    return { ok: false, message: `cannot read ${file}: ${code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a directory' : e instanceof Error ? e.message : String(e)}` };
+    return {
+      ok: false,
+      message: `cannot read ${file}: ${code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a directory' : e instanceof Error ? e.message : String(e)}`,
+    };
   }
   if (extname(file).toLowerCase() === '.json') {
     const { site, problems } = readSiteFile(new TextDecoder().decode(bytes));
@@ -52,9 +56,14 @@ async function load(file: string, hz: 50 | 60 | undefined): Promise<Loaded> {
   }
   const table = await readEquipmentFile(basename(file), bytes);
   if (!table.ok) return { ok: false, message: describeProblem(table.problem) };
-  const rows = table.value.rows.map((r) => r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))));
+  const rows = table.value.rows.map((r) =>
+    r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))),
+  );
   const parsed = parseEquipmentTable(rows, { decimalComma: table.value.decimalComma });
-  const site: Site = { settings: { name: basename(file), hz: hz ?? 50, cases: parsed.cases, requirement: LIST_REQUIREMENT }, equipment: parsed.equipment };
+  const site: Site = {
+    settings: { name: basename(file), hz: hz ?? 50, cases: parsed.cases, requirement: LIST_REQUIREMENT },
+    equipment: parsed.equipment,
+  };
   return { ok: true, site, problems: parsed.problems };
 }
 
@@ -73,29 +82,59 @@ async function siteFromOwnExport(bytes: Uint8Array, hz: 50 | 60 | undefined): Pr
 
 function busJson(b: BusBalance) {
   return {
-    bus: b.bus, level: b.level, fed_by: b.fed_by ?? null, u_kv: b.u_kv ?? null,
-    p_kw: b.p_kw, q_kvar: b.q_kvar, q_absorbed_kvar: b.q_absorbed_kvar, q_delivered_kvar: b.q_delivered_kvar,
-    s_kva: b.s_kva, cos_phi: b.cos_phi, tan_phi: b.tan_phi, sense: b.sense, own_p_kw: b.own_p_kw, own_q_kvar: b.own_q_kvar,
+    bus: b.bus,
+    level: b.level,
+    fed_by: b.fed_by ?? null,
+    u_kv: b.u_kv ?? null,
+    p_kw: b.p_kw,
+    q_kvar: b.q_kvar,
+    q_absorbed_kvar: b.q_absorbed_kvar,
+    q_delivered_kvar: b.q_delivered_kvar,
+    s_kva: b.s_kva,
+    cos_phi: b.cos_phi,
+    tan_phi: b.tan_phi,
+    sense: b.sense,
+    own_p_kw: b.own_p_kw,
+    own_q_kvar: b.own_q_kvar,
   };
 }
 
 function warningJson(w: Problem & { code?: string; case?: string }) {
-  return { severity: w.severity, code: w.code ?? 'input', message: w.message, row: w.row ?? null, column: w.column ?? null, bus: w.bus ?? null, tag: w.tag ?? null, case: w.case ?? null };
+  return {
+    severity: w.severity,
+    code: w.code ?? 'input',
+    message: w.message,
+    row: w.row ?? null,
+    column: w.column ?? null,
+    bus: w.bus ?? null,
+    tag: w.tag ?? null,
+    case: w.case ?? null,
+  };
 }
 
 function toJson(site: Site, bal: CaseBalance, design: CompensationDesign, warnings: readonly Problem[]) {
   const outcome = design.cases.find((c) => c.case === bal.case);
   const after = design.after.find((a) => a.case === bal.case);
   return {
-    site: site.settings.name, case: bal.case, cases: site.settings.cases, hz: bal.hz,
-    buses: bal.buses.map(busJson), root: busJson(bal.root),
+    site: site.settings.name,
+    case: bal.case,
+    cases: site.settings.cases,
+    hz: bal.hz,
+    buses: bal.buses.map(busJson),
+    root: busJson(bal.root),
     compensation: {
-      requirement: design.requirement, lag_tan: design.lag_tan, lead_tan: design.lead_tan,
-      need_kvar: outcome?.need ?? null, met_before: outcome?.met_before ?? null, met_after: outcome?.met_after ?? null,
+      requirement: design.requirement,
+      lag_tan: design.lag_tan,
+      lead_tan: design.lead_tan,
+      need_kvar: outcome?.need ?? null,
+      met_before: outcome?.met_before ?? null,
+      met_after: outcome?.met_after ?? null,
       root_after: after ? busJson(after.root) : null,
       banks: design.banks.map((b) => ({ ...b, steps_in_case: b.steps_in[bal.case] ?? 0 })),
       reactors: design.reactors.map((r) => ({ ...r, in_service_in_case: r.in_service[bal.case] ?? false })),
-      bus_needs: design.needs.filter((n) => n.case === bal.case).map((n) => ({ bus: n.bus, capacitive_kvar: n.capacitive_kvar, inductive_kvar: n.inductive_kvar })),
+      bus_needs: design.needs
+        .filter((n) => n.case === bal.case)
+        .map((n) => ({ bus: n.bus, capacitive_kvar: n.capacitive_kvar, inductive_kvar: n.inductive_kvar })),
     },
     warnings: warnings.map(warningJson),
     caution: CAUTION,
@@ -106,32 +145,80 @@ const num = (x: number | null | undefined, d = 1) => (x === null || x === undefi
 
 function table(header: string[], rows: string[][], leftCols = 1): string {
   const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
-  const line = (cells: string[]) => cells.map((c, i) => (i < leftCols ? c.padEnd(widths[i] as number) : c.padStart(widths[i] as number))).join('  ').trimEnd();
+  const line = (cells: string[]) =>
+    cells
+      .map((c, i) => (i < leftCols ? c.padEnd(widths[i] as number) : c.padStart(widths[i] as number)))
+      .join('  ')
+      .trimEnd();
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n') + '\n';
 }
 
-function toText(site: Site, bal: CaseBalance, design: CompensationDesign, warnings: readonly Problem[]): string {
+function toText(
+  site: Site,
+  bal: CaseBalance,
+  design: CompensationDesign,
+  warnings: readonly Problem[],
+): string {
   const out: string[] = [];
-  out.push(`${site.settings.name}\ncase ${bal.case} (of ${site.settings.cases.join(', ')}), ${bal.hz} Hz; requirement: ${design.requirement}\n\n`);
+  out.push(
+    `${site.settings.name}\ncase ${bal.case} (of ${site.settings.cases.join(', ')}), ${bal.hz} Hz; requirement: ${design.requirement}\n\n`,
+  );
   const rows = bal.buses.map((b) => [
-    '  '.repeat(b.level) + b.bus, b.fed_by ?? '', num(b.u_kv ?? null, 3), num(b.p_kw), num(b.q_kvar), num(b.q_absorbed_kvar), num(b.q_delivered_kvar), num(b.s_kva), num(b.cos_phi, 3), num(b.tan_phi, 3), b.sense,
+    '  '.repeat(b.level) + b.bus,
+    b.fed_by ?? '',
+    num(b.u_kv ?? null, 3),
+    num(b.p_kw),
+    num(b.q_kvar),
+    num(b.q_absorbed_kvar),
+    num(b.q_delivered_kvar),
+    num(b.s_kva),
+    num(b.cos_phi, 3),
+    num(b.tan_phi, 3),
+    b.sense,
   ]);
-  out.push(table(['bus', 'fed by', 'U kV', 'P kW', 'Q kvar', 'Q abs', 'Q del', 'S kVA', 'cos φ', 'tan φ', 'sense'], rows, 2));
+  out.push(
+    table(
+      ['bus', 'fed by', 'U kV', 'P kW', 'Q kvar', 'Q abs', 'Q del', 'S kVA', 'cos φ', 'tan φ', 'sense'],
+      rows,
+      2,
+    ),
+  );
   const o = design.cases.find((c) => c.case === bal.case);
   const r = bal.root;
-  out.push(`\npoint of connection ${r.bus}: P ${num(r.p_kw)} kW, Q ${num(r.q_kvar)} kvar, cos φ ${num(r.cos_phi, 3)} ${r.sense}`);
-  if (o) out.push(o.met_before ? ' — meets the requirement\n' : ` — needs ${o.need.capacitive_kvar > 0 ? `${num(o.need.capacitive_kvar)} kvar capacitive` : `${num(o.need.inductive_kvar)} kvar inductive`}\n`);
+  out.push(
+    `\npoint of connection ${r.bus}: P ${num(r.p_kw)} kW, Q ${num(r.q_kvar)} kvar, cos φ ${num(r.cos_phi, 3)} ${r.sense}`,
+  );
+  if (o)
+    out.push(
+      o.met_before
+        ? ' — meets the requirement\n'
+        : ` — needs ${o.need.capacitive_kvar > 0 ? `${num(o.need.capacitive_kvar)} kvar capacitive` : `${num(o.need.inductive_kvar)} kvar inductive`}\n`,
+    );
   if (design.banks.length + design.reactors.length > 0) {
     out.push('\ncompensation proposed (sized over all cases):\n');
     for (const b of design.banks) {
-      const parts = [b.fixed_kvar > 0 ? `fixed ${b.fixed_kvar} kvar` : '', b.steps > 0 ? `${b.steps} × ${b.step_kvar} kvar steps` : ''].filter(Boolean).join(' + ');
-      out.push(`  ${b.bus} (${b.u_kv} kV): ${parts} = ${b.total_kvar} kvar; ${b.p_pct > 0 ? `detuned ${b.p_pct} % (tuning order ${num(b.tuning_order, 2)})` : 'no detuning'}; ` +
-        `capacitors see ${num(b.u_cap_kv, 3)} kV, rated ${b.u_rated_kv} kV; steps in this case ${b.steps_in[bal.case] ?? 0}; voltage rise per step ${num(b.vrise_step_pct, 2)} %\n    why: ${b.why}\n`);
+      const parts = [
+        b.fixed_kvar > 0 ? `fixed ${b.fixed_kvar} kvar` : '',
+        b.steps > 0 ? `${b.steps} × ${b.step_kvar} kvar steps` : '',
+      ]
+        .filter(Boolean)
+        .join(' + ');
+      out.push(
+        `  ${b.bus} (${b.u_kv} kV): ${parts} = ${b.total_kvar} kvar; ${b.p_pct > 0 ? `detuned ${b.p_pct} % (tuning order ${num(b.tuning_order, 2)})` : 'no detuning'}; ` +
+          `capacitors see ${num(b.u_cap_kv, 3)} kV, rated ${b.u_rated_kv} kV; steps in this case ${b.steps_in[bal.case] ?? 0}; voltage rise per step ${num(b.vrise_step_pct, 2)} %\n    why: ${b.why}\n`,
+      );
     }
-    for (const x of design.reactors) out.push(`  ${x.bus} (${x.u_kv} kV): shunt reactor ${x.q_kvar} kvar, ${x.in_service[bal.case] ? 'in service' : 'out of service'} in this case\n`);
-    if (o) out.push(`  after: P ${num(o.after.p_kw)} kW, Q ${num(o.after.q_kvar)} kvar, cos φ ${num(o.after.cos_phi, 3)} ${o.after.sense} — ${o.met_after ? 'meets the requirement' : 'still outside the requirement'}\n`);
+    for (const x of design.reactors)
+      out.push(
+        `  ${x.bus} (${x.u_kv} kV): shunt reactor ${x.q_kvar} kvar, ${x.in_service[bal.case] ? 'in service' : 'out of service'} in this case\n`,
+      );
+    if (o)
+      out.push(
+        `  after: P ${num(o.after.p_kw)} kW, Q ${num(o.after.q_kvar)} kvar, cos φ ${num(o.after.cos_phi, 3)} ${o.after.sense} — ${o.met_after ? 'meets the requirement' : 'still outside the requirement'}\n`,
+      );
   }
-  if (warnings.length > 0) out.push('\nwarnings:\n' + warnings.map((w) => `  ${w.severity.padEnd(7)} ${w.message}\n`).join(''));
+  if (warnings.length > 0)
+    out.push('\nwarnings:\n' + warnings.map((w) => `  ${w.severity.padEnd(7)} ${w.message}\n`).join(''));
   out.push(`\n${CAUTION}\n`);
   return out.join('');
 }
@@ -148,7 +235,9 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     return 0;
   }
   if (positional.length !== 1) {
-    io.err(`balance: give exactly one file (a .csv or .xlsx equipment list or a .json site file); got ${positional.length}\n${USAGE}`);
+    io.err(
+      `balance: give exactly one file (a .csv or .xlsx equipment list or a .json site file); got ${positional.length}\n${USAGE}`,
+    );
     return 1;
   }
   const file = positional[0] as string;
@@ -168,13 +257,18 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const problems = mergeProblems(loaded.problems, unreadable ? [] : validateSite(site));
   const errors = problems.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
-    io.err(`balance: ${file} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was balanced:\n` + problems.map((p) => `  ${p.severity}: ${p.message}\n`).join(''));
+    io.err(
+      `balance: ${file} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was balanced:\n` +
+        problems.map((p) => `  ${p.severity}: ${p.message}\n`).join(''),
+    );
     return 1;
   }
   const caseName = values.get('--case') ?? (site.settings.cases[0] as string);
   const found = resolveCase(site.settings.cases, caseName);
   if (found === undefined) {
-    io.err(`balance: --case "${caseName}" is not a case of ${file}; its cases are ${site.settings.cases.join(', ')}\n`);
+    io.err(
+      `balance: --case "${caseName}" is not a case of ${file}; its cases are ${site.settings.cases.join(', ')}\n`,
+    );
     return 1;
   }
   let balances: CaseBalance[];
@@ -189,7 +283,15 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   }
   const bal = balances.find((b) => b.case === found) as CaseBalance;
   const design = designCompensation(site, balances);
-  const warnings = [...problems, ...bal.problems, ...design.warnings.filter((w) => w.case === undefined || w.case === found)];
-  io.out(flags.has('--json') ? JSON.stringify(toJson(site, bal, design, warnings), null, 2) + '\n' : toText(site, bal, design, warnings));
+  const warnings = [
+    ...problems,
+    ...bal.problems,
+    ...design.warnings.filter((w) => w.case === undefined || w.case === found),
+  ];
+  io.out(
+    flags.has('--json')
+      ? JSON.stringify(toJson(site, bal, design, warnings), null, 2) + '\n'
+      : toText(site, bal, design, warnings),
+  );
   return 0;
 }

@@ -10,7 +10,16 @@ export interface CommandEntry {
 
 export const COMMANDS: Readonly<Record<string, CommandEntry>> = {
   eval: { summary: 'evaluate formulas with the function catalogue', load: () => import('./eval.ts') },
-  functions: { summary: 'list the function catalogue (signatures, units, sources)', load: () => import('./functions.ts') },
-  balance: { summary: 'bus balance of a site for one operating case, with compensation and warnings', load: () => import('./balance.ts') },
-  export: { summary: 'write the whole workbook as an xlsx whose formulas stay live elsewhere', load: () => import('./export.ts') },
+  functions: {
+    summary: 'list the function catalogue (signatures, units, sources)',
+    load: () => import('./functions.ts'),
+  },
+  balance: {
+    summary: 'bus balance of a site for one operating case, with compensation and warnings',
+    load: () => import('./balance.ts'),
+  },
+  export: {
+    summary: 'write the whole workbook as an xlsx whose formulas stay live elsewhere',
+    load: () => import('./export.ts'),
+  },
 };

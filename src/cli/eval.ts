@@ -12,7 +12,8 @@ The leading "=" may be left out. Cell references point into an empty sheet (blan
   --json   print an array of {formula, value} or {formula, error, message}
 `;
 
-export type EvalResult = { formula: string; value: ScalarValue } | { formula: string; error: string; message: string };
+export type EvalResult =
+  { formula: string; value: ScalarValue } | { formula: string; error: string; message: string };
 
 function valueText(v: ScalarValue): string {
   if (v === null) return '(blank)';
@@ -69,13 +70,21 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const results = problems.length === 0 ? evaluateAll(formulas) : [];
   // The engine's own parse errors (syntax our parser accepts but the engine does not).
   results.forEach((r, i) => {
-    if ('error' in r && r.error === '#ERROR!') problems.push(`eval: formula ${i + 1} (${r.formula}): ${r.message}`);
+    if ('error' in r && r.error === '#ERROR!')
+      problems.push(`eval: formula ${i + 1} (${r.formula}): ${r.message}`);
   });
   if (problems.length > 0) {
     io.err(problems.join('\n') + '\n');
     return 1;
   }
   if (flags.has('--json')) io.out(JSON.stringify(results, null, 2) + '\n');
-  else io.out(results.map((r) => ('error' in r ? `${r.formula} → ${r.error} ${r.message}` : `${r.formula} → ${valueText(r.value)}`)).join('\n') + '\n');
+  else
+    io.out(
+      results
+        .map((r) =>
+          'error' in r ? `${r.formula} → ${r.error} ${r.message}` : `${r.formula} → ${valueText(r.value)}`,
+        )
+        .join('\n') + '\n',
+    );
   return 0;
 }

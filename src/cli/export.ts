@@ -31,7 +31,13 @@ function readBytes(file: string): Uint8Array | string {
     return readFileSync(file);
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    return code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a directory' : e instanceof Error ? e.message : String(e);
+    return code === 'ENOENT'
+      ? 'no such file'
+      : code === 'EISDIR'
+        ? 'it is a directory'
+        : e instanceof Error
+          ? e.message
+          : String(e);
   }
 }
 
@@ -44,10 +50,19 @@ async function loadSite(file: string): Promise<Loaded> {
   }
   const table = await readEquipmentFile(basename(file), bytes);
   if (!table.ok) return { ok: false, message: describeProblem(table.problem) };
-  const rows = table.value.rows.map((r) => r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))));
+  const rows = table.value.rows.map((r) =>
+    r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))),
+  );
   const parsed = parseEquipmentTable(rows, { decimalComma: table.value.decimalComma });
   const name = basename(file, extname(file));
-  return { ok: true, site: { settings: { name, hz: 50, cases: parsed.cases, requirement: LIST_REQUIREMENT }, equipment: parsed.equipment }, problems: parsed.problems };
+  return {
+    ok: true,
+    site: {
+      settings: { name, hz: 50, cases: parsed.cases, requirement: LIST_REQUIREMENT },
+      equipment: parsed.equipment,
+    },
+    problems: parsed.problems,
+  };
 }
 
 export async function run(argv: string[], io: CliIo): Promise<number> {
@@ -62,7 +77,9 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   }
   const [input, output, ...extra] = parsed.args.positional;
   if (input === undefined || output === undefined || extra.length > 0) {
-    io.err(`export: give an input file and an output .xlsx; got ${parsed.args.positional.length} argument(s)\n${USAGE}`);
+    io.err(
+      `export: give an input file and an output .xlsx; got ${parsed.args.positional.length} argument(s)\n${USAGE}`,
+    );
     return 1;
   }
   if (extname(output).toLowerCase() !== '.xlsx') {
@@ -74,11 +91,15 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     io.err(`export: ${loaded.message}\n`);
     return 1;
   }
-  const unreadable = loaded.site.equipment.length === 0 && loaded.problems.some((p) => p.severity === 'error');
+  const unreadable =
+    loaded.site.equipment.length === 0 && loaded.problems.some((p) => p.severity === 'error');
   const problems = mergeProblems(loaded.problems, unreadable ? [] : validateSite(loaded.site));
   const errors = problems.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
-    io.err(`export: ${input} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was written:\n` + errors.map((p) => `  error: ${p.message}\n`).join(''));
+    io.err(
+      `export: ${input} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was written:\n` +
+        errors.map((p) => `  error: ${p.message}\n`).join(''),
+    );
     return 1;
   }
   const doc = buildWorkbook(loaded.site, { flavour: 'portable' });
@@ -86,7 +107,10 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
   // Cached results come from the live flavour (same layout, same values, one fast roll-up).
   const live = buildWorkbook(loaded.site, { flavour: 'live' });
-  const report = await exportWorkbookXlsxWithReport(doc, { settings: loaded.site.settings, valuesFrom: live });
+  const report = await exportWorkbookXlsxWithReport(doc, {
+    settings: loaded.site.settings,
+    valuesFrom: live,
+  });
   try {
     writeFileSync(output, report.bytes);
   } catch (e) {
@@ -95,7 +119,13 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   }
   for (const w of problems.filter((p) => p.severity === 'warning')) io.err(`  warning: ${w.message}\n`);
   for (const i of report.issues) io.err(`  note: ${i.where}: ${i.message}\n`);
-  const cells = doc.sheets.reduce((n, s) => n + s.cells.reduce((m, r) => m + r.filter((c) => typeof c === 'string' && c.startsWith('=')).length, 0), 0);
-  io.out(`wrote ${output}: ${doc.sheets.length} sheets, ${cells} live formulas, ${report.catalogueFunctions.length} catalogue functions written out\n`);
+  const cells = doc.sheets.reduce(
+    (n, s) =>
+      n + s.cells.reduce((m, r) => m + r.filter((c) => typeof c === 'string' && c.startsWith('=')).length, 0),
+    0,
+  );
+  io.out(
+    `wrote ${output}: ${doc.sheets.length} sheets, ${cells} live formulas, ${report.catalogueFunctions.length} catalogue functions written out\n`,
+  );
   return 0;
 }

@@ -19,7 +19,7 @@ export const GENERATED_LINE =
 
 const CAUTION =
   'These functions estimate quantities for pricing and planning. Capacitor banks, overvoltage and resonance can hurt people and plant: ' +
-  'final designs follow local codes and the utility\'s requirements and are checked by a licensed engineer.';
+  "final designs follow local codes and the utility's requirements and are checked by a licensed engineer.";
 
 function byFamily(refs: readonly FunctionReference[]): Map<string, FunctionReference[]> {
   const families = new Map<string, FunctionReference[]>();
@@ -41,7 +41,11 @@ function textReference(refs: readonly FunctionReference[]): string {
         const def = p.default !== undefined ? `; default ${p.default}` : '';
         lines.push(`  ${p.name.padEnd(14)} ${p.unit.padEnd(10)} ${p.allowed}${def} — ${p.doc}`);
       }
-      lines.push(`  result: ${r.result.unit}, ${r.result.doc}`, `  source (${r.source.kind}): ${r.source.ref}`, '');
+      lines.push(
+        `  result: ${r.result.unit}, ${r.result.doc}`,
+        `  source (${r.source.kind}): ${r.source.ref}`,
+        '',
+      );
     }
   }
   return lines.join('\n');
@@ -75,12 +79,23 @@ function markdownReference(refs: readonly FunctionReference[]): string {
       out.push(`### ${r.name}`, '', r.summary, '', '```', r.signature, '```', '');
       out.push('| argument | unit | allowed | default | meaning |', '|---|---|---|---|---|');
       for (const p of r.params) {
-        out.push(`| \`${p.name}\` | ${cell(p.unit)} | ${cell(p.allowed)} | ${cell(p.default ?? (p.optional ? '' : 'required'))} | ${cell(p.doc)} |`);
+        out.push(
+          `| \`${p.name}\` | ${cell(p.unit)} | ${cell(p.allowed)} | ${cell(p.default ?? (p.optional ? '' : 'required'))} | ${cell(p.doc)} |`,
+        );
       }
-      out.push('', `**Result:** ${r.result.unit} — ${r.result.doc}`, '', r.description, '', `**Source** (${r.source.kind}): ${r.source.ref}`, '');
+      out.push(
+        '',
+        `**Result:** ${r.result.unit} — ${r.result.doc}`,
+        '',
+        r.description,
+        '',
+        `**Source** (${r.source.kind}): ${r.source.ref}`,
+        '',
+      );
       if (r.examples.length > 0) {
         out.push('| example | gives | note |', '|---|---|---|');
-        for (const e of r.examples) out.push(`| \`${e.formula}\` | ${cell(expectText(e))} | ${cell(e.note)} |`);
+        for (const e of r.examples)
+          out.push(`| \`${e.formula}\` | ${cell(expectText(e))} | ${cell(e.note)} |`);
         out.push('');
       }
     }

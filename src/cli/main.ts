@@ -12,7 +12,9 @@ function usage(): string {
 }
 
 function version(): string {
-  const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version?: string };
+  const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as {
+    version?: string;
+  };
   return `kvar-ledger ${pkg.version ?? 'unknown'}\n`;
 }
 
@@ -40,7 +42,9 @@ export async function main(argv: string[], io: CliIo): Promise<number> {
     return await run(rest, io);
   } catch (e) {
     // A failure inside a command is a defect, not bad input: say so, with the stack for a report.
-    io.err(`kvar-ledger ${name}: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+    io.err(
+      `kvar-ledger ${name}: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`,
+    );
     return 2;
   }
 }

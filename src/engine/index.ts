@@ -41,7 +41,10 @@ function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): Hy
   for (const s of sheets) {
     const key = s.name.toLowerCase();
     const earlier = seen.get(key);
-    if (earlier !== undefined) throw new Error(`two sheets are named "${earlier}" and "${s.name}"; sheet names must differ (ignoring case)`);
+    if (earlier !== undefined)
+      throw new Error(
+        `two sheets are named "${earlier}" and "${s.name}"; sheet names must differ (ignoring case)`,
+      );
     seen.set(key, s.name);
     data[s.name] = s.cells.map((row) => [...row]);
   }
@@ -67,15 +70,22 @@ export function createPlainEngine(sheets: readonly SheetInput[] = []): HyperForm
 
 export type ScalarValue = number | string | boolean | null;
 /** A cell's result: a value, or an error code (e.g. '#N/A') with its message. */
-export type CellResult = { readonly ok: true; readonly value: ScalarValue } | { readonly ok: false; readonly error: string; readonly message: string };
+export type CellResult =
+  | { readonly ok: true; readonly value: ScalarValue }
+  | { readonly ok: false; readonly error: string; readonly message: string };
 
 /** Turn an engine value into a CellResult; an error without a message gets one naming the code. */
 export function toResult(v: CellValue | CellValue[][]): CellResult {
   if (Array.isArray(v)) {
     const cols = v[0]?.length ?? 0;
-    return { ok: false, error: '#VALUE!', message: `the formula gives an array of ${v.length}×${cols} values; one value was expected` };
+    return {
+      ok: false,
+      error: '#VALUE!',
+      message: `the formula gives an array of ${v.length}×${cols} values; one value was expected`,
+    };
   }
-  if (v instanceof DetailedCellError) return { ok: false, error: v.value, message: v.message || `the formula evaluates to ${v.value}` };
+  if (v instanceof DetailedCellError)
+    return { ok: false, error: v.value, message: v.message || `the formula evaluates to ${v.value}` };
   return { ok: true, value: v };
 }
 
@@ -101,6 +111,10 @@ export function evaluateFormula(hf: HyperFormula, formula: string, sheet: string
     return toResult(hf.calculateFormula(formula, sheetIdOf(hf, sheet)));
   } catch (e) {
     // The engine throws (instead of returning an error value) when it cannot parse the formula.
-    return { ok: false, error: '#ERROR!', message: `the formula could not be read: ${e instanceof Error ? e.message : String(e)}` };
+    return {
+      ok: false,
+      error: '#ERROR!',
+      message: `the formula could not be read: ${e instanceof Error ? e.message : String(e)}`,
+    };
   }
 }

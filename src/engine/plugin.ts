@@ -11,7 +11,14 @@
 // app, in the cached value of an export and after another program recalculates the export.
 // An error value arriving in an argument (e.g. #DIV/0! from a referenced cell) is passed on
 // unchanged, as spreadsheet functions do and as the expansion does.
-import { CellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
+import {
+  CellError,
+  EmptyValue,
+  ErrorType,
+  FunctionArgumentType,
+  FunctionPlugin,
+  SimpleRangeValue,
+} from 'hyperformula';
 import type { FunctionMetadata, ImplementedFunctions } from 'hyperformula';
 import { CATALOGUE } from '../core/functions/index.ts';
 import { evaluate, type RawArg } from '../core/registry/evaluate.ts';
@@ -25,7 +32,10 @@ interface CallNode {
 }
 
 /** One argument after evaluation: a raw value for `evaluate`, or a reason to stop. */
-type Evaluated = { kind: 'raw'; raw: RawArg } | { kind: 'error'; error: CellError } | { kind: 'range'; rows: number; cols: number };
+type Evaluated =
+  | { kind: 'raw'; raw: RawArg }
+  | { kind: 'error'; error: CellError }
+  | { kind: 'range'; rows: number; cols: number };
 
 /** The engine's method name for a catalogue function (dots are not allowed in method names we look up). */
 export function methodNameFor(functionName: string): string {
@@ -73,7 +83,8 @@ export class CataloguePlugin extends FunctionPlugin {
     if (v instanceof CellError) return { kind: 'error', error: v };
     if (v instanceof SimpleRangeValue) return { kind: 'range', rows: v.height(), cols: v.width() };
     if (v === EmptyValue) return { kind: 'raw', raw: null };
-    if (typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean') return { kind: 'raw', raw: v };
+    if (typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean')
+      return { kind: 'raw', raw: v };
     // Percentages, dates and currency amounts arrive as numbers wrapped with a display type.
     if (isNumberLike(v)) return { kind: 'raw', raw: v.val };
     return { kind: 'raw', raw: String(v) };
@@ -84,7 +95,10 @@ function metadataFor(spec: FunctionSpec): FunctionMetadata {
   return {
     method: methodNameFor(spec.name),
     // Declared for the engine's function details; values are read in callCatalogue, not coerced.
-    parameters: spec.params.map((p) => ({ argumentType: FunctionArgumentType.ANY, ...(isOptional(p) ? { optionalArg: true } : {}) })),
+    parameters: spec.params.map((p) => ({
+      argumentType: FunctionArgumentType.ANY,
+      ...(isOptional(p) ? { optionalArg: true } : {}),
+    })),
     // One value per call: never spread a range argument into an array of results.
     vectorizationForbidden: true,
   };

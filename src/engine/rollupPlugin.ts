@@ -17,7 +17,14 @@
 // changed cell. One array for all buses puts every bus formula downstream of every item (an
 // edit of one motor then revisits the whole Buses sheet); one call per bus over that bus's rows
 // keeps an edit to the item's own bus and the buses above it.
-import { ArraySize, CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
+import {
+  ArraySize,
+  CellError,
+  ErrorType,
+  FunctionArgumentType,
+  FunctionPlugin,
+  SimpleRangeValue,
+} from 'hyperformula';
 import type { ImplementedFunctions } from 'hyperformula';
 import { ENGINE_LANGUAGE } from './config.ts';
 import type { OwnPlugin } from './plugins.ts';
@@ -26,16 +33,22 @@ export const BUS_SUMS = 'BUS.SUMS';
 export const BUS_SUMS_SPLIT = 'BUS.SUMS.SPLIT';
 
 /** For the app's formula help: these two are not catalogue functions (no physics, no export). */
-export const ROLLUP_FUNCTION_DOCS: ReadonlyArray<{ readonly name: string; readonly signature: string; readonly summary: string }> = [
+export const ROLLUP_FUNCTION_DOCS: ReadonlyArray<{
+  readonly name: string;
+  readonly signature: string;
+  readonly summary: string;
+}> = [
   {
     name: BUS_SUMS,
     signature: 'BUS.SUMS(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])',
-    summary: 'Per bus of the list, the sum of each value column over the rows naming that bus (ignoring case); a row naming another bus is an error. Spills one row per bus.',
+    summary:
+      'Per bus of the list, the sum of each value column over the rows naming that bus (ignoring case); a row naming another bus is an error. Spills one row per bus.',
   },
   {
     name: BUS_SUMS_SPLIT,
     signature: 'BUS.SUMS.SPLIT(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])',
-    summary: 'As BUS.SUMS, with two columns per value column: the positive values summed (absorbed kvar) and the size of the negative ones (delivered kvar).',
+    summary:
+      'As BUS.SUMS, with two columns per value column: the positive values summed (absorbed kvar) and the size of the negative ones (delivered kvar).',
   },
 ];
 
@@ -62,7 +75,8 @@ function busKey(v: Cell): string | undefined {
   return undefined;
 }
 
-export type SumResult = { readonly ok: true; readonly rows: Cell[][] } | { readonly ok: false; readonly message: string };
+export type SumResult =
+  { readonly ok: true; readonly rows: Cell[][] } | { readonly ok: false; readonly message: string };
 
 function listText(buses: readonly Cell[]): string {
   const names = buses.filter((b) => busKey(b) !== undefined).map(String);
@@ -95,8 +109,12 @@ export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[],
       const targets = index.get(key);
       if (targets === undefined) {
         const where = pair.where?.(r) ?? `argument ${2 * k + 2}, row ${r + 1}`;
-        return { ok: false, message: `${where} names bus "${String(name)}", which is not among the buses summed here (${listText(buses)}); ` +
-          'correct the bus name, or rebuild the workbook if the item moved to another bus' };
+        return {
+          ok: false,
+          message:
+            `${where} names bus "${String(name)}", which is not among the buses summed here (${listText(buses)}); ` +
+            'correct the bus name, or rebuild the workbook if the item moved to another bus',
+        };
       }
       for (let c = 0; c < width; c++) {
         const v = pair.value(r, c);
@@ -151,13 +169,20 @@ function blockOf(node: ArgNode, state: State): Block | undefined {
   const s = node.start.toSimpleCellAddress(state.formulaAddress);
   const e = node.end.toSimpleCellAddress(state.formulaAddress);
   if (s.sheet !== e.sheet) return undefined;
-  return { sheet: s.sheet, col: Math.min(s.col, e.col), row: Math.min(s.row, e.row), width: Math.abs(e.col - s.col) + 1, height: Math.abs(e.row - s.row) + 1 };
+  return {
+    sheet: s.sheet,
+    col: Math.min(s.col, e.col),
+    row: Math.min(s.row, e.row),
+    width: Math.abs(e.col - s.col) + 1,
+    height: Math.abs(e.row - s.row) + 1,
+  };
 }
 
 function asCell(v: unknown): Cell {
   if (v instanceof CellError) return v;
   if (typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean') return v;
-  if (typeof v === 'object' && v !== null && typeof (v as { val?: unknown }).val === 'number') return (v as { val: number }).val;
+  if (typeof v === 'object' && v !== null && typeof (v as { val?: unknown }).val === 'number')
+    return (v as { val: number }).val;
   return null;
 }
 
@@ -210,7 +235,10 @@ export class BusRollupPlugin extends FunctionPlugin {
     try {
       const args = node.args;
       if (args.length < 3 || args.length % 2 === 0) {
-        return fail(fn, `takes a bus list and then pairs of (bus column, values); got ${args.length} arguments`);
+        return fail(
+          fn,
+          `takes a bus list and then pairs of (bus column, values); got ${args.length} arguments`,
+        );
       }
       const buses = this.column(fn, args[0] as ArgNode, state, 1, 'bus list');
       if (buses instanceof CellError) return buses;
@@ -222,13 +250,25 @@ export class BusRollupPlugin extends FunctionPlugin {
         if (values instanceof CellError) return values;
         const first = pairs[0];
         if (values.height !== keys.length) {
-          return fail(fn, `argument ${k + 2} (values) has ${values.height} rows but argument ${k + 1} (bus column) has ${keys.length}; they must cover the same rows`);
+          return fail(
+            fn,
+            `argument ${k + 2} (values) has ${values.height} rows but argument ${k + 1} (bus column) has ${keys.length}; they must cover the same rows`,
+          );
         }
         if (first && values.width !== first.width) {
-          return fail(fn, `argument ${k + 2} (values) has ${values.width} columns but argument 3 has ${first.width}; every values range must have as many columns`);
+          return fail(
+            fn,
+            `argument ${k + 2} (values) has ${values.width} columns but argument 3 has ${first.width}; every values range must have as many columns`,
+          );
         }
         const where = this.rowLabel(args[k] as ArgNode, state);
-        pairs.push({ height: values.height, width: values.width, key: (r) => keys[r] ?? null, value: values.read, ...(where ? { where } : {}) });
+        pairs.push({
+          height: values.height,
+          width: values.width,
+          key: (r) => keys[r] ?? null,
+          value: values.read,
+          ...(where ? { where } : {}),
+        });
       }
       const result = sumByBus(buses, pairs, split);
       if (!result.ok) return new CellError(ErrorType.NA, `${fn}: ${result.message}`);
@@ -244,7 +284,11 @@ export class BusRollupPlugin extends FunctionPlugin {
     if (!b) return undefined;
     let sheet = `sheet ${b.sheet + 1}`;
     try {
-      const name = (this as unknown as { dependencyGraph?: { sheetMapping?: { getSheetName?(id: number): string | undefined } } }).dependencyGraph?.sheetMapping?.getSheetName?.(b.sheet);
+      const name = (
+        this as unknown as {
+          dependencyGraph?: { sheetMapping?: { getSheetName?(id: number): string | undefined } };
+        }
+      ).dependencyGraph?.sheetMapping?.getSheetName?.(b.sheet);
       if (typeof name === 'string') sheet = name;
     } catch {
       // keep the number
@@ -253,16 +297,26 @@ export class BusRollupPlugin extends FunctionPlugin {
   }
 
   /** A one-column argument as a list of cells. */
-  private column(fn: string, node: ArgNode, state: State, position: number, what: string): Cell[] | CellError {
+  private column(
+    fn: string,
+    node: ArgNode,
+    state: State,
+    position: number,
+    what: string,
+  ): Cell[] | CellError {
     const b = this.block(node, state);
     if (b instanceof CellError) return b;
-    if (b.width !== 1) return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
+    if (b.width !== 1)
+      return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
     const out: Cell[] = new Array<Cell>(b.height);
     for (let r = 0; r < b.height; r++) out[r] = b.read(r, 0);
     return out;
   }
 
-  private block(node: ArgNode, state: State): { width: number; height: number; read: (row: number, col: number) => Cell } | CellError {
+  private block(
+    node: ArgNode,
+    state: State,
+  ): { width: number; height: number; read: (row: number, col: number) => Cell } | CellError {
     const store = (this as unknown as { dependencyGraph?: Partial<CellStore> }).dependencyGraph;
     const b = blockOf(node, state);
     if (b && store && typeof store.getCellValue === 'function') {
@@ -283,7 +337,11 @@ function metadata(method: string, sizeMethod: string) {
     sizeOfResultArrayMethod: sizeMethod,
     // Ranges are read by the method itself; never spread a range into one call per cell.
     vectorizationForbidden: true,
-    parameters: [{ argumentType: FunctionArgumentType.RANGE }, { argumentType: FunctionArgumentType.RANGE }, { argumentType: FunctionArgumentType.RANGE }],
+    parameters: [
+      { argumentType: FunctionArgumentType.RANGE },
+      { argumentType: FunctionArgumentType.RANGE },
+      { argumentType: FunctionArgumentType.RANGE },
+    ],
     repeatLastArgs: 2,
   };
 }

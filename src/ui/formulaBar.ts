@@ -31,16 +31,38 @@ export class FormulaBar {
   private original = '';
 
   constructor(private readonly host: FormulaBarHost) {
-    this.address = el('output', { className: 'kl-fb-address', attrs: { 'data-testid': 'fb-address', 'aria-label': 'Active cell' } });
+    this.address = el('output', {
+      className: 'kl-fb-address',
+      attrs: { 'data-testid': 'fb-address', 'aria-label': 'Active cell' },
+    });
     this.input = el('input', {
       className: 'kl-fb-input',
-      attrs: { type: 'text', spellcheck: 'false', autocomplete: 'off', 'aria-label': 'Cell content', 'data-testid': 'fb-input', placeholder: 'Type a value or a formula starting with =' },
+      attrs: {
+        type: 'text',
+        spellcheck: 'false',
+        autocomplete: 'off',
+        'aria-label': 'Cell content',
+        'data-testid': 'fb-input',
+        placeholder: 'Type a value or a formula starting with =',
+      },
     });
-    this.value = el('output', { className: 'kl-fb-value', attrs: { 'data-testid': 'fb-value', 'aria-label': 'Value' } });
-    this.problem = el('div', { className: 'kl-fb-problem', attrs: { 'data-testid': 'fb-problem', role: 'status' } });
+    this.value = el('output', {
+      className: 'kl-fb-value',
+      attrs: { 'data-testid': 'fb-value', 'aria-label': 'Value' },
+    });
+    this.problem = el('div', {
+      className: 'kl-fb-problem',
+      attrs: { 'data-testid': 'fb-problem', role: 'status' },
+    });
     this.problem.hidden = true;
     this.root = el('section', { className: 'kl-formula-bar', attrs: { 'aria-label': 'Formula bar' } }, [
-      el('div', { className: 'kl-fb-row' }, [this.address, el('span', { className: 'kl-fb-eq', text: 'content' }), this.input, el('span', { className: 'kl-fb-eq', text: 'value' }), this.value]),
+      el('div', { className: 'kl-fb-row' }, [
+        this.address,
+        el('span', { className: 'kl-fb-eq', text: 'content' }),
+        this.input,
+        el('span', { className: 'kl-fb-eq', text: 'value' }),
+        this.value,
+      ]),
       this.problem,
     ]);
     host.assist.attach(this.input);
@@ -56,8 +78,13 @@ export class FormulaBar {
     const name = session.sheetName(sel.sheetId);
     const block = sel.top !== sel.bottom || sel.left !== sel.right;
     this.address.textContent = `${sheetRef(name)}!${rangeLabel(sel.row, sel.col, sel.row, sel.col)}${block ? `  (${rangeLabel(sel.top, sel.left, sel.bottom, sel.right)})` : ''}`;
-    if (document.activeElement !== this.input) this.input.value = editText(session.cellContent(sel.sheetId, sel.row, sel.col));
-    const raw = session.engine.getCellValue({ sheet: sel.sheetId, row: sel.row, col: sel.col }) as EngineValue;
+    if (document.activeElement !== this.input)
+      this.input.value = editText(session.cellContent(sel.sheetId, sel.row, sel.col));
+    const raw = session.engine.getCellValue({
+      sheet: sel.sheetId,
+      row: sel.row,
+      col: sel.col,
+    }) as EngineValue;
     const view = cellView(raw);
     const header = sel.row === 0 && this.host.hasHeaderRow(sel.sheetId);
     const info = header ? undefined : this.host.columns(sel.sheetId)?.[sel.col];
@@ -81,7 +108,9 @@ export class FormulaBar {
 
   /** Put text into the bar and start editing there (e.g. "insert into cell" from the reference). */
   begin(text: string): void {
-    this.original = this.sel ? editText(this.host.session.cellContent(this.sel.sheetId, this.sel.row, this.sel.col)) : '';
+    this.original = this.sel
+      ? editText(this.host.session.cellContent(this.sel.sheetId, this.sel.row, this.sel.col))
+      : '';
     this.input.focus();
     this.input.value = text;
     this.input.setSelectionRange(text.length, text.length);

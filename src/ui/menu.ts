@@ -12,7 +12,16 @@ export interface MenuItem {
 export type MenuEntry = MenuItem | 'separator';
 
 export function menuButton(label: string, entries: readonly MenuEntry[], testId?: string): HTMLElement {
-  const button = el('button', { className: 'kl-menu-button', text: label, attrs: { type: 'button', 'aria-haspopup': 'menu', 'aria-expanded': 'false', ...(testId ? { 'data-testid': testId } : {}) } });
+  const button = el('button', {
+    className: 'kl-menu-button',
+    text: label,
+    attrs: {
+      type: 'button',
+      'aria-haspopup': 'menu',
+      'aria-expanded': 'false',
+      ...(testId ? { 'data-testid': testId } : {}),
+    },
+  });
   const list = el('div', { className: 'kl-menu', attrs: { role: 'menu' } });
   list.hidden = true;
   const close = () => {
@@ -26,12 +35,24 @@ export function menuButton(label: string, entries: readonly MenuEntry[], testId?
   const open = () => {
     list.replaceChildren(
       ...entries.map((entry) => {
-        if (entry === 'separator') return el('div', { className: 'kl-menu-sep', attrs: { role: 'separator' } });
+        if (entry === 'separator')
+          return el('div', { className: 'kl-menu-sep', attrs: { role: 'separator' } });
         const enabled = entry.enabled?.() ?? true;
-        const item = el('button', { className: 'kl-menu-item', attrs: { type: 'button', role: 'menuitem', ...(entry.testId ? { 'data-testid': entry.testId } : {}) } }, [
-          el('span', { text: entry.label }),
-          entry.hint ? el('span', { className: 'kl-menu-hint', text: entry.hint }) : null,
-        ]);
+        const item = el(
+          'button',
+          {
+            className: 'kl-menu-item',
+            attrs: {
+              type: 'button',
+              role: 'menuitem',
+              ...(entry.testId ? { 'data-testid': entry.testId } : {}),
+            },
+          },
+          [
+            el('span', { text: entry.label }),
+            entry.hint ? el('span', { className: 'kl-menu-hint', text: entry.hint }) : null,
+          ],
+        );
         item.disabled = !enabled;
         item.addEventListener('click', () => {
           close();

@@ -17,8 +17,16 @@ export class SheetList {
   private readonly list: HTMLElement;
 
   constructor(private readonly host: SheetListHost) {
-    this.list = el('div', { className: 'kl-sheet-tabs', attrs: { role: 'tablist', 'aria-orientation': 'vertical', 'aria-label': 'Sheets' } });
-    const add = el('button', { className: 'kl-icon-btn', text: '+', title: 'Add a sheet', attrs: { type: 'button', 'data-testid': 'sheet-add', 'aria-label': 'Add a sheet' } });
+    this.list = el('div', {
+      className: 'kl-sheet-tabs',
+      attrs: { role: 'tablist', 'aria-orientation': 'vertical', 'aria-label': 'Sheets' },
+    });
+    const add = el('button', {
+      className: 'kl-icon-btn',
+      text: '+',
+      title: 'Add a sheet',
+      attrs: { type: 'button', 'data-testid': 'sheet-add', 'aria-label': 'Add a sheet' },
+    });
     add.addEventListener('click', () => void this.add());
     this.root = el('nav', { className: 'kl-sheets', attrs: { 'aria-label': 'Sheets of the workbook' } }, [
       el('div', { className: 'kl-pane-head' }, [el('span', { text: 'Sheets' }), add]),
@@ -32,14 +40,29 @@ export class SheetList {
     const tabs = session.sheetIds().map((id) => {
       const name = session.sheetName(id);
       const purpose = session.meta(id).purpose;
-      const tab = el('button', {
-        className: `kl-sheet-tab${id === current ? ' is-current' : ''}`,
-        attrs: { type: 'button', role: 'tab', 'aria-selected': String(id === current), 'data-testid': 'sheet-tab', 'data-sheet': name },
-        ...(purpose ? { title: purpose } : {}),
-      }, [el('span', { className: 'kl-sheet-name', text: name })]);
+      const tab = el(
+        'button',
+        {
+          className: `kl-sheet-tab${id === current ? ' is-current' : ''}`,
+          attrs: {
+            type: 'button',
+            role: 'tab',
+            'aria-selected': String(id === current),
+            'data-testid': 'sheet-tab',
+            'data-sheet': name,
+          },
+          ...(purpose ? { title: purpose } : {}),
+        },
+        [el('span', { className: 'kl-sheet-name', text: name })],
+      );
       tab.addEventListener('click', () => this.host.open(id));
       tab.addEventListener('dblclick', () => void this.rename(id));
-      const more = el('button', { className: 'kl-sheet-more', text: '⋯', title: `Rename or delete "${name}"`, attrs: { type: 'button', 'aria-label': `Actions for sheet ${name}`, 'data-testid': 'sheet-more' } });
+      const more = el('button', {
+        className: 'kl-sheet-more',
+        text: '⋯',
+        title: `Rename or delete "${name}"`,
+        attrs: { type: 'button', 'aria-label': `Actions for sheet ${name}`, 'data-testid': 'sheet-more' },
+      });
       more.addEventListener('click', (e) => {
         e.stopPropagation();
         this.actions(id, more);
@@ -52,14 +75,21 @@ export class SheetList {
   private actions(id: number, anchor: HTMLElement): void {
     const pop = el('div', { className: 'kl-menu kl-sheet-menu', attrs: { role: 'menu' } });
     const item = (label: string, run: () => void, testId: string) => {
-      const b = el('button', { className: 'kl-menu-item', text: label, attrs: { type: 'button', role: 'menuitem', 'data-testid': testId } });
+      const b = el('button', {
+        className: 'kl-menu-item',
+        text: label,
+        attrs: { type: 'button', role: 'menuitem', 'data-testid': testId },
+      });
       b.addEventListener('click', () => {
         pop.remove();
         run();
       });
       return b;
     };
-    pop.append(item('Rename…', () => void this.rename(id), 'sheet-rename'), item('Delete…', () => void this.remove(id), 'sheet-delete'));
+    pop.append(
+      item('Rename…', () => void this.rename(id), 'sheet-rename'),
+      item('Delete…', () => void this.remove(id), 'sheet-delete'),
+    );
     anchor.after(pop);
     const away = (e: Event) => {
       if (!pop.contains(e.target as Node)) {
@@ -74,7 +104,9 @@ export class SheetList {
   async add(): Promise<void> {
     const { session } = this.host;
     const names = session.sheetNames();
-    const name = await promptDialog('Add a sheet', 'Name of the new sheet', freshSheetName(names), (v) => sheetNameProblem(v, names));
+    const name = await promptDialog('Add a sheet', 'Name of the new sheet', freshSheetName(names), (v) =>
+      sheetNameProblem(v, names),
+    );
     if (name === undefined) return;
     const id = session.addSheet(name, this.host.current());
     this.host.open(id);
@@ -84,7 +116,9 @@ export class SheetList {
     const { session } = this.host;
     const current = session.sheetName(id);
     const names = session.sheetNames();
-    const name = await promptDialog(`Rename "${current}"`, 'New name', current, (v) => sheetNameProblem(v, names, current));
+    const name = await promptDialog(`Rename "${current}"`, 'New name', current, (v) =>
+      sheetNameProblem(v, names, current),
+    );
     if (name === undefined || name === current) return;
     session.renameSheet(id, name);
     this.host.notice(`Sheet renamed to "${name}"; formulas that refer to it follow the new name.`);
@@ -98,13 +132,19 @@ export class SheetList {
     }
     const name = session.sheetName(id);
     const filled = session.sheetContents(id).reduce((n, r) => n + r.filter((c) => c !== null).length, 0);
-    const ok = await confirmDialog(`Delete sheet "${name}"?`, [
-      `The sheet holds ${filled} filled cell${filled === 1 ? '' : 's'}. Formulas on other sheets that refer to it will show #REF!.`,
-      'You can bring it back with Undo (Ctrl+Z).',
-    ], 'Delete sheet', true);
+    const ok = await confirmDialog(
+      `Delete sheet "${name}"?`,
+      [
+        `The sheet holds ${filled} filled cell${filled === 1 ? '' : 's'}. Formulas on other sheets that refer to it will show #REF!.`,
+        'You can bring it back with Undo (Ctrl+Z).',
+      ],
+      'Delete sheet',
+      true,
+    );
     if (!ok) return;
     const order = session.sheetIds();
-    const next = order[Math.max(0, order.indexOf(id) - 1)] === id ? order[1] : order[Math.max(0, order.indexOf(id) - 1)];
+    const next =
+      order[Math.max(0, order.indexOf(id) - 1)] === id ? order[1] : order[Math.max(0, order.indexOf(id) - 1)];
     session.removeSheet(id);
     if (next !== undefined) this.host.open(next);
     this.host.notice(`Sheet "${name}" deleted. Undo (Ctrl+Z) brings it back.`);

@@ -13,23 +13,44 @@ export class StatusBar {
   private noticeTimer: ReturnType<typeof setTimeout> | undefined;
 
   constructor(onNextError: () => void, onCautions: () => void) {
-    this.save = el('span', { className: 'kl-status-save', attrs: { 'data-testid': 'save-status', role: 'status' } });
+    this.save = el('span', {
+      className: 'kl-status-save',
+      attrs: { 'data-testid': 'save-status', role: 'status' },
+    });
     this.summary = el('span', { className: 'kl-status-summary', attrs: { 'data-testid': 'sel-summary' } });
-    this.errors = el('button', { className: 'kl-status-errors', attrs: { type: 'button', 'data-testid': 'error-count' } });
+    this.errors = el('button', {
+      className: 'kl-status-errors',
+      attrs: { type: 'button', 'data-testid': 'error-count' },
+    });
     this.errors.addEventListener('click', onNextError);
     this.errors.hidden = true;
-    this.notice = el('span', { className: 'kl-status-notice', attrs: { 'data-testid': 'notice', role: 'status' } });
+    this.notice = el('span', {
+      className: 'kl-status-notice',
+      attrs: { 'data-testid': 'notice', role: 'status' },
+    });
     // Always in sight: the figures are estimates; the cautions are one click away.
-    const caution = el('button', { className: 'kl-status-caution', text: 'Estimates only — read the cautions', attrs: { type: 'button', 'data-testid': 'cautions' } });
+    const caution = el('button', {
+      className: 'kl-status-caution',
+      text: 'Estimates only — read the cautions',
+      attrs: { type: 'button', 'data-testid': 'cautions' },
+    });
     caution.addEventListener('click', onCautions);
-    this.root = el('footer', { className: 'kl-status' }, [this.save, this.notice, el('span', { className: 'kl-spacer' }), this.errors, this.summary, caution]);
+    this.root = el('footer', { className: 'kl-status' }, [
+      this.save,
+      this.notice,
+      el('span', { className: 'kl-spacer' }),
+      this.errors,
+      this.summary,
+      caution,
+    ]);
   }
 
   saveStatus(s: AutosaveStatus): void {
     this.save.classList.remove('is-failed', 'is-pending');
     if (s.state === 'saved') {
       this.save.textContent = `Saved in this browser ${new Date(s.savedAt).toLocaleTimeString()}`;
-      this.save.title = 'Every change is kept in this browser and restored when you come back. Save a file to keep a copy elsewhere.';
+      this.save.title =
+        'Every change is kept in this browser and restored when you come back. Save a file to keep a copy elsewhere.';
     } else if (s.state === 'failed') {
       this.save.classList.add('is-failed');
       this.save.textContent = 'NOT SAVED';

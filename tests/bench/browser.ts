@@ -19,7 +19,16 @@ import { MotorEdits } from './workbookView.ts';
 import { installPaintProbe, measureEditPaint, readyAt, selectCell } from './pageProbes.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 const EDITS = 7;
 const WAIT_MS = 120_000;
 
@@ -43,10 +52,17 @@ async function checkRoot(page: Page, edits: MotorEdits): Promise<Check> {
   const want = floorRoots(edits.editedSite()).p[0] as number;
   // The page may show the value rounded to its number format (0.1 kW).
   const ok = Math.abs(shown - want) <= 0.05 + 1e-9 * Math.abs(want);
-  return { agrees: ok, detail: `the page shows root P ${text.trim()} after the edits; the floor of the edited site gives ${want.toFixed(3)}` };
+  return {
+    agrees: ok,
+    detail: `the page shows root P ${text.trim()} after the edits; the floor of the edited site gives ${want.toFixed(3)}`,
+  };
 }
 
-export async function measureBrowser(workDir: string, liveFile: string, rows: number): Promise<BrowserResult> {
+export async function measureBrowser(
+  workDir: string,
+  liveFile: string,
+  rows: number,
+): Promise<BrowserResult> {
   const outDir = join(workDir, 'app');
   try {
     await buildApp(outDir);
@@ -59,7 +75,12 @@ export async function measureBrowser(workDir: string, liveFile: string, rows: nu
   const profile = join(workDir, 'chromium-profile');
   mkdirSync(profile, { recursive: true });
   const { chromium } = await import('playwright-core');
-  const context = await chromium.launchPersistentContext(profile, { executablePath: CHROMIUM, headless: true, args: ARGS, viewport: { width: 1600, height: 1000 } });
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    args: ARGS,
+    viewport: { width: 1600, height: 1000 },
+  });
   try {
     const page = context.pages()[0] ?? (await context.newPage());
     page.setDefaultTimeout(WAIT_MS);
@@ -69,7 +90,10 @@ export async function measureBrowser(workDir: string, liveFile: string, rows: nu
 
     // Open the file as a user does; the app autosaves it into the browser's storage.
     await page.click('[data-testid=menu-workbook]');
-    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.click('[data-testid=menu-open]')]);
+    const [chooser] = await Promise.all([
+      page.waitForEvent('filechooser'),
+      page.click('[data-testid=menu-open]'),
+    ]);
     const t0 = performance.now();
     await chooser.setFiles(liveFile);
     await readyAt(page, doc.title);
@@ -92,16 +116,31 @@ export async function measureBrowser(workDir: string, liveFile: string, rows: nu
     const check = await checkRoot(page, edits);
 
     // Navigation to an interactive grid of this workbook: a reload restores it from the browser's storage.
-    await page.waitForFunction(() => document.querySelector('[data-testid=save-status]')?.textContent?.startsWith('Saved') === true, undefined, { timeout: WAIT_MS });
+    await page.waitForFunction(
+      () => document.querySelector('[data-testid=save-status]')?.textContent?.startsWith('Saved') === true,
+      undefined,
+      { timeout: WAIT_MS },
+    );
     await page.reload();
     const openMs = await readyAt(page, doc.title);
     const restored = await checkRoot(page, edits);
     const note = [
       `file open (choose → interactive) ${Math.round(fileOpenMs)} ms`,
       `edits typed into "${HEADERS.loadCase(site.settings.cases[0] as string)}" of ${SHEETS.motors}`,
-      restored.agrees ? 'the restored workbook shows the same root P' : `after the reload (restored from browser storage) ${restored.detail}`,
+      restored.agrees
+        ? 'the restored workbook shows the same root P'
+        : `after the reload (restored from browser storage) ${restored.detail}`,
     ].join('; ');
-    return { status: 'ok', note, ...base, openMs, editPaintMs: median(times), editPaintRuns: times.length, jsHeapUsedMb, check };
+    return {
+      status: 'ok',
+      note,
+      ...base,
+      openMs,
+      editPaintMs: median(times),
+      editPaintRuns: times.length,
+      jsHeapUsedMb,
+      check,
+    };
   } catch (e) {
     return { status: 'failed', note: firstLine(e), ...base };
   } finally {

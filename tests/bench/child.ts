@@ -19,12 +19,30 @@ export function notRun(phase: PhaseName, rows: number, why: string): StepResult[
   return PHASE_STEPS[phase].map((step) => ({ step, rows, status: 'not run' as const, note: why }));
 }
 
-export function runPhaseInChild(phase: PhaseName, size: { rows: number; buses: number }, workDir: string, budgetS: number): Promise<PhaseOutcome> {
+export function runPhaseInChild(
+  phase: PhaseName,
+  size: { rows: number; buses: number },
+  workDir: string,
+  budgetS: number,
+): Promise<PhaseOutcome> {
   const t0 = performance.now();
-  const child = spawn(process.execPath, ['--import', 'tsx', '--max-old-space-size=12288', WORKER, phase, String(size.rows), String(size.buses), workDir], {
-    cwd: REPO,
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  const child = spawn(
+    process.execPath,
+    [
+      '--import',
+      'tsx',
+      '--max-old-space-size=12288',
+      WORKER,
+      phase,
+      String(size.rows),
+      String(size.buses),
+      workDir,
+    ],
+    {
+      cwd: REPO,
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  );
   const results: StepResult[] = [];
   let current: StepId | undefined;
   let peak: number | undefined;
@@ -44,7 +62,8 @@ export function runPhaseInChild(phase: PhaseName, size: { rows: number; buses: n
     while ((nl = pending.indexOf('\n')) >= 0) {
       const line = pending.slice(0, nl);
       pending = pending.slice(nl + 1);
-      if (line.startsWith(MESSAGE_PREFIX)) onMessage(JSON.parse(line.slice(MESSAGE_PREFIX.length)) as PhaseMessage);
+      if (line.startsWith(MESSAGE_PREFIX))
+        onMessage(JSON.parse(line.slice(MESSAGE_PREFIX.length)) as PhaseMessage);
     }
   });
   child.stderr.setEncoding('utf8').on('data', (chunk: string) => {
@@ -60,18 +79,41 @@ export function runPhaseInChild(phase: PhaseName, size: { rows: number; buses: n
       clearTimeout(timer);
       const wallMs = performance.now() - t0;
       const reached = new Set(results.map((r) => r.step));
-      const lastError = stderr.trim().split('\n').filter((l) => /error/i.test(l)).slice(-1)[0] ?? stderr.trim().split('\n').slice(-1)[0] ?? '';
-      const stopped = timedOut ? `exceeded ${budgetS} s` : code !== 0 ? `failed (exit ${code}): ${lastError}` : undefined;
+      const lastError =
+        stderr
+          .trim()
+          .split('\n')
+          .filter((l) => /error/i.test(l))
+          .slice(-1)[0] ??
+        stderr.trim().split('\n').slice(-1)[0] ??
+        '';
+      const stopped = timedOut
+        ? `exceeded ${budgetS} s`
+        : code !== 0
+          ? `failed (exit ${code}): ${lastError}`
+          : undefined;
       if (current !== undefined && stopped !== undefined) {
-        results.push({ step: current, rows: size.rows, status: timedOut ? 'exceeded' : 'failed', note: timedOut ? `stopped: the ${phase} phase's budget of ${budgetS} s ran out in this step` : stopped });
+        results.push({
+          step: current,
+          rows: size.rows,
+          status: timedOut ? 'exceeded' : 'failed',
+          note: timedOut
+            ? `stopped: the ${phase} phase's budget of ${budgetS} s ran out in this step`
+            : stopped,
+        });
         reached.add(current);
       }
       for (const step of PHASE_STEPS[phase]) {
         if (reached.has(step)) continue;
-        const why = stopped ? `not reached: ${current ? STEP_NAMES[current] : 'the phase'} ${stopped}` : 'the phase ended without this step';
+        const why = stopped
+          ? `not reached: ${current ? STEP_NAMES[current] : 'the phase'} ${stopped}`
+          : 'the phase ended without this step';
         results.push({ step, rows: size.rows, status: 'not run', note: why });
       }
-      const memory = peak === undefined ? undefined : { rows: size.rows, phase, peakRssMb: peak, complete: stopped === undefined };
+      const memory =
+        peak === undefined
+          ? undefined
+          : { rows: size.rows, phase, peakRssMb: peak, complete: stopped === undefined };
       resolve({ results, ...(memory ? { memory } : {}), wallMs });
     });
   });

@@ -13,7 +13,9 @@ export function childrenCpuMs(): number | undefined {
     const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
     const cutime = Number(fields[13]);
     const cstime = Number(fields[14]);
-    return Number.isFinite(cutime) && Number.isFinite(cstime) ? ((cutime + cstime) * 1_000) / TICKS_PER_SECOND : undefined;
+    return Number.isFinite(cutime) && Number.isFinite(cstime)
+      ? ((cutime + cstime) * 1_000) / TICKS_PER_SECOND
+      : undefined;
   } catch {
     return undefined;
   }

@@ -40,7 +40,13 @@ export function prepareFloor(site: Site): FloorInput {
   const m = shunts.length;
   const f = (n: number) => new Float64Array(n);
   const inp = {
-    kind: new Uint8Array(m), bus: new Int32Array(m), n: f(m), a: f(m), b: f(m), c: f(m), d: f(m),
+    kind: new Uint8Array(m),
+    bus: new Int32Array(m),
+    n: f(m),
+    a: f(m),
+    b: f(m),
+    c: f(m),
+    d: f(m),
     loadByCase: site.settings.cases.map(() => f(m)),
   };
   shunts.forEach((r, i) => {
@@ -48,11 +54,19 @@ export function prepareFloor(site: Site): FloorInput {
     inp.kind[i] = KIND[r.kind as keyof typeof KIND];
     inp.bus[i] = idx(r.bus);
     inp.n[i] = v.running ?? v.qty ?? 1;
-    site.settings.cases.forEach((c, k) => ((inp.loadByCase[k] as Float64Array)[i] = r.loads[c] ?? v.load ?? 1));
+    site.settings.cases.forEach(
+      (c, k) => ((inp.loadByCase[k] as Float64Array)[i] = r.loads[c] ?? v.load ?? 1),
+    );
     if (r.kind === 'motor') [inp.a[i], inp.b[i], inp.c[i]] = [v.p_kw ?? 0, v.eff ?? 1, v.cos_phi ?? 1];
     if (r.kind === 'load') [inp.a[i], inp.c[i]] = [v.p_kw ?? 0, v.cos_phi ?? 1];
     if (r.kind === 'cable') [inp.a[i], inp.b[i], inp.c[i]] = [v.u_kv ?? 0, v.c_uf_km ?? 0, v.len_km ?? 0];
-    if (r.kind === 'capacitor') [inp.a[i], inp.b[i], inp.c[i], inp.d[i]] = [v.q_kvar ?? 0, v.u_rated_kv ?? 1, v.u_kv ?? v.u_rated_kv ?? 1, v.p_pct ?? 0];
+    if (r.kind === 'capacitor')
+      [inp.a[i], inp.b[i], inp.c[i], inp.d[i]] = [
+        v.q_kvar ?? 0,
+        v.u_rated_kv ?? 1,
+        v.u_kv ?? v.u_rated_kv ?? 1,
+        v.p_pct ?? 0,
+      ];
   });
   // Order transformers deepest first: a transformer's to_bus must be complete before it is used.
   const depth = new Map<string, number>();
@@ -67,7 +81,15 @@ export function prepareFloor(site: Site): FloorInput {
   };
   const ordered = [...txs].sort((x, y) => depthOf(y.to_bus as string) - depthOf(x.to_bus as string));
   const t = ordered.length;
-  const tx = { txFrom: new Int32Array(t), txTo: new Int32Array(t), txS: f(t), txP0: f(t), txPk: f(t), txI0: f(t), txUk: f(t) };
+  const tx = {
+    txFrom: new Int32Array(t),
+    txTo: new Int32Array(t),
+    txS: f(t),
+    txP0: f(t),
+    txPk: f(t),
+    txI0: f(t),
+    txUk: f(t),
+  };
   ordered.forEach((r, i) => {
     tx.txFrom[i] = idx(r.bus);
     tx.txTo[i] = idx(r.to_bus as string);
@@ -92,8 +114,12 @@ export function floorTotals(x: FloorInput, caseIndex: number): { p: Float64Array
   for (let i = 0; i < x.kind.length; i++) {
     const lf = load[i] as number;
     if (lf === 0) continue;
-    const n = x.n[i] as number, a = x.a[i] as number, b = x.b[i] as number, c = x.c[i] as number;
-    let dp = 0, dq = 0;
+    const n = x.n[i] as number,
+      a = x.a[i] as number,
+      b = x.b[i] as number,
+      c = x.c[i] as number;
+    let dp = 0,
+      dq = 0;
     switch (x.kind[i]) {
       case KIND.motor: {
         const qr = (a / b) * tanOf(c);
@@ -111,7 +137,7 @@ export function floorTotals(x: FloorInput, caseIndex: number): { p: Float64Array
       case KIND.capacitor: {
         const fr = x.hz / 50;
         const d = x.d[i] as number;
-        dq = (-a * (c / b) ** 2 * fr) / (1 - (d / 100) * fr * fr) * lf;
+        dq = ((-a * (c / b) ** 2 * fr) / (1 - (d / 100) * fr * fr)) * lf;
         break;
       }
     }
@@ -120,9 +146,13 @@ export function floorTotals(x: FloorInput, caseIndex: number): { p: Float64Array
     q[k] = (q[k] as number) + n * dq;
   }
   for (let j = 0; j < x.txFrom.length; j++) {
-    const to = x.txTo[j] as number, from = x.txFrom[j] as number;
-    const s = x.txS[j] as number, p0 = x.txP0[j] as number, pk = x.txPk[j] as number;
-    const uk = x.txUk[j] as number, i0 = x.txI0[j] as number;
+    const to = x.txTo[j] as number,
+      from = x.txFrom[j] as number;
+    const s = x.txS[j] as number,
+      p0 = x.txP0[j] as number,
+      pk = x.txPk[j] as number;
+    const uk = x.txUk[j] as number,
+      i0 = x.txI0[j] as number;
     const load = Math.hypot(p[to] as number, q[to] as number) / s;
     const ur = (100 * pk) / s;
     const qMag = Math.sqrt(((i0 / 100) * s) ** 2 - p0 * p0);
@@ -145,5 +175,9 @@ export function floorRoots(site: Site): { bus: string; p: number[]; q: number[] 
   const x = prepareFloor(site);
   const root = floorRootIndex(x);
   const totals = site.settings.cases.map((_, k) => floorTotals(x, k));
-  return { bus: x.busNames[root] as string, p: totals.map((t) => t.p[root] as number), q: totals.map((t) => t.q[root] as number) };
+  return {
+    bus: x.busNames[root] as string,
+    p: totals.map((t) => t.p[root] as number),
+    q: totals.map((t) => t.q[root] as number),
+  };
 }

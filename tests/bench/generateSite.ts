@@ -30,10 +30,31 @@ export function generateSite({ rows, buses }: SiteSize, seed = 7): Site {
   let row = 2;
   const push = (r: Omit<EquipmentRow, 'row'>) => equipment.push({ ...r, row: row++ });
   mv.forEach((bus, i) =>
-    push({ tag: `TX-M${i + 1}`, bus: root, kind: 'transformer', to_bus: bus, values: { s_kva: 20000, uk_pct: 10, p0_kw: 12, pk_kw: 90, i0_pct: 0.4, u_kv: 33 }, loads: {} }),
+    push({
+      tag: `TX-M${i + 1}`,
+      bus: root,
+      kind: 'transformer',
+      to_bus: bus,
+      values: { s_kva: 20000, uk_pct: 10, p0_kw: 12, pk_kw: 90, i0_pct: 0.4, u_kv: 33 },
+      loads: {},
+    }),
   );
   lv.forEach((bus, i) =>
-    push({ tag: `TX-L${i + 1}`, bus: mv[i % mvCount] as string, kind: 'transformer', to_bus: bus, values: { s_kva: pick([1000, 1600, 2000, 2500]), uk_pct: 6, p0_kw: 1.1, pk_kw: 12, i0_pct: 0.8, u_kv: 11 }, loads: {} }),
+    push({
+      tag: `TX-L${i + 1}`,
+      bus: mv[i % mvCount] as string,
+      kind: 'transformer',
+      to_bus: bus,
+      values: {
+        s_kva: pick([1000, 1600, 2000, 2500]),
+        uk_pct: 6,
+        p0_kw: 1.1,
+        pk_kw: 12,
+        i0_pct: 0.8,
+        u_kv: 11,
+      },
+      loads: {},
+    }),
   );
   const remaining = Math.max(0, rows - equipment.length);
   for (let i = 0; i < remaining; i++) {
@@ -41,17 +62,52 @@ export function generateSite({ rows, buses }: SiteSize, seed = 7): Site {
     const k = rnd();
     const light = 0.3 + 0.4 * rnd();
     if (k < 0.55) {
-      push({ tag: `M-${i + 1}`, bus, kind: 'motor', values: { p_kw: pick([5.5, 11, 22, 37, 55, 75]), eff: 0.9 + 0.05 * rnd(), cos_phi: 0.8 + 0.08 * rnd(), u_kv: 0.4 }, loads: { normal: 0.6 + 0.35 * rnd(), light } });
+      push({
+        tag: `M-${i + 1}`,
+        bus,
+        kind: 'motor',
+        values: {
+          p_kw: pick([5.5, 11, 22, 37, 55, 75]),
+          eff: 0.9 + 0.05 * rnd(),
+          cos_phi: 0.8 + 0.08 * rnd(),
+          u_kv: 0.4,
+        },
+        loads: { normal: 0.6 + 0.35 * rnd(), light },
+      });
     } else if (k < 0.85) {
-      push({ tag: `L-${i + 1}`, bus, kind: 'load', values: { p_kw: 5 + Math.round(80 * rnd()), cos_phi: 0.85 + 0.13 * rnd(), u_kv: 0.4 }, loads: { normal: 1, light } });
+      push({
+        tag: `L-${i + 1}`,
+        bus,
+        kind: 'load',
+        values: { p_kw: 5 + Math.round(80 * rnd()), cos_phi: 0.85 + 0.13 * rnd(), u_kv: 0.4 },
+        loads: { normal: 1, light },
+      });
     } else if (k < 0.95) {
-      push({ tag: `C-${i + 1}`, bus, kind: 'cable', values: { u_kv: 0.4, c_uf_km: 0.5 + 0.3 * rnd(), len_km: 0.05 + 0.3 * rnd() }, loads: {} });
+      push({
+        tag: `C-${i + 1}`,
+        bus,
+        kind: 'cable',
+        values: { u_kv: 0.4, c_uf_km: 0.5 + 0.3 * rnd(), len_km: 0.05 + 0.3 * rnd() },
+        loads: {},
+      });
     } else {
-      push({ tag: `Q-${i + 1}`, bus, kind: 'capacitor', values: { q_kvar: pick([25, 50, 100]), u_rated_kv: 0.44, u_kv: 0.4, p_pct: pick([0, 7]) }, loads: {} });
+      push({
+        tag: `Q-${i + 1}`,
+        bus,
+        kind: 'capacitor',
+        values: { q_kvar: pick([25, 50, 100]), u_rated_kv: 0.44, u_kv: 0.4, p_pct: pick([0, 7]) },
+        loads: {},
+      });
     }
   }
   return {
-    settings: { name: `Bench site ${rows} rows / ${buses} buses`, hz: 50, cases: ['normal', 'light'], requirement: { kind: 'cosphi', target: 0.95 }, sscMva: 500 },
+    settings: {
+      name: `Bench site ${rows} rows / ${buses} buses`,
+      hz: 50,
+      cases: ['normal', 'light'],
+      requirement: { kind: 'cosphi', target: 0.95 },
+      sscMva: 500,
+    },
     equipment,
   };
 }

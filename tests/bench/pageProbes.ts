@@ -42,7 +42,15 @@ export async function selectCell(page: Page, row: number, col: number): Promise<
   for (let i = 0; i < col; i++) await page.keyboard.press('ArrowRight');
   const want = `!${letters(col)}${row + 1}`;
   try {
-    await page.waitForFunction((w) => (document.querySelector('[data-testid=fb-address]')?.textContent ?? '').trim().split(/\s/)[0]?.endsWith(w) === true, want, { timeout: 10_000 });
+    await page.waitForFunction(
+      (w) =>
+        (document.querySelector('[data-testid=fb-address]')?.textContent ?? '')
+          .trim()
+          .split(/\s/)[0]
+          ?.endsWith(w) === true,
+      want,
+      { timeout: 10_000 },
+    );
   } catch {
     const got = await page.textContent('[data-testid=fb-address]');
     throw new Error(`could not select ${want.slice(1)}: the formula bar shows ${got ?? 'nothing'}`);
@@ -63,17 +71,23 @@ export async function installPaintProbe(page: Page, selector: string): Promise<v
     if (!target) return false;
     const probe: Probe = { armed: false, t0: 0, t1: 0, seen: false };
     (window as unknown as { klProbe: Probe }).klProbe = probe;
-    document.addEventListener('keydown', (e) => {
-      if (probe.armed && e.key === 'Enter' && probe.t0 === 0) probe.t0 = performance.now();
-    }, true);
+    document.addEventListener(
+      'keydown',
+      (e) => {
+        if (probe.armed && e.key === 'Enter' && probe.t0 === 0) probe.t0 = performance.now();
+      },
+      true,
+    );
     new MutationObserver(() => {
       if (!probe.armed || probe.t0 === 0 || probe.seen) return;
       probe.seen = true;
       // The frame after the change: rAF runs before that frame's paint, the task after it runs once painted.
-      requestAnimationFrame(() => setTimeout(() => {
-        probe.t1 = performance.now();
-        probe.armed = false;
-      }, 0));
+      requestAnimationFrame(() =>
+        setTimeout(() => {
+          probe.t1 = performance.now();
+          probe.armed = false;
+        }, 0),
+      );
     }).observe(target, { subtree: true, childList: true, characterData: true, attributes: true });
     return true;
   }, selector);
@@ -82,12 +96,23 @@ export async function installPaintProbe(page: Page, selector: string): Promise<v
 
 /** Type a value into the active cell and press Enter; ms from Enter to the repainted watched element. */
 export async function measureEditPaint(page: Page, value: string): Promise<number> {
-  await page.evaluate(() => Object.assign((window as unknown as { klProbe: Probe }).klProbe, { armed: true, t0: 0, t1: 0, seen: false }));
+  await page.evaluate(() =>
+    Object.assign((window as unknown as { klProbe: Probe }).klProbe, {
+      armed: true,
+      t0: 0,
+      t1: 0,
+      seen: false,
+    }),
+  );
   await page.keyboard.type(value);
   await page.keyboard.press('Enter');
-  const handle = await page.waitForFunction(() => {
-    const p = (window as unknown as { klProbe: Probe }).klProbe;
-    return p.t1 > 0 ? p.t1 - p.t0 : false;
-  }, undefined, { timeout: WAIT_MS });
+  const handle = await page.waitForFunction(
+    () => {
+      const p = (window as unknown as { klProbe: Probe }).klProbe;
+      return p.t1 > 0 ? p.t1 - p.t0 : false;
+    },
+    undefined,
+    { timeout: WAIT_MS },
+  );
   return (await handle.jsonValue()) as number;
 }

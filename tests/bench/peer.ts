@@ -18,7 +18,8 @@ const RECALC_ALWAYS = `<?xml version="1.0" encoding="UTF-8"?>
 `;
 
 /** CSV filter: comma, double quote, UTF-8, full precision (not "as shown"), one sheet by number. */
-const csvFilter = (sheet: number) => `csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,false,false,false,${sheet}`;
+const csvFilter = (sheet: number) =>
+  `csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,false,false,false,${sheet}`;
 
 export interface Peer {
   readonly dir: string;
@@ -50,20 +51,40 @@ function convert(peer: Peer, file: string, sheet: number, budgetS: number): Conv
   const out = join(peer.dir, 'out');
   rmSync(out, { recursive: true, force: true });
   mkdirSync(out, { recursive: true });
-  const args = [`-env:UserInstallation=file://${peer.profile}`, '--headless', '--norestore', '--convert-to', csvFilter(sheet), '--outdir', out, file];
+  const args = [
+    `-env:UserInstallation=file://${peer.profile}`,
+    '--headless',
+    '--norestore',
+    '--convert-to',
+    csvFilter(sheet),
+    '--outdir',
+    out,
+    file,
+  ];
   const t0 = performance.now();
-  const { value: r, cpuMs } = withChildCpu(() => spawnSync('soffice', args, { encoding: 'utf8', timeout: budgetS * 1_000, killSignal: 'SIGKILL' }));
+  const { value: r, cpuMs } = withChildCpu(() =>
+    spawnSync('soffice', args, { encoding: 'utf8', timeout: budgetS * 1_000, killSignal: 'SIGKILL' }),
+  );
   const ms = performance.now() - t0;
-  if ((r.error as NodeJS.ErrnoException | undefined)?.code === 'ETIMEDOUT') return { ms, timedOut: true, error: `exceeded ${budgetS} s` };
+  if ((r.error as NodeJS.ErrnoException | undefined)?.code === 'ETIMEDOUT')
+    return { ms, timedOut: true, error: `exceeded ${budgetS} s` };
   const stem = basename(file).replace(/\.xlsx$/, '');
-  const made = existsSync(out) ? readdirSync(out).find((f) => f.startsWith(stem) && f.endsWith('.csv')) : undefined;
-  if (r.status !== 0 || made === undefined) return { ms, error: `soffice exit ${r.status}, no CSV written: ${(r.stderr || r.stdout).trim().split('\n')[0] ?? ''}` };
+  const made = existsSync(out)
+    ? readdirSync(out).find((f) => f.startsWith(stem) && f.endsWith('.csv'))
+    : undefined;
+  if (r.status !== 0 || made === undefined)
+    return {
+      ms,
+      error: `soffice exit ${r.status}, no CSV written: ${(r.stderr || r.stdout).trim().split('\n')[0] ?? ''}`,
+    };
   return { ms, ...(cpuMs !== undefined ? { cpuMs } : {}), csv: readFileSync(join(out, made), 'utf8') };
 }
 
 /** A tiny workbook whose one formula has a wrong cached result: 2 after a recalculation, 999 if not. */
 async function tinyFile(peer: Peer): Promise<string> {
-  const mod = (await import('exceljs')) as unknown as { default?: typeof ExcelJSNamespace } & typeof ExcelJSNamespace;
+  const mod = (await import('exceljs')) as unknown as {
+    default?: typeof ExcelJSNamespace;
+  } & typeof ExcelJSNamespace;
   const ExcelJS = mod.default ?? mod;
   const wb = new ExcelJS.Workbook();
   const ws = wb.addWorksheet('Tiny');
@@ -83,7 +104,12 @@ export interface Startup {
 function fastest(runs: readonly Conversion[]) {
   const ms = runs.map((r) => r.ms);
   const cpu = runs.map((r) => r.cpuMs).filter((x): x is number => x !== undefined);
-  return { ms: Math.min(...ms), minMs: Math.min(...ms), runs: ms.length, ...(cpu.length > 0 ? { cpuMs: Math.min(...cpu) } : {}) };
+  return {
+    ms: Math.min(...ms),
+    minMs: Math.min(...ms),
+    runs: ms.length,
+    ...(cpu.length > 0 ? { cpuMs: Math.min(...cpu) } : {}),
+  };
 }
 
 const wallList = (runs: readonly Conversion[]) => runs.map((r) => Math.round(r.ms)).join(', ');
@@ -94,28 +120,56 @@ export async function measureStartup(peer: Peer): Promise<Startup> {
   convert(peer, tiny, 1, 120);
   const runs = [0, 1, 2, 3, 4].map(() => convert(peer, tiny, 1, 60));
   const bad = runs.find((r) => r.error !== undefined);
-  if (bad) return { result: { step: 'peerStartup', rows: 0, status: 'failed', note: bad.error as string }, recalculates: false };
+  if (bad)
+    return {
+      result: { step: 'peerStartup', rows: 0, status: 'failed', note: bad.error as string },
+      recalculates: false,
+    };
   const lines = (runs[0]?.csv ?? '').trim().split(/\r?\n/);
   const recalculates = lines[1]?.trim() === '2';
   const check: Check = recalculates
     ? { agrees: true, detail: 'a stale cached result (999) came out recalculated (2): loading recalculates' }
-    : { agrees: false, detail: `the stale cached result was not recalculated (got ${lines[1] ?? 'nothing'}); peer times do not include recalculation` };
-  return { result: { step: 'peerStartup', rows: 0, status: 'ok', ...fastest(runs), note: `tiny xlsx to CSV; wall of ${wallList(runs)} ms`, check }, recalculates };
+    : {
+        agrees: false,
+        detail: `the stale cached result was not recalculated (got ${lines[1] ?? 'nothing'}); peer times do not include recalculation`,
+      };
+  return {
+    result: {
+      step: 'peerStartup',
+      rows: 0,
+      status: 'ok',
+      ...fastest(runs),
+      note: `tiny xlsx to CSV; wall of ${wallList(runs)} ms`,
+      check,
+    },
+    recalculates,
+  };
 }
 
 /** Root P and Q of the first case from the Buses CSV, compared with the floor. */
 function checkCsv(csv: string, floor: RootTotals, caseName: string): Check {
-  const rows = csv.trim().split(/\r?\n/).map((l) => l.split(','));
+  const rows = csv
+    .trim()
+    .split(/\r?\n/)
+    .map((l) => l.split(','));
   const header = rows[0] ?? [];
   const pCol = header.indexOf(`P ${caseName} (kW)`);
   const qCol = header.indexOf(`Q ${caseName} (kvar)`);
   const root = rows[1] ?? [];
-  if (pCol < 0 || qCol < 0) return { agrees: false, detail: `the CSV of the Buses sheet has no column "P ${caseName} (kW)"` };
-  const p = Number(root[pCol]), q = Number(root[qCol]);
+  if (pCol < 0 || qCol < 0)
+    return { agrees: false, detail: `the CSV of the Buses sheet has no column "P ${caseName} (kW)"` };
+  const p = Number(root[pCol]),
+    q = Number(root[qCol]);
   const ok = root[0] === floor.bus && agreeRel(p, floor.p[0] as number) && agreeRel(q, floor.q[0] as number);
   return ok
-    ? { agrees: true, detail: `LibreOffice's recalculated root ${floor.bus} P and Q (first case) equal the floor to 1e-9 relative` }
-    : { agrees: false, detail: `LibreOffice gives ${root[0]} P ${root[pCol]} Q ${root[qCol]}; the floor ${floor.bus} P ${floor.p[0]} Q ${floor.q[0]}` };
+    ? {
+        agrees: true,
+        detail: `LibreOffice's recalculated root ${floor.bus} P and Q (first case) equal the floor to 1e-9 relative`,
+      }
+    : {
+        agrees: false,
+        detail: `LibreOffice gives ${root[0]} P ${root[pCol]} Q ${root[qCol]}; the floor ${floor.bus} P ${floor.p[0]} Q ${floor.q[0]}`,
+      };
 }
 
 /**
@@ -123,7 +177,16 @@ function checkCsv(csv: string, floor: RootTotals, caseName: string): Check {
  * runs within a third of the budget) and net (gross minus the start-up, wall and CPU alike).
  * `busesSheet` is the 1-based position of the Buses sheet in the file.
  */
-export function measurePeer(peer: Peer, xlsx: string, busesSheet: number, floor: RootTotals, caseName: string, startup: StepResult, rows: number, budgetS: number): StepResult[] {
+export function measurePeer(
+  peer: Peer,
+  xlsx: string,
+  busesSheet: number,
+  floor: RootTotals,
+  caseName: string,
+  startup: StepResult,
+  rows: number,
+  budgetS: number,
+): StepResult[] {
   const runs: Conversion[] = [];
   let spent = 0;
   while (runs.length < 3 && (runs.length === 0 || spent < (budgetS * 1_000) / 3)) {
@@ -141,9 +204,27 @@ export function measurePeer(peer: Peer, xlsx: string, busesSheet: number, floor:
   const check = checkCsv(runs[0]?.csv as string, floor, caseName);
   const gross = fastest(runs);
   const ms = Math.max(0, gross.ms - (startup.ms ?? 0));
-  const cpu = gross.cpuMs !== undefined && startup.cpuMs !== undefined ? { cpuMs: Math.max(0, gross.cpuMs - startup.cpuMs) } : {};
+  const cpu =
+    gross.cpuMs !== undefined && startup.cpuMs !== undefined
+      ? { cpuMs: Math.max(0, gross.cpuMs - startup.cpuMs) }
+      : {};
   return [
-    { step: 'peerGross', rows, status: 'ok', ...gross, note: `soffice --headless --convert-to csv (Buses sheet); wall of ${wallList(runs)} ms`, check },
-    { step: 'peerRecalc', rows, status: 'ok', ms, runs: gross.runs, ...cpu, note: `fastest gross ${Math.round(gross.ms)} ms − fastest start-up ${Math.round(startup.ms ?? 0)} ms` },
+    {
+      step: 'peerGross',
+      rows,
+      status: 'ok',
+      ...gross,
+      note: `soffice --headless --convert-to csv (Buses sheet); wall of ${wallList(runs)} ms`,
+      check,
+    },
+    {
+      step: 'peerRecalc',
+      rows,
+      status: 'ok',
+      ms,
+      runs: gross.runs,
+      ...cpu,
+      note: `fastest gross ${Math.round(gross.ms)} ms − fastest start-up ${Math.round(startup.ms ?? 0)} ms`,
+    },
   ];
 }

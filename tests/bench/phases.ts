@@ -10,7 +10,15 @@ import { writeSiteFile } from '../../src/core/site/siteFile.ts';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
 import { generateSite } from './generateSite.ts';
 import type { StepId, StepResult } from './record.ts';
-import { EngineEdits, measureBuild, measureEngineBuild, measureExport, measureFloor, measureImport, measureRollUp } from './steps.ts';
+import {
+  EngineEdits,
+  measureBuild,
+  measureEngineBuild,
+  measureExport,
+  measureFloor,
+  measureImport,
+  measureRollUp,
+} from './steps.ts';
 import { peakRssMb } from './timing.ts';
 import type { RootTotals } from './workbookView.ts';
 
@@ -55,7 +63,12 @@ async function step<T>(emit: Emit, id: StepId, run: () => T | Promise<T>): Promi
   return out;
 }
 
-export async function runPhase(phase: PhaseName, size: { rows: number; buses: number }, workDir: string, emit: Emit): Promise<void> {
+export async function runPhase(
+  phase: PhaseName,
+  size: { rows: number; buses: number },
+  workDir: string,
+  emit: Emit,
+): Promise<void> {
   const site = generateSite(size);
   const files = workFiles(workDir, size.rows);
   const done = (result: StepResult) => emit({ type: 'result', result });
@@ -77,7 +90,9 @@ export async function runPhase(phase: PhaseName, size: { rows: number; buses: nu
     const built = await step(emit, 'engineBuild', () => measureEngineBuild(doc, site, floor));
     done(built.result);
     // Exported before the edits, so the engine's values are those of the portable document.
-    const exported = await step(emit, 'xlsxExport', () => measureExport(readJson<WorkbookDoc>(files.portable), built.hf, size.rows));
+    const exported = await step(emit, 'xlsxExport', () =>
+      measureExport(readJson<WorkbookDoc>(files.portable), built.hf, size.rows),
+    );
     done(exported.result);
     writeFileSync(files.xlsx, exported.bytes);
     const edits = new EngineEdits(built.hf, doc, site);

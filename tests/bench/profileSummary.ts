@@ -14,7 +14,11 @@ export interface Profile {
   timeDeltas: number[];
 }
 
-const short = (url: string) => url.replace(/^file:\/\//, '').replace(/^.*\/work\/main\//, '').replace(/^.*node_modules\//, 'nm:');
+const short = (url: string) =>
+  url
+    .replace(/^file:\/\//, '')
+    .replace(/^.*\/work\/main\//, '')
+    .replace(/^.*node_modules\//, 'nm:');
 
 export function summarise(p: Profile, top = 25): string {
   const byId = new Map(p.nodes.map((n) => [n.id, n]));
@@ -38,7 +42,12 @@ export function summarise(p: Profile, top = 25): string {
     for (const f of files) onStack.set(f, (onStack.get(f) ?? 0) + dt);
   });
   const table = (m: Map<string, number>) =>
-    [...m.entries()].sort((a, b) => b[1] - a[1]).slice(0, top).map(([k, ms]) => `${ms.toFixed(0).padStart(8)} ms ${((100 * ms) / total).toFixed(1).padStart(5)} %  ${k}`).join('\n');
+    [...m.entries()]
+      .sort((a, b) => b[1] - a[1])
+      .slice(0, top)
+      .map(
+        ([k, ms]) => `${ms.toFixed(0).padStart(8)} ms ${((100 * ms) / total).toFixed(1).padStart(5)} %  ${k}`,
+      )
+      .join('\n');
   return `sampled ${total.toFixed(0)} ms\n\nself time by function:\n${table(self)}\n\nproject files on the stack (inclusive):\n${table(onStack)}\n`;
 }
-

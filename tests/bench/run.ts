@@ -22,8 +22,12 @@ const HERE = fileURLToPath(new URL('.', import.meta.url));
 const say = (s: string) => process.stderr.write(s + '\n');
 
 function show(r: StepResult): void {
-  const how = r.cpuMs !== undefined ? `fastest of ${r.runs}, CPU ${formatMs(r.cpuMs)} ms` : `median of ${r.runs}`;
-  const what = r.status === 'ok' && r.ms !== undefined ? `${formatMs(r.ms)} ms${r.runs && r.runs > 1 ? ` (${how})` : ''}` : `${r.status}${r.note ? `: ${r.note}` : ''}`;
+  const how =
+    r.cpuMs !== undefined ? `fastest of ${r.runs}, CPU ${formatMs(r.cpuMs)} ms` : `median of ${r.runs}`;
+  const what =
+    r.status === 'ok' && r.ms !== undefined
+      ? `${formatMs(r.ms)} ms${r.runs && r.runs > 1 ? ` (${how})` : ''}`
+      : `${r.status}${r.note ? `: ${r.note}` : ''}`;
   const check = r.check ? (r.check.agrees ? ' — agrees' : ` — DIFFERS: ${r.check.detail}`) : '';
   say(`  ${STEP_NAMES[r.step]}: ${what}${check}`);
 }
@@ -34,11 +38,21 @@ function busesSheetInFile(portableFile: string): number {
   return 2 + doc.sheets.findIndex((s) => s.name === SHEETS.buses);
 }
 
-async function runSize(size: BenchSize, workDir: string, peer: { peer: Peer; startup: StepResult } | undefined, cli: boolean, steps: StepResult[], memory: MemoryResult[]) {
+async function runSize(
+  size: BenchSize,
+  workDir: string,
+  peer: { peer: Peer; startup: StepResult } | undefined,
+  cli: boolean,
+  steps: StepResult[],
+  memory: MemoryResult[],
+) {
   say(`${sizeLabel(size)}`);
   const files = workFiles(workDir, size.rows);
   const phase = async (name: PhaseName, needs: string | undefined, why: string) => {
-    const out = needs !== undefined && !existsSync(needs) ? { results: notRun(name, size.rows, why) } : await runPhaseInChild(name, size, workDir, size.budget[name]);
+    const out =
+      needs !== undefined && !existsSync(needs)
+        ? { results: notRun(name, size.rows, why) }
+        : await runPhaseInChild(name, size, workDir, size.budget[name]);
     out.results.forEach(show);
     steps.push(...out.results);
     if ('memory' in out && out.memory) memory.push(out.memory);
@@ -46,20 +60,43 @@ async function runSize(size: BenchSize, workDir: string, peer: { peer: Peer; sta
   await phase('core', undefined, '');
   await phase('engine', files.live, 'not run: buildWorkbook (live) did not finish');
   await phase('xlsx', files.xlsx, 'not run: the xlsx export (engine phase) did not finish');
-  const roots = existsSync(files.roots) ? (JSON.parse(readFileSync(files.roots, 'utf8')) as RootTotals & { cases: string[] }) : undefined;
+  const roots = existsSync(files.roots)
+    ? (JSON.parse(readFileSync(files.roots, 'utf8')) as RootTotals & { cases: string[] })
+    : undefined;
   const add = (r: StepResult) => (show(r), steps.push(r));
   if (!cli) add({ step: 'cliBalance', rows: size.rows, status: 'not run', note: '--no-cli' });
-  else if (!roots) add({ step: 'cliBalance', rows: size.rows, status: 'not run', note: 'the core phase did not finish' });
+  else if (!roots)
+    add({ step: 'cliBalance', rows: size.rows, status: 'not run', note: 'the core phase did not finish' });
   else add(measureCliBalance(files.site, roots, size.rows, size.budget.cli));
   if (!cli) add({ step: 'cliExport', rows: size.rows, status: 'not run', note: '--no-cli' });
-  else if (!existsSync(files.site)) add({ step: 'cliExport', rows: size.rows, status: 'not run', note: 'the core phase did not finish' });
-  else add(measureCliExport(files.site, join(workDir, `cli-${size.rows}.xlsx`), size.rows, size.budget.cliExport));
+  else if (!existsSync(files.site))
+    add({ step: 'cliExport', rows: size.rows, status: 'not run', note: 'the core phase did not finish' });
+  else
+    add(
+      measureCliExport(files.site, join(workDir, `cli-${size.rows}.xlsx`), size.rows, size.budget.cliExport),
+    );
   if (!peer) {
-    for (const step of ['peerGross', 'peerRecalc'] as const) add({ step, rows: size.rows, status: 'not run', note: 'LibreOffice not measured in this run' });
+    for (const step of ['peerGross', 'peerRecalc'] as const)
+      add({ step, rows: size.rows, status: 'not run', note: 'LibreOffice not measured in this run' });
   } else if (!roots || !existsSync(files.xlsx)) {
-    for (const step of ['peerGross', 'peerRecalc'] as const) add({ step, rows: size.rows, status: 'not available', note: 'no exported workbook of this size (see xlsx export)' });
+    for (const step of ['peerGross', 'peerRecalc'] as const)
+      add({
+        step,
+        rows: size.rows,
+        status: 'not available',
+        note: 'no exported workbook of this size (see xlsx export)',
+      });
   } else {
-    measurePeer(peer.peer, files.xlsx, busesSheetInFile(files.portable), roots, roots.cases[0] as string, peer.startup, size.rows, size.budget.peer).forEach(add);
+    measurePeer(
+      peer.peer,
+      files.xlsx,
+      busesSheetInFile(files.portable),
+      roots,
+      roots.cases[0] as string,
+      peer.startup,
+      size.rows,
+      size.budget.peer,
+    ).forEach(add);
   }
 }
 
@@ -68,7 +105,10 @@ const BROWSER_BUDGET_S = 300;
 /** The page part under a budget: a wait that never ends is reported, not waited for (main exits the process). */
 function withBudget(p: Promise<BrowserResult>, seconds: number): Promise<BrowserResult> {
   return new Promise((resolve) => {
-    const timer = setTimeout(() => resolve({ status: 'exceeded', note: `the page part exceeded ${seconds} s` }), seconds * 1_000);
+    const timer = setTimeout(
+      () => resolve({ status: 'exceeded', note: `the page part exceeded ${seconds} s` }),
+      seconds * 1_000,
+    );
     void p.then((r) => {
       clearTimeout(timer);
       resolve(r);
@@ -82,7 +122,9 @@ async function main(): Promise<void> {
   const workDir = mkdtempSync(join(tmpdir(), 'kvar-bench-'));
   const lo = opts.peer ? soffice() : undefined;
   const machine = describeMachine(lo);
-  say(`bench: ${machine.cpu}, ${machine.cores} cores, Node ${machine.node}, load ${machine.loadAverage.join(' ')}; work files in ${workDir}`);
+  say(
+    `bench: ${machine.cpu}, ${machine.cores} cores, Node ${machine.node}, load ${machine.loadAverage.join(' ')}; work files in ${workDir}`,
+  );
   const steps: StepResult[] = [];
   const memory: MemoryResult[] = [];
   let peer: { peer: Peer; startup: StepResult } | undefined;
@@ -92,7 +134,13 @@ async function main(): Promise<void> {
       show(r);
       steps.push(r);
     }
-    if (opts.peer && !lo) steps.push({ step: 'peerStartup', rows: 0, status: 'not available', note: 'soffice (LibreOffice) is not installed' });
+    if (opts.peer && !lo)
+      steps.push({
+        step: 'peerStartup',
+        rows: 0,
+        status: 'not available',
+        note: 'soffice (LibreOffice) is not installed',
+      });
     else if (opts.peer) {
       const p = makePeer(workDir);
       const s = await measureStartup(p);
@@ -106,9 +154,19 @@ async function main(): Promise<void> {
       ? { status: 'not run' as const, note: '--no-browser' }
       : existsSync(liveTarget)
         ? await withBudget(measureBrowser(workDir, liveTarget, TARGET_ROWS), BROWSER_BUDGET_S)
-        : { status: 'not run' as const, note: `the ${TARGET_ROWS.toLocaleString('en-GB')}-row workbook was not built in this run` };
+        : {
+            status: 'not run' as const,
+            note: `the ${TARGET_ROWS.toLocaleString('en-GB')}-row workbook was not built in this run`,
+          };
     say(`page: ${browser.status}${browser.note ? ` — ${browser.note}` : ''}`);
-    const results: BenchResults = { machine, sizes: opts.sizes.map(({ rows, buses }) => ({ rows, buses })), steps, memory, browser, wallSeconds: (performance.now() - t0) / 1_000 };
+    const results: BenchResults = {
+      machine,
+      sizes: opts.sizes.map(({ rows, buses }) => ({ rows, buses })),
+      steps,
+      memory,
+      browser,
+      wallSeconds: (performance.now() - t0) / 1_000,
+    };
     mkdirSync(opts.outDir, { recursive: true });
     writeFileSync(join(opts.outDir, 'results.json'), JSON.stringify(results, null, 1) + '\n');
     const md = renderMarkdown(results);

@@ -6,13 +6,28 @@ export interface BenchSize {
   readonly rows: number;
   readonly buses: number;
   /** Seconds each child-process phase may take (see phases.ts) and the whole-process steps. */
-  readonly budget: { readonly core: number; readonly engine: number; readonly xlsx: number; readonly cli: number; readonly cliExport: number; readonly peer: number };
+  readonly budget: {
+    readonly core: number;
+    readonly engine: number;
+    readonly xlsx: number;
+    readonly cli: number;
+    readonly cliExport: number;
+    readonly peer: number;
+  };
 }
 
 export const SIZES: readonly BenchSize[] = [
   { rows: 1_000, buses: 30, budget: { core: 60, engine: 90, xlsx: 60, cli: 60, cliExport: 60, peer: 60 } },
-  { rows: 10_000, buses: 300, budget: { core: 120, engine: 180, xlsx: 120, cli: 90, cliExport: 120, peer: 120 } },
-  { rows: 50_000, buses: 1_000, budget: { core: 150, engine: 180, xlsx: 90, cli: 60, cliExport: 120, peer: 60 } },
+  {
+    rows: 10_000,
+    buses: 300,
+    budget: { core: 120, engine: 180, xlsx: 120, cli: 90, cliExport: 120, peer: 120 },
+  },
+  {
+    rows: 50_000,
+    buses: 1_000,
+    budget: { core: 150, engine: 180, xlsx: 90, cli: 60, cliExport: 120, peer: 60 },
+  },
 ];
 
 /** The size the targets of the issue are stated for. */
@@ -56,10 +71,15 @@ export function parseOptions(argv: readonly string[], defaultOut: string): Bench
     else if (a === '--no-cli') cli = false;
     else if (a === '--out') outDir = value();
     else if (a === '--sizes') {
-      const wanted = value().split(',').map((t) => Number(t.trim()));
+      const wanted = value()
+        .split(',')
+        .map((t) => Number(t.trim()));
       sizes = wanted.map((rows) => {
         const found = SIZES.find((s) => s.rows === rows);
-        if (!found) throw new Error(`--sizes: ${rows} is not a bench size; allowed: ${SIZES.map((s) => s.rows).join(', ')}`);
+        if (!found)
+          throw new Error(
+            `--sizes: ${rows} is not a bench size; allowed: ${SIZES.map((s) => s.rows).join(', ')}`,
+          );
         return found;
       });
     } else throw new Error(`unknown option "${a}"\n${USAGE}`);

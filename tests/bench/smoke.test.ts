@@ -4,7 +4,14 @@
 import { describe, expect, it } from 'vitest';
 import { generateSite } from './generateSite.ts';
 import { floorRoots } from './floor.ts';
-import { compareRoots, EngineEdits, measureBuild, measureEngineBuild, measureFloor, measureRollUp } from './steps.ts';
+import {
+  compareRoots,
+  EngineEdits,
+  measureBuild,
+  measureEngineBuild,
+  measureFloor,
+  measureRollUp,
+} from './steps.ts';
 import { busesView, readRoot } from './workbookView.ts';
 import { renderMarkdown, type BenchResults } from './report.ts';
 import { describeMachine } from './machine.ts';
@@ -45,7 +52,12 @@ describe('bench smoke (1,000 rows / 30 buses)', () => {
       expect(s.ms).toBeGreaterThanOrEqual(0);
     }
     const results: BenchResults = {
-      machine: describeMachine(), sizes: [size], steps, memory: [], browser: { status: 'not run', note: 'smoke test' }, wallSeconds: 0,
+      machine: describeMachine(),
+      sizes: [size],
+      steps,
+      memory: [],
+      browser: { status: 'not run', note: 'smoke test' },
+      wallSeconds: 0,
     };
     const md = renderMarkdown(results);
     expect(md).toContain('| One edit (motor load) to updated root P | 1,000 / 30 |');
@@ -57,6 +69,8 @@ describe('bench smoke (1,000 rows / 30 buses)', () => {
     const o = parseOptions(['--sizes', '1000', '--no-browser', '--no-peer'], '/tmp');
     expect(o.sizes.map((s) => s.rows)).toEqual([1_000]);
     expect([o.browser, o.peer, o.cli]).toEqual([false, false, true]);
-    expect(() => parseOptions(['--sizes', '2000'], '/tmp')).toThrow(/2000 is not a bench size; allowed: 1000, 10000, 50000/);
+    expect(() => parseOptions(['--sizes', '2000'], '/tmp')).toThrow(
+      /2000 is not a bench size; allowed: 1000, 10000, 50000/,
+    );
   });
 });

@@ -21,11 +21,17 @@ export function compareRoots(got: RootTotals, ref: RootTotals, refName: string):
   const bad: string[] = [];
   if (got.bus !== ref.bus) bad.push(`root bus ${got.bus} ≠ ${ref.bus}`);
   ref.p.forEach((p, k) => {
-    const gp = got.p[k] ?? Number.NaN, gq = got.q[k] ?? Number.NaN, rq = ref.q[k] as number;
-    if (!agreeRel(gp, p) || !agreeRel(gq, rq)) bad.push(`case ${k + 1}: P ${fmt(gp)} vs ${fmt(p)}, Q ${fmt(gq)} vs ${fmt(rq)}`);
+    const gp = got.p[k] ?? Number.NaN,
+      gq = got.q[k] ?? Number.NaN,
+      rq = ref.q[k] as number;
+    if (!agreeRel(gp, p) || !agreeRel(gq, rq))
+      bad.push(`case ${k + 1}: P ${fmt(gp)} vs ${fmt(p)}, Q ${fmt(gq)} vs ${fmt(rq)}`);
   });
   return bad.length === 0
-    ? { agrees: true, detail: `root ${ref.bus} P and Q of ${ref.p.length} case(s) equal the ${refName} to 1e-9 relative` }
+    ? {
+        agrees: true,
+        detail: `root ${ref.bus} P and Q of ${ref.p.length} case(s) equal the ${refName} to 1e-9 relative`,
+      }
     : { agrees: false, detail: `differs from the ${refName}: ${bad.join('; ')}` };
 }
 
@@ -33,16 +39,44 @@ export function measureFloor(site: Site): { result: StepResult; roots: RootTotal
   const x = prepareFloor(site);
   const root = floorRootIndex(x);
   // The floor is the yardstick: warm it up first, so it is timed as optimised code.
-  for (let w = performance.now(); performance.now() - w < 200; ) site.settings.cases.forEach((_, k) => floorTotals(x, k));
+  for (let w = performance.now(); performance.now() - w < 200;)
+    site.settings.cases.forEach((_, k) => floorTotals(x, k));
   const t = timeRepeated(() => site.settings.cases.map((_, k) => floorTotals(x, k)), 21, 1_000);
-  const roots = { bus: x.busNames[root] as string, p: t.value.map((v) => v.p[root] as number), q: t.value.map((v) => v.q[root] as number) };
-  return { result: { step: 'floor', rows: site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs, note: 'warmed up for 200 ms; unpacking into typed arrays not timed' }, roots };
+  const roots = {
+    bus: x.busNames[root] as string,
+    p: t.value.map((v) => v.p[root] as number),
+    q: t.value.map((v) => v.q[root] as number),
+  };
+  return {
+    result: {
+      step: 'floor',
+      rows: site.equipment.length,
+      status: 'ok',
+      ms: t.ms,
+      minMs: t.minMs,
+      runs: t.runs,
+      note: 'warmed up for 200 ms; unpacking into typed arrays not timed',
+    },
+    roots,
+  };
 }
 
 export function measureRollUp(site: Site, floor: RootTotals): StepResult {
   const t = timeRepeated(() => site.settings.cases.map((c) => rollUp(site, c)), 5, 3_000);
-  const got = { bus: t.value[0]?.root.bus ?? '', p: t.value.map((b) => b.root.p_kw), q: t.value.map((b) => b.root.q_kvar) };
-  return { step: 'rollup', rows: site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs, check: compareRoots(got, floor, 'floor') };
+  const got = {
+    bus: t.value[0]?.root.bus ?? '',
+    p: t.value.map((b) => b.root.p_kw),
+    q: t.value.map((b) => b.root.q_kvar),
+  };
+  return {
+    step: 'rollup',
+    rows: site.equipment.length,
+    status: 'ok',
+    ms: t.ms,
+    minMs: t.minMs,
+    runs: t.runs,
+    check: compareRoots(got, floor, 'floor'),
+  };
 }
 
 export function measureBuild(site: Site, flavour: Flavour): { result: StepResult; doc: WorkbookDoc } {
@@ -56,13 +90,37 @@ export function measureBuild(site: Site, flavour: Flavour): { result: StepResult
     }
   }
   const step = flavour === 'live' ? 'buildLive' : 'buildPortable';
-  return { result: { step, rows: site.equipment.length, status: 'ok', ms: t.ms, runs: 1, note: `${t.value.sheets.length} sheets, ${cells.toLocaleString('en-GB')} cells, ${formulas.toLocaleString('en-GB')} formulas` }, doc: t.value };
+  return {
+    result: {
+      step,
+      rows: site.equipment.length,
+      status: 'ok',
+      ms: t.ms,
+      runs: 1,
+      note: `${t.value.sheets.length} sheets, ${cells.toLocaleString('en-GB')} cells, ${formulas.toLocaleString('en-GB')} formulas`,
+    },
+    doc: t.value,
+  };
 }
 
-export function measureEngineBuild(doc: WorkbookDoc, site: Site, floor: RootTotals): { result: StepResult; hf: HyperFormula } {
+export function measureEngineBuild(
+  doc: WorkbookDoc,
+  site: Site,
+  floor: RootTotals,
+): { result: StepResult; hf: HyperFormula } {
   const t = timeOnce(() => createEngine(doc.sheets, { plugins: [BUS_ROLLUP_PLUGIN] }));
   const got = readRoot(t.value, busesView(t.value, site.settings.cases));
-  return { result: { step: 'engineBuild', rows: site.equipment.length, status: 'ok', ms: t.ms, runs: 1, check: compareRoots(got, floor, 'floor') }, hf: t.value };
+  return {
+    result: {
+      step: 'engineBuild',
+      rows: site.equipment.length,
+      status: 'ok',
+      ms: t.ms,
+      runs: 1,
+      check: compareRoots(got, floor, 'floor'),
+    },
+    hf: t.value,
+  };
 }
 
 /** Edits the engine and checks its root against the floor of the site with the same edits. */
@@ -90,28 +148,48 @@ export class EngineEdits {
   /** One cell edit, then the root P read back; several edits on different motors, median reported. */
   one(): StepResult {
     const view = busesView(this.hf, this.site.settings.cases);
-    const t = timeRepeated(() => {
-      this.edits.write(this.hf, this.sheet, this.k++);
-      return readRootP(this.hf, view);
-    }, 9, 5_000);
+    const t = timeRepeated(
+      () => {
+        this.edits.write(this.hf, this.sheet, this.k++);
+        return readRootP(this.hf, view);
+      },
+      9,
+      5_000,
+    );
     return {
-      step: 'editOne', rows: this.site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs,
-      note: `${t.runs} edits on different motors, setCellContents then getCellValue of the root P`, check: this.check(),
+      step: 'editOne',
+      rows: this.site.equipment.length,
+      status: 'ok',
+      ms: t.ms,
+      minMs: t.minMs,
+      runs: t.runs,
+      note: `${t.runs} edits on different motors, setCellContents then getCellValue of the root P`,
+      check: this.check(),
     };
   }
 
   /** 1,000 edits in one engine batch, then the root P read back. */
   batch(count = 1_000): StepResult {
     const view = busesView(this.hf, this.site.settings.cases);
-    const t = timeRepeated(() => {
-      this.hf.batch(() => {
-        for (let i = 0; i < count; i++) this.edits.write(this.hf, this.sheet, this.k++);
-      });
-      return readRootP(this.hf, view);
-    }, 3, 4_000);
+    const t = timeRepeated(
+      () => {
+        this.hf.batch(() => {
+          for (let i = 0; i < count; i++) this.edits.write(this.hf, this.sheet, this.k++);
+        });
+        return readRootP(this.hf, view);
+      },
+      3,
+      4_000,
+    );
     return {
-      step: 'editBatch', rows: this.site.equipment.length, status: 'ok', ms: t.ms, minMs: t.minMs, runs: t.runs,
-      note: `${count} motor load cells in one hf.batch`, check: this.check(),
+      step: 'editBatch',
+      rows: this.site.equipment.length,
+      status: 'ok',
+      ms: t.ms,
+      minMs: t.minMs,
+      runs: t.runs,
+      note: `${count} motor load cells in one hf.batch`,
+      check: this.check(),
     };
   }
 }
@@ -125,17 +203,50 @@ export function engineValues(hf: HyperFormula): (sheet: string, row: number, col
  * The export as the app does it: the portable document goes out, its cached results are read
  * from the live engine that already exists (built and checked by the engine step, not timed here).
  */
-export async function measureExport(portable: WorkbookDoc, hf: HyperFormula, rows: number): Promise<{ result: StepResult; bytes: Uint8Array }> {
+export async function measureExport(
+  portable: WorkbookDoc,
+  hf: HyperFormula,
+  rows: number,
+): Promise<{ result: StepResult; bytes: Uint8Array }> {
   const t = await timeOnceAsync(() => exportWorkbookXlsxWithReport(portable, { valueAt: engineValues(hf) }));
   const mb = (t.value.bytes.byteLength / 1048576).toFixed(1);
-  const asValues = t.value.issues.length === 0 ? '' : `; ${t.value.issues.length} cell(s) written as values (${t.value.issues.slice(0, 3).map((i) => i.where).join(', ')})`;
+  const asValues =
+    t.value.issues.length === 0
+      ? ''
+      : `; ${t.value.issues.length} cell(s) written as values (${t.value.issues
+          .slice(0, 3)
+          .map((i) => i.where)
+          .join(', ')})`;
   const note = `exportWorkbookXlsxWithReport(portable doc, valueAt: the live engine already built); conversion, styles, metadata, zip; ${mb} MB${asValues}`;
-  return { result: { step: 'xlsxExport', rows, status: 'ok', ms: t.ms, runs: 1, note }, bytes: t.value.bytes };
+  return {
+    result: { step: 'xlsxExport', rows, status: 'ok', ms: t.ms, runs: 1, note },
+    bytes: t.value.bytes,
+  };
 }
 
 export async function measureImport(bytes: Uint8Array | undefined, rows: number): Promise<StepResult> {
-  if (!bytes) return { step: 'xlsxImport', rows, status: 'not available', note: 'no exported file to read (the export did not run)' };
+  if (!bytes)
+    return {
+      step: 'xlsxImport',
+      rows,
+      status: 'not available',
+      note: 'no exported file to read (the export did not run)',
+    };
   const t = await timeOnceAsync(() => importKvarXlsx(bytes));
-  if (!t.value.ok) return { step: 'xlsxImport', rows, status: 'failed', ms: t.ms, note: `importKvarXlsx refused the file: ${t.value.problem.message}` };
-  return { step: 'xlsxImport', rows, status: 'ok', ms: t.ms, runs: 1, note: `importKvarXlsx of the exported file (rows ${t.value.restored === 'plain' ? 'read as plain formulas' : `restored from its metadata: ${t.value.restored}`})` };
+  if (!t.value.ok)
+    return {
+      step: 'xlsxImport',
+      rows,
+      status: 'failed',
+      ms: t.ms,
+      note: `importKvarXlsx refused the file: ${t.value.problem.message}`,
+    };
+  return {
+    step: 'xlsxImport',
+    rows,
+    status: 'ok',
+    ms: t.ms,
+    runs: 1,
+    note: `importKvarXlsx of the exported file (rows ${t.value.restored === 'plain' ? 'read as plain formulas' : `restored from its metadata: ${t.value.restored}`})`,
+  };
 }

@@ -30,7 +30,11 @@ export async function timeOnceAsync<T>(fn: () => Promise<T>): Promise<{ value: T
  * Run `fn(i)` up to `maxRuns` times, stopping early once `maxTotalMs` has been spent (always at
  * least once). Returns the median and the minimum, and the last value.
  */
-export function timeRepeated<T>(fn: (i: number) => T, maxRuns = 7, maxTotalMs = 2_000): Timing & { value: T } {
+export function timeRepeated<T>(
+  fn: (i: number) => T,
+  maxRuns = 7,
+  maxTotalMs = 2_000,
+): Timing & { value: T } {
   const times: number[] = [];
   let value: T | undefined;
   let spent = 0;

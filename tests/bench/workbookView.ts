@@ -22,7 +22,10 @@ export interface BusesView {
 
 function sheetDoc(doc: WorkbookDoc, name: string) {
   const s = doc.sheets.find((x) => x.name === name);
-  if (!s) throw new Error(`the workbook has no sheet "${name}"; sheets: ${doc.sheets.map((x) => x.name).join(', ')}`);
+  if (!s)
+    throw new Error(
+      `the workbook has no sheet "${name}"; sheets: ${doc.sheets.map((x) => x.name).join(', ')}`,
+    );
   return s;
 }
 
@@ -42,7 +45,11 @@ export function readRootP(hf: HyperFormula, v: BusesView): number {
 
 export function readRoot(hf: HyperFormula, v: BusesView): RootTotals {
   const at = (col: number) => num(hf.getCellValue({ sheet: v.sheet, row: 1, col }));
-  return { bus: String(hf.getCellValue({ sheet: v.sheet, row: 1, col: 0 })), p: v.pCols.map(at), q: v.qCols.map(at) };
+  return {
+    bus: String(hf.getCellValue({ sheet: v.sheet, row: 1, col: 0 })),
+    p: v.pCols.map(at),
+    q: v.qCols.map(at),
+  };
 }
 
 /** The Motors sheet's load cells of the first case, and a log of the values written there (by motor tag). */

@@ -4,7 +4,16 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
-import { addSheet, cell, cellText, openSheet, saved, selectCell, sheetNames, typeInCell } from './gridHelpers.ts';
+import {
+  addSheet,
+  cell,
+  cellText,
+  openSheet,
+  saved,
+  selectCell,
+  sheetNames,
+  typeInCell,
+} from './gridHelpers.ts';
 
 let server: { url: string; close(): Promise<void> };
 let browser: Browser;
@@ -20,7 +29,9 @@ beforeAll(async () => {
     dialogs.push(d.message());
     void d.dismiss();
   });
-  await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: server.url.replace(/\/$/, '') });
+  await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], {
+    origin: server.url.replace(/\/$/, ''),
+  });
   await openApp(page, server.url);
 });
 
@@ -47,7 +58,9 @@ describe('Kvar Ledger in the browser', () => {
 
   it('opens the demo workbook on the first visit', async () => {
     expect(await page.locator('[data-testid="title"]').inputValue()).toMatch(/Cold store/);
-    expect(await sheetNames(page)).toEqual(expect.arrayContaining(['Site', 'Motors', 'Transformers', 'Buses', 'Compensation']));
+    expect(await sheetNames(page)).toEqual(
+      expect.arrayContaining(['Site', 'Motors', 'Transformers', 'Buses', 'Compensation']),
+    );
     await openSheet(page, 'Buses');
     // Row 1 is the header row; the first bus is the point of connection with a computed P.
     expect(await cellText(page, 0, 0)).toBe('Bus');
@@ -61,7 +74,9 @@ describe('Kvar Ledger in the browser', () => {
     await selectCell(page, 0, 0);
     await page.keyboard.type('=kva.to', { delay: 10 });
     const assist = page.locator('[data-testid="assist"]');
-    await expect.poll(() => assist.locator('.kl-assist-item.is-active .kl-assist-name').textContent()).toBe('KVA.TOTAL');
+    await expect
+      .poll(() => assist.locator('.kl-assist-item.is-active .kl-assist-name').textContent())
+      .toBe('KVA.TOTAL');
     await page.keyboard.press('Tab');
     await page.keyboard.type('300,', { delay: 10 });
     // The signature shows, with the second argument (q_kvar, in kvar) marked.
@@ -88,8 +103,12 @@ describe('Kvar Ledger in the browser', () => {
     await selectCell(page, 1, 0);
     const problem = fb('problem');
     await expect.poll(() => problem.isVisible()).toBe(true);
-    expect(await problem.textContent()).toMatch(/KVAR\.MOTOR: argument 3 \(cos_phi\) must be in \(0, 1\]; got 1\.2/);
-    await expect.poll(() => page.locator('[data-testid="error-count"]').textContent()).toMatch(/^1 cell with errors/);
+    expect(await problem.textContent()).toMatch(
+      /KVAR\.MOTOR: argument 3 \(cos_phi\) must be in \(0, 1\]; got 1\.2/,
+    );
+    await expect
+      .poll(() => page.locator('[data-testid="error-count"]').textContent())
+      .toMatch(/^1 cell with errors/);
     await screenshot(page, '03-error-explained');
   });
 
@@ -148,7 +167,9 @@ describe('Kvar Ledger in the browser', () => {
     await selectCell(page, 6, 2);
     await page.keyboard.press('ArrowRight');
     await page.keyboard.press('Control+c');
-    await expect.poll(() => page.evaluate(() => navigator.clipboard.readText())).toMatch(/^1000\.04999875006\d*$/);
+    await expect
+      .poll(() => page.evaluate(() => navigator.clipboard.readText()))
+      .toMatch(/^1000\.04999875006\d*$/);
   });
 
   it('shows hostile text as text', async () => {
@@ -182,7 +203,9 @@ describe('Kvar Ledger in the browser', () => {
 
   it('deletes a sheet after asking, and undo brings it back', async () => {
     const hostile = '<img src=x onerror=alert(1)>';
-    await page.locator(`[data-testid="sheet-tab"][data-sheet="${hostile}"] + [data-testid="sheet-more"]`).click();
+    await page
+      .locator(`[data-testid="sheet-tab"][data-sheet="${hostile}"] + [data-testid="sheet-more"]`)
+      .click();
     await page.click('[data-testid="sheet-delete"]');
     const confirm = page.locator('[data-testid="confirm"]');
     expect(await confirm.textContent()).toMatch(/You can bring it back with Undo/);
@@ -200,15 +223,24 @@ describe('Kvar Ledger in the browser', () => {
     const charts = page.locator('[data-testid="charts"]');
     await charts.locator('svg.kl-bars').waitFor();
     const netBefore = await charts.locator('.kl-bar-value').first().textContent();
-    const beforeRow = await page.locator('[data-testid="triangle-table"] tr.is-before td').nth(1).textContent();
+    const beforeRow = await page
+      .locator('[data-testid="triangle-table"] tr.is-before td')
+      .nth(1)
+      .textContent();
     await screenshot(page, '04-charts');
     // Double the rated output of the first motor row: the point of connection draws more kvar.
-    const header = await page.locator('.kl-grid-host .ht_master .htCore tbody tr').first().locator('td').allTextContents();
+    const header = await page
+      .locator('.kl-grid-host .ht_master .htCore tbody tr')
+      .first()
+      .locator('td')
+      .allTextContents();
     const col = header.findIndex((h) => h.startsWith('Rated output'));
     expect(col).toBeGreaterThan(0);
     await typeInCell(page, 1, col, '500');
     await expect.poll(() => charts.locator('.kl-bar-value').first().textContent()).not.toBe(netBefore);
-    expect(await page.locator('[data-testid="triangle-table"] tr.is-before td').nth(1).textContent()).not.toBe(beforeRow);
+    expect(
+      await page.locator('[data-testid="triangle-table"] tr.is-before td').nth(1).textContent(),
+    ).not.toBe(beforeRow);
     await page.keyboard.press('Control+z');
     await expect.poll(() => charts.locator('.kl-bar-value').first().textContent()).toBe(netBefore);
   });
@@ -227,7 +259,9 @@ describe('Kvar Ledger in the browser', () => {
     await detail.locator('[data-testid="ref-insert"]').click();
     // The call goes into the formula bar for the active cell, with the signature shown.
     expect(await fb('input').inputValue()).toBe('=KVAR.MOTOR(');
-    expect(await page.locator('[data-testid="assist"] .kl-sig-arg.is-active').textContent()).toBe('p_out_kw kW');
+    expect(await page.locator('[data-testid="assist"] .kl-sig-arg.is-active').textContent()).toBe(
+      'p_out_kw kW',
+    );
     await page.keyboard.type('90,0.95,0.85)');
     await page.keyboard.press('Enter');
     // Full load: Qr = 90/0.95·tan(acos 0.85) = 58.71 kvar (the catalogue's own worked example).

@@ -9,7 +9,9 @@ describe('bundle size', () => {
     const r = await buildAndMeasure();
     await mkdir(join(ROOT, 'test-artifacts'), { recursive: true });
     await writeFile(join(ROOT, 'test-artifacts', 'bundle-size.json'), JSON.stringify(r, null, 1));
-    console.log(`initial JS ${r.initial.gzip} B gzip; first visit +${r.firstVisitExtra.gzip} B; CSS ${r.css.gzip} B; xlsx ${r.xlsx.gzip} B on demand`);
+    console.log(
+      `initial JS ${r.initial.gzip} B gzip; first visit +${r.firstVisitExtra.gzip} B; CSS ${r.css.gzip} B; xlsx ${r.xlsx.gzip} B on demand`,
+    );
     expect(r.initial.files.length).toBeGreaterThan(0);
     expect(r.initial.gzip).toBeLessThanOrEqual(INITIAL_JS_BUDGET);
     // The demo on a first visit fits the same budget.

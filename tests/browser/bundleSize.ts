@@ -30,7 +30,12 @@ export interface BundleReport {
   readonly firstVisitExtra: { readonly files: string[]; readonly gzip: number };
   readonly css: { readonly files: string[]; readonly gzip: number };
   /** Chunks holding the xlsx library, and whether any is in the initial or first-visit sets. */
-  readonly xlsx: { readonly files: string[]; readonly inInitial: boolean; readonly inFirstVisit: boolean; readonly gzip: number };
+  readonly xlsx: {
+    readonly files: string[];
+    readonly inInitial: boolean;
+    readonly inFirstVisit: boolean;
+    readonly gzip: number;
+  };
 }
 
 function closure(m: Manifest, keys: readonly string[]): Set<string> {
@@ -53,11 +58,18 @@ export async function measure(outDir: string): Promise<BundleReport> {
   const entryKey = Object.keys(m).find((k) => m[k]?.isEntry);
   if (!entryKey) throw new Error('no entry in the build manifest');
   const initialKeys = closure(m, [entryKey]);
-  const demoKeys = Object.keys(m).filter((k) => /templates\/templateBuild\.ts$/.test(k) || /templates\/cold-store\.json/.test(k));
+  const demoKeys = Object.keys(m).filter(
+    (k) => /templates\/templateBuild\.ts$/.test(k) || /templates\/cold-store\.json/.test(k),
+  );
   const firstKeys = [...closure(m, demoKeys)].filter((k) => !initialKeys.has(k));
   const files = (keys: Iterable<string>) => [...keys].map((k) => (m[k] as ManifestChunk).file);
-  let gz = 0, raw = 0;
-  for (const f of files(initialKeys)) { const s = await size(f); gz += s.gzip; raw += s.raw; }
+  let gz = 0,
+    raw = 0;
+  for (const f of files(initialKeys)) {
+    const s = await size(f);
+    gz += s.gzip;
+    raw += s.raw;
+  }
   let extra = 0;
   for (const f of files(firstKeys)) extra += (await size(f)).gzip;
   const cssFiles = [...new Set([...initialKeys].flatMap((k) => m[k]?.css ?? []))];
@@ -70,7 +82,12 @@ export async function measure(outDir: string): Promise<BundleReport> {
     initial: { files: files(initialKeys), gzip: gz, raw },
     firstVisitExtra: { files: files(firstKeys), gzip: extra },
     css: { files: cssFiles, gzip: css },
-    xlsx: { files: files(xlsxKeys), inInitial: xlsxKeys.some((k) => initialKeys.has(k)), inFirstVisit: xlsxKeys.some((k) => firstKeys.includes(k)), gzip: xg },
+    xlsx: {
+      files: files(xlsxKeys),
+      inInitial: xlsxKeys.some((k) => initialKeys.has(k)),
+      inFirstVisit: xlsxKeys.some((k) => firstKeys.includes(k)),
+      gzip: xg,
+    },
   };
 }
 
@@ -78,7 +95,12 @@ export async function measure(outDir: string): Promise<BundleReport> {
 export async function buildAndMeasure(): Promise<BundleReport> {
   const outDir = await mkdtemp(join(tmpdir(), 'kl-bundle-'));
   try {
-    await build({ root: ROOT, logLevel: 'error', configFile: join(ROOT, 'vite.config.ts'), build: { outDir, emptyOutDir: true, manifest: true } });
+    await build({
+      root: ROOT,
+      logLevel: 'error',
+      configFile: join(ROOT, 'vite.config.ts'),
+      build: { outDir, emptyOutDir: true, manifest: true },
+    });
     return await measure(outDir);
   } finally {
     await rm(outDir, { recursive: true, force: true });
@@ -88,7 +110,13 @@ export async function buildAndMeasure(): Promise<BundleReport> {
 if (import.meta.url === `file://${process.argv[1]}`) {
   const r = await buildAndMeasure();
   const kb = (n: number) => `${(n / 1000).toFixed(1)} kB`;
-  console.log(`initial JavaScript: ${kb(r.initial.gzip)} gzip (${kb(r.initial.raw)} raw) in ${r.initial.files.length} file(s); budget ${kb(INITIAL_JS_BUDGET)}`);
-  console.log(`first visit adds (demo template and builder): ${kb(r.firstVisitExtra.gzip)} gzip → ${kb(r.initial.gzip + r.firstVisitExtra.gzip)}`);
-  console.log(`CSS: ${kb(r.css.gzip)} gzip; xlsx library: ${kb(r.xlsx.gzip)} gzip, loaded on demand only: ${!r.xlsx.inInitial && !r.xlsx.inFirstVisit}`);
+  console.log(
+    `initial JavaScript: ${kb(r.initial.gzip)} gzip (${kb(r.initial.raw)} raw) in ${r.initial.files.length} file(s); budget ${kb(INITIAL_JS_BUDGET)}`,
+  );
+  console.log(
+    `first visit adds (demo template and builder): ${kb(r.firstVisitExtra.gzip)} gzip → ${kb(r.initial.gzip + r.firstVisitExtra.gzip)}`,
+  );
+  console.log(
+    `CSS: ${kb(r.css.gzip)} gzip; xlsx library: ${kb(r.xlsx.gzip)} gzip, loaded on demand only: ${!r.xlsx.inInitial && !r.xlsx.inFirstVisit}`,
+  );
 }

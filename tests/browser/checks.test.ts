@@ -38,7 +38,9 @@ describe('Checks panel', () => {
     await screenshot(page, '11-checks');
     await openSheet(page, 'Site');
     await item.locator('button').click();
-    await expect.poll(() => page.locator('[data-testid="sheet-caption"] strong').textContent()).toBe('Motors');
+    await expect
+      .poll(() => page.locator('[data-testid="sheet-caption"] strong').textContent())
+      .toBe('Motors');
     expect(browser.errors).toEqual([]);
   });
 });

@@ -48,7 +48,11 @@ describe('files', () => {
     const file = join(work, (await download).suggestedFilename());
     await (await download).saveAs(file);
     expect(file).toMatch(/cold-store.*\.kvar\.json$/);
-    const doc = JSON.parse(await readFile(file, 'utf8')) as { format: string; title: string; sheets: Array<{ name: string }> };
+    const doc = JSON.parse(await readFile(file, 'utf8')) as {
+      format: string;
+      title: string;
+      sheets: Array<{ name: string }>;
+    };
     expect(doc.format).toBe('kvar-ledger-workbook');
     expect(doc.sheets.map((s) => s.name)).toContain('Buses');
     // Change the title in the file and open it: the page shows the file's workbook.
@@ -59,7 +63,10 @@ describe('files', () => {
 
   it('refuses a broken file and leaves the workbook as it was', async () => {
     const bad = join(work, 'broken.kvar.json');
-    await writeFile(bad, '{"format":"kvar-ledger-workbook","version":1,"title":"x","sheets":[{"name":"A","cells":[[1,{"evil":true}]]}]}');
+    await writeFile(
+      bad,
+      '{"format":"kvar-ledger-workbook","version":1,"title":"x","sheets":[{"name":"A","cells":[[1,{"evil":true}]]}]}',
+    );
     await chooseFile('menu-open', bad);
     const dlg = page.locator('[data-testid="open-failed"]');
     await dlg.waitFor();
@@ -78,7 +85,9 @@ describe('files', () => {
     expect(bytes.subarray(0, 2).toString('latin1')).toBe('PK');
     expect(await page.locator('[data-testid="notice"]').textContent()).toMatch(/^Exported .*\.xlsx/);
     await chooseFile('menu-open', file);
-    await expect.poll(() => page.locator('[data-testid="notice"]').textContent(), { timeout: 30_000 }).toMatch(/^Opened "handoff\.xlsx"/);
+    await expect
+      .poll(() => page.locator('[data-testid="notice"]').textContent(), { timeout: 30_000 })
+      .toMatch(/^Opened "handoff\.xlsx"/);
     expect(await sheetNames(page)).toEqual(expect.arrayContaining(['Motors', 'Buses', 'Compensation']));
     await openSheet(page, 'Buses');
     expect(Number((await cellText(page, 1, 5)).replace(/,/g, ''))).toBeGreaterThan(0);
@@ -106,19 +115,29 @@ describe('files', () => {
     expect(await dlg.locator('[data-testid="map-J"]').inputValue()).toBe('');
     await screenshot(page, '08-import-mapping');
     await dlg.locator('[data-testid="import-next"]').click();
-    expect(await dlg.locator('[data-testid="import-counts"]').textContent()).toMatch(/4 rows: 3 fine, 0 with warnings, 1 with errors/);
-    expect(await dlg.locator('[data-testid="import-problems"]').textContent()).toMatch(/row 5, column G \(Power factor\)/);
+    expect(await dlg.locator('[data-testid="import-counts"]').textContent()).toMatch(
+      /4 rows: 3 fine, 0 with warnings, 1 with errors/,
+    );
+    expect(await dlg.locator('[data-testid="import-problems"]').textContent()).toMatch(
+      /row 5, column G \(Power factor\)/,
+    );
     await screenshot(page, '09-import-preview');
     // Nothing changed yet; accepting needs the faulty row left out.
     expect(await page.locator('[data-testid="title"]').inputValue()).toBe('Reopened from disk');
     expect(await dlg.locator('[data-testid="import-next"]').isDisabled()).toBe(true);
     await dlg.locator('[data-testid="import-drop"]').check();
     await dlg.locator('[data-testid="import-next"]').click();
-    await expect.poll(() => page.locator('[data-testid="notice"]').textContent()).toMatch(/^Imported 3 items from "client-list\.csv"/);
+    await expect
+      .poll(() => page.locator('[data-testid="notice"]').textContent())
+      .toMatch(/^Imported 3 items from "client-list\.csv"/);
     await openSheet(page, 'Motors');
     const rows = [await cellText(page, 1, 0), await cellText(page, 2, 0)];
     expect(rows.sort()).toEqual(['P-201', 'P-202']);
-    const header = await page.locator('.kl-grid-host .ht_master .htCore tbody tr').first().locator('td').allTextContents();
+    const header = await page
+      .locator('.kl-grid-host .ht_master .htCore tbody tr')
+      .first()
+      .locator('td')
+      .allTextContents();
     const col = header.findIndex((h) => h.startsWith('Rated output'));
     expect(await cellText(page, 1, col)).toBe('90.0');
     // The choices are remembered for the next list from this client.
@@ -142,7 +161,9 @@ describe('files', () => {
     await menu('menu-template');
     await page.click('[data-testid="template-solar-collector"]');
     await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toMatch(/Solar/);
-    expect(await page.locator('[data-testid="notice"]').textContent()).toMatch(/set aside: Workbook → Bring back the replaced workbook/);
+    expect(await page.locator('[data-testid="notice"]').textContent()).toMatch(
+      /set aside: Workbook → Bring back the replaced workbook/,
+    );
     await menu('menu-bring-back');
     await page.locator('[data-testid="confirm"] .kl-btn-primary').click();
     await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toBe(before);
@@ -162,14 +183,20 @@ describe('when browser storage is unavailable', () => {
       await b.page.addInitScript(() => {
         Object.defineProperty(window, 'indexedDB', {
           get() {
-            return { open() { throw new DOMException('storage disabled by policy', 'SecurityError'); } };
+            return {
+              open() {
+                throw new DOMException('storage disabled by policy', 'SecurityError');
+              },
+            };
           },
         });
       });
       await openApp(b.page, server.url);
       const status = b.page.locator('[data-testid="save-status"]');
       expect(await status.textContent()).toBe('NOT SAVED');
-      expect(await b.page.locator('[data-testid="notice"]').textContent()).toMatch(/Browser storage is not available \(SecurityError: storage disabled by policy\), so changes are NOT saved here/);
+      expect(await b.page.locator('[data-testid="notice"]').textContent()).toMatch(
+        /Browser storage is not available \(SecurityError: storage disabled by policy\), so changes are NOT saved here/,
+      );
       await screenshot(b.page, '10-storage-unavailable');
     } finally {
       await b.close();

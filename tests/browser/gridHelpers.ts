@@ -23,7 +23,10 @@ export async function typeInCell(page: Page, row: number, col: number, text: str
 
 export async function openSheet(page: Page, name: string): Promise<void> {
   await page.locator(`[data-testid="sheet-tab"][data-sheet="${name}"]`).click();
-  await page.waitForFunction((n) => document.querySelector('[data-testid="sheet-caption"] strong')?.textContent === n, name);
+  await page.waitForFunction(
+    (n) => document.querySelector('[data-testid="sheet-caption"] strong')?.textContent === n,
+    name,
+  );
 }
 
 export async function addSheet(page: Page, name: string): Promise<void> {
@@ -31,13 +34,20 @@ export async function addSheet(page: Page, name: string): Promise<void> {
   const input = page.locator('[data-testid="prompt"] input');
   await input.fill(name);
   await page.locator('[data-testid="prompt"] .kl-btn-primary').click();
-  await page.waitForFunction((n) => document.querySelector('[data-testid="sheet-caption"] strong')?.textContent === n, name);
+  await page.waitForFunction(
+    (n) => document.querySelector('[data-testid="sheet-caption"] strong')?.textContent === n,
+    name,
+  );
 }
 
 export async function sheetNames(page: Page): Promise<string[]> {
-  return page.locator('[data-testid="sheet-tab"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-sheet') ?? ''));
+  return page
+    .locator('[data-testid="sheet-tab"]')
+    .evaluateAll((els) => els.map((e) => e.getAttribute('data-sheet') ?? ''));
 }
 
 export async function saved(page: Page): Promise<void> {
-  await page.waitForFunction(() => /^Saved in this browser/.test(document.querySelector('[data-testid="save-status"]')?.textContent ?? ''));
+  await page.waitForFunction(() =>
+    /^Saved in this browser/.test(document.querySelector('[data-testid="save-status"]')?.textContent ?? ''),
+  );
 }

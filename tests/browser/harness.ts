@@ -34,7 +34,10 @@ export async function serve(dir = DIST): Promise<{ url: string; close(): Promise
     }
     try {
       const body = await readFile(file);
-      res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream', 'cache-control': 'no-store' });
+      res.writeHead(200, {
+        'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
+        'cache-control': 'no-store',
+      });
       res.end(body);
     } catch {
       res.writeHead(404).end('not found');
@@ -59,7 +62,16 @@ export async function launch(): Promise<Browser> {
     executablePath: '/usr/bin/chromium',
     headless: true,
     viewport: { width: 1440, height: 860 },
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
   const errors: string[] = [];

@@ -23,7 +23,9 @@ async function balance(...argv: string[]) {
 }
 
 function cliProcess(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  const bin = (JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { bin: Record<string, string> }).bin['kvar-ledger'] as string;
+  const bin = (
+    JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { bin: Record<string, string> }
+  ).bin['kvar-ledger'] as string;
   return new Promise((resolve) => {
     execFile(process.execPath, [bin, ...args], { cwd: ROOT }, (error, stdout, stderr) => {
       resolve({ code: error ? (typeof error.code === 'number' ? error.code : 1) : 0, stdout, stderr });
@@ -31,7 +33,17 @@ function cliProcess(...args: string[]): Promise<{ code: number; stdout: string; 
   });
 }
 
-interface BusJson { bus: string; p_kw: number; q_kvar: number; s_kva: number; cos_phi: number | null; tan_phi: number | null; sense: string; q_absorbed_kvar: number; q_delivered_kvar: number }
+interface BusJson {
+  bus: string;
+  p_kw: number;
+  q_kvar: number;
+  s_kva: number;
+  cos_phi: number | null;
+  tan_phi: number | null;
+  sense: string;
+  q_absorbed_kvar: number;
+  q_delivered_kvar: number;
+}
 
 function expectHandTotals(buses: BusJson[], caseName: string) {
   const raw = JSON.parse(readFileSync(COLD, 'utf8')) as { equipment: HandRow[] };
@@ -64,11 +76,34 @@ describe('kvar-ledger balance', () => {
     expectHandTotals(j.buses, 'summer-day');
   });
   it('--json shape: case, buses, root, compensation, warnings', async () => {
-    const j = JSON.parse((await balance(COLD, '--case', 'winter-night', '--json')).out) as Record<string, unknown>;
-    expect(Object.keys(j)).toEqual(expect.arrayContaining(['case', 'buses', 'root', 'compensation', 'warnings', 'cases', 'hz']));
+    const j = JSON.parse((await balance(COLD, '--case', 'winter-night', '--json')).out) as Record<
+      string,
+      unknown
+    >;
+    expect(Object.keys(j)).toEqual(
+      expect.arrayContaining(['case', 'buses', 'root', 'compensation', 'warnings', 'cases', 'hz']),
+    );
     const bus = (j.buses as Record<string, unknown>[])[0] as Record<string, unknown>;
-    expect(Object.keys(bus)).toEqual(expect.arrayContaining(['bus', 'p_kw', 'q_kvar', 's_kva', 'cos_phi', 'tan_phi', 'q_absorbed_kvar', 'q_delivered_kvar', 'sense', 'u_kv', 'fed_by']));
-    const comp = j.compensation as { banks: Array<{ bus: string; steps_in_case: number }>; met_after: boolean; root_after: BusJson };
+    expect(Object.keys(bus)).toEqual(
+      expect.arrayContaining([
+        'bus',
+        'p_kw',
+        'q_kvar',
+        's_kva',
+        'cos_phi',
+        'tan_phi',
+        'q_absorbed_kvar',
+        'q_delivered_kvar',
+        'sense',
+        'u_kv',
+        'fed_by',
+      ]),
+    );
+    const comp = j.compensation as {
+      banks: Array<{ bus: string; steps_in_case: number }>;
+      met_after: boolean;
+      root_after: BusJson;
+    };
     expect(comp.banks.map((b) => b.bus)).toEqual(['LV-REF', 'LV-SVC']);
     expect(comp.met_after).toBe(true);
     expect(comp.root_after.cos_phi).toBeGreaterThanOrEqual(0.95);
@@ -79,7 +114,9 @@ describe('kvar-ledger balance', () => {
     expect(r.code).toBe(0);
     const lines = r.out.split('\n');
     const header = lines.find((l) => l.startsWith('bus')) as string;
-    expect(header).toMatch(/bus\s+fed by\s+U kV\s+P kW\s+Q kvar\s+Q abs\s+Q del\s+S kVA\s+cos φ\s+tan φ\s+sense/);
+    expect(header).toMatch(
+      /bus\s+fed by\s+U kV\s+P kW\s+Q kvar\s+Q abs\s+Q del\s+S kVA\s+cos φ\s+tan φ\s+sense/,
+    );
     const start = lines.indexOf(header) + 2;
     const rows = lines.slice(start, lines.indexOf('', start));
     expect(rows).toHaveLength(11);
@@ -91,8 +128,15 @@ describe('kvar-ledger balance', () => {
   });
   it('reads a CSV list with a load:<case> column; --hz changes the cable charging', async () => {
     const csv = join(tmp, 'list.csv');
-    writeFileSync(csv, 'tag,bus,kind,p_kw,cos_phi,u_kv,c_uf_km,len_km,load:night\nL1,MAIN,load,100,0.8,,,,0.5\nK1,MAIN,cable,,,11,0.3,2,\n');
-    const at = async (hz: string) => JSON.parse((await balance(csv, '--case', 'night', '--hz', hz, '--json')).out) as { root: BusJson; cases: string[] };
+    writeFileSync(
+      csv,
+      'tag,bus,kind,p_kw,cos_phi,u_kv,c_uf_km,len_km,load:night\nL1,MAIN,load,100,0.8,,,,0.5\nK1,MAIN,cable,,,11,0.3,2,\n',
+    );
+    const at = async (hz: string) =>
+      JSON.parse((await balance(csv, '--case', 'night', '--hz', hz, '--json')).out) as {
+        root: BusJson;
+        cases: string[];
+      };
     const j50 = await at('50');
     const j60 = await at('60');
     expect(j50.cases).toEqual(['normal', 'night']);
@@ -104,7 +148,10 @@ describe('kvar-ledger balance', () => {
   it('reads the first sheet of an xlsx list', async () => {
     const wb = new ExcelJS.Workbook();
     const ws = wb.addWorksheet('list');
-    ws.addRows([['tag', 'bus', 'kind', 'p_kw', 'cos_phi'], ['L1', 'MAIN', 'load', 300, 0.6]]);
+    ws.addRows([
+      ['tag', 'bus', 'kind', 'p_kw', 'cos_phi'],
+      ['L1', 'MAIN', 'load', 300, 0.6],
+    ]);
     const xlsx = join(tmp, 'book.xlsx');
     await wb.xlsx.writeFile(xlsx);
     const j = JSON.parse((await balance(xlsx, '--json')).out) as { root: BusJson };
@@ -126,13 +173,18 @@ describe('kvar-ledger balance', () => {
 describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {
   it('a list with bad rows: every problem with row and column, nothing balanced', async () => {
     const csv = join(tmp, 'bad.csv');
-    writeFileSync(csv, 'tag,bus,kind,p_kw,eff,cos_phi\nM1,LV,motor,75,0.95,1.3\nM1,LV,heater,1,1,1\n,LV,load,5,,0.9\n');
+    writeFileSync(
+      csv,
+      'tag,bus,kind,p_kw,eff,cos_phi\nM1,LV,motor,75,0.95,1.3\nM1,LV,heater,1,1,1\n,LV,load,5,,0.9\n',
+    );
     const r = await balance(csv);
     expect(r.code).toBe(1);
     expect(r.out).toBe('');
     // The unknown kind keeps row 3 out, so its duplicate tag is not reported as well.
     expect(r.err).toContain('has 3 errors; nothing was balanced');
-    expect(r.err).toContain('row 2, column cos_phi: KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3');
+    expect(r.err).toContain(
+      'row 2, column cos_phi: KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3',
+    );
     expect(r.err).toContain('row 3, column kind: kind must be one of');
     expect(r.err).toContain('row 4, column tag: tag is blank');
   });
@@ -140,7 +192,10 @@ describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {
     const cases: Array<[string[], RegExp]> = [
       [[join(tmp, 'nope.csv')], /cannot read .*nope\.csv: no such file/],
       [[join(tmp, 'broken.json')], /the site file is not valid JSON at line 1/],
-      [[COLD, '--case', 'spring'], /--case "spring" is not a case of .*; its cases are summer-day, winter-night/],
+      [
+        [COLD, '--case', 'spring'],
+        /--case "spring" is not a case of .*; its cases are summer-day, winter-night/,
+      ],
       [[COLD, '--hz', '55'], /--hz must be 50 or 60; got "55"/],
       [[COLD, '--colour'], /unknown option --colour/],
       [[], /give exactly one file/],

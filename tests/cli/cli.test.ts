@@ -7,7 +7,9 @@ import { CATALOGUE } from '../../src/core/functions/index.ts';
 import type { FunctionReference } from '../../src/io/formula/reference.ts';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
-const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { bin: Record<string, string> };
+const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as {
+  bin: Record<string, string>;
+};
 const BIN = pkg.bin['kvar-ledger'] as string;
 
 interface Run {
@@ -35,7 +37,11 @@ describe('kvar-ledger eval', () => {
     const qr = (75 / 0.95) * (Math.sqrt(1 - 0.86 ** 2) / 0.86);
     expect(out).toEqual([
       { formula: '=KVAR.MOTOR(75,0.95,0.86)', value: expect.closeTo(qr, 10) },
-      { formula: '=KVAR.LOAD(50,1.2)', error: '#N/A', message: 'KVAR.LOAD: argument 2 (cos_phi) must be in (0, 1]; got 1.2' },
+      {
+        formula: '=KVAR.LOAD(50,1.2)',
+        error: '#N/A',
+        message: 'KVAR.LOAD: argument 2 (cos_phi) must be in (0, 1]; got 1.2',
+      },
     ]);
   });
 
@@ -45,7 +51,9 @@ describe('kvar-ledger eval', () => {
     const lines = r.stdout.trimEnd().split('\n');
     expect(lines[0]).toBe('KVA.TOTAL(300,400) → 500');
     expect(lines[1]).toBe('=TANPHI(0,1) → #N/A TANPHI: argument 1 (p_kw) must not be 0; got 0');
-    expect(lines[2]).toMatch(/^=KVAR\.LOAD\(400,0\.8,TRUE\) → -300(\.0+\d*|)$|^=KVAR\.LOAD\(400,0\.8,TRUE\) → -299\.99999/);
+    expect(lines[2]).toMatch(
+      /^=KVAR\.LOAD\(400,0\.8,TRUE\) → -300(\.0+\d*|)$|^=KVAR\.LOAD\(400,0\.8,TRUE\) → -299\.99999/,
+    );
   });
 
   it('exits 1 on bad input with a message saying what and where', async () => {
@@ -61,7 +69,9 @@ describe('kvar-ledger eval', () => {
     expect(none).toMatchObject({ code: 1, stdout: '' });
     expect(none.stderr).toContain('eval: no formula given');
     expect(parse).toMatchObject({ code: 1, stdout: '' });
-    expect(parse.stderr).toContain('eval: formula 2 (=KVA.TOTAL(3,): the formula ends too early (after character 13)');
+    expect(parse.stderr).toContain(
+      'eval: formula 2 (=KVA.TOTAL(3,): the formula ends too early (after character 13)',
+    );
     expect(both).toMatchObject({ code: 1, stdout: '' });
     expect(both.stderr).toContain('give either --json or --md, not both');
     expect(unknown).toMatchObject({ code: 1, stdout: '' });
@@ -70,11 +80,16 @@ describe('kvar-ledger eval', () => {
 });
 
 describe('the package bin', () => {
-  it('npx runs the project\'s own bin from the repository root (offline: never fetched)', async () => {
+  it("npx runs the project's own bin from the repository root (offline: never fetched)", async () => {
     const r = await new Promise<Run>((done) => {
-      execFile('npx', ['--offline', 'kvar-ledger', 'eval', '=KVA.TOTAL(300,400)', '--json'], { cwd: ROOT }, (error, stdout, stderr) => {
-        done({ code: error ? 1 : 0, stdout, stderr });
-      });
+      execFile(
+        'npx',
+        ['--offline', 'kvar-ledger', 'eval', '=KVA.TOTAL(300,400)', '--json'],
+        { cwd: ROOT },
+        (error, stdout, stderr) => {
+          done({ code: error ? 1 : 0, stdout, stderr });
+        },
+      );
     });
     expect(r.code, r.stderr).toBe(0);
     expect(JSON.parse(r.stdout)).toEqual([{ formula: '=KVA.TOTAL(300,400)', value: 500 }]);
@@ -101,7 +116,12 @@ describe('kvar-ledger functions', () => {
     if (motor) {
       expect(motor.signature).toBe('KVAR.MOTOR(p_out_kw, eff, cos_phi, [load=1], [i0_pct])');
       expect(motor.params[1]).toMatchObject({ name: 'eff', allowed: '(0, 1]', optional: false });
-      expect(motor.params[3]).toMatchObject({ name: 'load', allowed: '[0, 1.5]', optional: true, default: '1' });
+      expect(motor.params[3]).toMatchObject({
+        name: 'load',
+        allowed: '[0, 1.5]',
+        optional: true,
+        default: '1',
+      });
     }
   });
 

@@ -5,7 +5,14 @@
 import type { EquipmentRow, Site } from '../../src/core/site/model.ts';
 
 let rowNo = 1;
-function item(tag: string, bus: string, kind: EquipmentRow['kind'], values: EquipmentRow['values'], loads: Record<string, number> = {}, extra: Partial<EquipmentRow> = {}): EquipmentRow {
+function item(
+  tag: string,
+  bus: string,
+  kind: EquipmentRow['kind'],
+  values: EquipmentRow['values'],
+  loads: Record<string, number> = {},
+  extra: Partial<EquipmentRow> = {},
+): EquipmentRow {
   rowNo += 1;
   return { row: rowNo, tag, bus, kind, values, loads, ...extra };
 }
@@ -23,16 +30,66 @@ export function inventedQuarry(faulty = false): Site {
     },
     equipment: [
       item('INC', 'MV', 'cable', { u_kv: 6.6, c_uf_km: 0.42, len_km: 1.6 }),
-      item('OHL-PIT', 'MV', 'line', { u_kv: 6.6, l_mh_km: 1.1, c_nf_km: 10.5, len_km: 3.2 }, {}, { to_bus: 'PIT' }),
-      item('TX1', 'MV', 'transformer', { s_kva: 2000, uk_pct: 6, p0_kw: 1.9, pk_kw: 17, i0_pct: 0.7, u_kv: 0.69 }, {}, { to_bus: 'LV1' }),
-      item('CR-1', 'LV1', 'motor', { p_kw: 315, eff: 0.955, cos_phi: 0.87, i0_pct: 30, u_kv: 0.69 }, { crushing: 0.9, maintenance: 0 }),
-      item('CV', 'LV1', 'motor', { qty: 4, running: 3, p_kw: 30, eff: 0.93, cos_phi: 0.84, u_kv: 0.69 }, { crushing: 0.8, maintenance: 0.2 }),
-      item('SCR', 'LV1', 'motor', { p_kw: 55, eff: 0.94, cos_phi: 0.85, i0_pct: faulty ? 95 : 32, u_kv: 0.69 }, { crushing: 1, maintenance: 0.5 }),
+      item(
+        'OHL-PIT',
+        'MV',
+        'line',
+        { u_kv: 6.6, l_mh_km: 1.1, c_nf_km: 10.5, len_km: 3.2 },
+        {},
+        { to_bus: 'PIT' },
+      ),
+      item(
+        'TX1',
+        'MV',
+        'transformer',
+        { s_kva: 2000, uk_pct: 6, p0_kw: 1.9, pk_kw: 17, i0_pct: 0.7, u_kv: 0.69 },
+        {},
+        { to_bus: 'LV1' },
+      ),
+      item(
+        'CR-1',
+        'LV1',
+        'motor',
+        { p_kw: 315, eff: 0.955, cos_phi: 0.87, i0_pct: 30, u_kv: 0.69 },
+        { crushing: 0.9, maintenance: 0 },
+      ),
+      item(
+        'CV',
+        'LV1',
+        'motor',
+        { qty: 4, running: 3, p_kw: 30, eff: 0.93, cos_phi: 0.84, u_kv: 0.69 },
+        { crushing: 0.8, maintenance: 0.2 },
+      ),
+      item(
+        'SCR',
+        'LV1',
+        'motor',
+        { p_kw: 55, eff: 0.94, cos_phi: 0.85, i0_pct: faulty ? 95 : 32, u_kv: 0.69 },
+        { crushing: 1, maintenance: 0.5 },
+      ),
       item('LT', 'LV1', 'load', { p_kw: 45, cos_phi: 0.95 }, { crushing: 1, maintenance: 0.6 }),
       item('DG', 'LV1', 'generator', { p_kw: 400, cos_phi: 0.8 }, { crushing: 0, maintenance: 0.5 }),
-      item('CB1', 'LV1', 'capacitor', { q_kvar: 150, u_rated_kv: 0.76, u_kv: 0.69, p_pct: 7 }, { crushing: 1, maintenance: 1 }),
-      item('PMP', 'PIT', 'motor', { p_kw: 400, eff: 0.96, cos_phi: 0.88, i0_pct: 25, u_kv: 6.6 }, { crushing: 0.85, maintenance: 0.4 }),
-      item('SR', 'PIT', 'reactor', { q_kvar: 100, u_rated_kv: 6.6, u_kv: 6.6 }, { crushing: 0, maintenance: 1 }),
+      item(
+        'CB1',
+        'LV1',
+        'capacitor',
+        { q_kvar: 150, u_rated_kv: 0.76, u_kv: 0.69, p_pct: 7 },
+        { crushing: 1, maintenance: 1 },
+      ),
+      item(
+        'PMP',
+        'PIT',
+        'motor',
+        { p_kw: 400, eff: 0.96, cos_phi: 0.88, i0_pct: 25, u_kv: 6.6 },
+        { crushing: 0.85, maintenance: 0.4 },
+      ),
+      item(
+        'SR',
+        'PIT',
+        'reactor',
+        { q_kvar: 100, u_rated_kv: 6.6, u_kv: 6.6 },
+        { crushing: 0, maintenance: 1 },
+      ),
     ],
   };
 }

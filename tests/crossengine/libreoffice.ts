@@ -25,10 +25,22 @@ export function makeRecalcProfile(dir: string): string {
 /** Convert every workbook to CSV (one file per sheet) in ONE soffice start: startup is slow. */
 export function convertToCsv(profile: string, files: readonly string[], outDir: string): void {
   mkdirSync(outDir, { recursive: true });
-  execFileSync('soffice', [`-env:UserInstallation=file://${profile}`, '--headless', '--convert-to', CSV_FILTER, '--outdir', outDir, ...files], {
-    stdio: 'pipe',
-    timeout: 240_000,
-  });
+  execFileSync(
+    'soffice',
+    [
+      `-env:UserInstallation=file://${profile}`,
+      '--headless',
+      '--convert-to',
+      CSV_FILTER,
+      '--outdir',
+      outDir,
+      ...files,
+    ],
+    {
+      stdio: 'pipe',
+      timeout: 240_000,
+    },
+  );
 }
 
 /** The CSV LibreOffice wrote for one sheet of one workbook (`<base>-<sheet>.csv`). */

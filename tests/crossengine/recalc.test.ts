@@ -39,28 +39,52 @@ function sameValue(app: CellResult, text: string): { ok: boolean; why: string } 
   }
   const v = app.value;
   if (v === null) return { ok: text === '' || text === '0', why: `app blank, LibreOffice "${text}"` };
-  if (typeof v === 'boolean') return { ok: text === (v ? 'TRUE' : 'FALSE'), why: `app ${v}, LibreOffice "${text}"` };
+  if (typeof v === 'boolean')
+    return { ok: text === (v ? 'TRUE' : 'FALSE'), why: `app ${v}, LibreOffice "${text}"` };
   if (typeof v === 'string') return { ok: text === v, why: `app "${v}", LibreOffice "${text}"` };
   const lo = Number(text);
-  const ok = text.trim() !== '' && Number.isFinite(lo) && Math.abs(lo - v) <= REL * Math.max(Math.abs(v), Math.abs(lo)) + ABS_FLOOR * REL;
+  const ok =
+    text.trim() !== '' &&
+    Number.isFinite(lo) &&
+    Math.abs(lo - v) <= REL * Math.max(Math.abs(v), Math.abs(lo)) + ABS_FLOOR * REL;
   return { ok, why: `app ${v}, LibreOffice "${text}"` };
 }
 
 beforeAll(async () => {
   const work = mkdtempSync(join(tmpdir(), 'kvar-crossengine-'));
-  for (const f of readdirSync('templates').filter((n) => n.endsWith('.json')).sort()) {
+  for (const f of readdirSync('templates')
+    .filter((n) => n.endsWith('.json'))
+    .sort()) {
     const { site } = readSiteFile(readFileSync(join('templates', f), 'utf8'));
-    books.push({ base: f.replace(/\.json$/, ''), doc: buildWorkbook(site, { flavour: 'portable' }), settings: site.settings });
+    books.push({
+      base: f.replace(/\.json$/, ''),
+      doc: buildWorkbook(site, { flavour: 'portable' }),
+      settings: site.settings,
+    });
   }
   const quarry = inventedQuarry();
-  books.push({ base: 'invented-quarry', doc: buildWorkbook(quarry, { flavour: 'portable' }), settings: quarry.settings });
+  books.push({
+    base: 'invented-quarry',
+    doc: buildWorkbook(quarry, { flavour: 'portable' }),
+    settings: quarry.settings,
+  });
   const faulty = inventedQuarry(true);
-  books.push({ base: 'invented-quarry-fault', doc: buildWorkbook(faulty, { flavour: 'portable' }), settings: faulty.settings });
+  books.push({
+    base: 'invented-quarry-fault',
+    doc: buildWorkbook(faulty, { flavour: 'portable' }),
+    settings: faulty.settings,
+  });
   books.push({ base: 'hand-made', doc: sampleDoc() });
   const files: string[] = [];
   for (const b of books) {
     const file = join(work, `${b.base}.xlsx`);
-    writeFileSync(file, await exportWorkbookXlsx(b.doc, { date: new Date('2026-01-01'), ...(b.settings ? { settings: b.settings } : {}) }));
+    writeFileSync(
+      file,
+      await exportWorkbookXlsx(b.doc, {
+        date: new Date('2026-01-01'),
+        ...(b.settings ? { settings: b.settings } : {}),
+      }),
+    );
     files.push(file);
   }
 
@@ -78,7 +102,13 @@ beforeAll(async () => {
   const check = new ExcelJS.Workbook();
   await check.xlsx.load(readFileSync(plantedFile) as unknown as ArrayBuffer);
   const app = readCell(createEngine(quarryBook.doc.sheets), 'Buses', 1, pCol);
-  planted = { sheet: 'Buses', row: 1, col: pCol, cachedInFile: check.getWorksheet('Buses')!.getCell(2, pCol + 1).result, app: app.ok ? (app.value as number) : NaN };
+  planted = {
+    sheet: 'Buses',
+    row: 1,
+    col: pCol,
+    cachedInFile: check.getWorksheet('Buses')!.getCell(2, pCol + 1).result,
+    app: app.ok ? (app.value as number) : NaN,
+  };
   files.push(plantedFile);
 
   outDir = join(work, 'csv');
@@ -87,8 +117,18 @@ beforeAll(async () => {
 
 describe('LibreOffice Calc recalculating our exports', () => {
   it('exported every template, the invented site and the hand-made workbook', () => {
-    expect(books.map((b) => b.base)).toEqual(expect.arrayContaining(['cold-store', 'pumping-station', 'solar-collector', 'invented-quarry', 'invented-quarry-fault', 'hand-made']));
-    for (const b of books) for (const s of b.doc.sheets) expect(csvFiles(outDir)).toContain(`${b.base}-${s.name}.csv`);
+    expect(books.map((b) => b.base)).toEqual(
+      expect.arrayContaining([
+        'cold-store',
+        'pumping-station',
+        'solar-collector',
+        'invented-quarry',
+        'invented-quarry-fault',
+        'hand-made',
+      ]),
+    );
+    for (const b of books)
+      for (const s of b.doc.sheets) expect(csvFiles(outDir)).toContain(`${b.base}-${s.name}.csv`);
   });
 
   it('really recalculated: a planted wrong cached value comes back right', () => {
@@ -98,7 +138,14 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(sameValue({ ok: true, value: planted!.app }, lo)).toEqual({ ok: true, why: expect.any(String) });
   });
 
-  it.each(['cold-store', 'pumping-station', 'solar-collector', 'invented-quarry', 'invented-quarry-fault', 'hand-made'])('%s: every formula cell equals the app’s value', (base) => {
+  it.each([
+    'cold-store',
+    'pumping-station',
+    'solar-collector',
+    'invented-quarry',
+    'invented-quarry-fault',
+    'hand-made',
+  ])('%s: every formula cell equals the app’s value', (base) => {
     const book = books.find((b) => b.base === base);
     expect(book, `no workbook ${base}`).toBeDefined();
     const hf = createEngine(book!.doc.sheets);
@@ -115,7 +162,10 @@ describe('LibreOffice Calc recalculating our exports', () => {
           compared++;
           if (!app.ok) errors++;
           // A formula the export had to write as a value is compared as a value.
-          const r2 = sameValue(app.ok || app.error !== '#ERROR!' ? app : { ok: false, error: '#VALUE!', message: '' }, text);
+          const r2 = sameValue(
+            app.ok || app.error !== '#ERROR!' ? app : { ok: false, error: '#VALUE!', message: '' },
+            text,
+          );
           if (!r2.ok) mismatches.push(`${s.name}!R${r + 1}C${c + 1} ${content}: ${r2.why}`);
         }),
       );

@@ -8,7 +8,13 @@ import type { HyperFormula } from 'hyperformula';
 import { CATALOGUE } from '../../src/core/functions/index.ts';
 import { evaluate, type RawArg } from '../../src/core/registry/evaluate.ts';
 import type { Example, FunctionSpec } from '../../src/core/registry/spec.ts';
-import { createEngine, createPlainEngine, evaluateFormula, readCell, type CellResult } from '../../src/engine/index.ts';
+import {
+  createEngine,
+  createPlainEngine,
+  evaluateFormula,
+  readCell,
+  type CellResult,
+} from '../../src/engine/index.ts';
 import { expandFormula } from '../../src/io/formula/expand.ts';
 
 const AGREE = 1e-12;
@@ -43,7 +49,11 @@ const engines: HyperFormula[] = [];
 afterAll(() => engines.forEach((e) => e.destroy()));
 
 /** Run one formula in a fresh engine whose Sheet1 row 1 holds `row`; the formula goes in row 2. */
-function runInCells(make: typeof createEngine | typeof createPlainEngine, row: (number | boolean | null)[], formula: string): CellResult {
+function runInCells(
+  make: typeof createEngine | typeof createPlainEngine,
+  row: (number | boolean | null)[],
+  formula: string,
+): CellResult {
   const hf = make([{ name: 'Sheet1', cells: [row, [formula]] }]);
   engines.push(hf);
   return readCell(hf, 'Sheet1', 1, 0);
@@ -53,7 +63,14 @@ const pluginEngine = createEngine([{ name: 'Sheet1', cells: [] }]);
 const plainEngine = createPlainEngine([{ name: 'Sheet1', cells: [] }]);
 engines.push(pluginEngine, plainEngine);
 
-function expectSame(spec: FunctionSpec, ex: Example, pure: ReturnType<typeof evaluate>, viaPlugin: CellResult, viaPlain: CellResult, plainFormula: string): void {
+function expectSame(
+  spec: FunctionSpec,
+  ex: Example,
+  pure: ReturnType<typeof evaluate>,
+  viaPlugin: CellResult,
+  viaPlain: CellResult,
+  plainFormula: string,
+): void {
   const label = `${spec.name} ${JSON.stringify(ex.args)}`;
   if (typeof ex.expect === 'number') {
     expect(pure, `${label} pure`).toMatchObject({ ok: true });
@@ -61,20 +78,34 @@ function expectSame(spec: FunctionSpec, ex: Example, pure: ReturnType<typeof eva
     expect(viaPlain, `${label} plain ${plainFormula}`).toMatchObject({ ok: true });
     if (!pure.ok || !viaPlugin.ok || !viaPlain.ok) return;
     const tol = ex.tol ?? 1e-9;
-    expect(closeTo(pure.value, ex.expect, tol) || (ex.expect === 0 && Math.abs(pure.value) < 1e-12), `${label}: ${pure.value} vs stated ${ex.expect} (${ex.note})`).toBe(true);
+    expect(
+      closeTo(pure.value, ex.expect, tol) || (ex.expect === 0 && Math.abs(pure.value) < 1e-12),
+      `${label}: ${pure.value} vs stated ${ex.expect} (${ex.note})`,
+    ).toBe(true);
     expect(typeof viaPlugin.value).toBe('number');
     expect(typeof viaPlain.value).toBe('number');
-    expect(closeTo(viaPlugin.value as number, pure.value, AGREE), `${label} plugin ${String(viaPlugin.value)} vs ${pure.value}`).toBe(true);
-    expect(closeTo(viaPlain.value as number, pure.value, AGREE), `${label} plain ${String(viaPlain.value)} vs ${pure.value}: ${plainFormula}`).toBe(true);
+    expect(
+      closeTo(viaPlugin.value as number, pure.value, AGREE),
+      `${label} plugin ${String(viaPlugin.value)} vs ${pure.value}`,
+    ).toBe(true);
+    expect(
+      closeTo(viaPlain.value as number, pure.value, AGREE),
+      `${label} plain ${String(viaPlain.value)} vs ${pure.value}: ${plainFormula}`,
+    ).toBe(true);
   } else {
     expect(pure.ok, `${label} pure should fail`).toBe(false);
     if (pure.ok) return;
-    expect(pure.message.startsWith(`${spec.name}: ${ex.expect.error}`), `${label}: "${pure.message}"`).toBe(true);
+    expect(pure.message.startsWith(`${spec.name}: ${ex.expect.error}`), `${label}: "${pure.message}"`).toBe(
+      true,
+    );
     expect(viaPlugin, `${label} plugin`).toEqual({ ok: false, error: '#N/A', message: pure.message });
     // Guards give NA(); only a floating-point overflow in the body cannot be guarded, and
     // spreadsheet programs report that as #NUM!.
     const overflow = pure.message.includes('is not a finite number');
-    expect(viaPlain, `${label} plain ${plainFormula}`).toMatchObject({ ok: false, error: overflow ? '#NUM!' : '#N/A' });
+    expect(viaPlain, `${label} plain ${plainFormula}`).toMatchObject({
+      ok: false,
+      error: overflow ? '#NUM!' : '#N/A',
+    });
   }
 }
 
@@ -84,39 +115,64 @@ describe.each(CATALOGUE.map((spec) => [spec.name, spec] as const))('%s examples'
     expect(spec.examples.some((e) => typeof e.expect === 'number')).toBe(true);
   });
 
-  it.each(spec.examples.map((ex) => [literalCall(spec, ex.args), ex] as const))('%s with literal arguments', (formula, ex) => {
-    const pure = evaluate(spec, ex.args as RawArg[]);
-    const plugin = evaluateFormula(pluginEngine, formula);
-    const expanded = expandFormula(formula);
-    expect(expanded.ok, JSON.stringify(expanded)).toBe(true);
-    if (!expanded.ok) return;
-    expect(expanded.formula).not.toContain(spec.name + '(');
-    expectSame(spec, ex, pure, plugin, evaluateFormula(plainEngine, expanded.formula), expanded.formula);
-  });
+  it.each(spec.examples.map((ex) => [literalCall(spec, ex.args), ex] as const))(
+    '%s with literal arguments',
+    (formula, ex) => {
+      const pure = evaluate(spec, ex.args as RawArg[]);
+      const plugin = evaluateFormula(pluginEngine, formula);
+      const expanded = expandFormula(formula);
+      expect(expanded.ok, JSON.stringify(expanded)).toBe(true);
+      if (!expanded.ok) return;
+      expect(expanded.formula).not.toContain(spec.name + '(');
+      expectSame(spec, ex, pure, plugin, evaluateFormula(plainEngine, expanded.formula), expanded.formula);
+    },
+  );
 
-  it.each(spec.examples.map((ex) => [referenceCall(spec, ex.args), ex] as const))('%s with arguments in cells', (formula, ex) => {
-    const row = argumentRow(ex.args);
-    const pure = evaluate(spec, row);
-    const expanded = expandFormula(formula);
-    expect(expanded.ok, JSON.stringify(expanded)).toBe(true);
-    if (!expanded.ok) return;
-    expectSame(spec, ex, pure, runInCells(createEngine, row, formula), runInCells(createPlainEngine, row, expanded.formula), expanded.formula);
-  });
+  it.each(spec.examples.map((ex) => [referenceCall(spec, ex.args), ex] as const))(
+    '%s with arguments in cells',
+    (formula, ex) => {
+      const row = argumentRow(ex.args);
+      const pure = evaluate(spec, row);
+      const expanded = expandFormula(formula);
+      expect(expanded.ok, JSON.stringify(expanded)).toBe(true);
+      if (!expanded.ok) return;
+      expectSame(
+        spec,
+        ex,
+        pure,
+        runInCells(createEngine, row, formula),
+        runInCells(createPlainEngine, row, expanded.formula),
+        expanded.formula,
+      );
+    },
+  );
 });
 
 describe('blank cells for arguments', () => {
-  it.each(CATALOGUE.map((spec) => [spec.name, spec] as const))('%s: a blank required argument is an error all three ways', (_name, spec) => {
-    const ex = spec.examples.find((e) => typeof e.expect === 'number') as Example;
-    const required = spec.params.findIndex((p) => p.default === undefined);
-    const row = argumentRow(ex.args);
-    while (row.length < spec.params.length) row.push(null);
-    row[required] = null;
-    const formula = `=${spec.name}(${spec.params.map((_, i) => `${COLS[i]}1`).join(',')})`;
-    const pure = evaluate(spec, row);
-    expect(pure.ok).toBe(false);
-    expect(!pure.ok && pure.message).toContain(`argument ${required + 1} (${spec.params[required]?.name}) is a blank cell`);
-    expect(runInCells(createEngine, row, formula)).toEqual({ ok: false, error: '#N/A', message: pure.ok ? '' : pure.message });
-    const expanded = expandFormula(formula);
-    expect(expanded.ok && runInCells(createPlainEngine, row, expanded.formula)).toMatchObject({ ok: false, error: '#N/A' });
-  });
+  it.each(CATALOGUE.map((spec) => [spec.name, spec] as const))(
+    '%s: a blank required argument is an error all three ways',
+    (_name, spec) => {
+      const ex = spec.examples.find((e) => typeof e.expect === 'number') as Example;
+      const required = spec.params.findIndex((p) => p.default === undefined);
+      const row = argumentRow(ex.args);
+      while (row.length < spec.params.length) row.push(null);
+      row[required] = null;
+      const formula = `=${spec.name}(${spec.params.map((_, i) => `${COLS[i]}1`).join(',')})`;
+      const pure = evaluate(spec, row);
+      expect(pure.ok).toBe(false);
+      expect(!pure.ok && pure.message).toContain(
+        `argument ${required + 1} (${spec.params[required]?.name}) is a blank cell`,
+      );
+      expect(runInCells(createEngine, row, formula)).toEqual({
+        ok: false,
+        error: '#N/A',
+        message: pure.ok ? '' : pure.message,
+      });
+      const expanded = expandFormula(formula);
+      expect(expanded.ok && runInCells(createPlainEngine, row, expanded.formula)).toMatchObject({
+        ok: false,
+        error: '#N/A',
+      });
+    },
+  );
 });

@@ -26,15 +26,22 @@ describe('arguments as the engine hands them over', () => {
     expect(one('=KVAR.LOAD(400,0.8,TRUE)')).toEqual({ ok: true, value: expect.closeTo(-300, 10) });
     expect(one('=KVAR.LOAD(400,0.8,true())')).toEqual({ ok: true, value: expect.closeTo(-300, 10) });
     expect(one('=KVAR.LOAD(400,0.8,FALSE)')).toEqual({ ok: true, value: expect.closeTo(300, 10) });
-    expect(one('=KVAR.LOAD(A1,B1,C1)', [[400, 0.8, true]])).toEqual({ ok: true, value: expect.closeTo(-300, 10) });
+    expect(one('=KVAR.LOAD(A1,B1,C1)', [[400, 0.8, true]])).toEqual({
+      ok: true,
+      value: expect.closeTo(-300, 10),
+    });
   });
   it('a boolean where a number belongs is our message, not a silent 1', () => {
-    expect(one('=KVA.TOTAL(TRUE,4)')).toEqual({ ok: false, error: '#N/A', message: 'KVA.TOTAL: argument 1 (p_kw) must be a number in kW; got TRUE' });
+    expect(one('=KVA.TOTAL(TRUE,4)')).toEqual({
+      ok: false,
+      error: '#N/A',
+      message: 'KVA.TOTAL: argument 1 (p_kw) must be a number in kW; got TRUE',
+    });
   });
   it('cell references, including other sheets and absolute ones', () => {
     const hf = createEngine([
       { name: 'Inputs here', cells: [[300, 400]] },
-      { name: 'Calc', cells: [['=KVA.TOTAL(\'Inputs here\'!$A$1,\'Inputs here\'!B1)']] },
+      { name: 'Calc', cells: [["=KVA.TOTAL('Inputs here'!$A$1,'Inputs here'!B1)"]] },
     ]);
     expect(readCell(hf, 'Calc', 0, 0)).toEqual({ ok: true, value: 500 });
     hf.setCellContents({ sheet: hf.getSheetId('Inputs here') as number, row: 0, col: 1 }, 0);
@@ -42,7 +49,10 @@ describe('arguments as the engine hands them over', () => {
     hf.destroy();
   });
   it('a blank optional reference means the default; a blank required one is our message', () => {
-    expect(one('=KVAR.LOAD(A1,B1,C1)', [[400, 0.8, null]])).toEqual({ ok: true, value: expect.closeTo(300, 10) });
+    expect(one('=KVAR.LOAD(A1,B1,C1)', [[400, 0.8, null]])).toEqual({
+      ok: true,
+      value: expect.closeTo(300, 10),
+    });
     expect(one('=KVA.TOTAL(A1,B1)', [[300, null]])).toEqual({
       ok: false,
       error: '#N/A',
@@ -50,7 +60,11 @@ describe('arguments as the engine hands them over', () => {
     });
   });
   it('text, literal or in a cell, is our message naming the argument', () => {
-    expect(one('=COSPHI("400",300)')).toEqual({ ok: false, error: '#N/A', message: 'COSPHI: argument 1 (p_kw) must be a number in kW; got text "400"' });
+    expect(one('=COSPHI("400",300)')).toEqual({
+      ok: false,
+      error: '#N/A',
+      message: 'COSPHI: argument 1 (p_kw) must be a number in kW; got text "400"',
+    });
     expect(one('=COSPHI(A1,300)', [['four hundred']])).toEqual({
       ok: false,
       error: '#N/A',
@@ -58,17 +72,38 @@ describe('arguments as the engine hands them over', () => {
     });
   });
   it('a range or an inline array is our message', () => {
-    expect(one('=KVA.TOTAL(300,A1:B2)', [[1, 2], [3, 4]])).toEqual({
+    expect(
+      one('=KVA.TOTAL(300,A1:B2)', [
+        [1, 2],
+        [3, 4],
+      ]),
+    ).toEqual({
       ok: false,
       error: '#N/A',
       message: 'KVA.TOTAL: argument 2 (q_kvar) must be one value or one cell; got a range of 2×2 cells',
     });
-    expect(one('=KVA.TOTAL({1,2,3},4)')).toMatchObject({ ok: false, error: '#N/A', message: expect.stringContaining('argument 1 (p_kw) must be one value or one cell; got a range of 1×3') });
+    expect(one('=KVA.TOTAL({1,2,3},4)')).toMatchObject({
+      ok: false,
+      error: '#N/A',
+      message: expect.stringContaining('argument 1 (p_kw) must be one value or one cell; got a range of 1×3'),
+    });
   });
   it('argument counts are our messages', () => {
-    expect(one('=KVA.TOTAL(1,2,3)')).toEqual({ ok: false, error: '#N/A', message: 'KVA.TOTAL: takes at most 2 arguments; got 3' });
-    expect(one('=KVA.TOTAL(1)')).toEqual({ ok: false, error: '#N/A', message: 'KVA.TOTAL: needs at least 2 arguments; got 1; argument 2 (q_kvar) is missing' });
-    expect(one('=KVA.TOTAL(,4)')).toEqual({ ok: false, error: '#N/A', message: 'KVA.TOTAL: argument 1 (p_kw) is missing' });
+    expect(one('=KVA.TOTAL(1,2,3)')).toEqual({
+      ok: false,
+      error: '#N/A',
+      message: 'KVA.TOTAL: takes at most 2 arguments; got 3',
+    });
+    expect(one('=KVA.TOTAL(1)')).toEqual({
+      ok: false,
+      error: '#N/A',
+      message: 'KVA.TOTAL: needs at least 2 arguments; got 1; argument 2 (q_kvar) is missing',
+    });
+    expect(one('=KVA.TOTAL(,4)')).toEqual({
+      ok: false,
+      error: '#N/A',
+      message: 'KVA.TOTAL: argument 1 (p_kw) is missing',
+    });
   });
   it('an error value in an argument is passed on unchanged, like spreadsheet functions do', () => {
     expect(one('=KVA.TOTAL(1/0,4)')).toMatchObject({ ok: false, error: '#DIV/0!' });
@@ -101,19 +136,43 @@ describe('registration', () => {
     createEngine().destroy();
     const plain = createPlainEngine();
     expect(evaluateFormula(plain, '=KVA.TOTAL(3,4)')).toMatchObject({ ok: false, error: '#NAME?' });
-    expect(evaluateFormula(plain, '=IF(TRUE,SQRT(POWER(3,2)+POWER(4,2)),NA())')).toEqual({ ok: true, value: 5 });
+    expect(evaluateFormula(plain, '=IF(TRUE,SQRT(POWER(3,2)+POWER(4,2)),NA())')).toEqual({
+      ok: true,
+      value: 5,
+    });
     plain.destroy();
   });
 });
 
 describe('nothing throws and no NaN or infinity reaches a cell', () => {
-  const awkward = ['0', '-0.0', '1e308', '-1e308', '1e-308', '-1', '0.5', '100', 'TRUE', '"x"', '""', 'A1', 'A1:A2', '1/0'];
+  const awkward = [
+    '0',
+    '-0.0',
+    '1e308',
+    '-1e308',
+    '1e-308',
+    '-1',
+    '0.5',
+    '100',
+    'TRUE',
+    '"x"',
+    '""',
+    'A1',
+    'A1:A2',
+    '1/0',
+  ];
   it.each(CATALOGUE.map((f) => [f.name, f] as const))('%s with awkward arguments', (_n, spec) => {
     const hf = createEngine([{ name: 'Sheet1', cells: [[null, null]] }]);
     for (const a of awkward) {
       for (let pos = 0; pos < spec.params.length; pos++) {
         // Start from a working example and spoil one argument.
-        const base = (spec.examples.find((e) => typeof e.expect === 'number')?.args ?? []).map((x) => (x === undefined ? '' : String(x).replace(/^true$/, 'TRUE').replace(/^false$/, 'FALSE')));
+        const base = (spec.examples.find((e) => typeof e.expect === 'number')?.args ?? []).map((x) =>
+          x === undefined
+            ? ''
+            : String(x)
+                .replace(/^true$/, 'TRUE')
+                .replace(/^false$/, 'FALSE'),
+        );
         while (base.length < spec.params.length) base.push('');
         base[pos] = a;
         const formula = `=${spec.name}(${base.join(',')})`;
@@ -150,7 +209,10 @@ describe('nothing throws and no NaN or infinity reaches a cell', () => {
     });
     const r = broken.callCatalogue(spec, { args: [{ type: 'NUMBER' }] }, {});
     expect(r).toBeInstanceOf(CellError);
-    expect(r instanceof CellError && [r.type, r.message]).toEqual([ErrorType.NA, 'TEST.PROBE: internal error: engine hiccup']);
+    expect(r instanceof CellError && [r.type, r.message]).toEqual([
+      ErrorType.NA,
+      'TEST.PROBE: internal error: engine hiccup',
+    ]);
   });
 
   it('a compute that gives NaN or throws becomes our message', () => {
@@ -165,8 +227,14 @@ describe('nothing throws and no NaN or infinity reaches a cell', () => {
       expand: () => '0',
     };
     const plugin = Object.create(CataloguePlugin.prototype) as CataloguePlugin;
-    const nan = plugin.callCatalogue(defineFunction({ ...base, name: 'TEST.NAN', compute: () => Number.NaN }), { args: [] }, {});
-    expect(nan instanceof CellError && nan.message).toBe('TEST.NAN: the result is not a finite number (NaN); check the arguments');
+    const nan = plugin.callCatalogue(
+      defineFunction({ ...base, name: 'TEST.NAN', compute: () => Number.NaN }),
+      { args: [] },
+      {},
+    );
+    expect(nan instanceof CellError && nan.message).toBe(
+      'TEST.NAN: the result is not a finite number (NaN); check the arguments',
+    );
     const boom = plugin.callCatalogue(
       defineFunction({
         ...base,

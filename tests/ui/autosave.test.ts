@@ -15,11 +15,15 @@ function harness(result: () => SaveResult) {
       return result();
     },
   };
-  const auto = new Autosaver(saver, () => ({ format: 'kvar-ledger-workbook', version: 1, title: `v${++version}`, sheets: [] }) as WorkbookDoc, {
-    onStatus: (s) => statuses.push(s),
-    setTimer: (fn) => timers.push(fn),
-    clearTimer: () => timers.splice(0, timers.length),
-  });
+  const auto = new Autosaver(
+    saver,
+    () => ({ format: 'kvar-ledger-workbook', version: 1, title: `v${++version}`, sheets: [] }) as WorkbookDoc,
+    {
+      onStatus: (s) => statuses.push(s),
+      setTimer: (fn) => timers.push(fn),
+      clearTimer: () => timers.splice(0, timers.length),
+    },
+  );
   return { auto, timers, saved, statuses };
 }
 
@@ -43,7 +47,11 @@ describe('Autosaver', () => {
   });
 
   it('reports a failed write with its message', async () => {
-    const h = harness(() => ({ ok: false, reason: 'storage', message: 'Browser storage for this page is full' }));
+    const h = harness(() => ({
+      ok: false,
+      reason: 'storage',
+      message: 'Browser storage for this page is full',
+    }));
     h.auto.changed();
     await h.auto.flush();
     expect(h.statuses.at(-1)).toEqual({ state: 'failed', message: 'Browser storage for this page is full' });

@@ -3,7 +3,22 @@ import { busesToDraw, casesOf, cosPhi, niceCeil, readChartData } from '../../src
 
 // Header texts as the workbook builder writes them (src/core/workbook/buildBuses.ts).
 const buses = [
-  ['Bus', 'Level', 'Fed by', 'Upstream bus', 'U (kV)', 'P day (kW)', 'Q day (kvar)', 'Q absorbed day (kvar)', 'Q delivered day (kvar)', 'P night (kW)', 'Q night (kvar)', 'Q absorbed night (kvar)', 'Q delivered night (kvar)', 'Q absorbed own items day (kvar)'],
+  [
+    'Bus',
+    'Level',
+    'Fed by',
+    'Upstream bus',
+    'U (kV)',
+    'P day (kW)',
+    'Q day (kvar)',
+    'Q absorbed day (kvar)',
+    'Q delivered day (kvar)',
+    'P night (kW)',
+    'Q night (kvar)',
+    'Q absorbed night (kvar)',
+    'Q delivered night (kvar)',
+    'Q absorbed own items day (kvar)',
+  ],
   ['POC', 0, null, null, 11, 800, 600, 650, -50, 100, -40, 30, -70, 1],
   ['LV1', 1, 'T1', 'POC', 0.4, 500, 420, 420, 0, 60, 20, 20, 0, 2],
   [null],
@@ -28,7 +43,11 @@ describe('chart data', () => {
   });
   it('takes the point of connection before and after compensation', () => {
     const d = readChartData(buses, compensation);
-    expect(d.triangles.get('day')).toEqual({ bus: 'POC', before: { p: 800, q: 600 }, after: { p: 800, q: 262.9 } });
+    expect(d.triangles.get('day')).toEqual({
+      bus: 'POC',
+      before: { p: 800, q: 600 },
+      after: { p: 800, q: 262.9 },
+    });
   });
   it('draws no "after" when there is no compensation sheet', () => {
     expect(readChartData(buses, undefined).triangles.get('day')?.after).toBeUndefined();

@@ -8,7 +8,9 @@ import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
 import { collectChecks } from '../../src/ui/panels/checksModel.ts';
 
 function template(name: string): WorkbookDoc {
-  const { site } = readSiteFile(readFileSync(new URL(`../../templates/${name}.json`, import.meta.url), 'utf8'));
+  const { site } = readSiteFile(
+    readFileSync(new URL(`../../templates/${name}.json`, import.meta.url), 'utf8'),
+  );
   return buildWorkbook(site, { flavour: 'live' });
 }
 
@@ -43,7 +45,9 @@ describe('checks of a workbook', () => {
     const doc = template('solar-collector');
     // Blank the bus of the first item on any equipment sheet that has one (an input error),
     // while the night-time charging warning stays.
-    const sheet = doc.sheets.find((s) => s.name !== 'Site' && s.cells.length > 1 && (s.cells[0] ?? []).includes('Bus'));
+    const sheet = doc.sheets.find(
+      (s) => s.name !== 'Site' && s.cells.length > 1 && (s.cells[0] ?? []).includes('Bus'),
+    );
     const header = (sheet?.cells[0] ?? []) as unknown[];
     (sheet?.cells[1] as unknown[])[header.indexOf('Bus')] = '';
     const r = collectChecks(doc);

@@ -8,11 +8,30 @@ describe('workbook check', () => {
     expect(workbookProblems(emptyWorkbook())).toEqual([]);
   });
   it('says where a bad cell is', () => {
-    const doc = { ...emptyWorkbook(), sheets: [{ name: 'Motors', cells: [[1, 2], [3, { x: 1 }]] }] };
-    expect(workbookProblems(doc)).toEqual(['Sheet "Motors", cell B2: a value of type object; expected a number, text, TRUE/FALSE or blank.']);
+    const doc = {
+      ...emptyWorkbook(),
+      sheets: [
+        {
+          name: 'Motors',
+          cells: [
+            [1, 2],
+            [3, { x: 1 }],
+          ],
+        },
+      ],
+    };
+    expect(workbookProblems(doc)).toEqual([
+      'Sheet "Motors", cell B2: a value of type object; expected a number, text, TRUE/FALSE or blank.',
+    ]);
   });
   it('rejects duplicate sheet names ignoring case', () => {
-    const doc = { ...emptyWorkbook(), sheets: [{ name: 'Buses', cells: [] }, { name: 'BUSES', cells: [] }] };
+    const doc = {
+      ...emptyWorkbook(),
+      sheets: [
+        { name: 'Buses', cells: [] },
+        { name: 'BUSES', cells: [] },
+      ],
+    };
     expect(workbookProblems(doc)).toEqual(['Sheet "BUSES" appears twice.']);
   });
   it('rejects other files with a clear message', () => {

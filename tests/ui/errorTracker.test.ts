@@ -3,8 +3,19 @@ import { ErrorTracker } from '../../src/ui/app/errorTracker.ts';
 import { WorkbookSession } from '../../src/ui/model/session.ts';
 
 const doc = {
-  format: 'kvar-ledger-workbook' as const, version: 1 as const, title: 't',
-  sheets: [{ name: 'A', cells: [[0.8, '=COSPHI(A1,0)'], [1.2, '=KVAR.LOAD(10,A2)']] }, { name: 'B', cells: [['=1/0']] }],
+  format: 'kvar-ledger-workbook' as const,
+  version: 1 as const,
+  title: 't',
+  sheets: [
+    {
+      name: 'A',
+      cells: [
+        [0.8, '=COSPHI(A1,0)'],
+        [1.2, '=KVAR.LOAD(10,A2)'],
+      ],
+    },
+    { name: 'B', cells: [['=1/0']] },
+  ],
 };
 
 describe('error tracker', () => {

@@ -33,7 +33,11 @@ describe('column headers', () => {
     expect(unitOf('cos φ')).toBeUndefined();
   });
   it('joins unit and format', () => {
-    expect(headerLabel('C', { header: 'Q (kvar)', format: '0.0', computed: true })).toEqual({ letter: 'C', detail: 'kvar · 1 dp', computed: true });
+    expect(headerLabel('C', { header: 'Q (kvar)', format: '0.0', computed: true })).toEqual({
+      letter: 'C',
+      detail: 'kvar · 1 dp',
+      computed: true,
+    });
     expect(headerLabel('E', { header: 'U (kV)', format: '0.0##' }).detail).toBe('kV · 1–3 dp');
     expect(headerLabel('D', { header: 'Qty', format: '0' }).detail).toBe('0 dp');
     expect(headerLabel('F', { header: 'Share', format: '0.0%' }).detail).toBe('1 dp %');
@@ -51,7 +55,15 @@ describe('column headers', () => {
 
 describe('addresses', () => {
   it('names columns like other spreadsheet programs', () => {
-    expect([0, 25, 26, 51, 52, 701, 702].map(columnLetters)).toEqual(['A', 'Z', 'AA', 'AZ', 'BA', 'ZZ', 'AAA']);
+    expect([0, 25, 26, 51, 52, 701, 702].map(columnLetters)).toEqual([
+      'A',
+      'Z',
+      'AA',
+      'AZ',
+      'BA',
+      'ZZ',
+      'AAA',
+    ]);
     expect(a1(4, 2)).toBe('C5');
     expect(rangeLabel(8, 3, 1, 1)).toBe('B2:D9');
     expect(rangeLabel(0, 0, 0, 0)).toBe('A1');

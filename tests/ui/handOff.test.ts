@@ -11,14 +11,23 @@ import { importKvarXlsx } from '../../src/io/xlsx/importKvar.ts';
 import { toResult } from '../../src/engine/index.ts';
 import { WorkbookSession } from '../../src/ui/model/session.ts';
 
-const formulas = (doc: WorkbookDoc) => doc.sheets.flatMap((s) => s.cells.flat()).filter((c): c is string => typeof c === 'string' && c.startsWith('='));
-const site = readSiteFile(readFileSync(new URL('../../templates/pumping-station.json', import.meta.url), 'utf8')).site;
+const formulas = (doc: WorkbookDoc) =>
+  doc.sheets
+    .flatMap((s) => s.cells.flat())
+    .filter((c): c is string => typeof c === 'string' && c.startsWith('='));
+const site = readSiteFile(
+  readFileSync(new URL('../../templates/pumping-station.json', import.meta.url), 'utf8'),
+).site;
 
 describe('hand-off document', () => {
   it('rebuilds a live workbook with classic sums and keeps added sheets', () => {
     const live = buildWorkbook(site, { flavour: 'live' });
     expect(formulas(live).some((f) => f.includes('BUS.SUMS'))).toBe(true);
-    const withNotes: WorkbookDoc = { ...live, title: 'My tender', sheets: [...live.sheets, { name: 'My notes', cells: [['check with client']] }] };
+    const withNotes: WorkbookDoc = {
+      ...live,
+      title: 'My tender',
+      sheets: [...live.sheets, { name: 'My notes', cells: [['check with client']] }],
+    };
     const out = handOffDoc(withNotes);
     expect(out.note).toBeUndefined();
     expect(out.doc.title).toBe('My tender');
@@ -32,11 +41,14 @@ describe('hand-off document', () => {
     const live = WorkbookSession.fromDoc(buildWorkbook(site, { flavour: 'live' }));
     const portable = WorkbookSession.fromDoc(handOffDoc(live.toDoc()).doc);
     const busesOf = (s: WorkbookSession) => s.engine.getSheetValues(s.engine.getSheetId('Buses') as number);
-    const a = busesOf(live), b = busesOf(portable);
+    const a = busesOf(live),
+      b = busesOf(portable);
     expect(b.length).toBe(a.length);
-    a.forEach((row, r) => row.forEach((v, c) => {
-      if (typeof v === 'number') expect(b[r]?.[c]).toBeCloseTo(v, 9);
-    }));
+    a.forEach((row, r) =>
+      row.forEach((v, c) => {
+        if (typeof v === 'number') expect(b[r]?.[c]).toBeCloseTo(v, 9);
+      }),
+    );
   });
 
   it('carries an edited input into the rebuilt workbook', () => {
@@ -51,7 +63,12 @@ describe('hand-off document', () => {
   });
 
   it('sends a workbook without a Buses sheet as it is', () => {
-    const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 'Scratch', sheets: [{ name: 'Sheet 1', cells: [[1, '=A1*2']] }] };
+    const doc: WorkbookDoc = {
+      format: 'kvar-ledger-workbook',
+      version: 1,
+      title: 'Scratch',
+      sheets: [{ name: 'Sheet 1', cells: [[1, '=A1*2']] }],
+    };
     expect(handOffDoc(doc)).toEqual({ doc });
   });
 
@@ -77,7 +94,21 @@ describe('hand-off document', () => {
   it('does not read the open engine when a row was added by copying another (its formulas differ from a rebuild)', async () => {
     const doc = buildWorkbook(site, { flavour: 'live' });
     const motors = doc.sheets.find((s) => s.name === 'Motors');
-    const grown: WorkbookDoc = { ...doc, sheets: doc.sheets.map((s) => (s === motors ? { ...s, cells: [...s.cells.slice(0, 2), [...(s.cells[1] ?? [])].map((c, i) => (i === 0 ? 'P-EXTRA' : c)), ...s.cells.slice(2)] } : s)) };
+    const grown: WorkbookDoc = {
+      ...doc,
+      sheets: doc.sheets.map((s) =>
+        s === motors
+          ? {
+              ...s,
+              cells: [
+                ...s.cells.slice(0, 2),
+                [...(s.cells[1] ?? [])].map((c, i) => (i === 0 ? 'P-EXTRA' : c)),
+                ...s.cells.slice(2),
+              ],
+            }
+          : s,
+      ),
+    };
     let reads = 0;
     await handOff(grown, undefined, () => {
       reads++;

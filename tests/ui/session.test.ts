@@ -9,7 +9,15 @@ const doc: WorkbookDoc = {
   version: 1,
   title: 'Test site',
   sheets: [
-    { name: 'Site', cells: [['P (kW)', 'Q (kvar)'], [300, 400]], columns: [{ header: 'P (kW)', format: '0.0' }, { header: 'Q (kvar)' }], purpose: 'inputs' },
+    {
+      name: 'Site',
+      cells: [
+        ['P (kW)', 'Q (kvar)'],
+        [300, 400],
+      ],
+      columns: [{ header: 'P (kW)', format: '0.0' }, { header: 'Q (kvar)' }],
+      purpose: 'inputs',
+    },
     { name: 'Results', cells: [['S (kVA)'], ['=KVA.TOTAL(Site!A2,Site!B2)']] },
     { name: 'Notes', cells: [['free text']] },
   ],
@@ -28,7 +36,10 @@ describe('WorkbookSession', () => {
   it('undoes and redoes an edit, one step per action', () => {
     const s = WorkbookSession.fromDoc(doc);
     const site = s.engine.getSheetId('Site') as number;
-    s.setCells(site, [{ row: 1, col: 0, content: 600 }, { row: 1, col: 1, content: 800 }]);
+    s.setCells(site, [
+      { row: 1, col: 0, content: 600 },
+      { row: 1, col: 1, content: 800 },
+    ]);
     expect(value(s, 'Results', 1, 0)).toBe(1000);
     expect(s.undo()).toBe(true);
     expect(value(s, 'Results', 1, 0)).toBe(500);
@@ -66,17 +77,42 @@ describe('WorkbookSession', () => {
   });
 
   it('fills down moving relative references', () => {
-    const s = WorkbookSession.fromDoc({ ...doc, sheets: [{ name: 'F', cells: [[3, 4, '=KVA.TOTAL(A1,B1)'], [6, 8], [30, 40]] }] });
-    s.fill({ start: { sheet: 0, row: 0, col: 2 }, end: { sheet: 0, row: 0, col: 2 } }, { start: { sheet: 0, row: 1, col: 2 }, end: { sheet: 0, row: 2, col: 2 } });
-    expect(s.sheetContents(0).map((r) => r[2])).toEqual(['=KVA.TOTAL(A1,B1)', '=KVA.TOTAL(A2,B2)', '=KVA.TOTAL(A3,B3)']);
+    const s = WorkbookSession.fromDoc({
+      ...doc,
+      sheets: [
+        {
+          name: 'F',
+          cells: [
+            [3, 4, '=KVA.TOTAL(A1,B1)'],
+            [6, 8],
+            [30, 40],
+          ],
+        },
+      ],
+    });
+    s.fill(
+      { start: { sheet: 0, row: 0, col: 2 }, end: { sheet: 0, row: 0, col: 2 } },
+      { start: { sheet: 0, row: 1, col: 2 }, end: { sheet: 0, row: 2, col: 2 } },
+    );
+    expect(s.sheetContents(0).map((r) => r[2])).toEqual([
+      '=KVA.TOTAL(A1,B1)',
+      '=KVA.TOTAL(A2,B2)',
+      '=KVA.TOTAL(A3,B3)',
+    ]);
     expect(value(s, 'F', 2, 2)).toBe(50);
     s.undo();
     expect(s.sheetContents(0)[2]).toEqual([30, 40]);
   });
 
   it('moves references of a copied block to where it is pasted', () => {
-    const s = WorkbookSession.fromDoc({ ...doc, sheets: [{ name: 'F', cells: [[3, 4, '=KVA.TOTAL(A1,B1)']] }] });
-    const moved = s.movedContents({ start: { sheet: 0, row: 0, col: 0 }, end: { sheet: 0, row: 0, col: 2 } }, { sheet: 0, row: 4, col: 1 });
+    const s = WorkbookSession.fromDoc({
+      ...doc,
+      sheets: [{ name: 'F', cells: [[3, 4, '=KVA.TOTAL(A1,B1)']] }],
+    });
+    const moved = s.movedContents(
+      { start: { sheet: 0, row: 0, col: 0 }, end: { sheet: 0, row: 0, col: 2 } },
+      { sheet: 0, row: 4, col: 1 },
+    );
     expect(moved).toEqual([[3, 4, '=KVA.TOTAL(B5,C5)']]);
   });
 
@@ -98,7 +134,9 @@ import { readSiteFile } from '../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../src/core/workbook/build.ts';
 
 describe('a live workbook (bus totals spilled by one formula)', () => {
-  const site = readSiteFile(readFileSync(new URL('../../templates/cold-store.json', import.meta.url), 'utf8')).site;
+  const site = readSiteFile(
+    readFileSync(new URL('../../templates/cold-store.json', import.meta.url), 'utf8'),
+  ).site;
   const doc = buildWorkbook(site, { flavour: 'live' });
 
   // Trailing blanks of a row carry nothing; the session drops them.
@@ -131,7 +169,9 @@ describe('a live workbook (bus totals spilled by one formula)', () => {
     const s = WorkbookSession.fromDoc(doc);
     const id = s.engine.getSheetId('Buses') as number;
     const row = s.sheetContents(id)[2] as unknown[];
-    const spilled = row.findIndex((v, c) => v === null && typeof s.engine.getCellValue({ sheet: id, row: 2, col: c }) === 'number');
+    const spilled = row.findIndex(
+      (v, c) => v === null && typeof s.engine.getCellValue({ sheet: id, row: 2, col: c }) === 'number',
+    );
     expect(spilled).toBeGreaterThan(0);
     expect(s.cellContent(id, 2, spilled)).toBeNull();
   });

@@ -10,8 +10,19 @@ import { WorkbookSession } from '../../src/ui/model/session.ts';
 import { SheetContents } from '../../src/ui/model/sheetContents.ts';
 
 const small: WorkbookDoc = {
-  format: 'kvar-ledger-workbook', version: 1, title: 't',
-  sheets: [{ name: 'A', cells: [[1, 2, '=A1+B1'], ['x', null, '=KVA.TOTAL(A1,B1)']] }, { name: 'B', cells: [['=A!C1*2']] }],
+  format: 'kvar-ledger-workbook',
+  version: 1,
+  title: 't',
+  sheets: [
+    {
+      name: 'A',
+      cells: [
+        [1, 2, '=A1+B1'],
+        ['x', null, '=KVA.TOTAL(A1,B1)'],
+      ],
+    },
+    { name: 'B', cells: [['=A!C1*2']] },
+  ],
 };
 
 /** A fresh read, bypassing the session's cache. */
@@ -26,18 +37,24 @@ describe('sheet contents cache', () => {
     );
     const edit = fc.record({ row: fc.nat(6), col: fc.nat(4), content });
     fc.assert(
-      fc.property(fc.array(fc.array(edit, { minLength: 1, maxLength: 3 }), { minLength: 1, maxLength: 8 }), (batches) => {
-        const s = WorkbookSession.fromDoc(small);
-        for (const b of batches) s.setCells(0, b);
-        expect(s.sheetContents(0)).toEqual(fresh(s, 0));
-        expect(s.sheetContents(1)).toEqual(fresh(s, 1));
-      }),
+      fc.property(
+        fc.array(fc.array(edit, { minLength: 1, maxLength: 3 }), { minLength: 1, maxLength: 8 }),
+        (batches) => {
+          const s = WorkbookSession.fromDoc(small);
+          for (const b of batches) s.setCells(0, b);
+          expect(s.sheetContents(0)).toEqual(fresh(s, 0));
+          expect(s.sheetContents(1)).toEqual(fresh(s, 1));
+        },
+      ),
       { numRuns: 60 },
     );
   });
 
   it('keeps formulas of an opened file as they were written there', () => {
-    const s = WorkbookSession.fromDoc({ ...small, sheets: [{ name: 'A', cells: [[1, '=kva.total(A1, 2)']] }] });
+    const s = WorkbookSession.fromDoc({
+      ...small,
+      sheets: [{ name: 'A', cells: [[1, '=kva.total(A1, 2)']] }],
+    });
     expect(s.toDoc().sheets[0]?.cells).toEqual([[1, '=kva.total(A1, 2)']]);
     expect(s.engine.getCellValue({ sheet: 0, row: 0, col: 1 })).toBeCloseTo(Math.sqrt(5), 12);
   });
@@ -62,7 +79,9 @@ describe('sheet contents cache', () => {
   });
 
   it('follows a live workbook whose bus totals spill, through edits of its inputs', () => {
-    const site = readSiteFile(readFileSync(new URL('../../templates/solar-collector.json', import.meta.url), 'utf8')).site;
+    const site = readSiteFile(
+      readFileSync(new URL('../../templates/solar-collector.json', import.meta.url), 'utf8'),
+    ).site;
     const s = WorkbookSession.fromDoc(buildWorkbook(site, { flavour: 'live' }));
     const id = s.engine.getSheetId('Buses') as number;
     const cables = s.engine.getSheetId('Cables') as number;

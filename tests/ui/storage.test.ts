@@ -8,7 +8,15 @@ const book = (title: string, value: number): WorkbookDoc => ({
   format: 'kvar-ledger-workbook',
   version: 1,
   title,
-  sheets: [{ name: 'Site', cells: [['frequency (Hz)', value], ['=B1*2', null]] }],
+  sheets: [
+    {
+      name: 'Site',
+      cells: [
+        ['frequency (Hz)', value],
+        ['=B1*2', null],
+      ],
+    },
+  ],
 });
 
 let open: WorkbookStore[] = [];
@@ -80,8 +88,14 @@ describe('WorkbookStore', () => {
       const req = factory.open('kvar-ledger', 1);
       req.onsuccess = () => {
         const tx = req.result.transaction('workbooks', 'readwrite');
-        tx.objectStore('workbooks').put({ text: '{"format":"kvar-ledger-workbook", trunc', savedAt: 'x', title: 'x' }, LAST_GOOD);
-        tx.oncomplete = () => { req.result.close(); resolve(); };
+        tx.objectStore('workbooks').put(
+          { text: '{"format":"kvar-ledger-workbook", trunc', savedAt: 'x', title: 'x' },
+          LAST_GOOD,
+        );
+        tx.oncomplete = () => {
+          req.result.close();
+          resolve();
+        };
         tx.onerror = () => reject(tx.error);
       };
     });

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { accept, nameAtCursor, signatureAtCursor, signatureText, suggestions } from '../../src/ui/autocomplete/suggest.ts';
+import {
+  accept,
+  nameAtCursor,
+  signatureAtCursor,
+  signatureText,
+  suggestions,
+} from '../../src/ui/autocomplete/suggest.ts';
 import { findFunction } from '../../src/core/functions/index.ts';
 
 describe('name at cursor', () => {

@@ -11,7 +11,14 @@ export function detuningAtFrequency(pPct: number, fRatedHz: number, fHz: number)
  * Output of a capacitor step, kvar (load reference, so < 0): −Qr·(U/Ur)²·(f/fr)/(1 − p/100·(f/fr)²).
  * Caller checks the branch is below resonance (detuningAtFrequency < 1).
  */
-export function capacitorBankKvar(qRatedKvar: number, uRatedKv: number, uKv = uRatedKv, pPct = 0, fRatedHz = 50, fHz = fRatedHz): number {
+export function capacitorBankKvar(
+  qRatedKvar: number,
+  uRatedKv: number,
+  uKv = uRatedKv,
+  pPct = 0,
+  fRatedHz = 50,
+  fHz = fRatedHz,
+): number {
   const ur = uKv / uRatedKv;
   const fr = fHz / fRatedHz;
   return (-qRatedKvar * (ur * ur) * fr) / (1 - detuningAtFrequency(pPct, fRatedHz, fHz));

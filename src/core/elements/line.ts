@@ -7,7 +7,14 @@
  * 3·I²·X = ω·len·L·(S/U)²/10⁶ and ω·C·U² = ω·len·C·U²/10⁶, so Q = ω·len·(L·(S/U)² − C·U²)/10⁶:
  * zero at surge impedance loading, negative below it.
  */
-export function lineNetKvar(uKv: number, sLoadKva: number, lMhKm: number, cNfKm: number, lenKm: number, fHz = 50): number {
+export function lineNetKvar(
+  uKv: number,
+  sLoadKva: number,
+  lMhKm: number,
+  cNfKm: number,
+  lenKm: number,
+  fHz = 50,
+): number {
   const ratio = sLoadKva / uKv;
   return (2 * Math.PI * fHz * lenKm * (lMhKm * (ratio * ratio) - cNfKm * (uKv * uKv))) / 1000000;
 }

@@ -16,7 +16,12 @@ export function motorRatedReactivePower(pOutKw: number, eff: number, cosPhi: num
 }
 
 /** Reactive power at no load, kvar: i0/100 · Sr with Sr = P_out/(η·cos φ); 0.7·Qr when i0 is not known. */
-export function motorNoLoadReactivePower(pOutKw: number, eff: number, cosPhi: number, i0Pct?: number): number {
+export function motorNoLoadReactivePower(
+  pOutKw: number,
+  eff: number,
+  cosPhi: number,
+  i0Pct?: number,
+): number {
   if (i0Pct === undefined) return NO_LOAD_SHARE_DEFAULT * motorRatedReactivePower(pOutKw, eff, cosPhi);
   return (i0Pct / 100) * (pOutKw / (eff * cosPhi));
 }
@@ -30,7 +35,13 @@ export function motorNoLoadTooHigh(cosPhi: number, i0Pct: number): boolean {
  * Reactive power at load x (fraction of rated output), kvar: Q0 + (Qr − Q0)·x².
  * The magnetising part Q0 barely changes with load; the leakage part grows with current squared.
  */
-export function motorReactivePower(pOutKw: number, eff: number, cosPhi: number, load = 1, i0Pct?: number): number {
+export function motorReactivePower(
+  pOutKw: number,
+  eff: number,
+  cosPhi: number,
+  load = 1,
+  i0Pct?: number,
+): number {
   const qr = motorRatedReactivePower(pOutKw, eff, cosPhi);
   const q0 = motorNoLoadReactivePower(pOutKw, eff, cosPhi, i0Pct);
   return q0 + (qr - q0) * (load * load);

@@ -23,7 +23,8 @@ function checkParams(spec: FunctionSpec): string[] {
     if (d === undefined) return;
     if (typeof d === 'object' && 'sameAs' in d) {
       const target = spec.params.find((q) => q.name === d.sameAs);
-      if (!target || d.sameAs === p.name) out.push(`${where(p, i)}: default sameAs '${d.sameAs}' is not another parameter`);
+      if (!target || d.sameAs === p.name)
+        out.push(`${where(p, i)}: default sameAs '${d.sameAs}' is not another parameter`);
       else if (isOptional(target) && typeof target.default === 'object' && 'omitted' in target.default) {
         out.push(`${where(p, i)}: default sameAs '${d.sameAs}', which may be omitted`);
       }
@@ -41,9 +42,13 @@ function checkExamples(spec: FunctionSpec): string[] {
   if (!spec.examples.some((e) => typeof e.expect === 'number')) out.push(`${spec.name}: no numeric example`);
   if (!spec.examples.some((e) => typeof e.expect !== 'number')) out.push(`${spec.name}: no error example`);
   spec.examples.forEach((e, i) => {
-    if (e.args.length > spec.params.length) out.push(`${spec.name}: example ${i + 1} has ${e.args.length} arguments, more than ${spec.params.length}`);
+    if (e.args.length > spec.params.length)
+      out.push(
+        `${spec.name}: example ${i + 1} has ${e.args.length} arguments, more than ${spec.params.length}`,
+      );
     if (!e.note.trim()) out.push(`${spec.name}: example ${i + 1} has no note`);
-    if (e.tol !== undefined && !(e.tol >= 0 && e.tol < 1)) out.push(`${spec.name}: example ${i + 1} tolerance ${e.tol} is not in [0, 1)`);
+    if (e.tol !== undefined && !(e.tol >= 0 && e.tol < 1))
+      out.push(`${spec.name}: example ${i + 1} tolerance ${e.tol} is not in [0, 1)`);
   });
   return out;
 }
@@ -57,9 +62,11 @@ export function checkCatalogue(list: readonly FunctionSpec[]): string[] {
     if (names.has(spec.name)) out.push(`${spec.name}: duplicate function name`);
     names.add(spec.name);
     if (!spec.source.ref.trim()) out.push(`${spec.name}: source is empty`);
-    if (!spec.summary.trim() || !spec.description.trim()) out.push(`${spec.name}: summary or description is empty`);
+    if (!spec.summary.trim() || !spec.description.trim())
+      out.push(`${spec.name}: summary or description is empty`);
     if (!spec.result.unit.trim()) out.push(`${spec.name}: result unit is empty`);
-    if (spec.check && !spec.expandGuards) out.push(`${spec.name}: has a cross-argument check but no expandGuards`);
+    if (spec.check && !spec.expandGuards)
+      out.push(`${spec.name}: has a cross-argument check but no expandGuards`);
     out.push(...checkParams(spec), ...checkExamples(spec));
   }
   return out;

@@ -6,7 +6,8 @@ import { msg, withFunction } from './messages.ts';
 /** What a cell can hand over: null is a blank cell, undefined an argument not given at all. */
 export type RawArg = number | boolean | string | null | undefined;
 
-export type Outcome = { readonly ok: true; readonly value: number } | { readonly ok: false; readonly message: string };
+export type Outcome =
+  { readonly ok: true; readonly value: number } | { readonly ok: false; readonly message: string };
 
 export function inInterval(x: number, d: Interval | undefined): boolean {
   if (!d) return true;
@@ -26,7 +27,8 @@ function coerceOne(pos: number, p: ParamSpec, raw: RawArg): One {
     if (raw === 0 || raw === 1) return { ok: true, value: raw === 1 };
     return { ok: false, message: msg.notABoolean(pos, p, raw) };
   }
-  if (typeof raw !== 'number' || !Number.isFinite(raw)) return { ok: false, message: msg.notANumber(pos, p, raw) };
+  if (typeof raw !== 'number' || !Number.isFinite(raw))
+    return { ok: false, message: msg.notANumber(pos, p, raw) };
   if (!inInterval(raw, p.domain)) return { ok: false, message: msg.outOfDomain(pos, p, raw) };
   return { ok: true, value: raw };
 }
@@ -64,7 +66,12 @@ export function evaluate(spec: FunctionSpec, raw: readonly RawArg[]): Outcome {
       }
       if (r === undefined && !isOptional(p)) {
         const required = params.filter((q) => !isOptional(q)).length;
-        return failed(spec, raw.length < required ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p) : msg.missing(i + 1, p));
+        return failed(
+          spec,
+          raw.length < required
+            ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p)
+            : msg.missing(i + 1, p),
+        );
       }
       const one = coerceOne(i + 1, p, r);
       if (!one.ok) return failed(spec, one.message);

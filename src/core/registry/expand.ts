@@ -30,11 +30,16 @@ function defaultIsOmitted(p: ParamSpec): boolean {
  */
 export function expandCall(spec: FunctionSpec, args: ArgTexts): string {
   // A blank reference for an "omitted" default selects a different formula: split the call.
-  const blankOmitted = spec.params.findIndex((p, i) => defaultIsOmitted(p) && args[i] !== undefined && isCellReference(args[i] as string));
+  const blankOmitted = spec.params.findIndex(
+    (p, i) => defaultIsOmitted(p) && args[i] !== undefined && isCellReference(args[i] as string),
+  );
   if (blankOmitted >= 0) {
     const ref = args[blankOmitted] as string;
     const without = args.map((a, i) => (i === blankOmitted ? undefined : a));
-    return `IF(ISBLANK(${ref}),${expandCall(spec, without)},${expandCall(spec, args.map((a, i) => (i === blankOmitted ? `(${ref}+0)` : a)))})`;
+    return `IF(ISBLANK(${ref}),${expandCall(spec, without)},${expandCall(
+      spec,
+      args.map((a, i) => (i === blankOmitted ? `(${ref}+0)` : a)),
+    )})`;
   }
   const texts: Array<string | undefined> = spec.params.map((_, i) => args[i]);
   const defaultText = (p: ParamSpec, bool: (b: boolean) => string): string | undefined => {
@@ -66,7 +71,8 @@ export function expandCall(spec: FunctionSpec, args: ArgTexts): string {
   // Cross-argument guards only run once every argument passed its own guards, as in evaluate:
   // they may divide by an argument, and OR would pass that error on instead of giving NA().
   const cross = spec.expandGuards?.(texts) ?? [];
-  const checked = cross.length === 0 ? spec.expand(texts) : `IF(OR(${cross.join(',')}),NA(),${spec.expand(texts)})`;
+  const checked =
+    cross.length === 0 ? spec.expand(texts) : `IF(OR(${cross.join(',')}),NA(),${spec.expand(texts)})`;
   if (guards.length === 0) return checked;
   return `IF(OR(${guards.join(',')}),NA(),${checked})`;
 }

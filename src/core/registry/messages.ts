@@ -37,11 +37,15 @@ export function describeGiven(v: unknown): string {
 }
 
 export const msg = {
-  outOfDomain: (pos: number, p: ParamSpec, v: number) => `${argLabel(pos, p)} ${mustBe(p.domain)}; got ${formatNumber(v)}`,
-  notANumber: (pos: number, p: ParamSpec, v: unknown) => `${argLabel(pos, p)} must be a number in ${p.unit}; got ${describeGiven(v)}`,
-  notABoolean: (pos: number, p: ParamSpec, v: unknown) => `${argLabel(pos, p)} must be TRUE or FALSE; got ${describeGiven(v)}`,
+  outOfDomain: (pos: number, p: ParamSpec, v: number) =>
+    `${argLabel(pos, p)} ${mustBe(p.domain)}; got ${formatNumber(v)}`,
+  notANumber: (pos: number, p: ParamSpec, v: unknown) =>
+    `${argLabel(pos, p)} must be a number in ${p.unit}; got ${describeGiven(v)}`,
+  notABoolean: (pos: number, p: ParamSpec, v: unknown) =>
+    `${argLabel(pos, p)} must be TRUE or FALSE; got ${describeGiven(v)}`,
   missing: (pos: number, p: ParamSpec) => `${argLabel(pos, p)} is missing`,
-  blank: (pos: number, p: ParamSpec) => `${argLabel(pos, p)} is a blank cell; a value in ${p.unit} is required`,
+  blank: (pos: number, p: ParamSpec) =>
+    `${argLabel(pos, p)} is a blank cell; a value in ${p.unit} is required`,
   tooMany: (max: number, got: number) => `takes at most ${max} arguments; got ${got}`,
   tooFew: (min: number, got: number) => `needs at least ${min} arguments; got ${got}`,
   notFinite: (v: number) => `the result is not a finite number (${formatNumber(v)}); check the arguments`,
@@ -49,7 +53,8 @@ export const msg = {
   /** A cross-argument rule, e.g. "argument 2 (p_kw) must not exceed argument 1 (s_kva); got 120 > 100". */
   relation: (text: string) => text,
   /** A range where one value belongs; `what` is e.g. "a range of 2×3 cells" or "the range A1:B3". */
-  notOneValue: (pos: number, p: ParamSpec, what: string) => `${argLabel(pos, p)} must be one value or one cell; got ${what}`,
+  notOneValue: (pos: number, p: ParamSpec, what: string) =>
+    `${argLabel(pos, p)} must be one value or one cell; got ${what}`,
 } as const;
 
 export function withFunction(name: string, tail: string): string {

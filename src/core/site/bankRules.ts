@@ -18,14 +18,17 @@ export const THIRD_HARMONIC_DETUNING_PCT = 14;
 
 /** Step outputs offered at the operating voltage, kvar (common practice: makers' usual step sizes). */
 export const STEP_SERIES_KVAR: readonly number[] = [
-  5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300, 400, 500, 600, 750,
-  1000, 1250, 1500, 2000, 2500, 3000, 4000, 5000,
+  5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300, 400, 500, 600, 750, 1000, 1250,
+  1500, 2000, 2500, 3000, 4000, 5000,
 ];
 /** Fixed capacitor outputs, kvar (common practice; small units for transformer no-load compensation). */
-export const FIXED_SERIES_KVAR: readonly number[] = [2.5, 5, 7.5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 150, 200];
+export const FIXED_SERIES_KVAR: readonly number[] = [
+  2.5, 5, 7.5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 150, 200,
+];
 /** Shunt reactor ratings, kvar (common practice). */
 export const REACTOR_SERIES_KVAR: readonly number[] = [
-  50, 100, 150, 200, 250, 300, 400, 500, 600, 750, 1000, 1250, 1500, 2000, 2500, 3000, 4000, 5000, 6000, 8000, 10000, 12500, 15000, 20000,
+  50, 100, 150, 200, 250, 300, 400, 500, 600, 750, 1000, 1250, 1500, 2000, 2500, 3000, 4000, 5000, 6000, 8000,
+  10000, 12500, 15000, 20000,
 ];
 
 /** Made-to-order reactor ratings are rounded up to this, kvar (common practice). */
@@ -47,7 +50,9 @@ export const CAP_OVERVOLTAGE_LIMIT = 1.1;
 /** Below this share of the rating a capacitor gives much less than its nameplate (it scales with U²; common practice). */
 export const CAP_UNDERUSE = 0.9;
 /** LV capacitor rated voltages, kV (common practice: makers' ranges). */
-export const LV_CAPACITOR_RATINGS_KV: readonly number[] = [0.4, 0.415, 0.44, 0.48, 0.525, 0.55, 0.69, 0.8, 0.9, 1.0];
+export const LV_CAPACITOR_RATINGS_KV: readonly number[] = [
+  0.4, 0.415, 0.44, 0.48, 0.525, 0.55, 0.69, 0.8, 0.9, 1.0,
+];
 
 /** Steady-state voltage step on switching one step, %: above this, warn (common practice: ~3 %, cf. rapid voltage change limits). */
 export const STEP_VRISE_LIMIT_PCT = 3;
@@ -71,7 +76,9 @@ export function roundDownToSeries(q: number, series: readonly number[]): number 
 /** Smallest standard step that covers q in at most the preferred number of steps for the voltage. */
 export function chooseStep(qKvar: number, uKv: number): { step: number; steps: number } {
   const preferred = isLowVoltage(uKv) ? PREFERRED_STEPS_LV : PREFERRED_STEPS_MV;
-  const step = STEP_SERIES_KVAR.find((s) => Math.ceil(qKvar / s - 1e-9) <= preferred) ?? (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
+  const step =
+    STEP_SERIES_KVAR.find((s) => Math.ceil(qKvar / s - 1e-9) <= preferred) ??
+    (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
   return { step, steps: Math.max(1, Math.ceil(qKvar / step - 1e-9)) };
 }
 

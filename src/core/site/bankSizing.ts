@@ -7,8 +7,19 @@ import { unitsRunning } from './cases.ts';
 import type { BusGraph } from './graph.ts';
 import type { BusShortCircuit } from './shortCircuit.ts';
 import {
-  DEFAULT_DETUNING_PCT, FIXED_SERIES_KVAR, STEP_SERIES_KVAR, STEP_VRISE_LIMIT_PCT, THIRD_HARMONIC_DETUNING_PCT,
-  capacitorRatedVoltage, capacitorVoltage, chooseStep, nearHarmonic, outputPerNameplateKvar, resonanceOrderOf, roundDownToSeries, voltageRise,
+  DEFAULT_DETUNING_PCT,
+  FIXED_SERIES_KVAR,
+  STEP_SERIES_KVAR,
+  STEP_VRISE_LIMIT_PCT,
+  THIRD_HARMONIC_DETUNING_PCT,
+  capacitorRatedVoltage,
+  capacitorVoltage,
+  chooseStep,
+  nearHarmonic,
+  outputPerNameplateKvar,
+  resonanceOrderOf,
+  roundDownToSeries,
+  voltageRise,
 } from './bankRules.ts';
 import { installedCapacitorKvar, motorCapacitorLimit, soleMotorOf } from './installedChecks.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
@@ -64,7 +75,11 @@ const MERGED_SERIES = [...new Set([...FIXED_SERIES_KVAR, ...STEP_SERIES_KVAR])].
 function feederNoLoadKvar(bus: string, graph: BusGraph): number {
   const t = graph.feeder.get(bus);
   if (!t || t.kind !== 'transformer') return 0;
-  const r = runCall({ fn: 'KVAR.XFMR.MAG', args: [t.values.s_kva, t.values.i0_pct, t.values.p0_kw], columns: [] });
+  const r = runCall({
+    fn: 'KVAR.XFMR.MAG',
+    args: [t.values.s_kva, t.values.i0_pct, t.values.p0_kw],
+    columns: [],
+  });
   return r.ok ? r.value * Math.max(unitsRunning(t), 1) : 0;
 }
 
@@ -75,7 +90,11 @@ function stepsFor(share: number, fixed: number, step: number, steps: number): nu
 }
 
 /** Size the bank for a bus given its share of the need per case (kvar at the operating voltage). */
-export function sizeBank(bus: string, share: Readonly<Record<string, number>>, ctx: BankContext): { bank: BankDesign; warnings: DesignWarning[] } {
+export function sizeBank(
+  bus: string,
+  share: Readonly<Record<string, number>>,
+  ctx: BankContext,
+): { bank: BankDesign; warnings: DesignWarning[] } {
   const warnings: DesignWarning[] = [];
   const { site, graph, sc, uKv } = ctx;
   const hz = site.settings.hz;
@@ -83,7 +102,9 @@ export function sizeBank(bus: string, share: Readonly<Record<string, number>>, c
   const most = Math.max(0, ...shares);
   const least = Math.max(0, Math.min(...shares));
   const installed = (graph.items.get(bus) ?? []).filter((r) => r.kind === 'capacitor');
-  const plainInstalled = installed.filter((r) => !(r.values.p_pct && r.values.p_pct > 0)).reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
+  const plainInstalled = installed
+    .filter((r) => !(r.values.p_pct && r.values.p_pct > 0))
+    .reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
   const installedP = installed.map((r) => r.values.p_pct ?? 0).find((p) => p > 0);
 
   let fixed: number;
@@ -97,38 +118,74 @@ export function sizeBank(bus: string, share: Readonly<Record<string, number>>, c
     fixed = roundDownToSeries(Math.min(most, perBus), MERGED_SERIES);
     why = `individual compensation of motor ${motor.tag}: one fixed capacitor switched with it, at most KVAR.MOTORCAP.MAX per motor`;
     if (fixed < most - 1e-6) {
-      warnings.push(designWarning('info', 'self-excitation', { bus, tag: motor.tag }, `the bank on bus ${bus} is limited to ${fixed} kvar by the self-excitation limit of motor ${motor.tag} (${limit.toFixed(1)} kvar per motor); the rest is left to banks elsewhere`));
+      warnings.push(
+        designWarning(
+          'info',
+          'self-excitation',
+          { bus, tag: motor.tag },
+          `the bank on bus ${bus} is limited to ${fixed} kvar by the self-excitation limit of motor ${motor.tag} (${limit.toFixed(1)} kvar per motor); the rest is left to banks elsewhere`,
+        ),
+      );
     }
   } else {
     fixed = roundDownToSeries(Math.min(feederNoLoadKvar(bus, graph), least), FIXED_SERIES_KVAR);
     const variable = most - fixed;
     if (variable > 1e-6) ({ step, steps } = chooseStep(variable, uKv));
-    why = fixed > 0 ? 'fixed part for the feeding transformer\'s no-load kvar, automatic steps for the rest' : 'automatic steps';
+    why =
+      fixed > 0
+        ? "fixed part for the feeding transformer's no-load kvar, automatic steps for the rest"
+        : 'automatic steps';
   }
   const total = fixed + step * steps;
-  const states = [fixed, ...Array.from({ length: steps }, (_, k) => fixed + (k + 1) * step)].filter((q) => q > 0);
+  const states = [fixed, ...Array.from({ length: steps }, (_, k) => fixed + (k + 1) * step)].filter(
+    (q) => q > 0,
+  );
 
   const sweep = (p: number): ResonancePoint[] =>
-    sc === undefined ? [] : states.map((q) => {
-      const kvar = q + plainInstalled;
-      const order = resonanceOrderOf(sc.ssc_mva, kvar, p) as number;
-      return { kvar, order, near: nearHarmonic(order) ?? null };
-    });
+    sc === undefined
+      ? []
+      : states.map((q) => {
+          const kvar = q + plainInstalled;
+          const order = resonanceOrderOf(sc.ssc_mva, kvar, p) as number;
+          return { kvar, order, near: nearHarmonic(order) ?? null };
+        });
   let p = ctx.detuning ?? installedP ?? 0;
-  if (ctx.detuning === undefined && installedP !== undefined) why += `; detuned at ${installedP} % like the installed bank`;
+  if (ctx.detuning === undefined && installedP !== undefined)
+    why += `; detuned at ${installedP} % like the installed bank`;
   if (ctx.detuning === undefined && installedP === undefined && sweep(0).some((r) => r.near !== null)) {
     p = ctx.thirdHarmonic ? THIRD_HARMONIC_DETUNING_PCT : DEFAULT_DETUNING_PCT;
     why += `; detuned at ${p} % because a plain bank would resonate near a characteristic harmonic`;
   }
   if (sc === undefined) {
-    warnings.push(designWarning('info', 'resonance-not-assessed', { bus }, `resonance and voltage rise of the proposed bank on bus ${bus} not assessed: the short-circuit power there is unknown (give sscMva in the settings)`));
+    warnings.push(
+      designWarning(
+        'info',
+        'resonance-not-assessed',
+        { bus },
+        `resonance and voltage rise of the proposed bank on bus ${bus} not assessed: the short-circuit power there is unknown (give sscMva in the settings)`,
+      ),
+    );
   }
   const resonance = sweep(p);
   for (const r of resonance.filter((x) => x.near !== null)) {
-    warnings.push(designWarning('warning', 'resonance', { bus }, `with ${r.kvar.toFixed(1)} kvar connected the bank on bus ${bus} resonates at order ${r.order.toFixed(2)}, near the ${r.near}th harmonic; choose another detuning or step size`));
+    warnings.push(
+      designWarning(
+        'warning',
+        'resonance',
+        { bus },
+        `with ${r.kvar.toFixed(1)} kvar connected the bank on bus ${bus} resonates at order ${r.order.toFixed(2)}, near the ${r.near}th harmonic; choose another detuning or step size`,
+      ),
+    );
   }
   if (p > 0 && plainInstalled > 0) {
-    warnings.push(designWarning('warning', 'detuned-and-plain-mixed', { bus }, `the proposed detuned bank on bus ${bus} would share it with ${plainInstalled.toFixed(1)} kvar of plain capacitors; detune those too`));
+    warnings.push(
+      designWarning(
+        'warning',
+        'detuned-and-plain-mixed',
+        { bus },
+        `the proposed detuned bank on bus ${bus} would share it with ${plainInstalled.toFixed(1)} kvar of plain capacitors; detune those too`,
+      ),
+    );
   }
 
   const uCap = capacitorVoltage(uKv, p);
@@ -137,16 +194,34 @@ export function sizeBank(bus: string, share: Readonly<Record<string, number>>, c
   const vStep = sc === undefined || total === 0 ? null : voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
   const vTotal = sc === undefined || total === 0 ? null : voltageRise(total, sc.ssc_mva);
   if (vStep !== null && vStep > STEP_VRISE_LIMIT_PCT) {
-    warnings.push(designWarning('warning', 'voltage-rise', { bus }, `switching one ${step > 0 ? step : fixed} kvar step on bus ${bus} raises the voltage by ${vStep.toFixed(2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`));
+    warnings.push(
+      designWarning(
+        'warning',
+        'voltage-rise',
+        { bus },
+        `switching one ${step > 0 ? step : fixed} kvar step on bus ${bus} raises the voltage by ${vStep.toFixed(2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
+      ),
+    );
   }
   const stepsIn: Record<string, number> = {};
   for (const c of site.settings.cases) stepsIn[c] = stepsFor(share[c] ?? 0, fixed, step, steps);
   const bank: BankDesign = {
-    bus, u_kv: uKv, fixed_kvar: fixed, step_kvar: step, steps, total_kvar: total,
-    p_pct: p, tuning_order: p > 0 ? 1 / Math.sqrt(p / 100) : null,
-    u_cap_kv: uCap, u_rated_kv: uRated,
-    step_rated_kvar: step / perNameplate, fixed_rated_kvar: fixed / perNameplate,
-    ssc_mva: sc?.ssc_mva ?? null, resonance, vrise_step_pct: vStep, vrise_total_pct: vTotal,
+    bus,
+    u_kv: uKv,
+    fixed_kvar: fixed,
+    step_kvar: step,
+    steps,
+    total_kvar: total,
+    p_pct: p,
+    tuning_order: p > 0 ? 1 / Math.sqrt(p / 100) : null,
+    u_cap_kv: uCap,
+    u_rated_kv: uRated,
+    step_rated_kvar: step / perNameplate,
+    fixed_rated_kvar: fixed / perNameplate,
+    ssc_mva: sc?.ssc_mva ?? null,
+    resonance,
+    vrise_step_pct: vStep,
+    vrise_total_pct: vTotal,
     steps_in: stepsIn,
     ...(limit !== undefined ? { self_excitation_limit_kvar: limit } : {}),
     why,
@@ -155,18 +230,40 @@ export function sizeBank(bus: string, share: Readonly<Record<string, number>>, c
 }
 
 /** The equipment rows that install a bank: a fixed row (always in) and a stepped row (share in service per case). */
-export function bankRows(bank: BankDesign, tagBase: string, firstRow: number, cases: readonly string[]): EquipmentRow[] {
+export function bankRows(
+  bank: BankDesign,
+  tagBase: string,
+  firstRow: number,
+  cases: readonly string[],
+): EquipmentRow[] {
   const rows: EquipmentRow[] = [];
-  const common = { u_rated_kv: bank.u_rated_kv, u_kv: bank.u_kv, ...(bank.p_pct > 0 ? { p_pct: bank.p_pct } : {}) };
+  const common = {
+    u_rated_kv: bank.u_rated_kv,
+    u_kv: bank.u_kv,
+    ...(bank.p_pct > 0 ? { p_pct: bank.p_pct } : {}),
+  };
   if (bank.fixed_kvar > 0) {
-    rows.push({ row: firstRow, tag: `${tagBase}-F`, description: 'proposed fixed capacitor', bus: bank.bus, kind: 'capacitor', values: { q_kvar: bank.fixed_rated_kvar, ...common }, loads: {} });
+    rows.push({
+      row: firstRow,
+      tag: `${tagBase}-F`,
+      description: 'proposed fixed capacitor',
+      bus: bank.bus,
+      kind: 'capacitor',
+      values: { q_kvar: bank.fixed_rated_kvar, ...common },
+      loads: {},
+    });
   }
   if (bank.steps > 0) {
     const loads: Record<string, number> = {};
     for (const c of cases) loads[c] = (bank.steps_in[c] ?? 0) / bank.steps;
     rows.push({
-      row: firstRow + rows.length, tag: `${tagBase}-S`, description: `proposed ${bank.steps} × ${bank.step_kvar} kvar steps`, bus: bank.bus, kind: 'capacitor',
-      values: { qty: bank.steps, running: bank.steps, q_kvar: bank.step_rated_kvar, ...common }, loads,
+      row: firstRow + rows.length,
+      tag: `${tagBase}-S`,
+      description: `proposed ${bank.steps} × ${bank.step_kvar} kvar steps`,
+      bus: bank.bus,
+      kind: 'capacitor',
+      values: { qty: bank.steps, running: bank.steps, q_kvar: bank.step_rated_kvar, ...common },
+      loads,
     });
   }
   return rows;

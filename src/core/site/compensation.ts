@@ -20,7 +20,13 @@ import { rollUp, type BusBalance, type CaseBalance, type ElementBalance } from '
 import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { busVoltages } from './voltages.ts';
-import { MIN_BANK_KVAR_LV, MIN_BANK_KVAR_MV, REACTOR_ROUNDING_KVAR, REACTOR_SERIES_KVAR, isLowVoltage } from './bankRules.ts';
+import {
+  MIN_BANK_KVAR_LV,
+  MIN_BANK_KVAR_MV,
+  REACTOR_ROUNDING_KVAR,
+  REACTOR_SERIES_KVAR,
+  isLowVoltage,
+} from './bankRules.ts';
 import { bankRows, sizeBank, type BankDesign } from './bankSizing.ts';
 import { checkInstalled } from './installedChecks.ts';
 import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
@@ -85,8 +91,18 @@ export interface CompensationDesign {
 const TOL_KVAR = 0.5;
 const MAX_PASSES = 4;
 
-const point = (b: BusBalance): PowerPoint => ({ p_kw: b.p_kw, q_kvar: b.q_kvar, s_kva: b.s_kva, cos_phi: b.cos_phi, tan_phi: b.tan_phi, sense: b.sense });
-const withRows = (site: Site, rows: readonly EquipmentRow[]): Site => ({ settings: site.settings, equipment: [...site.equipment, ...rows] });
+const point = (b: BusBalance): PowerPoint => ({
+  p_kw: b.p_kw,
+  q_kvar: b.q_kvar,
+  s_kva: b.s_kva,
+  cos_phi: b.cos_phi,
+  tan_phi: b.tan_phi,
+  sense: b.sense,
+});
+const withRows = (site: Site, rows: readonly EquipmentRow[]): Site => ({
+  settings: site.settings,
+  equipment: [...site.equipment, ...rows],
+});
 const rollAll = (site: Site) => site.settings.cases.map((c) => rollUp(site, c));
 
 function uniqueTag(base: string, taken: Set<string>): string {
@@ -97,7 +113,11 @@ function uniqueTag(base: string, taken: Set<string>): string {
 }
 
 /** Share of the root's need per bus and case, in proportion to each bus's own lagging kvar. */
-function allocate(candidates: readonly string[], before: readonly CaseBalance[], need: readonly number[]): Map<string, Record<string, number>> {
+function allocate(
+  candidates: readonly string[],
+  before: readonly CaseBalance[],
+  need: readonly number[],
+): Map<string, Record<string, number>> {
   const out = new Map<string, Record<string, number>>(candidates.map((b) => [b, {}]));
   before.forEach((bal, i) => {
     const byBus = new Map(bal.buses.map((x) => [x.bus, x]));
@@ -106,7 +126,8 @@ function allocate(candidates: readonly string[], before: readonly CaseBalance[],
     // need/sum × weight (or need/count): the Compensation sheet computes it in this order too.
     const n = need[i] ?? 0;
     candidates.forEach((b, k) => {
-      (out.get(b) as Record<string, number>)[bal.case] = sum > 0 ? (n / sum) * (weights[k] as number) : n / candidates.length;
+      (out.get(b) as Record<string, number>)[bal.case] =
+        sum > 0 ? (n / sum) * (weights[k] as number) : n / candidates.length;
     });
   });
   return out;
@@ -117,8 +138,17 @@ function allocate(candidates: readonly string[], before: readonly CaseBalance[],
  * throws SiteStructureError from the roll-up). `balance` may hold balances already computed
  * (one case or several); missing cases are rolled up here.
  */
-export function designCompensation(site: Site, balance?: CaseBalance | readonly CaseBalance[], options: CompensationOptions = {}): CompensationDesign {
-  const given: readonly CaseBalance[] = balance === undefined ? [] : 'case' in balance ? [balance as CaseBalance] : (balance as readonly CaseBalance[]);
+export function designCompensation(
+  site: Site,
+  balance?: CaseBalance | readonly CaseBalance[],
+  options: CompensationOptions = {},
+): CompensationDesign {
+  const given: readonly CaseBalance[] =
+    balance === undefined
+      ? []
+      : 'case' in balance
+        ? [balance as CaseBalance]
+        : (balance as readonly CaseBalance[]);
   const cases = site.settings.cases;
   const before = cases.map((c) => given.find((b) => b.case === c) ?? rollUp(site, c));
   const req = site.settings.requirement;
@@ -127,7 +157,9 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
   const ssc = busShortCircuit(site, graph);
   const voltages = busVoltages(site.equipment).voltages;
   const warnings: DesignWarning[] = [...checkInstalled(site, graph, ssc, voltages)];
-  const needs: BusNeed[] = before.flatMap((bal) => bal.buses.map((b) => ({ bus: b.bus, case: bal.case, ...kvarNeeded(b.p_kw, b.q_kvar, req) })));
+  const needs: BusNeed[] = before.flatMap((bal) =>
+    bal.buses.map((b) => ({ bus: b.bus, case: bal.case, ...kvarNeeded(b.p_kw, b.q_kvar, req) })),
+  );
   const taken = new Set(site.equipment.map((r) => r.tag));
   let nextRow = Math.max(0, ...site.equipment.map((r) => r.row)) + 1;
 
@@ -139,19 +171,33 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
   // The balances with the current proposal in place (none yet: the balances as given).
   let afterCaps: CaseBalance[] = before;
   if (Math.max(...rootNeed) > TOL_KVAR) {
-    const laggingBuses = new Set(before.flatMap((bal) => bal.buses.filter((x) => x.own_q_kvar > 0).map((x) => x.bus)));
+    const laggingBuses = new Set(
+      before.flatMap((bal) => bal.buses.filter((x) => x.own_q_kvar > 0).map((x) => x.bus)),
+    );
     const lagging = (b: string) => laggingBuses.has(b);
     let candidates = (options.bankBuses ?? graph.order.filter(lagging)).filter((b) => {
       if (voltages.has(b)) return true;
-      warnings.push(designWarning('warning', 'bus-voltage-unknown', { bus: b }, `no bank proposed on bus ${b}: its voltage is unknown (no row on it states u_kv)`));
+      warnings.push(
+        designWarning(
+          'warning',
+          'bus-voltage-unknown',
+          { bus: b },
+          `no bank proposed on bus ${b}: its voltage is unknown (no row on it states u_kv)`,
+        ),
+      );
       return false;
     });
-    if (candidates.length === 0 && graph.root !== undefined && voltages.has(graph.root)) candidates = [graph.root];
+    if (candidates.length === 0 && graph.root !== undefined && voltages.has(graph.root))
+      candidates = [graph.root];
     const extra = rootNeed.map(() => 0);
     for (let pass = 0; pass < MAX_PASSES && candidates.length > 0; pass++) {
       const need = rootNeed.map((n, i) => n + (extra[i] as number));
       let shares = allocate(candidates, before, need);
-      const big = candidates.filter((b) => Math.max(...Object.values(shares.get(b) ?? {})) >= (isLowVoltage(voltages.get(b)?.u_kv ?? 0) ? MIN_BANK_KVAR_LV : MIN_BANK_KVAR_MV));
+      const big = candidates.filter(
+        (b) =>
+          Math.max(...Object.values(shares.get(b) ?? {})) >=
+          (isLowVoltage(voltages.get(b)?.u_kv ?? 0) ? MIN_BANK_KVAR_LV : MIN_BANK_KVAR_MV),
+      );
       if (big.length > 0 && big.length < candidates.length) shares = allocate(big, before, need);
       const chosen = big.length > 0 ? big : candidates;
       banks = [];
@@ -160,7 +206,10 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
       const tagsNow = new Set(taken);
       for (const bus of chosen) {
         const sized = sizeBank(bus, shares.get(bus) ?? {}, {
-          site, graph, sc: ssc.get(bus), uKv: (voltages.get(bus) as { u_kv: number }).u_kv,
+          site,
+          graph,
+          sc: ssc.get(bus),
+          uKv: (voltages.get(bus) as { u_kv: number }).u_kv,
           ...(options.detuning?.[bus] !== undefined ? { detuning: options.detuning[bus] } : {}),
           ...(options.thirdHarmonic ? { thirdHarmonic: true } : {}),
         });
@@ -190,30 +239,63 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
     const bus = options.reactorBus ?? chargingBus(bal, voltages, graph.root);
     const u = bus === undefined ? undefined : voltages.get(bus)?.u_kv;
     if (bus === undefined || u === undefined) {
-      warnings.push(designWarning('warning', 'bus-voltage-unknown', { bus: bus ?? graph.root ?? '' }, 'a shunt reactor is needed but no bus with a known voltage is available for it (state u_kv on a row of the bus)'));
+      warnings.push(
+        designWarning(
+          'warning',
+          'bus-voltage-unknown',
+          { bus: bus ?? graph.root ?? '' },
+          'a shunt reactor is needed but no bus with a known voltage is available for it (state u_kv on a row of the bus)',
+        ),
+      );
     } else {
       const inService: Record<string, boolean> = {};
       cases.forEach((c, i) => (inService[c] = (leadNeed[i] as number) > TOL_KVAR));
       const tag = uniqueTag(`NEW-R-${bus}`, taken);
       const loads: Record<string, number> = {};
       for (const c of cases) loads[c] = inService[c] ? 1 : 0;
-      const rowFor = (q: number): EquipmentRow[] => [{ row: nextRow, tag, description: 'proposed shunt reactor', bus, kind: 'reactor', values: { q_kvar: q, u_rated_kv: u, u_kv: u }, loads }];
+      const rowFor = (q: number): EquipmentRow[] => [
+        {
+          row: nextRow,
+          tag,
+          description: 'proposed shunt reactor',
+          bus,
+          kind: 'reactor',
+          values: { q_kvar: q, u_rated_kv: u, u_kv: u },
+          loads,
+        },
+      ];
       // As for the capacitors: check by rolling up again; transformer kvar moves with the loading.
       const want = [...leadNeed];
       let q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
       for (let pass = 1; pass < MAX_PASSES; pass++) {
-        const short = rollAll(withRows(site, [...capRows, ...rowFor(q)])).map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar);
+        const short = rollAll(withRows(site, [...capRows, ...rowFor(q)])).map(
+          (b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar,
+        );
         if (short.every((x, i) => x <= TOL_KVAR || !inService[cases[i] as string])) break;
         short.forEach((x, i) => (want[i] = (want[i] as number) + (inService[cases[i] as string] ? x : 0)));
         q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
       }
-      reactors.push({ bus, u_kv: u, q_kvar: q, in_service: inService, why: 'cable and line charging (or fixed capacitors) leave the point of connection leading beyond the limit at light load' });
+      reactors.push({
+        bus,
+        u_kv: u,
+        q_kvar: q,
+        in_service: inService,
+        why: 'cable and line charging (or fixed capacitors) leave the point of connection leading beyond the limit at light load',
+      });
       reactorRows = rowFor(q);
       before.forEach((b, i) => {
         if ((leadNeed[i] as number) <= TOL_KVAR) return;
-        const charging = b.elements.filter((e) => e.kind === 'cable' || e.kind === 'line').reduce((s, e) => s + e.q_delivered_kvar, 0);
-        warnings.push(designWarning('warning', 'charging-dominates', { bus: b.root.bus, case: b.case },
-          `the point of connection delivers ${(-b.root.q_kvar).toFixed(0)} kvar at ${b.root.p_kw.toFixed(0)} kW (cable and line charging ${charging.toFixed(0)} kvar), beyond the leading limit; a ${q} kvar shunt reactor on bus ${bus} is proposed for this case`));
+        const charging = b.elements
+          .filter((e) => e.kind === 'cable' || e.kind === 'line')
+          .reduce((s, e) => s + e.q_delivered_kvar, 0);
+        warnings.push(
+          designWarning(
+            'warning',
+            'charging-dominates',
+            { bus: b.root.bus, case: b.case },
+            `the point of connection delivers ${(-b.root.q_kvar).toFixed(0)} kvar at ${b.root.p_kw.toFixed(0)} kW (cable and line charging ${charging.toFixed(0)} kvar), beyond the leading limit; a ${q} kvar shunt reactor on bus ${bus} is proposed for this case`,
+          ),
+        );
       });
     }
   }
@@ -222,10 +304,28 @@ export function designCompensation(site: Site, balance?: CaseBalance | readonly 
   const after = reactorRows.length === 0 ? afterCaps : rollAll(withRows(site, proposedRows));
   const outcomes: CaseOutcome[] = before.map((b, i) => {
     const a = after[i] as CaseBalance;
-    return { case: b.case, before: point(b.root), after: point(a.root), need: kvarNeeded(b.root.p_kw, b.root.q_kvar, req), met_before: meets(b.root.p_kw, b.root.q_kvar, req, TOL_KVAR), met_after: meets(a.root.p_kw, a.root.q_kvar, req, TOL_KVAR) };
+    return {
+      case: b.case,
+      before: point(b.root),
+      after: point(a.root),
+      need: kvarNeeded(b.root.p_kw, b.root.q_kvar, req),
+      met_before: meets(b.root.p_kw, b.root.q_kvar, req, TOL_KVAR),
+      met_after: meets(a.root.p_kw, a.root.q_kvar, req, TOL_KVAR),
+    };
   });
   warnings.push(...afterChecks(outcomes, after, req, proposedRows));
-  return { requirement: band.text, lag_tan: band.lagTan, lead_tan: band.leadTan, needs, banks, reactors, cases: outcomes, proposedRows, after, warnings: sortWarnings(warnings) };
+  return {
+    requirement: band.text,
+    lag_tan: band.lagTan,
+    lead_tan: band.leadTan,
+    needs,
+    banks,
+    reactors,
+    cases: outcomes,
+    proposedRows,
+    after,
+    warnings: sortWarnings(warnings),
+  };
 }
 
 /**
@@ -253,10 +353,15 @@ function reactorSize(bal: readonly CaseBalance[], need: readonly number[], bandW
 }
 
 /** The bus with the most cable and line charging in this case (lines count at their upstream bus). */
-function chargingBus(bal: CaseBalance, voltages: ReadonlyMap<string, unknown>, root: string | undefined): string | undefined {
+function chargingBus(
+  bal: CaseBalance,
+  voltages: ReadonlyMap<string, unknown>,
+  root: string | undefined,
+): string | undefined {
   const byBus = new Map<string, number>();
   for (const e of bal.elements) {
-    if ((e.kind === 'cable' || e.kind === 'line') && voltages.has(e.bus)) byBus.set(e.bus, (byBus.get(e.bus) ?? 0) + e.q_delivered_kvar);
+    if ((e.kind === 'cable' || e.kind === 'line') && voltages.has(e.bus))
+      byBus.set(e.bus, (byBus.get(e.bus) ?? 0) + e.q_delivered_kvar);
   }
   let best = root !== undefined && voltages.has(root) ? root : undefined;
   let most = best === undefined ? -1 : (byBus.get(best) ?? 0);
@@ -264,15 +369,29 @@ function chargingBus(bal: CaseBalance, voltages: ReadonlyMap<string, unknown>, r
   return best;
 }
 
-function afterChecks(outcomes: readonly CaseOutcome[], after: readonly CaseBalance[], req: Site['settings']['requirement'], proposed: readonly EquipmentRow[]): DesignWarning[] {
+function afterChecks(
+  outcomes: readonly CaseOutcome[],
+  after: readonly CaseBalance[],
+  req: Site['settings']['requirement'],
+  proposed: readonly EquipmentRow[],
+): DesignWarning[] {
   const out: DesignWarning[] = [];
   outcomes.forEach((o, i) => {
     const bal = after[i] as CaseBalance;
     if (!o.met_after) {
       const n = kvarNeeded(o.after.p_kw, o.after.q_kvar, req);
-      const what = n.capacitive_kvar > 0 ? `${n.capacitive_kvar.toFixed(0)} kvar capacitive still missing` : `${n.inductive_kvar.toFixed(0)} kvar inductive still missing`;
-      out.push(designWarning('warning', 'requirement-not-met', { bus: bal.root.bus, case: o.case },
-        `after the proposal the point of connection is at cos φ ${o.after.cos_phi?.toFixed(3) ?? '–'} ${o.after.sense} (${what}); review the steps or add compensation`));
+      const what =
+        n.capacitive_kvar > 0
+          ? `${n.capacitive_kvar.toFixed(0)} kvar capacitive still missing`
+          : `${n.inductive_kvar.toFixed(0)} kvar inductive still missing`;
+      out.push(
+        designWarning(
+          'warning',
+          'requirement-not-met',
+          { bus: bal.root.bus, case: o.case },
+          `after the proposal the point of connection is at cos φ ${o.after.cos_phi?.toFixed(3) ?? '–'} ${o.after.sense} (${what}); review the steps or add compensation`,
+        ),
+      );
     }
     const leadingTooFar = kvarNeeded(o.after.p_kw, o.after.q_kvar, req).inductive_kvar > TOL_KVAR;
     const capsByBus = new Map<string, ElementBalance[]>();
@@ -285,8 +404,14 @@ function afterChecks(outcomes: readonly CaseOutcome[], after: readonly CaseBalan
       const caps = capsByBus.get(b.bus) ?? [];
       if (caps.length === 0 || b.own_q_kvar >= 0) continue;
       const fromProposal = caps.some((e) => proposedTags.has(e.tag));
-      out.push(designWarning(leadingTooFar ? 'warning' : 'info', 'overcompensation', { bus: b.bus, case: o.case },
-        `bus ${b.bus} is overcompensated: its own items deliver ${(-b.own_q_kvar).toFixed(1)} kvar with capacitors ${caps.map((e) => e.tag).join(', ')} in service${fromProposal ? '' : ' (installed)'}; switch capacitors out at light load`));
+      out.push(
+        designWarning(
+          leadingTooFar ? 'warning' : 'info',
+          'overcompensation',
+          { bus: b.bus, case: o.case },
+          `bus ${b.bus} is overcompensated: its own items deliver ${(-b.own_q_kvar).toFixed(1)} kvar with capacitors ${caps.map((e) => e.tag).join(', ')} in service${fromProposal ? '' : ' (installed)'}; switch capacitors out at light load`,
+        ),
+      );
     }
   });
   return out;

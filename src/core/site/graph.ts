@@ -51,13 +51,20 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
     const to = r.to_bus as string;
     const where = { row: r.row, column: 'to_bus', tag: r.tag, bus: to };
     if (to === r.bus) {
-      problems.push(error(where, `${r.kind} ${r.tag} feeds its own bus ${to}; to_bus must name a different bus`));
+      problems.push(
+        error(where, `${r.kind} ${r.tag} feeds its own bus ${to}; to_bus must name a different bus`),
+      );
       continue;
     }
     const other = feeder.get(to);
     if (other) {
-      problems.push(error(where, `bus ${to} is fed twice: by ${other.kind} ${other.tag} (row ${other.row}) and by ${r.kind} ${r.tag} (row ${r.row}); ` +
-        'a bus has one feeder (for units in parallel give one row with qty)'));
+      problems.push(
+        error(
+          where,
+          `bus ${to} is fed twice: by ${other.kind} ${other.tag} (row ${other.row}) and by ${r.kind} ${r.tag} (row ${r.row}); ` +
+            'a bus has one feeder (for units in parallel give one row with qty)',
+        ),
+      );
       continue;
     }
     feeder.set(to, r);
@@ -72,8 +79,12 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
   if (roots.length > 1) {
     const listed = roots.map((b) => `${b} (row ${firstRow.get(b)})`).join(', ');
     const second = roots[1] as string;
-    problems.push(error({ row: firstRow.get(second) as number, column: 'bus', bus: second },
-      `buses ${listed} are each fed by nothing; a site has one point of connection, so every other bus needs a transformer or line (to_bus) feeding it`));
+    problems.push(
+      error(
+        { row: firstRow.get(second) as number, column: 'bus', bus: second },
+        `buses ${listed} are each fed by nothing; a site has one point of connection, so every other bus needs a transformer or line (to_bus) feeding it`,
+      ),
+    );
   }
   const root = roots.length === 1 ? roots[0] : undefined;
 
@@ -96,7 +107,11 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
 }
 
 /** Follow feeders upward from every bus; a walk that returns to a bus it passed is a loop. */
-function reportLoops(firstRow: ReadonlyMap<string, number>, feeder: ReadonlyMap<string, EquipmentRow>, problems: Problem[]): void {
+function reportLoops(
+  firstRow: ReadonlyMap<string, number>,
+  feeder: ReadonlyMap<string, EquipmentRow>,
+  problems: Problem[],
+): void {
   const done = new Set<string>();
   for (const start of firstRow.keys()) {
     const path: string[] = [];
@@ -116,9 +131,15 @@ function reportLoops(firstRow: ReadonlyMap<string, number>, feeder: ReadonlyMap<
       // Start the description at the upstream bus of the first row in the loop.
       const k = downstream.indexOf(first.bus);
       downstream.push(...downstream.splice(0, k));
-      problems.push(error({ row: first.row, column: 'to_bus', tag: first.tag, bus },
-        `buses ${[...downstream, downstream[0]].join(' → ')} form a loop (rows ${rows.map((r) => r.row).sort((a, b) => a - b).join(', ')}); ` +
-        'power must flow from the point of connection down a tree'));
+      problems.push(
+        error(
+          { row: first.row, column: 'to_bus', tag: first.tag, bus },
+          `buses ${[...downstream, downstream[0]].join(' → ')} form a loop (rows ${rows
+            .map((r) => r.row)
+            .sort((a, b) => a - b)
+            .join(', ')}); ` + 'power must flow from the point of connection down a tree',
+        ),
+      );
     }
     for (const b of path) done.add(b);
   }

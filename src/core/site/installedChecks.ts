@@ -13,7 +13,15 @@ import { runCall } from './calls.ts';
 import { unitsRunning } from './cases.ts';
 import type { BusGraph } from './graph.ts';
 import type { BusShortCircuit } from './shortCircuit.ts';
-import { CAP_OVERVOLTAGE_LIMIT, CAP_UNDERUSE, capacitorVoltage, nearHarmonic, outputPerNameplateKvar, resonanceOrderOf, RESONANCE_MARGIN } from './bankRules.ts';
+import {
+  CAP_OVERVOLTAGE_LIMIT,
+  CAP_UNDERUSE,
+  capacitorVoltage,
+  nearHarmonic,
+  outputPerNameplateKvar,
+  resonanceOrderOf,
+  RESONANCE_MARGIN,
+} from './bankRules.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
 import { motorNoLoadReactivePower } from '../elements/motor.ts';
 import { formatNumber } from '../registry/messages.ts';
@@ -51,7 +59,12 @@ export function motorCapacitorLimit(motor: EquipmentRow, uKv: number): number | 
   return r.ok ? r.value : undefined;
 }
 
-export function checkInstalled(site: Site, graph: BusGraph, ssc: ReadonlyMap<string, BusShortCircuit>, voltages: ReadonlyMap<string, { u_kv: number }>): DesignWarning[] {
+export function checkInstalled(
+  site: Site,
+  graph: BusGraph,
+  ssc: ReadonlyMap<string, BusShortCircuit>,
+  voltages: ReadonlyMap<string, { u_kv: number }>,
+): DesignWarning[] {
   const out: DesignWarning[] = [];
   const hz = site.settings.hz;
   const caps = site.equipment.filter((r) => r.kind === 'capacitor');
@@ -61,11 +74,32 @@ export function checkInstalled(site: Site, graph: BusGraph, ssc: ReadonlyMap<str
     const uc = capacitorVoltage(u ?? ur, p ?? 0);
     const where = { row: row.row, column: 'u_rated_kv', tag: row.tag, bus: row.bus };
     if (uc > CAP_OVERVOLTAGE_LIMIT * ur) {
-      out.push(designWarning('error', 'capacitor-overvoltage', where, `capacitor ${row.tag} sees ${f(uc, 3)} kV (CAPBANK.UCAP) but is rated ${formatNumber(ur)} kV: above the ${CAP_OVERVOLTAGE_LIMIT} × rating it may stand only 8 h a day (IEC 60831-1); choose a higher rated voltage`));
+      out.push(
+        designWarning(
+          'error',
+          'capacitor-overvoltage',
+          where,
+          `capacitor ${row.tag} sees ${f(uc, 3)} kV (CAPBANK.UCAP) but is rated ${formatNumber(ur)} kV: above the ${CAP_OVERVOLTAGE_LIMIT} × rating it may stand only 8 h a day (IEC 60831-1); choose a higher rated voltage`,
+        ),
+      );
     } else if (uc > ur * (1 + 1e-9)) {
-      out.push(designWarning('warning', 'capacitor-overvoltage', where, `capacitor ${row.tag} sees ${f(uc, 3)} kV continuously, above its rating of ${formatNumber(ur)} kV; choose a higher rated voltage`));
+      out.push(
+        designWarning(
+          'warning',
+          'capacitor-overvoltage',
+          where,
+          `capacitor ${row.tag} sees ${f(uc, 3)} kV continuously, above its rating of ${formatNumber(ur)} kV; choose a higher rated voltage`,
+        ),
+      );
     } else if (uc < CAP_UNDERUSE * ur) {
-      out.push(designWarning('info', 'capacitor-underrated-use', where, `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * (uc / ur) ** 2, 0)} % of its nameplate kvar`));
+      out.push(
+        designWarning(
+          'info',
+          'capacitor-underrated-use',
+          where,
+          `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * (uc / ur) ** 2, 0)} % of its nameplate kvar`,
+        ),
+      );
     }
   }
   const buses = [...new Set(caps.map((r) => r.bus))];
@@ -74,35 +108,66 @@ export function checkInstalled(site: Site, graph: BusGraph, ssc: ReadonlyMap<str
     const plain = onBus.filter((r) => !(r.values.p_pct && r.values.p_pct > 0));
     const detuned = onBus.filter((r) => r.values.p_pct && r.values.p_pct > 0);
     if (plain.length > 0 && detuned.length > 0) {
-      out.push(designWarning('warning', 'detuned-and-plain-mixed', { bus, row: (plain[0] as EquipmentRow).row, column: 'p_pct' },
-        `plain capacitors (${plain.map((r) => r.tag).join(', ')}) share bus ${bus} with detuned ones (${detuned.map((r) => r.tag).join(', ')}); the plain ones can resonate with the detuning reactors and overload them: detune all or none`));
+      out.push(
+        designWarning(
+          'warning',
+          'detuned-and-plain-mixed',
+          { bus, row: (plain[0] as EquipmentRow).row, column: 'p_pct' },
+          `plain capacitors (${plain.map((r) => r.tag).join(', ')}) share bus ${bus} with detuned ones (${detuned.map((r) => r.tag).join(', ')}); the plain ones can resonate with the detuning reactors and overload them: detune all or none`,
+        ),
+      );
     }
     out.push(...checkResonance(bus, plain, ssc.get(bus), hz));
     const motor = soleMotorOf(bus, graph);
     const u = voltages.get(bus)?.u_kv;
     if (motor && u !== undefined) {
       const limit = motorCapacitorLimit(motor, u);
-      const perMotor = onBus.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0) / Math.max(unitsRunning(motor), 1);
+      const perMotor =
+        onBus.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0) / Math.max(unitsRunning(motor), 1);
       if (limit !== undefined && perMotor > limit * (1 + 1e-9)) {
         const first = onBus[0] as EquipmentRow;
-        out.push(designWarning('error', 'self-excitation', { bus, row: first.row, column: 'q_kvar', tag: first.tag },
-          `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit)} kvar (90 % of its no-load kvar): the motor can self-excite when switched off; reduce the capacitor or switch it separately`));
+        out.push(
+          designWarning(
+            'error',
+            'self-excitation',
+            { bus, row: first.row, column: 'q_kvar', tag: first.tag },
+            `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit)} kvar (90 % of its no-load kvar): the motor can self-excite when switched off; reduce the capacitor or switch it separately`,
+          ),
+        );
       }
     }
   }
   return out;
 }
 
-function checkResonance(bus: string, plain: readonly EquipmentRow[], sc: BusShortCircuit | undefined, hz: number): DesignWarning[] {
+function checkResonance(
+  bus: string,
+  plain: readonly EquipmentRow[],
+  sc: BusShortCircuit | undefined,
+  hz: number,
+): DesignWarning[] {
   if (plain.length === 0) return [];
   const q = plain.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
   if (!sc) {
-    return [designWarning('info', 'resonance-not-assessed', { bus }, `resonance of the ${f(q)} kvar of plain capacitors on bus ${bus} not assessed: give the supply's short-circuit power (sscMva) in the settings`)];
+    return [
+      designWarning(
+        'info',
+        'resonance-not-assessed',
+        { bus },
+        `resonance of the ${f(q)} kvar of plain capacitors on bus ${bus} not assessed: give the supply's short-circuit power (sscMva) in the settings`,
+      ),
+    ];
   }
   const h = resonanceOrderOf(sc.ssc_mva, q, 0);
   const n = h === undefined ? undefined : nearHarmonic(h);
   if (h === undefined || n === undefined) return [];
   const first = plain[0] as EquipmentRow;
-  return [designWarning('warning', 'resonance', { bus, row: first.row, column: 'q_kvar', tag: first.tag },
-    `${f(q)} kvar of plain capacitors on bus ${bus} (short-circuit power ${f(sc.ssc_mva, 2)} MVA) resonate at order ${h.toFixed(2)} (RESONANCE.ORDER), within ${RESONANCE_MARGIN * 100} % of the ${n}th harmonic: harmonic currents there are amplified; detune the bank or change its size`)];
+  return [
+    designWarning(
+      'warning',
+      'resonance',
+      { bus, row: first.row, column: 'q_kvar', tag: first.tag },
+      `${f(q)} kvar of plain capacitors on bus ${bus} (short-circuit power ${f(sc.ssc_mva, 2)} MVA) resonate at order ${h.toFixed(2)} (RESONANCE.ORDER), within ${RESONANCE_MARGIN * 100} % of the ${n}th harmonic: harmonic currents there are amplified; detune the bank or change its size`,
+    ),
+  ];
 }

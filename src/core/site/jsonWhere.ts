@@ -39,15 +39,16 @@ export function jsonErrorOffset(text: string): number | undefined {
   const value = (): void => {
     ws();
     const ch = text[i];
-    if (ch === '{') return members('}', () => {
-      ws();
-      if (text[i] !== '"') fail();
-      string();
-      ws();
-      if (text[i] !== ':') fail();
-      i++;
-      value();
-    });
+    if (ch === '{')
+      return members('}', () => {
+        ws();
+        if (text[i] !== '"') fail();
+        string();
+        ws();
+        if (text[i] !== ':') fail();
+        i++;
+        value();
+      });
     if (ch === '[') return members(']', value);
     if (ch === '"') return string();
     if (ch === 't') return literal('true');

@@ -2,13 +2,39 @@
 // columns of the design (one row per item). Pure data; parsing, validation and roll-up live
 // beside this file.
 
-export const EQUIPMENT_KINDS = ['motor', 'load', 'generator', 'transformer', 'cable', 'line', 'capacitor', 'reactor'] as const;
+export const EQUIPMENT_KINDS = [
+  'motor',
+  'load',
+  'generator',
+  'transformer',
+  'cable',
+  'line',
+  'capacitor',
+  'reactor',
+] as const;
 export type EquipmentKind = (typeof EQUIPMENT_KINDS)[number];
 
 /** Numeric interchange columns (blank = not given). */
 export const NUMERIC_COLUMNS = [
-  'qty', 'running', 'p_kw', 'eff', 'cos_phi', 'load', 'i0_pct', 's_kva', 'uk_pct', 'p0_kw', 'pk_kw',
-  'u_kv', 'c_uf_km', 'len_km', 'l_mh_km', 'c_nf_km', 'q_kvar', 'u_rated_kv', 'p_pct',
+  'qty',
+  'running',
+  'p_kw',
+  'eff',
+  'cos_phi',
+  'load',
+  'i0_pct',
+  's_kva',
+  'uk_pct',
+  'p0_kw',
+  'pk_kw',
+  'u_kv',
+  'c_uf_km',
+  'len_km',
+  'l_mh_km',
+  'c_nf_km',
+  'q_kvar',
+  'u_rated_kv',
+  'p_pct',
 ] as const;
 export type NumericColumn = (typeof NUMERIC_COLUMNS)[number];
 export const TEXT_COLUMNS = ['tag', 'description', 'bus', 'kind', 'to_bus'] as const;

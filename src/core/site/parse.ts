@@ -44,7 +44,8 @@ type ColumnRole =
 export function normaliseHeader(text: string): string {
   const t = text.trim();
   const colon = t.indexOf(':');
-  if (colon >= 0 && t.slice(0, colon).trim().toLowerCase() === 'load') return CASE_PREFIX + t.slice(colon + 1).trim();
+  if (colon >= 0 && t.slice(0, colon).trim().toLowerCase() === 'load')
+    return CASE_PREFIX + t.slice(colon + 1).trim();
   return t.toLowerCase().replace(/[\s-]+/g, '_');
 }
 
@@ -57,7 +58,11 @@ const FRACTION_COLUMNS = new Set<string>(['eff', 'cos_phi', 'load']);
 const NUMBER_TEXT = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /** Parse one cell as a number; undefined when blank; an Error message text when not a number. */
-export function parseNumberCell(text: string, column: string, decimalComma = false): number | undefined | { bad: string } {
+export function parseNumberCell(
+  text: string,
+  column: string,
+  decimalComma = false,
+): number | undefined | { bad: string } {
   let t = text.trim();
   if (t === '') return undefined;
   let scale = 1;
@@ -70,7 +75,12 @@ export function parseNumberCell(text: string, column: string, decimalComma = fal
   return Number(t) * scale;
 }
 
-function mapHeader(header: readonly string[], headerRow: number, knownCases: readonly string[] | undefined, problems: Problem[]): Array<ColumnRole | undefined> {
+function mapHeader(
+  header: readonly string[],
+  headerRow: number,
+  knownCases: readonly string[] | undefined,
+  problems: Problem[],
+): Array<ColumnRole | undefined> {
   const seen = new Map<string, number>();
   return header.map((raw, i) => {
     const name = normaliseHeader(raw);
@@ -86,11 +96,21 @@ function mapHeader(header: readonly string[], headerRow: number, knownCases: rea
     if (name.startsWith(CASE_PREFIX)) {
       const caseName = name.slice(CASE_PREFIX.length);
       if (caseName === '') {
-        problems.push(warning({ row: headerRow, column: raw.trim() }, `column ${JSON.stringify(raw.trim())} names no case (write load:<case>); ignored`));
+        problems.push(
+          warning(
+            { row: headerRow, column: raw.trim() },
+            `column ${JSON.stringify(raw.trim())} names no case (write load:<case>); ignored`,
+          ),
+        );
         return undefined;
       }
       if (knownCases && !knownCases.includes(caseName)) {
-        problems.push(warning({ row: headerRow, column: name }, `case "${caseName}" is not among the site's cases (${knownCases.join(', ')}); column ignored`));
+        problems.push(
+          warning(
+            { row: headerRow, column: name },
+            `case "${caseName}" is not among the site's cases (${knownCases.join(', ')}); column ignored`,
+          ),
+        );
         return undefined;
       }
       return { kind: 'case', name, caseName };
@@ -105,19 +125,29 @@ function isBlankRow(cells: readonly string[]): boolean {
 }
 
 /** Read the table whose first row is the header. Rows that cannot be typed are reported, not kept. */
-export function parseEquipmentTable(rows: readonly (readonly string[])[], opts: ParseOptions = {}): ParseResult {
+export function parseEquipmentTable(
+  rows: readonly (readonly string[])[],
+  opts: ParseOptions = {},
+): ParseResult {
   const problems: Problem[] = [];
   const headerRow = opts.headerRow ?? 1;
   const defaultCase = opts.defaultCase ?? DEFAULT_CASE;
   const header = rows[0];
   if (!header || isBlankRow(header)) {
-    problems.push(error({ row: headerRow }, 'the table is empty; the first row must hold the column headers (tag, bus, kind, ...)'));
+    problems.push(
+      error(
+        { row: headerRow },
+        'the table is empty; the first row must hold the column headers (tag, bus, kind, ...)',
+      ),
+    );
     return { equipment: [], problems, cases: [defaultCase] };
   }
   const roles = mapHeader(header, headerRow, opts.knownCases, problems);
   for (const req of REQUIRED_HEADERS) {
     if (!roles.some((r) => r?.kind === 'text' && r.name === req)) {
-      problems.push(error({ row: headerRow, column: req }, `the header row has no ${req} column; it is required`));
+      problems.push(
+        error({ row: headerRow, column: req }, `the header row has no ${req} column; it is required`),
+      );
     }
   }
   const cases = [defaultCase];
@@ -133,7 +163,13 @@ export function parseEquipmentTable(rows: readonly (readonly string[])[], opts: 
   return { equipment, problems, cases };
 }
 
-function readRow(cells: readonly string[], roles: ReadonlyArray<ColumnRole | undefined>, rowNo: number, decimalComma: boolean, problems: Problem[]): EquipmentRow | undefined {
+function readRow(
+  cells: readonly string[],
+  roles: ReadonlyArray<ColumnRole | undefined>,
+  rowNo: number,
+  decimalComma: boolean,
+  problems: Problem[],
+): EquipmentRow | undefined {
   const text: Partial<Record<TextColumn, string>> = {};
   const values: Partial<Record<NumericColumn, number>> = {};
   const loads: Record<string, number> = {};
@@ -141,7 +177,12 @@ function readRow(cells: readonly string[], roles: ReadonlyArray<ColumnRole | und
     const role = roles[i];
     if (!role) {
       if (i >= roles.length && cell.trim() !== '') {
-        problems.push(warning({ row: rowNo, column: `#${i + 1}` }, `value ${JSON.stringify(cell.trim())} is beyond the last header column; ignored`));
+        problems.push(
+          warning(
+            { row: rowNo, column: `#${i + 1}` },
+            `value ${JSON.stringify(cell.trim())} is beyond the last header column; ignored`,
+          ),
+        );
       }
       return;
     }

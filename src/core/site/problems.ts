@@ -33,7 +33,10 @@ export function describeWhere(w: Where): string {
 
 export function problem(severity: Severity, where: Where, text: string): Problem {
   const prefix = describeWhere(where);
-  const out: { -readonly [K in keyof Problem]: Problem[K] } = { severity, message: prefix ? `${prefix}: ${text}` : text };
+  const out: { -readonly [K in keyof Problem]: Problem[K] } = {
+    severity,
+    message: prefix ? `${prefix}: ${text}` : text,
+  };
   if (where.row !== undefined) out.row = where.row;
   if (where.column !== undefined) out.column = where.column;
   if (where.bus !== undefined) out.bus = where.bus;
@@ -61,9 +64,13 @@ export const say = {
   missingValue: (column: string, kind: string) => `${column} is required for a ${kind} and is blank`,
   missingTag: () => 'tag is blank; every item needs a unique tag',
   missingBus: () => 'bus is blank; every item must say which bus it is connected to',
-  unknownKind: (text: string, allowed: readonly string[]) => `kind must be one of ${allowed.join(', ')}; got ${given(text)}`,
-  duplicateTag: (tag: string, firstRow: number) => `tag ${given(tag)} is already used in row ${firstRow}; tags must be unique`,
+  unknownKind: (text: string, allowed: readonly string[]) =>
+    `kind must be one of ${allowed.join(', ')}; got ${given(text)}`,
+  duplicateTag: (tag: string, firstRow: number) =>
+    `tag ${given(tag)} is already used in row ${firstRow}; tags must be unique`,
   unknownColumn: (name: string) => `unknown column ${given(name)} is ignored`,
-  duplicateColumn: (name: string, first: number) => `column ${given(name)} appears twice (also column ${first}); the second is ignored`,
-  outOfRange: (what: string, range: string, value: number) => `${what} must be ${range}; got ${formatNumber(value)}`,
+  duplicateColumn: (name: string, first: number) =>
+    `column ${given(name)} appears twice (also column ${first}); the second is ignored`,
+  outOfRange: (what: string, range: string, value: number) =>
+    `${what} must be ${range}; got ${formatNumber(value)}`,
 } as const;

@@ -18,9 +18,17 @@ export interface Band {
 export function requirementBand(r: Requirement): Band {
   if (r.kind === 'cosphi') {
     const t = tanFromCos(r.target);
-    return { lagTan: t, leadTan: t, text: `cos φ ≥ ${formatNumber(r.target)} lagging or leading (|tan φ| ≤ ${t.toFixed(4)})` };
+    return {
+      lagTan: t,
+      leadTan: t,
+      text: `cos φ ≥ ${formatNumber(r.target)} lagging or leading (|tan φ| ≤ ${t.toFixed(4)})`,
+    };
   }
-  return { lagTan: r.lagMax, leadTan: r.leadMax, text: `tan φ between ${formatNumber(-r.leadMax)} (leading) and ${formatNumber(r.lagMax)} (lagging)` };
+  return {
+    lagTan: r.lagMax,
+    leadTan: r.leadMax,
+    text: `tan φ between ${formatNumber(-r.leadMax)} (leading) and ${formatNumber(r.lagMax)} (lagging)`,
+  };
 }
 
 export interface Need {
@@ -37,9 +45,10 @@ export interface Need {
 export function kvarNeeded(pKw: number, qKvar: number, r: Requirement): Need {
   const band = requirementBand(r);
   const p = Math.abs(pKw);
-  const lag = r.kind === 'cosphi'
-    ? runCall({ fn: 'KVAR.TOPF', args: [p, qKvar, r.target], columns: [] })
-    : runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, band.lagTan], columns: [] });
+  const lag =
+    r.kind === 'cosphi'
+      ? runCall({ fn: 'KVAR.TOPF', args: [p, qKvar, r.target], columns: [] })
+      : runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, band.lagTan], columns: [] });
   const lead = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] });
   if (!lag.ok) throw new Error(lag.message);
   if (!lead.ok) throw new Error(lead.message);

@@ -94,10 +94,25 @@ function evalOr0(plan: CallPlan | undefined, errors: string[]): number {
 }
 
 /** One element's balance; fields in the order the JSON output shows them. */
-function shuntResult(row: EquipmentRow, n: number, load: number, p: number, q: number, error?: string): ElementBalance {
+function shuntResult(
+  row: EquipmentRow,
+  n: number,
+  load: number,
+  p: number,
+  q: number,
+  error?: string,
+): ElementBalance {
   const e: ElementBalance = {
-    row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, running: n, load,
-    p_kw: p, q_kvar: q, q_absorbed_kvar: Math.max(q, 0), q_delivered_kvar: Math.max(-q, 0),
+    row: row.row,
+    tag: row.tag,
+    kind: row.kind,
+    bus: row.bus,
+    running: n,
+    load,
+    p_kw: p,
+    q_kvar: q,
+    q_absorbed_kvar: Math.max(q, 0),
+    q_delivered_kvar: Math.max(-q, 0),
   };
   return error === undefined ? e : { ...e, error };
 }
@@ -113,7 +128,8 @@ function shuntElement(row: EquipmentRow, caseName: string, hz: number): ElementB
   if (row.kind === 'generator') p = -p;
   // Capacitors and reactors: the load factor is the share of the nameplate in service.
   if (row.kind === 'capacitor' || row.kind === 'reactor') q *= lf.value;
-  if (errors.length > 0 || !Number.isFinite(p)) return shuntResult(row, n, lf.value, 0, 0, errors.join('; ') || 'p_kw is missing');
+  if (errors.length > 0 || !Number.isFinite(p))
+    return shuntResult(row, n, lf.value, 0, 0, errors.join('; ') || 'p_kw is missing');
   return shuntResult(row, n, lf.value, p * n, q * n);
 }
 
@@ -142,7 +158,8 @@ function branchElement(row: EquipmentRow, sKva: number, hz: number): ElementBala
     del = -n * charging;
   }
   const out = { ...base, ...(loading !== undefined ? { loading_pct: loading } : {}) };
-  if (errors.length > 0) return { ...out, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0, error: errors.join('; ') };
+  if (errors.length > 0)
+    return { ...out, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0, error: errors.join('; ') };
   return { ...out, p_kw: p, q_kvar: abs - del, q_absorbed_kvar: abs, q_delivered_kvar: del };
 }
 
@@ -172,12 +189,18 @@ function busResult(bus: string, graph: BusGraph, u: number | undefined, total: S
 export function rollUp(site: Site, caseName: string): CaseBalance {
   const found = resolveCase(site.settings.cases, caseName);
   if (found === undefined) {
-    throw new SiteStructureError([error({}, `unknown case "${caseName}"; the site's cases are ${site.settings.cases.join(', ')}`)]);
+    throw new SiteStructureError([
+      error({}, `unknown case "${caseName}"; the site's cases are ${site.settings.cases.join(', ')}`),
+    ]);
   }
   const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
   const structural = graph.problems.filter((p) => p.severity === 'error');
   if (structural.length > 0 || graph.root === undefined) {
-    throw new SiteStructureError(structural.length > 0 ? structural : [error({}, 'the site has no bus fed by nothing (no point of connection)')]);
+    throw new SiteStructureError(
+      structural.length > 0
+        ? structural
+        : [error({}, 'the site has no bus fed by nothing (no point of connection)')],
+    );
   }
   const hz = site.settings.hz;
   const voltages = busVoltages(site.equipment).voltages;

@@ -29,13 +29,24 @@ export function busShortCircuit(site: Site, graph: BusGraph): Map<string, BusSho
       const s = feeder.values.s_kva;
       const uk = feeder.values.uk_pct;
       if (s === undefined || uk === undefined) continue;
-      const r = runCall({ fn: 'SC.MVA.XFMR', args: [s * n, uk, up?.ssc_mva], columns: ['s_kva', 'uk_pct', undefined] });
-      if (r.ok) out.set(bus, { ssc_mva: r.value, infiniteSupplyAssumed: up === undefined || up.infiniteSupplyAssumed });
+      const r = runCall({
+        fn: 'SC.MVA.XFMR',
+        args: [s * n, uk, up?.ssc_mva],
+        columns: ['s_kva', 'uk_pct', undefined],
+      });
+      if (r.ok)
+        out.set(bus, {
+          ssc_mva: r.value,
+          infiniteSupplyAssumed: up === undefined || up.infiniteSupplyAssumed,
+        });
     } else if (up !== undefined) {
       const { l_mh_km: l, len_km: len, u_kv: u } = feeder.values;
       if (l === undefined || len === undefined || u === undefined) continue;
       const xOhm = (2 * Math.PI * hz * l * 1e-3 * len) / n;
-      out.set(bus, { ssc_mva: xOhm === 0 ? up.ssc_mva : 1 / (1 / up.ssc_mva + xOhm / (u * u)), infiniteSupplyAssumed: up.infiniteSupplyAssumed });
+      out.set(bus, {
+        ssc_mva: xOhm === 0 ? up.ssc_mva : 1 / (1 / up.ssc_mva + xOhm / (u * u)),
+        infiniteSupplyAssumed: up.infiniteSupplyAssumed,
+      });
     }
   }
   return out;

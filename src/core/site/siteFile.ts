@@ -8,7 +8,13 @@
 // reads the same in the file, in a CSV and in the workbook. Rows are read through
 // parseEquipmentTable, so numbers, kinds and unknown keys get the same messages; "row N" in a
 // message is the N-th equipment row of the file.
-import { NUMERIC_COLUMNS, type EquipmentRow, type Requirement, type Site, type SiteSettings } from './model.ts';
+import {
+  NUMERIC_COLUMNS,
+  type EquipmentRow,
+  type Requirement,
+  type Site,
+  type SiteSettings,
+} from './model.ts';
 import { CASE_PREFIX, parseEquipmentTable } from './parse.ts';
 import { error, type Problem } from './problems.ts';
 import { jsonErrorOffset, lineAndCharacter } from './jsonWhere.ts';
@@ -17,7 +23,8 @@ export const SITE_FORMAT = 'kvar-ledger-site';
 export const SITE_VERSION = 1;
 
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
-const isObject = (x: unknown): x is Record<string, Json> => typeof x === 'object' && x !== null && !Array.isArray(x);
+const isObject = (x: unknown): x is Record<string, Json> =>
+  typeof x === 'object' && x !== null && !Array.isArray(x);
 
 /** Where a JSON syntax error is, as " at line L, character C". */
 function syntaxWhere(text: string): string {
@@ -31,13 +38,18 @@ function readRequirement(r: unknown, problems: Problem[]): Requirement {
     problems.push(error({ column: 'settings.requirement' }, `settings.requirement ${what}`));
     return fallback;
   };
-  if (!isObject(r)) return bad('must be {"kind":"cosphi","target":0.95} or {"kind":"tanphi","lagMax":0.4,"leadMax":0.2}');
+  if (!isObject(r))
+    return bad('must be {"kind":"cosphi","target":0.95} or {"kind":"tanphi","lagMax":0.4,"leadMax":0.2}');
   if (r.kind === 'cosphi') {
-    return typeof r.target === 'number' ? { kind: 'cosphi', target: r.target } : bad(`target must be a number in (0, 1]; got ${JSON.stringify(r.target ?? null)}`);
+    return typeof r.target === 'number'
+      ? { kind: 'cosphi', target: r.target }
+      : bad(`target must be a number in (0, 1]; got ${JSON.stringify(r.target ?? null)}`);
   }
   if (r.kind === 'tanphi') {
     if (typeof r.lagMax !== 'number' || typeof r.leadMax !== 'number') {
-      return bad(`lagMax and leadMax must be numbers ≥ 0; got ${JSON.stringify(r.lagMax ?? null)} and ${JSON.stringify(r.leadMax ?? null)}`);
+      return bad(
+        `lagMax and leadMax must be numbers ≥ 0; got ${JSON.stringify(r.lagMax ?? null)} and ${JSON.stringify(r.leadMax ?? null)}`,
+      );
     }
     return { kind: 'tanphi', lagMax: r.lagMax, leadMax: r.leadMax };
   }
@@ -45,28 +57,53 @@ function readRequirement(r: unknown, problems: Problem[]): Requirement {
 }
 
 function readSettings(s: unknown, problems: Problem[]): SiteSettings {
-  const at = (key: string, what: string) => problems.push(error({ column: `settings.${key}` }, `settings.${key} ${what}`));
+  const at = (key: string, what: string) =>
+    problems.push(error({ column: `settings.${key}` }, `settings.${key} ${what}`));
   if (!isObject(s)) {
-    problems.push(error({ column: 'settings' }, 'settings must be an object with name, hz, cases and requirement'));
-    return { name: 'Untitled site', hz: 50, cases: ['normal'], requirement: { kind: 'cosphi', target: 0.95 } };
+    problems.push(
+      error({ column: 'settings' }, 'settings must be an object with name, hz, cases and requirement'),
+    );
+    return {
+      name: 'Untitled site',
+      hz: 50,
+      cases: ['normal'],
+      requirement: { kind: 'cosphi', target: 0.95 },
+    };
   }
-  const name = typeof s.name === 'string' ? s.name : (at('name', `must be text; got ${JSON.stringify(s.name ?? null)}`), 'Untitled site');
+  const name =
+    typeof s.name === 'string'
+      ? s.name
+      : (at('name', `must be text; got ${JSON.stringify(s.name ?? null)}`), 'Untitled site');
   let hz: 50 | 60 = 50;
   if (s.hz === 50 || s.hz === 60) hz = s.hz;
   else at('hz', `must be 50 or 60; got ${JSON.stringify(s.hz ?? null)}`);
   let cases: string[] = ['normal'];
-  if (Array.isArray(s.cases) && s.cases.length > 0 && s.cases.every((c) => typeof c === 'string' && c.trim() !== '')) {
+  if (
+    Array.isArray(s.cases) &&
+    s.cases.length > 0 &&
+    s.cases.every((c) => typeof c === 'string' && c.trim() !== '')
+  ) {
     cases = (s.cases as string[]).map((c) => c.trim());
     const dup = cases.find((c, i) => cases.indexOf(c) !== i);
     if (dup !== undefined) at('cases', `lists "${dup}" twice; case names must be unique`);
-  } else at('cases', `must be a list of case names, the first being the default case; got ${JSON.stringify(s.cases ?? null)}`);
-  const out: { -readonly [K in keyof SiteSettings]: SiteSettings[K] } = { name, hz, cases, requirement: readRequirement(s.requirement, problems) };
+  } else
+    at(
+      'cases',
+      `must be a list of case names, the first being the default case; got ${JSON.stringify(s.cases ?? null)}`,
+    );
+  const out: { -readonly [K in keyof SiteSettings]: SiteSettings[K] } = {
+    name,
+    hz,
+    cases,
+    requirement: readRequirement(s.requirement, problems),
+  };
   if (s.sscMva !== undefined && s.sscMva !== null) {
     if (typeof s.sscMva === 'number' && s.sscMva > 0) out.sscMva = s.sscMva;
     else at('sscMva', `must be a number > 0 (MVA); got ${JSON.stringify(s.sscMva)}`);
   }
   if (s.notes !== undefined) {
-    if (Array.isArray(s.notes) && s.notes.every((n) => typeof n === 'string')) out.notes = s.notes as string[];
+    if (Array.isArray(s.notes) && s.notes.every((n) => typeof n === 'string'))
+      out.notes = s.notes as string[];
     else at('notes', 'must be a list of text lines');
   }
   return out;
@@ -78,7 +115,12 @@ function equipmentTable(items: readonly Json[], problems: Problem[]): string[][]
   const header: string[] = ['tag', 'bus', 'kind'];
   items.forEach((it, i) => {
     if (!isObject(it)) {
-      problems.push(error({ row: i + 1 }, `an equipment row must be an object like {"tag":"M1","bus":"LV1","kind":"motor",...}; got ${JSON.stringify(it)}`));
+      problems.push(
+        error(
+          { row: i + 1 },
+          `an equipment row must be an object like {"tag":"M1","bus":"LV1","kind":"motor",...}; got ${JSON.stringify(it)}`,
+        ),
+      );
       return;
     }
     for (const k of Object.keys(it)) if (!header.includes(k)) header.push(k);
@@ -97,12 +139,25 @@ function equipmentTable(items: readonly Json[], problems: Problem[]): string[][]
 
 export function readSiteFile(text: string): { site: Site; problems: Problem[] } {
   const problems: Problem[] = [];
-  const empty: Site = { settings: { name: 'Untitled site', hz: 50, cases: ['normal'], requirement: { kind: 'cosphi', target: 0.95 } }, equipment: [] };
+  const empty: Site = {
+    settings: {
+      name: 'Untitled site',
+      hz: 50,
+      cases: ['normal'],
+      requirement: { kind: 'cosphi', target: 0.95 },
+    },
+    equipment: [],
+  };
   let doc: unknown;
   try {
     doc = JSON.parse(text.startsWith('\uFEFF') ? text.slice(1) : text);
   } catch (e) {
-    problems.push(error({}, `the site file is not valid JSON${syntaxWhere(text.startsWith('\uFEFF') ? text.slice(1) : text)}: ${e instanceof Error ? e.message : String(e)}`));
+    problems.push(
+      error(
+        {},
+        `the site file is not valid JSON${syntaxWhere(text.startsWith('\uFEFF') ? text.slice(1) : text)}: ${e instanceof Error ? e.message : String(e)}`,
+      ),
+    );
     return { site: empty, problems };
   }
   if (!isObject(doc) || doc.format !== SITE_FORMAT) {
@@ -110,7 +165,12 @@ export function readSiteFile(text: string): { site: Site; problems: Problem[] } 
     return { site: empty, problems };
   }
   if (doc.version !== SITE_VERSION) {
-    problems.push(error({}, `site file version ${JSON.stringify(doc.version ?? null)} is not supported; this program reads version ${SITE_VERSION}`));
+    problems.push(
+      error(
+        {},
+        `site file version ${JSON.stringify(doc.version ?? null)} is not supported; this program reads version ${SITE_VERSION}`,
+      ),
+    );
     return { site: empty, problems };
   }
   const settings = readSettings(doc.settings, problems);
@@ -120,9 +180,17 @@ export function readSiteFile(text: string): { site: Site; problems: Problem[] } 
   }
   if (doc.equipment.length === 0) return { site: { settings, equipment: [] }, problems };
   const table = equipmentTable(doc.equipment, problems);
-  const parsed = parseEquipmentTable(table, { headerRow: 0, defaultCase: settings.cases[0] as string, knownCases: settings.cases });
+  const parsed = parseEquipmentTable(table, {
+    headerRow: 0,
+    defaultCase: settings.cases[0] as string,
+    knownCases: settings.cases,
+  });
   // Row 0 is the synthetic header: its problems concern keys, not a row of the file.
-  problems.push(...parsed.problems.map((p) => (p.row === 0 ? { ...withoutRow(p), message: p.message.replace(/^row 0, /, '') } : p)));
+  problems.push(
+    ...parsed.problems.map((p) =>
+      p.row === 0 ? { ...withoutRow(p), message: p.message.replace(/^row 0, /, '') } : p,
+    ),
+  );
   return { site: { settings, equipment: parsed.equipment }, problems };
 }
 
@@ -152,16 +220,27 @@ function rowObject(row: EquipmentRow, cases: readonly string[]): Record<string, 
 
 export function writeSiteFile(site: Site): string {
   const s = site.settings;
-  const settings: Record<string, unknown> = { name: s.name, hz: s.hz, cases: s.cases, requirement: s.requirement };
+  const settings: Record<string, unknown> = {
+    name: s.name,
+    hz: s.hz,
+    cases: s.cases,
+    requirement: s.requirement,
+  };
   if (s.sscMva !== undefined) settings.sscMva = s.sscMva;
   if (s.notes !== undefined) settings.notes = s.notes;
   // One setting per line; notes one per line; everything else compact.
-  const settingsText = '{\n' + Object.entries(settings).map(([k, v]) => {
-    const value = k === 'notes' && Array.isArray(v) && v.length > 0
-      ? '[\n' + v.map((n) => '      ' + JSON.stringify(n)).join(',\n') + '\n    ]'
-      : JSON.stringify(v);
-    return `    ${JSON.stringify(k)}: ${value}`;
-  }).join(',\n') + '\n  }';
+  const settingsText =
+    '{\n' +
+    Object.entries(settings)
+      .map(([k, v]) => {
+        const value =
+          k === 'notes' && Array.isArray(v) && v.length > 0
+            ? '[\n' + v.map((n) => '      ' + JSON.stringify(n)).join(',\n') + '\n    ]'
+            : JSON.stringify(v);
+        return `    ${JSON.stringify(k)}: ${value}`;
+      })
+      .join(',\n') +
+    '\n  }';
   const rows = site.equipment.map((r) => '    ' + JSON.stringify(rowObject(r, s.cases)));
   return `{\n  "format": "${SITE_FORMAT}",\n  "version": ${SITE_VERSION},\n  "settings": ${settingsText},\n  "equipment": [\n${rows.join(',\n')}\n  ]\n}\n`;
 }

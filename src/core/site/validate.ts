@@ -2,7 +2,15 @@
 // column, says what is wrong, and gives the allowed range and the value where there is one.
 // Bad rows are reported here and never dropped quietly: the roll-up refuses a site with errors.
 import { EQUIPMENT_KINDS, type EquipmentRow, type Site } from './model.ts';
-import { BRANCH_KINDS, REQUIRED_VALUES, runCall, shuntPlans, transformerPlans, linePlans, type CallPlan } from './calls.ts';
+import {
+  BRANCH_KINDS,
+  REQUIRED_VALUES,
+  runCall,
+  shuntPlans,
+  transformerPlans,
+  linePlans,
+  type CallPlan,
+} from './calls.ts';
 import { LOAD_RANGE, loadFactor } from './cases.ts';
 import { buildBusGraph } from './graph.ts';
 import { error, info, say, warning, type Problem } from './problems.ts';
@@ -21,7 +29,10 @@ export function validateSite(site: Site): Problem[] {
     problems.push(...validateRow(row, site));
     if (row.tag !== '') {
       const first = firstByTag.get(row.tag);
-      if (first) problems.push(error({ row: row.row, column: 'tag', tag: row.tag }, say.duplicateTag(row.tag, first.row)));
+      if (first)
+        problems.push(
+          error({ row: row.row, column: 'tag', tag: row.tag }, say.duplicateTag(row.tag, first.row)),
+        );
       else firstByTag.set(row.tag, row);
     }
   }
@@ -34,7 +45,8 @@ export function validateSite(site: Site): Problem[] {
 function validateSettings(site: Site): Problem[] {
   const out: Problem[] = [];
   const s = site.settings;
-  if (s.hz !== 50 && s.hz !== 60) out.push(error({ column: 'hz' }, `settings: frequency must be 50 or 60 Hz; got ${String(s.hz)}`));
+  if (s.hz !== 50 && s.hz !== 60)
+    out.push(error({ column: 'hz' }, `settings: frequency must be 50 or 60 Hz; got ${String(s.hz)}`));
   if (s.cases.length === 0) out.push(error({}, 'settings: at least one operating case is needed'));
   const seen = new Set<string>();
   for (const c of s.cases) {
@@ -47,10 +59,15 @@ function validateSettings(site: Site): Problem[] {
     out.push(error({}, `settings: target cos φ must be in (0, 1]; got ${formatNumber(r.target)}`));
   }
   if (r.kind === 'tanphi') {
-    if (!(r.lagMax >= 0)) out.push(error({}, `settings: lagging tan φ limit must be ≥ 0; got ${formatNumber(r.lagMax)}`));
-    if (!(r.leadMax >= 0)) out.push(error({}, `settings: leading tan φ limit must be ≥ 0; got ${formatNumber(r.leadMax)}`));
+    if (!(r.lagMax >= 0))
+      out.push(error({}, `settings: lagging tan φ limit must be ≥ 0; got ${formatNumber(r.lagMax)}`));
+    if (!(r.leadMax >= 0))
+      out.push(error({}, `settings: leading tan φ limit must be ≥ 0; got ${formatNumber(r.leadMax)}`));
   }
-  if (s.sscMva !== undefined && !(s.sscMva > 0)) out.push(error({}, `settings: supply short-circuit power must be > 0 MVA; got ${formatNumber(s.sscMva)}`));
+  if (s.sscMva !== undefined && !(s.sscMva > 0))
+    out.push(
+      error({}, `settings: supply short-circuit power must be > 0 MVA; got ${formatNumber(s.sscMva)}`),
+    );
   return out;
 }
 
@@ -64,8 +81,15 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
     return out;
   }
   const isBranch = BRANCH_KINDS.includes(row.kind);
-  if (isBranch && !row.to_bus) out.push(error(at('to_bus'), `to_bus is blank; a ${row.kind} must name the bus it feeds`));
-  if (!isBranch && row.to_bus) out.push(warning(at('to_bus'), `to_bus is used only by transformers and lines; ignored for a ${row.kind} (use kind line for a feeder)`));
+  if (isBranch && !row.to_bus)
+    out.push(error(at('to_bus'), `to_bus is blank; a ${row.kind} must name the bus it feeds`));
+  if (!isBranch && row.to_bus)
+    out.push(
+      warning(
+        at('to_bus'),
+        `to_bus is used only by transformers and lines; ignored for a ${row.kind} (use kind line for a feeder)`,
+      ),
+    );
   out.push(...validateQuantity(row, at));
 
   const missing = REQUIRED_VALUES[row.kind].filter((c) => row.values[c] === undefined);
@@ -75,7 +99,13 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
   const range = LOAD_RANGE[row.kind];
   if (!range) {
     const given = [row.values.load, ...Object.values(row.loads)].some((x) => x !== undefined && x !== 1);
-    if (given) out.push(info(at('load'), `load factors are not used for a ${row.kind}; its loading is the apparent power of bus ${row.to_bus ?? '?'}`));
+    if (given)
+      out.push(
+        info(
+          at('load'),
+          `load factors are not used for a ${row.kind}; its loading is the apparent power of bus ${row.to_bus ?? '?'}`,
+        ),
+      );
   }
   for (const plan of plansForValidation(row, site, out, at)) {
     const r = runCall(plan);
@@ -88,19 +118,33 @@ function validateQuantity(row: EquipmentRow, at: (c: string) => { row: number; c
   const out: Problem[] = [];
   const { qty, running } = row.values;
   const whole = (x: number) => Number.isInteger(x) && x >= 0;
-  if (qty !== undefined && !whole(qty)) out.push(error(at('qty'), say.outOfRange('qty', 'a whole number ≥ 0', qty)));
-  if (running !== undefined && !whole(running)) out.push(error(at('running'), say.outOfRange('running', 'a whole number ≥ 0', running)));
+  if (qty !== undefined && !whole(qty))
+    out.push(error(at('qty'), say.outOfRange('qty', 'a whole number ≥ 0', qty)));
+  if (running !== undefined && !whole(running))
+    out.push(error(at('running'), say.outOfRange('running', 'a whole number ≥ 0', running)));
   if (qty !== undefined && running !== undefined && running > qty) {
-    out.push(error(at('running'), `running (${formatNumber(running)}) must not exceed qty (${formatNumber(qty)})`));
+    out.push(
+      error(at('running'), `running (${formatNumber(running)}) must not exceed qty (${formatNumber(qty)})`),
+    );
   }
   if (BRANCH_KINDS.includes(row.kind) && (running ?? qty ?? 1) === 0) {
-    out.push(error(at(running !== undefined ? 'running' : 'qty'), `a ${row.kind} with no unit in service cannot feed bus ${row.to_bus ?? '?'}; running must be ≥ 1`));
+    out.push(
+      error(
+        at(running !== undefined ? 'running' : 'qty'),
+        `a ${row.kind} with no unit in service cannot feed bus ${row.to_bus ?? '?'}; running must be ≥ 1`,
+      ),
+    );
   }
   return out;
 }
 
 /** Calls to try for each case's load factor, after checking the load factor's own range. */
-function plansForValidation(row: EquipmentRow, site: Site, out: Problem[], at: (c: string) => { row: number; column: string }): CallPlan[] {
+function plansForValidation(
+  row: EquipmentRow,
+  site: Site,
+  out: Problem[],
+  at: (c: string) => { row: number; column: string },
+): CallPlan[] {
   const hz = site.settings.hz;
   if (row.kind === 'transformer') {
     const p = transformerPlans(row, row.values.s_kva ?? 0);
@@ -113,7 +157,12 @@ function plansForValidation(row: EquipmentRow, site: Site, out: Problem[], at: (
   for (const c of site.settings.cases) {
     const lf = loadFactor(row, c);
     if (!(lf.value >= range[0] && lf.value <= range[1])) {
-      out.push(error(at(lf.column), say.outOfRange(`load factor of a ${row.kind}`, `in [${range[0]}, ${range[1]}]`, lf.value)));
+      out.push(
+        error(
+          at(lf.column),
+          say.outOfRange(`load factor of a ${row.kind}`, `in [${range[0]}, ${range[1]}]`, lf.value),
+        ),
+      );
       continue;
     }
     if (tried.has(lf.value)) continue;
@@ -141,6 +190,13 @@ function dedupe(problems: readonly Problem[]): Problem[] {
  * validation's follow-on complaint about the same cell (e.g. "required and blank") is dropped.
  */
 export function mergeProblems(parsed: readonly Problem[], validated: readonly Problem[]): Problem[] {
-  const bad = new Set(parsed.filter((p) => p.severity === 'error' && p.row !== undefined).map((p) => `${p.row}|${p.column ?? ''}`));
-  return [...parsed, ...validated.filter((p) => p.row === undefined || !bad.has(`${p.row}|${p.column ?? ''}`))];
+  const bad = new Set(
+    parsed
+      .filter((p) => p.severity === 'error' && p.row !== undefined)
+      .map((p) => `${p.row}|${p.column ?? ''}`),
+  );
+  return [
+    ...parsed,
+    ...validated.filter((p) => p.row === undefined || !bad.has(`${p.row}|${p.column ?? ''}`)),
+  ];
 }

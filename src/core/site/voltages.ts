@@ -16,7 +16,9 @@ export interface BusVoltage {
   readonly row: number;
 }
 
-function candidates(equipment: readonly EquipmentRow[]): Map<string, Array<{ u: number; row: number; rank: number }>> {
+function candidates(
+  equipment: readonly EquipmentRow[],
+): Map<string, Array<{ u: number; row: number; rank: number }>> {
   const byBus = new Map<string, Array<{ u: number; row: number; rank: number }>>();
   const add = (bus: string | undefined, u: number | undefined, row: number, rank: number) => {
     if (!bus || u === undefined || !(u > 0)) return;
@@ -35,7 +37,10 @@ function candidates(equipment: readonly EquipmentRow[]): Map<string, Array<{ u: 
   return byBus;
 }
 
-export function busVoltages(equipment: readonly EquipmentRow[]): { voltages: Map<string, BusVoltage>; problems: Problem[] } {
+export function busVoltages(equipment: readonly EquipmentRow[]): {
+  voltages: Map<string, BusVoltage>;
+  problems: Problem[];
+} {
   const voltages = new Map<string, BusVoltage>();
   const problems: Problem[] = [];
   for (const [bus, list] of candidates(equipment)) {
@@ -44,8 +49,12 @@ export function busVoltages(equipment: readonly EquipmentRow[]): { voltages: Map
     voltages.set(bus, { u_kv: best.u, row: best.row });
     for (const c of list) {
       if (Math.abs(c.u - best.u) > VOLTAGE_MISMATCH * best.u) {
-        problems.push(warning({ row: c.row, column: 'u_kv', bus },
-          `u_kv ${c.u} kV differs from ${best.u} kV stated for bus ${bus} in row ${best.row} by more than ${VOLTAGE_MISMATCH * 100} %; check the voltage or the bus`));
+        problems.push(
+          warning(
+            { row: c.row, column: 'u_kv', bus },
+            `u_kv ${c.u} kV differs from ${best.u} kV stated for bus ${bus} in row ${best.row} by more than ${VOLTAGE_MISMATCH * 100} %; check the voltage or the bus`,
+          ),
+        );
       }
     }
   }

@@ -20,7 +20,12 @@ export interface DesignWarning extends Problem {
   readonly case?: string;
 }
 
-export function designWarning(severity: Severity, code: WarningCode, where: Where & { case?: string }, text: string): DesignWarning {
+export function designWarning(
+  severity: Severity,
+  code: WarningCode,
+  where: Where & { case?: string },
+  text: string,
+): DesignWarning {
   const base = problem(severity, where, where.case !== undefined ? `case ${where.case}: ${text}` : text);
   return { ...base, code, ...(where.case !== undefined ? { case: where.case } : {}) };
 }
@@ -29,5 +34,10 @@ const RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
 
 /** Most severe first, then by bus and row, so the list reads top-down. */
 export function sortWarnings(list: readonly DesignWarning[]): DesignWarning[] {
-  return [...list].sort((a, b) => RANK[a.severity] - RANK[b.severity] || (a.bus ?? '').localeCompare(b.bus ?? '') || (a.row ?? 0) - (b.row ?? 0));
+  return [...list].sort(
+    (a, b) =>
+      RANK[a.severity] - RANK[b.severity] ||
+      (a.bus ?? '').localeCompare(b.bus ?? '') ||
+      (a.row ?? 0) - (b.row ?? 0),
+  );
 }

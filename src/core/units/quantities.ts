@@ -22,7 +22,7 @@ export const POWER_TO_KW: Readonly<Record<string, number>> = { w: 1e-3, kw: 1, m
 export const REACTIVE_TO_KVAR: Readonly<Record<string, number>> = { var: 1e-3, kvar: 1, mvar: 1e3 };
 export const APPARENT_TO_KVA: Readonly<Record<string, number>> = { va: 1e-3, kva: 1, mva: 1e3 };
 export const VOLTAGE_TO_KV: Readonly<Record<string, number>> = { v: 1e-3, kv: 1 };
-export const CAPACITANCE_TO_UF: Readonly<Record<string, number>> = { pf: 1e-6, nf: 1e-3, uf: 1, 'µf': 1 };
+export const CAPACITANCE_TO_UF: Readonly<Record<string, number>> = { pf: 1e-6, nf: 1e-3, uf: 1, µf: 1 };
 
 /** A percentage given as a fraction (≤ 1) or as percent: returns percent. */
 export function asPercent(x: number, givenAsFraction: boolean): number {

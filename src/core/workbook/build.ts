@@ -9,7 +9,14 @@ import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { EQUIPMENT_SHEETS, SHEETS, type EquipmentSheetLayout } from './buildLayout.ts';
 import { planColumns } from './buildColumns.ts';
 import { buildEquipmentSheet, type EquipmentSheetPlan } from './buildEquipment.ts';
-import { buildBusesSheet, layoutCheckRow, planBusColumns, type BranchRef, type BusEntry, type Flavour } from './buildBuses.ts';
+import {
+  buildBusesSheet,
+  layoutCheckRow,
+  planBusColumns,
+  type BranchRef,
+  type BusEntry,
+  type Flavour,
+} from './buildBuses.ts';
 import { buildSettingsSheet } from './buildSettings.ts';
 import { buildCompensationSheet, planCompensationColumns, type BankChoice } from './buildCompensation.ts';
 import { proposeChoices } from './buildChoices.ts';
@@ -36,13 +43,20 @@ function busNames(graph: BusGraph): string[] {
   return [...graph.order, ...[...graph.firstRow.keys()].filter((b) => !graph.level.has(b))];
 }
 
-function busEntries(site: Site, graph: BusGraph, names: readonly string[], plans: readonly EquipmentSheetPlan[]): BusEntry[] {
+function busEntries(
+  site: Site,
+  graph: BusGraph,
+  names: readonly string[],
+  plans: readonly EquipmentSheetPlan[],
+): BusEntry[] {
   const where = new Map<EquipmentRow, { plan: EquipmentSheetPlan; row: number }>();
   for (const plan of plans) plan.rows.forEach((r, i) => where.set(r, { plan, row: i + 1 }));
   const voltages = busVoltages(site.equipment).voltages;
   // The row that stated the voltage: same row number, touching the bus, stating that voltage.
-  const source = (bus: string, v: { row: number; u_kv: number }) => site.equipment.find((r) =>
-    r.row === v.row && r.values.u_kv === v.u_kv && (r.bus === bus || r.to_bus === bus));
+  const source = (bus: string, v: { row: number; u_kv: number }) =>
+    site.equipment.find(
+      (r) => r.row === v.row && r.values.u_kv === v.u_kv && (r.bus === bus || r.to_bus === bus),
+    );
 
   return names.map((name) => {
     const feeder = graph.feeder.get(name);
@@ -65,10 +79,17 @@ function busEntries(site: Site, graph: BusGraph, names: readonly string[], plans
  * known bus last), and where each bus's block of rows sits. Each bus then sums its own block, so
  * an edit reaches only that bus and the buses above it.
  */
-function planSheet(layout: EquipmentSheetLayout, site: Site, order: ReadonlyMap<string, number>): EquipmentSheetPlan {
+function planSheet(
+  layout: EquipmentSheetLayout,
+  site: Site,
+  order: ReadonlyMap<string, number>,
+): EquipmentSheetPlan {
   const rank = (r: EquipmentRow) => order.get(r.bus) ?? order.size;
-  const rows = site.equipment.filter((r) => layout.kinds.includes(r.kind)).map((r, i) => ({ r, i }))
-    .sort((a, b) => rank(a.r) - rank(b.r) || a.i - b.i).map((x) => x.r);
+  const rows = site.equipment
+    .filter((r) => layout.kinds.includes(r.kind))
+    .map((r, i) => ({ r, i }))
+    .sort((a, b) => rank(a.r) - rank(b.r) || a.i - b.i)
+    .map((x) => x.r);
   const blocks = new Map<string, { first: number; last: number }>();
   rows.forEach((r, i) => {
     if (!order.has(r.bus)) return;
@@ -110,7 +131,10 @@ export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
   const feederOf = new Map<string, BranchRef>();
   const childrenOf = new Map<string, string[]>();
   for (const [bus, list] of branchesFrom) {
-    childrenOf.set(bus, list.map((b) => b.toBus));
+    childrenOf.set(
+      bus,
+      list.map((b) => b.toBus),
+    );
     for (const b of list) if (!feederOf.has(b.toBus)) feederOf.set(b.toBus, b);
   }
   const choices = new Map((opts.banks ?? proposeChoices(site)).map((c) => [c.bus, c]));
@@ -121,8 +145,15 @@ export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
     ...plans.map((p) => buildEquipmentSheet(p, ctx)),
     buildBusesSheet({ cases, buses, cols: busCols, plans, branchesFrom, flavour: opts.flavour }),
     buildCompensationSheet({
-      cases, buses, busCols, cols: planCompensationColumns(cases), flavour: opts.flavour, feederOf, childrenOf,
-      banksPlan: plans.find((p) => p.layout.id === 'banks'), choices,
+      cases,
+      buses,
+      busCols,
+      cols: planCompensationColumns(cases),
+      flavour: opts.flavour,
+      feederOf,
+      childrenOf,
+      banksPlan: plans.find((p) => p.layout.id === 'banks'),
+      choices,
     }),
   ];
   return { format: 'kvar-ledger-workbook', version: 1, title: site.settings.name, sheets };

@@ -10,7 +10,16 @@
 import type { CellContent, ColumnInfo, SheetDoc } from './document.ts';
 import { FORMATS, SHEETS } from './buildLayout.ts';
 import type { EquipmentSheetPlan } from './buildEquipment.ts';
-import { absCell, cell, cellOn, columnLetters, columnOn, rangeOn, sheetPrefix, textLiteral } from './buildRefs.ts';
+import {
+  absCell,
+  cell,
+  cellOn,
+  columnLetters,
+  columnOn,
+  rangeOn,
+  sheetPrefix,
+  textLiteral,
+} from './buildRefs.ts';
 
 export type Flavour = 'live' | 'portable';
 
@@ -46,8 +55,20 @@ export function planBusColumns(cases: readonly string[]): BusColumns {
     { header: 'U (kV)', format: '0.0##', width: 8, computed: true },
   ];
   const add = (header: string, format: string | undefined, width: number) =>
-    columns.push({ header, ...(format ? { format } : {}), width: Math.max(width, header.length + 1), computed: true }) - 1;
-  const p: number[] = [], q: number[] = [], qAbs: number[] = [], qDel: number[] = [], s: number[] = [], cos: number[] = [], tan: number[] = [], sense: number[] = [];
+    columns.push({
+      header,
+      ...(format ? { format } : {}),
+      width: Math.max(width, header.length + 1),
+      computed: true,
+    }) - 1;
+  const p: number[] = [],
+    q: number[] = [],
+    qAbs: number[] = [],
+    qDel: number[] = [],
+    s: number[] = [],
+    cos: number[] = [],
+    tan: number[] = [],
+    sense: number[] = [];
   for (const c of cases) {
     p.push(add(`P ${c} (kW)`, FORMATS.kw, 10));
     q.push(add(`Q ${c} (kvar)`, FORMATS.kvar, 10));
@@ -60,13 +81,33 @@ export function planBusColumns(cases: readonly string[]): BusColumns {
   }
   // Own items: P per case, then absorbed/delivered pairs (one spilled block in 'live'), then net Q.
   const pOwn = cases.map((c) => add(`P own items ${c} (kW)`, FORMATS.kw, 10));
-  const qAbsOwn: number[] = [], qDelOwn: number[] = [];
+  const qAbsOwn: number[] = [],
+    qDelOwn: number[] = [];
   for (const c of cases) {
     qAbsOwn.push(add(`Q absorbed own items ${c} (kvar)`, FORMATS.kvar, 10));
     qDelOwn.push(add(`Q delivered own items ${c} (kvar)`, FORMATS.kvar, 10));
   }
   const qOwn = cases.map((c) => add(`Q own items ${c} (kvar)`, FORMATS.kvar, 10));
-  return { bus: 0, level: 1, fedBy: 2, upstream: 3, u: 4, p, q, qAbs, qDel, s, cos, tan, sense, pOwn, qAbsOwn, qDelOwn, qOwn, columns };
+  return {
+    bus: 0,
+    level: 1,
+    fedBy: 2,
+    upstream: 3,
+    u: 4,
+    p,
+    q,
+    qAbs,
+    qDel,
+    s,
+    cos,
+    tan,
+    sense,
+    pOwn,
+    qAbsOwn,
+    qDelOwn,
+    qOwn,
+    columns,
+  };
 }
 
 export interface BusEntry {
@@ -110,7 +151,12 @@ export function criterion(name: string, nameCell: string): string | undefined {
 function shuntBlocks(plans: readonly EquipmentSheetPlan[], which: 'p' | 'q') {
   return plans
     .filter((pl) => pl.layout.role === 'shunt' && pl.rows.length > 0 && pl.cols[which] !== undefined)
-    .map((pl) => ({ sheet: pl.layout.sheet, blocks: pl.blocks, busCol: pl.cols.input.get('bus') as number, cols: pl.cols[which] as readonly number[] }));
+    .map((pl) => ({
+      sheet: pl.layout.sheet,
+      blocks: pl.blocks,
+      busCol: pl.cols.input.get('bus') as number,
+      cols: pl.cols[which] as readonly number[],
+    }));
 }
 
 /**
@@ -118,7 +164,13 @@ function shuntBlocks(plans: readonly EquipmentSheetPlan[], which: 'p' | 'q') {
  * (a row a colleague adds at the bottom in another program still counts); `positive` keeps
  * the positive values only. A bus whose name cannot be a criterion sums its own rows instead.
  */
-function portableSum(blocks: ReturnType<typeof shuntBlocks>, k: number, bus: string, nameCell: string, positive: boolean): string {
+function portableSum(
+  blocks: ReturnType<typeof shuntBlocks>,
+  k: number,
+  bus: string,
+  nameCell: string,
+  positive: boolean,
+): string {
   const crit = criterion(bus, nameCell);
   const parts = blocks.flatMap((bl) => {
     const col = bl.cols[k] as number;
@@ -152,8 +204,14 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
     out[cols.u] = b.uRef !== undefined ? `=${b.uRef}` : null;
     const here = (col: number) => cell(r, col);
     cases.forEach((_, k) => {
-      const P = here(cols.p[k] as number), Q = here(cols.q[k] as number), S = here(cols.s[k] as number);
-      const terms = { p: [here(cols.pOwn[k] as number)], abs: [here(cols.qAbsOwn[k] as number)], del: [here(cols.qDelOwn[k] as number)] };
+      const P = here(cols.p[k] as number),
+        Q = here(cols.q[k] as number),
+        S = here(cols.s[k] as number);
+      const terms = {
+        p: [here(cols.pOwn[k] as number)],
+        abs: [here(cols.qAbsOwn[k] as number)],
+        del: [here(cols.qDelOwn[k] as number)],
+      };
       for (const br of branchesFrom.get(b.name) ?? []) {
         const to = rowOf.get(br.toBus);
         if (to === undefined) continue;
@@ -184,18 +242,23 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
         out[cols.pOwn[k] as number] = `=${portableSum(pBlocks, k, b.name, nameCell, false)}`;
         out[cols.qAbsOwn[k] as number] = `=${portableSum(qBlocks, k, b.name, nameCell, true)}`;
         // Delivered = absorbed − net: the net SUMIF passes on an error value where SUMIFS would skip it.
-        out[cols.qDelOwn[k] as number] = `=${here(cols.qAbsOwn[k] as number)}-(${portableSum(qBlocks, k, b.name, nameCell, false)})`;
+        out[cols.qDelOwn[k] as number] =
+          `=${here(cols.qAbsOwn[k] as number)}-(${portableSum(qBlocks, k, b.name, nameCell, false)})`;
       }
     });
     cells.push(out);
   });
-  if (flavour === 'live') buses.forEach((b, i) => writeLiveSums(cells[i + 1] as CellContent[], cols, i + 1, b.name, plans));
+  if (flavour === 'live')
+    buses.forEach((b, i) => writeLiveSums(cells[i + 1] as CellContent[], cols, i + 1, b.name, plans));
   return {
     name: SHEETS.buses,
     cells,
     columns: cols.columns,
-    purpose: 'Every bus in every case: what it draws from upstream (own items, plus each bus it feeds and that transformer\'s or line\'s losses), S, cos φ, tan φ; the point of connection is the first row.' +
-      (flavour === 'live' ? ' Each bus sums the rows kept together for it on the equipment sheets: after adding, removing or moving items between buses, rebuild the workbook (the Site sheet counts the rows added since).' : ''),
+    purpose:
+      "Every bus in every case: what it draws from upstream (own items, plus each bus it feeds and that transformer's or line's losses), S, cos φ, tan φ; the point of connection is the first row." +
+      (flavour === 'live'
+        ? ' Each bus sums the rows kept together for it on the equipment sheets: after adding, removing or moving items between buses, rebuild the workbook (the Site sheet counts the rows added since).'
+        : ''),
   };
 }
 
@@ -205,15 +268,24 @@ export function buildBusesSheet(input: BusSheetInput): SheetDoc {
  * call per case, not one for all cases: an edit in one case then reaches only that case's
  * totals and what hangs on them (with banks on most buses, half the cells to revisit).
  */
-function writeLiveSums(row: CellContent[], cols: BusColumns, r: number, bus: string, plans: readonly EquipmentSheetPlan[]): void {
-  const pairs = (which: 'p' | 'q', k: number) => plans.flatMap((pl) => {
-    const block = pl.blocks.get(bus);
-    const vc = pl.cols[which];
-    if (pl.layout.role !== 'shunt' || !block || !vc) return [];
-    const busCol = pl.cols.input.get('bus') as number;
-    const c = vc[k] as number;
-    return [`${rangeOn(pl.layout.sheet, block.first, busCol, block.last, busCol)},${rangeOn(pl.layout.sheet, block.first, c, block.last, c)}`];
-  });
+function writeLiveSums(
+  row: CellContent[],
+  cols: BusColumns,
+  r: number,
+  bus: string,
+  plans: readonly EquipmentSheetPlan[],
+): void {
+  const pairs = (which: 'p' | 'q', k: number) =>
+    plans.flatMap((pl) => {
+      const block = pl.blocks.get(bus);
+      const vc = pl.cols[which];
+      if (pl.layout.role !== 'shunt' || !block || !vc) return [];
+      const busCol = pl.cols.input.get('bus') as number;
+      const c = vc[k] as number;
+      return [
+        `${rangeOn(pl.layout.sheet, block.first, busCol, block.last, busCol)},${rangeOn(pl.layout.sheet, block.first, c, block.last, c)}`,
+      ];
+    });
   const me = absCell(r, cols.bus);
   cols.pOwn.forEach((col, k) => {
     const p = pairs('p', k);
@@ -233,8 +305,14 @@ export const LAYOUT_CHECK_LABEL = 'Rows added or removed since this layout was b
 export function layoutCheckRow(plans: readonly EquipmentSheetPlan[]): CellContent[] {
   const shunt = plans.filter((pl) => pl.layout.role === 'shunt');
   const tagCol = (pl: EquipmentSheetPlan) => columnLetters(pl.cols.input.get('tag') as number);
-  const counts = shunt.map((pl) => `COUNTA(${sheetPrefix(pl.layout.sheet)}$${tagCol(pl)}:$${tagCol(pl)})`).join('+');
+  const counts = shunt
+    .map((pl) => `COUNTA(${sheetPrefix(pl.layout.sheet)}$${tagCol(pl)}:$${tagCol(pl)})`)
+    .join('+');
   const built = shunt.reduce((n, pl) => n + pl.rows.filter((r) => r.tag !== '').length + 1, 0);
-  return [LAYOUT_CHECK_LABEL, `=${counts}-${built}`, null,
-    'Each bus sums the rows kept together for it on the equipment sheets: when this is not 0, rebuild the workbook so new or moved items count.'];
+  return [
+    LAYOUT_CHECK_LABEL,
+    `=${counts}-${built}`,
+    null,
+    'Each bus sums the rows kept together for it on the equipment sheets: when this is not 0, rebuild the workbook so new or moved items count.',
+  ];
 }

@@ -32,7 +32,10 @@ export interface SheetColumns {
 }
 
 /** Values of a row that the layout has no column for, in interchange terms. */
-export function otherValues(layout: EquipmentSheetLayout, row: EquipmentRow): Array<[string, string | number]> {
+export function otherValues(
+  layout: EquipmentSheetLayout,
+  row: EquipmentRow,
+): Array<[string, string | number]> {
   const keys = new Set<string>(layout.inputs.map((c) => c.key));
   const out: Array<[string, string | number]> = [];
   if (row.to_bus !== undefined && !keys.has('to_bus')) out.push(['to_bus', row.to_bus]);
@@ -45,31 +48,60 @@ export function otherValues(layout: EquipmentSheetLayout, row: EquipmentRow): Ar
   return out;
 }
 
-export function planColumns(layout: EquipmentSheetLayout, cases: readonly string[], rows: readonly EquipmentRow[]): SheetColumns {
+export function planColumns(
+  layout: EquipmentSheetLayout,
+  cases: readonly string[],
+  rows: readonly EquipmentRow[],
+): SheetColumns {
   const columns: ColumnInfo[] = [];
   const add = (info: ColumnInfo): number => columns.push(info) - 1;
   const perCase = (header: (c: string) => string, format: string, width: number) =>
-    cases.map((c) => add({ header: header(c), format, width: Math.max(width, header(c).length + 1), computed: true }));
+    cases.map((c) =>
+      add({ header: header(c), format, width: Math.max(width, header(c).length + 1), computed: true }),
+    );
 
   const input = new Map<TextColumn | NumericColumn, number>();
-  for (const c of layout.inputs) input.set(c.key, add({ header: c.header, width: c.width, ...(c.format ? { format: c.format } : {}) }));
+  for (const c of layout.inputs)
+    input.set(c.key, add({ header: c.header, width: c.width, ...(c.format ? { format: c.format } : {}) }));
   let loadDefault: number | undefined;
   let loadCase: number[] | undefined;
   if (layout.usesLoad) {
     loadDefault = add({ header: HEADERS.loadDefault, format: '0.00', width: 9 });
-    loadCase = cases.map((c) => add({ header: HEADERS.loadCase(c), format: '0.00', width: Math.max(9, HEADERS.loadCase(c).length + 1) }));
+    loadCase = cases.map((c) =>
+      add({
+        header: HEADERS.loadCase(c),
+        format: '0.00',
+        width: Math.max(9, HEADERS.loadCase(c).length + 1),
+      }),
+    );
   }
   const needsOther = rows.some((r) => otherValues(layout, r).length > 0);
   const other = needsOther ? add({ header: HEADERS.other, width: 24 }) : undefined;
   const inService = add({ header: HEADERS.inService, format: FORMATS.count, width: 9, computed: true });
 
-  const base = { input, inService, ...(loadDefault !== undefined ? { loadDefault } : {}), ...(loadCase ? { loadCase } : {}), ...(other !== undefined ? { other } : {}) };
+  const base = {
+    input,
+    inService,
+    ...(loadDefault !== undefined ? { loadDefault } : {}),
+    ...(loadCase ? { loadCase } : {}),
+    ...(other !== undefined ? { other } : {}),
+  };
   if (layout.role === 'shunt') {
     const loadUsed = perCase(HEADERS.loadUsed, '0.00', 9);
     const p = layout.hasP ? perCase(HEADERS.p, FORMATS.kw, 10) : undefined;
     const q = perCase(HEADERS.q, FORMATS.kvar, 10);
-    const plainCap = layout.id === 'banks' ? add({ header: HEADERS.plainCap, format: FORMATS.kvar, width: 12, computed: true }) : undefined;
-    return { ...base, loadUsed, ...(p ? { p } : {}), q, ...(plainCap !== undefined ? { plainCap } : {}), columns };
+    const plainCap =
+      layout.id === 'banks'
+        ? add({ header: HEADERS.plainCap, format: FORMATS.kvar, width: 12, computed: true })
+        : undefined;
+    return {
+      ...base,
+      loadUsed,
+      ...(p ? { p } : {}),
+      q,
+      ...(plainCap !== undefined ? { plainCap } : {}),
+      columns,
+    };
   }
   if (layout.id === 'transformers') {
     const sCarried = perCase(HEADERS.sLoad, FORMATS.kva, 11);

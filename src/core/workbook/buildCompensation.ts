@@ -16,9 +16,23 @@ import type { EquipmentSheetPlan } from './buildEquipment.ts';
 import { criterion, type BranchRef, type BusColumns, type BusEntry, type Flavour } from './buildBuses.ts';
 import { REQUIREMENT_TEXT, settingRef } from './buildSettings.ts';
 import { absCell, cell, cellOn, columnOn, rangeOn } from './buildRefs.ts';
-import { BANK_INPUTS, SUMMARY_LABELS, hasBankChoice, hasReactorChoice, type BankChoice, type CompensationColumns } from './buildCompensationColumns.ts';
+import {
+  BANK_INPUTS,
+  SUMMARY_LABELS,
+  hasBankChoice,
+  hasReactorChoice,
+  type BankChoice,
+  type CompensationColumns,
+} from './buildCompensationColumns.ts';
 
-export { BANK_INPUTS, NOTE_HEADER, SUMMARY_LABELS, planCompensationColumns, type BankChoice, type CompensationColumns } from './buildCompensationColumns.ts';
+export {
+  BANK_INPUTS,
+  NOTE_HEADER,
+  SUMMARY_LABELS,
+  planCompensationColumns,
+  type BankChoice,
+  type CompensationColumns,
+} from './buildCompensationColumns.ts';
 
 /** Tolerance for "within the requirement", kvar (as the design's). */
 const TOL_KVAR = 0.5;
@@ -58,7 +72,8 @@ function sscFormula(entry: BusEntry, feeder: BranchRef | undefined, up: string |
   if (!feeder) return entry.level === 0 ? `=IF(ISBLANK(${settingRef('ssc')}),"",${settingRef('ssc')})` : null;
   if (up === undefined) return null;
   const sheet = feeder.plan.layout.sheet;
-  const at = (key: 's_kva' | 'uk_pct' | 'l_mh_km' | 'len_km' | 'u_kv') => cellOn(sheet, feeder.row, feeder.plan.cols.input.get(key) as number, true);
+  const at = (key: 's_kva' | 'uk_pct' | 'l_mh_km' | 'len_km' | 'u_kv') =>
+    cellOn(sheet, feeder.row, feeder.plan.cols.input.get(key) as number, true);
   const n = cellOn(sheet, feeder.row, feeder.plan.cols.inService, true);
   if (feeder.plan.layout.id === 'transformers') {
     // Units in parallel: n·S at the same uk. An unknown supply upstream counts as infinite.
@@ -77,7 +92,12 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
   const lead = settingRef('leadInUse');
   const reqKind = settingRef('requirement');
   // Below the buses, after one blank row: how the site need is shared among the banks.
-  const summaryRows = { count: buses.length + 2, weight: buses.length + 3, perKvar: buses.length + 4, even: buses.length + 5 };
+  const summaryRows = {
+    count: buses.length + 2,
+    weight: buses.length + 3,
+    perKvar: buses.length + 4,
+    even: buses.length + 5,
+  };
   const switching = busesWithSwitching(buses, childrenOf, choices);
   const n = buses.length;
   buses.forEach((b, i) => {
@@ -97,20 +117,32 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
     const isRoot = b.level === 0;
     for (const k of BANK_INPUTS) out[cols.input[k.key]] = choice?.[k.key] ?? null;
     out[cols.note] = choice?.note ?? null;
-    const [fixed, step, steps, p, ur, reactor] = [inp('fixed_kvar'), inp('step_kvar'), inp('steps'), `N(${inp('p_pct')})`, inp('u_rated_kv'), inp('reactor_kvar')];
-    const total = here(cols.total), ssc = here(cols.ssc), u = here(cols.u);
+    const [fixed, step, steps, p, ur, reactor] = [
+      inp('fixed_kvar'),
+      inp('step_kvar'),
+      inp('steps'),
+      `N(${inp('p_pct')})`,
+      inp('u_rated_kv'),
+      inp('reactor_kvar'),
+    ];
+    const total = here(cols.total),
+      ssc = here(cols.ssc),
+      u = here(cols.u);
     out[cols.total] = `=${fixed}+${step}*${steps}`;
     out[cols.tune] = `=IF(${p}>0,CAPBANK.TUNE(${p}),"")`;
     out[cols.uCap] = `=IF(${total}=0,"",CAPBANK.UCAP(${u},${p}))`;
-    out[cols.stepNameplate] = `=IF(OR(${step}=0,ISBLANK(${ur})),"",-${step}/KVAR.CAPBANK(1,${ur},${u},${p},${settingRef('hz')},${settingRef('hz')}))`;
+    out[cols.stepNameplate] =
+      `=IF(OR(${step}=0,ISBLANK(${ur})),"",-${step}/KVAR.CAPBANK(1,${ur},${u},${p},${settingRef('hz')},${settingRef('hz')}))`;
     out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(IF(${step}>0,${step},${fixed}),${ssc}))`;
     out[cols.vriseTotal] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total},${ssc}))`;
     if (hasBank) {
       const installed = here(cols.plainInstalled);
       out[cols.plainInstalled] = plainInstalled(b.name, cell(r, cols.bus), r, cols, flavour, banksPlan);
       const first = `IF(${fixed}>0,${fixed},${step})`;
-      out[cols.orderStep] = `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${first}+${installed},${p}))`;
-      out[cols.orderTotal] = `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${total}+${installed},${p}))`;
+      out[cols.orderStep] =
+        `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${first}+${installed},${p}))`;
+      out[cols.orderTotal] =
+        `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${total}+${installed},${p}))`;
       out[cols.check] = resonanceCheck(here(cols.orderStep), here(cols.orderTotal));
     }
     cases.forEach((_, k) => {
@@ -128,18 +160,26 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
         const ownQ = cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true);
         const sum = (row: number) => absCell(row, cols.needCap[k] as number);
         const share = `(${sum(summaryRows.perKvar)}*MAX(0,${ownQ})+${sum(summaryRows.even)})`;
-        out[cols.stepsIn[k] as number] = `=IF(OR(${step}=0,${steps}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
+        out[cols.stepsIn[k] as number] =
+          `=IF(OR(${step}=0,${steps}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
         out[cols.capOut[k] as number] = `=${fixed}+${step}*${at(cols.stepsIn)}`;
       }
-      if (hasReactor) out[cols.reactorIn[k] as number] = `=IF(AND(${reactor}>0,${root(cols.needInd)}>${TOL_KVAR}),${reactor},0)`;
+      if (hasReactor)
+        out[cols.reactorIn[k] as number] =
+          `=IF(AND(${reactor}>0,${root(cols.needInd)}>${TOL_KVAR}),${reactor},0)`;
       if (switching.has(b.name) || isRoot) {
         // Q after: this bus's banks, and what the banks below change on the buses they sit on.
-        const below = (childrenOf.get(b.name) ?? []).filter((c) => switching.has(c)).map((c) => {
-          const cr = rowOf.get(c) as number;
-          return `-(${cellOn(SHEETS.buses, cr, busCols.q[k] as number, true)}-${cell(cr, cols.qAfter[k] as number)})`;
-        }).join('');
-        out[cols.qAfter[k] as number] = `=${Q}${hasBank ? `-${at(cols.capOut)}` : ''}${hasReactor ? `+${at(cols.reactorIn)}` : ''}${below}`;
-        out[cols.cosAfter[k] as number] = `=IF(AND(${P}=0,${at(cols.qAfter)}=0),"",COSPHI(${P},${at(cols.qAfter)}))`;
+        const below = (childrenOf.get(b.name) ?? [])
+          .filter((c) => switching.has(c))
+          .map((c) => {
+            const cr = rowOf.get(c) as number;
+            return `-(${cellOn(SHEETS.buses, cr, busCols.q[k] as number, true)}-${cell(cr, cols.qAfter[k] as number)})`;
+          })
+          .join('');
+        out[cols.qAfter[k] as number] =
+          `=${Q}${hasBank ? `-${at(cols.capOut)}` : ''}${hasReactor ? `+${at(cols.reactorIn)}` : ''}${below}`;
+        out[cols.cosAfter[k] as number] =
+          `=IF(AND(${P}=0,${at(cols.qAfter)}=0),"",COSPHI(${P},${at(cols.qAfter)}))`;
       }
       if (isRoot) {
         // The point of connection: still leading beyond the limit with every capacitor in?
@@ -156,13 +196,18 @@ export function buildCompensationSheet(input: CompensationSheetInput): SheetDoc 
     name: SHEETS.compensation,
     cells,
     columns: cols.columns,
-    purpose: 'Per bus: the bank chosen there (inputs) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise; per case the kvar needed there, the steps the bank switches to cover its share of the site\'s need, Q and cos φ after; at the point of connection whether the requirement is met. ' +
+    purpose:
+      "Per bus: the bank chosen there (inputs) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise; per case the kvar needed there, the steps the bank switches to cover its share of the site's need, Q and cos φ after; at the point of connection whether the requirement is met. " +
       'Transformer losses are taken before compensation. Switching formulas are written for buses that have a bank or reactor: after entering one on another bus, rebuild the workbook.',
   };
 }
 
 /** Buses with a bank or reactor on them or on a bus below them. */
-function busesWithSwitching(buses: readonly BusEntry[], childrenOf: ReadonlyMap<string, readonly string[]>, choices: ReadonlyMap<string, BankChoice>): Set<string> {
+function busesWithSwitching(
+  buses: readonly BusEntry[],
+  childrenOf: ReadonlyMap<string, readonly string[]>,
+  choices: ReadonlyMap<string, BankChoice>,
+): Set<string> {
   const out = new Set<string>();
   const visit = (bus: string, seen: Set<string>): boolean => {
     if (seen.has(bus)) return out.has(bus);
@@ -182,7 +227,14 @@ function busesWithSwitching(buses: readonly BusEntry[], childrenOf: ReadonlyMap<
  * Plain (not detuned) capacitors already on a bank's bus, at full output: with the bank they
  * set the resonance. 'live': BUS.SUMS over the bus's own rows; 'portable': SUMIF.
  */
-function plainInstalled(bus: string, busCell: string, r: number, cols: CompensationColumns, flavour: Flavour, plan: EquipmentSheetPlan | undefined): string {
+function plainInstalled(
+  bus: string,
+  busCell: string,
+  r: number,
+  cols: CompensationColumns,
+  flavour: Flavour,
+  plan: EquipmentSheetPlan | undefined,
+): string {
   const col = plan?.cols.plainCap;
   const own = plan?.blocks.get(bus);
   if (!plan || col === undefined || !own) return '=0';
@@ -191,7 +243,9 @@ function plainInstalled(bus: string, busCell: string, r: number, cols: Compensat
   if (flavour === 'live') return `=BUS.SUMS(${absCell(r, cols.bus)},${block(busCol)},${block(col)})`;
   const crit = criterion(bus, `$${busCell}`);
   // A name a criterion cannot hold: this bus's own rows.
-  return crit === undefined ? `=SUM(${block(col)})` : `=SUMIF(${columnOn(plan.layout.sheet, busCol)},${crit},${columnOn(plan.layout.sheet, col)})`;
+  return crit === undefined
+    ? `=SUM(${block(col)})`
+    : `=SUMIF(${columnOn(plan.layout.sheet, busCol)},${crit},${columnOn(plan.layout.sheet, col)})`;
 }
 
 /** Terms of about 40 characters each: 120 keep a formula far below the xlsx limit of 8,192. */
@@ -208,14 +262,19 @@ function summaryBlock(input: CompensationSheetInput): CellContent[][] {
   const weight = blank();
   weight[cols.bus] = SUMMARY_LABELS.weight;
   // Named bank by bank (not a SUMIFS over every bus), so an edit on a bus without a bank does not reach it.
-  const withBank = buses.map((b, i) => ({ b, r: i + 1 })).filter(({ b }) => hasBankChoice(choices.get(b.name)));
+  const withBank = buses
+    .map((b, i) => ({ b, r: i + 1 }))
+    .filter(({ b }) => hasBankChoice(choices.get(b.name)));
   // A formula may hold at most 8,192 characters in xlsx: many banks are summed in parts, one row
   // per part below the summary, and the weight row adds the parts.
   const parts: CellContent[][] = [];
   const firstPartRow = n + 6;
   cases.forEach((_, k) => {
     const c = cols.needCap[k] as number;
-    const terms = withBank.map(({ r }) => `IF(${absCell(r, cols.total)}>0,MAX(0,${cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true)}),0)`);
+    const terms = withBank.map(
+      ({ r }) =>
+        `IF(${absCell(r, cols.total)}>0,MAX(0,${cellOn(SHEETS.buses, r, busCols.qOwn[k] as number, true)}),0)`,
+    );
     if (terms.length <= TERMS_PER_FORMULA) {
       weight[c] = terms.length === 0 ? '=0' : `=${terms.join('+')}`;
       return;

@@ -18,7 +18,10 @@ export interface BankChoice {
 }
 
 export function hasBankChoice(choice: BankChoice | undefined): boolean {
-  return choice !== undefined && ((choice.fixed_kvar ?? 0) > 0 || ((choice.step_kvar ?? 0) > 0 && (choice.steps ?? 0) > 0));
+  return (
+    choice !== undefined &&
+    ((choice.fixed_kvar ?? 0) > 0 || ((choice.step_kvar ?? 0) > 0 && (choice.steps ?? 0) > 0))
+  );
 }
 
 export function hasReactorChoice(choice: BankChoice | undefined): boolean {
@@ -75,10 +78,17 @@ export interface CompensationColumns {
 export function planCompensationColumns(cases: readonly string[]): CompensationColumns {
   const columns: ColumnInfo[] = [{ header: 'Bus', width: 14 }];
   const add = (header: string, format: string | undefined, width: number, computed = true) =>
-    columns.push({ header, ...(format ? { format } : {}), width: Math.max(width, Math.min(header.length + 1, 16)), ...(computed ? { computed } : {}) }) - 1;
+    columns.push({
+      header,
+      ...(format ? { format } : {}),
+      width: Math.max(width, Math.min(header.length + 1, 16)),
+      ...(computed ? { computed } : {}),
+    }) - 1;
   const u = add('U (kV)', '0.0##', 8);
   const ssc = add('Short-circuit power (MVA)', '0.0', 10);
-  const input = Object.fromEntries(BANK_INPUTS.map((b) => [b.key, add(b.header, b.format, b.width, false)])) as CompensationColumns['input'];
+  const input = Object.fromEntries(
+    BANK_INPUTS.map((b) => [b.key, add(b.header, b.format, b.width, false)]),
+  ) as CompensationColumns['input'];
   const fixed = {
     total: add('Bank total (kvar)', FORMATS.kvar, 9),
     tune: add('Tuning order', '0.00', 8),
@@ -92,7 +102,16 @@ export function planCompensationColumns(cases: readonly string[]): CompensationC
     vriseTotal: add('Voltage rise, whole bank (%)', '0.00', 9),
     note: add(NOTE_HEADER, undefined, 40, false),
   };
-  const per = { needCap: [] as number[], stepsIn: [] as number[], capOut: [] as number[], reactorIn: [] as number[], qAfter: [] as number[], cosAfter: [] as number[], needInd: [] as number[], within: [] as number[] };
+  const per = {
+    needCap: [] as number[],
+    stepsIn: [] as number[],
+    capOut: [] as number[],
+    reactorIn: [] as number[],
+    qAfter: [] as number[],
+    cosAfter: [] as number[],
+    needInd: [] as number[],
+    within: [] as number[],
+  };
   for (const c of cases) {
     per.needCap.push(add(`Capacitive need ${c} (kvar)`, FORMATS.kvar, 10));
     per.stepsIn.push(add(`Steps in ${c}`, FORMATS.count, 7));

@@ -28,12 +28,18 @@ export interface EquipmentContext {
 
 function inputValue(row: EquipmentRow, key: TextColumn | NumericColumn): CellContent {
   switch (key) {
-    case 'tag': return row.tag;
-    case 'bus': return row.bus;
-    case 'kind': return row.kind;
-    case 'description': return row.description ?? null;
-    case 'to_bus': return row.to_bus ?? null;
-    default: return row.values[key] ?? null;
+    case 'tag':
+      return row.tag;
+    case 'bus':
+      return row.bus;
+    case 'kind':
+      return row.kind;
+    case 'description':
+      return row.description ?? null;
+    case 'to_bus':
+      return row.to_bus ?? null;
+    default:
+      return row.values[key] ?? null;
   }
 }
 
@@ -42,7 +48,12 @@ export function formatOther(pairs: ReadonlyArray<[string, string | number]>): st
 }
 
 /** Formulas of one shunt item in case k. */
-function shuntFormulas(row: EquipmentRow, at: (key: TextColumn | NumericColumn) => string, n: string, x: string): { p?: string; q: string } {
+function shuntFormulas(
+  row: EquipmentRow,
+  at: (key: TextColumn | NumericColumn) => string,
+  n: string,
+  x: string,
+): { p?: string; q: string } {
   const off = `OR(${n}=0,${x}=0)`;
   const hz = settingRef('hz');
   const guard = (body: string) => `=IF(${off},0,${body})`;
@@ -53,15 +64,25 @@ function shuntFormulas(row: EquipmentRow, at: (key: TextColumn | NumericColumn) 
         q: guard(`${n}*KVAR.MOTOR(${at('p_kw')},${at('eff')},${at('cos_phi')},${x},${at('i0_pct')})`),
       };
     case 'load':
-      return { p: guard(`${n}*${at('p_kw')}*${x}`), q: guard(`${n}*KVAR.LOAD(${at('p_kw')}*${x},${at('cos_phi')})`) };
+      return {
+        p: guard(`${n}*${at('p_kw')}*${x}`),
+        q: guard(`${n}*KVAR.LOAD(${at('p_kw')}*${x},${at('cos_phi')})`),
+      };
     case 'generator':
       // Delivered active power counts negative; KVAR.GEN already gives delivered kvar as negative.
-      return { p: guard(`-${n}*${at('p_kw')}*${x}`), q: guard(`${n}*KVAR.GEN(${at('p_kw')}*${x},${at('cos_phi')})`) };
+      return {
+        p: guard(`-${n}*${at('p_kw')}*${x}`),
+        q: guard(`${n}*KVAR.GEN(${at('p_kw')}*${x},${at('cos_phi')})`),
+      };
     case 'cable':
       return { q: guard(`${n}*KVAR.CABLE(${at('u_kv')},${at('c_uf_km')},${at('len_km')},${hz})`) };
     case 'capacitor':
       // Nameplate at the site frequency: rated and operating frequency are both the site's.
-      return { q: guard(`${n}*${x}*KVAR.CAPBANK(${at('q_kvar')},${at('u_rated_kv')},${at('u_kv')},${at('p_pct')},${hz},${hz})`) };
+      return {
+        q: guard(
+          `${n}*${x}*KVAR.CAPBANK(${at('q_kvar')},${at('u_rated_kv')},${at('u_kv')},${at('p_pct')},${hz},${hz})`,
+        ),
+      };
     case 'reactor':
       return { q: guard(`${n}*${x}*KVAR.REACTOR(${at('q_kvar')},${at('u_rated_kv')},${at('u_kv')})`) };
     default:
@@ -108,9 +129,10 @@ export function buildEquipmentSheet(plan: EquipmentSheetPlan, ctx: EquipmentCont
         // What a capacitor without a detuning reactor delivers with every unit in, whatever the
         // case: the capacitance the supply sees at harmonics (the Compensation sheet's resonance).
         const hz = settingRef('hz');
-        out[cols.plainCap] = row.kind === 'capacitor'
-          ? `=IF(N(${at('p_pct')})>0,0,-${n}*KVAR.CAPBANK(${at('q_kvar')},${at('u_rated_kv')},${at('u_kv')},${at('p_pct')},${hz},${hz}))`
-          : '=0';
+        out[cols.plainCap] =
+          row.kind === 'capacitor'
+            ? `=IF(N(${at('p_pct')})>0,0,-${n}*KVAR.CAPBANK(${at('q_kvar')},${at('u_rated_kv')},${at('u_kv')},${at('p_pct')},${hz},${hz}))`
+            : '=0';
       }
     } else {
       // At least one unit carries the bus it feeds, whatever `running` says.
@@ -122,8 +144,15 @@ export function buildEquipmentSheet(plan: EquipmentSheetPlan, ctx: EquipmentCont
   return { name: layout.sheet, cells, columns: cols.columns, purpose: layout.purpose };
 }
 
-function branchFormulas(row: EquipmentRow, out: CellContent[], r: number, cols: SheetColumns, ctx: EquipmentContext,
-  n: string, at: (key: TextColumn | NumericColumn) => string): void {
+function branchFormulas(
+  row: EquipmentRow,
+  out: CellContent[],
+  r: number,
+  cols: SheetColumns,
+  ctx: EquipmentContext,
+  n: string,
+  at: (key: TextColumn | NumericColumn) => string,
+): void {
   const hz = settingRef('hz');
   const qDel = cols.qDelivered;
   // Not a branch (it feeds no known bus): it carries nothing and is in no bus total.
@@ -138,7 +167,8 @@ function branchFormulas(row: EquipmentRow, out: CellContent[], r: number, cols: 
     const sUnit = `${cell(r, sCol)}/${n}`;
     if (row.kind === 'transformer') {
       out[(cols.loading as readonly number[])[k] as number] = `=100*${sUnit}/${at('s_kva')}`;
-      out[(cols.pLoss as readonly number[])[k] as number] = `=${n}*KW.XFMR.LOSS(${at('s_kva')},${at('p0_kw')},${at('pk_kw')},${sUnit})`;
+      out[(cols.pLoss as readonly number[])[k] as number] =
+        `=${n}*KW.XFMR.LOSS(${at('s_kva')},${at('p0_kw')},${at('pk_kw')},${sUnit})`;
       out[(cols.qLoss as readonly number[])[k] as number] =
         `=${n}*(KVAR.XFMR.MAG(${at('s_kva')},${at('i0_pct')},${at('p0_kw')})+KVAR.XFMR.LEAK(${at('s_kva')},${at('uk_pct')},${sUnit},${at('pk_kw')}))`;
     } else if (qDel !== undefined) {

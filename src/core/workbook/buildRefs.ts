@@ -35,7 +35,13 @@ export function cellOn(sheet: string | undefined, row: number, col: number, abso
 }
 
 /** A fixed block: Motors!$C$2:$C$51 (rows and columns inclusive). */
-export function rangeOn(sheet: string | undefined, row0: number, col0: number, row1: number, col1: number): string {
+export function rangeOn(
+  sheet: string | undefined,
+  row0: number,
+  col0: number,
+  row1: number,
+  col1: number,
+): string {
   const ref = `${absCell(row0, col0)}:${absCell(row1, col1)}`;
   return sheet === undefined ? ref : sheetPrefix(sheet) + ref;
 }
@@ -44,7 +50,6 @@ export function rangeOn(sheet: string | undefined, row0: number, col0: number, r
 export function textLiteral(text: string): string {
   return `"${text.replace(/"/g, '""')}"`;
 }
-
 
 /** A whole column: Motors!$C:$C (rows added below the last one are still inside). */
 export function columnOn(sheet: string, col: number): string {

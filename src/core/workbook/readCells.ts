@@ -26,7 +26,10 @@ export interface Spot {
 export function report(ctx: ReadContext, severity: Severity, at: Spot, text: string): void {
   const where = { row: at.row + 1, column: at.column ?? at.header, ...(at.tag ? { tag: at.tag } : {}) };
   const p = severity === 'error' ? error(where, text) : warning(where, text);
-  ctx.problems.push({ ...p, message: `sheet ${at.sheet}, row ${at.row + 1}, column "${at.header}": ${text}` });
+  ctx.problems.push({
+    ...p,
+    message: `sheet ${at.sheet}, row ${at.row + 1}, column "${at.header}": ${text}`,
+  });
 }
 
 /** The cell's value: typed content, or for a formula the evaluated value when a reader is given. */
@@ -89,5 +92,7 @@ export function headerIndex(doc: SheetDoc): Map<string, number> {
 }
 
 export function findSheet(sheets: readonly SheetDoc[], name: string): SheetDoc | undefined {
-  return sheets.find((s) => s.name === name) ?? sheets.find((s) => s.name.toLowerCase() === name.toLowerCase());
+  return (
+    sheets.find((s) => s.name === name) ?? sheets.find((s) => s.name.toLowerCase() === name.toLowerCase())
+  );
 }

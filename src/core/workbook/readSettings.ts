@@ -15,17 +15,26 @@ function label(doc: SheetDoc, row: number): string {
 
 function requirementKind(text: string | undefined): 'cosphi' | 'tanphi' | undefined {
   const t = (text ?? '').toLowerCase().replace(/[\s_]/g, '');
-  if (['cosφ', 'cosphi', 'cos', 'powerfactor', REQUIREMENT_TEXT.cosphi.replace(/\s/g, '')].includes(t)) return 'cosphi';
+  if (['cosφ', 'cosphi', 'cos', 'powerfactor', REQUIREMENT_TEXT.cosphi.replace(/\s/g, '')].includes(t))
+    return 'cosphi';
   if (['tanφ', 'tanphi', 'tan', REQUIREMENT_TEXT.tanphi.replace(/\s/g, '')].includes(t)) return 'tanphi';
   return undefined;
 }
 
 export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteSettings {
   if (!doc) {
-    ctx.problems.push(error({}, 'the workbook has no Site sheet; frequency 50 Hz, cos φ 0.95 and one case "normal" assumed'));
-    return { name: 'Untitled site', hz: 50, cases: [DEFAULT_CASE], requirement: { kind: 'cosphi', target: 0.95 } };
+    ctx.problems.push(
+      error({}, 'the workbook has no Site sheet; frequency 50 Hz, cos φ 0.95 and one case "normal" assumed'),
+    );
+    return {
+      name: 'Untitled site',
+      hz: 50,
+      cases: [DEFAULT_CASE],
+      requirement: { kind: 'cosphi', target: 0.95 },
+    };
   }
-  const rowOf = (key: keyof typeof SETTING_LABELS) => doc.cells.findIndex((_, r) => r > 0 && label(doc, r) === SETTING_LABELS[key].toLowerCase());
+  const rowOf = (key: keyof typeof SETTING_LABELS) =>
+    doc.cells.findIndex((_, r) => r > 0 && label(doc, r) === SETTING_LABELS[key].toLowerCase());
   const spot = (row: number, header: string): Spot => ({ sheet: doc.name, row, col: 1, header });
   const num = (key: keyof typeof SETTING_LABELS) => {
     const r = rowOf(key);
@@ -40,7 +49,13 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
   let hz: 50 | 60 = 50;
   const hzGiven = num('hz');
   if (hzGiven === 60 || hzGiven === 50) hz = hzGiven;
-  else report(ctx, 'error', spot(Math.max(rowOf('hz'), 0), SETTING_LABELS.hz), `must be 50 or 60 (Hz); got ${hzGiven ?? 'a blank cell'}; 50 Hz assumed`);
+  else
+    report(
+      ctx,
+      'error',
+      spot(Math.max(rowOf('hz'), 0), SETTING_LABELS.hz),
+      `must be 50 or 60 (Hz); got ${hzGiven ?? 'a blank cell'}; 50 Hz assumed`,
+    );
 
   const reqText = text('requirement');
   const kind = requirementKind(reqText);
@@ -48,23 +63,48 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
   if (kind === 'tanphi') {
     const lag = num('tanLag');
     const lead = num('tanLead');
-    if (lag === undefined || lag < 0) report(ctx, 'error', spot(Math.max(rowOf('tanLag'), 0), SETTING_LABELS.tanLag), `must be a number ≥ 0 for a tan φ requirement; got ${lag ?? 'a blank cell'}`);
-    if (lead === undefined || lead < 0) report(ctx, 'error', spot(Math.max(rowOf('tanLead'), 0), SETTING_LABELS.tanLead), `must be a number ≥ 0 for a tan φ requirement; got ${lead ?? 'a blank cell'}`);
+    if (lag === undefined || lag < 0)
+      report(
+        ctx,
+        'error',
+        spot(Math.max(rowOf('tanLag'), 0), SETTING_LABELS.tanLag),
+        `must be a number ≥ 0 for a tan φ requirement; got ${lag ?? 'a blank cell'}`,
+      );
+    if (lead === undefined || lead < 0)
+      report(
+        ctx,
+        'error',
+        spot(Math.max(rowOf('tanLead'), 0), SETTING_LABELS.tanLead),
+        `must be a number ≥ 0 for a tan φ requirement; got ${lead ?? 'a blank cell'}`,
+      );
     requirement = { kind: 'tanphi', lagMax: lag ?? 0, leadMax: lead ?? 0 };
   } else {
     if (kind === undefined) {
-      report(ctx, 'error', spot(Math.max(rowOf('requirement'), 0), SETTING_LABELS.requirement),
-        `must be "${REQUIREMENT_TEXT.cosphi}" or "${REQUIREMENT_TEXT.tanphi}"; got ${reqText === undefined ? 'a blank cell' : `"${reqText}"`}; cos φ assumed`);
+      report(
+        ctx,
+        'error',
+        spot(Math.max(rowOf('requirement'), 0), SETTING_LABELS.requirement),
+        `must be "${REQUIREMENT_TEXT.cosphi}" or "${REQUIREMENT_TEXT.tanphi}"; got ${reqText === undefined ? 'a blank cell' : `"${reqText}"`}; cos φ assumed`,
+      );
     }
     const target = num('cosTarget');
     if (target === undefined || !(target > 0 && target <= 1)) {
-      report(ctx, 'error', spot(Math.max(rowOf('cosTarget'), 0), SETTING_LABELS.cosTarget), `must be in (0, 1]; got ${target ?? 'a blank cell'}; 0.95 assumed`);
+      report(
+        ctx,
+        'error',
+        spot(Math.max(rowOf('cosTarget'), 0), SETTING_LABELS.cosTarget),
+        `must be in (0, 1]; got ${target ?? 'a blank cell'}; 0.95 assumed`,
+      );
     }
-    requirement = { kind: 'cosphi', target: target !== undefined && target > 0 && target <= 1 ? target : 0.95 };
+    requirement = {
+      kind: 'cosphi',
+      target: target !== undefined && target > 0 && target <= 1 ? target : 0.95,
+    };
   }
 
   const ssc = num('ssc');
-  if (ssc !== undefined && !(ssc > 0)) report(ctx, 'error', spot(rowOf('ssc'), SETTING_LABELS.ssc), `must be > 0 (MVA) or blank; got ${ssc}`);
+  if (ssc !== undefined && !(ssc > 0))
+    report(ctx, 'error', spot(rowOf('ssc'), SETTING_LABELS.ssc), `must be > 0 (MVA) or blank; got ${ssc}`);
 
   const cases: string[] = [];
   const notes: string[] = [];
@@ -74,7 +114,13 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
     if (l === SETTING_LABELS.case.toLowerCase()) {
       const c = readText(doc, spot(r, SETTING_LABELS.case), ctx);
       if (c === undefined) return;
-      if (cases.some((x) => x.toLowerCase() === c.toLowerCase())) report(ctx, 'error', spot(r, SETTING_LABELS.case), `case "${c}" is listed twice; case names must differ`);
+      if (cases.some((x) => x.toLowerCase() === c.toLowerCase()))
+        report(
+          ctx,
+          'error',
+          spot(r, SETTING_LABELS.case),
+          `case "${c}" is listed twice; case names must differ`,
+        );
       else cases.push(c);
     } else if (l === SETTING_LABELS.assumption.toLowerCase()) {
       const n = readText(doc, spot(r, SETTING_LABELS.assumption), ctx);
@@ -82,11 +128,19 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
     }
   });
   if (cases.length === 0) {
-    ctx.problems.push(error({}, `sheet ${doc.name}: no operating case is listed (rows labelled "${SETTING_LABELS.case}"); one case "${DEFAULT_CASE}" assumed`));
+    ctx.problems.push(
+      error(
+        {},
+        `sheet ${doc.name}: no operating case is listed (rows labelled "${SETTING_LABELS.case}"); one case "${DEFAULT_CASE}" assumed`,
+      ),
+    );
     cases.push(DEFAULT_CASE);
   }
   return {
-    name, hz, cases, requirement,
+    name,
+    hz,
+    cases,
+    requirement,
     ...(ssc !== undefined && ssc > 0 ? { sscMva: ssc } : {}),
     ...(notes.length > 0 ? { notes } : {}),
   };

@@ -2,12 +2,28 @@
 // becomes the site the balance, the compensation design and the export work from. Columns are
 // found by their header text; computed columns are ignored; a row whose inputs are all blank is
 // skipped; every value that cannot be read is reported with its sheet, row and column.
-import { NUMERIC_COLUMNS, type EquipmentKind, type EquipmentRow, type NumericColumn, type Site, type TextColumn } from '../site/model.ts';
+import {
+  NUMERIC_COLUMNS,
+  type EquipmentKind,
+  type EquipmentRow,
+  type NumericColumn,
+  type Site,
+  type TextColumn,
+} from '../site/model.ts';
 import type { Problem } from '../site/problems.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { EQUIPMENT_SHEETS, HEADERS, SHEETS, type EquipmentSheetLayout } from './buildLayout.ts';
 import { BANK_INPUTS, NOTE_HEADER, type BankChoice } from './buildCompensationColumns.ts';
-import { findSheet, headerIndex, readNumber, readText, report, type CellValueReader, type ReadContext, type Spot } from './readCells.ts';
+import {
+  findSheet,
+  headerIndex,
+  readNumber,
+  readText,
+  report,
+  type CellValueReader,
+  type ReadContext,
+  type Spot,
+} from './readCells.ts';
 import { readSettings } from './readSettings.ts';
 
 export type { CellValueReader } from './readCells.ts';
@@ -37,14 +53,24 @@ type Role =
   | { kind: 'case'; caseName: string }
   | { kind: 'other' };
 
-function roles(doc: SheetDoc, layout: EquipmentSheetLayout, cases: readonly string[]): Array<{ col: number; header: string; role: Role }> {
+function roles(
+  doc: SheetDoc,
+  layout: EquipmentSheetLayout,
+  cases: readonly string[],
+): Array<{ col: number; header: string; role: Role }> {
   const index = headerIndex(doc);
   const out: Array<{ col: number; header: string; role: Role }> = [];
   const take = (header: string, role: Role) => {
     const col = index.get(header.toLowerCase());
     if (col !== undefined) out.push({ col, header, role });
   };
-  for (const c of layout.inputs) take(c.header, NUMERIC.has(c.key) ? { kind: 'number', key: c.key as NumericColumn } : { kind: 'text', key: c.key as TextColumn });
+  for (const c of layout.inputs)
+    take(
+      c.header,
+      NUMERIC.has(c.key)
+        ? { kind: 'number', key: c.key as NumericColumn }
+        : { kind: 'text', key: c.key as TextColumn },
+    );
   if (layout.usesLoad) {
     take(HEADERS.loadDefault, { kind: 'number', key: 'load' });
     for (const c of cases) take(HEADERS.loadCase(c), { kind: 'case', caseName: c });
@@ -53,7 +79,13 @@ function roles(doc: SheetDoc, layout: EquipmentSheetLayout, cases: readonly stri
   return out;
 }
 
-function readOther(text: string, at: Spot, cases: readonly string[], ctx: ReadContext, row: { values: Partial<Record<NumericColumn, number>>; loads: Record<string, number>; to_bus?: string }): void {
+function readOther(
+  text: string,
+  at: Spot,
+  cases: readonly string[],
+  ctx: ReadContext,
+  row: { values: Partial<Record<NumericColumn, number>>; loads: Record<string, number>; to_bus?: string },
+): void {
   for (const part of text.split(';')) {
     const p = part.trim();
     if (p === '') continue;
@@ -62,31 +94,61 @@ function readOther(text: string, at: Spot, cases: readonly string[], ctx: ReadCo
     const value = eq < 0 ? '' : p.slice(eq + 1).trim();
     const n = Number(value);
     if (key === 'to_bus' && value !== '') row.to_bus = value;
-    else if (key.startsWith('load:') && cases.includes(key.slice(5)) && value !== '' && Number.isFinite(n)) row.loads[key.slice(5)] = n;
+    else if (key.startsWith('load:') && cases.includes(key.slice(5)) && value !== '' && Number.isFinite(n))
+      row.loads[key.slice(5)] = n;
     else if (NUMERIC.has(key) && value !== '' && Number.isFinite(n)) row.values[key as NumericColumn] = n;
-    else report(ctx, 'warning', at, `"${p}" is not a value this sheet can keep (write name=number, e.g. s_kva=500); ignored`);
+    else
+      report(
+        ctx,
+        'warning',
+        at,
+        `"${p}" is not a value this sheet can keep (write name=number, e.g. s_kva=500); ignored`,
+      );
   }
 }
 
-function readEquipmentSheet(doc: SheetDoc, layout: EquipmentSheetLayout, cases: readonly string[], ctx: ReadContext,
-  out: EquipmentRow[], origins: SiteFromWorkbook['origins']): void {
+function readEquipmentSheet(
+  doc: SheetDoc,
+  layout: EquipmentSheetLayout,
+  cases: readonly string[],
+  ctx: ReadContext,
+  out: EquipmentRow[],
+  origins: SiteFromWorkbook['origins'],
+): void {
   const cols = roles(doc, layout, cases);
   for (const key of ['tag', 'bus'] as const) {
     const h = layout.inputs.find((c) => c.key === key)?.header;
     if (h && !cols.some((c) => c.header === h)) {
-      ctx.problems.push({ severity: 'error', message: `sheet ${doc.name}: the header row has no "${h}" column; its rows cannot be read`, column: key });
+      ctx.problems.push({
+        severity: 'error',
+        message: `sheet ${doc.name}: the header row has no "${h}" column; its rows cannot be read`,
+        column: key,
+      });
       return;
     }
   }
   for (let r = 1; r < doc.cells.length; r++) {
     const cells = doc.cells[r] ?? [];
-    if (cols.every((c) => { const v = cells[c.col]; return v === null || v === undefined || (typeof v === 'string' && v.trim() === ''); })) continue;
+    if (
+      cols.every((c) => {
+        const v = cells[c.col];
+        return v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
+      })
+    )
+      continue;
     const text: Partial<Record<TextColumn, string>> = {};
-    const row = { values: {} as Partial<Record<NumericColumn, number>>, loads: {} as Record<string, number> } as {
-      values: Partial<Record<NumericColumn, number>>; loads: Record<string, number>; to_bus?: string;
+    const row = {
+      values: {} as Partial<Record<NumericColumn, number>>,
+      loads: {} as Record<string, number>,
+    } as {
+      values: Partial<Record<NumericColumn, number>>;
+      loads: Record<string, number>;
+      to_bus?: string;
     };
     const tagCol = cols.find((c) => c.role.kind === 'text' && c.role.key === 'tag');
-    const tag = tagCol ? readText(doc, { sheet: doc.name, row: r, col: tagCol.col, header: tagCol.header, column: 'tag' }, ctx) : undefined;
+    const tag = tagCol
+      ? readText(doc, { sheet: doc.name, row: r, col: tagCol.col, header: tagCol.header, column: 'tag' }, ctx)
+      : undefined;
     for (const c of cols) {
       const at: Spot = { sheet: doc.name, row: r, col: c.col, header: c.header, ...(tag ? { tag } : {}) };
       const role = c.role;
@@ -105,7 +167,19 @@ function readEquipmentSheet(doc: SheetDoc, layout: EquipmentSheetLayout, cases: 
       }
     }
     if (text.to_bus !== undefined) row.to_bus = text.to_bus;
-    const kind = kindOf(layout, text.kind, { sheet: doc.name, row: r, col: cols.find((c) => c.role.kind === 'text' && c.role.key === 'kind')?.col ?? 0, header: 'Kind', column: 'kind', ...(tag ? { tag } : {}) }, ctx);
+    const kind = kindOf(
+      layout,
+      text.kind,
+      {
+        sheet: doc.name,
+        row: r,
+        col: cols.find((c) => c.role.kind === 'text' && c.role.key === 'kind')?.col ?? 0,
+        header: 'Kind',
+        column: 'kind',
+        ...(tag ? { tag } : {}),
+      },
+      ctx,
+    );
     if (kind === undefined) continue;
     out.push({
       // Numbered as one list across the sheets (header = row 1), so every row number is unique;
@@ -123,12 +197,22 @@ function readEquipmentSheet(doc: SheetDoc, layout: EquipmentSheetLayout, cases: 
   }
 }
 
-function kindOf(layout: EquipmentSheetLayout, given: string | undefined, at: Spot, ctx: ReadContext): EquipmentKind | undefined {
+function kindOf(
+  layout: EquipmentSheetLayout,
+  given: string | undefined,
+  at: Spot,
+  ctx: ReadContext,
+): EquipmentKind | undefined {
   if (layout.kinds.length === 1) return layout.kinds[0];
   const k = (given ?? '').toLowerCase();
   const found = layout.kinds.find((x) => x === k);
   if (found) return found;
-  report(ctx, 'error', at, `kind must be one of ${layout.kinds.join(', ')} on this sheet; got ${given === undefined ? 'a blank cell' : `"${given}"`}; row skipped`);
+  report(
+    ctx,
+    'error',
+    at,
+    `kind must be one of ${layout.kinds.join(', ')} on this sheet; got ${given === undefined ? 'a blank cell' : `"${given}"`}; row skipped`,
+  );
   return undefined;
 }
 
@@ -146,12 +230,16 @@ function readBanks(doc: SheetDoc | undefined, ctx: ReadContext): BankChoice[] {
       if (col === undefined) continue;
       const n = readNumber(doc, { sheet: doc.name, row: r, col, header: b.header }, ctx);
       if (n === undefined) continue;
-      if (n < 0) report(ctx, 'error', { sheet: doc.name, row: r, col, header: b.header }, `must be ≥ 0; got ${n}`);
+      if (n < 0)
+        report(ctx, 'error', { sheet: doc.name, row: r, col, header: b.header }, `must be ≥ 0; got ${n}`);
       choice[b.key] = n;
       any = true;
     }
     const noteCol = index.get(NOTE_HEADER.toLowerCase());
-    const note = noteCol === undefined ? undefined : readText(doc, { sheet: doc.name, row: r, col: noteCol, header: NOTE_HEADER }, ctx);
+    const note =
+      noteCol === undefined
+        ? undefined
+        : readText(doc, { sheet: doc.name, row: r, col: noteCol, header: NOTE_HEADER }, ctx);
     if (note !== undefined) choice.note = note;
     if (any || note !== undefined) out.push(choice);
   }

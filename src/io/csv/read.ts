@@ -73,7 +73,8 @@ export function readCsv(text: string, options: CsvReadOptions = {}): string[][] 
       rowStarted = true;
       i += 1;
       for (;;) {
-        if (i >= src.length) throw new CsvSyntaxError('a quoted field is never closed (missing ")', startLine, startCol);
+        if (i >= src.length)
+          throw new CsvSyntaxError('a quoted field is never closed (missing ")', startLine, startCol);
         const c = src[i] as string;
         i += 1;
         if (c === '"') {
@@ -92,7 +93,11 @@ export function readCsv(text: string, options: CsvReadOptions = {}): string[][] 
       }
       const next = src[i];
       if (next !== undefined && next !== delim && next !== '\n' && next !== '\r') {
-        throw new CsvSyntaxError(`unexpected ${JSON.stringify(next)} after a closing quote; expected the delimiter or a line end`, line, col + 1);
+        throw new CsvSyntaxError(
+          `unexpected ${JSON.stringify(next)} after a closing quote; expected the delimiter or a line end`,
+          line,
+          col + 1,
+        );
       }
       atStart = false;
       continue;

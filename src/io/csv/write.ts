@@ -39,7 +39,12 @@ function fieldText(v: CsvValue): string {
 }
 
 function quoteIfNeeded(text: string, separator: string): string {
-  const needs = text.includes(separator) || text.includes('"') || text.includes('\n') || text.includes('\r') || /^\s|\s$/.test(text);
+  const needs =
+    text.includes(separator) ||
+    text.includes('"') ||
+    text.includes('\n') ||
+    text.includes('\r') ||
+    /^\s|\s$/.test(text);
   return needs ? `"${text.replace(/"/g, '""')}"` : text;
 }
 

@@ -19,7 +19,12 @@ export type Node =
    * A function call; `null` stands for an omitted argument as in F(1,,3). `at` is the 1-based
    * character of the name in the source formula (absent for calls built by a rewrite).
    */
-  | { readonly type: 'call'; readonly name: string; readonly args: readonly (Node | null)[]; readonly at?: number }
+  | {
+      readonly type: 'call';
+      readonly name: string;
+      readonly args: readonly (Node | null)[];
+      readonly at?: number;
+    }
   | { readonly type: 'array'; readonly rows: readonly (readonly Node[])[] };
 
 export type CallNode = Extract<Node, { type: 'call' }>;

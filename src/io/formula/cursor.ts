@@ -23,7 +23,9 @@ export function callAtCursor(text: string, cursor: number): CallAtCursor | undef
         pendingName = t.text.toUpperCase();
         continue;
       case 'lparen':
-        stack.push(pendingName !== undefined ? { kind: 'call', name: pendingName, argIndex: 0 } : { kind: 'group' });
+        stack.push(
+          pendingName !== undefined ? { kind: 'call', name: pendingName, argIndex: 0 } : { kind: 'group' },
+        );
         break;
       case 'lbrace':
         stack.push({ kind: 'array' });

@@ -10,7 +10,8 @@ import { parseFormula } from './parse.ts';
 import { printNode } from './print.ts';
 import { significantTokens } from './tokenize.ts';
 
-export type ExpandResult = { readonly ok: true; readonly formula: string } | { readonly ok: false; readonly message: string };
+export type ExpandResult =
+  { readonly ok: true; readonly formula: string } | { readonly ok: false; readonly message: string };
 
 class ExpandError extends Error {}
 
@@ -40,7 +41,11 @@ function rangeProblem(spec: FunctionSpec, args: readonly (Node | null)[]): strin
   const a = args[i];
   const p = spec.params[i];
   if (!a || !p) return undefined;
-  return msg.notOneValue(i + 1, p, a.type === 'array' ? `the array ${printNode(a)}` : `the range ${printNode(a)}`);
+  return msg.notOneValue(
+    i + 1,
+    p,
+    a.type === 'array' ? `the array ${printNode(a)}` : `the range ${printNode(a)}`,
+  );
 }
 
 function expandCatalogueCall(spec: FunctionSpec, call: CallNode, args: readonly (Node | null)[]): Node {
@@ -53,7 +58,12 @@ function expandCatalogueCall(spec: FunctionSpec, call: CallNode, args: readonly 
   const plain = expandCall(spec, texts);
   const reparsed = parseFormula(plain);
   if (!reparsed.ok) {
-    throw new ExpandError(withFunction(spec.name, `its plain-formula expansion could not be read back (${reparsed.message}): ${plain}`) + where(call));
+    throw new ExpandError(
+      withFunction(
+        spec.name,
+        `its plain-formula expansion could not be read back (${reparsed.message}): ${plain}`,
+      ) + where(call),
+    );
   }
   return isAtomic(reparsed.ast) ? reparsed.ast : { type: 'paren', inner: reparsed.ast };
 }
@@ -104,6 +114,9 @@ export function expandFormula(formula: string): ExpandResult {
     return { ok: true, formula: prefix + printNode(rewrite(parsed.ast)) };
   } catch (e) {
     if (e instanceof ExpandError) return { ok: false, message: e.message };
-    return { ok: false, message: `the formula could not be expanded: ${e instanceof Error ? e.message : String(e)}` };
+    return {
+      ok: false,
+      message: `the formula could not be expanded: ${e instanceof Error ? e.message : String(e)}`,
+    };
   }
 }

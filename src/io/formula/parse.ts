@@ -4,7 +4,9 @@
 import type { BinaryOp, Node } from './ast.ts';
 import { significantTokens, type Token } from './tokenize.ts';
 
-export type ParseResult = { readonly ok: true; readonly ast: Node } | { readonly ok: false; readonly message: string; readonly position: number };
+export type ParseResult =
+  | { readonly ok: true; readonly ast: Node }
+  | { readonly ok: false; readonly message: string; readonly position: number };
 
 class ParseError extends Error {
   constructor(
@@ -38,12 +40,26 @@ class Parser {
     return t;
   }
   private endError(expected: string): ParseError {
-    return new ParseError(`the formula ends too early (after character ${this.length}); expected ${expected}`, this.length + 1);
+    return new ParseError(
+      `the formula ends too early (after character ${this.length}); expected ${expected}`,
+      this.length + 1,
+    );
   }
   private unexpected(t: Token, expected: string): ParseError {
-    if (t.kind === 'string' && t.unterminated) return new ParseError(`the text starting at character ${t.start + 1} has no closing quote (")`, t.start + 1);
-    if (t.kind === 'unknown') return new ParseError(`${describe(t)} at character ${t.start + 1} is not part of any formula syntax`, t.start + 1);
-    return new ParseError(`unexpected ${describe(t)} at character ${t.start + 1}; expected ${expected}`, t.start + 1);
+    if (t.kind === 'string' && t.unterminated)
+      return new ParseError(
+        `the text starting at character ${t.start + 1} has no closing quote (")`,
+        t.start + 1,
+      );
+    if (t.kind === 'unknown')
+      return new ParseError(
+        `${describe(t)} at character ${t.start + 1} is not part of any formula syntax`,
+        t.start + 1,
+      );
+    return new ParseError(
+      `unexpected ${describe(t)} at character ${t.start + 1}; expected ${expected}`,
+      t.start + 1,
+    );
   }
   private isOp(t: Token | undefined, ops: readonly string[]): boolean {
     return t !== undefined && t.kind === 'op' && ops.includes(t.text);
@@ -130,7 +146,8 @@ class Parser {
   private close(open: Token, kind: 'rparen' | 'rbrace', text: string): void {
     const t = this.peek();
     if (!t) throw this.endError(`"${text}" to close the "${open.text}" at character ${open.start + 1}`);
-    if (t.kind !== kind) throw this.unexpected(t, `"${text}" to close the "${open.text}" at character ${open.start + 1}`);
+    if (t.kind !== kind)
+      throw this.unexpected(t, `"${text}" to close the "${open.text}" at character ${open.start + 1}`);
     this.i++;
   }
 
@@ -143,10 +160,14 @@ class Parser {
     }
     for (;;) {
       const t = this.peek();
-      if (!t) throw this.endError(`an argument or ")" to close "${nameToken.text}(" opened at character ${open.start + 1}`);
+      if (!t)
+        throw this.endError(
+          `an argument or ")" to close "${nameToken.text}(" opened at character ${open.start + 1}`,
+        );
       args.push(t.kind === 'comma' || t.kind === 'rparen' ? null : this.expression());
       const sep = this.peek();
-      if (!sep) throw this.endError(`"," or ")" to close "${nameToken.text}(" opened at character ${open.start + 1}`);
+      if (!sep)
+        throw this.endError(`"," or ")" to close "${nameToken.text}(" opened at character ${open.start + 1}`);
       this.i++;
       if (sep.kind === 'rparen') return { type: 'call', name: nameToken.text, args, at: nameToken.start + 1 };
       if (sep.kind !== 'comma') {
@@ -179,6 +200,10 @@ export function parseFormula(text: string): ParseResult {
     return { ok: true, ast: new Parser(significantTokens(text), text.length).parseFormula() };
   } catch (e) {
     if (e instanceof ParseError) return { ok: false, message: e.message, position: e.position };
-    return { ok: false, message: `the formula could not be read: ${e instanceof Error ? e.message : String(e)}`, position: 1 };
+    return {
+      ok: false,
+      message: `the formula could not be read: ${e instanceof Error ? e.message : String(e)}`,
+      position: 1,
+    };
   }
 }

@@ -63,7 +63,10 @@ function literal(a: number | boolean | undefined): string {
 }
 
 /** An example's call as a formula: omitted trailing arguments dropped, inner ones left empty. */
-export function exampleFormula(spec: FunctionSpec, args: ReadonlyArray<number | boolean | undefined>): string {
+export function exampleFormula(
+  spec: FunctionSpec,
+  args: ReadonlyArray<number | boolean | undefined>,
+): string {
   let n = args.length;
   while (n > 0 && args[n - 1] === undefined) n--;
   return `=${spec.name}(${args.slice(0, n).map(literal).join(',')})`;
@@ -93,6 +96,10 @@ export function functionReference(spec: FunctionSpec): FunctionReference {
     params: spec.params.map(paramReference),
     result: { unit: spec.result.unit, doc: spec.result.doc },
     source: { kind: spec.source.kind, ref: spec.source.ref },
-    examples: spec.examples.map((e) => ({ formula: exampleFormula(spec, e.args), expect: e.expect, note: e.note })),
+    examples: spec.examples.map((e) => ({
+      formula: exampleFormula(spec, e.args),
+      expect: e.expect,
+      note: e.note,
+    })),
   };
 }

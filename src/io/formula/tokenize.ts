@@ -39,7 +39,10 @@ const ROW = String.raw`\$?[0-9]+`;
 const END = String.raw`(?![A-Za-z0-9_.(!])`;
 // Sticky patterns, matched at an index of the whole text: no copy of the rest at every step,
 // so long formulas tokenize in linear time.
-const REF = new RegExp(String.raw`(?:${SHEET})?(?:${CELL}(?::(?:${SHEET})?${CELL})?|${COL}:${COL}|${ROW}:${ROW})${END}`, 'y');
+const REF = new RegExp(
+  String.raw`(?:${SHEET})?(?:${CELL}(?::(?:${SHEET})?${CELL})?|${COL}:${COL}|${ROW}:${ROW})${END}`,
+  'y',
+);
 const NUMBER = /(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)(?:[eE][+-]?[0-9]+)?/y;
 const NAME = /[A-Za-z_\\][A-Za-z0-9_.]*/y;
 const ERROR = /#(?:NULL!|DIV\/0!|VALUE!|REF!|NAME\?|NUM!|N\/A|SPILL!|CYCLE!|ERROR!|LIC!|GETTING_DATA)/iy;

@@ -20,42 +20,85 @@ export interface ApplyOptions {
 }
 
 export type ApplyResult =
-  | { readonly ok: true; readonly doc: WorkbookDoc; readonly site: Site; readonly added: number; readonly dropped: number; readonly problems: readonly Problem[] }
+  | {
+      readonly ok: true;
+      readonly doc: WorkbookDoc;
+      readonly site: Site;
+      readonly added: number;
+      readonly dropped: number;
+      readonly problems: readonly Problem[];
+    }
   | { readonly ok: false; readonly message: string; readonly problems: readonly Problem[] };
 
 function errorRows(preview: ImportPreview): Set<number> {
-  return new Set(preview.problems.filter((p) => p.severity === 'error' && p.row !== undefined).map((p) => p.row as number));
+  return new Set(
+    preview.problems.filter((p) => p.severity === 'error' && p.row !== undefined).map((p) => p.row as number),
+  );
 }
 
 /** Merge an accepted preview into the site of `current` and rebuild; `current` is not modified. */
 export function applyImport(current: WorkbookDoc, preview: ImportPreview, opts: ApplyOptions): ApplyResult {
   const missing = preview.proposal.missing;
-  if (missing.length > 0) return { ok: false, message: `map a column to ${missing.join(', ')} first; these columns are required`, problems: [] };
+  if (missing.length > 0)
+    return {
+      ok: false,
+      message: `map a column to ${missing.join(', ')} first; these columns are required`,
+      problems: [],
+    };
   const bad = errorRows(preview);
   const tableErrors = preview.problems.filter((p) => p.severity === 'error' && p.row === undefined);
-  if (tableErrors.length > 0) return { ok: false, message: `the list cannot be imported: ${tableErrors[0]?.message}`, problems: tableErrors };
+  if (tableErrors.length > 0)
+    return {
+      ok: false,
+      message: `the list cannot be imported: ${tableErrors[0]?.message}`,
+      problems: tableErrors,
+    };
   if (bad.size > 0 && !opts.dropRowsWithErrors) {
-    return { ok: false, message: `${bad.size} row(s) of the list have errors (first: ${preview.problems.find((p) => p.severity === 'error')?.message}); fix them or choose to leave them out`, problems: preview.problems };
+    return {
+      ok: false,
+      message: `${bad.size} row(s) of the list have errors (first: ${preview.problems.find((p) => p.severity === 'error')?.message}); fix them or choose to leave them out`,
+      problems: preview.problems,
+    };
   }
   const incoming = preview.equipment.filter((e) => !bad.has(e.row));
   const dropped = preview.counts.rows - incoming.length;
-  if (incoming.length === 0) return { ok: false, message: 'no row of the list can be imported', problems: preview.problems };
+  if (incoming.length === 0)
+    return { ok: false, message: 'no row of the list can be imported', problems: preview.problems };
 
   const open = siteFromWorkbook(current);
   const settings = { ...open.site.settings, cases: [...open.site.settings.cases] };
   for (const c of preview.cases) if (!settings.cases.includes(c)) settings.cases.push(c);
   const kept = opts.mode === 'append' ? open.site.equipment : [];
   const used = new Set(kept.map((e) => e.tag));
-  const clashes = incoming.filter((e) => used.has(e.tag)).map((e) => error({ row: e.row, column: 'tag', tag: e.tag }, `tag "${e.tag}" is already used in the workbook; rename it or replace the equipment instead of adding`));
-  if (clashes.length > 0) return { ok: false, message: `${clashes.length} tag(s) of the list are already in the workbook (first: ${clashes[0]?.message}); nothing was changed`, problems: clashes };
+  const clashes = incoming
+    .filter((e) => used.has(e.tag))
+    .map((e) =>
+      error(
+        { row: e.row, column: 'tag', tag: e.tag },
+        `tag "${e.tag}" is already used in the workbook; rename it or replace the equipment instead of adding`,
+      ),
+    );
+  if (clashes.length > 0)
+    return {
+      ok: false,
+      message: `${clashes.length} tag(s) of the list are already in the workbook (first: ${clashes[0]?.message}); nothing was changed`,
+      problems: clashes,
+    };
   // Rows are numbered as one list again: the workbook, not the client's file, is now the source.
   const equipment: EquipmentRow[] = [...kept, ...incoming].map((e, i) => ({ ...e, row: i + 2 }));
   const site: Site = { settings, equipment };
   const problems = validateSite(site);
   const errors = problems.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
-    return { ok: false, message: `the site would not be valid after the import (first: ${errors[0]?.message}); nothing was changed`, problems: errors };
+    return {
+      ok: false,
+      message: `the site would not be valid after the import (first: ${errors[0]?.message}); nothing was changed`,
+      problems: errors,
+    };
   }
-  const doc = buildWorkbook(site, { flavour: opts.flavour ?? 'live', ...(opts.mode === 'append' && open.banks.length > 0 ? { banks: open.banks } : {}) });
+  const doc = buildWorkbook(site, {
+    flavour: opts.flavour ?? 'live',
+    ...(opts.mode === 'append' && open.banks.length > 0 ? { banks: open.banks } : {}),
+  });
   return { ok: true, doc: { ...doc, title: current.title }, site, added: incoming.length, dropped, problems };
 }

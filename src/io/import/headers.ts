@@ -18,7 +18,13 @@ const CANONICAL = new Set<string>([...TEXT_COLUMNS, ...NUMERIC_COLUMNS]);
 
 /** Which target a unit alone suggests when the words say nothing. */
 const BY_UNIT: Partial<Record<Dimension, string>> = {
-  power: 'p_kw', reactive: 'q_kvar', apparent: 's_kva', voltage: 'u_kv', length: 'len_km', capacitance: 'c_uf_km', inductance: 'l_mh_km',
+  power: 'p_kw',
+  reactive: 'q_kvar',
+  apparent: 's_kva',
+  voltage: 'u_kv',
+  length: 'len_km',
+  capacitance: 'c_uf_km',
+  inductance: 'l_mh_km',
 };
 
 /** Single letters are units only at the end of a longer header or in brackets ("Voltage V", "(m)"). */
@@ -52,7 +58,10 @@ export function splitHeader(text: string): Split {
     const t = tok.replace(/^[.,:;]+|[.,:;]+$/g, '');
     const lower = t.toLowerCase();
     const last = i === raw.length - 1;
-    const isUnit = isKnownUnitSpelling(lower) && (!SHORT_UNITS.has(lower) || (last && raw.length > 1)) && lower !== 'fraction';
+    const isUnit =
+      isKnownUnitSpelling(lower) &&
+      (!SHORT_UNITS.has(lower) || (last && raw.length > 1)) &&
+      lower !== 'fraction';
     if (unit === undefined && isUnit) unit = t;
     else {
       for (const w of normaliseWords(t).split(' ').filter(Boolean)) {
@@ -90,10 +99,12 @@ export function readHeader(text: string): HeaderReading {
   if (trimmed === '') return { target: null, match: 'none' };
   const canonical = normaliseHeader(trimmed);
   if (CANONICAL.has(canonical)) return { target: canonical, match: 'exact' };
-  if (canonical.startsWith(CASE_PREFIX) && canonical.length > CASE_PREFIX.length) return { target: canonical, match: 'exact' };
+  if (canonical.startsWith(CASE_PREFIX) && canonical.length > CASE_PREFIX.length)
+    return { target: canonical, match: 'exact' };
 
   const split = splitHeader(trimmed);
-  const withUnit = (r: Omit<HeaderReading, 'unitSpelling'>): HeaderReading => (split.unit === undefined ? r : { ...r, unitSpelling: split.unit });
+  const withUnit = (r: Omit<HeaderReading, 'unitSpelling'>): HeaderReading =>
+    split.unit === undefined ? r : { ...r, unitSpelling: split.unit };
   const unitDim = split.unit === undefined ? undefined : dimensionOfUnit(split.unit);
   // nF/km is how line data is usually given, µF/km how cable data is.
   const nano = unitDim === 'capacitance' && (split.unit ?? '').toLowerCase().startsWith('n');
@@ -102,7 +113,8 @@ export function readHeader(text: string): HeaderReading {
   const phrase = bestPhrase(split.words);
   if (phrase) {
     const leftover = leftoverText(split, phrase.from, phrase.to);
-    if (phrase.target === 'load' && leftover !== '') return withUnit({ target: CASE_PREFIX + leftover, match: 'synonym' });
+    if (phrase.target === 'load' && leftover !== '')
+      return withUnit({ target: CASE_PREFIX + leftover, match: 'synonym' });
     // The unit outranks the words when they disagree: 'Rating (kVA)' is an apparent power.
     const synDim = dimensionOf(phrase.target);
     const physical = unitDim !== undefined && unitDim !== 'fraction' && unitDim !== 'percent';

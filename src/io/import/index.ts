@@ -6,9 +6,25 @@
 //   4. applyImport(currentDoc, preview, {mode}) → a NEW workbook document (the open one is untouched)
 //      rememberMapping(memory, proposal)    → memory to keep in localStorage (MAPPING_MEMORY_STORAGE_KEY)
 export { readEquipmentFile, tableFromCsvText, type RawTable, type RawCell } from './table.ts';
-export { proposeMapping, withColumnTarget, withColumnUnit, rememberMapping, mappingTargets, REQUIRED_TARGETS, type ColumnMapping, type MappingProposal, type MappingReason } from './mapping.ts';
+export {
+  proposeMapping,
+  withColumnTarget,
+  withColumnUnit,
+  rememberMapping,
+  mappingTargets,
+  REQUIRED_TARGETS,
+  type ColumnMapping,
+  type MappingProposal,
+  type MappingReason,
+} from './mapping.ts';
 export { previewImport, type ImportPreview, type PreviewRow, type PreviewOptions } from './preview.ts';
 export { applyImport, type ApplyOptions, type ApplyResult } from './apply.ts';
-export { emptyMappingMemory, parseMappingMemory, MAPPING_MEMORY_STORAGE_KEY, type MappingMemory, type RememberedChoice } from './memory.ts';
+export {
+  emptyMappingMemory,
+  parseMappingMemory,
+  MAPPING_MEMORY_STORAGE_KEY,
+  type MappingMemory,
+  type RememberedChoice,
+} from './memory.ts';
 export { unitChoicesFor, type UnitChoice } from './units.ts';
 export { describeProblem, type FileProblem } from '../xlsx/fileProblem.ts';

@@ -39,7 +39,14 @@ export const REQUIRED_TARGETS = ['tag', 'bus', 'kind'] as const;
 /** How far down a header row is looked for (title rows above it are common). */
 export const HEADER_SEARCH_ROWS = 15;
 
-const RANK: Readonly<Record<MappingReason, number>> = { user: 5, remembered: 4, exact: 3, synonym: 2, unit: 1, none: 0 };
+const RANK: Readonly<Record<MappingReason, number>> = {
+  user: 5,
+  remembered: 4,
+  exact: 3,
+  synonym: 2,
+  unit: 1,
+  none: 0,
+};
 
 function cellText(c: RawCell | undefined): string {
   return c === null || c === undefined ? '' : String(c);
@@ -66,12 +73,23 @@ export function findHeaderRow(rows: readonly (readonly RawCell[])[]): number {
 function percentFromValues(target: string, values: readonly RawCell[]): boolean {
   if (dimensionOf(target) !== 'fraction') return false;
   const nums = values
-    .map((v) => (typeof v === 'number' ? v : typeof v === 'string' && v.trim() !== '' && !v.includes('%') ? Number(v.replace(',', '.')) : NaN))
+    .map((v) =>
+      typeof v === 'number'
+        ? v
+        : typeof v === 'string' && v.trim() !== '' && !v.includes('%')
+          ? Number(v.replace(',', '.'))
+          : NaN,
+    )
     .filter((x) => Number.isFinite(x) && x !== 0);
   return nums.length > 0 && nums.every((x) => x > 1 && x <= 100);
 }
 
-function suggest(index: number, header: string, values: readonly RawCell[], memory: MappingMemory | undefined): ColumnMapping {
+function suggest(
+  index: number,
+  header: string,
+  values: readonly RawCell[],
+  memory: MappingMemory | undefined,
+): ColumnMapping {
   const base = { index, letter: columnLetter(index), header };
   const remembered = recall(memory, header);
   if (remembered) {
@@ -81,21 +99,44 @@ function suggest(index: number, header: string, values: readonly RawCell[], memo
   }
   const reading = readHeader(header);
   if (reading.target === null) {
-    const note = header.trim() === '' ? 'no header' : reading.unitSpelling ? `unit ${reading.unitSpelling}, but no column of ours matches the words` : 'no column of ours matches';
+    const note =
+      header.trim() === ''
+        ? 'no header'
+        : reading.unitSpelling
+          ? `unit ${reading.unitSpelling}, but no column of ours matches the words`
+          : 'no column of ours matches';
     return { ...base, target: null, unit: ownUnit('tag'), why: 'none', note };
   }
   const t = reading.target;
   if (reading.unitSpelling !== undefined) {
     const u = unitFor(t, reading.unitSpelling);
-    if (u) return { ...base, target: t, unit: u, why: reading.match, note: `unit ${reading.unitSpelling} from the header` };
+    if (u)
+      return {
+        ...base,
+        target: t,
+        unit: u,
+        why: reading.match,
+        note: `unit ${reading.unitSpelling} from the header`,
+      };
   }
   if (percentFromValues(t, values)) {
-    return { ...base, target: t, unit: unitFor(t, '%') as UnitChoice, why: reading.match, note: 'values above 1: read as %' };
+    return {
+      ...base,
+      target: t,
+      unit: unitFor(t, '%') as UnitChoice,
+      why: reading.match,
+      note: 'values above 1: read as %',
+    };
   }
   const own = ownUnit(t);
   const dim = dimensionOf(t);
-  const note = dim === 'text' || dim === 'count' || dim === 'fraction' ? undefined : `no unit in the header; ${own.label} assumed`;
-  return note === undefined ? { ...base, target: t, unit: own, why: reading.match } : { ...base, target: t, unit: own, why: reading.match, note };
+  const note =
+    dim === 'text' || dim === 'count' || dim === 'fraction'
+      ? undefined
+      : `no unit in the header; ${own.label} assumed`;
+  return note === undefined
+    ? { ...base, target: t, unit: own, why: reading.match }
+    : { ...base, target: t, unit: own, why: reading.match, note };
 }
 
 /** Each target fed by one column at most: the better-founded suggestion keeps it. */
@@ -110,7 +151,13 @@ function resolveClashes(columns: ColumnMapping[]): ColumnMapping[] {
     if (c.target === null) return c;
     const held = owner.get(c.target) as ColumnMapping;
     if (held === c) return c;
-    return { ...c, target: null, unit: ownUnit('tag'), why: 'none', note: `also looks like ${c.target}, which column ${held.letter} (${held.header}) feeds` };
+    return {
+      ...c,
+      target: null,
+      unit: ownUnit('tag'),
+      why: 'none',
+      note: `also looks like ${c.target}, which column ${held.letter} (${held.header}) feeds`,
+    };
   });
 }
 
@@ -126,7 +173,14 @@ export function proposeMapping(table: RawTable, memory?: MappingMemory): Mapping
   const width = Math.max(header.length, ...body.slice(0, 200).map((r) => r.length));
   const columns: ColumnMapping[] = [];
   for (let i = 0; i < width; i++) {
-    columns.push(suggest(i, cellText(header[i]).trim(), body.slice(0, 200).map((r) => r[i] ?? null), memory));
+    columns.push(
+      suggest(
+        i,
+        cellText(header[i]).trim(),
+        body.slice(0, 200).map((r) => r[i] ?? null),
+        memory,
+      ),
+    );
   }
   const resolved = resolveClashes(columns);
   return { table, headerRow: h + 1, columns: resolved, missing: missingOf(resolved) };
@@ -137,10 +191,20 @@ export function withColumnTarget(p: MappingProposal, index: number, target: stri
   const columns = p.columns.map((c): ColumnMapping => {
     if (c.index === index) {
       if (target === null) return { ...c, target: null, unit: ownUnit('tag'), why: 'user' };
-      const keep = c.target !== null && dimensionOf(c.target) === dimensionOf(target) ? unitFor(target, c.unit.label) : undefined;
+      const keep =
+        c.target !== null && dimensionOf(c.target) === dimensionOf(target)
+          ? unitFor(target, c.unit.label)
+          : undefined;
       return { ...c, target, unit: keep ?? ownUnit(target), why: 'user' };
     }
-    if (target !== null && c.target === target) return { ...c, target: null, unit: ownUnit('tag'), why: 'user', note: `now fed by column ${columnLetter(index)}` };
+    if (target !== null && c.target === target)
+      return {
+        ...c,
+        target: null,
+        unit: ownUnit('tag'),
+        why: 'user',
+        note: `now fed by column ${columnLetter(index)}`,
+      };
     return c;
   });
   return { ...p, columns, missing: missingOf(columns) };
@@ -160,7 +224,15 @@ export function withColumnUnit(p: MappingProposal, index: number, unitLabel: str
 export function rememberMapping(memory: MappingMemory, p: MappingProposal): MappingMemory {
   return remember(
     memory,
-    p.columns.filter((c) => c.header !== '').map((c) => [c.header, c.target === null ? { target: null } : { target: c.target, unit: c.unit.label }] as const),
+    p.columns
+      .filter((c) => c.header !== '')
+      .map(
+        (c) =>
+          [
+            c.header,
+            c.target === null ? { target: null } : { target: c.target, unit: c.unit.label },
+          ] as const,
+      ),
   );
 }
 

@@ -35,13 +35,19 @@ export function recall(memory: MappingMemory | undefined, header: string): Remem
 }
 
 /** A new memory with these header → choice pairs added (newest last, oldest dropped past the cap). */
-export function remember(memory: MappingMemory, pairs: ReadonlyArray<readonly [string, RememberedChoice]>): MappingMemory {
+export function remember(
+  memory: MappingMemory,
+  pairs: ReadonlyArray<readonly [string, RememberedChoice]>,
+): MappingMemory {
   const next = new Map(Object.entries(memory.choices));
   for (const [header, choice] of pairs) {
     const key = memoryKey(header);
     if (key === '') continue;
     next.delete(key);
-    next.set(key, choice.unit === undefined ? { target: choice.target } : { target: choice.target, unit: choice.unit });
+    next.set(
+      key,
+      choice.unit === undefined ? { target: choice.target } : { target: choice.target, unit: choice.unit },
+    );
   }
   const entries = [...next.entries()].slice(-MAPPING_MEMORY_MAX_ENTRIES);
   return { version: 1, choices: Object.fromEntries(entries) };
@@ -52,7 +58,8 @@ export function parseMappingMemory(text: string | null | undefined): MappingMemo
   if (!text) return emptyMappingMemory();
   try {
     const data: unknown = JSON.parse(text);
-    if (typeof data !== 'object' || data === null || (data as { version?: unknown }).version !== 1) return emptyMappingMemory();
+    if (typeof data !== 'object' || data === null || (data as { version?: unknown }).version !== 1)
+      return emptyMappingMemory();
     const choices = (data as { choices?: unknown }).choices;
     if (typeof choices !== 'object' || choices === null) return emptyMappingMemory();
     const pairs: Array<[string, RememberedChoice]> = [];

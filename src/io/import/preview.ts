@@ -27,7 +27,12 @@ export interface ImportPreview {
   readonly cases: readonly string[];
   /** Every problem, with the file's row and column ("row 7, column C (Motor kW): ..."). */
   readonly problems: readonly Problem[];
-  readonly counts: { readonly rows: number; readonly ok: number; readonly withErrors: number; readonly withWarnings: number };
+  readonly counts: {
+    readonly rows: number;
+    readonly ok: number;
+    readonly withErrors: number;
+    readonly withWarnings: number;
+  };
   /** True when required columns are mapped and no problem is an error. */
   readonly canApply: boolean;
 }
@@ -49,7 +54,10 @@ function isBlank(cells: readonly unknown[]): boolean {
 }
 
 /** The table in our columns and units, header first, as text for the parser. */
-function canonicalTable(p: MappingProposal, mapped: readonly ColumnMapping[]): { rows: string[][]; cells: Array<Record<string, string | number | null>>; fileRows: number[] } {
+function canonicalTable(
+  p: MappingProposal,
+  mapped: readonly ColumnMapping[],
+): { rows: string[][]; cells: Array<Record<string, string | number | null>>; fileRows: number[] } {
   const rows: string[][] = [mapped.map((c) => c.target as string)];
   const cells: Array<Record<string, string | number | null>> = [];
   const fileRows: number[] = [];
@@ -75,8 +83,16 @@ function inFileTerms(pr: Problem, byTarget: ReadonlyMap<string, ColumnMapping>):
   const c = pr.column === undefined ? undefined : byTarget.get(pr.column);
   if (!c) return pr;
   const oldPrefix = describeWhere(pr);
-  const text = oldPrefix && pr.message.startsWith(oldPrefix + ': ') ? pr.message.slice(oldPrefix.length + 2) : pr.message;
-  const where = { ...(pr.row !== undefined ? { row: pr.row } : {}), column: `${c.letter} (${c.header || c.target})`, ...(pr.bus !== undefined ? { bus: pr.bus } : {}), ...(pr.tag !== undefined ? { tag: pr.tag } : {}) };
+  const text =
+    oldPrefix && pr.message.startsWith(oldPrefix + ': ')
+      ? pr.message.slice(oldPrefix.length + 2)
+      : pr.message;
+  const where = {
+    ...(pr.row !== undefined ? { row: pr.row } : {}),
+    column: `${c.letter} (${c.header || c.target})`,
+    ...(pr.bus !== undefined ? { bus: pr.bus } : {}),
+    ...(pr.tag !== undefined ? { tag: pr.tag } : {}),
+  };
   return problem(pr.severity, where, text);
 }
 
@@ -92,7 +108,10 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
   const mapped = p.columns.filter((c) => c.target !== null);
   const byTarget = new Map(mapped.map((c) => [c.target as string, c]));
   const { rows, cells, fileRows } = canonicalTable(p, mapped);
-  const parsed = parseEquipmentTable(rows, { headerRow: p.headerRow, defaultCase: base.cases[0] ?? DEFAULT_CASE });
+  const parsed = parseEquipmentTable(rows, {
+    headerRow: p.headerRow,
+    defaultCase: base.cases[0] ?? DEFAULT_CASE,
+  });
   const settings = settingsWith(base, parsed.cases);
   const site: Site = { settings, equipment: parsed.equipment };
   const validated = parsed.equipment.length > 0 ? validateSite(site) : [];
@@ -117,7 +136,12 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
     equipment: parsed.equipment,
     cases: parsed.cases,
     problems,
-    counts: { rows: previewRows.length, ok: previewRows.length - withErrors - withWarnings, withErrors, withWarnings },
+    counts: {
+      rows: previewRows.length,
+      ok: previewRows.length - withErrors - withWarnings,
+      withErrors,
+      withWarnings,
+    },
     canApply: p.missing.length === 0 && !problems.some((x) => x.severity === 'error'),
   };
 }

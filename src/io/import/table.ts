@@ -38,13 +38,28 @@ function decodeText(bytes: Uint8Array): string {
 
 /** Rows of a CSV text, refusing what cannot be read with line and character. */
 export function tableFromCsvText(name: string, text: string): FileResult<RawTable> {
-  if (text.trim() === '') return fail('empty', 'the file is empty; an equipment list needs a header row (tag, bus, kind, ...) and one row per item', name);
+  if (text.trim() === '')
+    return fail(
+      'empty',
+      'the file is empty; an equipment list needs a header row (tag, bus, kind, ...) and one row per item',
+      name,
+    );
   try {
     const delimiter = detectDelimiter(text);
     const rows = readCsv(text, { delimiter });
-    if (rows.length > MAX_SHEET_ROWS + 1) return fail('too-many-rows', `the list has ${rows.length.toLocaleString('en')} rows; the most accepted is ${MAX_SHEET_ROWS.toLocaleString('en')}`, name);
+    if (rows.length > MAX_SHEET_ROWS + 1)
+      return fail(
+        'too-many-rows',
+        `the list has ${rows.length.toLocaleString('en')} rows; the most accepted is ${MAX_SHEET_ROWS.toLocaleString('en')}`,
+        name,
+      );
     const wide = rows.findIndex((r) => r.length > MAX_SHEET_COLUMNS);
-    if (wide >= 0) return fail('too-many-columns', `row ${wide + 1} has more than ${MAX_SHEET_COLUMNS} columns, the most accepted`, name);
+    if (wide >= 0)
+      return fail(
+        'too-many-columns',
+        `row ${wide + 1} has more than ${MAX_SHEET_COLUMNS} columns, the most accepted`,
+        name,
+      );
     return { ok: true, value: { name, kind: 'csv', rows, decimalComma: delimiter === ';' } };
   } catch (e) {
     if (e instanceof CsvSyntaxError) return fail('corrupt', `the CSV cannot be read: ${e.message}`, name);
@@ -64,7 +79,8 @@ function plainCell(v: ExcelCellValue, numFmt: string | undefined): RawCell {
     const o = v as Record<string, unknown>;
     if ('result' in o) return plainCell(o.result, numFmt);
     if ('formula' in o || 'sharedFormula' in o) return null;
-    if (Array.isArray(o.richText)) return (o.richText as Array<{ text?: string }>).map((r) => r.text ?? '').join('');
+    if (Array.isArray(o.richText))
+      return (o.richText as Array<{ text?: string }>).map((r) => r.text ?? '').join('');
     if (typeof o.text === 'string') return o.text;
     if (typeof o.error === 'string') return o.error;
   }
@@ -74,7 +90,11 @@ function plainCell(v: ExcelCellValue, numFmt: string | undefined): RawCell {
 /** Rows of the first visible worksheet of an xlsx, after the gate has judged the file. */
 export async function tableFromXlsx(name: string, bytes: Uint8Array): Promise<FileResult<RawTable>> {
   const gate = await checkXlsxBytes(bytes);
-  if (!gate.ok) return { ok: false, problem: { ...gate.problem, where: gate.problem.where ? `${name}: ${gate.problem.where}` : name } };
+  if (!gate.ok)
+    return {
+      ok: false,
+      problem: { ...gate.problem, where: gate.problem.where ? `${name}: ${gate.problem.where}` : name },
+    };
   const ExcelJS = await loadExcelJs();
   const wb = new ExcelJS.Workbook();
   try {
@@ -92,7 +112,16 @@ export async function tableFromXlsx(name: string, bytes: Uint8Array): Promise<Fi
     });
     rows[rowNumber - 1] = Array.from(cells, (c) => c ?? null);
   });
-  return { ok: true, value: { name, kind: 'xlsx', sheet: ws.name, rows: Array.from(rows, (r) => r ?? []), decimalComma: false } };
+  return {
+    ok: true,
+    value: {
+      name,
+      kind: 'xlsx',
+      sheet: ws.name,
+      rows: Array.from(rows, (r) => r ?? []),
+      decimalComma: false,
+    },
+  };
 }
 
 /** Read an equipment list: an xlsx (by its zip signature) or a CSV (anything that is text). */
@@ -101,6 +130,11 @@ export async function readEquipmentFile(name: string, bytes: Uint8Array): Promis
   const isZip = ZIP_MAGIC.every((b, i) => bytes[i] === b);
   const looksXlsx = isZip || /\.xls[xm]?$/i.test(name);
   if (looksXlsx) return tableFromXlsx(name, bytes);
-  if (bytes.length > MAX_CSV_BYTES) return fail('too-large', `the file is ${formatBytes(bytes.length)}; the largest list accepted is ${formatBytes(MAX_CSV_BYTES)}`, name);
+  if (bytes.length > MAX_CSV_BYTES)
+    return fail(
+      'too-large',
+      `the file is ${formatBytes(bytes.length)}; the largest list accepted is ${formatBytes(MAX_CSV_BYTES)}`,
+      name,
+    );
   return tableFromCsvText(name, decodeText(bytes));
 }

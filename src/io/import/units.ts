@@ -2,7 +2,18 @@
 // interchange column they feed (kW, kvar, kVA, kV, km, µF/km, nF/km, mH/km, fraction, %).
 import { CASE_PREFIX } from '../../core/site/parse.ts';
 
-export type Dimension = 'power' | 'reactive' | 'apparent' | 'voltage' | 'length' | 'capacitance' | 'inductance' | 'fraction' | 'percent' | 'count' | 'text';
+export type Dimension =
+  | 'power'
+  | 'reactive'
+  | 'apparent'
+  | 'voltage'
+  | 'length'
+  | 'capacitance'
+  | 'inductance'
+  | 'fraction'
+  | 'percent'
+  | 'count'
+  | 'text';
 
 export interface UnitChoice {
   /** As shown to the user, e.g. 'MW', 'V', 'nF/km', '%'. Empty for plain numbers. */
@@ -12,43 +23,124 @@ export interface UnitChoice {
 }
 
 /** Each unit with its factor to the dimension's reference unit. */
-const UNITS: Readonly<Record<Exclude<Dimension, 'text' | 'count'>, ReadonlyArray<readonly [string, number]>>> = {
-  power: [['W', 1e-3], ['kW', 1], ['MW', 1e3]],
-  reactive: [['var', 1e-3], ['kvar', 1], ['Mvar', 1e3]],
-  apparent: [['VA', 1e-3], ['kVA', 1], ['MVA', 1e3]],
-  voltage: [['V', 1e-3], ['kV', 1]],
-  length: [['m', 1e-3], ['km', 1]],
-  capacitance: [['pF/km', 1e-6], ['nF/km', 1e-3], ['µF/km', 1]],
-  inductance: [['µH/km', 1e-3], ['mH/km', 1], ['H/km', 1e3]],
-  fraction: [['', 1], ['%', 1e-2]],
-  percent: [['%', 1], ['', 100]],
+const UNITS: Readonly<
+  Record<Exclude<Dimension, 'text' | 'count'>, ReadonlyArray<readonly [string, number]>>
+> = {
+  power: [
+    ['W', 1e-3],
+    ['kW', 1],
+    ['MW', 1e3],
+  ],
+  reactive: [
+    ['var', 1e-3],
+    ['kvar', 1],
+    ['Mvar', 1e3],
+  ],
+  apparent: [
+    ['VA', 1e-3],
+    ['kVA', 1],
+    ['MVA', 1e3],
+  ],
+  voltage: [
+    ['V', 1e-3],
+    ['kV', 1],
+  ],
+  length: [
+    ['m', 1e-3],
+    ['km', 1],
+  ],
+  capacitance: [
+    ['pF/km', 1e-6],
+    ['nF/km', 1e-3],
+    ['µF/km', 1],
+  ],
+  inductance: [
+    ['µH/km', 1e-3],
+    ['mH/km', 1],
+    ['H/km', 1e3],
+  ],
+  fraction: [
+    ['', 1],
+    ['%', 1e-2],
+  ],
+  percent: [
+    ['%', 1],
+    ['', 100],
+  ],
 };
 
 /** Spellings met in headers, lower-cased, mapped to the labels above. */
 const SPELLINGS: Readonly<Record<string, string>> = {
-  w: 'W', kw: 'kW', mw: 'MW',
-  var: 'var', kvar: 'kvar', mvar: 'Mvar', kvr: 'kvar',
-  va: 'VA', kva: 'kVA', mva: 'MVA',
-  v: 'V', kv: 'kV', volt: 'V', volts: 'V',
-  m: 'm', km: 'km', metre: 'm', meter: 'm', metres: 'm', meters: 'm',
-  'pf/km': 'pF/km', pf_km: 'pF/km',
-  'nf/km': 'nF/km', nf: 'nF/km',
-  'µf/km': 'µF/km', 'uf/km': 'µF/km', 'μf/km': 'µF/km', µf: 'µF/km', uf: 'µF/km', μf: 'µF/km',
-  'µh/km': 'µH/km', 'uh/km': 'µH/km', 'mh/km': 'mH/km', mh: 'mH/km', 'h/km': 'H/km',
-  '%': '%', pct: '%', percent: '%',
-  pu: '', 'p.u.': '', 'p.u': '', fraction: '',
+  w: 'W',
+  kw: 'kW',
+  mw: 'MW',
+  var: 'var',
+  kvar: 'kvar',
+  mvar: 'Mvar',
+  kvr: 'kvar',
+  va: 'VA',
+  kva: 'kVA',
+  mva: 'MVA',
+  v: 'V',
+  kv: 'kV',
+  volt: 'V',
+  volts: 'V',
+  m: 'm',
+  km: 'km',
+  metre: 'm',
+  meter: 'm',
+  metres: 'm',
+  meters: 'm',
+  'pf/km': 'pF/km',
+  pf_km: 'pF/km',
+  'nf/km': 'nF/km',
+  nf: 'nF/km',
+  'µf/km': 'µF/km',
+  'uf/km': 'µF/km',
+  'μf/km': 'µF/km',
+  µf: 'µF/km',
+  uf: 'µF/km',
+  μf: 'µF/km',
+  'µh/km': 'µH/km',
+  'uh/km': 'µH/km',
+  'mh/km': 'mH/km',
+  mh: 'mH/km',
+  'h/km': 'H/km',
+  '%': '%',
+  pct: '%',
+  percent: '%',
+  pu: '',
+  'p.u.': '',
+  'p.u': '',
+  fraction: '',
 };
 
 /** Reference unit of each target, as a label of its dimension. */
 const TARGET_UNIT: Readonly<Record<string, readonly [Dimension, string]>> = {
-  tag: ['text', ''], description: ['text', ''], bus: ['text', ''], kind: ['text', ''], to_bus: ['text', ''],
-  qty: ['count', ''], running: ['count', ''],
-  p_kw: ['power', 'kW'], p0_kw: ['power', 'kW'], pk_kw: ['power', 'kW'],
-  eff: ['fraction', ''], cos_phi: ['fraction', ''], load: ['fraction', ''],
-  i0_pct: ['percent', '%'], uk_pct: ['percent', '%'], p_pct: ['percent', '%'],
-  s_kva: ['apparent', 'kVA'], q_kvar: ['reactive', 'kvar'],
-  u_kv: ['voltage', 'kV'], u_rated_kv: ['voltage', 'kV'],
-  len_km: ['length', 'km'], c_uf_km: ['capacitance', 'µF/km'], c_nf_km: ['capacitance', 'nF/km'], l_mh_km: ['inductance', 'mH/km'],
+  tag: ['text', ''],
+  description: ['text', ''],
+  bus: ['text', ''],
+  kind: ['text', ''],
+  to_bus: ['text', ''],
+  qty: ['count', ''],
+  running: ['count', ''],
+  p_kw: ['power', 'kW'],
+  p0_kw: ['power', 'kW'],
+  pk_kw: ['power', 'kW'],
+  eff: ['fraction', ''],
+  cos_phi: ['fraction', ''],
+  load: ['fraction', ''],
+  i0_pct: ['percent', '%'],
+  uk_pct: ['percent', '%'],
+  p_pct: ['percent', '%'],
+  s_kva: ['apparent', 'kVA'],
+  q_kvar: ['reactive', 'kvar'],
+  u_kv: ['voltage', 'kV'],
+  u_rated_kv: ['voltage', 'kV'],
+  len_km: ['length', 'km'],
+  c_uf_km: ['capacitance', 'µF/km'],
+  c_nf_km: ['capacitance', 'nF/km'],
+  l_mh_km: ['inductance', 'mH/km'],
 };
 
 export function dimensionOf(target: string): Dimension {
@@ -81,7 +173,9 @@ export function unitFor(target: string, label: string): UnitChoice | undefined {
 export function dimensionOfUnit(spelling: string): Dimension | undefined {
   const label = SPELLINGS[spelling.trim().toLowerCase()];
   if (label === undefined) return undefined;
-  for (const [dim, list] of Object.entries(UNITS) as Array<[Dimension, ReadonlyArray<readonly [string, number]>]>) {
+  for (const [dim, list] of Object.entries(UNITS) as Array<
+    [Dimension, ReadonlyArray<readonly [string, number]>]
+  >) {
     if (label !== '' && list.some(([l]) => l === label)) return dim;
   }
   return label === '' ? 'fraction' : undefined;

@@ -4,7 +4,10 @@
 import type { RawCell } from './table.ts';
 import { dimensionOf, unitFor, type UnitChoice } from './units.ts';
 
-export type CellReading = { readonly kind: 'blank' } | { readonly kind: 'number'; readonly value: number; readonly note?: string } | { readonly kind: 'text'; readonly text: string };
+export type CellReading =
+  | { readonly kind: 'blank' }
+  | { readonly kind: 'number'; readonly value: number; readonly note?: string }
+  | { readonly kind: 'text'; readonly text: string };
 
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const WITH_UNIT = /^([+-]?(?:\d[\d\s'’\u00a0\u202f]*[.,]?\d*|[.,]\d+)(?:[eE][+-]?\d+)?)\s*([^\d\s].*)$/;
@@ -12,13 +15,24 @@ const WITH_UNIT = /^([+-]?(?:\d[\d\s'’\u00a0\u202f]*[.,]?\d*|[.,]\d+)(?:[eE][+
 /** "1 234,5" / "1'234.5" / "0,95" (decimal comma) / "1,234.5" (thousands comma) → a number text. */
 function cleanNumber(text: string, decimalComma: boolean): string | undefined {
   let t = text.replace(/[\s'’\u00a0\u202f]/g, '');
-  if (t.includes(',') && t.includes('.')) t = t.lastIndexOf(',') > t.lastIndexOf('.') ? t.replace(/\./g, '').replace(',', '.') : t.replace(/,/g, '');
-  else if (t.includes(',')) t = decimalComma || /^[+-]?\d*,\d{1,2}$|^[+-]?\d*,\d{4,}$|^[+-]?0,\d+$/.test(t) ? t.replace(',', '.') : t.replace(/,/g, '');
+  if (t.includes(',') && t.includes('.'))
+    t =
+      t.lastIndexOf(',') > t.lastIndexOf('.') ? t.replace(/\./g, '').replace(',', '.') : t.replace(/,/g, '');
+  else if (t.includes(','))
+    t =
+      decimalComma || /^[+-]?\d*,\d{1,2}$|^[+-]?\d*,\d{4,}$|^[+-]?0,\d+$/.test(t)
+        ? t.replace(',', '.')
+        : t.replace(/,/g, '');
   return NUMBER.test(t) ? t : undefined;
 }
 
 /** Read a cell for `target`, whose column is in unit `unit`. */
-export function readCell(cell: RawCell, target: string, unit: UnitChoice, decimalComma: boolean): CellReading {
+export function readCell(
+  cell: RawCell,
+  target: string,
+  unit: UnitChoice,
+  decimalComma: boolean,
+): CellReading {
   if (cell === null || cell === '') return { kind: 'blank' };
   if (typeof cell === 'boolean') return { kind: 'text', text: cell ? 'TRUE' : 'FALSE' };
   const dim = dimensionOf(target);
@@ -33,7 +47,12 @@ export function readCell(cell: RawCell, target: string, unit: UnitChoice, decima
   if (m && num !== undefined) {
     const spelled = (m[2] as string).trim();
     const own = unitFor(target, spelled);
-    if (own) return { kind: 'number', value: scale(Number(num), own.factor), note: `unit ${spelled} written in the cell` };
+    if (own)
+      return {
+        kind: 'number',
+        value: scale(Number(num), own.factor),
+        note: `unit ${spelled} written in the cell`,
+      };
   }
   return { kind: 'text', text };
 }

@@ -10,13 +10,20 @@ export interface CheckedXlsx {
   readonly sheets: readonly SheetExtent[];
 }
 
-export async function checkXlsxBytes(bytes: Uint8Array, limits: XlsxLimits = DEFAULT_XLSX_LIMITS): Promise<FileResult<CheckedXlsx>> {
+export async function checkXlsxBytes(
+  bytes: Uint8Array,
+  limits: XlsxLimits = DEFAULT_XLSX_LIMITS,
+): Promise<FileResult<CheckedXlsx>> {
   const dir = readZipDirectory(bytes, limits);
   if (!dir.ok) return dir;
   const names = dir.value.map((e) => e.name);
   const has = (n: string) => names.some((x) => x.toLowerCase() === n.toLowerCase());
   if (!has('[Content_Types].xml') || !has('xl/workbook.xml')) {
-    const what = has('word/document.xml') ? 'a word-processor document' : has('ppt/presentation.xml') ? 'a presentation' : 'a zip archive';
+    const what = has('word/document.xml')
+      ? 'a word-processor document'
+      : has('ppt/presentation.xml')
+        ? 'a presentation'
+        : 'a zip archive';
     return fail('wrong-layout', `the file is ${what}, not an xlsx workbook (no xl/workbook.xml inside)`);
   }
   const sheets = await scanWorksheets(bytes, dir.value, limits);

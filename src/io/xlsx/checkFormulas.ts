@@ -29,13 +29,18 @@ function inScope(scope: CheckScope, sheet: string, row: number): boolean {
 
 function unknownName(formula: string, known: ReadonlySet<string>): string | undefined {
   for (const t of tokenize(formula)) {
-    if (t.kind === 'func' && !known.has(t.text.toUpperCase()) && !findFunction(t.text)) return `the function ${t.text.toUpperCase()}`;
+    if (t.kind === 'func' && !known.has(t.text.toUpperCase()) && !findFunction(t.text))
+      return `the function ${t.text.toUpperCase()}`;
     if (t.kind === 'name') return `the name ${t.text}`;
   }
   return undefined;
 }
 
-export function checkFormulas(doc: WorkbookDoc, scope: CheckScope = 'all', plugins?: readonly OwnPlugin[]): FileProblem[] {
+export function checkFormulas(
+  doc: WorkbookDoc,
+  scope: CheckScope = 'all',
+  plugins?: readonly OwnPlugin[],
+): FileProblem[] {
   if (scope !== 'all' && scope.size === 0) return [];
   const known = knownFunctions(plugins);
   const problems: FileProblem[] = [];
@@ -47,16 +52,31 @@ export function checkFormulas(doc: WorkbookDoc, scope: CheckScope = 'all', plugi
         if (typeof content !== 'string' || !content.startsWith('=')) return;
         starts.push({ sheet: s, row: r, col: c });
         const name = unknownName(content, known);
-        if (name) problems.push({ code: 'unknown-function', message: `the formula ${content} uses ${name}, which Kvar Ledger does not know`, where: `${sheet.name}!${columnLetter(c)}${r + 1}` });
+        if (name)
+          problems.push({
+            code: 'unknown-function',
+            message: `the formula ${content} uses ${name}, which Kvar Ledger does not know`,
+            where: `${sheet.name}!${columnLetter(c)}${r + 1}`,
+          });
       });
     }),
   );
   for (const at of findCircularCells(doc, starts)) {
     const sheet = doc.sheets[at.sheet] as WorkbookDoc['sheets'][number];
     const content = sheet.cells[at.row]?.[at.col];
-    problems.push({ code: 'circular-reference', message: `the formula ${String(content)} refers to itself through a loop of references`, where: `${sheet.name}!${columnLetter(at.col)}${at.row + 1}` });
+    problems.push({
+      code: 'circular-reference',
+      message: `the formula ${String(content)} refers to itself through a loop of references`,
+      where: `${sheet.name}!${columnLetter(at.col)}${at.row + 1}`,
+    });
   }
   if (problems.length <= MAX_LISTED_PROBLEMS) return problems;
   const more = problems.length - MAX_LISTED_PROBLEMS;
-  return [...problems.slice(0, MAX_LISTED_PROBLEMS), { code: problems[MAX_LISTED_PROBLEMS]?.code ?? 'unknown-function', message: `and ${more} more formula problems` }];
+  return [
+    ...problems.slice(0, MAX_LISTED_PROBLEMS),
+    {
+      code: problems[MAX_LISTED_PROBLEMS]?.code ?? 'unknown-function',
+      message: `and ${more} more formula problems`,
+    },
+  ];
 }

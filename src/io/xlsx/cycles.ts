@@ -26,7 +26,8 @@ export function findCircularCells(doc: WorkbookDoc, starts?: readonly CellAt[]):
     const out: string[] = [];
     for (let r = Math.max(0, a.r0); r <= Math.min(a.r1, rows.length - 1); r++) {
       const row = rows[r] as CellContent[];
-      for (let c = Math.max(0, a.c0); c <= Math.min(a.c1, row.length - 1); c++) if (isFormula(row[c])) out.push(cellKey(s, r, c));
+      for (let c = Math.max(0, a.c0); c <= Math.min(a.c1, row.length - 1); c++)
+        if (isFormula(row[c])) out.push(cellKey(s, r, c));
     }
     return out;
   };
@@ -42,7 +43,9 @@ export function findCircularCells(doc: WorkbookDoc, starts?: readonly CellAt[]):
     const sheet = doc.sheets[s] as WorkbookDoc['sheets'][number];
     const formula = sheet.cells[r]?.[c];
     if (!isFormula(formula)) return [];
-    return areasOf(formula, sheet.name).map((a) => (a.r0 === a.r1 && a.c0 === a.c1 ? cellKeyOf(a) : 'r' + JSON.stringify(a))).filter((k): k is string => k !== undefined);
+    return areasOf(formula, sheet.name)
+      .map((a) => (a.r0 === a.r1 && a.c0 === a.c1 ? cellKeyOf(a) : 'r' + JSON.stringify(a)))
+      .filter((k): k is string => k !== undefined);
   };
 
   const walk = (start: string): void => {
@@ -75,6 +78,9 @@ export function findCircularCells(doc: WorkbookDoc, starts?: readonly CellAt[]):
   };
 
   if (starts) for (const s of starts) walk(cellKey(s.sheet, s.row, s.col));
-  else doc.sheets.forEach((sheet, s) => sheet.cells.forEach((row, r) => row.forEach((c, col) => isFormula(c) && walk(cellKey(s, r, col)))));
+  else
+    doc.sheets.forEach((sheet, s) =>
+      sheet.cells.forEach((row, r) => row.forEach((c, col) => isFormula(c) && walk(cellKey(s, r, col)))),
+    );
   return [...found.values()].sort((a, b) => a.sheet - b.sheet || a.row - b.row || a.col - b.col);
 }

@@ -9,10 +9,26 @@ import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';
 import { coverRows, functionRows, FUNCTION_HEADER } from './exportCover.ts';
-import { exportSheetCells, fileError, xmlSafe, type CellIssue, type ExportCell, type SheetCells } from './exportCells.ts';
+import {
+  exportSheetCells,
+  fileError,
+  xmlSafe,
+  type CellIssue,
+  type ExportCell,
+  type SheetCells,
+} from './exportCells.ts';
 import { styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
 import { loadExcelJs } from './loadExcelJs.ts';
-import { META_MARKER, META_SHEET_NAME, META_VERSION, metaChunks, rowFingerprint, type ExportMeta, type FingerprintCell, type SheetMeta } from './metadata.ts';
+import {
+  META_MARKER,
+  META_SHEET_NAME,
+  META_VERSION,
+  metaChunks,
+  rowFingerprint,
+  type ExportMeta,
+  type FingerprintCell,
+  type SheetMeta,
+} from './metadata.ts';
 import { sheetNameProblem, uniqueSheetName } from './sheetNames.ts';
 
 export interface XlsxExportOptions {
@@ -66,7 +82,10 @@ function checkNames(doc: WorkbookDoc): void {
   for (const s of doc.sheets) {
     const p = sheetNameProblem(s.name);
     if (p) throw new XlsxExportError(`cannot export: ${p}; rename the sheet and export again`);
-    if (seen.has(s.name.toLowerCase())) throw new XlsxExportError(`cannot export: two sheets are named "${s.name}" (names must differ, ignoring case)`);
+    if (seen.has(s.name.toLowerCase()))
+      throw new XlsxExportError(
+        `cannot export: two sheets are named "${s.name}" (names must differ, ignoring case)`,
+      );
     seen.add(s.name.toLowerCase());
   }
   if (doc.sheets.length === 0) throw new XlsxExportError('cannot export: the workbook has no sheets');
@@ -98,15 +117,21 @@ export function alignedWith(doc: WorkbookDoc, source: WorkbookDoc): boolean {
   return doc.sheets.every((s, i) => {
     const t = source.sheets[i];
     if (!t || t.name !== s.name) return false;
-    return s.cells.every((row, r) => row.every((c, col) => {
-      const u = t.cells[r]?.[col] ?? null;
-      return isFormula(c) || c === u || ((c === null || c === '') && (u === null || u === ''));
-    }));
+    return s.cells.every((row, r) =>
+      row.every((c, col) => {
+        const u = t.cells[r]?.[col] ?? null;
+        return isFormula(c) || c === u || ((c === null || c === '') && (u === null || u === ''));
+      }),
+    );
   });
 }
 
 /** Run `use` with a reader of cached results, building (and then freeing) an engine if needed. */
-function withValues<T>(doc: WorkbookDoc, opts: XlsxExportOptions, use: (valueAt: (sheet: string, row: number, col: number) => CellResult | undefined) => T): T {
+function withValues<T>(
+  doc: WorkbookDoc,
+  opts: XlsxExportOptions,
+  use: (valueAt: (sheet: string, row: number, col: number) => CellResult | undefined) => T,
+): T {
   if (opts.valueAt) return use(opts.valueAt);
   const source = opts.valuesFrom && alignedWith(doc, opts.valuesFrom) ? opts.valuesFrom : doc;
   const hf = createEngine(source.sheets, opts.plugins ? { plugins: opts.plugins } : {});
@@ -117,7 +142,13 @@ function withValues<T>(doc: WorkbookDoc, opts: XlsxExportOptions, use: (valueAt:
   }
 }
 
-type ExcelValue = number | string | boolean | null | { formula: string; result?: number | string | boolean | { error: string } } | { error: string };
+type ExcelValue =
+  | number
+  | string
+  | boolean
+  | null
+  | { formula: string; result?: number | string | boolean | { error: string } }
+  | { error: string };
 
 function excelValue(c: ExportCell | undefined): ExcelValue {
   if (!c || c.kind === 'empty') return null;
@@ -156,12 +187,20 @@ function writeMeta(wb: Workbook, meta: ExportMeta): void {
 }
 
 /** Export with a report of what could not be written as a live formula. */
-export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxExportOptions = {}): Promise<XlsxExportReport> {
+export async function exportWorkbookXlsxWithReport(
+  doc: WorkbookDoc,
+  opts: XlsxExportOptions = {},
+): Promise<XlsxExportReport> {
   checkNames(doc);
-  const converted = withValues(doc, opts, (valueAt) => doc.sheets.map((s) => exportSheetCells((r, c) => valueAt(s.name, r, c) ?? BLANK, s)));
+  const converted = withValues(doc, opts, (valueAt) =>
+    doc.sheets.map((s) => exportSheetCells((r, c) => valueAt(s.name, r, c) ?? BLANK, s)),
+  );
   const issues = converted.flatMap((c) => c.issues);
   if (opts.strict && issues.length > 0) {
-    throw new XlsxExportError(`cannot export: ${issues.length} formula(s) cannot be written for other programs; first: ${issues[0]?.where}: ${issues[0]?.message}`, issues);
+    throw new XlsxExportError(
+      `cannot export: ${issues.length} formula(s) cannot be written for other programs; first: ${issues[0]?.where}: ${issues[0]?.message}`,
+      issues,
+    );
   }
   const catalogue = new Set(converted.flatMap((c) => [...c.catalogue]));
   const newer = [...new Set(converted.flatMap((c) => [...c.newer]))].sort();
@@ -170,9 +209,15 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
   const coverName = uniqueSheetName(COVER_SHEET_NAME, taken);
   const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
   const notes = [
-    ...(newer.length > 0 ? [`Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`] : []),
+    ...(newer.length > 0
+      ? [
+          `Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`,
+        ]
+      : []),
     ...issues.slice(0, MAX_COVER_ISSUES).map((i) => `${i.where}: ${i.message}.`),
-    ...(issues.length > MAX_COVER_ISSUES ? [`… and ${issues.length - MAX_COVER_ISSUES} more cells written as values.`] : []),
+    ...(issues.length > MAX_COVER_ISSUES
+      ? [`… and ${issues.length - MAX_COVER_ISSUES} more cells written as values.`]
+      : []),
   ];
 
   const ExcelJS = await loadExcelJs();
@@ -184,7 +229,17 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
   const cover = wb.addWorksheet(coverName);
   const date = opts.date ?? new Date();
   const settings = opts.settings ?? settingsOf(doc);
-  styleCover(cover, coverRows({ doc, date, generator: opts.generator ?? DEFAULT_GENERATOR, notes, functionsSheet: functionsName, ...(settings ? { settings } : {}) }));
+  styleCover(
+    cover,
+    coverRows({
+      doc,
+      date,
+      generator: opts.generator ?? DEFAULT_GENERATOR,
+      notes,
+      functionsSheet: functionsName,
+      ...(settings ? { settings } : {}),
+    }),
+  );
 
   const sheetsMeta: SheetMeta[] = [];
   doc.sheets.forEach((s, i) => {
@@ -196,14 +251,30 @@ export async function exportWorkbookXlsxWithReport(doc: WorkbookDoc, opts: XlsxE
   });
 
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));
-  writeMeta(wb, { format: META_MARKER, version: META_VERSION, doc, sheets: sheetsMeta, generated: [coverName, functionsName] });
+  writeMeta(wb, {
+    format: META_MARKER,
+    version: META_VERSION,
+    doc,
+    sheets: sheetsMeta,
+    generated: [coverName, functionsName],
+  });
 
   // Fastest deflate level: the file grows by about a third, the export is much quicker.
-  const buffer = await wb.xlsx.writeBuffer({ zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } } } as XlsxWriteOptions);
-  return { bytes: new Uint8Array(buffer as ArrayBuffer), issues, newerFunctions: newer, catalogueFunctions: [...catalogue] };
+  const buffer = await wb.xlsx.writeBuffer({
+    zip: { compression: 'DEFLATE', compressionOptions: { level: 1 } },
+  } as XlsxWriteOptions);
+  return {
+    bytes: new Uint8Array(buffer as ArrayBuffer),
+    issues,
+    newerFunctions: newer,
+    catalogueFunctions: [...catalogue],
+  };
 }
 
 /** The hand-off xlsx as bytes. */
-export async function exportWorkbookXlsx(doc: WorkbookDoc, opts: XlsxExportOptions = {}): Promise<Uint8Array> {
+export async function exportWorkbookXlsx(
+  doc: WorkbookDoc,
+  opts: XlsxExportOptions = {},
+): Promise<Uint8Array> {
   return (await exportWorkbookXlsxWithReport(doc, opts)).bytes;
 }

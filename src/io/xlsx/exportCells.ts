@@ -27,7 +27,12 @@ export type ExportCell =
   | { readonly kind: 'value'; readonly value: number | string | boolean }
   | { readonly kind: 'error'; readonly error: string }
   /** `normalised`: normaliseFormula(formula), for the row fingerprints. */
-  | { readonly kind: 'formula'; readonly formula: string; readonly normalised: string; readonly result: CellResult };
+  | {
+      readonly kind: 'formula';
+      readonly formula: string;
+      readonly normalised: string;
+      readonly result: CellResult;
+    };
 
 export interface CellIssue {
   /** "Sheet!B7" */
@@ -46,7 +51,8 @@ export interface SheetCells {
 }
 
 /** Characters XML 1.0 cannot hold; they would make the file unreadable. */
-const XML_INVALID = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
+const XML_INVALID =
+  /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
 export function xmlSafe(text: string): string {
   return text.replace(XML_INVALID, '\uFFFD');
 }
@@ -94,21 +100,45 @@ const BLANK: CellResult = { ok: true, value: null };
 
 /** What a formula becomes in the file, worked out once per shape (see formulaShape.ts). */
 type Conversion =
-  | { readonly ok: true; readonly file: ShapeTemplate; readonly normalised: ShapeTemplate; readonly tooDeep: boolean; readonly catalogue: readonly string[]; readonly newer: readonly string[] }
+  | {
+      readonly ok: true;
+      readonly file: ShapeTemplate;
+      readonly normalised: ShapeTemplate;
+      readonly tooDeep: boolean;
+      readonly catalogue: readonly string[];
+      readonly newer: readonly string[];
+    }
   | { readonly ok: false; readonly message: string };
 
 function convert(formula: string, row1: number): Conversion {
   const calls = CATALOGUE_CALL.test(formula);
-  const catalogue = calls ? [...withoutText(formula).matchAll(CATALOGUE_CALLS)].map((m) => (m[1] as string).toUpperCase()) : [];
+  const catalogue = calls
+    ? [...withoutText(formula).matchAll(CATALOGUE_CALLS)].map((m) => (m[1] as string).toUpperCase())
+    : [];
   const expanded = calls ? expandFormula(formula) : readable(formula);
-  if (!expanded.ok) return { ok: false, message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead` };
+  if (!expanded.ok)
+    return {
+      ok: false,
+      message: `the formula cannot be written for other programs (${expanded.message}); its value is written instead`,
+    };
   const file = toFileFormula(expanded.formula);
-  if (file.unknown.length > 0) return { ok: false, message: `the formula uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have; its value is written instead` };
+  if (file.unknown.length > 0)
+    return {
+      ok: false,
+      message: `the formula uses ${file.unknown.join(', ')}, which other spreadsheet programs do not have; its value is written instead`,
+    };
   const text = xmlSafe(file.text);
   // Nesting does not change with the row numbers: checked once per shape.
   const shape = toShape(text, row1);
   // Normalising leaves row numbers and the offset marks as they are, so it too is done once per shape.
-  return { ok: true, file: compileShape(shape), normalised: compileShape(normaliseFormula(shape)), tooDeep: nesting(text) > MAX_NESTING, catalogue, newer: file.newer };
+  return {
+    ok: true,
+    file: compileShape(shape),
+    normalised: compileShape(normaliseFormula(shape)),
+    tooDeep: nesting(text) > MAX_NESTING,
+    catalogue,
+    newer: file.newer,
+  };
 }
 
 /** Checks of the written text (its length grows with row numbers; its nesting is the shape's). */
@@ -116,7 +146,8 @@ function sizeProblem(text: string, tooDeep: boolean): string | undefined {
   if (text.length > MAX_FORMULA_LENGTH) {
     return `the formula is ${text.length} characters long once written out; other programs accept at most ${MAX_FORMULA_LENGTH} (move nested calls into cells of their own); its value is written instead`;
   }
-  if (tooDeep) return `the formula nests calls deeper than the ${MAX_NESTING} levels other programs accept; its value is written instead`;
+  if (tooDeep)
+    return `the formula nests calls deeper than the ${MAX_NESTING} levels other programs accept; its value is written instead`;
   return undefined;
 }
 
@@ -165,7 +196,12 @@ export function exportSheetCells(valueOf: ValueOf, sheet: SheetDoc): SheetCells 
         cells.push(valueCell(result));
         return;
       }
-      cells.push({ kind: 'formula', formula: text as string, normalised: renderShape((conv as { normalised: ShapeTemplate }).normalised, r + 1), result });
+      cells.push({
+        kind: 'formula',
+        formula: text as string,
+        normalised: renderShape((conv as { normalised: ShapeTemplate }).normalised, r + 1),
+        result,
+      });
     });
     out.rows.push(cells);
   });

@@ -43,7 +43,8 @@ export type CoverRow = readonly [] | readonly [string] | readonly [string, strin
 
 function requirementText(s: SiteSettings): string {
   const r = s.requirement;
-  if (r.kind === 'cosphi') return `cos φ at least ${formatNumber(r.target)} (lagging) at the point of connection`;
+  if (r.kind === 'cosphi')
+    return `cos φ at least ${formatNumber(r.target)} (lagging) at the point of connection`;
   return `tan φ at most ${formatNumber(r.lagMax)} lagging and ${formatNumber(r.leadMax)} leading at the point of connection`;
 }
 
@@ -56,13 +57,20 @@ export function coverRows(input: CoverInput): CoverRow[] {
   const s = input.settings;
   const rows: CoverRow[] = [[COVER_TITLE], ['Site', s?.name ?? input.doc.title]];
   if (s) {
-    rows.push(['Frequency', `${s.hz} Hz`], ['Requirement', requirementText(s)], ['Operating cases', s.cases.join(', ')]);
+    rows.push(
+      ['Frequency', `${s.hz} Hz`],
+      ['Requirement', requirementText(s)],
+      ['Operating cases', s.cases.join(', ')],
+    );
     if (s.sscMva !== undefined) rows.push(['Supply short-circuit power', `${formatNumber(s.sscMva)} MVA`]);
   }
   rows.push(['Exported', isoDate(input.date)], ['Made by', input.generator], []);
   rows.push(['Sheets']);
   for (const sh of input.doc.sheets) rows.push([sh.name, sh.purpose ?? '']);
-  rows.push([input.functionsSheet, 'the catalogue functions used, written out as plain formulas, with their sources'], []);
+  rows.push(
+    [input.functionsSheet, 'the catalogue functions used, written out as plain formulas, with their sources'],
+    [],
+  );
   rows.push(['Assumptions']);
   for (const a of [...ASSUMPTIONS, ...(s?.notes ?? [])]) rows.push(['', a]);
   rows.push([], ['Cautions']);
@@ -80,16 +88,39 @@ function paramText(p: ParamSpec): string {
   const unit = p.unit === '1' || p.unit === '' ? '' : ` [${p.unit}]`;
   if (!isOptional(p)) return `${p.name}${unit}`;
   const d = p.default;
-  const dflt = typeof d === 'number' ? formatNumber(d) : typeof d === 'boolean' ? (d ? 'TRUE' : 'FALSE') : d && 'sameAs' in d ? d.sameAs : 'omitted';
+  const dflt =
+    typeof d === 'number'
+      ? formatNumber(d)
+      : typeof d === 'boolean'
+        ? d
+          ? 'TRUE'
+          : 'FALSE'
+        : d && 'sameAs' in d
+          ? d.sameAs
+          : 'omitted';
   return `[${p.name}${unit} = ${dflt}]`;
 }
 
 /** The plain formula a call becomes, with the parameter names standing for the arguments. */
 export function writtenOut(spec: FunctionSpec): string {
-  return '=' + expandCall(spec, spec.params.map((p) => p.name));
+  return (
+    '=' +
+    expandCall(
+      spec,
+      spec.params.map((p) => p.name),
+    )
+  );
 }
 
-export const FUNCTION_HEADER = ['Function', 'What it gives', 'Arguments', 'Result', 'Written out as', 'Source', 'Kind of source'] as const;
+export const FUNCTION_HEADER = [
+  'Function',
+  'What it gives',
+  'Arguments',
+  'Result',
+  'Written out as',
+  'Source',
+  'Kind of source',
+] as const;
 
 /** One row per catalogue function used, in catalogue order. */
 export function functionRows(names: Iterable<string>): string[][] {

@@ -24,7 +24,8 @@ export interface FileProblem {
   readonly where?: string;
 }
 
-export type FileResult<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly problem: FileProblem };
+export type FileResult<T> =
+  { readonly ok: true; readonly value: T } | { readonly ok: false; readonly problem: FileProblem };
 
 export function fail<T>(code: FileProblemCode, message: string, where?: string): FileResult<T> {
   return { ok: false, problem: where === undefined ? { code, message } : { code, message, where } };

@@ -26,7 +26,10 @@ function columnIndex(letters: string): number {
 function splitSheet(text: string, own: string): { sheet: string; rest: string } {
   const m = SHEET.exec(text);
   if (!m) return { sheet: own, rest: text };
-  return { sheet: m[1] !== undefined ? m[1].replace(/''/g, "'") : (m[2] as string), rest: text.slice(m[0].length) };
+  return {
+    sheet: m[1] !== undefined ? m[1].replace(/''/g, "'") : (m[2] as string),
+    rest: text.slice(m[0].length),
+  };
 }
 
 /** One reference token ('Sheet'!A1:B4, A:C, 3:5, $B$2) as an area; undefined if unreadable. */
@@ -40,7 +43,13 @@ export function areaOf(ref: string, ownSheet: string): Area | undefined {
   if (ca && cb) {
     const rows = [Number(ca[2]) - 1, Number(cb[2]) - 1];
     const cols = [columnIndex(ca[1] as string), columnIndex(cb[1] as string)];
-    return { sheet, r0: Math.min(...rows), r1: Math.max(...rows), c0: Math.min(...cols), c1: Math.max(...cols) };
+    return {
+      sheet,
+      r0: Math.min(...rows),
+      r1: Math.max(...rows),
+      c0: Math.min(...cols),
+      c1: Math.max(...cols),
+    };
   }
   const ka = COL.exec(a);
   const kb = COL.exec(second);

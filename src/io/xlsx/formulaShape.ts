@@ -6,7 +6,8 @@
  * Text literals and quoted sheet names (group 1, left exactly as they are), or a cell address's
  * column, '$' and row (groups 2-4), not part of a name, a function call or a sheet name.
  */
-const PART = /("(?:[^"]|"")*"?|'(?:[^']|'')*'?)|(?<![A-Za-z0-9_.$])(\$?[A-Za-z]{1,3})(\$?)(\d+)(?![A-Za-z0-9_.(!])/g;
+const PART =
+  /("(?:[^"]|"")*"?|'(?:[^']|'')*'?)|(?<![A-Za-z0-9_.$])(\$?[A-Za-z]{1,3})(\$?)(\d+)(?![A-Za-z0-9_.(!])/g;
 const OFFSET = /\u0000(-?\d+)\u0001/g;
 
 export function toShape(formula: string, row1: number): string {
@@ -45,6 +46,7 @@ export function compileShape(shape: string): ShapeTemplate {
 /** The same as fromShape(shape, row1), from the compiled shape. */
 export function renderShape(t: ShapeTemplate, row1: number): string {
   let out = t.texts[0] as string;
-  for (let i = 0; i < t.offsets.length; i++) out += String(row1 + (t.offsets[i] as number)) + (t.texts[i + 1] as string);
+  for (let i = 0; i < t.offsets.length; i++)
+    out += String(row1 + (t.offsets[i] as number)) + (t.texts[i + 1] as string);
   return out;
 }

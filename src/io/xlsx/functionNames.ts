@@ -75,7 +75,11 @@ const CALLED = /([A-Za-z_][A-Za-z0-9_.]*)\(/g;
 export function toFileFormula(formula: string): FileFormula {
   const body = formula.trimStart().startsWith('=') ? formula.trimStart().slice(1) : formula;
   // Fast path for the usual case, only classic calls, so nothing changes (text literals cannot call).
-  if ([...withoutText(body).matchAll(CALLED)].every((m) => CLASSIC_FUNCTIONS.has((m[1] as string).toUpperCase()))) {
+  if (
+    [...withoutText(body).matchAll(CALLED)].every((m) =>
+      CLASSIC_FUNCTIONS.has((m[1] as string).toUpperCase()),
+    )
+  ) {
     return { text: body, newer: [], unknown: [] };
   }
   const newer = new Set<string>();

@@ -10,7 +10,14 @@ import type { OwnPlugin } from '../../engine/index.ts';
 import type { FileProblem } from './fileProblem.ts';
 import { DEFAULT_XLSX_LIMITS, type XlsxLimits } from './limits.ts';
 import { loadExcelJs } from './loadExcelJs.ts';
-import { META_MARKER, META_SHEET_NAME, parseMeta, rowFingerprint, type ExportMeta, type SheetMeta } from './metadata.ts';
+import {
+  META_MARKER,
+  META_SHEET_NAME,
+  parseMeta,
+  rowFingerprint,
+  type ExportMeta,
+  type SheetMeta,
+} from './metadata.ts';
 import { readRow, readSheet } from './readCells.ts';
 import { COVER_TITLE } from './exportCover.ts';
 
@@ -49,7 +56,12 @@ function metaText(ws: Worksheet): string | undefined {
 }
 
 /** A sheet from our metadata, row by row: untouched rows restored, changed rows as found. */
-function restoreSheet(ws: Worksheet, original: SheetDoc, meta: SheetMeta, date1904: boolean): { sheet: SheetDoc; changed: number[] } {
+function restoreSheet(
+  ws: Worksheet,
+  original: SheetDoc,
+  meta: SheetMeta,
+  date1904: boolean,
+): { sheet: SheetDoc; changed: number[] } {
   // `changed` holds 1-based row numbers, as the user's program shows them.
   const rows: CellContent[][] = [];
   const changed: number[] = [];
@@ -63,7 +75,8 @@ function restoreSheet(ws: Worksheet, original: SheetDoc, meta: SheetMeta, date19
       changed.push(r + 1);
     }
   }
-  while (rows.length > original.cells.length && (rows[rows.length - 1] as CellContent[]).length === 0) rows.pop();
+  while (rows.length > original.cells.length && (rows[rows.length - 1] as CellContent[]).length === 0)
+    rows.pop();
   return { sheet: { ...original, cells: rows }, changed };
 }
 
@@ -86,7 +99,9 @@ interface FromMeta {
 function fromMeta(wb: Workbook, meta: ExportMeta, date1904: boolean): FromMeta {
   const notes: string[] = [];
   const fresh = new Map<string, 'all' | Set<number>>();
-  const byFile = new Map(meta.sheets.map((s, i) => [s.file, { meta: s, original: meta.doc.sheets[i] as SheetDoc }]));
+  const byFile = new Map(
+    meta.sheets.map((s, i) => [s.file, { meta: s, original: meta.doc.sheets[i] as SheetDoc }]),
+  );
   const skip = new Set([...meta.generated, META_SHEET_NAME]);
   const sheets: SheetDoc[] = [];
   for (const ws of wb.worksheets) {
@@ -102,7 +117,9 @@ function fromMeta(wb: Workbook, meta: ExportMeta, date1904: boolean): FromMeta {
     const { sheet, changed } = restoreSheet(ws, known.original, known.meta, date1904);
     if (changed.length > 0) {
       fresh.set(ws.name, new Set(changed.map((r) => r - 1)));
-      notes.push(`sheet "${ws.name}": row(s) ${rowsText(changed)} were changed in another program; read as plain formulas and values`);
+      notes.push(
+        `sheet "${ws.name}": row(s) ${rowsText(changed)} were changed in another program; read as plain formulas and values`,
+      );
     }
     sheets.push(sheet);
   }
@@ -118,8 +135,15 @@ function plainDoc(wb: Workbook, date1904: boolean): WorkbookDoc {
   return { format: 'kvar-ledger-workbook', version: 1, title, sheets };
 }
 
-export async function importKvarXlsx(bytes: Uint8Array, opts: KvarImportOptions = {}): Promise<KvarImportResult> {
-  const refuse = (p: FileProblem, problems: FileProblem[] = []): KvarImportResult => ({ ok: false, problem: p, problems });
+export async function importKvarXlsx(
+  bytes: Uint8Array,
+  opts: KvarImportOptions = {},
+): Promise<KvarImportResult> {
+  const refuse = (p: FileProblem, problems: FileProblem[] = []): KvarImportResult => ({
+    ok: false,
+    problem: p,
+    problems,
+  });
   const gate = await checkXlsxBytes(bytes, opts.limits ?? DEFAULT_XLSX_LIMITS);
   if (!gate.ok) return refuse(gate.problem);
   const ExcelJS = await loadExcelJs();
@@ -127,14 +151,20 @@ export async function importKvarXlsx(bytes: Uint8Array, opts: KvarImportOptions 
   try {
     await wb.xlsx.load(bytes as unknown as ArrayBuffer);
   } catch (e) {
-    return refuse({ code: 'corrupt', message: `the workbook cannot be read (${e instanceof Error ? e.message : String(e)}); it may be damaged` });
+    return refuse({
+      code: 'corrupt',
+      message: `the workbook cannot be read (${e instanceof Error ? e.message : String(e)}); it may be damaged`,
+    });
   }
   const date1904 = Boolean(wb.properties?.date1904);
   const metaSheet = wb.getWorksheet(META_SHEET_NAME);
   const text = metaSheet ? metaText(metaSheet) : undefined;
   const meta = text === undefined ? undefined : parseMeta(text);
   const notes: string[] = [];
-  if (metaSheet && !meta) notes.push('the data that restores catalogue formulas is damaged; the workbook was read as plain formulas and values');
+  if (metaSheet && !meta)
+    notes.push(
+      'the data that restores catalogue formulas is damaged; the workbook was read as plain formulas and values',
+    );
 
   let doc: WorkbookDoc;
   let restored: 'restored' | 'partly' | 'plain' = 'plain';

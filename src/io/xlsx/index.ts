@@ -11,8 +11,19 @@
 //     Our own export comes back exactly; rows changed elsewhere come back as plain formulas.
 //     opts.acceptFormulaProblems opens a workbook with unknown functions or loops anyway.
 //   describeProblem(problem) → one line for the status bar.
-export { exportWorkbookXlsx, exportWorkbookXlsxWithReport, XlsxExportError, type XlsxExportOptions, type XlsxExportReport } from './export.ts';
-export { importKvarXlsx, importKvarXlsx as importXlsx, type KvarImportOptions, type KvarImportResult } from './importKvar.ts';
+export {
+  exportWorkbookXlsx,
+  exportWorkbookXlsxWithReport,
+  XlsxExportError,
+  type XlsxExportOptions,
+  type XlsxExportReport,
+} from './export.ts';
+export {
+  importKvarXlsx,
+  importKvarXlsx as importXlsx,
+  type KvarImportOptions,
+  type KvarImportResult,
+} from './importKvar.ts';
 export { checkXlsxBytes } from './checkFile.ts';
 export { describeProblem, type FileProblem, type FileProblemCode } from './fileProblem.ts';
 export * from './limits.ts';

@@ -7,6 +7,8 @@ export type ExcelJS = typeof ExcelJSNamespace;
 let loading: Promise<ExcelJS> | undefined;
 
 export function loadExcelJs(): Promise<ExcelJS> {
-  loading ??= import('exceljs').then((m) => ((m as { default?: ExcelJS }).default ?? (m as unknown as ExcelJS)));
+  loading ??= import('exceljs').then(
+    (m) => (m as { default?: ExcelJS }).default ?? (m as unknown as ExcelJS),
+  );
   return loading;
 }

@@ -33,7 +33,8 @@ export type FingerprintCell =
   | { readonly col: number; readonly formula: string }
   /** A formula already normalised (normaliseFormula of its text), e.g. worked out once per shape. */
   | { readonly col: number; readonly normalised: string }
-  | { readonly col: number; readonly value: number | string | boolean } | { readonly col: number; readonly error: string };
+  | { readonly col: number; readonly value: number | string | boolean }
+  | { readonly col: number; readonly error: string };
 
 /**
  * A formula in a form that survives another program's re-saving: no spaces, upper-case names,
@@ -47,7 +48,9 @@ export function normaliseFormula(text: string): string {
   // every other rule is a plain substitution.
   return body
     .split(/("(?:[^"]|"")*"?|'(?:[^']|'')*'?)/)
-    .map((part, i) => (i % 2 === 0 ? normaliseOutsideText(part) : part.startsWith('"') ? part : sheetName(part)))
+    .map((part, i) =>
+      i % 2 === 0 ? normaliseOutsideText(part) : part.startsWith('"') ? part : sheetName(part),
+    )
     .join('');
 }
 
@@ -99,7 +102,14 @@ export function metaChunks(meta: ExportMeta): string[] {
 function isSheetDocLike(x: unknown): boolean {
   if (typeof x !== 'object' || x === null) return false;
   const s = x as { name?: unknown; cells?: unknown };
-  return typeof s.name === 'string' && Array.isArray(s.cells) && s.cells.every((r) => Array.isArray(r) && r.every((c) => c === null || ['number', 'string', 'boolean'].includes(typeof c)));
+  return (
+    typeof s.name === 'string' &&
+    Array.isArray(s.cells) &&
+    s.cells.every(
+      (r) =>
+        Array.isArray(r) && r.every((c) => c === null || ['number', 'string', 'boolean'].includes(typeof c)),
+    )
+  );
 }
 
 /** Parse and check the stored JSON; undefined when it is absent, damaged or of another version. */
@@ -108,9 +118,17 @@ export function parseMeta(json: string): ExportMeta | undefined {
     const m = JSON.parse(json) as Partial<ExportMeta>;
     if (m.format !== META_MARKER || m.version !== META_VERSION) return undefined;
     const doc = m.doc as Partial<WorkbookDoc> | undefined;
-    if (!doc || doc.format !== 'kvar-ledger-workbook' || !Array.isArray(doc.sheets) || !doc.sheets.every(isSheetDocLike)) return undefined;
+    if (
+      !doc ||
+      doc.format !== 'kvar-ledger-workbook' ||
+      !Array.isArray(doc.sheets) ||
+      !doc.sheets.every(isSheetDocLike)
+    )
+      return undefined;
     if (!Array.isArray(m.sheets) || !Array.isArray(m.generated)) return undefined;
-    const sheetsOk = m.sheets.every((s) => typeof s?.doc === 'string' && typeof s.file === 'string' && Array.isArray(s.rows));
+    const sheetsOk = m.sheets.every(
+      (s) => typeof s?.doc === 'string' && typeof s.file === 'string' && Array.isArray(s.rows),
+    );
     return sheetsOk ? (m as ExportMeta) : undefined;
   } catch {
     return undefined;

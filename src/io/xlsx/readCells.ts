@@ -6,7 +6,19 @@ import { fromFileFormula } from './functionNames.ts';
 import type { FingerprintCell } from './metadata.ts';
 
 /** exceljs ValueType numbers (lib/doc/enums.js), spelled out to avoid loading the library for them. */
-const T = { Null: 0, Merge: 1, Number: 2, String: 3, Date: 4, Hyperlink: 5, Formula: 6, SharedString: 7, RichText: 8, Boolean: 9, Error: 10 } as const;
+const T = {
+  Null: 0,
+  Merge: 1,
+  Number: 2,
+  String: 3,
+  Date: 4,
+  Hyperlink: 5,
+  Formula: 6,
+  SharedString: 7,
+  RichText: 8,
+  Boolean: 9,
+  Error: 10,
+} as const;
 
 const DAY_MS = 86_400_000;
 const EPOCH_1900 = Date.UTC(1899, 11, 30);

@@ -10,11 +10,15 @@ const FORBIDDEN = /[\\/?*[\]:]/;
 /** Why a sheet name cannot be stored in an xlsx, or undefined when it can. */
 export function sheetNameProblem(name: string): string | undefined {
   if (name.trim() === '') return 'a sheet name must not be blank';
-  if (name.length > MAX_SHEET_NAME_LENGTH) return `sheet name "${name}" is ${name.length} characters long; at most ${MAX_SHEET_NAME_LENGTH} are allowed in xlsx`;
+  if (name.length > MAX_SHEET_NAME_LENGTH)
+    return `sheet name "${name}" is ${name.length} characters long; at most ${MAX_SHEET_NAME_LENGTH} are allowed in xlsx`;
   const bad = FORBIDDEN.exec(name);
-  if (bad) return `sheet name "${name}" contains "${bad[0]}", which xlsx does not allow in sheet names (\\ / ? * [ ] :)`;
-  if (name.startsWith("'") || name.endsWith("'")) return `sheet name "${name}" starts or ends with an apostrophe, which xlsx does not allow`;
-  if (name.toLowerCase() === 'history') return 'a sheet may not be named "History" in xlsx (the name is reserved)';
+  if (bad)
+    return `sheet name "${name}" contains "${bad[0]}", which xlsx does not allow in sheet names (\\ / ? * [ ] :)`;
+  if (name.startsWith("'") || name.endsWith("'"))
+    return `sheet name "${name}" starts or ends with an apostrophe, which xlsx does not allow`;
+  if (name.toLowerCase() === 'history')
+    return 'a sheet may not be named "History" in xlsx (the name is reserved)';
   return undefined;
 }
 

@@ -56,7 +56,9 @@ async function* inflated(bytes: Uint8Array, e: ZipEntry, start: number): AsyncGe
     yield data;
     return;
   }
-  const stream = new Blob([data as Uint8Array<ArrayBuffer>]).stream().pipeThrough(new DecompressionStream('deflate-raw'));
+  const stream = new Blob([data as Uint8Array<ArrayBuffer>])
+    .stream()
+    .pipeThrough(new DecompressionStream('deflate-raw'));
   const reader = stream.getReader();
   try {
     for (;;) {
@@ -71,7 +73,12 @@ async function* inflated(bytes: Uint8Array, e: ZipEntry, start: number): AsyncGe
 
 async function scanOne(bytes: Uint8Array, e: ZipEntry, limits: XlsxLimits): Promise<FileResult<SheetExtent>> {
   const start = entryDataOffset(bytes, e);
-  if (start === undefined) return fail('truncated', 'the file is truncated or damaged (a worksheet is cut short); copy or download it again', e.name);
+  if (start === undefined)
+    return fail(
+      'truncated',
+      'the file is truncated or damaged (a worksheet is cut short); copy or download it again',
+      e.name,
+    );
   const counter = new ExtentCounter();
   const decoder = new TextDecoder();
   let produced = 0;
@@ -79,28 +86,55 @@ async function scanOne(bytes: Uint8Array, e: ZipEntry, limits: XlsxLimits): Prom
     for await (const chunk of inflated(bytes, e, start)) {
       produced += chunk.length;
       if (produced > e.uncompressedSize || produced > limits.entryBytes) {
-        return fail('zip-bomb', `a worksheet inflates beyond the ${formatBytes(e.uncompressedSize)} its directory declares`, e.name);
+        return fail(
+          'zip-bomb',
+          `a worksheet inflates beyond the ${formatBytes(e.uncompressedSize)} its directory declares`,
+          e.name,
+        );
       }
       counter.feed(decoder.decode(chunk, { stream: true }), false);
       if (counter.rows > limits.sheetRows || counter.maxRow > limits.sheetRows) {
-        return fail('too-many-rows', `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted`, e.name);
+        return fail(
+          'too-many-rows',
+          `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted`,
+          e.name,
+        );
       }
       if (counter.maxColumn > limits.sheetColumns) {
-        return fail('too-many-columns', `a worksheet uses more than ${limits.sheetColumns} columns, the most accepted`, e.name);
+        return fail(
+          'too-many-columns',
+          `a worksheet uses more than ${limits.sheetColumns} columns, the most accepted`,
+          e.name,
+        );
       }
     }
     counter.feed(decoder.decode(), true);
   } catch {
-    return fail('corrupt', 'a worksheet cannot be inflated (damaged data); copy or download the file again', e.name);
+    return fail(
+      'corrupt',
+      'a worksheet cannot be inflated (damaged data); copy or download the file again',
+      e.name,
+    );
   }
   if (counter.rows > limits.sheetRows || counter.maxRow > limits.sheetRows) {
-    return fail('too-many-rows', `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted`, e.name);
+    return fail(
+      'too-many-rows',
+      `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted`,
+      e.name,
+    );
   }
-  return { ok: true, value: { entry: e.name, rows: counter.rows, maxRow: counter.maxRow, maxColumn: counter.maxColumn } };
+  return {
+    ok: true,
+    value: { entry: e.name, rows: counter.rows, maxRow: counter.maxRow, maxColumn: counter.maxColumn },
+  };
 }
 
 /** Scan every worksheet entry; the first problem found wins. */
-export async function scanWorksheets(bytes: Uint8Array, entries: readonly ZipEntry[], limits: XlsxLimits): Promise<FileResult<SheetExtent[]>> {
+export async function scanWorksheets(
+  bytes: Uint8Array,
+  entries: readonly ZipEntry[],
+  limits: XlsxLimits,
+): Promise<FileResult<SheetExtent[]>> {
   const out: SheetExtent[] = [];
   for (const e of entries.filter((x) => WORKSHEET_ENTRY.test(x.name))) {
     const r = await scanOne(bytes, e, limits);

@@ -46,11 +46,18 @@ function looksLikeText(bytes: Uint8Array): boolean {
 function notZip(bytes: Uint8Array): FileResult<ZipEntry[]> {
   if (startsWith(bytes, OLE_MAGIC)) {
     if (containsUtf16(bytes, 'EncryptedPackage') || containsUtf16(bytes, 'EncryptionInfo')) {
-      return fail('encrypted', 'the file is password-protected (an encrypted container); open it in its program, remove the password, save as .xlsx and try again');
+      return fail(
+        'encrypted',
+        'the file is password-protected (an encrypted container); open it in its program, remove the password, save as .xlsx and try again',
+      );
     }
-    return fail('legacy-xls', 'the file is an old binary .xls workbook, not .xlsx; save it as .xlsx (or export CSV) and try again');
+    return fail(
+      'legacy-xls',
+      'the file is an old binary .xls workbook, not .xlsx; save it as .xlsx (or export CSV) and try again',
+    );
   }
-  if (looksLikeText(bytes)) return fail('not-zip', 'the file is text, not an xlsx workbook; import it as CSV instead');
+  if (looksLikeText(bytes))
+    return fail('not-zip', 'the file is text, not an xlsx workbook; import it as CSV instead');
   return fail('not-zip', 'the file is not an xlsx workbook (it is not a zip archive)');
 }
 
@@ -85,7 +92,12 @@ function readDirectoryRecord(view: DataView, eocd: number): Directory | undefine
 }
 
 /** Sizes of 0xFFFFFFFF live in the zip64 extra field (id 1), in a fixed order. */
-function zip64Sizes(view: DataView, extraStart: number, extraLen: number, raw: { u: number; c: number; o: number }): { u: number; c: number; o: number } {
+function zip64Sizes(
+  view: DataView,
+  extraStart: number,
+  extraLen: number,
+  raw: { u: number; c: number; o: number },
+): { u: number; c: number; o: number } {
   let p = extraStart;
   const end = extraStart + extraLen;
   while (p + 4 <= end) {
@@ -115,14 +127,19 @@ function zip64Sizes(view: DataView, extraStart: number, extraLen: number, raw: {
 export function readZipDirectory(bytes: Uint8Array, limits: XlsxLimits): FileResult<ZipEntry[]> {
   if (bytes.length === 0) return fail('empty', 'the file is empty (0 bytes)');
   if (bytes.length > limits.fileBytes) {
-    return fail('too-large', `the file is ${formatBytes(bytes.length)}; the largest accepted is ${formatBytes(limits.fileBytes)}`);
+    return fail(
+      'too-large',
+      `the file is ${formatBytes(bytes.length)}; the largest accepted is ${formatBytes(limits.fileBytes)}`,
+    );
   }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   if (bytes.length < 4 || view.getUint32(0, true) !== SIG_LOCAL) {
-    if (bytes.length >= 4 && view.getUint32(0, true) === SIG_EOCD) return fail('empty', 'the file is an empty zip archive, not an xlsx workbook');
+    if (bytes.length >= 4 && view.getUint32(0, true) === SIG_EOCD)
+      return fail('empty', 'the file is an empty zip archive, not an xlsx workbook');
     return notZip(bytes);
   }
-  const truncated = (why: string) => fail<ZipEntry[]>('truncated', `the file is truncated or damaged (${why}); copy or download it again`);
+  const truncated = (why: string) =>
+    fail<ZipEntry[]>('truncated', `the file is truncated or damaged (${why}); copy or download it again`);
   if (bytes.length < 22) return truncated('shorter than a zip directory');
   const eocd = findEndOfDirectory(view);
   if (eocd < 0) return truncated('its zip directory at the end is missing');
@@ -138,7 +155,8 @@ export function readZipDirectory(bytes: Uint8Array, limits: XlsxLimits): FileRes
   let total = 0;
   const decoder = new TextDecoder();
   for (let i = 0; i < dir.count; i++) {
-    if (p + 46 > eocd || view.getUint32(p, true) !== SIG_CENTRAL) return truncated(`zip directory entry ${i + 1} is damaged`);
+    if (p + 46 > eocd || view.getUint32(p, true) !== SIG_CENTRAL)
+      return truncated(`zip directory entry ${i + 1} is damaged`);
     const flags = view.getUint16(p + 8, true);
     const method = view.getUint16(p + 10, true);
     const nameLen = view.getUint16(p + 28, true);
@@ -150,20 +168,48 @@ export function readZipDirectory(bytes: Uint8Array, limits: XlsxLimits): FileRes
       u: view.getUint32(p + 24, true),
       o: view.getUint32(p + 42, true),
     });
-    if (flags & 1) return fail('encrypted', 'the archive is password-protected; save an unprotected copy and try again', name);
-    if (method !== 0 && method !== 8) return fail('corrupt', `the entry uses compression method ${method}; only stored and deflate are read`, name);
-    if (sizes.o + 30 + sizes.c > bytes.length) return truncated(`entry ${name} runs past the end of the file`);
+    if (flags & 1)
+      return fail(
+        'encrypted',
+        'the archive is password-protected; save an unprotected copy and try again',
+        name,
+      );
+    if (method !== 0 && method !== 8)
+      return fail(
+        'corrupt',
+        `the entry uses compression method ${method}; only stored and deflate are read`,
+        name,
+      );
+    if (sizes.o + 30 + sizes.c > bytes.length)
+      return truncated(`entry ${name} runs past the end of the file`);
     if (sizes.u > limits.entryBytes) {
-      return fail('zip-bomb', `an entry inflates to ${formatBytes(sizes.u)}; the largest accepted is ${formatBytes(limits.entryBytes)}`, name);
+      return fail(
+        'zip-bomb',
+        `an entry inflates to ${formatBytes(sizes.u)}; the largest accepted is ${formatBytes(limits.entryBytes)}`,
+        name,
+      );
     }
     if (sizes.u > limits.ratioCheckMinBytes && sizes.u > limits.compressionRatio * Math.max(1, sizes.c)) {
-      return fail('zip-bomb', `an entry inflates ${Math.round(sizes.u / Math.max(1, sizes.c))}× (${formatBytes(sizes.c)} to ${formatBytes(sizes.u)}); at most ${limits.compressionRatio}× is accepted`, name);
+      return fail(
+        'zip-bomb',
+        `an entry inflates ${Math.round(sizes.u / Math.max(1, sizes.c))}× (${formatBytes(sizes.c)} to ${formatBytes(sizes.u)}); at most ${limits.compressionRatio}× is accepted`,
+        name,
+      );
     }
     total += sizes.u;
     if (total > limits.uncompressedBytes) {
-      return fail('zip-bomb', `the archive inflates to more than ${formatBytes(limits.uncompressedBytes)}, the most accepted`);
+      return fail(
+        'zip-bomb',
+        `the archive inflates to more than ${formatBytes(limits.uncompressedBytes)}, the most accepted`,
+      );
     }
-    entries.push({ name, method, compressedSize: sizes.c, uncompressedSize: sizes.u, localHeaderOffset: sizes.o });
+    entries.push({
+      name,
+      method,
+      compressedSize: sizes.c,
+      uncompressedSize: sizes.u,
+      localHeaderOffset: sizes.o,
+    });
     p += 46 + nameLen + extraLen + commentLen;
   }
   return { ok: true, value: entries };

@@ -42,23 +42,34 @@ export class App {
   private scanQueued: ReturnType<typeof setTimeout> | undefined;
   private errors: ErrorTracker | undefined;
 
-  constructor(readonly root: HTMLElement, readonly store: WorkbookStore | undefined, standardNames: readonly string[]) {
+  constructor(
+    readonly root: HTMLElement,
+    readonly store: WorkbookStore | undefined,
+    standardNames: readonly string[],
+  ) {
     const app = this; // eslint-disable-line @typescript-eslint/no-this-alias -- getters below read the current session
     this.assist = new FormulaAssist(standardNames, (f) => this.formulaBar.mirror(f.value));
     this.formulaBar = new FormulaBar({
-      get session() { return app.session; },
+      get session() {
+        return app.session;
+      },
       assist: this.assist,
       columns: (id) => this.session.meta(id).columns,
       hasHeaderRow: (id) => (this.session.meta(id).columns?.length ?? 0) > 0,
       returnFocus: () => this.grid.focus(),
     });
     this.sheets = new SheetList({
-      get session() { return app.session; },
+      get session() {
+        return app.session;
+      },
       current: () => this.sheet,
       open: (id) => this.openSheet(id),
       notice: (t, k) => this.status.show(t, k),
     });
-    this.status = new StatusBar(() => this.nextError(), () => openAbout(CATALOGUE.length));
+    this.status = new StatusBar(
+      () => this.nextError(),
+      () => openAbout(CATALOGUE.length),
+    );
     this.reference = new FunctionReference({
       session: () => this.session,
       currentSheet: () => this.sheet,
@@ -72,13 +83,23 @@ export class App {
     root.append(
       top.root,
       this.formulaBar.root,
-      el('div', { className: 'kl-main' }, [this.sheets.root, el('section', { className: 'kl-work' }, [this.caption, this.gridHost]), this.side.root]),
+      el('div', { className: 'kl-main' }, [
+        this.sheets.root,
+        el('section', { className: 'kl-work' }, [this.caption, this.gridHost]),
+        this.side.root,
+      ]),
       this.status.root,
     );
     if (store) {
-      this.autosaver = new Autosaver(store, () => this.session.toDoc(), { onStatus: (s) => this.status.saveStatus(s) });
+      this.autosaver = new Autosaver(store, () => this.session.toDoc(), {
+        onStatus: (s) => this.status.saveStatus(s),
+      });
     } else {
-      this.status.saveStatus({ state: 'failed', message: 'Browser storage is not available here, so changes are NOT kept when the page closes. Save the workbook to a file to keep it.' });
+      this.status.saveStatus({
+        state: 'failed',
+        message:
+          'Browser storage is not available here, so changes are NOT kept when the page closes. Save the workbook to a file to keep it.',
+      });
     }
   }
 
@@ -129,14 +150,20 @@ export class App {
     try {
       next = WorkbookSession.fromDoc(doc);
     } catch (e) {
-      this.status.show(`The workbook could not be opened: ${e instanceof Error ? e.message : String(e)}. The open workbook is unchanged.`, 'error', 0);
+      this.status.show(
+        `The workbook could not be opened: ${e instanceof Error ? e.message : String(e)}. The open workbook is unchanged.`,
+        'error',
+        0,
+      );
       return false;
     }
     let aside = '';
     if (this.store) {
       await this.flush();
       const r = await this.store.setAside(this.session.toDoc());
-      aside = r.ok ? ' The workbook it replaced is set aside: Workbook → Bring back the replaced workbook.' : ` The workbook it replaced could not be set aside (${r.message}).`;
+      aside = r.ok
+        ? ' The workbook it replaced is set aside: Workbook → Bring back the replaced workbook.'
+        : ` The workbook it replaced could not be set aside (${r.message}).`;
     }
     this.show(next, { note: note + aside, changed: true });
     return true;
@@ -157,7 +184,10 @@ export class App {
     this.sheets.render();
     const name = this.session.sheetName(id);
     const purpose = this.session.meta(id).purpose;
-    this.caption.replaceChildren(el('strong', { text: name }), purpose ? el('span', { text: ` — ${purpose}` }) : '');
+    this.caption.replaceChildren(
+      el('strong', { text: name }),
+      purpose ? el('span', { text: ` — ${purpose}` }) : '',
+    );
     this.queueScan();
   }
 
@@ -172,7 +202,10 @@ export class App {
 
   private openSheetCaption(): void {
     const purpose = this.session.meta(this.sheet).purpose;
-    this.caption.replaceChildren(el('strong', { text: this.session.sheetName(this.sheet) }), purpose ? el('span', { text: ` — ${purpose}` }) : '');
+    this.caption.replaceChildren(
+      el('strong', { text: this.session.sheetName(this.sheet) }),
+      purpose ? el('span', { text: ` — ${purpose}` }) : '',
+    );
   }
 
   private onSelect(sel: Selection): void {
@@ -202,9 +235,9 @@ export class App {
     const mod = e.ctrlKey || e.metaKey;
     if (!mod || e.altKey) return false;
     const k = e.key.toLowerCase();
-    if (k === 'z' && !e.shiftKey) return this.undo(), true;
-    if (k === 'y' || (k === 'z' && e.shiftKey)) return this.redo(), true;
-    if (k === 'd') return this.run(() => fillDown(this.grid)), true;
+    if (k === 'z' && !e.shiftKey) return (this.undo(), true);
+    if (k === 'y' || (k === 'z' && e.shiftKey)) return (this.redo(), true);
+    if (k === 'd') return (this.run(() => fillDown(this.grid)), true);
     return false;
   }
 

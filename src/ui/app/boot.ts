@@ -35,11 +35,17 @@ export async function boot(root: HTMLElement): Promise<App> {
     app.grid.select(row - 1, 0);
   };
 
-  const restored = store ? await store.load().catch(() => ({ found: false as const, note: 'The saved workbook could not be read.' })) : undefined;
+  const restored = store
+    ? await store
+        .load()
+        .catch(() => ({ found: false as const, note: 'The saved workbook could not be read.' }))
+    : undefined;
   let note = restored?.note;
   if (restored?.found) {
     try {
-      app.open(restored.doc, { note: note ?? `Welcome back: your workbook as saved ${new Date(restored.savedAt).toLocaleString()}.` });
+      app.open(restored.doc, {
+        note: note ?? `Welcome back: your workbook as saved ${new Date(restored.savedAt).toLocaleString()}.`,
+      });
     } catch (e) {
       // Never a dead page: the demo opens, and the stored workbook stays stored as the state before.
       note = `The workbook saved in this browser could not be opened (${e instanceof Error ? e.message : String(e)}).`;
@@ -47,7 +53,10 @@ export async function boot(root: HTMLElement): Promise<App> {
   }
   if (!app.hasWorkbook) {
     const demo = await templateWorkbook(DEMO_TEMPLATE);
-    app.open(demo, { note: `${note ? `${note} ` : ''}A demo workbook of an invented site is open. Start your own from Workbook → New from template, or import an equipment list.`, changed: true });
+    app.open(demo, {
+      note: `${note ? `${note} ` : ''}A demo workbook of an invented site is open. Start your own from Workbook → New from template, or import an equipment list.`,
+      changed: true,
+    });
   }
 
   // After the welcome note, so it stays in sight.

@@ -41,9 +41,11 @@ export class ErrorTracker {
   private scan(): void {
     this.cells = new Set();
     if (this.sheet >= 0 && this.engine.doesSheetExist(this.engine.getSheetName(this.sheet) ?? '')) {
-      this.engine.getSheetValues(this.sheet).forEach((row, r) => row.forEach((v, c) => {
-        if (v instanceof DetailedCellError) this.cells.add(key(r, c));
-      }));
+      this.engine.getSheetValues(this.sheet).forEach((row, r) =>
+        row.forEach((v, c) => {
+          if (v instanceof DetailedCellError) this.cells.add(key(r, c));
+        }),
+      );
     }
     this.fresh = true;
   }
@@ -56,7 +58,9 @@ export class ErrorTracker {
   /** Error cells in reading order. */
   list(): Array<[number, number]> {
     if (!this.fresh) this.scan();
-    return [...this.cells].map((k) => k.split(',').map(Number) as [number, number]).sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+    return [...this.cells]
+      .map((k) => k.split(',').map(Number) as [number, number])
+      .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   }
 
   dispose(): void {

@@ -8,14 +8,19 @@ import { templateIds, templateInfo, templateWorkbook } from '../templates/templa
 import type { App } from './app.ts';
 import { toResult } from '../../engine/index.ts';
 
-const REPLACE_NOTE = 'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
+const REPLACE_NOTE =
+  'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
 
 export async function newFromTemplate(app: App): Promise<void> {
   const ids = templateIds();
   const infos = await Promise.all(ids.map((id) => templateInfo(id).catch(() => undefined)));
   const cards = infos.flatMap((info) => {
     if (!info) return [];
-    const open = el('button', { className: 'kl-btn kl-btn-primary', text: 'Open', attrs: { type: 'button', 'data-testid': `template-${info.id}` } });
+    const open = el('button', {
+      className: 'kl-btn kl-btn-primary',
+      text: 'Open',
+      attrs: { type: 'button', 'data-testid': `template-${info.id}` },
+    });
     open.addEventListener('click', async () => {
       dlg.close();
       try {
@@ -24,24 +29,44 @@ export async function newFromTemplate(app: App): Promise<void> {
         app.status.show(e instanceof Error ? e.message : String(e), 'error', 0);
       }
     });
-    return [el('article', { className: 'kl-template' }, [
-      el('h3', { text: info.title }),
-      el('p', { className: 'kl-muted', text: `${info.items} items · ${info.buses} buses · cases: ${info.cases.join(', ')}` }),
-      ...info.notes.slice(0, 2).map((n) => el('p', { text: n })),
-      open,
-    ])];
+    return [
+      el('article', { className: 'kl-template' }, [
+        el('h3', { text: info.title }),
+        el('p', {
+          className: 'kl-muted',
+          text: `${info.items} items · ${info.buses} buses · cases: ${info.cases.join(', ')}`,
+        }),
+        ...info.notes.slice(0, 2).map((n) => el('p', { text: n })),
+        open,
+      ]),
+    ];
   });
-  const dlg = openDialog('New from template', [el('p', { className: 'kl-muted', text: REPLACE_NOTE }), el('div', { className: 'kl-template-list' }, cards)], [{ label: 'Cancel' }], { wide: true, testId: 'templates' });
+  const dlg = openDialog(
+    'New from template',
+    [
+      el('p', { className: 'kl-muted', text: REPLACE_NOTE }),
+      el('div', { className: 'kl-template-list' }, cards),
+    ],
+    [{ label: 'Cancel' }],
+    { wide: true, testId: 'templates' },
+  );
 }
 
 function refused(app: App, message: string): void {
   app.status.show(message, 'error', 0);
-  openDialog('The file was not opened', [el('p', { text: message }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }], { testId: 'open-failed' });
+  openDialog(
+    'The file was not opened',
+    [el('p', { text: message }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })],
+    [{ label: 'OK', kind: 'primary' }],
+    { testId: 'open-failed' },
+  );
 }
 
 /** Open the native file, or an xlsx (our own export comes back with its catalogue formulas). */
 export async function openFile(app: App): Promise<void> {
-  const file = await pickFile('.json,.kvar.json,application/json,.xlsx,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+  const file = await pickFile(
+    '.json,.kvar.json,application/json,.xlsx,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+  );
   if (!file) return;
   if (/\.xlsx$/i.test(file.name)) {
     app.status.show(`Reading "${file.name}"…`, 'info', 0);
@@ -74,10 +99,14 @@ export async function bringBack(app: App): Promise<void> {
     return;
   }
   const when = new Date(aside.savedAt).toLocaleString();
-  const ok = await confirmDialog('Bring back the replaced workbook?', [
-    `"${aside.doc.title}", as it was when it was replaced (${when}), takes the place of the open workbook.`,
-    'The open workbook is set aside in turn, so this can be reversed the same way.',
-  ], 'Bring back');
+  const ok = await confirmDialog(
+    'Bring back the replaced workbook?',
+    [
+      `"${aside.doc.title}", as it was when it was replaced (${when}), takes the place of the open workbook.`,
+      'The open workbook is set aside in turn, so this can be reversed the same way.',
+    ],
+    'Bring back',
+  );
   if (ok) await app.replaceWith(aside.doc, `Brought back "${aside.doc.title}".`);
 }
 
@@ -98,15 +127,28 @@ export async function exportXlsx(app: App): Promise<void> {
     const r = await handOff(session.toDoc(), valueAt, resultAt);
     const name = fileNameFor(session.title, '.xlsx');
     download(r.bytes as BlobPart, name, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-    const caveat = [r.note, r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined].filter(Boolean).join('; ');
-    app.status.show(caveat ? `Exported ${name}, but ${caveat}.` : `Exported ${name}: formulas stay live in other spreadsheet programs.`, caveat ? 'error' : 'info', caveat ? 0 : 8000);
+    const caveat = [
+      r.note,
+      r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined,
+    ]
+      .filter(Boolean)
+      .join('; ');
+    app.status.show(
+      caveat
+        ? `Exported ${name}, but ${caveat}.`
+        : `Exported ${name}: formulas stay live in other spreadsheet programs.`,
+      caveat ? 'error' : 'info',
+      caveat ? 0 : 8000,
+    );
   } catch (e) {
     app.status.show(`Export failed: ${e instanceof Error ? e.message : String(e)}`, 'error', 0);
   }
 }
 
 export async function importEquipmentList(app: App): Promise<void> {
-  const file = await pickFile('.xlsx,.csv,.txt,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+  const file = await pickFile(
+    '.xlsx,.csv,.txt,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+  );
   if (!file) return;
   try {
     const { runImport } = await import('../import/importDialog.ts');

@@ -30,12 +30,22 @@ export function handOffDoc(doc: WorkbookDoc, valueAt?: ValueReader): HandOffDoc 
   const read = siteFromWorkbook(doc, valueAt ? { valueAt } : {});
   const errors = read.problems.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
-    return { doc, settings: read.site.settings, note: `the inputs could not all be read (${errors[0]?.message}${errors.length > 1 ? `, and ${errors.length - 1} more` : ''}), so bus totals go out as values` };
+    return {
+      doc,
+      settings: read.site.settings,
+      note: `the inputs could not all be read (${errors[0]?.message}${errors.length > 1 ? `, and ${errors.length - 1} more` : ''}), so bus totals go out as values`,
+    };
   }
   const portable = buildWorkbook(read.site, { flavour: 'portable', banks: read.banks });
-  const extra = doc.sheets.filter((s) => !portable.sheets.some((p) => p.name.toLowerCase() === s.name.toLowerCase()));
+  const extra = doc.sheets.filter(
+    (s) => !portable.sheets.some((p) => p.name.toLowerCase() === s.name.toLowerCase()),
+  );
   const liveTwin = () => buildWorkbook(read.site, { flavour: 'live', banks: read.banks });
-  return { doc: { ...portable, title: doc.title, sheets: [...portable.sheets, ...extra] }, settings: read.site.settings, liveTwin };
+  return {
+    doc: { ...portable, title: doc.title, sheets: [...portable.sheets, ...extra] },
+    settings: read.site.settings,
+    liveTwin,
+  };
 }
 
 /**
@@ -47,7 +57,11 @@ function engineMatches(out: HandOffDoc, doc: WorkbookDoc): boolean {
   if (!out.liveTwin || !alignedWith(out.doc, doc)) return false;
   return out.liveTwin().sheets.every((t) => {
     const s = doc.sheets.find((d) => d.name === t.name);
-    return s !== undefined && s.cells.length === t.cells.length && t.cells.every((row, r) => row.every((c, k) => (s.cells[r]?.[k] ?? null) === c));
+    return (
+      s !== undefined &&
+      s.cells.length === t.cells.length &&
+      t.cells.every((row, r) => row.every((c, k) => (s.cells[r]?.[k] ?? null) === c))
+    );
   });
 }
 
@@ -59,15 +73,24 @@ export type ResultReader = (sheet: string, row: number, col: number) => CellResu
  * the builder made both), the cached results come straight from the app's engine, already
  * computed; otherwise the exporter computes them itself (slower on large sites).
  */
-export async function handOff(doc: WorkbookDoc, valueAt?: ValueReader, resultAt?: ResultReader): Promise<{ bytes: Uint8Array; issues: number; note?: string }> {
+export async function handOff(
+  doc: WorkbookDoc,
+  valueAt?: ValueReader,
+  resultAt?: ResultReader,
+): Promise<{ bytes: Uint8Array; issues: number; note?: string }> {
   const out = handOffDoc(doc, valueAt);
   const cached = resultAt && engineMatches(out, doc) ? { valueAt: resultAt } : {};
-  const r = await exportWorkbookXlsxWithReport(out.doc, { ...(out.settings ? { settings: out.settings } : {}), ...cached });
+  const r = await exportWorkbookXlsxWithReport(out.doc, {
+    ...(out.settings ? { settings: out.settings } : {}),
+    ...cached,
+  });
   return { bytes: r.bytes, issues: r.issues.length, ...(out.note ? { note: out.note } : {}) };
 }
 
 /** Open an xlsx (our own export comes back with its catalogue formulas). */
-export async function openXlsx(bytes: Uint8Array): Promise<{ ok: true; doc: WorkbookDoc; notes: readonly string[] } | { ok: false; message: string }> {
+export async function openXlsx(
+  bytes: Uint8Array,
+): Promise<{ ok: true; doc: WorkbookDoc; notes: readonly string[] } | { ok: false; message: string }> {
   const r = await importKvarXlsx(bytes);
   return r.ok ? { ok: true, doc: r.doc, notes: r.notes } : { ok: false, message: describeProblem(r.problem) };
 }

@@ -13,10 +13,18 @@ export class SidePanel {
 
   constructor() {
     this.title = el('span', { className: 'kl-pane-title' });
-    const close = el('button', { className: 'kl-icon-btn', text: '×', title: 'Close the panel', attrs: { type: 'button', 'aria-label': 'Close the panel' } });
+    const close = el('button', {
+      className: 'kl-icon-btn',
+      text: '×',
+      title: 'Close the panel',
+      attrs: { type: 'button', 'aria-label': 'Close the panel' },
+    });
     close.addEventListener('click', () => this.toggle(undefined));
     this.body = el('div', { className: 'kl-side-body' });
-    this.root = el('aside', { className: 'kl-side', attrs: { 'data-testid': 'side-panel' } }, [el('div', { className: 'kl-pane-head' }, [this.title, close]), this.body]);
+    this.root = el('aside', { className: 'kl-side', attrs: { 'data-testid': 'side-panel' } }, [
+      el('div', { className: 'kl-pane-head' }, [this.title, close]),
+      this.body,
+    ]);
     this.root.hidden = true;
   }
 

@@ -5,18 +5,37 @@ import { menuButton } from '../menu.ts';
 import { openAbout } from '../dialogs/about.ts';
 import { deleteRows, fillDown, insertRows } from '../grid/gridMenu.ts';
 import type { App } from './app.ts';
-import { bringBack, exportXlsx, importEquipmentList, newFromTemplate, openFile, saveFile } from './fileActions.ts';
+import {
+  bringBack,
+  exportXlsx,
+  importEquipmentList,
+  newFromTemplate,
+  openFile,
+  saveFile,
+} from './fileActions.ts';
 import type { PanelName } from './sidePanel.ts';
 
 function mark(): SVGSVGElement {
   // Our mark: a right triangle (P along, Q up) with its hypotenuse, in two strokes.
-  const m = svg('svg', { viewBox: '0 0 24 24', width: 22, height: 22, class: 'kl-mark', 'aria-hidden': 'true' });
-  m.append(svg('path', { d: 'M3 20 H21 V6', class: 'kl-mark-legs' }), svg('path', { d: 'M3 20 L21 6', class: 'kl-mark-hyp' }));
+  const m = svg('svg', {
+    viewBox: '0 0 24 24',
+    width: 22,
+    height: 22,
+    class: 'kl-mark',
+    'aria-hidden': 'true',
+  });
+  m.append(
+    svg('path', { d: 'M3 20 H21 V6', class: 'kl-mark-legs' }),
+    svg('path', { d: 'M3 20 L21 6', class: 'kl-mark-hyp' }),
+  );
   return m;
 }
 
 export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElement } {
-  const title = el('input', { className: 'kl-title', attrs: { type: 'text', 'aria-label': 'Workbook title', spellcheck: 'false', 'data-testid': 'title' } });
+  const title = el('input', {
+    className: 'kl-title',
+    attrs: { type: 'text', 'aria-label': 'Workbook title', spellcheck: 'false', 'data-testid': 'title' },
+  });
   const commitTitle = () => app.session.setTitle(title.value);
   title.addEventListener('change', commitTitle);
   title.addEventListener('keydown', (e) => {
@@ -25,31 +44,63 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
       app.grid.focus();
     }
   });
-  const workbook = menuButton('Workbook', [
-    { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
-    { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
-    { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
-    { label: 'Bring back the replaced workbook…', run: () => void bringBack(app), testId: 'menu-bring-back', enabled: () => app.store !== undefined },
-    'separator',
-    { label: 'Import equipment list…', hint: '.xlsx .csv', run: () => void importEquipmentList(app), testId: 'menu-import' },
-    { label: 'Export for other spreadsheet programs', hint: '.xlsx', run: () => void exportXlsx(app), testId: 'menu-export' },
-  ], 'menu-workbook');
-  const edit = menuButton('Edit', [
-    { label: 'Undo', hint: 'Ctrl+Z', run: () => app.undo(), enabled: () => app.session.canUndo },
-    { label: 'Redo', hint: 'Ctrl+Y', run: () => app.redo(), enabled: () => app.session.canRedo },
-    'separator',
-    { label: 'Fill down', hint: 'Ctrl+D', run: () => app.run(() => fillDown(app.grid)) },
-    { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
-    { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
-    { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
-  ], 'menu-edit');
+  const workbook = menuButton(
+    'Workbook',
+    [
+      { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
+      { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
+      { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
+      {
+        label: 'Bring back the replaced workbook…',
+        run: () => void bringBack(app),
+        testId: 'menu-bring-back',
+        enabled: () => app.store !== undefined,
+      },
+      'separator',
+      {
+        label: 'Import equipment list…',
+        hint: '.xlsx .csv',
+        run: () => void importEquipmentList(app),
+        testId: 'menu-import',
+      },
+      {
+        label: 'Export for other spreadsheet programs',
+        hint: '.xlsx',
+        run: () => void exportXlsx(app),
+        testId: 'menu-export',
+      },
+    ],
+    'menu-workbook',
+  );
+  const edit = menuButton(
+    'Edit',
+    [
+      { label: 'Undo', hint: 'Ctrl+Z', run: () => app.undo(), enabled: () => app.session.canUndo },
+      { label: 'Redo', hint: 'Ctrl+Y', run: () => app.redo(), enabled: () => app.session.canRedo },
+      'separator',
+      { label: 'Fill down', hint: 'Ctrl+D', run: () => app.run(() => fillDown(app.grid)) },
+      { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
+      { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
+      { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
+    ],
+    'menu-edit',
+  );
   const iconButton = (text: string, label: string, run: () => void, testId: string) => {
-    const b = el('button', { className: 'kl-icon-btn', text, title: label, attrs: { type: 'button', 'aria-label': label, 'data-testid': testId } });
+    const b = el('button', {
+      className: 'kl-icon-btn',
+      text,
+      title: label,
+      attrs: { type: 'button', 'aria-label': label, 'data-testid': testId },
+    });
     b.addEventListener('click', run);
     return b;
   };
   const toggle = (name: PanelName, label: string) => {
-    const b = el('button', { className: 'kl-toggle', text: label, attrs: { type: 'button', 'aria-pressed': 'false', 'data-testid': `toggle-${name}` } });
+    const b = el('button', {
+      className: 'kl-toggle',
+      text: label,
+      attrs: { type: 'button', 'aria-pressed': 'false', 'data-testid': `toggle-${name}` },
+    });
     b.addEventListener('click', () => app.side.toggle(name));
     return b;
   };
@@ -64,10 +115,17 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
     checksToggle.setAttribute('aria-pressed', String(shown === 'checks'));
     if (app.checks) app.checks.visible = shown === 'checks';
   };
-  const about = el('button', { className: 'kl-toggle kl-about-btn', text: 'About & cautions', attrs: { type: 'button', 'data-testid': 'about-open' } });
-  about.addEventListener("click", () => openAbout(app.catalogueSize()));
+  const about = el('button', {
+    className: 'kl-toggle kl-about-btn',
+    text: 'About & cautions',
+    attrs: { type: 'button', 'data-testid': 'about-open' },
+  });
+  about.addEventListener('click', () => openAbout(app.catalogueSize()));
   const root = el('header', { className: 'kl-top' }, [
-    el('div', { className: 'kl-brand' }, [mark(), el('span', { className: 'kl-brand-name', text: 'Kvar Ledger' })]),
+    el('div', { className: 'kl-brand' }, [
+      mark(),
+      el('span', { className: 'kl-brand-name', text: 'Kvar Ledger' }),
+    ]),
     title,
     el('nav', { className: 'kl-commands', attrs: { 'aria-label': 'Commands' } }, [
       workbook,

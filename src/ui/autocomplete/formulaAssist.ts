@@ -1,7 +1,14 @@
 // The typing help that floats under the cell editor or the formula bar: matching functions while
 // a name is typed, then the signature with the argument in progress, its unit and allowed range.
 import { clear, el } from '../dom.ts';
-import { accept, nameAtCursor, signatureAtCursor, suggestions, type Signature, type Suggestion } from './suggest.ts';
+import {
+  accept,
+  nameAtCursor,
+  signatureAtCursor,
+  suggestions,
+  type Signature,
+  type Suggestion,
+} from './suggest.ts';
 
 type Field = HTMLInputElement | HTMLTextAreaElement;
 
@@ -14,10 +21,16 @@ export class FormulaAssist {
   private active = 0;
   private readonly attached = new WeakSet<Field>();
 
-  constructor(private readonly standardNames: readonly string[], private readonly onTextChange?: (f: Field) => void) {
+  constructor(
+    private readonly standardNames: readonly string[],
+    private readonly onTextChange?: (f: Field) => void,
+  ) {
     this.list = el('ul', { className: 'kl-assist-list', attrs: { role: 'listbox' } });
     this.hint = el('div', { className: 'kl-assist-hint' });
-    this.box = el('div', { className: 'kl-assist', attrs: { 'data-testid': 'assist' } }, [this.list, this.hint]);
+    this.box = el('div', { className: 'kl-assist', attrs: { 'data-testid': 'assist' } }, [
+      this.list,
+      this.hint,
+    ]);
     // Clicks inside keep the focus in the field being typed into.
     this.box.addEventListener('mousedown', (e) => e.preventDefault());
     this.box.hidden = true;
@@ -82,7 +95,8 @@ export class FormulaAssist {
     const cursor = f.selectionStart ?? f.value.length;
     const at = withList ? nameAtCursor(f.value, cursor) : undefined;
     this.items = at ? suggestions(at.prefix, this.standardNames) : [];
-    if (this.items.length === 1 && at && this.items[0]?.name === at.prefix && f.value[at.end] === '(') this.items = [];
+    if (this.items.length === 1 && at && this.items[0]?.name === at.prefix && f.value[at.end] === '(')
+      this.items = [];
     this.active = Math.min(this.active, Math.max(0, this.items.length - 1));
     const sig = this.items.length ? undefined : signatureAtCursor(f.value, cursor);
     this.renderList();
@@ -108,10 +122,17 @@ export class FormulaAssist {
   private renderList(): void {
     clear(this.list);
     this.items.forEach((s, i) => {
-      const li = el('li', { className: `kl-assist-item${i === this.active ? ' is-active' : ''}${s.catalogue ? '' : ' is-standard'}`, attrs: { role: 'option' } }, [
-        el('span', { className: 'kl-assist-name', text: s.name }),
-        el('span', { className: 'kl-assist-detail', text: s.detail }),
-      ]);
+      const li = el(
+        'li',
+        {
+          className: `kl-assist-item${i === this.active ? ' is-active' : ''}${s.catalogue ? '' : ' is-standard'}`,
+          attrs: { role: 'option' },
+        },
+        [
+          el('span', { className: 'kl-assist-name', text: s.name }),
+          el('span', { className: 'kl-assist-detail', text: s.detail }),
+        ],
+      );
       li.addEventListener('click', () => this.choose(i));
       this.list.append(li);
     });
@@ -122,13 +143,17 @@ export class FormulaAssist {
     clear(this.hint);
     this.hint.hidden = !sig;
     if (!sig) return;
-    const line = el('div', { className: 'kl-sig' }, [el('span', { className: 'kl-sig-name', text: sig.spec.name }), '(']);
+    const line = el('div', { className: 'kl-sig' }, [
+      el('span', { className: 'kl-sig-name', text: sig.spec.name }),
+      '(',
+    ]);
     sig.parts.forEach((p, i) => {
       if (i > 0) line.append(', ');
       line.append(el('span', { className: p.active ? 'kl-sig-arg is-active' : 'kl-sig-arg', text: p.text }));
     });
     line.append(')');
-    if (sig.spec.result.unit && sig.spec.result.unit !== '1') line.append(el('span', { className: 'kl-sig-result', text: ` → ${sig.spec.result.unit}` }));
+    if (sig.spec.result.unit && sig.spec.result.unit !== '1')
+      line.append(el('span', { className: 'kl-sig-result', text: ` → ${sig.spec.result.unit}` }));
     this.hint.append(line);
     const cur = sig.current;
     if (cur) {
@@ -136,7 +161,12 @@ export class FormulaAssist {
       if (cur.default !== undefined) bits.push(`optional, default ${cur.default}`);
       this.hint.append(el('div', { className: 'kl-sig-doc', text: bits.join(' · ') }));
     } else if (sig.argIndex >= sig.parts.length) {
-      this.hint.append(el('div', { className: 'kl-sig-doc is-warn', text: `${sig.spec.name} takes at most ${sig.parts.length} arguments` }));
+      this.hint.append(
+        el('div', {
+          className: 'kl-sig-doc is-warn',
+          text: `${sig.spec.name} takes at most ${sig.parts.length} arguments`,
+        }),
+      );
     } else {
       this.hint.append(el('div', { className: 'kl-sig-doc', text: sig.spec.summary }));
     }

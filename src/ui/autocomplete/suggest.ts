@@ -30,7 +30,8 @@ export function nameAtCursor(text: string, cursor: number): NameAtCursor | undef
   if (prev !== undefined && !/[=(,;+\-*/^&<>%\s{]/.test(prev)) return undefined;
   // Not inside a string literal, and not a cell reference such as B12.
   const inside = tokenize(text).find((t) => t.start < cursor && cursor <= t.end);
-  if (inside && (inside.kind === 'string' || (inside.kind === 'ref' && inside.end === cursor))) return undefined;
+  if (inside && (inside.kind === 'string' || (inside.kind === 'ref' && inside.end === cursor)))
+    return undefined;
   let end = cursor;
   while (end < text.length && /[A-Za-z0-9_.]/.test(text[end] as string)) end++;
   return { start, end, prefix: m[0].toUpperCase() };
@@ -126,7 +127,9 @@ export function signatureAtCursor(text: string, cursor: number): Signature | und
 
 /** 'KVAR.MOTOR(p_out_kw kW, eff, …) → kvar' as one line of text. */
 export function signatureText(spec: FunctionSpec): string {
-  const args = signatureOf(spec).parts.map((p) => p.text).join(', ');
+  const args = signatureOf(spec)
+    .parts.map((p) => p.text)
+    .join(', ');
   const unit = spec.result.unit && spec.result.unit !== '1' ? ` → ${spec.result.unit}` : '';
   return `${spec.name}(${args})${unit}`;
 }

@@ -4,33 +4,76 @@ import { svg } from '../dom.ts';
 import { formatNumber } from '../format/numberFormat.ts';
 import { niceCeil, type BusBar } from './chartData.ts';
 
-const ROW = 22, LABEL = 92, PAD = 10, VALUE = 58;
+const ROW = 22,
+  LABEL = 92,
+  PAD = 10,
+  VALUE = 58;
 
 export function busBarChart(bars: readonly BusBar[], width = 380): SVGSVGElement {
   const max = niceCeil(Math.max(1, ...bars.map((b) => Math.max(b.absorbed, b.delivered, Math.abs(b.net)))));
-  const plotLeft = LABEL + PAD, plotRight = width - VALUE;
+  const plotLeft = LABEL + PAD,
+    plotRight = width - VALUE;
   const zero = (plotLeft + plotRight) / 2;
   const scale = (plotRight - plotLeft) / 2 / max;
   const height = PAD * 2 + 18 + bars.length * ROW;
-  const root = svg('svg', { viewBox: `0 0 ${width} ${height}`, width, height, class: 'kl-chart kl-bars', role: 'img', 'aria-label': 'Absorbed and delivered kvar per bus' });
+  const root = svg('svg', {
+    viewBox: `0 0 ${width} ${height}`,
+    width,
+    height,
+    class: 'kl-chart kl-bars',
+    role: 'img',
+    'aria-label': 'Absorbed and delivered kvar per bus',
+  });
   const top = PAD + 18;
   // Axis: zero line and the two ends.
   root.append(
-    svg('text', { x: plotLeft, y: PAD + 8, class: 'kl-axis-label', 'text-anchor': 'start' }, `delivered ${formatNumber(max, '0')}`),
-    svg('text', { x: plotRight, y: PAD + 8, class: 'kl-axis-label', 'text-anchor': 'end' }, `absorbed ${formatNumber(max, '0')} kvar`),
+    svg(
+      'text',
+      { x: plotLeft, y: PAD + 8, class: 'kl-axis-label', 'text-anchor': 'start' },
+      `delivered ${formatNumber(max, '0')}`,
+    ),
+    svg(
+      'text',
+      { x: plotRight, y: PAD + 8, class: 'kl-axis-label', 'text-anchor': 'end' },
+      `absorbed ${formatNumber(max, '0')} kvar`,
+    ),
     svg('line', { x1: zero, x2: zero, y1: top - 4, y2: height - PAD, class: 'kl-axis' }),
   );
   bars.forEach((b, i) => {
     const y = top + i * ROW;
     const g = svg('g', { class: 'kl-bar-row' });
-    const title = svg('title', {}, `${b.bus}: absorbed ${formatNumber(b.absorbed, '0.0')} kvar, delivered ${formatNumber(b.delivered, '0.0')} kvar, net ${formatNumber(b.net, '0.0')} kvar`);
+    const title = svg(
+      'title',
+      {},
+      `${b.bus}: absorbed ${formatNumber(b.absorbed, '0.0')} kvar, delivered ${formatNumber(b.delivered, '0.0')} kvar, net ${formatNumber(b.net, '0.0')} kvar`,
+    );
     g.append(
       title,
-      svg('text', { x: LABEL, y: y + 14, class: 'kl-bar-label', 'text-anchor': 'end' }, b.bus.length > 14 ? `${b.bus.slice(0, 13)}…` : b.bus),
-      svg('rect', { x: zero, y: y + 3, width: Math.max(0, b.absorbed * scale), height: ROW - 8, class: 'kl-bar-absorbed' }),
-      svg('rect', { x: zero - b.delivered * scale, y: y + 3, width: Math.max(0, b.delivered * scale), height: ROW - 8, class: 'kl-bar-delivered' }),
+      svg(
+        'text',
+        { x: LABEL, y: y + 14, class: 'kl-bar-label', 'text-anchor': 'end' },
+        b.bus.length > 14 ? `${b.bus.slice(0, 13)}…` : b.bus,
+      ),
+      svg('rect', {
+        x: zero,
+        y: y + 3,
+        width: Math.max(0, b.absorbed * scale),
+        height: ROW - 8,
+        class: 'kl-bar-absorbed',
+      }),
+      svg('rect', {
+        x: zero - b.delivered * scale,
+        y: y + 3,
+        width: Math.max(0, b.delivered * scale),
+        height: ROW - 8,
+        class: 'kl-bar-delivered',
+      }),
       svg('rect', { x: zero + b.net * scale - 1.5, y: y, width: 3, height: ROW - 2, class: 'kl-bar-net' }),
-      svg('text', { x: width - 4, y: y + 14, class: 'kl-bar-value', 'text-anchor': 'end' }, formatNumber(b.net, '0')),
+      svg(
+        'text',
+        { x: width - 4, y: y + 14, class: 'kl-bar-value', 'text-anchor': 'end' },
+        formatNumber(b.net, '0'),
+      ),
     );
     root.append(g);
   });

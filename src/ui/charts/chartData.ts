@@ -58,8 +58,10 @@ export function readChartData(buses: Grid | undefined, compensation: Grid | unde
   const triangles = new Map<string, Triangle>();
   const col = (m: Map<string, number>, header: string) => m.get(header.toLowerCase());
   for (const c of cases) {
-    const iAbs = col(bh, `Q absorbed ${c} (kvar)`), iDel = col(bh, `Q delivered ${c} (kvar)`);
-    const iQ = col(bh, `Q ${c} (kvar)`), iP = col(bh, `P ${c} (kW)`);
+    const iAbs = col(bh, `Q absorbed ${c} (kvar)`),
+      iDel = col(bh, `Q delivered ${c} (kvar)`);
+    const iQ = col(bh, `Q ${c} (kvar)`),
+      iP = col(bh, `P ${c} (kW)`);
     const list: BusBar[] = [];
     // The bus list runs from row 2 to the first row without a bus name (notes may follow).
     for (const row of (buses ?? []).slice(1)) {
@@ -78,9 +80,15 @@ export function readChartData(buses: Grid | undefined, compensation: Grid | unde
     if (typeof root?.[0] === 'string' && p !== undefined && q !== undefined) {
       const rootName = root[0];
       const iAfter = col(ch, `Q after ${c} (kvar)`);
-      const compRow = (compensation ?? []).slice(1).find((r) => typeof r[0] === 'string' && r[0].toLowerCase() === rootName.toLowerCase());
+      const compRow = (compensation ?? [])
+        .slice(1)
+        .find((r) => typeof r[0] === 'string' && r[0].toLowerCase() === rootName.toLowerCase());
       const qAfter = iAfter === undefined ? undefined : num(compRow?.[iAfter]);
-      triangles.set(c, { bus: rootName, before: { p, q }, ...(qAfter !== undefined ? { after: { p, q: qAfter } } : {}) });
+      triangles.set(c, {
+        bus: rootName,
+        before: { p, q },
+        ...(qAfter !== undefined ? { after: { p, q: qAfter } } : {}),
+      });
     }
   }
   return { cases, bars, triangles };
@@ -104,6 +112,8 @@ export function niceCeil(x: number): number {
 export function busesToDraw(bars: readonly BusBar[], limit = 30): BusBar[] {
   if (bars.length <= limit) return [...bars];
   const [root, ...rest] = bars;
-  const keep = new Set([...rest].sort((a, b) => b.absorbed + b.delivered - (a.absorbed + a.delivered)).slice(0, limit - 1));
+  const keep = new Set(
+    [...rest].sort((a, b) => b.absorbed + b.delivered - (a.absorbed + a.delivered)).slice(0, limit - 1),
+  );
   return [...(root ? [root] : []), ...rest.filter((b) => keep.has(b))];
 }

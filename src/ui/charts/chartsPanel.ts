@@ -23,9 +23,15 @@ export class ChartsPanel {
   visible = false;
 
   constructor() {
-    this.cases = el('div', { className: 'kl-segmented', attrs: { role: 'radiogroup', 'aria-label': 'Operating case' } });
+    this.cases = el('div', {
+      className: 'kl-segmented',
+      attrs: { role: 'radiogroup', 'aria-label': 'Operating case' },
+    });
     this.body = el('div', { className: 'kl-charts-body' });
-    this.root = el('section', { className: 'kl-charts', attrs: { 'data-testid': 'charts' } }, [this.cases, this.body]);
+    this.root = el('section', { className: 'kl-charts', attrs: { 'data-testid': 'charts' } }, [
+      this.cases,
+      this.body,
+    ]);
   }
 
   private frame = 0;
@@ -44,7 +50,10 @@ export class ChartsPanel {
   draw(): void {
     if (!this.session || !this.dirty) return;
     this.dirty = false;
-    const data = readChartData(sheetValues(this.session, SHEETS.buses), sheetValues(this.session, SHEETS.compensation));
+    const data = readChartData(
+      sheetValues(this.session, SHEETS.buses),
+      sheetValues(this.session, SHEETS.compensation),
+    );
     this.render(data);
   }
 
@@ -52,12 +61,21 @@ export class ChartsPanel {
     clear(this.cases);
     clear(this.body);
     if (data.cases.length === 0) {
-      this.body.append(el('p', { className: 'kl-muted', text: `No "${SHEETS.buses}" sheet with per-case totals in this workbook. Start from a template (Workbook → New from template) to get bus totals and charts.` }));
+      this.body.append(
+        el('p', {
+          className: 'kl-muted',
+          text: `No "${SHEETS.buses}" sheet with per-case totals in this workbook. Start from a template (Workbook → New from template) to get bus totals and charts.`,
+        }),
+      );
       return;
     }
     if (!this.chosen || !data.cases.includes(this.chosen)) this.chosen = data.cases[0];
     for (const c of data.cases) {
-      const b = el('button', { className: `kl-seg${c === this.chosen ? ' is-on' : ''}`, text: c, attrs: { type: 'button', role: 'radio', 'aria-checked': String(c === this.chosen) } });
+      const b = el('button', {
+        className: `kl-seg${c === this.chosen ? ' is-on' : ''}`,
+        text: c,
+        attrs: { type: 'button', role: 'radio', 'aria-checked': String(c === this.chosen) },
+      });
       b.addEventListener('click', () => {
         this.chosen = c;
         this.render(data);
@@ -72,8 +90,26 @@ export class ChartsPanel {
         el('h3', { className: 'kl-chart-title', text: `Point of connection ${tri.bus} — ${c}` }),
         triangleChart(tri),
         el('table', { className: 'kl-chart-table', attrs: { 'data-testid': 'triangle-table' } }, [
-          el('thead', {}, [el('tr', {}, ['', 'P kW', 'Q kvar', 'S kVA', 'cos φ'].map((h) => el('th', { text: h })))]),
-          el('tbody', {}, rows.map((r) => el('tr', { className: `is-${r.label}` }, [el('th', { text: r.label }), el('td', { text: r.p }), el('td', { text: r.q }), el('td', { text: r.s }), el('td', { text: r.cos })]))),
+          el('thead', {}, [
+            el(
+              'tr',
+              {},
+              ['', 'P kW', 'Q kvar', 'S kVA', 'cos φ'].map((h) => el('th', { text: h })),
+            ),
+          ]),
+          el(
+            'tbody',
+            {},
+            rows.map((r) =>
+              el('tr', { className: `is-${r.label}` }, [
+                el('th', { text: r.label }),
+                el('td', { text: r.p }),
+                el('td', { text: r.q }),
+                el('td', { text: r.s }),
+                el('td', { text: r.cos }),
+              ]),
+            ),
+          ),
         ]),
       );
     }
@@ -81,7 +117,12 @@ export class ChartsPanel {
     const bars = busesToDraw(all);
     this.body.append(
       el('h3', { className: 'kl-chart-title', text: `kvar per bus — ${c}` }),
-      bars.length < all.length ? el('p', { className: 'kl-muted', text: `The point of connection and the ${bars.length - 1} buses with the most kvar, of ${all.length}; every bus is on the Buses sheet.` }) : '',
+      bars.length < all.length
+        ? el('p', {
+            className: 'kl-muted',
+            text: `The point of connection and the ${bars.length - 1} buses with the most kvar, of ${all.length}; every bus is on the Buses sheet.`,
+          })
+        : '',
       el('div', { className: 'kl-legend' }, [
         el('span', { className: 'kl-key is-absorbed', text: 'absorbed' }),
         el('span', { className: 'kl-key is-delivered', text: 'delivered' }),

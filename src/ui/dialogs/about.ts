@@ -6,7 +6,7 @@ import { openDialog } from './dialog.ts';
 export const CAUTIONS: readonly string[] = [
   'Kvar Ledger estimates. Its figures are for pricing and early decisions, not a design.',
   'Capacitor banks, harmonic resonance and switching overvoltage can hurt people and damage plant: banks hold a dangerous charge after switch-off, a bank tuned near a harmonic can overheat or fail, and overcompensation raises voltage at light load.',
-  'The final design must follow local codes and the utility\'s rules, with studies and sign-off by a licensed engineer.',
+  "The final design must follow local codes and the utility's rules, with studies and sign-off by a licensed engineer.",
 ];
 
 export const LICENCE_LINES: readonly string[] = [
@@ -18,11 +18,24 @@ export const LICENCE_LINES: readonly string[] = [
 
 export function openAbout(catalogueSize: number): void {
   const section = (title: string, lines: readonly string[], cls = '') =>
-    el('section', { className: `kl-about-section ${cls}` }, [el('h3', { text: title }), ...lines.map((t) => el('p', { text: t }))]);
-  openDialog('About Kvar Ledger', [
-    el('p', { className: 'kl-about-lead', text: `A workbook for the reactive-power balance of a site: equipment list, bus totals per operating case, power factor at the point of connection and compensation, with ${catalogueSize} documented engineering functions that stay live in the exported spreadsheet.` }),
-    section('Cautions', CAUTIONS, 'is-caution'),
-    section('Licences', LICENCE_LINES),
-    section('Your data', ['Workbooks stay in this browser (IndexedDB) and in files you save. Nothing is sent anywhere.']),
-  ], [{ label: 'Close', kind: 'primary' }], { wide: true, testId: 'about' });
+    el('section', { className: `kl-about-section ${cls}` }, [
+      el('h3', { text: title }),
+      ...lines.map((t) => el('p', { text: t })),
+    ]);
+  openDialog(
+    'About Kvar Ledger',
+    [
+      el('p', {
+        className: 'kl-about-lead',
+        text: `A workbook for the reactive-power balance of a site: equipment list, bus totals per operating case, power factor at the point of connection and compensation, with ${catalogueSize} documented engineering functions that stay live in the exported spreadsheet.`,
+      }),
+      section('Cautions', CAUTIONS, 'is-caution'),
+      section('Licences', LICENCE_LINES),
+      section('Your data', [
+        'Workbooks stay in this browser (IndexedDB) and in files you save. Nothing is sent anywhere.',
+      ]),
+    ],
+    [{ label: 'Close', kind: 'primary' }],
+    { wide: true, testId: 'about' },
+  );
 }

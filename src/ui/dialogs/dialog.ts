@@ -20,13 +20,20 @@ export function openDialog(
   actions: readonly DialogAction[],
   opts: { wide?: boolean; testId?: string; footer?: readonly Node[] } = {},
 ): OpenDialog {
-  const dialog = el('dialog', { className: `kl-dialog${opts.wide ? ' is-wide' : ''}`, attrs: opts.testId ? { 'data-testid': opts.testId } : {} });
+  const dialog = el('dialog', {
+    className: `kl-dialog${opts.wide ? ' is-wide' : ''}`,
+    attrs: opts.testId ? { 'data-testid': opts.testId } : {},
+  });
   const close = () => {
     if (dialog.open) dialog.close();
     dialog.remove();
   };
   const buttons = actions.map((a) => {
-    const b = el('button', { className: `kl-btn kl-btn-${a.kind ?? 'plain'}`, text: a.label, attrs: { type: 'button' } });
+    const b = el('button', {
+      className: `kl-btn kl-btn-${a.kind ?? 'plain'}`,
+      text: a.label,
+      attrs: { type: 'button' },
+    });
     b.addEventListener('click', async () => {
       const keep = (await a.run?.()) === false;
       if (!keep) close();
@@ -45,20 +52,38 @@ export function openDialog(
   return { dialog, close };
 }
 
-export function confirmDialog(title: string, lines: readonly string[], confirmLabel: string, danger = false): Promise<boolean> {
+export function confirmDialog(
+  title: string,
+  lines: readonly string[],
+  confirmLabel: string,
+  danger = false,
+): Promise<boolean> {
   return new Promise((resolve) => {
-    const d = openDialog(title, lines.map((t) => el('p', { text: t })), [
-      { label: 'Cancel', run: () => resolve(false) },
-      { label: confirmLabel, kind: danger ? 'danger' : 'primary', run: () => resolve(true) },
-    ], { testId: 'confirm' });
+    const d = openDialog(
+      title,
+      lines.map((t) => el('p', { text: t })),
+      [
+        { label: 'Cancel', run: () => resolve(false) },
+        { label: confirmLabel, kind: danger ? 'danger' : 'primary', run: () => resolve(true) },
+      ],
+      { testId: 'confirm' },
+    );
     d.dialog.addEventListener('close', () => resolve(false));
   });
 }
 
 /** Ask for a text; `check` returns a message to show while the text is not acceptable. */
-export function promptDialog(title: string, label: string, initial: string, check: (v: string) => string | undefined): Promise<string | undefined> {
+export function promptDialog(
+  title: string,
+  label: string,
+  initial: string,
+  check: (v: string) => string | undefined,
+): Promise<string | undefined> {
   return new Promise((resolve) => {
-    const input = el('input', { className: 'kl-input', attrs: { type: 'text', value: initial, 'aria-label': label, spellcheck: 'false' } });
+    const input = el('input', {
+      className: 'kl-input',
+      attrs: { type: 'text', value: initial, 'aria-label': label, spellcheck: 'false' },
+    });
     input.value = initial;
     const note = el('p', { className: 'kl-field-problem', attrs: { role: 'alert' } });
     const tryAccept = () => {
@@ -68,10 +93,15 @@ export function promptDialog(title: string, label: string, initial: string, chec
       resolve(input.value);
       return true;
     };
-    const d = openDialog(title, [el('label', { className: 'kl-field' }, [el('span', { text: label }), input]), note], [
-      { label: 'Cancel', run: () => resolve(undefined) },
-      { label: 'OK', kind: 'primary', run: tryAccept },
-    ], { testId: 'prompt' });
+    const d = openDialog(
+      title,
+      [el('label', { className: 'kl-field' }, [el('span', { text: label }), input]), note],
+      [
+        { label: 'Cancel', run: () => resolve(undefined) },
+        { label: 'OK', kind: 'primary', run: tryAccept },
+      ],
+      { testId: 'prompt' },
+    );
     input.addEventListener('input', () => (note.textContent = check(input.value) ?? ''));
     input.addEventListener('keydown', (e) => {
       if (e.key === 'Enter' && tryAccept()) d.close();

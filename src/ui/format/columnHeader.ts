@@ -17,7 +17,8 @@ export function formatHint(info: ColumnInfo | undefined): string | undefined {
   if (!code || code.toLowerCase() === 'general') return undefined;
   const m = /^(?:#,##)?0(?:\.(0*)(#*))?(%|E\+00)?$/.exec(code);
   if (!m) return code;
-  const min = m[1]?.length ?? 0, max = min + (m[2]?.length ?? 0);
+  const min = m[1]?.length ?? 0,
+    max = min + (m[2]?.length ?? 0);
   const dp = max > min ? `${min}–${max} dp` : `${min} dp`;
   return m[3] === '%' ? `${dp} %` : m[3] ? `${dp} exp` : dp;
 }

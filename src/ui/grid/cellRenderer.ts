@@ -14,16 +14,17 @@ export interface RenderContext {
   readonly dataRows: () => number;
 }
 
-const KIND_CLASS: Readonly<Record<CellKind, string>> = { number: 'kl-num', text: 'kl-text', bool: 'kl-bool', error: 'kl-err', empty: 'kl-empty' };
+const KIND_CLASS: Readonly<Record<CellKind, string>> = {
+  number: 'kl-num',
+  text: 'kl-text',
+  bool: 'kl-bool',
+  error: 'kl-err',
+  empty: 'kl-empty',
+};
 const ALL_CLASSES = [...Object.values(KIND_CLASS), 'kl-head', 'kl-calc', 'kl-formula'];
 
 export function makeCellRenderer(ctx: RenderContext) {
-  return function renderCell(
-    _hot: unknown,
-    td: HTMLTableCellElement,
-    row: number,
-    col: number,
-  ): void {
+  return function renderCell(_hot: unknown, td: HTMLTableCellElement, row: number, col: number): void {
     const sheet = ctx.sheetId();
     const address = { sheet, row, col };
     const header = row === 0 && ctx.hasHeaderRow();

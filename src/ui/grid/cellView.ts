@@ -13,14 +13,19 @@ export interface CellView {
 }
 
 /** What the engine hands back for a cell: a value or an error object with value/message. */
-export type EngineValue = number | string | boolean | null | undefined | { readonly value: string; readonly message: string };
+export type EngineValue =
+  number | string | boolean | null | undefined | { readonly value: string; readonly message: string };
 
 export function cellView(v: EngineValue, column?: ColumnInfo): CellView {
   if (v === null || v === undefined || v === '') return { text: '', kind: 'empty' };
   if (typeof v === 'number') return { text: formatNumber(v, column?.format), kind: 'number' };
   if (typeof v === 'boolean') return { text: v ? 'TRUE' : 'FALSE', kind: 'bool' };
   if (typeof v === 'string') return { text: v, kind: 'text' };
-  return { text: v.value, kind: 'error', error: { code: v.value, message: v.message || `the formula evaluates to ${v.value}` } };
+  return {
+    text: v.value,
+    kind: 'error',
+    error: { code: v.value, message: v.message || `the formula evaluates to ${v.value}` },
+  };
 }
 
 /** The value as it goes to the clipboard for other programs: full precision, no formatting. */

@@ -22,5 +22,7 @@ export function sameBlock(a: readonly (readonly unknown[])[], b: readonly (reado
 /** A pasted block of text as a rectangle (rows padded to the widest). */
 export function rectangular(data: readonly (readonly unknown[])[]): string[][] {
   const width = data.reduce((m, r) => Math.max(m, r.length), 0);
-  return data.map((r) => Array.from({ length: width }, (_, c) => (r[c] === null || r[c] === undefined ? '' : String(r[c]))));
+  return data.map((r) =>
+    Array.from({ length: width }, (_, c) => (r[c] === null || r[c] === undefined ? '' : String(r[c]))),
+  );
 }

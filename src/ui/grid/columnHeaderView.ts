@@ -4,7 +4,11 @@ import type { ColumnInfo } from '../../core/workbook/document.ts';
 import { columnLetters } from '../model/address.ts';
 import { headerLabel } from '../format/columnHeader.ts';
 
-export function decorateColumnHeader(col: number, th: HTMLTableCellElement, columns: readonly ColumnInfo[] | undefined): void {
+export function decorateColumnHeader(
+  col: number,
+  th: HTMLTableCellElement,
+  columns: readonly ColumnInfo[] | undefined,
+): void {
   if (col < 0) return;
   const label = headerLabel(columnLetters(col), columns?.[col]);
   const host = th.querySelector('.colHeader') ?? th.firstElementChild ?? th;

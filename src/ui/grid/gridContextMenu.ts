@@ -46,18 +46,34 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): () => void
     // A right-click outside the selection selects the cell under the pointer first.
     const coords = grid.hot.getCoords(cell);
     const sel = grid.selection();
-    if (coords && coords.row !== null && coords.col !== null && coords.row >= 0 && coords.col >= 0 &&
-      (!sel || coords.row < sel.top || coords.row > sel.bottom || coords.col < sel.left || coords.col > sel.right)) {
+    if (
+      coords &&
+      coords.row !== null &&
+      coords.col !== null &&
+      coords.row >= 0 &&
+      coords.col >= 0 &&
+      (!sel ||
+        coords.row < sel.top ||
+        coords.row > sel.bottom ||
+        coords.col < sel.left ||
+        coords.col > sel.right)
+    ) {
       grid.select(coords.row, coords.col);
     }
-    const menu = el('div', { className: 'kl-menu kl-context-menu', attrs: { role: 'menu', 'data-testid': 'grid-menu' } });
+    const menu = el('div', {
+      className: 'kl-menu kl-context-menu',
+      attrs: { role: 'menu', 'data-testid': 'grid-menu' },
+    });
     for (const it of items) {
       if (it === 'sep') {
         menu.append(el('div', { className: 'kl-menu-sep', attrs: { role: 'separator' } }));
         continue;
       }
       const [label, hint, run] = it;
-      const b = el('button', { className: 'kl-menu-item', attrs: { type: 'button', role: 'menuitem' } }, [el('span', { text: label }), hint ? el('span', { className: 'kl-menu-hint', text: hint }) : null]);
+      const b = el('button', { className: 'kl-menu-item', attrs: { type: 'button', role: 'menuitem' } }, [
+        el('span', { text: label }),
+        hint ? el('span', { className: 'kl-menu-hint', text: hint }) : null,
+      ]);
       b.addEventListener('click', () => {
         close();
         run();
@@ -66,7 +82,8 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): () => void
       menu.append(b);
     }
     document.body.append(menu);
-    const x = Math.min(e.clientX, window.innerWidth - 260), y = Math.min(e.clientY, window.innerHeight - menu.offsetHeight - 8);
+    const x = Math.min(e.clientX, window.innerWidth - 260),
+      y = Math.min(e.clientY, window.innerHeight - menu.offsetHeight - 8);
     menu.style.left = `${x}px`;
     menu.style.top = `${y}px`;
     open = menu;

@@ -8,7 +8,10 @@ export const SPARE_COLS = 4;
 const MIN_ROWS = 60;
 const MIN_COLS = 26;
 
-export function gridShape(contents: readonly (readonly CellContent[])[], describedCols = 0): { rows: number; cols: number } {
+export function gridShape(
+  contents: readonly (readonly CellContent[])[],
+  describedCols = 0,
+): { rows: number; cols: number } {
   const widest = contents.reduce((m, r) => Math.max(m, r.length), 0);
   return {
     rows: Math.max(MIN_ROWS, contents.length + SPARE_ROWS),

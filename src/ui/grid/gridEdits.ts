@@ -47,21 +47,29 @@ export function installEditHandlers(host: EditHost): void {
     }
   });
 
-  const valuesOf = (coords: ReadonlyArray<{ startRow: number; startCol: number; endRow: number; endCol: number }>): string[][] => {
+  const valuesOf = (
+    coords: ReadonlyArray<{ startRow: number; startCol: number; endRow: number; endCol: number }>,
+  ): string[][] => {
     const c = coords[0];
     if (!c) return [];
     const out: string[][] = [];
     for (let r = c.startRow; r <= c.endRow; r++) {
       const row: string[] = [];
       for (let col = c.startCol; col <= c.endCol; col++) {
-        row.push(clipboardText(session.engine.getCellValue({ sheet: host.sheetId, row: r, col }) as EngineValue));
+        row.push(
+          clipboardText(session.engine.getCellValue({ sheet: host.sheetId, row: r, col }) as EngineValue),
+        );
       }
       out.push(row);
     }
     return out;
   };
 
-  const remember = (data: unknown[][], coords: ReadonlyArray<{ startRow: number; startCol: number; endRow: number; endCol: number }>, cut: boolean) => {
+  const remember = (
+    data: unknown[][],
+    coords: ReadonlyArray<{ startRow: number; startCol: number; endRow: number; endCol: number }>,
+    cut: boolean,
+  ) => {
     const c = coords[0];
     if (!c || coords.length !== 1) {
       memo = undefined;
@@ -71,7 +79,10 @@ export function installEditHandlers(host: EditHost): void {
     // Replace what goes to the clipboard: values, not the formula text in the grid's copy.
     data.length = 0;
     for (const row of values) data.push([...row]);
-    const source = { start: { sheet: host.sheetId, row: c.startRow, col: c.startCol }, end: { sheet: host.sheetId, row: c.endRow, col: c.endCol } };
+    const source = {
+      start: { sheet: host.sheetId, row: c.startRow, col: c.startCol },
+      end: { sheet: host.sheetId, row: c.endRow, col: c.endCol },
+    };
     const contents: CellContent[][] = [];
     for (let r = c.startRow; r <= c.endRow; r++) {
       const row: CellContent[] = [];
@@ -89,18 +100,27 @@ export function installEditHandlers(host: EditHost): void {
     if (!range) return false;
     const tl = range.getTopStartCorner();
     const br = range.getBottomEndCorner();
-    const top = Math.max(0, tl.row ?? 0), left = Math.max(0, tl.col ?? 0);
+    const top = Math.max(0, tl.row ?? 0),
+      left = Math.max(0, tl.col ?? 0);
     const text = rectangular(data);
     let block: CellContent[][];
     if (memo && sameBlock(text, memo.values) && session.sheetIds().includes(memo.source.start.sheet)) {
-      block = memo.cut ? memo.contents.map((r) => [...r]) : session.movedContents(memo.source, { sheet: host.sheetId, row: top, col: left });
+      block = memo.cut
+        ? memo.contents.map((r) => [...r])
+        : session.movedContents(memo.source, { sheet: host.sheetId, row: top, col: left });
     } else {
       block = text.map((r) => r.map((v) => contentOf(v)));
     }
     // One value pasted over a selected block fills the block, as in other spreadsheet programs.
     const first = block[0]?.[0];
-    if (block.length === 1 && block[0]?.length === 1 && first !== undefined && ((br.row ?? 0) > top || (br.col ?? 0) > left)) {
-      const rows = (br.row ?? 0) - top + 1, cols = (br.col ?? 0) - left + 1;
+    if (
+      block.length === 1 &&
+      block[0]?.length === 1 &&
+      first !== undefined &&
+      ((br.row ?? 0) > top || (br.col ?? 0) > left)
+    ) {
+      const rows = (br.row ?? 0) - top + 1,
+        cols = (br.col ?? 0) - left + 1;
       block = Array.from({ length: rows }, () => Array.from({ length: cols }, () => first));
     }
     session.setBlock(host.sheetId, top, left, block);
@@ -110,14 +130,27 @@ export function installEditHandlers(host: EditHost): void {
   });
 
   hot.addHook('beforeAutofill', (_data: unknown, source: CellRange, target: CellRange) => {
-    const s = source.getTopStartCorner(), se = source.getBottomEndCorner();
-    const t = target.getTopStartCorner(), te = target.getBottomEndCorner();
+    const s = source.getTopStartCorner(),
+      se = source.getBottomEndCorner();
+    const t = target.getTopStartCorner(),
+      te = target.getBottomEndCorner();
     const sheet = host.sheetId;
     session.fill(
-      { start: { sheet, row: s.row ?? 0, col: s.col ?? 0 }, end: { sheet, row: se.row ?? 0, col: se.col ?? 0 } },
-      { start: { sheet, row: t.row ?? 0, col: t.col ?? 0 }, end: { sheet, row: te.row ?? 0, col: te.col ?? 0 } },
+      {
+        start: { sheet, row: s.row ?? 0, col: s.col ?? 0 },
+        end: { sheet, row: se.row ?? 0, col: se.col ?? 0 },
+      },
+      {
+        start: { sheet, row: t.row ?? 0, col: t.col ?? 0 },
+        end: { sheet, row: te.row ?? 0, col: te.col ?? 0 },
+      },
     );
-    host.select(Math.min(s.row ?? 0, t.row ?? 0), Math.min(s.col ?? 0, t.col ?? 0), Math.max(se.row ?? 0, te.row ?? 0), Math.max(se.col ?? 0, te.col ?? 0));
+    host.select(
+      Math.min(s.row ?? 0, t.row ?? 0),
+      Math.min(s.col ?? 0, t.col ?? 0),
+      Math.max(se.row ?? 0, te.row ?? 0),
+      Math.max(se.col ?? 0, te.col ?? 0),
+    );
     return false;
   });
 }

@@ -43,6 +43,7 @@ export function clearCells(host: CommandHost): void {
   const sel = host.selection();
   if (!sel) return;
   const cells = [];
-  for (let row = sel.top; row <= sel.bottom; row++) for (let col = sel.left; col <= sel.right; col++) cells.push({ row, col, content: null });
+  for (let row = sel.top; row <= sel.bottom; row++)
+    for (let col = sel.left; col <= sel.right; col++) cells.push({ row, col, content: null });
   host.session.setCells(sel.sheetId, cells);
 }

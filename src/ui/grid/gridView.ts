@@ -46,7 +46,11 @@ export class GridView implements EditHost {
   /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
   applying = false;
 
-  constructor(host: HTMLElement, readonly session: WorkbookSession, readonly callbacks: GridCallbacks) {
+  constructor(
+    host: HTMLElement,
+    readonly session: WorkbookSession,
+    readonly callbacks: GridCallbacks,
+  ) {
     registerGridModules();
     const renderer = makeCellRenderer({
       engine: session.engine,
@@ -65,7 +69,8 @@ export class GridView implements EditHost {
       // Two lines: the letter, then the column's unit and number format.
       columnHeaderHeight: 34,
       colHeaders: (i: number) => columnLetters(i),
-      afterGetColHeader: (col: number, th: HTMLTableCellElement) => decorateColumnHeader(col, th, this.columns()),
+      afterGetColHeader: (col: number, th: HTMLTableCellElement) =>
+        decorateColumnHeader(col, th, this.columns()),
       width: '100%',
       height: '100%',
       outsideClickDeselects: false,
@@ -83,14 +88,16 @@ export class GridView implements EditHost {
       minSpareRows: 5,
       afterSelection: () => this.reportSelection(),
       afterBeginEditing: () => {
-        const editor = this.hot.getActiveEditor() as unknown as { TEXTAREA?: HTMLTextAreaElement | HTMLInputElement } | undefined;
+        const editor = this.hot.getActiveEditor() as unknown as
+          { TEXTAREA?: HTMLTextAreaElement | HTMLInputElement } | undefined;
         if (editor?.TEXTAREA) callbacks.onEditorOpen(editor.TEXTAREA);
       },
       beforeKeyDown: (e: KeyboardEvent) => {
         if (!callbacks.onKey(e)) return;
         e.preventDefault();
         // The grid's own way of saying "handled": its key handling checks this flag, not the DOM's.
-        (e as KeyboardEvent & { isImmediatePropagationEnabled?: boolean }).isImmediatePropagationEnabled = false;
+        (e as KeyboardEvent & { isImmediatePropagationEnabled?: boolean }).isImmediatePropagationEnabled =
+          false;
         e.stopImmediatePropagation();
       },
     };

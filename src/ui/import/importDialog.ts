@@ -4,8 +4,20 @@
 // workbook are src/io/import's work; this is the dialog around them.
 import type { SiteSettings } from '../../core/site/model.ts';
 import {
-  applyImport, describeProblem, mappingTargets, MAPPING_MEMORY_STORAGE_KEY, parseMappingMemory, previewImport, proposeMapping,
-  readEquipmentFile, rememberMapping, unitChoicesFor, withColumnTarget, withColumnUnit, type ImportPreview, type MappingProposal,
+  applyImport,
+  describeProblem,
+  mappingTargets,
+  MAPPING_MEMORY_STORAGE_KEY,
+  parseMappingMemory,
+  previewImport,
+  proposeMapping,
+  readEquipmentFile,
+  rememberMapping,
+  unitChoicesFor,
+  withColumnTarget,
+  withColumnUnit,
+  type ImportPreview,
+  type MappingProposal,
 } from '../../io/import/index.ts';
 import { DEFAULT_IMPORT_SETTINGS } from '../../io/import/preview.ts';
 import { el } from '../dom.ts';
@@ -31,17 +43,39 @@ function samples(p: MappingProposal, index: number): string {
   return out.join(' · ');
 }
 
-function mappingTable(p: MappingProposal, cases: readonly string[], onChange: (next: MappingProposal) => void): HTMLElement {
+function mappingTable(
+  p: MappingProposal,
+  cases: readonly string[],
+  onChange: (next: MappingProposal) => void,
+): HTMLElement {
   const targets = mappingTargets(cases);
   const rows = p.columns.map((c) => {
-    const target = el('select', { className: 'kl-select', attrs: { 'aria-label': `Column ${c.letter} feeds`, 'data-testid': `map-${c.letter}` } });
-    target.append(el('option', { text: '— ignore —', attrs: { value: '' } }), ...targets.map((t) => el('option', { text: t, attrs: { value: t } })));
+    const target = el('select', {
+      className: 'kl-select',
+      attrs: { 'aria-label': `Column ${c.letter} feeds`, 'data-testid': `map-${c.letter}` },
+    });
+    target.append(
+      el('option', { text: '— ignore —', attrs: { value: '' } }),
+      ...targets.map((t) => el('option', { text: t, attrs: { value: t } })),
+    );
     target.value = c.target ?? '';
-    target.addEventListener('change', () => onChange(withColumnTarget(p, c.index, target.value === '' ? null : target.value)));
-    const unit = el('select', { className: 'kl-select', attrs: { 'aria-label': `Unit of column ${c.letter}` } });
+    target.addEventListener('change', () =>
+      onChange(withColumnTarget(p, c.index, target.value === '' ? null : target.value)),
+    );
+    const unit = el('select', {
+      className: 'kl-select',
+      attrs: { 'aria-label': `Unit of column ${c.letter}` },
+    });
     const choices = c.target ? unitChoicesFor(c.target) : [];
     const textOnly = choices.length <= 1 && (choices[0]?.label ?? '') === '';
-    unit.append(...choices.map((u) => el('option', { text: textOnly ? '—' : u.label === '' ? '(plain number)' : u.label, attrs: { value: u.label } })));
+    unit.append(
+      ...choices.map((u) =>
+        el('option', {
+          text: textOnly ? '—' : u.label === '' ? '(plain number)' : u.label,
+          attrs: { value: u.label },
+        }),
+      ),
+    );
     unit.value = c.unit.label;
     unit.disabled = choices.length <= 1;
     unit.addEventListener('change', () => onChange(withColumnUnit(p, c.index, unit.value)));
@@ -55,28 +89,72 @@ function mappingTable(p: MappingProposal, cases: readonly string[], onChange: (n
     ]);
   });
   return el('table', { className: 'kl-import-table' }, [
-    el('thead', {}, [el('tr', {}, ['', 'header in the file', 'first values', 'feeds', 'unit', 'why'].map((h) => el('th', { text: h })))]),
+    el('thead', {}, [
+      el(
+        'tr',
+        {},
+        ['', 'header in the file', 'first values', 'feeds', 'unit', 'why'].map((h) => el('th', { text: h })),
+      ),
+    ]),
     el('tbody', {}, rows),
   ]);
 }
 
 function previewNodes(pv: ImportPreview): Node[] {
   const { counts } = pv;
-  const head = el('p', { attrs: { 'data-testid': 'import-counts' }, text: `${counts.rows} rows: ${counts.ok} fine, ${counts.withWarnings} with warnings, ${counts.withErrors} with errors.` });
-  const problems = el('ul', { className: 'kl-problems', attrs: { 'data-testid': 'import-problems' } },
-    pv.problems.slice(0, 200).map((p) => el('li', { className: `is-${p.severity}`, text: p.message })));
+  const head = el('p', {
+    attrs: { 'data-testid': 'import-counts' },
+    text: `${counts.rows} rows: ${counts.ok} fine, ${counts.withWarnings} with warnings, ${counts.withErrors} with errors.`,
+  });
+  const problems = el(
+    'ul',
+    { className: 'kl-problems', attrs: { 'data-testid': 'import-problems' } },
+    pv.problems.slice(0, 200).map((p) => el('li', { className: `is-${p.severity}`, text: p.message })),
+  );
   const shown = pv.rows.slice(0, 60);
   const table = el('table', { className: 'kl-import-table' }, [
-    el('thead', {}, [el('tr', {}, ['row', ...pv.targets].map((h) => el('th', { text: h })))]),
-    el('tbody', {}, shown.map((r) => el('tr', { className: `is-${r.status}` }, [el('td', { text: String(r.row) }), ...pv.targets.map((t) => el('td', { text: r.cells[t] === null || r.cells[t] === undefined ? '' : String(r.cells[t]) }))]))),
+    el('thead', {}, [
+      el(
+        'tr',
+        {},
+        ['row', ...pv.targets].map((h) => el('th', { text: h })),
+      ),
+    ]),
+    el(
+      'tbody',
+      {},
+      shown.map((r) =>
+        el('tr', { className: `is-${r.status}` }, [
+          el('td', { text: String(r.row) }),
+          ...pv.targets.map((t) =>
+            el('td', { text: r.cells[t] === null || r.cells[t] === undefined ? '' : String(r.cells[t]) }),
+          ),
+        ]),
+      ),
+    ),
   ]);
-  return [head, ...(pv.problems.length ? [problems] : []), el('div', { className: 'kl-scroll' }, [table]), ...(pv.rows.length > shown.length ? [el('p', { className: 'kl-muted', text: `…and ${pv.rows.length - shown.length} more rows.` })] : [])];
+  return [
+    head,
+    ...(pv.problems.length ? [problems] : []),
+    el('div', { className: 'kl-scroll' }, [table]),
+    ...(pv.rows.length > shown.length
+      ? [el('p', { className: 'kl-muted', text: `…and ${pv.rows.length - shown.length} more rows.` })]
+      : []),
+  ];
 }
 
 export async function runImport(app: App, file: File): Promise<void> {
   const read = await readEquipmentFile(file.name, new Uint8Array(await file.arrayBuffer()));
   if (!read.ok) {
-    openDialog('The list was not imported', [el('p', { text: `"${file.name}": ${describeProblem(read.problem)}` }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })], [{ label: 'OK', kind: 'primary' }], { testId: 'import-failed' });
+    openDialog(
+      'The list was not imported',
+      [
+        el('p', { text: `"${file.name}": ${describeProblem(read.problem)}` }),
+        el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' }),
+      ],
+      [{ label: 'OK', kind: 'primary' }],
+      { testId: 'import-failed' },
+    );
     return;
   }
   const currentDoc = app.session.toDoc();
@@ -87,30 +165,55 @@ export async function runImport(app: App, file: File): Promise<void> {
   let step: 'map' | 'preview' = 'map';
   let preview: ImportPreview | undefined;
   const body = el('div', { className: 'kl-import' });
-  const note = el('p', { className: 'kl-field-problem', attrs: { role: 'alert', 'data-testid': 'import-note' } });
+  const note = el('p', {
+    className: 'kl-field-problem',
+    attrs: { role: 'alert', 'data-testid': 'import-note' },
+  });
   const dropBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-drop' } });
   const drop = el('label', { className: 'kl-check' }, [dropBox, ' Leave out the rows with errors']);
   const back = el('button', { className: 'kl-btn', text: 'Back to the mapping', attrs: { type: 'button' } });
-  const add = el('button', { className: 'kl-btn kl-btn-primary', text: 'Accept: add to the equipment', attrs: { type: 'button', 'data-testid': 'import-add' } });
-  const next = el('button', { className: 'kl-btn kl-btn-primary', attrs: { type: 'button', 'data-testid': 'import-next' } });
+  const add = el('button', {
+    className: 'kl-btn kl-btn-primary',
+    text: 'Accept: add to the equipment',
+    attrs: { type: 'button', 'data-testid': 'import-add' },
+  });
+  const next = el('button', {
+    className: 'kl-btn kl-btn-primary',
+    attrs: { type: 'button', 'data-testid': 'import-next' },
+  });
 
   const render = () => {
     note.textContent = '';
     if (step === 'map') {
-      if (proposal.missing.length) note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}.`;
+      if (proposal.missing.length)
+        note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}.`;
       body.replaceChildren(
-        el('p', { text: `${file.name}${read.value.sheet ? `, sheet "${read.value.sheet}"` : ''}: header found in row ${proposal.headerRow}. Check what each column feeds and its unit.` }),
-        el('div', { className: 'kl-scroll' }, [mappingTable(proposal, settings.cases, (p) => ((proposal = p), render()))]),
+        el('p', {
+          text: `${file.name}${read.value.sheet ? `, sheet "${read.value.sheet}"` : ''}: header found in row ${proposal.headerRow}. Check what each column feeds and its unit.`,
+        }),
+        el('div', { className: 'kl-scroll' }, [
+          mappingTable(proposal, settings.cases, (p) => ((proposal = p), render())),
+        ]),
       );
     } else if (preview) {
       body.replaceChildren(
         ...previewNodes(preview),
-        el('p', { className: 'kl-muted', text: existing === 0 ? 'The workbook has no equipment yet.' : `The workbook holds ${existing} items: add the list to them, or replace them.` }),
+        el('p', {
+          className: 'kl-muted',
+          text:
+            existing === 0
+              ? 'The workbook has no equipment yet.'
+              : `The workbook holds ${existing} items: add the list to them, or replace them.`,
+        }),
       );
     }
     const hasErrors = preview?.counts.withErrors ? preview.counts.withErrors > 0 : false;
     drop.hidden = step === 'map' || !hasErrors;
-    const acceptable = step === 'preview' && !!preview && preview.proposal.missing.length === 0 && (preview.canApply || (hasErrors && dropBox.checked));
+    const acceptable =
+      step === 'preview' &&
+      !!preview &&
+      preview.proposal.missing.length === 0 &&
+      (preview.canApply || (hasErrors && dropBox.checked));
     next.textContent = step === 'map' ? 'Preview' : 'Accept: replace the equipment';
     next.disabled = step === 'map' ? proposal.missing.length > 0 : !acceptable;
     add.hidden = step === 'map' || existing === 0;
@@ -126,13 +229,19 @@ export async function runImport(app: App, file: File): Promise<void> {
       return;
     }
     try {
-      localStorage.setItem(MAPPING_MEMORY_STORAGE_KEY, JSON.stringify(rememberMapping(loadMemory(), proposal)));
+      localStorage.setItem(
+        MAPPING_MEMORY_STORAGE_KEY,
+        JSON.stringify(rememberMapping(loadMemory(), proposal)),
+      );
     } catch {
       // Remembering the mapping is a convenience; a full or blocked localStorage must not stop the import.
     }
     dlg.close();
     const left = r.dropped > 0 ? `, ${r.dropped} row(s) with errors left out` : '';
-    void app.replaceWith(r.doc, `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`);
+    void app.replaceWith(
+      r.doc,
+      `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`,
+    );
   };
 
   back.addEventListener('click', () => ((step = 'map'), render()));
@@ -144,6 +253,10 @@ export async function runImport(app: App, file: File): Promise<void> {
     step = 'preview';
     render();
   });
-  const dlg = openDialog('Import equipment list', [body, note], [{ label: 'Cancel' }], { wide: true, testId: 'import', footer: [drop, back, add, next] });
+  const dlg = openDialog('Import equipment list', [body, note], [{ label: 'Cancel' }], {
+    wide: true,
+    testId: 'import',
+    footer: [drop, back, add, next],
+  });
   render();
 }

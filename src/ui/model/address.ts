@@ -10,7 +10,10 @@ export function a1(row: number, col: number): string {
 
 /** A range label: 'B2' for one cell, 'B2:D9' for a block. */
 export function rangeLabel(r1: number, c1: number, r2: number, c2: number): string {
-  const top = Math.min(r1, r2), left = Math.min(c1, c2), bottom = Math.max(r1, r2), right = Math.max(c1, c2);
+  const top = Math.min(r1, r2),
+    left = Math.min(c1, c2),
+    bottom = Math.max(r1, r2),
+    right = Math.max(c1, c2);
   return top === bottom && left === right ? a1(top, left) : `${a1(top, left)}:${a1(bottom, right)}`;
 }
 

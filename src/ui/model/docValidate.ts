@@ -14,16 +14,33 @@ function isRecord(v: unknown): v is Record<string, unknown> {
 
 function checkCells(sheet: string, cells: unknown, out: Problems): void {
   if (!Array.isArray(cells)) return void out.push(`Sheet "${sheet}": cells must be a list of rows.`);
-  if (cells.length > LIMITS.rows) return void out.push(`Sheet "${sheet}": ${cells.length} rows; at most ${LIMITS.rows} are allowed.`);
+  if (cells.length > LIMITS.rows)
+    return void out.push(`Sheet "${sheet}": ${cells.length} rows; at most ${LIMITS.rows} are allowed.`);
   for (let r = 0; r < cells.length && out.length < 20; r++) {
     const row: unknown = cells[r];
-    if (!Array.isArray(row)) { out.push(`Sheet "${sheet}", row ${r + 1}: must be a list of cells.`); continue; }
-    if (row.length > LIMITS.cols) { out.push(`Sheet "${sheet}", row ${r + 1}: ${row.length} columns; at most ${LIMITS.cols}.`); continue; }
+    if (!Array.isArray(row)) {
+      out.push(`Sheet "${sheet}", row ${r + 1}: must be a list of cells.`);
+      continue;
+    }
+    if (row.length > LIMITS.cols) {
+      out.push(`Sheet "${sheet}", row ${r + 1}: ${row.length} columns; at most ${LIMITS.cols}.`);
+      continue;
+    }
     for (let c = 0; c < row.length; c++) {
       const v: unknown = row[c];
-      const ok = v === null || typeof v === 'boolean' || typeof v === 'string' || (typeof v === 'number' && Number.isFinite(v));
-      if (!ok) out.push(`Sheet "${sheet}", cell ${a1(r, c)}: ${v === undefined ? 'a hole in the row' : `a value of type ${typeof v}`}; expected a number, text, TRUE/FALSE or blank.`);
-      else if (typeof v === 'string' && v.length > LIMITS.cellText) out.push(`Sheet "${sheet}", cell ${a1(r, c)}: text of ${v.length} characters; at most ${LIMITS.cellText}.`);
+      const ok =
+        v === null ||
+        typeof v === 'boolean' ||
+        typeof v === 'string' ||
+        (typeof v === 'number' && Number.isFinite(v));
+      if (!ok)
+        out.push(
+          `Sheet "${sheet}", cell ${a1(r, c)}: ${v === undefined ? 'a hole in the row' : `a value of type ${typeof v}`}; expected a number, text, TRUE/FALSE or blank.`,
+        );
+      else if (typeof v === 'string' && v.length > LIMITS.cellText)
+        out.push(
+          `Sheet "${sheet}", cell ${a1(r, c)}: text of ${v.length} characters; at most ${LIMITS.cellText}.`,
+        );
     }
   }
 }
@@ -33,8 +50,12 @@ function checkColumns(sheet: string, columns: unknown, out: Problems): void {
   if (!Array.isArray(columns)) return void out.push(`Sheet "${sheet}": columns must be a list.`);
   columns.forEach((c: unknown, i) => {
     const col = c as Partial<ColumnInfo>;
-    if (!isRecord(c) || typeof col.header !== 'string') out.push(`Sheet "${sheet}", column ${i + 1}: needs a header text.`);
-    else if (col.width !== undefined && !(typeof col.width === 'number' && col.width > 0 && col.width < 500)) out.push(`Sheet "${sheet}", column ${i + 1}: width must be a number of characters in (0, 500); got ${String(col.width)}.`);
+    if (!isRecord(c) || typeof col.header !== 'string')
+      out.push(`Sheet "${sheet}", column ${i + 1}: needs a header text.`);
+    else if (col.width !== undefined && !(typeof col.width === 'number' && col.width > 0 && col.width < 500))
+      out.push(
+        `Sheet "${sheet}", column ${i + 1}: width must be a number of characters in (0, 500); got ${String(col.width)}.`,
+      );
   });
 }
 
@@ -42,17 +63,24 @@ function checkColumns(sheet: string, columns: unknown, out: Problems): void {
 export function workbookProblems(doc: unknown): string[] {
   const out: Problems = [];
   if (!isRecord(doc)) return ['Not a Kvar Ledger workbook: expected a JSON object.'];
-  if (doc.format !== 'kvar-ledger-workbook') return [`Not a Kvar Ledger workbook: "format" is ${JSON.stringify(doc.format) ?? 'missing'}; expected "kvar-ledger-workbook".`];
-  if (doc.version !== 1) out.push(`Unsupported workbook version ${JSON.stringify(doc.version)}; this app reads version 1.`);
+  if (doc.format !== 'kvar-ledger-workbook')
+    return [
+      `Not a Kvar Ledger workbook: "format" is ${JSON.stringify(doc.format) ?? 'missing'}; expected "kvar-ledger-workbook".`,
+    ];
+  if (doc.version !== 1)
+    out.push(`Unsupported workbook version ${JSON.stringify(doc.version)}; this app reads version 1.`);
   if (typeof doc.title !== 'string') out.push('The workbook title must be text.');
   const sheets = doc.sheets;
   if (!Array.isArray(sheets) || sheets.length === 0) return [...out, 'A workbook needs at least one sheet.'];
-  if (sheets.length > LIMITS.sheets) out.push(`${sheets.length} sheets; at most ${LIMITS.sheets} are allowed.`);
+  if (sheets.length > LIMITS.sheets)
+    out.push(`${sheets.length} sheets; at most ${LIMITS.sheets} are allowed.`);
   const seen = new Set<string>();
   sheets.forEach((s: unknown, i) => {
-    if (!isRecord(s) || typeof s.name !== 'string' || s.name.trim() === '') return void out.push(`Sheet ${i + 1}: needs a name.`);
+    if (!isRecord(s) || typeof s.name !== 'string' || s.name.trim() === '')
+      return void out.push(`Sheet ${i + 1}: needs a name.`);
     const name = s.name;
-    if (name.length > MAX_SHEET_NAME) out.push(`Sheet "${name}": the name is longer than ${MAX_SHEET_NAME} characters.`);
+    if (name.length > MAX_SHEET_NAME)
+      out.push(`Sheet "${name}": the name is longer than ${MAX_SHEET_NAME} characters.`);
     if (seen.has(name.toLowerCase())) out.push(`Sheet "${name}" appears twice.`);
     seen.add(name.toLowerCase());
     checkCells(name, s.cells, out);
@@ -66,15 +94,25 @@ export function isWorkbookDoc(doc: unknown): doc is WorkbookDoc {
 }
 
 /** Parse the native file text; a clear message instead of an exception. */
-export function parseWorkbookText(text: string): { ok: true; doc: WorkbookDoc } | { ok: false; message: string } {
+export function parseWorkbookText(
+  text: string,
+): { ok: true; doc: WorkbookDoc } | { ok: false; message: string } {
   let value: unknown;
   try {
     value = JSON.parse(text);
   } catch (e) {
-    return { ok: false, message: `The file is not valid JSON (${e instanceof Error ? e.message : String(e)}).` };
+    return {
+      ok: false,
+      message: `The file is not valid JSON (${e instanceof Error ? e.message : String(e)}).`,
+    };
   }
   const problems = workbookProblems(value);
-  if (problems.length > 0) return { ok: false, message: problems.slice(0, 5).join(' ') + (problems.length > 5 ? ` (and ${problems.length - 5} more)` : '') };
+  if (problems.length > 0)
+    return {
+      ok: false,
+      message:
+        problems.slice(0, 5).join(' ') + (problems.length > 5 ? ` (and ${problems.length - 5} more)` : ''),
+    };
   return { ok: true, doc: value as WorkbookDoc };
 }
 

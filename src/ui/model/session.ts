@@ -23,7 +23,11 @@ export class WorkbookSession {
   private readonly listeners = new Set<(c: SessionChange) => void>();
   private readonly contents: SheetContents;
 
-  private constructor(readonly engine: HyperFormula, private titleText: string, layout: Layout) {
+  private constructor(
+    readonly engine: HyperFormula,
+    private titleText: string,
+    layout: Layout,
+  ) {
     this.layout = layout;
     this.contents = new SheetContents(engine);
   }
@@ -35,7 +39,10 @@ export class WorkbookSession {
     for (const s of doc.sheets) {
       const id = engine.getSheetId(s.name) as number;
       order.push(id);
-      meta.set(id, { ...(s.columns ? { columns: s.columns } : {}), ...(s.purpose ? { purpose: s.purpose } : {}) });
+      meta.set(id, {
+        ...(s.columns ? { columns: s.columns } : {}),
+        ...(s.purpose ? { purpose: s.purpose } : {}),
+      });
     }
     engine.clearUndoStack();
     const session = new WorkbookSession(engine, doc.title, { order, meta });
@@ -94,16 +101,22 @@ export class WorkbookSession {
   setBlock(sheetId: number, row: number, col: number, block: CellContent[][]): void {
     if (block.length === 0) return;
     this.act(() => this.engine.setCellContents({ sheet: sheetId, row, col }, block));
-    this.contents.patch(sheetId, block.flatMap((line, r) => line.map((_, c) => ({ row: row + r, col: col + c }))));
+    this.contents.patch(
+      sheetId,
+      block.flatMap((line, r) => line.map((_, c) => ({ row: row + r, col: col + c }))),
+    );
     this.emit({ kind: 'cells', sheetId });
   }
 
   /** Several scattered single-cell writes as one step (an edit, a cut, a clear). */
   setCells(sheetId: number, cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>): void {
     if (cells.length === 0) return;
-    this.act(() => this.engine.batch(() => {
-      for (const c of cells) this.engine.setCellContents({ sheet: sheetId, row: c.row, col: c.col }, c.content);
-    }));
+    this.act(() =>
+      this.engine.batch(() => {
+        for (const c of cells)
+          this.engine.setCellContents({ sheet: sheetId, row: c.row, col: c.col }, c.content);
+      }),
+    );
     this.contents.patch(sheetId, cells);
     this.emit({ kind: 'cells', sheetId });
   }
@@ -116,7 +129,8 @@ export class WorkbookSession {
 
   /** Contents of `source` as they would read when pasted with their top-left at `at`. */
   movedContents(source: SimpleCellRange, at: { sheet: number; row: number; col: number }): CellContent[][] {
-    const h = source.end.row - source.start.row, w = source.end.col - source.start.col;
+    const h = source.end.row - source.start.row,
+      w = source.end.col - source.start.col;
     const target = { start: at, end: { sheet: at.sheet, row: at.row + h, col: at.col + w } };
     return this.engine.getFillRangeData(source, target, true) as CellContent[][];
   }

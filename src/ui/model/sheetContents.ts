@@ -94,13 +94,24 @@ export class SheetContents {
    */
   private clearSpills(id: number, rows: CellContent[][]): void {
     const isArray = (row: number, col: number) => this.engine.isCellPartOfArray({ sheet: id, row, col });
-    rows.forEach((cells, r) => cells.forEach((v, c) => {
-      if (!isFormula(v) || !isArray(r, c)) return;
-      for (let rr = r; rr < rows.length && (rr === r || (!isFormula(rows[rr]?.[c]) && isArray(rr, c))); rr++) {
-        const line = rows[rr] as CellContent[];
-        for (let cc = rr === r ? c + 1 : c; cc < line.length && !isFormula(line[cc]) && isArray(rr, cc); cc++) line[cc] = null;
-        if (rr !== r && !isFormula(line[c])) line[c] = null;
-      }
-    }));
+    rows.forEach((cells, r) =>
+      cells.forEach((v, c) => {
+        if (!isFormula(v) || !isArray(r, c)) return;
+        for (
+          let rr = r;
+          rr < rows.length && (rr === r || (!isFormula(rows[rr]?.[c]) && isArray(rr, c)));
+          rr++
+        ) {
+          const line = rows[rr] as CellContent[];
+          for (
+            let cc = rr === r ? c + 1 : c;
+            cc < line.length && !isFormula(line[cc]) && isArray(rr, cc);
+            cc++
+          )
+            line[cc] = null;
+          if (rr !== r && !isFormula(line[c])) line[c] = null;
+        }
+      }),
+    );
   }
 }

@@ -5,14 +5,20 @@
 export const MAX_SHEET_NAME = 31;
 
 /** Returns a message saying what is wrong, or undefined when the name is fine. */
-export function sheetNameProblem(name: string, existing: readonly string[], current?: string): string | undefined {
+export function sheetNameProblem(
+  name: string,
+  existing: readonly string[],
+  current?: string,
+): string | undefined {
   const trimmed = name.trim();
   if (trimmed === '') return 'A sheet name cannot be empty.';
   if (trimmed !== name) return 'A sheet name cannot start or end with spaces.';
-  if (name.length > MAX_SHEET_NAME) return `A sheet name can have at most ${MAX_SHEET_NAME} characters; this one has ${name.length}.`;
+  if (name.length > MAX_SHEET_NAME)
+    return `A sheet name can have at most ${MAX_SHEET_NAME} characters; this one has ${name.length}.`;
   const bad = /[:\\/?*[\]]/.exec(name);
   if (bad) return `A sheet name cannot contain the character ${bad[0]}`;
-  if (name.startsWith("'") || name.endsWith("'")) return 'A sheet name cannot start or end with an apostrophe.';
+  if (name.startsWith("'") || name.endsWith("'"))
+    return 'A sheet name cannot start or end with an apostrophe.';
   const clash = existing.find((e) => e.toLowerCase() === name.toLowerCase() && e !== current);
   if (clash !== undefined) return `There is already a sheet called "${clash}".`;
   return undefined;

@@ -37,15 +37,30 @@ function inputItem(p: Problem, origins: SiteFromWorkbook['origins']): CheckItem 
   // Rows of the site read from a workbook are numbered as one list from 2; origins map them back.
   const origin = p.row !== undefined ? origins[p.row - 2] : undefined;
   const target = origin ? { sheet: origin.sheet, row: origin.row + 1 } : undefined;
-  const parts = [target ? `${target.sheet} row ${target.row}` : '', p.column ? `column ${p.column}` : '', !target && p.bus ? `bus ${p.bus}` : ''];
-  return { severity: p.severity, code: 'input', where: parts.filter(Boolean).join(', '), text: origin ? bareText(p) : p.message, ...(target ? { target } : {}) };
+  const parts = [
+    target ? `${target.sheet} row ${target.row}` : '',
+    p.column ? `column ${p.column}` : '',
+    !target && p.bus ? `bus ${p.bus}` : '',
+  ];
+  return {
+    severity: p.severity,
+    code: 'input',
+    where: parts.filter(Boolean).join(', '),
+    text: origin ? bareText(p) : p.message,
+    ...(target ? { target } : {}),
+  };
 }
 
 function designItem(w: DesignWarning): CheckItem {
   const parts = [w.bus ? `bus ${w.bus}` : '', w.tag ? `item ${w.tag}` : ''];
   const casePrefix = w.case !== undefined ? `case ${w.case}: ` : '';
   const text = bareText(w);
-  return { severity: w.severity, code: w.code, where: parts.filter(Boolean).join(', '), text: text.startsWith(casePrefix) ? text : casePrefix + text };
+  return {
+    severity: w.severity,
+    code: w.code,
+    where: parts.filter(Boolean).join(', '),
+    text: text.startsWith(casePrefix) ? text : casePrefix + text,
+  };
 }
 
 const RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };

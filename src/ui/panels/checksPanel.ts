@@ -20,7 +20,10 @@ export class ChecksPanel {
   constructor() {
     this.body = el('div', { className: 'kl-checks-body' });
     this.root = el('section', { className: 'kl-checks', attrs: { 'data-testid': 'checks' } }, [
-      el('p', { className: 'kl-muted', text: 'Input problems, then the findings for the compensation Kvar Ledger proposes from these inputs. The Compensation sheet checks the banks you enter there.' }),
+      el('p', {
+        className: 'kl-muted',
+        text: 'Input problems, then the findings for the compensation Kvar Ledger proposes from these inputs. The Compensation sheet checks the banks you enter there.',
+      }),
       this.body,
     ]);
   }
@@ -42,7 +45,12 @@ export class ChecksPanel {
       report = collectChecks(this.session.toDoc());
     } catch (e) {
       clear(this.body);
-      this.body.append(el('p', { className: 'kl-check is-error', text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}` }));
+      this.body.append(
+        el('p', {
+          className: 'kl-check is-error',
+          text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}`,
+        }),
+      );
       return;
     }
     this.render(report);
@@ -51,9 +59,20 @@ export class ChecksPanel {
   private render(r: ChecksReport): void {
     clear(this.body);
     const { error, warning, info } = r.counts;
-    this.body.append(el('p', { className: 'kl-checks-summary', attrs: { 'data-testid': 'checks-summary' }, text: `${error} error${error === 1 ? '' : 's'}, ${warning} warning${warning === 1 ? '' : 's'}, ${info} note${info === 1 ? '' : 's'}` }));
-    if (r.items.length === 0 && !r.designSkipped) this.body.append(el('p', { className: 'kl-muted', text: 'Nothing to report for these inputs.' }));
-    const list = el('ul', { className: 'kl-check-list' }, r.items.map((i) => this.item(i)));
+    this.body.append(
+      el('p', {
+        className: 'kl-checks-summary',
+        attrs: { 'data-testid': 'checks-summary' },
+        text: `${error} error${error === 1 ? '' : 's'}, ${warning} warning${warning === 1 ? '' : 's'}, ${info} note${info === 1 ? '' : 's'}`,
+      }),
+    );
+    if (r.items.length === 0 && !r.designSkipped)
+      this.body.append(el('p', { className: 'kl-muted', text: 'Nothing to report for these inputs.' }));
+    const list = el(
+      'ul',
+      { className: 'kl-check-list' },
+      r.items.map((i) => this.item(i)),
+    );
     this.body.append(list);
     if (r.designSkipped) this.body.append(el('p', { className: 'kl-muted', text: r.designSkipped }));
   }
@@ -67,7 +86,12 @@ export class ChecksPanel {
     ]);
     const target = i.target;
     if (target) {
-      const go = el('button', { className: 'kl-link-btn', text: 'show', title: `Go to ${target.sheet} row ${target.row}`, attrs: { type: 'button' } });
+      const go = el('button', {
+        className: 'kl-link-btn',
+        text: 'show',
+        title: `Go to ${target.sheet} row ${target.row}`,
+        attrs: { type: 'button' },
+      });
       go.addEventListener('click', () => this.onJump(target));
       li.append(go);
     }

@@ -25,11 +25,23 @@ export class FunctionReference {
   private selected: FunctionSpec | undefined = CATALOGUE[0];
 
   constructor(private readonly host: ReferenceHost) {
-    this.search = el('input', { className: 'kl-input kl-ref-search', attrs: { type: 'search', placeholder: 'Search functions, units, arguments…', 'aria-label': 'Search functions', 'data-testid': 'ref-search' } });
+    this.search = el('input', {
+      className: 'kl-input kl-ref-search',
+      attrs: {
+        type: 'search',
+        placeholder: 'Search functions, units, arguments…',
+        'aria-label': 'Search functions',
+        'data-testid': 'ref-search',
+      },
+    });
     this.search.addEventListener('input', () => this.renderList());
     this.list = el('div', { className: 'kl-ref-list', attrs: { 'data-testid': 'ref-list' } });
     this.detail = el('article', { className: 'kl-ref-detail', attrs: { 'data-testid': 'ref-detail' } });
-    this.root = el('section', { className: 'kl-ref', attrs: { 'aria-label': 'Function reference' } }, [this.search, this.list, this.detail]);
+    this.root = el('section', { className: 'kl-ref', attrs: { 'aria-label': 'Function reference' } }, [
+      this.search,
+      this.list,
+      this.detail,
+    ]);
     // The detail's examples need the engine: drawn when the panel is first shown (refresh).
     this.renderList();
   }
@@ -48,14 +60,22 @@ export class FunctionReference {
   private renderList(): void {
     const found = searchCatalogue(this.search.value);
     clear(this.list);
-    if (found.length === 0) this.list.append(el('p', { className: 'kl-muted', text: 'No function matches.' }));
+    if (found.length === 0)
+      this.list.append(el('p', { className: 'kl-muted', text: 'No function matches.' }));
     for (const g of byFamily(found)) {
       this.list.append(el('h3', { className: 'kl-ref-family', text: g.family }));
       for (const f of g.specs) {
-        const b = el('button', { className: `kl-ref-item${f === this.selected ? ' is-current' : ''}`, attrs: { type: 'button', 'data-fn': f.name } }, [
-          el('span', { className: 'kl-ref-name', text: f.name }),
-          el('span', { className: 'kl-ref-summary', text: f.summary }),
-        ]);
+        const b = el(
+          'button',
+          {
+            className: `kl-ref-item${f === this.selected ? ' is-current' : ''}`,
+            attrs: { type: 'button', 'data-fn': f.name },
+          },
+          [
+            el('span', { className: 'kl-ref-name', text: f.name }),
+            el('span', { className: 'kl-ref-summary', text: f.summary }),
+          ],
+        );
         b.addEventListener('click', () => this.show(f.name));
         this.list.append(b);
       }
@@ -66,17 +86,33 @@ export class FunctionReference {
     clear(this.detail);
     const f = this.selected;
     if (!f) return;
-    const insert = el('button', { className: 'kl-btn kl-btn-primary', text: 'Insert into cell', attrs: { type: 'button', 'data-testid': 'ref-insert' } });
+    const insert = el('button', {
+      className: 'kl-btn kl-btn-primary',
+      text: 'Insert into cell',
+      attrs: { type: 'button', 'data-testid': 'ref-insert' },
+    });
     insert.addEventListener('click', () => this.host.insert(`=${f.name}(`));
     const params = el('table', { className: 'kl-ref-params' }, [
-      el('thead', {}, [el('tr', {}, ['#', 'argument', 'unit', 'allowed', 'meaning'].map((h) => el('th', { text: h })))]),
-      el('tbody', {}, f.params.map((p, i) => el('tr', {}, [
-        el('td', { text: String(i + 1) }),
-        el('td', { className: 'kl-mono', text: isOptional(p) ? `[${p.name}]` : p.name }),
-        el('td', { text: p.unit === '1' ? '—' : p.unit }),
-        el('td', { text: p.type === 'boolean' ? 'TRUE/FALSE' : describeInterval(p.domain) }),
-        el('td', { text: p.doc }),
-      ]))),
+      el('thead', {}, [
+        el(
+          'tr',
+          {},
+          ['#', 'argument', 'unit', 'allowed', 'meaning'].map((h) => el('th', { text: h })),
+        ),
+      ]),
+      el(
+        'tbody',
+        {},
+        f.params.map((p, i) =>
+          el('tr', {}, [
+            el('td', { text: String(i + 1) }),
+            el('td', { className: 'kl-mono', text: isOptional(p) ? `[${p.name}]` : p.name }),
+            el('td', { text: p.unit === '1' ? '—' : p.unit }),
+            el('td', { text: p.type === 'boolean' ? 'TRUE/FALSE' : describeInterval(p.domain) }),
+            el('td', { text: p.doc }),
+          ]),
+        ),
+      ),
     ]);
     this.detail.append(
       el('div', { className: 'kl-ref-head' }, [el('h2', { className: 'kl-mono', text: f.name }), insert]),
@@ -84,8 +120,18 @@ export class FunctionReference {
       el('p', { className: 'kl-ref-summary-line', text: f.summary }),
       el('p', { text: f.description }),
       params,
-      el('p', { className: 'kl-ref-result' }, [el('strong', { text: 'Result: ' }), `${f.result.doc} (${f.result.unit})`]),
-      el('p', { className: 'kl-ref-source' }, [el('span', { className: `kl-badge kl-badge-${f.source.kind.replace(/\s+/g, '-')}`, text: f.source.kind }), ' ', f.source.ref]),
+      el('p', { className: 'kl-ref-result' }, [
+        el('strong', { text: 'Result: ' }),
+        `${f.result.doc} (${f.result.unit})`,
+      ]),
+      el('p', { className: 'kl-ref-source' }, [
+        el('span', {
+          className: `kl-badge kl-badge-${f.source.kind.replace(/\s+/g, '-')}`,
+          text: f.source.kind,
+        }),
+        ' ',
+        f.source.ref,
+      ]),
       el('h3', { className: 'kl-ref-family', text: 'Examples, computed now by the engine' }),
       this.examples(f),
     );
@@ -98,18 +144,35 @@ export class FunctionReference {
       const r = evaluateFormula(session.engine, formula, this.host.currentSheet());
       const got = r.ok ? { ok: true as const, value: r.value } : { ok: false as const, message: r.message };
       const check = checkExample(ex, got);
-      const shown = check.kind === 'value' && typeof check.got === 'number' ? formatGeneral(check.got) : String(check.got);
-      const use = el('button', { className: 'kl-link', text: 'use', title: 'Put this formula into the active cell', attrs: { type: 'button' } });
+      const shown =
+        check.kind === 'value' && typeof check.got === 'number'
+          ? formatGeneral(check.got)
+          : String(check.got);
+      const use = el('button', {
+        className: 'kl-link',
+        text: 'use',
+        title: 'Put this formula into the active cell',
+        attrs: { type: 'button' },
+      });
       use.addEventListener('click', () => this.host.insert(formula));
       return el('tr', { className: check.ok ? '' : 'is-off' }, [
         el('td', { className: 'kl-mono', text: formula }),
         el('td', { className: `kl-mono ${r.ok ? '' : 'kl-text-error'}`, text: shown }),
-        el('td', { className: 'kl-ref-note', text: ex.note + (check.ok ? '' : ' — differs from the stated result') }),
+        el('td', {
+          className: 'kl-ref-note',
+          text: ex.note + (check.ok ? '' : ' — differs from the stated result'),
+        }),
         el('td', {}, [use]),
       ]);
     });
     return el('table', { className: 'kl-ref-examples', attrs: { 'data-testid': 'ref-examples' } }, [
-      el('thead', {}, [el('tr', {}, ['formula', 'engine gives', 'note', ''].map((h) => el('th', { text: h })))]),
+      el('thead', {}, [
+        el(
+          'tr',
+          {},
+          ['formula', 'engine gives', 'note', ''].map((h) => el('th', { text: h })),
+        ),
+      ]),
       el('tbody', {}, rows),
     ]);
   }

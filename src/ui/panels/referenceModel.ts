@@ -8,7 +8,9 @@ export function searchCatalogue(query: string, specs: readonly FunctionSpec[] = 
   const words = query.toLowerCase().split(/\s+/).filter(Boolean);
   if (words.length === 0) return [...specs];
   return specs.filter((f) => {
-    const hay = [f.name, f.summary, f.family, f.description, ...f.params.map((p) => `${p.name} ${p.unit}`)].join(' ').toLowerCase();
+    const hay = [f.name, f.summary, f.family, f.description, ...f.params.map((p) => `${p.name} ${p.unit}`)]
+      .join(' ')
+      .toLowerCase();
     return words.every((w) => hay.includes(w));
   });
 }
@@ -26,7 +28,9 @@ export function byFamily(specs: readonly FunctionSpec[]): Array<{ family: string
 
 /** '=KVAR.MOTOR(90,0.95,0.85,,30)': omitted optional arguments are left empty, trailing ones dropped. */
 export function exampleFormula(spec: FunctionSpec, ex: Example): string {
-  const args = ex.args.map((a) => (a === undefined ? '' : typeof a === 'boolean' ? (a ? 'TRUE' : 'FALSE') : String(a)));
+  const args = ex.args.map((a) =>
+    a === undefined ? '' : typeof a === 'boolean' ? (a ? 'TRUE' : 'FALSE') : String(a),
+  );
   while (args.length > 0 && args[args.length - 1] === '') args.pop();
   return `=${spec.name}(${args.join(',')})`;
 }
@@ -36,7 +40,10 @@ export type ExampleCheck =
   | { readonly kind: 'error'; readonly ok: boolean; readonly got: string };
 
 /** Does what the engine computed agree with the example's stated result (within its tolerance)? */
-export function checkExample(ex: Example, got: { ok: true; value: unknown } | { ok: false; message: string }): ExampleCheck {
+export function checkExample(
+  ex: Example,
+  got: { ok: true; value: unknown } | { ok: false; message: string },
+): ExampleCheck {
   if (typeof ex.expect === 'number') {
     if (!got.ok) return { kind: 'error', ok: false, got: got.message };
     const v = got.value;

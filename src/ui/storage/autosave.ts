@@ -29,7 +29,11 @@ export class Autosaver {
   private readonly setTimer: (fn: () => void, ms: number) => unknown;
   private readonly clearTimer: (h: unknown) => void;
 
-  constructor(private readonly saver: Saver, private readonly snapshot: () => WorkbookDoc, private readonly opts: AutosaveOptions = {}) {
+  constructor(
+    private readonly saver: Saver,
+    private readonly snapshot: () => WorkbookDoc,
+    private readonly opts: AutosaveOptions = {},
+  ) {
     this.delay = opts.delayMs ?? 700;
     this.setTimer = opts.setTimer ?? ((fn, ms) => setTimeout(fn, ms));
     this.clearTimer = opts.clearTimer ?? ((h) => clearTimeout(h as ReturnType<typeof setTimeout>));
@@ -69,7 +73,11 @@ export class Autosaver {
     try {
       result = await this.saver.save(this.snapshot());
     } catch (e) {
-      result = { ok: false, reason: 'storage', message: `Saving failed: ${e instanceof Error ? e.message : String(e)}` };
+      result = {
+        ok: false,
+        reason: 'storage',
+        message: `Saving failed: ${e instanceof Error ? e.message : String(e)}`,
+      };
     }
     if (result.ok) this.opts.onStatus?.({ state: 'saved', savedAt: result.savedAt });
     else this.opts.onStatus?.({ state: 'failed', message: result.message });

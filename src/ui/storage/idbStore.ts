@@ -23,7 +23,13 @@ export type SaveResult =
   | { readonly ok: false; readonly reason: 'invalid' | 'storage'; readonly message: string };
 
 export type LoadResult =
-  | { readonly found: true; readonly doc: WorkbookDoc; readonly from: typeof LAST_GOOD | typeof PREVIOUS; readonly savedAt: string; readonly note?: string }
+  | {
+      readonly found: true;
+      readonly doc: WorkbookDoc;
+      readonly from: typeof LAST_GOOD | typeof PREVIOUS;
+      readonly savedAt: string;
+      readonly note?: string;
+    }
   | { readonly found: false; readonly note?: string };
 
 function request<T>(req: IDBRequest<T>): Promise<T> {
@@ -45,13 +51,22 @@ function done(tx: IDBTransaction): Promise<void> {
  * Check, then serialize a workbook; the text is what gets stored. The check admits only finite
  * numbers, text, TRUE/FALSE and blanks, which JSON writes and reads back exactly.
  */
-export function serializeForStorage(doc: WorkbookDoc): { ok: true; text: string } | { ok: false; message: string } {
+export function serializeForStorage(
+  doc: WorkbookDoc,
+): { ok: true; text: string } | { ok: false; message: string } {
   const problems = workbookProblems(doc);
-  if (problems.length > 0) return { ok: false, message: `Not saved, the workbook failed its check: ${problems.slice(0, 3).join(' ')}` };
+  if (problems.length > 0)
+    return {
+      ok: false,
+      message: `Not saved, the workbook failed its check: ${problems.slice(0, 3).join(' ')}`,
+    };
   try {
     return { ok: true, text: JSON.stringify(doc) };
   } catch (e) {
-    return { ok: false, message: `Not saved, the workbook could not be written out: ${e instanceof Error ? e.message : String(e)}` };
+    return {
+      ok: false,
+      message: `Not saved, the workbook could not be written out: ${e instanceof Error ? e.message : String(e)}`,
+    };
   }
 }
 
@@ -60,7 +75,9 @@ function readState(value: unknown): { doc: WorkbookDoc; savedAt: string } | unde
   if (!s || typeof s.text !== 'string') return undefined;
   try {
     const doc: unknown = JSON.parse(s.text);
-    return workbookProblems(doc).length === 0 ? { doc: doc as WorkbookDoc, savedAt: String(s.savedAt) } : undefined;
+    return workbookProblems(doc).length === 0
+      ? { doc: doc as WorkbookDoc, savedAt: String(s.savedAt) }
+      : undefined;
   } catch {
     return undefined;
   }
@@ -91,7 +108,12 @@ export class WorkbookStore {
    * Validate, then write one state under `key` in one transaction. `before` runs in that
    * transaction first and may answer instead (nothing is then written).
    */
-  private async write(key: string, doc: WorkbookDoc, now: Date, before?: (store: IDBObjectStore, text: string) => Promise<SaveResult | undefined>): Promise<SaveResult> {
+  private async write(
+    key: string,
+    doc: WorkbookDoc,
+    now: Date,
+    before?: (store: IDBObjectStore, text: string) => Promise<SaveResult | undefined>,
+  ): Promise<SaveResult> {
     const ser = serializeForStorage(doc);
     if (!ser.ok) return { ok: false, reason: 'invalid', message: ser.message };
     const savedAt = now.toISOString();
@@ -116,9 +138,22 @@ export class WorkbookStore {
     const good = readState(last);
     if (good) return { found: true, doc: good.doc, from: LAST_GOOD, savedAt: good.savedAt };
     const older = readState(prev);
-    const note = last !== undefined ? 'The last saved state could not be read; the one before it was restored.' : undefined;
-    if (older) return { found: true, doc: older.doc, from: PREVIOUS, savedAt: older.savedAt, ...(note ? { note } : {}) };
-    return { found: false, ...(last !== undefined ? { note: 'The saved workbook in this browser could not be read.' } : {}) };
+    const note =
+      last !== undefined
+        ? 'The last saved state could not be read; the one before it was restored.'
+        : undefined;
+    if (older)
+      return {
+        found: true,
+        doc: older.doc,
+        from: PREVIOUS,
+        savedAt: older.savedAt,
+        ...(note ? { note } : {}),
+      };
+    return {
+      found: false,
+      ...(last !== undefined ? { note: 'The saved workbook in this browser could not be read.' } : {}),
+    };
   }
 
   /** The state before the last one (what load() falls back to). */

@@ -7,7 +7,12 @@ export const NATIVE_EXTENSION = '.kvar.json';
 
 /** 'Cold store (demo)' → 'cold-store-demo.kvar.json' */
 export function fileNameFor(title: string, ext = NATIVE_EXTENSION): string {
-  const stem = title.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60);
+  const stem = title
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60);
   return `${stem || 'workbook'}${ext}`;
 }
 
@@ -23,7 +28,9 @@ export function download(bytes: BlobPart, name: string, type: string): void {
 }
 
 /** Save as a file; the same check as the browser storage runs first. */
-export function saveNativeFile(doc: WorkbookDoc): { ok: true; name: string } | { ok: false; message: string } {
+export function saveNativeFile(
+  doc: WorkbookDoc,
+): { ok: true; name: string } | { ok: false; message: string } {
   const ser = serializeForStorage(doc);
   if (!ser.ok) return ser;
   const name = fileNameFor(doc.title);
@@ -45,8 +52,14 @@ export function pickFile(accept: string): Promise<File | undefined> {
 
 export const MAX_NATIVE_BYTES = 64 * 1024 * 1024;
 
-export async function readNativeFile(file: File): Promise<{ ok: true; doc: WorkbookDoc } | { ok: false; message: string }> {
-  if (file.size > MAX_NATIVE_BYTES) return { ok: false, message: `"${file.name}" is ${(file.size / 1048576).toFixed(0)} MB; workbooks up to ${MAX_NATIVE_BYTES / 1048576} MB can be opened.` };
+export async function readNativeFile(
+  file: File,
+): Promise<{ ok: true; doc: WorkbookDoc } | { ok: false; message: string }> {
+  if (file.size > MAX_NATIVE_BYTES)
+    return {
+      ok: false,
+      message: `"${file.name}" is ${(file.size / 1048576).toFixed(0)} MB; workbooks up to ${MAX_NATIVE_BYTES / 1048576} MB can be opened.`,
+    };
   const r = parseWorkbookText(await file.text());
   return r.ok ? r : { ok: false, message: `"${file.name}" cannot be opened: ${r.message}` };
 }

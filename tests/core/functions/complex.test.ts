@@ -33,36 +33,47 @@ const closeToScale = (a: number, b: number, scale: number) => Math.abs(a - b) <=
 
 describe('complex power S = √3·U·I* (complex.js) agrees with the catalogue', () => {
   it('KVA.TOTAL = |S|', () => {
-    fc.assert(fc.property(phasors, (ph) => {
-      const { p, q, s } = complexPower(ph);
-      return close(value(fn('KVA.TOTAL'), p, q), s, 1e-12) && close(s, Math.sqrt(3) * ph.u * ph.i, 1e-12);
-    }));
+    fc.assert(
+      fc.property(phasors, (ph) => {
+        const { p, q, s } = complexPower(ph);
+        return close(value(fn('KVA.TOTAL'), p, q), s, 1e-12) && close(s, Math.sqrt(3) * ph.u * ph.i, 1e-12);
+      }),
+    );
   });
   it('COSPHI = |cos(φu − φi)| and TANPHI = tan(φu − φi)', () => {
-    fc.assert(fc.property(phasors, (ph) => {
-      const { p, q, phi } = complexPower(ph);
-      if (Math.abs(Math.cos(phi)) < 1e-6) return true; // tan undefined near ±90°
-      const t = Math.tan(phi);
-      return Math.abs(value(fn('COSPHI'), p, q) - Math.abs(Math.cos(phi))) <= 1e-12 && Math.abs(value(fn('TANPHI'), p, q) - t) <= 1e-9 * (1 + Math.abs(t));
-    }));
+    fc.assert(
+      fc.property(phasors, (ph) => {
+        const { p, q, phi } = complexPower(ph);
+        if (Math.abs(Math.cos(phi)) < 1e-6) return true; // tan undefined near ±90°
+        const t = Math.tan(phi);
+        return (
+          Math.abs(value(fn('COSPHI'), p, q) - Math.abs(Math.cos(phi))) <= 1e-12 &&
+          Math.abs(value(fn('TANPHI'), p, q) - t) <= 1e-9 * (1 + Math.abs(t))
+        );
+      }),
+    );
   });
   it('KVAR.LOAD(P, cos φ, leading = Q < 0) gives back Im(S) for consumed power', () => {
-    fc.assert(fc.property(phasors, (ph) => {
-      const { p, q, s } = complexPower(ph);
-      if (p <= 0) return true; // KVAR.LOAD describes a consuming load
-      const c = value(fn('COSPHI'), p, q);
-      if (c < 1e-6) return true; // nearly pure reactive: tan φ amplifies the rounding of P
-      return closeToScale(value(fn('KVAR.LOAD'), p, c, q < 0), q, s);
-    }));
+    fc.assert(
+      fc.property(phasors, (ph) => {
+        const { p, q, s } = complexPower(ph);
+        if (p <= 0) return true; // KVAR.LOAD describes a consuming load
+        const c = value(fn('COSPHI'), p, q);
+        if (c < 1e-6) return true; // nearly pure reactive: tan φ amplifies the rounding of P
+        return closeToScale(value(fn('KVAR.LOAD'), p, c, q < 0), q, s);
+      }),
+    );
   });
   it('KVAR.GEN(P, cos φ) gives back Im(S) of a machine delivering P and kvar (generator reference flipped)', () => {
-    fc.assert(fc.property(phasors, (ph) => {
-      const { p, q, s } = complexPower(ph);
-      // a generator delivering P (load-reference P < 0) and kvar (load-reference Q < 0)
-      if (p >= 0 || q >= 0) return true;
-      const c = value(fn('COSPHI'), p, q);
-      if (c < 1e-6) return true;
-      return closeToScale(value(fn('KVAR.GEN'), -p, c), q, s);
-    }));
+    fc.assert(
+      fc.property(phasors, (ph) => {
+        const { p, q, s } = complexPower(ph);
+        // a generator delivering P (load-reference P < 0) and kvar (load-reference Q < 0)
+        if (p >= 0 || q >= 0) return true;
+        const c = value(fn('COSPHI'), p, q);
+        if (c < 1e-6) return true;
+        return closeToScale(value(fn('KVAR.GEN'), -p, c), q, s);
+      }),
+    );
   });
 });

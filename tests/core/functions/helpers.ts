@@ -19,7 +19,9 @@ export function failure(spec: FunctionSpec, ...args: RawArg[]): string {
 
 /** |actual − expected| ≤ tol·|expected| (relative), with a message that shows both. */
 export function expectRel(actual: number, expected: number, tol: number): void {
-  expect(Math.abs(actual - expected), `${actual} vs ${expected} (rel tol ${tol})`).toBeLessThanOrEqual(tol * Math.abs(expected));
+  expect(Math.abs(actual - expected), `${actual} vs ${expected} (rel tol ${tol})`).toBeLessThanOrEqual(
+    tol * Math.abs(expected),
+  );
 }
 
 /** |actual − expected| ≤ tol (absolute). */

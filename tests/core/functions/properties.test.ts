@@ -12,7 +12,21 @@ const fn = (name: string): FunctionSpec => findFunction(name) as FunctionSpec;
 /** Anything a cell or a caller can hand over, weighted towards awkward numbers. */
 const rawArg: fc.Arbitrary<RawArg> = fc.oneof(
   fc.double(), // includes NaN, ±Infinity, ±0, subnormals
-  fc.constantFrom(0, 1, -1, 0.5, 100, 1e-300, 1e300, -1e300, Number.MAX_VALUE, Number.MIN_VALUE, Number.NaN, Infinity, -Infinity),
+  fc.constantFrom(
+    0,
+    1,
+    -1,
+    0.5,
+    100,
+    1e-300,
+    1e300,
+    -1e300,
+    Number.MAX_VALUE,
+    Number.MIN_VALUE,
+    Number.NaN,
+    Infinity,
+    -Infinity,
+  ),
   fc.double({ min: -1000, max: 1000, noNaN: true }),
   fc.string({ maxLength: 6 }),
   fc.boolean(),
@@ -21,16 +35,23 @@ const rawArg: fc.Arbitrary<RawArg> = fc.oneof(
 );
 
 describe('robustness', () => {
-  it.each(CATALOGUE.map((s) => [s.name, s] as const))('%s never throws; results are finite numbers or named errors', (_n, spec) => {
-    fc.assert(
-      fc.property(fc.array(rawArg, { minLength: 0, maxLength: spec.params.length + 1 }), (args) => {
-        const r = evaluate(spec, args);
-        if (r.ok) return Number.isFinite(r.value);
-        return r.message.startsWith(`${spec.name}: `) && !r.message.includes('internal error') && !r.message.includes('undefined');
-      }),
-      { numRuns: 300 },
-    );
-  });
+  it.each(CATALOGUE.map((s) => [s.name, s] as const))(
+    '%s never throws; results are finite numbers or named errors',
+    (_n, spec) => {
+      fc.assert(
+        fc.property(fc.array(rawArg, { minLength: 0, maxLength: spec.params.length + 1 }), (args) => {
+          const r = evaluate(spec, args);
+          if (r.ok) return Number.isFinite(r.value);
+          return (
+            r.message.startsWith(`${spec.name}: `) &&
+            !r.message.includes('internal error') &&
+            !r.message.includes('undefined')
+          );
+        }),
+        { numRuns: 300 },
+      );
+    },
+  );
 });
 
 /** Numbers only, mixing plausible values with extremes, so that many calls reach the compute. */
@@ -41,18 +62,26 @@ const numericArg = fc.oneof(
 );
 
 describe('robustness at extreme magnitudes', () => {
-  it.each(CATALOGUE.map((s) => [s.name, s] as const))('%s: huge and tiny numbers give finite results or named errors', (_n, spec) => {
-    let computed = 0;
-    fc.assert(
-      fc.property(fc.array(numericArg, { minLength: spec.params.length, maxLength: spec.params.length }), (args) => {
-        const r = evaluate(spec, args);
-        if (r.ok) computed++;
-        return r.ok ? Number.isFinite(r.value) : r.message.startsWith(`${spec.name}: `) && !r.message.includes('internal error');
-      }),
-      { numRuns: 400 },
-    );
-    expect(computed).toBeGreaterThan(0); // the property reached the compute, not only validation
-  });
+  it.each(CATALOGUE.map((s) => [s.name, s] as const))(
+    '%s: huge and tiny numbers give finite results or named errors',
+    (_n, spec) => {
+      let computed = 0;
+      fc.assert(
+        fc.property(
+          fc.array(numericArg, { minLength: spec.params.length, maxLength: spec.params.length }),
+          (args) => {
+            const r = evaluate(spec, args);
+            if (r.ok) computed++;
+            return r.ok
+              ? Number.isFinite(r.value)
+              : r.message.startsWith(`${spec.name}: `) && !r.message.includes('internal error');
+          },
+        ),
+        { numRuns: 400 },
+      );
+      expect(computed).toBeGreaterThan(0); // the property reached the compute, not only validation
+    },
+  );
 });
 
 const finite = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
@@ -62,74 +91,132 @@ describe('identities', () => {
   it('KVA.TOTAL² = P² + Q² (relative 1e-9)', () => {
     // magnitudes where P² and Q² neither overflow nor underflow in the check itself
     const power = finite(-1e100, 1e100).filter((x) => x === 0 || Math.abs(x) > 1e-100);
-    fc.assert(fc.property(power, power, (p, q) => {
-      const s = value(fn('KVA.TOTAL'), p, q);
-      const sum = p * p + q * q;
-      return Math.abs(s * s - sum) <= 1e-9 * sum;
-    }));
+    fc.assert(
+      fc.property(power, power, (p, q) => {
+        const s = value(fn('KVA.TOTAL'), p, q);
+        const sum = p * p + q * q;
+        return Math.abs(s * s - sum) <= 1e-9 * sum;
+      }),
+    );
   });
   it('COSPHI and TANPHI agree: cos = 1/√(1 + tan²)', () => {
-    fc.assert(fc.property(finite(-1e6, 1e6).filter((p) => Math.abs(p) > 1e-6), finite(-1e6, 1e6), (p, q) => {
-      const c = value(fn('COSPHI'), p, q);
-      const t = value(fn('TANPHI'), p, q);
-      return Math.abs(c - 1 / Math.sqrt(1 + t * t)) <= 1e-12;
-    }));
+    fc.assert(
+      fc.property(
+        finite(-1e6, 1e6).filter((p) => Math.abs(p) > 1e-6),
+        finite(-1e6, 1e6),
+        (p, q) => {
+          const c = value(fn('COSPHI'), p, q);
+          const t = value(fn('TANPHI'), p, q);
+          return Math.abs(c - 1 / Math.sqrt(1 + t * t)) <= 1e-12;
+        },
+      ),
+    );
   });
   it('KVAR.PERKW(a, b) = −KVAR.PERKW(b, a)', () => {
-    fc.assert(fc.property(cos, cos, (a, b) => value(fn('KVAR.PERKW'), a, b) === -value(fn('KVAR.PERKW'), b, a)));
+    fc.assert(
+      fc.property(cos, cos, (a, b) => value(fn('KVAR.PERKW'), a, b) === -value(fn('KVAR.PERKW'), b, a)),
+    );
   });
   it('KVAR.CAPBANK and KVAR.REACTOR scale with U²', () => {
-    fc.assert(fc.property(finite(1, 1e4), finite(0.1, 100), finite(0.2, 5), finite(0, 14), (q, ur, k, p) => {
-      const u = ur * 0.9;
-      const bank1 = value(fn('KVAR.CAPBANK'), q, ur, u, p);
-      const bank2 = value(fn('KVAR.CAPBANK'), q, ur, k * u, p);
-      const re1 = value(fn('KVAR.REACTOR'), q, ur, u);
-      const re2 = value(fn('KVAR.REACTOR'), q, ur, k * u);
-      return Math.abs(bank2 - k * k * bank1) <= 1e-9 * Math.abs(bank2) && Math.abs(re2 - k * k * re1) <= 1e-9 * re2;
-    }));
+    fc.assert(
+      fc.property(finite(1, 1e4), finite(0.1, 100), finite(0.2, 5), finite(0, 14), (q, ur, k, p) => {
+        const u = ur * 0.9;
+        const bank1 = value(fn('KVAR.CAPBANK'), q, ur, u, p);
+        const bank2 = value(fn('KVAR.CAPBANK'), q, ur, k * u, p);
+        const re1 = value(fn('KVAR.REACTOR'), q, ur, u);
+        const re2 = value(fn('KVAR.REACTOR'), q, ur, k * u);
+        return (
+          Math.abs(bank2 - k * k * bank1) <= 1e-9 * Math.abs(bank2) &&
+          Math.abs(re2 - k * k * re1) <= 1e-9 * re2
+        );
+      }),
+    );
   });
   it('KVAR.CAPBANK with a detuning reactor delivers more than without, by 1/(1 − p/100) at rated frequency', () => {
-    fc.assert(fc.property(finite(1, 1e4), finite(0.1, 100), finite(0.5, 14), (q, ur, p) => {
-      const plain = value(fn('KVAR.CAPBANK'), q, ur, ur);
-      const detuned = value(fn('KVAR.CAPBANK'), q, ur, ur, p);
-      return Math.abs(detuned - plain / (1 - p / 100)) <= 1e-9 * Math.abs(detuned);
-    }));
+    fc.assert(
+      fc.property(finite(1, 1e4), finite(0.1, 100), finite(0.5, 14), (q, ur, p) => {
+        const plain = value(fn('KVAR.CAPBANK'), q, ur, ur);
+        const detuned = value(fn('KVAR.CAPBANK'), q, ur, ur, p);
+        return Math.abs(detuned - plain / (1 - p / 100)) <= 1e-9 * Math.abs(detuned);
+      }),
+    );
   });
   it('BANK.ROUNDUP gives whole steps, at least the need, less than one step more', () => {
-    fc.assert(fc.property(finite(1e-3, 1e5), finite(0.5, 500), (q, step) => {
-      const built = value(fn('BANK.ROUNDUP'), q, step);
-      const steps = built / step;
-      return Math.abs(steps - Math.round(steps)) < 1e-6 && built >= q * (1 - 1e-9) && built < q + step;
-    }));
+    fc.assert(
+      fc.property(finite(1e-3, 1e5), finite(0.5, 500), (q, step) => {
+        const built = value(fn('BANK.ROUNDUP'), q, step);
+        const steps = built / step;
+        return Math.abs(steps - Math.round(steps)) < 1e-6 && built >= q * (1 - 1e-9) && built < q + step;
+      }),
+    );
   });
   it('RESONANCE.ORDER without detuning is √(Ssc·1000/Qc) and VRISE.PCT = 100/h²', () => {
-    fc.assert(fc.property(finite(1, 1e4), finite(1, 1e5), (ssc, qc) => {
-      const h = value(fn('RESONANCE.ORDER'), ssc, qc);
-      return Math.abs(h - Math.sqrt((ssc * 1000) / qc)) <= 1e-12 * h && Math.abs(value(fn('VRISE.PCT'), qc, ssc) - 100 / (h * h)) <= 1e-9 * (100 / (h * h));
-    }));
+    fc.assert(
+      fc.property(finite(1, 1e4), finite(1, 1e5), (ssc, qc) => {
+        const h = value(fn('RESONANCE.ORDER'), ssc, qc);
+        return (
+          Math.abs(h - Math.sqrt((ssc * 1000) / qc)) <= 1e-12 * h &&
+          Math.abs(value(fn('VRISE.PCT'), qc, ssc) - 100 / (h * h)) <= 1e-9 * (100 / (h * h))
+        );
+      }),
+    );
   });
 });
 
 describe('sign convention (load reference: Q > 0 absorbed, Q < 0 delivered)', () => {
   it('capacitor banks deliver (< 0) and reactors absorb (> 0)', () => {
-    fc.assert(fc.property(finite(1, 1e4), finite(0.1, 100), finite(0.5, 1.2), finite(0, 14), (q, ur, k, p) => {
-      return value(fn('KVAR.CAPBANK'), q, ur, k * ur, p) < 0 && value(fn('KVAR.REACTOR'), q, ur, k * ur) > 0;
-    }));
+    fc.assert(
+      fc.property(finite(1, 1e4), finite(0.1, 100), finite(0.5, 1.2), finite(0, 14), (q, ur, k, p) => {
+        return (
+          value(fn('KVAR.CAPBANK'), q, ur, k * ur, p) < 0 && value(fn('KVAR.REACTOR'), q, ur, k * ur) > 0
+        );
+      }),
+    );
   });
   it('cables deliver (< 0)', () => {
-    fc.assert(fc.property(finite(0.4, 400), finite(0.05, 1), finite(0.01, 100), (u, c, len) => value(fn('KVAR.CABLE'), u, c, len) < 0));
+    fc.assert(
+      fc.property(
+        finite(0.4, 400),
+        finite(0.05, 1),
+        finite(0.01, 100),
+        (u, c, len) => value(fn('KVAR.CABLE'), u, c, len) < 0,
+      ),
+    );
   });
   it('over-excited generators deliver (≤ 0); under-excited absorb (≥ 0)', () => {
-    fc.assert(fc.property(finite(0, 1e5), cos, (p, c) => value(fn('KVAR.GEN'), p, c) <= 0 && value(fn('KVAR.GEN'), p, c, true) >= 0));
+    fc.assert(
+      fc.property(
+        finite(0, 1e5),
+        cos,
+        (p, c) => value(fn('KVAR.GEN'), p, c) <= 0 && value(fn('KVAR.GEN'), p, c, true) >= 0,
+      ),
+    );
   });
   it('motors and transformers absorb (≥ 0); lagging loads absorb, leading loads deliver', () => {
-    fc.assert(fc.property(finite(0, 1e4), finite(0.5, 1), fc.double({ min: 0.5, max: 0.99, noNaN: true }), finite(0, 1.5), (p, eff, c, x) => {
-      const i0 = 50 * Math.sqrt(1 - c * c); // half of the largest consistent no-load current
-      return value(fn('KVAR.MOTOR'), p, eff, c, x) >= 0 && value(fn('KVAR.MOTOR'), p, eff, c, x, i0) >= 0 &&
-        value(fn('KVAR.LOAD'), p, c) >= 0 && value(fn('KVAR.LOAD'), p, c, true) <= 0;
-    }));
-    fc.assert(fc.property(finite(10, 1e5), finite(0.2, 3), finite(3, 15), finite(0, 2), (s, i0, uk, x) => {
-      return value(fn('KVAR.XFMR.MAG'), s, i0) > 0 && value(fn('KVAR.XFMR.LEAK'), s, uk, x * s, (uk * s) / 400) >= 0;
-    }));
+    fc.assert(
+      fc.property(
+        finite(0, 1e4),
+        finite(0.5, 1),
+        fc.double({ min: 0.5, max: 0.99, noNaN: true }),
+        finite(0, 1.5),
+        (p, eff, c, x) => {
+          const i0 = 50 * Math.sqrt(1 - c * c); // half of the largest consistent no-load current
+          return (
+            value(fn('KVAR.MOTOR'), p, eff, c, x) >= 0 &&
+            value(fn('KVAR.MOTOR'), p, eff, c, x, i0) >= 0 &&
+            value(fn('KVAR.LOAD'), p, c) >= 0 &&
+            value(fn('KVAR.LOAD'), p, c, true) <= 0
+          );
+        },
+      ),
+    );
+    fc.assert(
+      fc.property(finite(10, 1e5), finite(0.2, 3), finite(3, 15), finite(0, 2), (s, i0, uk, x) => {
+        return (
+          value(fn('KVAR.XFMR.MAG'), s, i0) > 0 &&
+          value(fn('KVAR.XFMR.LEAK'), s, uk, x * s, (uk * s) / 400) >= 0
+        );
+      }),
+    );
   });
 });

@@ -37,8 +37,13 @@ describe('power triangle', () => {
 
 describe('correction multiplier k (IEEE Std 141 ch. 8 / USDA RUS 1724D-112 Table 1, published, 3 decimals)', () => {
   const table: Array<[number, number, number]> = [
-    [0.7, 0.95, 0.691], [0.8, 0.95, 0.421], [0.75, 1.0, 0.882], [0.85, 0.95, 0.291],
-    [0.6, 0.9, 0.849], [0.65, 0.9, 0.685], [0.5, 1.0, 1.732],
+    [0.7, 0.95, 0.691],
+    [0.8, 0.95, 0.421],
+    [0.75, 1.0, 0.882],
+    [0.85, 0.95, 0.291],
+    [0.6, 0.9, 0.849],
+    [0.65, 0.9, 0.685],
+    [0.5, 1.0, 1.732],
   ];
   it.each(table)('KVAR.PERKW %s → %s = %s', (from, to, k) => {
     expectAbs(value(fn('KVAR.PERKW'), from, to), k, 0.0015);
@@ -78,11 +83,18 @@ describe('motors and generators', () => {
     const x = Math.log10(pKw);
     return 0.0773 * x ** 3 - 1.8951 * x ** 2 + 9.2984 * x + 83.7025;
   };
-  it.each([[11, 91.4], [37, 93.9], [110, 95.4]])('KW.MOTOR %s kW with IE3 efficiency %s %% (published; input = output/η by definition, IEC 60034-2-1)', (p, eta) => {
-    expectAbs(ie3(p), eta, 0.05);
-    expectRel(value(fn('KW.MOTOR'), p, eta / 100), p / (eta / 100), 1e-12);
-    expectRel(value(fn('KW.MOTOR'), p, eta / 100, 0.5), p / 2 / (eta / 100), 1e-12);
-  });
+  it.each([
+    [11, 91.4],
+    [37, 93.9],
+    [110, 95.4],
+  ])(
+    'KW.MOTOR %s kW with IE3 efficiency %s %% (published; input = output/η by definition, IEC 60034-2-1)',
+    (p, eta) => {
+      expectAbs(ie3(p), eta, 0.05);
+      expectRel(value(fn('KW.MOTOR'), p, eta / 100), p / (eta / 100), 1e-12);
+      expectRel(value(fn('KW.MOTOR'), p, eta / 100, 0.5), p / 2 / (eta / 100), 1e-12);
+    },
+  );
   it('KVAR.MOTOR at full load equals KVAR.LOAD of the input power (derivation: Qr = P_in·tan φ)', () => {
     const pIn = value(fn('KW.MOTOR'), 37, 0.939);
     expectRel(value(fn('KVAR.MOTOR'), 37, 0.939, 0.84), value(fn('KVAR.LOAD'), pIn, 0.84), 1e-12);
@@ -93,10 +105,16 @@ describe('motors and generators', () => {
     const i0 = (0.33 * sr) / (Math.sqrt(3) * 0.4);
     expectRel(value(fn('KVAR.MOTOR'), 37, 0.939, 0.84, 0, 33), Math.sqrt(3) * 0.4 * i0, 1e-12);
     // and without i0: 70 % of full-load kvar stays at no load (the stated common-practice assumption)
-    expectRel(value(fn('KVAR.MOTOR'), 37, 0.939, 0.84, 0), 0.7 * value(fn('KVAR.MOTOR'), 37, 0.939, 0.84), 1e-12);
+    expectRel(
+      value(fn('KVAR.MOTOR'), 37, 0.939, 0.84, 0),
+      0.7 * value(fn('KVAR.MOTOR'), 37, 0.939, 0.84),
+      1e-12,
+    );
   });
   it('KVAR.MOTOR rejects i0 above sin φ (Q0 > Qr)', () => {
-    expect(failure(fn('KVAR.MOTOR'), 37, 0.939, 0.84, 1, 60)).toContain('argument 5 (i0_pct) must not exceed 100·sin φ');
+    expect(failure(fn('KVAR.MOTOR'), 37, 0.939, 0.84, 1, 60)).toContain(
+      'argument 5 (i0_pct) must not exceed 100·sin φ',
+    );
   });
   it('KVAR.MOTORCAP.MAX is 90 % of the no-load kvar (common practice), no-load kvar from complex power √3·U·I0* (complex.js)', () => {
     const u = new Complex({ abs: 0.4, arg: 0 });
@@ -111,7 +129,9 @@ describe('motors and generators', () => {
   it('KVAR.GEN.MAX: 1 250 kVA at rated 1 000 kW gives 750 kvar (0.8 rating, common practice); at P = 0 the full rating', () => {
     expectRel(value(fn('KVAR.GEN.MAX'), 1250, 1000), 750, 1e-12);
     expectRel(value(fn('KVAR.GEN.MAX'), 1250, 0), 1250, 1e-12);
-    expect(failure(fn('KVAR.GEN.MAX'), 100, 120)).toBe('KVAR.GEN.MAX: argument 2 (p_kw) must not exceed argument 1 (s_kva); got 120 > 100');
+    expect(failure(fn('KVAR.GEN.MAX'), 100, 120)).toBe(
+      'KVAR.GEN.MAX: argument 2 (p_kw) must not exceed argument 1 (s_kva); got 120 > 100',
+    );
   });
 });
 
@@ -123,25 +143,52 @@ describe('transformers', () => {
   it('i0 1 % with P0 0.693 kW (EU 548/2014 Tier 2, from memory) → Q0 9.976 kvar', () => {
     expectAbs(value(fn('KVAR.XFMR.MAG'), 1000, 1, 0.693), 9.976, 0.0005);
     // u² scaling (derivation): 10 % overvoltage, 21 % more
-    expectRel(value(fn('KVAR.XFMR.MAG'), 1000, 1, 0.693, 1.1), 1.21 * value(fn('KVAR.XFMR.MAG'), 1000, 1, 0.693), 1e-12);
+    expectRel(
+      value(fn('KVAR.XFMR.MAG'), 1000, 1, 0.693, 1.1),
+      1.21 * value(fn('KVAR.XFMR.MAG'), 1000, 1, 0.693),
+      1e-12,
+    );
   });
   it.each([
-    [400, 4, 3.25, 0.387, 1.5], [630, 4, 4.6, 0.54, 1.2], [1000, 6, 7.6, 0.693, 1], [1600, 6, 12, 1.08, 0.9], [2500, 6, 18.5, 1.575, 0.8],
-  ])('%s kVA (EU 548/2014 Tier 2 losses, from memory) absorbs 5–7 %% of its rating at full load (common practice)', (s, uk, pk, p0, i0) => {
-    const q = value(fn('KVAR.XFMR.MAG'), s, i0, p0) + value(fn('KVAR.XFMR.LEAK'), s, uk, s, pk);
-    expect(q / s).toBeGreaterThanOrEqual(0.05);
-    expect(q / s).toBeLessThanOrEqual(0.07);
-    // losses at full load are P0 + Pk (derivation from the definitions, IEC 60076-1)
-    expectRel(value(fn('KW.XFMR.LOSS'), s, p0, pk, s), p0 + pk, 1e-12);
-    expectRel(value(fn('KW.XFMR.LOSS'), s, p0, pk, 0), p0, 1e-12);
-  });
+    [400, 4, 3.25, 0.387, 1.5],
+    [630, 4, 4.6, 0.54, 1.2],
+    [1000, 6, 7.6, 0.693, 1],
+    [1600, 6, 12, 1.08, 0.9],
+    [2500, 6, 18.5, 1.575, 0.8],
+  ])(
+    '%s kVA (EU 548/2014 Tier 2 losses, from memory) absorbs 5–7 %% of its rating at full load (common practice)',
+    (s, uk, pk, p0, i0) => {
+      const q = value(fn('KVAR.XFMR.MAG'), s, i0, p0) + value(fn('KVAR.XFMR.LEAK'), s, uk, s, pk);
+      expect(q / s).toBeGreaterThanOrEqual(0.05);
+      expect(q / s).toBeLessThanOrEqual(0.07);
+      // losses at full load are P0 + Pk (derivation from the definitions, IEC 60076-1)
+      expectRel(value(fn('KW.XFMR.LOSS'), s, p0, pk, s), p0 + pk, 1e-12);
+      expectRel(value(fn('KW.XFMR.LOSS'), s, p0, pk, 0), p0, 1e-12);
+    },
+  );
   it('KVAR.XFMR.LEAK rejects ur ≥ uk', () => {
-    expect(failure(fn('KVAR.XFMR.LEAK'), 100, 4, 50, 4)).toContain('argument 4 (pk_kw) must be below uk·S/100 = 4');
+    expect(failure(fn('KVAR.XFMR.LEAK'), 100, 4, 50, 4)).toContain(
+      'argument 4 (pk_kw) must be below uk·S/100 = 4',
+    );
   });
   // IEC 60076-5 Table 1: first row read (published), later rows from memory.
   it.each([
-    [100, 4], [630, 4], [631, 5], [1250, 5], [1251, 6], [2500, 6], [2501, 7], [6300, 7], [6301, 8],
-    [25000, 8], [25001, 10], [40000, 10], [40001, 11], [63000, 11], [63001, 12.5], [100000, 12.5],
+    [100, 4],
+    [630, 4],
+    [631, 5],
+    [1250, 5],
+    [1251, 6],
+    [2500, 6],
+    [2501, 7],
+    [6300, 7],
+    [6301, 8],
+    [25000, 8],
+    [25001, 10],
+    [40000, 10],
+    [40001, 11],
+    [63000, 11],
+    [63001, 12.5],
+    [100000, 12.5],
   ])('XFMR.UKMIN(%s kVA) = %s %% (IEC 60076-5 Table 1)', (s, uk) => {
     expect(value(fn('XFMR.UKMIN'), s)).toBe(uk);
   });
@@ -150,18 +197,29 @@ describe('transformers', () => {
 describe('cables and lines', () => {
   it('20 kV XLPE cable of 0.31 µF/km charges ≈ 39 kvar/km at 50 Hz (derived from IEC 60502-2 insulation; formula Q = ωCU²)', () => {
     expectAbs(value(fn('KVAR.CABLE'), 20, 0.31, 1), -39, 0.1);
-    expectRel(value(fn('KVAR.CABLE'), 20, 0.31, 3, 60), 3 * 1.2 * value(fn('KVAR.CABLE'), 20, 0.31, 1), 1e-12);
+    expectRel(
+      value(fn('KVAR.CABLE'), 20, 0.31, 3, 60),
+      3 * 1.2 * value(fn('KVAR.CABLE'), 20, 0.31, 1),
+      1e-12,
+    );
   });
   it('CABLE.CAP agrees with the coaxial capacitance 2π·ε0·εr/ln(D/d) (ε0 = 8.8541878128e-12 F/m, CODATA 2018) within the rounding of 18', () => {
     const eps0 = 8.8541878128e-12;
-    for (const [eps, di, dc] of [[2.5, 30.4, 19.4], [2.3, 12, 5], [8, 40, 10], [3, 22.1, 14.2]] as const) {
+    for (const [eps, di, dc] of [
+      [2.5, 30.4, 19.4],
+      [2.3, 12, 5],
+      [8, 40, 10],
+      [3, 22.1, 14.2],
+    ] as const) {
       const exact = ((2 * Math.PI * eps0 * eps) / Math.log(di / dc)) * 1000 * 1e6; // F/m → µF/km
       expectRel(value(fn('CABLE.CAP'), eps, di, dc), exact, 0.0015);
     }
   });
   it('CABLE.CAP: 12/20 kV XLPE (ε 2.5, IEC 60287-1-1 Table 3 from memory) with 5.5 mm insulation (IEC 60502-2) ≈ 0.31 µF/km', () => {
     expectAbs(value(fn('CABLE.CAP'), 2.5, 19.4 + 2 * 5.5, 19.4), 0.31, 0.005);
-    expect(failure(fn('CABLE.CAP'), 2.5, 20, 20)).toContain('argument 3 (d_cond_mm) must be less than argument 2 (d_ins_mm); got 20 ≥ 20');
+    expect(failure(fn('CABLE.CAP'), 2.5, 20, 20)).toContain(
+      'argument 3 (d_cond_mm) must be less than argument 2 (d_ins_mm); got 20 ≥ 20',
+    );
   });
   it('1 mH/km, 10 nF/km (common practice): Zc ≈ 316 Ω; a 400 kV line charges ≈ 0.50 Mvar/km; SIL ≈ 506 MW', () => {
     expectAbs(lineSurgeImpedance(1, 10), 316, 0.5);
@@ -169,7 +227,11 @@ describe('cables and lines', () => {
     expectAbs(value(fn('LINE.SIL'), 400, 1, 10), 506, 0.5);
   });
   it('at surge impedance loading the series absorption equals the charging (published: net Q = 0)', () => {
-    for (const [u, l, c, len, f] of [[400, 1, 10, 120, 50], [230, 1.3, 8.9, 40, 60], [132, 1.25, 9.4, 15, 50]] as const) {
+    for (const [u, l, c, len, f] of [
+      [400, 1, 10, 120, 50],
+      [230, 1.3, 8.9, 40, 60],
+      [132, 1.25, 9.4, 15, 50],
+    ] as const) {
       const silKva = value(fn('LINE.SIL'), u, l, c) * 1000;
       const charging = Math.abs(value(fn('KVAR.LINE'), u, 0, l, c, len, f));
       expectAbs(value(fn('KVAR.LINE'), u, silKva, l, c, len, f), 0, 1e-9 * charging);
@@ -179,17 +241,22 @@ describe('cables and lines', () => {
   });
   // Kundur, Power System Stability and Control, Table 6.1, 60 Hz (from memory; values rounded, so 2 %).
   const kundur: Array<[number, number, number, number, number]> = [
-    [230, 0.488, 3.371, 380, 140], [345, 0.367, 4.518, 285, 420], [500, 0.325, 5.2, 250, 1000],
+    [230, 0.488, 3.371, 380, 140],
+    [345, 0.367, 4.518, 285, 420],
+    [500, 0.325, 5.2, 250, 1000],
   ];
-  it.each(kundur)('Kundur Table 6.1 %s kV: x %s Ω/km, b %s µS/km → Zc %s Ω, SIL %s MW (from memory)', (u, x, b, zc, sil) => {
-    const w = 2 * Math.PI * 60;
-    const lMh = (x / w) * 1000;
-    const cNf = (b / w) * 1000;
-    expectRel(lineSurgeImpedance(lMh, cNf), zc, 0.02);
-    expectRel(value(fn('LINE.SIL'), u, lMh, cNf), sil, 0.02);
-    // charging at no load per km is b·U² (derivation): µS·kV² = var, /1000 for kvar
-    expectRel(value(fn('KVAR.LINE'), u, 0, lMh, cNf, 1, 60), (-b * u * u) / 1000, 1e-9);
-  });
+  it.each(kundur)(
+    'Kundur Table 6.1 %s kV: x %s Ω/km, b %s µS/km → Zc %s Ω, SIL %s MW (from memory)',
+    (u, x, b, zc, sil) => {
+      const w = 2 * Math.PI * 60;
+      const lMh = (x / w) * 1000;
+      const cNf = (b / w) * 1000;
+      expectRel(lineSurgeImpedance(lMh, cNf), zc, 0.02);
+      expectRel(value(fn('LINE.SIL'), u, lMh, cNf), sil, 0.02);
+      // charging at no load per km is b·U² (derivation): µS·kV² = var, /1000 for kvar
+      expectRel(value(fn('KVAR.LINE'), u, 0, lMh, cNf, 1, 60), (-b * u * u) / 1000, 1e-9);
+    },
+  );
 });
 
 describe('compensation equipment', () => {
@@ -209,7 +276,11 @@ describe('compensation equipment', () => {
   it('capacitor voltage 400 V with 6 % → 425.5 V (published)', () => {
     expectAbs(value(fn('CAPBANK.UCAP'), 0.4, 6) * 1000, 425.5, 0.05);
   });
-  it.each([[5.67, 4.2, 210], [7, 3.78, 189], [14, 2.67, 134]])('CAPBANK.TUNE %s %% → %s (%s Hz at 50 Hz) (published)', (p, n, hz) => {
+  it.each([
+    [5.67, 4.2, 210],
+    [7, 3.78, 189],
+    [14, 2.67, 134],
+  ])('CAPBANK.TUNE %s %% → %s (%s Hz at 50 Hz) (published)', (p, n, hz) => {
     const order = value(fn('CAPBANK.TUNE'), p);
     expectAbs(order, n, 0.005);
     expectAbs(order * 50, hz, 0.5);

@@ -17,13 +17,34 @@ describe('checkCatalogue', () => {
 
   it('holds the 28 functions of functions.md, each once', () => {
     expect(CATALOGUE.map((f) => f.name)).toEqual([
-      'KVA.TOTAL', 'COSPHI', 'TANPHI',
-      'KVAR.LOAD', 'KW.MOTOR', 'KVAR.MOTOR', 'KVAR.MOTORCAP.MAX', 'KVAR.GEN', 'KVAR.GEN.MAX',
-      'KVAR.XFMR.MAG', 'KVAR.XFMR.LEAK', 'KW.XFMR.LOSS', 'XFMR.UKMIN',
-      'KVAR.CABLE', 'CABLE.CAP', 'KVAR.LINE', 'LINE.SIL',
-      'KVAR.CAPBANK', 'CAPBANK.UCAP', 'CAPBANK.TUNE', 'KVAR.REACTOR',
-      'KVAR.PERKW', 'KVAR.TOPF', 'KVAR.TOTAN', 'BANK.ROUNDUP',
-      'SC.MVA.XFMR', 'RESONANCE.ORDER', 'VRISE.PCT',
+      'KVA.TOTAL',
+      'COSPHI',
+      'TANPHI',
+      'KVAR.LOAD',
+      'KW.MOTOR',
+      'KVAR.MOTOR',
+      'KVAR.MOTORCAP.MAX',
+      'KVAR.GEN',
+      'KVAR.GEN.MAX',
+      'KVAR.XFMR.MAG',
+      'KVAR.XFMR.LEAK',
+      'KW.XFMR.LOSS',
+      'XFMR.UKMIN',
+      'KVAR.CABLE',
+      'CABLE.CAP',
+      'KVAR.LINE',
+      'LINE.SIL',
+      'KVAR.CAPBANK',
+      'CAPBANK.UCAP',
+      'CAPBANK.TUNE',
+      'KVAR.REACTOR',
+      'KVAR.PERKW',
+      'KVAR.TOPF',
+      'KVAR.TOTAN',
+      'BANK.ROUNDUP',
+      'SC.MVA.XFMR',
+      'RESONANCE.ORDER',
+      'VRISE.PCT',
     ]);
   });
 
@@ -33,15 +54,55 @@ describe('checkCatalogue', () => {
     ['trailing dot', [variant(KVAR_GEN_MAX, { name: 'KVAR.' })], 'name does not match'],
     ['camelCase parameter', [withParam(KVAR_GEN_MAX, 0, { name: 'sKva' })], 'not snake_case'],
     ['duplicate parameter', [withParam(KVAR_GEN_MAX, 1, { name: 's_kva' })], 'duplicate parameter name'],
-    ['required after optional', [withParam(KVAR_GEN_MAX, 0, { default: 1 })], 'required parameter after an optional one'],
-    ['sameAs unknown', [withParam(KVAR_CAPBANK, 2, { default: { sameAs: 'u_nominal_kv' } })], "default sameAs 'u_nominal_kv'"],
-    ['sameAs itself', [withParam(KVAR_CAPBANK, 2, { default: { sameAs: 'u_kv' } })], 'is not another parameter'],
+    [
+      'required after optional',
+      [withParam(KVAR_GEN_MAX, 0, { default: 1 })],
+      'required parameter after an optional one',
+    ],
+    [
+      'sameAs unknown',
+      [withParam(KVAR_CAPBANK, 2, { default: { sameAs: 'u_nominal_kv' } })],
+      "default sameAs 'u_nominal_kv'",
+    ],
+    [
+      'sameAs itself',
+      [withParam(KVAR_CAPBANK, 2, { default: { sameAs: 'u_kv' } })],
+      'is not another parameter',
+    ],
     ['default outside domain', [withParam(KVAR_CAPBANK, 3, { default: 100 })], 'outside its own domain'],
-    ['no numeric example', [variant(KVAR_GEN_MAX, { examples: KVAR_GEN_MAX.examples.filter((e) => typeof e.expect !== 'number') })], 'no numeric example'],
-    ['no error example', [variant(KVAR_GEN_MAX, { examples: KVAR_GEN_MAX.examples.filter((e) => typeof e.expect === 'number') })], 'no error example'],
-    ['empty source', [variant(KVAR_GEN_MAX, { source: { kind: 'published', ref: '  ' } })], 'source is empty'],
+    [
+      'no numeric example',
+      [
+        variant(KVAR_GEN_MAX, {
+          examples: KVAR_GEN_MAX.examples.filter((e) => typeof e.expect !== 'number'),
+        }),
+      ],
+      'no numeric example',
+    ],
+    [
+      'no error example',
+      [
+        variant(KVAR_GEN_MAX, {
+          examples: KVAR_GEN_MAX.examples.filter((e) => typeof e.expect === 'number'),
+        }),
+      ],
+      'no error example',
+    ],
+    [
+      'empty source',
+      [variant(KVAR_GEN_MAX, { source: { kind: 'published', ref: '  ' } })],
+      'source is empty',
+    ],
     ['check without guards', [variant(KVAR_GEN_MAX, { expandGuards: undefined })], 'no expandGuards'],
-    ['example with too many args', [variant(KVAR_GEN_MAX, { examples: [...KVAR_GEN_MAX.examples, { args: [1, 2, 3], expect: 0, note: 'x' }] })], 'more than 2'],
+    [
+      'example with too many args',
+      [
+        variant(KVAR_GEN_MAX, {
+          examples: [...KVAR_GEN_MAX.examples, { args: [1, 2, 3], expect: 0, note: 'x' }],
+        }),
+      ],
+      'more than 2',
+    ],
   ];
   it.each(planted)('detects a planted fault: %s', (_label, list, expected) => {
     const problems = checkCatalogue(list);

@@ -6,7 +6,10 @@ import { COSPHI, KVA_TOTAL } from '../../../src/core/functions/powerTriangle.ts'
 describe('argument validation', () => {
   it('names function, position, argument and value for text', () => {
     const r = evaluate(COSPHI, ['abc', 1]);
-    expect(r).toEqual({ ok: false, message: 'COSPHI: argument 1 (p_kw) must be a number in kW; got text "abc"' });
+    expect(r).toEqual({
+      ok: false,
+      message: 'COSPHI: argument 1 (p_kw) must be a number in kW; got text "abc"',
+    });
   });
   it('reports a blank required argument', () => {
     const r = evaluate(KVA_TOTAL, [3, null]);
@@ -27,7 +30,9 @@ describe('argument validation', () => {
 
 describe('plain-formula expansion', () => {
   it('guards a required cell reference against blank', () => {
-    expect(expandCall(COSPHI, ['A1', 'B1'])).toBe('IF(OR(ISBLANK(A1),ISBLANK(B1)),NA(),IF(OR(AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2))))');
+    expect(expandCall(COSPHI, ['A1', 'B1'])).toBe(
+      'IF(OR(ISBLANK(A1),ISBLANK(B1)),NA(),IF(OR(AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2))))',
+    );
   });
   it('recognises cell references but not ranges', () => {
     expect(isCellReference('$B$2')).toBe(true);

@@ -4,11 +4,18 @@ import { designCompensation } from '../../../src/core/site/compensation.ts';
 import { rollUpAll } from '../../../src/core/site/rollup.ts';
 import { kvarNeeded, requirementBand } from '../../../src/core/site/requirement.ts';
 import {
-  capacitorRatedVoltage, capacitorVoltage, chooseStep, nearHarmonic, outputPerNameplateKvar, voltageRise, STEP_SERIES_KVAR,
+  capacitorRatedVoltage,
+  capacitorVoltage,
+  chooseStep,
+  nearHarmonic,
+  outputPerNameplateKvar,
+  voltageRise,
+  STEP_SERIES_KVAR,
 } from '../../../src/core/site/bankRules.ts';
 import { siteFromCsv } from './fixtures.ts';
 
-const HEAD = 'tag,bus,kind,qty,p_kw,eff,cos_phi,i0_pct,s_kva,uk_pct,p0_kw,pk_kw,to_bus,u_kv,c_uf_km,len_km,q_kvar,u_rated_kv,p_pct,load:day,load:night';
+const HEAD =
+  'tag,bus,kind,qty,p_kw,eff,cos_phi,i0_pct,s_kva,uk_pct,p0_kw,pk_kw,to_bus,u_kv,c_uf_km,len_km,q_kvar,u_rated_kv,p_pct,load:day,load:night';
 const site = (rows: string[], settings = {}) => {
   const r = siteFromCsv([HEAD, ...rows].join('\n'), { cases: ['day', 'night'], ...settings });
   expect(r.problems).toEqual([]);
@@ -24,7 +31,10 @@ describe('requirement (published values)', () => {
     const band = requirementBand({ kind: 'cosphi', target: 0.95 });
     expect(band.lagTan).toBeCloseTo(0.3287, 4);
     expect(band.leadTan).toBe(band.lagTan);
-    expect(kvarNeeded(1000, -500, { kind: 'cosphi', target: 0.95 })).toEqual({ capacitive_kvar: 0, inductive_kvar: expect.closeTo(500 - 328.684, 2) });
+    expect(kvarNeeded(1000, -500, { kind: 'cosphi', target: 0.95 })).toEqual({
+      capacitive_kvar: 0,
+      inductive_kvar: expect.closeTo(500 - 328.684, 2),
+    });
   });
   it('a tan φ band gives its own limits; exported power is judged by |P|', () => {
     const r = { kind: 'tanphi', lagMax: 0.4, leadMax: 0.1 } as const;
@@ -61,11 +71,14 @@ describe('bank rules', () => {
 describe('designCompensation', () => {
   // 1 500 kVA, 5.5 % transformer on a 48 MVA supply: about 17.4 MVA at the bus; 350 kvar there
   // resonates at h ≈ 7.05, "right on the 7th" (published example, checks.md).
-  const seventh = site([
-    'T1,MV,transformer,,,,,1.0,1500,5.5,1.6,16,LV,0.4',
-    'L1,LV,load,,1000,,0.8,,,,,,,0.4,,,,,,1,0.5',
-    'C1,LV,capacitor,,,,,,,,,,,0.4,,,350,0.4',
-  ], { cases: ['day', 'night'], sscMva: 48 });
+  const seventh = site(
+    [
+      'T1,MV,transformer,,,,,1.0,1500,5.5,1.6,16,LV,0.4',
+      'L1,LV,load,,1000,,0.8,,,,,,,0.4,,,,,,1,0.5',
+      'C1,LV,capacitor,,,,,,,,,,,0.4,,,350,0.4',
+    ],
+    { cases: ['day', 'night'], sscMva: 48 },
+  );
   const d7 = designCompensation(seventh, rollUpAll(seventh));
 
   it('flags the installed bank that lands on the 7th harmonic', () => {
@@ -87,7 +100,10 @@ describe('designCompensation', () => {
     expect(bank?.step_rated_kvar).toBeCloseTo(((bank?.step_kvar as number) * 0.93) / (0.4 / 0.48) ** 2, 9);
   });
   it('meets the requirement after, with steps following the need case by case', () => {
-    expect(d7.cases.map((c) => [c.case, c.met_before, c.met_after])).toEqual([['day', false, true], ['night', true, true]]);
+    expect(d7.cases.map((c) => [c.case, c.met_before, c.met_after])).toEqual([
+      ['day', false, true],
+      ['night', true, true],
+    ]);
     const bank = d7.banks[0];
     expect((bank?.steps_in.night as number) < (bank?.steps_in.day as number)).toBe(true);
     expect(bank?.vrise_step_pct).toBeCloseTo((100 * (bank?.step_kvar as number)) / (17.391304 * 1000), 5);
@@ -101,22 +117,30 @@ describe('designCompensation', () => {
       'C3,LV,capacitor,,,,,,,,,,,0.4,,,20,0.44,6',
     ]);
     const w = designCompensation(s).warnings.filter((x) => x.code === 'capacitor-overvoltage');
-    expect(w.map((x) => [x.severity, x.row, x.column])).toEqual([['error', 4, 'u_rated_kv'], ['warning', 3, 'u_rated_kv']]);
+    expect(w.map((x) => [x.severity, x.row, x.column])).toEqual([
+      ['error', 4, 'u_rated_kv'],
+      ['warning', 3, 'u_rated_kv'],
+    ]);
     expect(w[1]?.message).toContain('sees 0.426 kV continuously, above its rating of 0.4 kV');
   });
 
   it('motor self-excitation: individual capacitor above 90 % of the no-load kvar is an error (common practice, NEMA MG 1 Part 14)', () => {
     // 90 kW, η 0.94, cos φ 0.85, i0 35 %: Q0 = 0.35·90/(0.94·0.85) = 39.42 kvar; limit 0.9·Q0 = 35.48 kvar.
     const q0 = (0.35 * 90) / (0.94 * 0.85);
-    const rows = (q: number) => site([
-      'T1,MV,transformer,,,,,1,630,4,0.6,6.5,LVM,0.4',
-      'M1,LVM,motor,,90,0.94,0.85,35,,,,,,0.4,,,,,,1,1',
-      `C1,LVM,capacitor,,,,,,,,,,,0.4,,,${q},0.4`,
-    ]);
+    const rows = (q: number) =>
+      site([
+        'T1,MV,transformer,,,,,1,630,4,0.6,6.5,LVM,0.4',
+        'M1,LVM,motor,,90,0.94,0.85,35,,,,,,0.4,,,,,,1,1',
+        `C1,LVM,capacitor,,,,,,,,,,,0.4,,,${q},0.4`,
+      ]);
     const over = designCompensation(rows(40)).warnings.find((x) => x.code === 'self-excitation');
     expect(over).toMatchObject({ severity: 'error', row: 4, column: 'q_kvar', tag: 'C1', bus: 'LVM' });
     expect(over?.message).toContain(`KVAR.MOTORCAP.MAX = ${(0.9 * q0).toFixed(1)} kvar`);
-    expect(designCompensation(rows(30)).warnings.some((x) => x.code === 'self-excitation' && x.severity === 'error')).toBe(false);
+    expect(
+      designCompensation(rows(30)).warnings.some(
+        (x) => x.code === 'self-excitation' && x.severity === 'error',
+      ),
+    ).toBe(false);
     const bank = designCompensation(rows(5)).banks.find((b) => b.bus === 'LVM');
     expect(bank?.self_excitation_limit_kvar).toBeCloseTo(0.9 * q0, 9);
     expect(bank?.steps).toBe(0);
@@ -125,16 +149,22 @@ describe('designCompensation', () => {
 
   it('a shunt reactor where cable charging leaves the connection leading at light load, only in that case', () => {
     // 11 kV, 0.3 µF/km, 25 km: 2π·50·0.3e-6·25·11000²/1000 = 285.1 kvar of charging.
-    const s = site([
-      'K1,MV,cable,,,,,,,,,,,11,0.3,25',
-      'T1,MV,transformer,,,,,1,1000,6,0.7,7.6,LV,0.4',
-      'L1,LV,load,,600,,0.95,,,,,,,0.4,,,,,,1,0.02',
-    ], { requirement: { kind: 'tanphi', lagMax: 0.4, leadMax: 0.2 } });
+    const s = site(
+      [
+        'K1,MV,cable,,,,,,,,,,,11,0.3,25',
+        'T1,MV,transformer,,,,,1,1000,6,0.7,7.6,LV,0.4',
+        'L1,LV,load,,600,,0.95,,,,,,,0.4,,,,,,1,0.02',
+      ],
+      { requirement: { kind: 'tanphi', lagMax: 0.4, leadMax: 0.2 } },
+    );
     const d = designCompensation(s);
     expect(d.banks).toEqual([]);
     expect(d.reactors).toHaveLength(1);
     expect(d.reactors[0]).toMatchObject({ bus: 'MV', u_kv: 11, in_service: { day: false, night: true } });
-    expect(d.cases.map((c) => [c.case, c.met_before, c.met_after])).toEqual([['day', true, true], ['night', false, true]]);
+    expect(d.cases.map((c) => [c.case, c.met_before, c.met_after])).toEqual([
+      ['day', true, true],
+      ['night', false, true],
+    ]);
     const w = d.warnings.find((x) => x.code === 'charging-dominates');
     expect(w).toMatchObject({ case: 'night', bus: 'MV' });
     expect(w?.message).toContain('cable and line charging 285 kvar');
@@ -152,10 +182,9 @@ describe('designCompensation', () => {
   });
 
   it('warns when switching one step raises the voltage by more than 3 % (VRISE.PCT)', () => {
-    const s = site([
-      'K1,MV,cable,,,,,,,,,,,13.8,0.3,0.5',
-      'L1,MV,load,,20000,,0.75,,,,,,,13.8,,,,,,1,1',
-    ], { sscMva: 125 });
+    const s = site(['K1,MV,cable,,,,,,,,,,,13.8,0.3,0.5', 'L1,MV,load,,20000,,0.75,,,,,,,13.8,,,,,,1,1'], {
+      sscMva: 125,
+    });
     const d = designCompensation(s);
     const w = d.warnings.find((x) => x.code === 'voltage-rise');
     expect(d.banks[0]?.step_kvar).toBe(4000);

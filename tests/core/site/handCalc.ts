@@ -27,7 +27,8 @@ export interface HandTotals {
 }
 
 const tanOf = (cos: number) => Math.sqrt(1 - cos * cos) / cos;
-const n = (r: HandRow, k: string): number | undefined => (typeof r[k] === 'number' ? (r[k] as number) : undefined);
+const n = (r: HandRow, k: string): number | undefined =>
+  typeof r[k] === 'number' ? (r[k] as number) : undefined;
 
 function loadOf(r: HandRow, caseName: string): number {
   return n(r, `load:${caseName}`) ?? n(r, 'load') ?? 1;
@@ -51,7 +52,10 @@ export function itemPower(r: HandRow, caseName: string, hz: number): { p: number
     case 'generator':
       return { p: -units * g('p_kw') * x, q: -units * g('p_kw') * x * tanOf(g('cos_phi')) };
     case 'cable':
-      return { p: 0, q: -units * 2 * Math.PI * hz * g('c_uf_km') * 1e-6 * g('len_km') * (g('u_kv') * 1e3) ** 2 / 1e3 };
+      return {
+        p: 0,
+        q: (-units * 2 * Math.PI * hz * g('c_uf_km') * 1e-6 * g('len_km') * (g('u_kv') * 1e3) ** 2) / 1e3,
+      };
     case 'capacitor': {
       const u = n(r, 'u_kv') ?? g('u_rated_kv');
       const p = (n(r, 'p_pct') ?? 0) / 100;
@@ -80,7 +84,7 @@ export function branchLosses(r: HandRow, sKva: number, hz: number): { p: number;
   }
   // Line: per circuit, series 3·I²·X minus charging ω·C·U².
   const u = g('u_kv') * 1e3;
-  const i = (sKva / units) * 1e3 / (Math.sqrt(3) * u);
+  const i = ((sKva / units) * 1e3) / (Math.sqrt(3) * u);
   const x = 2 * Math.PI * hz * g('l_mh_km') * 1e-3 * g('len_km');
   const charging = 2 * Math.PI * hz * g('c_nf_km') * 1e-9 * g('len_km') * u * u;
   return { p: 0, q: (units * (3 * i * i * x - charging)) / 1e3 };

@@ -9,15 +9,78 @@ import { siteFromCsv } from './fixtures.ts';
 // The transformer is the one of checks.md's derived check (1000 kVA, uk 6 %, Pk 7.6 kW, i0 1 %,
 // P0 0.693 kW: leakage 59.52 kvar at full load, magnetising 9.976 kvar).
 const ROWS: HandRow[] = [
-  { tag: 'T1', bus: 'MV', kind: 'transformer', to_bus: 'LV', s_kva: 1000, uk_pct: 6, i0_pct: 1, p0_kw: 0.693, pk_kw: 7.6, u_kv: 0.4 },
+  {
+    tag: 'T1',
+    bus: 'MV',
+    kind: 'transformer',
+    to_bus: 'LV',
+    s_kva: 1000,
+    uk_pct: 6,
+    i0_pct: 1,
+    p0_kw: 0.693,
+    pk_kw: 7.6,
+    u_kv: 0.4,
+  },
   { tag: 'K1', bus: 'MV', kind: 'cable', u_kv: 11, c_uf_km: 0.31, len_km: 2.5 },
   { tag: 'W1', bus: 'MV', kind: 'line', to_bus: 'FAR', u_kv: 11, l_mh_km: 1.1, c_nf_km: 9.5, len_km: 12 },
-  { tag: 'G1', bus: 'FAR', kind: 'generator', p_kw: 400, cos_phi: 0.9, u_kv: 11, 'load:day': 1, 'load:night': 0.25 },
-  { tag: 'M1', bus: 'LV', kind: 'motor', qty: 3, running: 2, p_kw: 75, eff: 0.95, cos_phi: 0.86, u_kv: 0.4, 'load:day': 0.8, 'load:night': 0 },
-  { tag: 'M2', bus: 'LV', kind: 'motor', p_kw: 110, eff: 0.954, cos_phi: 0.87, i0_pct: 30, u_kv: 0.4, 'load:day': 1.1, 'load:night': 0.4 },
+  {
+    tag: 'G1',
+    bus: 'FAR',
+    kind: 'generator',
+    p_kw: 400,
+    cos_phi: 0.9,
+    u_kv: 11,
+    'load:day': 1,
+    'load:night': 0.25,
+  },
+  {
+    tag: 'M1',
+    bus: 'LV',
+    kind: 'motor',
+    qty: 3,
+    running: 2,
+    p_kw: 75,
+    eff: 0.95,
+    cos_phi: 0.86,
+    u_kv: 0.4,
+    'load:day': 0.8,
+    'load:night': 0,
+  },
+  {
+    tag: 'M2',
+    bus: 'LV',
+    kind: 'motor',
+    p_kw: 110,
+    eff: 0.954,
+    cos_phi: 0.87,
+    i0_pct: 30,
+    u_kv: 0.4,
+    'load:day': 1.1,
+    'load:night': 0.4,
+  },
   { tag: 'L1', bus: 'LV', kind: 'load', p_kw: 180, cos_phi: 0.9, 'load:day': 1, 'load:night': 0.5 },
-  { tag: 'Q1', bus: 'LV', kind: 'capacitor', qty: 4, q_kvar: 80, u_rated_kv: 0.525, u_kv: 0.4, p_pct: 7, 'load:day': 1, 'load:night': 0.25 },
-  { tag: 'R1', bus: 'MV', kind: 'reactor', q_kvar: 100, u_rated_kv: 11.5, u_kv: 11, 'load:day': 0, 'load:night': 1 },
+  {
+    tag: 'Q1',
+    bus: 'LV',
+    kind: 'capacitor',
+    qty: 4,
+    q_kvar: 80,
+    u_rated_kv: 0.525,
+    u_kv: 0.4,
+    p_pct: 7,
+    'load:day': 1,
+    'load:night': 0.25,
+  },
+  {
+    tag: 'R1',
+    bus: 'MV',
+    kind: 'reactor',
+    q_kvar: 100,
+    u_rated_kv: 11.5,
+    u_kv: 11,
+    'load:day': 0,
+    'load:night': 1,
+  },
 ];
 
 function csvOf(rows: HandRow[]): string {
@@ -56,8 +119,8 @@ describe('rollUp against an independent recomputation', () => {
     expect(q1 / 4).toBeCloseTo(49.9, 1);
     expect(lv?.q_delivered_kvar).toBeCloseTo(q1, 9);
     const mv = bal.root;
-    const cable = 2 * Math.PI * 50 * 0.31e-6 * 2.5 * 11000 ** 2 / 1000;
-    const lineCharging = 2 * Math.PI * 50 * 9.5e-9 * 12 * 11000 ** 2 / 1000;
+    const cable = (2 * Math.PI * 50 * 0.31e-6 * 2.5 * 11000 ** 2) / 1000;
+    const lineCharging = (2 * Math.PI * 50 * 9.5e-9 * 12 * 11000 ** 2) / 1000;
     const gen = 400 * (Math.sqrt(1 - 0.81) / 0.9);
     expect(mv.q_delivered_kvar).toBeCloseTo(q1 + cable + lineCharging + gen, 9);
     expect(mv.sense).toBe(mv.q_kvar > 0 ? 'lagging' : 'leading');
@@ -78,9 +141,17 @@ describe('rollUp against an independent recomputation', () => {
     expect(m2?.q_kvar).toBeGreaterThan(q0);
   });
   it('refuses an unknown case and a site that is not a tree', () => {
-    expect(() => rollUp(site, 'weekend')).toThrowError(/unknown case "weekend"; the site's cases are day, night/);
+    expect(() => rollUp(site, 'weekend')).toThrowError(
+      /unknown case "weekend"; the site's cases are day, night/,
+    );
     expect(rollUp(site, 'NIGHT').case).toBe('night');
-    const twice = { ...site, equipment: [...site.equipment, { ...(site.equipment[0] as (typeof site.equipment)[number]), row: 99, tag: 'T9' }] };
+    const twice = {
+      ...site,
+      equipment: [
+        ...site.equipment,
+        { ...(site.equipment[0] as (typeof site.equipment)[number]), row: 99, tag: 'T9' },
+      ],
+    };
     expect(() => rollUp(twice, 'day')).toThrowError(SiteStructureError);
   });
 });

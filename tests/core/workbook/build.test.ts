@@ -9,21 +9,74 @@ import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { readCell } from '../../../src/engine/index.ts';
 import { PLANT } from './sites.ts';
-import { busRow, close, expandDoc, liveEngine, num, portableEngine, templateSites, valueAt } from './engineDoc.ts';
+import {
+  busRow,
+  close,
+  expandDoc,
+  liveEngine,
+  num,
+  portableEngine,
+  templateSites,
+  valueAt,
+} from './engineDoc.ts';
 
 /** Bus names a conditional sum would read as patterns or comparisons, or as a number. */
 const ODD_NAMES: Site = {
-  settings: { name: 'Odd bus names', hz: 50, cases: ['one', 'two'], requirement: { kind: 'cosphi', target: 0.95 } },
+  settings: {
+    name: 'Odd bus names',
+    hz: 50,
+    cases: ['one', 'two'],
+    requirement: { kind: 'cosphi', target: 0.95 },
+  },
   equipment: [
-    { row: 2, tag: 'T1', bus: 'MV*1', kind: 'transformer', to_bus: 'LV?2', values: { s_kva: 630, uk_pct: 4, p0_kw: 0.9, pk_kw: 6.5, i0_pct: 1.2, u_kv: 0.4 }, loads: {} },
-    { row: 3, tag: 'T2', bus: 'MV*1', kind: 'transformer', to_bus: '>5', values: { s_kva: 400, uk_pct: 4, p0_kw: 0.6, pk_kw: 4.6, i0_pct: 1.4, u_kv: 0.4 }, loads: {} },
-    { row: 4, tag: 'T3', bus: 'MV*1', kind: 'transformer', to_bus: '12', values: { s_kva: 250, uk_pct: 4, p0_kw: 0.45, pk_kw: 3.2, i0_pct: 1.6, u_kv: 0.4 }, loads: {} },
-    { row: 5, tag: 'M1', bus: 'LV?2', kind: 'motor', values: { p_kw: 90, eff: 0.94, cos_phi: 0.86 }, loads: { two: 0.5 } },
+    {
+      row: 2,
+      tag: 'T1',
+      bus: 'MV*1',
+      kind: 'transformer',
+      to_bus: 'LV?2',
+      values: { s_kva: 630, uk_pct: 4, p0_kw: 0.9, pk_kw: 6.5, i0_pct: 1.2, u_kv: 0.4 },
+      loads: {},
+    },
+    {
+      row: 3,
+      tag: 'T2',
+      bus: 'MV*1',
+      kind: 'transformer',
+      to_bus: '>5',
+      values: { s_kva: 400, uk_pct: 4, p0_kw: 0.6, pk_kw: 4.6, i0_pct: 1.4, u_kv: 0.4 },
+      loads: {},
+    },
+    {
+      row: 4,
+      tag: 'T3',
+      bus: 'MV*1',
+      kind: 'transformer',
+      to_bus: '12',
+      values: { s_kva: 250, uk_pct: 4, p0_kw: 0.45, pk_kw: 3.2, i0_pct: 1.6, u_kv: 0.4 },
+      loads: {},
+    },
+    {
+      row: 5,
+      tag: 'M1',
+      bus: 'LV?2',
+      kind: 'motor',
+      values: { p_kw: 90, eff: 0.94, cos_phi: 0.86 },
+      loads: { two: 0.5 },
+    },
     { row: 6, tag: 'M2', bus: 'LVA2', kind: 'motor', values: { p_kw: 1, eff: 0.9, cos_phi: 0.8 }, loads: {} },
     { row: 7, tag: 'L1', bus: '>5', kind: 'load', values: { p_kw: 50, cos_phi: 0.9 }, loads: {} },
     { row: 8, tag: 'L2', bus: '12', kind: 'load', values: { p_kw: 20, cos_phi: 0.85 }, loads: {} },
     { row: 9, tag: 'L3', bus: 'MV*1', kind: 'load', values: { p_kw: 5, cos_phi: 0.7 }, loads: {} },
-    { row: 10, tag: 'T4', bus: 'MV*1', kind: 'transformer', to_bus: 'LVA2', values: { s_kva: 100, uk_pct: 4, p0_kw: 0.2, pk_kw: 1.75, i0_pct: 2 }, loads: {} },
+    {
+      row: 10,
+      tag: 'T4',
+      bus: 'MV*1',
+      kind: 'transformer',
+      to_bus: 'LVA2',
+      values: { s_kva: 100, uk_pct: 4, p0_kw: 0.2, pk_kw: 1.75, i0_pct: 2 },
+      loads: {},
+    },
   ],
 };
 
@@ -43,9 +96,13 @@ function compareWithRollUp(site: Site, doc: WorkbookDoc, hf: HyperFormula): numb
       const at = (h: string) => valueAt(hf, doc, 'Buses', r, h);
       const scale = Math.max(1, b.s_kva, b.q_absorbed_kvar, b.q_delivered_kvar);
       const pairs: Array<[string, number]> = [
-        [`P ${c} (kW)`, b.p_kw], [`Q ${c} (kvar)`, b.q_kvar], [`Q absorbed ${c} (kvar)`, b.q_absorbed_kvar],
-        [`Q delivered ${c} (kvar)`, b.q_delivered_kvar], [`S ${c} (kVA)`, b.s_kva],
-        [`P own items ${c} (kW)`, b.own_p_kw], [`Q own items ${c} (kvar)`, b.own_q_kvar],
+        [`P ${c} (kW)`, b.p_kw],
+        [`Q ${c} (kvar)`, b.q_kvar],
+        [`Q absorbed ${c} (kvar)`, b.q_absorbed_kvar],
+        [`Q delivered ${c} (kvar)`, b.q_delivered_kvar],
+        [`S ${c} (kVA)`, b.s_kva],
+        [`P own items ${c} (kW)`, b.own_p_kw],
+        [`Q own items ${c} (kvar)`, b.own_q_kvar],
       ];
       for (const [h, want] of pairs) {
         const got = num(at(h));
@@ -94,18 +151,26 @@ describe('portable flavour: classic functions only, same values as live', () => 
       let compared = 0;
       // Every cell of the portable workbook; the live one adds only its layout check on the Site sheet.
       for (const s of portable.sheets) {
-        s.cells.forEach((row, r) => row.forEach((_, c) => {
-          const x = readCell(a, s.name, r, c);
-          const y = readCell(b, s.name, r, c);
-          if (x.ok && y.ok && typeof x.value === 'number' && typeof y.value === 'number') {
-            if (!close(x.value, y.value, 1e-9, 1e-6)) expect.fail(`${s.name} row ${r + 1} col ${c + 1}: live ${x.value}, portable ${y.value}`);
-          } else if (x.ok && y.ok) {
-            expect([s.name, r, c, y.value]).toEqual([s.name, r, c, x.value]);
-          } else {
-            expect([s.name, r, c, y.ok ? y.value : y.error]).toEqual([s.name, r, c, x.ok ? x.value : x.error]);
-          }
-          compared++;
-        }));
+        s.cells.forEach((row, r) =>
+          row.forEach((_, c) => {
+            const x = readCell(a, s.name, r, c);
+            const y = readCell(b, s.name, r, c);
+            if (x.ok && y.ok && typeof x.value === 'number' && typeof y.value === 'number') {
+              if (!close(x.value, y.value, 1e-9, 1e-6))
+                expect.fail(`${s.name} row ${r + 1} col ${c + 1}: live ${x.value}, portable ${y.value}`);
+            } else if (x.ok && y.ok) {
+              expect([s.name, r, c, y.value]).toEqual([s.name, r, c, x.value]);
+            } else {
+              expect([s.name, r, c, y.ok ? y.value : y.error]).toEqual([
+                s.name,
+                r,
+                c,
+                x.ok ? x.value : x.error,
+              ]);
+            }
+            compared++;
+          }),
+        );
       }
       expect(compared).toBeGreaterThan(100);
     });
@@ -116,7 +181,18 @@ describe('workbook shape', () => {
   const doc = buildWorkbook(PLANT, { flavour: 'live' });
 
   it('has the settings, equipment, buses and compensation sheets in order', () => {
-    expect(doc.sheets.map((s) => s.name)).toEqual(['Site', 'Motors', 'Loads', 'Generators', 'Transformers', 'Lines', 'Cables', 'Capacitors and reactors', 'Buses', 'Compensation']);
+    expect(doc.sheets.map((s) => s.name)).toEqual([
+      'Site',
+      'Motors',
+      'Loads',
+      'Generators',
+      'Transformers',
+      'Lines',
+      'Cables',
+      'Capacitors and reactors',
+      'Buses',
+      'Compensation',
+    ]);
     expect(doc.title).toBe(PLANT.settings.name);
   });
 
@@ -146,7 +222,9 @@ describe('workbook shape', () => {
         for (const row of s.cells.slice(1)) {
           const v = row[c];
           if (v === null) continue; // a transformer or line that feeds no bus carries nothing
-          expect(typeof v === 'string' && v.startsWith('='), `${s.name}: ${info.header}: ${String(v)}`).toBe(true);
+          expect(typeof v === 'string' && v.startsWith('='), `${s.name}: ${info.header}: ${String(v)}`).toBe(
+            true,
+          );
         }
       });
     }
@@ -165,14 +243,23 @@ describe('workbook shape', () => {
     expect(text).toMatch(/resonance and overvoltage can hurt people/i);
   });
 
-  it('keeps each bus\'s items together and sums each bus over its own rows in the live flavour', () => {
+  it("keeps each bus's items together and sums each bus over its own rows in the live flavour", () => {
     const buses = doc.sheets.find((s) => s.name === 'Buses');
     const motors = doc.sheets.find((s) => s.name === 'Motors');
-    expect(motors?.cells.slice(1).map((r) => [r[0], r[2]])).toEqual([['M1', 'LV1'], ['M2', 'LV1'], ['M3', 'LV2'], ['P1', 'PUMP']]);
+    expect(motors?.cells.slice(1).map((r) => [r[0], r[2]])).toEqual([
+      ['M1', 'LV1'],
+      ['M2', 'LV1'],
+      ['M3', 'LV2'],
+      ['P1', 'PUMP'],
+    ]);
     const lv1 = buses?.cells.find((r) => r[0] === 'LV1');
     // One call per case (three cases here), so an edit in one case reaches only that case's totals.
-    expect(lv1).toContain('=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$S$2:$S$3,Loads!$C$2:$C$2,Loads!$Q$2:$Q$2)');
-    expect(lv1).toContain('=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$U$2:$U$3,Loads!$C$2:$C$2,Loads!$S$2:$S$2)');
+    expect(lv1).toContain(
+      '=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$S$2:$S$3,Loads!$C$2:$C$2,Loads!$Q$2:$Q$2)',
+    );
+    expect(lv1).toContain(
+      '=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$U$2:$U$3,Loads!$C$2:$C$2,Loads!$S$2:$S$2)',
+    );
     const text = JSON.stringify(buses?.cells);
     // P: the three buses with motors, loads or generators; kvar: all four (MV has a cable); per case.
     expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(3 * 3);
@@ -183,12 +270,15 @@ describe('workbook shape', () => {
   it('counts rows added since the layout was built (0 when built)', () => {
     const hf = liveEngine(doc);
     const site = doc.sheets.find((s) => s.name === 'Site');
-    const r = site?.cells.findIndex((row) => row[0] === 'Rows added or removed since this layout was built') ?? -1;
+    const r =
+      site?.cells.findIndex((row) => row[0] === 'Rows added or removed since this layout was built') ?? -1;
     expect(readCell(hf, 'Site', r, 1)).toEqual({ ok: true, value: 0 });
     hf.setCellContents({ sheet: hf.getSheetId('Loads') as number, row: 20, col: 0 }, [['L99']]);
     expect(readCell(hf, 'Site', r, 1)).toEqual({ ok: true, value: 1 });
     // The portable workbook sums whole columns and has no such row.
-    expect(JSON.stringify(buildWorkbook(PLANT, { flavour: 'portable' }).sheets[0]?.cells)).not.toContain('layout was built');
+    expect(JSON.stringify(buildWorkbook(PLANT, { flavour: 'portable' }).sheets[0]?.cells)).not.toContain(
+      'layout was built',
+    );
   });
 });
 
@@ -209,15 +299,41 @@ describe('a site that cannot be balanced still builds, and shows why', () => {
     const loop: Site = {
       settings: { name: 'Loop', hz: 50, cases: ['a'], requirement: { kind: 'cosphi', target: 0.95 } },
       equipment: [
-        { row: 2, tag: 'T1', bus: 'A', kind: 'transformer', to_bus: 'B', values: { s_kva: 100, uk_pct: 4, p0_kw: 0.3, pk_kw: 1.5, i0_pct: 2 }, loads: {} },
-        { row: 3, tag: 'T2', bus: 'B', kind: 'transformer', to_bus: 'A', values: { s_kva: 100, uk_pct: 4, p0_kw: 0.3, pk_kw: 1.5, i0_pct: 2 }, loads: {} },
-        { row: 4, tag: 'M', bus: 'B', kind: 'motor', values: { p_kw: 10, eff: 0.9, cos_phi: 0.8 }, loads: {} },
+        {
+          row: 2,
+          tag: 'T1',
+          bus: 'A',
+          kind: 'transformer',
+          to_bus: 'B',
+          values: { s_kva: 100, uk_pct: 4, p0_kw: 0.3, pk_kw: 1.5, i0_pct: 2 },
+          loads: {},
+        },
+        {
+          row: 3,
+          tag: 'T2',
+          bus: 'B',
+          kind: 'transformer',
+          to_bus: 'A',
+          values: { s_kva: 100, uk_pct: 4, p0_kw: 0.3, pk_kw: 1.5, i0_pct: 2 },
+          loads: {},
+        },
+        {
+          row: 4,
+          tag: 'M',
+          bus: 'B',
+          kind: 'motor',
+          values: { p_kw: 10, eff: 0.9, cos_phi: 0.8 },
+          loads: {},
+        },
       ],
     };
     for (const flavour of ['live', 'portable'] as const) {
       const doc = buildWorkbook(loop, { flavour });
       const hf = flavour === 'live' ? liveEngine(doc) : portableEngine(doc);
-      expect(valueAt(hf, doc, 'Buses', busRow(doc, 'A'), 'P a (kW)')).toMatchObject({ ok: false, error: '#CYCLE!' });
+      expect(valueAt(hf, doc, 'Buses', busRow(doc, 'A'), 'P a (kW)')).toMatchObject({
+        ok: false,
+        error: '#CYCLE!',
+      });
       const empty = buildWorkbook({ settings: loop.settings, equipment: [] }, { flavour });
       expect(empty.sheets.find((s) => s.name === 'Buses')?.cells).toHaveLength(1);
       expect(() => (flavour === 'live' ? liveEngine(empty) : portableEngine(empty))).not.toThrow();

@@ -11,7 +11,10 @@ import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { PLANT } from './sites.ts';
 import { busRow, close, liveEngine, num, templateSites, valueAt } from './engineDoc.ts';
 
-const SITES: Array<{ name: string; site: Site }> = [{ name: 'invented plant', site: PLANT }, ...templateSites()];
+const SITES: Array<{ name: string; site: Site }> = [
+  { name: 'invented plant', site: PLANT },
+  ...templateSites(),
+];
 
 describe('Compensation sheet follows the compensation design', () => {
   for (const { name, site } of SITES) {
@@ -19,31 +22,51 @@ describe('Compensation sheet follows the compensation design', () => {
       const design = designCompensation(site);
       const doc = buildWorkbook(site, { flavour: 'live' });
       const hf = liveEngine(doc);
-      const at = (bus: string, h: string) => valueAt(hf, doc, 'Compensation', busRow(doc, bus, 'Compensation'), h);
+      const at = (bus: string, h: string) =>
+        valueAt(hf, doc, 'Compensation', busRow(doc, bus, 'Compensation'), h);
       for (const bank of design.banks) {
         expect(num(at(bank.bus, 'Bank total (kvar)'))).toBe(bank.total_kvar);
-        for (const c of site.settings.cases) expect(num(at(bank.bus, `Steps in ${c}`)), `${bank.bus} ${c}`).toBe(bank.steps_in[c]);
-        if (bank.vrise_step_pct !== null) expect(close(num(at(bank.bus, 'Voltage rise per step (%)')), bank.vrise_step_pct, 1e-12)).toBe(true);
-        if (bank.vrise_total_pct !== null) expect(close(num(at(bank.bus, 'Voltage rise, whole bank (%)')), bank.vrise_total_pct, 1e-12)).toBe(true);
-        if (bank.p_pct > 0) expect(close(num(at(bank.bus, 'Capacitor voltage (kV)')), bank.u_cap_kv, 1e-12)).toBe(true);
-        if (bank.steps > 0) expect(close(num(at(bank.bus, 'Step nameplate (kvar)')), bank.step_rated_kvar, 1e-9)).toBe(true);
+        for (const c of site.settings.cases)
+          expect(num(at(bank.bus, `Steps in ${c}`)), `${bank.bus} ${c}`).toBe(bank.steps_in[c]);
+        if (bank.vrise_step_pct !== null)
+          expect(close(num(at(bank.bus, 'Voltage rise per step (%)')), bank.vrise_step_pct, 1e-12)).toBe(
+            true,
+          );
+        if (bank.vrise_total_pct !== null)
+          expect(close(num(at(bank.bus, 'Voltage rise, whole bank (%)')), bank.vrise_total_pct, 1e-12)).toBe(
+            true,
+          );
+        if (bank.p_pct > 0)
+          expect(close(num(at(bank.bus, 'Capacitor voltage (kV)')), bank.u_cap_kv, 1e-12)).toBe(true);
+        if (bank.steps > 0)
+          expect(close(num(at(bank.bus, 'Step nameplate (kvar)')), bank.step_rated_kvar, 1e-9)).toBe(true);
         // Resonance from the first switching state to the whole bank, plain installed capacitors included.
         const [first, last] = [bank.resonance[0], bank.resonance[bank.resonance.length - 1]];
         if (first && last) {
           expect(close(num(at(bank.bus, 'Resonance order, first step')), first.order, 1e-12)).toBe(true);
           expect(close(num(at(bank.bus, 'Resonance order, whole bank')), last.order, 1e-12)).toBe(true);
           const check = at(bank.bus, 'Resonance check');
-          if (bank.resonance.some((x) => x.near !== null)) expect(check).toMatchObject({ ok: true, value: expect.stringMatching(/^may come near the \d+th$/) });
+          if (bank.resonance.some((x) => x.near !== null))
+            expect(check).toMatchObject({
+              ok: true,
+              value: expect.stringMatching(/^may come near the \d+th$/),
+            });
         }
       }
       for (const r of design.reactors) {
-        for (const c of site.settings.cases) expect(num(at(r.bus, `Reactor in ${c} (kvar)`))).toBe(r.in_service[c] ? r.q_kvar : 0);
+        for (const c of site.settings.cases)
+          expect(num(at(r.bus, `Reactor in ${c} (kvar)`))).toBe(r.in_service[c] ? r.q_kvar : 0);
       }
       const root = rollUp(site, site.settings.cases[0] as string).root.bus;
-      for (const o of design.cases) expect(at(root, `Within requirement ${o.case}`)).toEqual({ ok: true, value: o.met_after ? 'yes' : 'no' });
+      for (const o of design.cases)
+        expect(at(root, `Within requirement ${o.case}`)).toEqual({
+          ok: true,
+          value: o.met_after ? 'yes' : 'no',
+        });
       // Short-circuit power per bus, as the design computes it.
       const ssc = busShortCircuit(site, buildBusGraph(site.equipment));
-      for (const [bus, s] of ssc) expect(close(num(at(bus, 'Short-circuit power (MVA)')), s.ssc_mva, 1e-12), bus).toBe(true);
+      for (const [bus, s] of ssc)
+        expect(close(num(at(bus, 'Short-circuit power (MVA)')), s.ssc_mva, 1e-12), bus).toBe(true);
     });
   }
 
@@ -54,7 +77,9 @@ describe('Compensation sheet follows the compensation design', () => {
       const hf = liveEngine(doc);
       const root = rollUp(site, site.settings.cases[0] as string).root.bus;
       for (const o of design.cases) {
-        expect(valueAt(hf, doc, 'Compensation', busRow(doc, root, 'Compensation'), `Within requirement ${o.case}`)).toEqual({ ok: true, value: o.met_before ? 'yes' : 'no' });
+        expect(
+          valueAt(hf, doc, 'Compensation', busRow(doc, root, 'Compensation'), `Within requirement ${o.case}`),
+        ).toEqual({ ok: true, value: o.met_before ? 'yes' : 'no' });
       }
     }
   });
@@ -96,13 +121,23 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
     expect(at('Plain capacitors installed (kvar)')).toBe(50);
     const total = at('Fixed (kvar)') + at('Step (kvar)') * at('Steps');
     expect(at('Bank total (kvar)')).toBe(total);
-    expect(close(at('Resonance order, whole bank'), 1 / Math.sqrt(0.07 + (total + 50) / (ssc * 1000)), 1e-12)).toBe(true);
-    expect(close(at('Resonance order, first step'), 1 / Math.sqrt(0.07 + (at('Fixed (kvar)') + 50) / (ssc * 1000)), 1e-12)).toBe(true);
+    expect(
+      close(at('Resonance order, whole bank'), 1 / Math.sqrt(0.07 + (total + 50) / (ssc * 1000)), 1e-12),
+    ).toBe(true);
+    expect(
+      close(
+        at('Resonance order, first step'),
+        1 / Math.sqrt(0.07 + (at('Fixed (kvar)') + 50) / (ssc * 1000)),
+        1e-12,
+      ),
+    ).toBe(true);
     expect(valueAt(hf, doc, 'Compensation', r, 'Resonance check')).toEqual({ ok: true, value: '' });
   });
 
   it('voltage rise of one step: 100·Qc/Ssc (common practice, ΔU/U ≈ Q/Ssc)', () => {
-    expect(close(at('Voltage rise per step (%)'), (100 * 60) / (at('Short-circuit power (MVA)') * 1000), 1e-12)).toBe(true);
+    expect(
+      close(at('Voltage rise per step (%)'), (100 * 60) / (at('Short-circuit power (MVA)') * 1000), 1e-12),
+    ).toBe(true);
   });
 
   it('cos φ after = P/√(P² + Q after²)', () => {
@@ -126,7 +161,12 @@ describe('a bank changed on the sheet changes its consequences', () => {
     expect(stepsDay()).toBeGreaterThan(before);
     hf.setCellContents({ sheet: sheetId, row: r, col: header.indexOf('Steps') }, [[0]]);
     hf.setCellContents({ sheet: sheetId, row: r, col: header.indexOf('Fixed (kvar)') }, [[0]]);
-    hf.setCellContents({ sheet: sheetId, row: busRow(doc, 'LV1', 'Compensation'), col: header.indexOf('Steps') }, [[0]]);
-    expect(valueAt(hf, doc, 'Compensation', busRow(doc, 'MV', 'Compensation'), 'Within requirement night')).toEqual({ ok: true, value: 'no' });
+    hf.setCellContents(
+      { sheet: sheetId, row: busRow(doc, 'LV1', 'Compensation'), col: header.indexOf('Steps') },
+      [[0]],
+    );
+    expect(
+      valueAt(hf, doc, 'Compensation', busRow(doc, 'MV', 'Compensation'), 'Within requirement night'),
+    ).toEqual({ ok: true, value: 'no' });
   });
 });

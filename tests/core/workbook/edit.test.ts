@@ -15,13 +15,21 @@ function busValues(hf: HyperFormula, doc: WorkbookDoc, site: Site): Map<string, 
   const out = new Map<string, number>();
   for (const c of site.settings.cases) {
     for (const b of rollUp(site, c).buses) {
-      for (const h of [`P ${c} (kW)`, `Q ${c} (kvar)`]) out.set(`${b.bus}|${h}`, num(valueAt(hf, doc, 'Buses', busRow(doc, b.bus), h)));
+      for (const h of [`P ${c} (kW)`, `Q ${c} (kvar)`])
+        out.set(`${b.bus}|${h}`, num(valueAt(hf, doc, 'Buses', busRow(doc, b.bus), h)));
     }
   }
   return out;
 }
 
-function setCell(hf: HyperFormula, doc: WorkbookDoc, sheetName: string, row: number, header: string, value: number | string): void {
+function setCell(
+  hf: HyperFormula,
+  doc: WorkbookDoc,
+  sheetName: string,
+  row: number,
+  header: string,
+  value: number | string,
+): void {
   const col = sheet(doc, sheetName).cells[0]?.indexOf(header) ?? -1;
   hf.setCellContents({ sheet: hf.getSheetId(sheetName) as number, row, col }, [[value]]);
 }
@@ -30,7 +38,9 @@ function setCell(hf: HyperFormula, doc: WorkbookDoc, sheetName: string, row: num
 function withLoad(site: Site, tag: string, caseName: string, x: number): Site {
   return {
     settings: site.settings,
-    equipment: site.equipment.map((r): EquipmentRow => (r.tag === tag ? { ...r, loads: { ...r.loads, [caseName]: x } } : r)),
+    equipment: site.equipment.map((r): EquipmentRow =>
+      r.tag === tag ? { ...r, loads: { ...r.loads, [caseName]: x } } : r,
+    ),
   };
 }
 
@@ -74,7 +84,10 @@ describe('editing one motor', () => {
     setCell(hf, doc, 'Motors', row, 'Bus', 'lv1');
     const lv2 = valueAt(hf, doc, 'Buses', busRow(doc, 'LV2'), 'P day (kW)');
     expect(lv2).toMatchObject({ ok: false, error: '#N/A' });
-    if (!lv2.ok) expect(lv2.message).toBe(`BUS.SUMS: Motors row ${row + 1} names bus "lv1", which is not among the buses summed here (LV2); correct the bus name, or rebuild the workbook if the item moved to another bus`);
+    if (!lv2.ok)
+      expect(lv2.message).toBe(
+        `BUS.SUMS: Motors row ${row + 1} names bus "lv1", which is not among the buses summed here (LV2); correct the bus name, or rebuild the workbook if the item moved to another bus`,
+      );
     expect(valueAt(hf, doc, 'Buses', busRow(doc, 'PUMP'), 'P day (kW)').ok).toBe(true);
 
     // The app's rebuild: the inputs as typed become the site, the site a new workbook.
@@ -82,10 +95,16 @@ describe('editing one motor', () => {
     const back = siteFromWorkbook(doc);
     const rebuilt = buildWorkbook(back.site, { flavour: 'live', banks: back.banks });
     const hf2 = liveEngine(rebuilt);
-    const moved: Site = { settings: PLANT.settings, equipment: PLANT.equipment.map((r) => (r.tag === 'M3' ? { ...r, bus: 'LV1' } : r)) };
+    const moved: Site = {
+      settings: PLANT.settings,
+      equipment: PLANT.equipment.map((r) => (r.tag === 'M3' ? { ...r, bus: 'LV1' } : r)),
+    };
     for (const c of PLANT.settings.cases) {
       for (const b of rollUp(moved, c).buses) {
-        expect(close(num(valueAt(hf2, rebuilt, 'Buses', busRow(rebuilt, b.bus), `P ${c} (kW)`)), b.p_kw, 1e-9), `${c} ${b.bus}`).toBe(true);
+        expect(
+          close(num(valueAt(hf2, rebuilt, 'Buses', busRow(rebuilt, b.bus), `P ${c} (kW)`)), b.p_kw, 1e-9),
+          `${c} ${b.bus}`,
+        ).toBe(true);
       }
     }
   });

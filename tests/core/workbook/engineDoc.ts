@@ -13,12 +13,15 @@ import { expandFormula } from '../../../src/io/formula/expand.ts';
 const TEMPLATES = fileURLToPath(new URL('../../../templates/', import.meta.url));
 
 export function templateSites(): Array<{ name: string; site: Site }> {
-  return readdirSync(TEMPLATES).filter((f) => f.endsWith('.json')).sort().map((f) => {
-    const { site, problems } = readSiteFile(readFileSync(join(TEMPLATES, f), 'utf8'));
-    const errors = problems.filter((p) => p.severity === 'error');
-    if (errors.length > 0) throw new Error(`template ${f}: ${errors.map((p) => p.message).join('; ')}`);
-    return { name: f, site };
-  });
+  return readdirSync(TEMPLATES)
+    .filter((f) => f.endsWith('.json'))
+    .sort()
+    .map((f) => {
+      const { site, problems } = readSiteFile(readFileSync(join(TEMPLATES, f), 'utf8'));
+      const errors = problems.filter((p) => p.severity === 'error');
+      if (errors.length > 0) throw new Error(`template ${f}: ${errors.map((p) => p.message).join('; ')}`);
+      return { name: f, site };
+    });
 }
 
 export function sheet(doc: WorkbookDoc, name: string): SheetDoc {
@@ -36,13 +39,15 @@ export function expandDoc(doc: WorkbookDoc): { sheets: SheetDoc[]; longest: numb
   let longest = 0;
   const sheets = doc.sheets.map((s) => ({
     ...s,
-    cells: s.cells.map((row) => row.map((c) => {
-      if (typeof c !== 'string' || !c.startsWith('=')) return c;
-      const e = expandFormula(c);
-      if (!e.ok) throw new Error(`${s.name}: ${c}: ${e.message}`);
-      longest = Math.max(longest, e.formula.length);
-      return e.formula;
-    })),
+    cells: s.cells.map((row) =>
+      row.map((c) => {
+        if (typeof c !== 'string' || !c.startsWith('=')) return c;
+        const e = expandFormula(c);
+        if (!e.ok) throw new Error(`${s.name}: ${c}: ${e.message}`);
+        longest = Math.max(longest, e.formula.length);
+        return e.formula;
+      }),
+    ),
   }));
   return { sheets, longest };
 }
@@ -52,7 +57,13 @@ export function portableEngine(doc: WorkbookDoc): HyperFormula {
 }
 
 /** A cell by sheet, 0-based row and header text. */
-export function valueAt(hf: HyperFormula, doc: WorkbookDoc, sheetName: string, row: number, header: string): CellResult {
+export function valueAt(
+  hf: HyperFormula,
+  doc: WorkbookDoc,
+  sheetName: string,
+  row: number,
+  header: string,
+): CellResult {
   const col = sheet(doc, sheetName).cells[0]?.indexOf(header) ?? -1;
   if (col < 0) throw new Error(`sheet ${sheetName} has no column "${header}"`);
   return readCell(hf, sheetName, row, col);

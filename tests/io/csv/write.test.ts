@@ -38,9 +38,15 @@ describe('CSV injection', () => {
   });
 
   it('writes a table with CRLF and an optional BOM', () => {
-    const rows = [['tag', 'p_kw', 'note'], ['M-1', 75, '=1+1'], ['M-2', -3, null]];
+    const rows = [
+      ['tag', 'p_kw', 'note'],
+      ['M-1', 75, '=1+1'],
+      ['M-2', -3, null],
+    ];
     expect(writeCsv(rows)).toBe("tag,p_kw,note\r\nM-1,75,'=1+1\r\nM-2,-3,\r\n");
-    expect(writeCsv(rows, { separator: ';', eol: '\n', bom: true })).toBe("\uFEFFtag;p_kw;note\nM-1;75;'=1+1\nM-2;-3;\n");
+    expect(writeCsv(rows, { separator: ';', eol: '\n', bom: true })).toBe(
+      "\uFEFFtag;p_kw;note\nM-1;75;'=1+1\nM-2;-3;\n",
+    );
     expect(writeCsv([])).toBe('');
   });
 });

@@ -7,8 +7,14 @@ import { expandFormula, referencedFunctions } from '../../../src/io/formula/expa
 import { significantTokens } from '../../../src/io/formula/tokenize.ts';
 
 const cells = [[240, 320, null, 'txt', 0.9], ['=1/0']];
-const withPlugin = createEngine([{ name: 'Sheet1', cells }, { name: 'My list', cells: [[300, 400]] }]);
-const plain = createPlainEngine([{ name: 'Sheet1', cells }, { name: 'My list', cells: [[300, 400]] }]);
+const withPlugin = createEngine([
+  { name: 'Sheet1', cells },
+  { name: 'My list', cells: [[300, 400]] },
+]);
+const plain = createPlainEngine([
+  { name: 'Sheet1', cells },
+  { name: 'My list', cells: [[300, 400]] },
+]);
 afterAll(() => {
   withPlugin.destroy();
   plain.destroy();
@@ -70,7 +76,13 @@ describe('expandFormula', () => {
     }
   });
   it('errors where the plugin errors: blanks, text, errors, ranges, domain', () => {
-    for (const f of ['=KVA.TOTAL(A1,C1)', '=KVA.TOTAL(D1,1)', '=KVA.TOTAL(A2,1)', '=COSPHI(0,0)', '=KVAR.LOAD(A1,B1)']) {
+    for (const f of [
+      '=KVA.TOTAL(A1,C1)',
+      '=KVA.TOTAL(D1,1)',
+      '=KVA.TOTAL(A2,1)',
+      '=COSPHI(0,0)',
+      '=KVAR.LOAD(A1,B1)',
+    ]) {
       const a = evaluateFormula(withPlugin, f);
       const b = evaluateFormula(plain, expanded(f));
       expect(a.ok, f).toBe(false);
@@ -88,37 +100,92 @@ describe('expandFormula', () => {
   it('refuses a range or array where one value belongs, as the plugin does', () => {
     expect(expandFormula("=2*KVA.TOTAL('My list'!A1:B1,1)")).toEqual({
       ok: false,
-      message: "KVA.TOTAL: argument 1 (p_kw) must be one value or one cell; got the range 'My list'!A1:B1 (the call at character 4)",
+      message:
+        "KVA.TOTAL: argument 1 (p_kw) must be one value or one cell; got the range 'My list'!A1:B1 (the call at character 4)",
     });
-    expect(expandFormula('=KVA.TOTAL(1,{1,2})')).toMatchObject({ ok: false, message: expect.stringContaining('argument 2 (q_kvar) must be one value or one cell; got the array {1,2}') });
+    expect(expandFormula('=KVA.TOTAL(1,{1,2})')).toMatchObject({
+      ok: false,
+      message: expect.stringContaining(
+        'argument 2 (q_kvar) must be one value or one cell; got the array {1,2}',
+      ),
+    });
     expect(evaluateFormula(withPlugin, '=KVA.TOTAL(A1:B1,1)')).toMatchObject({ ok: false, error: '#N/A' });
     expect(expanded('=KVA.TOTAL(SUM(A1:B1),1)')).toContain('SUM(A1:B1)');
   });
   it('reports argument-count mistakes with the function and where the call is', () => {
-    expect(expandFormula('=1+KVA.TOTAL(1,2,3)')).toEqual({ ok: false, message: 'KVA.TOTAL: takes at most 2 arguments; got 3 (the call at character 4)' });
-    expect(expandFormula('=KVA.TOTAL(,2)')).toEqual({ ok: false, message: 'KVA.TOTAL: argument 1 (p_kw) is missing (the call at character 2)' });
+    expect(expandFormula('=1+KVA.TOTAL(1,2,3)')).toEqual({
+      ok: false,
+      message: 'KVA.TOTAL: takes at most 2 arguments; got 3 (the call at character 4)',
+    });
+    expect(expandFormula('=KVA.TOTAL(,2)')).toEqual({
+      ok: false,
+      message: 'KVA.TOTAL: argument 1 (p_kw) is missing (the call at character 2)',
+    });
   });
   it('passes on parse errors with their position', () => {
-    expect(expandFormula('=KVA.TOTAL(1,2')).toMatchObject({ ok: false, message: expect.stringContaining('after character 14') });
+    expect(expandFormula('=KVA.TOTAL(1,2')).toMatchObject({
+      ok: false,
+      message: expect.stringContaining('after character 14'),
+    });
   });
 });
 
 describe('every catalogue function expands to classic functions only', () => {
   // Functions of the 1997–2003 file format (no _xlfn. prefix needed in xlsx).
-  const CLASSIC = new Set(['ABS', 'ACOS', 'AND', 'ASIN', 'ATAN', 'CEILING', 'COS', 'EXP', 'FALSE', 'FLOOR', 'IF', 'INT', 'ISBLANK', 'LN', 'LOG', 'LOG10', 'MAX', 'MIN', 'MOD', 'NA', 'NOT', 'OR', 'PI', 'POWER', 'ROUND', 'ROUNDDOWN', 'ROUNDUP', 'SIN', 'SQRT', 'TAN', 'TRUE']);
-  it.each(CATALOGUE.map((f) => [f.name, f] as const))('%s, arguments as sheet references, stays within the xlsx formula limit', (_n, spec) => {
-    const refs = spec.params.map((_, i) => `'Compensation list'!$${'ABCDEFGHIJ'[i]}$1200`);
-    const f = `=${spec.name}(${refs.join(',')})`;
-    const plainFormula = expanded(f);
-    const used = significantTokens(plainFormula).filter((t) => t.kind === 'func').map((t) => t.text.toUpperCase());
-    expect(used.filter((n) => !CLASSIC.has(n))).toEqual([]);
-    expect(plainFormula.length).toBeLessThanOrEqual(8192);
-  });
+  const CLASSIC = new Set([
+    'ABS',
+    'ACOS',
+    'AND',
+    'ASIN',
+    'ATAN',
+    'CEILING',
+    'COS',
+    'EXP',
+    'FALSE',
+    'FLOOR',
+    'IF',
+    'INT',
+    'ISBLANK',
+    'LN',
+    'LOG',
+    'LOG10',
+    'MAX',
+    'MIN',
+    'MOD',
+    'NA',
+    'NOT',
+    'OR',
+    'PI',
+    'POWER',
+    'ROUND',
+    'ROUNDDOWN',
+    'ROUNDUP',
+    'SIN',
+    'SQRT',
+    'TAN',
+    'TRUE',
+  ]);
+  it.each(CATALOGUE.map((f) => [f.name, f] as const))(
+    '%s, arguments as sheet references, stays within the xlsx formula limit',
+    (_n, spec) => {
+      const refs = spec.params.map((_, i) => `'Compensation list'!$${'ABCDEFGHIJ'[i]}$1200`);
+      const f = `=${spec.name}(${refs.join(',')})`;
+      const plainFormula = expanded(f);
+      const used = significantTokens(plainFormula)
+        .filter((t) => t.kind === 'func')
+        .map((t) => t.text.toUpperCase());
+      expect(used.filter((n) => !CLASSIC.has(n))).toEqual([]);
+      expect(plainFormula.length).toBeLessThanOrEqual(8192);
+    },
+  );
 });
 
 describe('referencedFunctions', () => {
   it('lists catalogue names once, canonical, in order; ignores others', () => {
-    expect(referencedFunctions('=kva.total(1,COSPHI(1,2))+SUM(KVA.TOTAL(1,2))')).toEqual(['KVA.TOTAL', 'COSPHI']);
+    expect(referencedFunctions('=kva.total(1,COSPHI(1,2))+SUM(KVA.TOTAL(1,2))')).toEqual([
+      'KVA.TOTAL',
+      'COSPHI',
+    ]);
     expect(referencedFunctions('=SUM(A1)+"KVA.TOTAL(1,2)"')).toEqual([]);
   });
 });

@@ -24,7 +24,9 @@ describe('tokenize', () => {
     ]);
   });
   it('reads dotted names, absolute and sheet references, ranges', () => {
-    expect(kinds("KVAR.MOTOR($A$1,Sheet1!B2,'My sheet'!C3:D4,A:C,1:3)").filter(([k]) => k !== 'comma')).toEqual([
+    expect(
+      kinds("KVAR.MOTOR($A$1,Sheet1!B2,'My sheet'!C3:D4,A:C,1:3)").filter(([k]) => k !== 'comma'),
+    ).toEqual([
       ['func', 'KVAR.MOTOR'],
       ['lparen', '('],
       ['ref', '$A$1'],

@@ -5,7 +5,12 @@ import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
-import { applyImport, previewImport, proposeMapping, tableFromCsvText } from '../../../src/io/import/index.ts';
+import {
+  applyImport,
+  previewImport,
+  proposeMapping,
+  tableFromCsvText,
+} from '../../../src/io/import/index.ts';
 
 function deepFreeze<T>(x: T): T {
   if (x && typeof x === 'object') {
@@ -29,7 +34,8 @@ function preview(csv: string) {
   return previewImport(proposeMapping(t.value), { settings: siteFromWorkbook(current).site.settings });
 }
 
-const EXTRA = 'Item,Fed from,Type,Motor kW,Eff %,PF,Load factor (summer-day),Load factor (winter-night)\nFAN-9,LV-SVC,motor,11,92,0.84,1,0.5\nPMP-9,LV-SVC,motor,15,93,0.85,0.8,0\n';
+const EXTRA =
+  'Item,Fed from,Type,Motor kW,Eff %,PF,Load factor (summer-day),Load factor (winter-night)\nFAN-9,LV-SVC,motor,11,92,0.84,1,0.5\nPMP-9,LV-SVC,motor,15,93,0.85,0.8,0\n';
 
 describe('applyImport', () => {
   it('appends the list to the open site and rebuilds the workbook, leaving the open one untouched', () => {
@@ -43,13 +49,19 @@ describe('applyImport', () => {
     const fan = r.site.equipment.find((e) => e.tag === 'FAN-9')!;
     expect(fan.values).toMatchObject({ p_kw: 11, eff: 0.92, cos_phi: 0.84 });
     expect(fan.loads).toEqual({ 'summer-day': 1, 'winter-night': 0.5 });
-    expect(siteFromWorkbook(r.doc).site.equipment.map((e) => e.tag).sort()).toEqual([...tags].sort());
+    expect(
+      siteFromWorkbook(r.doc)
+        .site.equipment.map((e) => e.tag)
+        .sort(),
+    ).toEqual([...tags].sort());
     expect(r.doc.title).toBe(current.title);
     expect(JSON.stringify(current)).toBe(before);
   });
 
   it('refuses tags already in the workbook when appending', () => {
-    const r = applyImport(current, preview('tag,bus,kind,p_kw,cos_phi\nLED,LV-SVC,load,5,0.9\n'), { mode: 'append' });
+    const r = applyImport(current, preview('tag,bus,kind,p_kw,cos_phi\nLED,LV-SVC,load,5,0.9\n'), {
+      mode: 'append',
+    });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.message).toMatch(/row 2, column tag: tag "LED" is already used in the workbook/);
   });
@@ -58,13 +70,20 @@ describe('applyImport', () => {
     const p = preview(EXTRA + 'BAD-1,LV-SVC,motor,x,93,0.85,1,1\n');
     const refused = applyImport(current, p, { mode: 'append' });
     expect(refused.ok).toBe(false);
-    if (!refused.ok) expect(refused.message).toMatch(/^1 row\(s\) of the list have errors \(first: row 4, column D \(Motor kW\): must be a number; got "x"\)/);
+    if (!refused.ok)
+      expect(refused.message).toMatch(
+        /^1 row\(s\) of the list have errors \(first: row 4, column D \(Motor kW\): must be a number; got "x"\)/,
+      );
     const r = applyImport(current, p, { mode: 'append', dropRowsWithErrors: true });
     expect(r.ok && [r.added, r.dropped]).toEqual([2, 1]);
   });
 
   it('replaces the equipment and adds new operating cases', () => {
-    const r = applyImport(current, preview('tag,bus,kind,p_kw,cos_phi,load:weekend\nL1,MAIN,load,100,0.9,0.3\n'), { mode: 'replace' });
+    const r = applyImport(
+      current,
+      preview('tag,bus,kind,p_kw,cos_phi,load:weekend\nL1,MAIN,load,100,0.9,0.3\n'),
+      { mode: 'replace' },
+    );
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.site.equipment.map((e) => e.tag)).toEqual(['L1']);
@@ -73,6 +92,9 @@ describe('applyImport', () => {
 
   it('refuses when a required column is not mapped', () => {
     const r = applyImport(current, preview('Item,Motor kW\nM1,5\n'), { mode: 'append' });
-    expect(r).toMatchObject({ ok: false, message: 'map a column to bus, kind first; these columns are required' });
+    expect(r).toMatchObject({
+      ok: false,
+      message: 'map a column to bus, kind first; these columns are required',
+    });
   });
 });

@@ -1,6 +1,11 @@
 // Header mapping and preview of a foreign-headed equipment list (an invented pump station).
 import { describe, expect, it } from 'vitest';
-import { proposeMapping, rememberMapping, withColumnTarget, withColumnUnit } from '../../../src/io/import/mapping.ts';
+import {
+  proposeMapping,
+  rememberMapping,
+  withColumnTarget,
+  withColumnUnit,
+} from '../../../src/io/import/mapping.ts';
 import { emptyMappingMemory } from '../../../src/io/import/memory.ts';
 import { previewImport } from '../../../src/io/import/preview.ts';
 import { tableFromCsvText, type RawTable } from '../../../src/io/import/table.ts';
@@ -29,7 +34,21 @@ describe('proposeMapping', () => {
     const p = proposeMapping(table());
     expect(p.headerRow).toBe(3);
     expect(p.missing).toEqual([]);
-    expect(p.columns.map((c) => c.target)).toEqual(['tag', 'description', 'bus', 'kind', 'qty', 'p_kw', 'eff', 'cos_phi', 'load', 'load:night', 'u_kv', null, null]);
+    expect(p.columns.map((c) => c.target)).toEqual([
+      'tag',
+      'description',
+      'bus',
+      'kind',
+      'qty',
+      'p_kw',
+      'eff',
+      'cos_phi',
+      'load',
+      'load:night',
+      'u_kv',
+      null,
+      null,
+    ]);
     expect(byHeader(p, 'Voltage (V)').unit).toEqual({ label: 'V', factor: 1e-3 });
     expect(byHeader(p, 'Eff %').unit).toEqual({ label: '%', factor: 0.01 });
     expect(byHeader(p, 'Remarks').note).toMatch(/also looks like description, which column B/);
@@ -61,7 +80,11 @@ describe('proposeMapping', () => {
     const p = withColumnUnit(withColumnTarget(proposeMapping(table()), 12, 'p_kw'), 12, 'W');
     const memory = rememberMapping(emptyMappingMemory(), p);
     const again = proposeMapping(table(), memory);
-    expect(again.columns[12]).toMatchObject({ target: 'p_kw', unit: { label: 'W', factor: 1e-3 }, why: 'remembered' });
+    expect(again.columns[12]).toMatchObject({
+      target: 'p_kw',
+      unit: { label: 'W', factor: 1e-3 },
+      why: 'remembered',
+    });
     expect(again.columns[5]).toMatchObject({ target: null, why: 'remembered' });
   });
 });
@@ -71,19 +94,38 @@ describe('previewImport', () => {
     const pv = previewImport(proposeMapping(table()));
     const first = pv.rows[0]!;
     expect(first).toMatchObject({ row: 4, status: 'ok' });
-    expect(first.cells).toMatchObject({ tag: 'P-101', p_kw: 75, eff: 0.95, cos_phi: 0.86, load: 0.8, 'load:night': 0.5, u_kv: 0.4 });
+    expect(first.cells).toMatchObject({
+      tag: 'P-101',
+      p_kw: 75,
+      eff: 0.95,
+      cos_phi: 0.86,
+      load: 0.8,
+      'load:night': 0.5,
+      u_kv: 0.4,
+    });
     expect(pv.cases).toEqual(['normal', 'night']);
     const messages = pv.problems.map((x) => x.message);
     expect(messages).toContain('row 5, column F (Motor kW): must be a number; got "abc"');
     expect(messages.some((m) => m.startsWith('row 6, column H (PF): ') && m.includes('1.3'))).toBe(true);
     expect(messages.some((m) => m.startsWith('row 8, column D (Type): ') && m.includes('widget'))).toBe(true);
-    expect(pv.rows.map((r) => [r.row, r.status])).toEqual([[4, 'ok'], [5, 'error'], [6, 'error'], [8, 'error']]);
+    expect(pv.rows.map((r) => [r.row, r.status])).toEqual([
+      [4, 'ok'],
+      [5, 'error'],
+      [6, 'error'],
+      [8, 'error'],
+    ]);
     expect(pv.counts).toEqual({ rows: 4, ok: 1, withErrors: 3, withWarnings: 0 });
     expect(pv.canApply).toBe(false);
   });
 
   it('can apply a clean list', () => {
-    const pv = previewImport(proposeMapping(table('Item,Board,Type,Rated power (MW),PF,Eff\nM1,LV,motor,0.075,0.86,0.95\nM2,LV,motor,0.11,0.87,0.955\n')));
+    const pv = previewImport(
+      proposeMapping(
+        table(
+          'Item,Board,Type,Rated power (MW),PF,Eff\nM1,LV,motor,0.075,0.86,0.95\nM2,LV,motor,0.11,0.87,0.955\n',
+        ),
+      ),
+    );
     expect(pv.problems.filter((x) => x.severity === 'error')).toEqual([]);
     expect(pv.canApply).toBe(true);
     expect(pv.equipment.map((e) => e.values.p_kw)).toEqual([75, 110]);

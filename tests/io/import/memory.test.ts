@@ -1,9 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { emptyMappingMemory, MAPPING_MEMORY_MAX_ENTRIES, parseMappingMemory, recall, remember } from '../../../src/io/import/memory.ts';
+import {
+  emptyMappingMemory,
+  MAPPING_MEMORY_MAX_ENTRIES,
+  parseMappingMemory,
+  recall,
+  remember,
+} from '../../../src/io/import/memory.ts';
 
 describe('MappingMemory', () => {
   it('remembers by normalised header and survives JSON', () => {
-    const m = remember(emptyMappingMemory(), [['Tag No.', { target: 'tag' }], ['Leistung (MW)', { target: 'p_kw', unit: 'MW' }], ['Notes', { target: null }]]);
+    const m = remember(emptyMappingMemory(), [
+      ['Tag No.', { target: 'tag' }],
+      ['Leistung (MW)', { target: 'p_kw', unit: 'MW' }],
+      ['Notes', { target: null }],
+    ]);
     const back = parseMappingMemory(JSON.stringify(m));
     expect(recall(back, 'tag no')).toEqual({ target: 'tag' });
     expect(recall(back, 'LEISTUNG  MW')).toEqual({ target: 'p_kw', unit: 'MW' });
@@ -12,10 +22,19 @@ describe('MappingMemory', () => {
   });
 
   it('reads garbage as empty, never throws', () => {
-    for (const text of [null, '', '{', '[]', '{"version":2,"choices":{}}', '{"version":1,"choices":{"a":{"target":5}}}']) {
+    for (const text of [
+      null,
+      '',
+      '{',
+      '[]',
+      '{"version":2,"choices":{}}',
+      '{"version":1,"choices":{"a":{"target":5}}}',
+    ]) {
       expect(parseMappingMemory(text).choices).toEqual({});
     }
-    expect(recall(parseMappingMemory('{"version":1,"choices":{"__proto__":{"target":"tag"}}}'), 'constructor')).toBeUndefined();
+    expect(
+      recall(parseMappingMemory('{"version":1,"choices":{"__proto__":{"target":"tag"}}}'), 'constructor'),
+    ).toBeUndefined();
   });
 
   it('forgets the oldest beyond the cap and moves a re-chosen header to the newest', () => {

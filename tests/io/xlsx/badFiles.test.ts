@@ -37,8 +37,18 @@ describe('importKvarXlsx refuses bad files with a clear message', () => {
     ['not a zip', () => new TextEncoder().encode('Tag,Bus\nM1,LV\n'), 'not-zip', /not an xlsx workbook/],
     ['password-protected', () => encryptedContainer(), 'encrypted', /password-protected/],
     ['a million rows', () => millionRowXlsx(), 'too-many-rows', /more than 200,000 rows/],
-    ['a zip bomb', () => xlsxShell('<worksheet>' + ' '.repeat(40 * 1024 * 1024) + '</worksheet>'), 'zip-bomb', /inflates \d+×/],
-    ['not a workbook inside', () => makeZip([{ name: 'mimetype', data: 'x' }]), 'wrong-layout', /not an xlsx workbook/],
+    [
+      'a zip bomb',
+      () => xlsxShell('<worksheet>' + ' '.repeat(40 * 1024 * 1024) + '</worksheet>'),
+      'zip-bomb',
+      /inflates \d+×/,
+    ],
+    [
+      'not a workbook inside',
+      () => makeZip([{ name: 'mimetype', data: 'x' }]),
+      'wrong-layout',
+      /not an xlsx workbook/,
+    ],
   ] as const)('%s', async (_, make, code, message) => {
     const r = await refusal(make());
     expect(r.problem.code).toBe(code);
@@ -62,10 +72,18 @@ describe('importKvarXlsx refuses bad files with a clear message', () => {
       ws.getCell('B3').value = { formula: '_xlfn.IFNA(A1,0)', result: 5 } as ExcelJS.CellFormulaValue;
     });
     const r = await refusal(bytes);
-    expect(r.problem).toEqual({ code: 'unknown-function', message: 'the formula =A1*FROBNICATE(2) uses the function FROBNICATE, which Kvar Ledger does not know', where: 'Loads!B2' });
+    expect(r.problem).toEqual({
+      code: 'unknown-function',
+      message: 'the formula =A1*FROBNICATE(2) uses the function FROBNICATE, which Kvar Ledger does not know',
+      where: 'Loads!B2',
+    });
     expect(r.problems).toHaveLength(1);
     const accepted = await importKvarXlsx(bytes, { acceptFormulaProblems: true });
-    expect(accepted.ok && accepted.doc.sheets[0]?.cells).toEqual([[5], [null, '=A1*FROBNICATE(2)'], [null, '=IFNA(A1,0)']]);
+    expect(accepted.ok && accepted.doc.sheets[0]?.cells).toEqual([
+      [5],
+      [null, '=A1*FROBNICATE(2)'],
+      [null, '=IFNA(A1,0)'],
+    ]);
     expect(accepted.ok && accepted.problems).toHaveLength(1);
   });
 
@@ -77,24 +95,40 @@ describe('importKvarXlsx refuses bad files with a clear message', () => {
       ws.getCell('C1').value = { formula: 'SUM(1,2)', result: 3 } as ExcelJS.CellFormulaValue;
     });
     const r = await refusal(bytes);
-    expect(r.problems.map((p) => [p.code, p.where])).toEqual([['circular-reference', 'Buses!A1'], ['circular-reference', 'Buses!B1']]);
+    expect(r.problems.map((p) => [p.code, p.where])).toEqual([
+      ['circular-reference', 'Buses!A1'],
+      ['circular-reference', 'Buses!B1'],
+    ]);
     expect(r.problem.message).toBe('the formula =B1+1 refers to itself through a loop of references');
   });
 
   it('a workbook with nothing in it', async () => {
     const r = await refusal(await xlsxOf((wb) => void wb.addWorksheet('Empty')));
-    expect(r.problem).toMatchObject({ code: 'wrong-layout', message: 'the workbook holds no data (every sheet is empty)' });
+    expect(r.problem).toMatchObject({
+      code: 'wrong-layout',
+      message: 'the workbook holds no data (every sheet is empty)',
+    });
   });
 
   it('reads another program’s plain workbook (values, text, dates, shared formulas)', async () => {
     const bytes = await xlsxOf((wb) => {
       const ws = wb.addWorksheet('Data');
       ws.addRow(['tag', 'p', 'when', 'note']);
-      ws.addRow(['M1', 10, new Date(Date.UTC(2024, 0, 2)), { richText: [{ text: 'rich ' }, { text: 'text' }] }]);
+      ws.addRow([
+        'M1',
+        10,
+        new Date(Date.UTC(2024, 0, 2)),
+        { richText: [{ text: 'rich ' }, { text: 'text' }] },
+      ]);
       ws.addRow(['M2', 20, null, '=not a formula']);
       ws.getCell('E2').value = { formula: 'B2*2', result: 20 } as ExcelJS.CellFormulaValue;
       ws.getCell('E3').value = { sharedFormula: 'E2', result: 40 } as ExcelJS.CellSharedFormulaValue;
-      ws.getCell('E2').value = { formula: 'B2*2', result: 20, shareType: 'shared', ref: 'E2:E3' } as ExcelJS.CellFormulaValue;
+      ws.getCell('E2').value = {
+        formula: 'B2*2',
+        result: 20,
+        shareType: 'shared',
+        ref: 'E2:E3',
+      } as ExcelJS.CellFormulaValue;
     });
     const r = await importKvarXlsx(bytes);
     expect(r.ok).toBe(true);
@@ -114,7 +148,11 @@ describe('readEquipmentFile refuses bad lists with a clear message', () => {
     ['list.xlsx', 'encrypted', () => encryptedContainer()],
     ['list.xlsx', 'too-many-rows', () => millionRowXlsx()],
     ['list.csv', 'empty', () => new Uint8Array()],
-    ['list.csv', 'too-many-rows', () => new TextEncoder().encode('tag,bus,kind\n' + 'M,B,motor\n'.repeat(1_000_000))],
+    [
+      'list.csv',
+      'too-many-rows',
+      () => new TextEncoder().encode('tag,bus,kind\n' + 'M,B,motor\n'.repeat(1_000_000)),
+    ],
     ['list.csv', 'corrupt', () => new TextEncoder().encode('tag,bus\n"M1,LV\n')],
   ] as const)('%s: %s', async (name, code, make) => {
     const r = await readEquipmentFile(name, make());
@@ -135,12 +173,31 @@ describe('readEquipmentFile refuses bad lists with a clear message', () => {
       ws.addRow(['M2', 'LV', 'motor', { formula: '0.9+0.01', result: 0.91 }]);
     });
     const r = await readEquipmentFile('list.xlsx', bytes);
-    expect(r.ok && r.value).toMatchObject({ kind: 'xlsx', sheet: 'Equipment', rows: [['Tag', 'Board', 'Type', 'Eff'], ['M1', 'LV', 'motor', '95%'], ['M2', 'LV', 'motor', 0.91]] });
+    expect(r.ok && r.value).toMatchObject({
+      kind: 'xlsx',
+      sheet: 'Equipment',
+      rows: [
+        ['Tag', 'Board', 'Type', 'Eff'],
+        ['M1', 'LV', 'motor', '95%'],
+        ['M2', 'LV', 'motor', 0.91],
+      ],
+    });
   });
 
   it('decodes a Windows code page CSV and detects the semicolon and decimal comma', async () => {
-    const bytes = new Uint8Array([...new TextEncoder().encode('tag;bus;kind;cos phi\nM1;LV;motor;0,86\nK'), 0xfc, ...new TextEncoder().encode('hl;LV;load;0,9\n')]);
+    const bytes = new Uint8Array([
+      ...new TextEncoder().encode('tag;bus;kind;cos phi\nM1;LV;motor;0,86\nK'),
+      0xfc,
+      ...new TextEncoder().encode('hl;LV;load;0,9\n'),
+    ]);
     const r = await readEquipmentFile('liste.csv', bytes);
-    expect(r.ok && r.value).toMatchObject({ decimalComma: true, rows: [['tag', 'bus', 'kind', 'cos phi'], ['M1', 'LV', 'motor', '0,86'], ['Kühl', 'LV', 'load', '0,9']] });
+    expect(r.ok && r.value).toMatchObject({
+      decimalComma: true,
+      rows: [
+        ['tag', 'bus', 'kind', 'cos phi'],
+        ['M1', 'LV', 'motor', '0,86'],
+        ['Kühl', 'LV', 'load', '0,9'],
+      ],
+    });
   });
 });

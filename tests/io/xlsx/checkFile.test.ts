@@ -25,7 +25,9 @@ describe('checkXlsxBytes', () => {
   });
 
   it('refuses text and random bytes as not a zip', async () => {
-    expect((await problemOf(new TextEncoder().encode('tag,bus,kind\nM1,B1,motor\n'))).message).toMatch(/text.*CSV/);
+    expect((await problemOf(new TextEncoder().encode('tag,bus,kind\nM1,B1,motor\n'))).message).toMatch(
+      /text.*CSV/,
+    );
     const noise = new Uint8Array(300).map((_, i) => (i * 37 + 11) % 256);
     expect((await problemOf(noise)).code).toBe('not-zip');
   });
@@ -49,7 +51,12 @@ describe('checkXlsxBytes', () => {
   });
 
   it('refuses a zip that is not a workbook', async () => {
-    const p = await problemOf(makeZip([{ name: 'word/document.xml', data: '<w/>' }, { name: '[Content_Types].xml', data: '<T/>' }]));
+    const p = await problemOf(
+      makeZip([
+        { name: 'word/document.xml', data: '<w/>' },
+        { name: '[Content_Types].xml', data: '<T/>' },
+      ]),
+    );
     expect(p.code).toBe('wrong-layout');
     expect(p.message).toMatch(/word-processor document/);
   });
@@ -61,7 +68,8 @@ describe('checkXlsxBytes', () => {
   });
 
   it('refuses a sheet whose only row is number 1,048,576', async () => {
-    const xml = '<worksheet><sheetData><row r="1048576"><c r="A1048576"><v>1</v></c></row></sheetData></worksheet>';
+    const xml =
+      '<worksheet><sheetData><row r="1048576"><c r="A1048576"><v>1</v></c></row></sheetData></worksheet>';
     expect((await problemOf(xlsxShell(xml))).code).toBe('too-many-rows');
   });
 

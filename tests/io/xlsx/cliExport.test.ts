@@ -26,7 +26,9 @@ describe('kvar-ledger export', () => {
     const r = await cli('templates/cold-store.json', out);
     expect(r.err).toBe('');
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/^wrote .*cold\.xlsx: 10 sheets, \d+ live formulas, \d+ catalogue functions written out\n$/);
+    expect(r.out).toMatch(
+      /^wrote .*cold\.xlsx: 10 sheets, \d+ live formulas, \d+ catalogue functions written out\n$/,
+    );
     const back = await importKvarXlsx(new Uint8Array(readFileSync(out)));
     const { site } = readSiteFile(readFileSync('templates/cold-store.json', 'utf8'));
     expect(back.ok && back.doc).toEqual(buildWorkbook(site, { flavour: 'portable' }));
@@ -35,12 +37,16 @@ describe('kvar-ledger export', () => {
     const wb = new ExcelJS.Workbook();
     await wb.xlsx.load(readFileSync(out) as unknown as ArrayBuffer);
     const cover = wb.getWorksheet('Cover')!.getSheetValues().flat().join('\n');
-    for (const s of [site.settings.name, site.settings.cases.join(', '), 'cos φ at least 0.95', '50 Hz']) expect(cover).toContain(s);
+    for (const s of [site.settings.name, site.settings.cases.join(', '), 'cos φ at least 0.95', '50 Hz'])
+      expect(cover).toContain(s);
   });
 
   it('writes the workbook of a CSV list', async () => {
     const list = join(dir, 'list.csv');
-    writeFileSync(list, 'tag,bus,kind,p_kw,eff,cos_phi,u_kv\nM1,LV,motor,75,0.95,0.86,0.4\nL1,LV,load,40,,0.9,0.4\n');
+    writeFileSync(
+      list,
+      'tag,bus,kind,p_kw,eff,cos_phi,u_kv\nM1,LV,motor,75,0.95,0.86,0.4\nL1,LV,load,40,,0.9,0.4\n',
+    );
     const r = await cli(list, join(dir, 'list.xlsx'));
     expect(r.code).toBe(0);
     expect(existsSync(join(dir, 'list.xlsx'))).toBe(true);
@@ -61,9 +67,15 @@ describe('kvar-ledger export', () => {
   it('says what and where for unreadable input and wrong arguments', async () => {
     const fake = join(dir, 'fake.xlsx');
     writeFileSync(fake, 'not a workbook at all');
-    expect((await cli(fake, join(dir, 'o.xlsx'))).err).toMatch(/fake\.xlsx.*text, not an xlsx workbook|text, not an xlsx workbook.*fake\.xlsx/);
-    expect((await cli(join(dir, 'missing.csv'), join(dir, 'o.xlsx'))).err).toMatch(/cannot read .*missing\.csv: no such file/);
-    expect((await cli('templates/cold-store.json', join(dir, 'o.csv'))).err).toMatch(/must end in \.xlsx; got ".*o\.csv" \(argument 2\)/);
+    expect((await cli(fake, join(dir, 'o.xlsx'))).err).toMatch(
+      /fake\.xlsx.*text, not an xlsx workbook|text, not an xlsx workbook.*fake\.xlsx/,
+    );
+    expect((await cli(join(dir, 'missing.csv'), join(dir, 'o.xlsx'))).err).toMatch(
+      /cannot read .*missing\.csv: no such file/,
+    );
+    expect((await cli('templates/cold-store.json', join(dir, 'o.csv'))).err).toMatch(
+      /must end in \.xlsx; got ".*o\.csv" \(argument 2\)/,
+    );
     const one = await cli('templates/cold-store.json');
     expect(one.code).toBe(1);
     expect(one.err).toMatch(/give an input file and an output \.xlsx; got 1 argument/);

@@ -14,20 +14,28 @@ import { generateSite } from '../../bench/generateSite.ts';
 
 describe('formula shapes', () => {
   it('turn relative rows into offsets and back', () => {
-    const f = "=KVAR.MOTOR(F12,$G$3,H12*2)+'Sheet 1'!A11+Loads!B$9+SUM(C:C)+LOG10(A13)+\"A12\"";
+    const f = '=KVAR.MOTOR(F12,$G$3,H12*2)+\'Sheet 1\'!A11+Loads!B$9+SUM(C:C)+LOG10(A13)+"A12"';
     const shape = toShape(f, 12);
     expect(shape).not.toContain('F12');
     expect(shape).toContain('$G$3');
     expect(shape).toContain('"A12"');
     expect(fromShape(shape, 12)).toBe(f);
-    expect(fromShape(shape, 40)).toBe("=KVAR.MOTOR(F40,$G$3,H40*2)+'Sheet 1'!A39+Loads!B$9+SUM(C:C)+LOG10(A41)+\"A12\"");
+    expect(fromShape(shape, 40)).toBe(
+      '=KVAR.MOTOR(F40,$G$3,H40*2)+\'Sheet 1\'!A39+Loads!B$9+SUM(C:C)+LOG10(A41)+"A12"',
+    );
     expect(toShape('=F40*2', 40)).toBe(toShape('=F7*2', 7));
   });
 
   it('write out from a compiled shape exactly as from the shape text', () => {
-    for (const f of ["=KVAR.MOTOR(F12,$G$3,H12*2)+'Sheet 1'!A11+Loads!B$9+SUM(C:C)+LOG10(A13)+\"A12\"", '=1+2', '=A12', '="B3"&C12&"D4"']) {
+    for (const f of [
+      '=KVAR.MOTOR(F12,$G$3,H12*2)+\'Sheet 1\'!A11+Loads!B$9+SUM(C:C)+LOG10(A13)+"A12"',
+      '=1+2',
+      '=A12',
+      '="B3"&C12&"D4"',
+    ]) {
       const shape = toShape(f, 12);
-      for (const row of [1, 12, 13, 999]) expect(renderShape(compileShape(shape), row)).toBe(fromShape(shape, row));
+      for (const row of [1, 12, 13, 999])
+        expect(renderShape(compileShape(shape), row)).toBe(fromShape(shape, row));
       expect(renderShape(compileShape(shape), 12)).toBe(f);
     }
     // A different formula in the same column is not taken for the same shape.
@@ -42,27 +50,42 @@ describe('formula shapes', () => {
     let compared = 0;
     for (const s of doc.sheets) {
       const ws = wb.getWorksheet(s.name)!;
-      s.cells.forEach((row, r) => row.forEach((c, col) => {
-        if (typeof c !== 'string' || !c.startsWith('=')) return;
-        const e = expandFormula(c);
-        if (!e.ok) throw new Error(e.message);
-        expect([s.name, r, col, ws.getCell(r + 1, col + 1).formula]).toEqual([s.name, r, col, toFileFormula(e.formula).text]);
-        compared++;
-      }));
+      s.cells.forEach((row, r) =>
+        row.forEach((c, col) => {
+          if (typeof c !== 'string' || !c.startsWith('=')) return;
+          const e = expandFormula(c);
+          if (!e.ok) throw new Error(e.message);
+          expect([s.name, r, col, ws.getCell(r + 1, col + 1).formula]).toEqual([
+            s.name,
+            r,
+            col,
+            toFileFormula(e.formula).text,
+          ]);
+          compared++;
+        }),
+      );
     }
     expect(compared).toBeGreaterThan(200);
   });
 
   it('give per shape the same normalised text (for row fingerprints) as normalising each written formula', () => {
     const { site } = readSiteFile(readFileSync('templates/pumping-station.json', 'utf8'));
-    const docs = [buildWorkbook(site, { flavour: 'portable' }), buildWorkbook(generateSite({ rows: 1_000, buses: 30 }), { flavour: 'portable' })];
+    const docs = [
+      buildWorkbook(site, { flavour: 'portable' }),
+      buildWorkbook(generateSite({ rows: 1_000, buses: 30 }), { flavour: 'portable' }),
+    ];
     let compared = 0;
     for (const doc of docs) {
       for (const s of doc.sheets) {
         for (const row of exportSheetCells(() => ({ ok: true, value: null }), s).rows) {
           for (const c of row) {
             if (c.kind !== 'formula') continue;
-            if (c.normalised !== normaliseFormula(c.formula)) expect([s.name, c.formula, c.normalised]).toEqual([s.name, c.formula, normaliseFormula(c.formula)]);
+            if (c.normalised !== normaliseFormula(c.formula))
+              expect([s.name, c.formula, c.normalised]).toEqual([
+                s.name,
+                c.formula,
+                normaliseFormula(c.formula),
+              ]);
             compared++;
           }
         }

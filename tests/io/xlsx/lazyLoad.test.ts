@@ -10,13 +10,16 @@ function sources(dir: string): string[] {
   });
 }
 
-const STATIC = /^\s*import\s+(?!type\b)[^;]*from\s+['"]exceljs['"]|^\s*export\s+[^;]*from\s+['"]exceljs['"]|require\(['"]exceljs['"]\)/m;
+const STATIC =
+  /^\s*import\s+(?!type\b)[^;]*from\s+['"]exceljs['"]|^\s*export\s+[^;]*from\s+['"]exceljs['"]|require\(['"]exceljs['"]\)/m;
 
 describe('the xlsx library loads lazily', () => {
   it('no module under src imports exceljs statically; one loads it dynamically', () => {
     const files = sources('src');
     expect(files.filter((f) => STATIC.test(readFileSync(f, 'utf8')))).toEqual([]);
-    expect(files.filter((f) => readFileSync(f, 'utf8').includes("import('exceljs')"))).toEqual([join('src', 'io', 'xlsx', 'loadExcelJs.ts')]);
+    expect(files.filter((f) => readFileSync(f, 'utf8').includes("import('exceljs')"))).toEqual([
+      join('src', 'io', 'xlsx', 'loadExcelJs.ts'),
+    ]);
   });
 
   it('the check itself catches a static import', () => {

@@ -6,7 +6,8 @@ import { fromFileFormula, toFileFormula } from '../../../src/io/xlsx/functionNam
 describe('normaliseFormula', () => {
   it('ignores spacing, case, storage prefixes, needless quotes and number spelling', () => {
     const n = normaliseFormula('SUM(Motors!A1,1.5)+_xlfn.IFNA(B2,0)');
-    for (const v of ["=sum( 'Motors'!a1 , 1.50 )+IFNA(b2,0)", 'SUM(MOTORS!A1,15E-1)+_XLFN.IFNA(B2,0.0)']) expect(normaliseFormula(v)).toBe(n);
+    for (const v of ["=sum( 'Motors'!a1 , 1.50 )+IFNA(b2,0)", 'SUM(MOTORS!A1,15E-1)+_XLFN.IFNA(B2,0.0)'])
+      expect(normaliseFormula(v)).toBe(n);
   });
 
   it('keeps what matters: text literals, needed quotes, references', () => {
@@ -18,26 +19,65 @@ describe('normaliseFormula', () => {
   });
 
   it('fingerprints rows by position and kind of each cell', () => {
-    const row = [{ col: 0, value: 'M1' }, { col: 1, value: 75 }, { col: 2, formula: 'B2*2' }];
-    expect(rowFingerprint(row)).toBe(rowFingerprint([{ col: 0, value: 'M1' }, { col: 1, value: 75 }, { col: 2, formula: 'b2 * 2' }]));
-    expect(rowFingerprint(row)).not.toBe(rowFingerprint([{ col: 0, value: 'M1' }, { col: 1, value: '75' }, { col: 2, formula: 'B2*2' }]));
-    expect(rowFingerprint(row)).not.toBe(rowFingerprint([{ col: 1, value: 'M1' }, { col: 2, value: 75 }, { col: 3, formula: 'B2*2' }]));
+    const row = [
+      { col: 0, value: 'M1' },
+      { col: 1, value: 75 },
+      { col: 2, formula: 'B2*2' },
+    ];
+    expect(rowFingerprint(row)).toBe(
+      rowFingerprint([
+        { col: 0, value: 'M1' },
+        { col: 1, value: 75 },
+        { col: 2, formula: 'b2 * 2' },
+      ]),
+    );
+    expect(rowFingerprint(row)).not.toBe(
+      rowFingerprint([
+        { col: 0, value: 'M1' },
+        { col: 1, value: '75' },
+        { col: 2, formula: 'B2*2' },
+      ]),
+    );
+    expect(rowFingerprint(row)).not.toBe(
+      rowFingerprint([
+        { col: 1, value: 'M1' },
+        { col: 2, value: 75 },
+        { col: 3, formula: 'B2*2' },
+      ]),
+    );
     expect(rowFingerprint([])).toMatch(/^[0-9a-f]{8}$/);
   });
 
   it('refuses damaged or foreign metadata', () => {
     expect(parseMeta('{')).toBeUndefined();
     expect(parseMeta('{"format":"kvar-ledger-xlsx-meta","version":2}')).toBeUndefined();
-    const doc = { format: 'kvar-ledger-workbook', version: 1, title: 't', sheets: [{ name: 'S', cells: [[{ evil: 1 }]] }] };
-    expect(parseMeta(JSON.stringify({ format: 'kvar-ledger-xlsx-meta', version: 1, doc, sheets: [], generated: [] }))).toBeUndefined();
+    const doc = {
+      format: 'kvar-ledger-workbook',
+      version: 1,
+      title: 't',
+      sheets: [{ name: 'S', cells: [[{ evil: 1 }]] }],
+    };
+    expect(
+      parseMeta(
+        JSON.stringify({ format: 'kvar-ledger-xlsx-meta', version: 1, doc, sheets: [], generated: [] }),
+      ),
+    ).toBeUndefined();
   });
 });
 
 describe('function names in the file', () => {
   it('prefixes newer functions, leaves classic ones and text alone, and reads prefixes back', () => {
-    expect(toFileFormula('=IFNA(A1,"IFS(")+SUM(1)')).toEqual({ text: 'IFNA(A1,"IFS(")+SUM(1)'.replace('IFNA', '_xlfn.IFNA'), newer: ['IFNA'], unknown: [] });
+    expect(toFileFormula('=IFNA(A1,"IFS(")+SUM(1)')).toEqual({
+      text: 'IFNA(A1,"IFS(")+SUM(1)'.replace('IFNA', '_xlfn.IFNA'),
+      newer: ['IFNA'],
+      unknown: [],
+    });
     expect(toFileFormula('=FILTER(A1:A3,B1:B3)').text).toBe('_xlfn._xlws.FILTER(A1:A3,B1:B3)');
-    expect(toFileFormula('=SUMIFS(C:C,D:D,">0")')).toEqual({ text: 'SUMIFS(C:C,D:D,">0")', newer: [], unknown: [] });
+    expect(toFileFormula('=SUMIFS(C:C,D:D,">0")')).toEqual({
+      text: 'SUMIFS(C:C,D:D,">0")',
+      newer: [],
+      unknown: [],
+    });
     expect(toFileFormula('=BUS.SUMS(A1)').unknown).toEqual(['BUS.SUMS']);
     expect(fromFileFormula('_xlfn._xlws.SORT(A1:A3)+_xlfn.IFNA(1,2)')).toBe('=SORT(A1:A3)+IFNA(1,2)');
     expect(fromFileFormula('A1*2')).toBe('=A1*2');

@@ -7,7 +7,12 @@ import { describe, expect, it } from 'vitest';
 import { CATALOGUE } from '../../../src/core/functions/index.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { createEngine, createPlainEngine, readCell } from '../../../src/engine/index.ts';
-import { exportWorkbookXlsx, exportWorkbookXlsxWithReport, importKvarXlsx, XlsxExportError } from '../../../src/io/xlsx/index.ts';
+import {
+  exportWorkbookXlsx,
+  exportWorkbookXlsxWithReport,
+  importKvarXlsx,
+  XlsxExportError,
+} from '../../../src/io/xlsx/index.ts';
 import { fileError } from '../../../src/io/xlsx/exportCells.ts';
 import { DEFAULT_XLSX_LIMITS } from '../../../src/io/xlsx/limits.ts';
 import { META_SHEET_NAME } from '../../../src/io/xlsx/metadata.ts';
@@ -73,7 +78,10 @@ describe('round trip of our own export', () => {
     const wb = await load(await exportWorkbookXlsx(sampleDoc(), { date: DATE }));
     const cell = wb.getWorksheet('Point of connection')!.getCell('B3');
     const f = (cell.value as { formula: string; result: number }).formula;
-    cell.value = { formula: f.toLowerCase().replace(/,/g, ', '), result: (cell.value as { result: number }).result } as ExcelJS.CellFormulaValue;
+    cell.value = {
+      formula: f.toLowerCase().replace(/,/g, ', '),
+      result: (cell.value as { result: number }).result,
+    } as ExcelJS.CellFormulaValue;
     expect(await restored(await save(wb))).toEqual(sampleDoc());
   });
 
@@ -83,7 +91,10 @@ describe('round trip of our own export', () => {
     gone.removeWorksheet(gone.getWorksheet(META_SHEET_NAME)!.id);
     const damaged = await load(bytes);
     damaged.getWorksheet(META_SHEET_NAME)!.getCell('A2').value = '{"format":"kvar-ledger-xlsx-meta",';
-    for (const [wb, note] of [[gone, undefined], [damaged, 'damaged']] as const) {
+    for (const [wb, note] of [
+      [gone, undefined],
+      [damaged, 'damaged'],
+    ] as const) {
       const r = await importKvarXlsx(await save(wb));
       expect(r.ok && r.restored).toBe('plain');
       if (!r.ok) continue;
@@ -92,7 +103,12 @@ describe('round trip of our own export', () => {
       // Same values as the original, computed from the plain formulas.
       const a = createEngine(sampleDoc().sheets);
       const b = createEngine(r.doc.sheets.slice(0, 2));
-      for (const [sheet, row, col] of [['Motors', 1, 6], ['Motors', 6, 5], ['Point of connection', 2, 1], ['Point of connection', 5, 1]] as const) {
+      for (const [sheet, row, col] of [
+        ['Motors', 1, 6],
+        ['Motors', 6, 5],
+        ['Point of connection', 2, 1],
+        ['Point of connection', 5, 1],
+      ] as const) {
         const x = readCell(a, sheet, row, col);
         const y = readCell(b, sheet, row, col);
         expect(y.ok).toBe(x.ok);
@@ -114,40 +130,54 @@ describe('what other programs see', () => {
       const ws = wb.getWorksheet(s.name)!;
       const cells: (string | number | boolean | null)[][] = [];
       s.cells.forEach((row, r) => {
-        cells.push(row.map((_, c) => {
-          const cell = ws.getCell(r + 1, c + 1);
-          if (cell.formula) {
-            formulas++;
-            for (const n of names) expect(cell.formula.toUpperCase()).not.toMatch(new RegExp(`(^|[^A-Z.])${n.replace(/\./g, '\\.')}\\(`));
-            const cached = readCell(app, s.name, r, c);
-            const result = cell.result as unknown;
-            if (cached.ok) expect(result).toBe(cached.value);
-            else expect(result).toEqual({ error: cached.error });
-            return '=' + cell.formula.replace(/_xlfn\./g, '');
-          }
-          const v = cell.value as string | number | boolean | null | { error: string };
-          return v !== null && typeof v === 'object' ? v.error : v;
-        }));
+        cells.push(
+          row.map((_, c) => {
+            const cell = ws.getCell(r + 1, c + 1);
+            if (cell.formula) {
+              formulas++;
+              for (const n of names)
+                expect(cell.formula.toUpperCase()).not.toMatch(
+                  new RegExp(`(^|[^A-Z.])${n.replace(/\./g, '\\.')}\\(`),
+                );
+              const cached = readCell(app, s.name, r, c);
+              const result = cell.result as unknown;
+              if (cached.ok) expect(result).toBe(cached.value);
+              else expect(result).toEqual({ error: cached.error });
+              return '=' + cell.formula.replace(/_xlfn\./g, '');
+            }
+            const v = cell.value as string | number | boolean | null | { error: string };
+            return v !== null && typeof v === 'object' ? v.error : v;
+          }),
+        );
       });
       plainSheets.push({ name: s.name, cells });
     }
     expect(formulas).toBe(17);
     const plain = createPlainEngine(plainSheets);
-    doc.sheets.forEach((s) => s.cells.forEach((row, r) => row.forEach((content, c) => {
-      if (typeof content !== 'string' || !content.startsWith('=')) return;
-      const x = readCell(app, s.name, r, c);
-      const y = readCell(plain, s.name, r, c);
-      expect({ at: `${s.name}!${r},${c}`, ok: y.ok }).toEqual({ at: `${s.name}!${r},${c}`, ok: x.ok });
-      if (x.ok && y.ok && typeof x.value === 'number') expect(Math.abs((y.value as number) - x.value)).toBeLessThanOrEqual(1e-12 * Math.max(1, Math.abs(x.value)));
-      if (!x.ok && !y.ok) expect(y.error).toBe(fileError(x.error));
-    })));
+    doc.sheets.forEach((s) =>
+      s.cells.forEach((row, r) =>
+        row.forEach((content, c) => {
+          if (typeof content !== 'string' || !content.startsWith('=')) return;
+          const x = readCell(app, s.name, r, c);
+          const y = readCell(plain, s.name, r, c);
+          expect({ at: `${s.name}!${r},${c}`, ok: y.ok }).toEqual({ at: `${s.name}!${r},${c}`, ok: x.ok });
+          if (x.ok && y.ok && typeof x.value === 'number')
+            expect(Math.abs((y.value as number) - x.value)).toBeLessThanOrEqual(
+              1e-12 * Math.max(1, Math.abs(x.value)),
+            );
+          if (!x.ok && !y.ok) expect(y.error).toBe(fileError(x.error));
+        }),
+      ),
+    );
   });
 
   it('writes the value of a formula it cannot read, and says where', async () => {
     const r = await exportWorkbookXlsxWithReport(sampleDoc(), { date: DATE });
     expect(r.issues).toHaveLength(1);
     expect(r.issues[0]?.where).toBe('Motors!H3');
-    expect(r.issues[0]?.message).toMatch(/cannot be written for other programs .*its value is written instead/);
+    expect(r.issues[0]?.message).toMatch(
+      /cannot be written for other programs .*its value is written instead/,
+    );
     expect((await load(r.bytes)).getWorksheet('Motors')!.getCell('H3').value).toEqual({ error: '#VALUE!' });
   });
 
@@ -174,13 +204,50 @@ describe('what other programs see', () => {
   });
 
   it('has a cover with site, date, cautions, licence and notes, and a functions sheet with sources', async () => {
-    const wb = await load(await exportWorkbookXlsx(sampleDoc(), { date: DATE, settings: { name: 'Invented test works', hz: 60, cases: ['day', 'night'], requirement: { kind: 'cosphi', target: 0.95 } } }));
+    const wb = await load(
+      await exportWorkbookXlsx(sampleDoc(), {
+        date: DATE,
+        settings: {
+          name: 'Invented test works',
+          hz: 60,
+          cases: ['day', 'night'],
+          requirement: { kind: 'cosphi', target: 0.95 },
+        },
+      }),
+    );
     expect(wb.worksheets[0]!.name).toBe('Cover');
-    const cover = wb.worksheets[0]!.getSheetValues().flat().filter((v) => typeof v === 'string').join('\n');
-    for (const s of ['Invented test works', '2026-03-04', '60 Hz', 'day, night', 'cos φ at least 0.95', 'hurt people', 'licensed engineer', 'local codes', 'utility', 'GPL-3.0', 'IFNA']) expect(cover).toContain(s);
+    const cover = wb.worksheets[0]!.getSheetValues()
+      .flat()
+      .filter((v) => typeof v === 'string')
+      .join('\n');
+    for (const s of [
+      'Invented test works',
+      '2026-03-04',
+      '60 Hz',
+      'day, night',
+      'cos φ at least 0.95',
+      'hurt people',
+      'licensed engineer',
+      'local codes',
+      'utility',
+      'GPL-3.0',
+      'IFNA',
+    ])
+      expect(cover).toContain(s);
     const fn = wb.getWorksheet('Functions used')!;
-    const rows = fn.getSheetValues().slice(2).map((r) => (r as unknown[]).slice(1) as string[]);
-    expect(rows.map((r) => r[0]!.split('(')[0])).toEqual(['COSPHI', 'TANPHI', 'KVAR.LOAD', 'KW.MOTOR', 'KVAR.MOTOR', 'KVAR.TOPF', 'BANK.ROUNDUP']);
+    const rows = fn
+      .getSheetValues()
+      .slice(2)
+      .map((r) => (r as unknown[]).slice(1) as string[]);
+    expect(rows.map((r) => r[0]!.split('(')[0])).toEqual([
+      'COSPHI',
+      'TANPHI',
+      'KVAR.LOAD',
+      'KW.MOTOR',
+      'KVAR.MOTOR',
+      'KVAR.TOPF',
+      'BANK.ROUNDUP',
+    ]);
     for (const r of rows) {
       expect(r[4]).toMatch(/^=/);
       expect(r[5]!.length).toBeGreaterThan(5);
@@ -199,13 +266,34 @@ describe('export refusals', () => {
   });
 
   it('writes a value (and says so) instead of a function other programs lack; strict mode refuses', async () => {
-    const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 't', sheets: [{ name: 'S', cells: [['a', 'b'], ['=COUNTUNIQUE(A1:B1)', '=KVA.TOTAL(3,4)']] }] };
+    const doc: WorkbookDoc = {
+      format: 'kvar-ledger-workbook',
+      version: 1,
+      title: 't',
+      sheets: [
+        {
+          name: 'S',
+          cells: [
+            ['a', 'b'],
+            ['=COUNTUNIQUE(A1:B1)', '=KVA.TOTAL(3,4)'],
+          ],
+        },
+      ],
+    };
     const r = await exportWorkbookXlsxWithReport(doc);
-    expect(r.issues).toEqual([{ where: 'S!A2', message: 'the formula uses COUNTUNIQUE, which other spreadsheet programs do not have; its value is written instead' }]);
+    expect(r.issues).toEqual([
+      {
+        where: 'S!A2',
+        message:
+          'the formula uses COUNTUNIQUE, which other spreadsheet programs do not have; its value is written instead',
+      },
+    ]);
     const ws = (await load(r.bytes)).getWorksheet('S')!;
     expect(ws.getCell('A2').value).toBe(2);
     expect(ws.getCell('B2').formula).toMatch(/^SQRT\(POWER\(3,2\)\+POWER\(4,2\)\)$/);
-    await expect(exportWorkbookXlsx(doc, { strict: true })).rejects.toThrow(/S!A2: the formula uses COUNTUNIQUE/);
+    await expect(exportWorkbookXlsx(doc, { strict: true })).rejects.toThrow(
+      /S!A2: the formula uses COUNTUNIQUE/,
+    );
   });
 });
 
@@ -225,15 +313,34 @@ describe('cover of a builder workbook without settings given', () => {
 
 describe('sheet names the export also uses', () => {
   it('keep their own sheets; the added ones step aside and are dropped again on import', async () => {
-    const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 't', sheets: [{ name: 'Cover', cells: [['mine', 1]] }, { name: 'functions USED', cells: [['=KVA.TOTAL(3,4)']] }] };
+    const doc: WorkbookDoc = {
+      format: 'kvar-ledger-workbook',
+      version: 1,
+      title: 't',
+      sheets: [
+        { name: 'Cover', cells: [['mine', 1]] },
+        { name: 'functions USED', cells: [['=KVA.TOTAL(3,4)']] },
+      ],
+    };
     const bytes = await exportWorkbookXlsx(doc, { date: DATE });
-    expect((await load(bytes)).worksheets.map((w) => w.name)).toEqual(['Cover (2)', 'Cover', 'functions USED', 'Functions used (2)', META_SHEET_NAME]);
+    expect((await load(bytes)).worksheets.map((w) => w.name)).toEqual([
+      'Cover (2)',
+      'Cover',
+      'functions USED',
+      'Functions used (2)',
+      META_SHEET_NAME,
+    ]);
     expect(await restored(bytes)).toEqual(doc);
   });
 });
 
 describe('where cached results come from', () => {
-  const doc: WorkbookDoc = { format: 'kvar-ledger-workbook', version: 1, title: 't', sheets: [{ name: 'S', cells: [[3, 4, '=KVA.TOTAL(A1,B1)']] }] };
+  const doc: WorkbookDoc = {
+    format: 'kvar-ledger-workbook',
+    version: 1,
+    title: 't',
+    sheets: [{ name: 'S', cells: [[3, 4, '=KVA.TOTAL(A1,B1)']] }],
+  };
   const cached = async (bytes: Uint8Array) => (await load(bytes)).getWorksheet('S')!.getCell('C1').result;
 
   it('by default from an engine over the document', async () => {
@@ -241,7 +348,9 @@ describe('where cached results come from', () => {
   });
 
   it('from the caller’s engine when given (no engine is built)', async () => {
-    const r = await exportWorkbookXlsx(doc, { valueAt: (s, row, col) => (s === 'S' && row === 0 && col === 2 ? { ok: true, value: 5.5 } : undefined) });
+    const r = await exportWorkbookXlsx(doc, {
+      valueAt: (s, row, col) => (s === 'S' && row === 0 && col === 2 ? { ok: true, value: 5.5 } : undefined),
+    });
     expect(await cached(r)).toBe(5.5);
   });
 

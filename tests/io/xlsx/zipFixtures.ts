@@ -58,8 +58,10 @@ export function makeZip(entries: readonly FixtureEntry[]): Uint8Array {
   return new Uint8Array(Buffer.concat([...locals, dir, end]));
 }
 
-const CONTENT_TYPES = '<?xml version="1.0" encoding="UTF-8"?><Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"/>';
-const WORKBOOK = '<?xml version="1.0" encoding="UTF-8"?><workbook xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><sheets><sheet name="S" sheetId="1"/></sheets></workbook>';
+const CONTENT_TYPES =
+  '<?xml version="1.0" encoding="UTF-8"?><Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"/>';
+const WORKBOOK =
+  '<?xml version="1.0" encoding="UTF-8"?><workbook xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><sheets><sheet name="S" sheetId="1"/></sheets></workbook>';
 
 /** The minimum entries that make the gate call a zip an xlsx, plus the given worksheet XML. */
 export function xlsxShell(sheetXml: string | Uint8Array, sheetOpts: Partial<FixtureEntry> = {}): Uint8Array {
@@ -72,7 +74,9 @@ export function xlsxShell(sheetXml: string | Uint8Array, sheetOpts: Partial<Fixt
 
 /** Worksheet XML with `rows` rows of one number each. */
 export function sheetXmlWithRows(rows: number): string {
-  const parts: string[] = ['<?xml version="1.0" encoding="UTF-8"?><worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><sheetData>'];
+  const parts: string[] = [
+    '<?xml version="1.0" encoding="UTF-8"?><worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><sheetData>',
+  ];
   for (let r = 1; r <= rows; r++) parts.push(`<row r="${r}"><c r="A${r}"><v>${r}</v></c></row>`);
   parts.push('</sheetData></worksheet>');
   return parts.join('');
