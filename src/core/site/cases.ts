@@ -17,7 +17,8 @@
 // - `running` (default `qty`) units are in service in every case; element P and Q are per
 //   unit times running. Transformers or lines with running n share their to_bus equally
 //   (n identical units in parallel), so losses are n·loss(S/n).
-import type { EquipmentKind, EquipmentRow } from './model.ts';
+import { findKind } from '../kinds/index.ts';
+import type { EquipmentRow } from './model.ts';
 
 export interface LoadFactor {
   readonly value: number;
@@ -39,21 +40,14 @@ export function unitsRunning(row: EquipmentRow): number {
   return row.values.running ?? row.values.qty ?? 1;
 }
 
-/** Allowed load factors per kind: [lo, hi] inclusive; undefined = not used. */
-export const LOAD_RANGE: Readonly<Record<EquipmentKind, readonly [number, number] | undefined>> = {
-  motor: [0, 1.5], // KW.MOTOR / KVAR.MOTOR domain
-  load: [0, 1.5],
-  generator: [0, 1.5],
-  capacitor: [0, 1],
-  reactor: [0, 1],
-  cable: [0, 1],
-  transformer: undefined,
-  line: undefined,
-};
+/** Allowed load factors of a kind: [lo, hi] inclusive; undefined = not used (branches, unknown kinds). */
+export function loadRange(kind: string): readonly [number, number] | undefined {
+  return findKind(kind)?.load?.range;
+}
 
 /** Is the item switched on in this case? */
 export function inService(row: EquipmentRow, caseName: string): boolean {
-  if (LOAD_RANGE[row.kind] === undefined) return true;
+  if (loadRange(row.kind) === undefined) return true;
   return loadFactor(row, caseName).value !== 0;
 }
 

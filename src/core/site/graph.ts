@@ -2,6 +2,7 @@
 // the branches from their `bus` (upstream) to their `to_bus` (downstream). A valid site is a
 // tree: every bus is fed by at most one branch, there are no loops, and exactly one bus is fed
 // by nothing: the root, which is the point of connection to the utility.
+import { isBranchKind } from '../kinds/index.ts';
 import type { EquipmentRow } from './model.ts';
 import { error, type Problem } from './problems.ts';
 
@@ -23,7 +24,7 @@ export interface BusGraph {
 }
 
 export function isBranch(row: EquipmentRow): boolean {
-  return (row.kind === 'transformer' || row.kind === 'line') && row.to_bus !== undefined && row.to_bus !== '';
+  return isBranchKind(row.kind) && row.to_bus !== undefined && row.to_bus !== '';
 }
 
 export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
@@ -41,7 +42,7 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
   const branches = new Map<string, EquipmentRow[]>();
   const items = new Map<string, EquipmentRow[]>();
   for (const r of equipment) {
-    if (r.kind === 'transformer' || r.kind === 'line' || r.bus === '') continue;
+    if (isBranchKind(r.kind) || r.bus === '') continue;
     const list = items.get(r.bus) ?? [];
     list.push(r);
     items.set(r.bus, list);

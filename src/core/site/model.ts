@@ -1,44 +1,23 @@
 // The site as an estimator describes it: settings plus an equipment list in the interchange
-// columns of the design (one row per item). Pure data; parsing, validation and roll-up live
-// beside this file.
+// columns (one row per item). Pure data; parsing, validation and roll-up live beside this file.
+// Which kinds exist and which columns each needs is the kind registry's (src/core/kinds).
+import { COLUMN_SPECS, kindNames } from '../kinds/index.ts';
 
-export const EQUIPMENT_KINDS = [
-  'motor',
-  'load',
-  'generator',
-  'transformer',
-  'cable',
-  'line',
-  'capacitor',
-  'reactor',
-] as const;
-export type EquipmentKind = (typeof EQUIPMENT_KINDS)[number];
+/** A kind's name as registered (motor, load, transformer ...); unknown names are refused when read. */
+export type EquipmentKind = string;
+
+/** The built-in kind names, in sheet order (the registry may hold more). */
+export const EQUIPMENT_KINDS: readonly string[] = kindNames();
 
 /** Numeric interchange columns (blank = not given). */
-export const NUMERIC_COLUMNS = [
-  'qty',
-  'running',
-  'p_kw',
-  'eff',
-  'cos_phi',
-  'load',
-  'i0_pct',
-  's_kva',
-  'uk_pct',
-  'p0_kw',
-  'pk_kw',
-  'u_kv',
-  'c_uf_km',
-  'len_km',
-  'l_mh_km',
-  'c_nf_km',
-  'q_kvar',
-  'u_rated_kv',
-  'p_pct',
-] as const;
-export type NumericColumn = (typeof NUMERIC_COLUMNS)[number];
-export const TEXT_COLUMNS = ['tag', 'description', 'bus', 'kind', 'to_bus'] as const;
-export type TextColumn = (typeof TEXT_COLUMNS)[number];
+export const NUMERIC_COLUMNS: readonly string[] = COLUMN_SPECS.filter((c) => c.type === 'number').map(
+  (c) => c.key,
+);
+export type NumericColumn = string;
+export const TEXT_COLUMNS: readonly string[] = COLUMN_SPECS.filter((c) => c.type === 'text').map(
+  (c) => c.key,
+);
+export type TextColumn = string;
 
 /** One equipment row. `loads` holds the `load:<case>` columns by case name. */
 export interface EquipmentRow {
@@ -49,7 +28,7 @@ export interface EquipmentRow {
   readonly bus: string;
   readonly kind: EquipmentKind;
   readonly to_bus?: string;
-  readonly values: Partial<Record<NumericColumn, number>>;
+  readonly values: Readonly<Partial<Record<NumericColumn, number>>>;
   readonly loads: Readonly<Record<string, number>>;
 }
 

@@ -1,8 +1,8 @@
 // From a table of text (a CSV, the first sheet of an xlsx, or the site file's rows) to
 // equipment rows in the interchange columns of the design. This step only reads: header names,
 // numbers, kinds. Whether the values make sense is validate.ts's job.
+import { kindNames } from '../kinds/index.ts';
 import {
-  EQUIPMENT_KINDS,
   NUMERIC_COLUMNS,
   TEXT_COLUMNS,
   type EquipmentKind,
@@ -204,11 +204,11 @@ function readRow(
   const kind = kindText.toLowerCase() as EquipmentKind;
   const where = { row: rowNo, column: 'kind', ...(text.tag ? { tag: text.tag } : {}) };
   if (kindText === '') {
-    problems.push(error(where, `kind is blank; it must be one of ${EQUIPMENT_KINDS.join(', ')}`));
+    problems.push(error(where, `kind is blank; it must be one of ${kindNames().join(', ')}`));
     return undefined;
   }
-  if (!EQUIPMENT_KINDS.includes(kind)) {
-    problems.push(error(where, say.unknownKind(kindText, EQUIPMENT_KINDS)));
+  if (!kindNames().includes(kind)) {
+    problems.push(error(where, say.unknownKind(kindText, kindNames())));
     return undefined;
   }
   return {

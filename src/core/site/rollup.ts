@@ -4,8 +4,9 @@
 // bottom up: a transformer or line adds the total of the bus it feeds plus its own losses at
 // that loading into its upstream bus, level by level to the root, the point of connection.
 import type { EquipmentKind, EquipmentRow, Site } from './model.ts';
-import { runCall, shuntPlans, transformerPlans, linePlans, type CallPlan } from './calls.ts';
-import { inService, loadFactor, resolveCase, unitsRunning } from './cases.ts';
+import { findKind } from '../kinds/index.ts';
+import { branchPower, shuntPower } from './rowPower.ts';
+import { loadFactor, resolveCase, unitsRunning } from './cases.ts';
 import { buildBusGraph, type BusGraph } from './graph.ts';
 import { error, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
@@ -85,14 +86,6 @@ const add = (s: Sum, p: number, q: number) => {
   else s.del -= q;
 };
 
-function evalOr0(plan: CallPlan | undefined, errors: string[]): number {
-  if (!plan) return 0;
-  const r = runCall(plan);
-  if (r.ok) return r.value;
-  errors.push(r.message);
-  return 0;
-}
-
 /** One element's balance; fields in the order the JSON output shows them. */
 function shuntResult(
   row: EquipmentRow,
@@ -118,49 +111,32 @@ function shuntResult(
 }
 
 function shuntElement(row: EquipmentRow, caseName: string, hz: number): ElementBalance {
+  const kind = findKind(row.kind);
   const n = unitsRunning(row);
-  const lf = loadFactor(row, caseName);
-  if (!inService(row, caseName) || n === 0) return shuntResult(row, n, lf.value, 0, 0);
-  const errors: string[] = [];
-  const plans = shuntPlans(row, lf.value, lf.column, hz);
-  let p = plans.pProduct ? plans.pProduct.value : evalOr0(plans.p, errors);
-  let q = evalOr0(plans.q, errors);
-  if (row.kind === 'generator') p = -p;
-  // Capacitors and reactors: the load factor is the share of the nameplate in service.
-  if (row.kind === 'capacitor' || row.kind === 'reactor') q *= lf.value;
-  if (errors.length > 0 || !Number.isFinite(p))
-    return shuntResult(row, n, lf.value, 0, 0, errors.join('; ') || 'p_kw is missing');
-  return shuntResult(row, n, lf.value, p * n, q * n);
+  const lf = loadFactor(row, caseName).value;
+  if (!kind) return shuntResult(row, n, lf, 0, 0, `unknown kind "${row.kind}"`);
+  const r = shuntPower(row, kind, caseName, hz);
+  if (!r.ok) return shuntResult(row, n, lf, 0, 0, r.message);
+  return shuntResult(row, n, lf, r.p, r.q);
 }
 
 /** Losses of a transformer or line carrying the apparent power sKva of the bus it feeds. */
 function branchElement(row: EquipmentRow, sKva: number, hz: number): ElementBalance {
-  const n = Math.max(unitsRunning(row), 1);
-  const sUnit = sKva / n;
-  const errors: string[] = [];
-  const base = { row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, running: n, s_load_kva: sKva };
-  let p = 0;
-  let abs = 0;
-  let del = 0;
-  let loading: number | undefined;
-  if (row.kind === 'transformer') {
-    const t = transformerPlans(row, sUnit);
-    p = n * evalOr0(t.p, errors);
-    abs = n * (evalOr0(t.mag, errors) + evalOr0(t.leak, errors));
-    const rated = row.values.s_kva;
-    if (rated) loading = (100 * sUnit) / rated;
-  } else {
-    // A line: series absorption and charging shown apart (net = KVAR.LINE, charging = net at no load).
-    const l = linePlans(row, sUnit, hz);
-    const net = evalOr0(l.net, errors);
-    const charging = evalOr0(l.charging, errors);
-    abs = n * (net - charging);
-    del = -n * charging;
-  }
-  const out = { ...base, ...(loading !== undefined ? { loading_pct: loading } : {}) };
-  if (errors.length > 0)
-    return { ...out, p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0, error: errors.join('; ') };
-  return { ...out, p_kw: p, q_kvar: abs - del, q_absorbed_kvar: abs, q_delivered_kvar: del };
+  const kind = findKind(row.kind);
+  const base = { row: row.row, tag: row.tag, kind: row.kind, bus: row.bus, s_load_kva: sKva };
+  const zero = { p_kw: 0, q_kvar: 0, q_absorbed_kvar: 0, q_delivered_kvar: 0 };
+  if (!kind) return { ...base, running: unitsRunning(row), ...zero, error: `unknown kind "${row.kind}"` };
+  const r = branchPower(row, kind, sKva, hz);
+  if (!r.ok) return { ...base, running: Math.max(unitsRunning(row), 1), ...zero, error: r.message };
+  return {
+    ...base,
+    running: r.running,
+    ...(r.loadingPct !== undefined ? { loading_pct: r.loadingPct } : {}),
+    p_kw: r.p,
+    q_kvar: r.qAbsorbed - r.qDelivered,
+    q_absorbed_kvar: r.qAbsorbed,
+    q_delivered_kvar: r.qDelivered,
+  };
 }
 
 function busResult(bus: string, graph: BusGraph, u: number | undefined, total: Sum, own: Sum): BusBalance {
@@ -213,7 +189,7 @@ export function rollUp(site: Site, caseName: string): CaseBalance {
   const elements: ElementBalance[] = [];
   const problems: Problem[] = [];
   for (const row of site.equipment) {
-    if (row.kind === 'transformer' || row.kind === 'line') continue;
+    if (findKind(row.kind)?.role === 'branch') continue;
     const sum = own.get(row.bus);
     if (!sum) continue;
     const e = shuntElement(row, found, hz);

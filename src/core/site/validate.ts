@@ -1,17 +1,10 @@
 // Every rule a site must meet before it can be balanced. Each problem names the row and the
 // column, says what is wrong, and gives the allowed range and the value where there is one.
 // Bad rows are reported here and never dropped quietly: the roll-up refuses a site with errors.
-import { EQUIPMENT_KINDS, type EquipmentRow, type Site } from './model.ts';
-import {
-  BRANCH_KINDS,
-  REQUIRED_VALUES,
-  runCall,
-  shuntPlans,
-  transformerPlans,
-  linePlans,
-  type CallPlan,
-} from './calls.ts';
-import { LOAD_RANGE, loadFactor } from './cases.ts';
+import { findKind, kindNames, type KindSpec } from '../kinds/index.ts';
+import type { EquipmentRow, Site } from './model.ts';
+import { loadFactor } from './cases.ts';
+import { branchPower, shuntPower } from './rowPower.ts';
 import { buildBusGraph } from './graph.ts';
 import { error, info, say, warning, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
@@ -36,7 +29,7 @@ export function validateSite(site: Site): Problem[] {
       else firstByTag.set(row.tag, row);
     }
   }
-  const okRows = site.equipment.filter((r) => EQUIPMENT_KINDS.includes(r.kind) && r.bus !== '');
+  const okRows = site.equipment.filter((r) => findKind(r.kind) !== undefined && r.bus !== '');
   problems.push(...buildBusGraph(okRows).problems);
   problems.push(...busVoltages(okRows).problems);
   return dedupe(problems);
@@ -76,11 +69,12 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
   const at = (column: string) => ({ row: row.row, column, ...(row.tag ? { tag: row.tag } : {}) });
   if (row.tag === '') out.push(error(at('tag'), say.missingTag()));
   if (row.bus === '') out.push(error(at('bus'), say.missingBus()));
-  if (!EQUIPMENT_KINDS.includes(row.kind)) {
-    out.push(error(at('kind'), say.unknownKind(String(row.kind), EQUIPMENT_KINDS)));
+  const kind = findKind(row.kind);
+  if (!kind) {
+    out.push(error(at('kind'), say.unknownKind(String(row.kind), kindNames())));
     return out;
   }
-  const isBranch = BRANCH_KINDS.includes(row.kind);
+  const isBranch = kind.role === 'branch';
   if (isBranch && !row.to_bus)
     out.push(error(at('to_bus'), `to_bus is blank; a ${row.kind} must name the bus it feeds`));
   if (!isBranch && row.to_bus)
@@ -90,14 +84,13 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
         `to_bus is used only by transformers and lines; ignored for a ${row.kind} (use kind line for a feeder)`,
       ),
     );
-  out.push(...validateQuantity(row, at));
+  out.push(...validateQuantity(row, isBranch, at));
 
-  const missing = REQUIRED_VALUES[row.kind].filter((c) => row.values[c] === undefined);
+  const missing = kind.required.filter((c) => row.values[c] === undefined);
   for (const c of missing) out.push(error(at(c), say.missingValue(c, row.kind)));
   if (missing.length > 0) return out;
 
-  const range = LOAD_RANGE[row.kind];
-  if (!range) {
+  if (!kind.load) {
     const given = [row.values.load, ...Object.values(row.loads)].some((x) => x !== undefined && x !== 1);
     if (given)
       out.push(
@@ -107,14 +100,15 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
         ),
       );
   }
-  for (const plan of plansForValidation(row, site, out, at)) {
-    const r = runCall(plan);
-    if (!r.ok) out.push(error(at(r.column ?? plan.columns.find((c) => c) ?? 'kind'), r.message));
-  }
+  out.push(...physicsProblems(row, kind, site, at));
   return out;
 }
 
-function validateQuantity(row: EquipmentRow, at: (c: string) => { row: number; column: string }): Problem[] {
+function validateQuantity(
+  row: EquipmentRow,
+  isBranch: boolean,
+  at: (c: string) => { row: number; column: string },
+): Problem[] {
   const out: Problem[] = [];
   const { qty, running } = row.values;
   const whole = (x: number) => Number.isInteger(x) && x >= 0;
@@ -127,7 +121,7 @@ function validateQuantity(row: EquipmentRow, at: (c: string) => { row: number; c
       error(at('running'), `running (${formatNumber(running)}) must not exceed qty (${formatNumber(qty)})`),
     );
   }
-  if (BRANCH_KINDS.includes(row.kind) && (running ?? qty ?? 1) === 0) {
+  if (isBranch && (running ?? qty ?? 1) === 0) {
     out.push(
       error(
         at(running !== undefined ? 'running' : 'qty'),
@@ -138,21 +132,30 @@ function validateQuantity(row: EquipmentRow, at: (c: string) => { row: number; c
   return out;
 }
 
-/** Calls to try for each case's load factor, after checking the load factor's own range. */
-function plansForValidation(
+/**
+ * The kind's own physics evaluated the way the roll-up will: at no load and full rating for a
+ * branch, and at every case's load factor (once each) for a shunt item, after checking the load
+ * factor's own range. The catalogue's message names the argument; it is reported on its column.
+ */
+function physicsProblems(
   row: EquipmentRow,
+  kind: KindSpec,
   site: Site,
-  out: Problem[],
   at: (c: string) => { row: number; column: string },
-): CallPlan[] {
+): Problem[] {
+  const out: Problem[] = [];
   const hz = site.settings.hz;
-  if (row.kind === 'transformer') {
-    const p = transformerPlans(row, row.values.s_kva ?? 0);
-    return [p.p, p.mag, p.leak];
+  const report = (r: { message: string; column: string | undefined }) =>
+    out.push(error(at(r.column ?? kind.required[0] ?? 'kind'), r.message));
+  if (kind.role === 'branch') {
+    const rating = kind.branch?.rating ? (row.values[kind.branch.rating] ?? 0) : 0;
+    for (const s of new Set([0, rating])) {
+      const r = branchPower(row, kind, s, hz);
+      if (!r.ok) return (report(r), out);
+    }
+    return out;
   }
-  if (row.kind === 'line') return [linePlans(row, 0, hz).net];
-  const range = LOAD_RANGE[row.kind] as readonly [number, number];
-  const plans: CallPlan[] = [];
+  const range = kind.load?.range ?? [0, 1];
   const tried = new Set<number>();
   for (const c of site.settings.cases) {
     const lf = loadFactor(row, c);
@@ -167,11 +170,16 @@ function plansForValidation(
     }
     if (tried.has(lf.value)) continue;
     tried.add(lf.value);
-    const s = shuntPlans(row, lf.value, lf.column, hz);
-    if (s.p) plans.push(s.p);
-    if (s.q) plans.push(s.q);
+    // Off (load 0, nothing running) evaluates nothing: check the physics of one unit at full load then.
+    const probe: EquipmentRow = {
+      ...row,
+      values: { ...row.values, qty: 1, running: 1 },
+      loads: lf.value === 0 ? { ...row.loads, [c]: 1 } : row.loads,
+    };
+    const r = shuntPower(probe, kind, c, hz);
+    if (!r.ok) report(r);
   }
-  return plans;
+  return out;
 }
 
 /** One problem per (severity, row, column, message); repeated case checks say the same thing once. */

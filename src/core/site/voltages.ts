@@ -4,6 +4,7 @@
 // transformer u_kv is the voltage of the bus it feeds (its secondary). Rows that disagree by
 // more than VOLTAGE_MISMATCH are reported: a capacitor at 0.4 kV on an 11 kV bus is a typo or
 // a wrong bus.
+import { findKind } from '../kinds/index.ts';
 import type { EquipmentRow } from './model.ts';
 import { warning, type Problem } from './problems.ts';
 
@@ -28,8 +29,9 @@ function candidates(
   };
   for (const r of equipment) {
     const u = r.values.u_kv;
-    if (r.kind === 'transformer') add(r.to_bus, u, r.row, 2);
-    else if (r.kind === 'line') {
+    const at = findKind(r.kind)?.voltageAt ?? 'bus';
+    if (at === 'to_bus') add(r.to_bus, u, r.row, 2);
+    else if (at === 'both') {
       add(r.bus, u, r.row, 1);
       add(r.to_bus, u, r.row, 1);
     } else add(r.bus, u, r.row, 0);

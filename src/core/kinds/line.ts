@@ -1,0 +1,21 @@
+import { HZ, S_UNIT, call, col, neg, num, sub } from './expr.ts';
+import { defineKind } from './spec.ts';
+import { LINES_SHEET } from './sheets.ts';
+
+const net = (s: typeof S_UNIT) =>
+  call('KVAR.LINE', col('u_kv'), s, col('l_mh_km'), col('c_nf_km'), col('len_km'), HZ);
+
+export const LINE = defineKind({
+  name: 'line',
+  sheet: LINES_SHEET,
+  role: 'branch',
+  required: ['u_kv', 'l_mh_km', 'c_nf_km', 'len_km'],
+  voltageAt: 'both',
+  branch: {
+    // Series absorption = the net kvar at this loading + the charging it offsets.
+    qAbsorbed: sub(net(S_UNIT), net(num(0))),
+    qDelivered: neg(net(num(0))),
+  },
+  traits: { charging: true },
+  summary: 'series absorption 3·I²·X at the loading of the bus it feeds, and charging ω·C·U² (KVAR.LINE)',
+});

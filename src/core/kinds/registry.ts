@@ -1,0 +1,54 @@
+// The list of equipment kinds: the only place that knows which kinds exist. Validation, the
+// roll-up, the workbook and the export ask it; a kind it does not know is an error, never 0.
+import type { KindSpec, SheetSpec } from './spec.ts';
+
+const kinds: KindSpec[] = [];
+
+/** Add a kind (the built-ins are added by index.ts; a test may add a throwaway kind). */
+export function registerKind(spec: KindSpec): void {
+  if (kinds.some((k) => k.name === spec.name)) throw new Error(`kind ${spec.name} is registered twice`);
+  const other = kinds.find((k) => k.sheet.name === spec.sheet.name && k.sheet !== spec.sheet);
+  if (other)
+    throw new Error(`kind ${spec.name}: sheet "${spec.sheet.name}" is already defined by kind ${other.name}`);
+  kinds.push(spec);
+}
+
+/** Every kind, in registration order. */
+export function allKinds(): readonly KindSpec[] {
+  return kinds;
+}
+
+export function kindNames(): readonly string[] {
+  return kinds.map((k) => k.name);
+}
+
+/** The kind named (as typed, ignoring case), or undefined. */
+export function findKind(name: string): KindSpec | undefined {
+  const n = name.trim().toLowerCase();
+  return kinds.find((k) => k.name === n);
+}
+
+/** The kind named; throws when unknown (callers that handle user input use findKind). */
+export function kindOf(name: string): KindSpec {
+  const k = findKind(name);
+  if (!k) throw new Error(`unknown equipment kind "${name}"; known: ${kindNames().join(', ')}`);
+  return k;
+}
+
+/** The equipment sheets in order of their first kind, each with its kinds. */
+export function equipmentSheets(): ReadonlyArray<{
+  readonly sheet: SheetSpec;
+  readonly kinds: readonly KindSpec[];
+}> {
+  const out: Array<{ sheet: SheetSpec; kinds: KindSpec[] }> = [];
+  for (const k of kinds) {
+    const s = out.find((x) => x.sheet === k.sheet);
+    if (s) s.kinds.push(k);
+    else out.push({ sheet: k.sheet, kinds: [k] });
+  }
+  return out;
+}
+
+export function isBranchKind(name: string): boolean {
+  return findKind(name)?.role === 'branch';
+}
