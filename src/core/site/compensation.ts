@@ -16,7 +16,10 @@
 //    only in the cases that need it.
 import type { EquipmentRow, Site } from './model.ts';
 import { buildBusGraph } from './graph.ts';
-import { rollUp, type BusBalance, type CaseBalance, type ElementBalance } from './rollup.ts';
+import { rollUp, SiteStructureError, type BusBalance, type CaseBalance } from './rollup.ts';
+import { findKind } from '../kinds/index.ts';
+import type { BankChoice } from './bankChoice.ts';
+import { compensate, type CaseCompensation } from './compensate.ts';
 import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { busVoltages } from './voltages.ts';
@@ -99,11 +102,6 @@ const point = (b: BusBalance): PowerPoint => ({
   tan_phi: b.tan_phi,
   sense: b.sense,
 });
-const withRows = (site: Site, rows: readonly EquipmentRow[]): Site => ({
-  settings: site.settings,
-  equipment: [...site.equipment, ...rows],
-});
-const rollAll = (site: Site) => site.settings.cases.map((c) => rollUp(site, c));
 
 function uniqueTag(base: string, taken: Set<string>): string {
   let tag = base;
@@ -220,7 +218,8 @@ export function designCompensation(
         nextRow += rows.length;
         capRows.push(...rows);
       }
-      afterCaps = rollAll(withRows(site, capRows));
+      const result = compensate(site, choicesFromDesign(banks, []), before);
+      afterCaps = result.map((r) => r.after);
       const short = afterCaps.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
       if (short.every((s) => s <= TOL_KVAR)) break;
       short.forEach((s, i) => (extra[i] = (extra[i] as number) + s));
@@ -268,8 +267,9 @@ export function designCompensation(
       const want = [...leadNeed];
       let q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
       for (let pass = 1; pass < MAX_PASSES; pass++) {
-        const short = rollAll(withRows(site, [...capRows, ...rowFor(q)])).map(
-          (b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar,
+        const trial: ReactorDesign = { bus, u_kv: u, q_kvar: q, in_service: inService, why: '' };
+        const short = compensate(site, choicesFromDesign(banks, [trial]), before).map(
+          (r) => kvarNeeded(r.after.root.p_kw, r.after.root.q_kvar, req).inductive_kvar,
         );
         if (short.every((x, i) => x <= TOL_KVAR || !inService[cases[i] as string])) break;
         short.forEach((x, i) => (want[i] = (want[i] as number) + (inService[cases[i] as string] ? x : 0)));
@@ -301,26 +301,39 @@ export function designCompensation(
   }
 
   const proposedRows = [...capRows, ...reactorRows];
-  const after = reactorRows.length === 0 ? afterCaps : rollAll(withRows(site, proposedRows));
-  const outcomes: CaseOutcome[] = before.map((b, i) => {
-    const a = after[i] as CaseBalance;
+  // The outcome by the one rule for after compensation (compensate.ts): what the workbook shows.
+  const result = compensate(site, choicesFromDesign(banks, reactors), before);
+  const after = result.map((r) => r.after);
+  banks = banks.map((b) => ({
+    ...b,
+    steps_in: Object.fromEntries(result.map((r) => [r.case, r.banks.find((x) => x.bus === b.bus)?.steps_in ?? 0])),
+  }));
+  const finalReactors = reactors.map((x) => ({
+    ...x,
+    in_service: Object.fromEntries(
+      result.map((r) => [r.case, (r.banks.find((y) => y.bus === x.bus)?.reactor_kvar ?? 0) > 0]),
+    ),
+  }));
+  const outcomes: CaseOutcome[] = result.map((r) => {
+    const b = r.before;
+    const a = r.after;
     return {
       case: b.case,
       before: point(b.root),
       after: point(a.root),
-      need: kvarNeeded(b.root.p_kw, b.root.q_kvar, req),
+      need: r.need,
       met_before: meets(b.root.p_kw, b.root.q_kvar, req, TOL_KVAR),
-      met_after: meets(a.root.p_kw, a.root.q_kvar, req, TOL_KVAR),
+      met_after: r.within_after,
     };
   });
-  warnings.push(...afterChecks(outcomes, after, req, proposedRows));
+  warnings.push(...afterChecks(outcomes, result, req));
   return {
     requirement: band.text,
     lag_tan: band.lagTan,
     lead_tan: band.leadTan,
     needs,
     banks,
-    reactors,
+    reactors: finalReactors,
     cases: outcomes,
     proposedRows,
     after,
@@ -371,13 +384,13 @@ function chargingBus(
 
 function afterChecks(
   outcomes: readonly CaseOutcome[],
-  after: readonly CaseBalance[],
+  result: readonly CaseCompensation[],
   req: Site['settings']['requirement'],
-  proposed: readonly EquipmentRow[],
 ): DesignWarning[] {
   const out: DesignWarning[] = [];
   outcomes.forEach((o, i) => {
-    const bal = after[i] as CaseBalance;
+    const r = result[i] as CaseCompensation;
+    const bal = r.after;
     if (!o.met_after) {
       const n = kvarNeeded(o.after.p_kw, o.after.q_kvar, req);
       const what =
@@ -389,30 +402,75 @@ function afterChecks(
           'warning',
           'requirement-not-met',
           { bus: bal.root.bus, case: o.case },
-          `after the proposal the point of connection is at cos φ ${o.after.cos_phi?.toFixed(3) ?? '–'} ${o.after.sense} (${what}); review the steps or add compensation`,
+          `after compensation the point of connection is at cos φ ${o.after.cos_phi?.toFixed(3) ?? '–'} ${o.after.sense} (${what}); review the steps or add compensation`,
         ),
       );
     }
     const leadingTooFar = kvarNeeded(o.after.p_kw, o.after.q_kvar, req).inductive_kvar > TOL_KVAR;
-    const capsByBus = new Map<string, ElementBalance[]>();
-    for (const e of bal.elements) {
-      if (e.kind !== 'capacitor' || !(e.q_delivered_kvar > 0)) continue;
-      capsByBus.set(e.bus, [...(capsByBus.get(e.bus) ?? []), e]);
+    const installed = new Map<string, string[]>();
+    for (const e of r.before.elements) {
+      if (!findKind(e.kind)?.traits?.capacitor || !(e.q_delivered_kvar > 0)) continue;
+      installed.set(e.bus, [...(installed.get(e.bus) ?? []), e.tag]);
     }
-    const proposedTags = new Set(proposed.map((r) => r.tag));
     for (const b of bal.buses) {
-      const caps = capsByBus.get(b.bus) ?? [];
-      if (caps.length === 0 || b.own_q_kvar >= 0) continue;
-      const fromProposal = caps.some((e) => proposedTags.has(e.tag));
+      const bank = r.banks.find((x) => x.bus === b.bus && x.output_kvar > 0);
+      const tags = installed.get(b.bus) ?? [];
+      if ((tags.length === 0 && !bank) || b.own_q_kvar >= 0) continue;
+      const what = [
+        ...(bank ? [`the bank's ${bank.output_kvar.toFixed(1)} kvar`] : []),
+        ...(tags.length > 0 ? [`installed capacitors ${tags.join(', ')}`] : []),
+      ].join(' and ');
       out.push(
         designWarning(
           leadingTooFar ? 'warning' : 'info',
           'overcompensation',
           { bus: b.bus, case: o.case },
-          `bus ${b.bus} is overcompensated: its own items deliver ${(-b.own_q_kvar).toFixed(1)} kvar with capacitors ${caps.map((e) => e.tag).join(', ')} in service${fromProposal ? '' : ' (installed)'}; switch capacitors out at light load`,
+          `bus ${b.bus} is overcompensated: its own items deliver ${(-b.own_q_kvar).toFixed(1)} kvar with ${what} in service; switch capacitors out at light load`,
         ),
       );
     }
   });
   return out;
+}
+
+/** The design as the Compensation sheet's inputs: one choice per bus with a bank or reactor. */
+export function choicesFromDesign(
+  banks: readonly BankDesign[],
+  reactors: readonly Pick<ReactorDesign, 'bus' | 'q_kvar' | 'why'>[],
+): BankChoice[] {
+  const byBus = new Map<string, { -readonly [K in keyof BankChoice]: BankChoice[K] }>();
+  const get = (bus: string) => {
+    let c = byBus.get(bus);
+    if (!c) byBus.set(bus, (c = { bus }));
+    return c;
+  };
+  for (const b of banks) {
+    const c = get(b.bus);
+    if (b.fixed_kvar > 0) c.fixed_kvar = b.fixed_kvar;
+    if (b.steps > 0) {
+      c.step_kvar = b.step_kvar;
+      c.steps = b.steps;
+    }
+    if (b.p_pct > 0) c.p_pct = b.p_pct;
+    c.u_rated_kv = b.u_rated_kv;
+    c.note = b.why;
+  }
+  for (const r of reactors) {
+    const c = get(r.bus);
+    c.reactor_kvar = r.q_kvar;
+    if (r.why) c.note = c.note ? `${c.note}; reactor: ${r.why}` : `reactor: ${r.why}`;
+  }
+  return [...byBus.values()];
+}
+
+/** The design's choices, or none when the site cannot be designed yet (e.g. it is not a tree). */
+export function proposeChoices(site: Site): BankChoice[] {
+  let design: CompensationDesign;
+  try {
+    design = designCompensation(site);
+  } catch (e) {
+    if (e instanceof SiteStructureError) return [];
+    throw e;
+  }
+  return choicesFromDesign(design.banks, design.reactors);
 }

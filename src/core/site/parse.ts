@@ -11,6 +11,7 @@ import {
   type TextColumn,
 } from './model.ts';
 import { error, say, warning, type Problem } from './problems.ts';
+import { unifyBusNames } from './busNames.ts';
 
 /** Name of the case driven by the plain `load` column when the source does not name it. */
 export const DEFAULT_CASE = 'normal';
@@ -160,7 +161,8 @@ export function parseEquipmentTable(
     const row = readRow(cells, roles, rowNo, opts.decimalComma ?? false, problems);
     if (row) equipment.push(row);
   });
-  return { equipment, problems, cases };
+  const unified = unifyBusNames(equipment);
+  return { equipment: unified.rows, problems: [...problems, ...unified.problems], cases };
 }
 
 function readRow(

@@ -67,6 +67,12 @@ export interface CaseBalance {
   readonly problems: readonly Problem[];
 }
 
+/** kvar added to a bus's own items that is not an equipment row: a bank's output switched in, a reactor. */
+export interface BusExtra {
+  readonly q_absorbed_kvar: number;
+  readonly q_delivered_kvar: number;
+}
+
 /** Thrown when the site cannot be balanced at all (no single root, a loop, an unknown case). */
 export class SiteStructureError extends Error {
   constructor(readonly problems: readonly Problem[]) {
@@ -162,7 +168,7 @@ function busResult(bus: string, graph: BusGraph, u: number | undefined, total: S
 }
 
 /** The balance of every bus in one case. Throws SiteStructureError when the site is not a tree or the case is unknown. */
-export function rollUp(site: Site, caseName: string): CaseBalance {
+export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string, BusExtra>): CaseBalance {
   const found = resolveCase(site.settings.cases, caseName);
   if (found === undefined) {
     throw new SiteStructureError([
@@ -197,6 +203,12 @@ export function rollUp(site: Site, caseName: string): CaseBalance {
     if (e.error) problems.push(error({ row: row.row, tag: row.tag }, e.error));
     add(sum, e.p_kw, e.q_absorbed_kvar);
     add(sum, 0, -e.q_delivered_kvar);
+  }
+  for (const [bus, x] of extra ?? []) {
+    const sum = own.get(bus);
+    if (!sum) continue;
+    add(sum, 0, x.q_absorbed_kvar);
+    add(sum, 0, -x.q_delivered_kvar);
   }
   // Bottom-up: children come after parents in graph.order, so walk it backwards.
   const results = new Map<string, BusBalance>();

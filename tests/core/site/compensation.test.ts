@@ -178,7 +178,7 @@ describe('designCompensation', () => {
     ]);
     const w = designCompensation(s).warnings.filter((x) => x.code === 'overcompensation');
     expect(w.map((x) => [x.case, x.bus])).toEqual([['night', 'LV']]);
-    expect(w[0]?.message).toContain('capacitors C1 in service (installed)');
+    expect(w[0]?.message).toContain('installed capacitors C1 in service');
   });
 
   it('warns when switching one step raises the voltage by more than 3 % (VRISE.PCT)', () => {
