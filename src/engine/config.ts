@@ -28,6 +28,10 @@ export const ENGINE_LANGUAGE = 'enGB';
  * stays at the engine default. (With smartRounding on, results near 1e-308 even came out as
  * NaN: the rounding multiplies by 10^(10 − exponent), which overflows.)
  *
+ * evaluateNullToZero: true. A formula that refers to an empty cell gives 0, as in every other
+ * spreadsheet program (the engine would give an empty value), so the page, the export's cached
+ * values and a program that recalculates them agree.
+ *
  * useArrayArithmetic: false. Catalogue functions take one value per argument and report a range
  * as a clear error; spilling arrays from ordinary formulas is not something the workbook uses.
  */
@@ -36,6 +40,7 @@ const SHARED: Partial<ConfigParams> = {
   language: ENGINE_LANGUAGE,
   smartRounding: false,
   useArrayArithmetic: false,
+  evaluateNullToZero: true,
 };
 
 /** Engine settings, with optional overrides for a caller that knows why it needs them. */

@@ -1,146 +1,82 @@
-// The bus roll-up in one pass: BUS.SUMS and BUS.SUMS.SPLIT add up value columns per bus name
-// for a list of buses and return the totals as an array that spills over the buses sheet.
+// The bus sums of the live workbook: BUS.SUM, BUS.SUM.ABS and BUS.SUM.DEL add up value columns
+// over the rows whose bus column names a given bus (ignoring case, like SUMIF).
 //
-//   BUS.SUMS(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])
-//     → one row per bus of `buses`, one column per column of the values: the sum of the
-//       values on the rows whose bus column names that bus (names compared ignoring case,
-//       like SUMIF; text and blank values count as nothing, like SUMIF).
-//   BUS.SUMS.SPLIT(...same arguments...)
-//     → two columns per value column: the sum of the positive values, then the size of the
-//       sum of the negative ones (absorbed and delivered kvar in the load convention, both
-//       shown as positive amounts, so value = first − second).
-// Unlike SUMIF, a row that names a bus outside the list is an error, not silently left out: in
-// the live workbook each bus sums the block of rows kept together for it, so a row whose bus
-// was changed shows up at once. An error value on a row shows in its bus's cell of that column.
+//   BUS.SUM(bus, bus_column_1, values_1, [bus_column_2, values_2, ...])   Σ values
+//   BUS.SUM.ABS(...same...)                                              Σ of the positive values
+//   BUS.SUM.DEL(...same...)                                              size of Σ of the negative ones
 //
-// Why per bus and not one call for all buses: the engine re-walks everything downstream of a
-// changed cell. One array for all buses puts every bus formula downstream of every item (an
-// edit of one motor then revisits the whole Buses sheet); one call per bus over that bus's rows
-// keeps an edit to the item's own bus and the buses above it.
-import {
-  ArraySize,
-  CellError,
-  ErrorType,
-  FunctionArgumentType,
-  FunctionPlugin,
-  SimpleRangeValue,
-} from 'hyperformula';
+// Rows naming another bus, blanks and text count as nothing (as in SUMIF); an error value on a
+// matching row is the result (the total cannot be known). The workbook passes each bus only the
+// span of rows that holds its items on each sheet, so an edit reaches its own bus and the buses
+// above it; the export writes the same sums as SUMIF/SUMIFS over whole columns.
+import { CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
 import type { ImplementedFunctions } from 'hyperformula';
+import { BUS_SUM } from '../core/workbook/busSums.ts';
 import { ENGINE_LANGUAGE } from './config.ts';
+import { cellStoreOf, sheetNameOf } from './internals.ts';
 import type { OwnPlugin } from './plugins.ts';
 
-export const BUS_SUMS = 'BUS.SUMS';
-export const BUS_SUMS_SPLIT = 'BUS.SUMS.SPLIT';
-
-/** For the app's formula help: these two are not catalogue functions (no physics, no export). */
+/** For the app's formula help: not catalogue functions (no physics, not exported as such). */
 export const ROLLUP_FUNCTION_DOCS: ReadonlyArray<{
   readonly name: string;
   readonly signature: string;
   readonly summary: string;
 }> = [
   {
-    name: BUS_SUMS,
-    signature: 'BUS.SUMS(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])',
-    summary:
-      'Per bus of the list, the sum of each value column over the rows naming that bus (ignoring case); a row naming another bus is an error. Spills one row per bus.',
+    name: BUS_SUM.all,
+    signature: `${BUS_SUM.all}(bus, bus_column_1, values_1, [bus_column_2, values_2, ...])`,
+    summary: 'The sum of the values on the rows whose bus column names the bus (ignoring case), like SUMIF.',
   },
   {
-    name: BUS_SUMS_SPLIT,
-    signature: 'BUS.SUMS.SPLIT(buses, bus_column_1, values_1, [bus_column_2, values_2, ...])',
-    summary:
-      'As BUS.SUMS, with two columns per value column: the positive values summed (absorbed kvar) and the size of the negative ones (delivered kvar).',
+    name: BUS_SUM.absorbed,
+    signature: `${BUS_SUM.absorbed}(bus, bus_column_1, values_1, ...)`,
+    summary: 'As BUS.SUM, the positive values only (kvar absorbed).',
+  },
+  {
+    name: BUS_SUM.delivered,
+    signature: `${BUS_SUM.delivered}(bus, bus_column_1, values_1, ...)`,
+    summary: 'As BUS.SUM, the size of the negative values only (kvar delivered).',
   },
 ];
 
 /** A cell value as the kernel sees it: numbers, text, booleans, blanks (null) and errors. */
 export type Cell = number | string | boolean | null | CellError;
 
-/** One pair of arguments: the bus name of each row and that row's value columns. */
-export interface KeyedColumns {
+export type Part = 'all' | 'absorbed' | 'delivered';
+
+/** One pair of arguments: the bus name of each row and that row's value. */
+export interface KeyedColumn {
   readonly height: number;
-  readonly width: number;
   key(row: number): Cell;
-  value(row: number, col: number): Cell;
-  /** Where row r is, for messages, e.g. 'Motors row 153'. */
-  where?(row: number): string;
+  value(row: number): Cell;
 }
 
-/**
- * The comparison key of a bus name, ignoring case. A name like "1" that the engine read as a
- * number still matches (both sides are read the same way); blanks, booleans and errors name no bus.
- */
-function busKey(v: Cell): string | undefined {
+/** The comparison key of a bus name, ignoring case; a number names the bus of its text. */
+export function busCellKey(v: Cell): string | undefined {
   if (typeof v === 'string') return v === '' ? undefined : v.toUpperCase();
   if (typeof v === 'number') return String(v);
   return undefined;
 }
 
-export type SumResult =
-  { readonly ok: true; readonly rows: Cell[][] } | { readonly ok: false; readonly message: string };
-
-function listText(buses: readonly Cell[]): string {
-  const names = buses.filter((b) => busKey(b) !== undefined).map(String);
-  return names.length <= 3 ? names.join(', ') : `${names.length} buses`;
-}
-
-/**
- * The kernel: totals per bus (rows of `buses`) for every value column, or per column the
- * positive part and the size of the negative part when `split`. Pure: no engine involved, so
- * it is tested directly. A row naming a bus outside the list makes the whole result an error.
- */
-export function sumByBus(buses: readonly Cell[], pairs: readonly KeyedColumns[], split: boolean): SumResult {
-  const width = pairs[0]?.width ?? 0;
-  const index = new Map<string, number[]>();
-  buses.forEach((b, i) => {
-    const key = busKey(b);
-    if (key === undefined) return;
-    const list = index.get(key) ?? [];
-    list.push(i);
-    index.set(key, list);
-  });
-  const outWidth = split ? 2 * width : width;
-  const out: Cell[][] = buses.map(() => new Array<Cell>(outWidth).fill(0));
-  for (let k = 0; k < pairs.length; k++) {
-    const pair = pairs[k] as KeyedColumns;
+/** The kernel: the sum for one bus over every pair. Pure, tested directly. */
+export function sumForBus(bus: Cell, pairs: readonly KeyedColumn[], part: Part): number | CellError {
+  const want = busCellKey(bus);
+  if (want === undefined) return 0;
+  let total = 0;
+  for (const pair of pairs) {
     for (let r = 0; r < pair.height; r++) {
-      const name = pair.key(r);
-      const key = busKey(name);
-      if (key === undefined) continue;
-      const targets = index.get(key);
-      if (targets === undefined) {
-        const where = pair.where?.(r) ?? `argument ${2 * k + 2}, row ${r + 1}`;
-        return {
-          ok: false,
-          message:
-            `${where} names bus "${String(name)}", which is not among the buses summed here (${listText(buses)}); ` +
-            'correct the bus name, or rebuild the workbook if the item moved to another bus',
-        };
-      }
-      for (let c = 0; c < width; c++) {
-        const v = pair.value(r, c);
-        if (v instanceof CellError) {
-          for (const t of targets) {
-            const row = out[t] as Cell[];
-            if (split) row[2 * c] = row[2 * c + 1] = v;
-            else row[c] = v;
-          }
-          continue;
-        }
-        if (typeof v !== 'number' || v === 0) continue;
-        const col = split ? 2 * c + (v > 0 ? 0 : 1) : c;
-        const amount = split && v < 0 ? -v : v;
-        for (const t of targets) {
-          const row = out[t] as Cell[];
-          const prev = row[col];
-          if (typeof prev === 'number') row[col] = prev + amount;
-        }
-      }
+      if (busCellKey(pair.key(r)) !== want) continue;
+      const v = pair.value(r);
+      if (v instanceof CellError) return v;
+      if (typeof v !== 'number') continue;
+      if (part === 'all') total += v;
+      else if (part === 'absorbed' && v > 0) total += v;
+      else if (part === 'delivered' && v < 0) total -= v;
     }
   }
-  return { ok: true, rows: out };
+  return total;
 }
 
-/** What we read of the engine's argument nodes. */
 interface ArgNode {
   readonly type: string;
   readonly start?: { toSimpleCellAddress(base: unknown): { sheet: number; col: number; row: number } };
@@ -158,10 +94,6 @@ interface Block {
   readonly row: number;
   readonly width: number;
   readonly height: number;
-}
-/** The engine's cell store, as far as we use it (a stable method of its dependency graph). */
-interface CellStore {
-  getCellValue(address: { sheet: number; col: number; row: number }): unknown;
 }
 
 function blockOf(node: ArgNode, state: State): Block | undefined {
@@ -186,159 +118,97 @@ function asCell(v: unknown): Cell {
   return null;
 }
 
-/** Reads a block straight from the engine's cell store: no copy of the range is made. */
-function storeReader(store: CellStore, b: Block): (row: number, col: number) => Cell {
-  const address = { sheet: b.sheet, col: 0, row: 0 };
-  return (row, col) => {
-    address.col = b.col + col;
-    address.row = b.row + row;
-    return asCell(store.getCellValue(address));
-  };
-}
-
-function valueReader(v: SimpleRangeValue): (row: number, col: number) => Cell {
-  const data = v.data;
-  return (row, col) => asCell(data[row]?.[col]);
-}
-
 const fail = (fn: string, tail: string) => new CellError(ErrorType.VALUE, `${fn}: ${tail}`);
+
+type Column = { readonly height: number; read(row: number): Cell } | CellError;
 
 export class BusRollupPlugin extends FunctionPlugin {
   static override implementedFunctions: ImplementedFunctions = {
-    [BUS_SUMS]: metadata('busSums', 'busSumsSize'),
-    [BUS_SUMS_SPLIT]: metadata('busSumsSplit', 'busSumsSplitSize'),
+    [BUS_SUM.all]: metadata('busSum'),
+    [BUS_SUM.absorbed]: metadata('busSumAbsorbed'),
+    [BUS_SUM.delivered]: metadata('busSumDelivered'),
   };
 
-  busSums(node: CallNode, state: State): SimpleRangeValue | CellError {
-    return this.rollUp(BUS_SUMS, node, state, false);
+  busSum(node: CallNode, state: State): number | CellError {
+    return this.sum(BUS_SUM.all, node, state, 'all');
   }
-  busSumsSplit(node: CallNode, state: State): SimpleRangeValue | CellError {
-    return this.rollUp(BUS_SUMS_SPLIT, node, state, true);
+  busSumAbsorbed(node: CallNode, state: State): number | CellError {
+    return this.sum(BUS_SUM.absorbed, node, state, 'absorbed');
   }
-  busSumsSize(node: CallNode, state: State): ArraySize {
-    return this.resultSize(node, state, 1);
-  }
-  busSumsSplitSize(node: CallNode, state: State): ArraySize {
-    return this.resultSize(node, state, 2);
+  busSumDelivered(node: CallNode, state: State): number | CellError {
+    return this.sum(BUS_SUM.delivered, node, state, 'delivered');
   }
 
-  /** The spill size must be known before evaluation: rows of the bus list × value columns. */
-  private resultSize(node: CallNode, state: State, perColumn: number): ArraySize {
-    const [buses, , values] = node.args;
-    if (!buses || !values) return ArraySize.error();
-    const b = this.arraySizeForAst(buses as never, state as never);
-    const v = this.arraySizeForAst(values as never, state as never);
-    return new ArraySize(v.width * perColumn, b.height);
-  }
-
-  private rollUp(fn: string, node: CallNode, state: State, split: boolean): SimpleRangeValue | CellError {
+  private sum(fn: string, node: CallNode, state: State, part: Part): number | CellError {
     try {
       const args = node.args;
       if (args.length < 3 || args.length % 2 === 0) {
-        return fail(
-          fn,
-          `takes a bus list and then pairs of (bus column, values); got ${args.length} arguments`,
-        );
+        return fail(fn, `takes a bus and then pairs of (bus column, values); got ${args.length} arguments`);
       }
-      const buses = this.column(fn, args[0] as ArgNode, state, 1, 'bus list');
-      if (buses instanceof CellError) return buses;
-      const pairs: KeyedColumns[] = [];
+      const bus: unknown = this.evaluateAst(args[0] as never, state as never);
+      if (bus instanceof CellError) return bus;
+      const pairs: KeyedColumn[] = [];
       for (let k = 1; k < args.length; k += 2) {
         const keys = this.column(fn, args[k] as ArgNode, state, k + 1, 'bus column');
         if (keys instanceof CellError) return keys;
-        const values = this.block(args[k + 1] as ArgNode, state);
+        const values = this.column(fn, args[k + 1] as ArgNode, state, k + 2, 'values');
         if (values instanceof CellError) return values;
-        const first = pairs[0];
-        if (values.height !== keys.length) {
+        if (values.height !== keys.height) {
+          const where = this.where(args[k] as ArgNode, state);
           return fail(
             fn,
-            `argument ${k + 2} (values) has ${values.height} rows but argument ${k + 1} (bus column) has ${keys.length}; they must cover the same rows`,
+            `argument ${k + 2} (values) has ${values.height} rows but argument ${k + 1} (bus column${where}) has ${keys.height}; they must cover the same rows`,
           );
         }
-        if (first && values.width !== first.width) {
-          return fail(
-            fn,
-            `argument ${k + 2} (values) has ${values.width} columns but argument 3 has ${first.width}; every values range must have as many columns`,
-          );
-        }
-        const where = this.rowLabel(args[k] as ArgNode, state);
-        pairs.push({
-          height: values.height,
-          width: values.width,
-          key: (r) => keys[r] ?? null,
-          value: values.read,
-          ...(where ? { where } : {}),
-        });
+        pairs.push({ height: keys.height, key: keys.read, value: values.read });
       }
-      const result = sumByBus(buses, pairs, split);
-      if (!result.ok) return new CellError(ErrorType.NA, `${fn}: ${result.message}`);
-      return SimpleRangeValue.onlyValues(result.rows as never);
+      return sumForBus(asCell(bus), pairs, part);
     } catch (e) {
       return fail(fn, `internal error: ${e instanceof Error ? e.message : String(e)}`);
     }
   }
 
-  /** 'Motors row 153' for row r of a plain range argument (the sheet's name when the engine tells it). */
-  private rowLabel(node: ArgNode, state: State): ((row: number) => string) | undefined {
+  private where(node: ArgNode, state: State): string {
     const b = blockOf(node, state);
-    if (!b) return undefined;
-    let sheet = `sheet ${b.sheet + 1}`;
-    try {
-      const name = (
-        this as unknown as {
-          dependencyGraph?: { sheetMapping?: { getSheetName?(id: number): string | undefined } };
-        }
-      ).dependencyGraph?.sheetMapping?.getSheetName?.(b.sheet);
-      if (typeof name === 'string') sheet = name;
-    } catch {
-      // keep the number
-    }
-    return (row) => `${sheet} row ${b.row + row + 1}`;
+    if (!b) return '';
+    return ` on ${sheetNameOf(this, b.sheet) ?? `sheet ${b.sheet + 1}`}`;
   }
 
-  /** A one-column argument as a list of cells. */
-  private column(
-    fn: string,
-    node: ArgNode,
-    state: State,
-    position: number,
-    what: string,
-  ): Cell[] | CellError {
-    const b = this.block(node, state);
-    if (b instanceof CellError) return b;
-    if (b.width !== 1)
-      return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
-    const out: Cell[] = new Array<Cell>(b.height);
-    for (let r = 0; r < b.height; r++) out[r] = b.read(r, 0);
-    return out;
-  }
-
-  private block(
-    node: ArgNode,
-    state: State,
-  ): { width: number; height: number; read: (row: number, col: number) => Cell } | CellError {
-    const store = (this as unknown as { dependencyGraph?: Partial<CellStore> }).dependencyGraph;
+  /** A one-column argument, read straight from the engine's store when it is a plain range. */
+  private column(fn: string, node: ArgNode, state: State, position: number, what: string): Column {
     const b = blockOf(node, state);
-    if (b && store && typeof store.getCellValue === 'function') {
-      return { width: b.width, height: b.height, read: storeReader(store as CellStore, b) };
+    const store = cellStoreOf(this);
+    if (b && store) {
+      if (b.width !== 1) return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
+      const address = { sheet: b.sheet, col: b.col, row: 0 };
+      return {
+        height: b.height,
+        read: (row) => {
+          address.row = b.row + row;
+          return asCell(store(address));
+        },
+      };
     }
     // Anything but a plain range (a named range, a function's result): the engine's own copy.
     const v: unknown = this.evaluateAst(node as never, state as never);
     if (v instanceof CellError) return v;
-    if (v instanceof SimpleRangeValue) return { width: v.width(), height: v.height(), read: valueReader(v) };
+    if (v instanceof SimpleRangeValue) {
+      if (v.width() !== 1) return fail(fn, `argument ${position} (${what}) must be one column; got ${v.width()} columns`);
+      const data = v.data;
+      return { height: v.height(), read: (row) => asCell(data[row]?.[0]) };
+    }
     const one = asCell(v);
-    return { width: 1, height: 1, read: () => one };
+    return { height: 1, read: () => one };
   }
 }
 
-function metadata(method: string, sizeMethod: string) {
+function metadata(method: string) {
   return {
     method,
-    sizeOfResultArrayMethod: sizeMethod,
     // Ranges are read by the method itself; never spread a range into one call per cell.
     vectorizationForbidden: true,
     parameters: [
-      { argumentType: FunctionArgumentType.RANGE },
+      { argumentType: FunctionArgumentType.ANY },
       { argumentType: FunctionArgumentType.RANGE },
       { argumentType: FunctionArgumentType.RANGE },
     ],
@@ -348,5 +218,7 @@ function metadata(method: string, sizeMethod: string) {
 
 export const BUS_ROLLUP_PLUGIN: OwnPlugin = {
   plugin: BusRollupPlugin,
-  translations: { [ENGINE_LANGUAGE]: { [BUS_SUMS]: BUS_SUMS, [BUS_SUMS_SPLIT]: BUS_SUMS_SPLIT } },
+  translations: {
+    [ENGINE_LANGUAGE]: { [BUS_SUM.all]: BUS_SUM.all, [BUS_SUM.absorbed]: BUS_SUM.absorbed, [BUS_SUM.delivered]: BUS_SUM.delivered },
+  },
 };

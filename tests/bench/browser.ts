@@ -8,7 +8,7 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
-import { HEADERS, SHEETS } from '../../src/core/workbook/buildLayout.ts';
+import { HEADERS, SHEETS } from '../../src/core/workbook/layout.ts';
 import { buildApp, initialJsSize, serveStatic } from './appServer.ts';
 import { floorRoots } from './floor.ts';
 import { generateSite } from './generateSite.ts';

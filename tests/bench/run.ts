@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
-import { SHEETS } from '../../src/core/workbook/buildLayout.ts';
+import { SHEETS } from '../../src/core/workbook/layout.ts';
 import { measureBrowser } from './browser.ts';
 import { notRun, runPhaseInChild } from './child.ts';
 import { measureCliBalance, measureCliExport, measureCliStart } from './cliProcess.ts';

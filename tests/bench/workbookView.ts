@@ -4,8 +4,8 @@
 import type { HyperFormula } from 'hyperformula';
 import type { Site } from '../../src/core/site/model.ts';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
-import { HEADERS, SHEETS } from '../../src/core/workbook/buildLayout.ts';
-import { planBusColumns } from '../../src/core/workbook/buildBuses.ts';
+import { HEADERS, SHEETS } from '../../src/core/workbook/layout.ts';
+import { planBusColumns } from '../../src/core/workbook/busColumns.ts';
 
 /** P and Q of the point of connection, one entry per case. */
 export interface RootTotals {

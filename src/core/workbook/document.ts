@@ -1,5 +1,10 @@
 // The workbook as a document: what the app shows, autosaves and saves as its native file,
 // what templates become, and what the xlsx export writes. Pure data, engine-agnostic.
+//
+// Version 2: a built-in sheet's generated cells (headers, computed columns, the Buses and
+// Compensation formulas) are Kvar Ledger's and are written again from the inputs whenever the
+// document is opened (src/core/workbook/render.ts), so a saved file may leave them out.
+// `overrides` lists the cells in generated places that hold what the user typed instead.
 
 export interface ColumnInfo {
   /** Header text shown in the frozen header row, e.g. 'P (kW)'. */
@@ -15,6 +20,9 @@ export interface ColumnInfo {
 /** A cell's content exactly as typed: a number, text, boolean, or a formula string starting with '='. */
 export type CellContent = number | string | boolean | null;
 
+/** A cell address in a sheet: [row, col], 0-based. */
+export type CellAt = readonly [number, number];
+
 export interface SheetDoc {
   readonly name: string;
   /** Row-major; row 0 is the header row when `columns` is given. */
@@ -22,15 +30,19 @@ export interface SheetDoc {
   readonly columns?: readonly ColumnInfo[];
   /** What the sheet is for, shown in the app and on the export's cover. */
   readonly purpose?: string;
+  /** Cells in generated places whose content the user typed (kept, marked, listed by Checks). */
+  readonly overrides?: readonly CellAt[];
 }
 
 export interface WorkbookDoc {
   readonly format: 'kvar-ledger-workbook';
-  readonly version: 1;
+  readonly version: 1 | 2;
   readonly title: string;
   readonly sheets: SheetDoc[];
 }
 
+export const DOC_VERSION = 2;
+
 export function emptyWorkbook(title = 'Untitled site'): WorkbookDoc {
-  return { format: 'kvar-ledger-workbook', version: 1, title, sheets: [{ name: 'Site', cells: [[]] }] };
+  return { format: 'kvar-ledger-workbook', version: 2, title, sheets: [{ name: 'Site', cells: [[]] }] };
 }

@@ -3,7 +3,7 @@
 import type { Requirement, SiteSettings } from '../site/model.ts';
 import { error } from '../site/problems.ts';
 import type { SheetDoc } from './document.ts';
-import { REQUIREMENT_TEXT, SETTING_LABELS } from './buildSettings.ts';
+import { REQUIREMENT_TEXT, SETTING_LABELS } from './settingsLayout.ts';
 import { readNumber, readText, report, type ReadContext, type Spot } from './readCells.ts';
 
 const DEFAULT_CASE = 'normal';

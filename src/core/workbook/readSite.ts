@@ -12,8 +12,28 @@ import {
 } from '../site/model.ts';
 import type { Problem } from '../site/problems.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
-import { EQUIPMENT_SHEETS, HEADERS, SHEETS, type EquipmentSheetLayout } from './buildLayout.ts';
-import { BANK_INPUTS, NOTE_HEADER, type BankChoice } from './buildCompensationColumns.ts';
+import { equipmentSheets, type SheetInput } from '../kinds/index.ts';
+import type { BankChoice } from '../site/bankChoice.ts';
+import { unifyBusNames } from '../site/busNames.ts';
+import { HEADERS, SHEETS } from './layout.ts';
+import { BANK_INPUTS, NOTE_HEADER } from './compensationColumns.ts';
+
+/** What this reader needs of an equipment sheet: its name, inputs and the kinds it holds. */
+interface EquipmentSheetLayout {
+  readonly sheet: string;
+  readonly inputs: readonly SheetInput[];
+  readonly kinds: readonly string[];
+  readonly usesLoad: boolean;
+}
+
+function layouts(): EquipmentSheetLayout[] {
+  return equipmentSheets().map((s) => ({
+    sheet: s.sheet.name,
+    inputs: s.sheet.inputs,
+    kinds: s.kinds.map((k) => k.name),
+    usesLoad: s.kinds.some((k) => k.load !== undefined),
+  }));
+}
 import {
   findSheet,
   headerIndex,
@@ -252,7 +272,7 @@ export function siteFromWorkbook(doc: WorkbookDoc, opts: ReadOptions = {}): Site
   const settings = readSettings(findSheet(doc.sheets, SHEETS.settings), ctx);
   const equipment: EquipmentRow[] = [];
   const origins: SiteFromWorkbook['origins'] = [];
-  for (const layout of EQUIPMENT_SHEETS) {
+  for (const layout of layouts()) {
     const sheet = findSheet(doc.sheets, layout.sheet);
     if (sheet) readEquipmentSheet(sheet, layout, settings.cases, ctx, equipment, origins);
   }

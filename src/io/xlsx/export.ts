@@ -4,7 +4,7 @@
 // The xlsx library is loaded on first use only (see loadExcelJs.ts).
 import type { Workbook, Worksheet, XlsxWriteOptions } from 'exceljs';
 import type { SiteSettings } from '../../core/site/model.ts';
-import { SHEETS } from '../../core/workbook/buildLayout.ts';
+import { SHEETS } from '../../core/workbook/layout.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';

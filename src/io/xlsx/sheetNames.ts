@@ -1,5 +1,5 @@
 // Sheet names and cell addresses as the xlsx format wants them.
-import { columnLetters } from '../../core/workbook/buildRefs.ts';
+import { columnLetters } from '../../core/workbook/refs.ts';
 
 /** 0 → 'A', 25 → 'Z', 26 → 'AA' (the one implementation lives with the workbook builder). */
 export const columnLetter = columnLetters;

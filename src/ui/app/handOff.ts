@@ -5,7 +5,7 @@
 import type { CellContent, WorkbookDoc } from '../../core/workbook/document.ts';
 import type { SiteSettings } from '../../core/site/model.ts';
 import { buildWorkbook } from '../../core/workbook/build.ts';
-import { SHEETS } from '../../core/workbook/buildLayout.ts';
+import { SHEETS } from '../../core/workbook/layout.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { alignedWith, exportWorkbookXlsxWithReport } from '../../io/xlsx/export.ts';
 import type { CellResult } from '../../engine/index.ts';

@@ -1,7 +1,7 @@
 // The charts panel: per operating case, absorbed vs delivered kvar and the net for every bus,
 // and the power triangle at the point of connection before and after compensation. Redrawn
 // after every recalculation while visible.
-import { SHEETS } from '../../core/workbook/buildLayout.ts';
+import { SHEETS } from '../../core/workbook/layout.ts';
 import { clear, el } from '../dom.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import { busBarChart } from './barChart.ts';

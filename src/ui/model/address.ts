@@ -1,5 +1,5 @@
 // Spreadsheet addresses as the user sees them: column letters and A1 references.
-import { columnLetters } from '../../core/workbook/buildRefs.ts';
+import { columnLetters } from '../../core/workbook/refs.ts';
 
 export { columnLetters };
 

@@ -1,2 +1,0 @@
-// The banks the workbook starts with: the compensation design's choice per bus.
-export { choicesFromDesign, proposeChoices } from '../site/compensation.ts';

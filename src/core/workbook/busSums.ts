@@ -1,0 +1,118 @@
+// What each bus's own items add up to: the only formulas that look items up by bus name. The
+// live workbook (the page) uses the engine's BUS.SUM functions over the span of rows that hold
+// the bus's items on each sheet, so an edit reaches its own bus and the buses above it only; the
+// exported workbook uses classic conditional sums over whole columns, which every program reads
+// and which count a row a colleague adds at the bottom.
+import type { EquipmentColumns } from './equipmentColumns.ts';
+import { absCell, columnOn, rangeOn, textLiteral } from './refs.ts';
+import type { WorkbookStructure } from './structure.ts';
+import { busKey } from '../site/busNames.ts';
+
+/** Names of the engine's bus-sum functions (src/engine registers them under these names). */
+export const BUS_SUM = { all: 'BUS.SUM', absorbed: 'BUS.SUM.ABS', delivered: 'BUS.SUM.DEL' } as const;
+
+export type Flavour = 'live' | 'portable';
+
+/** First and last cell row of a bus's items on one sheet. */
+export interface Span {
+  readonly first: number;
+  readonly last: number;
+}
+
+/** Per bus key, per equipment sheet index, the span of rows that name the bus. */
+export type SpanIndex = ReadonlyMap<string, ReadonlyMap<number, Span>>;
+
+export function spanIndex(s: WorkbookStructure): SpanIndex {
+  const out = new Map<string, Map<number, Span>>();
+  for (const sheet of s.sheets) {
+    if (sheet.cols.role !== 'shunt') continue;
+    sheet.rows.forEach((r, i) => {
+      if (!r.present || r.bus === '') return;
+      const key = busKey(r.bus);
+      let bySheet = out.get(key);
+      if (!bySheet) out.set(key, (bySheet = new Map()));
+      const span = bySheet.get(sheet.index);
+      bySheet.set(sheet.index, span ? { first: span.first, last: i + 1 } : { first: i + 1, last: i + 1 });
+    });
+  }
+  return out;
+}
+
+/**
+ * SUMIF criterion for a bus: the name cell, or an exact-match text when the name holds pattern
+ * characters (* ? ~). Undefined for a name starting with < > or =, which conditional sums read
+ * as a comparison: such a bus sums its own span of rows instead.
+ */
+export function criterion(name: string, nameCell: string): string | undefined {
+  if (/^[<>=]/.test(name)) return undefined;
+  if (/^[A-Za-z0-9 _.\-/]+$/.test(name)) return nameCell;
+  return textLiteral('=' + name.replace(/[~*?]/g, (c) => '~' + c));
+}
+
+interface SumTerm {
+  readonly cols: EquipmentColumns;
+  readonly span: Span | undefined;
+  readonly valueCol: number;
+}
+
+function terms(s: WorkbookStructure, spans: SpanIndex, key: string, pick: (c: EquipmentColumns) => number | undefined): SumTerm[] {
+  const bySheet = spans.get(key);
+  return s.sheets.flatMap((sheet) => {
+    const valueCol = sheet.cols.role === 'shunt' ? pick(sheet.cols) : undefined;
+    if (valueCol === undefined) return [];
+    return [{ cols: sheet.cols, span: bySheet?.get(sheet.index), valueCol }];
+  });
+}
+
+/**
+ * One bus's own items: the sum of one computed column over its rows on every sheet that has it.
+ * `part`: all values, the positive ones (absorbed kvar), or the size of the negative ones (delivered).
+ */
+export function ownSum(
+  s: WorkbookStructure,
+  spans: SpanIndex,
+  flavour: Flavour,
+  bus: { name: string; nameCell: string },
+  pick: (c: EquipmentColumns) => number | undefined,
+  part: 'all' | 'absorbed' | 'delivered',
+  /** Portable 'delivered': the cell holding this bus's absorbed sum. */
+  absorbedCell?: string,
+): string {
+  const list = terms(s, spans, busKey(bus.name), pick);
+  if (flavour === 'live') {
+    const pairs = list
+      .filter((t) => t.span)
+      .map((t) => {
+        const { first, last } = t.span as Span;
+        const keys = rangeOn(t.cols.sheet.name, first, t.cols.input.get('bus') as number, last, t.cols.input.get('bus') as number);
+        return `${keys},${rangeOn(t.cols.sheet.name, first, t.valueCol, last, t.valueCol)}`;
+      });
+    return pairs.length === 0 ? '=0' : `=${BUS_SUM[part]}(${bus.nameCell},${pairs.join(',')})`;
+  }
+  const portable = (positive: boolean) => portableSum(list, bus, positive);
+  if (part === 'all') return `=${portable(false)}`;
+  if (part === 'absorbed') return `=${portable(true)}`;
+  // Delivered = absorbed − net: the net SUMIF passes on an error value where SUMIFS may skip it.
+  return `=${absorbedCell ?? portable(true)}-(${portable(false)})`;
+}
+
+function portableSum(list: readonly SumTerm[], bus: { name: string; nameCell: string }, positive: boolean): string {
+  const crit = criterion(bus.name, bus.nameCell);
+  const parts = list.flatMap((t) => {
+    const sheet = t.cols.sheet.name;
+    if (crit === undefined) {
+      if (!t.span) return [];
+      const vals = rangeOn(sheet, t.span.first, t.valueCol, t.span.last, t.valueCol);
+      return [positive ? `SUMIF(${vals},">0")` : `SUM(${vals})`];
+    }
+    const keys = columnOn(sheet, t.cols.input.get('bus') as number);
+    const vals = columnOn(sheet, t.valueCol);
+    return [positive ? `SUMIFS(${vals},${keys},${crit},${vals},">0")` : `SUMIF(${keys},${crit},${vals})`];
+  });
+  return parts.length === 0 ? '0' : parts.join('+');
+}
+
+/** The bus-name cell a sum refers to, fixed in place: $A$5. */
+export function nameCellOf(row: number): string {
+  return absCell(row, 0);
+}

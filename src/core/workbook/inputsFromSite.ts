@@ -1,0 +1,95 @@
+// A site (from a site file, a list or the design) as the cells a user would have typed: the
+// Site sheet's values, each equipment row on its kind's sheet, and the banks per bus on the
+// Compensation sheet. render.ts then writes every generated cell.
+import { findKind } from '../kinds/index.ts';
+import type { BankChoice } from '../site/bankChoice.ts';
+import { buildBusGraph } from '../site/graph.ts';
+import type { EquipmentRow, Site } from '../site/model.ts';
+import type { CellContent, SheetDoc, WorkbookDoc } from './document.ts';
+import { BANK_INPUTS, NOTE_HEADER, planCompensationColumns } from './compensationColumns.ts';
+import type { EquipmentColumns } from './equipmentColumns.ts';
+import { SHEETS } from './layout.ts';
+import { headerRow } from './renderEquipment.ts';
+import { REQUIREMENT_TEXT } from './settingsLayout.ts';
+import { settingsCells, type SettingsInputs } from './renderSettings.ts';
+import { equipmentPlans } from './structure.ts';
+
+export function settingsInputsOf(site: Site): SettingsInputs {
+  const s = site.settings;
+  const r = s.requirement;
+  return {
+    name: s.name,
+    hz: s.hz,
+    requirement: REQUIREMENT_TEXT[r.kind],
+    cosTarget: r.kind === 'cosphi' ? r.target : null,
+    tanLag: r.kind === 'tanphi' ? r.lagMax : null,
+    tanLead: r.kind === 'tanphi' ? r.leadMax : null,
+    ssc: s.sscMva ?? null,
+    cases: [...s.cases],
+    notes: [...(s.notes ?? [])],
+  };
+}
+
+/** Values of a row that the sheet has no column for, as "name=value; ...". */
+export function otherValues(cols: EquipmentColumns, row: EquipmentRow, cases: readonly string[]): string | null {
+  const pairs: string[] = [];
+  if (row.to_bus !== undefined && row.to_bus !== '' && !cols.input.has('to_bus')) pairs.push(`to_bus=${row.to_bus}`);
+  for (const [k, v] of Object.entries(row.values)) {
+    if (v === undefined || cols.input.has(k) || (k === 'load' && cols.loadDefault !== undefined)) continue;
+    pairs.push(`${k}=${v}`);
+  }
+  if (cols.loadCase === undefined) for (const [c, v] of Object.entries(row.loads)) pairs.push(`load:${c}=${v}`);
+  else for (const [c, v] of Object.entries(row.loads)) if (!cases.includes(c)) pairs.push(`load:${c}=${v}`);
+  return pairs.length > 0 ? pairs.join('; ') : null;
+}
+
+function inputCells(cols: EquipmentColumns, row: EquipmentRow, cases: readonly string[]): CellContent[] {
+  const out = new Array<CellContent>(cols.firstComputed).fill(null);
+  for (const [key, c] of cols.input) {
+    if (key === 'tag') out[c] = row.tag;
+    else if (key === 'bus') out[c] = row.bus;
+    else if (key === 'kind') out[c] = row.kind;
+    else if (key === 'description') out[c] = row.description ?? null;
+    else if (key === 'to_bus') out[c] = row.to_bus ?? null;
+    else out[c] = row.values[key] ?? null;
+  }
+  if (cols.loadDefault !== undefined) out[cols.loadDefault] = row.values.load ?? null;
+  cols.loadCase?.forEach((c, k) => (out[c] = row.loads[cases[k] as string] ?? null));
+  out[cols.other] = otherValues(cols, row, cases);
+  return out;
+}
+
+/** The compact workbook of a site: inputs only (headers included); render.ts fills in the rest. */
+export function inputsFromSite(site: Site, banks: readonly BankChoice[]): WorkbookDoc {
+  const cases = site.settings.cases;
+  const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
+  const order = new Map(graph.order.map((b, i) => [b, i]));
+  // Rows kept together by bus, in bus order (spans stay tight and the sheet reads by bus).
+  const rank = (r: EquipmentRow) => order.get(r.bus) ?? order.size;
+  const sheets: SheetDoc[] = [{ name: SHEETS.settings, cells: settingsCells(settingsInputsOf(site)) }];
+  for (const cols of equipmentPlans(cases)) {
+    const rows = site.equipment
+      .map((r, i) => ({ r, i }))
+      .filter(({ r }) => {
+        const k = findKind(r.kind);
+        return k !== undefined && cols.kinds.includes(k);
+      })
+      .sort((a, b) => rank(a.r) - rank(b.r) || a.i - b.i)
+      .map(({ r }) => inputCells(cols, r, cases));
+    sheets.push({ name: cols.sheet.name, cells: [headerRow(cols), ...rows] });
+  }
+  const comp = planCompensationColumns(cases);
+  const compRows: CellContent[][] = [comp.columns.map((c) => c.header)];
+  for (const b of banks) {
+    const line = new Array<CellContent>(comp.columns.length).fill(null);
+    line[comp.bus] = b.bus;
+    for (const i of BANK_INPUTS) line[comp.input[i.key]] = b[i.key] ?? null;
+    line[comp.note] = b.note ?? null;
+    compRows.push(line);
+  }
+  sheets.push({ name: SHEETS.buses, cells: [] });
+  sheets.push({ name: SHEETS.compensation, cells: compRows });
+  return { format: 'kvar-ledger-workbook', version: 2, title: site.settings.name, sheets };
+}
+
+export { NOTE_HEADER };

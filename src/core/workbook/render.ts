@@ -1,0 +1,243 @@
+// A workbook document with every generated cell written from its inputs: the one place that
+// turns what the user typed (Site values, equipment rows, banks per bus, own sheets, typed-over
+// cells) into the full live or exported workbook. Opening a document, building one from a site
+// file and exporting all come through here, so the page, the CLI and the xlsx agree.
+import { busKey } from '../site/busNames.ts';
+import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from './document.ts';
+import { planBusColumns, type BusColumns } from './busColumns.ts';
+import { spanIndex, type Flavour } from './busSums.ts';
+import {
+  BANK_INPUTS,
+  NOTE_HEADER,
+  compensationInputCols,
+  planCompensationColumns,
+  type CompensationColumns,
+} from './compensationColumns.ts';
+import type { EquipmentColumns } from './equipmentColumns.ts';
+import { SHEETS } from './layout.ts';
+import { BUSES_PURPOSE, renderBusesSheet } from './renderBuses.ts';
+import { COMPENSATION_PURPOSE, renderCompensationSheet } from './renderCompensation.ts';
+import { busLookup, computedCells, headerRow } from './renderEquipment.ts';
+import {
+  SETTINGS_COLUMNS,
+  SETTINGS_PURPOSE,
+  isCanonicalSettings,
+  readSettingsInputs,
+  settingsCells,
+  settingsGenerated,
+  type SettingsInputs,
+} from './renderSettings.ts';
+import { equipmentPlans, readSheetRows, structureOf, type ValueOf, type WorkbookStructure } from './structure.ts';
+
+export const DEFAULT_CASE = 'normal';
+
+export interface RenderOptions {
+  readonly flavour: Flavour;
+  /** Values of formula cells in input places (the page passes its engine's), for reading the structure. */
+  readonly valueReader?: (sheet: string) => ValueOf | undefined;
+}
+
+const blank = (v: CellContent | undefined) => v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
+
+function findSheet(doc: WorkbookDoc, name: string): SheetDoc | undefined {
+  return doc.sheets.find((s) => s.name === name) ?? doc.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase());
+}
+
+/** Case names from the Site inputs (text, trimmed, first of equal names); one default case when none. */
+export function casesOf(inputs: SettingsInputs): string[] {
+  const out: string[] = [];
+  for (const c of inputs.cases) {
+    const t = String(c).trim();
+    if (t !== '' && !out.some((x) => x.toLowerCase() === t.toLowerCase())) out.push(t);
+  }
+  return out.length > 0 ? out : [DEFAULT_CASE];
+}
+
+function copyRows(cells: readonly (readonly CellContent[])[]): CellContent[][] {
+  return cells.map((r) => [...r]);
+}
+
+function put(cells: CellContent[][], r: number, c: number, v: CellContent): void {
+  while (cells.length <= r) cells.push([]);
+  const line = cells[r] as CellContent[];
+  while (line.length <= c) line.push(null);
+  line[c] = v;
+}
+
+function overridesOf(sheet: SheetDoc | undefined): Set<string> {
+  return new Set((sheet?.overrides ?? []).map(([r, c]) => `${r},${c}`));
+}
+
+/**
+ * An equipment sheet's cells in the plan's layout. A sheet laid out for this plan is taken as it
+ * is; an older or foreign layout has its input columns moved by header text (computed columns
+ * are written again anyway).
+ */
+function equipmentCells(sheet: SheetDoc | undefined, cols: EquipmentColumns): { cells: CellContent[][]; moved: boolean } {
+  const header = headerRow(cols);
+  if (!sheet) return { cells: [header], moved: false };
+  const given = sheet.cells[0] ?? [];
+  const same = header.every((h, c) => given[c] === h) && given.length <= header.length + 64;
+  if (same) return { cells: copyRows(sheet.cells), moved: false };
+  const index = new Map<string, number>();
+  given.forEach((h, c) => {
+    if (typeof h === 'string' && !index.has(h.trim().toLowerCase())) index.set(h.trim().toLowerCase(), c);
+  });
+  const out: CellContent[][] = [header];
+  for (let r = 1; r < sheet.cells.length; r++) {
+    const line = new Array<CellContent>(header.length).fill(null);
+    for (const c of cols.inputCols) {
+      const from = index.get((header[c] as string).toLowerCase());
+      if (from !== undefined) line[c] = sheet.cells[r]?.[from] ?? null;
+    }
+    out.push(line);
+  }
+  return { cells: out, moved: true };
+}
+
+/** Bank inputs per bus from a Compensation sheet (by header text), keyed by bus. */
+export function bankInputsOf(sheet: SheetDoc | undefined, cols: CompensationColumns): Map<string, Map<number, CellContent>> {
+  const out = new Map<string, Map<number, CellContent>>();
+  if (!sheet) return out;
+  const index = new Map<string, number>();
+  (sheet.cells[0] ?? []).forEach((h, c) => {
+    if (typeof h === 'string') index.set(h.trim().toLowerCase(), c);
+  });
+  const wanted = [...BANK_INPUTS.map((b) => [b.header, cols.input[b.key]] as const), [NOTE_HEADER, cols.note] as const];
+  for (let r = 1; r < sheet.cells.length; r++) {
+    const bus = sheet.cells[r]?.[0];
+    if (blank(bus)) break; // the bus list ends at the first blank row; a summary follows
+    const values = new Map<number, CellContent>();
+    for (const [header, to] of wanted) {
+      const from = index.get(header.toLowerCase());
+      const v = from === undefined ? null : (sheet.cells[r]?.[from] ?? null);
+      if (!blank(v)) values.set(to, v);
+    }
+    const key = busKey(String(bus).trim());
+    if (values.size > 0 && !out.has(key)) out.set(key, values);
+  }
+  return out;
+}
+
+/**
+ * Generated cells over a sheet's own: cells inside the generated block are replaced unless the
+ * user typed over them (overrides); cells outside it (notes) stay.
+ */
+function overlay(
+  own: SheetDoc | undefined,
+  generated: readonly (readonly CellContent[])[],
+  keepInBlock: (r: number, c: number) => boolean,
+): CellContent[][] {
+  const cells = copyRows(own?.cells ?? []);
+  const over = overridesOf(own);
+  const width = generated.reduce((m, r) => Math.max(m, r.length), 0);
+  for (let r = 0; r < generated.length; r++) {
+    for (let c = 0; c < width; c++) {
+      if (over.has(`${r},${c}`) || keepInBlock(r, c)) continue;
+      const v = generated[r]?.[c] ?? null;
+      if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
+    }
+  }
+  return cells;
+}
+
+export interface Rendered {
+  readonly doc: WorkbookDoc;
+  readonly structure: WorkbookStructure;
+  readonly busCols: BusColumns;
+  readonly compCols: CompensationColumns;
+}
+
+/** The full workbook for a document: every built-in sheet with its generated cells. */
+export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered {
+  const siteSheet = findSheet(doc, SHEETS.settings);
+  const typed = readSettingsInputs(siteSheet);
+  const cases = casesOf(typed);
+  const inputs: SettingsInputs = { ...typed, cases };
+  const plans = equipmentPlans(cases);
+  const equipment = plans.map((cols) => {
+    const sheet = findSheet(doc, cols.sheet.name);
+    const { cells, moved } = equipmentCells(sheet, cols);
+    const value = opts.valueReader?.(cols.sheet.name);
+    return { cols, sheet, cells, moved, rows: readSheetRows(cells, cols, moved ? undefined : value) };
+  });
+  const structure = structureOf(
+    cases,
+    equipment.map((e) => e.rows),
+  );
+  const busCols = planBusColumns(cases);
+  const compCols = planCompensationColumns(cases);
+  const spans = spanIndex(structure);
+  const busRow = (bus: string) => {
+    const i = structure.busIndex.get(busKey(bus));
+    return i === undefined ? undefined : i + 1;
+  };
+  const lookup = busLookup(busCols.s, busCols.sAfter, busRow);
+
+  const sheets: SheetDoc[] = [];
+  // Site: its own layout when it has it, else written anew from the values it holds.
+  const siteCells =
+    siteSheet && typed.cases.length > 0 && isCanonicalSettings(siteSheet, inputs)
+      ? overlayCells(siteSheet, settingsGenerated(inputs))
+      : settingsCells(inputs);
+  sheets.push(sheetDoc(SHEETS.settings, siteCells, SETTINGS_COLUMNS, SETTINGS_PURPOSE, siteSheet));
+
+  for (const e of equipment) {
+    const over = e.moved ? new Set<string>() : overridesOf(e.sheet);
+    const cells = e.cells;
+    const computedCols = e.cols.columns.length;
+    for (let r = 1; r < Math.max(cells.length, e.rows.length + 1); r++) {
+      const info = e.rows[r - 1];
+      const generated = new Map<number, CellContent>(info?.present ? computedCells(e.cols, r, info, cases, lookup) : []);
+      for (let c = e.cols.firstComputed; c < computedCols; c++) {
+        if (over.has(`${r},${c}`)) continue;
+        const v = generated.get(c) ?? null;
+        if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
+      }
+    }
+    sheets.push(sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, e.moved ? undefined : e.sheet));
+  }
+
+  const busesSheet = findSheet(doc, SHEETS.buses);
+  const buses = renderBusesSheet({ s: structure, cols: busCols, comp: compCols, flavour: opts.flavour, spans });
+  sheets.push(sheetDoc(SHEETS.buses, overlay(busesSheet, buses, () => false), busCols.columns, BUSES_PURPOSE, busesSheet));
+
+  const compSheet = findSheet(doc, SHEETS.compensation);
+  const comp = renderCompensationSheet({
+    s: structure,
+    cols: compCols,
+    busCols,
+    flavour: opts.flavour,
+    spans,
+    inputs: bankInputsOf(compSheet, compCols),
+  });
+  // Bank inputs are placed by bus; whatever the sheet held in the table before is written anew.
+  sheets.push(
+    sheetDoc(SHEETS.compensation, overlay(compSheet, comp, () => false), compCols.columns, COMPENSATION_PURPOSE, compSheet),
+  );
+
+  const builtIn = new Set(sheets.map((s) => s.name.toLowerCase()));
+  for (const s of doc.sheets) if (!builtIn.has(s.name.toLowerCase())) sheets.push(s);
+  return { doc: { format: 'kvar-ledger-workbook', version: 2, title: doc.title, sheets }, structure, busCols, compCols };
+}
+
+function sheetDoc(
+  name: string,
+  cells: CellContent[][],
+  columns: SheetDoc['columns'],
+  purpose: string,
+  own: SheetDoc | undefined,
+): SheetDoc {
+  const overrides: CellAt[] = [...(own?.overrides ?? [])];
+  return { name, cells, ...(columns ? { columns } : {}), purpose, ...(overrides.length > 0 ? { overrides } : {}) };
+}
+
+/** Listed generated cells over a sheet's own (the Site sheet: labels, units, notes, limits in use, cautions). */
+function overlayCells(own: SheetDoc, list: ReadonlyArray<readonly [number, number, CellContent]>): CellContent[][] {
+  const cells = copyRows(own.cells);
+  const over = overridesOf(own);
+  for (const [r, c, v] of list) if (!over.has(`${r},${c}`)) put(cells, r, c, v);
+  return cells;
+}
+
+export { compensationInputCols };
