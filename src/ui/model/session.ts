@@ -1,12 +1,25 @@
-// The open workbook: the formula engine holds every cell and its undo history; the layout (tab
-// order, column descriptions) sits beside it with a matching history. Every user action goes
-// through one method here and becomes exactly one undo step.
+// The open workbook: the formula engine holds every cell and its undo history; beside it the
+// layout (tab order, column descriptions), what each sheet holds as typed, and for a site
+// workbook the living model that keeps generated cells in step with the inputs. Every user action
+// goes through one method here and becomes exactly one undo step, whatever the model wrote to
+// follow it.
 import type { HyperFormula, SimpleCellRange } from 'hyperformula';
-import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
+import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
+import { isBuiltInSheet } from '../../core/workbook/layout.ts';
+import { renderWorkbook } from '../../core/workbook/render.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
-import { LayoutHistory, type Layout, type SheetMeta } from './sheetLayout.ts';
+import type { Layout, SheetMeta } from './sheetLayout.ts';
 import { sheetNameProblem } from './sheetNames.ts';
-import { SheetContents } from './sheetContents.ts';
+import { ContentStore, type Snapshot } from './contentStore.ts';
+import { History } from './history.ts';
+import { SiteModel, type Write } from './siteModel.ts';
+import { stateOf, type SiteState } from './siteState.ts';
+import { isSiteDoc, openSite, siteTitle, stripGenerated } from './siteOpen.ts';
+import { layoutOf } from './layoutOf.ts';
+import { readSettingsInputs } from '../../core/workbook/renderSettings.ts';
+import { HEADERS } from '../../core/workbook/layout.ts';
+import { siteEdit } from './siteEdits.ts';
+import { SessionError } from './sessionError.ts';
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -15,40 +28,41 @@ export type SessionChange =
   | { readonly kind: 'history' }
   | { readonly kind: 'title' };
 
-export class SessionError extends Error {}
+export { SessionError } from './sessionError.ts';
+
+interface Saved {
+  readonly layout: Layout;
+  readonly contents: Snapshot;
+  readonly site: SiteState | undefined;
+  readonly title: string;
+}
+
+const isFormula = (v: CellContent): v is string => typeof v === 'string' && v.startsWith('=');
 
 export class WorkbookSession {
-  private layout: Layout;
-  private readonly history = new LayoutHistory(UNDO_LIMIT);
+  private readonly history = new History<Saved>(UNDO_LIMIT);
   private readonly listeners = new Set<(c: SessionChange) => void>();
-  private readonly contents: SheetContents;
 
   private constructor(
     readonly engine: HyperFormula,
     private titleText: string,
-    layout: Layout,
-  ) {
-    this.layout = layout;
-    this.contents = new SheetContents(engine);
-  }
+    private layout: Layout,
+    readonly contents: ContentStore,
+    /** The living model, for a site workbook; undefined for any other workbook. */
+    readonly site: SiteModel | undefined,
+  ) {}
 
   static fromDoc(doc: WorkbookDoc): WorkbookSession {
-    const engine = createWorkbookEngine(doc.sheets.map((s) => ({ name: s.name, cells: s.cells })));
-    const order: number[] = [];
-    const meta = new Map<number, SheetMeta>();
-    for (const s of doc.sheets) {
-      const id = engine.getSheetId(s.name) as number;
-      order.push(id);
-      meta.set(id, {
-        ...(s.columns ? { columns: s.columns } : {}),
-        ...(s.purpose ? { purpose: s.purpose } : {}),
-      });
+    if (isSiteDoc(doc)) {
+      const o = openSite(doc);
+      return new WorkbookSession(o.engine, o.title, o.layout, o.contents, o.site);
     }
+    const engine = createWorkbookEngine(doc.sheets.map((s) => ({ name: s.name, cells: s.cells })));
+    const layout = layoutOf(engine, doc.sheets);
     engine.clearUndoStack();
-    const session = new WorkbookSession(engine, doc.title, { order, meta });
-    // What was opened is what the engine holds: no need to write every formula out again.
-    doc.sheets.forEach((s, i) => session.contents.seed(order[i] as number, s.cells));
-    return session;
+    const contents = new ContentStore();
+    doc.sheets.forEach((s, i) => contents.seed(layout.order[i] as number, s.cells));
+    return new WorkbookSession(engine, doc.title, layout, contents, undefined);
   }
 
   onChange(fn: (c: SessionChange) => void): () => void {
@@ -64,9 +78,15 @@ export class WorkbookSession {
     return this.titleText;
   }
 
+  /** The workbook title; for a site workbook it is the site name on the Site sheet. */
   setTitle(title: string): void {
     const t = title.trim() || 'Untitled site';
     if (t === this.titleText) return;
+    if (this.site) {
+      const { site } = this.site.ids;
+      this.setCells(site, [{ row: 1, col: 1, content: t }]);
+      return;
+    }
     this.titleText = t;
     this.emit({ kind: 'title' });
   }
@@ -89,36 +109,76 @@ export class WorkbookSession {
     return this.layout.meta.get(id) ?? {};
   }
 
-  /** One undoable step: the engine work, then the layout it leaves. */
-  private act(work: () => void, nextLayout?: (l: Layout) => Layout): void {
-    const before = this.layout;
-    work();
-    this.layout = nextLayout ? nextLayout(before) : before;
-    this.history.record(before, this.layout);
+  /** Is this sheet one Kvar Ledger keeps in step with the equipment (not deletable or renamable)? */
+  isBuiltIn(id: number): boolean {
+    return this.site !== undefined && this.site.role(id).kind !== 'user';
+  }
+
+  // ------------------------------------------------------------------ steps
+
+  private saved(): Saved {
+    return { layout: this.layout, contents: this.contents.snapshot(), site: this.site?.state, title: this.titleText };
+  }
+
+  private restore(s: Saved): void {
+    this.layout = s.layout;
+    this.contents.restore(s.contents);
+    if (this.site && s.site) this.site.state = s.site;
+    this.titleText = s.title;
+  }
+
+  /** One undoable step: `work` returns how many engine undo entries it used. */
+  private step(work: () => number): void {
+    const before = this.saved();
+    let entries = 0;
+    try {
+      entries = work();
+    } catch (e) {
+      // Put everything back as it was: the engine's entries of this step, then the state beside it.
+      for (let i = 0; i < entries; i++) this.engine.undo();
+      this.restore(before);
+      throw e;
+    }
+    if (entries === 0) return;
+    this.history.record({ engineEntries: entries, before, after: this.saved() });
+  }
+
+  /** Write cells to the engine and the contents, in one engine entry; false when there is nothing. */
+  private write(writes: readonly Write[], generated = false): boolean {
+    if (writes.length === 0) return false;
+    this.engine.batch(() => {
+      for (const w of writes) this.engine.setCellContents({ sheet: w.sheet, row: w.row, col: w.col }, w.content);
+    });
+    for (const w of writes) {
+      // Generated formulas are not kept as typed: the model writes them again when the file opens.
+      this.contents.set(w.sheet, w.row, w.col, generated && isFormula(w.content) ? null : w.content);
+    }
+    return true;
+  }
+
+  /** Several scattered single-cell writes as one step (an edit, a cut, a clear, a paste). */
+  setCells(sheetId: number, cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>): void {
+    if (cells.length === 0) return;
+    let structural = false;
+    this.step(() => {
+      if (!this.site) return this.write(cells.map((c) => ({ sheet: sheetId, ...c }))) ? 1 : 0;
+      const edit = siteEdit(this.site, this.contents, sheetId, cells);
+      let entries = this.write(edit.writes) ? 1 : 0;
+      const follow = edit.follow();
+      structural = follow.structural;
+      if (follow.rebuild) entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
+      else if (this.write(follow.writes, true)) entries++;
+      this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
+      return entries;
+    });
+    this.emit(structural ? { kind: 'rows', sheetId } : { kind: 'cells', sheetId });
   }
 
   /** Write a block of contents with its top-left at (row, col). */
   setBlock(sheetId: number, row: number, col: number, block: CellContent[][]): void {
     if (block.length === 0) return;
-    this.act(() => this.engine.setCellContents({ sheet: sheetId, row, col }, block));
-    this.contents.patch(
-      sheetId,
-      block.flatMap((line, r) => line.map((_, c) => ({ row: row + r, col: col + c }))),
-    );
-    this.emit({ kind: 'cells', sheetId });
-  }
-
-  /** Several scattered single-cell writes as one step (an edit, a cut, a clear). */
-  setCells(sheetId: number, cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>): void {
-    if (cells.length === 0) return;
-    this.act(() =>
-      this.engine.batch(() => {
-        for (const c of cells)
-          this.engine.setCellContents({ sheet: sheetId, row: c.row, col: c.col }, c.content);
-      }),
-    );
-    this.contents.patch(sheetId, cells);
-    this.emit({ kind: 'cells', sheetId });
+    const cells = block.flatMap((line, r) => line.map((content, c) => ({ row: row + r, col: col + c, content })));
+    this.setCells(sheetId, cells);
   }
 
   /** Fill `target` from `source` the way dragging a fill handle does: relative references move. */
@@ -135,37 +195,62 @@ export class WorkbookSession {
     return this.engine.getFillRangeData(source, target, true) as CellContent[][];
   }
 
+  private rowsRefused(sheetId: number, at: number): void {
+    if (!this.site) return;
+    const role = this.site.role(sheetId);
+    const name = this.sheetName(sheetId);
+    if (role.kind === 'site' || role.kind === 'buses' || role.kind === 'compensation') {
+      throw new SessionError(
+        `Rows of the ${name} sheet follow the site (one row per setting, case or bus); add or remove equipment instead.`,
+      );
+    }
+    if (role.kind === 'equipment' && at === 0) {
+      throw new SessionError(`The header row of ${name} names the columns the formulas and the export rely on; it stays.`);
+    }
+  }
+
   insertRows(sheetId: number, at: number, count: number): void {
-    this.act(() => this.engine.addRows(sheetId, [at, count]));
-    this.contents.forget();
+    this.rowsRefused(sheetId, at);
+    this.step(() => {
+      this.engine.addRows(sheetId, [at, count]);
+      this.contents.insertRows(sheetId, at, count);
+      const role = this.site?.role(sheetId);
+      if (!this.site || role?.kind !== 'equipment') return 1;
+      return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, count), true) ? 1 : 0);
+    });
     this.emit({ kind: 'rows', sheetId });
   }
 
   removeRows(sheetId: number, at: number, count: number): void {
-    this.act(() => this.engine.removeRows(sheetId, [at, count]));
-    this.contents.forget();
+    this.rowsRefused(sheetId, at);
+    this.step(() => {
+      this.engine.removeRows(sheetId, [at, count]);
+      this.contents.removeRows(sheetId, at, count);
+      const role = this.site?.role(sheetId);
+      if (!this.site || role?.kind !== 'equipment') return 1;
+      return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, -count), true) ? 1 : 0);
+    });
     this.emit({ kind: 'rows', sheetId });
   }
+
+  // ------------------------------------------------------------------ sheets
 
   addSheet(name: string, afterId?: number): number {
     const problem = sheetNameProblem(name, this.sheetNames());
     if (problem) throw new SessionError(problem);
     let id = -1;
-    this.act(
-      () => {
-        this.engine.addSheet(name);
-        id = this.engine.getSheetId(name) as number;
-      },
-      (l) => {
-        const order = [...l.order];
-        const pos = afterId === undefined ? order.length : order.indexOf(afterId) + 1;
-        order.splice(pos, 0, id);
-        const meta = new Map(l.meta);
-        meta.set(id, {});
-        return { order, meta };
-      },
-    );
-    this.contents.forget(id);
+    this.step(() => {
+      this.engine.addSheet(name);
+      id = this.engine.getSheetId(name) as number;
+      const order = [...this.layout.order];
+      const pos = afterId === undefined ? order.length : order.indexOf(afterId) + 1;
+      order.splice(pos, 0, id);
+      const meta = new Map(this.layout.meta);
+      meta.set(id, {});
+      this.layout = { order, meta };
+      this.contents.seed(id, []);
+      return 1;
+    });
     this.emit({ kind: 'sheets' });
     return id;
   }
@@ -173,77 +258,163 @@ export class WorkbookSession {
   renameSheet(id: number, name: string): void {
     const current = this.sheetName(id);
     if (name === current) return;
+    if (this.isBuiltIn(id)) {
+      throw new SessionError(`${current} is one of the site's own sheets: formulas, the CLI and the export find it by this name.`);
+    }
     const problem = sheetNameProblem(name, this.sheetNames(), current);
     if (problem) throw new SessionError(problem);
-    this.act(() => this.engine.renameSheet(id, name));
-    this.contents.forget();
+    if (this.site && isBuiltInSheet(name, [])) throw new SessionError(`"${name}" is the name of one of the site's own sheets.`);
+    this.step(() => {
+      this.engine.renameSheet(id, name);
+      this.refreshFormulas();
+      return 1;
+    });
     this.emit({ kind: 'sheets' });
   }
 
   removeSheet(id: number): void {
     if (this.layout.order.length <= 1) throw new SessionError('A workbook keeps at least one sheet.');
-    this.act(
-      () => this.engine.removeSheet(id),
-      (l) => {
-        const meta = new Map(l.meta);
-        meta.delete(id);
-        return { order: l.order.filter((x) => x !== id), meta };
-      },
-    );
-    this.contents.forget();
+    if (this.isBuiltIn(id)) {
+      throw new SessionError(
+        `${this.sheetName(id)} is one of the site's own sheets: it can be emptied but not deleted, since the buses, the compensation and the export are built from it.`,
+      );
+    }
+    this.step(() => {
+      this.engine.removeSheet(id);
+      const meta = new Map(this.layout.meta);
+      meta.delete(id);
+      this.layout = { order: this.layout.order.filter((x) => x !== id), meta };
+      this.contents.drop(id);
+      this.refreshFormulas();
+      return 1;
+    });
     this.emit({ kind: 'sheets' });
   }
 
+  /** After the engine rewrote references (a sheet renamed or removed): formulas as it now holds them. */
+  private refreshFormulas(): void {
+    for (const id of this.layout.order) {
+      this.contents.get(id).forEach((line, r) =>
+        line.forEach((v, c) => {
+          if (isFormula(v)) this.contents.set(id, r, c, this.engine.getCellFormula({ sheet: id, row: r, col: c }) ?? v);
+        }),
+      );
+    }
+  }
+
+  // ------------------------------------------------------------------ undo
+
   get canUndo(): boolean {
-    return this.history.canUndo && this.engine.isThereSomethingToUndo();
+    return this.history.canUndo;
   }
 
   get canRedo(): boolean {
-    return this.history.canRedo && this.engine.isThereSomethingToRedo();
+    return this.history.canRedo;
   }
 
   undo(): boolean {
-    if (!this.canUndo) return false;
-    this.engine.undo();
-    this.contents.forget();
-    this.layout = this.history.undo() ?? this.layout;
+    const s = this.history.undo();
+    if (!s) return false;
+    for (let i = 0; i < s.engineEntries; i++) this.engine.undo();
+    this.restore(s.before);
     this.emit({ kind: 'history' });
     return true;
   }
 
   redo(): boolean {
-    if (!this.canRedo) return false;
-    this.engine.redo();
-    this.contents.forget();
-    this.layout = this.history.redo() ?? this.layout;
+    const s = this.history.redo();
+    if (!s) return false;
+    for (let i = 0; i < s.engineEntries; i++) this.engine.redo();
+    this.restore(s.after);
     this.emit({ kind: 'history' });
     return true;
   }
 
-  /** Contents of a sheet as typed (formulas as text), trailing blanks trimmed. Do not modify. */
-  sheetContents(id: number): CellContent[][] {
+  // ------------------------------------------------------------------ contents
+
+  /** Contents of a sheet as typed (generated formulas left out), trailing blanks trimmed. Do not modify. */
+  sheetContents(id: number): readonly (readonly CellContent[])[] {
     return this.contents.get(id);
   }
 
+  /** A cell as the user would edit it: what was typed, or the formula Kvar Ledger wrote there. */
   cellContent(sheetId: number, row: number, col: number): CellContent {
-    return this.contents.cell(sheetId, row, col);
+    const typed = this.contents.cell(sheetId, row, col);
+    if (typed !== null) return isFormula(typed) ? (this.engine.getCellFormula({ sheet: sheetId, row, col }) ?? typed) : typed;
+    return this.engine.getCellFormula({ sheet: sheetId, row, col }) ?? null;
   }
 
+  /** Is this cell one Kvar Ledger writes, holding what the user typed over it? */
+  isOverride(sheetId: number, row: number, col: number): boolean {
+    return this.site?.isOverride(sheetId, row, col) ?? false;
+  }
+
+  /** The workbook as saved: what was typed (formulas as the engine holds them now) and the typed-over cells. */
   toDoc(): WorkbookDoc {
     const sheets: SheetDoc[] = this.layout.order.map((id) => {
       const m = this.meta(id);
+      const cells = this.contents.get(id).map((line, r) =>
+        line.map((v, c) => (isFormula(v) ? (this.engine.getCellFormula({ sheet: id, row: r, col: c }) ?? v) : v)),
+      );
+      const over = [...(this.site?.state.overrides.get(id) ?? [])].map((k) => k.split(',').map(Number) as unknown as CellAt);
       return {
         name: this.sheetName(id),
-        cells: this.sheetContents(id),
+        cells,
         ...(m.columns ? { columns: m.columns } : {}),
         ...(m.purpose ? { purpose: m.purpose } : {}),
+        ...(over.length > 0 ? { overrides: over.sort((a, b) => a[0] - b[0] || a[1] - b[1]) } : {}),
       };
     });
-    return { format: 'kvar-ledger-workbook', version: 1, title: this.titleText, sheets };
+    return { format: 'kvar-ledger-workbook', version: this.site ? 2 : 1, title: this.titleText, sheets };
+  }
+
+  /** Every built-in sheet written anew from the inputs (the cases or the Site layout changed). */
+  private rebuild(caseRenames: ReadonlyMap<string, string>): boolean {
+    const site = this.site as SiteModel;
+    const doc = renameCaseColumns(this.toDoc(), caseRenames);
+    const r = renderWorkbook(doc, { flavour: 'live' });
+    const ids = site.ids;
+    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp];
+    this.engine.batch(() => {
+      for (const id of builtIn) {
+        const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
+        this.engine.setSheetContent(id, sheet.cells);
+      }
+    });
+    const meta = new Map(this.layout.meta);
+    const overrides = new Map<number, Set<string>>();
+    for (const id of builtIn) {
+      const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
+      meta.set(id, { ...meta.get(id), ...(sheet.columns ? { columns: sheet.columns } : {}), purpose: sheet.purpose ?? '' });
+      overrides.set(id, new Set((sheet.overrides ?? []).map(([a, b]) => `${a},${b}`)));
+    }
+    this.layout = { order: this.layout.order, meta };
+    const notes = readSettingsInputs(r.doc.sheets[0]).notes.length;
+    site.state = { ...stateOf(r, overrides, notes), retired: site.state.retired };
+    for (const id of builtIn) {
+      const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
+      this.contents.replace(id, stripGenerated(site, id, sheet.cells));
+    }
+    return true;
   }
 
   destroy(): void {
     this.listeners.clear();
     this.engine.destroy();
   }
+}
+
+/** A renamed case's load column keeps its values: its header is renamed before the sheets are written anew. */
+function renameCaseColumns(doc: WorkbookDoc, renames: ReadonlyMap<string, string>): WorkbookDoc {
+  if (renames.size === 0) return doc;
+  const headers = new Map([...renames].map(([a, b]) => [HEADERS.loadCase(a), HEADERS.loadCase(b)]));
+  return {
+    ...doc,
+    sheets: doc.sheets.map((s) => {
+      const first = s.cells[0];
+      if (!first || !first.some((h) => typeof h === 'string' && headers.has(h))) return s;
+      const row = first.map((h) => (typeof h === 'string' ? (headers.get(h) ?? h) : h));
+      return { ...s, cells: [row, ...s.cells.slice(1)] };
+    }),
+  };
 }

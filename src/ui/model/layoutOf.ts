@@ -1,0 +1,15 @@
+import type { HyperFormula } from 'hyperformula';
+import type { SheetDoc } from '../../core/workbook/document.ts';
+import type { Layout, SheetMeta } from './sheetLayout.ts';
+
+/** Engine sheet ids in document order, with each sheet's column descriptions and purpose. */
+export function layoutOf(engine: HyperFormula, sheets: readonly SheetDoc[]): Layout {
+  const order: number[] = [];
+  const meta = new Map<number, SheetMeta>();
+  for (const s of sheets) {
+    const id = engine.getSheetId(s.name) as number;
+    order.push(id);
+    meta.set(id, { ...(s.columns ? { columns: s.columns } : {}), ...(s.purpose ? { purpose: s.purpose } : {}) });
+  }
+  return { order, meta };
+}
