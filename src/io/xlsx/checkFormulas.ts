@@ -4,7 +4,7 @@
 import { findFunction } from '../../core/functions/index.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { createEngine, registeredFunctionNames, type OwnPlugin } from '../../engine/index.ts';
-import { tokenize } from '../formula/tokenize.ts';
+import { tokenize } from '../formula/index.ts';
 import { findCircularCells, type CellAt } from './cycles.ts';
 import type { FileProblem } from './fileProblem.ts';
 import { columnLetter } from './sheetNames.ts';

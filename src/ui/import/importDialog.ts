@@ -5,6 +5,7 @@
 import type { SiteSettings } from '../../core/site/model.ts';
 import {
   applyImport,
+  DEFAULT_IMPORT_SETTINGS,
   describeProblem,
   mappingTargets,
   MAPPING_MEMORY_STORAGE_KEY,
@@ -19,7 +20,6 @@ import {
   type ImportPreview,
   type MappingProposal,
 } from '../../io/import/index.ts';
-import { DEFAULT_IMPORT_SETTINGS } from '../../io/import/preview.ts';
 import { el } from '../dom.ts';
 import { openDialog } from '../dialogs/dialog.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
