@@ -33,7 +33,7 @@ describe('kvar-ledger eval', () => {
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout) as Array<Record<string, unknown>>;
-    // At full load Q = Qr = P_out/η · tan(acos cos φ) (functions.md, KVAR.MOTOR).
+    // At full load Q = Qr = P_out/η · tan(acos cos φ) (KVAR.MOTOR in FUNCTIONS.md).
     const qr = (75 / 0.95) * (Math.sqrt(1 - 0.86 ** 2) / 0.86);
     expect(out).toEqual([
       { formula: '=KVAR.MOTOR(75,0.95,0.86)', value: expect.closeTo(qr, 10) },

@@ -115,7 +115,7 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
     expect(at('Capacitor output day (kvar)')).toBe(fixed + step * at('Steps in day'));
   });
 
-  it('resonance order of the whole bank with 7 % detuning, the old 50 kvar plain capacitor included: 1/√(p/100 + Qc/Ssc) (functions.md RESONANCE.ORDER)', () => {
+  it('resonance order of the whole bank with 7 % detuning, the old 50 kvar plain capacitor included: 1/√(p/100 + Qc/Ssc) (RESONANCE.ORDER in FUNCTIONS.md)', () => {
     const ssc = at('Short-circuit power (MVA)');
     // CB2: 50 kvar at its rated 0.4 kV, no detuning: it counts in full.
     expect(at('Plain capacitors installed (kvar)')).toBe(50);
