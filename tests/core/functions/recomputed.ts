@@ -114,8 +114,8 @@ export const RECOMPUTED: ReadonlyMap<string, () => number> = new Map<string, () 
   ['KVAR.LINE(400, 0, 1, 10, 1)', () => lineNetKvarByPhasors(400, 0, 1, 10, 1)],
   ['KVAR.LINE(220, 150000, 1.3, 8.8, 60)', () => lineNetKvarByPhasors(220, 150000, 1.3, 8.8, 60)],
   ['LINE.SIL(400, 1, 10)', () => silByBisection(400, 1, 10)],
-  // From the x and b of the note (Kundur Table 6.1, 230 kV, from memory): SIL = U²·√(b/x).
-  ['LINE.SIL(230, 1.29445, 8.9417)', () => 230 ** 2 * Math.sqrt(3.371e-6 / 0.488)],
+  // The L and C are Kundur's x and b at 60 Hz (Table 6.1, 230 kV, from memory) per km.
+  ['LINE.SIL(230, 1.29445, 8.9417)', () => silByBisection(230, 1.29445, 8.9417)],
   ['KVAR.CAPBANK(50, 0.44, 0.4)', () => capacitorStepKvar(50, 0.44, 0.4)],
   ['KVAR.CAPBANK(50, 0.44, 0.4, 0, 60, 50)', () => capacitorStepKvar(50, 0.44, 0.4, 0, 60, 50)],
   ['KVAR.CAPBANK(80, 0.525, 0.4, 7)', () => capacitorStepKvar(80, 0.525, 0.4, 7)],
