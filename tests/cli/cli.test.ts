@@ -113,6 +113,7 @@ describe('kvar-ledger functions', () => {
       for (const p of ref.params) expect(p.allowed.length).toBeGreaterThan(0);
     }
     const motor = refs.find((f) => f.name === 'KVAR.MOTOR');
+    expect(motor).toBeDefined();
     if (motor) {
       expect(motor.signature).toBe('KVAR.MOTOR(p_out_kw, eff, cos_phi, [load=1], [i0_pct])');
       expect(motor.params[1]).toMatchObject({ name: 'eff', allowed: '(0, 1]', optional: false });
