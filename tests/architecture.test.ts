@@ -3,10 +3,11 @@
 //   libraries, so it runs anywhere and tests alone;
 // - only src/engine imports the formula engine library, so an upgrade is met in one folder;
 // - a folder with an index.ts is entered through it from outside;
-// - no module imports itself through a loop (type imports count: they tie modules together too).
+// - no module imports itself through a loop (type imports count: they tie modules together too);
+// - src/core has no bare `catch {}`: a caught error is named and handled, so a bug cannot hide.
 // The allowlists name files other people are rewriting now; an entry that no longer applies fails
 // the test, so the lists only shrink.
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -40,6 +41,9 @@ const INDEX_BYPASS_ALLOWED = [
   'ui/app/handOff.ts → io/xlsx/fileProblem.ts',
   'ui/app/handOff.ts → io/xlsx/importKvar.ts',
 ];
+
+/** Core modules with a bare catch left in a file the lead is rewriting (the workbook builder). */
+const BARE_CATCH_ALLOWED = ['core/workbook/buildChoices.ts'];
 
 /** Violations as "file → target" for every core module that reaches outside core's layer. */
 export function coreViolations(graph: ReadonlyMap<string, ModuleImports>): string[] {
@@ -85,6 +89,13 @@ describe('architecture', () => {
 
   it('has no import loops', () => {
     expect(findCycles(graph)).toEqual([]);
+  });
+
+  it('src/core catches no error without naming it', () => {
+    const bare = [...graph.keys()]
+      .filter((f) => f.startsWith('core/'))
+      .filter((f) => /\bcatch\s*\{/.test(readFileSync(join(src, f), 'utf8')));
+    expect(beyond(bare, BARE_CATCH_ALLOWED)).toEqual({ unexpected: [], stale: [] });
   });
 });
 
