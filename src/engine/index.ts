@@ -3,12 +3,15 @@
 import { DetailedCellError, HyperFormula } from 'hyperformula';
 import type { CellValue, ConfigParams, SerializedNamedExpression } from 'hyperformula';
 import type { CellContent } from '../core/workbook/document.ts';
-import { engineConfig } from './config.ts';
+import { ENGINE_LANGUAGE, engineConfig } from './config.ts';
 import { registerCataloguePlugin, registerOwnPlugin, standardPlugins, type OwnPlugin } from './plugins.ts';
 import { BUS_ROLLUP_PLUGIN } from './rollupPlugin.ts';
 
 export { CATALOGUE_PLUGIN, registerOwnPlugin, type OwnPlugin } from './plugins.ts';
 export { engineConfig, ENGINE_LICENSE_KEY } from './config.ts';
+// The engine library's types, for modules that hold an engine or read its values. Only src/engine
+// imports the library itself (tests/architecture.test.ts holds that line).
+export type { CellValue, ExportedChange, HyperFormula, SimpleCellRange } from 'hyperformula';
 
 export interface SheetInput {
   readonly name: string;
@@ -87,6 +90,16 @@ export function toResult(v: CellValue | CellValue[][]): CellResult {
   if (v instanceof DetailedCellError)
     return { ok: false, error: v.value, message: v.message || `the formula evaluates to ${v.value}` };
   return { ok: true, value: v };
+}
+
+/** Is this engine value an error (e.g. #N/A with our message)? */
+export function isEngineError(v: unknown): boolean {
+  return v instanceof DetailedCellError;
+}
+
+/** Every function name the engine knows now, in the language formulas are written in. */
+export function registeredFunctionNames(): string[] {
+  return HyperFormula.getRegisteredFunctionNames(ENGINE_LANGUAGE);
 }
 
 function sheetIdOf(hf: HyperFormula, sheet: string | number): number {

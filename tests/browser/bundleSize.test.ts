@@ -1,4 +1,4 @@
-// The download budget of the page (issue 3, item 10), measured on a fresh build.
+// The download budget of the page (README, download size), measured on a fresh build.
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';

@@ -10,7 +10,7 @@ import { gzipSync } from 'node:zlib';
 import { build } from 'vite';
 
 export const ROOT = resolve(import.meta.dirname, '../..');
-/** The budget of issue 3: initial JavaScript at most 400 KB gzip (kB = 1000 bytes, as Vite prints). */
+/** The page's budget (README, download size): initial JavaScript at most 400 kB gzip (kB = 1000 bytes, as Vite prints). */
 export const INITIAL_JS_BUDGET = 400_000;
 
 interface ManifestChunk {

@@ -33,7 +33,7 @@ describe('kvar-ledger eval', () => {
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout) as Array<Record<string, unknown>>;
-    // At full load Q = Qr = P_out/η · tan(acos cos φ) (functions.md, KVAR.MOTOR).
+    // At full load Q = Qr = P_out/η · tan(acos cos φ) (KVAR.MOTOR in FUNCTIONS.md).
     const qr = (75 / 0.95) * (Math.sqrt(1 - 0.86 ** 2) / 0.86);
     expect(out).toEqual([
       { formula: '=KVAR.MOTOR(75,0.95,0.86)', value: expect.closeTo(qr, 10) },
@@ -113,6 +113,7 @@ describe('kvar-ledger functions', () => {
       for (const p of ref.params) expect(p.allowed.length).toBeGreaterThan(0);
     }
     const motor = refs.find((f) => f.name === 'KVAR.MOTOR');
+    expect(motor).toBeDefined();
     if (motor) {
       expect(motor.signature).toBe('KVAR.MOTOR(p_out_kw, eff, cos_phi, [load=1], [i0_pct])');
       expect(motor.params[1]).toMatchObject({ name: 'eff', allowed: '(0, 1]', optional: false });

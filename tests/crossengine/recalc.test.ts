@@ -138,14 +138,15 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(sameValue({ ok: true, value: planted!.app }, lo)).toEqual({ ok: true, why: expect.any(String) });
   });
 
+  // The fault variant and the hand-made workbook hold error cells on purpose: at least one must be met.
   it.each([
-    'cold-store',
-    'pumping-station',
-    'solar-collector',
-    'invented-quarry',
-    'invented-quarry-fault',
-    'hand-made',
-  ])('%s: every formula cell equals the app’s value', (base) => {
+    ['cold-store', 0],
+    ['pumping-station', 0],
+    ['solar-collector', 0],
+    ['invented-quarry', 0],
+    ['invented-quarry-fault', 1],
+    ['hand-made', 1],
+  ] as const)('%s: every formula cell equals the app’s value', (base, leastErrors) => {
     const book = books.find((b) => b.base === base);
     expect(book, `no workbook ${base}`).toBeDefined();
     const hf = createEngine(book!.doc.sheets);
@@ -173,7 +174,7 @@ describe('LibreOffice Calc recalculating our exports', () => {
     hf.destroy();
     expect(mismatches.slice(0, 20)).toEqual([]);
     expect(compared).toBeGreaterThan(base === 'hand-made' ? 15 : 100);
-    if (base === 'invented-quarry-fault' || base === 'hand-made') expect(errors).toBeGreaterThan(0);
+    expect(errors).toBeGreaterThanOrEqual(leastErrors);
   });
 
   it('shows no unknown-name error anywhere', () => {

@@ -69,7 +69,7 @@ export const KVAR_CABLE = defineFunction({
       args: [33, 0.22, 4.5, 60],
       expect: -406.4379,
       tol: 1e-6,
-      note: '4.5 km of 33 kV cable at 60 Hz (formula)',
+      note: '4.5 km of 33 kV cable at 60 Hz (recomputed in the tests)',
     },
     {
       args: [20, 0.31, -1],
@@ -121,7 +121,12 @@ export const CABLE_CAP = defineFunction({
       tol: 0.01,
       note: '12/20 kV XLPE, 5.5 mm insulation (IEC 60502-2) on a 19.4 mm screened conductor: ≈ 0.31 µF/km (derived)',
     },
-    { args: [8, 20, 10], expect: 0.6411978, tol: 1e-6, note: 'PVC, Di/dc = 2: 8/(18·ln 2) (formula)' },
+    {
+      args: [8, 20, 10],
+      expect: 0.6411978,
+      tol: 1e-6,
+      note: 'PVC, Di/dc = 2: 8/(18·ln 2) (recomputed in the tests)',
+    },
     {
       args: [2.5, 20, 25],
       expect: { error: 'argument 3 (d_cond_mm) must be less than argument 2 (d_ins_mm); got 25 ≥ 20' },
@@ -169,7 +174,7 @@ export const KVAR_LINE = defineFunction({
       args: [220, 150000, 1.3, 8.8, 60],
       expect: 3363.116,
       tol: 1e-6,
-      note: '60 km of 220 kV line carrying 150 MVA, above its SIL: absorbs (formula)',
+      note: '60 km of 220 kV line carrying 150 MVA, above its SIL: absorbs (recomputed in the tests)',
     },
     {
       args: [400, 0, 0, 10, 1],

@@ -75,19 +75,19 @@ export const KVAR_CAPBANK = defineFunction({
       args: [50, 0.44, 0.4],
       expect: -41.3,
       tol: 1.5e-3,
-      note: '50 kvar / 440 V unit at 400 V gives 41.3 kvar (published)',
+      note: '50 kvar / 440 V unit at 400 V gives 41.3 kvar (output ∝ U²; recomputed in the tests)',
     },
     {
       args: [50, 0.44, 0.4, 0, 60, 50],
       expect: -34.4,
       tol: 1.5e-3,
-      note: 'the same unit rated at 60 Hz, run at 50 Hz: 34.4 kvar (published)',
+      note: 'the same unit rated at 60 Hz, run at 50 Hz: 34.4 kvar (output ∝ f; recomputed in the tests)',
     },
     {
       args: [80, 0.525, 0.4, 7],
       expect: -49.9,
       tol: 1.5e-3,
-      note: '80 kvar / 525 V capacitors with a 7 % reactor at 400 V: about 49.9 kvar (published worked example)',
+      note: '80 kvar / 525 V capacitors with a 7 % reactor at 400 V: about 49.9 kvar (a worked example from memory; recomputed in the tests)',
     },
     {
       args: [50, 0.4, 0.4, 14, 50, 150],
@@ -114,15 +114,23 @@ export const CAPBANK_UCAP = defineFunction({
     '(plus margin for harmonics and overvoltage).',
   params: [{ name: 'u_kv', unit: 'kV', doc: 'bus voltage, line-to-line', domain: POSITIVE }, P_DETUNE],
   result: { unit: 'kV', doc: 'fundamental voltage across the capacitors, line-to-line' },
-  source: { kind: 'published', ref: 'series L–C branch: U_C = U·X_C/(X_C − X_L) = U/(1 − p)' },
+  source: {
+    kind: 'common practice',
+    ref: 'circuit theory of the series L–C branch: U_C = U·X_C/(X_C − X_L) = U/(1 − p)',
+  },
   examples: [
     {
       args: [0.4, 6],
       expect: 0.4255,
       tol: 2e-4,
-      note: '400 V with a 6 % reactor: 425.5 V across the capacitors (published)',
+      note: '400 V with a 6 % reactor: 425.5 V across the capacitors (recomputed in the tests)',
     },
-    { args: [0.69, 7], expect: 0.7419355, tol: 1e-6, note: '690 V with 7 %: 0.69/0.93 (formula)' },
+    {
+      args: [0.69, 7],
+      expect: 0.7419355,
+      tol: 1e-6,
+      note: '690 V with 7 %: 0.69/0.93 (recomputed in the tests)',
+    },
     {
       args: [0.4, 100],
       expect: { error: 'argument 2 (p_pct) must be in [0, 100); got 100' },
@@ -141,11 +149,29 @@ export const CAPBANK_TUNE = defineFunction({
     'Harmonic order at which the series reactor and the capacitors resonate: 5.67 % tunes to 4.2 (210 Hz at 50 Hz), 7 % to 3.78, 14 % to 2.67.',
   params: [{ ...P_DETUNE, domain: { lo: 0, hi: 100, loOpen: true, hiOpen: true } }],
   result: { unit: '1', doc: 'tuning order (multiple of the fundamental frequency)' },
-  source: { kind: 'published', ref: 'series resonance of L and C: n = √(X_C/X_L) = 1/√p' },
+  source: {
+    kind: 'common practice',
+    ref: 'circuit theory, series resonance of L and C: n = √(X_C/X_L) = 1/√p (5.67, 7 and 14 % are the usual detuning factors)',
+  },
   examples: [
-    { args: [5.67], expect: 4.2, tol: 1.5e-3, note: '5.67 % → 4.20 (210 Hz at 50 Hz), published' },
-    { args: [7], expect: 3.78, tol: 1.5e-3, note: '7 % → 3.78 (189 Hz), published' },
-    { args: [14], expect: 2.67, tol: 2e-3, note: '14 % → 2.67 (134 Hz), published' },
+    {
+      args: [5.67],
+      expect: 4.2,
+      tol: 1.5e-3,
+      note: '5.67 % → 4.20 (210 Hz at 50 Hz), common practice; recomputed in the tests',
+    },
+    {
+      args: [7],
+      expect: 3.78,
+      tol: 1.5e-3,
+      note: '7 % → 3.78 (189 Hz), common practice; recomputed in the tests',
+    },
+    {
+      args: [14],
+      expect: 2.67,
+      tol: 2e-3,
+      note: '14 % → 2.67 (134 Hz), common practice; recomputed in the tests',
+    },
     {
       args: [0],
       expect: { error: 'argument 1 (p_pct) must be in (0, 100); got 0' },
@@ -169,9 +195,9 @@ export const KVAR_REACTOR = defineFunction({
     {
       args: [1000, 33, 34.65],
       expect: 1102.5,
-      note: '1 Mvar / 33 kV reactor at 105 % voltage absorbs 1.05² as much',
+      note: '1 Mvar / 33 kV reactor at 105 % voltage absorbs 1.05² as much (recomputed in the tests)',
     },
-    { args: [500, 20], expect: 500, note: 'operating voltage omitted: the rating' },
+    { args: [500, 20], expect: 500, note: 'operating voltage omitted: the rating (recomputed in the tests)' },
     {
       args: [500, 0],
       expect: { error: 'argument 2 (u_rated_kv) must be > 0; got 0' },

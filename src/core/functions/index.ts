@@ -1,5 +1,5 @@
 // The only list of catalogue functions. Adding a function: write its spec in a family file,
-// then add it here (in the order of functions.md).
+// then add it here. This order is the order of FUNCTIONS.md and the help panel.
 import type { FunctionSpec } from '../registry/spec.ts';
 import { COSPHI, KVA_TOTAL, TANPHI } from './powerTriangle.ts';
 import { KVAR_GEN, KVAR_GEN_MAX, KVAR_LOAD, KVAR_MOTOR, KVAR_MOTORCAP_MAX, KW_MOTOR } from './loads.ts';

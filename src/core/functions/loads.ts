@@ -62,9 +62,13 @@ export const KVAR_LOAD = defineFunction({
       args: [650, 0.65],
       expect: 760,
       tol: 1e-3,
-      note: 'published textbook worked example: 650 kW at 0.65 draws ≈ 760 kvar (all of it to be compensated for 1.00)',
+      note: 'a textbook worked example recalled from memory: 650 kW at 0.65 draws ≈ 760 kvar, all of it to be compensated for 1.00 (recomputed in the tests)',
     },
-    { args: [400, 0.8, true], expect: -300, note: '3-4-5 triangle, leading: delivered kvar' },
+    {
+      args: [400, 0.8, true],
+      expect: -300,
+      note: '3-4-5 triangle, leading: delivered kvar (recomputed in the tests)',
+    },
     {
       args: [100, 1.2],
       expect: { error: 'argument 2 (cos_phi) must be in (0, 1]; got 1.2' },
@@ -98,7 +102,7 @@ export const KW_MOTOR = defineFunction({
       args: [37, 0.939, 0.75],
       expect: 29.55272,
       tol: 1e-6,
-      note: 'IE3 4-pole 37 kW (93.9 %, published) at three-quarter load',
+      note: 'IE3 4-pole 37 kW, 93.9 % (IEC 60034-30-1), at three-quarter load',
     },
     {
       args: [11, 91.4],
@@ -149,19 +153,19 @@ export const KVAR_MOTOR = defineFunction({
       args: [90, 0.95, 0.85],
       expect: 58.71262,
       tol: 1e-6,
-      note: 'full load: Qr = 90/0.95·tan(acos 0.85) (formula)',
+      note: 'full load: Qr = 90/0.95·tan(acos 0.85) (recomputed in the tests)',
     },
     {
       args: [90, 0.95, 0.85, 0.5],
       expect: 45.50228,
       tol: 1e-6,
-      note: 'half load, assumed Q0 = 0.7·Qr: Q = 0.775·Qr',
+      note: 'half load, assumed Q0 = 0.7·Qr: Q = 0.775·Qr (recomputed in the tests)',
     },
     {
       args: [90, 0.95, 0.85, 0.5, 30],
       expect: 39.75555,
       tol: 1e-6,
-      note: 'half load with i0 = 30 %: Q0 = 0.3·90/(0.95·0.85)',
+      note: 'half load with i0 = 30 %: Q0 = 0.3·90/(0.95·0.85) (recomputed in the tests)',
     },
     {
       args: [90, 0.95, 0.85, 1, 60],
@@ -209,9 +213,14 @@ export const KVAR_MOTORCAP_MAX = defineFunction({
       args: [0.4, 60],
       expect: 37.4123,
       tol: 1e-6,
-      note: '400 V motor with 60 A no-load current: 0.9·√3·0.4·60',
+      note: '400 V motor with 60 A no-load current: 0.9·√3·0.4·60 (recomputed in the tests)',
     },
-    { args: [6.6, 12], expect: 123.4606, tol: 1e-6, note: '6.6 kV motor, 12 A no-load current' },
+    {
+      args: [6.6, 12],
+      expect: 123.4606,
+      tol: 1e-6,
+      note: '6.6 kV motor, 12 A no-load current (recomputed in the tests)',
+    },
     { args: [0, 60], expect: { error: 'argument 1 (u_kv) must be > 0; got 0' }, note: 'no voltage' },
   ],
   compute: ([u, i0]) => motorCapacitorMax(num(u), num(i0)),
@@ -246,7 +255,7 @@ export const KVAR_GEN = defineFunction({
       args: [600, 0.95, true],
       expect: 197.2105,
       tol: 1e-6,
-      note: 'under-excited at 0.95: absorbs P·0.3287 (0.95 band edge)',
+      note: 'under-excited at 0.95: absorbs P·0.3287, the edge of the FERC Order 827 band',
     },
     {
       args: [1000, 0],
@@ -276,8 +285,17 @@ export const KVAR_GEN_MAX = defineFunction({
     ref: 'synchronous machine capability curve, armature-current limit (e.g. Kundur, Power System Stability and Control §5.4)',
   },
   examples: [
-    { args: [1250, 1000], expect: 750, note: '1 250 kVA rated at 0.8: 750 kvar at 1 000 kW' },
-    { args: [2000, 500], expect: 1936.492, tol: 1e-6, note: 'light load: capability close to the rating' },
+    {
+      args: [1250, 1000],
+      expect: 750,
+      note: '1 250 kVA rated at 0.8 (common practice): 750 kvar at 1 000 kW',
+    },
+    {
+      args: [2000, 500],
+      expect: 1936.492,
+      tol: 1e-6,
+      note: 'light load: capability close to the rating (recomputed in the tests)',
+    },
     {
       args: [100, 120],
       expect: { error: 'argument 2 (p_kw) must not exceed argument 1 (s_kva); got 120 > 100' },

@@ -21,12 +21,12 @@ export const KVA_TOTAL = defineFunction({
     ref: 'IEC 60050-131 (131-11-41 apparent power; S² = P² + Q² for sinusoidal quantities)',
   },
   examples: [
-    { args: [300, 400], expect: 500, note: 'the 3-4-5 triangle; exact' },
+    { args: [300, 400], expect: 500, note: 'the 3-4-5 triangle; exact (recomputed in the tests)' },
     {
       args: [650, -760],
       expect: 1000.0499987500625,
       tol: 1e-12,
-      note: 'delivered Q gives the same magnitude as absorbed',
+      note: 'delivered Q gives the same magnitude as absorbed (recomputed in the tests)',
     },
     {
       args: [1.5e308, 1.5e308],
@@ -48,7 +48,12 @@ export const COSPHI = defineFunction({
   result: { unit: '1', doc: 'power factor in [0, 1]' },
   source: { kind: 'published', ref: 'IEC 60050-131 (131-11-46 power factor); IEEE Std 1459-2010 §3.1.1.5' },
   examples: [
-    { args: [400, 300], expect: 0.8, tol: 1e-12, note: '3-4-5 triangle: cos φ = 0.8' },
+    {
+      args: [400, 300],
+      expect: 0.8,
+      tol: 1e-12,
+      note: '3-4-5 triangle: cos φ = 0.8 (recomputed in the tests)',
+    },
     {
       args: [0, 0],
       expect: { error: 'argument 1 (p_kw) and argument 2 (q_kvar) are both 0' },
@@ -74,7 +79,7 @@ export const TANPHI = defineFunction({
   result: { unit: '1', doc: 'tan φ, signed' },
   source: { kind: 'published', ref: 'IEC 60050-131 (131-11-46; tan φ = Q/P for sinusoidal quantities)' },
   examples: [
-    { args: [400, 300], expect: 0.75, tol: 1e-12, note: '3-4-5 triangle' },
+    { args: [400, 300], expect: 0.75, tol: 1e-12, note: '3-4-5 triangle (recomputed in the tests)' },
     {
       args: [0, 10],
       expect: { error: 'argument 1 (p_kw) must not be 0' },

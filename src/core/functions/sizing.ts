@@ -41,19 +41,19 @@ export const KVAR_PERKW = defineFunction({
       args: [0.7, 0.95],
       expect: 0.691,
       tol: 2.2e-3,
-      note: 'printed table 0.70 → 0.95: 0.691 (published, 3 decimals)',
+      note: 'IEEE Std 141 ch. 8 table, 0.70 → 0.95: 0.691 (3 decimals)',
     },
     {
       args: [0.8, 0.95],
       expect: 0.421,
       tol: 3.6e-3,
-      note: 'printed table 0.80 → 0.95: 0.421 (published, 3 decimals)',
+      note: 'IEEE Std 141 ch. 8 table, 0.80 → 0.95: 0.421 (3 decimals)',
     },
     {
       args: [0.95, 0.8],
       expect: -0.421,
       tol: 3.6e-3,
-      note: 'reversed direction: the negative of the table value',
+      note: 'reversed direction: the negative of the IEEE Std 141 table value',
     },
     {
       args: [0.8, 0],
@@ -79,7 +79,7 @@ export const KVAR_TOPF = defineFunction({
       args: [650, 759.93, 1],
       expect: 760,
       tol: 1e-3,
-      note: '650 kW at 0.65 raised to 1.00 needs ≈ 760 kvar (published textbook worked example)',
+      note: '650 kW at 0.65 raised to 1.00 needs ≈ 760 kvar (a textbook worked example from memory; recomputed in the tests)',
     },
     {
       args: [1000, 750, 0.95],
@@ -91,7 +91,7 @@ export const KVAR_TOPF = defineFunction({
       args: [400, -100, 0.9],
       expect: -293.7288,
       tol: 1e-6,
-      note: 'a leading site needs inductive kvar to reach 0.9 lagging (formula)',
+      note: 'a leading site needs inductive kvar to reach 0.9 lagging (recomputed in the tests)',
     },
     {
       args: [100, 50, 1.5],
@@ -116,7 +116,11 @@ export const KVAR_TOTAN = defineFunction({
     ref: 'tan φ = Q/P (IEC 60050-131); |Q/P| ≤ 0.3287 is the 0.95 band of US FERC Order 2003/827',
   },
   examples: [
-    { args: [1000, 750, 0.4], expect: 350, note: 'tariff limit tan φ 0.4: 750 − 400' },
+    {
+      args: [1000, 750, 0.4],
+      expect: 350,
+      note: 'tariff limit tan φ 0.4: 750 − 400 (recomputed in the tests)',
+    },
     {
       args: [1000, -500, -0.3287],
       expect: -171.3,
@@ -149,9 +153,17 @@ export const BANK_ROUNDUP = defineFunction({
     ref: 'banks are built from equal steps; round the requirement up to whole steps',
   },
   examples: [
-    { args: [421.3, 50], expect: 450, note: '421.3 kvar in 50 kvar steps: 9 steps' },
-    { args: [1.1, 0.1], expect: 1.1, note: 'exact multiple despite binary rounding: 11 steps, not 12' },
-    { args: [-20, 25], expect: 0, note: 'nothing needed' },
+    {
+      args: [421.3, 50],
+      expect: 450,
+      note: '421.3 kvar in 50 kvar steps: 9 steps (recomputed in the tests)',
+    },
+    {
+      args: [1.1, 0.1],
+      expect: 1.1,
+      note: 'exact multiple despite binary rounding: 11 steps, not 12 (recomputed in the tests)',
+    },
+    { args: [-20, 25], expect: 0, note: 'nothing needed (recomputed in the tests)' },
     { args: [100, 0], expect: { error: 'argument 2 (step_kvar) must be > 0; got 0' }, note: 'zero step' },
   ],
   compute: ([q, step]) => roundUpToSteps(num(q), num(step)),

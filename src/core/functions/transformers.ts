@@ -65,7 +65,12 @@ export const KVAR_XFMR_MAG = defineFunction({
       tol: 1e-4,
       note: '1 000 kVA, i0 1 %, P0 0.693 kW (EU 548/2014 Tier 2 from memory): 9.976 kvar',
     },
-    { args: [630, 1.2, 0.54, 1.05], expect: 8.31361, tol: 1e-6, note: '630 kVA at 105 % voltage (formula)' },
+    {
+      args: [630, 1.2, 0.54, 1.05],
+      expect: 8.31361,
+      tol: 1e-6,
+      note: '630 kVA at 105 % voltage (recomputed in the tests)',
+    },
     {
       args: [1000, 1, 12],
       expect: { error: 'argument 3 (p0_kw) must not exceed i0/100·S' },
@@ -116,8 +121,17 @@ export const KVAR_XFMR_LEAK = defineFunction({
       tol: 2e-4,
       note: 'derived check: 1 000 kVA, uk 6 %, Pk 7.6 kW (EU 548/2014 from memory) → ux 5.952 %, 59.52 kvar at full load',
     },
-    { args: [1000, 6, 500, 7.6], expect: 14.88, tol: 2e-4, note: 'the same at half load: 14.88 kvar' },
-    { args: [1600, 6, 1200], expect: 54, note: 'Pk omitted: all of uk reactive, 0.06·1600·0.75²' },
+    {
+      args: [1000, 6, 500, 7.6],
+      expect: 14.88,
+      tol: 2e-4,
+      note: 'the same at half load: 14.88 kvar (recomputed in the tests)',
+    },
+    {
+      args: [1600, 6, 1200],
+      expect: 54,
+      note: 'Pk omitted: all of uk reactive, 0.06·1600·0.75² (recomputed in the tests)',
+    },
     {
       args: [100, 4, 50, 5],
       expect: { error: 'argument 4 (pk_kw) must be below uk·S/100' },
@@ -158,7 +172,11 @@ export const KW_XFMR_LOSS = defineFunction({
       expect: 2.593,
       note: '1 000 kVA Tier 2 losses (EU 548/2014, from memory) at half load: 0.693 + 7.6/4',
     },
-    { args: [2500, 1.575, 18.5, 2000], expect: 13.415, note: '2 500 kVA Tier 2 losses at 80 % load' },
+    {
+      args: [2500, 1.575, 18.5, 2000],
+      expect: 13.415,
+      note: '2 500 kVA Tier 2 losses (EU 548/2014, from memory) at 80 % load',
+    },
     {
       args: [0, 0.693, 7.6, 500],
       expect: { error: 'argument 1 (s_kva) must be > 0; got 0' },

@@ -97,11 +97,27 @@ export function nearHarmonic(h: number): number | undefined {
   return CHARACTERISTIC_HARMONICS.find((n) => Math.abs(h - n) <= RESONANCE_MARGIN * n);
 }
 
+/** |KVAR.CAPBANK(1, ...)| as a call result: arguments the catalogue refuses give its message. */
+function capbankPerNameplate(uRatedKv: number, uKv: number, pPct: number, hz: number) {
+  return runCall({ fn: 'KVAR.CAPBANK', args: [1, uRatedKv, uKv, pPct, hz, hz], columns: [] });
+}
+
 /** Output magnitude per 1 kvar of nameplate at uRated, run at u with p % detuning: |KVAR.CAPBANK(1, ...)|. */
 export function outputPerNameplateKvar(uRatedKv: number, uKv: number, pPct: number, hz: number): number {
-  const r = runCall({ fn: 'KVAR.CAPBANK', args: [1, uRatedKv, uKv, pPct, hz, hz], columns: [] });
+  const r = capbankPerNameplate(uRatedKv, uKv, pPct, hz);
   if (!r.ok) throw new Error(r.message);
   return -r.value;
+}
+
+/** The same, or undefined for arguments the catalogue refuses (validation reports those rows). */
+export function outputPerNameplateKvarIfValid(
+  uRatedKv: number,
+  uKv: number,
+  pPct: number,
+  hz: number,
+): number | undefined {
+  const r = capbankPerNameplate(uRatedKv, uKv, pPct, hz);
+  return r.ok ? -r.value : undefined;
 }
 
 /** CAPBANK.UCAP through the catalogue. */

@@ -18,7 +18,7 @@ import {
   CAP_UNDERUSE,
   capacitorVoltage,
   nearHarmonic,
-  outputPerNameplateKvar,
+  outputPerNameplateKvarIfValid,
   resonanceOrderOf,
   RESONANCE_MARGIN,
 } from './bankRules.ts';
@@ -32,11 +32,10 @@ const f = (x: number, digits = 1) => x.toFixed(digits);
 export function installedCapacitorKvar(row: EquipmentRow, hz: number): number {
   const { q_kvar: q, u_rated_kv: ur, u_kv: u, p_pct: p } = row.values;
   if (q === undefined || ur === undefined) return 0;
-  try {
-    return q * outputPerNameplateKvar(ur, u ?? ur, p ?? 0, hz) * unitsRunning(row);
-  } catch {
-    return 0;
-  }
+  // A row the catalogue refuses (e.g. detuned at or past resonance) is an error of validation,
+  // which runs the same call; here it delivers nothing. Anything thrown is a bug and propagates.
+  const perKvar = outputPerNameplateKvarIfValid(ur, u ?? ur, p ?? 0, hz);
+  return perKvar === undefined ? 0 : q * perKvar * unitsRunning(row);
 }
 
 /** The motor whose bus holds only it and capacitors (individual compensation), if any. */

@@ -1,7 +1,13 @@
 // CSV reader after RFC 4180: quoted fields with doubled quotes, commas and line breaks inside
-// quotes, CRLF or LF line ends, an optional UTF-8 byte-order mark. Lists exported by spreadsheet
-// programs in locales with a decimal comma use ';' instead of ',', and pasted grids use tabs,
-// so the delimiter is detected from the first line unless given.
+// quotes, an optional UTF-8 byte-order mark. The parsing itself is papaparse's; around it we keep
+// three things it does not do the way an equipment list needs:
+// - line ends: CR, LF and CRLF are all accepted, even mixed in one file (papaparse picks one kind
+//   per file and would glue rows together); they are read as LF, inside quotes too;
+// - the delimiter: lists exported in decimal-comma locales use ';' and pasted grids use tabs, so
+//   it is taken from the first line (papaparse's guess reads "M1;0,86" as two comma fields);
+// - errors: a quote that never closes, or text glued to a closing quote, is refused with the line
+//   and character, never read leniently into a wrong row.
+import Papa from 'papaparse';
 
 export type CsvDelimiter = ',' | ';' | '\t';
 
@@ -41,89 +47,62 @@ export function detectDelimiter(text: string): CsvDelimiter {
   return best;
 }
 
+/** 1-based line and character of an offset into LF-only text. */
+function lineAndColumn(text: string, offset: number): { line: number; column: number } {
+  let line = 1;
+  let lineStart = 0;
+  for (let i = text.indexOf('\n'); i >= 0 && i < offset; i = text.indexOf('\n', i + 1)) {
+    line += 1;
+    lineStart = i + 1;
+  }
+  return { line, column: offset - lineStart + 1 };
+}
+
+/** Where the closing quote of the quoted field opened at `open` is followed by stray text. */
+function afterClosingQuote(text: string, open: number): number | undefined {
+  const body = /(?:[^"]|"")*"/y;
+  body.lastIndex = open + 1;
+  return body.exec(text) ? body.lastIndex : undefined;
+}
+
+function refuse(text: string, error: Papa.ParseError, delim: string): never {
+  // papaparse's index is the first character inside the opening quote.
+  const open = (error.index ?? 1) - 1;
+  const glued = afterClosingQuote(text, open);
+  if (error.code === 'InvalidQuotes' && glued !== undefined) {
+    const at = lineAndColumn(text, glued);
+    const what = JSON.stringify(text[glued]);
+    throw new CsvSyntaxError(
+      `unexpected ${what} after a closing quote; expected the delimiter ${JSON.stringify(delim)} or a line end`,
+      at.line,
+      at.column,
+    );
+  }
+  const at = lineAndColumn(text, open);
+  throw new CsvSyntaxError('a quoted field is never closed (missing ")', at.line, at.column);
+}
+
 /**
  * Read CSV text into rows of fields (strings, never trimmed: a value is what was written).
- * A final line break does not make an extra empty row. Throws CsvSyntaxError for an
- * unterminated quote or text glued to a closing quote.
+ * A final line break does not make an extra empty row; a blank line inside is one empty field.
+ * Throws CsvSyntaxError for an unterminated quote or text glued to a closing quote.
  */
 export function readCsv(text: string, options: CsvReadOptions = {}): string[][] {
-  const src = text.startsWith(BOM) ? text.slice(1) : text;
-  const delim = options.delimiter ?? detectDelimiter(src);
-  const rows: string[][] = [];
-  let row: string[] = [];
-  let field = '';
-  // true once anything (a character, a delimiter or a quote) belongs to the current row.
-  let rowStarted = false;
-  let atStart = true;
-  let line = 1;
-  let col = 0;
-  let i = 0;
-  const endField = () => {
-    row.push(field);
-    field = '';
-    atStart = true;
-  };
-  while (i < src.length) {
-    const ch = src[i] as string;
-    col += 1;
-    if (ch === '"' && atStart) {
-      // Quoted field: read to the closing quote; "" is a literal quote.
-      const startLine = line;
-      const startCol = col;
-      rowStarted = true;
-      i += 1;
-      for (;;) {
-        if (i >= src.length)
-          throw new CsvSyntaxError('a quoted field is never closed (missing ")', startLine, startCol);
-        const c = src[i] as string;
-        i += 1;
-        if (c === '"') {
-          col += 1;
-          if (src[i] !== '"') break;
-          field += '"';
-          i += 1;
-          col += 1;
-          continue;
-        }
-        if (c === '\n') {
-          line += 1;
-          col = 0;
-        } else col += 1;
-        field += c;
-      }
-      const next = src[i];
-      if (next !== undefined && next !== delim && next !== '\n' && next !== '\r') {
-        throw new CsvSyntaxError(
-          `unexpected ${JSON.stringify(next)} after a closing quote; expected the delimiter or a line end`,
-          line,
-          col + 1,
-        );
-      }
-      atStart = false;
-      continue;
-    }
-    if (ch === delim) {
-      rowStarted = true;
-      endField();
-    } else if (ch === '\r' || ch === '\n') {
-      if (ch === '\r' && src[i + 1] === '\n') i += 1;
-      endField();
-      rows.push(row);
-      row = [];
-      rowStarted = false;
-      line += 1;
-      col = 0;
-    } else {
-      rowStarted = true;
-      atStart = false;
-      field += ch;
-    }
-    i += 1;
-  }
-  // The last row, unless the text ended with a line break (or was empty).
-  if (rowStarted) {
-    endField();
-    rows.push(row);
-  }
+  const src = (text.startsWith(BOM) ? text.slice(1) : text).replace(/\r\n?/g, '\n');
+  if (src === '') return [];
+  const delimiter = options.delimiter ?? detectDelimiter(src);
+  const parsed = Papa.parse<string[]>(src, {
+    delimiter,
+    newline: '\n',
+    quoteChar: '"',
+    escapeChar: '"',
+    header: false,
+    dynamicTyping: false,
+    skipEmptyLines: false,
+  });
+  const quoteError = parsed.errors.find((e) => e.type === 'Quotes');
+  if (quoteError) refuse(src, quoteError, delimiter);
+  const rows = parsed.data;
+  if (src.endsWith('\n')) rows.pop();
   return rows;
 }

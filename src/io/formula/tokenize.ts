@@ -117,6 +117,3 @@ export function tokenize(text: string): Token[] {
 export function significantTokens(text: string): Token[] {
   return tokenize(text).filter((t) => t.kind !== 'space');
 }
-
-// The formula bar finds the call under the cursor from these tokens (see cursor.ts).
-export { callAtCursor, type CallAtCursor } from './cursor.ts';

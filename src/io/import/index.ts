@@ -17,7 +17,13 @@ export {
   type MappingProposal,
   type MappingReason,
 } from './mapping.ts';
-export { previewImport, type ImportPreview, type PreviewRow, type PreviewOptions } from './preview.ts';
+export {
+  previewImport,
+  DEFAULT_IMPORT_SETTINGS,
+  type ImportPreview,
+  type PreviewRow,
+  type PreviewOptions,
+} from './preview.ts';
 export { applyImport, type ApplyOptions, type ApplyResult } from './apply.ts';
 export {
   emptyMappingMemory,
@@ -27,4 +33,4 @@ export {
   type RememberedChoice,
 } from './memory.ts';
 export { unitChoicesFor, type UnitChoice } from './units.ts';
-export { describeProblem, type FileProblem } from '../xlsx/fileProblem.ts';
+export { describeProblem, type FileProblem } from '../xlsx/index.ts';

@@ -1,10 +1,15 @@
 // An equipment list as it arrives: the rows of a CSV or of an xlsx's first sheet, cells as the
 // file holds them. Reading never touches the open workbook; problems come back as values.
 import { CsvSyntaxError, detectDelimiter, readCsv } from '../csv/read.ts';
-import { checkXlsxBytes } from '../xlsx/checkFile.ts';
-import { fail, formatBytes, type FileResult } from '../xlsx/fileProblem.ts';
-import { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../xlsx/limits.ts';
-import { loadExcelJs } from '../xlsx/loadExcelJs.ts';
+import {
+  checkXlsxBytes,
+  fail,
+  formatBytes,
+  loadExcelJs,
+  MAX_SHEET_COLUMNS,
+  MAX_SHEET_ROWS,
+  type FileResult,
+} from '../xlsx/index.ts';
 
 export type RawCell = string | number | boolean | null;
 

@@ -1,11 +1,10 @@
 // Formulas an opened workbook cannot compute: calls of functions the engine does not have (from
 // another program, or misspelt), unknown names, and references that loop back on themselves.
 // Read from the formulas themselves, so even a large workbook is checked in a moment.
-import { HyperFormula } from 'hyperformula';
 import { findFunction } from '../../core/functions/index.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
-import { createEngine, type OwnPlugin } from '../../engine/index.ts';
-import { tokenize } from '../formula/tokenize.ts';
+import { createEngine, registeredFunctionNames, type OwnPlugin } from '../../engine/index.ts';
+import { tokenize } from '../formula/index.ts';
 import { findCircularCells, type CellAt } from './cycles.ts';
 import type { FileProblem } from './fileProblem.ts';
 import { columnLetter } from './sheetNames.ts';
@@ -18,7 +17,7 @@ export type CheckScope = 'all' | ReadonlyMap<string, 'all' | ReadonlySet<number>
 
 function knownFunctions(plugins?: readonly OwnPlugin[]): Set<string> {
   createEngine([], plugins ? { plugins } : {}).destroy(); // registers our plugins, once
-  return new Set(HyperFormula.getRegisteredFunctionNames('enGB').map((n) => n.toUpperCase()));
+  return new Set(registeredFunctionNames().map((n) => n.toUpperCase()));
 }
 
 function inScope(scope: CheckScope, sheet: string, row: number): boolean {

@@ -4,8 +4,7 @@
 import { CATALOGUE } from '../../core/functions/index.ts';
 import type { CellContent, SheetDoc } from '../../core/workbook/document.ts';
 import type { CellResult } from '../../engine/index.ts';
-import { expandFormula, type ExpandResult } from '../formula/expand.ts';
-import { parseFormula } from '../formula/parse.ts';
+import { expandFormula, parseFormula, type ExpandResult } from '../formula/index.ts';
 import { toFileFormula, withoutText } from './functionNames.ts';
 import { compileShape, renderShape, toShape, type ShapeTemplate } from './formulaShape.ts';
 import { normaliseFormula } from './metadata.ts';

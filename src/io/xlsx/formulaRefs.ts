@@ -1,6 +1,6 @@
 // The cells and ranges a formula refers to, read from its reference tokens: enough to follow
 // dependencies between formula cells (for the circular-reference check) without building an engine.
-import { tokenize } from '../formula/tokenize.ts';
+import { tokenize } from '../formula/index.ts';
 
 export interface Area {
   /** Sheet name as written, or the formula's own sheet. */

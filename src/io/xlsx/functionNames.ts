@@ -4,7 +4,7 @@
 // 18.17.7 "future functions"), or a reader shows an unknown-name error. Anything else (the
 // engine's own extras, our catalogue before expansion, the fast bus roll-up) is unknown to
 // other programs and must not be exported.
-import { tokenize } from '../formula/tokenize.ts';
+import { tokenize } from '../formula/index.ts';
 
 /** Classic functions the formula engine also has. */
 export const CLASSIC_FUNCTIONS: ReadonlySet<string> = new Set(

@@ -11,7 +11,11 @@
 //     Our own export comes back exactly; rows changed elsewhere come back as plain formulas.
 //     opts.acceptFormulaProblems opens a workbook with unknown functions or loops anyway.
 //   describeProblem(problem) → one line for the status bar.
+//   alignedWith(doc, source) → may the cached results of `source` stand in for `doc`'s?
+//   checkXlsxBytes, loadExcelJs, fail, formatBytes: the gate, the library and the problem values
+//   that the equipment-list reader (src/io/import) shares.
 export {
+  alignedWith,
   exportWorkbookXlsx,
   exportWorkbookXlsxWithReport,
   XlsxExportError,
@@ -25,5 +29,13 @@ export {
   type KvarImportResult,
 } from './importKvar.ts';
 export { checkXlsxBytes } from './checkFile.ts';
-export { describeProblem, type FileProblem, type FileProblemCode } from './fileProblem.ts';
+export {
+  describeProblem,
+  fail,
+  formatBytes,
+  type FileProblem,
+  type FileProblemCode,
+  type FileResult,
+} from './fileProblem.ts';
+export { loadExcelJs, type ExcelJS } from './loadExcelJs.ts';
 export * from './limits.ts';

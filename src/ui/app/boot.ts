@@ -1,7 +1,6 @@
 // Start-up: open the browser storage, bring back the last good workbook (or the one before it),
 // or open the demo template on a first visit; then keep saving.
-import { HyperFormula } from 'hyperformula';
-import { ENGINE_LANGUAGE } from '../../engine/config.ts';
+import { registeredFunctionNames } from '../../engine/index.ts';
 import { ChartsPanel } from '../charts/chartsPanel.ts';
 import { ChecksPanel } from '../panels/checksPanel.ts';
 import { WorkbookStore } from '../storage/idbStore.ts';
@@ -21,7 +20,7 @@ async function openStore(): Promise<{ store?: WorkbookStore; problem?: string }>
 
 export async function boot(root: HTMLElement): Promise<App> {
   const { store, problem } = await openStore();
-  const app = new App(root, store, HyperFormula.getRegisteredFunctionNames(ENGINE_LANGUAGE));
+  const app = new App(root, store, registeredFunctionNames());
   const charts = new ChartsPanel();
   app.charts = charts;
   app.side.add('charts', 'Charts', charts.root, () => charts.draw());

@@ -1,7 +1,7 @@
 // The error cells of the sheet on screen, for the status line's count and "next" jump. Scanning
 // a 10,000-row sheet takes long, so it is scanned once and then kept up to date from the
 // engine's list of changed values; row moves and undo make it scan again.
-import { DetailedCellError, type ExportedChange, type HyperFormula } from 'hyperformula';
+import { isEngineError, type ExportedChange, type HyperFormula } from '../../engine/index.ts';
 
 const key = (r: number, c: number) => `${r},${c}`;
 
@@ -14,7 +14,7 @@ export class ErrorTracker {
     for (const ch of changes) {
       if (!('address' in ch) || ch.address.sheet !== this.sheet) continue;
       const k = key(ch.address.row, ch.address.col);
-      if (ch.newValue instanceof DetailedCellError) this.cells.add(k);
+      if (isEngineError(ch.newValue)) this.cells.add(k);
       else this.cells.delete(k);
     }
   };
@@ -43,7 +43,7 @@ export class ErrorTracker {
     if (this.sheet >= 0 && this.engine.doesSheetExist(this.engine.getSheetName(this.sheet) ?? '')) {
       this.engine.getSheetValues(this.sheet).forEach((row, r) =>
         row.forEach((v, c) => {
-          if (v instanceof DetailedCellError) this.cells.add(key(r, c));
+          if (isEngineError(v)) this.cells.add(key(r, c));
         }),
       );
     }

@@ -5,13 +5,25 @@ import { el } from '../dom.ts';
 import { confirmDialog, openDialog } from '../dialogs/dialog.ts';
 import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from '../storage/nativeFile.ts';
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
-import type { App } from './app.ts';
+import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { toResult } from '../../engine/index.ts';
+import type { ImportHost } from '../import/importDialog.ts';
+import type { WorkbookSession } from '../model/session.ts';
+import type { StatusBar } from '../statusBar.ts';
+import type { WorkbookStore } from '../storage/idbStore.ts';
+
+/** What the workbook commands need of the page (the app passes itself). */
+export interface FileHost extends ImportHost {
+  readonly session: Pick<WorkbookSession, 'toDoc' | 'title' | 'engine'>;
+  readonly store: Pick<WorkbookStore, 'loadSetAside'> | undefined;
+  readonly status: Pick<StatusBar, 'show'>;
+  replaceWith(doc: WorkbookDoc, note: string): Promise<boolean>;
+}
 
 const REPLACE_NOTE =
   'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
 
-export async function newFromTemplate(app: App): Promise<void> {
+export async function newFromTemplate(app: FileHost): Promise<void> {
   const ids = templateIds();
   const infos = await Promise.all(ids.map((id) => templateInfo(id).catch(() => undefined)));
   const cards = infos.flatMap((info) => {
@@ -52,7 +64,7 @@ export async function newFromTemplate(app: App): Promise<void> {
   );
 }
 
-function refused(app: App, message: string): void {
+function refused(app: FileHost, message: string): void {
   app.status.show(message, 'error', 0);
   openDialog(
     'The file was not opened',
@@ -63,7 +75,7 @@ function refused(app: App, message: string): void {
 }
 
 /** Open the native file, or an xlsx (our own export comes back with its catalogue formulas). */
-export async function openFile(app: App): Promise<void> {
+export async function openFile(app: FileHost): Promise<void> {
   const file = await pickFile(
     '.json,.kvar.json,application/json,.xlsx,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
   );
@@ -85,14 +97,14 @@ export async function openFile(app: App): Promise<void> {
   await app.replaceWith(r.doc, `Opened "${file.name}".`);
 }
 
-export function saveFile(app: App): void {
+export function saveFile(app: FileHost): void {
   const r = saveNativeFile(app.session.toDoc());
   if (r.ok) app.status.show(`Saved as ${r.name} in your downloads.`);
   else app.status.show(r.message, 'error', 0);
 }
 
 /** Swap the open workbook with the one set aside when it was last replaced. */
-export async function bringBack(app: App): Promise<void> {
+export async function bringBack(app: FileHost): Promise<void> {
   const aside = await app.store?.loadSetAside();
   if (!aside) {
     app.status.show('No workbook has been replaced in this browser yet.');
@@ -110,7 +122,7 @@ export async function bringBack(app: App): Promise<void> {
   if (ok) await app.replaceWith(aside.doc, `Brought back "${aside.doc.title}".`);
 }
 
-export async function exportXlsx(app: App): Promise<void> {
+export async function exportXlsx(app: FileHost): Promise<void> {
   app.status.show('Preparing the xlsx…', 'info', 0);
   try {
     const { handOff } = await import('./handOff.ts');
@@ -145,7 +157,7 @@ export async function exportXlsx(app: App): Promise<void> {
   }
 }
 
-export async function importEquipmentList(app: App): Promise<void> {
+export async function importEquipmentList(app: FileHost): Promise<void> {
   const file = await pickFile(
     '.xlsx,.csv,.txt,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
   );

@@ -3,8 +3,10 @@
 import { el, svg } from '../dom.ts';
 import { menuButton } from '../menu.ts';
 import { openAbout } from '../dialogs/about.ts';
-import { deleteRows, fillDown, insertRows } from '../grid/gridMenu.ts';
-import type { App } from './app.ts';
+import { deleteRows, fillDown, insertRows, type CommandHost } from '../grid/gridMenu.ts';
+import type { WorkbookSession } from '../model/session.ts';
+import type { ChartsPanel } from '../charts/chartsPanel.ts';
+import type { ChecksPanel } from '../panels/checksPanel.ts';
 import {
   bringBack,
   exportXlsx,
@@ -12,8 +14,22 @@ import {
   newFromTemplate,
   openFile,
   saveFile,
+  type FileHost,
 } from './fileActions.ts';
-import type { PanelName } from './sidePanel.ts';
+import type { PanelName, SidePanel } from './sidePanel.ts';
+
+/** What the top bar needs of the page (the app passes itself). */
+export interface TopBarHost extends FileHost {
+  readonly session: FileHost['session'] & Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo'>;
+  readonly grid: CommandHost & { focus(): void };
+  readonly side: Pick<SidePanel, 'toggle' | 'onToggle'>;
+  readonly charts: Pick<ChartsPanel, 'visible' | 'draw'> | undefined;
+  readonly checks: Pick<ChecksPanel, 'visible'> | undefined;
+  undo(): void;
+  redo(): void;
+  run(fn: () => unknown): void;
+  catalogueSize(): number;
+}
 
 function mark(): SVGSVGElement {
   // Our mark: a right triangle (P along, Q up) with its hypotenuse, in two strokes.
@@ -31,7 +47,7 @@ function mark(): SVGSVGElement {
   return m;
 }
 
-export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElement } {
+export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLInputElement } {
   const title = el('input', {
     className: 'kl-title',
     attrs: { type: 'text', 'aria-label': 'Workbook title', spellcheck: 'false', 'data-testid': 'title' },

@@ -1,6 +1,6 @@
 // The grid's one renderer: reads the engine's value for the cell and writes it as text
 // (textContent, never HTML), with classes that make errors, formulas and headers visible.
-import type { HyperFormula } from 'hyperformula';
+import type { HyperFormula } from '../../engine/index.ts';
 import type { ColumnInfo } from '../../core/workbook/document.ts';
 import { cellView, type CellKind, type EngineValue } from './cellView.ts';
 

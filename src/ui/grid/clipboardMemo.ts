@@ -1,6 +1,6 @@
 // Remembers what this grid last put on the clipboard. When the same block comes back in a paste,
 // it came from us, and the formulas are pasted (references moved) instead of their values.
-import type { SimpleCellRange } from 'hyperformula';
+import type { SimpleCellRange } from '../../engine/index.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 
 export interface ClipboardMemo {

@@ -1,10 +1,23 @@
 // Row and fill commands, from the grid's right-click menu, the keyboard and the menu bar.
 import type { WorkbookSession } from '../model/session.ts';
-import type { Selection } from './gridView.ts';
+
+/**
+ * The selected block the commands act on. The grid's own Selection has this shape; it is written
+ * out here so the commands do not import the grid view, which imports them (through its menu).
+ */
+export interface BlockSelection {
+  readonly sheetId: number;
+  /** The active cell's column. */
+  readonly col: number;
+  readonly top: number;
+  readonly left: number;
+  readonly bottom: number;
+  readonly right: number;
+}
 
 export interface CommandHost {
   readonly session: WorkbookSession;
-  selection(): Selection | undefined;
+  selection(): BlockSelection | undefined;
   select(row: number, col: number, row2?: number, col2?: number): void;
 }
 

@@ -5,6 +5,7 @@
 import type { SiteSettings } from '../../core/site/model.ts';
 import {
   applyImport,
+  DEFAULT_IMPORT_SETTINGS,
   describeProblem,
   mappingTargets,
   MAPPING_MEMORY_STORAGE_KEY,
@@ -19,10 +20,9 @@ import {
   type ImportPreview,
   type MappingProposal,
 } from '../../io/import/index.ts';
-import { DEFAULT_IMPORT_SETTINGS } from '../../io/import/preview.ts';
 import { el } from '../dom.ts';
 import { openDialog } from '../dialogs/dialog.ts';
-import type { App } from '../app/app.ts';
+import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { currentSite } from './currentSite.ts';
 
 function loadMemory() {
@@ -143,7 +143,13 @@ function previewNodes(pv: ImportPreview): Node[] {
   ];
 }
 
-export async function runImport(app: App, file: File): Promise<void> {
+/** What the import needs of the page: the open workbook, and a way to replace it. */
+export interface ImportHost {
+  readonly session: { toDoc(): WorkbookDoc };
+  replaceWith(doc: WorkbookDoc, note: string): Promise<boolean>;
+}
+
+export async function runImport(app: ImportHost, file: File): Promise<void> {
   const read = await readEquipmentFile(file.name, new Uint8Array(await file.arrayBuffer()));
   if (!read.ok) {
     openDialog(

@@ -1,13 +1,24 @@
-// Every catalogue function against values from outside the project (see
-// /work/shared/design/checks.md). Each check names its source and kind: published, common
-// practice, from memory, or "derivation" where no outside value exists and the check re-derives
-// the result from the published formula by an independent route.
+// Every catalogue function against values from outside the project. Each check names its source
+// and kind: published (the document and clause or table), common practice, from memory, or
+// "recomputed" / "derivation" where the check re-derives the result by an independent route
+// (another formula, phasors with complex.js, a root found by bisection) rather than the code's.
 import { afterAll, describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { CATALOGUE, findFunction } from '../../../src/core/functions/index.ts';
 import { lineSurgeImpedance } from '../../../src/core/elements/line.ts';
 import type { FunctionSpec } from '../../../src/core/registry/spec.ts';
 import { expectAbs, expectRel, failure, value } from './helpers.ts';
+import {
+  capacitorStepKvar,
+  detunedCapacitorKv,
+  parallelResonanceOrder,
+  qFromPowerFactor,
+  shortCircuitMvaInOhms,
+  silByBisection,
+  starPower,
+  tuningOrderByBisection,
+  voltageRiseApprox,
+} from './independent.ts';
 
 const used = new Set<string>();
 const fn = (name: string): FunctionSpec => {
@@ -56,9 +67,10 @@ describe('correction multiplier k (IEEE Std 141 ch. 8 / USDA RUS 1724D-112 Table
     const q = value(fn('KVAR.LOAD'), 1, from);
     expectAbs(value(fn('KVAR.TOPF'), 1, q, to), k, 0.0015);
   });
-  it('650 kW at 0.65 raised to 1.00 needs ≈ 760 kvar (published textbook worked example)', () => {
+  it('650 kW at 0.65 raised to 1.00 needs ≈ 760 kvar (a textbook worked example from memory; recomputed by Pythagoras)', () => {
     const q = value(fn('KVAR.LOAD'), 650, 0.65);
     expectAbs(q, 760, 0.5);
+    expectRel(q, qFromPowerFactor(650, 0.65), 1e-12);
     expectAbs(value(fn('KVAR.TOPF'), 650, q, 1), 760, 0.5);
     expectAbs(value(fn('KVAR.LOAD'), 650, 0.65, true), -760, 0.5);
   });
@@ -226,12 +238,13 @@ describe('cables and lines', () => {
     expectAbs(value(fn('KVAR.LINE'), 400, 0, 1, 10, 1) / 1000, -0.5, 0.005);
     expectAbs(value(fn('LINE.SIL'), 400, 1, 10), 506, 0.5);
   });
-  it('at surge impedance loading the series absorption equals the charging (published: net Q = 0)', () => {
+  it('at surge impedance loading the series absorption equals the charging (Kundur §6.1, from memory; SIL recomputed by bisection of the phasor net Q)', () => {
     for (const [u, l, c, len, f] of [
       [400, 1, 10, 120, 50],
       [230, 1.3, 8.9, 40, 60],
       [132, 1.25, 9.4, 15, 50],
     ] as const) {
+      expectRel(value(fn('LINE.SIL'), u, l, c), silByBisection(u, l, c), 1e-9);
       const silKva = value(fn('LINE.SIL'), u, l, c) * 1000;
       const charging = Math.abs(value(fn('KVAR.LINE'), u, 0, l, c, len, f));
       expectAbs(value(fn('KVAR.LINE'), u, silKva, l, c, len, f), 0, 1e-9 * charging);
@@ -260,12 +273,28 @@ describe('cables and lines', () => {
 });
 
 describe('compensation equipment', () => {
-  it('50 kvar / 440 V unit: 41.3 kvar at 400 V, 34.4 kvar if rated for 60 Hz and run at 50 Hz (published)', () => {
+  it('50 kvar / 440 V unit: 41.3 kvar at 400 V, 34.4 kvar if rated for 60 Hz and run at 50 Hz (IEC 60831-1 rated output from C, f and U; recomputed from the nameplate capacitance with phasors)', () => {
     expectAbs(value(fn('KVAR.CAPBANK'), 50, 0.44, 0.4), -41.3, 0.05);
     expectAbs(value(fn('KVAR.CAPBANK'), 50, 0.44, 0.4, 0, 60, 50), -34.4, 0.05);
+    expectRel(value(fn('KVAR.CAPBANK'), 50, 0.44, 0.4), capacitorStepKvar(50, 0.44, 0.4), 1e-12);
+    expectRel(
+      value(fn('KVAR.CAPBANK'), 50, 0.44, 0.4, 0, 60, 50),
+      capacitorStepKvar(50, 0.44, 0.4, 0, 60, 50),
+      1e-12,
+    );
   });
-  it('80 kvar / 525 V capacitors with a 7 % reactor give about 49.9 kvar at 400 V (published worked example)', () => {
+  it('80 kvar / 525 V capacitors with a 7 % reactor give about 49.9 kvar at 400 V (a worked example from memory; recomputed as a series L–C branch with phasors)', () => {
     expectAbs(value(fn('KVAR.CAPBANK'), 80, 0.525, 0.4, 7), -49.9, 0.05);
+    for (const [f, fr] of [
+      [50, 50],
+      [60, 50],
+      [150, 50],
+    ] as const)
+      expectRel(
+        value(fn('KVAR.CAPBANK'), 80, 0.525, 0.4, 7, fr, f),
+        capacitorStepKvar(80, 0.525, 0.4, 7, fr, f),
+        1e-12,
+      );
   });
   it('a detuned branch at or past resonance is an error (p/100·(f/fr)² ≥ 1)', () => {
     expect(failure(fn('KVAR.CAPBANK'), 50, 0.4, 0.4, 14, 50, 150)).toContain('at or past resonance');
@@ -273,37 +302,52 @@ describe('compensation equipment', () => {
     expect(Number.isFinite(value(fn('KVAR.CAPBANK'), 50, 0.4, 0.4, 7, 50, 185))).toBe(true);
     failure(fn('KVAR.CAPBANK'), 50, 0.4, 0.4, 7, 50, 200);
   });
-  it('capacitor voltage 400 V with 6 % → 425.5 V (published)', () => {
+  it('capacitor voltage 400 V with 6 % → 425.5 V (recomputed: voltage divider of the series L–C branch)', () => {
     expectAbs(value(fn('CAPBANK.UCAP'), 0.4, 6) * 1000, 425.5, 0.05);
+    expectRel(value(fn('CAPBANK.UCAP'), 0.4, 6), detunedCapacitorKv(0.4, 6), 1e-12);
   });
   it.each([
     [5.67, 4.2, 210],
     [7, 3.78, 189],
     [14, 2.67, 134],
-  ])('CAPBANK.TUNE %s %% → %s (%s Hz at 50 Hz) (published)', (p, n, hz) => {
-    const order = value(fn('CAPBANK.TUNE'), p);
-    expectAbs(order, n, 0.005);
-    expectAbs(order * 50, hz, 0.5);
-  });
-  it('KVAR.REACTOR follows Q = U²/X for a fixed reactance (derivation from the published formula)', () => {
-    const x = (33 * 33) / 1000; // Ω·1000: a 1 000 kvar reactor at 33 kV
-    for (const u of [30, 33, 36]) expectRel(value(fn('KVAR.REACTOR'), 1000, 33, u), (u * u) / x, 1e-12);
+  ])(
+    'CAPBANK.TUNE %s %% → %s (%s Hz at 50 Hz) (common practice; recomputed: zero of the branch reactance by bisection)',
+    (p, n, hz) => {
+      const order = value(fn('CAPBANK.TUNE'), p);
+      expectRel(order, tuningOrderByBisection(p), 1e-12);
+      expectAbs(order, n, 0.005);
+      expectAbs(order * 50, hz, 0.5);
+    },
+  );
+  it('KVAR.REACTOR follows Q = U²/X for a fixed reactance (IEC 60076-6 rates it at rated voltage; recomputed as the complex power of a star of jX)', () => {
+    const x = (33_000 * 33_000) / 1_000_000; // Ω: a 1 000 kvar reactor at 33 kV
+    for (const u of [30, 33, 36])
+      expectRel(value(fn('KVAR.REACTOR'), 1000, 33, u), starPower(u, new Complex(0, x)).im, 1e-12);
   });
 });
 
 describe('network checks', () => {
-  it('1 500 kVA, 5.5 % on a 48 MVA supply → about 17.4 MVA; 350 kvar → h ≈ 7.05 (published example)', () => {
+  it('1 500 kVA, 5.5 % on a 48 MVA supply → about 17.4 MVA; 350 kvar → h ≈ 7.05 (a worked example from memory; recomputed in ohms and by bisection of the bus admittance)', () => {
     const ssc = value(fn('SC.MVA.XFMR'), 1500, 5.5, 48);
     expectAbs(ssc, 17.4, 0.05);
+    expectRel(ssc, shortCircuitMvaInOhms(1500, 5.5, 48), 1e-12);
     expectAbs(value(fn('RESONANCE.ORDER'), ssc, 350), 7.05, 0.01);
+    expectRel(value(fn('RESONANCE.ORDER'), ssc, 350), parallelResonanceOrder(ssc, 350), 1e-9);
   });
-  it('13.8 kV bus, Ssc 125 MVA, 5 Mvar bank → h = 5.0, voltage rise ≈ 4 % (IEEE Std 1036 / 519 case study, published)', () => {
+  it('13.8 kV bus, Ssc 125 MVA, 5 Mvar bank → h = 5.0, voltage rise ≈ 4 % (the rules of IEEE Std 1036, from memory; recomputed by bisection and in ohms)', () => {
     expectAbs(value(fn('RESONANCE.ORDER'), 125, 5000), 5, 1e-9);
+    expectRel(value(fn('RESONANCE.ORDER'), 125, 5000), parallelResonanceOrder(125, 5000), 1e-9);
     expectAbs(value(fn('VRISE.PCT'), 5000, 125), 4, 1e-9);
+    expectRel(value(fn('VRISE.PCT'), 5000, 125), voltageRiseApprox(5000, 125), 1e-12);
+    // The approximation against the exact divider of source and bank, U_bus/E = X_C/(X_C − X_S):
+    // 4.17 % here, so ΔU ≈ Qc/Ssc is low by the ratio Qc/Ssc itself (4 %).
+    const xs = 13.8 ** 2 / 125;
+    const xc = 13.8 ** 2 / 5;
+    expectRel(value(fn('VRISE.PCT'), 5000, 125), 100 * (xc / (xc - xs) - 1), 0.0401);
   });
-  it('with a detuning reactor h ≈ 1/√(p + Qc/Ssc) (published), below the tuning order', () => {
+  it('with a detuning reactor h = 1/√(p + Qc/Ssc), below the tuning order (recomputed: zero of the bus admittance by bisection)', () => {
     const h = value(fn('RESONANCE.ORDER'), 125, 5000, 7);
-    expectRel(h, 1 / Math.sqrt(0.07 + 5000 / 125000), 1e-12);
+    expectRel(h, parallelResonanceOrder(125, 5000, 7), 1e-9);
     expect(h).toBeLessThan(value(fn('CAPBANK.TUNE'), 7));
   });
   it('infinite supply: S/(uk/100) (derivation)', () => {

@@ -9,7 +9,7 @@
 //     leakage √(uk² − ur²)/100·Sr·(S/Sr)², ur = 100·Pk/Sr (IEC 60076-1 quantities);
 //   cable charging ω·C·U² (U line-to-line), capacitor Qr·(U/Ur)²/(1 − p/100), reactor Qr·(U/Ur)²;
 //   line 3·I²·X − ω·C·U² with I = S/(√3·U).
-// Semantics as in workbook.md and src/core/site/cases.ts: per unit × running; load 0 = off;
+// Semantics as stated in src/core/site/cases.ts: per unit × running; load 0 = off;
 // capacitor/reactor load = share in service; transformers with n units share the load.
 
 export interface HandRow {

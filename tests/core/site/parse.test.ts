@@ -1,4 +1,4 @@
-// Reading the interchange columns of workbook.md: header names case-insensitive, load:<case>
+// Reading the interchange columns (src/core/site/model.ts): header names case-insensitive, load:<case>
 // columns become cases, unknown headers warn, numbers are read with row and column in messages.
 import { describe, expect, it } from 'vitest';
 import { parseEquipmentTable, parseNumberCell } from '../../../src/core/site/parse.ts';

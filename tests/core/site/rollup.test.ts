@@ -6,8 +6,9 @@ import { rollUp, SiteStructureError } from '../../../src/core/site/rollup.ts';
 import { handTotals, type HandRow } from './handCalc.ts';
 import { siteFromCsv } from './fixtures.ts';
 
-// The transformer is the one of checks.md's derived check (1000 kVA, uk 6 %, Pk 7.6 kW, i0 1 %,
-// P0 0.693 kW: leakage 59.52 kvar at full load, magnetising 9.976 kvar).
+// The transformer: 1000 kVA, uk 6 %, i0 1 %, with the EU Regulation 548/2014 Tier 2 loss limits
+// Pk 7.6 kW and P0 0.693 kW (from memory): leakage 59.52 kvar at full load, magnetising
+// 9.976 kvar (recomputed in handCalc.ts and tests/core/functions/recomputed.ts).
 const ROWS: HandRow[] = [
   {
     tag: 'T1',
@@ -114,7 +115,7 @@ describe('rollUp against an independent recomputation', () => {
   it('shows absorbed and delivered kvar apart (day: capacitor, cable and line charging, generator deliver)', () => {
     const bal = rollUp(site, 'day');
     const lv = bal.buses.find((b) => b.bus === 'LV');
-    // Q1: 4 × 80 kvar at 525 V run at 400 V behind 7 %: 4 × 80·(0.4/0.525)²/0.93 (published worked example: 49.9 kvar each).
+    // Q1: 4 × 80 kvar at 525 V run at 400 V behind 7 %: 4 × 80·(0.4/0.525)²/0.93 (a worked example recalled from memory gives 49.9 kvar each).
     const q1 = (4 * 80 * (0.4 / 0.525) ** 2) / 0.93;
     expect(q1 / 4).toBeCloseTo(49.9, 1);
     expect(lv?.q_delivered_kvar).toBeCloseTo(q1, 9);

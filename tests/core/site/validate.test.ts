@@ -1,4 +1,4 @@
-// Every validation rule of issue 4 and workbook.md, each message with its row and column.
+// Every validation rule of src/core/site/validate.ts, each message with its row and column.
 import { describe, expect, it } from 'vitest';
 import { mergeProblems, validateSite } from '../../../src/core/site/validate.ts';
 import { siteFromCsv } from './fixtures.ts';

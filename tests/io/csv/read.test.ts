@@ -1,5 +1,7 @@
 // CSV reading after RFC 4180 (IETF, "Common Format and MIME Type for CSV Files"): the examples
 // of its section 2 plus what spreadsheet programs write (BOM, ';' in decimal-comma locales).
+// One deliberate difference: every line end is read as LF, inside quotes too (in-cell line
+// breaks are LF in spreadsheet programs, and a file may mix line ends).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { CsvSyntaxError, detectDelimiter, readCsv } from '../../../src/io/csv/read.ts';
@@ -15,15 +17,23 @@ describe('readCsv (RFC 4180 section 2)', () => {
       ['zzz', 'yyy', 'xxx'],
     ]);
   });
-  it('reads quoted fields with commas, line breaks and doubled quotes', () => {
+  it('reads quoted fields with commas, line breaks (as LF) and doubled quotes', () => {
     expect(readCsv('"aaa","b\r\nbb","ccc"\r\nzzz,yyy,xxx')).toEqual([
-      ['aaa', 'b\r\nbb', 'ccc'],
+      ['aaa', 'b\nbb', 'ccc'],
       ['zzz', 'yyy', 'xxx'],
     ]);
     expect(readCsv('"aaa","b""bb","ccc"')).toEqual([['aaa', 'b"bb', 'ccc']]);
     expect(readCsv('tag,description\nM1,"pump, 75 kW"\n')).toEqual([
       ['tag', 'description'],
       ['M1', 'pump, 75 kW'],
+    ]);
+  });
+  it('reads CR, LF and CRLF line ends mixed in one file', () => {
+    expect(readCsv('a,b\r\nc,d\ne,f\rg,h\r\n')).toEqual([
+      ['a', 'b'],
+      ['c', 'd'],
+      ['e', 'f'],
+      ['g', 'h'],
     ]);
   });
   it('keeps empty fields, including a quoted empty last field', () => {
@@ -63,10 +73,16 @@ describe('readCsv (RFC 4180 section 2)', () => {
       );
     }
   });
-  it('reports text glued to a closing quote', () => {
+  it('reports text glued to a closing quote, on whichever line', () => {
     expect(() => readCsv('"abc"x,d')).toThrowError(
       /line 1, character 6: unexpected "x" after a closing quote/,
     );
+    expect(() => readCsv('tag;desc\r\nM1;"pump ""A"""x;LV\r\n')).toThrowError(
+      'CSV line 2, character 16: unexpected "x" after a closing quote; expected the delimiter ";" or a line end',
+    );
+  });
+  it('reads spaces between a closing quote and the delimiter as nothing (papaparse leniency)', () => {
+    expect(readCsv('"pump, 75 kW"  ,LV\n')).toEqual([['pump, 75 kW', 'LV']]);
   });
   it('round-trips any table written with RFC 4180 quoting (property)', () => {
     const cell = fc.string({ unit: fc.constantFrom('a', 'b', ',', '"', '\n', '\r\n', ' ', ';', 'é') });
@@ -77,7 +93,8 @@ describe('readCsv (RFC 4180 section 2)', () => {
           const width = (rows[0] as string[]).length;
           const table = rows.map((r) => Array.from({ length: width }, (_, i) => r[i] ?? ''));
           const text = table.map((r) => r.map((c) => `"${c.replace(/"/g, '""')}"`).join(',')).join('\r\n');
-          expect(readCsv(text, { delimiter: ',' })).toEqual(table);
+          const asLf = table.map((r) => r.map((c) => c.replace(/\r\n?/g, '\n')));
+          expect(readCsv(text, { delimiter: ',' })).toEqual(asLf);
         },
       ),
     );

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { callAtCursor } from '../../../src/io/formula/tokenize.ts';
+import { callAtCursor } from '../../../src/io/formula/cursor.ts';
 
 /** The cursor sits where the "|" is. */
 function at(textWithBar: string) {

@@ -156,11 +156,9 @@ describe('readEquipmentFile refuses bad lists with a clear message', () => {
     ['list.csv', 'corrupt', () => new TextEncoder().encode('tag,bus\n"M1,LV\n')],
   ] as const)('%s: %s', async (name, code, make) => {
     const r = await readEquipmentFile(name, make());
-    expect(r.ok).toBe(false);
-    if (!r.ok) {
-      expect(r.problem.code).toBe(code);
-      expect(describeProblem(r.problem)).toContain(name);
-    }
+    if (r.ok) return expect.fail(`${name} was read; expected the refusal ${code}`);
+    expect(r.problem.code).toBe(code);
+    expect(describeProblem(r.problem)).toContain(name);
   });
 
   it('reads the first visible sheet of an xlsx with percent cells as percent', async () => {
