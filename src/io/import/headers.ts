@@ -125,4 +125,4 @@ export function readHeader(text: string): HeaderReading {
   return withUnit({ target: null, match: 'none' });
 }
 
-export { columnLetters as columnLetter } from '../../core/workbook/buildRefs.ts';
+export { columnLetters as columnLetter } from '../../core/workbook/refs.ts';

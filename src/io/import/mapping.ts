@@ -3,7 +3,7 @@
 // table and the units in the headers; the user can change any of it before the preview.
 import { NUMERIC_COLUMNS, TEXT_COLUMNS } from '../../core/site/model.ts';
 import { CASE_PREFIX } from '../../core/site/parse.ts';
-import { columnLetters as columnLetter } from '../../core/workbook/buildRefs.ts';
+import { columnLetters as columnLetter } from '../../core/workbook/refs.ts';
 import { readHeader } from './headers.ts';
 import { recall, remember, type MappingMemory } from './memory.ts';
 import type { RawCell, RawTable } from './table.ts';
