@@ -179,7 +179,8 @@ export class BusRollupPlugin extends FunctionPlugin {
     const b = blockOf(node, state);
     const store = cellStoreOf(this);
     if (b && store) {
-      if (b.width !== 1) return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
+      if (b.width !== 1)
+        return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
       const address = { sheet: b.sheet, col: b.col, row: 0 };
       return {
         height: b.height,
@@ -193,7 +194,8 @@ export class BusRollupPlugin extends FunctionPlugin {
     const v: unknown = this.evaluateAst(node as never, state as never);
     if (v instanceof CellError) return v;
     if (v instanceof SimpleRangeValue) {
-      if (v.width() !== 1) return fail(fn, `argument ${position} (${what}) must be one column; got ${v.width()} columns`);
+      if (v.width() !== 1)
+        return fail(fn, `argument ${position} (${what}) must be one column; got ${v.width()} columns`);
       const data = v.data;
       return { height: v.height(), read: (row) => asCell(data[row]?.[0]) };
     }
@@ -219,6 +221,10 @@ function metadata(method: string) {
 export const BUS_ROLLUP_PLUGIN: OwnPlugin = {
   plugin: BusRollupPlugin,
   translations: {
-    [ENGINE_LANGUAGE]: { [BUS_SUM.all]: BUS_SUM.all, [BUS_SUM.absorbed]: BUS_SUM.absorbed, [BUS_SUM.delivered]: BUS_SUM.delivered },
+    [ENGINE_LANGUAGE]: {
+      [BUS_SUM.all]: BUS_SUM.all,
+      [BUS_SUM.absorbed]: BUS_SUM.absorbed,
+      [BUS_SUM.delivered]: BUS_SUM.delivered,
+    },
   },
 };

@@ -50,55 +50,83 @@ describe('BUS.SUM in the engine equals SUMIF / SUMIFS of the plain engine', () =
 
   it('for random tables on two sheets, every part', () => {
     fc.assert(
-      fc.property(fc.array(row, { minLength: 1, maxLength: 40 }), fc.array(row, { minLength: 1, maxLength: 15 }), (t1, t2) => {
-        const list = ['MV', 'LV1', 'LV2', 'PUMP', 'NONE'];
-        const items = (t: typeof t1) => t.map(([b, x]) => [b, x]);
-        const data = [
-          { name: 'Items', cells: items(t1) },
-          { name: 'More', cells: items(t2) },
-        ];
-        const [n1, n2] = [t1.length, t2.length];
-        const args = `Items!$A$1:$A$${n1},Items!$B$1:$B$${n1},More!$A$1:$A$${n2},More!$B$1:$B$${n2}`;
-        const own = createEngine([
-          ...data,
-          {
-            name: 'Buses',
-            cells: list.map((b, i) => [b, `=BUS.SUM($A${i + 1},${args})`, `=BUS.SUM.ABS($A${i + 1},${args})`, `=BUS.SUM.DEL($A${i + 1},${args})`]),
-          },
-        ]);
-        const sumif = (r: number, extra?: string) =>
-          ['Items', 'More']
-            .map((s, k) => {
-              const n = k === 0 ? n1 : n2;
-              const keys = `${s}!$A$1:$A$${n}`;
-              const vals = `${s}!$B$1:$B$${n}`;
-              return extra ? `SUMIFS(${vals},${keys},$A${r},${vals},"${extra}")` : `SUMIF(${keys},$A${r},${vals})`;
-            })
-            .join('+');
-        const plain = createPlainEngine([
-          ...data,
-          { name: 'Buses', cells: list.map((b, i) => [b, `=${sumif(i + 1)}`, `=${sumif(i + 1, '>0')}`, `=-(${sumif(i + 1, '<0')})`]) },
-        ]);
-        for (let r = 0; r < list.length; r++) {
-          for (let c = 1; c <= 3; c++) {
-            const x = readCell(own, 'Buses', r, c);
-            const y = readCell(plain, 'Buses', r, c);
-            expect(x.ok && y.ok, `row ${r + 1} col ${c}`).toBe(true);
-            if (x.ok && y.ok) expect(x.value as number).toBeCloseTo(y.value as number, 6);
+      fc.property(
+        fc.array(row, { minLength: 1, maxLength: 40 }),
+        fc.array(row, { minLength: 1, maxLength: 15 }),
+        (t1, t2) => {
+          const list = ['MV', 'LV1', 'LV2', 'PUMP', 'NONE'];
+          const items = (t: typeof t1) => t.map(([b, x]) => [b, x]);
+          const data = [
+            { name: 'Items', cells: items(t1) },
+            { name: 'More', cells: items(t2) },
+          ];
+          const [n1, n2] = [t1.length, t2.length];
+          const args = `Items!$A$1:$A$${n1},Items!$B$1:$B$${n1},More!$A$1:$A$${n2},More!$B$1:$B$${n2}`;
+          const own = createEngine([
+            ...data,
+            {
+              name: 'Buses',
+              cells: list.map((b, i) => [
+                b,
+                `=BUS.SUM($A${i + 1},${args})`,
+                `=BUS.SUM.ABS($A${i + 1},${args})`,
+                `=BUS.SUM.DEL($A${i + 1},${args})`,
+              ]),
+            },
+          ]);
+          const sumif = (r: number, extra?: string) =>
+            ['Items', 'More']
+              .map((s, k) => {
+                const n = k === 0 ? n1 : n2;
+                const keys = `${s}!$A$1:$A$${n}`;
+                const vals = `${s}!$B$1:$B$${n}`;
+                return extra
+                  ? `SUMIFS(${vals},${keys},$A${r},${vals},"${extra}")`
+                  : `SUMIF(${keys},$A${r},${vals})`;
+              })
+              .join('+');
+          const plain = createPlainEngine([
+            ...data,
+            {
+              name: 'Buses',
+              cells: list.map((b, i) => [
+                b,
+                `=${sumif(i + 1)}`,
+                `=${sumif(i + 1, '>0')}`,
+                `=-(${sumif(i + 1, '<0')})`,
+              ]),
+            },
+          ]);
+          for (let r = 0; r < list.length; r++) {
+            for (let c = 1; c <= 3; c++) {
+              const x = readCell(own, 'Buses', r, c);
+              const y = readCell(plain, 'Buses', r, c);
+              expect(x.ok && y.ok, `row ${r + 1} col ${c}`).toBe(true);
+              if (x.ok && y.ok) expect(x.value as number).toBeCloseTo(y.value as number, 6);
+            }
           }
-        }
-      }),
+        },
+      ),
       { numRuns: 30 },
     );
   });
 
   it('says which argument does not match in size', () => {
     const hf = createEngine([
-      { name: 'Items', cells: [['A', 1], ['A', 2]] },
+      {
+        name: 'Items',
+        cells: [
+          ['A', 1],
+          ['A', 2],
+        ],
+      },
       { name: 'Buses', cells: [['A', '=BUS.SUM($A1,Items!$A$1:$A$2,Items!$B$1:$B$1)']] },
     ]);
     const r = readCell(hf, 'Buses', 0, 1);
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.message).toContain('argument 3 (values) has 1 rows but argument 2 (bus column on Items) has 2');
+    if (!r.ok)
+      expect(r.message).toContain(
+        'argument 3 (values) has 1 rows but argument 2 (bus column on Items) has 2',
+      );
   });
 });

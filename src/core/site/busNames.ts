@@ -13,7 +13,11 @@ export function busKey(name: string): string {
 export function unifyBusNames(rows: readonly EquipmentRow[]): { rows: EquipmentRow[]; problems: Problem[] } {
   const first = new Map<string, { name: string; row: number }>();
   const problems: Problem[] = [];
-  const spell = (name: string | undefined, row: EquipmentRow, column: 'bus' | 'to_bus'): string | undefined => {
+  const spell = (
+    name: string | undefined,
+    row: EquipmentRow,
+    column: 'bus' | 'to_bus',
+  ): string | undefined => {
     if (name === undefined || name === '') return name;
     const key = busKey(name);
     const known = first.get(key);

@@ -81,7 +81,12 @@ function byBus(site: Site, before: CaseBalance, choices: readonly BankChoice[]):
 }
 
 /** The compensation of one case (the site must roll up: a tree with one point of connection). */
-export function compensateCase(site: Site, caseName: string, choices: readonly BankChoice[], given?: CaseBalance): CaseCompensation {
+export function compensateCase(
+  site: Site,
+  caseName: string,
+  choices: readonly BankChoice[],
+  given?: CaseBalance,
+): CaseCompensation {
   const before = given ?? rollUp(site, caseName);
   const banks = byBus(site, before, choices);
   const req = site.settings.requirement;
@@ -96,7 +101,11 @@ export function compensateCase(site: Site, caseName: string, choices: readonly B
     return { c, total, n, out: (c.fixed_kvar ?? 0) + (c.step_kvar ?? 0) * n };
   });
   const capOut = outputs.reduce((s, o) => s + o.out, 0);
-  const lead = runCall({ fn: 'KVAR.TOTAN', args: [Math.abs(root.p_kw), root.q_kvar - capOut, -band.leadTan], columns: [] });
+  const lead = runCall({
+    fn: 'KVAR.TOTAN',
+    args: [Math.abs(root.p_kw), root.q_kvar - capOut, -band.leadTan],
+    columns: [],
+  });
   if (!lead.ok) throw new Error(lead.message);
   const inductive = Math.max(0, -lead.value);
   const extra = new Map<string, BusExtra>();
@@ -118,8 +127,17 @@ export function compensateCase(site: Site, caseName: string, choices: readonly B
 }
 
 /** Every case of the site, in the order of the settings. */
-export function compensate(site: Site, choices: readonly BankChoice[], given?: readonly CaseBalance[]): CaseCompensation[] {
+export function compensate(
+  site: Site,
+  choices: readonly BankChoice[],
+  given?: readonly CaseBalance[],
+): CaseCompensation[] {
   return site.settings.cases.map((c) =>
-    compensateCase(site, c, choices, given?.find((b) => b.case === c)),
+    compensateCase(
+      site,
+      c,
+      choices,
+      given?.find((b) => b.case === c),
+    ),
   );
 }

@@ -306,7 +306,9 @@ export function designCompensation(
   const after = result.map((r) => r.after);
   banks = banks.map((b) => ({
     ...b,
-    steps_in: Object.fromEntries(result.map((r) => [r.case, r.banks.find((x) => x.bus === b.bus)?.steps_in ?? 0])),
+    steps_in: Object.fromEntries(
+      result.map((r) => [r.case, r.banks.find((x) => x.bus === b.bus)?.steps_in ?? 0]),
+    ),
   }));
   const finalReactors = reactors.map((x) => ({
     ...x,

@@ -55,7 +55,12 @@ interface SumTerm {
   readonly valueCol: number;
 }
 
-function terms(s: WorkbookStructure, spans: SpanIndex, key: string, pick: (c: EquipmentColumns) => number | undefined): SumTerm[] {
+function terms(
+  s: WorkbookStructure,
+  spans: SpanIndex,
+  key: string,
+  pick: (c: EquipmentColumns) => number | undefined,
+): SumTerm[] {
   const bySheet = spans.get(key);
   return s.sheets.flatMap((sheet) => {
     const valueCol = sheet.cols.role === 'shunt' ? pick(sheet.cols) : undefined;
@@ -84,7 +89,13 @@ export function ownSum(
       .filter((t) => t.span)
       .map((t) => {
         const { first, last } = t.span as Span;
-        const keys = rangeOn(t.cols.sheet.name, first, t.cols.input.get('bus') as number, last, t.cols.input.get('bus') as number);
+        const keys = rangeOn(
+          t.cols.sheet.name,
+          first,
+          t.cols.input.get('bus') as number,
+          last,
+          t.cols.input.get('bus') as number,
+        );
         return `${keys},${rangeOn(t.cols.sheet.name, first, t.valueCol, last, t.valueCol)}`;
       });
     return pairs.length === 0 ? '=0' : `=${BUS_SUM[part]}(${bus.nameCell},${pairs.join(',')})`;
@@ -96,7 +107,11 @@ export function ownSum(
   return `=${absorbedCell ?? portable(true)}-(${portable(false)})`;
 }
 
-function portableSum(list: readonly SumTerm[], bus: { name: string; nameCell: string }, positive: boolean): string {
+function portableSum(
+  list: readonly SumTerm[],
+  bus: { name: string; nameCell: string },
+  positive: boolean,
+): string {
   const crit = criterion(bus.name, bus.nameCell);
   const parts = list.flatMap((t) => {
     const sheet = t.cols.sheet.name;

@@ -80,7 +80,9 @@ export function planCompensationColumns(cases: readonly string[]): CompensationC
     }) - 1;
   const u = add(COMP_HEADERS.u, FORMATS.kv, 8);
   const ssc = add(COMP_HEADERS.ssc, '0.0', 10);
-  const input = Object.fromEntries(BANK_INPUTS.map((b) => [b.key, add(b.header, b.format, b.width, false)])) as Record<BankInputKey, number>;
+  const input = Object.fromEntries(
+    BANK_INPUTS.map((b) => [b.key, add(b.header, b.format, b.width, false)]),
+  ) as Record<BankInputKey, number>;
   const fixed = {
     total: add(COMP_HEADERS.total, FORMATS.kvar, 9),
     tune: add(COMP_HEADERS.tune, '0.00', 8),

@@ -46,19 +46,36 @@ export function planEquipmentColumns(
   const columns: ColumnInfo[] = [];
   const add = (info: ColumnInfo): number => columns.push(info) - 1;
   const computed = (header: string, format: string | undefined, width: number) =>
-    add({ header, ...(format ? { format } : {}), width: Math.max(width, Math.min(header.length + 1, 18)), computed: true });
+    add({
+      header,
+      ...(format ? { format } : {}),
+      width: Math.max(width, Math.min(header.length + 1, 18)),
+      computed: true,
+    });
   const perCase = (header: (c: string) => string, format: string, width: number) =>
     cases.map((c) => computed(header(c), format, width));
 
   const input = new Map<string, number>();
-  for (const c of sheet.inputs) input.set(c.key, add({ header: c.header, width: c.width, ...(c.format ? { format: c.format } : {}) }));
+  for (const c of sheet.inputs)
+    input.set(c.key, add({ header: c.header, width: c.width, ...(c.format ? { format: c.format } : {}) }));
   const usesLoad = kinds.some((k) => k.load !== undefined);
   const loadDefault = usesLoad ? add({ header: HEADERS.loadDefault, format: '0.00', width: 9 }) : undefined;
   const loadCase = usesLoad
-    ? cases.map((c) => add({ header: HEADERS.loadCase(c), format: '0.00', width: Math.max(9, Math.min(HEADERS.loadCase(c).length + 1, 18)) }))
+    ? cases.map((c) =>
+        add({
+          header: HEADERS.loadCase(c),
+          format: '0.00',
+          width: Math.max(9, Math.min(HEADERS.loadCase(c).length + 1, 18)),
+        }),
+      )
     : undefined;
   const other = add({ header: HEADERS.other, width: 18 });
-  const inputCols = [...input.values(), ...(loadDefault !== undefined ? [loadDefault] : []), ...(loadCase ?? []), other];
+  const inputCols = [
+    ...input.values(),
+    ...(loadDefault !== undefined ? [loadDefault] : []),
+    ...(loadCase ?? []),
+    other,
+  ];
   const firstComputed = columns.length;
   const inService = computed(HEADERS.inService, FORMATS.count, 9);
   const base = {
@@ -77,12 +94,23 @@ export function planEquipmentColumns(
     const loadUsed = perCase(HEADERS.loadUsed, '0.00', 9);
     const p = kinds.some((k) => k.shunt?.p) ? perCase(HEADERS.p, FORMATS.kw, 10) : undefined;
     const q = perCase(HEADERS.q, FORMATS.kvar, 10);
-    const resonance = kinds.some((k) => k.shunt?.resonanceKvar) ? computed(HEADERS.resonance, FORMATS.kvar, 12) : undefined;
-    return { ...base, loadUsed, ...(p ? { p } : {}), q, ...(resonance !== undefined ? { resonance } : {}), columns };
+    const resonance = kinds.some((k) => k.shunt?.resonanceKvar)
+      ? computed(HEADERS.resonance, FORMATS.kvar, 12)
+      : undefined;
+    return {
+      ...base,
+      loadUsed,
+      ...(p ? { p } : {}),
+      q,
+      ...(resonance !== undefined ? { resonance } : {}),
+      columns,
+    };
   }
   const rated = kinds.some((k) => k.branch?.rating);
   const hasP = kinds.some((k) => k.branch?.pLoss);
-  const qCharging = kinds.some((k) => k.branch?.qDelivered) ? computed(HEADERS.qCharging, FORMATS.kvar, 11) : undefined;
+  const qCharging = kinds.some((k) => k.branch?.qDelivered)
+    ? computed(HEADERS.qCharging, FORMATS.kvar, 11)
+    : undefined;
   const sCarried = perCase(HEADERS.sCarried, FORMATS.kva, 11);
   const loading = rated ? perCase(HEADERS.loading, FORMATS.pct, 9) : undefined;
   const pLoss = hasP ? perCase(HEADERS.pLoss, '0.00', 10) : undefined;

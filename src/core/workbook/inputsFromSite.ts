@@ -31,14 +31,20 @@ export function settingsInputsOf(site: Site): SettingsInputs {
 }
 
 /** Values of a row that the sheet has no column for, as "name=value; ...". */
-export function otherValues(cols: EquipmentColumns, row: EquipmentRow, cases: readonly string[]): string | null {
+export function otherValues(
+  cols: EquipmentColumns,
+  row: EquipmentRow,
+  cases: readonly string[],
+): string | null {
   const pairs: string[] = [];
-  if (row.to_bus !== undefined && row.to_bus !== '' && !cols.input.has('to_bus')) pairs.push(`to_bus=${row.to_bus}`);
+  if (row.to_bus !== undefined && row.to_bus !== '' && !cols.input.has('to_bus'))
+    pairs.push(`to_bus=${row.to_bus}`);
   for (const [k, v] of Object.entries(row.values)) {
     if (v === undefined || cols.input.has(k) || (k === 'load' && cols.loadDefault !== undefined)) continue;
     pairs.push(`${k}=${v}`);
   }
-  if (cols.loadCase === undefined) for (const [c, v] of Object.entries(row.loads)) pairs.push(`load:${c}=${v}`);
+  if (cols.loadCase === undefined)
+    for (const [c, v] of Object.entries(row.loads)) pairs.push(`load:${c}=${v}`);
   else for (const [c, v] of Object.entries(row.loads)) if (!cases.includes(c)) pairs.push(`load:${c}=${v}`);
   return pairs.length > 0 ? pairs.join('; ') : null;
 }

@@ -73,10 +73,20 @@ export const BUS_HEADERS = {
 } as const;
 
 /** Formats of computed columns. */
-export const FORMATS = { kw: '0.0', kvar: '0.0', kva: '0.0', pf: '0.000', pct: '0.0', count: '0', kv: '0.0##' } as const;
+export const FORMATS = {
+  kw: '0.0',
+  kvar: '0.0',
+  kva: '0.0',
+  pf: '0.000',
+  pct: '0.0',
+  count: '0',
+  kv: '0.0##',
+} as const;
 
 /** Sheets Kvar Ledger keeps in step with the equipment: they can be emptied, not deleted or renamed. */
 export function isBuiltInSheet(name: string, equipmentSheets: readonly string[]): boolean {
   const n = name.toLowerCase();
-  return [SHEETS.settings, SHEETS.buses, SHEETS.compensation, ...equipmentSheets].some((s) => s.toLowerCase() === n);
+  return [SHEETS.settings, SHEETS.buses, SHEETS.compensation, ...equipmentSheets].some(
+    (s) => s.toLowerCase() === n,
+  );
 }

@@ -27,7 +27,13 @@ import {
   settingsGenerated,
   type SettingsInputs,
 } from './renderSettings.ts';
-import { equipmentPlans, readSheetRows, structureOf, type ValueOf, type WorkbookStructure } from './structure.ts';
+import {
+  equipmentPlans,
+  readSheetRows,
+  structureOf,
+  type ValueOf,
+  type WorkbookStructure,
+} from './structure.ts';
 
 export const DEFAULT_CASE = 'normal';
 
@@ -37,10 +43,23 @@ export interface RenderOptions {
   readonly valueReader?: (sheet: string) => ValueOf | undefined;
 }
 
-const blank = (v: CellContent | undefined) => v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
+const blank = (v: CellContent | undefined) =>
+  v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
 
 function findSheet(doc: WorkbookDoc, name: string): SheetDoc | undefined {
-  return doc.sheets.find((s) => s.name === name) ?? doc.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase());
+  return (
+    doc.sheets.find((s) => s.name === name) ??
+    doc.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase())
+  );
+}
+
+/** A workbook of a site (not a plain spreadsheet): it has a Site sheet of settings, or a Buses sheet. */
+export function isSiteDoc(doc: WorkbookDoc): boolean {
+  const site = doc.sheets.find((s) => s.name === SHEETS.settings);
+  return (
+    (site !== undefined && site.cells[0]?.[0] === 'Setting') ||
+    doc.sheets.some((s) => s.name === SHEETS.buses)
+  );
 }
 
 /** Case names from the Site inputs (text, trimmed, first of equal names); one default case when none. */
@@ -73,7 +92,10 @@ function overridesOf(sheet: SheetDoc | undefined): Set<string> {
  * is; an older or foreign layout has its input columns moved by header text (computed columns
  * are written again anyway).
  */
-function equipmentCells(sheet: SheetDoc | undefined, cols: EquipmentColumns): { cells: CellContent[][]; moved: boolean } {
+function equipmentCells(
+  sheet: SheetDoc | undefined,
+  cols: EquipmentColumns,
+): { cells: CellContent[][]; moved: boolean } {
   const header = headerRow(cols);
   if (!sheet) return { cells: [header], moved: false };
   const given = sheet.cells[0] ?? [];
@@ -96,14 +118,20 @@ function equipmentCells(sheet: SheetDoc | undefined, cols: EquipmentColumns): { 
 }
 
 /** Bank inputs per bus from a Compensation sheet (by header text), keyed by bus. */
-export function bankInputsOf(sheet: SheetDoc | undefined, cols: CompensationColumns): Map<string, Map<number, CellContent>> {
+export function bankInputsOf(
+  sheet: SheetDoc | undefined,
+  cols: CompensationColumns,
+): Map<string, Map<number, CellContent>> {
   const out = new Map<string, Map<number, CellContent>>();
   if (!sheet) return out;
   const index = new Map<string, number>();
   (sheet.cells[0] ?? []).forEach((h, c) => {
     if (typeof h === 'string') index.set(h.trim().toLowerCase(), c);
   });
-  const wanted = [...BANK_INPUTS.map((b) => [b.header, cols.input[b.key]] as const), [NOTE_HEADER, cols.note] as const];
+  const wanted = [
+    ...BANK_INPUTS.map((b) => [b.header, cols.input[b.key]] as const),
+    [NOTE_HEADER, cols.note] as const,
+  ];
   for (let r = 1; r < sheet.cells.length; r++) {
     const bus = sheet.cells[r]?.[0];
     if (blank(bus)) break; // the bus list ends at the first blank row; a summary follows
@@ -188,19 +216,37 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     const computedCols = e.cols.columns.length;
     for (let r = 1; r < Math.max(cells.length, e.rows.length + 1); r++) {
       const info = e.rows[r - 1];
-      const generated = new Map<number, CellContent>(info?.present ? computedCells(e.cols, r, info, cases, lookup) : []);
+      const generated = new Map<number, CellContent>(
+        info?.present ? computedCells(e.cols, r, info, cases, lookup) : [],
+      );
       for (let c = e.cols.firstComputed; c < computedCols; c++) {
         if (over.has(`${r},${c}`)) continue;
         const v = generated.get(c) ?? null;
         if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
       }
     }
-    sheets.push(sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, e.moved ? undefined : e.sheet));
+    sheets.push(
+      sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, e.moved ? undefined : e.sheet),
+    );
   }
 
   const busesSheet = findSheet(doc, SHEETS.buses);
-  const buses = renderBusesSheet({ s: structure, cols: busCols, comp: compCols, flavour: opts.flavour, spans });
-  sheets.push(sheetDoc(SHEETS.buses, overlay(busesSheet, buses, () => false), busCols.columns, BUSES_PURPOSE, busesSheet));
+  const buses = renderBusesSheet({
+    s: structure,
+    cols: busCols,
+    comp: compCols,
+    flavour: opts.flavour,
+    spans,
+  });
+  sheets.push(
+    sheetDoc(
+      SHEETS.buses,
+      overlay(busesSheet, buses, () => false),
+      busCols.columns,
+      BUSES_PURPOSE,
+      busesSheet,
+    ),
+  );
 
   const compSheet = findSheet(doc, SHEETS.compensation);
   const comp = renderCompensationSheet({
@@ -213,12 +259,23 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
   });
   // Bank inputs are placed by bus; whatever the sheet held in the table before is written anew.
   sheets.push(
-    sheetDoc(SHEETS.compensation, overlay(compSheet, comp, () => false), compCols.columns, COMPENSATION_PURPOSE, compSheet),
+    sheetDoc(
+      SHEETS.compensation,
+      overlay(compSheet, comp, () => false),
+      compCols.columns,
+      COMPENSATION_PURPOSE,
+      compSheet,
+    ),
   );
 
   const builtIn = new Set(sheets.map((s) => s.name.toLowerCase()));
   for (const s of doc.sheets) if (!builtIn.has(s.name.toLowerCase())) sheets.push(s);
-  return { doc: { format: 'kvar-ledger-workbook', version: 2, title: doc.title, sheets }, structure, busCols, compCols };
+  return {
+    doc: { format: 'kvar-ledger-workbook', version: 2, title: doc.title, sheets },
+    structure,
+    busCols,
+    compCols,
+  };
 }
 
 function sheetDoc(
@@ -229,11 +286,20 @@ function sheetDoc(
   own: SheetDoc | undefined,
 ): SheetDoc {
   const overrides: CellAt[] = [...(own?.overrides ?? [])];
-  return { name, cells, ...(columns ? { columns } : {}), purpose, ...(overrides.length > 0 ? { overrides } : {}) };
+  return {
+    name,
+    cells,
+    ...(columns ? { columns } : {}),
+    purpose,
+    ...(overrides.length > 0 ? { overrides } : {}),
+  };
 }
 
 /** Listed generated cells over a sheet's own (the Site sheet: labels, units, notes, limits in use, cautions). */
-function overlayCells(own: SheetDoc, list: ReadonlyArray<readonly [number, number, CellContent]>): CellContent[][] {
+function overlayCells(
+  own: SheetDoc,
+  list: ReadonlyArray<readonly [number, number, CellContent]>,
+): CellContent[][] {
   const cells = copyRows(own.cells);
   const over = overridesOf(own);
   for (const [r, c, v] of list) if (!over.has(`${r},${c}`)) put(cells, r, c, v);

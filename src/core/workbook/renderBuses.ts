@@ -31,7 +31,10 @@ export function ownSumCells(input: BusesInput, i: number): Array<readonly [numbe
     out.push([cols.pOwn[k] as number, ownSum(s, spans, flavour, bus, (c) => c.p?.[k], 'all')]);
     out.push([cols.qAbsOwn[k] as number, ownSum(s, spans, flavour, bus, (c) => c.q?.[k], 'absorbed')]);
     const absorbed = cell(r, cols.qAbsOwn[k] as number);
-    out.push([cols.qDelOwn[k] as number, ownSum(s, spans, flavour, bus, (c) => c.q?.[k], 'delivered', absorbed)]);
+    out.push([
+      cols.qDelOwn[k] as number,
+      ownSum(s, spans, flavour, bus, (c) => c.q?.[k], 'delivered', absorbed),
+    ]);
   });
   return out;
 }
@@ -59,7 +62,8 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
     if (b.feeder) {
       const f = s.sheets[b.feeder.sheet];
       const tagCol = f?.cols.input.get('tag');
-      if (f && tagCol !== undefined) out[cols.fedBy] = `=${cellOn(f.cols.sheet.name, b.feeder.row, tagCol, true)}`;
+      if (f && tagCol !== undefined)
+        out[cols.fedBy] = `=${cellOn(f.cols.sheet.name, b.feeder.row, tagCol, true)}`;
     }
     out[cols.upstream] = b.upstream ?? null;
     if (b.voltage) {
@@ -68,19 +72,30 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
       if (v && uCol !== undefined) out[cols.u] = `=${cellOn(v.cols.sheet.name, b.voltage.row, uCol, true)}`;
     }
     s.cases.forEach((_, k) => {
-      const before = { p: [here(cols.pOwn[k] as number)], abs: [here(cols.qAbsOwn[k] as number)], del: [here(cols.qDelOwn[k] as number)] };
+      const before = {
+        p: [here(cols.pOwn[k] as number)],
+        abs: [here(cols.qAbsOwn[k] as number)],
+        del: [here(cols.qDelOwn[k] as number)],
+      };
       const compOut = cellOn(SHEETS.compensation, r, comp.capOut[k] as number, true);
       const compReactor = cellOn(SHEETS.compensation, r, comp.reactorIn[k] as number, true);
-      const after = { p: [here(cols.pOwn[k] as number)], abs: [here(cols.qAbsOwn[k] as number), compReactor], del: [here(cols.qDelOwn[k] as number), compOut] };
+      const after = {
+        p: [here(cols.pOwn[k] as number)],
+        abs: [here(cols.qAbsOwn[k] as number), compReactor],
+        del: [here(cols.qDelOwn[k] as number), compOut],
+      };
       for (const j of children.get(b.key) ?? []) {
         const child = s.buses[j] as BusInfo;
         const f = s.sheets[(child.feeder as { sheet: number }).sheet];
         if (!f) continue;
         const row = (child.feeder as { row: number }).row;
-        const on = (c: number | undefined) => (c === undefined ? undefined : cellOn(f.cols.sheet.name, row, c, true));
+        const on = (c: number | undefined) =>
+          c === undefined ? undefined : cellOn(f.cols.sheet.name, row, c, true);
         const cr = j + 1;
         const term = (childCol: readonly number[], branch: string | undefined) =>
-          branch === undefined ? cell(cr, childCol[k] as number) : `(${cell(cr, childCol[k] as number)}+${branch})`;
+          branch === undefined
+            ? cell(cr, childCol[k] as number)
+            : `(${cell(cr, childCol[k] as number)}+${branch})`;
         before.p.push(term(cols.p, on(f.cols.pLoss?.[k])));
         before.abs.push(term(cols.qAbs, on(f.cols.qLoss?.[k])));
         before.del.push(term(cols.qDel, on(f.cols.qCharging)));
@@ -88,7 +103,9 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
         after.abs.push(term(cols.qAbsAfter, on(f.cols.qLossAfter?.[k])));
         after.del.push(term(cols.qDelAfter, on(f.cols.qCharging)));
       }
-      const P = here(cols.p[k] as number), Q = here(cols.q[k] as number), S = here(cols.s[k] as number);
+      const P = here(cols.p[k] as number),
+        Q = here(cols.q[k] as number),
+        S = here(cols.s[k] as number);
       out[cols.p[k] as number] = '=' + before.p.join('+');
       out[cols.qAbs[k] as number] = '=' + before.abs.join('+');
       out[cols.qDel[k] as number] = '=' + before.del.join('+');
@@ -97,11 +114,14 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
       out[cols.cos[k] as number] = `=IF(${S}=0,"",COSPHI(${P},${Q}))`;
       out[cols.tan[k] as number] = `=IF(${P}=0,"",TANPHI(${P},${Q}))`;
       out[cols.sense[k] as number] = `=IF(${Q}>0,"lagging",IF(${Q}<0,"leading","unity"))`;
-      const PA = here(cols.pAfter[k] as number), QA = here(cols.qAfter[k] as number), SA = here(cols.sAfter[k] as number);
+      const PA = here(cols.pAfter[k] as number),
+        QA = here(cols.qAfter[k] as number),
+        SA = here(cols.sAfter[k] as number);
       out[cols.pAfter[k] as number] = '=' + after.p.join('+');
       out[cols.qAbsAfter[k] as number] = '=' + after.abs.join('+');
       out[cols.qDelAfter[k] as number] = '=' + after.del.join('+');
-      out[cols.qAfter[k] as number] = `=${here(cols.qAbsAfter[k] as number)}-${here(cols.qDelAfter[k] as number)}`;
+      out[cols.qAfter[k] as number] =
+        `=${here(cols.qAbsAfter[k] as number)}-${here(cols.qDelAfter[k] as number)}`;
       out[cols.sAfter[k] as number] = `=KVA.TOTAL(${PA},${QA})`;
       out[cols.cosAfter[k] as number] = `=IF(${SA}=0,"",COSPHI(${PA},${QA}))`;
       out[cols.qOwn[k] as number] = `=${here(cols.qAbsOwn[k] as number)}-${here(cols.qDelOwn[k] as number)}`;

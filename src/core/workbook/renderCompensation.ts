@@ -41,7 +41,12 @@ function resonanceCheck(first: string, whole: string): string {
 }
 
 /** Short-circuit power at a bus: the supply's at the root, through the feeding transformer or line below. */
-function sscFormula(s: WorkbookStructure, b: BusInfo, upRow: number | undefined, cols: CompensationColumns): string | null {
+function sscFormula(
+  s: WorkbookStructure,
+  b: BusInfo,
+  upRow: number | undefined,
+  cols: CompensationColumns,
+): string | null {
   if (!b.feeder) return b.level === 0 ? `=IF(ISBLANK(${settingRef('ssc')}),"",${settingRef('ssc')})` : null;
   if (upRow === undefined) return null;
   const up = cell(upRow, cols.ssc);
@@ -68,7 +73,14 @@ function sscFormula(s: WorkbookStructure, b: BusInfo, upRow: number | undefined,
 /** The plain capacitors already on bus i at full output (live: BUS.SUM over its span; export: SUMIF). */
 export function plainInstalledCell(input: CompensationInput, i: number): string {
   const b = input.s.buses[i] as BusInfo;
-  return ownSum(input.s, input.spans, input.flavour, { name: b.name, nameCell: nameCellOf(i + 1) }, (c) => c.resonance, 'all');
+  return ownSum(
+    input.s,
+    input.spans,
+    input.flavour,
+    { name: b.name, nameCell: nameCellOf(i + 1) },
+    (c) => c.resonance,
+    'all',
+  );
 }
 
 export function renderCompensationSheet(input: CompensationInput): CellContent[][] {
@@ -91,21 +103,35 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     const inp = (key: keyof CompensationColumns['input']) => here(cols.input[key]);
     out[cols.bus] = b.name;
     out[cols.u] = `=${bus(busCols.u)}`;
-    const upRow = b.upstream === undefined ? undefined : rowOfBus.get(s.buses.find((x) => x.name === b.upstream)?.key ?? '');
+    const upRow =
+      b.upstream === undefined
+        ? undefined
+        : rowOfBus.get(s.buses.find((x) => x.name === b.upstream)?.key ?? '');
     out[cols.ssc] = sscFormula(s, b, upRow, cols);
-    const [fixed, step, steps, ur, reactor] = [inp('fixed_kvar'), inp('step_kvar'), inp('steps'), inp('u_rated_kv'), inp('reactor_kvar')];
+    const [fixed, step, steps, ur, reactor] = [
+      inp('fixed_kvar'),
+      inp('step_kvar'),
+      inp('steps'),
+      inp('u_rated_kv'),
+      inp('reactor_kvar'),
+    ];
     // A blank detuning is 0 in every program (IF(ISBLANK), not N(), which one program refuses on a blank).
     const p = `IF(ISBLANK(${inp('p_pct')}),0,${inp('p_pct')})`;
-    const total = here(cols.total), ssc = here(cols.ssc), u = here(cols.u);
+    const total = here(cols.total),
+      ssc = here(cols.ssc),
+      u = here(cols.u);
     out[cols.total] = `=${fixed}+${step}*${steps}`;
     out[cols.tune] = `=IF(${p}>0,CAPBANK.TUNE(${p}),"")`;
     out[cols.uCap] = `=IF(${total}=0,"",CAPBANK.UCAP(${u},${p}))`;
-    out[cols.stepNameplate] = `=IF(OR(${step}=0,ISBLANK(${ur})),"",-${step}/KVAR.CAPBANK(1,${ur},${u},${p},${hz},${hz}))`;
+    out[cols.stepNameplate] =
+      `=IF(OR(${step}=0,ISBLANK(${ur})),"",-${step}/KVAR.CAPBANK(1,${ur},${u},${p},${hz},${hz}))`;
     out[cols.plainInstalled] = plainInstalledCell(input, i);
     const installed = here(cols.plainInstalled);
     const first = `IF(${fixed}>0,${fixed},${step})`;
-    out[cols.orderStep] = `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${first}+${installed},${p}))`;
-    out[cols.orderTotal] = `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${total}+${installed},${p}))`;
+    out[cols.orderStep] =
+      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${first}+${installed},${p}))`;
+    out[cols.orderTotal] =
+      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${total}+${installed},${p}))`;
     out[cols.check] = resonanceCheck(here(cols.orderStep), here(cols.orderTotal));
     out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(IF(${step}>0,${step},${fixed}),${ssc}))`;
     out[cols.vriseTotal] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total},${ssc}))`;
@@ -122,7 +148,8 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
       out[cols.stepsIn[k] as number] =
         `=IF(OR(${step}=0,${steps}=0,${sumTotal}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
       out[cols.capOut[k] as number] = `=${fixed}+${step}*${at(cols.stepsIn)}`;
-      out[cols.reactorIn[k] as number] = `=IF(AND(${reactor}>0,${root(cols.needInd)}>${WITHIN_TOL_KVAR}),${reactor},0)`;
+      out[cols.reactorIn[k] as number] =
+        `=IF(AND(${reactor}>0,${root(cols.needInd)}>${WITHIN_TOL_KVAR}),${reactor},0)`;
       out[cols.qAfter[k] as number] = `=${bus(busCols.qAfter[k] as number)}`;
       out[cols.cosAfter[k] as number] = `=${bus(busCols.cosAfter[k] as number)}`;
       if (r === 1) {
@@ -148,4 +175,4 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
 }
 
 export const COMPENSATION_PURPOSE =
-  "Per bus: the bank there (inputs: fixed part, step, steps, detuning, capacitor rating, reactor) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the steps the bank switches (each bank covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.";
+  'Per bus: the bank there (inputs: fixed part, step, steps, detuning, capacitor rating, reactor) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the steps the bank switches (each bank covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.';

@@ -21,7 +21,8 @@ export interface BusLookup {
 
 export type ComputedCells = Array<readonly [number, CellContent]>;
 
-const UNITS = (running: string, qty: string) => `IF(ISBLANK(${running}),IF(ISBLANK(${qty}),1,${qty}),${running})`;
+const UNITS = (running: string, qty: string) =>
+  `IF(ISBLANK(${running}),IF(ISBLANK(${qty}),1,${qty}),${running})`;
 
 function printer(cols: EquipmentColumns, r: number, vars: Partial<Record<VarName, string>>) {
   return (e: Expr) =>
@@ -40,7 +41,13 @@ function printer(cols: EquipmentColumns, r: number, vars: Partial<Record<VarName
 }
 
 /** Computed cells of cell row r (1-based past the header), for a row that is an item. */
-export function computedCells(cols: EquipmentColumns, r: number, info: RowInfo, cases: readonly string[], buses: BusLookup): ComputedCells {
+export function computedCells(
+  cols: EquipmentColumns,
+  r: number,
+  info: RowInfo,
+  cases: readonly string[],
+  buses: BusLookup,
+): ComputedCells {
   const out: Array<[number, CellContent]> = [];
   const at = (key: string) => cell(r, cols.input.get(key) as number);
   const units = UNITS(at('running'), at('qty'));
@@ -56,7 +63,8 @@ export function computedCells(cols: EquipmentColumns, r: number, info: RowInfo, 
       const x = cell(r, xCol);
       out.push([xCol, `=IF(ISBLANK(${own}),IF(ISBLANK(${dflt}),1,${dflt}),${own})`]);
       const print = printer(cols, r, { x, n, hz });
-      const guard = (e: Expr | undefined) => (e === undefined ? '=0' : `=IF(OR(${n}=0,${x}=0),0,${n}*${wrapProduct(print(e), e)})`);
+      const guard = (e: Expr | undefined) =>
+        e === undefined ? '=0' : `=IF(OR(${n}=0,${x}=0),0,${n}*${wrapProduct(print(e), e)})`;
       const p = cols.p?.[k];
       if (p !== undefined) out.push([p, kind ? guard(kind.shunt?.p) : '=NA()']);
       out.push([cols.q?.[k] as number, kind ? guard(kind.shunt?.q) : '=NA()']);
@@ -76,7 +84,13 @@ export function computedCells(cols: EquipmentColumns, r: number, info: RowInfo, 
     const e = b.qDelivered;
     out.push([cols.qCharging, e ? `=${n}*${wrapProduct(printer(cols, r, { n, hz })(e), e)}` : '=0']);
   }
-  const phase = (sCol: readonly number[], carried?: readonly number[], loading?: readonly number[], pLoss?: readonly number[], qLoss?: readonly number[]) =>
+  const phase = (
+    sCol: readonly number[],
+    carried?: readonly number[],
+    loading?: readonly number[],
+    pLoss?: readonly number[],
+    qLoss?: readonly number[],
+  ) =>
     cases.forEach((_, k) => {
       const sc = carried?.[k] as number;
       out.push([sc, `=${cellOn(SHEETS.buses, to, sCol[k] as number, true)}`]);
@@ -95,7 +109,11 @@ export function computedCells(cols: EquipmentColumns, r: number, info: RowInfo, 
 
 /** A printed expression as the right operand of a product: sums and negations in brackets. */
 function wrapProduct(text: string, e: Expr): string {
-  return (e.k === 'op' && (e.op === '+' || e.op === '-' || e.op === '/')) || e.k === 'neg' || (e.k === 'num' && e.v < 0) ? `(${text})` : text;
+  return (e.k === 'op' && (e.op === '+' || e.op === '-' || e.op === '/')) ||
+    e.k === 'neg' ||
+    (e.k === 'num' && e.v < 0)
+    ? `(${text})`
+    : text;
 }
 
 /** The header row of an equipment sheet. */
@@ -104,7 +122,10 @@ export function headerRow(cols: EquipmentColumns): CellContent[] {
 }
 
 /** The Buses sheet columns a branch row refers to. */
-export function busLookup(sCol: readonly number[], sAfterCol: readonly number[], rowOf: (bus: string) => number | undefined): BusLookup {
+export function busLookup(
+  sCol: readonly number[],
+  sAfterCol: readonly number[],
+  rowOf: (bus: string) => number | undefined,
+): BusLookup {
   return { sCol, sAfterCol, rowOf };
 }
-

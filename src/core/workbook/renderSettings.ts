@@ -41,11 +41,20 @@ const NOTES: Partial<Record<keyof typeof SETTING_ROWS, readonly [string | null, 
     null,
     `"${REQUIREMENT_TEXT.cosphi}": a lagging target below; "${REQUIREMENT_TEXT.tanphi}": a band of tan φ limits.`,
   ],
-  cosTarget: [null, 'Used when the requirement is cos φ: the compensation aims at this lagging power factor.'],
+  cosTarget: [
+    null,
+    'Used when the requirement is cos φ: the compensation aims at this lagging power factor.',
+  ],
   tanLag: [null, 'Used when the requirement is tan φ: the largest tan φ allowed while drawing kvar.'],
   tanLead: [null, 'Used when the requirement is tan φ: the largest |tan φ| allowed while delivering kvar.'],
-  ssc: ['MVA', 'Of the supply at the point of connection; resonance and voltage rise need it. Blank = unknown.'],
-  lagInUse: [null, 'What the Compensation sheet aims at: from the tan φ limit, or tan(acos target) for a cos φ target.'],
+  ssc: [
+    'MVA',
+    'Of the supply at the point of connection; resonance and voltage rise need it. Blank = unknown.',
+  ],
+  lagInUse: [
+    null,
+    'What the Compensation sheet aims at: from the tan φ limit, or tan(acos target) for a cos φ target.',
+  ],
   leadInUse: [null, 'A cos φ target is read as the same limit leading and lagging.'],
   hzInUse: ['Hz', 'The frequency every formula uses; #N/A when the frequency above is not 50 or 60.'],
 };
@@ -128,7 +137,8 @@ const label = (sheet: SheetDoc, row: number): string => {
   return typeof v === 'string' ? v.trim().toLowerCase() : '';
 };
 
-const isBlank = (v: CellContent | undefined) => v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
+const isBlank = (v: CellContent | undefined) =>
+  v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
 
 /** The inputs of a Site sheet, found by the labels in column A (any layout). */
 export function readSettingsInputs(sheet: SheetDoc | undefined): SettingsInputs {

@@ -24,7 +24,14 @@ export interface RowInfo {
   readonly u: number | undefined;
 }
 
-export const BLANK_ROW: RowInfo = Object.freeze({ present: false, kind: undefined, tag: '', bus: '', toBus: '', u: undefined });
+export const BLANK_ROW: RowInfo = Object.freeze({
+  present: false,
+  kind: undefined,
+  tag: '',
+  bus: '',
+  toBus: '',
+  u: undefined,
+});
 
 export interface SheetStructure {
   /** Position among the equipment sheets. */
@@ -76,7 +83,11 @@ export function equipmentPlans(cases: readonly string[]): EquipmentColumns[] {
 }
 
 /** One row's structure from its cells (formula cells through `value`). */
-export function readRowInfo(cells: readonly CellContent[], cols: EquipmentColumns, value: (col: number) => CellContent): RowInfo {
+export function readRowInfo(
+  cells: readonly CellContent[],
+  cols: EquipmentColumns,
+  value: (col: number) => CellContent,
+): RowInfo {
   if (cols.inputCols.every((c) => blank(cells[c] ?? null))) return BLANK_ROW;
   const at = (key: string): CellContent => {
     const c = cols.input.get(key);
@@ -100,7 +111,11 @@ export function readRowInfo(cells: readonly CellContent[], cols: EquipmentColumn
 }
 
 /** Rows of an equipment sheet's cells (header skipped). */
-export function readSheetRows(cells: readonly (readonly CellContent[])[], cols: EquipmentColumns, value?: ValueOf): RowInfo[] {
+export function readSheetRows(
+  cells: readonly (readonly CellContent[])[],
+  cols: EquipmentColumns,
+  value?: ValueOf,
+): RowInfo[] {
   const out: RowInfo[] = [];
   for (let r = 1; r < cells.length; r++) {
     const line = cells[r] ?? [];
@@ -111,7 +126,10 @@ export function readSheetRows(cells: readonly (readonly CellContent[])[], cols: 
 }
 
 /** The buses and what feeds them, computed by the site's own graph and voltage rules. */
-export function busesOf(sheets: readonly SheetStructure[]): { buses: BusInfo[]; busIndex: Map<string, number> } {
+export function busesOf(sheets: readonly SheetStructure[]): {
+  buses: BusInfo[];
+  busIndex: Map<string, number>;
+} {
   const rows: EquipmentRow[] = [];
   const where: RowRef[] = [];
   for (const s of sheets) {
@@ -149,7 +167,10 @@ export function busesOf(sheets: readonly SheetStructure[]): { buses: BusInfo[]; 
   return { buses, busIndex: new Map(buses.map((b, i) => [b.key, i])) };
 }
 
-export function structureOf(cases: readonly string[], sheetRows: readonly (readonly RowInfo[])[]): WorkbookStructure {
+export function structureOf(
+  cases: readonly string[],
+  sheetRows: readonly (readonly RowInfo[])[],
+): WorkbookStructure {
   const plans = equipmentPlans(cases);
   const sheets = plans.map((cols, index) => ({ index, cols, rows: sheetRows[index] ?? [] }));
   return { cases, sheets, ...busesOf(sheets) };
@@ -159,6 +180,14 @@ export function structureOf(cases: readonly string[], sheetRows: readonly (reado
 export function busSignature(s: WorkbookStructure): string {
   return JSON.stringify([
     s.cases,
-    s.buses.map((b) => [b.name, b.level ?? -1, b.feeder?.sheet ?? -1, b.feeder?.row ?? -1, b.upstream ?? '', b.voltage?.sheet ?? -1, b.voltage?.row ?? -1]),
+    s.buses.map((b) => [
+      b.name,
+      b.level ?? -1,
+      b.feeder?.sheet ?? -1,
+      b.feeder?.row ?? -1,
+      b.upstream ?? '',
+      b.voltage?.sheet ?? -1,
+      b.voltage?.row ?? -1,
+    ]),
   ]);
 }

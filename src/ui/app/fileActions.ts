@@ -127,28 +127,21 @@ export async function exportXlsx(app: FileHost): Promise<void> {
   try {
     const { handOff } = await import('./handOff.ts');
     const { session } = app;
-    const valueAt = (sheet: string, row: number, col: number) => {
-      const id = session.engine.getSheetId(sheet);
-      const v = id === undefined ? undefined : session.engine.getCellValue({ sheet: id, row, col });
-      return typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean' ? v : undefined;
-    };
     const resultAt = (sheet: string, row: number, col: number) => {
       const id = session.engine.getSheetId(sheet);
       return id === undefined ? undefined : toResult(session.engine.getCellValue({ sheet: id, row, col }));
     };
-    const r = await handOff(session.toDoc(), valueAt, resultAt);
+    const r = await handOff(session.toDoc(), resultAt);
     const name = fileNameFor(session.title, '.xlsx');
     download(r.bytes as BlobPart, name, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-    const caveat = [
-      r.note,
-      r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined,
-    ]
-      .filter(Boolean)
-      .join('; ');
+    const caveat =
+      r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined;
+    const typed =
+      r.overrides > 0 ? ` ${r.overrides} typed-over value(s) went out as typed, marked in the file.` : '';
     app.status.show(
       caveat
-        ? `Exported ${name}, but ${caveat}.`
-        : `Exported ${name}: formulas stay live in other spreadsheet programs.`,
+        ? `Exported ${name}, but ${caveat}.${typed}`
+        : `Exported ${name}: formulas stay live in other spreadsheet programs.${typed}`,
       caveat ? 'error' : 'info',
       caveat ? 0 : 8000,
     );

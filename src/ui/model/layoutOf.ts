@@ -9,7 +9,10 @@ export function layoutOf(engine: HyperFormula, sheets: readonly SheetDoc[]): Lay
   for (const s of sheets) {
     const id = engine.getSheetId(s.name) as number;
     order.push(id);
-    meta.set(id, { ...(s.columns ? { columns: s.columns } : {}), ...(s.purpose ? { purpose: s.purpose } : {}) });
+    meta.set(id, {
+      ...(s.columns ? { columns: s.columns } : {}),
+      ...(s.purpose ? { purpose: s.purpose } : {}),
+    });
   }
   return { order, meta };
 }

@@ -19,6 +19,7 @@ import { layoutOf } from './layoutOf.ts';
 import { readSettingsInputs } from '../../core/workbook/renderSettings.ts';
 import { HEADERS } from '../../core/workbook/layout.ts';
 import { siteEdit } from './siteEdits.ts';
+import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
 
 export type SessionChange =
@@ -117,7 +118,12 @@ export class WorkbookSession {
   // ------------------------------------------------------------------ steps
 
   private saved(): Saved {
-    return { layout: this.layout, contents: this.contents.snapshot(), site: this.site?.state, title: this.titleText };
+    return {
+      layout: this.layout,
+      contents: this.contents.snapshot(),
+      site: this.site?.state,
+      title: this.titleText,
+    };
   }
 
   private restore(s: Saved): void {
@@ -146,9 +152,13 @@ export class WorkbookSession {
   /** Write cells to the engine and the contents, in one engine entry; false when there is nothing. */
   private write(writes: readonly Write[], generated = false): boolean {
     if (writes.length === 0) return false;
-    this.engine.batch(() => {
-      for (const w of writes) this.engine.setCellContents({ sheet: w.sheet, row: w.row, col: w.col }, w.content);
-    });
+    const blocks = toBlocks(writes);
+    const apply = () => {
+      for (const b of blocks)
+        this.engine.setCellContents({ sheet: b.sheet, row: b.row, col: b.col }, b.cells);
+    };
+    if (blocks.length === 1) apply();
+    else this.engine.batch(apply);
     for (const w of writes) {
       // Generated formulas are not kept as typed: the model writes them again when the file opens.
       this.contents.set(w.sheet, w.row, w.col, generated && isFormula(w.content) ? null : w.content);
@@ -177,7 +187,9 @@ export class WorkbookSession {
   /** Write a block of contents with its top-left at (row, col). */
   setBlock(sheetId: number, row: number, col: number, block: CellContent[][]): void {
     if (block.length === 0) return;
-    const cells = block.flatMap((line, r) => line.map((content, c) => ({ row: row + r, col: col + c, content })));
+    const cells = block.flatMap((line, r) =>
+      line.map((content, c) => ({ row: row + r, col: col + c, content })),
+    );
     this.setCells(sheetId, cells);
   }
 
@@ -205,7 +217,9 @@ export class WorkbookSession {
       );
     }
     if (role.kind === 'equipment' && at === 0) {
-      throw new SessionError(`The header row of ${name} names the columns the formulas and the export rely on; it stays.`);
+      throw new SessionError(
+        `The header row of ${name} names the columns the formulas and the export rely on; it stays.`,
+      );
     }
   }
 
@@ -259,11 +273,14 @@ export class WorkbookSession {
     const current = this.sheetName(id);
     if (name === current) return;
     if (this.isBuiltIn(id)) {
-      throw new SessionError(`${current} is one of the site's own sheets: formulas, the CLI and the export find it by this name.`);
+      throw new SessionError(
+        `${current} is one of the site's own sheets: formulas, the CLI and the export find it by this name.`,
+      );
     }
     const problem = sheetNameProblem(name, this.sheetNames(), current);
     if (problem) throw new SessionError(problem);
-    if (this.site && isBuiltInSheet(name, [])) throw new SessionError(`"${name}" is the name of one of the site's own sheets.`);
+    if (this.site && isBuiltInSheet(name, []))
+      throw new SessionError(`"${name}" is the name of one of the site's own sheets.`);
     this.step(() => {
       this.engine.renameSheet(id, name);
       this.refreshFormulas();
@@ -296,7 +313,8 @@ export class WorkbookSession {
     for (const id of this.layout.order) {
       this.contents.get(id).forEach((line, r) =>
         line.forEach((v, c) => {
-          if (isFormula(v)) this.contents.set(id, r, c, this.engine.getCellFormula({ sheet: id, row: r, col: c }) ?? v);
+          if (isFormula(v))
+            this.contents.set(id, r, c, this.engine.getCellFormula({ sheet: id, row: r, col: c }) ?? v);
         }),
       );
     }
@@ -340,7 +358,8 @@ export class WorkbookSession {
   /** A cell as the user would edit it: what was typed, or the formula Kvar Ledger wrote there. */
   cellContent(sheetId: number, row: number, col: number): CellContent {
     const typed = this.contents.cell(sheetId, row, col);
-    if (typed !== null) return isFormula(typed) ? (this.engine.getCellFormula({ sheet: sheetId, row, col }) ?? typed) : typed;
+    if (typed !== null)
+      return isFormula(typed) ? (this.engine.getCellFormula({ sheet: sheetId, row, col }) ?? typed) : typed;
     return this.engine.getCellFormula({ sheet: sheetId, row, col }) ?? null;
   }
 
@@ -353,10 +372,16 @@ export class WorkbookSession {
   toDoc(): WorkbookDoc {
     const sheets: SheetDoc[] = this.layout.order.map((id) => {
       const m = this.meta(id);
-      const cells = this.contents.get(id).map((line, r) =>
-        line.map((v, c) => (isFormula(v) ? (this.engine.getCellFormula({ sheet: id, row: r, col: c }) ?? v) : v)),
+      const cells = this.contents
+        .get(id)
+        .map((line, r) =>
+          line.map((v, c) =>
+            isFormula(v) ? (this.engine.getCellFormula({ sheet: id, row: r, col: c }) ?? v) : v,
+          ),
+        );
+      const over = [...(this.site?.state.overrides.get(id) ?? [])].map(
+        (k) => k.split(',').map(Number) as unknown as CellAt,
       );
-      const over = [...(this.site?.state.overrides.get(id) ?? [])].map((k) => k.split(',').map(Number) as unknown as CellAt);
       return {
         name: this.sheetName(id),
         cells,
@@ -385,7 +410,11 @@ export class WorkbookSession {
     const overrides = new Map<number, Set<string>>();
     for (const id of builtIn) {
       const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
-      meta.set(id, { ...meta.get(id), ...(sheet.columns ? { columns: sheet.columns } : {}), purpose: sheet.purpose ?? '' });
+      meta.set(id, {
+        ...meta.get(id),
+        ...(sheet.columns ? { columns: sheet.columns } : {}),
+        purpose: sheet.purpose ?? '',
+      });
       overrides.set(id, new Set((sheet.overrides ?? []).map(([a, b]) => `${a},${b}`)));
     }
     this.layout = { order: this.layout.order, meta };

@@ -32,7 +32,8 @@ const TEXT_KEYS = new Set(['tag', 'bus', 'to_bus', 'kind']);
 /** Text in tag, bus, fed-bus and kind cells is taken without surrounding spaces (names must match exactly). */
 function trimmed(cols: EquipmentColumns, col: number, v: CellContent): CellContent {
   if (typeof v !== 'string' || v.startsWith('=')) return v;
-  for (const [key, c] of cols.input) if (c === col && TEXT_KEYS.has(key)) return v.trim() === '' ? null : v.trim();
+  for (const [key, c] of cols.input)
+    if (c === col && TEXT_KEYS.has(key)) return v.trim() === '' ? null : v.trim();
   return v;
 }
 
@@ -40,26 +41,45 @@ function settingsFrom(contents: ContentStore, sheet: number, name: string): Sett
   return readSettingsInputs({ name, cells: contents.get(sheet).map((r) => [...r]) });
 }
 
-export function siteEdit(site: SiteModel, contents: ContentStore, sheet: number, cells: readonly Cell[]): EditPlan {
+export function siteEdit(
+  site: SiteModel,
+  contents: ContentStore,
+  sheet: number,
+  cells: readonly Cell[],
+): EditPlan {
   const role = site.role(sheet);
   const writes: Write[] = [];
   const restores: Cell[] = [];
   const touched = new Map<number, Set<number>>();
   const renamed = new Map<string, string>();
   const header = (name: string) =>
-    new SessionError(`The header row of ${name} names the columns that formulas, the CLI and the export rely on; it stays as it is.`);
+    new SessionError(
+      `The header row of ${name} names the columns that formulas, the CLI and the export rely on; it stays as it is.`,
+    );
 
   for (const c of cells) {
     if (role.kind !== 'user' && role.kind !== 'site' && c.row === 0) {
-      if (c.content === null || c.content === site.generatedContent(sheet, 0, c.col, settingsFrom(contents, site.ids.site, ''))) continue;
-      throw header(role.kind === 'equipment' ? (site.plans().plans[role.index] as EquipmentColumns).sheet.name : role.kind === 'buses' ? 'Buses' : 'Compensation');
+      if (
+        c.content === null ||
+        c.content === site.generatedContent(sheet, 0, c.col, settingsFrom(contents, site.ids.site, ''))
+      )
+        continue;
+      throw header(
+        role.kind === 'equipment'
+          ? (site.plans().plans[role.index] as EquipmentColumns).sheet.name
+          : role.kind === 'buses'
+            ? 'Buses'
+            : 'Compensation',
+      );
     }
     if (role.kind === 'buses' && c.col === 0 && c.row <= site.state.rendered.buses.length) {
       renameBus(site, contents, c, writes, touched, renamed);
       continue;
     }
     if (role.kind === 'compensation' && c.col === 0 && c.row <= site.state.rendered.buses.length) {
-      throw new SessionError('The Bus column of the Compensation sheet follows the Buses sheet: rename a bus there, where the name is typed over.');
+      throw new SessionError(
+        'The Bus column of the Compensation sheet follows the Buses sheet: rename a bus there, where the name is typed over.',
+      );
     }
     if (site.isGenerated(sheet, c.row, c.col)) {
       const blank = c.content === null || (typeof c.content === 'string' && c.content.trim() === '');
@@ -98,7 +118,12 @@ export function siteEdit(site: SiteModel, contents: ContentStore, sheet: number,
       const settings = settingsFrom(contents, site.ids.site, 'Site');
       for (const c of restores) {
         if (out.some((w) => w.sheet === sheet && w.row === c.row && w.col === c.col)) continue;
-        out.push({ sheet, row: c.row, col: c.col, content: site.generatedContent(sheet, c.row, c.col, settings) });
+        out.push({
+          sheet,
+          row: c.row,
+          col: c.col,
+          content: site.generatedContent(sheet, c.row, c.col, settings),
+        });
       }
       return { writes: out, structural: touched.size > 0 && out.length > 0 };
     },
@@ -118,11 +143,16 @@ function renameBus(
   if (!old) return;
   const name = c.content === null ? '' : String(c.content).trim();
   if (name === '') {
-    throw new SessionError(`Bus ${old.name} keeps a name: to remove a bus, move or delete the equipment on it.`);
+    throw new SessionError(
+      `Bus ${old.name} keeps a name: to remove a bus, move or delete the equipment on it.`,
+    );
   }
   if (name.startsWith('=')) throw new SessionError('A bus name is text, not a formula.');
   const clash = site.state.rendered.buses.find((b) => b.key === busKey(name) && b.key !== old.key);
-  if (clash) throw new SessionError(`There is already a bus called ${clash.name}; choose another name (to merge buses, move their equipment).`);
+  if (clash)
+    throw new SessionError(
+      `There is already a bus called ${clash.name}; choose another name (to merge buses, move their equipment).`,
+    );
   if (name === old.name) return;
   renamed.set(old.key, busKey(name));
   site.plans().plans.forEach((cols, index) => {
@@ -147,10 +177,12 @@ function checkCases(inputs: SettingsInputs): void {
   const seen = new Set<string>();
   for (const c of inputs.cases) {
     const t = String(c).trim();
-    if (seen.has(t.toLowerCase())) throw new SessionError(`There is already a case called ${t}; case names must differ.`);
+    if (seen.has(t.toLowerCase()))
+      throw new SessionError(`There is already a case called ${t}; case names must differ.`);
     seen.add(t.toLowerCase());
   }
-  if (inputs.cases.length === 0) throw new SessionError('A site keeps at least one operating case; rename it instead of clearing it.');
+  if (inputs.cases.length === 0)
+    throw new SessionError('A site keeps at least one operating case; rename it instead of clearing it.');
 }
 
 /** Cases renamed in place: same count, same position, another name. */

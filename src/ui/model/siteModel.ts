@@ -12,12 +12,22 @@ import type { CellContent } from '../../core/workbook/document.ts';
 import { busKey } from '../../core/site/busNames.ts';
 import { planBusColumns, type BusColumns } from '../../core/workbook/busColumns.ts';
 import { spanIndex } from '../../core/workbook/busSums.ts';
-import { compensationInputCols, planCompensationColumns, type CompensationColumns } from '../../core/workbook/compensationColumns.ts';
+import {
+  compensationInputCols,
+  planCompensationColumns,
+  type CompensationColumns,
+} from '../../core/workbook/compensationColumns.ts';
 import type { EquipmentColumns } from '../../core/workbook/equipmentColumns.ts';
 import { ownSumCells, renderBusesSheet } from '../../core/workbook/renderBuses.ts';
 import { plainInstalledCell, renderCompensationSheet } from '../../core/workbook/renderCompensation.ts';
 import { busLookup, computedCells } from '../../core/workbook/renderEquipment.ts';
-import { equipmentPlans, readRowInfo, structureOf, type RowInfo, type WorkbookStructure } from '../../core/workbook/structure.ts';
+import {
+  equipmentPlans,
+  readRowInfo,
+  structureOf,
+  type RowInfo,
+  type WorkbookStructure,
+} from '../../core/workbook/structure.ts';
 import type { ContentStore } from './contentStore.ts';
 import { settingsGenerated, type SettingsInputs } from '../../core/workbook/renderSettings.ts';
 import { moveOverrides, moveRendered, sameBuses, type SiteState } from './siteState.ts';
@@ -47,7 +57,9 @@ export interface Write {
 const isFormula = (v: CellContent): v is string => typeof v === 'string' && v.startsWith('=');
 
 export class SiteModel {
-  private plansFor: { cases: readonly string[]; plans: EquipmentColumns[]; bus: BusColumns; comp: CompensationColumns } | undefined;
+  private plansFor:
+    | { cases: readonly string[]; plans: EquipmentColumns[]; bus: BusColumns; comp: CompensationColumns }
+    | undefined;
 
   constructor(
     private readonly hf: HyperFormula,
@@ -59,7 +71,12 @@ export class SiteModel {
   plans() {
     const cases = this.state.cases;
     if (this.plansFor?.cases !== cases) {
-      this.plansFor = { cases, plans: equipmentPlans(cases), bus: planBusColumns(cases), comp: planCompensationColumns(cases) };
+      this.plansFor = {
+        cases,
+        plans: equipmentPlans(cases),
+        bus: planBusColumns(cases),
+        comp: planCompensationColumns(cases),
+      };
     }
     return this.plansFor;
   }
@@ -80,7 +97,11 @@ export class SiteModel {
       case 'equipment': {
         const cols = plans[role.index] as EquipmentColumns;
         if (row === 0) return col < cols.columns.length;
-        return col >= cols.firstComputed && col < cols.columns.length && (this.state.rows[role.index]?.[row - 1]?.present ?? false);
+        return (
+          col >= cols.firstComputed &&
+          col < cols.columns.length &&
+          (this.state.rows[role.index]?.[row - 1]?.present ?? false)
+        );
       }
       case 'buses':
         return row < this.state.extent.buses && col < bus.columns.length;
@@ -125,12 +146,21 @@ export class SiteModel {
       return new Map(computedCells(cols, row, info, s.cases, lookup)).get(col) ?? null;
     }
     const spans = spanIndex(s);
-    if (role.kind === 'buses') return renderBusesSheet({ s, cols: bus, comp, flavour: 'live', spans })[row]?.[col] ?? null;
+    if (role.kind === 'buses')
+      return renderBusesSheet({ s, cols: bus, comp, flavour: 'live', spans })[row]?.[col] ?? null;
     if (role.kind === 'compensation') {
-      const grid = renderCompensationSheet({ s, cols: comp, busCols: bus, flavour: 'live', spans, inputs: this.bankInputs(new Map()) });
+      const grid = renderCompensationSheet({
+        s,
+        cols: comp,
+        busCols: bus,
+        flavour: 'live',
+        spans,
+        inputs: this.bankInputs(new Map()),
+      });
       return grid[row]?.[col] ?? null;
     }
-    if (role.kind === 'site') return settingsGenerated(settings).find(([r, c]) => r === row && c === col)?.[2] ?? null;
+    if (role.kind === 'site')
+      return settingsGenerated(settings).find(([r, c]) => r === row && c === col)?.[2] ?? null;
     return null;
   }
 
@@ -165,10 +195,25 @@ export class SiteModel {
         if (r === 0) continue;
         const line = this.contents.get(sheet)[r] ?? [];
         const after = readRowInfo(line, cols, (c) => this.valueAt(sheet, r, c));
-        const before = list[r - 1] ?? { present: false, kind: undefined, tag: '', bus: '', toBus: '', u: undefined };
-        while (list.length < r) list.push({ present: false, kind: undefined, tag: '', bus: '', toBus: '', u: undefined });
+        const before = list[r - 1] ?? {
+          present: false,
+          kind: undefined,
+          tag: '',
+          bus: '',
+          toBus: '',
+          u: undefined,
+        };
+        while (list.length < r)
+          list.push({ present: false, kind: undefined, tag: '', bus: '', toBus: '', u: undefined });
         list[r - 1] = after;
-        if (before.present !== after.present || before.kind !== after.kind || before.bus !== after.bus || before.toBus !== after.toBus || before.u !== after.u || before.tag !== after.tag) {
+        if (
+          before.present !== after.present ||
+          before.kind !== after.kind ||
+          before.bus !== after.bus ||
+          before.toBus !== after.toBus ||
+          before.u !== after.u ||
+          before.tag !== after.tag
+        ) {
           changedRows.push({ index, row: r, before, after });
         }
       }
@@ -177,7 +222,12 @@ export class SiteModel {
     if (changedRows.length === 0) return [];
     return this.follow(
       rows,
-      changedRows.map((c) => ({ index: c.index, row: c.row, buses: [c.before.bus, c.after.bus], rewrite: rowNeedsRewrite(c.before, c.after) })),
+      changedRows.map((c) => ({
+        index: c.index,
+        row: c.row,
+        buses: [c.before.bus, c.after.bus],
+        rewrite: rowNeedsRewrite(c.before, c.after),
+      })),
       renamed,
     );
   }
@@ -189,7 +239,19 @@ export class SiteModel {
     const list = rows[index] as RowInfo[];
     const removedBuses: string[] = [];
     if (count > 0) {
-      if (at - 1 < list.length) list.splice(at - 1, 0, ...Array.from({ length: count }, () => ({ present: false, kind: undefined, tag: '', bus: '', toBus: '', u: undefined })));
+      if (at - 1 < list.length)
+        list.splice(
+          at - 1,
+          0,
+          ...Array.from({ length: count }, () => ({
+            present: false,
+            kind: undefined,
+            tag: '',
+            bus: '',
+            toBus: '',
+            u: undefined,
+          })),
+        );
     } else {
       for (const r of list.splice(at - 1, -count)) if (r.present) removedBuses.push(r.bus);
     }
@@ -197,7 +259,10 @@ export class SiteModel {
     const overrides = new Map(this.state.overrides);
     overrides.set(sheet, moveOverrides(this.state.overrides.get(sheet), at, count));
     this.state = { ...this.state, rendered: moveRendered(this.state.rendered, index, at, count), overrides };
-    return this.follow(rows, removedBuses.length > 0 ? [{ index, row: -1, buses: removedBuses, rewrite: false }] : []);
+    return this.follow(
+      rows,
+      removedBuses.length > 0 ? [{ index, row: -1, buses: removedBuses, rewrite: false }] : [],
+    );
   }
 
   /** The writes that bring the generated cells in line with `rows`; the state then holds them. */
@@ -216,12 +281,20 @@ export class SiteModel {
           if (info.present) writes.push(...this.rowWrites(next, s.index, i + 1, info));
         });
       }
-      for (const c of changed) if (c.rewrite && next.sheets[c.index]?.cols.role !== 'branch') writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
+      for (const c of changed)
+        if (c.rewrite && next.sheets[c.index]?.cols.role !== 'branch')
+          writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
       this.state = { ...this.state, rows, rendered: next };
       return writes;
     }
-    for (const c of changed) if (c.rewrite) writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
-    const buses = new Set(changed.flatMap((c) => c.buses).filter((b) => b !== '').map(busKey));
+    for (const c of changed)
+      if (c.rewrite) writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
+    const buses = new Set(
+      changed
+        .flatMap((c) => c.buses)
+        .filter((b) => b !== '')
+        .map(busKey),
+    );
     writes.push(...this.sumWrites(next, buses));
     this.state = { ...this.state, rows };
     return writes;
@@ -254,13 +327,19 @@ export class SiteModel {
     const want = (sheet: number, row: number, col: number, formula: string) => {
       if (this.isOverride(sheet, row, col)) return;
       const have = this.hf.getCellFormula({ sheet, row, col });
-      if (have === undefined || squash(have) !== squash(formula)) out.push({ sheet, row, col, content: formula });
+      if (have === undefined || squash(have) !== squash(formula))
+        out.push({ sheet, row, col, content: formula });
     };
     for (const key of keys) {
       const i = s.busIndex.get(key);
       if (i === undefined) continue;
       for (const [col, f] of ownSumCells(input, i)) want(this.ids.buses, i + 1, col, f);
-      want(this.ids.comp, i + 1, comp.plainInstalled, plainInstalledCell({ ...input, cols: comp, busCols: bus, inputs: new Map() }, i));
+      want(
+        this.ids.comp,
+        i + 1,
+        comp.plainInstalled,
+        plainInstalledCell({ ...input, cols: comp, busCols: bus, inputs: new Map() }, i),
+      );
     }
     return out;
   }
@@ -312,7 +391,12 @@ export class SiteModel {
   }
 
   /** A generated block over `rows` rows: new cells, and the old block's leftovers cleared. */
-  private gridWrites(sheet: number, grid: readonly (readonly CellContent[])[], oldRows: number, width: number): Write[] {
+  private gridWrites(
+    sheet: number,
+    grid: readonly (readonly CellContent[])[],
+    oldRows: number,
+    width: number,
+  ): Write[] {
     const out: Write[] = [];
     for (let r = 0; r < Math.max(grid.length, oldRows); r++) {
       for (let c = 0; c < width; c++) {

@@ -4,6 +4,7 @@ import type { HyperFormula } from 'hyperformula';
 import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { SHEETS } from '../../core/workbook/layout.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
+export { isSiteDoc } from '../../core/workbook/render.ts';
 import { readSettingsInputs } from '../../core/workbook/renderSettings.ts';
 import { SETTING_ROWS, VALUE_COL } from '../../core/workbook/settingsLayout.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
@@ -16,14 +17,12 @@ import { layoutOf } from './layoutOf.ts';
 
 const isFormula = (v: CellContent): v is string => typeof v === 'string' && v.startsWith('=');
 
-/** A workbook of a site (not a plain spreadsheet): it has a Site sheet of settings, or a Buses sheet. */
-export function isSiteDoc(doc: WorkbookDoc): boolean {
-  const site = doc.sheets.find((s) => s.name === SHEETS.settings);
-  return (site !== undefined && site.cells[0]?.[0] === 'Setting') || doc.sheets.some((s) => s.name === SHEETS.buses);
-}
-
 /** A sheet's cells without the formulas the model writes (kept: inputs, notes, typed-over cells, constants). */
-export function stripGenerated(site: SiteModel, id: number, cells: readonly (readonly CellContent[])[]): CellContent[][] {
+export function stripGenerated(
+  site: SiteModel,
+  id: number,
+  cells: readonly (readonly CellContent[])[],
+): CellContent[][] {
   return cells.map((line, r) =>
     line.map((v, c) => (isFormula(v) && site.isGenerated(id, r, c) && !site.isOverride(id, r, c) ? null : v)),
   );
@@ -59,7 +58,8 @@ export function openSite(doc: WorkbookDoc): OpenedSite {
   };
   const overrides = new Map<number, Set<string>>();
   for (const s of full.sheets) {
-    if (s.overrides && s.overrides.length > 0) overrides.set(id(s.name), new Set(s.overrides.map(([a, b]) => `${a},${b}`)));
+    if (s.overrides && s.overrides.length > 0)
+      overrides.set(id(s.name), new Set(s.overrides.map(([a, b]) => `${a},${b}`)));
   }
   const notes = readSettingsInputs(full.sheets[0]).notes.length;
   const contents = new ContentStore();

@@ -2,7 +2,12 @@
 // kind, bus, fed bus, voltage), the structure the Buses and Compensation sheets were last written
 // for, and the cells the user typed over. Immutable: every step makes a new state, and undo puts
 // an old one back with the engine's own undo.
-import { busSignature, type RowInfo, type RowRef, type WorkbookStructure } from '../../core/workbook/structure.ts';
+import {
+  busSignature,
+  type RowInfo,
+  type RowRef,
+  type WorkbookStructure,
+} from '../../core/workbook/structure.ts';
 import type { Rendered } from '../../core/workbook/render.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 import { settingsRows } from '../../core/workbook/settingsLayout.ts';
@@ -24,7 +29,11 @@ export interface SiteState {
   readonly retired: ReadonlyMap<string, ReadonlyMap<number, CellContent>>;
 }
 
-export function stateOf(r: Rendered, overrides: ReadonlyMap<number, ReadonlySet<string>>, notes: number): SiteState {
+export function stateOf(
+  r: Rendered,
+  overrides: ReadonlyMap<number, ReadonlySet<string>>,
+  notes: number,
+): SiteState {
   const n = r.structure.buses.length;
   return {
     cases: r.structure.cases,
@@ -55,7 +64,12 @@ export function movedRow(row: number, at: number, count: number): number | undef
  * when rows are inserted or removed there. A reference into removed rows becomes a position no
  * structure can have (-1), so the signature differs and the sheets are written anew.
  */
-export function moveRendered(s: WorkbookStructure, sheet: number, at: number, count: number): WorkbookStructure {
+export function moveRendered(
+  s: WorkbookStructure,
+  sheet: number,
+  at: number,
+  count: number,
+): WorkbookStructure {
   const move = (ref: RowRef | undefined): RowRef | undefined => {
     if (!ref || ref.sheet !== sheet) return ref;
     return { sheet, row: movedRow(ref.row, at, count) ?? -1 };

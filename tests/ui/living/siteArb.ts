@@ -16,18 +16,32 @@ type RowSpec = Omit<EquipmentRow, 'row'>;
 
 const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
 const loadsArb = (cases: readonly string[], range: [number, number]) =>
-  fc.array(fc.option(num(range[0], range[1]), { nil: undefined }), { minLength: cases.length, maxLength: cases.length }).map((xs) => {
-    const out: Record<string, number> = {};
-    xs.forEach((x, i) => {
-      if (x !== undefined && i > 0) out[cases[i] as string] = x;
+  fc
+    .array(fc.option(num(range[0], range[1]), { nil: undefined }), {
+      minLength: cases.length,
+      maxLength: cases.length,
+    })
+    .map((xs) => {
+      const out: Record<string, number> = {};
+      xs.forEach((x, i) => {
+        if (x !== undefined && i > 0) out[cases[i] as string] = x;
+      });
+      return out;
     });
-    return out;
-  });
 
 function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrary<RowSpec> {
-  const units = fc.record({ qty: fc.option(fc.integer({ min: 1, max: 4 }), { nil: undefined }) }).map(({ qty }) => (qty ? { qty } : {}));
+  const units = fc
+    .record({ qty: fc.option(fc.integer({ min: 1, max: 4 }), { nil: undefined }) })
+    .map(({ qty }) => (qty ? { qty } : {}));
   const motor = fc
-    .record({ p: num(1, 400), eff: num(0.8, 0.97), cos: num(0.7, 0.92), load: fc.option(num(0, 1.2), { nil: undefined }), units, loads: loadsArb(cases, [0, 1.2]) })
+    .record({
+      p: num(1, 400),
+      eff: num(0.8, 0.97),
+      cos: num(0.7, 0.92),
+      load: fc.option(num(0, 1.2), { nil: undefined }),
+      units,
+      loads: loadsArb(cases, [0, 1.2]),
+    })
     .map(({ p, eff, cos, load, units, loads }) => ({
       tag: '',
       bus,
@@ -37,13 +51,31 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
     }));
   const load = fc
     .record({ p: num(1, 600), cos: num(0.6, 1), units, loads: loadsArb(cases, [0, 1.5]) })
-    .map(({ p, cos, units, loads }) => ({ tag: '', bus, kind: 'load', values: { p_kw: p, cos_phi: cos, ...units }, loads }));
+    .map(({ p, cos, units, loads }) => ({
+      tag: '',
+      bus,
+      kind: 'load',
+      values: { p_kw: p, cos_phi: cos, ...units },
+      loads,
+    }));
   const generator = fc
     .record({ p: num(10, 500), cos: num(0.8, 1), loads: loadsArb(cases, [0, 1]) })
-    .map(({ p, cos, loads }) => ({ tag: '', bus, kind: 'generator', values: { p_kw: p, cos_phi: cos, u_kv: u }, loads }));
+    .map(({ p, cos, loads }) => ({
+      tag: '',
+      bus,
+      kind: 'generator',
+      values: { p_kw: p, cos_phi: cos, u_kv: u },
+      loads,
+    }));
   const cable = fc
     .record({ c: num(0.15, 0.6), len: num(0.05, 5), loads: loadsArb(cases, [0, 1]) })
-    .map(({ c, len, loads }) => ({ tag: '', bus, kind: 'cable', values: { u_kv: u, c_uf_km: c, len_km: len }, loads }));
+    .map(({ c, len, loads }) => ({
+      tag: '',
+      bus,
+      kind: 'cable',
+      values: { u_kv: u, c_uf_km: c, len_km: len },
+      loads,
+    }));
   const capacitor = fc
     .record({ q: num(5, 300), p: fc.constantFrom(undefined, 7), loads: loadsArb(cases, [0, 1]) })
     .map(({ q, p, loads }) => ({
@@ -55,7 +87,13 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
     }));
   const reactor = fc
     .record({ q: num(10, 300), loads: loadsArb(cases, [0, 1]) })
-    .map(({ q, loads }) => ({ tag: '', bus, kind: 'reactor', values: { q_kvar: q, u_rated_kv: u, u_kv: u }, loads }));
+    .map(({ q, loads }) => ({
+      tag: '',
+      bus,
+      kind: 'reactor',
+      values: { q_kvar: q, u_rated_kv: u, u_kv: u },
+      loads,
+    }));
   return fc.oneof(
     { arbitrary: motor, weight: 4 },
     { arbitrary: load, weight: 3 },
@@ -68,7 +106,9 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
 
 const requirementArb: fc.Arbitrary<Requirement> = fc.oneof(
   num(0.9, 0.99).map((target) => ({ kind: 'cosphi' as const, target })),
-  fc.record({ lagMax: num(0.2, 0.5), leadMax: num(0.1, 0.4) }).map((r) => ({ kind: 'tanphi' as const, ...r })),
+  fc
+    .record({ lagMax: num(0.2, 0.5), leadMax: num(0.1, 0.4) })
+    .map((r) => ({ kind: 'tanphi' as const, ...r })),
 );
 
 export const siteArb: fc.Arbitrary<ArbSite> = fc
@@ -84,7 +124,9 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
   .chain((p) => {
     const cases = ['base', 'night', 'peak', 'outage'].slice(0, p.cases);
     // A tree: bus i (i > 0) hangs from an earlier bus, one level down when that leaves a level, else on the same level by a line.
-    const tree: Array<{ name: string; level: number; parent?: number; line?: boolean }> = [{ name: 'B0', level: 0 }];
+    const tree: Array<{ name: string; level: number; parent?: number; line?: boolean }> = [
+      { name: 'B0', level: 0 },
+    ];
     for (let i = 1; i < p.buses; i++) {
       const parent = (p.seed[i] as number) % i;
       const up = tree[parent] as { level: number };
@@ -97,25 +139,70 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
       const from = tree[b.parent] as { name: string };
       const u = uOf(b.level);
       return b.line
-        ? [{ tag: '', bus: from.name, kind: 'line', to_bus: b.name, values: { u_kv: u, l_mh_km: 1.1, c_nf_km: 10, len_km: 0.5 + (b.level % 3) }, loads: {} }]
-        : [{ tag: '', bus: from.name, kind: 'transformer', to_bus: b.name, values: { s_kva: 2500, uk_pct: 6, p0_kw: 2.2, pk_kw: 20, i0_pct: 0.8, u_kv: u }, loads: {} }];
+        ? [
+            {
+              tag: '',
+              bus: from.name,
+              kind: 'line',
+              to_bus: b.name,
+              values: { u_kv: u, l_mh_km: 1.1, c_nf_km: 10, len_km: 0.5 + (b.level % 3) },
+              loads: {},
+            },
+          ]
+        : [
+            {
+              tag: '',
+              bus: from.name,
+              kind: 'transformer',
+              to_bus: b.name,
+              values: { s_kva: 2500, uk_pct: 6, p0_kw: 2.2, pk_kw: 20, i0_pct: 0.8, u_kv: u },
+              loads: {},
+            },
+          ];
     });
     const shunts = fc.tuple(
-      ...tree.map((b) => fc.array(shuntArb(b.name, uOf(b.level), cases), { minLength: b.level === 0 && p.buses === 1 ? 1 : 0, maxLength: 4 })),
+      ...tree.map((b) =>
+        fc.array(shuntArb(b.name, uOf(b.level), cases), {
+          minLength: b.level === 0 && p.buses === 1 ? 1 : 0,
+          maxLength: 4,
+        }),
+      ),
     );
     const banks = fc.array(
-      fc.record({ bus: fc.constantFrom(...tree.map((b) => b.name)), step: num(5, 100), steps: fc.integer({ min: 1, max: 6 }), fixed: fc.option(num(1, 50), { nil: undefined }), reactor: fc.option(num(10, 200), { nil: undefined }) }),
+      fc.record({
+        bus: fc.constantFrom(...tree.map((b) => b.name)),
+        step: num(5, 100),
+        steps: fc.integer({ min: 1, max: 6 }),
+        fixed: fc.option(num(1, 50), { nil: undefined }),
+        reactor: fc.option(num(10, 200), { nil: undefined }),
+      }),
       { maxLength: 3 },
     );
     return fc.tuple(shunts, banks).map(([rowsPerBus, bankSpecs]) => {
       const all = [...branches, ...rowsPerBus.flat()];
-      const equipment: EquipmentRow[] = all.map((r, i) => ({ ...r, row: i + 2, tag: `${r.kind.slice(0, 1).toUpperCase()}${i + 1}` }));
+      const equipment: EquipmentRow[] = all.map((r, i) => ({
+        ...r,
+        row: i + 2,
+        tag: `${r.kind.slice(0, 1).toUpperCase()}${i + 1}`,
+      }));
       const seen = new Set<string>();
       const banks: BankChoice[] = bankSpecs
         .filter((b) => !seen.has(b.bus) && (seen.add(b.bus), true))
-        .map((b) => ({ bus: b.bus, step_kvar: b.step, steps: b.steps, ...(b.fixed ? { fixed_kvar: b.fixed } : {}), ...(b.reactor ? { reactor_kvar: b.reactor } : {}) }));
+        .map((b) => ({
+          bus: b.bus,
+          step_kvar: b.step,
+          steps: b.steps,
+          ...(b.fixed ? { fixed_kvar: b.fixed } : {}),
+          ...(b.reactor ? { reactor_kvar: b.reactor } : {}),
+        }));
       const site: Site = {
-        settings: { name: 'Random site', hz: p.hz, cases, requirement: p.requirement, ...(p.ssc ? { sscMva: p.ssc } : {}) },
+        settings: {
+          name: 'Random site',
+          hz: p.hz,
+          cases,
+          requirement: p.requirement,
+          ...(p.ssc ? { sscMva: p.ssc } : {}),
+        },
         equipment,
       };
       return { site, banks };

@@ -1,0 +1,222 @@
+// Random edits an estimator makes, applied through the page's own model (the session), as the
+// grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
+// typed on the Compensation sheet, renaming a bus, adding or renaming a case, undo and redo.
+// Each edit picks its target from the workbook as it is when it runs.
+import fc from 'fast-check';
+import type { CellContent } from '../../../src/core/workbook/document.ts';
+import { equipmentPlans } from '../../../src/core/workbook/structure.ts';
+import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
+import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
+import type { WorkbookSession } from '../../../src/ui/model/session.ts';
+
+export type Edit =
+  | { op: 'value'; sheet: number; row: number; field: 'p_kw' | 'cos_phi' | 'qty' | 'load'; value: number }
+  | { op: 'moveBus'; sheet: number; row: number; bus: number }
+  | { op: 'type'; sheet: number; bus: number; p: number; cos: number }
+  | { op: 'insert'; sheet: number; at: number; count: number }
+  | { op: 'remove'; sheet: number; row: number }
+  | { op: 'paste'; sheet: number; n: number; bus: number; p: number }
+  | { op: 'fill'; sheet: number; row: number; n: number }
+  | { op: 'clear'; sheet: number; row: number }
+  | { op: 'bank'; bus: number; step: number; steps: number; fixed: number }
+  | { op: 'rename'; bus: number; suffix: number }
+  | { op: 'case'; rename: boolean; suffix: number }
+  | { op: 'undo' }
+  | { op: 'redo' };
+
+// Motors and Loads: the sheets whose rows are typed most (indexes in sheet order).
+const SHUNT_SHEETS = [0, 1];
+const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+
+export const editArb: fc.Arbitrary<Edit> = fc.oneof(
+  fc.record({
+    op: fc.constant('value' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    row: fc.nat(),
+    field: fc.constantFrom('p_kw' as const, 'cos_phi' as const, 'qty' as const, 'load' as const),
+    value: num(0, 1),
+  }),
+  fc.record({
+    op: fc.constant('moveBus' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    row: fc.nat(),
+    bus: fc.nat(),
+  }),
+  fc.record({
+    op: fc.constant('type' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    bus: fc.nat(),
+    p: num(1, 300),
+    cos: num(0.7, 0.95),
+  }),
+  fc.record({
+    op: fc.constant('insert' as const),
+    sheet: fc.integer({ min: 0, max: 6 }),
+    at: fc.nat(),
+    count: fc.integer({ min: 1, max: 3 }),
+  }),
+  fc.record({
+    op: fc.constant('remove' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS, 5, 6),
+    row: fc.nat(),
+  }),
+  fc.record({
+    op: fc.constant('paste' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    n: fc.integer({ min: 1, max: 5 }),
+    bus: fc.nat(),
+    p: num(1, 200),
+  }),
+  fc.record({
+    op: fc.constant('fill' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    row: fc.nat(),
+    n: fc.integer({ min: 1, max: 4 }),
+  }),
+  fc.record({ op: fc.constant('clear' as const), sheet: fc.constantFrom(...SHUNT_SHEETS), row: fc.nat() }),
+  fc.record({
+    op: fc.constant('bank' as const),
+    bus: fc.nat(),
+    step: num(5, 100),
+    steps: fc.integer({ min: 0, max: 6 }),
+    fixed: num(0, 30),
+  }),
+  fc.record({ op: fc.constant('rename' as const), bus: fc.nat(), suffix: fc.nat(99) }),
+  fc.record({ op: fc.constant('case' as const), rename: fc.boolean(), suffix: fc.nat(99) }),
+  fc.constant({ op: 'undo' as const }),
+  fc.constant({ op: 'redo' as const }),
+);
+
+let tags = 0;
+
+/** Apply an edit; returns a short description for a failure report. */
+export function applyEdit(s: WorkbookSession, e: Edit): string {
+  const model = s.site;
+  if (!model) throw new Error('not a site workbook');
+  const cases = model.state.cases;
+  const plans = equipmentPlans(cases);
+  const buses = model.state.rendered.buses.map((b) => b.name);
+  const pickBus = (k: number) => buses[k % buses.length] as string;
+  const sheetId = (i: number) => model.ids.equipment[i] as number;
+  const present = (i: number) =>
+    (model.state.rows[i] ?? []).map((r, k) => ({ r, row: k + 1 })).filter((x) => x.r.present);
+  const col = (i: number, key: string) => plans[i]?.input.get(key) as number;
+  const pickRow = (i: number, k: number) => {
+    const list = present(i);
+    return list.length === 0 ? undefined : (list[k % list.length] as { row: number }).row;
+  };
+  switch (e.op) {
+    case 'value': {
+      const row = pickRow(e.sheet, e.row);
+      if (row === undefined) return 'value: no row';
+      const v =
+        e.field === 'p_kw'
+          ? 1 + e.value * 300
+          : e.field === 'cos_phi'
+            ? 0.7 + e.value * 0.28
+            : e.field === 'qty'
+              ? 1 + Math.floor(e.value * 3)
+              : e.value;
+      const c = e.field === 'load' ? (plans[e.sheet]?.loadDefault as number) : col(e.sheet, e.field);
+      s.setCells(sheetId(e.sheet), [{ row, col: c, content: v }]);
+      return `value ${e.field}=${v} at ${plans[e.sheet]?.sheet.name} row ${row + 1}`;
+    }
+    case 'moveBus': {
+      const row = pickRow(e.sheet, e.row);
+      if (row === undefined) return 'moveBus: no row';
+      s.setCells(sheetId(e.sheet), [{ row, col: col(e.sheet, 'bus'), content: pickBus(e.bus) }]);
+      return `move ${plans[e.sheet]?.sheet.name} row ${row + 1} to ${pickBus(e.bus)}`;
+    }
+    case 'type': {
+      const row = s.sheetContents(sheetId(e.sheet)).length;
+      const cells: Array<{ row: number; col: number; content: CellContent }> = [
+        { row, col: col(e.sheet, 'tag'), content: `N${++tags}` },
+        { row, col: col(e.sheet, 'bus'), content: pickBus(e.bus) },
+        { row, col: col(e.sheet, 'p_kw'), content: e.p },
+        { row, col: col(e.sheet, 'cos_phi'), content: e.cos },
+      ];
+      if (e.sheet === 0) cells.push({ row, col: col(e.sheet, 'eff'), content: 0.93 });
+      s.setCells(sheetId(e.sheet), cells);
+      return `type a row on ${plans[e.sheet]?.sheet.name} at row ${row + 1} on ${pickBus(e.bus)}`;
+    }
+    case 'insert': {
+      const rows = s.sheetContents(sheetId(e.sheet)).length;
+      const at = 1 + (e.at % Math.max(1, rows));
+      s.insertRows(sheetId(e.sheet), at, e.count);
+      return `insert ${e.count} rows at ${at + 1} on ${plans[e.sheet]?.sheet.name}`;
+    }
+    case 'remove': {
+      const row = pickRow(e.sheet, e.row);
+      if (row === undefined) return 'remove: no row';
+      s.removeRows(sheetId(e.sheet), row, 1);
+      return `remove row ${row + 1} of ${plans[e.sheet]?.sheet.name}`;
+    }
+    case 'paste': {
+      const cols = plans[e.sheet];
+      if (!cols) return 'paste: no sheet';
+      const row = s.sheetContents(sheetId(e.sheet)).length;
+      const width = cols.firstComputed;
+      const block: CellContent[][] = Array.from({ length: e.n }, (_, k) => {
+        const line = new Array<CellContent>(width).fill(null);
+        line[col(e.sheet, 'tag')] = `P${++tags}`;
+        line[col(e.sheet, 'bus')] = pickBus(e.bus + k);
+        line[col(e.sheet, 'p_kw')] = e.p + k;
+        line[col(e.sheet, 'cos_phi')] = 0.8;
+        if (e.sheet === 0) line[col(e.sheet, 'eff')] = 0.9;
+        return line;
+      });
+      s.setBlock(sheetId(e.sheet), row, 0, block);
+      return `paste ${e.n} rows at ${row + 1} on ${cols.sheet.name}`;
+    }
+    case 'fill': {
+      const row = pickRow(e.sheet, e.row);
+      if (row === undefined) return 'fill: no row';
+      const c = col(e.sheet, 'cos_phi');
+      const id = sheetId(e.sheet);
+      const last = Math.min(row + e.n, present(e.sheet).at(-1)?.row ?? row);
+      s.fill(
+        { start: { sheet: id, row, col: c }, end: { sheet: id, row, col: c } },
+        { start: { sheet: id, row, col: c }, end: { sheet: id, row: last, col: c } },
+      );
+      return `fill cos φ from row ${row + 1} to ${last + 1} on ${plans[e.sheet]?.sheet.name}`;
+    }
+    case 'clear': {
+      const row = pickRow(e.sheet, e.row);
+      const cols = plans[e.sheet];
+      if (row === undefined || !cols) return 'clear: no row';
+      s.setCells(
+        sheetId(e.sheet),
+        cols.inputCols.map((c) => ({ row, col: c, content: null })),
+      );
+      return `clear row ${row + 1} of ${cols.sheet.name}`;
+    }
+    case 'bank': {
+      const comp = planCompensationColumns(cases);
+      const row = 1 + (e.bus % buses.length);
+      s.setCells(model.ids.comp, [
+        { row, col: comp.input.step_kvar, content: e.step },
+        { row, col: comp.input.steps, content: e.steps },
+        { row, col: comp.input.fixed_kvar, content: e.fixed > 1 ? e.fixed : null },
+      ]);
+      return `bank on ${buses[row - 1]}: ${e.steps} × ${e.step}`;
+    }
+    case 'rename': {
+      const row = 1 + (e.bus % buses.length);
+      const name = `R${e.suffix}-${buses[row - 1]}`;
+      if (buses.some((b) => b.toUpperCase() === name.toUpperCase())) return 'rename: taken';
+      s.setCells(model.ids.buses, [{ row, col: 0, content: name }]);
+      return `rename ${buses[row - 1]} to ${name}`;
+    }
+    case 'case': {
+      const name = `c${e.suffix}`;
+      if (cases.some((c) => c.toLowerCase() === name)) return 'case: taken';
+      const row = e.rename ? FIRST_CASE_ROW + (e.suffix % cases.length) : FIRST_CASE_ROW + cases.length;
+      s.setCells(model.ids.site, [{ row, col: 1, content: name }]);
+      return `${e.rename ? 'rename' : 'add'} case ${name}`;
+    }
+    case 'undo':
+      return s.undo() ? 'undo' : 'undo: nothing';
+    case 'redo':
+      return s.redo() ? 'redo' : 'redo: nothing';
+  }
+}

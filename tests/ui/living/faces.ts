@@ -1,0 +1,77 @@
+// Reading a session's figures (what the page shows) and the core's figures for the same
+// workbook (what the command line prints), to compare them.
+import type { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
+import { validateSite, mergeProblems } from '../../../src/core/site/validate.ts';
+import { compensate, type CaseCompensation } from '../../../src/core/site/compensate.ts';
+import { planBusColumns } from '../../../src/core/workbook/busColumns.ts';
+import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
+
+export interface BusFigures {
+  readonly bus: string;
+  /** Per case: P, Q, cos φ before; P, Q after. */
+  readonly cases: ReadonlyArray<readonly [number, number, number | null, number, number]>;
+}
+
+export interface Faces {
+  readonly buses: readonly BusFigures[];
+  readonly within: readonly boolean[];
+}
+
+const num = (v: unknown): number => {
+  if (typeof v !== 'number') throw new Error(`expected a number, got ${JSON.stringify(v)}`);
+  return v;
+};
+
+/** What the page's engine shows on the Buses and Compensation sheets. */
+export function pageFaces(s: WorkbookSession, cases: readonly string[], busCount: number): Faces {
+  const cols = planBusColumns(cases);
+  const comp = planCompensationColumns(cases);
+  const buses = s.engine.getSheetId('Buses') as number;
+  const compId = s.engine.getSheetId('Compensation') as number;
+  const v = (sheet: number, row: number, col: number) => s.engine.getCellValue({ sheet, row, col });
+  const out: BusFigures[] = [];
+  for (let i = 0; i < busCount; i++) {
+    const r = i + 1;
+    out.push({
+      bus: String(v(buses, r, 0)),
+      cases: cases.map((_, k) => {
+        const cos = v(buses, r, cols.cos[k] as number);
+        return [
+          num(v(buses, r, cols.p[k] as number)),
+          num(v(buses, r, cols.q[k] as number)),
+          cos === '' ? null : num(cos),
+          num(v(buses, r, cols.pAfter[k] as number)),
+          num(v(buses, r, cols.qAfter[k] as number)),
+        ] as const;
+      }),
+    });
+  }
+  const within = cases.map((_, k) => v(compId, 1, comp.within[k] as number) === 'yes');
+  return { buses: out, within };
+}
+
+/** The core's figures for the workbook as saved; undefined when the inputs have errors. */
+export function coreFaces(s: WorkbookSession): { faces: Faces; cases: readonly string[] } | undefined {
+  const read = siteFromWorkbook(s.toDoc());
+  const problems = mergeProblems(read.problems, validateSite(read.site));
+  if (problems.some((p) => p.severity === 'error')) return undefined;
+  const res: CaseCompensation[] = compensate(read.site, read.banks);
+  const first = res[0];
+  if (!first) return undefined;
+  const buses = first.before.buses.map((b, i) => ({
+    bus: b.bus,
+    cases: res.map((c) => {
+      const before = c.before.buses[i];
+      const after = c.after.buses[i];
+      if (!before || !after) throw new Error(`bus ${b.bus} missing in case ${c.case}`);
+      return [before.p_kw, before.q_kvar, before.cos_phi, after.p_kw, after.q_kvar] as const;
+    }),
+  }));
+  return { faces: { buses, within: res.map((c) => c.within_after) }, cases: read.site.settings.cases };
+}
+
+/** Relative difference with a floor of 1 (kW or kvar). */
+export function relDiff(a: number, b: number): number {
+  return Math.abs(a - b) / Math.max(1, Math.abs(a), Math.abs(b));
+}
