@@ -165,6 +165,9 @@ function overlay(
       const v = generated[r]?.[c] ?? null;
       if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
     }
+    while (cells.length <= r) cells.push([]);
+    const line = cells[r] as CellContent[];
+    while (line.length < width) line.push(null);
   }
   return cells;
 }
@@ -224,6 +227,9 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
         const v = generated.get(c) ?? null;
         if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
       }
+      // Every row as wide as the sheet's columns, as a reader of the document expects.
+      const line = cells[r];
+      if (line) while (line.length < computedCols) line.push(null);
     }
     sheets.push(
       sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, e.moved ? undefined : e.sheet),

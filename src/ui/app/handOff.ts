@@ -8,10 +8,8 @@ import type { SiteSettings } from '../../core/site/model.ts';
 import { SHEETS } from '../../core/workbook/layout.ts';
 import { isSiteDoc, renderWorkbook } from '../../core/workbook/render.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
-import { exportWorkbookXlsxWithReport } from '../../io/xlsx/export.ts';
+import { exportWorkbookXlsxWithReport, importKvarXlsx, describeProblem } from '../../io/xlsx/index.ts';
 import type { CellResult } from '../../engine/index.ts';
-import { importKvarXlsx } from '../../io/xlsx/importKvar.ts';
-import { describeProblem } from '../../io/xlsx/fileProblem.ts';
 
 export interface HandOffDoc {
   readonly doc: WorkbookDoc;

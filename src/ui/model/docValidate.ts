@@ -59,6 +59,25 @@ function checkColumns(sheet: string, columns: unknown, out: Problems): void {
   });
 }
 
+/** Typed-over cells: a list of [row, col] pairs inside the sheet's limits. */
+function checkOverrides(sheet: string, overrides: unknown, out: Problems): void {
+  if (overrides === undefined) return;
+  if (!Array.isArray(overrides))
+    return void out.push(`Sheet "${sheet}": overrides must be a list of [row, column] pairs.`);
+  overrides.forEach((o: unknown, i) => {
+    const ok =
+      Array.isArray(o) &&
+      o.length === 2 &&
+      o.every((n: unknown) => Number.isInteger(n) && (n as number) >= 0) &&
+      (o[0] as number) < LIMITS.rows &&
+      (o[1] as number) < LIMITS.cols;
+    if (!ok)
+      out.push(
+        `Sheet "${sheet}", override ${i + 1}: must be [row, column] with whole numbers in range; got ${JSON.stringify(o)}.`,
+      );
+  });
+}
+
 /** All problems, or [] when the value is a valid WorkbookDoc. */
 export function workbookProblems(doc: unknown): string[] {
   const out: Problems = [];
@@ -67,8 +86,8 @@ export function workbookProblems(doc: unknown): string[] {
     return [
       `Not a Kvar Ledger workbook: "format" is ${JSON.stringify(doc.format) ?? 'missing'}; expected "kvar-ledger-workbook".`,
     ];
-  if (doc.version !== 1)
-    out.push(`Unsupported workbook version ${JSON.stringify(doc.version)}; this app reads version 1.`);
+  if (doc.version !== 1 && doc.version !== 2)
+    out.push(`Unsupported workbook version ${JSON.stringify(doc.version)}; this app reads versions 1 and 2.`);
   if (typeof doc.title !== 'string') out.push('The workbook title must be text.');
   const sheets = doc.sheets;
   if (!Array.isArray(sheets) || sheets.length === 0) return [...out, 'A workbook needs at least one sheet.'];
@@ -85,6 +104,7 @@ export function workbookProblems(doc: unknown): string[] {
     seen.add(name.toLowerCase());
     checkCells(name, s.cells, out);
     checkColumns(name, s.columns, out);
+    checkOverrides(name, s.overrides, out);
   });
   return out;
 }

@@ -1,4 +1,4 @@
-import type { HyperFormula } from 'hyperformula';
+import type { HyperFormula } from '../../engine/index.ts';
 import type { SheetDoc } from '../../core/workbook/document.ts';
 import type { Layout, SheetMeta } from './sheetLayout.ts';
 

@@ -3,7 +3,7 @@
 // workbook the living model that keeps generated cells in step with the inputs. Every user action
 // goes through one method here and becomes exactly one undo step, whatever the model wrote to
 // follow it.
-import type { HyperFormula, SimpleCellRange } from 'hyperformula';
+import type { HyperFormula, SimpleCellRange } from '../../engine/index.ts';
 import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { isBuiltInSheet } from '../../core/workbook/layout.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';

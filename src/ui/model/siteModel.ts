@@ -7,7 +7,7 @@
 //   elsewhere) the Buses and Compensation sheets are written anew, banks staying with their bus.
 // Everything it writes is what render.ts writes for the same inputs, so opening the saved
 // workbook gives the same sheets.
-import type { HyperFormula } from 'hyperformula';
+import type { HyperFormula } from '../../engine/index.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 import { busKey } from '../../core/site/busNames.ts';
 import { planBusColumns, type BusColumns } from '../../core/workbook/busColumns.ts';

@@ -1,6 +1,6 @@
 // Opening a site workbook: every generated cell written from the inputs (render.ts), the engine
 // built over the result, the living model set up beside it, and the contents kept as typed.
-import type { HyperFormula } from 'hyperformula';
+import type { HyperFormula } from '../../engine/index.ts';
 import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { SHEETS } from '../../core/workbook/layout.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';

@@ -231,20 +231,22 @@ describe('workbook shape', () => {
     }
   });
 
-  it('refers to the frequency on the Site sheet instead of copying it', () => {
+  it('refers to the frequency in use on the Site sheet instead of copying it', () => {
     const cables = doc.sheets.find((s) => s.name === 'Cables');
-    expect(JSON.stringify(cables?.cells)).toContain('KVAR.CABLE(F2,G2,H2,Site!$B$3)');
+    expect(JSON.stringify(cables?.cells)).toMatch(/KVAR\.CABLE\([A-Z]+2,[A-Z]+2,[A-Z]+2,Site!\$B\$11\)/);
     const site = doc.sheets[0];
     expect(site?.cells[2]).toEqual(['Frequency', 50, 'Hz', expect.any(String)]);
+    // 50 or 60, else #N/A in every formula that uses it.
+    expect(site?.cells[10]?.slice(0, 2)).toEqual(['Frequency in use', '=IF(OR(B3=50,B3=60),B3,NA())']);
   });
 
   it('carries the cautions on the Site sheet', () => {
     const text = JSON.stringify(doc.sheets[0]?.cells);
     expect(text).toContain('licensed engineer');
-    expect(text).toMatch(/resonance and overvoltage can hurt people/i);
+    expect(text).toMatch(/resonance and switching overvoltage can hurt people/i);
   });
 
-  it("keeps each bus's items together and sums each bus over its own rows in the live flavour", () => {
+  it('sums each bus over the span of its own rows in the live flavour, one call per case and part', () => {
     const buses = doc.sheets.find((s) => s.name === 'Buses');
     const motors = doc.sheets.find((s) => s.name === 'Motors');
     expect(motors?.cells.slice(1).map((r) => [r[0], r[2]])).toEqual([
@@ -253,33 +255,25 @@ describe('workbook shape', () => {
       ['M3', 'LV2'],
       ['P1', 'PUMP'],
     ]);
-    const lv1 = buses?.cells.find((r) => r[0] === 'LV1');
-    // One call per case (three cases here), so an edit in one case reaches only that case's totals.
-    expect(lv1).toContain(
-      '=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$S$2:$S$3,Loads!$C$2:$C$2,Loads!$Q$2:$Q$2)',
-    );
-    expect(lv1).toContain(
-      '=BUS.SUMS($A$3,Motors!$C$2:$C$3,Motors!$U$2:$U$3,Loads!$C$2:$C$2,Loads!$S$2:$S$2)',
-    );
+    const lv1 = buses?.cells.find((r) => r[0] === 'LV1') ?? [];
+    const calls = lv1.filter((c): c is string => typeof c === 'string' && c.startsWith('=BUS.SUM('));
+    // Motors rows 2–3 and the one load on LV1, per case.
+    expect(calls).toHaveLength(3);
+    for (const c of calls)
+      expect(c).toMatch(
+        /^=BUS\.SUM\(\$A\$3,Motors!\$C\$2:\$C\$3,Motors!\$[A-Z]+\$2:\$[A-Z]+\$3,Loads!\$C\$2:\$C\$2,Loads!\$[A-Z]+\$2:\$[A-Z]+\$2\)$/,
+      );
     const text = JSON.stringify(buses?.cells);
     // P: the three buses with motors, loads or generators; kvar: all four (MV has a cable); per case.
-    expect(text.match(/BUS\.SUMS\(/g)).toHaveLength(3 * 3);
-    expect(text.match(/BUS\.SUMS\.SPLIT\(/g)).toHaveLength(4 * 3);
+    expect(text.match(/BUS\.SUM\(/g)).toHaveLength(3 * 3);
+    expect(text.match(/BUS\.SUM\.ABS\(/g)).toHaveLength(4 * 3);
+    expect(text.match(/BUS\.SUM\.DEL\(/g)).toHaveLength(4 * 3);
     expect(text).not.toContain('SUMIF');
   });
 
-  it('counts rows added since the layout was built (0 when built)', () => {
-    const hf = liveEngine(doc);
-    const site = doc.sheets.find((s) => s.name === 'Site');
-    const r =
-      site?.cells.findIndex((row) => row[0] === 'Rows added or removed since this layout was built') ?? -1;
-    expect(readCell(hf, 'Site', r, 1)).toEqual({ ok: true, value: 0 });
-    hf.setCellContents({ sheet: hf.getSheetId('Loads') as number, row: 20, col: 0 }, [['L99']]);
-    expect(readCell(hf, 'Site', r, 1)).toEqual({ ok: true, value: 1 });
-    // The portable workbook sums whole columns and has no such row.
-    expect(JSON.stringify(buildWorkbook(PLANT, { flavour: 'portable' }).sheets[0]?.cells)).not.toContain(
-      'layout was built',
-    );
+  it('keeps no notion of rebuilding: the Site sheet has settings, cases, assumptions and cautions only', () => {
+    const labels = new Set(doc.sheets[0]?.cells.map((r) => r[0]));
+    expect([...labels].filter((l) => typeof l === 'string' && /layout|rebuild/i.test(l))).toEqual([]);
   });
 });
 

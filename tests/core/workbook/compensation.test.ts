@@ -102,15 +102,24 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
   });
 
   it('steps: whole steps covering its share of the site need less the fixed part, at most the steps installed', () => {
-    // The share, recomputed from the roll-up: the site's need split by the lagging kvar of the
-    // own items of the buses with a bank (LV1 and LV2).
+    // The rule (README, "After compensation"): every bank covers the same share of its size of the
+    // need at the point of connection. Recomputed here from the roll-up and the typed banks.
     const day = rollUp(PLANT, 'day');
-    const own = (b: string) => Math.max(0, day.buses.find((x) => x.bus === b)?.own_q_kvar ?? 0);
     const siteNeed = day.root.q_kvar - day.root.p_kw * Math.tan(Math.acos(0.95));
-    const share = (siteNeed * own('LV2')) / (own('LV1') + own('LV2'));
+    const totalOf = (bus: string) => {
+      const row = busRow(doc, bus, 'Compensation');
+      const v = (h: string) => {
+        const x = valueAt(hf, doc, 'Compensation', row, h);
+        return x.ok && typeof x.value === 'number' ? x.value : 0;
+      };
+      return v('Fixed (kvar)') + v('Step (kvar)') * v('Steps');
+    };
+    const buses = rollUp(PLANT, 'day').buses.map((b) => b.bus);
+    const sum = buses.reduce((a, b) => a + totalOf(b), 0);
+    const share = (siteNeed * totalOf('LV2')) / sum;
     const [fixed, step, steps] = [at('Fixed (kvar)'), at('Step (kvar)'), at('Steps')];
     expect(step).toBeGreaterThan(0);
-    expect(at('Steps in day')).toBe(Math.min(steps, Math.ceil((share - fixed) / step)));
+    expect(at('Steps in day')).toBe(Math.min(steps, Math.ceil((share - fixed) / step - 1e-9)));
     expect(at('Capacitor output day (kvar)')).toBe(fixed + step * at('Steps in day'));
   });
 

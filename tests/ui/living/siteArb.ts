@@ -85,15 +85,13 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
       values: { q_kvar: q, u_rated_kv: u * 1.1, u_kv: u, ...(p ? { p_pct: p } : {}) },
       loads,
     }));
-  const reactor = fc
-    .record({ q: num(10, 300), loads: loadsArb(cases, [0, 1]) })
-    .map(({ q, loads }) => ({
-      tag: '',
-      bus,
-      kind: 'reactor',
-      values: { q_kvar: q, u_rated_kv: u, u_kv: u },
-      loads,
-    }));
+  const reactor = fc.record({ q: num(10, 300), loads: loadsArb(cases, [0, 1]) }).map(({ q, loads }) => ({
+    tag: '',
+    bus,
+    kind: 'reactor',
+    values: { q_kvar: q, u_rated_kv: u, u_kv: u },
+    loads,
+  }));
   return fc.oneof(
     { arbitrary: motor, weight: 4 },
     { arbitrary: load, weight: 3 },
