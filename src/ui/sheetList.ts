@@ -114,6 +114,10 @@ export class SheetList {
 
   async rename(id: number): Promise<void> {
     const { session } = this.host;
+    if (session.isBuiltIn(id)) {
+      this.host.notice(`${session.sheetName(id)} is one of the site's own sheets: formulas, the command line and the export find it by this name.`, 'error');
+      return;
+    }
     const current = session.sheetName(id);
     const names = session.sheetNames();
     const name = await promptDialog(`Rename "${current}"`, 'New name', current, (v) =>
@@ -131,6 +135,13 @@ export class SheetList {
       return;
     }
     const name = session.sheetName(id);
+    if (session.isBuiltIn(id)) {
+      this.host.notice(
+        `${name} is one of the site's own sheets: it can be emptied but not deleted, since the buses, the compensation and the export are built from it.`,
+        'error',
+      );
+      return;
+    }
     const filled = session.sheetContents(id).reduce((n, r) => n + r.filter((c) => c !== null).length, 0);
     const ok = await confirmDialog(
       `Delete sheet "${name}"?`,

@@ -51,12 +51,15 @@ describe('files', () => {
     const doc = JSON.parse(await readFile(file, 'utf8')) as {
       format: string;
       title: string;
-      sheets: Array<{ name: string }>;
+      sheets: Array<{ name: string; cells: unknown[][] }>;
     };
     expect(doc.format).toBe('kvar-ledger-workbook');
     expect(doc.sheets.map((s) => s.name)).toContain('Buses');
-    // Change the title in the file and open it: the page shows the file's workbook.
-    await writeFile(file, JSON.stringify({ ...doc, title: 'Reopened from disk' }));
+    // Change the site name in the file and open it: the page shows the file's workbook, titled by its site name.
+    const site = doc.sheets.find((s) => s.name === 'Site');
+    expect(site?.cells[1]?.[0]).toBe('Site name');
+    (site?.cells[1] as unknown[])[1] = 'Reopened from disk';
+    await writeFile(file, JSON.stringify(doc));
     await chooseFile('menu-open', file);
     await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toBe('Reopened from disk');
   });

@@ -19,8 +19,8 @@ import { bankTotal, type BankChoice } from './bankChoice.ts';
 import { kvarNeeded, requirementBand, type Need } from './requirement.ts';
 import { rollUp, type BusExtra, type CaseBalance } from './rollup.ts';
 
-/** Tolerance for "within the requirement", kvar (rounding of the roll-up, not of the design). */
-export const WITHIN_TOL_KVAR = 0.5;
+export { WITHIN_TOL_KVAR } from './tolerance.ts';
+import { WITHIN_TOL_KVAR } from './tolerance.ts';
 
 export interface BankInCase {
   readonly bus: string;

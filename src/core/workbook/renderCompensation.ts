@@ -13,7 +13,7 @@ import { absCell, cell, cellOn, rangeOn } from './refs.ts';
 import { REQUIREMENT_TEXT, settingRef } from './settingsLayout.ts';
 import type { BusInfo, WorkbookStructure } from './structure.ts';
 import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from '../site/bankRules.ts';
-import { WITHIN_TOL_KVAR } from '../site/compensate.ts';
+import { WITHIN_TOL_KVAR } from '../site/tolerance.ts';
 
 export interface CompensationInput {
   readonly s: WorkbookStructure;

@@ -26,7 +26,7 @@ export async function boot(root: HTMLElement): Promise<App> {
   app.side.add('charts', 'Charts', charts.root, () => charts.draw());
   const checks = new ChecksPanel();
   app.checks = checks;
-  app.side.add('checks', 'Checks', checks.root, () => checks.draw());
+  app.side.add('checks', 'Checks', checks.root, () => void checks.draw());
   checks.onJump = ({ sheet, row }) => {
     const id = app.session.engine.getSheetId(sheet);
     if (id === undefined) return;

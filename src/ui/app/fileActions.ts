@@ -5,6 +5,7 @@ import { el } from '../dom.ts';
 import { confirmDialog, openDialog } from '../dialogs/dialog.ts';
 import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from '../storage/nativeFile.ts';
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
+import { blankSiteWorkbook } from '../../core/workbook/blankSite.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { toResult } from '../../engine/index.ts';
 import type { ImportHost } from '../import/importDialog.ts';
@@ -22,6 +23,11 @@ export interface FileHost extends ImportHost {
 
 const REPLACE_NOTE =
   'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
+
+/** Workbook → New blank site: settings with defaults and the cautions, empty equipment sheets. */
+export async function newBlankSite(app: FileHost): Promise<void> {
+  await app.replaceWith(blankSiteWorkbook(), 'A new blank site: type equipment on the Motors, Loads … sheets; buses appear as you name them.');
+}
 
 export async function newFromTemplate(app: FileHost): Promise<void> {
   const ids = templateIds();

@@ -11,6 +11,7 @@ import {
   bringBack,
   exportXlsx,
   importEquipmentList,
+  newBlankSite,
   newFromTemplate,
   openFile,
   saveFile,
@@ -63,6 +64,7 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
   const workbook = menuButton(
     'Workbook',
     [
+      { label: 'New blank site', run: () => void newBlankSite(app), testId: 'menu-blank' },
       { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
       { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
       { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },

@@ -12,6 +12,8 @@ export interface RenderContext {
   readonly hasHeaderRow: () => boolean;
   /** Rows holding data; computed columns are tinted only there. */
   readonly dataRows: () => number;
+  /** A cell Kvar Ledger writes that holds a value the user typed over it. */
+  readonly isOverride?: (row: number, col: number) => boolean;
 }
 
 const KIND_CLASS: Readonly<Record<CellKind, string>> = {
@@ -21,7 +23,8 @@ const KIND_CLASS: Readonly<Record<CellKind, string>> = {
   error: 'kl-err',
   empty: 'kl-empty',
 };
-const ALL_CLASSES = [...Object.values(KIND_CLASS), 'kl-head', 'kl-calc', 'kl-formula'];
+const ALL_CLASSES = [...Object.values(KIND_CLASS), 'kl-head', 'kl-calc', 'kl-formula', 'kl-override'];
+const OVERRIDE_TITLE = 'Typed over: Kvar Ledger\'s formula is replaced by this value. Clear the cell (Delete) to bring the formula back.';
 
 export function makeCellRenderer(ctx: RenderContext) {
   return function renderCell(_hot: unknown, td: HTMLTableCellElement, row: number, col: number): void {
@@ -39,8 +42,11 @@ export function makeCellRenderer(ctx: RenderContext) {
     td.classList.add(header ? 'kl-head' : KIND_CLASS[view.kind]);
     if (!header && info?.computed && row < ctx.dataRows()) td.classList.add('kl-calc');
     if (!header && ctx.engine.doesCellHaveFormula(address)) td.classList.add('kl-formula');
+    const typedOver = !header && (ctx.isOverride?.(row, col) ?? false);
+    if (typedOver) td.classList.add('kl-override');
     td.textContent = view.text;
     if (view.error) td.title = `${view.error.code} ${view.error.message}`;
+    else if (typedOver) td.title = OVERRIDE_TITLE;
     else if (td.title) td.removeAttribute('title');
   };
 }

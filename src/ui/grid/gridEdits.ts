@@ -14,6 +14,8 @@ export interface EditHost {
   readonly sheetId: number;
   applying: boolean;
   reload(): void;
+  /** Say why an edit was refused (the grid puts its copy back). */
+  refuse(message: string): void;
   select(row: number, col: number, row2?: number, col2?: number): void;
 }
 
@@ -42,6 +44,10 @@ export function installEditHandlers(host: EditHost): void {
     host.applying = true;
     try {
       session.setCells(host.sheetId, cells);
+    } catch (e) {
+      host.applying = false;
+      host.refuse(e instanceof Error ? e.message : String(e));
+      return false;
     } finally {
       host.applying = false;
     }
@@ -123,7 +129,12 @@ export function installEditHandlers(host: EditHost): void {
         cols = (br.col ?? 0) - left + 1;
       block = Array.from({ length: rows }, () => Array.from({ length: cols }, () => first));
     }
-    session.setBlock(host.sheetId, top, left, block);
+    try {
+      session.setBlock(host.sheetId, top, left, block);
+    } catch (e) {
+      host.refuse(e instanceof Error ? e.message : String(e));
+      return false;
+    }
     const w = block.reduce((m, r) => Math.max(m, r.length), 1);
     host.select(top, left, top + block.length - 1, left + w - 1);
     return false;
@@ -135,7 +146,7 @@ export function installEditHandlers(host: EditHost): void {
     const t = target.getTopStartCorner(),
       te = target.getBottomEndCorner();
     const sheet = host.sheetId;
-    session.fill(
+    const fill = () => session.fill(
       {
         start: { sheet, row: s.row ?? 0, col: s.col ?? 0 },
         end: { sheet, row: se.row ?? 0, col: se.col ?? 0 },
@@ -145,6 +156,12 @@ export function installEditHandlers(host: EditHost): void {
         end: { sheet, row: te.row ?? 0, col: te.col ?? 0 },
       },
     );
+    try {
+      fill();
+    } catch (e) {
+      host.refuse(e instanceof Error ? e.message : String(e));
+      return false;
+    }
     host.select(
       Math.min(s.row ?? 0, t.row ?? 0),
       Math.min(s.col ?? 0, t.col ?? 0),

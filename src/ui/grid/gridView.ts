@@ -58,6 +58,7 @@ export class GridView implements EditHost {
       columns: () => this.columns(),
       hasHeaderRow: () => this.hasHeaderRow(),
       dataRows: () => this.dataRows,
+      isOverride: (row, col) => session.isOverride(this.current, row, col),
     });
     const settings: GridSettings = {
       data: [['']],
@@ -160,6 +161,12 @@ export class GridView implements EditHost {
     this.reload();
   }
 
+  /** An edit the workbook refused: say why, and show the sheet as it is. */
+  refuse(message: string): void {
+    this.callbacks.onNotice(message);
+    this.reload();
+  }
+
   selection(): Selection | undefined {
     const range = this.hot.getSelectedRangeLast();
     if (!range || this.current < 0) return undefined;
@@ -179,7 +186,19 @@ export class GridView implements EditHost {
 
   reportSelection(): void {
     const sel = this.selection();
-    if (sel) this.callbacks.onSelect(sel);
+    if (!sel) return;
+    this.editorTextFor(sel.row, sel.col);
+    this.callbacks.onSelect(sel);
+  }
+
+  /**
+   * The grid's copy holds what was typed; a cell Kvar Ledger writes holds its formula in the
+   * engine only. The editor starts from the grid's copy, so the active cell's is filled in.
+   */
+  private editorTextFor(row: number, col: number): void {
+    if (this.current < 0 || this.hot.getSourceDataAtCell(row, col) !== '') return;
+    const content = this.session.cellContent(this.current, row, col);
+    if (typeof content === 'string' && content.startsWith('=')) this.hot.setSourceDataAtCell(row, col, content, 'kl-sync');
   }
 
   select(row: number, col: number, row2 = row, col2 = col): void {

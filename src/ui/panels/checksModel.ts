@@ -4,7 +4,10 @@
 // in the grid's own numbering, or the bus and case it concerns. Pure: no DOM.
 import { describeWhere, type Problem, type Severity } from '../../core/site/problems.ts';
 import { mergeProblems, validateSite } from '../../core/site/validate.ts';
-import { designCompensation } from '../../core/site/compensation.ts';
+import { assessBanks } from '../../core/site/assessBanks.ts';
+import { busVoltages } from '../../core/site/voltages.ts';
+import { buildBusGraph } from '../../core/site/graph.ts';
+import { a1 } from '../model/address.ts';
 import type { DesignWarning } from '../../core/site/warnings.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
@@ -65,10 +68,45 @@ function designItem(w: DesignWarning): CheckItem {
 
 const RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
 
+/** Values typed over Kvar Ledger's formulas, and formulas left pointing at a removed sheet. */
+function workbookItems(doc: WorkbookDoc): CheckItem[] {
+  const out: CheckItem[] = [];
+  for (const s of doc.sheets) {
+    for (const [row, col] of s.overrides ?? []) {
+      const header = s.columns?.[col]?.header ?? s.cells[0]?.[col];
+      out.push({
+        severity: 'warning',
+        code: 'override',
+        where: `${s.name} row ${row + 1}${header ? `, column "${String(header)}"` : `, cell ${a1(row, col)}`}`,
+        text: `the value ${JSON.stringify(s.cells[row]?.[col] ?? null)} is typed over Kvar Ledger's formula and counts as typed; clear the cell to bring the formula back`,
+        target: { sheet: s.name, row: row + 1 },
+      });
+    }
+    s.cells.forEach((line, row) =>
+      line.forEach((v, col) => {
+        if (typeof v !== 'string' || !v.startsWith('=') || !v.includes('#REF!')) return;
+        out.push({
+          severity: 'error',
+          code: 'reference',
+          where: `${s.name} cell ${a1(row, col)}`,
+          text: `the formula ${v} refers to a sheet or cells that were removed (#REF!)`,
+          target: { sheet: s.name, row: row + 1 },
+        });
+      }),
+    );
+  }
+  return out;
+}
+
 export function collectChecks(doc: WorkbookDoc): ChecksReport {
   const read = siteFromWorkbook(doc);
   const problems = mergeProblems(read.problems, validateSite(read.site));
-  const items: CheckItem[] = problems.map((p) => inputItem(p, read.origins));
+  const items: CheckItem[] = [...problems.map((p) => inputItem(p, read.origins)), ...workbookItems(doc)];
+  const voltages = busVoltages(read.site.equipment).voltages;
+  for (const bus of buildBusGraph(read.site.equipment.filter((r) => r.bus !== '')).firstRow.keys()) {
+    if (voltages.has(bus)) continue;
+    items.push({ severity: 'info', code: 'bus-voltage-unknown', where: `bus ${bus}`, text: `bus ${bus} has no voltage: no row on it states U (kV), so its Compensation row shows U = 0 and no bank there can be checked` });
+  }
   let designSkipped: string | undefined;
   if (problems.some((p) => p.severity === 'error')) {
     designSkipped = 'The compensation design is checked once the input errors above are mended.';
@@ -76,7 +114,8 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
     designSkipped = 'No equipment in this workbook yet.';
   } else {
     try {
-      items.push(...designCompensation(read.site).warnings.map(designItem));
+      // Findings for the banks on the Compensation sheet (typed, or proposed when the site was built).
+      items.push(...assessBanks(read.site, read.banks).warnings.map(designItem));
     } catch (e) {
       designSkipped = `The compensation design could not be checked: ${e instanceof Error ? e.message : String(e)}`;
     }

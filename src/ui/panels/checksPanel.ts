@@ -3,7 +3,7 @@
 // designing takes a while on large sites, so it never runs on every keystroke).
 import { clear, el } from '../dom.ts';
 import type { WorkbookSession } from '../model/session.ts';
-import { collectChecks, type CheckItem, type ChecksReport } from './checksModel.ts';
+import type { CheckItem, ChecksReport } from './checksModel.ts';
 
 const QUIET_MS = 600;
 
@@ -22,7 +22,7 @@ export class ChecksPanel {
     this.root = el('section', { className: 'kl-checks', attrs: { 'data-testid': 'checks' } }, [
       el('p', {
         className: 'kl-muted',
-        text: 'Input problems, then the findings for the compensation Kvar Ledger proposes from these inputs. The Compensation sheet checks the banks you enter there.',
+        text: 'Input problems and cells typed over formulas, then the findings for the banks on the Compensation sheet: capacitor voltage, resonance, voltage rise, and the requirement after compensation in every case.',
       }),
       this.body,
     ]);
@@ -33,16 +33,20 @@ export class ChecksPanel {
     this.dirty = true;
     if (!this.visible) return;
     if (this.timer) clearTimeout(this.timer);
-    this.timer = setTimeout(() => this.draw(), QUIET_MS);
+    this.timer = setTimeout(() => void this.draw(), QUIET_MS);
   }
 
-  draw(): void {
+  /** Run the checks (their code, the compensation rules, loads on first use) and show them. */
+  async draw(): Promise<void> {
     this.timer = undefined;
     if (!this.session || !this.dirty) return;
     this.dirty = false;
+    const session = this.session;
     let report: ChecksReport;
     try {
-      report = collectChecks(this.session.toDoc());
+      const { collectChecks } = await import('./checksModel.ts');
+      if (session !== this.session) return;
+      report = collectChecks(session.toDoc());
     } catch (e) {
       clear(this.body);
       this.body.append(

@@ -1,0 +1,123 @@
+// Findings for the banks a workbook holds (typed on its Compensation sheet, or proposed there):
+// what Checks lists and the CLI prints. Each bank is judged by the same rules the design uses
+// (bankRules.ts): capacitor voltage against its rating, resonance at every switching state,
+// voltage rise per step; then the outcome by the one rule for after compensation (compensate.ts):
+// the requirement per case, and buses left delivering kvar with capacitors in.
+import type { Site } from './model.ts';
+import { bankTotal, type BankChoice } from './bankChoice.ts';
+import { buildBusGraph } from './graph.ts';
+import { busShortCircuit } from './shortCircuit.ts';
+import { busVoltages } from './voltages.ts';
+import { checkInstalled, installedCapacitorKvar } from './installedChecks.ts';
+import { CAP_OVERVOLTAGE_LIMIT, STEP_VRISE_LIMIT_PCT, capacitorVoltage, nearHarmonic, resonanceOrderOf, voltageRise } from './bankRules.ts';
+import { compensate, type CaseCompensation } from './compensate.ts';
+import { kvarNeeded } from './requirement.ts';
+import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
+import { findKind } from '../kinds/index.ts';
+import { formatNumber } from '../registry/messages.ts';
+
+export interface Assessment {
+  readonly cases: readonly CaseCompensation[];
+  readonly warnings: readonly DesignWarning[];
+}
+
+const f = (x: number, d = 1) => x.toFixed(d);
+
+function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning[] {
+  const out: DesignWarning[] = [];
+  const graph = buildBusGraph(site.equipment);
+  const ssc = busShortCircuit(site, graph);
+  const voltages = busVoltages(site.equipment).voltages;
+  const hz = site.settings.hz;
+  for (const c of choices) {
+    const total = bankTotal(c);
+    if (total <= 0) continue;
+    const u = voltages.get(c.bus)?.u_kv;
+    if (u === undefined) {
+      out.push(designWarning('warning', 'bus-voltage-unknown', { bus: c.bus }, `the bank on bus ${c.bus} cannot be checked: the bus has no voltage (state u_kv on a row of the bus)`));
+      continue;
+    }
+    const p = c.p_pct ?? 0;
+    const uc = capacitorVoltage(u, p);
+    if (c.u_rated_kv !== undefined && uc > c.u_rated_kv * (1 + 1e-9)) {
+      out.push(
+        designWarning(
+          uc > CAP_OVERVOLTAGE_LIMIT * c.u_rated_kv ? 'error' : 'warning',
+          'capacitor-overvoltage',
+          { bus: c.bus },
+          `the capacitors of the bank on bus ${c.bus} see ${f(uc, 3)} kV (CAPBANK.UCAP) but are rated ${formatNumber(c.u_rated_kv)} kV; choose a higher rated voltage`,
+        ),
+      );
+    }
+    const sc = ssc.get(c.bus);
+    if (!sc) {
+      out.push(designWarning('info', 'resonance-not-assessed', { bus: c.bus }, `resonance and voltage rise of the bank on bus ${c.bus} not assessed: the short-circuit power there is unknown (give it on the Site sheet)`));
+      continue;
+    }
+    const plain = (graph.items.get(c.bus) ?? [])
+      .filter((r) => findKind(r.kind)?.traits?.capacitor && !((r.values.p_pct ?? 0) > 0))
+      .reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
+    const fixed = c.fixed_kvar ?? 0;
+    const step = c.step_kvar ?? 0;
+    const states = [fixed, ...Array.from({ length: c.steps ?? 0 }, (_, k) => fixed + (k + 1) * step)].filter((q) => q > 0);
+    for (const q of states) {
+      const order = resonanceOrderOf(sc.ssc_mva, q + plain, p);
+      const near = order === undefined ? undefined : nearHarmonic(order);
+      if (order !== undefined && near !== undefined) {
+        out.push(designWarning('warning', 'resonance', { bus: c.bus }, `with ${f(q + plain)} kvar connected the bank on bus ${c.bus} resonates at order ${f(order, 2)}, near the ${near}th harmonic; choose another detuning or step size`));
+        break;
+      }
+    }
+    const rise = voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
+    if (rise > STEP_VRISE_LIMIT_PCT) {
+      out.push(designWarning('warning', 'voltage-rise', { bus: c.bus }, `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`));
+    }
+  }
+  return out;
+}
+
+function outcomeWarnings(site: Site, cases: readonly CaseCompensation[]): DesignWarning[] {
+  const out: DesignWarning[] = [];
+  for (const r of cases) {
+    const a = r.after.root;
+    const before = r.before.root;
+    if (r.need.inductive_kvar > 0.5) {
+      const charging = r.before.elements
+        .filter((e) => findKind(e.kind)?.traits?.charging)
+        .reduce((sum, e) => sum + e.q_delivered_kvar, 0);
+      const reactor = r.banks.filter((b) => b.reactor_kvar > 0);
+      const covered = reactor.length > 0 ? `; the reactor on bus ${reactor.map((b) => b.bus).join(', ')} switches in (${f(reactor.reduce((x, b) => x + b.reactor_kvar, 0), 0)} kvar)` : '; no reactor in the workbook covers it';
+      out.push(
+        designWarning(
+          'warning',
+          'charging-dominates',
+          { bus: before.bus, case: r.case },
+          `the point of connection delivers ${f(-before.q_kvar, 0)} kvar at ${f(before.p_kw, 0)} kW (cable and line charging ${f(charging, 0)} kvar), beyond the leading limit${covered}`,
+        ),
+      );
+    }
+    if (!r.within_after) {
+      const n = kvarNeeded(a.p_kw, a.q_kvar, site.settings.requirement);
+      const what = n.capacitive_kvar > 0 ? `${f(n.capacitive_kvar, 0)} kvar capacitive still missing` : `${f(n.inductive_kvar, 0)} kvar inductive still missing`;
+      out.push(designWarning('warning', 'requirement-not-met', { bus: a.bus, case: r.case }, `after compensation the point of connection is at cos φ ${a.cos_phi?.toFixed(3) ?? '–'} ${a.sense} (${what}); review the banks`));
+    }
+    for (const b of r.banks) {
+      const bus = r.after.buses.find((x) => x.bus === b.bus);
+      if (!bus || b.output_kvar <= 0 || bus.own_q_kvar >= 0) continue;
+      out.push(designWarning('info', 'overcompensation', { bus: b.bus, case: r.case }, `bus ${b.bus} is overcompensated: its own items deliver ${f(-bus.own_q_kvar)} kvar with the bank's ${f(b.output_kvar)} kvar in; fewer steps at light load`));
+    }
+  }
+  return out;
+}
+
+/** Findings for a valid site with these banks (SiteStructureError when it does not roll up). */
+export function assessBanks(site: Site, choices: readonly BankChoice[]): Assessment {
+  const graph = buildBusGraph(site.equipment);
+  const cases = compensate(site, choices);
+  const warnings = [
+    ...checkInstalled(site, graph, busShortCircuit(site, graph), busVoltages(site.equipment).voltages),
+    ...bankWarnings(site, choices),
+    ...outcomeWarnings(site, cases),
+  ];
+  return { cases, warnings: sortWarnings(warnings) };
+}
