@@ -115,7 +115,10 @@ export class SheetList {
   async rename(id: number): Promise<void> {
     const { session } = this.host;
     if (session.isBuiltIn(id)) {
-      this.host.notice(`${session.sheetName(id)} is one of the site's own sheets: formulas, the command line and the export find it by this name.`, 'error');
+      this.host.notice(
+        `${session.sheetName(id)} is one of the site's own sheets: formulas, the command line and the export find it by this name.`,
+        'error',
+      );
       return;
     }
     const current = session.sheetName(id);

@@ -14,6 +14,7 @@ import { createEngine, readCell, type CellResult } from '../../src/engine/index.
 import { exportWorkbookXlsx } from '../../src/io/xlsx/export.ts';
 import { sampleDoc } from '../io/xlsx/docFixtures.ts';
 import { inventedQuarry } from './inventedSite.ts';
+import { editedWorkbooks } from './editedWorkbooks.ts';
 import { convertToCsv, csvFiles, makeRecalcProfile, sheetCsv } from './libreoffice.ts';
 
 /** Relative tolerance of the check; an absolute floor covers results that cancel to ~0. */
@@ -75,6 +76,10 @@ beforeAll(async () => {
     settings: faulty.settings,
   });
   books.push({ base: 'hand-made', doc: sampleDoc() });
+  // Workbooks edited through the page's own model (random sites and edits, fixed seeds), exported
+  // as the page exports them: what the user built by hand must recompute the same elsewhere.
+  for (const [i, edited] of editedWorkbooks(3).entries())
+    books.push({ base: `edited-${i + 1}`, doc: edited });
   const files: string[] = [];
   for (const b of books) {
     const file = join(work, `${b.base}.xlsx`);

@@ -9,7 +9,14 @@ import { buildBusGraph } from './graph.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { busVoltages } from './voltages.ts';
 import { checkInstalled, installedCapacitorKvar } from './installedChecks.ts';
-import { CAP_OVERVOLTAGE_LIMIT, STEP_VRISE_LIMIT_PCT, capacitorVoltage, nearHarmonic, resonanceOrderOf, voltageRise } from './bankRules.ts';
+import {
+  CAP_OVERVOLTAGE_LIMIT,
+  STEP_VRISE_LIMIT_PCT,
+  capacitorVoltage,
+  nearHarmonic,
+  resonanceOrderOf,
+  voltageRise,
+} from './bankRules.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
 import { kvarNeeded } from './requirement.ts';
 import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
@@ -34,7 +41,14 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
     if (total <= 0) continue;
     const u = voltages.get(c.bus)?.u_kv;
     if (u === undefined) {
-      out.push(designWarning('warning', 'bus-voltage-unknown', { bus: c.bus }, `the bank on bus ${c.bus} cannot be checked: the bus has no voltage (state u_kv on a row of the bus)`));
+      out.push(
+        designWarning(
+          'warning',
+          'bus-voltage-unknown',
+          { bus: c.bus },
+          `the bank on bus ${c.bus} cannot be checked: the bus has no voltage (state u_kv on a row of the bus)`,
+        ),
+      );
       continue;
     }
     const p = c.p_pct ?? 0;
@@ -51,7 +65,14 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
     }
     const sc = ssc.get(c.bus);
     if (!sc) {
-      out.push(designWarning('info', 'resonance-not-assessed', { bus: c.bus }, `resonance and voltage rise of the bank on bus ${c.bus} not assessed: the short-circuit power there is unknown (give it on the Site sheet)`));
+      out.push(
+        designWarning(
+          'info',
+          'resonance-not-assessed',
+          { bus: c.bus },
+          `resonance and voltage rise of the bank on bus ${c.bus} not assessed: the short-circuit power there is unknown (give it on the Site sheet)`,
+        ),
+      );
       continue;
     }
     const plain = (graph.items.get(c.bus) ?? [])
@@ -59,18 +80,34 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
       .reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
     const fixed = c.fixed_kvar ?? 0;
     const step = c.step_kvar ?? 0;
-    const states = [fixed, ...Array.from({ length: c.steps ?? 0 }, (_, k) => fixed + (k + 1) * step)].filter((q) => q > 0);
+    const states = [fixed, ...Array.from({ length: c.steps ?? 0 }, (_, k) => fixed + (k + 1) * step)].filter(
+      (q) => q > 0,
+    );
     for (const q of states) {
       const order = resonanceOrderOf(sc.ssc_mva, q + plain, p);
       const near = order === undefined ? undefined : nearHarmonic(order);
       if (order !== undefined && near !== undefined) {
-        out.push(designWarning('warning', 'resonance', { bus: c.bus }, `with ${f(q + plain)} kvar connected the bank on bus ${c.bus} resonates at order ${f(order, 2)}, near the ${near}th harmonic; choose another detuning or step size`));
+        out.push(
+          designWarning(
+            'warning',
+            'resonance',
+            { bus: c.bus },
+            `with ${f(q + plain)} kvar connected the bank on bus ${c.bus} resonates at order ${f(order, 2)}, near the ${near}th harmonic; choose another detuning or step size`,
+          ),
+        );
         break;
       }
     }
     const rise = voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
     if (rise > STEP_VRISE_LIMIT_PCT) {
-      out.push(designWarning('warning', 'voltage-rise', { bus: c.bus }, `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`));
+      out.push(
+        designWarning(
+          'warning',
+          'voltage-rise',
+          { bus: c.bus },
+          `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
+        ),
+      );
     }
   }
   return out;
@@ -86,7 +123,13 @@ function outcomeWarnings(site: Site, cases: readonly CaseCompensation[]): Design
         .filter((e) => findKind(e.kind)?.traits?.charging)
         .reduce((sum, e) => sum + e.q_delivered_kvar, 0);
       const reactor = r.banks.filter((b) => b.reactor_kvar > 0);
-      const covered = reactor.length > 0 ? `; the reactor on bus ${reactor.map((b) => b.bus).join(', ')} switches in (${f(reactor.reduce((x, b) => x + b.reactor_kvar, 0), 0)} kvar)` : '; no reactor in the workbook covers it';
+      const covered =
+        reactor.length > 0
+          ? `; the reactor on bus ${reactor.map((b) => b.bus).join(', ')} switches in (${f(
+              reactor.reduce((x, b) => x + b.reactor_kvar, 0),
+              0,
+            )} kvar)`
+          : '; no reactor in the workbook covers it';
       out.push(
         designWarning(
           'warning',
@@ -98,13 +141,30 @@ function outcomeWarnings(site: Site, cases: readonly CaseCompensation[]): Design
     }
     if (!r.within_after) {
       const n = kvarNeeded(a.p_kw, a.q_kvar, site.settings.requirement);
-      const what = n.capacitive_kvar > 0 ? `${f(n.capacitive_kvar, 0)} kvar capacitive still missing` : `${f(n.inductive_kvar, 0)} kvar inductive still missing`;
-      out.push(designWarning('warning', 'requirement-not-met', { bus: a.bus, case: r.case }, `after compensation the point of connection is at cos φ ${a.cos_phi?.toFixed(3) ?? '–'} ${a.sense} (${what}); review the banks`));
+      const what =
+        n.capacitive_kvar > 0
+          ? `${f(n.capacitive_kvar, 0)} kvar capacitive still missing`
+          : `${f(n.inductive_kvar, 0)} kvar inductive still missing`;
+      out.push(
+        designWarning(
+          'warning',
+          'requirement-not-met',
+          { bus: a.bus, case: r.case },
+          `after compensation the point of connection is at cos φ ${a.cos_phi?.toFixed(3) ?? '–'} ${a.sense} (${what}); review the banks`,
+        ),
+      );
     }
     for (const b of r.banks) {
       const bus = r.after.buses.find((x) => x.bus === b.bus);
       if (!bus || b.output_kvar <= 0 || bus.own_q_kvar >= 0) continue;
-      out.push(designWarning('info', 'overcompensation', { bus: b.bus, case: r.case }, `bus ${b.bus} is overcompensated: its own items deliver ${f(-bus.own_q_kvar)} kvar with the bank's ${f(b.output_kvar)} kvar in; fewer steps at light load`));
+      out.push(
+        designWarning(
+          'info',
+          'overcompensation',
+          { bus: b.bus, case: r.case },
+          `bus ${b.bus} is overcompensated: its own items deliver ${f(-bus.own_q_kvar)} kvar with the bank's ${f(b.output_kvar)} kvar in; fewer steps at light load`,
+        ),
+      );
     }
   }
   return out;

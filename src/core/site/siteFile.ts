@@ -3,11 +3,13 @@
 //    "settings":{"name":...,"hz":50,"cases":[...],"requirement":{...},"sscMva":...,"notes":[...]},
 //    "equipment":[
 //      {"tag":"T1","bus":"MV","kind":"transformer",...,"load:night":0.4},
-//      ...]}
+//      ...],
+//    "banks":[{"bus":"LV1","fixed_kvar":20,"step_kvar":50,"steps":6,...}, ...]}   (optional)
 // Equipment keys are exactly the interchange column names (load:<case> included), so a row
 // reads the same in the file, in a CSV and in the workbook. Rows are read through
 // parseEquipmentTable, so numbers, kinds and unknown keys get the same messages; "row N" in a
-// message is the N-th equipment row of the file.
+// message is the N-th equipment row of the file. `banks`, when given, are the Compensation
+// sheet's inputs per bus (a template carries the design's proposal, so opening it needs no design).
 import {
   NUMERIC_COLUMNS,
   type EquipmentRow,
@@ -16,6 +18,7 @@ import {
   type SiteSettings,
 } from './model.ts';
 import { CASE_PREFIX, parseEquipmentTable } from './parse.ts';
+import type { BankChoice } from './bankChoice.ts';
 import { error, type Problem } from './problems.ts';
 import { jsonErrorOffset, lineAndCharacter } from './jsonWhere.ts';
 
@@ -137,7 +140,36 @@ function equipmentTable(items: readonly Json[], problems: Problem[]): string[][]
   return [header, ...rows];
 }
 
-export function readSiteFile(text: string): { site: Site; problems: Problem[] } {
+const BANK_KEYS = ['fixed_kvar', 'step_kvar', 'steps', 'p_pct', 'u_rated_kv', 'reactor_kvar'] as const;
+
+/** The banks chosen per bus, when the file gives them ("banks": [{"bus": ..., "step_kvar": ...}, ...]). */
+function readBanks(v: unknown, problems: Problem[]): BankChoice[] | undefined {
+  if (v === undefined) return undefined;
+  const bad = (i: number, what: string) => problems.push(error({ column: 'banks' }, `banks[${i}] ${what}`));
+  if (!Array.isArray(v)) {
+    problems.push(
+      error({ column: 'banks' }, 'banks must be a list of {"bus": ..., "step_kvar": ..., "steps": ...}'),
+    );
+    return undefined;
+  }
+  const out: BankChoice[] = [];
+  v.forEach((b: unknown, i) => {
+    if (!isObject(b) || typeof b.bus !== 'string' || b.bus.trim() === '') return void bad(i, 'needs a bus');
+    const c: { -readonly [K in keyof BankChoice]: BankChoice[K] } = { bus: b.bus.trim() };
+    for (const k of BANK_KEYS) {
+      const x = b[k];
+      if (x === undefined || x === null) continue;
+      if (typeof x !== 'number' || !(x >= 0) || !Number.isFinite(x))
+        bad(i, `${k} must be a number ≥ 0; got ${JSON.stringify(x)}`);
+      else c[k] = x;
+    }
+    if (typeof b.note === 'string') c.note = b.note;
+    out.push(c);
+  });
+  return out;
+}
+
+export function readSiteFile(text: string): { site: Site; problems: Problem[]; banks?: BankChoice[] } {
   const problems: Problem[] = [];
   const empty: Site = {
     settings: {
@@ -178,7 +210,9 @@ export function readSiteFile(text: string): { site: Site; problems: Problem[] } 
     problems.push(error({ column: 'equipment' }, 'equipment must be a list of rows'));
     return { site: { settings, equipment: [] }, problems };
   }
-  if (doc.equipment.length === 0) return { site: { settings, equipment: [] }, problems };
+  const banks = readBanks(doc.banks, problems);
+  const withBanks = banks ? { banks } : {};
+  if (doc.equipment.length === 0) return { site: { settings, equipment: [] }, problems, ...withBanks };
   const table = equipmentTable(doc.equipment, problems);
   const parsed = parseEquipmentTable(table, {
     headerRow: 0,
@@ -191,7 +225,7 @@ export function readSiteFile(text: string): { site: Site; problems: Problem[] } 
       p.row === 0 ? { ...withoutRow(p), message: p.message.replace(/^row 0, /, '') } : p,
     ),
   );
-  return { site: { settings, equipment: parsed.equipment }, problems };
+  return { site: { settings, equipment: parsed.equipment }, problems, ...withBanks };
 }
 
 function withoutRow(p: Problem): Problem {
@@ -218,7 +252,15 @@ function rowObject(row: EquipmentRow, cases: readonly string[]): Record<string, 
   return o;
 }
 
-export function writeSiteFile(site: Site): string {
+/** A bank as one line of the file, keys in a fixed order. */
+function bankObject(b: BankChoice): Record<string, string | number> {
+  const o: Record<string, string | number> = { bus: b.bus };
+  for (const k of BANK_KEYS) if (b[k] !== undefined) o[k] = b[k] as number;
+  if (b.note !== undefined) o.note = b.note;
+  return o;
+}
+
+export function writeSiteFile(site: Site, banks?: readonly BankChoice[]): string {
   const s = site.settings;
   const settings: Record<string, unknown> = {
     name: s.name,
@@ -242,5 +284,9 @@ export function writeSiteFile(site: Site): string {
       .join(',\n') +
     '\n  }';
   const rows = site.equipment.map((r) => '    ' + JSON.stringify(rowObject(r, s.cases)));
-  return `{\n  "format": "${SITE_FORMAT}",\n  "version": ${SITE_VERSION},\n  "settings": ${settingsText},\n  "equipment": [\n${rows.join(',\n')}\n  ]\n}\n`;
+  const bankText =
+    banks === undefined
+      ? ''
+      : `,\n  "banks": [\n${banks.map((b) => '    ' + JSON.stringify(bankObject(b))).join(',\n')}\n  ]`;
+  return `{\n  "format": "${SITE_FORMAT}",\n  "version": ${SITE_VERSION},\n  "settings": ${settingsText},\n  "equipment": [\n${rows.join(',\n')}\n  ]${bankText}\n}\n`;
 }

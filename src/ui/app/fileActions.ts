@@ -26,7 +26,10 @@ const REPLACE_NOTE =
 
 /** Workbook → New blank site: settings with defaults and the cautions, empty equipment sheets. */
 export async function newBlankSite(app: FileHost): Promise<void> {
-  await app.replaceWith(blankSiteWorkbook(), 'A new blank site: type equipment on the Motors, Loads … sheets; buses appear as you name them.');
+  await app.replaceWith(
+    blankSiteWorkbook(),
+    'A new blank site: type equipment on the Motors, Loads … sheets; buses appear as you name them.',
+  );
 }
 
 export async function newFromTemplate(app: FileHost): Promise<void> {

@@ -24,7 +24,8 @@ const KIND_CLASS: Readonly<Record<CellKind, string>> = {
   empty: 'kl-empty',
 };
 const ALL_CLASSES = [...Object.values(KIND_CLASS), 'kl-head', 'kl-calc', 'kl-formula', 'kl-override'];
-const OVERRIDE_TITLE = 'Typed over: Kvar Ledger\'s formula is replaced by this value. Clear the cell (Delete) to bring the formula back.';
+const OVERRIDE_TITLE =
+  "Typed over: Kvar Ledger's formula is replaced by this value. Clear the cell (Delete) to bring the formula back.";
 
 export function makeCellRenderer(ctx: RenderContext) {
   return function renderCell(_hot: unknown, td: HTMLTableCellElement, row: number, col: number): void {

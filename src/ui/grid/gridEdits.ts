@@ -146,16 +146,17 @@ export function installEditHandlers(host: EditHost): void {
     const t = target.getTopStartCorner(),
       te = target.getBottomEndCorner();
     const sheet = host.sheetId;
-    const fill = () => session.fill(
-      {
-        start: { sheet, row: s.row ?? 0, col: s.col ?? 0 },
-        end: { sheet, row: se.row ?? 0, col: se.col ?? 0 },
-      },
-      {
-        start: { sheet, row: t.row ?? 0, col: t.col ?? 0 },
-        end: { sheet, row: te.row ?? 0, col: te.col ?? 0 },
-      },
-    );
+    const fill = () =>
+      session.fill(
+        {
+          start: { sheet, row: s.row ?? 0, col: s.col ?? 0 },
+          end: { sheet, row: se.row ?? 0, col: se.col ?? 0 },
+        },
+        {
+          start: { sheet, row: t.row ?? 0, col: t.col ?? 0 },
+          end: { sheet, row: te.row ?? 0, col: te.col ?? 0 },
+        },
+      );
     try {
       fill();
     } catch (e) {

@@ -198,7 +198,8 @@ export class GridView implements EditHost {
   private editorTextFor(row: number, col: number): void {
     if (this.current < 0 || this.hot.getSourceDataAtCell(row, col) !== '') return;
     const content = this.session.cellContent(this.current, row, col);
-    if (typeof content === 'string' && content.startsWith('=')) this.hot.setSourceDataAtCell(row, col, content, 'kl-sync');
+    if (typeof content === 'string' && content.startsWith('='))
+      this.hot.setSourceDataAtCell(row, col, content, 'kl-sync');
   }
 
   select(row: number, col: number, row2 = row, col2 = col): void {

@@ -105,7 +105,12 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
   const voltages = busVoltages(read.site.equipment).voltages;
   for (const bus of buildBusGraph(read.site.equipment.filter((r) => r.bus !== '')).firstRow.keys()) {
     if (voltages.has(bus)) continue;
-    items.push({ severity: 'info', code: 'bus-voltage-unknown', where: `bus ${bus}`, text: `bus ${bus} has no voltage: no row on it states U (kV), so its Compensation row shows U = 0 and no bank there can be checked` });
+    items.push({
+      severity: 'info',
+      code: 'bus-voltage-unknown',
+      where: `bus ${bus}`,
+      text: `bus ${bus} has no voltage: no row on it states U (kV), so its Compensation row shows U = 0 and no bank there can be checked`,
+    });
   }
   let designSkipped: string | undefined;
   if (problems.some((p) => p.severity === 'error')) {

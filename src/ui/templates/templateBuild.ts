@@ -1,6 +1,9 @@
-// A site file's text → its summary for the template list, or a live workbook.
+// A site file's text → its summary for the template list, or a live workbook. A template carries
+// its banks (the design's proposal, kept current by a test), so opening one on a first visit does
+// not download the design; a site file without banks has them proposed on the way.
 import { readSiteFile } from '../../core/site/siteFile.ts';
-import { buildWorkbook } from '../../core/workbook/build.ts';
+import { inputsFromSite } from '../../core/workbook/inputsFromSite.ts';
+import { renderWorkbook } from '../../core/workbook/render.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 
 export interface TemplateInfo {
@@ -24,9 +27,11 @@ export function infoOf(id: string, text: string): TemplateInfo {
   };
 }
 
-export function workbookOf(id: string, text: string): WorkbookDoc {
-  const { site, problems } = readSiteFile(text);
+export async function workbookOf(id: string, text: string): Promise<WorkbookDoc> {
+  const { site, problems, banks } = readSiteFile(text);
   const errors = problems.filter((p) => p.severity === 'error');
-  if (errors.length > 0) throw new Error(`template "${id}" has problems: ${errors.slice(0, 3).map((p) => p.message).join('; ')}`);
-  return buildWorkbook(site, { flavour: 'live' });
+  if (errors.length > 0)
+    throw new Error(`template "${id}" has problems: ${errors.slice(0, 3).map((p) => p.message).join('; ')}`);
+  const chosen = banks ?? (await import('../../core/site/compensation.ts')).proposeChoices(site);
+  return renderWorkbook(inputsFromSite(site, chosen), { flavour: 'live' }).doc;
 }

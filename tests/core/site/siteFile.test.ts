@@ -30,11 +30,11 @@ describe('templates', () => {
   for (const name of TEMPLATES) {
     it(`${name}: valid, two or more cases, written back unchanged, one equipment row per line`, () => {
       const t = text(name);
-      const { site, problems } = readSiteFile(t);
+      const { site, problems, banks } = readSiteFile(t);
       expect(problems).toEqual([]);
       expect(validateSite(site)).toEqual([]);
       expect(site.settings.cases.length).toBeGreaterThanOrEqual(2);
-      expect(writeSiteFile(site)).toBe(t);
+      expect(writeSiteFile(site, banks)).toBe(t);
       const rowLines = t.split('\n').filter((l) => l.trimStart().startsWith('{"tag"'));
       expect(rowLines).toHaveLength(site.equipment.length);
       expect(site.settings.notes?.some((n) => /licensed engineer/.test(n))).toBe(true);
