@@ -3,6 +3,7 @@
 // and the column of the client's file. Nothing here changes the open workbook.
 import type { EquipmentRow, Site, SiteSettings } from '../../core/site/model.ts';
 import { DEFAULT_CASE, parseEquipmentTable } from '../../core/site/parse.ts';
+import { nameTable } from '../../core/text/nameTable.ts';
 import { describeWhere, problem, type Problem } from '../../core/site/problems.ts';
 import { mergeProblems, validateSite } from '../../core/site/validate.ts';
 import type { ColumnMapping, MappingProposal } from './mapping.ts';
@@ -63,7 +64,7 @@ function canonicalTable(
   const fileRows: number[] = [];
   p.table.rows.slice(p.headerRow).forEach((raw, k) => {
     const out: string[] = [];
-    const shown: Record<string, string | number | null> = {};
+    const shown = nameTable<string | number | null>();
     for (const c of mapped) {
       const r = readCell(raw[c.index] ?? null, c.target as string, c.unit, p.table.decimalComma);
       const text = r.kind === 'blank' ? '' : r.kind === 'number' ? String(r.value) : r.text;
