@@ -3,13 +3,9 @@
 // not "History" (reserved in xlsx), unique ignoring case; and no character an xlsx file cannot
 // hold at all (control characters, a half of a surrogate pair, U+FFFE, U+FFFF).
 
+import { unstorableCharacter } from '../../core/text/storable.ts';
+
 export const MAX_SHEET_NAME = 31;
-
-/** Control characters, unpaired surrogates and the two non-characters XML 1.0 cannot hold. */
-const UNSTORABLE =
-  /[\u0000-\u001F\u007F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
-
-const codeOf = (ch: string) => (ch.codePointAt(0) ?? 0).toString(16).toUpperCase().padStart(4, '0');
 
 /** Returns a message saying what is wrong, or undefined when the name is fine. */
 export function sheetNameProblem(
@@ -24,9 +20,9 @@ export function sheetNameProblem(
     return `A sheet name can have at most ${MAX_SHEET_NAME} characters; this one has ${name.length}.`;
   const bad = /[:\\/?*[\]]/.exec(name);
   if (bad) return `A sheet name cannot contain the character ${bad[0]}`;
-  const unstorable = UNSTORABLE.exec(name);
+  const unstorable = unstorableCharacter(name);
   if (unstorable)
-    return `A sheet name cannot contain the character U+${codeOf(unstorable[0])} (a control or unpaired character that files cannot hold).`;
+    return `A sheet name cannot contain the character ${unstorable} (a control or unpaired character that files cannot hold).`;
   if (name.toLowerCase() === 'history')
     return 'A sheet cannot be called "History": spreadsheet files reserve that name.';
   if (name.startsWith("'") || name.endsWith("'"))
