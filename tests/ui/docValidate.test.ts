@@ -68,6 +68,9 @@ describe('sheet names', () => {
     // A character outside the basic plane (a surrogate pair) is fine.
     expect(sheetNameProblem('Pumps \u{1F6B0}', [])).toBeUndefined();
     expect(sheetNameProblem('__proto__', [])).toBeUndefined();
+    expect(sheetNameProblem('007', [])).toMatch(/cannot start with a digit/);
+    expect(sheetNameProblem('2nd floor', [])).toMatch(/"Floor 2nd floor"/);
+    expect(sheetNameProblem('Floor 2', [])).toBeUndefined();
   });
   it('proposes a name that does not clash', () => {
     expect(freshSheetName(['Site', 'Sheet 3'])).toBe('Sheet 4');
