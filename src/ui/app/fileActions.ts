@@ -5,6 +5,7 @@ import { el } from '../dom.ts';
 import { confirmDialog, openDialog } from '../dialogs/dialog.ts';
 import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from '../storage/nativeFile.ts';
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
+import { loadSetAside } from '../storage/storedSlots.ts';
 import type { App } from './app.ts';
 import { toResult } from '../../engine/index.ts';
 
@@ -93,7 +94,7 @@ export function saveFile(app: App): void {
 
 /** Swap the open workbook with the one set aside when it was last replaced. */
 export async function bringBack(app: App): Promise<void> {
-  const aside = await app.store?.loadSetAside();
+  const aside = app.store && (await loadSetAside(app.store));
   if (!aside) {
     app.status.show('No workbook has been replaced in this browser yet.');
     return;
