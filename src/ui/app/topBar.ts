@@ -2,18 +2,10 @@
 // switches for the side panel and the about box.
 import { el, svg } from '../dom.ts';
 import { menuButton } from '../menu.ts';
-import { openAbout } from '../dialogs/about.ts';
 import { deleteRows, fillDown, insertRows } from '../grid/gridMenu.ts';
 import type { App } from './app.ts';
-import {
-  bringBack,
-  exportXlsx,
-  importEquipmentList,
-  newFromTemplate,
-  openFile,
-  saveFile,
-} from './fileActions.ts';
 import type { PanelName } from './sidePanel.ts';
+import { bringBackCopyCommand, fileCommand, showAbout } from './lazyCommands.ts';
 
 function mark(): SVGSVGElement {
   // Our mark: a right triangle (P along, Q up) with its hypotenuse, in two strokes.
@@ -47,26 +39,46 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
   const workbook = menuButton(
     'Workbook',
     [
-      { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
-      { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
-      { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
+      {
+        label: 'New from template…',
+        run: fileCommand(app, (m) => m.newFromTemplate(app)),
+        testId: 'menu-template',
+      },
+      {
+        label: 'Open file…',
+        hint: '.kvar.json .xlsx',
+        run: fileCommand(app, (m) => m.openFile(app)),
+        testId: 'menu-open',
+      },
+      {
+        label: 'Save file',
+        hint: 'Ctrl+S',
+        run: fileCommand(app, (m) => m.saveFile(app)),
+        testId: 'menu-save',
+      },
       {
         label: 'Bring back the replaced workbook…',
-        run: () => void bringBack(app),
+        run: fileCommand(app, (m) => m.bringBack(app)),
         testId: 'menu-bring-back',
+        enabled: () => app.store !== undefined,
+      },
+      {
+        label: 'Bring back a copy from another tab…',
+        run: bringBackCopyCommand(app),
+        testId: 'menu-bring-copy',
         enabled: () => app.store !== undefined,
       },
       'separator',
       {
         label: 'Import equipment list…',
         hint: '.xlsx .csv',
-        run: () => void importEquipmentList(app),
+        run: fileCommand(app, (m) => m.importEquipmentList(app)),
         testId: 'menu-import',
       },
       {
         label: 'Export for other spreadsheet programs',
         hint: '.xlsx',
-        run: () => void exportXlsx(app),
+        run: fileCommand(app, (m) => m.exportXlsx(app)),
         testId: 'menu-export',
       },
     ],
@@ -120,7 +132,7 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
     text: 'About & cautions',
     attrs: { type: 'button', 'data-testid': 'about-open' },
   });
-  about.addEventListener('click', () => openAbout(app.catalogueSize()));
+  about.addEventListener('click', () => showAbout(app.catalogueSize()));
   const root = el('header', { className: 'kl-top' }, [
     el('div', { className: 'kl-brand' }, [
       mark(),
