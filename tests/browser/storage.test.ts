@@ -69,6 +69,28 @@ describe('edits made just before the page goes away', () => {
   });
 });
 
+describe('edits made just before the tab is closed', () => {
+  it('are kept, 10 closes out of 10', async () => {
+    browser = await launch();
+    let page = browser.page;
+    await openApp(page, server.url);
+    await addSheet(page, 'Scratch');
+    await saved(page);
+    const kept: boolean[] = [];
+    for (let i = 1; i <= 10; i++) {
+      const value = String(2000 + i);
+      await typeInCell(page, i % 4, 1, value);
+      // Closed straight after Enter, without the "leave the page?" step.
+      await page.close();
+      page = await browser.context.newPage();
+      await openApp(page, server.url);
+      await openSheet(page, 'Scratch');
+      kept.push((await cellText(page, i % 4, 1)) === value);
+    }
+    expect(kept.filter(Boolean)).toHaveLength(10);
+  });
+});
+
 describe('two tabs on one workbook', () => {
   it('the later tab works on a copy, with a notice, and neither overwrites the other', async () => {
     browser = await launch();
