@@ -1,5 +1,6 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
+import { DEV_HEADERS, HOST_HEADERS } from './src/host/headers.ts';
 
 // One config for the app build and the three test suites.
 // unit: needs nothing beyond `npm install`; browser and crossengine need Debian's
@@ -28,6 +29,9 @@ export default defineConfig({
       },
     ],
   },
+  // Response headers the page relies on (framing, type sniffing; see src/host/headers.ts).
+  preview: { headers: { ...HOST_HEADERS } },
+  server: { headers: { ...DEV_HEADERS } },
   build: {
     target: 'es2022',
     chunkSizeWarningLimit: 2000,

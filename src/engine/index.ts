@@ -3,6 +3,7 @@
 import { DetailedCellError, HyperFormula } from 'hyperformula';
 import type { CellValue, ConfigParams, SerializedNamedExpression } from 'hyperformula';
 import type { CellContent } from '../core/workbook/document.ts';
+import { nameTable } from '../core/text/nameTable.ts';
 import { ENGINE_LANGUAGE, engineConfig } from './config.ts';
 import { registerCataloguePlugin, registerOwnPlugin, standardPlugins, type OwnPlugin } from './plugins.ts';
 import { BUS_ROLLUP_PLUGIN } from './rollupPlugin.ts';
@@ -40,7 +41,8 @@ function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): Hy
   const names = BOOLEAN_NAMES.map((n) => ({ ...n }));
   if (sheets.length === 0) return HyperFormula.buildEmpty(config, names);
   const seen = new Map<string, string>();
-  const data: Record<string, CellContent[][]> = {};
+  // Keyed by sheet name: no prototype, so a sheet may be called "__proto__" like any other.
+  const data = nameTable<CellContent[][]>();
   for (const s of sheets) {
     const key = s.name.toLowerCase();
     const earlier = seen.get(key);

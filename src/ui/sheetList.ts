@@ -1,7 +1,8 @@
 // The sheet index on the left: every sheet of the workbook as a tab, with add, rename and delete.
 // Deleting asks first and can be undone.
 import { el } from './dom.ts';
-import { confirmDialog, promptDialog } from './dialogs/dialog.ts';
+// The dialogs load on first use (they are not needed to show the page).
+const dialogs = () => import('./dialogs/dialog.ts');
 import type { WorkbookSession } from './model/session.ts';
 import { freshSheetName, sheetNameProblem } from './model/sheetNames.ts';
 
@@ -104,6 +105,7 @@ export class SheetList {
   async add(): Promise<void> {
     const { session } = this.host;
     const names = session.sheetNames();
+    const { promptDialog } = await dialogs();
     const name = await promptDialog('Add a sheet', 'Name of the new sheet', freshSheetName(names), (v) =>
       sheetNameProblem(v, names),
     );
@@ -123,6 +125,7 @@ export class SheetList {
     }
     const current = session.sheetName(id);
     const names = session.sheetNames();
+    const { promptDialog } = await dialogs();
     const name = await promptDialog(`Rename "${current}"`, 'New name', current, (v) =>
       sheetNameProblem(v, names, current),
     );
@@ -146,6 +149,7 @@ export class SheetList {
       return;
     }
     const filled = session.sheetContents(id).reduce((n, r) => n + r.filter((c) => c !== null).length, 0);
+    const { confirmDialog } = await dialogs();
     const ok = await confirmDialog(
       `Delete sheet "${name}"?`,
       [

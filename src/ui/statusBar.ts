@@ -11,6 +11,8 @@ export class StatusBar {
   readonly errors: HTMLButtonElement;
   private readonly notice: HTMLElement;
   private noticeTimer: ReturnType<typeof setTimeout> | undefined;
+  /** This tab works on a copy of the workbook (another tab has it open). */
+  private copy = false;
 
   constructor(onNextError: () => void, onCautions: () => void) {
     this.save = el('span', {
@@ -45,12 +47,21 @@ export class StatusBar {
     ]);
   }
 
+  /** Say from now on that this tab saves a copy, not the workbook another tab has open. */
+  copyMode(on: boolean): void {
+    this.copy = on;
+    this.save.classList.toggle('is-copy', on);
+    if (on) this.save.textContent = 'Working on a copy';
+  }
+
   saveStatus(s: AutosaveStatus): void {
     this.save.classList.remove('is-failed', 'is-pending');
     if (s.state === 'saved') {
-      this.save.textContent = `Saved in this browser ${new Date(s.savedAt).toLocaleTimeString()}`;
-      this.save.title =
-        'Every change is kept in this browser and restored when you come back. Save a file to keep a copy elsewhere.';
+      const at = new Date(s.savedAt).toLocaleTimeString();
+      this.save.textContent = this.copy ? `Copy saved in this browser ${at}` : `Saved in this browser ${at}`;
+      this.save.title = this.copy
+        ? 'Another tab has this workbook open; this tab’s changes are kept apart as a copy (Workbook → Bring back a copy from another tab…). Save a file to keep it elsewhere.'
+        : 'Every change is kept in this browser and restored when you come back. Save a file to keep a copy elsewhere.';
     } else if (s.state === 'failed') {
       this.save.classList.add('is-failed');
       this.save.textContent = 'NOT SAVED';

@@ -1,5 +1,5 @@
 // Shared set-up for the browser tests: build the app with Vite, serve dist/ on 127.0.0.1 with a
-// tiny static server, and drive Debian's chromium through playwright-core with a fresh profile.
+// tiny static server (sending the headers a host must send), and drive Debian's chromium through playwright-core with a fresh profile.
 import { createServer, type Server } from 'node:http';
 import { mkdtemp, readFile, rm, mkdir } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -7,6 +7,7 @@ import { extname, join, normalize, resolve } from 'node:path';
 import type { AddressInfo } from 'node:net';
 import { build } from 'vite';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { HOST_HEADERS } from '../../src/host/headers.ts';
 
 export const ROOT = resolve(import.meta.dirname, '../..');
 export const DIST = join(ROOT, 'dist');
@@ -35,6 +36,7 @@ export async function serve(dir = DIST): Promise<{ url: string; close(): Promise
     try {
       const body = await readFile(file);
       res.writeHead(200, {
+        ...HOST_HEADERS,
         'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
         'cache-control': 'no-store',
       });

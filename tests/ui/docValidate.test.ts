@@ -59,6 +59,19 @@ describe('sheet names', () => {
     expect(sheetNameProblem('Site', ['Site'], 'Site')).toBeUndefined();
     expect(sheetNameProblem("'quoted'", [])).toMatch(/apostrophe/);
   });
+  it('refuses names an xlsx file cannot carry back, saying which character', () => {
+    expect(sheetNameProblem('History', [])).toMatch(/reserve/);
+    expect(sheetNameProblem('history', [])).toMatch(/reserve/);
+    expect(sheetNameProblem('a\u0007b', [])).toMatch(/U\+0007/);
+    expect(sheetNameProblem('a\uD800', [])).toMatch(/U\+D800/);
+    expect(sheetNameProblem('\uFFFF', [])).toMatch(/U\+FFFF/);
+    // A character outside the basic plane (a surrogate pair) is fine.
+    expect(sheetNameProblem('Pumps \u{1F6B0}', [])).toBeUndefined();
+    expect(sheetNameProblem('__proto__', [])).toBeUndefined();
+    expect(sheetNameProblem('007', [])).toMatch(/cannot start with a digit/);
+    expect(sheetNameProblem('2nd floor', [])).toMatch(/"Floor 2nd floor"/);
+    expect(sheetNameProblem('Floor 2', [])).toBeUndefined();
+  });
   it('proposes a name that does not clash', () => {
     expect(freshSheetName(['Site', 'Sheet 3'])).toBe('Sheet 4');
     expect(freshSheetName(['Site', 'Sheet 2'])).toBe('Sheet 3');

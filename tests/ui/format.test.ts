@@ -75,6 +75,7 @@ describe('addresses', () => {
 });
 
 import { contentOf, editText, typedContent } from '../../src/ui/model/typedInput.ts';
+import { createWorkbookEngine } from '../../src/ui/model/engineBridge.ts';
 
 describe('typed input', () => {
   it('reads numbers, booleans, formulas and text', () => {
@@ -86,8 +87,30 @@ describe('typed input', () => {
     expect(typedContent('=KVA.TOTAL(3,4)')).toBe('=KVA.TOTAL(3,4)');
     expect(typedContent('M-101')).toBe('M-101');
     expect(typedContent('1,5')).toBe('1,5');
-    expect(typedContent("'007")).toBe('007');
     expect(typedContent('=')).toBe('=');
+  });
+  it('enters text after a leading apostrophe, keeping the mark only where the engine needs it', () => {
+    expect(typedContent("'=1+1")).toBe("'=1+1");
+    expect(typedContent("'007")).toBe("'007");
+    expect(typedContent("'TRUE")).toBe("'TRUE");
+    expect(typedContent("''x")).toBe("''x");
+    expect(typedContent("'Pump 1")).toBe('Pump 1');
+    // Pasted text goes the same way.
+    expect(contentOf("'=1+1")).toBe("'=1+1");
+  });
+  it('shows text entered with an apostrophe as that text (the engine reads the content)', () => {
+    const typed = ["'=1+1", "'007", "'TRUE", "'1/2/2020", "'#N/A", "''x", "'Pump 1"];
+    const hf = createWorkbookEngine([{ name: 'S', cells: [typed.map((t) => typedContent(t))] }]);
+    expect(typed.map((_, col) => hf.getCellValue({ sheet: 0, row: 0, col }))).toEqual([
+      '=1+1',
+      '007',
+      'TRUE',
+      '1/2/2020',
+      '#N/A',
+      "'x",
+      'Pump 1',
+    ]);
+    hf.destroy();
   });
   it('keeps what other values are', () => {
     expect(contentOf(undefined)).toBeNull();
@@ -95,9 +118,14 @@ describe('typed input', () => {
     expect(contentOf(false)).toBe(false);
   });
   it('gives editor text that reads back to the same content', () => {
-    for (const c of ['007', 'TRUE', 'M-101', '=SUM(A1:A3)', 42, true, null, ' padded'] as const) {
-      expect(typedContent(editText(c))).toBe(c === ' padded' ? ' padded' : c);
+    for (const c of ["'007", "'TRUE", "'=1+1", 'M-101', '=SUM(A1:A3)', 42, true, null, ' padded'] as const) {
+      expect(typedContent(editText(c))).toBe(c);
     }
+  });
+  it('gives unmarked text that would read as something else its apostrophe in the editor', () => {
+    expect(editText('007')).toBe("'007");
+    expect(editText('TRUE')).toBe("'TRUE");
+    expect(editText("'007")).toBe("'007");
   });
 });
 

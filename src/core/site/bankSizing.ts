@@ -23,6 +23,7 @@ import {
 } from './bankRules.ts';
 import { installedCapacitorKvar, motorCapacitorLimit, soleMotorOf } from './installedChecks.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
+import { entryOf, nameTable } from '../text/nameTable.ts';
 
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
@@ -203,8 +204,8 @@ export function sizeBank(
       ),
     );
   }
-  const stepsIn: Record<string, number> = {};
-  for (const c of site.settings.cases) stepsIn[c] = stepsFor(share[c] ?? 0, fixed, step, steps);
+  const stepsIn = nameTable<number>();
+  for (const c of site.settings.cases) stepsIn[c] = stepsFor(entryOf(share, c) ?? 0, fixed, step, steps);
   const bank: BankDesign = {
     bus,
     u_kv: uKv,
@@ -250,12 +251,12 @@ export function bankRows(
       bus: bank.bus,
       kind: 'capacitor',
       values: { q_kvar: bank.fixed_rated_kvar, ...common },
-      loads: {},
+      loads: nameTable<number>(),
     });
   }
   if (bank.steps > 0) {
-    const loads: Record<string, number> = {};
-    for (const c of cases) loads[c] = (bank.steps_in[c] ?? 0) / bank.steps;
+    const loads = nameTable<number>();
+    for (const c of cases) loads[c] = (entryOf(bank.steps_in, c) ?? 0) / bank.steps;
     rows.push({
       row: firstRow + rows.length,
       tag: `${tagBase}-S`,

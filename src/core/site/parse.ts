@@ -12,6 +12,7 @@ import {
 } from './model.ts';
 import { error, say, warning, type Problem } from './problems.ts';
 import { unifyBusNames } from './busNames.ts';
+import { nameTable } from '../text/nameTable.ts';
 
 /** Name of the case driven by the plain `load` column when the source does not name it. */
 export const DEFAULT_CASE = 'normal';
@@ -174,7 +175,7 @@ function readRow(
 ): EquipmentRow | undefined {
   const text: Partial<Record<TextColumn, string>> = {};
   const values: Partial<Record<NumericColumn, number>> = {};
-  const loads: Record<string, number> = {};
+  const loads = nameTable<number>();
   cells.forEach((cell, i) => {
     const role = roles[i];
     if (!role) {

@@ -71,6 +71,8 @@ export const say = {
   unknownColumn: (name: string) => `unknown column ${given(name)} is ignored`,
   duplicateColumn: (name: string, first: number) =>
     `column ${given(name)} appears twice (also column ${first}); the second is ignored`,
+  unstorable: (what: string, code: string) =>
+    `${what} contains the character ${code} (a control or unpaired character), which spreadsheet files cannot carry; remove it`,
   outOfRange: (what: string, range: string, value: number) =>
     `${what} must be ${range}; got ${formatNumber(value)}`,
 } as const;

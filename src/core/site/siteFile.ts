@@ -21,6 +21,7 @@ import { CASE_PREFIX, parseEquipmentTable } from './parse.ts';
 import type { BankChoice } from './bankChoice.ts';
 import { error, type Problem } from './problems.ts';
 import { jsonErrorOffset, lineAndCharacter } from './jsonWhere.ts';
+import { entryOf } from '../text/nameTable.ts';
 
 export const SITE_FORMAT = 'kvar-ledger-site';
 export const SITE_VERSION = 1;
@@ -130,7 +131,7 @@ function equipmentTable(items: readonly Json[], problems: Problem[]): string[][]
   });
   const rows = items.map((it, i) =>
     header.map((k) => {
-      const v = isObject(it) ? it[k] : undefined;
+      const v = isObject(it) ? entryOf(it, k) : undefined;
       if (v === undefined || v === null) return '';
       if (typeof v === 'number' || typeof v === 'string') return String(v);
       problems.push(error({ row: i + 1, column: k }, `must be a number or text; got ${JSON.stringify(v)}`));
@@ -246,7 +247,7 @@ function rowObject(row: EquipmentRow, cases: readonly string[]): Record<string, 
   }
   const names = [...cases, ...Object.keys(row.loads).filter((c) => !cases.includes(c))];
   for (const c of names) {
-    const v = row.loads[c];
+    const v = entryOf(row.loads, c);
     if (v !== undefined) o[CASE_PREFIX + c] = v;
   }
   return o;

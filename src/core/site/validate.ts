@@ -9,6 +9,7 @@ import { buildBusGraph } from './graph.ts';
 import { error, info, say, warning, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
 import { formatNumber } from '../registry/messages.ts';
+import { unstorableCharacter } from '../text/storable.ts';
 
 export function validateSite(site: Site): Problem[] {
   const problems: Problem[] = [];
@@ -42,8 +43,13 @@ function validateSettings(site: Site): Problem[] {
     out.push(error({ column: 'hz' }, `settings: frequency must be 50 or 60 Hz; got ${String(s.hz)}`));
   if (s.cases.length === 0) out.push(error({}, 'settings: at least one operating case is needed'));
   const seen = new Set<string>();
+  const bad = unstorableCharacter(s.name);
+  if (bad) out.push(error({}, `settings: ${say.unstorable('the site name', bad)}`));
   for (const c of s.cases) {
     if (c.trim() === '') out.push(error({}, 'settings: a case name is blank'));
+    const badCase = unstorableCharacter(c);
+    if (badCase)
+      out.push(error({}, `settings: ${say.unstorable(`case name ${JSON.stringify(c)}`, badCase)}`));
     if (seen.has(c)) out.push(error({}, `settings: case "${c}" is listed twice`));
     seen.add(c);
   }
@@ -69,6 +75,10 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
   const at = (column: string) => ({ row: row.row, column, ...(row.tag ? { tag: row.tag } : {}) });
   if (row.tag === '') out.push(error(at('tag'), say.missingTag()));
   if (row.bus === '') out.push(error(at('bus'), say.missingBus()));
+  for (const key of ['tag', 'bus', 'to_bus', 'description'] as const) {
+    const bad = unstorableCharacter(row[key] ?? '');
+    if (bad) out.push(error(at(key), say.unstorable(key, bad)));
+  }
   const kind = findKind(row.kind);
   if (!kind) {
     out.push(error(at('kind'), say.unknownKind(String(row.kind), kindNames())));

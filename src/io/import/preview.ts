@@ -3,7 +3,9 @@
 // and the column of the client's file. Nothing here changes the open workbook.
 import type { EquipmentRow, Site, SiteSettings } from '../../core/site/model.ts';
 import { DEFAULT_CASE, parseEquipmentTable } from '../../core/site/parse.ts';
-import { describeWhere, problem, type Problem } from '../../core/site/problems.ts';
+import { nameTable } from '../../core/text/nameTable.ts';
+import { describeWhere, given, problem, type Problem } from '../../core/site/problems.ts';
+import { neutraliseText } from '../csv/write.ts';
 import { mergeProblems, validateSite } from '../../core/site/validate.ts';
 import type { ColumnMapping, MappingProposal } from './mapping.ts';
 import { readCell } from './values.ts';
@@ -63,7 +65,7 @@ function canonicalTable(
   const fileRows: number[] = [];
   p.table.rows.slice(p.headerRow).forEach((raw, k) => {
     const out: string[] = [];
-    const shown: Record<string, string | number | null> = {};
+    const shown = nameTable<string | number | null>();
     for (const c of mapped) {
       const r = readCell(raw[c.index] ?? null, c.target as string, c.unit, p.table.decimalComma);
       const text = r.kind === 'blank' ? '' : r.kind === 'number' ? String(r.value) : r.text;
@@ -102,6 +104,31 @@ function settingsWith(base: SiteSettings, cases: readonly string[]): SiteSetting
   return { ...base, cases: all };
 }
 
+/**
+ * Text that a spreadsheet program would run as a formula (the CSV writer's rule: a leading = + -
+ * @, tab or carriage return, unless it is a plain number). It is imported as text and never
+ * run; the preview points it out so the user sees what the client's file held.
+ */
+function formulaLookalikes(
+  cells: ReadonlyArray<Readonly<Record<string, string | number | null>>>,
+  fileRows: readonly number[],
+): Problem[] {
+  const out: Problem[] = [];
+  cells.forEach((c, k) => {
+    for (const [target, v] of Object.entries(c)) {
+      if (typeof v !== 'string' || neutraliseText(v) === v) continue;
+      out.push(
+        problem(
+          'warning',
+          { row: fileRows[k] as number, column: target },
+          `${given(v)} looks like a formula; it is imported as text and never run`,
+        ),
+      );
+    }
+  });
+  return out;
+}
+
 /** Convert, parse and check the table under a mapping. */
 export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): ImportPreview {
   const base = opts.settings ?? DEFAULT_IMPORT_SETTINGS;
@@ -115,7 +142,9 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
   const settings = settingsWith(base, parsed.cases);
   const site: Site = { settings, equipment: parsed.equipment };
   const validated = parsed.equipment.length > 0 ? validateSite(site) : [];
-  const problems = mergeProblems(parsed.problems, validated).map((x) => inFileTerms(x, byTarget));
+  const problems = mergeProblems(parsed.problems, [...validated, ...formulaLookalikes(cells, fileRows)]).map(
+    (x) => inFileTerms(x, byTarget),
+  );
   const worst = new Map<number, 'warning' | 'error'>();
   for (const x of problems) {
     if (x.row === undefined || x.severity === 'info') continue;

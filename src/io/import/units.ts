@@ -1,5 +1,6 @@
 // Units an imported column may be written in, and the factor that brings them to the unit of the
 // interchange column they feed (kW, kvar, kVA, kV, km, µF/km, nF/km, mH/km, fraction, %).
+import { entryOf } from '../../core/text/nameTable.ts';
 import { CASE_PREFIX } from '../../core/site/parse.ts';
 
 export type Dimension =
@@ -145,7 +146,7 @@ const TARGET_UNIT: Readonly<Record<string, readonly [Dimension, string]>> = {
 
 export function dimensionOf(target: string): Dimension {
   if (target.startsWith(CASE_PREFIX)) return 'fraction';
-  return TARGET_UNIT[target]?.[0] ?? 'text';
+  return entryOf(TARGET_UNIT, target)?.[0] ?? 'text';
 }
 
 function factorIn(dim: Dimension, label: string): number | undefined {
@@ -157,7 +158,7 @@ function factorIn(dim: Dimension, label: string): number | undefined {
 export function unitChoicesFor(target: string): UnitChoice[] {
   const dim = dimensionOf(target);
   if (dim === 'text' || dim === 'count') return [{ label: '', factor: 1 }];
-  const own = target.startsWith(CASE_PREFIX) ? '' : (TARGET_UNIT[target]?.[1] ?? '');
+  const own = target.startsWith(CASE_PREFIX) ? '' : (entryOf(TARGET_UNIT, target)?.[1] ?? '');
   const base = factorIn(dim, own) ?? 1;
   const all = UNITS[dim].map(([label, f]) => ({ label, factor: f / base }));
   return [...all.filter((u) => u.label === own), ...all.filter((u) => u.label !== own)];
@@ -165,13 +166,13 @@ export function unitChoicesFor(target: string): UnitChoice[] {
 
 /** The choice for a unit label (as spelled in a header or picked by the user), if it fits the target. */
 export function unitFor(target: string, label: string): UnitChoice | undefined {
-  const canonical = SPELLINGS[label.trim().toLowerCase()] ?? label.trim();
+  const canonical = entryOf(SPELLINGS, label.trim().toLowerCase()) ?? label.trim();
   return unitChoicesFor(target).find((u) => u.label === canonical);
 }
 
 /** A header's unit spelling → the dimension it belongs to (first match), for guessing a target. */
 export function dimensionOfUnit(spelling: string): Dimension | undefined {
-  const label = SPELLINGS[spelling.trim().toLowerCase()];
+  const label = entryOf(SPELLINGS, spelling.trim().toLowerCase());
   if (label === undefined) return undefined;
   for (const [dim, list] of Object.entries(UNITS) as Array<
     [Dimension, ReadonlyArray<readonly [string, number]>]
@@ -182,7 +183,7 @@ export function dimensionOfUnit(spelling: string): Dimension | undefined {
 }
 
 export function isKnownUnitSpelling(text: string): boolean {
-  return SPELLINGS[text.trim().toLowerCase()] !== undefined;
+  return entryOf(SPELLINGS, text.trim().toLowerCase()) !== undefined;
 }
 
 /** The target's own unit label, e.g. 'kW' for p_kw, '' for a fraction. */

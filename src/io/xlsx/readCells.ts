@@ -2,6 +2,7 @@
 // a formula starting with '='), and as the fingerprint compares them.
 import type { Cell, Worksheet } from 'exceljs';
 import type { CellContent } from '../../core/workbook/document.ts';
+import { textContent } from '../../core/text/cellText.ts';
 import { fromFileFormula } from './functionNames.ts';
 import type { FingerprintCell } from './metadata.ts';
 
@@ -70,8 +71,9 @@ export function readCell(cell: Cell, col: number, date1904: boolean): ReadCell {
     default: {
       const text = textOf(cell.value);
       if (text === '') return { content: null, print: undefined };
-      // Text that looks like a formula stays text: the leading apostrophe says so to the engine.
-      return { content: text.startsWith('=') ? `'${text}` : text, print: { col, value: text } };
+      // Text stays text: where the engine would read it as a formula, number, date or truth
+      // value ("=1+1", "007", "TRUE"), the leading apostrophe says so (core/text/cellText.ts).
+      return { content: textContent(text), print: { col, value: text } };
     }
   }
 }

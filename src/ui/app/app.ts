@@ -12,10 +12,11 @@ import { WorkbookSession, SessionError } from '../model/session.ts';
 import { FunctionReference } from '../panels/functionReference.ts';
 import { SheetList } from '../sheetList.ts';
 import { StatusBar } from '../statusBar.ts';
-import { Autosaver } from '../storage/autosave.ts';
 import type { WorkbookStore } from '../storage/idbStore.ts';
+import type { TabStorage } from '../storage/tabStorage.ts';
+import { Keeping } from './keeping.ts';
 import { SidePanel } from './sidePanel.ts';
-import { openAbout } from '../dialogs/about.ts';
+import { showAbout } from './lazyCommands.ts';
 import { buildTopBar } from './topBar.ts';
 import { selectionNumbers } from './sheetScan.ts';
 import { ErrorTracker } from './errorTracker.ts';
@@ -36,7 +37,7 @@ export class App {
   private readonly gridHost: HTMLElement;
   private readonly caption: HTMLElement;
   private readonly titleInput: HTMLInputElement;
-  private autosaver: Autosaver | undefined;
+  private readonly keeping: Keeping;
   private sheet = -1;
   private lastSelection: Selection | undefined;
   private scanQueued: ReturnType<typeof setTimeout> | undefined;
@@ -46,6 +47,8 @@ export class App {
     readonly root: HTMLElement,
     readonly store: WorkbookStore | undefined,
     standardNames: readonly string[],
+    /** Where this tab saves (the workbook's slot, or a copy when another tab has it open). */
+    readonly storage?: TabStorage,
   ) {
     const app = this; // eslint-disable-line @typescript-eslint/no-this-alias -- getters below read the current session
     this.assist = new FormulaAssist(standardNames, (f) => this.formulaBar.mirror(f.value));
@@ -68,7 +71,7 @@ export class App {
     });
     this.status = new StatusBar(
       () => this.nextError(),
-      () => openAbout(CATALOGUE.length),
+      () => showAbout(CATALOGUE.length),
     );
     this.reference = new FunctionReference({
       session: () => this.session,
@@ -90,17 +93,12 @@ export class App {
       ]),
       this.status.root,
     );
-    if (store) {
-      this.autosaver = new Autosaver(store, () => this.session.toDoc(), {
-        onStatus: (s) => this.status.saveStatus(s),
-      });
-    } else {
-      this.status.saveStatus({
-        state: 'failed',
-        message:
-          'Browser storage is not available here, so changes are NOT kept when the page closes. Save the workbook to a file to keep it.',
-      });
-    }
+    this.keeping = new Keeping(
+      store,
+      storage,
+      () => this.session.toDoc(),
+      (st) => this.status.saveStatus(st),
+    );
   }
 
   /** Show a workbook in place of the current one. `changed`: save it right away (a new workbook). */
@@ -122,6 +120,8 @@ export class App {
       onNotice: (t) => this.status.show(t),
     });
     next.onChange((c) => {
+      // First of all, the edit goes to the journal in the browser store (the write is issued here).
+      this.keeping.edited(c, next);
       if (c.kind !== 'cells' && c.kind !== 'title') this.errors?.invalidate();
       if (c.kind === 'sheets' || c.kind === 'history') this.afterSheetsChange();
       if (c.kind === 'title') this.titleInput.value = next.title;
@@ -129,7 +129,6 @@ export class App {
       this.queueScan();
       this.charts?.update(next);
       this.checks?.update(next);
-      this.autosaver?.changed();
     });
     this.titleInput.value = next.title;
     this.sheet = -1;
@@ -138,7 +137,7 @@ export class App {
     this.checks?.update(next);
     if (this.side.shown === 'functions') this.reference.refresh();
     if (opts.note) this.status.show(opts.note, 'info', 10_000);
-    if (opts.changed) this.autosaver?.changed();
+    this.keeping.opened(next, opts.changed === true);
   }
 
   /**
@@ -263,9 +262,24 @@ export class App {
     this.formulaBar.begin(text);
   }
 
-  /** Flush pending autosave (page hidden or closing). */
+  /** Save what is pending and wait for it (before the workbook is replaced). */
   flush(): Promise<void> {
-    return this.autosaver?.flush() ?? Promise.resolve();
+    return this.keeping.flush();
+  }
+
+  /** The page is being hidden or closed: issue the pending save now, synchronously. */
+  flushNow(): void {
+    this.keeping.flushNow();
+  }
+
+  /** The browser storage was closed for a newer page: say so, and keep saying it. */
+  storeClosed(message: string): void {
+    this.keeping.storeClosed(message);
+  }
+
+  /** Would closing the page now lose a change? (The page then asks before it closes.) */
+  get unsafeToClose(): boolean {
+    return this.keeping.unsafeToClose;
   }
 
   /** The error count: kept current from the engine's changes; a full scan waits for a pause. */

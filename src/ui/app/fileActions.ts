@@ -7,6 +7,7 @@ import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from 
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
 import { blankSiteWorkbook } from '../../core/workbook/blankSite.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import { loadSetAside } from '../storage/storedSlots.ts';
 import { toResult } from '../../engine/index.ts';
 import type { ImportHost } from '../import/importDialog.ts';
 import type { WorkbookSession } from '../model/session.ts';
@@ -16,7 +17,7 @@ import type { WorkbookStore } from '../storage/idbStore.ts';
 /** What the workbook commands need of the page (the app passes itself). */
 export interface FileHost extends ImportHost {
   readonly session: Pick<WorkbookSession, 'toDoc' | 'title' | 'engine'>;
-  readonly store: Pick<WorkbookStore, 'loadSetAside'> | undefined;
+  readonly store: WorkbookStore | undefined;
   readonly status: Pick<StatusBar, 'show'>;
   replaceWith(doc: WorkbookDoc, note: string): Promise<boolean>;
 }
@@ -114,7 +115,7 @@ export function saveFile(app: FileHost): void {
 
 /** Swap the open workbook with the one set aside when it was last replaced. */
 export async function bringBack(app: FileHost): Promise<void> {
-  const aside = await app.store?.loadSetAside();
+  const aside = app.store && (await loadSetAside(app.store));
   if (!aside) {
     app.status.show('No workbook has been replaced in this browser yet.');
     return;

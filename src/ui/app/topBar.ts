@@ -2,25 +2,16 @@
 // switches for the side panel and the about box.
 import { el, svg } from '../dom.ts';
 import { menuButton } from '../menu.ts';
-import { openAbout } from '../dialogs/about.ts';
 import { deleteRows, fillDown, insertRows, type CommandHost } from '../grid/gridMenu.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
-import {
-  bringBack,
-  exportXlsx,
-  importEquipmentList,
-  newBlankSite,
-  newFromTemplate,
-  openFile,
-  saveFile,
-  type FileHost,
-} from './fileActions.ts';
+import type { FileHost } from './fileActions.ts';
 import type { PanelName, SidePanel } from './sidePanel.ts';
+import { bringBackCopyCommand, fileCommand, showAbout, type CopyHost } from './lazyCommands.ts';
 
 /** What the top bar needs of the page (the app passes itself). */
-export interface TopBarHost extends FileHost {
+export interface TopBarHost extends FileHost, CopyHost {
   readonly session: FileHost['session'] & Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo'>;
   readonly grid: CommandHost & { focus(): void };
   readonly side: Pick<SidePanel, 'toggle' | 'onToggle'>;
@@ -64,27 +55,51 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
   const workbook = menuButton(
     'Workbook',
     [
-      { label: 'New blank site', run: () => void newBlankSite(app), testId: 'menu-blank' },
-      { label: 'New from template…', run: () => void newFromTemplate(app), testId: 'menu-template' },
-      { label: 'Open file…', hint: '.kvar.json .xlsx', run: () => void openFile(app), testId: 'menu-open' },
-      { label: 'Save file', hint: 'Ctrl+S', run: () => saveFile(app), testId: 'menu-save' },
+      {
+        label: 'New blank site',
+        run: fileCommand(app, (m) => m.newBlankSite(app)),
+        testId: 'menu-blank',
+      },
+      {
+        label: 'New from template…',
+        run: fileCommand(app, (m) => m.newFromTemplate(app)),
+        testId: 'menu-template',
+      },
+      {
+        label: 'Open file…',
+        hint: '.kvar.json .xlsx',
+        run: fileCommand(app, (m) => m.openFile(app)),
+        testId: 'menu-open',
+      },
+      {
+        label: 'Save file',
+        hint: 'Ctrl+S',
+        run: fileCommand(app, (m) => m.saveFile(app)),
+        testId: 'menu-save',
+      },
       {
         label: 'Bring back the replaced workbook…',
-        run: () => void bringBack(app),
+        run: fileCommand(app, (m) => m.bringBack(app)),
         testId: 'menu-bring-back',
+        enabled: () => app.store !== undefined,
+      },
+      {
+        label: 'Bring back a copy from another tab…',
+        run: bringBackCopyCommand(app),
+        testId: 'menu-bring-copy',
         enabled: () => app.store !== undefined,
       },
       'separator',
       {
         label: 'Import equipment list…',
         hint: '.xlsx .csv',
-        run: () => void importEquipmentList(app),
+        run: fileCommand(app, (m) => m.importEquipmentList(app)),
         testId: 'menu-import',
       },
       {
         label: 'Export for other spreadsheet programs',
         hint: '.xlsx',
-        run: () => void exportXlsx(app),
+        run: fileCommand(app, (m) => m.exportXlsx(app)),
         testId: 'menu-export',
       },
     ],
@@ -138,7 +153,7 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
     text: 'About & cautions',
     attrs: { type: 'button', 'data-testid': 'about-open' },
   });
-  about.addEventListener('click', () => openAbout(app.catalogueSize()));
+  about.addEventListener('click', () => showAbout(app.catalogueSize()));
   const root = el('header', { className: 'kl-top' }, [
     el('div', { className: 'kl-brand' }, [
       mark(),

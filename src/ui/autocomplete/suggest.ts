@@ -4,7 +4,10 @@
 import { CATALOGUE, findFunction } from '../../core/functions/index.ts';
 import { describeInterval } from '../../core/registry/messages.ts';
 import { isOptional, type FunctionSpec, type ParamSpec } from '../../core/registry/spec.ts';
-import { callAtCursor, tokenize } from '../../io/formula/index.ts';
+// Straight from the modules it needs: the barrel would bring the parser and the expansion into
+// the page's first download.
+import { callAtCursor } from '../../io/formula/cursor.ts';
+import { tokenize } from '../../io/formula/tokenize.ts';
 
 export interface Suggestion {
   readonly name: string;

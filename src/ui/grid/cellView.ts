@@ -1,6 +1,7 @@
 // How one cell reads on screen: text, kind (number, text, error ...) and the error message.
 // Pure: it takes the engine's value, not the engine, so it is tested without a browser.
 import type { ColumnInfo } from '../../core/workbook/document.ts';
+import { neutraliseText } from '../../io/csv/write.ts';
 import { formatNumber } from '../format/numberFormat.ts';
 
 export type CellKind = 'empty' | 'number' | 'text' | 'bool' | 'error';
@@ -28,11 +29,15 @@ export function cellView(v: EngineValue, column?: ColumnInfo): CellView {
   };
 }
 
-/** The value as it goes to the clipboard for other programs: full precision, no formatting. */
+/**
+ * The value as it goes to the clipboard for other programs: full precision, no formatting. Text
+ * that another program would run as a formula (=1+1, +A1, -A1, @SUM(…)) goes out with a leading
+ * apostrophe, the rule the CSV writer follows (src/io/csv/write.ts).
+ */
 export function clipboardText(v: EngineValue): string {
   if (v === null || v === undefined) return '';
   if (typeof v === 'number') return String(v);
   if (typeof v === 'boolean') return v ? 'TRUE' : 'FALSE';
-  if (typeof v === 'string') return v;
+  if (typeof v === 'string') return neutraliseText(v);
   return v.value;
 }

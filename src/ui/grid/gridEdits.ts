@@ -4,6 +4,7 @@
 import type { CellRange, HotInstance } from 'handsontable/base';
 import type { CellContent } from '../../core/workbook/document.ts';
 import type { WorkbookSession } from '../model/session.ts';
+import { neutraliseText } from '../../io/csv/write.ts';
 import { contentOf } from '../model/typedInput.ts';
 import { clipboardText, type EngineValue } from './cellView.ts';
 import { rectangular, sameBlock, type ClipboardMemo } from './clipboardMemo.ts';
@@ -78,7 +79,9 @@ export function installEditHandlers(host: EditHost): void {
   ) => {
     const c = coords[0];
     if (!c || coords.length !== 1) {
+      // Several ranges: the grid copies what is typed; formulas and formula-like text go out as text.
       memo = undefined;
+      for (const row of data) row.forEach((v, i) => typeof v === 'string' && (row[i] = neutraliseText(v)));
       return;
     }
     const values = valuesOf(coords);

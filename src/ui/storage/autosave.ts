@@ -1,5 +1,7 @@
 // Debounced autosave: every change schedules a save; a burst of edits becomes one write, and a
-// write never overlaps another. The status callback drives the status bar.
+// write never overlaps another. An urgent change is saved at the next turn of the event loop.
+// When the page goes away, flushNow issues the write at once, before anything is awaited.
+// The status callback drives the status bar.
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import type { SaveResult } from './idbStore.ts';
 
@@ -11,6 +13,8 @@ export type AutosaveStatus =
 
 export interface Saver {
   save(doc: WorkbookDoc): Promise<SaveResult>;
+  /** Issue a save at once, not waiting for anything (the page is going away); the write is under way on return. */
+  saveNow?(doc: WorkbookDoc): Promise<SaveResult>;
 }
 
 export interface AutosaveOptions {
@@ -25,6 +29,8 @@ export class Autosaver {
   private timer: unknown;
   private dirty = false;
   private running: Promise<void> | undefined;
+  /** Saves issued by flushNow and not finished yet. */
+  private inFlight = 0;
   private readonly delay: number;
   private readonly setTimer: (fn: () => void, ms: number) => unknown;
   private readonly clearTimer: (h: unknown) => void;
@@ -39,19 +45,44 @@ export class Autosaver {
     this.clearTimer = opts.clearTimer ?? ((h) => clearTimeout(h as ReturnType<typeof setTimeout>));
   }
 
-  /** Call after every change. */
-  changed(): void {
+  /** Call after every change; `urgent`: save at the next turn instead of after the pause. */
+  changed(urgent = false): void {
     this.dirty = true;
     this.opts.onStatus?.({ state: 'pending' });
     if (this.timer !== undefined) this.clearTimer(this.timer);
-    this.timer = this.setTimer(() => {
+    this.timer = this.setTimer(
+      () => {
+        this.timer = undefined;
+        void this.flush();
+      },
+      urgent ? 0 : this.delay,
+    );
+  }
+
+  /**
+   * The page is being hidden or closed: issue the save of what changed now, synchronously (a
+   * save that waits for the one running, or reads first, would start after the page is gone).
+   */
+  flushNow(): void {
+    // A save under way may still be reading; the page would be gone before it writes.
+    if (!this.dirty && !this.running) return;
+    if (this.timer !== undefined) {
+      this.clearTimer(this.timer);
       this.timer = undefined;
-      void this.flush();
-    }, this.delay);
+    }
+    if (!this.saver.saveNow) return void this.flush();
+    this.dirty = false;
+    this.opts.onStatus?.({ state: 'saving' });
+    this.inFlight++;
+    void this.saver
+      .saveNow(this.snapshot())
+      .catch((e: unknown) => failure(e))
+      .then((r) => this.report(r))
+      .finally(() => this.inFlight--);
   }
 
   get hasUnsaved(): boolean {
-    return this.dirty || this.running !== undefined;
+    return this.dirty || this.running !== undefined || this.inFlight > 0;
   }
 
   /** Save now if anything changed (also used when the page is hidden or closed). */
@@ -73,13 +104,21 @@ export class Autosaver {
     try {
       result = await this.saver.save(this.snapshot());
     } catch (e) {
-      result = {
-        ok: false,
-        reason: 'storage',
-        message: `Saving failed: ${e instanceof Error ? e.message : String(e)}`,
-      };
+      result = failure(e);
     }
+    this.report(result);
+  }
+
+  private report(result: SaveResult): void {
     if (result.ok) this.opts.onStatus?.({ state: 'saved', savedAt: result.savedAt });
     else this.opts.onStatus?.({ state: 'failed', message: result.message });
   }
+}
+
+function failure(e: unknown): SaveResult {
+  return {
+    ok: false,
+    reason: 'storage',
+    message: `Saving failed: ${e instanceof Error ? e.message : String(e)}`,
+  };
 }

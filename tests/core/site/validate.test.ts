@@ -18,6 +18,23 @@ describe('validateSite', () => {
   it('accepts a correct site', () => {
     expect(check([XFMR, MOTOR])).toEqual([]);
   });
+  it('refuses names spreadsheet files cannot carry, naming the row, column and character', () => {
+    const errors = errorsOf([XFMR, MOTOR.replace('M1', 'M\u00071').replace(',LV,', ',L\uD800V,')]);
+    expect(errors.map((p) => [p.row, p.column])).toContainEqual([3, 'tag']);
+    expect(errors.find((p) => p.column === 'tag')?.message).toBe(
+      'row 3, column tag: tag contains the character U+0007 (a control or unpaired character), which spreadsheet files cannot carry; remove it',
+    );
+    expect(errors.find((p) => p.column === 'bus')?.message).toMatch(/bus contains the character U\+D800/);
+    const { site } = siteFromCsv([HEAD, XFMR, MOTOR].join('\n'));
+    const named = {
+      ...site,
+      settings: { ...site.settings, name: 'Plant\uFFFF', cases: ['normal', 'ni\u0000ght'] },
+    };
+    expect(validateSite(named).map((p) => p.message)).toEqual([
+      'settings: the site name contains the character U+FFFF (a control or unpaired character), which spreadsheet files cannot carry; remove it',
+      'settings: case name "ni\\u0000ght" contains the character U+0000 (a control or unpaired character), which spreadsheet files cannot carry; remove it',
+    ]);
+  });
   it('missing tag: row and column tag', () => {
     expect(errorsOf([XFMR, MOTOR.replace('M1', '')])).toEqual([
       {

@@ -130,4 +130,29 @@ describe('previewImport', () => {
     expect(pv.canApply).toBe(true);
     expect(pv.equipment.map((e) => e.values.p_kw)).toEqual([75, 110]);
   });
+
+  it('flags text that looks like a formula, and imports it as text', () => {
+    const pv = previewImport(
+      proposeMapping(
+        table(
+          'Item,Description,Board,Type,Motor kW,PF,Eff\n' +
+            '=1+1,@SUM(A1),LV,motor,75,0.86,0.95\n' +
+            'M2,-5 kW spare,LV,motor,11,0.85,0.93\n' +
+            'M3,plain,LV,motor,15,0.85,0.93\n',
+        ),
+      ),
+    );
+    expect(pv.problems.filter((x) => x.severity === 'warning').map((x) => x.message)).toEqual([
+      'row 2, column A (Item): "=1+1" looks like a formula; it is imported as text and never run',
+      'row 2, column B (Description): "@SUM(A1)" looks like a formula; it is imported as text and never run',
+      'row 3, column B (Description): "-5 kW spare" looks like a formula; it is imported as text and never run',
+    ]);
+    expect(pv.rows.map((r) => r.status)).toEqual(['warning', 'warning', 'ok']);
+    expect(pv.canApply).toBe(true);
+    expect(pv.equipment.map((e) => [e.tag, e.description])).toEqual([
+      ['=1+1', '@SUM(A1)'],
+      ['M2', '-5 kW spare'],
+      ['M3', 'plain'],
+    ]);
+  });
 });

@@ -267,6 +267,21 @@ describe('what other programs see', () => {
   });
 });
 
+describe('text cells written by another program', () => {
+  it('come in as text, even when they look like a formula, a number, a date or TRUE', async () => {
+    const texts = ['=1+1', '007', 'TRUE', '1/2/2020', '12:30', '#N/A', '+A1', 'Pump 1'];
+    const wb = new ExcelJS.Workbook();
+    wb.addWorksheet('Typed').addRow(texts);
+    const r = await importKvarXlsx(await save(wb));
+    if (!r.ok) throw new Error(r.problem.message);
+    const hf = createEngine(r.doc.sheets);
+    expect(texts.map((_, col) => readCell(hf, 'Typed', 0, col))).toEqual(
+      texts.map((value) => ({ ok: true, value })),
+    );
+    expect(r.doc.sheets[0]?.cells[0]?.slice(-1)).toEqual(['Pump 1']);
+  });
+});
+
 describe('export refusals', () => {
   it('refuses sheet names xlsx cannot hold, saying which and why', async () => {
     const doc = sampleDoc();
