@@ -116,7 +116,9 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
             ? 0.7 + e.value * 0.28
             : e.field === 'qty'
               ? 1 + Math.floor(e.value * 3)
-              : e.value;
+              : e.value < 0.01
+                ? 0
+                : e.value;
       const c = e.field === 'load' ? (plans[e.sheet]?.loadDefault as number) : col(e.sheet, e.field);
       s.setCells(sheetId(e.sheet), [{ row, col: c, content: v }]);
       return `value ${e.field}=${v} at ${plans[e.sheet]?.sheet.name} row ${row + 1}`;

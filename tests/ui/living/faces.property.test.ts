@@ -53,7 +53,7 @@ describe('the page and the core agree after every edit', () => {
         }
         s.destroy();
       }),
-      { numRuns: 20 },
+      { numRuns: Number(process.env.KVAR_PROPERTY_RUNS ?? 20) },
     );
     // The comparison must have run on most steps (valid inputs), not been skipped.
     expect(compared).toBeGreaterThan(100);

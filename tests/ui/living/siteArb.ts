@@ -15,6 +15,9 @@ export interface ArbSite {
 type RowSpec = Omit<EquipmentRow, 'row'>;
 
 const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+/** A load factor: off, or a real share (no subnormal numbers a site never has). */
+const loadFactor = (range: [number, number]) =>
+  fc.oneof(fc.constant(0), num(Math.max(range[0], 0.01), range[1]));
 const loadsArb = (cases: readonly string[], range: [number, number]) =>
   fc
     .array(fc.option(num(range[0], range[1]), { nil: undefined }), {
@@ -38,7 +41,7 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
       p: num(1, 400),
       eff: num(0.8, 0.97),
       cos: num(0.7, 0.92),
-      load: fc.option(num(0, 1.2), { nil: undefined }),
+      load: fc.option(loadFactor([0, 1.2]), { nil: undefined }),
       units,
       loads: loadsArb(cases, [0, 1.2]),
     })
