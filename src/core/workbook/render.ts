@@ -83,6 +83,15 @@ function put(cells: CellContent[][], r: number, c: number, v: CellContent): void
   line[c] = v;
 }
 
+/**
+ * A value found where Kvar Ledger writes a formula is one a user typed over it (in the page, or in
+ * another program before the file came back): it is kept and listed as typed over.
+ */
+function typedOver(found: CellContent, generated: CellContent): boolean {
+  if (found === null || typeof generated !== 'string' || !generated.startsWith('=')) return false;
+  return !(typeof found === 'string' && (found.startsWith('=') || found.trim() === ''));
+}
+
 function overridesOf(sheet: SheetDoc | undefined): Set<string> {
   return new Set((sheet?.overrides ?? []).map(([r, c]) => `${r},${c}`));
 }
@@ -154,15 +163,17 @@ export function bankInputsOf(
 function overlay(
   own: SheetDoc | undefined,
   generated: readonly (readonly CellContent[])[],
-  keepInBlock: (r: number, c: number) => boolean,
+  over: Set<string>,
 ): CellContent[][] {
   const cells = copyRows(own?.cells ?? []);
-  const over = overridesOf(own);
   const width = generated.reduce((m, r) => Math.max(m, r.length), 0);
   for (let r = 0; r < generated.length; r++) {
     for (let c = 0; c < width; c++) {
-      if (over.has(`${r},${c}`) || keepInBlock(r, c)) continue;
       const v = generated[r]?.[c] ?? null;
+      if (over.has(`${r},${c}`) || typedOver(cells[r]?.[c] ?? null, v)) {
+        over.add(`${r},${c}`);
+        continue;
+      }
       if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
     }
     while (cells.length <= r) cells.push([]);
@@ -211,7 +222,9 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     siteSheet && typed.cases.length > 0 && isCanonicalSettings(siteSheet, inputs)
       ? overlayCells(siteSheet, settingsGenerated(inputs))
       : settingsCells(inputs);
-  sheets.push(sheetDoc(SHEETS.settings, siteCells, SETTINGS_COLUMNS, SETTINGS_PURPOSE, siteSheet));
+  sheets.push(
+    sheetDoc(SHEETS.settings, siteCells, SETTINGS_COLUMNS, SETTINGS_PURPOSE, overridesOf(siteSheet)),
+  );
 
   for (const e of equipment) {
     const over = e.moved ? new Set<string>() : overridesOf(e.sheet);
@@ -223,17 +236,18 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
         info?.present ? computedCells(e.cols, r, info, cases, lookup) : [],
       );
       for (let c = e.cols.firstComputed; c < computedCols; c++) {
-        if (over.has(`${r},${c}`)) continue;
         const v = generated.get(c) ?? null;
+        if (over.has(`${r},${c}`) || typedOver(cells[r]?.[c] ?? null, v)) {
+          over.add(`${r},${c}`);
+          continue;
+        }
         if (v !== null || (cells[r]?.[c] ?? null) !== null) put(cells, r, c, v);
       }
       // Every row as wide as the sheet's columns, as a reader of the document expects.
       const line = cells[r];
       if (line) while (line.length < computedCols) line.push(null);
     }
-    sheets.push(
-      sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, e.moved ? undefined : e.sheet),
-    );
+    sheets.push(sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, over));
   }
 
   const busesSheet = findSheet(doc, SHEETS.buses);
@@ -244,14 +258,9 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     flavour: opts.flavour,
     spans,
   });
+  const busesOver = overridesOf(busesSheet);
   sheets.push(
-    sheetDoc(
-      SHEETS.buses,
-      overlay(busesSheet, buses, () => false),
-      busCols.columns,
-      BUSES_PURPOSE,
-      busesSheet,
-    ),
+    sheetDoc(SHEETS.buses, overlay(busesSheet, buses, busesOver), busCols.columns, BUSES_PURPOSE, busesOver),
   );
 
   const compSheet = findSheet(doc, SHEETS.compensation);
@@ -264,13 +273,14 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     inputs: bankInputsOf(compSheet, compCols),
   });
   // Bank inputs are placed by bus; whatever the sheet held in the table before is written anew.
+  const compOver = overridesOf(compSheet);
   sheets.push(
     sheetDoc(
       SHEETS.compensation,
-      overlay(compSheet, comp, () => false),
+      overlay(compSheet, comp, compOver),
       compCols.columns,
       COMPENSATION_PURPOSE,
-      compSheet,
+      compOver,
     ),
   );
 
@@ -289,9 +299,11 @@ function sheetDoc(
   cells: CellContent[][],
   columns: SheetDoc['columns'],
   purpose: string,
-  own: SheetDoc | undefined,
+  over: ReadonlySet<string>,
 ): SheetDoc {
-  const overrides: CellAt[] = [...(own?.overrides ?? [])];
+  const overrides: CellAt[] = [...over]
+    .map((k) => k.split(',').map(Number) as unknown as CellAt)
+    .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   return {
     name,
     cells,

@@ -5,6 +5,7 @@
 import type { Workbook, Worksheet, XlsxWriteOptions } from 'exceljs';
 import type { SiteSettings } from '../../core/site/model.ts';
 import { SHEETS } from '../../core/workbook/layout.ts';
+import { columnLetters } from '../../core/workbook/refs.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';
@@ -17,7 +18,7 @@ import {
   type ExportCell,
   type SheetCells,
 } from './exportCells.ts';
-import { styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
+import { markOverrides, styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
 import { loadExcelJs } from './loadExcelJs.ts';
 import {
   META_MARKER,
@@ -104,6 +105,9 @@ function settingsOf(doc: WorkbookDoc): SiteSettings | undefined {
     return undefined;
   }
 }
+
+/** A1 address of a 0-based cell. */
+const a1Of = (r: number, c: number): string => `${columnLetters(c)}${r + 1}`;
 
 const isFormula = (c: unknown): boolean => typeof c === 'string' && c.startsWith('=');
 
@@ -208,7 +212,13 @@ export async function exportWorkbookXlsxWithReport(
   const taken = doc.sheets.map((s) => s.name);
   const coverName = uniqueSheetName(COVER_SHEET_NAME, taken);
   const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
+  const typedOver = doc.sheets.flatMap((s) => (s.overrides ?? []).map(([r, c]) => `${s.name}!${a1Of(r, c)}`));
   const notes = [
+    ...(typedOver.length > 0
+      ? [
+          `${typedOver.length} cell(s) hold a value typed over Kvar Ledger's formula and count as typed (marked, with a note): ${typedOver.slice(0, MAX_COVER_ISSUES).join(', ')}${typedOver.length > MAX_COVER_ISSUES ? ' …' : ''}.`,
+        ]
+      : []),
     ...(newer.length > 0
       ? [
           `Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`,
@@ -248,6 +258,7 @@ export async function exportWorkbookXlsxWithReport(
     styleDataSheet(ws, s);
     sheetsMeta.push({ doc: s.name, file: s.name, rows: writeDataSheet(ws, cells) });
     styleDataSheet(ws, s, { headerOnly: true });
+    markOverrides(ws, s);
   });
 
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));

@@ -10,6 +10,12 @@ const INPUT_HEADER = 'FFE3E9EE';
 const COMPUTED_HEADER = 'FFE6EFE3';
 const RULE = 'FF8A99A6';
 
+/** Cells whose value was typed over Kvar Ledger's formula: the page's copper mark. */
+const OVERRIDE_FILL = 'FFFBF3DD';
+const OVERRIDE_INK = 'FFB2632B';
+export const OVERRIDE_NOTE =
+  "Typed over: Kvar Ledger's formula for this cell was replaced by this value, which counts in the totals as typed.";
+
 const MIN_WIDTH = 8;
 const MAX_WIDTH = 48;
 
@@ -69,4 +75,14 @@ export function styleFunctionsSheet(ws: Worksheet, header: string[], rows: reado
     row.eachCell((cell) => (cell.alignment = { wrapText: true, vertical: 'top' }));
   }
   ws.views = [{ state: 'frozen', xSplit: 0, ySplit: 1, topLeftCell: 'A2', activeCell: 'A2' }];
+}
+
+/** Mark the cells typed over formulas: a fill, copper ink and a note saying what happened. */
+export function markOverrides(ws: Worksheet, sheet: SheetDoc): void {
+  for (const [row, col] of sheet.overrides ?? []) {
+    const cell = ws.getCell(row + 1, col + 1);
+    cell.fill = solid(OVERRIDE_FILL);
+    cell.font = { color: { argb: OVERRIDE_INK } };
+    cell.note = OVERRIDE_NOTE;
+  }
 }
