@@ -154,18 +154,29 @@ export function evalExpr(e: Expr, ctx: EvalContext): EvalResult {
   }
 }
 
+/**
+ * An argument as the engine hands it to a function: a cell, or a choice that lands on a cell,
+ * passes a blank as "not given" (null); anything computed passes its number.
+ */
+function argument(
+  a: Expr,
+  ctx: EvalContext,
+): { ok: true; value: number | null } | { ok: false; message: string; column: string | undefined } {
+  if (a.k === 'col') return { ok: true, value: ctx.col(a.key) ?? null };
+  if (a.k === 'ifPositive') {
+    const t = evalExpr(a.test, ctx);
+    if (!t.ok) return t;
+    return argument(t.value > 0 ? a.then : a.otherwise, ctx);
+  }
+  return evalExpr(a, ctx);
+}
+
 function evalCall(fn: string, args: readonly Expr[], ctx: EvalContext): EvalResult {
   const spec = findFunction(fn);
   if (!spec) return { ok: false, message: `catalogue function ${fn} is not available`, column: undefined };
   const raw: RawArg[] = [];
   for (const a of args) {
-    // A blank cell handed to a function is "not given" (null), as the engine hands it over.
-    if (a.k === 'col') {
-      const v = ctx.col(a.key);
-      raw.push(v === undefined ? null : v);
-      continue;
-    }
-    const r = evalExpr(a, ctx);
+    const r = argument(a, ctx);
     if (!r.ok) return r;
     raw.push(r.value);
   }

@@ -18,6 +18,7 @@
 //   unit times running. Transformers or lines with running n share their to_bus equally
 //   (n identical units in parallel), so losses are n·loss(S/n).
 import { findKind } from '../kinds/index.ts';
+import { entryOf } from '../text/nameTable.ts';
 import type { EquipmentRow } from './model.ts';
 
 export interface LoadFactor {
@@ -29,7 +30,7 @@ export interface LoadFactor {
 }
 
 export function loadFactor(row: EquipmentRow, caseName: string): LoadFactor {
-  const own = row.loads[caseName];
+  const own = entryOf(row.loads, caseName);
   if (own !== undefined) return { value: own, column: `load:${caseName}`, defaulted: false };
   if (row.values.load !== undefined) return { value: row.values.load, column: 'load', defaulted: false };
   return { value: 1, column: 'load', defaulted: true };

@@ -18,6 +18,7 @@ import type { EquipmentRow, Site } from './model.ts';
 import { buildBusGraph } from './graph.ts';
 import { rollUp, SiteStructureError, type BusBalance, type CaseBalance } from './rollup.ts';
 import { findKind } from '../kinds/index.ts';
+import { entryOf, nameTable } from '../text/nameTable.ts';
 import type { BankChoice } from './bankChoice.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
 import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
@@ -116,7 +117,7 @@ function allocate(
   before: readonly CaseBalance[],
   need: readonly number[],
 ): Map<string, Record<string, number>> {
-  const out = new Map<string, Record<string, number>>(candidates.map((b) => [b, {}]));
+  const out = new Map<string, Record<string, number>>(candidates.map((b) => [b, nameTable<number>()]));
   before.forEach((bal, i) => {
     const byBus = new Map(bal.buses.map((x) => [x.bus, x]));
     const weights = candidates.map((b) => Math.max(0, byBus.get(b)?.own_q_kvar ?? 0));
@@ -208,7 +209,9 @@ export function designCompensation(
           graph,
           sc: ssc.get(bus),
           uKv: (voltages.get(bus) as { u_kv: number }).u_kv,
-          ...(options.detuning?.[bus] !== undefined ? { detuning: options.detuning[bus] } : {}),
+          ...(entryOf(options.detuning, bus) !== undefined
+            ? { detuning: entryOf(options.detuning, bus) as number }
+            : {}),
           ...(options.thirdHarmonic ? { thirdHarmonic: true } : {}),
         });
         if (sized.bank.total_kvar <= 0) continue;
@@ -247,10 +250,10 @@ export function designCompensation(
         ),
       );
     } else {
-      const inService: Record<string, boolean> = {};
+      const inService = nameTable<boolean>();
       cases.forEach((c, i) => (inService[c] = (leadNeed[i] as number) > TOL_KVAR));
       const tag = uniqueTag(`NEW-R-${bus}`, taken);
-      const loads: Record<string, number> = {};
+      const loads = nameTable<number>();
       for (const c of cases) loads[c] = inService[c] ? 1 : 0;
       const rowFor = (q: number): EquipmentRow[] => [
         {
@@ -306,14 +309,14 @@ export function designCompensation(
   const after = result.map((r) => r.after);
   banks = banks.map((b) => ({
     ...b,
-    steps_in: Object.fromEntries(
-      result.map((r) => [r.case, r.banks.find((x) => x.bus === b.bus)?.steps_in ?? 0]),
+    steps_in: nameTable(
+      result.map((r) => [r.case, r.banks.find((x) => x.bus === b.bus)?.steps_in ?? 0] as const),
     ),
   }));
   const finalReactors = reactors.map((x) => ({
     ...x,
-    in_service: Object.fromEntries(
-      result.map((r) => [r.case, (r.banks.find((y) => y.bus === x.bus)?.reactor_kvar ?? 0) > 0]),
+    in_service: nameTable(
+      result.map((r) => [r.case, (r.banks.find((y) => y.bus === x.bus)?.reactor_kvar ?? 0) > 0] as const),
     ),
   }));
   const outcomes: CaseOutcome[] = result.map((r) => {

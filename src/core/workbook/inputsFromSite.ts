@@ -2,6 +2,8 @@
 // Site sheet's values, each equipment row on its kind's sheet, and the banks per bus on the
 // Compensation sheet. render.ts then writes every generated cell.
 import { findKind } from '../kinds/index.ts';
+import { textContent } from '../text/cellText.ts';
+import { entryOf } from '../text/nameTable.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
 import { buildBusGraph } from '../site/graph.ts';
 import type { EquipmentRow, Site } from '../site/model.ts';
@@ -18,15 +20,15 @@ export function settingsInputsOf(site: Site): SettingsInputs {
   const s = site.settings;
   const r = s.requirement;
   return {
-    name: s.name,
+    name: textContent(s.name),
     hz: s.hz,
     requirement: REQUIREMENT_TEXT[r.kind],
     cosTarget: r.kind === 'cosphi' ? r.target : null,
     tanLag: r.kind === 'tanphi' ? r.lagMax : null,
     tanLead: r.kind === 'tanphi' ? r.leadMax : null,
     ssc: s.sscMva ?? null,
-    cases: [...s.cases],
-    notes: [...(s.notes ?? [])],
+    cases: s.cases.map(textContent),
+    notes: (s.notes ?? []).map(textContent),
   };
 }
 
@@ -52,15 +54,17 @@ export function otherValues(
 function inputCells(cols: EquipmentColumns, row: EquipmentRow, cases: readonly string[]): CellContent[] {
   const out = new Array<CellContent>(cols.firstComputed).fill(null);
   for (const [key, c] of cols.input) {
-    if (key === 'tag') out[c] = row.tag;
-    else if (key === 'bus') out[c] = row.bus;
+    // Text stays text: a tag such as 007 or =1 is stored with the mark that keeps it text.
+    if (key === 'tag') out[c] = textContent(row.tag);
+    else if (key === 'bus') out[c] = textContent(row.bus);
     else if (key === 'kind') out[c] = row.kind;
-    else if (key === 'description') out[c] = row.description ?? null;
-    else if (key === 'to_bus') out[c] = row.to_bus ?? null;
+    else if (key === 'description')
+      out[c] = row.description === undefined ? null : textContent(row.description);
+    else if (key === 'to_bus') out[c] = row.to_bus === undefined ? null : textContent(row.to_bus);
     else out[c] = row.values[key] ?? null;
   }
   if (cols.loadDefault !== undefined) out[cols.loadDefault] = row.values.load ?? null;
-  cols.loadCase?.forEach((c, k) => (out[c] = row.loads[cases[k] as string] ?? null));
+  cols.loadCase?.forEach((c, k) => (out[c] = entryOf(row.loads, cases[k] as string) ?? null));
   out[cols.other] = otherValues(cols, row, cases);
   return out;
 }
@@ -88,7 +92,7 @@ export function inputsFromSite(site: Site, banks: readonly BankChoice[]): Workbo
   const compRows: CellContent[][] = [comp.columns.map((c) => c.header)];
   for (const b of banks) {
     const line = new Array<CellContent>(comp.columns.length).fill(null);
-    line[comp.bus] = b.bus;
+    line[comp.bus] = textContent(b.bus);
     for (const i of BANK_INPUTS) line[comp.input[i.key]] = b[i.key] ?? null;
     line[comp.note] = b.note ?? null;
     compRows.push(line);

@@ -2,6 +2,7 @@
 // and column hold a value that cannot be read. Shared by the settings, equipment and bank readers.
 import { error, warning, type Problem, type Severity } from '../site/problems.ts';
 import type { CellContent, SheetDoc } from './document.ts';
+import { shownText } from '../text/cellText.ts';
 
 /** What a cell holds once evaluated; the app can pass the engine's values for formula cells. */
 export type CellValueReader = (sheet: string, row: number, col: number) => CellContent | undefined;
@@ -50,7 +51,7 @@ export function readText(doc: SheetDoc, at: Spot, ctx: ReadContext): string | un
   }
   const x = v.value;
   if (x === null) return undefined;
-  const t = String(x).trim();
+  const t = (typeof x === 'string' ? shownText(x) : String(x)).trim();
   return t === '' ? undefined : t;
 }
 

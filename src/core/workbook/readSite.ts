@@ -15,6 +15,7 @@ import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { equipmentSheets, type SheetInput } from '../kinds/index.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
 import { unifyBusNames } from '../site/busNames.ts';
+import { nameTable } from '../text/nameTable.ts';
 import { HEADERS, SHEETS } from './layout.ts';
 import { BANK_INPUTS, NOTE_HEADER } from './compensationColumns.ts';
 
@@ -159,7 +160,7 @@ function readEquipmentSheet(
     const text: Partial<Record<TextColumn, string>> = {};
     const row = {
       values: {} as Partial<Record<NumericColumn, number>>,
-      loads: {} as Record<string, number>,
+      loads: nameTable<number>(),
     } as {
       values: Partial<Record<NumericColumn, number>>;
       loads: Record<string, number>;

@@ -3,6 +3,7 @@
 // cells) into the full live or exported workbook. Opening a document, building one from a site
 // file and exporting all come through here, so the page, the CLI and the xlsx agree.
 import { busKey } from '../site/busNames.ts';
+import { shownText } from '../text/cellText.ts';
 import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from './document.ts';
 import { planBusColumns, type BusColumns } from './busColumns.ts';
 import { spanIndex, type Flavour } from './busSums.ts';
@@ -66,7 +67,7 @@ export function isSiteDoc(doc: WorkbookDoc): boolean {
 export function casesOf(inputs: SettingsInputs): string[] {
   const out: string[] = [];
   for (const c of inputs.cases) {
-    const t = String(c).trim();
+    const t = (typeof c === 'string' ? shownText(c) : String(c)).trim();
     if (t !== '' && !out.some((x) => x.toLowerCase() === t.toLowerCase())) out.push(t);
   }
   return out.length > 0 ? out : [DEFAULT_CASE];
@@ -150,7 +151,7 @@ export function bankInputsOf(
       const v = from === undefined ? null : (sheet.cells[r]?.[from] ?? null);
       if (!blank(v)) values.set(to, v);
     }
-    const key = busKey(String(bus).trim());
+    const key = busKey((typeof bus === 'string' ? shownText(bus) : String(bus)).trim());
     if (values.size > 0 && !out.has(key)) out.set(key, values);
   }
   return out;

@@ -11,6 +11,7 @@ import { SHEETS } from './layout.ts';
 import { cell, cellOn } from './refs.ts';
 import type { BusInfo, WorkbookStructure } from './structure.ts';
 import { busKey } from '../site/busNames.ts';
+import { textContent } from '../text/cellText.ts';
 
 export interface BusesInput {
   readonly s: WorkbookStructure;
@@ -57,7 +58,7 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
     const r = i + 1;
     const out: CellContent[] = new Array<CellContent>(cols.columns.length).fill(null);
     const here = (col: number) => cell(r, col);
-    out[cols.bus] = b.name;
+    out[cols.bus] = textContent(b.name);
     out[cols.level] = b.level ?? null;
     if (b.feeder) {
       const f = s.sheets[b.feeder.sheet];
@@ -65,7 +66,7 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
       if (f && tagCol !== undefined)
         out[cols.fedBy] = `=${cellOn(f.cols.sheet.name, b.feeder.row, tagCol, true)}`;
     }
-    out[cols.upstream] = b.upstream ?? null;
+    out[cols.upstream] = b.upstream === undefined ? null : textContent(b.upstream);
     if (b.voltage) {
       const v = s.sheets[b.voltage.sheet];
       const uCol = v?.cols.input.get('u_kv');

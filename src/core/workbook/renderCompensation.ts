@@ -14,6 +14,7 @@ import { REQUIREMENT_TEXT, settingRef } from './settingsLayout.ts';
 import type { BusInfo, WorkbookStructure } from './structure.ts';
 import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from '../site/bankRules.ts';
 import { WITHIN_TOL_KVAR } from '../site/tolerance.ts';
+import { textContent } from '../text/cellText.ts';
 
 export interface CompensationInput {
   readonly s: WorkbookStructure;
@@ -101,7 +102,7 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     const typed = inputs.get(b.key);
     for (const c of compensationInputCols(cols)) out[c] = typed?.get(c) ?? null;
     const inp = (key: keyof CompensationColumns['input']) => here(cols.input[key]);
-    out[cols.bus] = b.name;
+    out[cols.bus] = textContent(b.name);
     out[cols.u] = `=${bus(busCols.u)}`;
     const upRow =
       b.upstream === undefined

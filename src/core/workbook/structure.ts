@@ -8,6 +8,7 @@ import { busKey, unifyBusNames } from '../site/busNames.ts';
 import type { EquipmentRow } from '../site/model.ts';
 import { busVoltages } from '../site/voltages.ts';
 import type { CellContent } from './document.ts';
+import { shownText } from '../text/cellText.ts';
 import { planEquipmentColumns, type EquipmentColumns } from './equipmentColumns.ts';
 
 /** A cell's value: typed content, or what a formula evaluates to when the caller can tell. */
@@ -70,7 +71,7 @@ export interface WorkbookStructure {
 function text(v: CellContent): string {
   if (v === null) return '';
   if (typeof v === 'boolean') return v ? 'TRUE' : 'FALSE';
-  return String(v).trim();
+  return (typeof v === 'string' ? shownText(v) : String(v)).trim();
 }
 
 function blank(v: CellContent): boolean {

@@ -11,6 +11,7 @@ import type { EquipmentColumns } from '../../core/workbook/equipmentColumns.ts';
 import type { ContentStore } from './contentStore.ts';
 import type { SiteModel, Write } from './siteModel.ts';
 import { SessionError } from './sessionError.ts';
+import { shownText, textContent } from '../../core/text/cellText.ts';
 
 export interface FollowUp {
   readonly writes: readonly Write[];
@@ -141,7 +142,10 @@ function renameBus(
 ): void {
   const old = site.state.rendered.buses[c.row - 1];
   if (!old) return;
-  const name = c.content === null ? '' : String(c.content).trim();
+  const name =
+    c.content === null
+      ? ''
+      : (typeof c.content === 'string' ? shownText(c.content) : String(c.content)).trim();
   if (name === '') {
     throw new SessionError(
       `Bus ${old.name} keeps a name: to remove a bus, move or delete the equipment on it.`,
@@ -162,8 +166,13 @@ function renameBus(
       for (const key of ['bus', 'to_bus'] as const) {
         const col = cols.input.get(key);
         const v = col === undefined ? null : contents.cell(sheet, row, col);
-        if (col === undefined || v === null || busKey(String(v).trim()) !== old.key) continue;
-        writes.push({ sheet, row, col, content: name });
+        if (
+          col === undefined ||
+          v === null ||
+          busKey((typeof v === 'string' ? shownText(v) : String(v)).trim()) !== old.key
+        )
+          continue;
+        writes.push({ sheet, row, col, content: textContent(name) });
         const set = touched.get(index) ?? new Set<number>();
         set.add(row);
         touched.set(index, set);
@@ -176,7 +185,7 @@ function renameBus(
 function checkCases(inputs: SettingsInputs): void {
   const seen = new Set<string>();
   for (const c of inputs.cases) {
-    const t = String(c).trim();
+    const t = (typeof c === 'string' ? shownText(c) : String(c)).trim();
     if (seen.has(t.toLowerCase()))
       throw new SessionError(`There is already a case called ${t}; case names must differ.`);
     seen.add(t.toLowerCase());

@@ -1,5 +1,6 @@
 // Test helpers: evaluate a built workbook in the engine (live) or, after the plain-formula
 // expansion, in an engine without our plugins (portable), and read the Buses sheet by header.
+import { shownText } from '../../../src/core/text/cellText.ts';
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -75,7 +76,10 @@ export function num(r: CellResult): number {
 }
 
 export function busRow(doc: WorkbookDoc, bus: string, sheetName = 'Buses'): number {
-  const r = sheet(doc, sheetName).cells.findIndex((row, i) => i > 0 && row[0] === bus);
+  // A bus name that reads as a number is stored as text with its mark ('12).
+  const r = sheet(doc, sheetName).cells.findIndex(
+    (row, i) => i > 0 && typeof row[0] === 'string' && shownText(row[0]) === bus,
+  );
   if (r < 0) throw new Error(`no bus ${bus} on ${sheetName}`);
   return r;
 }

@@ -20,7 +20,7 @@ const loadFactor = (range: [number, number]) =>
   fc.oneof(fc.constant(0), num(Math.max(range[0], 0.01), range[1]));
 const loadsArb = (cases: readonly string[], range: [number, number]) =>
   fc
-    .array(fc.option(num(range[0], range[1]), { nil: undefined }), {
+    .array(fc.option(loadFactor(range), { nil: undefined }), {
       minLength: cases.length,
       maxLength: cases.length,
     })
