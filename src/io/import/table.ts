@@ -3,7 +3,8 @@
 import { CsvSyntaxError, detectDelimiter, readCsv } from '../csv/read.ts';
 import { checkXlsxBytes } from '../xlsx/checkFile.ts';
 import { fail, formatBytes, type FileResult } from '../xlsx/fileProblem.ts';
-import { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../xlsx/limits.ts';
+import { MAX_SHEET_COLUMNS } from '../xlsx/limits.ts';
+import { MAX_EQUIPMENT_ROWS, tooManyText } from '../../core/site/limits.ts';
 import { loadExcelJs } from '../xlsx/loadExcelJs.ts';
 
 export type RawCell = string | number | boolean | null;
@@ -47,12 +48,8 @@ export function tableFromCsvText(name: string, text: string): FileResult<RawTabl
   try {
     const delimiter = detectDelimiter(text);
     const rows = readCsv(text, { delimiter });
-    if (rows.length > MAX_SHEET_ROWS + 1)
-      return fail(
-        'too-many-rows',
-        `the list has ${rows.length.toLocaleString('en')} rows; the most accepted is ${MAX_SHEET_ROWS.toLocaleString('en')}`,
-        name,
-      );
+    const tooMany = sizeProblem(rows, name);
+    if (tooMany) return tooMany;
     const wide = rows.findIndex((r) => r.length > MAX_SHEET_COLUMNS);
     if (wide >= 0)
       return fail(
@@ -65,6 +62,25 @@ export function tableFromCsvText(name: string, text: string): FileResult<RawTabl
     if (e instanceof CsvSyntaxError) return fail('corrupt', `the CSV cannot be read: ${e.message}`, name);
     throw e;
   }
+}
+
+const isBlankRow = (r: readonly RawCell[] | undefined): boolean =>
+  !r || r.every((c) => c === null || (typeof c === 'string' && c.trim() === ''));
+
+/**
+ * The door for the list's size: more data rows (non-blank rows after the first) than a site may
+ * have is refused here, before anything is converted or checked row by row.
+ */
+function sizeProblem(
+  rows: readonly (readonly RawCell[] | undefined)[],
+  name: string,
+): FileResult<never> | undefined {
+  if (rows.length <= MAX_EQUIPMENT_ROWS + 1) return undefined;
+  let filled = 0;
+  for (const r of rows) if (!isBlankRow(r)) filled++;
+  const data = filled - 1;
+  if (data <= MAX_EQUIPMENT_ROWS) return undefined;
+  return fail('too-many-rows', `the list has ${tooManyText('rows of data', data, MAX_EQUIPMENT_ROWS)}`, name);
 }
 
 type ExcelCellValue = unknown;
@@ -112,6 +128,8 @@ export async function tableFromXlsx(name: string, bytes: Uint8Array): Promise<Fi
     });
     rows[rowNumber - 1] = Array.from(cells, (c) => c ?? null);
   });
+  const tooMany = sizeProblem(rows, name);
+  if (tooMany) return tooMany;
   return {
     ok: true,
     value: {

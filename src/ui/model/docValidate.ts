@@ -3,8 +3,15 @@
 import type { ColumnInfo, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { a1 } from './address.ts';
 import { MAX_SHEET_NAME } from './sheetNames.ts';
+import { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../../core/site/limits.ts';
 
-export const LIMITS = { sheets: 200, rows: 200_000, cols: 512, cellText: 32_767 } as const;
+/** Rows and columns are the engine's limits (the supported size, src/core/site/limits.ts). */
+export const LIMITS = {
+  sheets: 200,
+  rows: MAX_SHEET_ROWS,
+  cols: MAX_SHEET_COLUMNS,
+  cellText: 32_767,
+} as const;
 
 type Problems = string[];
 
