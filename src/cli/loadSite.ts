@@ -12,7 +12,7 @@ import { resolveCase } from '../core/site/cases.ts';
 import { MAX_CASES } from '../core/site/limits.ts';
 import { NUMERIC_COLUMNS, TEXT_COLUMNS, type Site, type SiteSettings } from '../core/site/model.ts';
 import { CASE_PREFIX, DEFAULT_CASE } from '../core/site/parse.ts';
-import { info, type Problem } from '../core/site/problems.ts';
+import { error, info, type Problem } from '../core/site/problems.ts';
 import { readSiteFile } from '../core/site/siteFile.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import type { BankChoice } from '../core/workbook/buildCompensationColumns.ts';
@@ -219,9 +219,15 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     options,
   );
   const preview = previewImport(mapped, { settings });
+  const problems = [...preview.problems];
+  // The preview checks rows only when there are some; a list of headers alone is still no site.
+  if (preview.counts.rows === 0)
+    problems.push(
+      error({ row: mapped.headerRow }, 'the list has a header row but no equipment rows below it'),
+    );
   return {
     site: { settings: { ...settings, cases: [...preview.cases] }, equipment: [...preview.equipment] },
-    problems: [...preview.problems],
+    problems,
     banks: [],
     source: 'list',
   };

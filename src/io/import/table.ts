@@ -142,12 +142,24 @@ export async function tableFromXlsx(name: string, bytes: Uint8Array): Promise<Fi
   };
 }
 
+/** A NUL byte near the start, without a UTF-16 byte-order mark: a program or an image, not text. */
+function looksBinary(bytes: Uint8Array): boolean {
+  const utf16 = (bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff);
+  return !utf16 && bytes.subarray(0, 8192).includes(0);
+}
+
 /** Read an equipment list: an xlsx (by its zip signature) or a CSV (anything that is text). */
 export async function readEquipmentFile(name: string, bytes: Uint8Array): Promise<FileResult<RawTable>> {
   if (bytes.length === 0) return fail('empty', 'the file is empty (0 bytes)', name);
   const isZip = ZIP_MAGIC.every((b, i) => bytes[i] === b);
   const looksXlsx = isZip || /\.xls[xm]?$/i.test(name);
   if (looksXlsx) return tableFromXlsx(name, bytes);
+  if (looksBinary(bytes))
+    return fail(
+      'wrong-layout',
+      'the file is binary (it holds NUL bytes), not a CSV text or an xlsx workbook; save the list as CSV or xlsx',
+      name,
+    );
   if (bytes.length > MAX_CSV_BYTES)
     return fail(
       'too-large',
