@@ -2,6 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { evaluate, inInterval } from '../../../src/core/registry/evaluate.ts';
 import { expandCall, isCellReference } from '../../../src/core/registry/expand.ts';
 import { COSPHI, KVA_TOTAL } from '../../../src/core/functions/powerTriangle.ts';
+import { CATALOGUE, findFunction } from '../../../src/core/functions/index.ts';
+import type { RawArg } from '../../../src/core/registry/evaluate.ts';
+import type { FunctionSpec } from '../../../src/core/registry/spec.ts';
 
 describe('argument validation', () => {
   it('names function, position, argument and value for text', () => {
@@ -10,6 +13,26 @@ describe('argument validation', () => {
       ok: false,
       message: 'COSPHI: argument 1 (p_kw) must be a number in kW; got text "abc"',
     });
+  });
+  it('a plain ratio (unit 1) is said with its allowed range, never "a number in 1"', () => {
+    const motor = findFunction('KW.MOTOR') as FunctionSpec;
+    expect(evaluate(motor, [75, 'abc'])).toEqual({
+      ok: false,
+      message: 'KW.MOTOR: argument 2 (eff) must be a number in (0, 1]; got text "abc"',
+    });
+    expect(evaluate(motor, [75, null])).toEqual({
+      ok: false,
+      message: 'KW.MOTOR: argument 2 (eff) is a blank cell; a number in (0, 1] is required',
+    });
+    // No message of any catalogue function says "in 1".
+    for (const spec of CATALOGUE)
+      spec.params.forEach((p, i) => {
+        if (p.type === 'boolean') return;
+        const args = spec.params.map(() => 1 as RawArg);
+        args[i] = 'x';
+        const r = evaluate(spec, args);
+        expect(!r.ok && r.message, spec.name).not.toMatch(/ in 1;| in 1 is/);
+      });
   });
   it('reports a blank required argument', () => {
     const r = evaluate(KVA_TOTAL, [3, null]);
