@@ -58,6 +58,11 @@ class Parser {
         `the text starting at character ${t.start + 1} has no closing quote (")`,
         t.start + 1,
       );
+    if (t.kind === 'semicolon')
+      return new ParseError(
+        `";" at character ${t.start + 1} is not read here: arguments are separated by "," and decimals written with "." (as in spreadsheet programs set to English: SUM(1,2.5), not SUM(1;2,5))`,
+        t.start + 1,
+      );
     if (t.kind === 'unknown')
       return new ParseError(
         `${describe(t)} at character ${t.start + 1} is not part of any formula syntax`,
