@@ -5,6 +5,7 @@ import type { CellRange, HotInstance } from 'handsontable/base';
 import type { CellContent } from '../../core/workbook/document.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import { contentOf } from '../model/typedInput.ts';
+import { completeTypedFormula } from '../../io/formula/entry.ts';
 import { clipboardText, type EngineValue } from './cellView.ts';
 import { rectangular, sameBlock, type ClipboardMemo } from './clipboardMemo.ts';
 
@@ -34,7 +35,8 @@ export function installEditHandlers(host: EditHost): void {
       if (!ch) continue;
       const [row, prop, , next] = ch;
       const col = Number(prop);
-      const content = contentOf(next);
+      // As on Enter in other programs: open brackets closed, ';' between arguments read as ','.
+      const content = contentOf(typeof next === 'string' ? completeTypedFormula(next).text : next);
       if (same(content, session.cellContent(host.sheetId, row, col))) continue;
       cells.push({ row, col, content });
     }
