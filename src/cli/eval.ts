@@ -3,6 +3,7 @@
 // (exit 1) before anything is evaluated. A formula that evaluates to an error value is printed
 // like any result, and the exit status is then 1, so a script notices.
 import { createEngine, evaluateFormula, type ScalarValue } from '../engine/index.ts';
+import { commaSeparated } from '../io/formula/entry.ts';
 import { parseFormula } from '../io/formula/parse.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
@@ -29,8 +30,9 @@ function valueText(v: ScalarValue): string {
   return String(v);
 }
 
+/** With its "=" and with ';' between arguments read as ',' where nothing else can be meant. */
 function asFormula(text: string): string {
-  return text.trimStart().startsWith('=') ? text : `=${text}`;
+  return commaSeparated(text.trimStart().startsWith('=') ? text : `=${text}`).text;
 }
 
 /** Problems that make the input unusable: an empty formula or one our parser cannot read. */
@@ -41,7 +43,7 @@ function readProblems(formulas: readonly string[]): string[] {
       problems.push(`eval: formula ${i + 1} is empty`);
       return;
     }
-    const parsed = parseFormula(f);
+    const parsed = parseFormula(asFormula(f));
     if (!parsed.ok) problems.push(`eval: formula ${i + 1} (${f}): ${parsed.message}`);
   });
   return problems;

@@ -81,6 +81,18 @@ describe('kvar-ledger eval', () => {
   });
 });
 
+describe('kvar-ledger eval and ";"', () => {
+  it('reads ";" between arguments as "," when no "," is anywhere, and explains it otherwise', async () => {
+    const ok = await cli('eval', '=KVA.TOTAL(300;400)');
+    expect(ok).toEqual({ code: 0, stdout: '=KVA.TOTAL(300;400) → 500\n', stderr: '' });
+    const mixed = await cli('eval', '=KVAR.LOAD(50;0,9)');
+    expect(mixed.code).toBe(1);
+    expect(mixed.stderr).toBe(
+      'kvar-ledger eval: formula 1 (=KVAR.LOAD(50;0,9)): ";" at character 14 is not read here: arguments are separated by "," and decimals written with "." (as in spreadsheet programs set to English: SUM(1,2.5), not SUM(1;2,5))\n',
+    );
+  });
+});
+
 describe('the package bin', () => {
   it("npx runs the project's own bin from the repository root (offline: never fetched)", async () => {
     const r = await new Promise<Run>((done) => {
