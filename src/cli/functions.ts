@@ -2,6 +2,7 @@
 // and allowed values, defaults, result units, descriptions and sources. `--md` writes the
 // generated reference FUNCTIONS.md (npm run functions:md).
 import { CATALOGUE } from '../core/functions/index.ts';
+import { ARGUMENT_RULES } from '../core/registry/expand.ts';
 import { formatNumber } from '../core/registry/messages.ts';
 import { functionReference, type ExampleReference, type FunctionReference } from '../io/formula/reference.ts';
 import { parseArgs } from './args.ts';
@@ -75,6 +76,14 @@ function markdownReference(refs: readonly FunctionReference[]): string {
     out.push(`- ${family}: ${members.map((r) => `[${r.name}](#${anchor(r.name)})`).join(', ')}`);
   }
   out.push('');
+  out.push(
+    '## How arguments are read',
+    '',
+    'The same rules hold in the app and in the plain formulas of an exported xlsx, so another spreadsheet program shows the same value or #N/A in every cell:',
+    '',
+    ...ARGUMENT_RULES.map((r) => `- ${r}`),
+    '',
+  );
   for (const [family, members] of families) {
     out.push(`## ${family}`, '');
     for (const r of members) {

@@ -1,6 +1,6 @@
 // Every message text a catalogue function can produce lives here, so wording stays one voice:
 // "<FUNCTION>: argument <n> (<name>) <what is wrong>; got <value>".
-import type { Interval, ParamSpec } from './spec.ts';
+import { MAGNITUDE, type Interval, type ParamSpec } from './spec.ts';
 
 export function formatNumber(x: number): string {
   if (Number.isNaN(x)) return 'NaN';
@@ -50,6 +50,8 @@ export function describeGiven(v: unknown): string {
 export const msg = {
   outOfDomain: (pos: number, p: ParamSpec, v: number) =>
     `${argLabel(pos, p)} ${mustBe(p.domain)}; got ${formatNumber(v)}`,
+  outOfMagnitude: (pos: number, p: ParamSpec, v: number) =>
+    `${argLabel(pos, p)} must be 0 or between ${formatNumber(MAGNITUDE.min)} and ${formatNumber(MAGNITUDE.max)} in size; got ${formatNumber(v)}`,
   notANumber: (pos: number, p: ParamSpec, v: unknown) =>
     `${argLabel(pos, p)} must be ${numberPhrase(p)}; got ${describeGiven(v)}`,
   notABoolean: (pos: number, p: ParamSpec, v: unknown) =>

@@ -39,10 +39,15 @@ function where(call: CallNode): string {
   return call.at === undefined ? '' : ` (the call at character ${call.at})`;
 }
 
-/** A plain value is handed to the template as its text (a spec may look at it, e.g. TRUE). */
+/** A plain value is handed to the template as its text (the guards look at it: TRUE, "text", 2). */
 function isPlainValue(n: Node): boolean {
   return (
-    n.type === 'number' || n.type === 'bool' || n.type === 'ref' || n.type === 'name' || n.type === 'error'
+    n.type === 'number' ||
+    n.type === 'bool' ||
+    n.type === 'string' ||
+    n.type === 'ref' ||
+    n.type === 'name' ||
+    n.type === 'error'
   );
 }
 

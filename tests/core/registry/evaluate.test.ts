@@ -52,10 +52,18 @@ describe('argument validation', () => {
 });
 
 describe('plain-formula expansion', () => {
-  it('guards a required cell reference against blank', () => {
+  it('guards required cell references: errors and type first, then size, then the cross-argument rule', () => {
     expect(expandCall(COSPHI, ['A1', 'B1'])).toBe(
-      'IF(OR(ISBLANK(A1),ISBLANK(B1)),NA(),IF(OR(AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2))))',
+      'IF(OR(A1<>A1,B1<>B1,OR(ISLOGICAL(A1),ISTEXT(A1),ISBLANK(A1)),OR(ISLOGICAL(B1),ISTEXT(B1),ISBLANK(B1))),NA(),' +
+        'IF(OR(ABS(A1)>1e+30,AND(A1<>0,ABS(A1)<1e-30),ABS(B1)>1e+30,AND(B1<>0,ABS(B1)<1e-30)),NA(),' +
+        'IF(OR(AND(A1=0,B1=0)),NA(),ABS(A1)/SQRT(POWER(A1,2)+POWER(B1,2)))))',
     );
+  });
+  it('a number typed in the formula needs no type guard, and no size guard when in range', () => {
+    expect(expandCall(COSPHI, ['3', '4'])).toBe(
+      'IF(OR(AND(3=0,4=0)),NA(),ABS(3)/SQRT(POWER(3,2)+POWER(4,2)))',
+    );
+    expect(expandCall(COSPHI, ['1e40', '4'])).toContain('ABS(1e40)>1e+30');
   });
   it('recognises cell references but not ranges', () => {
     expect(isCellReference('$B$2')).toBe(true);
