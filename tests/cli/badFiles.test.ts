@@ -147,7 +147,11 @@ beforeAll(async () => {
     'tag,bus,kind\n"M1,LV,motor\n',
     /line 2, character 1: a quoted field is never closed/,
   );
-  add('header-only.csv', 'tag,bus,kind,p_kw\n', /row 1: the list has a header row but no equipment rows below it/);
+  add(
+    'header-only.csv',
+    'tag,bus,kind,p_kw\n',
+    /row 1: the list has a header row but no equipment rows below it/,
+  );
   add(
     'bad-rows.csv',
     'tag,bus,kind,p_kw,eff,cos_phi\nM1,LV,motor,75,0.95,1.3\nM2,LV,heater,1,1,1\n,LV,load,5,,0.9\nM3,LV,motor,abc,0.9,0.8\n',
