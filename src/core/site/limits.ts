@@ -102,3 +102,16 @@ export function siteSizeProblems(site: Site): Problem[] {
     out.push(error({}, `the site has ${tooManyText('buses', buses.size, MAX_BUSES)}`));
   return out;
 }
+
+/**
+ * Equipment rows of a workbook: the rows below the header of its equipment sheets (named by the
+ * caller: the workbook builder's layout), for the doors that open a workbook rather than a list.
+ */
+export function workbookEquipmentRows(
+  sheets: ReadonlyArray<{ readonly name: string; readonly cells: readonly unknown[] }>,
+  equipmentSheets: readonly string[],
+): number {
+  let rows = 0;
+  for (const s of sheets) if (equipmentSheets.includes(s.name)) rows += Math.max(0, s.cells.length - 1);
+  return rows;
+}

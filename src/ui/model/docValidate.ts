@@ -3,7 +3,14 @@
 import type { ColumnInfo, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { a1 } from './address.ts';
 import { MAX_SHEET_NAME } from './sheetNames.ts';
-import { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../../core/site/limits.ts';
+import {
+  MAX_EQUIPMENT_ROWS,
+  MAX_SHEET_COLUMNS,
+  MAX_SHEET_ROWS,
+  tooManyText,
+  workbookEquipmentRows,
+} from '../../core/site/limits.ts';
+import { EQUIPMENT_SHEETS } from '../../core/workbook/buildLayout.ts';
 
 /** Rows and columns are the engine's limits (the supported size, src/core/site/limits.ts). */
 export const LIMITS = {
@@ -93,6 +100,14 @@ export function workbookProblems(doc: unknown): string[] {
     checkCells(name, s.cells, out);
     checkColumns(name, s.columns, out);
   });
+  if (out.length === 0) {
+    const rows = workbookEquipmentRows(
+      sheets as Array<{ name: string; cells: unknown[] }>,
+      EQUIPMENT_SHEETS.map((l) => l.sheet),
+    );
+    if (rows > MAX_EQUIPMENT_ROWS)
+      out.push(`The workbook has ${tooManyText('equipment rows', rows, MAX_EQUIPMENT_ROWS)}.`);
+  }
   return out;
 }
 
