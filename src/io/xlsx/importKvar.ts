@@ -175,7 +175,7 @@ export async function importKvarXlsx(
   if (meta) {
     const m = fromMeta(wb, meta, date1904);
     doc = m.doc;
-    notes.push(...m.notes);
+    for (const n of m.notes) notes.push(n);
     restored = m.notes.length > 0 ? 'partly' : 'restored';
     scope = m.fresh;
   } else doc = plainDoc(wb, date1904);
