@@ -35,8 +35,11 @@ export function installEditHandlers(host: EditHost): void {
       if (!ch) continue;
       const [row, prop, , next] = ch;
       const col = Number(prop);
-      // As on Enter in other programs: open brackets closed, ';' between arguments read as ','.
-      const content = contentOf(typeof next === 'string' ? completeTypedFormula(next).text : next);
+      // As on Enter in other programs: open brackets closed, ';' between arguments read as ','
+      // (the grid keeps the completed text too, so it and the session agree).
+      const typed = typeof next === 'string' ? completeTypedFormula(next).text : next;
+      if (typed !== next) ch[3] = typed;
+      const content = contentOf(typed);
       if (same(content, session.cellContent(host.sheetId, row, col))) continue;
       cells.push({ row, col, content });
     }
