@@ -1,84 +1,30 @@
-// `kvar-ledger balance <list.csv|book.xlsx|template.json> [--case NAME] [--hz 50|60] [--json]`:
-// the bus balance of one operating case, the compensation designed over all cases, and the
-// warnings. Bad input (unreadable file, a row with an error, an unknown case) exits 1 with every
-// problem said with its row and column.
-import { readFileSync } from 'node:fs';
-import { basename, extname } from 'node:path';
+// `kvar-ledger balance <file> [--case NAME] [site options] [--json]`: the bus balance of one
+// operating case, the compensation designed over all cases, and the warnings. The file is read by
+// the command line's one loader (loadSite.ts): a workbook saved by the app, an xlsx exported by
+// Kvar Ledger, a site file, or an equipment list. Bad input exits 1 with every problem on one
+// line with its row and column; a wrong command line exits 2.
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
-import { readEquipmentFile } from '../io/import/table.ts';
-import { describeProblem } from '../io/xlsx/fileProblem.ts';
+import { loadSite } from './loadSite.ts';
+import { EXIT_HELP, EXIT_OK, inputError, refuseErrors, usageError } from './report.ts';
+import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptions } from './siteOptions.ts';
 import type { Site } from '../core/site/model.ts';
-import { parseEquipmentTable } from '../core/site/parse.ts';
 import type { Problem } from '../core/site/problems.ts';
-import { readSiteFile } from '../core/site/siteFile.ts';
-import { siteFromWorkbook } from '../core/workbook/readSite.ts';
-import { mergeProblems, validateSite } from '../core/site/validate.ts';
-import { resolveCase } from '../core/site/cases.ts';
 import { rollUpAll, SiteStructureError, type BusBalance, type CaseBalance } from '../core/site/rollup.ts';
 import { designCompensation, type CompensationDesign } from '../core/site/compensation.ts';
 
-const USAGE = `usage: kvar-ledger balance <list.csv|book.xlsx|template.json> [--case NAME] [--hz 50|60] [--json]
+const USAGE = `usage: kvar-ledger balance <file> [--case NAME] [site options] [--json]
 The kW and kvar of every bus in one operating case, rolled up to the point of connection,
-with the compensation designed over all cases and its warnings.
-  --case NAME  the operating case to show (default: the first)
-  --hz 50|60   site frequency (overrides the file; a list alone is taken as 50 Hz)
+with the compensation designed over all cases and its warnings. <file> is a workbook saved
+by the app (*.kvar.json), an xlsx exported by Kvar Ledger, a site file (templates/*.json),
+or an equipment list (CSV, or the first sheet of an xlsx).
   --json       print {case, buses, root, compensation, warnings} as JSON
-A CSV or xlsx list carries no settings: the requirement is then taken as cos φ ≥ 0.95.
+${SITE_OPTIONS_HELP}
+${EXIT_HELP}
 `;
 
-/** Requirement assumed for a bare equipment list (common practice: many tariffs start at 0.95). */
-const LIST_REQUIREMENT = { kind: 'cosphi', target: 0.95 } as const;
 const CAUTION =
   'Estimate only: capacitor banks, resonance and overvoltage can hurt people and plant; the final design follows local codes, the utility and a licensed engineer.';
-
-type Loaded = { ok: true; site: Site; problems: Problem[] } | { ok: false; message: string };
-
-async function load(file: string, hz: 50 | 60 | undefined): Promise<Loaded> {
-  let bytes: Uint8Array;
-  try {
-    bytes = readFileSync(file);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    return {
-      ok: false,
-      message: `cannot read ${file}: ${code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a directory' : e instanceof Error ? e.message : String(e)}`,
-    };
-  }
-  if (extname(file).toLowerCase() === '.json') {
-    const { site, problems } = readSiteFile(new TextDecoder().decode(bytes));
-    const s = hz ? { ...site, settings: { ...site.settings, hz } } : site;
-    return { ok: true, site: s, problems };
-  }
-  if (extname(file).toLowerCase() === '.xlsx') {
-    const own = await siteFromOwnExport(bytes, hz);
-    if (own) return own;
-  }
-  const table = await readEquipmentFile(basename(file), bytes);
-  if (!table.ok) return { ok: false, message: describeProblem(table.problem) };
-  const rows = table.value.rows.map((r) =>
-    r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))),
-  );
-  const parsed = parseEquipmentTable(rows, { decimalComma: table.value.decimalComma });
-  const site: Site = {
-    settings: { name: basename(file), hz: hz ?? 50, cases: parsed.cases, requirement: LIST_REQUIREMENT },
-    equipment: parsed.equipment,
-  };
-  return { ok: true, site, problems: parsed.problems };
-}
-
-/**
- * A workbook exported by Kvar Ledger carries the whole site (its first sheet is the cover, not
- * an equipment list): read the site back from its sheets. undefined = not one of ours.
- */
-async function siteFromOwnExport(bytes: Uint8Array, hz: 50 | 60 | undefined): Promise<Loaded | undefined> {
-  const { importKvarXlsx } = await import('../io/xlsx/index.ts');
-  const imported = await importKvarXlsx(bytes);
-  if (!imported.ok || imported.restored === 'plain') return undefined;
-  const { site, problems } = siteFromWorkbook(imported.doc);
-  const s = hz ? { ...site, settings: { ...site.settings, hz } } : site;
-  return { ok: true, site: s, problems };
-}
 
 function busJson(b: BusBalance) {
   return {
@@ -144,7 +90,7 @@ function toJson(site: Site, bal: CaseBalance, design: CompensationDesign, warnin
 const num = (x: number | null | undefined, d = 1) => (x === null || x === undefined ? '–' : x.toFixed(d));
 
 function table(header: string[], rows: string[][], leftCols = 1): string {
-  const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
+  const widths = header.map((h, i) => rows.reduce((w, r) => Math.max(w, (r[i] ?? '').length), h.length));
   const line = (cells: string[]) =>
     cells
       .map((c, i) => (i < leftCols ? c.padEnd(widths[i] as number) : c.padStart(widths[i] as number)))
@@ -224,61 +170,40 @@ function toText(
 }
 
 export async function run(argv: string[], io: CliIo): Promise<number> {
-  const parsed = parseArgs(argv, { command: 'balance', flags: ['--json'], values: ['--case', '--hz'] });
-  if (!parsed.ok) {
-    io.err(`${parsed.message}\n${USAGE}`);
-    return 1;
-  }
-  const { positional, flags, values } = parsed.args;
+  const parsed = parseArgs(argv, {
+    command: 'balance',
+    flags: ['--json'],
+    values: [...SITE_VALUE_OPTIONS],
+    lists: [...SITE_LIST_OPTIONS],
+  });
+  if (!parsed.ok) return usageError(io, 'balance', parsed.message);
+  const { positional, flags } = parsed.args;
   if (flags.has('--help')) {
     io.out(USAGE);
-    return 0;
+    return EXIT_OK;
   }
-  if (positional.length !== 1) {
-    io.err(
-      `balance: give exactly one file (a .csv or .xlsx equipment list or a .json site file); got ${positional.length}\n${USAGE}`,
+  if (positional.length !== 1)
+    return usageError(
+      io,
+      'balance',
+      `balance: give exactly one file (a workbook, a site file or an equipment list); got ${positional.length}`,
     );
-    return 1;
-  }
   const file = positional[0] as string;
-  const hzText = values.get('--hz');
-  if (hzText !== undefined && hzText !== '50' && hzText !== '60') {
-    io.err(`balance: --hz must be 50 or 60; got "${hzText}"\n`);
-    return 1;
-  }
-  const loaded = await load(file, hzText === undefined ? undefined : (Number(hzText) as 50 | 60));
-  if (!loaded.ok) {
-    io.err(`balance: ${loaded.message}\n`);
-    return 1;
-  }
-  const { site } = loaded;
-  // A file that could not be read at all has no rows to validate; say only why it could not.
-  const unreadable = site.equipment.length === 0 && loaded.problems.some((p) => p.severity === 'error');
-  const problems = mergeProblems(loaded.problems, unreadable ? [] : validateSite(site));
-  const errors = problems.filter((p) => p.severity === 'error');
-  if (errors.length > 0) {
-    io.err(
-      `balance: ${file} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was balanced:\n` +
-        problems.map((p) => `  ${p.severity}: ${p.message}\n`).join(''),
-    );
-    return 1;
-  }
-  const caseName = values.get('--case') ?? (site.settings.cases[0] as string);
-  const found = resolveCase(site.settings.cases, caseName);
-  if (found === undefined) {
-    io.err(
-      `balance: --case "${caseName}" is not a case of ${file}; its cases are ${site.settings.cases.join(', ')}\n`,
-    );
-    return 1;
-  }
+  const options = readSiteOptions(parsed.args);
+  if (!options.ok) return usageError(io, 'balance', `balance: ${options.message}`);
+  const loaded = await loadSite(file, options.options);
+  if (!loaded.ok)
+    return loaded.usage
+      ? usageError(io, 'balance', `balance: ${loaded.message}`)
+      : inputError(io, 'balance', loaded.message);
+  const { site, problems, caseName: found } = loaded.loaded;
+  if (problems.some((p) => p.severity === 'error'))
+    return refuseErrors(io, 'balance', file, problems, 'nothing was balanced');
   let balances: CaseBalance[];
   try {
     balances = rollUpAll(site);
   } catch (e) {
-    if (e instanceof SiteStructureError) {
-      io.err(`balance: ${file}: ${e.message}\n`);
-      return 1;
-    }
+    if (e instanceof SiteStructureError) return inputError(io, 'balance', `${file}: ${e.message}`);
     throw e;
   }
   const bal = balances.find((b) => b.case === found) as CaseBalance;
@@ -293,5 +218,5 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
       ? JSON.stringify(toJson(site, bal, design, warnings), null, 2) + '\n'
       : toText(site, bal, design, warnings),
   );
-  return 0;
+  return EXIT_OK;
 }

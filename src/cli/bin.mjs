@@ -4,5 +4,6 @@
 import { register } from 'tsx/esm/api';
 
 register();
-const { main, processIo } = await import('./main.ts');
+const { main, processIo, guardPipes } = await import('./main.ts');
+guardPipes();
 process.exitCode = await main(process.argv.slice(2), processIo);

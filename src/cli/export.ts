@@ -1,131 +1,96 @@
-// `kvar-ledger export <list.csv|list.xlsx|template.json> <out.xlsx>`: build the full workbook in
-// its portable form (catalogue and classic functions only) and write the hand-off xlsx. Bad input
-// exits 1 with every problem said with its row and column; nothing is written then.
-import { readFileSync, writeFileSync } from 'node:fs';
-import { basename, extname } from 'node:path';
-import type { Site } from '../core/site/model.ts';
-import { parseEquipmentTable } from '../core/site/parse.ts';
-import type { Problem } from '../core/site/problems.ts';
-import { readSiteFile } from '../core/site/siteFile.ts';
-import { mergeProblems, validateSite } from '../core/site/validate.ts';
+// `kvar-ledger export <file> <out.xlsx> [site options]`: build the full workbook in its portable
+// form (catalogue and classic functions only) and write the hand-off xlsx. The file is read by
+// the command line's one loader (loadSite.ts), as `balance` reads it. Bad input exits 1 with
+// every problem on one line with its row and column, and nothing is written; a wrong command
+// line exits 2.
+import { writeFileSync } from 'node:fs';
+import { extname } from 'node:path';
 import { buildWorkbook } from '../core/workbook/build.ts';
-import { readEquipmentFile } from '../io/import/table.ts';
-import { describeProblem } from '../io/xlsx/fileProblem.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
+import { loadSite } from './loadSite.ts';
+import { EXIT_HELP, EXIT_OK, inputError, problemLines, refuseErrors, usageError } from './report.ts';
+import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptions } from './siteOptions.ts';
 
-const USAGE = `usage: kvar-ledger export <list.csv|list.xlsx|template.json> <out.xlsx>
+const USAGE = `usage: kvar-ledger export <file> <out.xlsx> [site options]
 Builds the whole workbook (site settings, one sheet per equipment class, buses, compensation)
 and writes it as an xlsx whose formulas stay live in any spreadsheet program: catalogue
 functions written out as classic functions, results cached, a cover and a functions sheet.
-A CSV or xlsx list carries no settings: 50 Hz and cos φ ≥ 0.95 are then assumed.
+<file> is a workbook saved by the app (*.kvar.json; the banks typed on its Compensation sheet
+are kept), an xlsx exported by Kvar Ledger, a site file (templates/*.json), or an equipment
+list (CSV, or the first sheet of an xlsx).
+${SITE_OPTIONS_HELP}
+${EXIT_HELP}
 `;
 
-/** Requirement assumed for a bare equipment list (common practice: many tariffs start at 0.95). */
-const LIST_REQUIREMENT = { kind: 'cosphi', target: 0.95 } as const;
-
-type Loaded = { ok: true; site: Site; problems: Problem[] } | { ok: false; message: string };
-
-function readBytes(file: string): Uint8Array | string {
-  try {
-    return readFileSync(file);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    return code === 'ENOENT'
-      ? 'no such file'
-      : code === 'EISDIR'
-        ? 'it is a directory'
-        : e instanceof Error
-          ? e.message
-          : String(e);
-  }
-}
-
-async function loadSite(file: string): Promise<Loaded> {
-  const bytes = readBytes(file);
-  if (typeof bytes === 'string') return { ok: false, message: `cannot read ${file}: ${bytes}` };
-  if (extname(file).toLowerCase() === '.json') {
-    const { site, problems } = readSiteFile(new TextDecoder().decode(bytes));
-    return { ok: true, site, problems };
-  }
-  const table = await readEquipmentFile(basename(file), bytes);
-  if (!table.ok) return { ok: false, message: describeProblem(table.problem) };
-  const rows = table.value.rows.map((r) =>
-    r.map((c) => (c === null ? '' : typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c))),
-  );
-  const parsed = parseEquipmentTable(rows, { decimalComma: table.value.decimalComma });
-  const name = basename(file, extname(file));
-  return {
-    ok: true,
-    site: {
-      settings: { name, hz: 50, cases: parsed.cases, requirement: LIST_REQUIREMENT },
-      equipment: parsed.equipment,
-    },
-    problems: parsed.problems,
-  };
-}
-
 export async function run(argv: string[], io: CliIo): Promise<number> {
-  const parsed = parseArgs(argv, { command: 'export' });
-  if (!parsed.ok) {
-    io.err(`${parsed.message}\n${USAGE}`);
-    return 1;
-  }
+  const parsed = parseArgs(argv, {
+    command: 'export',
+    values: [...SITE_VALUE_OPTIONS],
+    lists: [...SITE_LIST_OPTIONS],
+  });
+  if (!parsed.ok) return usageError(io, 'export', parsed.message);
   if (parsed.args.flags.has('--help')) {
     io.out(USAGE);
-    return 0;
+    return EXIT_OK;
   }
   const [input, output, ...extra] = parsed.args.positional;
-  if (input === undefined || output === undefined || extra.length > 0) {
-    io.err(
-      `export: give an input file and an output .xlsx; got ${parsed.args.positional.length} argument(s)\n${USAGE}`,
+  if (input === undefined || output === undefined || extra.length > 0)
+    return usageError(
+      io,
+      'export',
+      `export: give an input file and an output .xlsx; got ${parsed.args.positional.length} argument(s)`,
     );
-    return 1;
-  }
-  if (extname(output).toLowerCase() !== '.xlsx') {
-    io.err(`export: the output file must end in .xlsx; got "${output}" (argument 2)\n`);
-    return 1;
-  }
-  const loaded = await loadSite(input);
-  if (!loaded.ok) {
-    io.err(`export: ${loaded.message}\n`);
-    return 1;
-  }
-  const unreadable =
-    loaded.site.equipment.length === 0 && loaded.problems.some((p) => p.severity === 'error');
-  const problems = mergeProblems(loaded.problems, unreadable ? [] : validateSite(loaded.site));
-  const errors = problems.filter((p) => p.severity === 'error');
-  if (errors.length > 0) {
-    io.err(
-      `export: ${input} has ${errors.length} error${errors.length === 1 ? '' : 's'}; nothing was written:\n` +
-        errors.map((p) => `  error: ${p.message}\n`).join(''),
+  if (extname(output).toLowerCase() !== '.xlsx')
+    return usageError(
+      io,
+      'export',
+      `export: the output file must end in .xlsx; got "${output}" (argument 2)`,
     );
-    return 1;
-  }
-  const doc = buildWorkbook(loaded.site, { flavour: 'portable' });
+  const options = readSiteOptions(parsed.args);
+  if (!options.ok) return usageError(io, 'export', `export: ${options.message}`);
+  const loaded = await loadSite(input, options.options);
+  if (!loaded.ok)
+    return loaded.usage
+      ? usageError(io, 'export', `export: ${loaded.message}`)
+      : inputError(io, 'export', loaded.message);
+  const { site, problems, banks } = loaded.loaded;
+  if (problems.some((p) => p.severity === 'error'))
+    return refuseErrors(io, 'export', input, problems, 'nothing was written');
+  const keep = banks.length > 0 ? { banks } : {};
+  const doc = buildWorkbook(site, { flavour: 'portable', ...keep });
   // The xlsx library loads only for this command.
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
   // Cached results come from the live flavour (same layout, same values, one fast roll-up).
-  const live = buildWorkbook(loaded.site, { flavour: 'live' });
-  const report = await exportWorkbookXlsxWithReport(doc, {
-    settings: loaded.site.settings,
-    valuesFrom: live,
-  });
+  const live = buildWorkbook(site, { flavour: 'live', ...keep });
+  const report = await exportWorkbookXlsxWithReport(doc, { settings: site.settings, valuesFrom: live });
   try {
     writeFileSync(output, report.bytes);
   } catch (e) {
-    io.err(`export: cannot write ${output}: ${e instanceof Error ? e.message : String(e)}\n`);
-    return 1;
+    const code = (e as NodeJS.ErrnoException).code;
+    const why =
+      code === 'ENOENT'
+        ? 'its folder does not exist'
+        : code === 'EACCES' || code === 'EPERM'
+          ? 'permission denied'
+          : code === 'EISDIR'
+            ? 'it is a directory'
+            : e instanceof Error
+              ? e.message
+              : String(e);
+    return inputError(io, 'export', `cannot write ${output}: ${why}`);
   }
-  for (const w of problems.filter((p) => p.severity === 'warning')) io.err(`  warning: ${w.message}\n`);
-  for (const i of report.issues) io.err(`  note: ${i.where}: ${i.message}\n`);
-  const cells = doc.sheets.reduce(
-    (n, s) =>
-      n + s.cells.reduce((m, r) => m + r.filter((c) => typeof c === 'string' && c.startsWith('=')).length, 0),
-    0,
+  const notes = problemLines(
+    input,
+    problems.filter((p) => p.severity !== 'error'),
   );
+  for (const line of notes) io.err(`${line}\n`);
+  for (const i of report.issues) io.err(`${output}: note: ${i.where}: ${i.message}\n`);
+  let cells = 0;
+  for (const s of doc.sheets)
+    for (const r of s.cells) for (const c of r) if (typeof c === 'string' && c.startsWith('=')) cells++;
   io.out(
     `wrote ${output}: ${doc.sheets.length} sheets, ${cells} live formulas, ${report.catalogueFunctions.length} catalogue functions written out\n`,
   );
-  return 0;
+  return EXIT_OK;
 }

@@ -2,16 +2,19 @@
 // and allowed values, defaults, result units, descriptions and sources. `--md` writes the
 // generated reference FUNCTIONS.md (npm run functions:md).
 import { CATALOGUE } from '../core/functions/index.ts';
+import { ARGUMENT_RULES } from '../core/registry/expand.ts';
 import { formatNumber } from '../core/registry/messages.ts';
 import { functionReference, type ExampleReference, type FunctionReference } from '../io/formula/reference.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
+import { EXIT_HELP, usageError } from './report.ts';
 
 const USAGE = `usage: kvar-ledger functions [--json | --md]
 Lists the function catalogue: signature, arguments with units, allowed values and defaults,
 result unit, description and source.
   --json   print an array of function descriptions
   --md     print the Markdown reference (FUNCTIONS.md)
+${EXIT_HELP}
 `;
 
 export const GENERATED_LINE =
@@ -73,6 +76,14 @@ function markdownReference(refs: readonly FunctionReference[]): string {
     out.push(`- ${family}: ${members.map((r) => `[${r.name}](#${anchor(r.name)})`).join(', ')}`);
   }
   out.push('');
+  out.push(
+    '## How arguments are read',
+    '',
+    'The same rules hold in the app and in the plain formulas of an exported xlsx, so another spreadsheet program shows the same value or #N/A in every cell:',
+    '',
+    ...ARGUMENT_RULES.map((r) => `- ${r}`),
+    '',
+  );
   for (const [family, members] of families) {
     out.push(`## ${family}`, '');
     for (const r of members) {
@@ -105,23 +116,16 @@ function markdownReference(refs: readonly FunctionReference[]): string {
 
 export async function run(argv: string[], io: CliIo): Promise<number> {
   const parsed = parseArgs(argv, { command: 'functions', flags: ['--json', '--md'] });
-  if (!parsed.ok) {
-    io.err(`${parsed.message}\n${USAGE}`);
-    return 1;
-  }
+  if (!parsed.ok) return usageError(io, 'functions', parsed.message);
   const { flags, positional } = parsed.args;
   if (flags.has('--help')) {
     io.out(USAGE);
     return 0;
   }
-  if (positional.length > 0) {
-    io.err(`functions: takes no arguments; got "${positional[0]}"\n${USAGE}`);
-    return 1;
-  }
-  if (flags.has('--json') && flags.has('--md')) {
-    io.err(`functions: give either --json or --md, not both\n${USAGE}`);
-    return 1;
-  }
+  if (positional.length > 0)
+    return usageError(io, 'functions', `functions: takes no arguments; got "${positional[0]}"`);
+  if (flags.has('--json') && flags.has('--md'))
+    return usageError(io, 'functions', 'functions: give either --json or --md, not both');
   const refs = CATALOGUE.map(functionReference);
   if (flags.has('--json')) io.out(JSON.stringify(refs, null, 2) + '\n');
   else if (flags.has('--md')) io.out(markdownReference(refs));

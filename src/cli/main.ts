@@ -4,11 +4,12 @@ import { readFileSync, realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { COMMANDS } from './commands.ts';
 import type { CliIo } from './io.ts';
+import { EXIT_HELP, EXIT_INPUT, EXIT_OK, EXIT_USAGE, oneLine } from './report.ts';
 
 function usage(): string {
   const width = Math.max(...Object.keys(COMMANDS).map((n) => n.length));
   const lines = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(width)}  ${c.summary}`);
-  return `usage: kvar-ledger <command> [options]\ncommands:\n${lines.join('\n')}\nkvar-ledger <command> --help shows a command's options.\n`;
+  return `usage: kvar-ledger <command> [options]\ncommands:\n${lines.join('\n')}\nkvar-ledger <command> --help shows a command's options.\n${EXIT_HELP}\n`;
 }
 
 function version(): string {
@@ -21,32 +22,52 @@ function version(): string {
 export async function main(argv: string[], io: CliIo): Promise<number> {
   const [name, ...rest] = argv;
   if (name === undefined) {
-    io.err(`no command given\n${usage()}`);
-    return 1;
+    io.err(
+      `kvar-ledger: no command given; commands: ${Object.keys(COMMANDS).join(', ')} (see kvar-ledger --help)\n`,
+    );
+    return EXIT_USAGE;
   }
   if (name === '--help' || name === '-h' || name === 'help') {
     io.out(usage());
-    return 0;
+    return EXIT_OK;
   }
   if (name === '--version') {
     io.out(version());
-    return 0;
+    return EXIT_OK;
   }
   const entry = Object.hasOwn(COMMANDS, name) ? COMMANDS[name] : undefined;
   if (!entry) {
-    io.err(`unknown command "${name}"; commands: ${Object.keys(COMMANDS).join(', ')}\n${usage()}`);
-    return 1;
+    io.err(
+      `kvar-ledger: unknown command "${oneLine(name)}"; commands: ${Object.keys(COMMANDS).join(', ')} (see kvar-ledger --help)\n`,
+    );
+    return EXIT_USAGE;
   }
   try {
     const { run } = await entry.load();
     return await run(rest, io);
   } catch (e) {
-    // A failure inside a command is a defect, not bad input: say so, with the stack for a report.
+    // A failure inside a command is a defect, not bad input. The user gets one line; the stack
+    // only when asked for (KVAR_LEDGER_DEBUG=1), for a report.
+    const debug = process.env.KVAR_LEDGER_DEBUG === '1';
+    const what = e instanceof Error ? e.message : String(e);
     io.err(
-      `kvar-ledger ${name}: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`,
+      `kvar-ledger ${name}: internal error: ${oneLine(what)}; nothing was written (please report it; KVAR_LEDGER_DEBUG=1 shows where it happened)\n` +
+        (debug && e instanceof Error && e.stack ? `${e.stack}\n` : ''),
     );
-    return 2;
+    return EXIT_INPUT;
   }
+}
+
+/**
+ * A closed pipe (kvar-ledger … | head) is not an error to report: stop writing quietly instead
+ * of dying with an EPIPE stack trace.
+ */
+export function guardPipes(): void {
+  for (const stream of [process.stdout, process.stderr])
+    stream.on('error', (e: NodeJS.ErrnoException) => {
+      if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+      throw e;
+    });
 }
 
 export const processIo: CliIo = {
@@ -65,4 +86,7 @@ function isEntryPoint(): boolean {
   }
 }
 
-if (isEntryPoint()) process.exitCode = await main(process.argv.slice(2), processIo);
+if (isEntryPoint()) {
+  guardPipes();
+  process.exitCode = await main(process.argv.slice(2), processIo);
+}

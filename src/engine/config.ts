@@ -2,6 +2,7 @@
 // build gets its settings from here, so a value computed in the grid, printed by the CLI and
 // cached in an export is the same number.
 import type { ConfigParams } from 'hyperformula';
+import { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../core/site/limits.ts';
 
 /**
  * The engine is used under the GPL v3 (the whole program is GPL-3.0-only). Without a key every
@@ -34,6 +35,10 @@ export const ENGINE_LANGUAGE = 'enGB';
  *
  * useArrayArithmetic: false. Catalogue functions take one value per argument and report a range
  * as a clear error; spilling arrays from ordinary formulas is not something the workbook uses.
+ *
+ * maxRows / maxColumns: the engine's own default (40,000 rows) is below the supported site size;
+ * an equipment sheet of 50,000 rows threw "Sheet size limit exceeded". The limits are the ones
+ * every door checks (src/core/site/limits.ts), so a workbook that passed the door fits.
  */
 const SHARED: Partial<ConfigParams> = {
   licenseKey: ENGINE_LICENSE_KEY,
@@ -41,6 +46,8 @@ const SHARED: Partial<ConfigParams> = {
   smartRounding: false,
   useArrayArithmetic: false,
   evaluateNullToZero: true,
+  maxRows: MAX_SHEET_ROWS,
+  maxColumns: MAX_SHEET_COLUMNS,
 };
 
 /** Engine settings, with optional overrides for a caller that knows why it needs them. */

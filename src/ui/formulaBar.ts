@@ -9,6 +9,8 @@ import { unitOf } from './format/columnHeader.ts';
 import { rangeLabel, sheetRef } from './model/address.ts';
 import type { WorkbookSession } from './model/session.ts';
 import { editText, typedContent } from './model/typedInput.ts';
+import { completeTypedFormula } from '../io/formula/entry.ts';
+import { parseFormula } from '../io/formula/parse.ts';
 import type { Selection } from './grid/gridView.ts';
 import type { FormulaAssist } from './autocomplete/formulaAssist.ts';
 
@@ -19,6 +21,16 @@ export interface FormulaBarHost {
   hasHeaderRow(sheetId: number): boolean;
   /** Give the keyboard back to the grid. */
   returnFocus(): void;
+}
+
+/**
+ * For a formula the engine cannot read, our parser's message in words (where, what is expected,
+ * why ';' is not read) instead of the engine's parser dump; undefined for anything else.
+ */
+export function readMessage(content: unknown): string | undefined {
+  if (typeof content !== 'string' || !content.startsWith('=')) return undefined;
+  const parsed = parseFormula(content);
+  return parsed.ok ? undefined : `the formula cannot be read: ${parsed.message}`;
 }
 
 export class FormulaBar {
@@ -98,7 +110,11 @@ export class FormulaBar {
     }
     this.value.classList.toggle('is-error', view.kind === 'error');
     this.problem.hidden = !view.error;
-    this.problem.textContent = view.error ? `${view.error.code}  ${view.error.message}` : '';
+    const unread =
+      view.error?.code === '#ERROR!'
+        ? readMessage(session.cellContent(sel.sheetId, sel.row, sel.col))
+        : undefined;
+    this.problem.textContent = view.error ? `${view.error.code}  ${unread ?? view.error.message}` : '';
   }
 
   /** While the cell editor is open, the bar shows the text being typed. */
@@ -120,7 +136,8 @@ export class FormulaBar {
   private commit(): void {
     const sel = this.sel;
     if (!sel) return;
-    const content = typedContent(this.input.value);
+    // Brackets left open are closed and ';' between arguments read as ',', as on Enter elsewhere.
+    const content = typedContent(completeTypedFormula(this.input.value).text);
     this.host.session.setCells(sel.sheetId, [{ row: sel.row, col: sel.col, content }]);
     this.original = this.input.value;
   }

@@ -181,30 +181,35 @@ describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {
     expect(r.code).toBe(1);
     expect(r.out).toBe('');
     // The unknown kind keeps row 3 out, so its duplicate tag is not reported as well.
-    expect(r.err).toContain('has 3 errors; nothing was balanced');
-    expect(r.err).toContain(
-      'row 2, column cos_phi: KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3',
-    );
-    expect(r.err).toContain('row 3, column kind: kind must be one of');
-    expect(r.err).toContain('row 4, column tag: tag is blank');
+    const lines = r.err.trimEnd().split('\n');
+    expect(lines[0]).toBe(`kvar-ledger balance: ${csv} has 3 errors; nothing was balanced`);
+    // One line per error, in the file's order, naming the file, the row and the column as the
+    // page's import names them (letter and header).
+    expect(lines.slice(1)).toEqual([
+      `${csv}: row 2, column F (cos_phi): KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3`,
+      `${csv}: row 3, column C (kind): kind must be one of motor, load, generator, transformer, cable, line, capacitor, reactor; got "heater"`,
+      `${csv}: row 4, column A (tag): tag is blank; every item needs a unique tag`,
+    ]);
   });
-  it('a missing file, an unreadable site file, an unknown case, a bad --hz, an unknown option, no file', async () => {
-    const cases: Array<[string[], RegExp]> = [
-      [[join(tmp, 'nope.csv')], /cannot read .*nope\.csv: no such file/],
-      [[join(tmp, 'broken.json')], /the site file is not valid JSON at line 1/],
+  it('a missing file, an unreadable site file (exit 1); an unknown case, a bad --hz, an unknown option, no file (exit 2)', async () => {
+    const cases: Array<[string[], number, RegExp]> = [
+      [[join(tmp, 'nope.csv')], 1, /cannot read .*nope\.csv: no such file/],
+      [[join(tmp, 'broken.json')], 1, /the site file is not valid JSON at line 1/],
       [
         [COLD, '--case', 'spring'],
+        2,
         /--case "spring" is not a case of .*; its cases are summer-day, winter-night/,
       ],
-      [[COLD, '--hz', '55'], /--hz must be 50 or 60; got "55"/],
-      [[COLD, '--colour'], /unknown option --colour/],
-      [[], /give exactly one file/],
+      [[COLD, '--hz', '55'], 2, /--hz must be 50 or 60; got "55"/],
+      [[COLD, '--colour'], 2, /unknown option --colour/],
+      [[], 2, /give exactly one file/],
     ];
     writeFileSync(join(tmp, 'broken.json'), '{"format": kvar}');
-    for (const [argv, message] of cases) {
+    for (const [argv, code, message] of cases) {
       const r = await balance(...argv);
-      expect(r.code, argv.join(' ')).toBe(1);
+      expect(r.code, argv.join(' ')).toBe(code);
       expect(r.err).toMatch(message);
+      expect(r.err.trimEnd().split('\n'), r.err).toHaveLength(1);
     }
   });
   it('an empty or corrupt list file', async () => {

@@ -28,10 +28,10 @@ function cli(...args: string[]): Promise<Run> {
 }
 
 describe('kvar-ledger eval', () => {
-  it('--json gives a value and an error with our message', async () => {
+  it('--json gives a value and an error with our message; an error value exits 1', async () => {
     const r = await cli('eval', '=KVAR.MOTOR(75,0.95,0.86)', '=KVAR.LOAD(50,1.2)', '--json');
-    expect(r.stderr).toBe('');
-    expect(r.code).toBe(0);
+    expect(r.stderr).toBe('kvar-ledger eval: 1 of 2 formulas gives an error value (shown above)\n');
+    expect(r.code).toBe(1);
     const out = JSON.parse(r.stdout) as Array<Record<string, unknown>>;
     // At full load Q = Qr = P_out/η · tan(acos cos φ) (KVAR.MOTOR in FUNCTIONS.md).
     const qr = (75 / 0.95) * (Math.sqrt(1 - 0.86 ** 2) / 0.86);
@@ -47,7 +47,9 @@ describe('kvar-ledger eval', () => {
 
   it('prints one line per formula without --json; "=" may be left out', async () => {
     const r = await cli('eval', 'KVA.TOTAL(300,400)', '=TANPHI(0,1)', '=KVAR.LOAD(400,0.8,TRUE)');
-    expect(r.code).toBe(0);
+    expect(r.code).toBe(1);
+    const ok = await cli('eval', 'KVA.TOTAL(300,400)');
+    expect(ok).toEqual({ code: 0, stdout: 'KVA.TOTAL(300,400) → 500\n', stderr: '' });
     const lines = r.stdout.trimEnd().split('\n');
     expect(lines[0]).toBe('KVA.TOTAL(300,400) → 500');
     expect(lines[1]).toBe('=TANPHI(0,1) → #N/A TANPHI: argument 1 (p_kw) must not be 0; got 0');
@@ -56,7 +58,7 @@ describe('kvar-ledger eval', () => {
     );
   });
 
-  it('exits 1 on bad input with a message saying what and where', async () => {
+  it('exits 2 on a wrong command line and 1 on an unreadable formula, saying what and where', async () => {
     const [badOption, none, parse, both, unknown] = await Promise.all([
       cli('eval', '--jsn', '=1'),
       cli('eval', '--json'),
@@ -64,18 +66,30 @@ describe('kvar-ledger eval', () => {
       cli('functions', '--json', '--md'),
       cli('tally'),
     ]);
-    expect(badOption).toMatchObject({ code: 1, stdout: '' });
+    expect(badOption).toMatchObject({ code: 2, stdout: '' });
     expect(badOption.stderr).toContain('eval: unknown option --jsn (argument 1); allowed: --json, --help');
-    expect(none).toMatchObject({ code: 1, stdout: '' });
+    expect(none).toMatchObject({ code: 2, stdout: '' });
     expect(none.stderr).toContain('eval: no formula given');
     expect(parse).toMatchObject({ code: 1, stdout: '' });
     expect(parse.stderr).toContain(
       'eval: formula 2 (=KVA.TOTAL(3,): the formula ends too early (after character 13)',
     );
-    expect(both).toMatchObject({ code: 1, stdout: '' });
+    expect(both).toMatchObject({ code: 2, stdout: '' });
     expect(both.stderr).toContain('give either --json or --md, not both');
-    expect(unknown).toMatchObject({ code: 1, stdout: '' });
+    expect(unknown).toMatchObject({ code: 2, stdout: '' });
     expect(unknown.stderr).toContain('unknown command "tally"; commands: eval, functions');
+  });
+});
+
+describe('kvar-ledger eval and ";"', () => {
+  it('reads ";" between arguments as "," when no "," is anywhere, and explains it otherwise', async () => {
+    const ok = await cli('eval', '=KVA.TOTAL(300;400)');
+    expect(ok).toEqual({ code: 0, stdout: '=KVA.TOTAL(300;400) → 500\n', stderr: '' });
+    const mixed = await cli('eval', '=KVAR.LOAD(50;0,9)');
+    expect(mixed.code).toBe(1);
+    expect(mixed.stderr).toBe(
+      'kvar-ledger eval: formula 1 (=KVAR.LOAD(50;0,9)): ";" at character 14 is not read here: arguments are separated by "," and decimals written with "." (as in spreadsheet programs set to English: SUM(1,2.5), not SUM(1;2,5))\n',
+    );
   });
 });
 

@@ -56,7 +56,7 @@ describe('arguments as the engine hands them over', () => {
     expect(one('=KVA.TOTAL(A1,B1)', [[300, null]])).toEqual({
       ok: false,
       error: '#N/A',
-      message: 'KVA.TOTAL: argument 2 (q_kvar) is a blank cell; a value in kvar is required',
+      message: 'KVA.TOTAL: argument 2 (q_kvar) is a blank cell; a number in kvar is required',
     });
   });
   it('text, literal or in a cell, is our message naming the argument', () => {

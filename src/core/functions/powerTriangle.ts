@@ -30,8 +30,8 @@ export const KVA_TOTAL = defineFunction({
     },
     {
       args: [1.5e308, 1.5e308],
-      expect: { error: 'the result is not a finite number' },
-      note: 'beyond the range of floating-point numbers: an error, never a wrong number',
+      expect: { error: 'argument 1 (p_kw) must be 0 or between 1e-30 and 1e+30 in size' },
+      note: 'beyond any physical size (and near the range of floating-point numbers): an error, never a wrong number',
     },
   ],
   compute: ([p, q]) => apparentPower(p as number, q as number),

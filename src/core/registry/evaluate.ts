@@ -1,6 +1,13 @@
 // Argument validation and evaluation of one spec: the single path from raw cell values to a
 // number or an error message. The engine plugin, the CLI and the site roll-up all call this.
-import { isOptional, type Args, type FunctionSpec, type Interval, type ParamSpec } from './spec.ts';
+import {
+  isOptional,
+  MAGNITUDE,
+  type Args,
+  type FunctionSpec,
+  type Interval,
+  type ParamSpec,
+} from './spec.ts';
 import { msg, withFunction } from './messages.ts';
 
 /** What a cell can hand over: null is a blank cell, undefined an argument not given at all. */
@@ -8,6 +15,11 @@ export type RawArg = number | boolean | string | null | undefined;
 
 export type Outcome =
   { readonly ok: true; readonly value: number } | { readonly ok: false; readonly message: string };
+
+export function inMagnitude(x: number): boolean {
+  const a = Math.abs(x);
+  return a === 0 || (a >= MAGNITUDE.min && a <= MAGNITUDE.max);
+}
 
 export function inInterval(x: number, d: Interval | undefined): boolean {
   if (!d) return true;
@@ -30,6 +42,7 @@ function coerceOne(pos: number, p: ParamSpec, raw: RawArg): One {
   if (typeof raw !== 'number' || !Number.isFinite(raw))
     return { ok: false, message: msg.notANumber(pos, p, raw) };
   if (!inInterval(raw, p.domain)) return { ok: false, message: msg.outOfDomain(pos, p, raw) };
+  if (!inMagnitude(raw)) return { ok: false, message: msg.outOfMagnitude(pos, p, raw) };
   return { ok: true, value: raw };
 }
 
@@ -60,7 +73,13 @@ export function evaluate(spec: FunctionSpec, raw: readonly RawArg[]): Outcome {
     for (let i = 0; i < params.length; i++) {
       const p = params[i] as ParamSpec;
       const r = raw[i];
-      if (typeof r === 'number' && p.type !== 'boolean' && Number.isFinite(r) && inInterval(r, p.domain)) {
+      if (
+        typeof r === 'number' &&
+        p.type !== 'boolean' &&
+        Number.isFinite(r) &&
+        inInterval(r, p.domain) &&
+        inMagnitude(r)
+      ) {
         vals[i] = r;
         continue;
       }

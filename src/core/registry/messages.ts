@@ -1,6 +1,6 @@
 // Every message text a catalogue function can produce lives here, so wording stays one voice:
 // "<FUNCTION>: argument <n> (<name>) <what is wrong>; got <value>".
-import type { Interval, ParamSpec } from './spec.ts';
+import { MAGNITUDE, type Interval, type ParamSpec } from './spec.ts';
 
 export function formatNumber(x: number): string {
   if (Number.isNaN(x)) return 'NaN';
@@ -24,6 +24,17 @@ export function mustBe(d: Interval | undefined): string {
   return text.startsWith('(') || text.startsWith('[') ? `must be in ${text}` : `must be ${text}`;
 }
 
+/**
+ * "a number in kW" for a quantity with a unit; for a plain ratio (unit '1') its allowed range
+ * instead, "a number in (0, 1]" or "a number > 0" ("a number in 1" read as garbled).
+ */
+export function numberPhrase(p: ParamSpec): string {
+  if (p.unit !== '1' && p.unit !== '') return `a number in ${p.unit}`;
+  const range = describeInterval(p.domain);
+  if (range === 'any number') return 'a number';
+  return range.startsWith('(') || range.startsWith('[') ? `a number in ${range}` : `a number ${range}`;
+}
+
 export function argLabel(position: number, p: ParamSpec): string {
   return `argument ${position} (${p.name})`;
 }
@@ -39,13 +50,14 @@ export function describeGiven(v: unknown): string {
 export const msg = {
   outOfDomain: (pos: number, p: ParamSpec, v: number) =>
     `${argLabel(pos, p)} ${mustBe(p.domain)}; got ${formatNumber(v)}`,
+  outOfMagnitude: (pos: number, p: ParamSpec, v: number) =>
+    `${argLabel(pos, p)} must be 0 or between ${formatNumber(MAGNITUDE.min)} and ${formatNumber(MAGNITUDE.max)} in size; got ${formatNumber(v)}`,
   notANumber: (pos: number, p: ParamSpec, v: unknown) =>
-    `${argLabel(pos, p)} must be a number in ${p.unit}; got ${describeGiven(v)}`,
+    `${argLabel(pos, p)} must be ${numberPhrase(p)}; got ${describeGiven(v)}`,
   notABoolean: (pos: number, p: ParamSpec, v: unknown) =>
     `${argLabel(pos, p)} must be TRUE or FALSE; got ${describeGiven(v)}`,
   missing: (pos: number, p: ParamSpec) => `${argLabel(pos, p)} is missing`,
-  blank: (pos: number, p: ParamSpec) =>
-    `${argLabel(pos, p)} is a blank cell; a value in ${p.unit} is required`,
+  blank: (pos: number, p: ParamSpec) => `${argLabel(pos, p)} is a blank cell; ${numberPhrase(p)} is required`,
   tooMany: (max: number, got: number) => `takes at most ${max} arguments; got ${got}`,
   tooFew: (min: number, got: number) => `needs at least ${min} arguments; got ${got}`,
   notFinite: (v: number) => `the result is not a finite number (${formatNumber(v)}); check the arguments`,

@@ -2,6 +2,15 @@
 // help panel, autocomplete, validation, tests, plain-formula expansion, generated reference)
 // is derived from a FunctionSpec.
 
+/**
+ * The sizes a number argument may have, besides 0: the rule every catalogue function follows, in
+ * the engine and in its plain-formula expansion alike. No physical input of the catalogue comes
+ * near them, and inside them no step of any expansion overflows or underflows the double range
+ * in any spreadsheet program (outside them the engine's compute and another program's formula
+ * gave different answers: a number against #NUM!).
+ */
+export const MAGNITUDE = { min: 1e-30, max: 1e30 } as const;
+
 /** A closed or open interval; a missing bound is unbounded on that side. */
 export interface Interval {
   readonly lo?: number;

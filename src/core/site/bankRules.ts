@@ -39,6 +39,12 @@ export const LV_MAX_KV = 1;
 /** Steps aimed for: LV controllers commonly have 6 or 12 outputs, MV banks 1–4 stages (common practice). */
 export const PREFERRED_STEPS_LV = 6;
 export const PREFERRED_STEPS_MV = 3;
+/**
+ * Most steps one proposed bank may have (common practice: automatic controllers offer up to 12
+ * outputs). A need beyond MAX_STEPS of the largest step is not sized further: the bank is capped
+ * and the design says why, instead of proposing thousands of steps.
+ */
+export const MAX_STEPS = 12;
 /** A bus whose share of the need stays below this is not given a bank of its own (common practice). */
 export const MIN_BANK_KVAR_LV = 25;
 export const MIN_BANK_KVAR_MV = 300;
@@ -73,13 +79,22 @@ export function roundDownToSeries(q: number, series: readonly number[]): number 
   return out;
 }
 
-/** Smallest standard step that covers q in at most the preferred number of steps for the voltage. */
-export function chooseStep(qKvar: number, uKv: number): { step: number; steps: number } {
+/** The largest bank chooseStep proposes, kvar: MAX_STEPS of the largest step. */
+export const MAX_BANK_KVAR = MAX_STEPS * (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
+
+/**
+ * Smallest standard step that covers q in at most the preferred number of steps for the voltage;
+ * never more than MAX_STEPS steps (`capped` says the bank covers less than q).
+ */
+export function chooseStep(qKvar: number, uKv: number): { step: number; steps: number; capped: boolean } {
   const preferred = isLowVoltage(uKv) ? PREFERRED_STEPS_LV : PREFERRED_STEPS_MV;
   const step =
     STEP_SERIES_KVAR.find((s) => Math.ceil(qKvar / s - 1e-9) <= preferred) ??
     (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
-  return { step, steps: Math.max(1, Math.ceil(qKvar / step - 1e-9)) };
+  const wanted = Math.max(1, Math.ceil(qKvar / step - 1e-9));
+  // NaN or an overflowing need must not become a step count either.
+  if (!(wanted <= MAX_STEPS)) return { step, steps: MAX_STEPS, capped: true };
+  return { step, steps: wanted, capped: false };
 }
 
 /** Rated voltage for capacitors that see uCapKv: LV from the makers' range, MV rounded up to 0.1 kV. */

@@ -9,6 +9,8 @@ import type { BusShortCircuit } from './shortCircuit.ts';
 import {
   DEFAULT_DETUNING_PCT,
   FIXED_SERIES_KVAR,
+  MAX_BANK_KVAR,
+  MAX_STEPS,
   STEP_SERIES_KVAR,
   STEP_VRISE_LIMIT_PCT,
   THIRD_HARMONIC_DETUNING_PCT,
@@ -24,6 +26,7 @@ import {
 import { installedCapacitorKvar, motorCapacitorLimit, soleMotorOf } from './installedChecks.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
+import { grouped } from './limits.ts';
 
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
@@ -131,7 +134,19 @@ export function sizeBank(
   } else {
     fixed = roundDownToSeries(Math.min(feederNoLoadKvar(bus, graph), least), FIXED_SERIES_KVAR);
     const variable = most - fixed;
-    if (variable > 1e-6) ({ step, steps } = chooseStep(variable, uKv));
+    if (variable > 1e-6) {
+      const chosen = chooseStep(variable, uKv);
+      ({ step, steps } = chosen);
+      if (chosen.capped)
+        warnings.push(
+          designWarning(
+            'warning',
+            'bank-capped',
+            { bus },
+            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${MAX_STEPS} × ${step} kvar = ${grouped(MAX_BANK_KVAR)} kvar); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
+          ),
+        );
+    }
     why =
       fixed > 0
         ? "fixed part for the feeding transformer's no-load kvar, automatic steps for the rest"

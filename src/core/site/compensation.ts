@@ -160,7 +160,7 @@ export function designCompensation(
     bal.buses.map((b) => ({ bus: b.bus, case: bal.case, ...kvarNeeded(b.p_kw, b.q_kvar, req) })),
   );
   const taken = new Set(site.equipment.map((r) => r.tag));
-  let nextRow = Math.max(0, ...site.equipment.map((r) => r.row)) + 1;
+  let nextRow = site.equipment.reduce((m, r) => Math.max(m, r.row), 0) + 1;
 
   // Capacitors.
   const rootNeed = before.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);

@@ -131,7 +131,7 @@ function reportLoops(
       const first = rows.reduce((a, r) => (r.row < a.row ? r : a));
       // Start the description at the upstream bus of the first row in the loop.
       const k = downstream.indexOf(first.bus);
-      downstream.push(...downstream.splice(0, k));
+      for (const b of downstream.splice(0, k)) downstream.push(b); // no spread: a loop may be long
       problems.push(
         error(
           { row: first.row, column: 'to_bus', tag: first.tag, bus },

@@ -6,6 +6,7 @@ import type { Requirement } from './model.ts';
 import { runCall } from './calls.ts';
 import { tanFromCos } from '../elements/powerTriangle.ts';
 import { formatNumber } from '../registry/messages.ts';
+import { MAGNITUDE } from '../registry/spec.ts';
 
 export interface Band {
   /** Largest Q/|P| drawn (lagging). */
@@ -31,6 +32,8 @@ export function requirementBand(r: Requirement): Band {
   };
 }
 
+const snap = (x: number): number => (Math.abs(x) < MAGNITUDE.min ? 0 : x);
+
 export interface Need {
   /** Capacitive kvar to add to come down to the lagging limit (0 when within). */
   readonly capacitive_kvar: number;
@@ -44,7 +47,9 @@ export interface Need {
  */
 export function kvarNeeded(pKw: number, qKvar: number, r: Requirement): Need {
   const band = requirementBand(r);
-  const p = Math.abs(pKw);
+  // Totals below the catalogue's smallest size are rounding residue: 0 (the functions refuse them).
+  const p = snap(Math.abs(pKw));
+  qKvar = snap(qKvar);
   const lag =
     r.kind === 'cosphi'
       ? runCall({ fn: 'KVAR.TOPF', args: [p, qKvar, r.target], columns: [] })

@@ -8,8 +8,14 @@ import { branchPower, shuntPower } from './rowPower.ts';
 import { buildBusGraph } from './graph.ts';
 import { error, info, say, warning, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
+import { magnitudeProblems, siteSizeProblems } from './limits.ts';
 import { formatNumber } from '../registry/messages.ts';
 import { unstorableCharacter } from '../text/storable.ts';
+
+/** push(...items) without spreading: a spread of a list of 100,000+ problems overflows the stack. */
+function append<T>(target: T[], items: readonly T[]): void {
+  for (const x of items) target.push(x);
+}
 
 export function validateSite(site: Site): Problem[] {
   const problems: Problem[] = [];
@@ -17,10 +23,13 @@ export function validateSite(site: Site): Problem[] {
     problems.push(error({}, 'the equipment list has no rows; add at least one item'));
     return problems;
   }
-  problems.push(...validateSettings(site));
+  // A site beyond the supported size is refused as a whole, before 100,000s of rows are checked.
+  const size = siteSizeProblems(site);
+  if (size.length > 0) return size;
+  append(problems, validateSettings(site));
   const firstByTag = new Map<string, EquipmentRow>();
   for (const row of site.equipment) {
-    problems.push(...validateRow(row, site));
+    append(problems, validateRow(row, site));
     if (row.tag !== '') {
       const first = firstByTag.get(row.tag);
       if (first)
@@ -31,8 +40,8 @@ export function validateSite(site: Site): Problem[] {
     }
   }
   const okRows = site.equipment.filter((r) => findKind(r.kind) !== undefined && r.bus !== '');
-  problems.push(...buildBusGraph(okRows).problems);
-  problems.push(...busVoltages(okRows).problems);
+  append(problems, buildBusGraph(okRows).problems);
+  append(problems, busVoltages(okRows).problems);
   return dedupe(problems);
 }
 
@@ -94,7 +103,11 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
         `to_bus is used only by transformers and lines; ignored for a ${row.kind} (use kind line for a feeder)`,
       ),
     );
-  out.push(...validateQuantity(row, isBranch, at));
+  append(out, validateQuantity(row, isBranch, at));
+  // An absurd magnitude (1e308 kW, a quantity of a million) stops the row here: the catalogue
+  // calls below would only repeat it as overflow.
+  const absurd = magnitudeProblems(row.values, at);
+  if (absurd.length > 0) return [...out, ...absurd];
 
   const missing = kind.required.filter((c) => row.values[c] === undefined);
   for (const c of missing) out.push(error(at(c), say.missingValue(c, row.kind)));

@@ -13,7 +13,8 @@ export type WarningCode =
   | 'overcompensation'
   | 'charging-dominates'
   | 'bus-voltage-unknown'
-  | 'detuned-and-plain-mixed';
+  | 'detuned-and-plain-mixed'
+  | 'bank-capped';
 
 export interface DesignWarning extends Problem {
   readonly code: WarningCode;

@@ -3,5 +3,5 @@ export { tokenize, significantTokens, type Token, type TokenKind } from './token
 export { parseFormula, type ParseResult } from './parse.ts';
 export { printNode, printFormula } from './print.ts';
 export { isAtomic, type Node, type CallNode, type BinaryOp } from './ast.ts';
-export { expandFormula, referencedFunctions, type ExpandResult } from './expand.ts';
+export { expandFormula, MAX_FORMULA_LENGTH, referencedFunctions, type ExpandResult } from './expand.ts';
 export { callAtCursor, type CallAtCursor } from './cursor.ts';

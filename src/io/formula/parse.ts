@@ -2,7 +2,7 @@
 // precedence (low to high): comparison, &, + -, * /, ^, unary sign, postfix %. Errors say what
 // was found and at which character (1-based, counting the leading '=').
 import type { BinaryOp, Node } from './ast.ts';
-import { significantTokens, type Token } from './tokenize.ts';
+import { significantTokens, type ScanCounter, type Token } from './tokenize.ts';
 
 export type ParseResult =
   | { readonly ok: true; readonly ast: Node }
@@ -19,6 +19,12 @@ class ParseError extends Error {
 
 const COMPARISON: readonly string[] = ['=', '<>', '<', '>', '<=', '>='];
 
+/**
+ * Deepest nesting of brackets, calls and signs read. The parser recurses per level, and far
+ * deeper input would overflow the stack; spreadsheet programs stop at 64 nested calls.
+ */
+export const MAX_PARSE_DEPTH = 200;
+
 function describe(t: Token): string {
   if (t.kind === 'string') return `text ${t.text.length > 20 ? t.text.slice(0, 20) + '…' : t.text}`;
   return `"${t.text}"`;
@@ -26,6 +32,7 @@ function describe(t: Token): string {
 
 class Parser {
   private i = 0;
+  private depth = 0;
   constructor(
     private readonly tokens: readonly Token[],
     private readonly length: number,
@@ -49,6 +56,11 @@ class Parser {
     if (t.kind === 'string' && t.unterminated)
       return new ParseError(
         `the text starting at character ${t.start + 1} has no closing quote (")`,
+        t.start + 1,
+      );
+    if (t.kind === 'semicolon')
+      return new ParseError(
+        `";" at character ${t.start + 1} is not read here: arguments are separated by "," and decimals written with "." (as in spreadsheet programs set to English: SUM(1,2.5), not SUM(1;2,5))`,
         t.start + 1,
       );
     if (t.kind === 'unknown')
@@ -85,7 +97,18 @@ class Parser {
   }
 
   private expression(): Node {
-    return this.binaryLevel(COMPARISON, () => this.concat());
+    this.enter();
+    const n = this.binaryLevel(COMPARISON, () => this.concat());
+    this.depth--;
+    return n;
+  }
+  private enter(): void {
+    if (++this.depth <= MAX_PARSE_DEPTH) return;
+    const at = (this.peek()?.start ?? this.length) + 1;
+    throw new ParseError(
+      `the formula nests brackets, calls or signs more than ${MAX_PARSE_DEPTH} levels deep (at character ${at}); write inner parts into cells of their own`,
+      at,
+    );
   }
   private concat(): Node {
     return this.binaryLevel(['&'], () => this.additive());
@@ -103,13 +126,20 @@ class Parser {
     const t = this.peek();
     if (this.isOp(t, ['-', '+'])) {
       this.i++;
-      return { type: 'unary', op: (t as Token).text as '-' | '+', arg: this.unary() };
+      this.enter();
+      const arg = this.unary();
+      this.depth--;
+      return { type: 'unary', op: (t as Token).text as '-' | '+', arg };
     }
     let n = this.primary();
+    let percents = 0;
     while (this.isOp(this.peek(), ['%'])) {
+      this.enter(); // each % wraps the value once more: a tree as deep as the signs
+      percents++;
       this.i++;
       n = { type: 'percent', arg: n };
     }
+    this.depth -= percents;
     return n;
   }
 
@@ -178,6 +208,7 @@ class Parser {
   }
 
   private array(open: Token): Node {
+    this.enter();
     const rows: Node[][] = [[]];
     for (;;) {
       (rows[rows.length - 1] as Node[]).push(this.unary());
@@ -188,16 +219,17 @@ class Parser {
         rows.push([]);
       } else {
         this.close(open, 'rbrace', '}');
+        this.depth--;
         return { type: 'array', rows };
       }
     }
   }
 }
 
-/** Parse a formula, with or without its leading '='. Never throws. */
-export function parseFormula(text: string): ParseResult {
+/** Parse a formula, with or without its leading '='. Never throws. `counter` counts characters read. */
+export function parseFormula(text: string, counter?: ScanCounter): ParseResult {
   try {
-    return { ok: true, ast: new Parser(significantTokens(text), text.length).parseFormula() };
+    return { ok: true, ast: new Parser(significantTokens(text, counter), text.length).parseFormula() };
   } catch (e) {
     if (e instanceof ParseError) return { ok: false, message: e.message, position: e.position };
     return {

@@ -32,3 +32,73 @@ export function printNode(n: Node): string {
 export function printFormula(n: Node): string {
   return '=' + printNode(n);
 }
+
+/** Thrown inside printNodeWithin when the text passes its limit. */
+class TooLong extends Error {}
+
+/**
+ * The text of a tree, or undefined when it would be longer than `max` characters. The tree may
+ * share subtrees (an expansion repeats an argument); printing stops at the limit, so the work
+ * is bounded by it however often they repeat. `counter.nodes` counts the nodes printed.
+ */
+export function printNodeWithin(n: Node, max: number, counter?: { nodes: number }): string | undefined {
+  const parts: string[] = [];
+  let length = 0;
+  const put = (t: string) => {
+    length += t.length;
+    if (length > max) throw new TooLong();
+    parts.push(t);
+  };
+  const go = (x: Node): void => {
+    if (counter) counter.nodes++;
+    switch (x.type) {
+      case 'number':
+      case 'error':
+      case 'ref':
+      case 'name':
+        return put(x.text);
+      case 'string':
+        return put(`"${x.value.replace(/"/g, '""')}"`);
+      case 'bool':
+        return put(x.value ? 'TRUE' : 'FALSE');
+      case 'unary':
+        put(x.op);
+        return go(x.arg);
+      case 'percent':
+        go(x.arg);
+        return put('%');
+      case 'binary':
+        go(x.left);
+        put(x.op);
+        return go(x.right);
+      case 'paren':
+        put('(');
+        go(x.inner);
+        return put(')');
+      case 'call':
+        put(`${x.name}(`);
+        x.args.forEach((a, i) => {
+          if (i > 0) put(',');
+          if (a) go(a);
+        });
+        return put(')');
+      case 'array':
+        put('{');
+        x.rows.forEach((r, i) => {
+          if (i > 0) put(';');
+          r.forEach((c, j) => {
+            if (j > 0) put(',');
+            go(c);
+          });
+        });
+        return put('}');
+    }
+  };
+  try {
+    go(n);
+  } catch (e) {
+    if (e instanceof TooLong) return undefined;
+    throw e;
+  }
+  return parts.join('');
+}

@@ -1,6 +1,9 @@
 // Formula tokenizer. Tolerant: it never throws and always covers the whole text, so the formula
 // bar can use it on half-typed input (an unterminated string, an unknown character) and the
 // parser reports such problems with their position.
+import { errorLiteral, name, number, reference, Scanner, spaces, type ScanCounter } from './scan.ts';
+
+export type { ScanCounter } from './scan.ts';
 
 export type TokenKind =
   | 'number' // 12, 0.5, 1e-3
@@ -31,22 +34,6 @@ export interface Token {
   readonly unterminated?: boolean;
 }
 
-const SHEET = String.raw`(?:'(?:[^']|'')+'|[A-Za-z_][A-Za-z0-9_.]*)!`;
-const CELL = String.raw`\$?[A-Za-z]{1,3}\$?[0-9]+`;
-const COL = String.raw`\$?[A-Za-z]{1,3}`;
-const ROW = String.raw`\$?[0-9]+`;
-/** A reference must not run on into a name, a call or a number. */
-const END = String.raw`(?![A-Za-z0-9_.(!])`;
-// Sticky patterns, matched at an index of the whole text: no copy of the rest at every step,
-// so long formulas tokenize in linear time.
-const REF = new RegExp(
-  String.raw`(?:${SHEET})?(?:${CELL}(?::(?:${SHEET})?${CELL})?|${COL}:${COL}|${ROW}:${ROW})${END}`,
-  'y',
-);
-const NUMBER = /(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)(?:[eE][+-]?[0-9]+)?/y;
-const NAME = /[A-Za-z_\\][A-Za-z0-9_.]*/y;
-const ERROR = /#(?:NULL!|DIV\/0!|VALUE!|REF!|NAME\?|NUM!|N\/A|SPILL!|CYCLE!|ERROR!|LIC!|GETTING_DATA)/iy;
-const SPACE = /\s+/y;
 const BOOL = /^(?:TRUE|FALSE)$/i;
 const OPERATORS = ['<>', '<=', '>=', '+', '-', '*', '/', '^', '&', '=', '<', '>', '%'];
 const SINGLE: Readonly<Record<string, TokenKind>> = {
@@ -58,27 +45,14 @@ const SINGLE: Readonly<Record<string, TokenKind>> = {
   '}': 'rbrace',
 };
 
-/** Length of the match of a sticky pattern at `i`, or 0. */
-function matchAt(re: RegExp, text: string, i: number): number {
-  re.lastIndex = i;
-  const m = re.exec(text);
-  return m ? m[0].length : 0;
-}
-
-/** Read a string literal starting at `i` (a double quote). */
-function readString(text: string, i: number): { end: number; unterminated: boolean } {
-  let j = i + 1;
-  while (j < text.length) {
-    if (text[j] === '"') {
-      if (text[j + 1] === '"') j += 2;
-      else return { end: j + 1, unterminated: false };
-    } else j++;
-  }
-  return { end: text.length, unterminated: true };
-}
-
-/** Split formula text into tokens, whitespace included (kind 'space'). */
-export function tokenize(text: string): Token[] {
+/**
+ * Split formula text into tokens, whitespace included (kind 'space'). Linear in the length of
+ * the text: the scanners (scan.ts) read forward only, and what one of them reads without
+ * matching is read again at most once by the scanner that takes it. `counter`, when given,
+ * counts every character read (for tests).
+ */
+export function tokenize(text: string, counter?: ScanCounter): Token[] {
+  const s = new Scanner(text, counter);
   const out: Token[] = [];
   let i = 0;
   const push = (kind: TokenKind, end: number, unterminated = false): void => {
@@ -86,23 +60,21 @@ export function tokenize(text: string): Token[] {
     i = end;
   };
   while (i < text.length) {
-    const c = text[i] as string;
+    const c = s.at(i);
     let n: number;
     if (c === '"') {
-      const s = readString(text, i);
-      push('string', s.end, s.unterminated);
-    } else if ((n = matchAt(SPACE, text, i))) push('space', i + n);
-    else if (c === '#' && (n = matchAt(ERROR, text, i))) push('error', i + n);
-    else if ((n = matchAt(REF, text, i))) push('ref', i + n);
-    else if ((n = matchAt(NUMBER, text, i))) push('number', i + n);
+      const q = s.quoted(i, '"');
+      push('string', q.end, !q.closed);
+    } else if ((n = spaces(s, i)) > i) push('space', n);
+    else if (c === '#' && (n = errorLiteral(s, i)) > 0) push('error', n);
+    else if ((n = reference(s, i)) > 0) push('ref', n);
+    else if ((n = number(s, i)) > 0) push('number', n);
     else if (c === "'") {
-      // A quoted sheet name not followed by a valid reference: keep it together for the message.
-      const close = text.indexOf("'", i + 1);
-      push('unknown', close < 0 ? text.length : close + 1);
-    } else if ((n = matchAt(NAME, text, i))) {
-      const end = i + n;
-      if (text[end] === '(') push('func', end);
-      else push(BOOL.test(text.slice(i, end)) ? 'bool' : 'name', end);
+      // A quoted sheet name not followed by a valid reference: kept whole for the message.
+      push('unknown', s.quoted(i, "'").end);
+    } else if ((n = name(s, i)) > 0) {
+      if (s.at(n) === '(') push('func', n);
+      else push(BOOL.test(text.slice(i, n)) ? 'bool' : 'name', n);
     } else if (SINGLE[c]) push(SINGLE[c] as TokenKind, i + 1);
     else {
       const op = OPERATORS.find((o) => text.startsWith(o, i));
@@ -114,6 +86,6 @@ export function tokenize(text: string): Token[] {
 }
 
 /** Tokens without whitespace. */
-export function significantTokens(text: string): Token[] {
-  return tokenize(text).filter((t) => t.kind !== 'space');
+export function significantTokens(text: string, counter?: ScanCounter): Token[] {
+  return tokenize(text, counter).filter((t) => t.kind !== 'space');
 }

@@ -7,9 +7,9 @@ import {
   formatBytes,
   loadExcelJs,
   MAX_SHEET_COLUMNS,
-  MAX_SHEET_ROWS,
   type FileResult,
 } from '../xlsx/index.ts';
+import { MAX_EQUIPMENT_ROWS, tooManyText } from '../../core/site/limits.ts';
 
 export type RawCell = string | number | boolean | null;
 
@@ -52,12 +52,8 @@ export function tableFromCsvText(name: string, text: string): FileResult<RawTabl
   try {
     const delimiter = detectDelimiter(text);
     const rows = readCsv(text, { delimiter });
-    if (rows.length > MAX_SHEET_ROWS + 1)
-      return fail(
-        'too-many-rows',
-        `the list has ${rows.length.toLocaleString('en')} rows; the most accepted is ${MAX_SHEET_ROWS.toLocaleString('en')}`,
-        name,
-      );
+    const tooMany = sizeProblem(rows, name);
+    if (tooMany) return tooMany;
     const wide = rows.findIndex((r) => r.length > MAX_SHEET_COLUMNS);
     if (wide >= 0)
       return fail(
@@ -70,6 +66,25 @@ export function tableFromCsvText(name: string, text: string): FileResult<RawTabl
     if (e instanceof CsvSyntaxError) return fail('corrupt', `the CSV cannot be read: ${e.message}`, name);
     throw e;
   }
+}
+
+const isBlankRow = (r: readonly RawCell[] | undefined): boolean =>
+  !r || r.every((c) => c === null || (typeof c === 'string' && c.trim() === ''));
+
+/**
+ * The door for the list's size: more data rows (non-blank rows after the first) than a site may
+ * have is refused here, before anything is converted or checked row by row.
+ */
+function sizeProblem(
+  rows: readonly (readonly RawCell[] | undefined)[],
+  name: string,
+): FileResult<never> | undefined {
+  if (rows.length <= MAX_EQUIPMENT_ROWS + 1) return undefined;
+  let filled = 0;
+  for (const r of rows) if (!isBlankRow(r)) filled++;
+  const data = filled - 1;
+  if (data <= MAX_EQUIPMENT_ROWS) return undefined;
+  return fail('too-many-rows', `the list has ${tooManyText('rows of data', data, MAX_EQUIPMENT_ROWS)}`, name);
 }
 
 type ExcelCellValue = unknown;
@@ -117,6 +132,8 @@ export async function tableFromXlsx(name: string, bytes: Uint8Array): Promise<Fi
     });
     rows[rowNumber - 1] = Array.from(cells, (c) => c ?? null);
   });
+  const tooMany = sizeProblem(rows, name);
+  if (tooMany) return tooMany;
   return {
     ok: true,
     value: {
@@ -129,12 +146,24 @@ export async function tableFromXlsx(name: string, bytes: Uint8Array): Promise<Fi
   };
 }
 
+/** A NUL byte near the start, without a UTF-16 byte-order mark: a program or an image, not text. */
+function looksBinary(bytes: Uint8Array): boolean {
+  const utf16 = (bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff);
+  return !utf16 && bytes.subarray(0, 8192).includes(0);
+}
+
 /** Read an equipment list: an xlsx (by its zip signature) or a CSV (anything that is text). */
 export async function readEquipmentFile(name: string, bytes: Uint8Array): Promise<FileResult<RawTable>> {
   if (bytes.length === 0) return fail('empty', 'the file is empty (0 bytes)', name);
   const isZip = ZIP_MAGIC.every((b, i) => bytes[i] === b);
   const looksXlsx = isZip || /\.xls[xm]?$/i.test(name);
   if (looksXlsx) return tableFromXlsx(name, bytes);
+  if (looksBinary(bytes))
+    return fail(
+      'wrong-layout',
+      'the file is binary (it holds NUL bytes), not a CSV text or an xlsx workbook; save the list as CSV or xlsx',
+      name,
+    );
   if (bytes.length > MAX_CSV_BYTES)
     return fail(
       'too-large',

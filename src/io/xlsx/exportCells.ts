@@ -4,14 +4,14 @@
 import { CATALOGUE } from '../../core/functions/index.ts';
 import type { CellContent, SheetDoc } from '../../core/workbook/document.ts';
 import type { CellResult } from '../../engine/index.ts';
-import { expandFormula, parseFormula, type ExpandResult } from '../formula/index.ts';
+import { expandFormula, MAX_FORMULA_LENGTH, parseFormula, type ExpandResult } from '../formula/index.ts';
 import { toFileFormula, withoutText } from './functionNames.ts';
 import { compileShape, renderShape, toShape, type ShapeTemplate } from './formulaShape.ts';
 import { normaliseFormula } from './metadata.ts';
 import { columnLetter } from './sheetNames.ts';
 
-/** Longest formula other programs accept (characters) and deepest nesting of calls. */
-export const MAX_FORMULA_LENGTH = 8192;
+/** Longest formula other programs accept (characters; defined with the expansion) and deepest nesting of calls. */
+export { MAX_FORMULA_LENGTH };
 export const MAX_NESTING = 64;
 
 /** Error values the 2007 file format knows; the engine's own ones map to the nearest. */

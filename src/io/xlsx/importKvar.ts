@@ -20,6 +20,8 @@ import {
 } from './metadata.ts';
 import { readRow, readSheet } from './readCells.ts';
 import { COVER_TITLE } from './exportCover.ts';
+import { MAX_EQUIPMENT_ROWS, tooManyText, workbookEquipmentRows } from '../../core/site/limits.ts';
+import { equipmentSheets } from '../../core/kinds/index.ts';
 
 export interface KvarImportOptions {
   /** Open the workbook even when formulas use unknown functions or refer to themselves in a loop. */
@@ -173,7 +175,7 @@ export async function importKvarXlsx(
   if (meta) {
     const m = fromMeta(wb, meta, date1904);
     doc = m.doc;
-    notes.push(...m.notes);
+    for (const n of m.notes) notes.push(n);
     restored = m.notes.length > 0 ? 'partly' : 'restored';
     scope = m.fresh;
   } else doc = plainDoc(wb, date1904);
@@ -181,6 +183,15 @@ export async function importKvarXlsx(
   if (doc.sheets.length === 0 || doc.sheets.every((s) => s.cells.every((r) => r.length === 0))) {
     return refuse({ code: 'wrong-layout', message: 'the workbook holds no data (every sheet is empty)' });
   }
+  const equipment = workbookEquipmentRows(
+    doc.sheets,
+    equipmentSheets().map((l) => l.sheet.name),
+  );
+  if (equipment > MAX_EQUIPMENT_ROWS)
+    return refuse({
+      code: 'too-many-rows',
+      message: `the workbook has ${tooManyText('equipment rows', equipment, MAX_EQUIPMENT_ROWS)}`,
+    });
   const problems = checkFormulas(doc, scope, opts.plugins);
   if (problems.length > 0 && !opts.acceptFormulaProblems) return refuse(problems[0] as FileProblem, problems);
   return { ok: true, doc, restored, notes, problems };

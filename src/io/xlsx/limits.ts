@@ -1,6 +1,6 @@
 // Limits on what an imported xlsx may ask of us, checked from the zip's own directory and a
 // streaming scan BEFORE the xlsx library inflates anything. They are generous for real sites
-// (the largest benchmark site has 50,000 equipment rows) and stop zip bombs and runaway sheets.
+// (the supported size is 50,000 equipment rows) and stop zip bombs and runaway sheets.
 
 /** Largest file accepted, as stored on disk. */
 export const MAX_XLSX_FILE_BYTES = 128 * 1024 * 1024;
@@ -14,10 +14,11 @@ export const MAX_XLSX_COMPRESSION_RATIO = 200;
 export const RATIO_CHECK_MIN_BYTES = 1024 * 1024;
 /** Most zip entries a workbook may have. */
 export const MAX_XLSX_ENTRIES = 5_000;
-/** Most rows one worksheet may hold (by count of rows and by the highest row number). */
-export const MAX_SHEET_ROWS = 200_000;
-/** Most columns one worksheet may use. */
-export const MAX_SHEET_COLUMNS = 1_000;
+/**
+ * Most rows one worksheet may hold (by count of rows and by the highest row number) and most
+ * columns it may use: the supported size every door checks (src/core/site/limits.ts).
+ */
+export { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../../core/site/limits.ts';
 
 export interface XlsxLimits {
   readonly fileBytes: number;
@@ -29,6 +30,8 @@ export interface XlsxLimits {
   readonly sheetRows: number;
   readonly sheetColumns: number;
 }
+
+import { MAX_SHEET_COLUMNS, MAX_SHEET_ROWS } from '../../core/site/limits.ts';
 
 export const DEFAULT_XLSX_LIMITS: XlsxLimits = {
   fileBytes: MAX_XLSX_FILE_BYTES,

@@ -96,14 +96,14 @@ async function scanOne(bytes: Uint8Array, e: ZipEntry, limits: XlsxLimits): Prom
       if (counter.rows > limits.sheetRows || counter.maxRow > limits.sheetRows) {
         return fail(
           'too-many-rows',
-          `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted`,
+          `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted (see README, Limits)`,
           e.name,
         );
       }
       if (counter.maxColumn > limits.sheetColumns) {
         return fail(
           'too-many-columns',
-          `a worksheet uses more than ${limits.sheetColumns} columns, the most accepted`,
+          `a worksheet uses more than ${limits.sheetColumns} columns, the most accepted (see README, Limits)`,
           e.name,
         );
       }
@@ -119,7 +119,7 @@ async function scanOne(bytes: Uint8Array, e: ZipEntry, limits: XlsxLimits): Prom
   if (counter.rows > limits.sheetRows || counter.maxRow > limits.sheetRows) {
     return fail(
       'too-many-rows',
-      `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted`,
+      `a worksheet has more than ${limits.sheetRows.toLocaleString('en')} rows, the most accepted (see README, Limits)`,
       e.name,
     );
   }

@@ -6,6 +6,7 @@ import type { CellContent } from '../../core/workbook/document.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import { neutraliseText } from '../../io/csv/write.ts';
 import { contentOf } from '../model/typedInput.ts';
+import { completeTypedFormula } from '../../io/formula/entry.ts';
 import { clipboardText, type EngineValue } from './cellView.ts';
 import { rectangular, sameBlock, type ClipboardMemo } from './clipboardMemo.ts';
 
@@ -37,7 +38,11 @@ export function installEditHandlers(host: EditHost): void {
       if (!ch) continue;
       const [row, prop, , next] = ch;
       const col = Number(prop);
-      const content = contentOf(next);
+      // As on Enter in other programs: open brackets closed, ';' between arguments read as ','
+      // (the grid keeps the completed text too, so it and the session agree).
+      const typed = typeof next === 'string' ? completeTypedFormula(next).text : next;
+      if (typed !== next) ch[3] = typed;
+      const content = contentOf(typed);
       if (same(content, session.cellContent(host.sheetId, row, col))) continue;
       cells.push({ row, col, content });
     }

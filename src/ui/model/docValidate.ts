@@ -3,8 +3,22 @@
 import type { ColumnInfo, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { a1 } from './address.ts';
 import { MAX_SHEET_NAME } from './sheetNames.ts';
+import {
+  MAX_EQUIPMENT_ROWS,
+  MAX_SHEET_COLUMNS,
+  MAX_SHEET_ROWS,
+  tooManyText,
+  workbookEquipmentRows,
+} from '../../core/site/limits.ts';
+import { equipmentSheets } from '../../core/kinds/index.ts';
 
-export const LIMITS = { sheets: 200, rows: 200_000, cols: 512, cellText: 32_767 } as const;
+/** Rows and columns are the engine's limits (the supported size, src/core/site/limits.ts). */
+export const LIMITS = {
+  sheets: 200,
+  rows: MAX_SHEET_ROWS,
+  cols: MAX_SHEET_COLUMNS,
+  cellText: 32_767,
+} as const;
 
 type Problems = string[];
 
@@ -106,6 +120,14 @@ export function workbookProblems(doc: unknown): string[] {
     checkColumns(name, s.columns, out);
     checkOverrides(name, s.overrides, out);
   });
+  if (out.length === 0) {
+    const rows = workbookEquipmentRows(
+      sheets as Array<{ name: string; cells: unknown[] }>,
+      equipmentSheets().map((l) => l.sheet.name),
+    );
+    if (rows > MAX_EQUIPMENT_ROWS)
+      out.push(`The workbook has ${tooManyText('equipment rows', rows, MAX_EQUIPMENT_ROWS)}.`);
+  }
   return out;
 }
 

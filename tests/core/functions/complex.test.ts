@@ -21,7 +21,9 @@ function complexPower({ u, uArg, i, iArg }: { u: number; uArg: number; i: number
   const U = new Complex({ abs: u, arg: uArg });
   const I = new Complex({ abs: i, arg: iArg });
   const S = U.mul(I.conjugate()).mul(Math.sqrt(3));
-  return { p: S.re, q: S.im, s: S.abs(), phi: uArg - iArg };
+  // Rounding residue (Q = 1e-33 for equal angles) is 0: the catalogue refuses sizes below 1e-30.
+  const zeroed = (x: number) => (Math.abs(x) < 1e-30 ? 0 : x);
+  return { p: zeroed(S.re), q: zeroed(S.im), s: S.abs(), phi: uArg - iArg };
 }
 
 const close = (a: number, b: number, tol: number) => Math.abs(a - b) <= tol * Math.max(Math.abs(b), 1e-300);

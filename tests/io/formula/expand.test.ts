@@ -50,7 +50,7 @@ describe('expandFormula', () => {
     expect(expanded('kva.total(3,4)')).toBe('SQRT(POWER(3,2)+POWER(4,2))');
   });
   it('parenthesises argument texts that are not atomic', () => {
-    expect(expanded('=KVA.TOTAL(1+2,-B1)')).toBe('=SQRT(POWER((1+2),2)+POWER((-B1),2))');
+    expect(expanded('=KVA.TOTAL(1+2,-B1)')).toContain(',SQRT(POWER((1+2),2)+POWER((-B1),2))');
     expect(expanded('=-KVA.TOTAL(A1,B1)^2')).toMatch(/^=-IF\(.*\)\^2$/);
   });
   it('rewrites nested calls, inner first, and keeps the rest of the formula', () => {
@@ -146,6 +146,8 @@ describe('every catalogue function expands to classic functions only', () => {
     'IF',
     'INT',
     'ISBLANK',
+    'ISLOGICAL',
+    'ISTEXT',
     'LN',
     'LOG',
     'LOG10',

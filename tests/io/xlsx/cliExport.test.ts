@@ -59,8 +59,8 @@ describe('kvar-ledger export', () => {
     const r = await cli(list, target);
     expect(r.code).toBe(1);
     expect(r.err).toMatch(/nothing was written/);
-    expect(r.err).toMatch(/row 2, column cos_phi/);
-    expect(r.err).toMatch(/row 3, column kind: .*widget/);
+    expect(r.err).toMatch(/bad\.csv: row 2, column E \(cos_phi\)/);
+    expect(r.err).toMatch(/bad\.csv: row 3, column C \(kind\): .*widget/);
     expect(existsSync(target)).toBe(false);
   });
 
@@ -77,7 +77,7 @@ describe('kvar-ledger export', () => {
       /must end in \.xlsx; got ".*o\.csv" \(argument 2\)/,
     );
     const one = await cli('templates/cold-store.json');
-    expect(one.code).toBe(1);
+    expect(one.code).toBe(2);
     expect(one.err).toMatch(/give an input file and an output \.xlsx; got 1 argument/);
     expect((await cli('--bogus')).err).toMatch(/unknown option --bogus/);
   });
