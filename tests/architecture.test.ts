@@ -34,12 +34,10 @@ const INDEX_BYPASS_ALLOWED = [
   // index would bring the parser and the expansion into it.
   'ui/autocomplete/suggest.ts → io/formula/cursor.ts',
   'ui/autocomplete/suggest.ts → io/formula/tokenize.ts',
-  'cli/balance.ts → io/import/table.ts',
-  'cli/balance.ts → io/xlsx/fileProblem.ts',
-  'cli/eval.ts → io/formula/parse.ts',
-  'cli/export.ts → io/import/table.ts',
+  'ui/formulaBar.ts → io/formula/entry.ts',
+  'ui/formulaBar.ts → io/formula/parse.ts',
+  'ui/grid/gridEdits.ts → io/formula/entry.ts',
   'cli/export.ts → io/xlsx/export.ts',
-  'cli/export.ts → io/xlsx/fileProblem.ts',
   'cli/functions.ts → io/formula/reference.ts',
 ];
 

@@ -3,8 +3,7 @@
 // (exit 1) before anything is evaluated. A formula that evaluates to an error value is printed
 // like any result, and the exit status is then 1, so a script notices.
 import { createEngine, evaluateFormula, type ScalarValue } from '../engine/index.ts';
-import { commaSeparated } from '../io/formula/entry.ts';
-import { parseFormula } from '../io/formula/parse.ts';
+import { commaSeparated, parseFormula } from '../io/formula/index.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { EXIT_HELP, EXIT_INPUT, EXIT_OK, oneLine, usageError } from './report.ts';

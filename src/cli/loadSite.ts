@@ -119,7 +119,7 @@ async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadRes
 }
 
 async function readOwnXlsx(bytes: Uint8Array): Promise<Read | undefined> {
-  const { importKvarXlsx } = await import('../io/xlsx/importKvar.ts');
+  const { importKvarXlsx } = await import('../io/xlsx/index.ts');
   const imported = await importKvarXlsx(bytes);
   // Anything else (a client's list, a damaged file) goes the list way, whose gate says why.
   if (!imported.ok || imported.restored === 'plain') return undefined;

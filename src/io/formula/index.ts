@@ -5,3 +5,4 @@ export { printNode, printFormula } from './print.ts';
 export { isAtomic, type Node, type CallNode, type BinaryOp } from './ast.ts';
 export { expandFormula, MAX_FORMULA_LENGTH, referencedFunctions, type ExpandResult } from './expand.ts';
 export { callAtCursor, type CallAtCursor } from './cursor.ts';
+export { commaSeparated, completeTypedFormula, type TypedFormula } from './entry.ts';

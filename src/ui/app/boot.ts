@@ -2,7 +2,6 @@
 // (this tab then works on a copy), bring back the last good workbook with the edits recorded
 // since (or the one before it), or open the demo template on a first visit; then keep saving.
 import { registeredFunctionNames } from '../../engine/index.ts';
-import { ChartsPanel } from '../charts/chartsPanel.ts';
 import { ChecksPanel } from '../panels/checksPanel.ts';
 import { COPY_PREFIX, LAST_GOOD, WorkbookStore, type LoadResult } from '../storage/idbStore.ts';
 import { describeStorageError } from '../storage/storageErrors.ts';
@@ -10,6 +9,7 @@ import { claimWorkbook } from '../storage/tabClaim.ts';
 import { TabStorage } from '../storage/tabStorage.ts';
 import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts';
 import { App } from './app.ts';
+import { lazyView } from './lazyView.ts';
 import { fileCommand } from './lazyCommands.ts';
 import { watchPageLife } from './pageLife.ts';
 
@@ -72,9 +72,17 @@ export async function boot(root: HTMLElement): Promise<App> {
     : undefined;
   const app = new App(root, store, registeredFunctionNames(), storage);
   late.app = app;
-  const charts = new ChartsPanel();
-  app.charts = charts;
-  app.side.add('charts', 'Charts', charts.root, () => charts.draw());
+  // The charts load the first time their panel opens.
+  const charts = lazyView(
+    async () => new (await import('../charts/chartsPanel.ts')).ChartsPanel(),
+    (panel) => {
+      app.charts = panel;
+      panel.visible = app.side.shown === 'charts';
+      panel.update(app.session);
+    },
+    (panel) => panel.draw(),
+  );
+  app.side.add('charts', 'Charts', charts.root, () => charts.show());
   const checks = new ChecksPanel();
   app.checks = checks;
   app.side.add('checks', 'Checks', checks.root, () => void checks.draw());

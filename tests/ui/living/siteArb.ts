@@ -146,7 +146,12 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
               bus: from.name,
               kind: 'line',
               to_bus: b.name,
-              values: { u_kv: u, l_mh_km: 1.1, c_nf_km: 10, len_km: 0.5 + (b.level % 3) },
+              values: {
+                u_kv: u,
+                l_mh_km: 1.1,
+                c_nf_km: 10,
+                len_km: u < 1 ? 0.05 + 0.05 * (b.level % 3) : 0.5 + (b.level % 3),
+              },
               loads: {},
             },
           ]
