@@ -21,6 +21,7 @@ import { selectionNumbers } from './sheetScan.ts';
 import { ErrorTracker } from './errorTracker.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
+import type { DiagramPanel } from '../diagram/diagramPanel.ts';
 
 export class App {
   session!: WorkbookSession;
@@ -33,6 +34,7 @@ export class App {
   readonly reference: FunctionReference;
   charts: ChartsPanel | undefined;
   checks: ChecksPanel | undefined;
+  diagram: DiagramPanel | undefined;
   private readonly gridHost: HTMLElement;
   private readonly caption: HTMLElement;
   private readonly titleInput: HTMLInputElement;
@@ -129,6 +131,7 @@ export class App {
       this.queueScan();
       this.charts?.update(next);
       this.checks?.update(next);
+      this.diagram?.update(next);
       this.autosaver?.changed();
     });
     this.titleInput.value = next.title;
@@ -136,6 +139,7 @@ export class App {
     this.openSheet(next.sheetIds()[0] as number);
     this.charts?.update(next);
     this.checks?.update(next);
+    this.diagram?.update(next);
     if (this.side.shown === 'functions') this.reference.refresh();
     if (opts.note) this.status.show(opts.note, 'info', 10_000);
     if (opts.changed) this.autosaver?.changed();

@@ -4,6 +4,8 @@ import { HyperFormula } from 'hyperformula';
 import { ENGINE_LANGUAGE } from '../../engine/config.ts';
 import { ChartsPanel } from '../charts/chartsPanel.ts';
 import { ChecksPanel } from '../panels/checksPanel.ts';
+import { DiagramPanel } from '../diagram/diagramPanel.ts';
+import { SHEETS } from '../../core/workbook/buildLayout.ts';
 import { WorkbookStore } from '../storage/idbStore.ts';
 import { describeStorageError } from '../storage/storageErrors.ts';
 import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts';
@@ -33,6 +35,21 @@ export async function boot(root: HTMLElement): Promise<App> {
     if (id === undefined) return;
     app.openSheet(id);
     app.grid.select(row - 1, 0);
+  };
+
+  const diagram = new DiagramPanel();
+  app.diagram = diagram;
+  app.side.add('diagram', 'Site diagram', diagram.root, () => diagram.draw());
+  diagram.title = () => app.session.title;
+  diagram.onWide = () => {
+    app.side.toggleWide();
+    diagram.fit();
+  };
+  diagram.onSelectBus = (_bus, row) => {
+    const id = app.session.engine.getSheetId(SHEETS.buses);
+    if (id === undefined) return;
+    app.openSheet(id);
+    app.grid.select(row, 0);
   };
 
   const restored = store

@@ -1,7 +1,8 @@
-// The panel on the right: the function reference, the charts or the checks, one at a time, or closed.
+// The panel on the right: the function reference, the charts, the checks or the site diagram, one
+// at a time, or closed.
 import { el } from '../dom.ts';
 
-export type PanelName = 'functions' | 'charts' | 'checks';
+export type PanelName = 'functions' | 'charts' | 'checks' | 'diagram';
 
 export class SidePanel {
   readonly root: HTMLElement;
@@ -36,8 +37,14 @@ export class SidePanel {
     return this.current;
   }
 
+  /** A wider panel (the diagram asks for it); back to the usual width when asked again. */
+  toggleWide(): void {
+    this.root.classList.toggle('is-wide');
+  }
+
   toggle(name: PanelName | undefined): void {
     this.current = name === this.current ? undefined : name;
+    if (this.current !== 'diagram') this.root.classList.remove('is-wide');
     const view = this.current ? this.views.get(this.current) : undefined;
     this.root.hidden = !view;
     if (view) {

@@ -107,6 +107,7 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
   const fnToggle = toggle('functions', 'Functions');
   const chartToggle = toggle('charts', 'Charts');
   const checksToggle = toggle('checks', 'Checks');
+  const diagramToggle = toggle('diagram', 'Diagram');
   app.side.onToggle = (shown) => {
     fnToggle.setAttribute('aria-pressed', String(shown === 'functions'));
     chartToggle.setAttribute('aria-pressed', String(shown === 'charts'));
@@ -114,6 +115,8 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
     if (shown === 'charts') app.charts?.draw();
     checksToggle.setAttribute('aria-pressed', String(shown === 'checks'));
     if (app.checks) app.checks.visible = shown === 'checks';
+    diagramToggle.setAttribute('aria-pressed', String(shown === 'diagram'));
+    if (app.diagram) app.diagram.visible = shown === 'diagram';
   };
   const about = el('button', {
     className: 'kl-toggle kl-about-btn',
@@ -137,6 +140,7 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
     fnToggle,
     chartToggle,
     checksToggle,
+    diagramToggle,
     about,
   ]);
   return { root, title };
