@@ -30,11 +30,11 @@ export async function boot(root: HTMLElement): Promise<App> {
   const checks = new ChecksPanel();
   app.checks = checks;
   app.side.add('checks', 'Checks', checks.root, () => checks.draw());
-  checks.onJump = ({ sheet, row }) => {
+  checks.onJump = ({ sheet, row, col }) => {
     const id = app.session.engine.getSheetId(sheet);
     if (id === undefined) return;
     app.openSheet(id);
-    app.grid.select(row - 1, 0);
+    app.grid.select(row - 1, col ?? 0);
   };
 
   const diagram = new DiagramPanel();

@@ -2,8 +2,9 @@
 // where. Recomputed a moment after the last change while visible (reading the site back and
 // designing takes a while on large sites, so it never runs on every keystroke).
 import { clear, el } from '../dom.ts';
+import { columnLetters } from '../model/address.ts';
 import type { WorkbookSession } from '../model/session.ts';
-import { collectChecks, type CheckItem, type ChecksReport } from './checksModel.ts';
+import { collectChecks, type CheckItem, type CheckTarget, type ChecksReport } from './checksModel.ts';
 
 const QUIET_MS = 600;
 
@@ -14,8 +15,8 @@ export class ChecksPanel {
   private timer: ReturnType<typeof setTimeout> | undefined;
   private dirty = true;
   visible = false;
-  /** Set by the app: select the row an item concerns. */
-  onJump: (target: { sheet: string; row: number }) => void = () => {};
+  /** Set by the app: select the cell an item concerns. */
+  onJump: (target: CheckTarget) => void = () => {};
 
   constructor() {
     this.body = el('div', { className: 'kl-checks-body' });
@@ -89,7 +90,7 @@ export class ChecksPanel {
       const go = el('button', {
         className: 'kl-link-btn',
         text: 'show',
-        title: `Go to ${target.sheet} row ${target.row}`,
+        title: `Go to ${target.sheet} row ${target.row}${target.col !== undefined ? `, column ${columnLetters(target.col)}` : ''}`,
         attrs: { type: 'button' },
       });
       go.addEventListener('click', () => this.onJump(target));
