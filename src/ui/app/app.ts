@@ -183,7 +183,6 @@ export class App {
 
   openSheet(id: number): void {
     this.sheet = id;
-    this.errors?.watch(id);
     this.grid.show(id);
     this.sheets.render();
     const name = this.session.sheetName(id);
@@ -284,12 +283,16 @@ export class App {
     }, 250);
   }
 
+  /** The next error cell of the workbook after the active one, on whichever sheet it is. */
   private nextError(): void {
-    const errors = this.errors?.list() ?? [];
-    if (errors.length === 0) return;
     const at = this.lastSelection;
-    const after = errors.find(([r, c]) => !at || r > at.row || (r === at.row && c > at.col)) ?? errors[0];
-    if (after) this.grid.select(after[0], after[1]);
+    const next = this.errors?.next(
+      this.session.sheetIds(),
+      at && { sheet: at.sheetId, row: at.row, col: at.col },
+    );
+    if (!next) return;
+    if (next.sheet !== this.sheet) this.openSheet(next.sheet);
+    this.grid.select(next.row, next.col);
   }
 
   catalogueSize(): number {
