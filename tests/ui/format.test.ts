@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { formatGeneral, formatNumber } from '../../src/ui/format/numberFormat.ts';
+import { fitNumber, textUnits } from '../../src/ui/format/fitNumber.ts';
 import { headerLabel, unitOf, widthPx } from '../../src/ui/format/columnHeader.ts';
 import { a1, columnLetters, rangeLabel, sheetRef } from '../../src/ui/model/address.ts';
 
@@ -109,5 +110,26 @@ describe('optional decimals', () => {
     expect(formatNumber(0.415, '0.0##')).toBe('0.415');
     expect(formatNumber(0.41567, '0.0##')).toBe('0.416');
     expect(formatNumber(3, '0.##')).toBe('3');
+  });
+});
+
+describe('numbers rounded to fit their column', () => {
+  it('keeps a number that fits as its format shows it', () => {
+    expect(fitNumber(1234.5678, '#,##0.0', 10)).toBe('1,234.6');
+  });
+  it('drops decimals first, rounding (not cutting) the last digit kept', () => {
+    // 1,234.6 is 6 digit widths: with 5.5 it shows 1,235.
+    expect(fitNumber(1234.5678, '#,##0.0', 5.5)).toBe('1,235');
+    expect(fitNumber(0.98765, '0.000', 4)).toBe('0.99');
+    expect(fitNumber(-0.98765, '0.000', 2)).toBe('-1');
+  });
+  it('then the separators, then scientific notation, and ### only when nothing fits', () => {
+    expect(fitNumber(1234567, '#,##0', 7)).toBe('1234567');
+    expect(fitNumber(123456789, '#,##0', 7)).toBe('1.2E+08');
+    expect(fitNumber(123456789, '#,##0', 5)).toBe('1E+08');
+    expect(fitNumber(123456789, '#,##0', 3)).toBe('###');
+  });
+  it('counts points and commas as half a digit', () => {
+    expect(textUnits('1,234.5')).toBe(6);
   });
 });

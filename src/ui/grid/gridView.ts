@@ -6,13 +6,15 @@ import type { ColumnInfo } from '../../core/workbook/document.ts';
 import { columnLetters } from '../model/address.ts';
 import type { SessionChange, WorkbookSession } from '../model/session.ts';
 import { escapeHtml } from '../dom.ts';
-import { widthPx } from '../format/columnHeader.ts';
 import { makeCellRenderer } from './cellRenderer.ts';
 import { decorateColumnHeader } from './columnHeaderView.ts';
 import { gridData } from './gridData.ts';
 import { GRID_LICENSE_KEY, Handsontable, registerGridModules } from './hotModules.ts';
 import { installEditHandlers, type EditHost } from './gridEdits.ts';
 import { attachContextMenu } from './gridContextMenu.ts';
+import { CellNotes } from './cellNotes.ts';
+import { attachChoiceClicks, installChoiceCheck, openChoiceList, type ChoiceHost } from './cellChoices.ts';
+import { columnWidth, frozenColumns } from './gridColumns.ts';
 
 export interface Selection {
   readonly sheetId: number;
@@ -38,11 +40,13 @@ function textOnlySanitizer(content: string, source: string): string {
   return source.startsWith('CopyPaste') ? '' : escapeHtml(content);
 }
 
-export class GridView implements EditHost {
+export class GridView implements EditHost, ChoiceHost {
   readonly hot: HotInstance;
   private current = -1;
   private dataRows = 0;
+  private cellNotes: CellNotes | undefined;
   private readonly detachMenu: () => void;
+  private readonly detachChoices: () => void;
   /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
   applying = false;
 
@@ -58,6 +62,7 @@ export class GridView implements EditHost {
       columns: () => this.columns(),
       hasHeaderRow: () => this.hasHeaderRow(),
       dataRows: () => this.dataRows,
+      notes: () => this.cellNotes,
     });
     const settings: GridSettings = {
       data: [['']],
@@ -93,7 +98,7 @@ export class GridView implements EditHost {
         if (editor?.TEXTAREA) callbacks.onEditorOpen(editor.TEXTAREA);
       },
       beforeKeyDown: (e: KeyboardEvent) => {
-        if (!callbacks.onKey(e)) return;
+        if (!this.ownKey(e) && !callbacks.onKey(e)) return;
         e.preventDefault();
         // The grid's own way of saying "handled": its key handling checks this flag, not the DOM's.
         (e as KeyboardEvent & { isImmediatePropagationEnabled?: boolean }).isImmediatePropagationEnabled =
@@ -102,8 +107,11 @@ export class GridView implements EditHost {
       },
     };
     this.hot = new Handsontable(host, settings) as HotInstance;
+    // Before the edit handlers: a value a choice cell refuses never reaches the workbook.
+    installChoiceCheck(this);
     installEditHandlers(this);
     this.detachMenu = attachContextMenu(host, this);
+    this.detachChoices = attachChoiceClicks(this, host);
     session.onChange((c) => this.onSessionChange(c));
   }
 
@@ -119,6 +127,26 @@ export class GridView implements EditHost {
     return (this.columns()?.length ?? 0) > 0;
   }
 
+  notes(): CellNotes | undefined {
+    return this.cellNotes;
+  }
+
+  notice(text: string): void {
+    this.callbacks.onNotice(text);
+  }
+
+  /** Keys the grid view handles itself: Alt+↓ opens a choice cell's list. */
+  private ownKey(e: KeyboardEvent): boolean {
+    if (!(e.altKey && e.key === 'ArrowDown') || this.isEditing()) return false;
+    const sel = this.selection();
+    return sel !== undefined && openChoiceList(this, sel.row, sel.col);
+  }
+
+  private readNotes(): void {
+    const n = this.current < 0 ? undefined : new CellNotes(this.session.meta(this.current));
+    this.cellNotes = n && !n.empty ? n : undefined;
+  }
+
   private measure(): void {
     this.dataRows = this.current < 0 ? 0 : this.session.engine.getSheetDimensions(this.current).height;
   }
@@ -127,14 +155,20 @@ export class GridView implements EditHost {
   show(sheetId: number): void {
     this.current = sheetId;
     this.measure();
+    this.readNotes();
     const cols = this.columns();
+    const frozen = frozenColumns(cols);
     // Selection first goes to a plain cell, so no frozen-row overlay is asked for a cell while
     // the number of frozen rows changes; then the new sheet; then its first data cell.
     this.hot.deselectCell();
     this.hot.updateSettings({
       data: gridData(this.session.sheetContents(sheetId), cols?.length ?? 0),
       fixedRowsTop: this.hasHeaderRow() ? 1 : 0,
-      colWidths: (i: number) => widthPx(cols?.[i], cols ? 9 : 11),
+      // Tag and Bus (and what lies between) stay in view on equipment sheets.
+      fixedColumnsStart: frozen,
+      colWidths: (i: number) => columnWidth(cols, i, frozen),
+      // The header row holds two lines of wrapped header text.
+      rowHeights: (i: number) => (i === 0 && cols ? 36 : undefined) as number,
     });
     this.hot.render();
     this.hot.selectCell(this.hasHeaderRow() ? 1 : 0, 0);
@@ -146,6 +180,7 @@ export class GridView implements EditHost {
     if (this.current < 0) return;
     if (!this.session.sheetIds().includes(this.current)) return;
     this.measure();
+    this.readNotes();
     this.hot.updateData(gridData(this.session.sheetContents(this.current), this.columns()?.length ?? 0));
     this.reportSelection();
   }
@@ -202,6 +237,7 @@ export class GridView implements EditHost {
 
   destroy(): void {
     this.detachMenu();
+    this.detachChoices();
     this.hot.destroy();
   }
 }

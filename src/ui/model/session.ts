@@ -4,7 +4,7 @@
 import type { HyperFormula, SimpleCellRange } from 'hyperformula';
 import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
-import { LayoutHistory, type Layout, type SheetMeta } from './sheetLayout.ts';
+import { LayoutHistory, metaExtras, metaFromDoc, type Layout, type SheetMeta } from './sheetLayout.ts';
 import { sheetNameProblem } from './sheetNames.ts';
 import { SheetContents } from './sheetContents.ts';
 
@@ -39,10 +39,7 @@ export class WorkbookSession {
     for (const s of doc.sheets) {
       const id = engine.getSheetId(s.name) as number;
       order.push(id);
-      meta.set(id, {
-        ...(s.columns ? { columns: s.columns } : {}),
-        ...(s.purpose ? { purpose: s.purpose } : {}),
-      });
+      meta.set(id, metaFromDoc(s));
     }
     engine.clearUndoStack();
     const session = new WorkbookSession(engine, doc.title, { order, meta });
@@ -237,6 +234,7 @@ export class WorkbookSession {
         cells: this.sheetContents(id),
         ...(m.columns ? { columns: m.columns } : {}),
         ...(m.purpose ? { purpose: m.purpose } : {}),
+        ...metaExtras(m),
       };
     });
     return { format: 'kvar-ledger-workbook', version: 1, title: this.titleText, sheets };
