@@ -19,6 +19,7 @@ import { openAbout } from '../dialogs/about.ts';
 import { buildTopBar } from './topBar.ts';
 import { selectionNumbers } from './sheetScan.ts';
 import { ErrorTracker } from './errorTracker.ts';
+import { navigationKey } from './navigation.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
 import type { DiagramPanel } from '../diagram/diagramPanel.ts';
@@ -149,10 +150,11 @@ export class App {
    * Replace the open workbook by another (template, file, import, bringing one back): the one on
    * screen is first set aside in the browser, so Workbook → Bring back returns it.
    */
-  async replaceWith(doc: WorkbookDoc, note: string): Promise<boolean> {
+  async replaceWith(doc: WorkbookDoc | WorkbookSession, note: string): Promise<boolean> {
     let next: WorkbookSession;
     try {
-      next = WorkbookSession.fromDoc(doc);
+      // A session already built (with progress shown, see fileActions.ts) is taken as it is.
+      next = doc instanceof WorkbookSession ? doc : WorkbookSession.fromDoc(doc);
     } catch (e) {
       this.status.show(
         `The workbook could not be opened: ${e instanceof Error ? e.message : String(e)}. The open workbook is unchanged.`,
@@ -235,6 +237,7 @@ export class App {
       if (e.key === 'Escape') setTimeout(() => this.formulaBar.show(this.grid.selection()), 0);
       return false;
     }
+    if (navigationKey(this, e)) return true;
     const mod = e.ctrlKey || e.metaKey;
     if (!mod || e.altKey) return false;
     const k = e.key.toLowerCase();

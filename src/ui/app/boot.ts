@@ -37,6 +37,7 @@ export async function boot(root: HTMLElement): Promise<App> {
     app.grid.select(row - 1, col ?? 0);
   };
 
+  app.side.onClosed = () => app.grid.focus();
   const diagram = new DiagramPanel();
   app.diagram = diagram;
   app.side.add('diagram', 'Site diagram', diagram.root, () => diagram.draw());

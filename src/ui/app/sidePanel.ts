@@ -11,6 +11,8 @@ export class SidePanel {
   private current: PanelName | undefined;
   private readonly views = new Map<PanelName, { title: string; node: HTMLElement; onShow?: () => void }>();
   onToggle: (name: PanelName | undefined) => void = () => {};
+  /** Set by the app: where the keyboard goes when the panel is closed with its × button. */
+  onClosed: () => void = () => {};
 
   constructor() {
     this.title = el('span', { className: 'kl-pane-title' });
@@ -20,7 +22,10 @@ export class SidePanel {
       title: 'Close the panel',
       attrs: { type: 'button', 'aria-label': 'Close the panel' },
     });
-    close.addEventListener('click', () => this.toggle(undefined));
+    close.addEventListener('click', () => {
+      this.toggle(undefined);
+      this.onClosed();
+    });
     this.body = el('div', { className: 'kl-side-body' });
     this.root = el('aside', { className: 'kl-side', attrs: { 'data-testid': 'side-panel' } }, [
       el('div', { className: 'kl-pane-head' }, [this.title, close]),

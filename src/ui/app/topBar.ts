@@ -14,6 +14,7 @@ import {
   saveFile,
 } from './fileActions.ts';
 import type { PanelName } from './sidePanel.ts';
+import { openGoTo, stepSheet } from './navigation.ts';
 
 function mark(): SVGSVGElement {
   // Our mark: a right triangle (P along, Q up) with its hypotenuse, in two strokes.
@@ -82,6 +83,10 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
       { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
       { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
       { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
+      'separator',
+      { label: 'Go to…', hint: 'Ctrl+G', run: () => void openGoTo(app), testId: 'menu-goto' },
+      { label: 'Next sheet', hint: 'Ctrl+PgDn', run: () => stepSheet(app, 1) },
+      { label: 'Previous sheet', hint: 'Ctrl+PgUp', run: () => stepSheet(app, -1) },
     ],
     'menu-edit',
   );
@@ -92,7 +97,10 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
       title: label,
       attrs: { type: 'button', 'aria-label': label, 'data-testid': testId },
     });
-    b.addEventListener('click', run);
+    b.addEventListener('click', () => {
+      run();
+      app.grid.focus();
+    });
     return b;
   };
   const toggle = (name: PanelName, label: string) => {
@@ -101,7 +109,11 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
       text: label,
       attrs: { type: 'button', 'aria-pressed': 'false', 'data-testid': `toggle-${name}` },
     });
-    b.addEventListener('click', () => app.side.toggle(name));
+    b.addEventListener('click', () => {
+      app.side.toggle(name);
+      // The keyboard goes back to the grid: typing carries on where it was.
+      app.grid.focus();
+    });
     return b;
   };
   const fnToggle = toggle('functions', 'Functions');

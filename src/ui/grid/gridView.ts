@@ -11,7 +11,8 @@ import { decorateColumnHeader } from './columnHeaderView.ts';
 import { gridData } from './gridData.ts';
 import { GRID_LICENSE_KEY, Handsontable, registerGridModules } from './hotModules.ts';
 import { installEditHandlers, type EditHost } from './gridEdits.ts';
-import { attachContextMenu } from './gridContextMenu.ts';
+import { attachContextMenu, type CellMenu } from './gridContextMenu.ts';
+import { dataEdgeTarget, type Direction } from './dataEdge.ts';
 import { CellNotes } from './cellNotes.ts';
 import { attachChoiceClicks, installChoiceCheck, openChoiceList, type ChoiceHost } from './cellChoices.ts';
 import { columnWidth, frozenColumns } from './gridColumns.ts';
@@ -40,12 +41,19 @@ function textOnlySanitizer(content: string, source: string): string {
   return source.startsWith('CopyPaste') ? '' : escapeHtml(content);
 }
 
+const ARROWS: Readonly<Record<string, Direction>> = {
+  ArrowUp: 'up',
+  ArrowDown: 'down',
+  ArrowLeft: 'left',
+  ArrowRight: 'right',
+};
+
 export class GridView implements EditHost, ChoiceHost {
   readonly hot: HotInstance;
   private current = -1;
   private dataRows = 0;
   private cellNotes: CellNotes | undefined;
-  private readonly detachMenu: () => void;
+  private readonly menu: CellMenu;
   private readonly detachChoices: () => void;
   /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
   applying = false;
@@ -110,7 +118,7 @@ export class GridView implements EditHost, ChoiceHost {
     // Before the edit handlers: a value a choice cell refuses never reaches the workbook.
     installChoiceCheck(this);
     installEditHandlers(this);
-    this.detachMenu = attachContextMenu(host, this);
+    this.menu = attachContextMenu(host, this);
     this.detachChoices = attachChoiceClicks(this, host);
     session.onChange((c) => this.onSessionChange(c));
   }
@@ -135,11 +143,45 @@ export class GridView implements EditHost, ChoiceHost {
     this.callbacks.onNotice(text);
   }
 
-  /** Keys the grid view handles itself: Alt+↓ opens a choice cell's list. */
+  /**
+   * Keys the grid view handles itself (not while editing): Alt+↓ opens a choice cell's list,
+   * Shift+F10 and the menu key the cell menu, Ctrl+Arrow moves to the data's edge.
+   */
   private ownKey(e: KeyboardEvent): boolean {
-    if (!(e.altKey && e.key === 'ArrowDown') || this.isEditing()) return false;
+    if (this.isEditing()) return false;
     const sel = this.selection();
-    return sel !== undefined && openChoiceList(this, sel.row, sel.col);
+    if (!sel) return false;
+    if (e.altKey && e.key === 'ArrowDown') return openChoiceList(this, sel.row, sel.col);
+    if ((e.shiftKey && e.key === 'F10') || e.key === 'ContextMenu') {
+      this.menu.openAtActiveCell();
+      return true;
+    }
+    const dir = ARROWS[e.key];
+    if (dir && (e.ctrlKey || e.metaKey) && !e.altKey) {
+      this.jumpToDataEdge(sel, dir, e.shiftKey);
+      return true;
+    }
+    return false;
+  }
+
+  private jumpToDataEdge(sel: Selection, dir: Direction, extend: boolean): void {
+    const size = this.session.engine.getSheetDimensions(sel.sheetId);
+    const filled = (row: number, col: number) => {
+      const c = this.session.cellContent(sel.sheetId, row, col);
+      return c !== null && c !== '';
+    };
+    // With Shift the far corner of the block moves; its anchor (the active cell) stays.
+    const from = extend
+      ? {
+          row: dir === 'up' || dir === 'down' ? (sel.top === sel.row ? sel.bottom : sel.top) : sel.row,
+          col: dir === 'left' || dir === 'right' ? (sel.left === sel.col ? sel.right : sel.left) : sel.col,
+        }
+      : { row: sel.row, col: sel.col };
+    const to = dataEdgeTarget(filled, from, dir, { rows: size.height, cols: size.width });
+    if (!extend) return this.select(to.row, to.col);
+    const rowEnd = dir === 'up' || dir === 'down' ? to.row : sel.row === sel.top ? sel.bottom : sel.top;
+    const colEnd = dir === 'left' || dir === 'right' ? to.col : sel.col === sel.left ? sel.right : sel.left;
+    this.hot.selectCell(sel.row, sel.col, rowEnd, colEnd, true);
   }
 
   private readNotes(): void {
@@ -236,7 +278,7 @@ export class GridView implements EditHost, ChoiceHost {
   }
 
   destroy(): void {
-    this.detachMenu();
+    this.menu.detach();
     this.detachChoices();
     this.hot.destroy();
   }
