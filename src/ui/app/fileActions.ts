@@ -7,6 +7,61 @@ import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from 
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
 import type { App } from './app.ts';
 import { toResult } from '../../engine/index.ts';
+import type { WorkbookDoc } from '../../core/workbook/document.ts';
+import { WorkbookSession } from '../model/session.ts';
+import { withProgress, type Task } from '../dialogs/progress.ts';
+
+const CANCELLED = 'Cancelled: the open workbook is unchanged.';
+
+function formulaCount(doc: WorkbookDoc): number {
+  let n = 0;
+  for (const s of doc.sheets)
+    for (const row of s.cells) for (const c of row) if (typeof c === 'string' && c.startsWith('=')) n++;
+  return n;
+}
+
+/**
+ * Load a workbook with progress shown and a way to cancel: `load` gets the document, then the
+ * engine computes it; only when all is done does it take the place of the open workbook.
+ */
+export async function openWithProgress(
+  app: App,
+  title: string,
+  load: (task: Task) => Promise<{ doc: WorkbookDoc; note: string } | undefined>,
+): Promise<boolean> {
+  let failed: string | undefined;
+  const done = await withProgress(title, async (task) => {
+    const loaded = await load(task);
+    if (!loaded) return undefined;
+    await task.step(
+      `Computing the workbook (${formulaCount(loaded.doc).toLocaleString('en')} formulas)…`,
+      0.6,
+    );
+    let session: WorkbookSession;
+    try {
+      session = WorkbookSession.fromDoc(loaded.doc);
+    } catch (e) {
+      failed = `The workbook could not be opened: ${e instanceof Error ? e.message : String(e)}. The open workbook is unchanged.`;
+      return undefined;
+    }
+    try {
+      await task.step('Showing it…', 0.95);
+    } catch (e) {
+      session.destroy();
+      throw e;
+    }
+    return { session, note: loaded.note };
+  });
+  if (failed) {
+    app.status.show(failed, 'error', 0);
+    return false;
+  }
+  if (!done) {
+    app.status.show(CANCELLED, 'info', 8000);
+    return false;
+  }
+  return app.replaceWith(done.session, done.note);
+}
 
 const REPLACE_NOTE =
   'The open workbook is replaced. It is set aside in this browser (Workbook → Bring back the replaced workbook); save it to a file to keep it for good.';
@@ -68,21 +123,24 @@ export async function openFile(app: App): Promise<void> {
     '.json,.kvar.json,application/json,.xlsx,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
   );
   if (!file) return;
-  if (/\.xlsx$/i.test(file.name)) {
-    app.status.show(`Reading "${file.name}"…`, 'info', 0);
-    try {
-      const { openXlsx } = await import('./handOff.ts');
-      const x = await openXlsx(new Uint8Array(await file.arrayBuffer()));
-      if (!x.ok) return refused(app, `"${file.name}" cannot be opened: ${x.message}`);
-      await app.replaceWith(x.doc, [`Opened "${file.name}".`, ...x.notes].join(' '));
-    } catch (e) {
-      refused(app, `"${file.name}" cannot be opened: ${e instanceof Error ? e.message : String(e)}`);
-    }
-    return;
+  try {
+    await openWithProgress(app, `Opening "${file.name}"`, async (task) => {
+      await task.step('Reading the file…', 0.05);
+      if (/\.xlsx$/i.test(file.name)) {
+        const { openXlsx } = await import('./handOff.ts');
+        const bytes = new Uint8Array(await file.arrayBuffer());
+        await task.step('Reading the sheets and formulas of the xlsx…', 0.2);
+        const x = await openXlsx(bytes);
+        if (!x.ok) return void refused(app, `"${file.name}" cannot be opened: ${x.message}`);
+        return { doc: x.doc, note: [`Opened "${file.name}".`, ...x.notes].join(' ') };
+      }
+      const r = await readNativeFile(file);
+      if (!r.ok) return void refused(app, r.message);
+      return { doc: r.doc, note: `Opened "${file.name}".` };
+    });
+  } catch (e) {
+    refused(app, `"${file.name}" cannot be opened: ${e instanceof Error ? e.message : String(e)}`);
   }
-  const r = await readNativeFile(file);
-  if (!r.ok) return refused(app, r.message);
-  await app.replaceWith(r.doc, `Opened "${file.name}".`);
 }
 
 export function saveFile(app: App): void {
@@ -111,9 +169,7 @@ export async function bringBack(app: App): Promise<void> {
 }
 
 export async function exportXlsx(app: App): Promise<void> {
-  app.status.show('Preparing the xlsx…', 'info', 0);
   try {
-    const { handOff } = await import('./handOff.ts');
     const { session } = app;
     const valueAt = (sheet: string, row: number, col: number) => {
       const id = session.engine.getSheetId(sheet);
@@ -124,7 +180,17 @@ export async function exportXlsx(app: App): Promise<void> {
       const id = session.engine.getSheetId(sheet);
       return id === undefined ? undefined : toResult(session.engine.getCellValue({ sheet: id, row, col }));
     };
-    const r = await handOff(session.toDoc(), valueAt, resultAt);
+    const r = await withProgress('Exporting for other spreadsheet programs', async (task) => {
+      await task.step('Loading the xlsx writer…', 0.05);
+      const { handOff } = await import('./handOff.ts');
+      await task.step('Collecting the sheets…', 0.15);
+      const doc = session.toDoc();
+      await task.step('Writing the xlsx: formulas, formats and the cover sheet…', 0.3);
+      const out = await handOff(doc, valueAt, resultAt);
+      await task.step('Saving the file…', 0.95);
+      return out;
+    });
+    if (!r) return app.status.show('Export cancelled: no file was saved.', 'info', 8000);
     const name = fileNameFor(session.title, '.xlsx');
     download(r.bytes as BlobPart, name, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     const caveat = [
