@@ -12,7 +12,7 @@ export class SidePanel {
   private readonly views = new Map<PanelName, { title: string; node: HTMLElement; onShow?: () => void }>();
   onToggle: (name: PanelName | undefined) => void = () => {};
   /** Set by the app: where the keyboard goes when the panel is closed with its × button. */
-  onClosed: () => void = () => {};
+  onClosed: (click: Event) => void = () => {};
 
   constructor() {
     this.title = el('span', { className: 'kl-pane-title' });
@@ -22,9 +22,9 @@ export class SidePanel {
       title: 'Close the panel',
       attrs: { type: 'button', 'aria-label': 'Close the panel' },
     });
-    close.addEventListener('click', () => {
+    close.addEventListener('click', (e) => {
       this.toggle(undefined);
-      this.onClosed();
+      this.onClosed(e);
     });
     this.body = el('div', { className: 'kl-side-body' });
     this.root = el('aside', { className: 'kl-side', attrs: { 'data-testid': 'side-panel' } }, [

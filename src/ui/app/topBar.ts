@@ -97,9 +97,9 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
       title: label,
       attrs: { type: 'button', 'aria-label': label, 'data-testid': testId },
     });
-    b.addEventListener('click', () => {
+    b.addEventListener('click', (e) => {
       run();
-      app.grid.focus();
+      app.grid.focusAfterClick(e);
     });
     return b;
   };
@@ -109,10 +109,10 @@ export function buildTopBar(app: App): { root: HTMLElement; title: HTMLInputElem
       text: label,
       attrs: { type: 'button', 'aria-pressed': 'false', 'data-testid': `toggle-${name}` },
     });
-    b.addEventListener('click', () => {
+    b.addEventListener('click', (e) => {
       app.side.toggle(name);
       // The keyboard goes back to the grid: typing carries on where it was.
-      app.grid.focus();
+      app.grid.focusAfterClick(e);
     });
     return b;
   };

@@ -13,11 +13,16 @@ export interface ChoiceHost {
   readonly sheetId: number;
   notes(): CellNotes | undefined;
   notice(text: string): void;
+  focus(): void;
+  focusAfterClick(click: Event): void;
 }
 
 type Change = [number, string | number, unknown, unknown] | null;
 
-/** Call before the edit handlers are installed, so a refused change never reaches them. */
+/**
+ * Call before the edit handlers are installed, so a refused value never reaches the workbook;
+ * a value let through is written as the list has it ("TAN φ" → "tan φ").
+ */
 export function installChoiceCheck(host: ChoiceHost): void {
   host.hot.addHook('beforeChange', (changes: Change[], source: string) => {
     if (source === 'loadData' || source === 'updateData' || source === 'kl-sync') return;
@@ -32,9 +37,25 @@ export function installChoiceCheck(host: ChoiceHost): void {
       else {
         changes[i] = null;
         host.notice(r.message);
+        // As a spreadsheet's data validation does: the text typed goes back into the cell's
+        // editor to mend (Escape gives the cell back its value).
+        if (source === 'edit' && changes.length === 1)
+          reopen(host, ch[0], Number(ch[1]), String(ch[3] ?? ''));
       }
     });
   });
+}
+
+function reopen(host: ChoiceHost, row: number, col: number, text: string): void {
+  setTimeout(() => {
+    host.hot.selectCell(row, col);
+    const editor = host.hot.getActiveEditor() as unknown as
+      { beginEditing(initial?: string): void; isOpened(): boolean; enableFullEditMode(): void } | undefined;
+    if (!editor || editor.isOpened()) return;
+    // The editor takes a starting text only in its full edit mode (as after F2).
+    editor.enableFullEditMode();
+    editor.beginEditing(text);
+  }, 0);
 }
 
 let open: { menu: HTMLElement; close(): void } | undefined;
@@ -49,11 +70,13 @@ export function openChoiceList(host: ChoiceHost, row: number, col: number): bool
     className: 'kl-menu kl-context-menu kl-choice-list',
     attrs: { role: 'listbox', 'data-testid': 'choice-list', 'aria-label': choice.message },
   });
-  const close = () => {
+  /** `by`: the click or key that closed the list; the keyboard goes back to the grid. */
+  const close = (by?: Event) => {
     menu.remove();
     document.removeEventListener('mousedown', away, true);
     open = undefined;
-    host.hot.listen();
+    if (by?.type === 'click') host.focusAfterClick(by);
+    else if (by) host.focus();
   };
   const away = (e: Event) => {
     if (!menu.contains(e.target as Node)) close();
@@ -65,8 +88,8 @@ export function openChoiceList(host: ChoiceHost, row: number, col: number): bool
       text: o,
       attrs: { type: 'button', role: 'option', 'aria-selected': String(o === current) },
     });
-    b.addEventListener('click', () => {
-      close();
+    b.addEventListener('click', (e) => {
+      close(e);
       if (o !== current) host.session.setCells(host.sheetId, [{ row, col, content: contentOf(o) }]);
     });
     return b;
@@ -80,7 +103,7 @@ export function openChoiceList(host: ChoiceHost, row: number, col: number): bool
       items[(i + (e.key === 'ArrowDown' ? 1 : n - 1) + n) % n]?.focus();
     } else if (e.key === 'Escape' || e.key === 'Tab') {
       e.preventDefault();
-      close();
+      close(e);
     }
   });
   document.body.append(menu);

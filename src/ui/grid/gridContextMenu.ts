@@ -8,6 +8,9 @@ import { clearCells, deleteRows, fillDown, insertRows, type CommandHost } from '
 interface MenuHost extends CommandHost {
   readonly hot: HotInstance;
   notice(text: string): void;
+  /** Give the keyboard back to the grid from a click handler. */
+  focusAfterClick(click: Event): void;
+  focus(): void;
 }
 
 export interface CellMenu {
@@ -18,11 +21,13 @@ export interface CellMenu {
 
 export function attachContextMenu(host: HTMLElement, grid: MenuHost): CellMenu {
   let open: HTMLElement | undefined;
-  const close = (refocus = false) => {
+  /** `refocus`: the click (or key) that closed the menu; the keyboard goes back to the grid. */
+  const close = (refocus?: Event) => {
     open?.remove();
     open = undefined;
     document.removeEventListener('mousedown', away, true);
-    if (refocus) grid.hot.listen();
+    if (refocus?.type === 'click') grid.focusAfterClick(refocus);
+    else if (refocus) grid.focus();
   };
   const away = (e: Event) => {
     if (open && !open.contains(e.target as Node)) close();
@@ -69,8 +74,8 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): CellMenu {
         el('span', { text: label }),
         hint ? el('span', { className: 'kl-menu-hint', text: hint }) : null,
       ]);
-      b.addEventListener('click', () => {
-        close(true);
+      b.addEventListener('click', (e) => {
+        close(e);
         run();
       });
       buttons.push(b);
@@ -87,7 +92,7 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): CellMenu {
         buttons[e.key === 'Home' ? 0 : n - 1]?.focus();
       } else if (e.key === 'Escape' || e.key === 'Tab') {
         e.preventDefault();
-        close(true);
+        close(e);
       }
     });
     document.body.append(menu);

@@ -165,10 +165,13 @@ export class GridView implements EditHost, ChoiceHost {
   }
 
   private jumpToDataEdge(sel: Selection, dir: Direction, extend: boolean): void {
-    const size = this.session.engine.getSheetDimensions(sel.sheetId);
+    // The data's extent from the contents (trailing blanks trimmed): the engine's dimensions
+    // keep counting a row that was filled and then undone.
+    const contents = this.session.sheetContents(sel.sheetId);
+    const size = { height: contents.length, width: contents.reduce((m, r) => Math.max(m, r.length), 0) };
     const filled = (row: number, col: number) => {
       const c = this.session.cellContent(sel.sheetId, row, col);
-      return c !== null && c !== '';
+      return c !== null && c !== undefined && c !== '';
     };
     // With Shift the far corner of the block moves; its anchor (the active cell) stays.
     const from = extend
@@ -266,6 +269,16 @@ export class GridView implements EditHost, ChoiceHost {
   isEditing(): boolean {
     const editor = this.hot.getActiveEditor() as unknown as { isOpened?: () => boolean } | undefined;
     return editor?.isOpened?.() === true;
+  }
+
+  /**
+   * Give the keyboard back to the grid from the click handler of a button outside it (toolbar,
+   * menu item). The click is kept from reaching the page: the grid library takes any click that
+   * reaches the page from outside it as a sign to stop listening to the keyboard.
+   */
+  focusAfterClick(click: Event): void {
+    click.stopPropagation();
+    this.focus();
   }
 
   /** Give the keyboard back to the grid (after the formula bar or a dialog had it). */
