@@ -77,7 +77,7 @@ describe('diagram model', () => {
     expect(m.buses.get('LV1')?.figures).toEqual({ p: 200, q: 90, cos: 0.912 });
     expect(m.buses.get('LV1')?.sheetRow).toBe(2);
     const mv2 = m.buses.get('MV2');
-    expect(mv2?.figures).toEqual({ p: 90, cos: 0.9 });
+    expect(mv2?.figures).toEqual({ p: 90, cos: 0.9, failed: { q: '#N/A' } });
     expect(mv2?.errors[0]).toMatch(/^Q day \(kvar\) on the Buses sheet is #N\/A: KVAR\.LOAD: argument 2/);
     // A bus the sheet has no row for yet has no figures and no row to show.
     expect(m.buses.get('LV2')?.sheetRow).toBeUndefined();

@@ -129,6 +129,12 @@ describe('numbers rounded to fit their column', () => {
     expect(fitNumber(123456789, '#,##0', 5)).toBe('1E+08');
     expect(fitNumber(123456789, '#,##0', 3)).toBe('###');
   });
+  it('in General format, keeps fewer significant digits without trailing zeros', () => {
+    // 1000.0499987500625 (√(1000² + 10²) at full precision) in a column of 9 digit widths.
+    expect(fitNumber(1000.0499987500625, undefined, 9)).toBe('1000.05');
+    expect(fitNumber(1000.0499987500625, undefined, 12)).toBe('1000.049999');
+    expect(fitNumber(123456789012, 'General', 8)).toBe('1.23E+11');
+  });
   it('counts points and commas as half a digit', () => {
     expect(textUnits('1,234.5')).toBe(6);
   });

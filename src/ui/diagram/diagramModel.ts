@@ -28,6 +28,8 @@ export interface BusFigures {
   readonly p?: number;
   readonly q?: number;
   readonly cos?: number;
+  /** Figures the engine gave an error for, with the error code (e.g. q: '#N/A'). */
+  readonly failed?: Readonly<Partial<Record<'p' | 'q' | 'cos', string>>>;
 }
 
 export interface DiagramBus {
@@ -104,15 +106,19 @@ export function busFigures(
     const name = row[0];
     if (typeof name !== 'string' || name.trim() === '') break;
     const figures: { -readonly [K in keyof BusFigures]: BusFigures[K] } = {};
+    const failed: Partial<Record<'p' | 'q' | 'cos', string>> = {};
     const errors: string[] = [];
     for (const k of ['p', 'q', 'cos'] as const) {
       const c = cols[k];
       if (c === undefined) continue;
       const v = row[c];
       const err = cellError(v);
-      if (err) errors.push(`${headers[k]} on the Buses sheet is ${err.code}: ${err.message}`);
-      else if (typeof v === 'number' && Number.isFinite(v)) figures[k] = v;
+      if (err) {
+        errors.push(`${headers[k]} on the Buses sheet is ${err.code}: ${err.message}`);
+        failed[k] = err.code;
+      } else if (typeof v === 'number' && Number.isFinite(v)) figures[k] = v;
     }
+    if (Object.keys(failed).length > 0) figures.failed = failed;
     if (!out.has(name)) out.set(name, { row: r, figures, errors });
   }
   return out;

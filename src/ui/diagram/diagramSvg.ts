@@ -13,11 +13,12 @@ const kw = (x: number) => formatNumber(x, '#,##0.0');
 export function figureLines(b: DiagramBus): string[] {
   const f = b.figures;
   if (b.sheetRow === undefined) return ['no totals yet:', 'not on the Buses sheet', ''];
-  const cos =
-    f.cos === undefined
-      ? 'cos φ —'
-      : `cos φ ${formatNumber(f.cos, '0.000')}${f.q !== undefined && f.q !== 0 ? (f.q > 0 ? ' lagging' : ' leading') : ''}`;
-  return [`P ${f.p === undefined ? '—' : kw(f.p)} kW`, `Q ${f.q === undefined ? '—' : kw(f.q)} kvar`, cos];
+  // An error is shown as its code, never as a blank or a zero.
+  const shown = (k: 'p' | 'q', x: number | undefined, unit: string) =>
+    f.failed?.[k] ?? (x === undefined ? '—' : `${kw(x)} ${unit}`);
+  const sense = f.q !== undefined && f.q !== 0 ? (f.q > 0 ? ' lagging' : ' leading') : '';
+  const cos = f.failed?.cos ?? (f.cos === undefined ? '—' : `${formatNumber(f.cos, '0.000')}${sense}`);
+  return [`P ${shown('p', f.p, 'kW')}`, `Q ${shown('q', f.q, 'kvar')}`, `cos φ ${cos}`];
 }
 
 export function busTitle(b: DiagramBus): string {

@@ -23,6 +23,7 @@ function decimalsOf(text: string): number {
 export function fitNumber(x: number, format: string | undefined, room: number): string {
   const text = formatNumber(x, format);
   if (textUnits(text) <= room) return text;
+  if (format === undefined || format === '' || format.toLowerCase() === 'general') return fitGeneral(x, room);
   const grouping = text.includes(',');
   const percent = text.endsWith('%');
   for (let d = decimalsOf(text) - 1; d >= 0; d--) {
@@ -32,6 +33,20 @@ export function fitNumber(x: number, format: string | undefined, room: number): 
   }
   const plain = formatNumber(x, percent ? '0%' : '0');
   if (textUnits(plain) <= room) return plain;
+  for (let d = 2; d >= 0; d--) {
+    const t = formatNumber(x, `0${d > 0 ? `.${'0'.repeat(d)}` : ''}E+00`);
+    if (textUnits(t) <= room) return t;
+  }
+  return '###';
+}
+
+/** General format: fewer significant digits (no trailing zeros), then scientific, then ###. */
+function fitGeneral(x: number, room: number): string {
+  const whole = Math.abs(x) >= 1 ? Math.floor(Math.log10(Math.abs(x))) + 1 : 1;
+  for (let p = 9; p >= whole; p--) {
+    const t = String(Number.parseFloat(x.toPrecision(p)));
+    if (!/e/i.test(t) && textUnits(t) <= room) return t;
+  }
   for (let d = 2; d >= 0; d--) {
     const t = formatNumber(x, `0${d > 0 ? `.${'0'.repeat(d)}` : ''}E+00`);
     if (textUnits(t) <= room) return t;
