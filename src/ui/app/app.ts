@@ -9,7 +9,7 @@ import { FormulaBar } from '../formulaBar.ts';
 import { GridView, type Selection } from '../grid/gridView.ts';
 import { fillDown } from '../grid/gridMenu.ts';
 import { WorkbookSession, SessionError } from '../model/session.ts';
-import { FunctionReference } from '../panels/functionReference.ts';
+import { LazyReference } from '../panels/lazyReference.ts';
 import { SheetList } from '../sheetList.ts';
 import { StatusBar } from '../statusBar.ts';
 import { Autosaver } from '../storage/autosave.ts';
@@ -23,6 +23,7 @@ import { navigationKey } from './navigation.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
 import type { DiagramPanel } from '../diagram/diagramPanel.ts';
+import type { LazyPanel } from './lazyPanel.ts';
 
 export class App {
   session!: WorkbookSession;
@@ -32,10 +33,10 @@ export class App {
   readonly sheets: SheetList;
   readonly status: StatusBar;
   readonly side = new SidePanel();
-  readonly reference: FunctionReference;
-  charts: ChartsPanel | undefined;
+  readonly reference: LazyReference;
+  charts: LazyPanel<ChartsPanel> | undefined;
   checks: ChecksPanel | undefined;
-  diagram: DiagramPanel | undefined;
+  diagram: LazyPanel<DiagramPanel> | undefined;
   private readonly gridHost: HTMLElement;
   private readonly caption: HTMLElement;
   private readonly titleInput: HTMLInputElement;
@@ -73,7 +74,7 @@ export class App {
       () => this.nextError(),
       () => openAbout(CATALOGUE.length),
     );
-    this.reference = new FunctionReference({
+    this.reference = new LazyReference({
       session: () => this.session,
       currentSheet: () => this.sheet,
       insert: (text) => this.insertIntoCell(text),

@@ -2,9 +2,8 @@
 // or open the demo template on a first visit; then keep saving.
 import { HyperFormula } from 'hyperformula';
 import { ENGINE_LANGUAGE } from '../../engine/config.ts';
-import { ChartsPanel } from '../charts/chartsPanel.ts';
 import { ChecksPanel } from '../panels/checksPanel.ts';
-import { DiagramPanel } from '../diagram/diagramPanel.ts';
+import { LazyPanel } from './lazyPanel.ts';
 import { SHEETS } from '../../core/workbook/buildLayout.ts';
 import { WorkbookStore } from '../storage/idbStore.ts';
 import { describeStorageError } from '../storage/storageErrors.ts';
@@ -24,7 +23,10 @@ async function openStore(): Promise<{ store?: WorkbookStore; problem?: string }>
 export async function boot(root: HTMLElement): Promise<App> {
   const { store, problem } = await openStore();
   const app = new App(root, store, HyperFormula.getRegisteredFunctionNames(ENGINE_LANGUAGE));
-  const charts = new ChartsPanel();
+  const charts = new LazyPanel(
+    async () => new (await import('../charts/chartsPanel.ts')).ChartsPanel(),
+    'charts-host',
+  );
   app.charts = charts;
   app.side.add('charts', 'Charts', charts.root, () => charts.draw());
   const checks = new ChecksPanel();
@@ -37,21 +39,25 @@ export async function boot(root: HTMLElement): Promise<App> {
     app.grid.select(row - 1, col ?? 0);
   };
 
-  app.side.onClosed = () => app.grid.focus();
-  const diagram = new DiagramPanel();
+  app.side.onClosed = (click) => app.grid.focusAfterClick(click);
+  const diagram = new LazyPanel(async () => {
+    const { DiagramPanel } = await import('../diagram/diagramPanel.ts');
+    const p = new DiagramPanel();
+    p.title = () => app.session.title;
+    p.onWide = () => {
+      app.side.toggleWide();
+      p.fit();
+    };
+    p.onSelectBus = (_bus, row) => {
+      const id = app.session.engine.getSheetId(SHEETS.buses);
+      if (id === undefined) return;
+      app.openSheet(id);
+      app.grid.select(row, 0);
+    };
+    return p;
+  }, 'diagram-host');
   app.diagram = diagram;
   app.side.add('diagram', 'Site diagram', diagram.root, () => diagram.draw());
-  diagram.title = () => app.session.title;
-  diagram.onWide = () => {
-    app.side.toggleWide();
-    diagram.fit();
-  };
-  diagram.onSelectBus = (_bus, row) => {
-    const id = app.session.engine.getSheetId(SHEETS.buses);
-    if (id === undefined) return;
-    app.openSheet(id);
-    app.grid.select(row, 0);
-  };
 
   const restored = store
     ? await store

@@ -2,7 +2,7 @@
 // Ctrl+PageUp, and Alt+PageDown / Alt+PageUp where a browser keeps the Ctrl keys for its own
 // tabs) and the go-to box (Ctrl+G or F5): an address such as Motors!F12, or a tag or bus name.
 import { promptDialog } from '../dialogs/dialog.ts';
-import { goTo, type GoToSheet } from '../model/goTo.ts';
+import type { GoToSheet } from '../model/goTo.ts';
 import type { App } from './app.ts';
 
 /** Show the sheet `step` places away in the tab order (wrapping round). */
@@ -28,6 +28,7 @@ function goToSheets(app: App): GoToSheet[] {
 }
 
 export async function openGoTo(app: App): Promise<void> {
+  const { goTo } = await import('../model/goTo.ts');
   const sheets = goToSheets(app);
   const text = await promptDialog('Go to', 'Address (Motors!F12, F12) or a tag or bus name', '', (v) => {
     if (v.trim() === '') return undefined;

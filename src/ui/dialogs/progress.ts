@@ -25,8 +25,9 @@ function breathe(): Promise<void> {
 }
 
 /**
- * Run `work` with a progress dialog; undefined when the user cancelled. The dialog shows only
- * after a short while, so quick work does not flash it.
+ * Run `work` with a progress dialog; undefined when the user cancelled. The dialog shows at
+ * once (or after `showAfterMs`), before the first step's work starts, so Cancel is there to
+ * click while a long step runs.
  */
 export async function withProgress<T>(
   title: string,
@@ -67,7 +68,7 @@ export async function withProgress<T>(
     document.body.append(dialog);
     dialog.showModal();
     cancel.focus();
-  }, opts.showAfterMs ?? 150);
+  }, opts.showAfterMs ?? 0);
   const task: Task = {
     signal: controller.signal,
     async step(what: string, fraction?: number) {

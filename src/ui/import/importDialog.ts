@@ -25,7 +25,7 @@ import { openDialog } from '../dialogs/dialog.ts';
 import type { App } from '../app/app.ts';
 import { currentSite } from './currentSite.ts';
 import { withProgress } from '../dialogs/progress.ts';
-import { openWithProgress } from '../app/fileActions.ts';
+import { openWithProgress } from '../app/longWork.ts';
 
 function loadMemory() {
   try {

@@ -4,7 +4,7 @@
 import { clear, el } from '../dom.ts';
 import { columnLetters } from '../model/address.ts';
 import type { WorkbookSession } from '../model/session.ts';
-import { collectChecks, type CheckItem, type CheckTarget, type ChecksReport } from './checksModel.ts';
+import type { CheckItem, CheckTarget, ChecksReport } from './checksModel.ts';
 
 const QUIET_MS = 600;
 
@@ -41,20 +41,20 @@ export class ChecksPanel {
     this.timer = undefined;
     if (!this.session || !this.dirty) return;
     this.dirty = false;
-    let report: ChecksReport;
-    try {
-      report = collectChecks(this.session.toDoc());
-    } catch (e) {
-      clear(this.body);
-      this.body.append(
-        el('p', {
-          className: 'kl-check is-error',
-          text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}`,
-        }),
-      );
-      return;
-    }
-    this.render(report);
+    const doc = this.session.toDoc();
+    // The checks (reading the site back, the rules, the compensation design) load the first
+    // time they run, keeping them out of the page's first download.
+    void import('./checksModel.ts')
+      .then(({ collectChecks }) => this.render(collectChecks(doc)))
+      .catch((e: unknown) => {
+        clear(this.body);
+        this.body.append(
+          el('p', {
+            className: 'kl-check is-error',
+            text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}`,
+          }),
+        );
+      });
   }
 
   private render(r: ChecksReport): void {
