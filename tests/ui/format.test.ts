@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { formatGeneral, formatNumber } from '../../src/ui/format/numberFormat.ts';
 import { fitNumber, textUnits } from '../../src/ui/format/fitNumber.ts';
-import { headerLabel, unitOf, widthPx } from '../../src/ui/format/columnHeader.ts';
+import { headerLabel, unitOf } from '../../src/ui/format/columnHeader.ts';
 import { a1, columnLetters, rangeLabel, sheetRef } from '../../src/ui/model/address.ts';
 
 describe('number formats', () => {
@@ -43,14 +43,6 @@ describe('column headers', () => {
     expect(headerLabel('D', { header: 'Qty', format: '0' }).detail).toBe('0 dp');
     expect(headerLabel('F', { header: 'Share', format: '0.0%' }).detail).toBe('1 dp %');
     expect(headerLabel('A', undefined)).toEqual({ letter: 'A', detail: '', computed: false });
-  });
-  it('keeps widths within bounds', () => {
-    expect(widthPx({ header: 'x', width: 1 })).toBe(48);
-    expect(widthPx({ header: 'x', width: 999 })).toBe(420);
-    expect(widthPx({ header: 'tag', width: 10 })).toBe(88);
-    // A long header widens a narrow column so it can be read, up to a limit.
-    expect(widthPx({ header: 'Rated output (kW)', width: 8 })).toBe(128);
-    expect(widthPx({ header: 'x'.repeat(80), width: 8 })).toBe(230);
   });
 });
 

@@ -47,4 +47,13 @@ describe('grid columns', () => {
     // Row numbers 50 px and a 12 px scroll bar take their share.
     expect(six).toBeLessThanOrEqual(1024 - 124 - 320 - 50 - 12);
   });
+
+  it('keeps widths within bounds', () => {
+    expect(columnWidth([{ header: 'x', width: 1 }], 0, 0)).toBe(44);
+    expect(columnWidth([{ header: 'x', width: 999 }], 0, 0)).toBe(400);
+    expect(columnWidth([{ header: 'x'.repeat(80), width: 8 }], 0, 0)).toBe(180);
+    // No description: a sheet without a header row, or a column beyond the described ones.
+    expect(columnWidth(undefined, 3, 0)).toBe(90);
+    expect(columnWidth([{ header: 'x' }], 5, 0)).toBe(64);
+  });
 });
