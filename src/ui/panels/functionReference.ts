@@ -166,21 +166,16 @@ export class FunctionReference {
       });
       use.addEventListener('click', () => this.host.insert(formula));
       return el('tr', { className: check.ok ? '' : 'is-off' }, [
-        el('td', { className: 'kl-mono', text: formula }),
-        el('td', { className: `kl-mono ${r.ok ? '' : 'kl-text-error'}`, text: shown }),
+        el('td', { className: 'kl-mono is-formula', text: formula }),
+        el('td', { className: `kl-mono is-value ${r.ok ? '' : 'kl-text-error'}`, text: shown }),
         el('td', {
           className: 'kl-ref-note',
           text: ex.note + (check.ok ? '' : ' — differs from the stated result'),
         }),
-        el('td', {}, [use]),
+        el('td', { className: 'is-use' }, [use]),
       ]);
     });
     return el('table', { className: 'kl-ref-examples', attrs: { 'data-testid': 'ref-examples' } }, [
-      el(
-        'colgroup',
-        {},
-        ['is-formula', 'is-value', 'is-note', 'is-use'].map((c) => el('col', { className: c })),
-      ),
       el('thead', {}, [
         el(
           'tr',
