@@ -216,6 +216,9 @@ export class GridView implements EditHost, ChoiceHost {
       rowHeights: (i: number) => (i === 0 && cols ? 36 : undefined) as number,
     });
     this.hot.render();
+    // A sheet opens at its top left: frozen columns never scroll, so selecting A2 alone would
+    // leave the rest of the sheet where the last one was scrolled.
+    this.hot.scrollViewportTo({ row: 0, col: frozen, verticalSnap: 'top', horizontalSnap: 'start' });
     this.hot.selectCell(this.hasHeaderRow() ? 1 : 0, 0);
     this.reportSelection();
   }
