@@ -365,6 +365,44 @@ describe('keyboard', () => {
   });
 });
 
+describe('panels and the status line', () => {
+  it("the Functions panel's detail and Insert follow the search", async () => {
+    await panel('functions', true);
+    await page.fill('[data-testid="ref-search"]', 'motor');
+    await page.locator('[data-testid="ref-list"] [data-fn="KVAR.MOTOR"]').click();
+    const detail = page.locator('[data-testid="ref-detail"]');
+    expect(await detail.locator('h2').textContent()).toBe('KVAR.MOTOR');
+    // A search that hides KVAR.MOTOR shows the first function it finds instead.
+    await page.fill('[data-testid="ref-search"]', 'cable charging');
+    const first = await page.locator('[data-testid="ref-list"] [data-fn]').first().getAttribute('data-fn');
+    expect(first).not.toBe('KVAR.MOTOR');
+    await expect.poll(() => detail.locator('h2').textContent()).toBe(first);
+    await page.fill('[data-testid="ref-search"]', 'no such function at all');
+    await expect.poll(() => detail.locator('[data-testid="ref-insert"]').count()).toBe(0);
+    await page.fill('[data-testid="ref-search"]', '');
+    await panel('functions', false);
+  });
+
+  it('the error count is the workbook’s: switching sheets leaves it alone', async () => {
+    await openSheet(page, 'Motors');
+    const cos = await column('cos φ');
+    await typeInCell(page, 1, cos, '1.3');
+    const count = page.locator('[data-testid="error-count"]');
+    await expect.poll(() => count.textContent()).toMatch(/^\d+ cells? with errors/);
+    const n = await count.textContent();
+    for (const sheet of ['Site', 'Buses', 'Loads']) {
+      await openSheet(page, sheet);
+      expect(await count.textContent()).toBe(n);
+    }
+    // "next" walks the error cells across the sheets, in tab order from the active cell.
+    await count.click();
+    expect(await address()).toMatch(/^(Transformers|Lines|Cables|Capacitors|Buses|Compensation)/);
+    expect(await page.locator('.kl-grid-host td.current').last().getAttribute('class')).toMatch(/kl-err/);
+    await undo();
+    await expect.poll(() => count.isVisible()).toBe(false);
+  });
+});
+
 describe('layout and look', () => {
   it('at 1024 px with a panel open shows six columns, keeps Tag and Bus frozen, rounds numbers to fit', async () => {
     await page.setViewportSize({ width: 1024, height: 768 });
