@@ -179,6 +179,24 @@ describe('Checks: each entry jumps to its cell', () => {
   });
 });
 
+describe('Checks: a design finding jumps to its bus', () => {
+  it('on the solar collector at night, cable charging shows its bus on the Buses sheet', async () => {
+    await page.click('[data-testid="menu-workbook"]');
+    await page.click('[data-testid="menu-template"]');
+    await page.click('[data-testid="template-solar-collector"]');
+    await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toMatch(/Solar park/);
+    await panel('checks', true);
+    const item = page.locator('.kl-check', { hasText: 'case night' }).filter({ has: page.locator('button') });
+    await item.first().waitFor({ timeout: 20_000 });
+    const bus = /^bus (\S+)/.exec((await item.first().locator('.kl-check-where').textContent()) ?? '')?.[1];
+    expect(bus).toBeDefined();
+    await item.first().locator('button').click();
+    await expect.poll(caption).toBe('Buses');
+    const r = await rowOf(bus as string);
+    expect(await address()).toBe(`Buses!A${r + 1}`);
+  });
+});
+
 describe('cell choices and marks from sheet metadata', () => {
   it('marks an assumed value, ends the mark when typed over, and keeps a choice cell to its list', async () => {
     const doc = {
