@@ -5,6 +5,8 @@ import './styles/formula.css';
 import './styles/grid.css';
 import './styles/panels.css';
 import './styles/checks.css';
+import './styles/diagram.css';
+import './styles/diagramPanel.css';
 import { boot } from './app/boot.ts';
 
 const root = document.getElementById('app');

@@ -52,7 +52,8 @@ export class SheetList {
             'data-testid': 'sheet-tab',
             'data-sheet': name,
           },
-          ...(purpose ? { title: purpose } : {}),
+          // The name in full first: a narrow index cuts long names.
+          title: purpose ? `${name} — ${purpose}` : name,
         },
         [el('span', { className: 'kl-sheet-name', text: name })],
       );

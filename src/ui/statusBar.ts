@@ -85,7 +85,10 @@ export class StatusBar {
 
   errorCount(n: number): void {
     this.errors.hidden = n === 0;
-    this.errors.textContent = `${n} cell${n === 1 ? '' : 's'} with errors — next ›`;
+    const text = `${n} cell${n === 1 ? '' : 's'} with errors — next ›`;
+    // Only a real change touches the line (no flicker while values are recounted).
+    if (this.errors.textContent !== text) this.errors.textContent = text;
+    this.errors.title = 'Error cells in the whole workbook; click for the next one, on any sheet.';
   }
 
   /** A short message; errors stay until replaced (timeout 0). */

@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
-import { cell, cellText, openSheet, selectCell, sheetNames } from './gridHelpers.ts';
+import { cell, cellText, columnOf, openSheet, selectCell, sheetNames } from './gridHelpers.ts';
 
 let server: { url: string; close(): Promise<void> };
 let browser: Browser;
@@ -136,12 +136,7 @@ describe('files', () => {
     await openSheet(page, 'Motors');
     const rows = [await cellText(page, 1, 0), await cellText(page, 2, 0)];
     expect(rows.sort()).toEqual(['P-201', 'P-202']);
-    const header = await page
-      .locator('.kl-grid-host .ht_master .htCore tbody tr')
-      .first()
-      .locator('td')
-      .allTextContents();
-    const col = header.findIndex((h) => h.startsWith('Rated output'));
+    const col = await columnOf(page, 'Rated output (kW)');
     expect(await cellText(page, 1, col)).toBe('90.0');
     // The choices are remembered for the next list from this client.
     const memory = await page.evaluate(() => localStorage.getItem('kvar-ledger.import-mapping.v1'));

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { busesToDraw, casesOf, cosPhi, niceCeil, readChartData } from '../../src/ui/charts/chartData.ts';
+import {
+  busesToDraw,
+  casesOf,
+  cosPhi,
+  niceCeil,
+  readChartData,
+  type BusBar,
+} from '../../src/ui/charts/chartData.ts';
 
 // Header texts as the workbook builder writes them (src/core/workbook/buildBuses.ts).
 const buses = [
@@ -67,5 +74,37 @@ describe('buses drawn', () => {
     const bars = [5, 1, 9, 3, 7].map((q, i) => ({ bus: `B${i}`, absorbed: q, delivered: 0, net: q }));
     expect(busesToDraw(bars, 3).map((b) => b.bus)).toEqual(['B0', 'B2', 'B4']);
     expect(busesToDraw(bars, 10)).toHaveLength(5);
+  });
+});
+
+describe('chart data with engine errors', () => {
+  const err = { value: '#N/A', message: 'KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3' };
+  const bad = buses.map((r, i) =>
+    i === 2 ? ['LV1', 1, 'T1', 'POC', 0.4, 500, err, err, 0, 60, 20, 20, 0, 2] : r,
+  );
+  it('marks a bus whose kvar is an error as an error, not as 0 kvar', () => {
+    const d = readChartData(bad, compensation);
+    const lv1 = d.bars.get('day')?.find((b) => b.bus === 'LV1');
+    expect(lv1?.error).toBe(`#N/A ${err.message}`);
+    // The other case of the same bus computed fine and has no error.
+    expect(d.bars.get('night')?.find((b) => b.bus === 'LV1')?.error).toBeUndefined();
+  });
+  it('says why the point of connection has no triangle when its P or Q is an error', () => {
+    const d = readChartData(
+      bad.map((r, i) => (i === 1 ? ['POC', 0, null, null, 11, err, 600, 650, -50, 100, -40, 30, -70, 1] : r)),
+      compensation,
+    );
+    expect(d.triangles.has('day')).toBe(false);
+    expect(d.triangleErrors.get('day')).toBe(`POC: #N/A ${err.message}`);
+  });
+  it('keeps buses in error among the bars drawn when there are too many', () => {
+    const many: BusBar[] = Array.from({ length: 40 }, (_, i) => ({
+      bus: `B${i}`,
+      absorbed: 100 + i,
+      delivered: 0,
+      net: 100 + i,
+    }));
+    many[5] = { bus: 'B5', absorbed: 0, delivered: 0, net: 0, error: '#N/A x' };
+    expect(busesToDraw(many, 10).map((b) => b.bus)).toContain('B5');
   });
 });

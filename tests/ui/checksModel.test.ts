@@ -34,7 +34,7 @@ describe('checks of a workbook', () => {
     (motors?.cells[2] as unknown[])[col] = 1.3;
     const r = collectChecks(doc);
     const bad = r.items.find((i) => i.severity === 'error');
-    expect(bad?.target).toEqual({ sheet: 'Motors', row: 3 });
+    expect(bad?.target).toEqual({ sheet: 'Motors', row: 3, col });
     expect(bad?.where).toBe('Motors row 3, column cos_phi');
     expect(bad?.text).toContain('got 1.3');
     expect(r.designSkipped).toMatch(/input errors/);
@@ -56,5 +56,47 @@ describe('checks of a workbook', () => {
     expect(r.counts.error).toBeGreaterThan(0);
     expect(r.items[0]?.severity).toBe('error');
     expect(r.items.some((i) => i.code === 'charging-dominates')).toBe(false);
+  });
+
+  it('a Site-sheet problem is named by the Site sheet row and points at the value cell', () => {
+    const doc = template('cold-store');
+    const site = doc.sheets.find((s) => s.name === 'Site');
+    const row = (site?.cells ?? []).findIndex((r) => r[0] === 'Frequency');
+    expect(row).toBeGreaterThan(0);
+    (site?.cells[row] as unknown[])[1] = 55;
+    const r = collectChecks(doc);
+    const bad = r.items.find((i) => i.severity === 'error');
+    expect(bad?.where).toBe(`Site row ${row + 1}, column Frequency`);
+    expect(bad?.target).toEqual({ sheet: 'Site', row: row + 1, col: 1 });
+    expect(bad?.text).toMatch(/^must be 50 or 60 \(Hz\); got 55/);
+    // Nothing is said of an equipment sheet's row by mistake.
+    expect(r.items.some((i) => /^(Motors|Loads) row/.test(i.where))).toBe(false);
+  });
+
+  it('a bus typo is reported at the row that has it, and the rows named in the text are sheet rows', () => {
+    const doc = template('cold-store');
+    const loads = doc.sheets.find((s) => s.name === 'Loads');
+    const header = (loads?.cells[0] ?? []) as unknown[];
+    const busCol = header.indexOf('Bus');
+    const lastRow = (loads?.cells.length ?? 0) - 1;
+    const typo = `${String((loads?.cells[lastRow] as unknown[])[busCol])}X`;
+    (loads?.cells[lastRow] as unknown[])[busCol] = typo;
+    const r = collectChecks(doc);
+    const bad = r.items.find((i) => i.severity === 'error' && i.text.includes(typo));
+    expect(bad?.target).toEqual({ sheet: 'Loads', row: lastRow + 1, col: busCol });
+    expect(bad?.where).toBe(`Loads row ${lastRow + 1}, column bus`);
+    expect(bad?.text).toContain(`${typo} (Loads row ${lastRow + 1})`);
+    expect(bad?.text).not.toMatch(/\(row \d+\)/);
+  });
+
+  it('a design finding on a bus points at that bus on the Buses sheet', () => {
+    const doc = template('solar-collector');
+    const r = collectChecks(doc);
+    const charging = r.items.find((i) => i.code === 'charging-dominates');
+    const bus = /^bus (\S+)/.exec(charging?.where ?? '')?.[1];
+    const buses = doc.sheets.find((s) => s.name === 'Buses');
+    const row = (buses?.cells ?? []).findIndex((c, i) => i > 0 && c[0] === bus);
+    expect(row).toBeGreaterThan(0);
+    expect(charging?.target).toEqual({ sheet: 'Buses', row: row + 1, col: 0 });
   });
 });

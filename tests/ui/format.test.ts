@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { formatGeneral, formatNumber } from '../../src/ui/format/numberFormat.ts';
-import { headerLabel, unitOf, widthPx } from '../../src/ui/format/columnHeader.ts';
+import { fitNumber, textUnits } from '../../src/ui/format/fitNumber.ts';
+import { headerLabel, unitOf } from '../../src/ui/format/columnHeader.ts';
 import { a1, columnLetters, rangeLabel, sheetRef } from '../../src/ui/model/address.ts';
 
 describe('number formats', () => {
@@ -42,14 +43,6 @@ describe('column headers', () => {
     expect(headerLabel('D', { header: 'Qty', format: '0' }).detail).toBe('0 dp');
     expect(headerLabel('F', { header: 'Share', format: '0.0%' }).detail).toBe('1 dp %');
     expect(headerLabel('A', undefined)).toEqual({ letter: 'A', detail: '', computed: false });
-  });
-  it('keeps widths within bounds', () => {
-    expect(widthPx({ header: 'x', width: 1 })).toBe(48);
-    expect(widthPx({ header: 'x', width: 999 })).toBe(420);
-    expect(widthPx({ header: 'tag', width: 10 })).toBe(88);
-    // A long header widens a narrow column so it can be read, up to a limit.
-    expect(widthPx({ header: 'Rated output (kW)', width: 8 })).toBe(128);
-    expect(widthPx({ header: 'x'.repeat(80), width: 8 })).toBe(230);
   });
 });
 
@@ -137,5 +130,32 @@ describe('optional decimals', () => {
     expect(formatNumber(0.415, '0.0##')).toBe('0.415');
     expect(formatNumber(0.41567, '0.0##')).toBe('0.416');
     expect(formatNumber(3, '0.##')).toBe('3');
+  });
+});
+
+describe('numbers rounded to fit their column', () => {
+  it('keeps a number that fits as its format shows it', () => {
+    expect(fitNumber(1234.5678, '#,##0.0', 10)).toBe('1,234.6');
+  });
+  it('drops decimals first, rounding (not cutting) the last digit kept', () => {
+    // 1,234.6 is 6 digit widths: with 5.5 it shows 1,235.
+    expect(fitNumber(1234.5678, '#,##0.0', 5.5)).toBe('1,235');
+    expect(fitNumber(0.98765, '0.000', 4)).toBe('0.99');
+    expect(fitNumber(-0.98765, '0.000', 2)).toBe('-1');
+  });
+  it('then the separators, then scientific notation, and ### only when nothing fits', () => {
+    expect(fitNumber(1234567, '#,##0', 7)).toBe('1234567');
+    expect(fitNumber(123456789, '#,##0', 7)).toBe('1.2E+08');
+    expect(fitNumber(123456789, '#,##0', 5)).toBe('1E+08');
+    expect(fitNumber(123456789, '#,##0', 3)).toBe('###');
+  });
+  it('in General format, keeps fewer significant digits without trailing zeros', () => {
+    // 1000.0499987500625 (√(1000² + 10²) at full precision) in a column of 9 digit widths.
+    expect(fitNumber(1000.0499987500625, undefined, 9)).toBe('1000.05');
+    expect(fitNumber(1000.0499987500625, undefined, 12)).toBe('1000.049999');
+    expect(fitNumber(123456789012, 'General', 8)).toBe('1.23E+11');
+  });
+  it('counts points and commas as half a digit', () => {
+    expect(textUnits('1,234.5')).toBe(6);
   });
 });

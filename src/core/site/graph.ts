@@ -79,7 +79,15 @@ export function buildBusGraph(equipment: readonly EquipmentRow[]): BusGraph {
   const roots = [...firstRow.keys()].filter((b) => !feeder.has(b));
   if (roots.length > 1) {
     const listed = roots.map((b) => `${b} (row ${firstRow.get(b)})`).join(', ');
-    const second = roots[1] as string;
+    // Report it where the stray bus is named (a typo, usually): not at the point of connection,
+    // taken to be the root with the most buses below it.
+    const below = (root: string) => {
+      const seen = new Set([root]);
+      for (const b of seen) for (const r of branches.get(b) ?? []) seen.add(r.to_bus as string);
+      return seen.size;
+    };
+    const main = roots.reduce((a, b) => (below(b) > below(a) ? b : a));
+    const second = roots.find((r) => r !== main) as string;
     problems.push(
       error(
         { row: firstRow.get(second) as number, column: 'bus', bus: second },

@@ -9,7 +9,7 @@ import { FormulaBar } from '../formulaBar.ts';
 import { GridView, type Selection } from '../grid/gridView.ts';
 import { fillDown } from '../grid/gridMenu.ts';
 import { WorkbookSession, SessionError } from '../model/session.ts';
-import { FunctionReference } from '../panels/functionReference.ts';
+import { LazyReference } from '../panels/lazyReference.ts';
 import { SheetList } from '../sheetList.ts';
 import { StatusBar } from '../statusBar.ts';
 import type { WorkbookStore } from '../storage/idbStore.ts';
@@ -20,8 +20,11 @@ import { showAbout } from './lazyCommands.ts';
 import { buildTopBar } from './topBar.ts';
 import { selectionNumbers } from './sheetScan.ts';
 import { ErrorTracker } from './errorTracker.ts';
+import { navigationKey } from './navigation.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
+import type { DiagramPanel } from '../diagram/diagramPanel.ts';
+import type { LazyPanel } from './lazyPanel.ts';
 
 export class App {
   session!: WorkbookSession;
@@ -31,9 +34,10 @@ export class App {
   readonly sheets: SheetList;
   readonly status: StatusBar;
   readonly side = new SidePanel();
-  readonly reference: FunctionReference;
-  charts: ChartsPanel | undefined;
+  readonly reference: LazyReference;
+  charts: LazyPanel<ChartsPanel> | undefined;
   checks: ChecksPanel | undefined;
+  diagram: LazyPanel<DiagramPanel> | undefined;
   private readonly gridHost: HTMLElement;
   private readonly caption: HTMLElement;
   private readonly titleInput: HTMLInputElement;
@@ -73,7 +77,7 @@ export class App {
       () => this.nextError(),
       () => showAbout(CATALOGUE.length),
     );
-    this.reference = new FunctionReference({
+    this.reference = new LazyReference({
       session: () => this.session,
       currentSheet: () => this.sheet,
       insert: (text) => this.insertIntoCell(text),
@@ -129,12 +133,14 @@ export class App {
       this.queueScan();
       this.charts?.update(next);
       this.checks?.update(next);
+      this.diagram?.update(next);
     });
     this.titleInput.value = next.title;
     this.sheet = -1;
     this.openSheet(next.sheetIds()[0] as number);
     this.charts?.update(next);
     this.checks?.update(next);
+    this.diagram?.update(next);
     if (this.side.shown === 'functions') this.reference.refresh();
     if (opts.note) this.status.show(opts.note, 'info', 10_000);
     this.keeping.opened(next, opts.changed === true);
@@ -144,10 +150,11 @@ export class App {
    * Replace the open workbook by another (template, file, import, bringing one back): the one on
    * screen is first set aside in the browser, so Workbook → Bring back returns it.
    */
-  async replaceWith(doc: WorkbookDoc, note: string): Promise<boolean> {
+  async replaceWith(doc: WorkbookDoc | WorkbookSession, note: string): Promise<boolean> {
     let next: WorkbookSession;
     try {
-      next = WorkbookSession.fromDoc(doc);
+      // A session already built (with progress shown, see fileActions.ts) is taken as it is.
+      next = doc instanceof WorkbookSession ? doc : WorkbookSession.fromDoc(doc);
     } catch (e) {
       this.status.show(
         `The workbook could not be opened: ${e instanceof Error ? e.message : String(e)}. The open workbook is unchanged.`,
@@ -178,7 +185,6 @@ export class App {
 
   openSheet(id: number): void {
     this.sheet = id;
-    this.errors?.watch(id);
     this.grid.show(id);
     this.sheets.render();
     const name = this.session.sheetName(id);
@@ -231,6 +237,7 @@ export class App {
       if (e.key === 'Escape') setTimeout(() => this.formulaBar.show(this.grid.selection()), 0);
       return false;
     }
+    if (navigationKey(this, e)) return true;
     const mod = e.ctrlKey || e.metaKey;
     if (!mod || e.altKey) return false;
     const k = e.key.toLowerCase();
@@ -294,12 +301,16 @@ export class App {
     }, 250);
   }
 
+  /** The next error cell of the workbook after the active one, on whichever sheet it is. */
   private nextError(): void {
-    const errors = this.errors?.list() ?? [];
-    if (errors.length === 0) return;
     const at = this.lastSelection;
-    const after = errors.find(([r, c]) => !at || r > at.row || (r === at.row && c > at.col)) ?? errors[0];
-    if (after) this.grid.select(after[0], after[1]);
+    const next = this.errors?.next(
+      this.session.sheetIds(),
+      at && { sheet: at.sheetId, row: at.row, col: at.col },
+    );
+    if (!next) return;
+    if (next.sheet !== this.sheet) this.openSheet(next.sheet);
+    this.grid.select(next.row, next.col);
   }
 
   catalogueSize(): number {

@@ -4,12 +4,13 @@
 import { registeredFunctionNames } from '../../engine/index.ts';
 import { ChecksPanel } from '../panels/checksPanel.ts';
 import { COPY_PREFIX, LAST_GOOD, WorkbookStore, type LoadResult } from '../storage/idbStore.ts';
+import { LazyPanel } from './lazyPanel.ts';
+import { SHEETS } from '../../core/workbook/layout.ts';
 import { describeStorageError } from '../storage/storageErrors.ts';
 import { claimWorkbook } from '../storage/tabClaim.ts';
 import { TabStorage } from '../storage/tabStorage.ts';
 import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts';
 import { App } from './app.ts';
-import { lazyView } from './lazyView.ts';
 import { fileCommand } from './lazyCommands.ts';
 import { watchPageLife } from './pageLife.ts';
 
@@ -72,27 +73,42 @@ export async function boot(root: HTMLElement): Promise<App> {
     : undefined;
   const app = new App(root, store, registeredFunctionNames(), storage);
   late.app = app;
-  // The charts load the first time their panel opens.
-  const charts = lazyView(
+  const charts = new LazyPanel(
     async () => new (await import('../charts/chartsPanel.ts')).ChartsPanel(),
-    (panel) => {
-      app.charts = panel;
-      panel.visible = app.side.shown === 'charts';
-      panel.update(app.session);
-    },
-    (panel) => panel.draw(),
+    'charts-host',
   );
-  app.side.add('charts', 'Charts', charts.root, () => charts.show());
+  app.charts = charts;
+  app.side.add('charts', 'Charts', charts.root, () => charts.draw());
   const checks = new ChecksPanel();
   app.checks = checks;
   app.side.add('checks', 'Checks', checks.root, () => void checks.draw());
-  checks.onJump = ({ sheet, row }) => {
+  checks.onJump = ({ sheet, row, col }) => {
     const id = app.session.engine.getSheetId(sheet);
     if (id === undefined) return;
     app.openSheet(id);
-    app.grid.select(row - 1, 0);
+    app.grid.select(row - 1, col ?? 0);
   };
   if (claim.mode === 'copy') app.status.copyMode(true);
+
+  app.side.onClosed = (click) => app.grid.focusAfterClick(click);
+  const diagram = new LazyPanel(async () => {
+    const { DiagramPanel } = await import('../diagram/diagramPanel.ts');
+    const p = new DiagramPanel();
+    p.title = () => app.session.title;
+    p.onWide = () => {
+      app.side.toggleWide();
+      p.fit();
+    };
+    p.onSelectBus = (_bus, row) => {
+      const id = app.session.engine.getSheetId(SHEETS.buses);
+      if (id === undefined) return;
+      app.openSheet(id);
+      app.grid.select(row, 0);
+    };
+    return p;
+  }, 'diagram-host');
+  app.diagram = diagram;
+  app.side.add('diagram', 'Site diagram', diagram.root, () => diagram.draw());
 
   let note = restored?.note;
   if (restored?.found) {

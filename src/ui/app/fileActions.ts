@@ -1,9 +1,9 @@
 // Workbook-level commands: start from a template, open and save the native file, restore the
-// previous autosaved state, import an equipment list, export the hand-off xlsx. The xlsx code
-// (and its library) is fetched only when one of the last two is used.
+// previous autosaved state, import an equipment list, export the hand-off xlsx. Opening,
+// importing and exporting (longWork.ts, and the xlsx code and library) load only when used.
 import { el } from '../dom.ts';
 import { confirmDialog, openDialog } from '../dialogs/dialog.ts';
-import { download, fileNameFor, pickFile, readNativeFile, saveNativeFile } from '../storage/nativeFile.ts';
+import { pickFile, saveNativeFile } from '../storage/nativeFile.ts';
 import { templateIds, templateInfo, templateWorkbook } from '../templates/templateCatalog.ts';
 import { blankSiteWorkbook } from '../../core/workbook/blankSite.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
@@ -19,7 +19,7 @@ export interface FileHost extends ImportHost {
   readonly session: Pick<WorkbookSession, 'toDoc' | 'title' | 'engine'>;
   readonly store: WorkbookStore | undefined;
   readonly status: Pick<StatusBar, 'show'>;
-  replaceWith(doc: WorkbookDoc, note: string): Promise<boolean>;
+  replaceWith(next: WorkbookDoc | WorkbookSession, note: string): Promise<boolean>;
 }
 
 const REPLACE_NOTE =
@@ -74,37 +74,14 @@ export async function newFromTemplate(app: FileHost): Promise<void> {
   );
 }
 
-function refused(app: FileHost, message: string): void {
-  app.status.show(message, 'error', 0);
-  openDialog(
-    'The file was not opened',
-    [el('p', { text: message }), el('p', { className: 'kl-muted', text: 'The open workbook is unchanged.' })],
-    [{ label: 'OK', kind: 'primary' }],
-    { testId: 'open-failed' },
-  );
-}
-
 /** Open the native file, or an xlsx (our own export comes back with its catalogue formulas). */
 export async function openFile(app: FileHost): Promise<void> {
   const file = await pickFile(
     '.json,.kvar.json,application/json,.xlsx,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
   );
   if (!file) return;
-  if (/\.xlsx$/i.test(file.name)) {
-    app.status.show(`Reading "${file.name}"…`, 'info', 0);
-    try {
-      const { openXlsx } = await import('./handOff.ts');
-      const x = await openXlsx(new Uint8Array(await file.arrayBuffer()));
-      if (!x.ok) return refused(app, `"${file.name}" cannot be opened: ${x.message}`);
-      await app.replaceWith(x.doc, [`Opened "${file.name}".`, ...x.notes].join(' '));
-    } catch (e) {
-      refused(app, `"${file.name}" cannot be opened: ${e instanceof Error ? e.message : String(e)}`);
-    }
-    return;
-  }
-  const r = await readNativeFile(file);
-  if (!r.ok) return refused(app, r.message);
-  await app.replaceWith(r.doc, `Opened "${file.name}".`);
+  const { openChosenFile } = await import('./longWork.ts');
+  await openChosenFile(app, file);
 }
 
 export function saveFile(app: FileHost): void {
@@ -133,31 +110,8 @@ export async function bringBack(app: FileHost): Promise<void> {
 }
 
 export async function exportXlsx(app: FileHost): Promise<void> {
-  app.status.show('Preparing the xlsx…', 'info', 0);
-  try {
-    const { handOff } = await import('./handOff.ts');
-    const { session } = app;
-    const resultAt = (sheet: string, row: number, col: number) => {
-      const id = session.engine.getSheetId(sheet);
-      return id === undefined ? undefined : toResult(session.engine.getCellValue({ sheet: id, row, col }));
-    };
-    const r = await handOff(session.toDoc(), resultAt);
-    const name = fileNameFor(session.title, '.xlsx');
-    download(r.bytes as BlobPart, name, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-    const caveat =
-      r.issues > 0 ? `${r.issues} cell(s) were written as values (listed on the cover sheet)` : undefined;
-    const typed =
-      r.overrides > 0 ? ` ${r.overrides} typed-over value(s) went out as typed, marked in the file.` : '';
-    app.status.show(
-      caveat
-        ? `Exported ${name}, but ${caveat}.${typed}`
-        : `Exported ${name}: formulas stay live in other spreadsheet programs.${typed}`,
-      caveat ? 'error' : 'info',
-      caveat ? 0 : 8000,
-    );
-  } catch (e) {
-    app.status.show(`Export failed: ${e instanceof Error ? e.message : String(e)}`, 'error', 0);
-  }
+  const { exportWorkbook } = await import('./longWork.ts');
+  await exportWorkbook(app);
 }
 
 export async function importEquipmentList(app: FileHost): Promise<void> {

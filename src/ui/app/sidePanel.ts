@@ -1,7 +1,8 @@
-// The panel on the right: the function reference, the charts or the checks, one at a time, or closed.
+// The panel on the right: the function reference, the charts, the checks or the site diagram, one
+// at a time, or closed.
 import { el } from '../dom.ts';
 
-export type PanelName = 'functions' | 'charts' | 'checks';
+export type PanelName = 'functions' | 'charts' | 'checks' | 'diagram';
 
 export class SidePanel {
   readonly root: HTMLElement;
@@ -10,6 +11,8 @@ export class SidePanel {
   private current: PanelName | undefined;
   private readonly views = new Map<PanelName, { title: string; node: HTMLElement; onShow?: () => void }>();
   onToggle: (name: PanelName | undefined) => void = () => {};
+  /** Set by the app: where the keyboard goes when the panel is closed with its × button. */
+  onClosed: (click: Event) => void = () => {};
 
   constructor() {
     this.title = el('span', { className: 'kl-pane-title' });
@@ -19,7 +22,10 @@ export class SidePanel {
       title: 'Close the panel',
       attrs: { type: 'button', 'aria-label': 'Close the panel' },
     });
-    close.addEventListener('click', () => this.toggle(undefined));
+    close.addEventListener('click', (e) => {
+      this.toggle(undefined);
+      this.onClosed(e);
+    });
     this.body = el('div', { className: 'kl-side-body' });
     this.root = el('aside', { className: 'kl-side', attrs: { 'data-testid': 'side-panel' } }, [
       el('div', { className: 'kl-pane-head' }, [this.title, close]),
@@ -36,8 +42,14 @@ export class SidePanel {
     return this.current;
   }
 
+  /** A wider panel (the diagram asks for it); back to the usual width when asked again. */
+  toggleWide(): void {
+    this.root.classList.toggle('is-wide');
+  }
+
   toggle(name: PanelName | undefined): void {
     this.current = name === this.current ? undefined : name;
+    if (this.current !== 'diagram') this.root.classList.remove('is-wide');
     const view = this.current ? this.views.get(this.current) : undefined;
     this.root.hidden = !view;
     if (view) {

@@ -9,14 +9,20 @@ import type { ChecksPanel } from '../panels/checksPanel.ts';
 import type { FileHost } from './fileActions.ts';
 import type { PanelName, SidePanel } from './sidePanel.ts';
 import { bringBackCopyCommand, fileCommand, showAbout, type CopyHost } from './lazyCommands.ts';
+import { openGoTo, stepSheet, type NavigationHost } from './navigation.ts';
 
 /** What the top bar needs of the page (the app passes itself). */
-export interface TopBarHost extends FileHost, CopyHost {
-  readonly session: FileHost['session'] & Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo'>;
-  readonly grid: CommandHost & { focus(): void };
-  readonly side: Pick<SidePanel, 'toggle' | 'onToggle'>;
+export interface TopBarHost
+  extends FileHost, Omit<CopyHost, 'replaceWith'>, Omit<NavigationHost, 'session' | 'grid'> {
+  readonly session: FileHost['session'] &
+    NavigationHost['session'] &
+    Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo'>;
+  readonly grid: CommandHost &
+    NavigationHost['grid'] & { focus(): void; focusAfterClick(e: MouseEvent): void };
+  readonly side: Pick<SidePanel, 'toggle' | 'onToggle' | 'shown'>;
   readonly charts: Pick<ChartsPanel, 'visible' | 'draw'> | undefined;
   readonly checks: Pick<ChecksPanel, 'visible'> | undefined;
+  readonly diagram: { visible: boolean } | undefined;
   undo(): void;
   redo(): void;
   run(fn: () => unknown): void;
@@ -115,6 +121,10 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
       { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
       { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
       { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
+      'separator',
+      { label: 'Go to…', hint: 'Ctrl+G', run: () => void openGoTo(app), testId: 'menu-goto' },
+      { label: 'Next sheet', hint: 'Ctrl+PgDn', run: () => stepSheet(app, 1) },
+      { label: 'Previous sheet', hint: 'Ctrl+PgUp', run: () => stepSheet(app, -1) },
     ],
     'menu-edit',
   );
@@ -125,7 +135,10 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
       title: label,
       attrs: { type: 'button', 'aria-label': label, 'data-testid': testId },
     });
-    b.addEventListener('click', run);
+    b.addEventListener('click', (e) => {
+      run();
+      app.grid.focusAfterClick(e);
+    });
     return b;
   };
   const toggle = (name: PanelName, label: string) => {
@@ -134,12 +147,17 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
       text: label,
       attrs: { type: 'button', 'aria-pressed': 'false', 'data-testid': `toggle-${name}` },
     });
-    b.addEventListener('click', () => app.side.toggle(name));
+    b.addEventListener('click', (e) => {
+      app.side.toggle(name);
+      // The keyboard goes back to the grid: typing carries on where it was.
+      app.grid.focusAfterClick(e);
+    });
     return b;
   };
   const fnToggle = toggle('functions', 'Functions');
   const chartToggle = toggle('charts', 'Charts');
   const checksToggle = toggle('checks', 'Checks');
+  const diagramToggle = toggle('diagram', 'Diagram');
   app.side.onToggle = (shown) => {
     fnToggle.setAttribute('aria-pressed', String(shown === 'functions'));
     chartToggle.setAttribute('aria-pressed', String(shown === 'charts'));
@@ -147,6 +165,8 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
     if (shown === 'charts') app.charts?.draw();
     checksToggle.setAttribute('aria-pressed', String(shown === 'checks'));
     if (app.checks) app.checks.visible = shown === 'checks';
+    diagramToggle.setAttribute('aria-pressed', String(shown === 'diagram'));
+    if (app.diagram) app.diagram.visible = shown === 'diagram';
   };
   const about = el('button', {
     className: 'kl-toggle kl-about-btn',
@@ -170,6 +190,7 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
     fnToggle,
     chartToggle,
     checksToggle,
+    diagramToggle,
     about,
   ]);
   return { root, title };

@@ -9,6 +9,41 @@ const ROW = 22,
   PAD = 10,
   VALUE = 58;
 
+function label(bus: string, y: number): SVGTextElement {
+  return svg(
+    'text',
+    { x: LABEL, y: y + 14, class: 'kl-bar-label', 'text-anchor': 'end' },
+    bus.length > 14 ? `${bus.slice(0, 13)}…` : bus,
+  );
+}
+
+/** A bus whose kvar the engine could not compute: a marked band with the error, no bar. */
+function errorRow(b: BusBar, y: number, zero: number, width: number): SVGGElement {
+  const g = svg('g', { class: 'kl-bar-row is-error', 'data-bus': b.bus });
+  g.append(
+    svg('title', {}, `${b.bus}: no kvar computed — ${b.error ?? ''}`),
+    label(b.bus, y),
+    svg('rect', {
+      x: LABEL + PAD,
+      y: y + 2,
+      width: width - VALUE - LABEL - PAD,
+      height: ROW - 6,
+      class: 'kl-bar-error',
+    }),
+    svg(
+      'text',
+      { x: zero, y: y + 14, class: 'kl-bar-error-text', 'text-anchor': 'middle' },
+      'error — see the Buses sheet',
+    ),
+    svg(
+      'text',
+      { x: width - 4, y: y + 14, class: 'kl-bar-value is-error', 'text-anchor': 'end' },
+      (b.error ?? '#').split(' ')[0] as string,
+    ),
+  );
+  return g;
+}
+
 export function busBarChart(bars: readonly BusBar[], width = 380): SVGSVGElement {
   const max = niceCeil(Math.max(1, ...bars.map((b) => Math.max(b.absorbed, b.delivered, Math.abs(b.net)))));
   const plotLeft = LABEL + PAD,
@@ -41,6 +76,10 @@ export function busBarChart(bars: readonly BusBar[], width = 380): SVGSVGElement
   );
   bars.forEach((b, i) => {
     const y = top + i * ROW;
+    if (b.error) {
+      root.append(errorRow(b, y, zero, width));
+      return;
+    }
     const g = svg('g', { class: 'kl-bar-row' });
     const title = svg(
       'title',
@@ -49,11 +88,7 @@ export function busBarChart(bars: readonly BusBar[], width = 380): SVGSVGElement
     );
     g.append(
       title,
-      svg(
-        'text',
-        { x: LABEL, y: y + 14, class: 'kl-bar-label', 'text-anchor': 'end' },
-        b.bus.length > 14 ? `${b.bus.slice(0, 13)}…` : b.bus,
-      ),
+      label(b.bus, y),
       svg('rect', {
         x: zero,
         y: y + 3,

@@ -11,6 +11,8 @@ export interface BusBar {
   readonly delivered: number;
   /** Net kvar in the load convention (absorbed − delivered). */
   readonly net: number;
+  /** The engine gave an error instead of a number for this bus: the code and message. */
+  readonly error?: string;
 }
 
 export interface TrianglePoint {
@@ -28,9 +30,34 @@ export interface ChartData {
   readonly cases: readonly string[];
   readonly bars: ReadonlyMap<string, readonly BusBar[]>;
   readonly triangles: ReadonlyMap<string, Triangle>;
+  /** Per case: why the point of connection has no triangle (its P or Q is an error). */
+  readonly triangleErrors: ReadonlyMap<string, string>;
 }
 
 const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+
+/** An engine error value (code like '#N/A' and its message), or undefined for anything else. */
+export function cellError(v: unknown): { code: string; message: string } | undefined {
+  if (typeof v !== 'object' || v === null) return undefined;
+  const code = (v as { value?: unknown }).value;
+  if (typeof code !== 'string' || !code.startsWith('#')) return undefined;
+  const message = (v as { message?: unknown }).message;
+  return {
+    code,
+    message: typeof message === 'string' && message !== '' ? message : `the formula evaluates to ${code}`,
+  };
+}
+
+function firstError(
+  row: ReadonlyArray<unknown>,
+  cols: ReadonlyArray<number | undefined>,
+): string | undefined {
+  for (const c of cols) {
+    const e = c === undefined ? undefined : cellError(row[c]);
+    if (e) return `${e.code} ${e.message}`;
+  }
+  return undefined;
+}
 
 function headerIndex(rows: Grid | undefined): Map<string, number> {
   const m = new Map<string, number>();
@@ -56,6 +83,7 @@ export function readChartData(buses: Grid | undefined, compensation: Grid | unde
   const ch = headerIndex(compensation);
   const bars = new Map<string, BusBar[]>();
   const triangles = new Map<string, Triangle>();
+  const triangleErrors = new Map<string, string>();
   const col = (m: Map<string, number>, header: string) => m.get(header.toLowerCase());
   for (const c of cases) {
     const iAbs = col(bh, `Q absorbed ${c} (kvar)`),
@@ -70,13 +98,19 @@ export function readChartData(buses: Grid | undefined, compensation: Grid | unde
       const absorbed = Math.abs(num(iAbs === undefined ? undefined : row[iAbs]) ?? 0);
       const delivered = Math.abs(num(iDel === undefined ? undefined : row[iDel]) ?? 0);
       const net = num(iQ === undefined ? undefined : row[iQ]) ?? absorbed - delivered;
-      list.push({ bus, absorbed, delivered, net });
+      // An error is shown as an error, never as 0 kvar.
+      const error = firstError(row, [iAbs, iDel, iQ]);
+      list.push(
+        error ? { bus, absorbed: 0, delivered: 0, net: 0, error } : { bus, absorbed, delivered, net },
+      );
     }
     bars.set(c, list);
     // The point of connection is the first bus of the Buses sheet.
     const root = buses?.[1];
     const p = iP === undefined ? undefined : num(root?.[iP]);
     const q = iQ === undefined ? undefined : num(root?.[iQ]);
+    const rootError = root ? firstError(root, [iP, iQ]) : undefined;
+    if (rootError && typeof root?.[0] === 'string') triangleErrors.set(c, `${root[0]}: ${rootError}`);
     if (typeof root?.[0] === 'string' && p !== undefined && q !== undefined) {
       const rootName = root[0];
       const iAfter = col(ch, `Q after ${c} (kvar)`);
@@ -91,7 +125,7 @@ export function readChartData(buses: Grid | undefined, compensation: Grid | unde
       });
     }
   }
-  return { cases, bars, triangles };
+  return { cases, bars, triangles, triangleErrors };
 }
 
 /** cos φ of a point; undefined with no power at all. */
@@ -112,8 +146,8 @@ export function niceCeil(x: number): number {
 export function busesToDraw(bars: readonly BusBar[], limit = 30): BusBar[] {
   if (bars.length <= limit) return [...bars];
   const [root, ...rest] = bars;
-  const keep = new Set(
-    [...rest].sort((a, b) => b.absorbed + b.delivered - (a.absorbed + a.delivered)).slice(0, limit - 1),
-  );
+  // Buses in error come first: a hidden error would read as a quiet bus.
+  const weight = (b: BusBar) => (b.error ? Number.MAX_VALUE : b.absorbed + b.delivered);
+  const keep = new Set([...rest].sort((a, b) => weight(b) - weight(a)).slice(0, limit - 1));
   return [...(root ? [root] : []), ...rest.filter((b) => keep.has(b))];
 }

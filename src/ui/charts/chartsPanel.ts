@@ -84,6 +84,16 @@ export class ChartsPanel {
     }
     const c = this.chosen as string;
     const tri = data.triangles.get(c);
+    const triError = data.triangleErrors.get(c);
+    if (!tri && triError)
+      this.body.append(
+        el('h3', { className: 'kl-chart-title', text: `Point of connection — ${c}` }),
+        el('p', {
+          className: 'kl-text-error',
+          attrs: { 'data-testid': 'triangle-error' },
+          text: `No power triangle: the engine gives an error for ${triError}`,
+        }),
+      );
     if (tri) {
       const rows = triangleRows(tri);
       this.body.append(

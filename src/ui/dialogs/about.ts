@@ -2,6 +2,7 @@
 // licences of the program and of the two libraries it runs on.
 import { el } from '../dom.ts';
 import { openDialog } from './dialog.ts';
+import { GRID_ON_EVALUATION_KEY } from '../grid/hotModules.ts';
 
 export const CAUTIONS: readonly string[] = [
   'Kvar Ledger estimates. Its figures are for pricing and early decisions, not a design.',
@@ -12,7 +13,10 @@ export const CAUTIONS: readonly string[] = [
 export const LICENCE_LINES: readonly string[] = [
   'Kvar Ledger is free software under the GNU General Public License version 3 (GPL-3.0-only).',
   'Formula engine: HyperFormula, used under GPL-3.0 (licence key "gpl-v3") — this is why the whole program is GPL-3.0.',
-  'Grid: Handsontable, used under its non-commercial licence (key "non-commercial-and-evaluation"). Commercial users need their own Handsontable licence from its maker.',
+  GRID_ON_EVALUATION_KEY
+    ? 'Grid: Handsontable, running under its evaluation key ("non-commercial-and-evaluation"): free for non-commercial use and evaluation only.'
+    : 'Grid: Handsontable, running under the commercial licence key this copy was built with.',
+  'A firm that uses Kvar Ledger to price work is a commercial user: it needs a commercial Handsontable licence from its maker, and builds the app with its key (VITE_GRID_LICENSE_KEY, see the README).',
   'The xlsx reader and writer (ExcelJS, MIT licence) loads only when you import or export a spreadsheet.',
 ];
 

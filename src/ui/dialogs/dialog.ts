@@ -104,7 +104,11 @@ export function promptDialog(
     );
     input.addEventListener('input', () => (note.textContent = check(input.value) ?? ''));
     input.addEventListener('keydown', (e) => {
-      if (e.key === 'Enter' && tryAccept()) d.close();
+      if (e.key !== 'Enter') return;
+      // The Enter ends here: the grid, listening again once the dialog closes, must not see it.
+      e.preventDefault();
+      e.stopPropagation();
+      if (tryAccept()) d.close();
     });
     d.dialog.addEventListener('close', () => resolve(undefined));
     input.focus();

@@ -23,16 +23,6 @@ export function formatHint(info: ColumnInfo | undefined): string | undefined {
   return m[3] === '%' ? `${dp} %` : m[3] ? `${dp} exp` : dp;
 }
 
-/**
- * Column width in pixels: the width in characters (ColumnInfo.width), widened so the header text
- * in the frozen row fits up to a limit, within sane bounds.
- */
-export function widthPx(info: ColumnInfo | undefined, fallbackChars = 11): number {
-  const chars = info?.width ?? fallbackChars;
-  const forHeader = info ? Math.min(230, info.header.length * 6.6 + 16) : 0;
-  return Math.round(Math.max(48, Math.min(420, Math.max(chars * 7.4 + 14, forHeader))));
-}
-
 export interface HeaderLabel {
   readonly letter: string;
   /** e.g. 'kW · 0.0', or '' when nothing is known. */

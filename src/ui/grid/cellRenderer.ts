@@ -1,8 +1,14 @@
 // The grid's one renderer: reads the engine's value for the cell and writes it as text
-// (textContent, never HTML), with classes that make errors, formulas and headers visible.
+// (textContent, never HTML), with classes that make errors, formulas, headers, assumed values
+// and choice cells visible. Numbers are rounded to fit their column (the full value on hover);
+// text cut at the column's edge shows in full on hover; header texts wrap onto two lines.
 import type { HyperFormula } from '../../engine/index.ts';
 import type { ColumnInfo } from '../../core/workbook/document.ts';
+import { fitNumber } from '../format/fitNumber.ts';
+import { formatGeneral } from '../format/numberFormat.ts';
 import { cellView, type CellKind, type EngineValue } from './cellView.ts';
+import type { CellNotes } from './cellNotes.ts';
+import { textWidth } from './textMeasure.ts';
 
 export interface RenderContext {
   readonly engine: HyperFormula;
@@ -14,6 +20,13 @@ export interface RenderContext {
   readonly dataRows: () => number;
   /** A cell Kvar Ledger writes that holds a value the user typed over it. */
   readonly isOverride?: (row: number, col: number) => boolean;
+  /** Choices and marks of the sheet on screen. */
+  readonly notes: () => CellNotes | undefined;
+}
+
+/** What the renderer asks of the grid that calls it. */
+interface GridWidths {
+  getColWidth(col: number): number;
 }
 
 const KIND_CLASS: Readonly<Record<CellKind, string>> = {
@@ -23,31 +36,74 @@ const KIND_CLASS: Readonly<Record<CellKind, string>> = {
   error: 'kl-err',
   empty: 'kl-empty',
 };
-const ALL_CLASSES = [...Object.values(KIND_CLASS), 'kl-head', 'kl-calc', 'kl-formula', 'kl-override'];
+const ALL_CLASSES = [
+  ...Object.values(KIND_CLASS),
+  'kl-head',
+  'kl-calc',
+  'kl-formula',
+  'kl-mark-assumed',
+  'kl-mark-override',
+  'kl-choice',
+];
 const OVERRIDE_TITLE =
-  "Typed over: Kvar Ledger's formula is replaced by this value. Clear the cell (Delete) to bring the formula back.";
+  "Typed over: Kvar Ledger's formula is replaced by this value, which counts as typed. Clear the cell (Delete) to bring the formula back.";
+/** Horizontal padding and border of a cell, px. */
+const CELL_CHROME = 13;
 
 export function makeCellRenderer(ctx: RenderContext) {
-  return function renderCell(_hot: unknown, td: HTMLTableCellElement, row: number, col: number): void {
+  return function renderCell(hot: GridWidths, td: HTMLTableCellElement, row: number, col: number): void {
     const sheet = ctx.sheetId();
     const address = { sheet, row, col };
     const header = row === 0 && ctx.hasHeaderRow();
     const info = ctx.columns()?.[col];
-    let view;
+    let value: EngineValue;
     try {
-      view = cellView(ctx.engine.getCellValue(address) as EngineValue, header ? undefined : info);
+      value = ctx.engine.getCellValue(address) as EngineValue;
     } catch {
-      view = cellView(undefined);
+      value = undefined;
     }
+    const view = cellView(value, header ? undefined : info);
     td.classList.remove(...ALL_CLASSES);
     td.classList.add(header ? 'kl-head' : KIND_CLASS[view.kind]);
     if (!header && info?.computed && row < ctx.dataRows()) td.classList.add('kl-calc');
     if (!header && ctx.engine.doesCellHaveFormula(address)) td.classList.add('kl-formula');
-    const typedOver = !header && (ctx.isOverride?.(row, col) ?? false);
-    if (typedOver) td.classList.add('kl-override');
-    td.textContent = view.text;
-    if (view.error) td.title = `${view.error.code} ${view.error.message}`;
-    else if (typedOver) td.title = OVERRIDE_TITLE;
+
+    const hover: string[] = [];
+    let text = view.text;
+    const room = hot.getColWidth(col) - CELL_CHROME;
+    if (view.kind === 'number' && typeof value === 'number') {
+      text = fitNumber(value, info?.format, room / textWidth('0'));
+      if (text !== view.text) hover.push(formatGeneral(value));
+    } else if ((view.kind === 'text' || header) && text !== '' && textWidth(text) > room) {
+      hover.push(text);
+    }
+    if (header) {
+      const span = document.createElement('span');
+      span.className = 'kl-head-text';
+      span.textContent = text;
+      td.replaceChildren(span);
+    } else td.textContent = text;
+
+    const notes = ctx.notes();
+    // A value typed over one of Kvar Ledger's formulas, known to the living model.
+    if (!header && (ctx.isOverride?.(row, col) ?? false)) {
+      td.classList.add('kl-mark-override');
+      hover.unshift(OVERRIDE_TITLE);
+    }
+    if (notes && !header) {
+      const mark = notes.mark(row, col, () => ctx.engine.getCellSerialized(address) as never);
+      if (mark) {
+        td.classList.add(`kl-mark-${mark.kind}`);
+        hover.unshift(`${mark.kind === 'assumed' ? 'Assumed' : 'Typed over'}: ${mark.note}`);
+      }
+      const choice = notes.choice(row, col);
+      if (choice) {
+        td.classList.add('kl-choice');
+        hover.push(`${choice.message} Choose with Alt+↓ or the ▾.`);
+      }
+    }
+    if (view.error) hover.push(`${view.error.code} ${view.error.message}`);
+    if (hover.length > 0) td.title = hover.join('\n');
     else if (td.title) td.removeAttribute('title');
   };
 }

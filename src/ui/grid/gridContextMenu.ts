@@ -1,31 +1,48 @@
-// The grid's right-click menu: row, fill and clipboard commands for the selection.
+// The grid's cell menu: row, fill and clipboard commands for the selection. Opened by a
+// right-click, or from the keyboard by Shift+F10 or the menu key at the active cell; arrow keys
+// move through it, Enter runs a command, Escape closes it and the keyboard goes back to the grid.
 import type { HotInstance } from 'handsontable/base';
 import { el } from '../dom.ts';
 import { clearCells, deleteRows, fillDown, insertRows, type CommandHost } from './gridMenu.ts';
 
 interface MenuHost extends CommandHost {
   readonly hot: HotInstance;
+  notice(text: string): void;
+  /** Give the keyboard back to the grid from a click handler. */
+  focusAfterClick(click: Event): void;
+  focus(): void;
 }
 
-/** Returns a function that takes the menu off `host` again. */
-export function attachContextMenu(host: HTMLElement, grid: MenuHost): () => void {
+export interface CellMenu {
+  /** Open at the active cell (keyboard). */
+  openAtActiveCell(): void;
+  detach(): void;
+}
+
+export function attachContextMenu(host: HTMLElement, grid: MenuHost): CellMenu {
   let open: HTMLElement | undefined;
-  const close = () => {
+  /** `refocus`: the click (or key) that closed the menu; the keyboard goes back to the grid. */
+  const close = (refocus?: Event) => {
     open?.remove();
     open = undefined;
     document.removeEventListener('mousedown', away, true);
-    document.removeEventListener('keydown', escape, true);
+    if (refocus?.type === 'click') grid.focusAfterClick(refocus);
+    else if (refocus) grid.focus();
   };
   const away = (e: Event) => {
     if (open && !open.contains(e.target as Node)) close();
   };
-  const escape = (e: KeyboardEvent) => {
-    if (e.key === 'Escape') close();
-  };
-  const clipboard = (mode: 'copy' | 'cut') => {
-    const plugin = grid.hot.getPlugin('copyPaste') as unknown as { copy(): void; cut(): void };
-    if (mode === 'copy') plugin.copy();
-    else plugin.cut();
+  const plugin = () =>
+    grid.hot.getPlugin('copyPaste') as unknown as { copy(): void; cut(): void; paste(text: string): void };
+  const paste = async () => {
+    let text: string;
+    try {
+      text = await navigator.clipboard.readText();
+    } catch {
+      grid.notice('The browser does not let the menu read the clipboard here: paste with Ctrl+V.');
+      return;
+    }
+    plugin().paste(text);
   };
   const items: Array<[string, string, () => void] | 'sep'> = [
     ['Insert rows above', '', () => insertRows(grid, 'above')],
@@ -35,14 +52,70 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): () => void
     ['Fill down', 'Ctrl+D', () => void fillDown(grid)],
     ['Clear contents', 'Del', () => clearCells(grid)],
     'sep',
-    ['Copy', 'Ctrl+C', () => clipboard('copy')],
-    ['Cut', 'Ctrl+X', () => clipboard('cut')],
+    ['Copy', 'Ctrl+C', () => plugin().copy()],
+    ['Cut', 'Ctrl+X', () => plugin().cut()],
+    ['Paste', 'Ctrl+V', () => void paste()],
   ];
-  const onMenu = (e: MouseEvent) => {
-    const cell = (e.target as HTMLElement).closest('td');
-    if (!cell) return;
-    e.preventDefault();
+
+  const show = (x: number, y: number) => {
     close();
+    const menu = el('div', {
+      className: 'kl-menu kl-context-menu',
+      attrs: { role: 'menu', 'data-testid': 'grid-menu', 'aria-label': 'Cell commands' },
+    });
+    const buttons: HTMLButtonElement[] = [];
+    for (const it of items) {
+      if (it === 'sep') {
+        menu.append(el('div', { className: 'kl-menu-sep', attrs: { role: 'separator' } }));
+        continue;
+      }
+      const [label, hint, run] = it;
+      const b = el('button', { className: 'kl-menu-item', attrs: { type: 'button', role: 'menuitem' } }, [
+        el('span', { text: label }),
+        hint ? el('span', { className: 'kl-menu-hint', text: hint }) : null,
+      ]);
+      b.addEventListener('click', (e) => {
+        close(e);
+        run();
+      });
+      buttons.push(b);
+      menu.append(b);
+    }
+    menu.addEventListener('keydown', (e) => {
+      const i = buttons.indexOf(document.activeElement as HTMLButtonElement);
+      const n = buttons.length;
+      if (e.key === 'ArrowDown' || e.key === 'ArrowUp') {
+        e.preventDefault();
+        buttons[(i + (e.key === 'ArrowDown' ? 1 : n - 1) + n) % n]?.focus();
+      } else if (e.key === 'Home' || e.key === 'End') {
+        e.preventDefault();
+        buttons[e.key === 'Home' ? 0 : n - 1]?.focus();
+      } else if (e.key === 'Escape' || e.key === 'Tab') {
+        e.preventDefault();
+        close(e);
+      }
+    });
+    document.body.append(menu);
+    menu.style.left = `${Math.max(0, Math.min(x, window.innerWidth - 260))}px`;
+    menu.style.top = `${Math.max(0, Math.min(y, window.innerHeight - menu.offsetHeight - 8))}px`;
+    open = menu;
+    document.addEventListener('mousedown', away, true);
+    grid.hot.unlisten();
+    buttons[0]?.focus();
+  };
+
+  const openAtActiveCell = () => {
+    const sel = grid.selection();
+    const td = sel ? grid.hot.getCell(sel.row, sel.col, true) : null;
+    const box = (td ?? host).getBoundingClientRect();
+    show(box.left + Math.min(24, box.width / 2), box.bottom);
+  };
+
+  const onMenu = (e: MouseEvent) => {
+    e.preventDefault();
+    const cell = (e.target as HTMLElement).closest('td');
+    // The menu key sends the event to the grid's focus, not to a cell: open at the active cell.
+    if (!cell || (e.clientX === 0 && e.clientY === 0)) return openAtActiveCell();
     // A right-click outside the selection selects the cell under the pointer first.
     const coords = grid.hot.getCoords(cell);
     const sel = grid.selection();
@@ -60,39 +133,14 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): () => void
     ) {
       grid.select(coords.row, coords.col);
     }
-    const menu = el('div', {
-      className: 'kl-menu kl-context-menu',
-      attrs: { role: 'menu', 'data-testid': 'grid-menu' },
-    });
-    for (const it of items) {
-      if (it === 'sep') {
-        menu.append(el('div', { className: 'kl-menu-sep', attrs: { role: 'separator' } }));
-        continue;
-      }
-      const [label, hint, run] = it;
-      const b = el('button', { className: 'kl-menu-item', attrs: { type: 'button', role: 'menuitem' } }, [
-        el('span', { text: label }),
-        hint ? el('span', { className: 'kl-menu-hint', text: hint }) : null,
-      ]);
-      b.addEventListener('click', () => {
-        close();
-        run();
-        grid.hot.listen();
-      });
-      menu.append(b);
-    }
-    document.body.append(menu);
-    const x = Math.min(e.clientX, window.innerWidth - 260),
-      y = Math.min(e.clientY, window.innerHeight - menu.offsetHeight - 8);
-    menu.style.left = `${x}px`;
-    menu.style.top = `${y}px`;
-    open = menu;
-    document.addEventListener('mousedown', away, true);
-    document.addEventListener('keydown', escape, true);
+    show(e.clientX, e.clientY);
   };
   host.addEventListener('contextmenu', onMenu);
-  return () => {
-    close();
-    host.removeEventListener('contextmenu', onMenu);
+  return {
+    openAtActiveCell,
+    detach: () => {
+      close();
+      host.removeEventListener('contextmenu', onMenu);
+    },
   };
 }

@@ -7,7 +7,8 @@ import type { WorkbookSession } from '../model/session.ts';
  */
 export interface BlockSelection {
   readonly sheetId: number;
-  /** The active cell's column. */
+  /** The active cell. */
+  readonly row: number;
   readonly col: number;
   readonly top: number;
   readonly left: number;

@@ -6,13 +6,16 @@ import type { ColumnInfo } from '../../core/workbook/document.ts';
 import { columnLetters } from '../model/address.ts';
 import type { SessionChange, WorkbookSession } from '../model/session.ts';
 import { escapeHtml } from '../dom.ts';
-import { widthPx } from '../format/columnHeader.ts';
 import { makeCellRenderer } from './cellRenderer.ts';
 import { decorateColumnHeader } from './columnHeaderView.ts';
 import { gridData } from './gridData.ts';
 import { GRID_LICENSE_KEY, Handsontable, registerGridModules } from './hotModules.ts';
 import { installEditHandlers, type EditHost } from './gridEdits.ts';
-import { attachContextMenu } from './gridContextMenu.ts';
+import { attachContextMenu, type CellMenu } from './gridContextMenu.ts';
+import { dataEdgeTarget, type Direction } from './dataEdge.ts';
+import { CellNotes } from './cellNotes.ts';
+import { attachChoiceClicks, installChoiceCheck, openChoiceList, type ChoiceHost } from './cellChoices.ts';
+import { columnWidth, frozenColumns } from './gridColumns.ts';
 
 export interface Selection {
   readonly sheetId: number;
@@ -38,11 +41,20 @@ function textOnlySanitizer(content: string, source: string): string {
   return source.startsWith('CopyPaste') ? '' : escapeHtml(content);
 }
 
-export class GridView implements EditHost {
+const ARROWS: Readonly<Record<string, Direction>> = {
+  ArrowUp: 'up',
+  ArrowDown: 'down',
+  ArrowLeft: 'left',
+  ArrowRight: 'right',
+};
+
+export class GridView implements EditHost, ChoiceHost {
   readonly hot: HotInstance;
   private current = -1;
   private dataRows = 0;
-  private readonly detachMenu: () => void;
+  private cellNotes: CellNotes | undefined;
+  private readonly menu: CellMenu;
+  private readonly detachChoices: () => void;
   /** Set while the grid itself pushes a change, so the session echo does not reload the data. */
   applying = false;
 
@@ -59,6 +71,7 @@ export class GridView implements EditHost {
       hasHeaderRow: () => this.hasHeaderRow(),
       dataRows: () => this.dataRows,
       isOverride: (row, col) => session.isOverride(this.current, row, col),
+      notes: () => this.cellNotes,
     });
     const settings: GridSettings = {
       data: [['']],
@@ -94,7 +107,7 @@ export class GridView implements EditHost {
         if (editor?.TEXTAREA) callbacks.onEditorOpen(editor.TEXTAREA);
       },
       beforeKeyDown: (e: KeyboardEvent) => {
-        if (!callbacks.onKey(e)) return;
+        if (!this.ownKey(e) && !callbacks.onKey(e)) return;
         e.preventDefault();
         // The grid's own way of saying "handled": its key handling checks this flag, not the DOM's.
         (e as KeyboardEvent & { isImmediatePropagationEnabled?: boolean }).isImmediatePropagationEnabled =
@@ -103,8 +116,11 @@ export class GridView implements EditHost {
       },
     };
     this.hot = new Handsontable(host, settings) as HotInstance;
+    // Before the edit handlers: a value a choice cell refuses never reaches the workbook.
+    installChoiceCheck(this);
     installEditHandlers(this);
-    this.detachMenu = attachContextMenu(host, this);
+    this.menu = attachContextMenu(host, this);
+    this.detachChoices = attachChoiceClicks(this, host);
     session.onChange((c) => this.onSessionChange(c));
   }
 
@@ -120,6 +136,63 @@ export class GridView implements EditHost {
     return (this.columns()?.length ?? 0) > 0;
   }
 
+  notes(): CellNotes | undefined {
+    return this.cellNotes;
+  }
+
+  notice(text: string): void {
+    this.callbacks.onNotice(text);
+  }
+
+  /**
+   * Keys the grid view handles itself (not while editing): Alt+↓ opens a choice cell's list,
+   * Shift+F10 and the menu key the cell menu, Ctrl+Arrow moves to the data's edge.
+   */
+  private ownKey(e: KeyboardEvent): boolean {
+    if (this.isEditing()) return false;
+    const sel = this.selection();
+    if (!sel) return false;
+    if (e.altKey && e.key === 'ArrowDown') return openChoiceList(this, sel.row, sel.col);
+    if ((e.shiftKey && e.key === 'F10') || e.key === 'ContextMenu') {
+      this.menu.openAtActiveCell();
+      return true;
+    }
+    const dir = ARROWS[e.key];
+    if (dir && (e.ctrlKey || e.metaKey) && !e.altKey) {
+      this.jumpToDataEdge(sel, dir, e.shiftKey);
+      return true;
+    }
+    return false;
+  }
+
+  private jumpToDataEdge(sel: Selection, dir: Direction, extend: boolean): void {
+    // The data's extent from the contents (trailing blanks trimmed): the engine's dimensions
+    // keep counting a row that was filled and then undone.
+    const contents = this.session.sheetContents(sel.sheetId);
+    const size = { height: contents.length, width: contents.reduce((m, r) => Math.max(m, r.length), 0) };
+    const filled = (row: number, col: number) => {
+      const c = this.session.cellContent(sel.sheetId, row, col);
+      return c !== null && c !== undefined && c !== '';
+    };
+    // With Shift the far corner of the block moves; its anchor (the active cell) stays.
+    const from = extend
+      ? {
+          row: dir === 'up' || dir === 'down' ? (sel.top === sel.row ? sel.bottom : sel.top) : sel.row,
+          col: dir === 'left' || dir === 'right' ? (sel.left === sel.col ? sel.right : sel.left) : sel.col,
+        }
+      : { row: sel.row, col: sel.col };
+    const to = dataEdgeTarget(filled, from, dir, { rows: size.height, cols: size.width });
+    if (!extend) return this.select(to.row, to.col);
+    const rowEnd = dir === 'up' || dir === 'down' ? to.row : sel.row === sel.top ? sel.bottom : sel.top;
+    const colEnd = dir === 'left' || dir === 'right' ? to.col : sel.col === sel.left ? sel.right : sel.left;
+    this.hot.selectCell(sel.row, sel.col, rowEnd, colEnd, true);
+  }
+
+  private readNotes(): void {
+    const n = this.current < 0 ? undefined : new CellNotes(this.session.meta(this.current));
+    this.cellNotes = n && !n.empty ? n : undefined;
+  }
+
   private measure(): void {
     this.dataRows = this.current < 0 ? 0 : this.session.engine.getSheetDimensions(this.current).height;
   }
@@ -128,16 +201,25 @@ export class GridView implements EditHost {
   show(sheetId: number): void {
     this.current = sheetId;
     this.measure();
+    this.readNotes();
     const cols = this.columns();
+    const frozen = frozenColumns(cols);
     // Selection first goes to a plain cell, so no frozen-row overlay is asked for a cell while
     // the number of frozen rows changes; then the new sheet; then its first data cell.
     this.hot.deselectCell();
     this.hot.updateSettings({
       data: gridData(this.session.sheetContents(sheetId), cols?.length ?? 0),
       fixedRowsTop: this.hasHeaderRow() ? 1 : 0,
-      colWidths: (i: number) => widthPx(cols?.[i], cols ? 9 : 11),
+      // Tag and Bus (and what lies between) stay in view on equipment sheets.
+      fixedColumnsStart: frozen,
+      colWidths: (i: number) => columnWidth(cols, i, frozen),
+      // The header row holds two lines of wrapped header text.
+      rowHeights: (i: number) => (i === 0 && cols ? 36 : undefined) as number,
     });
     this.hot.render();
+    // A sheet opens at its top left: frozen columns never scroll, so selecting A2 alone would
+    // leave the rest of the sheet where the last one was scrolled.
+    this.hot.scrollViewportTo({ row: 0, col: frozen, verticalSnap: 'top', horizontalSnap: 'start' });
     this.hot.selectCell(this.hasHeaderRow() ? 1 : 0, 0);
     this.reportSelection();
   }
@@ -147,6 +229,7 @@ export class GridView implements EditHost {
     if (this.current < 0) return;
     if (!this.session.sheetIds().includes(this.current)) return;
     this.measure();
+    this.readNotes();
     this.hot.updateData(gridData(this.session.sheetContents(this.current), this.columns()?.length ?? 0));
     this.reportSelection();
   }
@@ -211,6 +294,16 @@ export class GridView implements EditHost {
     return editor?.isOpened?.() === true;
   }
 
+  /**
+   * Give the keyboard back to the grid from the click handler of a button outside it (toolbar,
+   * menu item). The click is kept from reaching the page: the grid library takes any click that
+   * reaches the page from outside it as a sign to stop listening to the keyboard.
+   */
+  focusAfterClick(click: Event): void {
+    click.stopPropagation();
+    this.focus();
+  }
+
   /** Give the keyboard back to the grid (after the formula bar or a dialog had it). */
   focus(): void {
     const active = document.activeElement;
@@ -221,7 +314,8 @@ export class GridView implements EditHost {
   }
 
   destroy(): void {
-    this.detachMenu();
+    this.menu.detach();
+    this.detachChoices();
     this.hot.destroy();
   }
 }

@@ -21,7 +21,17 @@ export function registerGridModules(): void {
   registered = true;
 }
 
-/** The grid's licence key: the non-commercial terms (commercial users need their own licence). */
-export const GRID_LICENSE_KEY = 'non-commercial-and-evaluation';
+/** The grid library's evaluation key: its non-commercial and evaluation terms. */
+export const EVALUATION_KEY = 'non-commercial-and-evaluation';
+
+/**
+ * The grid's licence key, a build setting: VITE_GRID_LICENSE_KEY in the environment of
+ * `npm run build` (or a .env file) puts a firm's own commercial key in the built page; without
+ * it the page runs under the evaluation key.
+ */
+export const GRID_LICENSE_KEY: string = import.meta.env.VITE_GRID_LICENSE_KEY?.trim() || EVALUATION_KEY;
+
+/** Whether this build runs under the evaluation key (the About box says what that means). */
+export const GRID_ON_EVALUATION_KEY = GRID_LICENSE_KEY === EVALUATION_KEY;
 
 export { Handsontable };

@@ -22,8 +22,11 @@ import {
 } from '../../io/import/index.ts';
 import { el } from '../dom.ts';
 import { openDialog } from '../dialogs/dialog.ts';
+import type { WorkbookSession } from '../model/session.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { currentSite } from './currentSite.ts';
+import { withProgress } from '../dialogs/progress.ts';
+import { openWithProgress } from '../app/longWork.ts';
 
 function loadMemory() {
   try {
@@ -145,12 +148,19 @@ function previewNodes(pv: ImportPreview): Node[] {
 
 /** What the import needs of the page: the open workbook, and a way to replace it. */
 export interface ImportHost {
-  readonly session: { toDoc(): WorkbookDoc };
-  replaceWith(doc: WorkbookDoc, note: string): Promise<boolean>;
+  readonly session: Pick<WorkbookSession, 'toDoc' | 'title' | 'engine'>;
+  readonly status: { show(text: string, kind?: 'info' | 'error', ms?: number): void };
+  replaceWith(next: WorkbookDoc | WorkbookSession, note: string): Promise<boolean>;
 }
 
 export async function runImport(app: ImportHost, file: File): Promise<void> {
-  const read = await readEquipmentFile(file.name, new Uint8Array(await file.arrayBuffer()));
+  const read = await withProgress(`Reading "${file.name}"`, async (task) => {
+    await task.step('Reading the file…', 0.1);
+    const bytes = new Uint8Array(await file.arrayBuffer());
+    await task.step('Finding the header row and the equipment rows…', 0.4);
+    return readEquipmentFile(file.name, bytes);
+  });
+  if (!read) return app.status.show('Import cancelled: the open workbook is unchanged.', 'info', 8000);
   if (!read.ok) {
     openDialog(
       'The list was not imported',
@@ -244,10 +254,8 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     }
     dlg.close();
     const left = r.dropped > 0 ? `, ${r.dropped} row(s) with errors left out` : '';
-    void app.replaceWith(
-      r.doc,
-      `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`,
-    );
+    const done = `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`;
+    void openWithProgress(app, `Importing "${file.name}"`, async () => ({ doc: r.doc, note: done }));
   };
 
   back.addEventListener('click', () => ((step = 'map'), render()));

@@ -1,6 +1,6 @@
 import type { HyperFormula } from '../../engine/index.ts';
 import type { SheetDoc } from '../../core/workbook/document.ts';
-import type { Layout, SheetMeta } from './sheetLayout.ts';
+import { metaFromDoc, type Layout, type SheetMeta } from './sheetLayout.ts';
 
 /** Engine sheet ids in document order, with each sheet's column descriptions and purpose. */
 export function layoutOf(engine: HyperFormula, sheets: readonly SheetDoc[]): Layout {

@@ -8,7 +8,7 @@ import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from '../../core/work
 import { isBuiltInSheet } from '../../core/workbook/layout.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
-import type { Layout, SheetMeta } from './sheetLayout.ts';
+import { metaExtras, type Layout, type SheetMeta } from './sheetLayout.ts';
 import { sheetNameProblem } from './sheetNames.ts';
 import { ContentStore, type Snapshot } from './contentStore.ts';
 import { History } from './history.ts';
@@ -170,6 +170,7 @@ export class WorkbookSession {
   setCells(sheetId: number, cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>): void {
     if (cells.length === 0) return;
     let structural = false;
+    const title = this.titleText;
     this.step(() => {
       if (!this.site) return this.write(cells.map((c) => ({ sheet: sheetId, ...c }))) ? 1 : 0;
       const edit = siteEdit(this.site, this.contents, sheetId, cells);
@@ -182,6 +183,7 @@ export class WorkbookSession {
       return entries;
     });
     this.emit(structural ? { kind: 'rows', sheetId } : { kind: 'cells', sheetId });
+    if (this.titleText !== title) this.emit({ kind: 'title' });
   }
 
   /** Write a block of contents with its top-left at (row, col). */
@@ -388,6 +390,7 @@ export class WorkbookSession {
         ...(m.columns ? { columns: m.columns } : {}),
         ...(m.purpose ? { purpose: m.purpose } : {}),
         ...(over.length > 0 ? { overrides: over.sort((a, b) => a[0] - b[0] || a[1] - b[1]) } : {}),
+        ...metaExtras(m),
       };
     });
     return { format: 'kvar-ledger-workbook', version: this.site ? 2 : 1, title: this.titleText, sheets };

@@ -1,62 +1,96 @@
 // What the engine does not hold about sheets: their order and their column descriptions. Kept as
 // immutable snapshots beside the engine's own undo stack, one entry per user action, so undoing
 // a sheet deletion brings back the sheet in its place with its headers, formats and widths.
-import type { ColumnInfo } from '../../core/workbook/document.ts';
+import type { CellContent, ColumnInfo } from '../../core/workbook/document.ts';
+
+/** A cell that takes one of a list of values: the grid offers them and refuses anything else. */
+export interface CellChoice {
+  readonly row: number;
+  readonly col: number;
+  readonly options: readonly string[];
+  /** Why only these, shown when something else is typed. */
+  readonly message: string;
+}
+
+/**
+ * A cell whose value deserves a second look: 'assumed' (a typical value put in for a blank) or
+ * 'override' (typed over what the workbook would give). With `value`, the mark holds only while
+ * the cell still contains that value: typing over an assumed value ends the assumption.
+ */
+export interface CellMark {
+  readonly row: number;
+  readonly col: number;
+  readonly kind: 'assumed' | 'override';
+  readonly note: string;
+  readonly value?: CellContent;
+}
 
 export interface SheetMeta {
   readonly columns?: readonly ColumnInfo[];
   readonly purpose?: string;
+  readonly choices?: readonly CellChoice[];
+  readonly marks?: readonly CellMark[];
+}
+
+const isCell = (v: unknown): v is { row: number; col: number } =>
+  typeof v === 'object' &&
+  v !== null &&
+  Number.isInteger((v as { row?: unknown }).row) &&
+  Number.isInteger((v as { col?: unknown }).col) &&
+  (v as { row: number }).row >= 0 &&
+  (v as { col: number }).col >= 0;
+
+function choicesOf(v: unknown): CellChoice[] {
+  if (!Array.isArray(v)) return [];
+  return v.filter(
+    (c): c is CellChoice =>
+      isCell(c) &&
+      Array.isArray((c as CellChoice).options) &&
+      (c as CellChoice).options.every((o) => typeof o === 'string') &&
+      typeof (c as CellChoice).message === 'string',
+  );
+}
+
+function marksOf(v: unknown): CellMark[] {
+  if (!Array.isArray(v)) return [];
+  return v.filter(
+    (m): m is CellMark =>
+      isCell(m) &&
+      ((m as CellMark).kind === 'assumed' || (m as CellMark).kind === 'override') &&
+      typeof (m as CellMark).note === 'string',
+  );
+}
+
+/**
+ * A sheet's description as a document carries it. Choices and marks are optional extras a
+ * document may carry beside its columns; malformed entries are dropped, never trusted.
+ */
+export function metaFromDoc(sheet: {
+  readonly columns?: readonly ColumnInfo[];
+  readonly purpose?: string;
+  readonly choices?: unknown;
+  readonly marks?: unknown;
+}): SheetMeta {
+  const choices = choicesOf(sheet.choices);
+  const marks = marksOf(sheet.marks);
+  return {
+    ...(sheet.columns ? { columns: sheet.columns } : {}),
+    ...(sheet.purpose ? { purpose: sheet.purpose } : {}),
+    ...(choices.length > 0 ? { choices } : {}),
+    ...(marks.length > 0 ? { marks } : {}),
+  };
+}
+
+/** The choices and marks of a sheet, to write back beside its columns. */
+export function metaExtras(m: SheetMeta): Pick<SheetMeta, 'choices' | 'marks'> {
+  return {
+    ...(m.choices && m.choices.length > 0 ? { choices: m.choices } : {}),
+    ...(m.marks && m.marks.length > 0 ? { marks: m.marks } : {}),
+  };
 }
 
 export interface Layout {
   /** Engine sheet ids in tab order. */
   readonly order: readonly number[];
   readonly meta: ReadonlyMap<number, SheetMeta>;
-}
-
-interface Entry {
-  readonly before: Layout;
-  readonly after: Layout;
-}
-
-export class LayoutHistory {
-  private readonly undoStack: Entry[] = [];
-  private readonly redoStack: Entry[] = [];
-
-  constructor(private readonly limit: number) {}
-
-  /** Record one action (which the engine recorded as one undo entry too). */
-  record(before: Layout, after: Layout): void {
-    this.undoStack.push({ before, after });
-    if (this.undoStack.length > this.limit) this.undoStack.shift();
-    this.redoStack.length = 0;
-  }
-
-  /** The layout to show after undoing the last action. */
-  undo(): Layout | undefined {
-    const e = this.undoStack.pop();
-    if (!e) return undefined;
-    this.redoStack.push(e);
-    return e.before;
-  }
-
-  redo(): Layout | undefined {
-    const e = this.redoStack.pop();
-    if (!e) return undefined;
-    this.undoStack.push(e);
-    return e.after;
-  }
-
-  get canUndo(): boolean {
-    return this.undoStack.length > 0;
-  }
-
-  get canRedo(): boolean {
-    return this.redoStack.length > 0;
-  }
-
-  clear(): void {
-    this.undoStack.length = 0;
-    this.redoStack.length = 0;
-  }
 }

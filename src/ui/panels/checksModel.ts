@@ -1,9 +1,9 @@
 // What the Checks panel lists: the inputs' problems (read back from the sheets, then validated)
 // and the findings of the compensation design (requirement, resonance, overvoltage, voltage
-// rise, self-excitation, overcompensation, cable charging). Each item says where: sheet and row
-// in the grid's own numbering, or the bus and case it concerns. Pure: no DOM.
-import { describeWhere, type Problem, type Severity } from '../../core/site/problems.ts';
-import { mergeProblems, validateSite } from '../../core/site/validate.ts';
+// rise, self-excitation, overcompensation, cable charging). Each item says where — sheet, grid
+// row and column, or the bus and case — and points at the cell to show. Pure: no DOM.
+import type { Severity } from '../../core/site/problems.ts';
+import { validateSite } from '../../core/site/validate.ts';
 import { assessBanks } from '../../core/site/assessBanks.ts';
 import { busVoltages } from '../../core/site/voltages.ts';
 import { buildBusGraph } from '../../core/site/graph.ts';
@@ -11,16 +11,19 @@ import { a1 } from '../model/address.ts';
 import type { DesignWarning } from '../../core/site/warnings.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
+import { locateReaderProblem, locateRuleProblem, type CheckTarget } from './checksWhere.ts';
+
+export type { CheckTarget } from './checksWhere.ts';
 
 export interface CheckItem {
   readonly severity: Severity;
   /** 'input' for a problem with what was typed, else the design finding's code. */
   readonly code: string;
-  /** "Motors row 5, column cos_phi", "bus LV-REF, case night", or "" for the whole site. */
+  /** "Motors row 5, column cos_phi", "bus LV-REF, item M1", or "" for the whole site. */
   readonly where: string;
   readonly text: string;
-  /** Sheet and 1-based grid row to jump to, when the item concerns one equipment row. */
-  readonly target?: { readonly sheet: string; readonly row: number };
+  /** The cell to show: sheet, 1-based grid row, 0-based column when known. */
+  readonly target?: CheckTarget;
 }
 
 export interface ChecksReport {
@@ -30,39 +33,16 @@ export interface ChecksReport {
   readonly designSkipped?: string;
 }
 
-/** The message without the "row 7, column x: " prefix that problems.ts puts in front. */
-function bareText(p: Problem): string {
-  const prefix = describeWhere(p);
-  return prefix && p.message.startsWith(`${prefix}: `) ? p.message.slice(prefix.length + 2) : p.message;
-}
-
-function inputItem(p: Problem, origins: SiteFromWorkbook['origins']): CheckItem {
-  // Rows of the site read from a workbook are numbered as one list from 2; origins map them back.
-  const origin = p.row !== undefined ? origins[p.row - 2] : undefined;
-  const target = origin ? { sheet: origin.sheet, row: origin.row + 1 } : undefined;
-  const parts = [
-    target ? `${target.sheet} row ${target.row}` : '',
-    p.column ? `column ${p.column}` : '',
-    !target && p.bus ? `bus ${p.bus}` : '',
-  ];
-  return {
-    severity: p.severity,
-    code: 'input',
-    where: parts.filter(Boolean).join(', '),
-    text: origin ? bareText(p) : p.message,
-    ...(target ? { target } : {}),
-  };
-}
-
-function designItem(w: DesignWarning): CheckItem {
+function designItem(w: DesignWarning, doc: WorkbookDoc, origins: SiteFromWorkbook['origins']): CheckItem {
+  const at = locateRuleProblem(w, doc, origins);
   const parts = [w.bus ? `bus ${w.bus}` : '', w.tag ? `item ${w.tag}` : ''];
   const casePrefix = w.case !== undefined ? `case ${w.case}: ` : '';
-  const text = bareText(w);
   return {
     severity: w.severity,
     code: w.code,
-    where: parts.filter(Boolean).join(', '),
-    text: text.startsWith(casePrefix) ? text : casePrefix + text,
+    where: parts.filter(Boolean).join(', ') || at.where,
+    text: at.text.startsWith(casePrefix) ? at.text : casePrefix + at.text,
+    ...(at.target ? { target: at.target } : {}),
   };
 }
 
@@ -79,7 +59,7 @@ function workbookItems(doc: WorkbookDoc): CheckItem[] {
         code: 'override',
         where: `${s.name} row ${row + 1}${header ? `, column "${String(header)}"` : `, cell ${a1(row, col)}`}`,
         text: `the value ${JSON.stringify(s.cells[row]?.[col] ?? null)} is typed over Kvar Ledger's formula and counts as typed; clear the cell to bring the formula back`,
-        target: { sheet: s.name, row: row + 1 },
+        target: { sheet: s.name, row: row + 1, col },
       });
     }
     s.cells.forEach((line, row) =>
@@ -90,7 +70,7 @@ function workbookItems(doc: WorkbookDoc): CheckItem[] {
           code: 'reference',
           where: `${s.name} cell ${a1(row, col)}`,
           text: `the formula ${v} refers to a sheet or cells that were removed (#REF!)`,
-          target: { sheet: s.name, row: row + 1 },
+          target: { sheet: s.name, row: row + 1, col },
         });
       }),
     );
@@ -100,8 +80,34 @@ function workbookItems(doc: WorkbookDoc): CheckItem[] {
 
 export function collectChecks(doc: WorkbookDoc): ChecksReport {
   const read = siteFromWorkbook(doc);
-  const problems = mergeProblems(read.problems, validateSite(read.site));
-  const items: CheckItem[] = [...problems.map((p) => inputItem(p, read.origins)), ...workbookItems(doc)];
+  const items: CheckItem[] = [];
+  const said = new Set<string>();
+  for (const p of read.problems) {
+    const at = locateReaderProblem(p, doc);
+    if (at.key && p.severity === 'error') said.add(at.key);
+    items.push({
+      severity: p.severity,
+      code: 'input',
+      where: at.where,
+      text: at.text,
+      ...(at.target ? { target: at.target } : {}),
+    });
+  }
+  const rules = validateSite(read.site);
+  for (const p of rules) {
+    const at = locateRuleProblem(p, doc, read.origins);
+    // The reader already said what is wrong with this cell.
+    if (at.key && said.has(at.key)) continue;
+    items.push({
+      severity: p.severity,
+      code: 'input',
+      where: at.where,
+      text: at.text,
+      ...(at.target ? { target: at.target } : {}),
+    });
+  }
+  const inputErrors = items.some((i) => i.severity === 'error');
+  items.push(...workbookItems(doc));
   const voltages = busVoltages(read.site.equipment).voltages;
   for (const bus of buildBusGraph(read.site.equipment.filter((r) => r.bus !== '')).firstRow.keys()) {
     if (voltages.has(bus)) continue;
@@ -113,14 +119,14 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
     });
   }
   let designSkipped: string | undefined;
-  if (problems.some((p) => p.severity === 'error')) {
+  if (inputErrors) {
     designSkipped = 'The compensation design is checked once the input errors above are mended.';
   } else if (read.site.equipment.length === 0) {
     designSkipped = 'No equipment in this workbook yet.';
   } else {
     try {
       // Findings for the banks on the Compensation sheet (typed, or proposed when the site was built).
-      items.push(...assessBanks(read.site, read.banks).warnings.map(designItem));
+      items.push(...assessBanks(read.site, read.banks).warnings.map((w) => designItem(w, doc, read.origins)));
     } catch (e) {
       designSkipped = `The compensation design could not be checked: ${e instanceof Error ? e.message : String(e)}`;
     }

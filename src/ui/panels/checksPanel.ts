@@ -2,8 +2,9 @@
 // where. Recomputed a moment after the last change while visible (reading the site back and
 // designing takes a while on large sites, so it never runs on every keystroke).
 import { clear, el } from '../dom.ts';
+import { columnLetters } from '../model/address.ts';
 import type { WorkbookSession } from '../model/session.ts';
-import type { CheckItem, ChecksReport } from './checksModel.ts';
+import type { CheckItem, CheckTarget, ChecksReport } from './checksModel.ts';
 
 const QUIET_MS = 600;
 
@@ -14,8 +15,8 @@ export class ChecksPanel {
   private timer: ReturnType<typeof setTimeout> | undefined;
   private dirty = true;
   visible = false;
-  /** Set by the app: select the row an item concerns. */
-  onJump: (target: { sheet: string; row: number }) => void = () => {};
+  /** Set by the app: select the cell an item concerns. */
+  onJump: (target: CheckTarget) => void = () => {};
 
   constructor() {
     this.body = el('div', { className: 'kl-checks-body' });
@@ -41,23 +42,20 @@ export class ChecksPanel {
     this.timer = undefined;
     if (!this.session || !this.dirty) return;
     this.dirty = false;
-    const session = this.session;
-    let report: ChecksReport;
-    try {
-      const { collectChecks } = await import('./checksModel.ts');
-      if (session !== this.session) return;
-      report = collectChecks(session.toDoc());
-    } catch (e) {
-      clear(this.body);
-      this.body.append(
-        el('p', {
-          className: 'kl-check is-error',
-          text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}`,
-        }),
-      );
-      return;
-    }
-    this.render(report);
+    const doc = this.session.toDoc();
+    // The checks (reading the site back, the rules, the compensation design) load the first
+    // time they run, keeping them out of the page's first download.
+    void import('./checksModel.ts')
+      .then(({ collectChecks }) => this.render(collectChecks(doc)))
+      .catch((e: unknown) => {
+        clear(this.body);
+        this.body.append(
+          el('p', {
+            className: 'kl-check is-error',
+            text: `The checks could not run: ${e instanceof Error ? e.message : String(e)}`,
+          }),
+        );
+      });
   }
 
   private render(r: ChecksReport): void {
@@ -93,7 +91,7 @@ export class ChecksPanel {
       const go = el('button', {
         className: 'kl-link-btn',
         text: 'show',
-        title: `Go to ${target.sheet} row ${target.row}`,
+        title: `Go to ${target.sheet} row ${target.row}${target.col !== undefined ? `, column ${columnLetters(target.col)}` : ''}`,
         attrs: { type: 'button' },
       });
       go.addEventListener('click', () => this.onJump(target));

@@ -34,7 +34,13 @@ export class FunctionReference {
         'data-testid': 'ref-search',
       },
     });
-    this.search.addEventListener('input', () => this.renderList());
+    // The detail (and "Insert into cell") follow the search: a function the search hides is not
+    // the one on show.
+    this.search.addEventListener('input', () => {
+      const before = this.selected;
+      this.renderList();
+      if (this.selected !== before) this.renderDetail();
+    });
     this.list = el('div', { className: 'kl-ref-list', attrs: { 'data-testid': 'ref-list' } });
     this.detail = el('article', { className: 'kl-ref-detail', attrs: { 'data-testid': 'ref-detail' } });
     this.root = el('section', { className: 'kl-ref', attrs: { 'aria-label': 'Function reference' } }, [
@@ -59,6 +65,7 @@ export class FunctionReference {
 
   private renderList(): void {
     const found = searchCatalogue(this.search.value);
+    if (!this.selected || !found.includes(this.selected)) this.selected = found[0];
     clear(this.list);
     if (found.length === 0)
       this.list.append(el('p', { className: 'kl-muted', text: 'No function matches.' }));
@@ -85,7 +92,10 @@ export class FunctionReference {
   private renderDetail(): void {
     clear(this.detail);
     const f = this.selected;
-    if (!f) return;
+    if (!f) {
+      this.detail.append(el('p', { className: 'kl-muted', text: 'No function matches the search.' }));
+      return;
+    }
     const insert = el('button', {
       className: 'kl-btn kl-btn-primary',
       text: 'Insert into cell',
@@ -156,13 +166,13 @@ export class FunctionReference {
       });
       use.addEventListener('click', () => this.host.insert(formula));
       return el('tr', { className: check.ok ? '' : 'is-off' }, [
-        el('td', { className: 'kl-mono', text: formula }),
-        el('td', { className: `kl-mono ${r.ok ? '' : 'kl-text-error'}`, text: shown }),
+        el('td', { className: 'kl-mono is-formula', text: formula }),
+        el('td', { className: `kl-mono is-value ${r.ok ? '' : 'kl-text-error'}`, text: shown }),
         el('td', {
           className: 'kl-ref-note',
           text: ex.note + (check.ok ? '' : ' — differs from the stated result'),
         }),
-        el('td', {}, [use]),
+        el('td', { className: 'is-use' }, [use]),
       ]);
     });
     return el('table', { className: 'kl-ref-examples', attrs: { 'data-testid': 'ref-examples' } }, [

@@ -1,0 +1,135 @@
+// Where a Checks entry points: the sheet, the 1-based grid row and the column of the cell at
+// fault. Problems come in two numberings: the workbook reader names the sheet and grid row in
+// its message ("sheet Site, row 3, column "Frequency": ..."), while the site rules number the
+// equipment as one list from 2 (mapped back through the reader's origins). Row numbers inside
+// a message are rewritten the same way, so "(row 9)" reads "Motors row 4". Pure: no DOM.
+import { describeWhere, type Problem } from '../../core/site/problems.ts';
+import { equipmentSheets } from '../../core/kinds/index.ts';
+import { HEADERS, SHEETS } from '../../core/workbook/layout.ts';
+import { SETTING_LABELS } from '../../core/workbook/settingsLayout.ts';
+import type { SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
+import { findSheet, headerIndex } from '../../core/workbook/readCells.ts';
+import type { SiteFromWorkbook } from '../../core/workbook/readSite.ts';
+
+export interface CheckTarget {
+  readonly sheet: string;
+  /** 1-based grid row. */
+  readonly row: number;
+  /** 0-based column; absent when the problem concerns the whole row. */
+  readonly col?: number;
+}
+
+export interface Located {
+  readonly where: string;
+  readonly text: string;
+  readonly target?: CheckTarget;
+  /** Sheet, row and interchange column, to drop a rule's repeat of a problem the reader gave. */
+  readonly key?: string;
+}
+
+const READER = /^sheet (.+?), row (\d+), column "(.*?)": ([\s\S]*)$/;
+const READER_SHEET = /^sheet (.+?): ([\s\S]*)$/;
+
+function settingsRow(doc: SheetDoc | undefined, label: string): number | undefined {
+  const r = doc?.cells.findIndex(
+    (row, i) =>
+      i > 0 &&
+      String(row[0] ?? '')
+        .trim()
+        .toLowerCase() === label.toLowerCase(),
+  );
+  return r === undefined || r < 0 ? undefined : r;
+}
+
+/** The grid column of an interchange column ('cos_phi', 'load:night') on an equipment sheet. */
+function columnOf(doc: WorkbookDoc, sheet: string, column: string | undefined): number | undefined {
+  if (!column) return undefined;
+  const s = findSheet(doc.sheets, sheet);
+  const layout = equipmentSheets().find((l) => l.sheet.name === s?.name)?.sheet;
+  if (!s || !layout) return undefined;
+  const header = column.startsWith('load:')
+    ? HEADERS.loadCase(column.slice(5))
+    : column === 'load'
+      ? HEADERS.loadDefault
+      : layout.inputs.find((c) => c.key === column)?.header;
+  return header === undefined ? undefined : headerIndex(s).get(header.toLowerCase());
+}
+
+/** A problem of the workbook reader: its message names the sheet, grid row and column header. */
+export function locateReaderProblem(p: Problem, doc: WorkbookDoc): Located {
+  const m = READER.exec(p.message);
+  if (m) {
+    const [, sheet = '', row = '1', header = '', text = ''] = m;
+    const s = findSheet(doc.sheets, sheet);
+    const col = sheet === SHEETS.settings ? 1 : s ? headerIndex(s).get(header.toLowerCase()) : undefined;
+    const name = p.column ?? header;
+    return {
+      where: `${sheet} row ${row}, column ${name}`,
+      text,
+      target: { sheet, row: Number(row), ...(col !== undefined ? { col } : {}) },
+      key: `${sheet}|${row}|${name}`,
+    };
+  }
+  const ms = READER_SHEET.exec(p.message);
+  if (ms) return { where: ms[1] ?? '', text: ms[2] ?? '', target: { sheet: ms[1] ?? '', row: 1 } };
+  return { where: '', text: p.message };
+}
+
+/** "row 7" and "rows 3, 5" in a rule's message, in the grid's own sheet-and-row terms. */
+export function sheetRows(text: string, origins: SiteFromWorkbook['origins']): string {
+  return text.replace(/\brows? (\d+(?:(?:, | and )\d+)*)/g, (whole, list: string) => {
+    const named = list.split(/, | and /).map((n) => {
+      const o = origins[Number(n) - 2];
+      return o ? `${o.sheet} row ${o.row + 1}` : undefined;
+    });
+    return named.every((x) => x !== undefined) ? named.join(', ') : whole;
+  });
+}
+
+/** The message without the "row 7, column x: " prefix that problems.ts puts in front. */
+function bare(p: Problem): string {
+  const prefix = describeWhere(p);
+  return prefix && p.message.startsWith(`${prefix}: `) ? p.message.slice(prefix.length + 2) : p.message;
+}
+
+/** A problem of the site rules (validateSite) or a design finding: rows numbered as one list. */
+export function locateRuleProblem(
+  p: Problem,
+  doc: WorkbookDoc,
+  origins: SiteFromWorkbook['origins'],
+): Located {
+  const origin = p.row !== undefined ? origins[p.row - 2] : undefined;
+  const text = sheetRows(bare(p), origins);
+  if (origin) {
+    const row = origin.row + 1;
+    const col = columnOf(doc, origin.sheet, p.column);
+    return {
+      where: [`${origin.sheet} row ${row}`, p.column ? `column ${p.column}` : ''].filter(Boolean).join(', '),
+      text,
+      target: { sheet: origin.sheet, row, ...(col !== undefined ? { col } : {}) },
+      key: `${origin.sheet}|${row}|${p.column ?? ''}`,
+    };
+  }
+  // Settings: the Site sheet row that holds the value.
+  if (p.row === undefined && (p.column === 'hz' || /^settings: /.test(p.message))) {
+    const site = findSheet(doc.sheets, SHEETS.settings);
+    const r = p.column === 'hz' ? settingsRow(site, SETTING_LABELS.hz) : undefined;
+    return {
+      where: r !== undefined ? `${SHEETS.settings} row ${r + 1}` : `${SHEETS.settings} sheet`,
+      text: text.replace(/^settings: /, ''),
+      ...(site
+        ? { target: { sheet: site.name, row: (r ?? 0) + 1, ...(r !== undefined ? { col: 1 } : {}) } }
+        : {}),
+    };
+  }
+  if (p.bus) {
+    const buses = findSheet(doc.sheets, SHEETS.buses);
+    const r = buses?.cells.findIndex((row, i) => i > 0 && row[0] === p.bus);
+    return {
+      where: `bus ${p.bus}`,
+      text,
+      ...(buses && r !== undefined && r > 0 ? { target: { sheet: buses.name, row: r + 1, col: 0 } } : {}),
+    };
+  }
+  return { where: '', text };
+}
