@@ -3,11 +3,9 @@
 // (the trade's habit, no single source). Change them here, nowhere else.
 import { runCall } from './calls.ts';
 
-/** Characteristic harmonics of six-pulse converters, h = 6k ± 1 (published: IEEE Std 519, IEC 61000-2-4). */
-export const CHARACTERISTIC_HARMONICS: readonly number[] = [5, 7, 11, 13];
+import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from './harmonics.ts';
 
-/** A parallel resonance closer than this share to a characteristic harmonic is flagged (common practice: ±10 %). */
-export const RESONANCE_MARGIN = 0.1;
+export { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from './harmonics.ts';
 
 /** Detuning factors offered (common practice; tuning orders 4.20, 3.78, 2.67). */
 export const DETUNING_CHOICES: readonly number[] = [5.67, 7, 14];

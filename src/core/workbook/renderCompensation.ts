@@ -12,7 +12,7 @@ import { SHEETS } from './layout.ts';
 import { absCell, cell, cellOn, rangeOn } from './refs.ts';
 import { REQUIREMENT_TEXT, settingRef } from './settingsLayout.ts';
 import type { BusInfo, WorkbookStructure } from './structure.ts';
-import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from '../site/bankRules.ts';
+import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from '../site/harmonics.ts';
 import { WITHIN_TOL_KVAR } from '../site/tolerance.ts';
 import { textContent } from '../text/cellText.ts';
 
