@@ -15,7 +15,8 @@ import { unifyBusNames } from './busNames.ts';
 import { nameTable } from '../text/nameTable.ts';
 
 /** Name of the case driven by the plain `load` column when the source does not name it. */
-export const DEFAULT_CASE = 'normal';
+import { DEFAULT_CASE } from './defaults.ts';
+export { DEFAULT_CASE };
 /** Header prefix of the per-case load factor columns, e.g. `load:night`. */
 export const CASE_PREFIX = 'load:';
 

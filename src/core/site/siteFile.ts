@@ -10,6 +10,7 @@
 // parseEquipmentTable, so numbers, kinds and unknown keys get the same messages; "row N" in a
 // message is the N-th equipment row of the file. `banks`, when given, are the Compensation
 // sheet's inputs per bus (a template carries the design's proposal, so opening it needs no design).
+import { DEFAULT_CASE, DEFAULT_REQUIREMENT, defaultSettings, UNTITLED_SITE } from './defaults.ts';
 import {
   NUMERIC_COLUMNS,
   type EquipmentRow,
@@ -37,7 +38,7 @@ function syntaxWhere(text: string): string {
 }
 
 function readRequirement(r: unknown, problems: Problem[]): Requirement {
-  const fallback: Requirement = { kind: 'cosphi', target: 0.95 };
+  const fallback: Requirement = DEFAULT_REQUIREMENT;
   const bad = (what: string) => {
     problems.push(error({ column: 'settings.requirement' }, `settings.requirement ${what}`));
     return fallback;
@@ -67,12 +68,7 @@ function readSettings(s: unknown, problems: Problem[]): SiteSettings {
     problems.push(
       error({ column: 'settings' }, 'settings must be an object with name, hz, cases and requirement'),
     );
-    return {
-      name: 'Untitled site',
-      hz: 50,
-      cases: ['normal'],
-      requirement: { kind: 'cosphi', target: 0.95 },
-    };
+    return defaultSettings(UNTITLED_SITE);
   }
   const name =
     typeof s.name === 'string'
@@ -81,7 +77,7 @@ function readSettings(s: unknown, problems: Problem[]): SiteSettings {
   let hz: 50 | 60 = 50;
   if (s.hz === 50 || s.hz === 60) hz = s.hz;
   else at('hz', `must be 50 or 60; got ${JSON.stringify(s.hz ?? null)}`);
-  let cases: string[] = ['normal'];
+  let cases: string[] = [DEFAULT_CASE];
   if (
     Array.isArray(s.cases) &&
     s.cases.length > 0 &&
@@ -173,12 +169,7 @@ function readBanks(v: unknown, problems: Problem[]): BankChoice[] | undefined {
 export function readSiteFile(text: string): { site: Site; problems: Problem[]; banks?: BankChoice[] } {
   const problems: Problem[] = [];
   const empty: Site = {
-    settings: {
-      name: 'Untitled site',
-      hz: 50,
-      cases: ['normal'],
-      requirement: { kind: 'cosphi', target: 0.95 },
-    },
+    settings: defaultSettings(UNTITLED_SITE),
     equipment: [],
   };
   let doc: unknown;

@@ -1,12 +1,11 @@
 // The Site sheet back into SiteSettings: rows are found by their label in column A, so a row the
 // user inserts or moves does not confuse the reader.
+import { DEFAULT_CASE, defaultSettings, UNTITLED_SITE } from '../site/defaults.ts';
 import type { Requirement, SiteSettings } from '../site/model.ts';
 import { error } from '../site/problems.ts';
 import type { SheetDoc } from './document.ts';
 import { REQUIREMENT_TEXT, SETTING_LABELS } from './settingsLayout.ts';
 import { readNumber, readText, report, type ReadContext, type Spot } from './readCells.ts';
-
-const DEFAULT_CASE = 'normal';
 
 function label(doc: SheetDoc, row: number): string {
   const v = doc.cells[row]?.[0];
@@ -26,12 +25,7 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
     ctx.problems.push(
       error({}, 'the workbook has no Site sheet; frequency 50 Hz, cos φ 0.95 and one case "normal" assumed'),
     );
-    return {
-      name: 'Untitled site',
-      hz: 50,
-      cases: [DEFAULT_CASE],
-      requirement: { kind: 'cosphi', target: 0.95 },
-    };
+    return defaultSettings(UNTITLED_SITE);
   }
   const rowOf = (key: keyof typeof SETTING_LABELS) =>
     doc.cells.findIndex((_, r) => r > 0 && label(doc, r) === SETTING_LABELS[key].toLowerCase());

@@ -1,6 +1,7 @@
 // The preview of an import: the list converted to our columns and units, read and checked by the
 // same parser and validation the rest of the app uses, with every problem pointing at the row
 // and the column of the client's file. Nothing here changes the open workbook.
+import { defaultSettings } from '../../core/site/defaults.ts';
 import type { EquipmentRow, Site, SiteSettings } from '../../core/site/model.ts';
 import { DEFAULT_CASE, parseEquipmentTable } from '../../core/site/parse.ts';
 import { nameTable } from '../../core/text/nameTable.ts';
@@ -44,12 +45,7 @@ export interface PreviewOptions {
   readonly settings?: SiteSettings;
 }
 
-export const DEFAULT_IMPORT_SETTINGS: SiteSettings = {
-  name: 'Imported list',
-  hz: 50,
-  cases: [DEFAULT_CASE],
-  requirement: { kind: 'cosphi', target: 0.95 },
-};
+export const DEFAULT_IMPORT_SETTINGS: SiteSettings = defaultSettings('Imported list');
 
 function isBlank(cells: readonly unknown[]): boolean {
   return cells.every((c) => c === null || c === undefined || (typeof c === 'string' && c.trim() === ''));
