@@ -11,7 +11,12 @@ import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptio
 import type { Site } from '../core/site/model.ts';
 import type { Problem } from '../core/site/problems.ts';
 import { rollUpAll, SiteStructureError, type BusBalance, type CaseBalance } from '../core/site/rollup.ts';
-import { designCompensation, type CompensationDesign } from '../core/site/compensation.ts';
+import { withinRequirement, type CaseCompensation } from '../core/site/compensate.ts';
+import { proposeChoices } from '../core/site/compensation.ts';
+import { assessBanks, type Assessment } from '../core/site/assessBanks.ts';
+import { bankTotal, type BankChoice } from '../core/site/bankChoice.ts';
+import { requirementBand } from '../core/site/requirement.ts';
+import { CAUTION_SHORT } from '../core/cautions.ts';
 
 const USAGE = `usage: kvar-ledger balance <file> [--case NAME] [site options] [--json]
 The kW and kvar of every bus in one operating case, rolled up to the point of connection,
@@ -23,8 +28,17 @@ ${SITE_OPTIONS_HELP}
 ${EXIT_HELP}
 `;
 
-const CAUTION =
-  'Estimate only: capacitor banks, resonance and overvoltage can hurt people and plant; the final design follows local codes, the utility and a licensed engineer.';
+const CAUTION = CAUTION_SHORT;
+
+/** Where the banks come from: the page keeps a file's banks and proposes them for a file without. */
+type BanksFrom = 'file' | 'proposed';
+
+/** The compensation a balance reports: the banks in use and what they do in every case. */
+interface Compensation {
+  readonly banks: readonly BankChoice[];
+  readonly from: BanksFrom;
+  readonly assessment: Assessment;
+}
 
 function busJson(b: BusBalance) {
   return {
@@ -58,9 +72,9 @@ function warningJson(w: Problem & { code?: string; case?: string }) {
   };
 }
 
-function toJson(site: Site, bal: CaseBalance, design: CompensationDesign, warnings: readonly Problem[]) {
-  const outcome = design.cases.find((c) => c.case === bal.case);
-  const after = design.after.find((a) => a.case === bal.case);
+function toJson(site: Site, bal: CaseBalance, comp: Compensation, warnings: readonly Problem[]) {
+  const band = requirementBand(site.settings.requirement);
+  const outcome = comp.assessment.cases.find((c) => c.case === bal.case);
   return {
     site: site.settings.name,
     case: bal.case,
@@ -69,18 +83,25 @@ function toJson(site: Site, bal: CaseBalance, design: CompensationDesign, warnin
     buses: bal.buses.map(busJson),
     root: busJson(bal.root),
     compensation: {
-      requirement: design.requirement,
-      lag_tan: design.lag_tan,
-      lead_tan: design.lead_tan,
+      requirement: band.text,
+      lag_tan: band.lagTan,
+      lead_tan: band.leadTan,
+      banks_from: comp.from,
       need_kvar: outcome?.need ?? null,
-      met_before: outcome?.met_before ?? null,
-      met_after: outcome?.met_after ?? null,
-      root_after: after ? busJson(after.root) : null,
-      banks: design.banks.map((b) => ({ ...b, steps_in_case: b.steps_in[bal.case] ?? 0 })),
-      reactors: design.reactors.map((r) => ({ ...r, in_service_in_case: r.in_service[bal.case] ?? false })),
-      bus_needs: design.needs
-        .filter((n) => n.case === bal.case)
-        .map((n) => ({ bus: n.bus, capacitive_kvar: n.capacitive_kvar, inductive_kvar: n.inductive_kvar })),
+      met_before: withinRequirement(site, bal.root.p_kw, bal.root.q_kvar),
+      met_after: outcome?.within_after ?? null,
+      root_after: outcome ? busJson(outcome.after.root) : null,
+      buses_after: outcome ? outcome.after.buses.map(busJson) : [],
+      banks: comp.banks.map((b) => {
+        const inCase = outcome?.banks.find((x) => x.bus === b.bus);
+        return {
+          ...b,
+          total_kvar: bankTotal(b),
+          steps_in_case: inCase?.steps_in ?? 0,
+          output_kvar_in_case: inCase?.output_kvar ?? 0,
+          reactor_kvar_in_case: inCase?.reactor_kvar ?? 0,
+        };
+      }),
     },
     warnings: warnings.map(warningJson),
     caution: CAUTION,
@@ -99,15 +120,42 @@ function table(header: string[], rows: string[][], leftCols = 1): string {
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n') + '\n';
 }
 
-function toText(
-  site: Site,
-  bal: CaseBalance,
-  design: CompensationDesign,
-  warnings: readonly Problem[],
-): string {
+const FROM_TEXT: Record<BanksFrom, string> = {
+  file: 'compensation as the file gives it',
+  proposed: 'compensation proposed (the file gives none; sized over all cases)',
+};
+
+function bankLine(
+  b: BankChoice,
+  u: number | undefined,
+  inCase: CaseCompensation['banks'][number] | undefined,
+) {
+  const parts = [
+    (b.fixed_kvar ?? 0) > 0 ? `fixed ${num(b.fixed_kvar, 0)} kvar` : '',
+    (b.steps ?? 0) > 0 ? `${b.steps} × ${num(b.step_kvar ?? 0, 0)} kvar steps` : '',
+  ].filter(Boolean);
+  const lines: string[] = [];
+  const where = `  ${b.bus}${u === undefined ? '' : ` (${u} kV)`}: `;
+  if (parts.length > 0)
+    lines.push(
+      `${where}${parts.join(' + ')} = ${num(bankTotal(b), 0)} kvar; ` +
+        `${(b.p_pct ?? 0) > 0 ? `detuned ${b.p_pct} %` : 'no detuning'}` +
+        `${b.u_rated_kv === undefined ? '' : `, capacitors rated ${b.u_rated_kv} kV`}; ` +
+        `in this case ${inCase?.steps_in ?? 0} steps in, ${num(inCase?.output_kvar ?? 0)} kvar`,
+    );
+  if ((b.reactor_kvar ?? 0) > 0)
+    lines.push(
+      `${where}shunt reactor ${num(b.reactor_kvar ?? 0, 0)} kvar, ${(inCase?.reactor_kvar ?? 0) > 0 ? 'in service' : 'out of service'} in this case`,
+    );
+  if (b.note) lines.push(`    why: ${b.note}`);
+  return lines.map((l) => l + '\n').join('');
+}
+
+function toText(site: Site, bal: CaseBalance, comp: Compensation, warnings: readonly Problem[]): string {
   const out: string[] = [];
+  const band = requirementBand(site.settings.requirement);
   out.push(
-    `${site.settings.name}\ncase ${bal.case} (of ${site.settings.cases.join(', ')}), ${bal.hz} Hz; requirement: ${design.requirement}\n\n`,
+    `${site.settings.name}\ncase ${bal.case} (of ${site.settings.cases.join(', ')}), ${bal.hz} Hz; requirement: ${band.text}\n\n`,
   );
   const rows = bal.buses.map((b) => [
     '  '.repeat(b.level) + b.bus,
@@ -129,39 +177,36 @@ function toText(
       2,
     ),
   );
-  const o = design.cases.find((c) => c.case === bal.case);
+  const o = comp.assessment.cases.find((c) => c.case === bal.case);
   const r = bal.root;
   out.push(
     `\npoint of connection ${r.bus}: P ${num(r.p_kw)} kW, Q ${num(r.q_kvar)} kvar, cos φ ${num(r.cos_phi, 3)} ${r.sense}`,
   );
-  if (o)
+  if (o) {
+    const n = o.need;
     out.push(
-      o.met_before
+      withinRequirement(site, r.p_kw, r.q_kvar)
         ? ' — meets the requirement\n'
-        : ` — needs ${o.need.capacitive_kvar > 0 ? `${num(o.need.capacitive_kvar)} kvar capacitive` : `${num(o.need.inductive_kvar)} kvar inductive`}\n`,
+        : ` — needs ${n.capacitive_kvar > 0 ? `${num(n.capacitive_kvar)} kvar capacitive` : `${num(n.inductive_kvar)} kvar inductive`}\n`,
     );
-  if (design.banks.length + design.reactors.length > 0) {
-    out.push('\ncompensation proposed (sized over all cases):\n');
-    for (const b of design.banks) {
-      const parts = [
-        b.fixed_kvar > 0 ? `fixed ${b.fixed_kvar} kvar` : '',
-        b.steps > 0 ? `${b.steps} × ${b.step_kvar} kvar steps` : '',
-      ]
-        .filter(Boolean)
-        .join(' + ');
+  }
+  const shown = comp.banks.filter((b) => bankTotal(b) > 0 || (b.reactor_kvar ?? 0) > 0);
+  if (shown.length > 0) {
+    out.push(`\n${FROM_TEXT[comp.from]}:\n`);
+    for (const b of shown)
       out.push(
-        `  ${b.bus} (${b.u_kv} kV): ${parts} = ${b.total_kvar} kvar; ${b.p_pct > 0 ? `detuned ${b.p_pct} % (tuning order ${num(b.tuning_order, 2)})` : 'no detuning'}; ` +
-          `capacitors see ${num(b.u_cap_kv, 3)} kV, rated ${b.u_rated_kv} kV; steps in this case ${b.steps_in[bal.case] ?? 0}; voltage rise per step ${num(b.vrise_step_pct, 2)} %\n    why: ${b.why}\n`,
+        bankLine(
+          b,
+          bal.buses.find((x) => x.bus === b.bus)?.u_kv,
+          o?.banks.find((x) => x.bus === b.bus),
+        ),
+      );
+    if (o) {
+      const a = o.after.root;
+      out.push(
+        `  after: P ${num(a.p_kw)} kW, Q ${num(a.q_kvar)} kvar, cos φ ${num(a.cos_phi, 3)} ${a.sense} — ${o.within_after ? 'meets the requirement' : 'still outside the requirement'}\n`,
       );
     }
-    for (const x of design.reactors)
-      out.push(
-        `  ${x.bus} (${x.u_kv} kV): shunt reactor ${x.q_kvar} kvar, ${x.in_service[bal.case] ? 'in service' : 'out of service'} in this case\n`,
-      );
-    if (o)
-      out.push(
-        `  after: P ${num(o.after.p_kw)} kW, Q ${num(o.after.q_kvar)} kvar, cos φ ${num(o.after.cos_phi, 3)} ${o.after.sense} — ${o.met_after ? 'meets the requirement' : 'still outside the requirement'}\n`,
-      );
   }
   if (warnings.length > 0)
     out.push('\nwarnings:\n' + warnings.map((w) => `  ${w.severity.padEnd(7)} ${w.message}\n`).join(''));
@@ -207,16 +252,22 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     throw e;
   }
   const bal = balances.find((b) => b.case === found) as CaseBalance;
-  const design = designCompensation(site, balances);
+  // The banks the page would hold for this file: its own, or the design's proposal.
+  const comp: Compensation = loaded.loaded.banks
+    ? { banks: loaded.loaded.banks, from: 'file', assessment: assessBanks(site, loaded.loaded.banks) }
+    : (() => {
+        const banks = proposeChoices(site);
+        return { banks, from: 'proposed' as const, assessment: assessBanks(site, banks) };
+      })();
   const warnings = [
     ...problems,
     ...bal.problems,
-    ...design.warnings.filter((w) => w.case === undefined || w.case === found),
+    ...comp.assessment.warnings.filter((w) => w.case === undefined || w.case === found),
   ];
   io.out(
     flags.has('--json')
-      ? JSON.stringify(toJson(site, bal, design, warnings), null, 2) + '\n'
-      : toText(site, bal, design, warnings),
+      ? JSON.stringify(toJson(site, bal, comp, warnings), null, 2) + '\n'
+      : toText(site, bal, comp, warnings),
   );
   return EXIT_OK;
 }

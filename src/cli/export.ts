@@ -57,7 +57,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const { site, problems, banks } = loaded.loaded;
   if (problems.some((p) => p.severity === 'error'))
     return refuseErrors(io, 'export', input, problems, 'nothing was written');
-  const keep = banks.length > 0 ? { banks } : {};
+  const keep = banks ? { banks } : {};
   const doc = buildWorkbook(site, { flavour: 'portable', ...keep });
   // The xlsx library loads only for this command.
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');

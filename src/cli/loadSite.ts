@@ -9,6 +9,7 @@
 import { readFileSync, statSync } from 'node:fs';
 import { basename } from 'node:path';
 import { resolveCase } from '../core/site/cases.ts';
+import { defaultSettings } from '../core/site/defaults.ts';
 import { MAX_CASES } from '../core/site/limits.ts';
 import { NUMERIC_COLUMNS, TEXT_COLUMNS, type Site, type SiteSettings } from '../core/site/model.ts';
 import { CASE_PREFIX, DEFAULT_CASE } from '../core/site/parse.ts';
@@ -36,8 +37,12 @@ export interface LoadedSite {
   readonly site: Site;
   /** Read and validation problems together; messages start with "row N, column C" where known. */
   readonly problems: readonly Problem[];
-  /** Banks typed on a workbook's Compensation sheet (kept by export). */
-  readonly banks: readonly BankChoice[];
+  /**
+   * The banks the file holds: those typed on a workbook's Compensation sheet (none is a choice),
+   * or a site file's "banks". Undefined when the file says nothing of banks (an equipment list, a
+   * site file without "banks"): then the commands propose them, as the page does on import.
+   */
+  readonly banks?: readonly BankChoice[];
   readonly source: SourceKind;
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
@@ -48,8 +53,6 @@ export type LoadResult =
   | { readonly ok: true; readonly loaded: LoadedSite }
   | { readonly ok: false; readonly message: string; readonly usage?: boolean };
 
-/** Requirement assumed for a bare equipment list (common practice: many tariffs start at 0.95). */
-export const LIST_REQUIREMENT = { kind: 'cosphi', target: 0.95 } as const;
 /** Largest JSON file read (the app opens workbooks up to the same size). */
 export const MAX_JSON_BYTES = 64 * 1024 * 1024;
 
@@ -94,7 +97,7 @@ function jsonFormat(text: string): { format: unknown } | 'not-json' | 'invalid' 
   }
 }
 
-type Read = { site: Site; problems: Problem[]; banks: readonly BankChoice[]; source: SourceKind };
+type Read = { site: Site; problems: Problem[]; banks?: readonly BankChoice[]; source: SourceKind };
 
 async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadResult> {
   if (bytes.length > MAX_JSON_BYTES)
@@ -115,7 +118,7 @@ async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadRes
     );
   // A site file, or text that is not valid JSON: the site file reader says where it breaks.
   const r = readSiteFile(text);
-  return { site: r.site, problems: r.problems, banks: [], source: 'site-file' };
+  return { site: r.site, problems: r.problems, ...(r.banks ? { banks: r.banks } : {}), source: 'site-file' };
 }
 
 async function readOwnXlsx(bytes: Uint8Array): Promise<Read | undefined> {
@@ -214,10 +217,7 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
   const defaultCase =
     asked !== undefined && resolveCase(listCases, asked) === undefined ? asked : DEFAULT_CASE;
   // The settings go into the preview, which validates the rows under them as the page does.
-  const settings = withOptions(
-    { name: siteNameFromFile(file), hz: 50, cases: [defaultCase], requirement: LIST_REQUIREMENT },
-    options,
-  );
+  const settings = withOptions(defaultSettings(siteNameFromFile(file), [defaultCase]), options);
   const preview = previewImport(mapped, { settings });
   const problems = [...preview.problems];
   // The preview checks rows only when there are some; a list of headers alone is still no site.
@@ -228,7 +228,6 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
   return {
     site: { settings: { ...settings, cases: [...preview.cases] }, equipment: [...preview.equipment] },
     problems,
-    banks: [],
     source: 'list',
   };
 }
@@ -278,7 +277,8 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const unreadable = site.equipment.length === 0 && read.problems.some((p) => p.severity === 'error');
   const problems =
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
-  return { ok: true, loaded: { site, problems, banks: read.banks, source: read.source, caseName } };
+  const banks = read.banks ? { banks: read.banks } : {};
+  return { ok: true, loaded: { site, problems, ...banks, source: read.source, caseName } };
 }
 
 export function describeSource(source: SourceKind): string {
