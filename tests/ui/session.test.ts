@@ -33,6 +33,29 @@ describe('WorkbookSession', () => {
     expect(value(s, 'Results', 1, 0)).toBe(500); // 3-4-5 triangle
   });
 
+  it("keeps a sheet's choices and marks through opening and saving", () => {
+    const marked: WorkbookDoc = {
+      ...doc,
+      sheets: [
+        {
+          name: 'Setup',
+          cells: [
+            ['Setting', 'Value'],
+            ['Frequency (Hz)', 50],
+            ['Load losses (kW)', 7.6],
+          ],
+          choices: [{ row: 1, col: 1, options: ['50', '60'], message: 'The frequency must be 50 or 60 Hz.' }],
+          marks: [{ row: 2, col: 1, kind: 'assumed', note: 'typical value', value: 7.6 }],
+        },
+      ],
+    };
+    const s = WorkbookSession.fromDoc(marked);
+    const setup = s.engine.getSheetId('Setup') as number;
+    expect(s.meta(setup).marks).toEqual(marked.sheets[0]?.marks);
+    expect(s.meta(setup).choices).toEqual(marked.sheets[0]?.choices);
+    expect(s.toDoc()).toEqual(marked);
+  });
+
   it('undoes and redoes an edit, one step per action', () => {
     const s = WorkbookSession.fromDoc(doc);
     const site = s.engine.getSheetId('Site') as number;

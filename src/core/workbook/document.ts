@@ -32,6 +32,32 @@ export interface SheetDoc {
   readonly purpose?: string;
   /** Cells in generated places whose content the user typed (kept, marked, listed by Checks). */
   readonly overrides?: readonly CellAt[];
+  /** Cells that take one of a list of values. */
+  readonly choices?: readonly CellChoice[];
+  /** Cells whose value deserves a second look (assumed, typed over). */
+  readonly marks?: readonly CellMark[];
+}
+
+/** A cell that takes one of a list of values: the grid offers them and refuses anything else. */
+export interface CellChoice {
+  readonly row: number;
+  readonly col: number;
+  readonly options: readonly string[];
+  /** Why only these, shown when something else is typed. */
+  readonly message: string;
+}
+
+/**
+ * A cell whose value deserves a second look: 'assumed' (a typical value put in for a blank) or
+ * 'override' (typed over what the workbook would give). With `value`, the mark holds only while
+ * the cell still contains that value: typing over an assumed value ends the assumption.
+ */
+export interface CellMark {
+  readonly row: number;
+  readonly col: number;
+  readonly kind: 'assumed' | 'override';
+  readonly note: string;
+  readonly value?: CellContent;
 }
 
 export interface WorkbookDoc {

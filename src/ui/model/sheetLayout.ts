@@ -1,29 +1,9 @@
 // What the engine does not hold about sheets: their order and their column descriptions. Kept as
 // immutable snapshots beside the engine's own undo stack, one entry per user action, so undoing
 // a sheet deletion brings back the sheet in its place with its headers, formats and widths.
-import type { CellContent, ColumnInfo } from '../../core/workbook/document.ts';
+import type { CellChoice, CellMark, ColumnInfo } from '../../core/workbook/document.ts';
 
-/** A cell that takes one of a list of values: the grid offers them and refuses anything else. */
-export interface CellChoice {
-  readonly row: number;
-  readonly col: number;
-  readonly options: readonly string[];
-  /** Why only these, shown when something else is typed. */
-  readonly message: string;
-}
-
-/**
- * A cell whose value deserves a second look: 'assumed' (a typical value put in for a blank) or
- * 'override' (typed over what the workbook would give). With `value`, the mark holds only while
- * the cell still contains that value: typing over an assumed value ends the assumption.
- */
-export interface CellMark {
-  readonly row: number;
-  readonly col: number;
-  readonly kind: 'assumed' | 'override';
-  readonly note: string;
-  readonly value?: CellContent;
-}
+export type { CellChoice, CellMark };
 
 export interface SheetMeta {
   readonly columns?: readonly ColumnInfo[];
