@@ -67,8 +67,12 @@ describe('site diagram', () => {
     await typeInCell(page, row, await column('Feeds bus'), 'LV-NEW');
     await typeInCell(page, row, await column('Rating (kVA)'), '400');
     await expect.poll(() => diagram().locator('[data-bus="LV-NEW"]').count(), { timeout: 10_000 }).toBe(1);
-    // Not on the Buses sheet yet: drawn, said so, no row to show.
-    expect(await diagram().locator('[data-bus="LV-NEW"]').getAttribute('class')).toMatch(/is-off-sheet/);
+    // The Buses sheet follows the equipment: the new bus has its row at once, so it is drawn
+    // with figures, not as a bus waiting for a row.
+    await expect
+      .poll(() => diagram().locator('[data-bus="LV-NEW"]').getAttribute('class'), { timeout: 10_000 })
+      .not.toMatch(/is-off-sheet/);
+    expect(await diagram().locator('[data-bus="LV-NEW"]').textContent()).toMatch(/P [\d,]+\.\d kW/);
     await expect
       .poll(() => diagram().locator('[data-bus="LV-NEW"] .kl-dg-feeder-label').allTextContents(), {
         timeout: 10_000,
