@@ -15,6 +15,12 @@ export interface ArbSite {
 type RowSpec = Omit<EquipmentRow, 'row'>;
 
 const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+/**
+ * A power factor as a nameplate or list gives it, to three decimals. Unrounded doubles put
+ * cos φ one ulp below 1, where √(1 − cos²φ) is all rounding and spreadsheet programs rightly
+ * differ (LibreOffice snaps such differences to 0); no site has such a value.
+ */
+const cosPhi = (min: number, max: number) => num(min, max).map((c) => Math.round(c * 1000) / 1000);
 /** A load factor: off, or a real share (no subnormal numbers a site never has). */
 const loadFactor = (range: [number, number]) =>
   fc.oneof(fc.constant(0), num(Math.max(range[0], 0.01), range[1]));
@@ -40,7 +46,7 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
     .record({
       p: num(1, 400),
       eff: num(0.8, 0.97),
-      cos: num(0.7, 0.92),
+      cos: cosPhi(0.7, 0.92),
       load: fc.option(loadFactor([0, 1.2]), { nil: undefined }),
       units,
       loads: loadsArb(cases, [0, 1.2]),
@@ -53,7 +59,7 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
       loads,
     }));
   const load = fc
-    .record({ p: num(1, 600), cos: num(0.6, 1), units, loads: loadsArb(cases, [0, 1.5]) })
+    .record({ p: num(1, 600), cos: cosPhi(0.6, 1), units, loads: loadsArb(cases, [0, 1.5]) })
     .map(({ p, cos, units, loads }) => ({
       tag: '',
       bus,
@@ -62,7 +68,7 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
       loads,
     }));
   const generator = fc
-    .record({ p: num(10, 500), cos: num(0.8, 1), loads: loadsArb(cases, [0, 1]) })
+    .record({ p: num(10, 500), cos: cosPhi(0.8, 1), loads: loadsArb(cases, [0, 1]) })
     .map(({ p, cos, loads }) => ({
       tag: '',
       bus,
