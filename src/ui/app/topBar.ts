@@ -2,7 +2,7 @@
 // switches for the side panel and the about box.
 import { el, svg } from '../dom.ts';
 import { menuButton } from '../menu.ts';
-import { deleteRows, fillDown, insertRows, type CommandHost } from '../grid/gridMenu.ts';
+import { deleteRows, fillDown, insertRows, sortRows, type CommandHost } from '../grid/gridMenu.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
@@ -121,6 +121,14 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
       { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
       { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
       { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
+      {
+        label: 'Sort rows by this column, ascending',
+        run: () => app.run(() => sortRows(app.grid, false)),
+      },
+      {
+        label: 'Sort rows by this column, descending',
+        run: () => app.run(() => sortRows(app.grid, true)),
+      },
       'separator',
       { label: 'Go to…', hint: 'Ctrl+G', run: () => void openGoTo(app), testId: 'menu-goto' },
       { label: 'Next sheet', hint: 'Ctrl+PgDn', run: () => stepSheet(app, 1) },

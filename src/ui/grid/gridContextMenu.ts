@@ -1,9 +1,9 @@
-// The grid's cell menu: row, fill and clipboard commands for the selection. Opened by a
+// The grid's cell menu: row, sort, fill and clipboard commands for the selection. Opened by a
 // right-click, or from the keyboard by Shift+F10 or the menu key at the active cell; arrow keys
 // move through it, Enter runs a command, Escape closes it and the keyboard goes back to the grid.
 import type { HotInstance } from 'handsontable/base';
 import { el } from '../dom.ts';
-import { clearCells, deleteRows, fillDown, insertRows, type CommandHost } from './gridMenu.ts';
+import { clearCells, deleteRows, fillDown, insertRows, sortRows, type CommandHost } from './gridMenu.ts';
 
 interface MenuHost extends CommandHost {
   readonly hot: HotInstance;
@@ -48,6 +48,8 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): CellMenu {
     ['Insert rows above', '', () => insertRows(grid, 'above')],
     ['Insert rows below', '', () => insertRows(grid, 'below')],
     ['Delete rows', '', () => deleteRows(grid)],
+    ['Sort rows by this column, ascending', '', () => sortRows(grid, false)],
+    ['Sort rows by this column, descending', '', () => sortRows(grid, true)],
     'sep',
     ['Fill down', 'Ctrl+D', () => void fillDown(grid)],
     ['Clear contents', 'Del', () => clearCells(grid)],
@@ -76,7 +78,12 @@ export function attachContextMenu(host: HTMLElement, grid: MenuHost): CellMenu {
       ]);
       b.addEventListener('click', (e) => {
         close(e);
-        run();
+        // A refused command (rows of a sheet that follows the site, say) says why, not a crash.
+        try {
+          run();
+        } catch (err) {
+          grid.notice(err instanceof Error ? err.message : String(err));
+        }
       });
       buttons.push(b);
       menu.append(b);

@@ -61,3 +61,11 @@ export function clearCells(host: CommandHost): void {
     for (let col = sel.left; col <= sel.right; col++) cells.push({ row, col, content: null });
   host.session.setCells(sel.sheetId, cells);
 }
+
+/** Sort the sheet's rows below the header by the active cell's column; the same cell stays selected. */
+export function sortRows(host: CommandHost, descending: boolean): void {
+  const sel = host.selection();
+  if (!sel) return;
+  host.session.sortRows(sel.sheetId, sel.col, descending);
+  host.select(sel.row, sel.col);
+}

@@ -21,6 +21,7 @@ import { HEADERS } from '../../core/workbook/layout.ts';
 import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
+import { sortedOrder } from './rowOrder.ts';
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -247,6 +248,45 @@ export class WorkbookSession {
       return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, -count), true) ? 1 : 0);
     });
     this.emit({ kind: 'rows', sheetId });
+  }
+
+  /**
+   * Sort the rows of an equipment sheet (below its header) by the values shown in one column, as
+   * one step. Rows move whole: what was typed, typed-over cells and typed formulas (their relative
+   * references move with the row, as in any spreadsheet); the generated cells follow the inputs.
+   */
+  sortRows(sheetId: number, col: number, descending: boolean): void {
+    const role = this.site?.role(sheetId);
+    if (role?.kind !== 'equipment')
+      throw new SessionError(
+        `Sorting rows works on the equipment sheets; ${this.sheetName(sheetId)} keeps its order.`,
+      );
+    const rows = this.contents.get(sheetId);
+    const last = rows.length - 1;
+    if (last < 2) return;
+    const values = [];
+    for (let row = 1; row <= last; row++) values.push(this.engine.getCellValue({ sheet: sheetId, row, col }));
+    const order = sortedOrder(values, descending);
+    if (order.every((from, i) => from === i)) return;
+    const width = Math.max(...rows.map((r) => r.length));
+    const cells: Array<{ row: number; col: number; content: CellContent }> = [];
+    order.forEach((from, i) => {
+      const row = i + 1,
+        source = from + 1;
+      const line = rows[source] ?? [];
+      for (let c = 0; c < width; c++) {
+        const typed = line[c] ?? null;
+        const range = {
+          start: { sheet: sheetId, row: source, col: c },
+          end: { sheet: sheetId, row: source, col: c },
+        };
+        const content = isFormula(typed)
+          ? (this.movedContents(range, { sheet: sheetId, row, col: c })[0]?.[0] ?? typed)
+          : typed;
+        if (content !== (rows[row]?.[c] ?? null)) cells.push({ row, col: c, content });
+      }
+    });
+    this.setCells(sheetId, cells);
   }
 
   // ------------------------------------------------------------------ sheets

@@ -1,6 +1,7 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
-// typed on the Compensation sheet, renaming a bus, adding or renaming a case, undo and redo.
+// typed on the Compensation sheet, renaming a bus, adding or renaming a case, sorting rows,
+// undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
 import fc from 'fast-check';
 import type { CellContent } from '../../../src/core/workbook/document.ts';
@@ -21,6 +22,7 @@ export type Edit =
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number }
   | { op: 'rename'; bus: number; suffix: number }
   | { op: 'case'; rename: boolean; suffix: number }
+  | { op: 'sort'; sheet: number; by: 'tag' | 'bus' | 'p_kw' | 'computed'; descending: boolean }
   | { op: 'undo' }
   | { op: 'redo' };
 
@@ -83,6 +85,12 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
   }),
   fc.record({ op: fc.constant('rename' as const), bus: fc.nat(), suffix: fc.nat(99) }),
   fc.record({ op: fc.constant('case' as const), rename: fc.boolean(), suffix: fc.nat(99) }),
+  fc.record({
+    op: fc.constant('sort' as const),
+    sheet: fc.integer({ min: 0, max: 6 }),
+    by: fc.constantFrom('tag' as const, 'bus' as const, 'p_kw' as const, 'computed' as const),
+    descending: fc.boolean(),
+  }),
   fc.constant({ op: 'undo' as const }),
   fc.constant({ op: 'redo' as const }),
 );
@@ -215,6 +223,14 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       const row = e.rename ? FIRST_CASE_ROW + (e.suffix % cases.length) : FIRST_CASE_ROW + cases.length;
       s.setCells(model.ids.site, [{ row, col: 1, content: name }]);
       return `${e.rename ? 'rename' : 'add'} case ${name}`;
+    }
+    case 'sort': {
+      const cols = plans[e.sheet];
+      if (!cols) return 'sort: no sheet';
+      const c = e.by === 'computed' ? cols.firstComputed : cols.input.get(e.by);
+      if (c === undefined) return `sort: ${cols.sheet.name} has no ${e.by}`;
+      s.sortRows(sheetId(e.sheet), c, e.descending);
+      return `sort ${cols.sheet.name} by ${e.by}${e.descending ? ' descending' : ''}`;
     }
     case 'undo':
       return s.undo() ? 'undo' : 'undo: nothing';
