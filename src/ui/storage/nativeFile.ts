@@ -22,7 +22,9 @@ export function download(bytes: BlobPart, name: string, type: string): void {
   a.href = url;
   a.download = name;
   document.body.append(a);
-  a.click();
+  // A click that does not bubble: the grid would take a page-level click as the user leaving it
+  // and drop the keyboard, so the next Ctrl+Z after Ctrl+S would go nowhere.
+  a.dispatchEvent(new MouseEvent('click', { bubbles: false, cancelable: true }));
   a.remove();
   setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
