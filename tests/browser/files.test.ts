@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
-import { cell, cellText, columnOf, openSheet, selectCell, sheetNames } from './gridHelpers.ts';
+import { cell, cellText, columnOf, openSheet, rowWith, selectCell, sheetNames } from './gridHelpers.ts';
 
 let server: { url: string; close(): Promise<void> };
 let browser: Browser;
@@ -129,6 +129,12 @@ describe('files', () => {
     expect(await page.locator('[data-testid="title"]').inputValue()).toBe('Reopened from disk');
     expect(await dlg.locator('[data-testid="import-next"]').isDisabled()).toBe(true);
     await dlg.locator('[data-testid="import-drop"]').check();
+    // Replacing asks about the site settings: this list starts a site of its own, so take the
+    // defaults instead of the reopened site's 180 MVA supply and its two cases.
+    expect(await dlg.locator('.kl-import-settings').textContent()).toMatch(
+      /keep this site's \(50 Hz, cos φ ≥ 0\.95, 180 MVA short-circuit power, 2 cases\)/,
+    );
+    await dlg.locator('[data-testid="import-default-settings"]').check();
     await dlg.locator('[data-testid="import-next"]').click();
     await expect
       .poll(() => page.locator('[data-testid="notice"]').textContent())
@@ -138,6 +144,10 @@ describe('files', () => {
     expect(rows.sort()).toEqual(['P-201', 'P-202']);
     const col = await columnOf(page, 'Rated output (kW)');
     expect(await cellText(page, 1, col)).toBe('90.0');
+    await openSheet(page, 'Site');
+    const ssc = await rowWith(page, 'Short-circuit power at the connection point');
+    expect(await cellText(page, ssc, 1)).toBe('');
+    expect(await cellText(page, await rowWith(page, 'Case'), 1)).toBe('normal');
     // The choices are remembered for the next list from this client.
     const memory = await page.evaluate(() => localStorage.getItem('kvar-ledger.import-mapping.v1'));
     expect(memory).toMatch(/rated power/);

@@ -2,7 +2,8 @@
 // The open site is read back from its workbook, the imported rows replace or follow its equipment,
 // the merged site is validated as a whole (a tag already in use is an error here), and the
 // workbook is rebuilt. The caller swaps documents only when `ok` is true.
-import type { EquipmentRow, Site } from '../../core/site/model.ts';
+import type { EquipmentRow, Site, SiteSettings } from '../../core/site/model.ts';
+import { DEFAULT_CASE, defaultSettings } from '../../core/site/defaults.ts';
 import { error, type Problem } from '../../core/site/problems.ts';
 import { validateSite } from '../../core/site/validate.ts';
 import { buildWorkbook, type Flavour } from '../../core/workbook/build.ts';
@@ -17,6 +18,12 @@ export interface ApplyOptions {
   readonly dropRowsWithErrors?: boolean;
   /** Which workbook to build; the app uses 'live' (default). */
   readonly flavour?: Flavour;
+  /**
+   * With 'replace': keep the open site's settings (frequency, requirement, short-circuit power,
+   * cases, notes; the default) or take the defaults of a new site. The site name stays either way,
+   * and every case the list's rows name is kept.
+   */
+  readonly settings?: 'keep' | 'defaults';
 }
 
 export type ApplyResult =
@@ -34,6 +41,23 @@ function errorRows(preview: ImportPreview): Set<number> {
   return new Set(
     preview.problems.filter((p) => p.severity === 'error' && p.row !== undefined).map((p) => p.row as number),
   );
+}
+
+/** The site settings after the import: the open site's, or with 'defaults' a new site's under its name. */
+function settingsAfter(
+  current: SiteSettings,
+  preview: ImportPreview,
+  incoming: readonly EquipmentRow[],
+  opts: ApplyOptions,
+): SiteSettings {
+  if (opts.mode === 'replace' && opts.settings === 'defaults') {
+    const named = new Set(incoming.flatMap((e) => Object.keys(e.loads)));
+    const cases = [DEFAULT_CASE, ...preview.cases.filter((c) => named.has(c) && c !== DEFAULT_CASE)];
+    return defaultSettings(current.name, cases);
+  }
+  const cases = [...current.cases];
+  for (const c of preview.cases) if (!cases.includes(c)) cases.push(c);
+  return { ...current, cases };
 }
 
 /** Merge an accepted preview into the site of `current` and rebuild; `current` is not modified. */
@@ -66,8 +90,7 @@ export function applyImport(current: WorkbookDoc, preview: ImportPreview, opts: 
     return { ok: false, message: 'no row of the list can be imported', problems: preview.problems };
 
   const open = siteFromWorkbook(current);
-  const settings = { ...open.site.settings, cases: [...open.site.settings.cases] };
-  for (const c of preview.cases) if (!settings.cases.includes(c)) settings.cases.push(c);
+  const settings = settingsAfter(open.site.settings, preview, incoming, opts);
   const kept = opts.mode === 'append' ? open.site.equipment : [];
   const used = new Set(kept.map((e) => e.tag));
   const clashes = incoming

@@ -186,7 +186,33 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     attrs: { role: 'alert', 'data-testid': 'import-note' },
   });
   const dropBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-drop' } });
-  const drop = el('label', { className: 'kl-check' }, [dropBox, ' Leave out the rows with errors']);
+  const drop = el('label', { className: 'kl-tick' }, [dropBox, ' Leave out the rows with errors']);
+  // Replacing the equipment asks what becomes of the site settings; adding always keeps them.
+  const keepBox = el('input', {
+    attrs: {
+      type: 'radio',
+      name: 'kl-import-settings',
+      value: 'keep',
+      'data-testid': 'import-keep-settings',
+    },
+  });
+  const defaultsBox = el('input', {
+    attrs: {
+      type: 'radio',
+      name: 'kl-import-settings',
+      value: 'defaults',
+      'data-testid': 'import-default-settings',
+    },
+  });
+  keepBox.checked = true;
+  const settingsChoice = el('fieldset', { className: 'kl-import-settings' }, [
+    el('legend', { text: 'When replacing the equipment, the site settings:' }),
+    el('label', { className: 'kl-tick' }, [keepBox, ` keep this site's (${settingsSummary(settings)})`]),
+    el('label', { className: 'kl-tick' }, [
+      defaultsBox,
+      ' take the defaults of a new site (50 Hz, cos φ ≥ 0.95, no short-circuit power, one case)',
+    ]),
+  ]);
   const back = el('button', { className: 'kl-btn', text: 'Back to the mapping', attrs: { type: 'button' } });
   const add = el('button', {
     className: 'kl-btn kl-btn-primary',
@@ -221,6 +247,7 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
               ? 'The workbook has no equipment yet.'
               : `The workbook holds ${existing} items: add the list to them, or replace them.`,
         }),
+        ...(current ? [settingsChoice] : []),
       );
     }
     const hasErrors = preview?.counts.withErrors ? preview.counts.withErrors > 0 : false;
@@ -239,7 +266,11 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
 
   const accept = (mode: 'append' | 'replace') => {
     if (!preview) return;
-    const r = applyImport(currentDoc, preview, { mode, dropRowsWithErrors: dropBox.checked });
+    const r = applyImport(currentDoc, preview, {
+      mode,
+      dropRowsWithErrors: dropBox.checked,
+      settings: defaultsBox.checked ? 'defaults' : 'keep',
+    });
     if (!r.ok) {
       note.textContent = r.message;
       return;
@@ -273,4 +304,13 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     footer: [drop, back, add, next],
   });
   render();
+}
+
+/** The settings a replacing import can keep, in a few words. */
+function settingsSummary(s: SiteSettings): string {
+  const r = s.requirement;
+  const req = r.kind === 'cosphi' ? `cos φ ≥ ${r.target}` : `tan φ from −${r.leadMax} to ${r.lagMax}`;
+  const ssc = s.sscMva === undefined ? 'no short-circuit power' : `${s.sscMva} MVA short-circuit power`;
+  const cases = s.cases.length === 1 ? 'one case' : `${s.cases.length} cases`;
+  return `${s.hz} Hz, ${req}, ${ssc}, ${cases}`;
 }

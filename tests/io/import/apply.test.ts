@@ -93,6 +93,30 @@ describe('applyImport', () => {
     expect(r.site.settings.cases).toEqual(['summer-day', 'winter-night', 'weekend']);
   });
 
+  it('replacing keeps the site settings, or takes the defaults of a new site when asked', () => {
+    const list = 'tag,bus,kind,p_kw,cos_phi,load,load:weekend\nL1,MAIN,load,100,0.9,1,0.3\n';
+    const kept = applyImport(current, preview(list), { mode: 'replace', settings: 'keep' });
+    const fresh = applyImport(current, preview(list), { mode: 'replace', settings: 'defaults' });
+    if (!kept.ok || !fresh.ok) throw new Error('the import was refused');
+    const was = siteFromWorkbook(current).site.settings;
+    // Kept: the open site's 180 MVA supply, its cases and notes, plus the list's weekend case.
+    expect(kept.site.settings).toEqual({ ...was, cases: ['summer-day', 'winter-night', 'weekend'] });
+    // Defaults: 50 Hz, cos φ ≥ 0.95, no short-circuit power, no notes; the name stays, the
+    // plain load column is the default case and the list's own weekend case stays.
+    expect(fresh.site.settings).toEqual({
+      name: was.name,
+      hz: 50,
+      cases: ['normal', 'weekend'],
+      requirement: { kind: 'cosphi', target: 0.95 },
+    });
+    expect(siteFromWorkbook(fresh.doc).site.settings.sscMva).toBeUndefined();
+    expect(fresh.doc.title).toBe(current.title);
+    // Adding to the equipment always keeps the settings.
+    const added = applyImport(current, preview(EXTRA), { mode: 'append', settings: 'defaults' });
+    if (!added.ok) throw new Error('the import was refused');
+    expect(added.site.settings.sscMva).toBe(180);
+  });
+
   it('refuses when a required column is not mapped', () => {
     const r = applyImport(current, preview('Item,Motor kW\nM1,5\n'), { mode: 'append' });
     expect(r).toMatchObject({
