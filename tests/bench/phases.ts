@@ -1,7 +1,8 @@
 // The three phases of one size, each meant to run in its own child process with its own time
 // budget (so a step that is very slow today cannot hang the bench, and each phase's peak
 // memory is its own): core (floor, rollUp, workbook builds), engine (build, xlsx export with
-// cached results from that engine as the app does it, then edits), xlsx (import of that file).
+// cached results from that engine as the app does it, then edits), model (the page's own model:
+// open, typed edit, inserted row, pasted rows), xlsx (import of that file).
 // The core phase leaves its products in the work directory for the others.
 // Messages go out one at a time, so a phase stopped by its budget still reports what it did.
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -20,15 +21,17 @@ import {
   measureRollUp,
 } from './steps.ts';
 import { peakRssMb } from './timing.ts';
+import { ModelEdits } from './modelSteps.ts';
 import type { RootTotals } from './workbookView.ts';
 
-export const PHASES = ['core', 'engine', 'xlsx'] as const;
+export const PHASES = ['core', 'engine', 'model', 'xlsx'] as const;
 export type PhaseName = (typeof PHASES)[number];
 
 /** The steps of each phase, in order (for reporting those a stopped phase never reached). */
 export const PHASE_STEPS: Readonly<Record<PhaseName, readonly StepId[]>> = {
   core: ['floor', 'rollup', 'buildLive', 'buildPortable'],
   engine: ['engineBuild', 'xlsxExport', 'editOne', 'editBatch'],
+  model: ['modelOpen', 'modelEditOne', 'modelInsertRow', 'modelPaste500'],
   xlsx: ['xlsxImport'],
 };
 
@@ -98,6 +101,15 @@ export async function runPhase(
     const edits = new EngineEdits(built.hf, doc, site);
     done(await step(emit, 'editOne', () => edits.one()));
     done(await step(emit, 'editBatch', () => edits.batch()));
+  } else if (phase === 'model') {
+    const opened = await step(emit, 'modelOpen', () =>
+      ModelEdits.open(readJson<WorkbookDoc>(files.live), site),
+    );
+    done(opened.result);
+    const m = opened.edits;
+    done(await step(emit, 'modelEditOne', () => m.editOne(size.rows)));
+    done(await step(emit, 'modelInsertRow', () => m.insertMotor(size.rows)));
+    done(await step(emit, 'modelPaste500', () => m.paste500(size.rows)));
   } else {
     const bytes = existsSync(files.xlsx) ? new Uint8Array(readFileSync(files.xlsx)) : undefined;
     done(await step(emit, 'xlsxImport', () => measureImport(bytes, size.rows)));

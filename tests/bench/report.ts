@@ -45,6 +45,9 @@ function stepTarget(
   step: StepId,
 ): { text: string; test: (ms: number, r: BenchResults) => boolean | undefined } | undefined {
   if (step === 'editOne') return { text: '≤ 20 ms', test: (ms) => ms <= 20 };
+  if (step === 'modelEditOne') return { text: '≤ 20 ms', test: (ms) => ms <= 20 };
+  if (step === 'modelInsertRow') return { text: '≤ 100 ms', test: (ms) => ms <= 100 };
+  if (step === 'modelPaste500') return { text: '≤ 1 s', test: (ms) => ms <= 1_000 };
   if (step === 'xlsxExport') return { text: '≤ 3 s', test: (ms) => ms <= 3_000 };
   if (step === 'cliBalance') {
     return {
@@ -76,6 +79,9 @@ export function targets(r: BenchResults): TargetOutcome[] {
     out.push({ what, target: t.text, measured, ...(met !== undefined ? { met } : {}) });
   };
   stepOutcome('editOne', 'One edit to updated bus totals, engine');
+  stepOutcome('modelEditOne', "One typed edit to updated bus totals, page's model (engine + living model)");
+  stepOutcome('modelInsertRow', "A row inserted with a motor typed in, page's model");
+  stepOutcome('modelPaste500', "500 rows pasted at once, page's model");
   const b = r.browser;
   const page = (what: string, target: string, value: number | undefined, unit: string, limit: number) =>
     out.push({
@@ -111,6 +117,10 @@ const ORDER: readonly StepId[] = [
   'engineBuild',
   'editOne',
   'editBatch',
+  'modelOpen',
+  'modelEditOne',
+  'modelInsertRow',
+  'modelPaste500',
   'xlsxExport',
   'xlsxImport',
   'cliStart',

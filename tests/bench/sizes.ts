@@ -9,6 +9,7 @@ export interface BenchSize {
   readonly budget: {
     readonly core: number;
     readonly engine: number;
+    readonly model: number;
     readonly xlsx: number;
     readonly cli: number;
     readonly cliExport: number;
@@ -17,16 +18,20 @@ export interface BenchSize {
 }
 
 export const SIZES: readonly BenchSize[] = [
-  { rows: 1_000, buses: 30, budget: { core: 60, engine: 90, xlsx: 60, cli: 60, cliExport: 60, peer: 60 } },
+  {
+    rows: 1_000,
+    buses: 30,
+    budget: { core: 60, engine: 90, model: 90, xlsx: 60, cli: 60, cliExport: 60, peer: 60 },
+  },
   {
     rows: 10_000,
     buses: 300,
-    budget: { core: 120, engine: 180, xlsx: 120, cli: 90, cliExport: 120, peer: 120 },
+    budget: { core: 120, engine: 180, model: 180, xlsx: 120, cli: 90, cliExport: 120, peer: 120 },
   },
   {
     rows: 50_000,
     buses: 1_000,
-    budget: { core: 150, engine: 180, xlsx: 90, cli: 60, cliExport: 120, peer: 60 },
+    budget: { core: 150, engine: 180, model: 180, xlsx: 90, cli: 60, cliExport: 120, peer: 60 },
   },
 ];
 

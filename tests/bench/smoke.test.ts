@@ -13,6 +13,7 @@ import {
   measureRollUp,
 } from './steps.ts';
 import { busesView, readRoot } from './workbookView.ts';
+import { ModelEdits } from './modelSteps.ts';
 import { formatMs, renderMarkdown, type BenchResults } from './report.ts';
 import { describeMachine } from './machine.ts';
 import { parseOptions, SIZES } from './sizes.ts';
@@ -65,6 +66,30 @@ describe('bench smoke (1,000 rows / 30 buses)', () => {
     expect(md).toContain('| One edit (motor load) to updated root P | 1,000 / 30 |');
     expect(md).toContain('agrees');
     expect(md).not.toContain('**differs**');
+  });
+
+  it("the page's model: open, a typed edit, an inserted motor row and 500 pasted rows agree with the core", () => {
+    const size = SIZES[0] as (typeof SIZES)[number];
+    const site = generateSite(size);
+    const live = measureBuild(site, 'live');
+    const opened = ModelEdits.open(live.doc, site);
+    const steps = [
+      opened.result,
+      opened.edits.editOne(size.rows),
+      opened.edits.insertMotor(size.rows),
+      opened.edits.paste500(size.rows),
+    ];
+    for (const s of steps) {
+      expect(s.status).toBe('ok');
+      expect(s.check?.agrees, `${s.step}: ${s.check?.detail}`).toBe(true);
+    }
+    // The pasted rows are there and count: 500 per run, each a motor on a bus.
+    const motors = opened.edits.session.engine.getSheetId('Motors') as number;
+    const runs = steps[3]?.runs ?? 0;
+    const inserted = steps[2]?.runs ?? 0;
+    const before = site.equipment.filter((e) => e.kind === 'motor').length;
+    expect(opened.edits.session.sheetContents(motors).length - 1).toBe(before + inserted + 500 * runs);
+    opened.edits.session.destroy();
   });
 
   it('reads its options and refuses a size it does not know', () => {
