@@ -224,7 +224,14 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
       ? overlayCells(siteSheet, settingsGenerated(inputs))
       : settingsCells(inputs);
   sheets.push(
-    sheetDoc(SHEETS.settings, siteCells, SETTINGS_COLUMNS, SETTINGS_PURPOSE, overridesOf(siteSheet)),
+    sheetDoc(
+      SHEETS.settings,
+      siteCells,
+      SETTINGS_COLUMNS,
+      SETTINGS_PURPOSE,
+      overridesOf(siteSheet),
+      siteSheet,
+    ),
   );
 
   for (const e of equipment) {
@@ -248,7 +255,16 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
       const line = cells[r];
       if (line) while (line.length < computedCols) line.push(null);
     }
-    sheets.push(sheetDoc(e.cols.sheet.name, cells, e.cols.columns, e.cols.sheet.purpose, over));
+    sheets.push(
+      sheetDoc(
+        e.cols.sheet.name,
+        cells,
+        e.cols.columns,
+        e.cols.sheet.purpose,
+        over,
+        e.moved ? undefined : e.sheet,
+      ),
+    );
   }
 
   const busesSheet = findSheet(doc, SHEETS.buses);
@@ -261,7 +277,14 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
   });
   const busesOver = overridesOf(busesSheet);
   sheets.push(
-    sheetDoc(SHEETS.buses, overlay(busesSheet, buses, busesOver), busCols.columns, BUSES_PURPOSE, busesOver),
+    sheetDoc(
+      SHEETS.buses,
+      overlay(busesSheet, buses, busesOver),
+      busCols.columns,
+      BUSES_PURPOSE,
+      busesOver,
+      busesSheet,
+    ),
   );
 
   const compSheet = findSheet(doc, SHEETS.compensation);
@@ -282,6 +305,7 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
       compCols.columns,
       COMPENSATION_PURPOSE,
       compOver,
+      compSheet,
     ),
   );
 
@@ -301,6 +325,8 @@ function sheetDoc(
   columns: SheetDoc['columns'],
   purpose: string,
   over: ReadonlySet<string>,
+  /** The sheet as the document had it: its cell marks and choices stay with it. */
+  source?: SheetDoc,
 ): SheetDoc {
   const overrides: CellAt[] = [...over]
     .map((k) => k.split(',').map(Number) as unknown as CellAt)
@@ -311,6 +337,8 @@ function sheetDoc(
     ...(columns ? { columns } : {}),
     purpose,
     ...(overrides.length > 0 ? { overrides } : {}),
+    ...(source?.choices && source.choices.length > 0 ? { choices: source.choices } : {}),
+    ...(source?.marks && source.marks.length > 0 ? { marks: source.marks } : {}),
   };
 }
 

@@ -1,16 +1,10 @@
 // The choices and marks of the sheet on screen, looked up by cell. Built from the sheet's
 // description (SheetMeta) whenever the grid shows or reloads a sheet.
 import type { CellContent } from '../../core/workbook/document.ts';
+import { markHolds } from '../../core/workbook/cellMarks.ts';
 import type { CellChoice, CellMark, SheetMeta } from '../model/sheetLayout.ts';
 
 const key = (row: number, col: number) => `${row},${col}`;
-
-function sameContent(a: CellContent | undefined, b: CellContent | undefined): boolean {
-  if (a === b) return true;
-  if (typeof a === 'number' || typeof b === 'number')
-    return Number(a) === Number(b) && String(a).trim() !== '';
-  return String(a ?? '').trim() === String(b ?? '').trim();
-}
 
 export class CellNotes {
   private readonly choices = new Map<string, CellChoice>();
@@ -33,7 +27,7 @@ export class CellNotes {
   mark(row: number, col: number, content: () => CellContent | undefined): CellMark | undefined {
     const m = this.marks.get(key(row, col));
     if (!m) return undefined;
-    return m.value === undefined || sameContent(m.value, content()) ? m : undefined;
+    return markHolds(m, content()) ? m : undefined;
   }
 }
 
