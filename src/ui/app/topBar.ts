@@ -16,7 +16,7 @@ export interface TopBarHost
   extends FileHost, Omit<CopyHost, 'replaceWith'>, Omit<NavigationHost, 'session' | 'grid'> {
   readonly session: FileHost['session'] &
     NavigationHost['session'] &
-    Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo'>;
+    Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo' | 'fillTypicalValues'>;
   readonly grid: CommandHost &
     NavigationHost['grid'] & { focus(): void; focusAfterClick(e: MouseEvent): void };
   readonly side: Pick<SidePanel, 'toggle' | 'onToggle' | 'shown'>;
@@ -130,6 +130,12 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
         run: () => app.run(() => sortRows(app.grid, true)),
       },
       'separator',
+      {
+        label: 'Fill blanks with typical values',
+        run: () => app.run(() => fillTypical(app)),
+        testId: 'menu-typical',
+      },
+      'separator',
       { label: 'Go to…', hint: 'Ctrl+G', run: () => void openGoTo(app), testId: 'menu-goto' },
       { label: 'Next sheet', hint: 'Ctrl+PgDn', run: () => stepSheet(app, 1) },
       { label: 'Previous sheet', hint: 'Ctrl+PgUp', run: () => stepSheet(app, -1) },
@@ -202,4 +208,26 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
     about,
   ]);
   return { root, title };
+}
+
+/** Typical values into the blanks of motors and transformers, saying what went in and what did not. */
+function fillTypical(app: TopBarHost): void {
+  const r = app.session.fillTypicalValues();
+  const left =
+    r.notAssumed.length === 0
+      ? ''
+      : ` ${r.notAssumed.length} blank(s) stay blank; first: ${r.notAssumed[0]}.`;
+  if (r.filled === 0) {
+    app.status.show(
+      `No blank took a typical value: they exist for motors with a rated output and transformers with a rating.${left}`,
+      'info',
+      12_000,
+    );
+    return;
+  }
+  app.status.show(
+    `${r.filled} blank value(s) filled with typical values, marked as assumed (listed in Checks); replace them with nameplate data when known.${left}`,
+    'info',
+    12_000,
+  );
 }

@@ -8,7 +8,14 @@ import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from '../../core/work
 import { isBuiltInSheet } from '../../core/workbook/layout.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
-import { metaExtras, type Layout, type SheetMeta } from './sheetLayout.ts';
+import {
+  marksAfterOrder,
+  marksAfterRows,
+  metaExtras,
+  type CellMark,
+  type Layout,
+  type SheetMeta,
+} from './sheetLayout.ts';
 import { sheetNameProblem } from './sheetNames.ts';
 import { ContentStore, type Snapshot } from './contentStore.ts';
 import { History } from './history.ts';
@@ -22,6 +29,8 @@ import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
 import { sortedOrder } from './rowOrder.ts';
+import { planTypicalFill, type TypicalFillReport } from './typicalFill.ts';
+import { equipmentPlans } from '../../core/workbook/structure.ts';
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -173,18 +182,55 @@ export class WorkbookSession {
     let structural = false;
     const title = this.titleText;
     this.step(() => {
-      if (!this.site) return this.write(cells.map((c) => ({ sheet: sheetId, ...c }))) ? 1 : 0;
-      const edit = siteEdit(this.site, this.contents, sheetId, cells);
-      let entries = this.write(edit.writes) ? 1 : 0;
-      const follow = edit.follow();
-      structural = follow.structural;
-      if (follow.rebuild) entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
-      else if (this.write(follow.writes, true)) entries++;
-      this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
-      return entries;
+      const done = this.writeCells(sheetId, cells);
+      structural = done.structural;
+      return done.entries;
     });
     this.emit(structural ? { kind: 'rows', sheetId } : { kind: 'cells', sheetId });
     if (this.titleText !== title) this.emit({ kind: 'title' });
+  }
+
+  /** The work of setCells inside a step: the user's writes and what the living model writes after them. */
+  private writeCells(
+    sheetId: number,
+    cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>,
+  ): { entries: number; structural: boolean } {
+    if (!this.site)
+      return { entries: this.write(cells.map((c) => ({ sheet: sheetId, ...c }))) ? 1 : 0, structural: false };
+    const edit = siteEdit(this.site, this.contents, sheetId, cells);
+    let entries = this.write(edit.writes) ? 1 : 0;
+    const follow = edit.follow();
+    if (follow.rebuild) entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
+    else if (this.write(follow.writes, true)) entries++;
+    this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
+    return { entries, structural: follow.structural };
+  }
+
+  /**
+   * Put typical values into the blank inputs of motors and transformers that have a rating, each
+   * marked as assumed with its source, as one step. Returns how many values went in and why
+   * other blanks stay blank.
+   */
+  fillTypicalValues(): TypicalFillReport {
+    const site = this.site;
+    if (!site) throw new SessionError('Typical values fill the equipment sheets of a site workbook.');
+    const plan = planTypicalFill(this.contents, site.ids.equipment, equipmentPlans(site.state.cases));
+    if (plan.filled === 0) return plan;
+    this.step(() => {
+      let entries = 0;
+      const meta = new Map(this.layout.meta);
+      for (const [sheetId, fill] of plan.sheets) {
+        entries += this.writeCells(sheetId, fill.cells).entries;
+        const m = meta.get(sheetId) ?? {};
+        const at = new Set(fill.marks.map((k) => `${k.row},${k.col}`));
+        const kept = (m.marks ?? []).filter((k) => !at.has(`${k.row},${k.col}`));
+        meta.set(sheetId, { ...m, marks: [...kept, ...fill.marks] });
+      }
+      this.layout = { ...this.layout, meta };
+      return entries;
+    });
+    for (const sheetId of plan.sheets.keys()) this.emit({ kind: 'cells', sheetId });
+    return plan;
   }
 
   /** Write a block of contents with its top-left at (row, col). */
@@ -231,6 +277,7 @@ export class WorkbookSession {
     this.step(() => {
       this.engine.addRows(sheetId, [at, count]);
       this.contents.insertRows(sheetId, at, count);
+      this.moveMarks(sheetId, (m) => marksAfterRows(m, at, count));
       const role = this.site?.role(sheetId);
       if (!this.site || role?.kind !== 'equipment') return 1;
       return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, count), true) ? 1 : 0);
@@ -243,6 +290,7 @@ export class WorkbookSession {
     this.step(() => {
       this.engine.removeRows(sheetId, [at, count]);
       this.contents.removeRows(sheetId, at, count);
+      this.moveMarks(sheetId, (m) => marksAfterRows(m, at, -count));
       const role = this.site?.role(sheetId);
       if (!this.site || role?.kind !== 'equipment') return 1;
       return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, -count), true) ? 1 : 0);
@@ -286,7 +334,20 @@ export class WorkbookSession {
         if (content !== (rows[row]?.[c] ?? null)) cells.push({ row, col: c, content });
       }
     });
-    this.setCells(sheetId, cells);
+    this.step(() => {
+      this.moveMarks(sheetId, (m) => marksAfterOrder(m, 1, order));
+      return this.writeCells(sheetId, cells).entries;
+    });
+    this.emit({ kind: 'rows', sheetId });
+  }
+
+  /** Keep a sheet's cell marks with their cells when rows move (inside a step). */
+  private moveMarks(sheetId: number, move: (marks: readonly CellMark[]) => CellMark[]): void {
+    const m = this.layout.meta.get(sheetId);
+    if (!m?.marks || m.marks.length === 0) return;
+    const meta = new Map(this.layout.meta);
+    meta.set(sheetId, { ...m, marks: move(m.marks) });
+    this.layout = { ...this.layout, meta };
   }
 
   // ------------------------------------------------------------------ sheets

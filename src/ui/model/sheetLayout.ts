@@ -74,3 +74,25 @@ export interface Layout {
   readonly order: readonly number[];
   readonly meta: ReadonlyMap<number, SheetMeta>;
 }
+
+/** Marks after rows were inserted (count > 0) or removed (count < 0) at `at`: they stay with their cells. */
+export function marksAfterRows(marks: readonly CellMark[], at: number, count: number): CellMark[] {
+  return marks.flatMap((m) => {
+    if (m.row < at) return [m];
+    if (count < 0 && m.row < at - count) return [];
+    return [{ ...m, row: m.row + count }];
+  });
+}
+
+/** Marks after rows were reordered: `order[i]` is the old row now at row i (0-based within `first`…). */
+export function marksAfterOrder(
+  marks: readonly CellMark[],
+  first: number,
+  order: readonly number[],
+): CellMark[] {
+  const now = new Map(order.map((from, i) => [from + first, i + first]));
+  return marks.map((m) => {
+    const row = now.get(m.row);
+    return row === undefined ? m : { ...m, row };
+  });
+}
