@@ -18,7 +18,14 @@ import {
   type ExportCell,
   type SheetCells,
 } from './exportCells.ts';
-import { markOverrides, styleCover, styleDataSheet, styleFunctionsSheet } from './exportStyles.ts';
+import {
+  markAssumptions,
+  markOverrides,
+  styleCover,
+  styleDataSheet,
+  styleFunctionsSheet,
+} from './exportStyles.ts';
+import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
 import { loadExcelJs } from './loadExcelJs.ts';
 import {
   META_MARKER,
@@ -213,7 +220,13 @@ export async function exportWorkbookXlsxWithReport(
   const coverName = uniqueSheetName(COVER_SHEET_NAME, taken);
   const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
   const typedOver = doc.sheets.flatMap((s) => (s.overrides ?? []).map(([r, c]) => `${s.name}!${a1Of(r, c)}`));
+  const assumed = doc.sheets.flatMap((s) => heldAssumptions(s).map((m) => `${s.name}!${a1Of(m.row, m.col)}`));
   const notes = [
+    ...(assumed.length > 0
+      ? [
+          `${assumed.length} value(s) are typical values assumed for blanks at tender stage (marked, with their source in a note): ${assumed.slice(0, MAX_COVER_ISSUES).join(', ')}${assumed.length > MAX_COVER_ISSUES ? ' …' : ''}. Replace them with nameplate or maker's data.`,
+        ]
+      : []),
     ...(typedOver.length > 0
       ? [
           `${typedOver.length} cell(s) hold a value typed over Kvar Ledger's formula and count as typed (marked, with a note): ${typedOver.slice(0, MAX_COVER_ISSUES).join(', ')}${typedOver.length > MAX_COVER_ISSUES ? ' …' : ''}.`,
@@ -259,6 +272,7 @@ export async function exportWorkbookXlsxWithReport(
     sheetsMeta.push({ doc: s.name, file: s.name, rows: writeDataSheet(ws, cells) });
     styleDataSheet(ws, s, { headerOnly: true });
     markOverrides(ws, s);
+    markAssumptions(ws, s);
   });
 
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));

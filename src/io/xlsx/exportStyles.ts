@@ -4,6 +4,7 @@ import type { Worksheet } from 'exceljs';
 import type { SheetDoc } from '../../core/workbook/document.ts';
 import type { CoverRow } from './exportCover.ts';
 import { xmlSafe } from './exportCells.ts';
+import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
 
 const INK = 'FF1F2A33';
 const INPUT_HEADER = 'FFE3E9EE';
@@ -78,11 +79,23 @@ export function styleFunctionsSheet(ws: Worksheet, header: string[], rows: reado
 }
 
 /** Mark the cells typed over formulas: a fill, copper ink and a note saying what happened. */
+const ASSUMED_FILL = 'FFFFF6CC';
+
 export function markOverrides(ws: Worksheet, sheet: SheetDoc): void {
   for (const [row, col] of sheet.overrides ?? []) {
     const cell = ws.getCell(row + 1, col + 1);
     cell.fill = solid(OVERRIDE_FILL);
     cell.font = { color: { argb: OVERRIDE_INK } };
     cell.note = OVERRIDE_NOTE;
+  }
+}
+
+/** Mark the typical values assumed for blanks: a pale amber fill and a note with their source. */
+export function markAssumptions(ws: Worksheet, sheet: SheetDoc): void {
+  for (const m of heldAssumptions(sheet)) {
+    const cell = ws.getCell(m.row + 1, m.col + 1);
+    cell.fill = solid(ASSUMED_FILL);
+    cell.font = { italic: true };
+    cell.note = `Assumed (typical value at tender stage): ${m.note}. Replace with nameplate or maker's data.`;
   }
 }

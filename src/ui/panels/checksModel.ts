@@ -8,6 +8,7 @@ import { assessBanks } from '../../core/site/assessBanks.ts';
 import { busVoltages } from '../../core/site/voltages.ts';
 import { buildBusGraph } from '../../core/site/graph.ts';
 import { a1 } from '../model/address.ts';
+import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
 import type { DesignWarning } from '../../core/site/warnings.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
@@ -48,7 +49,7 @@ function designItem(w: DesignWarning, doc: WorkbookDoc, origins: SiteFromWorkboo
 
 const RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
 
-/** Values typed over Kvar Ledger's formulas, and formulas left pointing at a removed sheet. */
+/** Values typed over Kvar Ledger's formulas, assumed values, and formulas left pointing at a removed sheet. */
 function workbookItems(doc: WorkbookDoc): CheckItem[] {
   const out: CheckItem[] = [];
   for (const s of doc.sheets) {
@@ -60,6 +61,20 @@ function workbookItems(doc: WorkbookDoc): CheckItem[] {
         where: `${s.name} row ${row + 1}${header ? `, column "${String(header)}"` : `, cell ${a1(row, col)}`}`,
         text: `the value ${JSON.stringify(s.cells[row]?.[col] ?? null)} is typed over Kvar Ledger's formula and counts as typed; clear the cell to bring the formula back`,
         target: { sheet: s.name, row: row + 1, col },
+      });
+    }
+    const assumed = heldAssumptions(s);
+    const first = assumed[0];
+    if (first) {
+      const named = (m: { row: number; col: number }) =>
+        `row ${m.row + 1} ${String(s.columns?.[m.col]?.header ?? s.cells[0]?.[m.col] ?? a1(m.row, m.col))}`;
+      const list = assumed.slice(0, 8).map(named).join(', ');
+      out.push({
+        severity: 'info',
+        code: 'assumed',
+        where: `${s.name} row ${first.row + 1}`,
+        text: `assumed: ${assumed.length} typical value${assumed.length === 1 ? '' : 's'} put in for blanks (${list}${assumed.length > 8 ? ', …' : ''}); replace each with the nameplate or the maker's data when known`,
+        target: { sheet: s.name, row: first.row + 1, col: first.col },
       });
     }
     s.cells.forEach((line, row) =>
