@@ -8,6 +8,8 @@ import { describe, expect, it } from 'vitest';
 import { heldAssumptions } from '../../src/core/workbook/cellMarks.ts';
 import { collectChecks } from '../../src/ui/panels/checksModel.ts';
 import { WorkbookSession } from '../../src/ui/model/session.ts';
+import { handOffDoc } from '../../src/ui/app/handOff.ts';
+import { exportWorkbookXlsxWithReport } from '../../src/io/xlsx/index.ts';
 import { workbookOf } from '../../src/ui/templates/templateBuild.ts';
 
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
@@ -63,6 +65,21 @@ describe('filling blanks with typical values', () => {
     const listed = collectChecks(saved).items.find((i) => i.code === 'assumed');
     expect(listed?.text).toMatch(new RegExp(`^assumed: ${marks.length} typical values`));
     expect(listed?.severity).toBe('info');
+
+    // The export marks each assumed cell with a note of its source and lists them on the cover.
+    const handOff = handOffDoc(saved);
+    const bytes = (
+      await exportWorkbookXlsxWithReport(handOff.doc, handOff.settings ? { settings: handOff.settings } : {})
+    ).bytes;
+    const { default: ExcelJS } = await import('exceljs');
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(bytes as unknown as ArrayBuffer);
+    const cover = wb.worksheets[0]!.getSheetValues().flat().join('\n');
+    expect(cover).toMatch(new RegExp(`${marks.length} value\\(s\\) are typical values assumed for blanks`));
+    const note = wb.getWorksheet('Motors')!.getCell(row + 1, col('Efficiency') + 1).note;
+    expect(JSON.stringify(note)).toMatch(
+      /Assumed \(typical value at tender stage\): 11 kW, 4-pole, class IE3/,
+    );
 
     // One undo takes every value and mark out.
     expect(s.undo()).toBe(true);
