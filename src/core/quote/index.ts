@@ -16,3 +16,4 @@ export {
 } from './rates.ts';
 export { demoRateTable, DEMO_SOURCE, DEMO_CURRENCY } from './demoRates.ts';
 export { priceSchedule, type Quote, type BusCost, type CostLine } from './cost.ts';
+export { RATES_SHEET, RATES_PURPOSE, ratesSheetDoc, rateRowsOf } from './ratesSheet.ts';
