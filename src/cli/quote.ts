@@ -29,17 +29,19 @@ by current class, controllers, sections, incomers, discharge devices, shunt reac
 cost at your rates, with installation, engineering and contingency. The banks are the file's
 (a workbook's Compensation sheet, a site file's "banks"), else the design's proposal.
   --rates FILE  a CSV with the columns Item, Unit (pc, kvar or %), Rate, Currency, Source and date;
-                without it, the workbook's Rates sheet, else INVENTED demo rates
+                without it, the workbook's Rates sheet (none: every item unpriced);
+                for a site file or a list, INVENTED demo rates
   --json        print {site, banks_from, rates_from, currency, buses, equipment, surcharges,
                 total, unpriced} as JSON
 ${SITE_OPTIONS_HELP}
 ${EXIT_HELP}
 `;
 
-type RatesFrom = 'option' | 'workbook' | 'demo';
+type RatesFrom = 'option' | 'workbook' | 'none' | 'demo';
 const RATES_TEXT: Record<RatesFrom, string> = {
   option: 'rates from --rates',
   workbook: "rates from the workbook's Rates sheet",
+  none: 'no rates: the workbook has no Rates sheet (give --rates FILE), so every item is unpriced',
   demo: 'INVENTED demo rates (no --rates given and the file holds no Rates sheet): not prices to quote',
 };
 
@@ -200,6 +202,12 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   } else if (loaded.loaded.rateRows !== undefined) {
     const r = readRateTable(loaded.loaded.rateRows);
     [rates, rateProblems, ratesFrom] = [r.table, r.problems, 'workbook'];
+  } else if (loaded.loaded.source === 'workbook' || loaded.loaded.source === 'own-xlsx') {
+    // A workbook whose Rates sheet was removed or renamed is not priced at invented rates.
+    [rates, ratesFrom] = [
+      { rates: [], surcharges: { Installation: 0, Engineering: 0, Contingency: 0 } },
+      'none',
+    ];
   } else [rates, ratesFrom] = [demoRateTable(), 'demo'];
 
   let banks = loaded.loaded.banks;

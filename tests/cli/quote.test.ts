@@ -113,6 +113,18 @@ describe('kvar-ledger quote', () => {
     for (const l of sections) expect(l.cost).toBe((l.quantity as number) * 4000);
   });
 
+  it('a workbook without a Rates sheet is not priced at invented rates: every item is unpriced', async () => {
+    const { site } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live' });
+    const file = join(dir, 'no-rates.kvar.json');
+    writeFileSync(file, JSON.stringify({ ...doc, sheets: doc.sheets.filter((s) => s.name !== RATES_SHEET) }));
+    const j = JSON.parse((await cli(file, '--json')).out) as Json;
+    expect(j.rates_from).toBe('none');
+    expect(j.total).toBeNull();
+    expect(j.buses.flatMap((b) => b.items).every((l) => l.cost === null)).toBe(true);
+    expect((await cli(file)).out).toMatch(/the workbook has no Rates sheet/);
+  });
+
   it('a wrong command line exits 2; help documents --rates', async () => {
     expect((await cli()).code).toBe(2);
     expect((await cli(TEMPLATE, '--rates')).code).toBe(2);
