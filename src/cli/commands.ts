@@ -18,6 +18,10 @@ export const COMMANDS: Readonly<Record<string, CommandEntry>> = {
     summary: 'bus balance of a site for one operating case, with compensation and warnings',
     load: () => import('./balance.ts'),
   },
+  quote: {
+    summary: 'the items of the compensation per bus and their cost at your rates',
+    load: () => import('./quote.ts'),
+  },
   export: {
     summary: 'write the whole workbook as an xlsx whose formulas stay live elsewhere',
     load: () => import('./export.ts'),

@@ -18,6 +18,8 @@ import { readSiteFile } from '../core/site/siteFile.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
+import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
+import { rateRowsOf } from '../core/quote/index.ts';
 import { previewImport } from '../io/import/preview.ts';
 import {
   proposeMapping,
@@ -44,6 +46,8 @@ export interface LoadedSite {
    */
   readonly banks?: readonly BankChoice[];
   readonly source: SourceKind;
+  /** The rows of a workbook's Rates sheet (header first); undefined when the file has none. */
+  readonly rateRows?: readonly (readonly CellContent[])[];
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
 }
@@ -97,7 +101,18 @@ function jsonFormat(text: string): { format: unknown } | 'not-json' | 'invalid' 
   }
 }
 
-type Read = { site: Site; problems: Problem[]; banks?: readonly BankChoice[]; source: SourceKind };
+type Read = {
+  site: Site;
+  problems: Problem[];
+  banks?: readonly BankChoice[];
+  source: SourceKind;
+  rateRows?: readonly (readonly CellContent[])[];
+};
+
+const ratesOf = (doc: WorkbookDoc) => {
+  const rows = rateRowsOf(doc);
+  return rows ? { rateRows: rows } : {};
+};
 
 async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadResult> {
   if (bytes.length > MAX_JSON_BYTES)
@@ -110,7 +125,7 @@ async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadRes
     const doc = parseWorkbookText(text);
     if (!doc.ok) return fail(`${file}: ${doc.message}`);
     const r = siteFromWorkbook(doc.doc);
-    return { site: r.site, problems: r.problems, banks: r.banks, source: 'workbook' };
+    return { site: r.site, problems: r.problems, banks: r.banks, source: 'workbook', ...ratesOf(doc.doc) };
   }
   if (kind !== 'not-json' && kind !== 'invalid' && kind.format !== 'kvar-ledger-site')
     return fail(
@@ -128,7 +143,13 @@ async function readOwnXlsx(bytes: Uint8Array): Promise<Read | undefined> {
   if (!imported.ok || imported.restored === 'plain') return undefined;
   const r = siteFromWorkbook(imported.doc);
   const notes = imported.notes.map((n) => info({}, n));
-  return { site: r.site, problems: [...notes, ...r.problems], banks: r.banks, source: 'own-xlsx' };
+  return {
+    site: r.site,
+    problems: [...notes, ...r.problems],
+    banks: r.banks,
+    source: 'own-xlsx',
+    ...ratesOf(imported.doc),
+  };
 }
 
 /** The column a --map or --unit names: its header (any letter case) first, else its letter. */
@@ -278,7 +299,8 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const problems =
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
   const banks = read.banks ? { banks: read.banks } : {};
-  return { ok: true, loaded: { site, problems, ...banks, source: read.source, caseName } };
+  const rates = read.rateRows ? { rateRows: read.rateRows } : {};
+  return { ok: true, loaded: { site, problems, ...banks, ...rates, source: read.source, caseName } };
 }
 
 export function describeSource(source: SourceKind): string {

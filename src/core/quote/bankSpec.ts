@@ -1,0 +1,71 @@
+// The one place the schedule reads a bank's properties from the design's inputs: what the
+// Compensation sheet holds per bus (BankChoice) plus the bus voltage and the frequency. A richer
+// design (rated-voltage series, switching classes, detuning choices) plugs in here alone.
+import type { BankChoice } from '../site/bankChoice.ts';
+import { runCall } from '../site/calls.ts';
+import { isLowVoltage } from '../site/bankRules.ts';
+
+export interface BankSpec {
+  readonly bus: string;
+  /** Operating voltage of the bus, kV. */
+  readonly u_kv: number;
+  readonly low_voltage: boolean;
+  /** Outputs at the operating voltage, kvar. */
+  readonly fixed_kvar: number;
+  readonly step_kvar: number;
+  readonly steps: number;
+  /** Detuning factor, % (0 = plain), and the order and frequency it tunes to (null when plain). */
+  readonly p_pct: number;
+  readonly tuning_order: number | null;
+  readonly tuned_hz: number | null;
+  /** Capacitor rated voltage, kV (null when the sheet leaves it blank). */
+  readonly u_rated_kv: number | null;
+  /** Nameplate kvar at u_rated_kv giving one step's and the fixed part's output (null when unknown). */
+  readonly step_nameplate_kvar: number | null;
+  readonly fixed_nameplate_kvar: number | null;
+  /** Shunt reactor, kvar at the operating voltage (0 when none). */
+  readonly reactor_kvar: number;
+}
+
+const positive = (x: number | undefined): number => (x !== undefined && x > 0 ? x : 0);
+
+/**
+ * Nameplate kvar at uRated for an output of 1 kvar at u: 1 / |KVAR.CAPBANK(1, uRated, u, p, f, f)|,
+ * the Compensation sheet's step nameplate formula; null for arguments the catalogue refuses.
+ */
+function nameplatePerOutput(uRated: number, u: number, p: number, hz: number): number | null {
+  const r = runCall({ fn: 'KVAR.CAPBANK', args: [1, uRated, u, p, hz, hz], columns: [] });
+  return r.ok && r.value !== 0 ? 1 / Math.abs(r.value) : null;
+}
+
+function tuningOrder(p: number): number | null {
+  if (!(p > 0)) return null;
+  const r = runCall({ fn: 'CAPBANK.TUNE', args: [p], columns: [] });
+  return r.ok ? r.value : null;
+}
+
+/** The bank on one bus as the schedule needs it. */
+export function bankSpec(choice: BankChoice, uKv: number, hz: number): BankSpec {
+  const p = positive(choice.p_pct);
+  const fixed = positive(choice.fixed_kvar);
+  const step = positive(choice.step_kvar);
+  const steps = step > 0 ? Math.max(0, Math.floor(choice.steps ?? 0)) : 0;
+  const uRated = choice.u_rated_kv !== undefined && choice.u_rated_kv > 0 ? choice.u_rated_kv : null;
+  const per = uRated === null ? null : nameplatePerOutput(uRated, uKv, p, hz);
+  const order = tuningOrder(p);
+  return {
+    bus: choice.bus,
+    u_kv: uKv,
+    low_voltage: isLowVoltage(uKv),
+    fixed_kvar: fixed,
+    step_kvar: steps > 0 ? step : 0,
+    steps,
+    p_pct: p,
+    tuning_order: order,
+    tuned_hz: order === null ? null : order * hz,
+    u_rated_kv: uRated,
+    step_nameplate_kvar: per === null || steps === 0 ? null : step * per,
+    fixed_nameplate_kvar: per === null || fixed === 0 ? null : fixed * per,
+    reactor_kvar: positive(choice.reactor_kvar),
+  };
+}

@@ -1,0 +1,133 @@
+// `kvar-ledger quote`: the schedule and its cost from a template, a workbook with its own Rates
+// sheet, and a rates CSV; costs recomputed here as quantity × rate and the surcharges by hand
+// (installation and engineering on the equipment, contingency on equipment plus both).
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.ts';
+import { RATES_SHEET } from '../../src/core/quote/index.ts';
+import { readSiteFile } from '../../src/core/site/siteFile.ts';
+import { buildWorkbook } from '../../src/core/workbook/build.ts';
+
+let dir: string;
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'kvar-quote-'));
+});
+
+async function cli(...argv: string[]) {
+  let out = '';
+  let err = '';
+  const code = await main(['quote', ...argv], { out: (s) => (out += s), err: (s) => (err += s) });
+  return { code, out, err };
+}
+
+interface Line {
+  code: string;
+  quantity: number | null;
+  rate: number | null;
+  cost: number | null;
+}
+interface Json {
+  rates_from: string;
+  banks_from: string;
+  buses: { bus: string; items: Line[]; subtotal: number | null }[];
+  equipment: number | null;
+  total: number | null;
+  unpriced: string[];
+}
+
+const TEMPLATE = 'templates/cold-store.json';
+
+describe('kvar-ledger quote', () => {
+  it('prices the template’s banks at the invented demo rates and says they are invented', async () => {
+    const text = await cli(TEMPLATE);
+    expect(text.code).toBe(0);
+    expect(text.out).toMatch(/INVENTED demo rates/);
+    expect(text.out).toMatch(/bus LV-REF\n/);
+    expect(text.out).toMatch(/Estimate only/);
+    const r = await cli(TEMPLATE, '--json');
+    const j = JSON.parse(r.out) as Json;
+    expect([j.rates_from, j.banks_from]).toEqual(['demo', 'file']);
+    let equipment = 0;
+    for (const b of j.buses) {
+      let sub = 0;
+      for (const l of b.items) {
+        expect(l.cost).toBeCloseTo((l.quantity as number) * (l.rate as number), 9);
+        sub += l.cost as number;
+      }
+      expect(b.subtotal).toBeCloseTo(sub, 9);
+      equipment += sub;
+    }
+    expect(j.equipment).toBeCloseTo(equipment, 9);
+    // Demo surcharges: installation 15 %, engineering 8 %, contingency 10 %.
+    expect(j.total).toBeCloseTo(equipment * 1.23 * 1.1, 6);
+  });
+
+  it('takes a rates CSV; an item it does not price stays unpriced, and so does the total', async () => {
+    const rates = join(dir, 'rates.csv');
+    writeFileSync(
+      rates,
+      'Item,Unit,Rate,Currency,Source and date\nLV capacitor,kvar,10,CHF,offer A 2026-10\nContingency,%,5,,\n',
+    );
+    const r = await cli(TEMPLATE, '--rates', rates, '--json');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out) as Json;
+    expect(j.rates_from).toBe('option');
+    const caps = j.buses.flatMap((b) => b.items).filter((l) => l.code === 'LV capacitor');
+    for (const l of caps) expect(l.cost).toBeCloseTo((l.quantity as number) * 10, 9);
+    expect(j.total).toBeNull();
+    expect(j.unpriced).toContainEqual(expect.stringMatching(/bus LV-REF: .*no rate for "LV section"/));
+    expect((await cli(TEMPLATE, '--rates', rates)).out).toMatch(/total CHF\s+unpriced/);
+  });
+
+  it('refuses a rates CSV with a bad row, naming the file, row and column', async () => {
+    const rates = join(dir, 'bad-rates.csv');
+    writeFileSync(rates, 'Item,Unit,Rate\nLV section,pc,lots\n');
+    const r = await cli(TEMPLATE, '--rates', rates);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/bad-rates\.csv: rates row 2, column Rate: must be a number ≥ 0; got "lots"/);
+    expect(r.out).toBe('');
+    expect((await cli(TEMPLATE, '--rates', join(dir, 'none.csv'))).err).toMatch(/none\.csv: no such file/);
+  });
+
+  it('a saved workbook is priced with its own Rates sheet', async () => {
+    const { site } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live' });
+    const sheets = doc.sheets.map((s) =>
+      s.name === RATES_SHEET
+        ? {
+            ...s,
+            cells: s.cells.map((row) =>
+              row[0] === 'LV section' ? ['LV section', 'pc', 4000, 'EUR', 'offer B'] : row,
+            ),
+          }
+        : s,
+    );
+    const file = join(dir, 'cold.kvar.json');
+    writeFileSync(file, JSON.stringify({ ...doc, sheets }));
+    const j = JSON.parse((await cli(file, '--json')).out) as Json;
+    expect(j.rates_from).toBe('workbook');
+    const sections = j.buses.flatMap((b) => b.items).filter((l) => l.code === 'LV section');
+    expect(sections.length).toBeGreaterThan(0);
+    for (const l of sections) expect(l.cost).toBe((l.quantity as number) * 4000);
+  });
+
+  it('a workbook without a Rates sheet is not priced at invented rates: every item is unpriced', async () => {
+    const { site } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live' });
+    const file = join(dir, 'no-rates.kvar.json');
+    writeFileSync(file, JSON.stringify({ ...doc, sheets: doc.sheets.filter((s) => s.name !== RATES_SHEET) }));
+    const j = JSON.parse((await cli(file, '--json')).out) as Json;
+    expect(j.rates_from).toBe('none');
+    expect(j.total).toBeNull();
+    expect(j.buses.flatMap((b) => b.items).every((l) => l.cost === null)).toBe(true);
+    expect((await cli(file)).out).toMatch(/the workbook has no Rates sheet/);
+  });
+
+  it('a wrong command line exits 2; help documents --rates', async () => {
+    expect((await cli()).code).toBe(2);
+    expect((await cli(TEMPLATE, '--rates')).code).toBe(2);
+    expect((await cli('--help')).out).toMatch(/--rates FILE/);
+  });
+});

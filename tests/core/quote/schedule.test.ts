@@ -1,0 +1,130 @@
+// Quantities for hand-worked designs. Each expected figure is worked out here from first
+// principles, not from the code: a detuned step is a series L–C branch with X_L = p·X_C, so the
+// output at U is Q_r·(U/U_r)²/(1 − p) and the nameplate for an output Q is Q·(1 − p)·(U_r/U)²
+// (circuit theory); line current I = Q/(√3·U); switching devices carry 1.43 × the capacitor
+// current (IEC 60831-1's 1.3 In times the 1.1 capacitance tolerance, as IEC 61921 states for LV
+// banks); device classes from the R10 current series of IEC 60059. Unit sizes, section sizes and
+// controller models are common practice (from memory) and named as such in itemRules.ts.
+import { describe, expect, it } from 'vitest';
+import { bankSpec, busSchedule, siteSchedule } from '../../../src/core/quote/index.ts';
+import { siteFromCsv } from '../site/fixtures.ts';
+
+const byCode = (items: ReturnType<typeof busSchedule>) => new Map(items.map((i) => [i.code, i]));
+
+describe('a 6-step 300 kvar bank, 7 % detuned, at 400 V 50 Hz with 480 V capacitors', () => {
+  const spec = bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 7, u_rated_kv: 0.48 }, 0.4, 50);
+  const items = byCode(busSchedule(spec));
+
+  it('capacitors: 66.96 kvar nameplate per step, two 33.48 kvar units each (LV units up to 50 kvar)', () => {
+    const nameplate = 50 * (1 - 0.07) * (0.48 / 0.4) ** 2; // = 66.96
+    expect(nameplate).toBeCloseTo(66.96, 9);
+    const cap = items.get('LV capacitor');
+    expect(cap?.count).toBe(12);
+    expect(cap?.unit).toBe('kvar');
+    expect(cap?.quantity).toBeCloseTo(6 * 66.96, 6);
+    expect(cap?.what).toContain('12 × 33.48 kvar');
+  });
+  it('detuning reactors: one per step, 300 kvar carried, tuned to 1/√0.07 = 3.78 → 189 Hz', () => {
+    const r = items.get('LV detuning reactor 7 %');
+    expect(r?.count).toBe(6);
+    expect(r?.quantity).toBe(300);
+    expect(spec.tuning_order).toBeCloseTo(1 / Math.sqrt(0.07), 3);
+    expect(r?.what).toContain('188.98 Hz');
+  });
+  it('step contactors: 50 kvar is 72.2 A, × 1.43 = 103.2 A → the 125 A class, six of them', () => {
+    const amps = (50 / (Math.sqrt(3) * 0.4)) * 1.43;
+    expect(amps).toBeCloseTo(103.2, 1);
+    expect(items.get('LV contactor 125 A')?.count).toBe(6);
+  });
+  it('one 6-output controller, two 250 kvar detuned sections, a 630 A fuse-switch (433 A × 1.43 = 619 A)', () => {
+    expect(items.get('Step controller 6 outputs')?.count).toBe(1);
+    expect(items.get('LV section')?.count).toBe(2);
+    expect((300 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(619.2, 1);
+    expect(items.get('LV fuse-switch 630 A')?.count).toBe(1);
+  });
+  it('nothing else: no discharge devices (LV units discharge through their own resistors), no reactor', () => {
+    expect([...items.keys()].sort()).toEqual(
+      [
+        'LV capacitor',
+        'LV detuning reactor 7 %',
+        'LV contactor 125 A',
+        'Step controller 6 outputs',
+        'LV section',
+        'LV fuse-switch 630 A',
+      ].sort(),
+    );
+  });
+});
+
+describe('an MV fixed bank: 1200 kvar plain at 11 kV with 12.1 kV capacitors', () => {
+  const items = byCode(busSchedule(bankSpec({ bus: 'MV', fixed_kvar: 1200, u_rated_kv: 12.1 }, 11, 50)));
+  it('1452 kvar nameplate (1200 × (12.1/11)²) in three single-phase units of 484 kvar', () => {
+    const cap = items.get('MV capacitor');
+    expect(cap?.quantity).toBeCloseTo(1200 * (12.1 / 11) ** 2, 6);
+    expect(cap?.count).toBe(3);
+    expect(cap?.what).toContain('3 × 484 kvar');
+  });
+  it('one frame, a 630 A breaker (63 A × 1.43 = 90 A; MV breakers start at 630 A), no steps, controller or VTs', () => {
+    expect((1200 / (Math.sqrt(3) * 11)) * 1.43).toBeCloseTo(90.07, 2);
+    expect([...items.keys()].sort()).toEqual(['MV breaker 630 A', 'MV capacitor', 'MV frame'].sort());
+    expect(items.get('MV frame')?.count).toBe(1);
+  });
+});
+
+describe('an MV stepped bank: 3 × 400 kvar at 6.6 kV, 7 % detuned', () => {
+  const items = byCode(
+    busSchedule(bankSpec({ bus: 'MV', step_kvar: 400, steps: 3, p_pct: 7, u_rated_kv: 7.8 }, 6.6, 50)),
+  );
+  it('per step 400/(√3·6.6) = 35 A × 1.43 = 50 A: a 200 A vacuum contactor; two discharge VTs per step', () => {
+    expect(items.get('MV contactor 200 A')?.count).toBe(3);
+    expect(items.get('MV discharge VT')?.count).toBe(6);
+    expect(items.get('MV frame')?.count).toBe(3);
+    expect(items.get('Step controller 6 outputs')?.count).toBe(1);
+  });
+  it('nameplate per step 400 × 0.93 × (7.8/6.6)² = 519.6 kvar: 3 units per step, 9 in all', () => {
+    const cap = items.get('MV capacitor');
+    expect(cap?.quantity).toBeCloseTo(3 * 400 * 0.93 * (7.8 / 6.6) ** 2, 6);
+    expect(cap?.count).toBe(9);
+  });
+});
+
+describe('a shunt reactor', () => {
+  it('250 kvar at 11 kV: the reactor and one switching device for 13.1 A (a 200 A contactor)', () => {
+    const items = busSchedule(bankSpec({ bus: 'MV', reactor_kvar: 250 }, 11, 50));
+    expect(250 / (Math.sqrt(3) * 11)).toBeCloseTo(13.12, 2);
+    expect(items.map((i) => [i.code, i.count, i.quantity])).toEqual([
+      ['MV shunt reactor', 1, 250],
+      ['MV contactor 200 A', 1, 1],
+    ]);
+  });
+  it('above 12 kV a contactor is not offered: a 2 Mvar reactor at 33 kV takes a 630 A breaker', () => {
+    const items = busSchedule(bankSpec({ bus: 'HV', reactor_kvar: 2000 }, 33, 50));
+    expect(items.map((i) => i.code)).toEqual(['MV shunt reactor', 'MV breaker 630 A']);
+  });
+});
+
+describe('what is not known is said, never counted as zero', () => {
+  it('a blank capacitor rated voltage leaves the capacitors without a quantity and names the input', () => {
+    const items = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6 }, 0.4, 50));
+    const cap = items.find((i) => i.code === 'LV capacitor');
+    expect(cap?.quantity).toBeNull();
+    expect(cap?.missing).toMatch(/rated voltage is blank for bus LV1/);
+    expect(items.find((i) => i.code === 'LV contactor 125 A')?.count).toBe(6);
+  });
+  it('a site: buses without a bank are left out; a bus of unknown voltage says so', () => {
+    const { site } = siteFromCsv(
+      [
+        'tag,bus,kind,qty,p_kw,cos_phi,u_kv,load',
+        'M1,LV1,motor,1,200,0.8,0.4,1',
+        'L1,LV2,load,1,50,0.9,0.4,1',
+      ].join('\n'),
+    );
+    const s = siteSchedule(site, [
+      { bus: 'LV1', step_kvar: 25, steps: 4, u_rated_kv: 0.44 },
+      { bus: 'LV2' },
+      { bus: 'GHOST', fixed_kvar: 10 },
+    ]);
+    expect(s.map((e) => e.bus)).toEqual(['LV1', 'GHOST']);
+    expect(s[1]?.items[0]?.missing).toMatch(/voltage of bus GHOST is unknown/);
+  });
+});
