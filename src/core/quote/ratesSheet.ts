@@ -8,7 +8,7 @@ import { RATE_HEADERS, rateTableRows, type RateTable } from './rates.ts';
 export const RATES_SHEET = 'Rates';
 
 export const RATES_PURPOSE =
-  'Your rates: one row per item of the quantities (Item as the quantities name it, Unit pc or kvar, Rate, Currency, Source and date), and Installation, Engineering and Contingency as % rows. The rates a new workbook starts with are INVENTED demo rates: replace them with your own. An item without a rate here stays unpriced, never zero.';
+  'Your rates, which `kvar-ledger quote` prices the compensation schedule with: one row per item of the schedule (Item as the schedule names it, Unit pc or kvar, Rate, Currency, Source and date), and Installation, Engineering and Contingency as % rows. The rates a new workbook starts with are INVENTED demo rates: replace them with your own. An item without a rate here stays unpriced, never zero.';
 
 const WIDTHS = [30, 7, 10, 9, 44];
 
