@@ -169,6 +169,7 @@ function headersText(p: MappingProposal): string {
     .slice(0, 8)
     .map((c) => {
       // Control characters (a binary file read as text) would garble the terminal.
+      // eslint-disable-next-line no-control-regex -- control characters are what this replaces
       const h = c.header.replace(/[\u0000-\u001f\u007f-\u009f]/g, '·');
       return `${c.letter} "${h.length > 30 ? h.slice(0, 30) + '…' : h}"`;
     });

@@ -18,6 +18,7 @@ export const MAX_PROBLEM_LINES = 50;
 
 /** One line, control characters and line breaks flattened (a message may quote file content). */
 export function oneLine(text: string): string {
+  // eslint-disable-next-line no-control-regex -- control characters are what this replaces
   return text.replace(/[\r\n]+/g, ' ').replace(/[\u0000-\u0008\u000b-\u001f\u007f]/g, '·');
 }
 

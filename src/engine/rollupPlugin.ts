@@ -120,7 +120,7 @@ function asCell(v: unknown): Cell {
 
 const fail = (fn: string, tail: string) => new CellError(ErrorType.VALUE, `${fn}: ${tail}`);
 
-type Column = { readonly height: number; read(row: number): Cell } | CellError;
+type Column = { readonly height: number; readonly read: (row: number) => Cell } | CellError;
 
 export class BusRollupPlugin extends FunctionPlugin {
   static override implementedFunctions: ImplementedFunctions = {

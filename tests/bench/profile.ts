@@ -15,7 +15,7 @@ import { exportWorkbookXlsx, importKvarXlsx } from '../../src/io/xlsx/index.ts';
 import { engineValues } from './steps.ts';
 import { summarise, type Profile } from './profileSummary.ts';
 
-type Prepared = () => Promise<unknown> | unknown;
+type Prepared = () => unknown;
 
 async function prepare(step: string, site: Site): Promise<Prepared> {
   const live = () => buildWorkbook(site, { flavour: 'live' });

@@ -158,7 +158,7 @@ describe('a newer page that upgrades the browser storage', () => {
               req.result.close();
               resolve(req.result.version);
             };
-            req.onerror = () => reject(req.error);
+            req.onerror = () => reject(req.error ?? new Error('the request failed'));
           };
         }),
     );

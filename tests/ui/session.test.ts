@@ -151,7 +151,3 @@ describe('WorkbookSession', () => {
     expect(s.toDoc()).toEqual(doc);
   });
 });
-
-import { readFileSync } from 'node:fs';
-import { readSiteFile } from '../../src/core/site/siteFile.ts';
-import { buildWorkbook } from '../../src/core/workbook/build.ts';

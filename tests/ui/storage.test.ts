@@ -99,7 +99,7 @@ describe('WorkbookStore', () => {
           req.result.close();
           resolve();
         };
-        tx.onerror = () => reject(tx.error);
+        tx.onerror = () => reject(tx.error ?? new Error('the write failed'));
       };
     });
     const loaded = await store.load();
@@ -259,8 +259,7 @@ describe('WorkbookStore: journal, save numbers, a newer page', () => {
   it('lets a newer page upgrade the database: writes what is pending, closes, then says why it no longer saves', async () => {
     const factory = new IDBFactory();
     const events: string[] = [];
-    let store: WorkbookStore | undefined;
-    store = await WorkbookStore.open(factory, 'kvar-ledger', {
+    const store: WorkbookStore | undefined = await WorkbookStore.open(factory, 'kvar-ledger', {
       beforeClose: () => {
         events.push('before close');
         void store?.saveSlot(book('Last edit', 99), {

@@ -2,6 +2,13 @@
 // say (Node reports a position for some errors, a snippet for others), and an estimator editing a
 // site file by hand needs the line and character.
 
+/** Thrown inside the scanner to unwind to the offset where the grammar broke. */
+class PositionError extends Error {
+  constructor(readonly offset: number) {
+    super(`JSON syntax error at offset ${offset}`);
+  }
+}
+
 /** Offset of the first syntax error, or undefined when the text is valid JSON. */
 export function jsonErrorOffset(text: string): number | undefined {
   let i = 0;
@@ -9,10 +16,14 @@ export function jsonErrorOffset(text: string): number | undefined {
     while (i < text.length && ' \t\n\r'.includes(text[i] as string)) i++;
   };
   const fail = (): never => {
-    throw i;
+    throw new PositionError(i);
   };
   const literal = (word: string) => {
-    for (const ch of word) if (text[i++] !== ch) (i--, fail());
+    for (const ch of word)
+      if (text[i++] !== ch) {
+        i--;
+        fail();
+      }
   };
   const string = () => {
     i++;
@@ -74,7 +85,7 @@ export function jsonErrorOffset(text: string): number | undefined {
     if (i < text.length) fail();
     return undefined;
   } catch (at) {
-    if (typeof at === 'number') return at;
+    if (at instanceof PositionError) return at.offset;
     throw at;
   }
 }

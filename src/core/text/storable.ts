@@ -4,6 +4,7 @@
 
 /** Control characters (tab, line breaks and DEL too: no name needs them), unpaired surrogates, non-characters. */
 const UNSTORABLE =
+  // eslint-disable-next-line no-control-regex -- control characters are what this finds
   /[\u0000-\u001F\u007F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
 /** The first character of `text` a file cannot carry, as "U+0007", or undefined when there is none. */

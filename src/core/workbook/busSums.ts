@@ -30,7 +30,7 @@ export function spanIndex(s: WorkbookStructure): SpanIndex {
       if (!r.present || r.bus === '') return;
       const key = busKey(r.bus);
       let bySheet = out.get(key);
-      if (!bySheet) out.set(key, (bySheet = new Map()));
+      if (!bySheet) out.set(key, (bySheet = new Map<number, Span>()));
       const span = bySheet.get(sheet.index);
       bySheet.set(sheet.index, span ? { first: span.first, last: i + 1 } : { first: i + 1, last: i + 1 });
     });

@@ -14,7 +14,6 @@ import type { Problem } from '../site/problems.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { equipmentSheets, type SheetInput } from '../kinds/index.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
-import { unifyBusNames } from '../site/busNames.ts';
 import { nameTable } from '../text/nameTable.ts';
 import { HEADERS, SHEETS } from './layout.ts';
 import { BANK_INPUTS, NOTE_HEADER } from './compensationColumns.ts';

@@ -51,6 +51,7 @@ export interface SheetCells {
 
 /** Characters XML 1.0 cannot hold; they would make the file unreadable. */
 const XML_INVALID =
+  // eslint-disable-next-line no-control-regex -- characters XML cannot hold are what this finds
   /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
 export function xmlSafe(text: string): string {
   return text.replace(XML_INVALID, '\uFFFD');

@@ -8,6 +8,7 @@
  */
 const PART =
   /("(?:[^"]|"")*"?|'(?:[^']|'')*'?)|(?<![A-Za-z0-9_.$])(\$?[A-Za-z]{1,3})(\$?)(\d+)(?![A-Za-z0-9_.(!])/g;
+// eslint-disable-next-line no-control-regex -- NUL and SOH delimit our own placeholders
 const OFFSET = /\u0000(-?\d+)\u0001/g;
 
 export function toShape(formula: string, row1: number): string {

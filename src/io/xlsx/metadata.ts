@@ -126,9 +126,10 @@ export function parseMeta(json: string): ExportMeta | undefined {
     )
       return undefined;
     if (!Array.isArray(m.sheets) || !Array.isArray(m.generated)) return undefined;
-    const sheetsOk = m.sheets.every(
-      (s) => typeof s?.doc === 'string' && typeof s.file === 'string' && Array.isArray(s.rows),
-    );
+    const sheetsOk = (m.sheets as unknown[]).every((x) => {
+      const s = x as { doc?: unknown; file?: unknown; rows?: unknown } | null;
+      return typeof s?.doc === 'string' && typeof s.file === 'string' && Array.isArray(s.rows);
+    });
     return sheetsOk ? (m as ExportMeta) : undefined;
   } catch {
     return undefined;

@@ -8,7 +8,6 @@ import { templateIds, templateInfo, templateWorkbook } from '../templates/templa
 import { blankSiteWorkbook } from '../../core/workbook/blankSite.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { loadSetAside } from '../storage/storedSlots.ts';
-import { toResult } from '../../engine/index.ts';
 import type { ImportHost } from '../import/importDialog.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import type { StatusBar } from '../statusBar.ts';

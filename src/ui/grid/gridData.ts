@@ -21,10 +21,10 @@ export function gridShape(
 
 export function gridData(contents: readonly (readonly CellContent[])[], describedCols = 0): string[][] {
   const { rows, cols } = gridShape(contents, describedCols);
-  const out: string[][] = new Array(rows);
+  const out: string[][] = new Array<string[]>(rows);
   for (let r = 0; r < rows; r++) {
     const src = contents[r];
-    const row: string[] = new Array(cols);
+    const row: string[] = new Array<string>(cols);
     for (let c = 0; c < cols; c++) row[c] = src ? editText(src[c]) : '';
     out[r] = row;
   }

@@ -1,7 +1,7 @@
 // Opening a site workbook: every generated cell written from the inputs (render.ts), the engine
 // built over the result, the living model set up beside it, and the contents kept as typed.
 import type { HyperFormula } from '../../engine/index.ts';
-import type { CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
+import type { CellContent, WorkbookDoc } from '../../core/workbook/document.ts';
 import { SHEETS } from '../../core/workbook/layout.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
 export { isSiteDoc } from '../../core/workbook/render.ts';

@@ -22,9 +22,9 @@ export function toBlocks(writes: readonly CellWrite[]): Block[] {
   const bySheet = new Map<number, Map<number, Map<number, CellContent>>>();
   for (const w of writes) {
     let rows = bySheet.get(w.sheet);
-    if (!rows) bySheet.set(w.sheet, (rows = new Map()));
+    if (!rows) bySheet.set(w.sheet, (rows = new Map<number, Map<number, CellContent>>()));
     let cols = rows.get(w.row);
-    if (!cols) rows.set(w.row, (cols = new Map()));
+    if (!cols) rows.set(w.row, (cols = new Map<number, CellContent>()));
     cols.set(w.col, w.content);
   }
   const out: Block[] = [];

@@ -6,7 +6,7 @@ export const STORE = 'workbooks';
 export function request<T>(req: IDBRequest<T>): Promise<T> {
   return new Promise((resolve, reject) => {
     req.onsuccess = () => resolve(req.result);
-    req.onerror = () => reject(req.error);
+    req.onerror = () => reject(req.error ?? new DOMException('The request failed', 'UnknownError'));
   });
 }
 
@@ -14,7 +14,7 @@ export function request<T>(req: IDBRequest<T>): Promise<T> {
 export function done(tx: IDBTransaction): Promise<void> {
   return new Promise((resolve, reject) => {
     tx.oncomplete = () => resolve();
-    tx.onerror = () => reject(tx.error);
+    tx.onerror = () => reject(tx.error ?? new DOMException('The write failed', 'UnknownError'));
     tx.onabort = () => reject(tx.error ?? new DOMException('The write was aborted', 'AbortError'));
   });
 }

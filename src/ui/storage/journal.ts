@@ -50,9 +50,9 @@ function applyOne(doc: WorkbookDoc, e: JournalEntry): WorkbookDoc | undefined {
   if (!sheet || !Number.isInteger(e.length) || e.length < 0 || !Array.isArray(e.rows)) return undefined;
   const cells = sheet.cells.slice(0, e.length);
   while (cells.length < e.length) cells.push([]);
-  for (const [r, row] of e.rows) {
+  for (const [r, row] of e.rows as ReadonlyArray<readonly [number, unknown]>) {
     if (!Number.isInteger(r) || r < 0 || r >= e.length || !Array.isArray(row)) return undefined;
-    cells[r] = [...row];
+    cells[r] = [...(row as CellContent[])];
   }
   const next: SheetDoc = { ...sheet, cells };
   return { ...doc, sheets: doc.sheets.map((s, k) => (k === i ? next : s)) };

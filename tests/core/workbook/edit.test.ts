@@ -7,7 +7,6 @@ import { ancestors, buildBusGraph } from '../../../src/core/site/graph.ts';
 import { rollUp } from '../../../src/core/site/rollup.ts';
 import type { EquipmentRow, Site } from '../../../src/core/site/model.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
-import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { PLANT } from './sites.ts';
 import { busRow, close, liveEngine, num, portableEngine, sheet, valueAt } from './engineDoc.ts';
