@@ -126,6 +126,21 @@ describe('kvar-ledger balance', () => {
     expect(r.out).toContain('shunt reactor');
     expect(r.out).toContain('licensed engineer');
   });
+  it('warns when the supply short-circuit power is missing and offers a typical one; --ssc-mva clears it', async () => {
+    const csv = join(tmp, 'supply.csv');
+    writeFileSync(csv, 'tag,bus,kind,p_kw,cos_phi,u_kv\nL1,MAIN,load,100,0.8,11\n');
+    const codes = async (...extra: string[]) =>
+      (
+        JSON.parse((await balance(csv, '--json', ...extra)).out) as {
+          warnings: { code: string; message: string }[];
+        }
+      ).warnings;
+    const blank = (await codes()).filter((w) => w.code === 'supply-unknown');
+    expect(blank).toHaveLength(1);
+    // 11 kV lies in the ≤ 12 kV level: 250 MVA (common practice, from memory).
+    expect(blank[0]?.message).toMatch(/typical value at 11 kV is 250 MVA/);
+    expect((await codes('--ssc-mva', '250')).filter((w) => w.code === 'supply-unknown')).toEqual([]);
+  });
   it('reads a CSV list with a load:<case> column; --hz changes the cable charging', async () => {
     const csv = join(tmp, 'list.csv');
     writeFileSync(

@@ -7,6 +7,7 @@ import type { Site } from './model.ts';
 import { bankTotal, type BankChoice } from './bankChoice.ts';
 import { buildBusGraph } from './graph.ts';
 import { busShortCircuit } from './shortCircuit.ts';
+import { infiniteSupplyNote } from './supplyStrength.ts';
 import { busVoltages } from './voltages.ts';
 import { checkInstalled, installedCapacitorKvar } from './installedChecks.ts';
 import {
@@ -92,7 +93,7 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
             'warning',
             'resonance',
             { bus: c.bus },
-            `with ${f(q + plain)} kvar connected the bank on bus ${c.bus} resonates at order ${f(order, 2)}, near the ${near}th harmonic; choose another detuning or step size`,
+            `with ${f(q + plain)} kvar connected the bank on bus ${c.bus} resonates at order ${f(order, 2)}${infiniteSupplyNote(sc)}, near the ${near}th harmonic; choose another detuning or step size`,
           ),
         );
         break;
@@ -105,7 +106,7 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
           'warning',
           'voltage-rise',
           { bus: c.bus },
-          `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
+          `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT)${infiniteSupplyNote(sc)}, above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
         ),
       );
     }

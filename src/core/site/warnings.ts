@@ -6,6 +6,7 @@ export type WarningCode =
   | 'requirement-not-met'
   | 'resonance'
   | 'resonance-not-assessed'
+  | 'supply-unknown'
   | 'capacitor-overvoltage'
   | 'capacitor-underrated-use'
   | 'voltage-rise'

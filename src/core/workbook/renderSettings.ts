@@ -49,7 +49,7 @@ const NOTES: Partial<Record<keyof typeof SETTING_ROWS, readonly [string | null, 
   tanLead: [null, 'Used when the requirement is tan φ: the largest |tan φ| allowed while delivering kvar.'],
   ssc: [
     'MVA',
-    'Of the supply at the point of connection; resonance and voltage rise need it. Blank = unknown.',
+    'Of the supply at the point of connection, from the utility; resonance and voltage rise need it. Blank = unknown: Checks warns and offers a typical value for the voltage.',
   ],
   lagInUse: [
     null,
