@@ -8,6 +8,7 @@ import { bankTotal, type BankChoice } from './bankChoice.ts';
 import { buildBusGraph } from './graph.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { infiniteSupplyNote } from './supplyStrength.ts';
+import { overloadWarnings } from './overload.ts';
 import { chargingResonanceWarnings, zoneCapacitance, zoneTops } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
 import { checkInstalled, installedCapacitorKvar } from './installedChecks.ts';
@@ -199,6 +200,7 @@ export function assessBanks(site: Site, choices: readonly BankChoice[]): Assessm
   const warnings = [
     ...checkInstalled(site, graph, busShortCircuit(site, graph), busVoltages(site.equipment).voltages),
     ...bankWarnings(site, choices, cases),
+    ...overloadWarnings(cases),
     ...chargingResonanceWarnings(
       site,
       graph,

@@ -7,6 +7,7 @@ export type WarningCode =
   | 'resonance'
   | 'resonance-not-assessed'
   | 'supply-unknown'
+  | 'overload'
   | 'capacitor-overvoltage'
   | 'capacitor-underrated-use'
   | 'voltage-rise'
