@@ -159,11 +159,13 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
       if (r === 1) {
         // The point of connection: still leading beyond the limit with the capacitor outputs in?
         const outs = rangeOn(undefined, 1, cols.capOut[k] as number, n, cols.capOut[k] as number);
-        out[cols.needInd[k] as number] = `=MAX(0,-KVAR.TOTAN(${P},${Q}-SUM(${outs}),-${lead}))`;
+        // A blank leading limit (cos φ lagging only) never asks for inductive kvar.
+        out[cols.needInd[k] as number] =
+          `=IF(${lead}="",0,MAX(0,-KVAR.TOTAN(${P},${Q}-SUM(${outs}),-${lead})))`;
         const PA = `ABS(${bus(busCols.pAfter[k] as number)})`;
         const QA = bus(busCols.qAfter[k] as number);
         out[cols.within[k] as number] =
-          `=IF(AND(KVAR.TOTAN(${PA},${QA},${lag})<=${WITHIN_TOL_KVAR},-KVAR.TOTAN(${PA},${QA},-${lead})<=${WITHIN_TOL_KVAR}),"yes","no")`;
+          `=IF(AND(KVAR.TOTAN(${PA},${QA},${lag})<=${WITHIN_TOL_KVAR},IF(${lead}="",TRUE(),-KVAR.TOTAN(${PA},${QA},-${lead})<=${WITHIN_TOL_KVAR})),"yes","no")`;
       }
     });
     cells.push(out);
