@@ -32,6 +32,7 @@ export const SITE_VALUE_OPTIONS = [
   '--name',
   '--hz',
   '--cos-phi',
+  '--cos-phi-lagging',
   '--tan-phi',
   '--ssc-mva',
   '--case',
@@ -44,6 +45,8 @@ so without them it is taken as 50 Hz with cos φ ≥ 0.95 required):
   --name TEXT        the site's name (default: the file's own, else the file name without extension)
   --hz 50|60         frequency
   --cos-phi X        requirement cos φ ≥ X, lagging or leading (0 < X ≤ 1)
+  --cos-phi-lagging X  requirement cos φ ≥ X while drawing kvar, no leading limit (a tariff
+                     that bills drawn kvar alone: the design never adds a reactor for it)
   --tan-phi LAG[/LEAD]  requirement as tan φ limits: at most LAG drawing kvar and LEAD delivering
                      it (LEAD defaults to LAG); numbers ≥ 0, e.g. --tan-phi 0.4/0
   --ssc-mva X        short-circuit power of the supply, MVA (> 0), for resonance and voltage rise
@@ -93,15 +96,20 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
     if (hz !== '50' && hz !== '60') return bad(`--hz must be 50 or 60; got "${hz}"`);
     out.hz = Number(hz) as 50 | 60;
   }
-  const cos = v('--cos-phi');
+  const both = v('--cos-phi');
+  const lagging = v('--cos-phi-lagging');
   const tan = v('--tan-phi');
-  if (cos !== undefined && tan !== undefined)
-    return bad('give either --cos-phi or --tan-phi, not both: the requirement is one of them');
+  if ([both, lagging, tan].filter((x) => x !== undefined).length > 1)
+    return bad(
+      'give one of --cos-phi, --cos-phi-lagging or --tan-phi, not several: the requirement is one of them',
+    );
+  const cos = both ?? lagging;
   if (cos !== undefined) {
+    const name = both !== undefined ? '--cos-phi' : '--cos-phi-lagging';
     const x = number(cos);
     if (x === undefined || !(x > 0 && x <= 1))
-      return bad(`--cos-phi must be a number in (0, 1], with a decimal point; got "${cos}"`);
-    out.requirement = { kind: 'cosphi', target: x };
+      return bad(`${name} must be a number in (0, 1], with a decimal point; got "${cos}"`);
+    out.requirement = { kind: 'cosphi', target: x, ...(lagging !== undefined ? { lagOnly: true } : {}) };
   }
   if (tan !== undefined) {
     const [lagText, leadText, extra] = tan.split('/');

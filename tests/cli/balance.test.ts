@@ -126,6 +126,41 @@ describe('kvar-ledger balance', () => {
     expect(r.out).toContain('shunt reactor');
     expect(r.out).toContain('licensed engineer');
   });
+  it('warns when the supply short-circuit power is missing and offers a typical one; --ssc-mva clears it', async () => {
+    const csv = join(tmp, 'supply.csv');
+    writeFileSync(csv, 'tag,bus,kind,p_kw,cos_phi,u_kv\nL1,MAIN,load,100,0.8,11\n');
+    const codes = async (...extra: string[]) =>
+      (
+        JSON.parse((await balance(csv, '--json', ...extra)).out) as {
+          warnings: { code: string; message: string }[];
+        }
+      ).warnings;
+    const blank = (await codes()).filter((w) => w.code === 'supply-unknown');
+    expect(blank).toHaveLength(1);
+    // 11 kV lies in the ≤ 12 kV level: 250 MVA (common practice, from memory).
+    expect(blank[0]?.message).toMatch(/typical value at 11 kV is 250 MVA/);
+    expect((await codes('--ssc-mva', '250')).filter((w) => w.code === 'supply-unknown')).toEqual([]);
+  });
+  it('--cos-phi-lagging sets no leading limit: cable charging asks for no reactor', async () => {
+    const csv = join(tmp, 'lagging.csv');
+    // 100 kW beside 10 km of 11 kV cable at 0.3 µF/km: ω·C·len·U² ≈ 1 140 kvar delivered.
+    writeFileSync(
+      csv,
+      'tag,bus,kind,p_kw,cos_phi,u_kv,c_uf_km,len_km\nL1,MAIN,load,100,1,11,,\nK1,MAIN,cable,,,11,0.3,10\n',
+    );
+    const codes = async (...extra: string[]) =>
+      (
+        JSON.parse((await balance(csv, '--json', '--ssc-mva', '250', ...extra)).out) as {
+          warnings: { code: string }[];
+        }
+      ).warnings.map((w) => w.code);
+    expect(await codes('--cos-phi', '0.95')).toContain('charging-dominates');
+    expect(await codes('--cos-phi-lagging', '0.95')).not.toContain('charging-dominates');
+    expect(await codes('--cos-phi-lagging', '0.95')).not.toContain('requirement-not-met');
+    const both = await balance(csv, '--cos-phi', '0.95', '--cos-phi-lagging', '0.9');
+    expect(both.code).toBe(2);
+    expect(both.err).toMatch(/give one of --cos-phi, --cos-phi-lagging or --tan-phi/);
+  });
   it('reads a CSV list with a load:<case> column; --hz changes the cable charging', async () => {
     const csv = join(tmp, 'list.csv');
     writeFileSync(

@@ -7,6 +7,9 @@ import type { Site } from './model.ts';
 import { bankTotal, type BankChoice } from './bankChoice.ts';
 import { buildBusGraph } from './graph.ts';
 import { busShortCircuit } from './shortCircuit.ts';
+import { infiniteSupplyNote } from './supplyStrength.ts';
+import { overloadWarnings } from './overload.ts';
+import { chargingResonanceWarnings, zoneCapacitance, zoneTops } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
 import { checkInstalled, installedCapacitorKvar } from './installedChecks.ts';
 import {
@@ -30,9 +33,16 @@ export interface Assessment {
 
 const f = (x: number, d = 1) => x.toFixed(d);
 
-function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning[] {
+function bankWarnings(
+  site: Site,
+  choices: readonly BankChoice[],
+  cases: readonly CaseCompensation[],
+): DesignWarning[] {
   const out: DesignWarning[] = [];
   const graph = buildBusGraph(site.equipment);
+  const tops = zoneTops(graph);
+  // Charging of the bank's zone per case (a plain bank resonates with it; see chargingResonance.ts).
+  const zones = cases.map((r) => ({ case: r.case, zones: zoneCapacitance(site, graph, r.before) }));
   const ssc = busShortCircuit(site, graph);
   const voltages = busVoltages(site.equipment).voltages;
   const hz = site.settings.hz;
@@ -83,19 +93,31 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
     const states = [fixed, ...Array.from({ length: c.steps ?? 0 }, (_, k) => fixed + (k + 1) * step)].filter(
       (q) => q > 0,
     );
-    for (const q of states) {
-      const order = resonanceOrderOf(sc.ssc_mva, q + plain, p);
-      const near = order === undefined ? undefined : nearHarmonic(order);
-      if (order !== undefined && near !== undefined) {
-        out.push(
-          designWarning(
-            'warning',
-            'resonance',
-            { bus: c.bus },
-            `with ${f(q + plain)} kvar connected the bank on bus ${c.bus} resonates at order ${f(order, 2)}, near the ${near}th harmonic; choose another detuning or step size`,
-          ),
-        );
-        break;
+    // A detuned bank's capacitors alone: its output Q at the bus is U²/(Xc·(1 − p)), so the
+    // capacitor-only kvar in RESONANCE.ORDER is Q·(1 − p/100). Charging counts with a plain bank
+    // only: beside a detuned one it resonates with the supply on its own (chargingResonance.ts).
+    const top = tops.get(c.bus) ?? c.bus;
+    const chargingBy =
+      p > 0
+        ? [{ case: undefined, kvar: 0 }]
+        : zones.map((z) => ({ case: z.case, kvar: z.zones.get(top)?.charging_kvar ?? 0 }));
+    search: for (const ch of chargingBy) {
+      for (const q of states) {
+        const connected = q * (1 - p / 100) + plain + ch.kvar;
+        const order = resonanceOrderOf(sc.ssc_mva, connected, p);
+        const near = order === undefined ? undefined : nearHarmonic(order);
+        if (order !== undefined && near !== undefined) {
+          const withCharging = ch.kvar > 0 ? ` and ${f(ch.kvar)} kvar of cable and line charging` : '';
+          out.push(
+            designWarning(
+              'warning',
+              'resonance',
+              { bus: c.bus, ...(ch.case !== undefined && ch.kvar > 0 ? { case: ch.case } : {}) },
+              `with ${f(q + plain)} kvar connected${withCharging} the bank on bus ${c.bus} resonates at order ${f(order, 2)}${infiniteSupplyNote(sc)}, near the ${near}th harmonic; choose another detuning or step size`,
+            ),
+          );
+          break search;
+        }
       }
     }
     const rise = voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
@@ -105,7 +127,7 @@ function bankWarnings(site: Site, choices: readonly BankChoice[]): DesignWarning
           'warning',
           'voltage-rise',
           { bus: c.bus },
-          `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
+          `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT)${infiniteSupplyNote(sc)}, above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
         ),
       );
     }
@@ -174,9 +196,21 @@ function outcomeWarnings(site: Site, cases: readonly CaseCompensation[]): Design
 export function assessBanks(site: Site, choices: readonly BankChoice[]): Assessment {
   const graph = buildBusGraph(site.equipment);
   const cases = compensate(site, choices);
+  const tops = zoneTops(graph);
   const warnings = [
     ...checkInstalled(site, graph, busShortCircuit(site, graph), busVoltages(site.equipment).voltages),
-    ...bankWarnings(site, choices),
+    ...bankWarnings(site, choices, cases),
+    ...overloadWarnings(cases),
+    ...chargingResonanceWarnings(
+      site,
+      graph,
+      busShortCircuit(site, graph),
+      cases.map((r) => r.before),
+      (name, top) =>
+        (cases.find((r) => r.case === name)?.banks ?? [])
+          .filter((b) => tops.get(b.bus) === top)
+          .reduce((s, b) => s + b.reactor_kvar, 0),
+    ),
     ...outcomeWarnings(site, cases),
   ];
   return { cases, warnings: sortWarnings(warnings) };

@@ -162,7 +162,8 @@ export function sizeBank(
       ? []
       : states.map((q) => {
           const kvar = q + plainInstalled;
-          const order = resonanceOrderOf(sc.ssc_mva, kvar, p) as number;
+          // The capacitors alone: a detuned bank's output q holds q·(1 − p) of capacitor kvar.
+          const order = resonanceOrderOf(sc.ssc_mva, q * (1 - p / 100) + plainInstalled, p) as number;
           return { kvar, order, near: nearHarmonic(order) ?? null };
         });
   let p = ctx.detuning ?? installedP ?? 0;

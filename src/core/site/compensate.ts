@@ -64,7 +64,9 @@ export function withinRequirement(site: Site, pKw: number, qKvar: number): boole
   const band = requirementBand(site.settings.requirement);
   const p = Math.abs(pKw);
   const lag = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, band.lagTan], columns: [] });
-  const lead = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] });
+  const lead = Number.isFinite(band.leadTan)
+    ? runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] })
+    : ({ ok: true, value: 0 } as const);
   if (!lag.ok || !lead.ok) return false;
   return lag.value <= WITHIN_TOL_KVAR && -lead.value <= WITHIN_TOL_KVAR;
 }
@@ -101,11 +103,14 @@ export function compensateCase(
     return { c, total, n, out: (c.fixed_kvar ?? 0) + (c.step_kvar ?? 0) * n };
   });
   const capOut = outputs.reduce((s, o) => s + o.out, 0);
-  const lead = runCall({
-    fn: 'KVAR.TOTAN',
-    args: [Math.abs(root.p_kw), root.q_kvar - capOut, -band.leadTan],
-    columns: [],
-  });
+  // No leading limit (cos φ lagging only): never inductive kvar, as the Compensation sheet.
+  const lead = Number.isFinite(band.leadTan)
+    ? runCall({
+        fn: 'KVAR.TOTAN',
+        args: [Math.abs(root.p_kw), root.q_kvar - capOut, -band.leadTan],
+        columns: [],
+      })
+    : ({ ok: true, value: 0 } as const);
   if (!lead.ok) throw new Error(lead.message);
   const inductive = Math.max(0, -lead.value);
   const extra = new Map<string, BusExtra>();

@@ -23,6 +23,7 @@ import type { BankChoice } from './bankChoice.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
 import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
+import { chargingResonanceWarnings } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
 import {
   MIN_BANK_KVAR_LV,
@@ -155,7 +156,10 @@ export function designCompensation(
   const graph = buildBusGraph(site.equipment);
   const ssc = busShortCircuit(site, graph);
   const voltages = busVoltages(site.equipment).voltages;
-  const warnings: DesignWarning[] = [...checkInstalled(site, graph, ssc, voltages)];
+  const warnings: DesignWarning[] = [
+    ...checkInstalled(site, graph, ssc, voltages),
+    ...chargingResonanceWarnings(site, graph, ssc, before),
+  ];
   const needs: BusNeed[] = before.flatMap((bal) =>
     bal.buses.map((b) => ({ bus: b.bus, case: bal.case, ...kvarNeeded(b.p_kw, b.q_kvar, req) })),
   );

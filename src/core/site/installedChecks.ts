@@ -1,6 +1,7 @@
-// Checks on the capacitors already in the equipment list: voltage across them against their
-// rating, parallel resonance with the supply, plain and detuned units on one bus, and the motor
-// self-excitation limit.
+// Checks on the site as given, before any bank: the supply's short-circuit power when it is
+// missing (supplyStrength.ts), then the capacitors already in the equipment list: voltage across
+// them against their rating, parallel resonance with the supply, plain and detuned units on one
+// bus, and the motor self-excitation limit.
 //
 // Self-excitation rule (stated here, applied by the design too): a bus that holds exactly one
 // motor row, one or more capacitor rows and nothing else (no loads, generators, cables, reactors,
@@ -22,6 +23,7 @@ import {
   resonanceOrderOf,
   RESONANCE_MARGIN,
 } from './bankRules.ts';
+import { infiniteSupplyNote, supplyWarnings } from './supplyStrength.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
 import { motorNoLoadReactivePower } from '../elements/motor.ts';
 import { formatNumber } from '../registry/messages.ts';
@@ -64,7 +66,7 @@ export function checkInstalled(
   ssc: ReadonlyMap<string, BusShortCircuit>,
   voltages: ReadonlyMap<string, { u_kv: number }>,
 ): DesignWarning[] {
-  const out: DesignWarning[] = [];
+  const out: DesignWarning[] = [...supplyWarnings(site, graph, voltages)];
   const hz = site.settings.hz;
   const caps = site.equipment.filter((r) => r.kind === 'capacitor');
   for (const row of caps) {
@@ -166,7 +168,7 @@ function checkResonance(
       'warning',
       'resonance',
       { bus, row: first.row, column: 'q_kvar', tag: first.tag },
-      `${f(q)} kvar of plain capacitors on bus ${bus} (short-circuit power ${f(sc.ssc_mva, 2)} MVA) resonate at order ${h.toFixed(2)} (RESONANCE.ORDER), within ${RESONANCE_MARGIN * 100} % of the ${n}th harmonic: harmonic currents there are amplified; detune the bank or change its size`,
+      `${f(q)} kvar of plain capacitors on bus ${bus} (short-circuit power ${f(sc.ssc_mva, 2)} MVA${infiniteSupplyNote(sc)}) resonate at order ${h.toFixed(2)} (RESONANCE.ORDER), within ${RESONANCE_MARGIN * 100} % of the ${n}th harmonic: harmonic currents there are amplified; detune the bank or change its size`,
     ),
   ];
 }

@@ -34,7 +34,12 @@ export interface EquipmentRow {
 
 /** The utility's requirement at the point of connection. */
 export type Requirement =
-  | { readonly kind: 'cosphi'; readonly target: number }
+  | {
+      readonly kind: 'cosphi';
+      readonly target: number;
+      /** Lagging only: the tariff charges drawn kvar alone and sets no leading limit. */
+      readonly lagOnly?: boolean;
+    }
   | { readonly kind: 'tanphi'; readonly lagMax: number; readonly leadMax: number };
 
 export interface SiteSettings {

@@ -1,7 +1,8 @@
 // The utility's requirement at the point of connection, as a band of tan φ: how far the site may
 // draw kvar (lagging) and deliver kvar (leading) per kW. A cos φ target is read as the same limit
-// both ways (cos φ ≥ target, lagging or leading), since most tariffs and grid codes penalise
-// both; a tan φ requirement gives the two limits separately.
+// both ways (cos φ ≥ target, lagging or leading), since many grid codes penalise both, unless it
+// is lagging only (a tariff that bills drawn kvar alone: no leading limit, so never a reactor);
+// a tan φ requirement gives the two limits separately.
 import type { Requirement } from './model.ts';
 import { runCall } from './calls.ts';
 import { tanFromCos } from '../elements/powerTriangle.ts';
@@ -19,6 +20,12 @@ export interface Band {
 export function requirementBand(r: Requirement): Band {
   if (r.kind === 'cosphi') {
     const t = tanFromCos(r.target);
+    if (r.lagOnly)
+      return {
+        lagTan: t,
+        leadTan: Number.POSITIVE_INFINITY,
+        text: `cos φ ≥ ${formatNumber(r.target)} lagging (tan φ ≤ ${t.toFixed(4)}); leading not limited`,
+      };
     return {
       lagTan: t,
       leadTan: t,
@@ -54,8 +61,9 @@ export function kvarNeeded(pKw: number, qKvar: number, r: Requirement): Need {
     r.kind === 'cosphi'
       ? runCall({ fn: 'KVAR.TOPF', args: [p, qKvar, r.target], columns: [] })
       : runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, band.lagTan], columns: [] });
-  const lead = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] });
   if (!lag.ok) throw new Error(lag.message);
+  if (!Number.isFinite(band.leadTan)) return { capacitive_kvar: Math.max(0, lag.value), inductive_kvar: 0 };
+  const lead = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] });
   if (!lead.ok) throw new Error(lead.message);
   return { capacitive_kvar: Math.max(0, lag.value), inductive_kvar: Math.max(0, -lead.value) };
 }

@@ -46,8 +46,10 @@ function readRequirement(r: unknown, problems: Problem[]): Requirement {
   if (!isObject(r))
     return bad('must be {"kind":"cosphi","target":0.95} or {"kind":"tanphi","lagMax":0.4,"leadMax":0.2}');
   if (r.kind === 'cosphi') {
+    if (r.lagOnly !== undefined && typeof r.lagOnly !== 'boolean')
+      return bad(`lagOnly must be true or false; got ${JSON.stringify(r.lagOnly)}`);
     return typeof r.target === 'number'
-      ? { kind: 'cosphi', target: r.target }
+      ? { kind: 'cosphi', target: r.target, ...(r.lagOnly === true ? { lagOnly: true } : {}) }
       : bad(`target must be a number in (0, 1]; got ${JSON.stringify(r.target ?? null)}`);
   }
   if (r.kind === 'tanphi') {

@@ -9,6 +9,7 @@ import { buildBusGraph } from './graph.ts';
 import { error, info, say, warning, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
 import { magnitudeProblems, siteSizeProblems } from './limits.ts';
+import { plausibilityProblems } from './plausibility.ts';
 import { formatNumber } from '../registry/messages.ts';
 import { unstorableCharacter } from '../text/storable.ts';
 
@@ -123,6 +124,7 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
         ),
       );
   }
+  append(out, plausibilityProblems(row, at));
   out.push(...physicsProblems(row, kind, site, at));
   return out;
 }

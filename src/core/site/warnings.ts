@@ -6,6 +6,8 @@ export type WarningCode =
   | 'requirement-not-met'
   | 'resonance'
   | 'resonance-not-assessed'
+  | 'supply-unknown'
+  | 'overload'
   | 'capacitor-overvoltage'
   | 'capacitor-underrated-use'
   | 'voltage-rise'

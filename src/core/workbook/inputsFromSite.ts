@@ -23,7 +23,7 @@ export function settingsInputsOf(site: Site): SettingsInputs {
   return {
     name: textContent(s.name),
     hz: s.hz,
-    requirement: REQUIREMENT_TEXT[r.kind],
+    requirement: REQUIREMENT_TEXT[r.kind === 'cosphi' && r.lagOnly ? 'cosphiLag' : r.kind],
     cosTarget: r.kind === 'cosphi' ? r.target : null,
     tanLag: r.kind === 'tanphi' ? r.lagMax : null,
     tanLead: r.kind === 'tanphi' ? r.leadMax : null,

@@ -12,8 +12,10 @@ function label(doc: SheetDoc, row: number): string {
   return typeof v === 'string' ? v.trim().toLowerCase() : '';
 }
 
-function requirementKind(text: string | undefined): 'cosphi' | 'tanphi' | undefined {
+function requirementKind(text: string | undefined): 'cosphi' | 'cosphiLag' | 'tanphi' | undefined {
   const t = (text ?? '').toLowerCase().replace(/[\s_]/g, '');
+  if (['cosφlagging', 'cosphilagging', REQUIREMENT_TEXT.cosphiLag.replace(/\s/g, '')].includes(t))
+    return 'cosphiLag';
   if (['cosφ', 'cosphi', 'cos', 'powerfactor', REQUIREMENT_TEXT.cosphi.replace(/\s/g, '')].includes(t))
     return 'cosphi';
   if (['tanφ', 'tanphi', 'tan', REQUIREMENT_TEXT.tanphi.replace(/\s/g, '')].includes(t)) return 'tanphi';
@@ -78,7 +80,7 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
         ctx,
         'error',
         spot(Math.max(rowOf('requirement'), 0), SETTING_LABELS.requirement),
-        `must be "${REQUIREMENT_TEXT.cosphi}" or "${REQUIREMENT_TEXT.tanphi}"; got ${reqText === undefined ? 'a blank cell' : `"${reqText}"`}; cos φ assumed`,
+        `must be "${REQUIREMENT_TEXT.cosphi}", "${REQUIREMENT_TEXT.cosphiLag}" or "${REQUIREMENT_TEXT.tanphi}"; got ${reqText === undefined ? 'a blank cell' : `"${reqText}"`}; cos φ assumed`,
       );
     }
     const target = num('cosTarget');
@@ -93,6 +95,7 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
     requirement = {
       kind: 'cosphi',
       target: target !== undefined && target > 0 && target <= 1 ? target : 0.95,
+      ...(kind === 'cosphiLag' ? { lagOnly: true } : {}),
     };
   }
 

@@ -129,10 +129,13 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     out[cols.plainInstalled] = plainInstalledCell(input, i);
     const installed = here(cols.plainInstalled);
     const first = `IF(${fixed}>0,${fixed},${step})`;
+    // The capacitors alone resonate with the supply: a bank of output Q at the bus holds Q·(1 − p)
+    // of capacitor kvar (its output is U²/(Xc − p·Xc)), which RESONANCE.ORDER takes with p.
+    const capOnly = (q: string) => `${q}*(1-${p}/100)`;
     out[cols.orderStep] =
-      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${first}+${installed},${p}))`;
+      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(first)}+${installed},${p}))`;
     out[cols.orderTotal] =
-      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${total}+${installed},${p}))`;
+      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(total)}+${installed},${p}))`;
     out[cols.check] = resonanceCheck(here(cols.orderStep), here(cols.orderTotal));
     out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(IF(${step}>0,${step},${fixed}),${ssc}))`;
     out[cols.vriseTotal] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total},${ssc}))`;
@@ -156,11 +159,13 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
       if (r === 1) {
         // The point of connection: still leading beyond the limit with the capacitor outputs in?
         const outs = rangeOn(undefined, 1, cols.capOut[k] as number, n, cols.capOut[k] as number);
-        out[cols.needInd[k] as number] = `=MAX(0,-KVAR.TOTAN(${P},${Q}-SUM(${outs}),-${lead}))`;
+        // A blank leading limit (cos φ lagging only) never asks for inductive kvar.
+        out[cols.needInd[k] as number] =
+          `=IF(${lead}="",0,MAX(0,-KVAR.TOTAN(${P},${Q}-SUM(${outs}),-${lead})))`;
         const PA = `ABS(${bus(busCols.pAfter[k] as number)})`;
         const QA = bus(busCols.qAfter[k] as number);
         out[cols.within[k] as number] =
-          `=IF(AND(KVAR.TOTAN(${PA},${QA},${lag})<=${WITHIN_TOL_KVAR},-KVAR.TOTAN(${PA},${QA},-${lead})<=${WITHIN_TOL_KVAR}),"yes","no")`;
+          `=IF(AND(KVAR.TOTAN(${PA},${QA},${lag})<=${WITHIN_TOL_KVAR},IF(${lead}="",TRUE(),-KVAR.TOTAN(${PA},${QA},-${lead})<=${WITHIN_TOL_KVAR})),"yes","no")`;
       }
     });
     cells.push(out);

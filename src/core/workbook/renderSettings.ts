@@ -39,7 +39,7 @@ const NOTES: Partial<Record<keyof typeof SETTING_ROWS, readonly [string | null, 
   hz: ['Hz', '50 or 60. Cables, lines and capacitor steps use it.'],
   requirement: [
     null,
-    `"${REQUIREMENT_TEXT.cosphi}": a lagging target below; "${REQUIREMENT_TEXT.tanphi}": a band of tan φ limits.`,
+    `"${REQUIREMENT_TEXT.cosphi}": the target below, lagging or leading; "${REQUIREMENT_TEXT.cosphiLag}": the target while drawing kvar, no leading limit (a tariff billing drawn kvar alone); "${REQUIREMENT_TEXT.tanphi}": a band of tan φ limits.`,
   ],
   cosTarget: [
     null,
@@ -49,13 +49,16 @@ const NOTES: Partial<Record<keyof typeof SETTING_ROWS, readonly [string | null, 
   tanLead: [null, 'Used when the requirement is tan φ: the largest |tan φ| allowed while delivering kvar.'],
   ssc: [
     'MVA',
-    'Of the supply at the point of connection; resonance and voltage rise need it. Blank = unknown.',
+    'Of the supply at the point of connection, from the utility; resonance and voltage rise need it. Blank = unknown: Checks warns and offers a typical value for the voltage.',
   ],
   lagInUse: [
     null,
     'What the Compensation sheet aims at: from the tan φ limit, or tan(acos target) for a cos φ target.',
   ],
-  leadInUse: [null, 'A cos φ target is read as the same limit leading and lagging.'],
+  leadInUse: [
+    null,
+    'A cos φ target is read as the same limit leading and lagging; blank when it is lagging only (no leading limit).',
+  ],
   hzInUse: ['Hz', 'The frequency every formula uses; #N/A when the frequency above is not 50 or 60.'],
 };
 
@@ -73,7 +76,11 @@ export function settingsGenerated(inputs: SettingsInputs): Array<readonly [numbe
   const inUse = (limit: number) =>
     `=IF(${here(SETTING_ROWS.requirement)}="${REQUIREMENT_TEXT.tanphi}",${here(limit)},TAN(ACOS(${here(SETTING_ROWS.cosTarget)})))`;
   out.push([SETTING_ROWS.lagInUse, 1, inUse(SETTING_ROWS.tanLag)]);
-  out.push([SETTING_ROWS.leadInUse, 1, inUse(SETTING_ROWS.tanLead)]);
+  out.push([
+    SETTING_ROWS.leadInUse,
+    1,
+    `=IF(${here(SETTING_ROWS.requirement)}="${REQUIREMENT_TEXT.cosphiLag}","",${inUse(SETTING_ROWS.tanLead).slice(1)})`,
+  ]);
   const hz = here(SETTING_ROWS.hz);
   out.push([SETTING_ROWS.hzInUse, 1, `=IF(OR(${hz}=50,${hz}=60),${hz},NA())`]);
   const rows = settingsRows(inputs.cases.length, inputs.notes.length);

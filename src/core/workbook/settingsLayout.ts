@@ -21,7 +21,11 @@ export const SETTING_LABELS = {
 } as const;
 
 /** Texts of the requirement cell. */
-export const REQUIREMENT_TEXT = { cosphi: 'cos φ', tanphi: 'tan φ' } as const;
+export const REQUIREMENT_TEXT = {
+  cosphi: 'cos φ',
+  cosphiLag: 'cos φ lagging only',
+  tanphi: 'tan φ',
+} as const;
 
 /** Fixed rows (0-based) of the single settings; cases follow from FIRST_CASE_ROW. */
 export const SETTING_ROWS = {

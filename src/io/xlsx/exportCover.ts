@@ -44,7 +44,9 @@ export type CoverRow = readonly [] | readonly [string] | readonly [string, strin
 function requirementText(s: SiteSettings): string {
   const r = s.requirement;
   if (r.kind === 'cosphi')
-    return `cos φ at least ${formatNumber(r.target)} (lagging) at the point of connection`;
+    return r.lagOnly
+      ? `cos φ at least ${formatNumber(r.target)} while drawing kvar, no leading limit, at the point of connection`
+      : `cos φ at least ${formatNumber(r.target)}, lagging or leading, at the point of connection`;
   return `tan φ at most ${formatNumber(r.lagMax)} lagging and ${formatNumber(r.leadMax)} leading at the point of connection`;
 }
 

@@ -123,19 +123,24 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
     expect(at('Capacitor output day (kvar)')).toBe(fixed + step * at('Steps in day'));
   });
 
-  it('resonance order of the whole bank with 7 % detuning, the old 50 kvar plain capacitor included: 1/√(p/100 + Qc/Ssc) (RESONANCE.ORDER in FUNCTIONS.md)', () => {
+  it('resonance order of the whole bank with 7 % detuning, the old 50 kvar plain capacitor included: 1/√(p/100 + Qc/Ssc), Qc the capacitors alone, Q·(1 − p) (RESONANCE.ORDER in FUNCTIONS.md)', () => {
     const ssc = at('Short-circuit power (MVA)');
     // CB2: 50 kvar at its rated 0.4 kV, no detuning: it counts in full.
     expect(at('Plain capacitors installed (kvar)')).toBe(50);
     const total = at('Fixed (kvar)') + at('Step (kvar)') * at('Steps');
     expect(at('Bank total (kvar)')).toBe(total);
     expect(
-      close(at('Resonance order, whole bank'), 1 / Math.sqrt(0.07 + (total + 50) / (ssc * 1000)), 1e-12),
+      close(
+        at('Resonance order, whole bank'),
+        // The bank's output Q = U²/(Xc·(1 − p)) at the bus: its capacitors hold Q·(1 − p).
+        1 / Math.sqrt(0.07 + (total * 0.93 + 50) / (ssc * 1000)),
+        1e-12,
+      ),
     ).toBe(true);
     expect(
       close(
         at('Resonance order, first step'),
-        1 / Math.sqrt(0.07 + (at('Fixed (kvar)') + 50) / (ssc * 1000)),
+        1 / Math.sqrt(0.07 + (at('Fixed (kvar)') * 0.93 + 50) / (ssc * 1000)),
         1e-12,
       ),
     ).toBe(true);

@@ -113,6 +113,7 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
 
 const requirementArb: fc.Arbitrary<Requirement> = fc.oneof(
   num(0.9, 0.99).map((target) => ({ kind: 'cosphi' as const, target })),
+  num(0.9, 0.99).map((target) => ({ kind: 'cosphi' as const, target, lagOnly: true })),
   fc
     .record({ lagMax: num(0.2, 0.5), leadMax: num(0.1, 0.4) })
     .map((r) => ({ kind: 'tanphi' as const, ...r })),

@@ -52,6 +52,11 @@ export const SOURCES = {
     ref: 'No-load current of low-voltage cage induction motors as a share of rated current, by rated output and poles, as commonly found in catalogues; common practice, values from memory',
     kind: 'common practice',
   },
+  supplyShortCircuit: {
+    label: 'typical short-circuit power by voltage level (common practice)',
+    ref: 'Short-circuit power at the point of connection of an industrial site as commonly met in European distribution networks, by nominal voltage (about a third to a half of the switchgear ratings usual at that level: 16 kA at 10 kV, 16 kA at 20 kV, 25 kA at 33 kV); common practice, values from memory: a placeholder until the utility states its minimum and maximum',
+    kind: 'common practice',
+  },
 } as const satisfies Record<string, TypicalSource>;
 
 export type SourceId = keyof typeof SOURCES;
