@@ -14,7 +14,7 @@ import {
   STEP_SERIES_KVAR,
   STEP_VRISE_LIMIT_PCT,
   THIRD_HARMONIC_DETUNING_PCT,
-  capacitorRatedVoltage,
+  chooseCapacitorRating,
   capacitorVoltage,
   chooseStep,
   nearHarmonic,
@@ -25,6 +25,7 @@ import {
 } from './bankRules.ts';
 import { installedCapacitorKvar, motorCapacitorLimit, soleMotorOf } from './installedChecks.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
+import type { CapacitorRating } from './capacitorRatings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
 import { grouped } from './limits.ts';
 
@@ -50,6 +51,8 @@ export interface BankDesign {
   /** Voltage across the capacitors (CAPBANK.UCAP) and the rated voltage chosen for them. */
   readonly u_cap_kv: number;
   readonly u_rated_kv: number;
+  /** The units it is built from: unit rated voltage, units in series, arrangement, series cited. */
+  readonly capacitor_units: CapacitorRating;
   /** Nameplate kvar at u_rated_kv that gives the outputs above. */
   readonly step_rated_kvar: number;
   readonly fixed_rated_kvar: number;
@@ -205,7 +208,8 @@ export function sizeBank(
   }
 
   const uCap = capacitorVoltage(uKv, p);
-  const uRated = capacitorRatedVoltage(uCap);
+  const rating = chooseCapacitorRating(uCap, hz);
+  const uRated = rating.bank_rated_kv;
   const perNameplate = outputPerNameplateKvar(uRated, uKv, p, hz);
   const vStep = sc === undefined || total === 0 ? null : voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
   const vTotal = sc === undefined || total === 0 ? null : voltageRise(total, sc.ssc_mva);
@@ -232,6 +236,7 @@ export function sizeBank(
     tuning_order: p > 0 ? 1 / Math.sqrt(p / 100) : null,
     u_cap_kv: uCap,
     u_rated_kv: uRated,
+    capacitor_units: rating,
     step_rated_kvar: step / perNameplate,
     fixed_rated_kvar: fixed / perNameplate,
     ssc_mva: sc?.ssc_mva ?? null,

@@ -16,7 +16,10 @@ import type { BusShortCircuit } from './shortCircuit.ts';
 import {
   CAP_OVERVOLTAGE_LIMIT,
   CAP_UNDERUSE,
+  CAP_VOLTAGE_MARGIN,
+  capacitorRatedVoltage,
   capacitorVoltage,
+  ratedBelowMargin,
   nearHarmonic,
   outputPerNameplateKvarIfValid,
   resonanceOrderOf,
@@ -90,6 +93,8 @@ export function checkInstalled(
           `capacitor ${row.tag} sees ${f(uc, 3)} kV continuously, above its rating of ${formatNumber(ur)} kV; choose a higher rated voltage`,
         ),
       );
+    } else if (ratedBelowMargin(uc, ur)) {
+      out.push(ratingMarginWarning(`capacitor ${row.tag}`, where, uc, ur, p ?? 0, hz));
     } else if (uc < CAP_UNDERUSE * ur) {
       out.push(
         designWarning(
@@ -137,6 +142,24 @@ export function checkInstalled(
     }
   }
   return out;
+}
+
+/** Capacitors rated below the rule (rated voltage ≥ 1.1 × the voltage across them): a warning naming the rating wanted. */
+export function ratingMarginWarning(
+  what: string,
+  where: Parameters<typeof designWarning>[2],
+  uCapKv: number,
+  uRatedKv: number,
+  pPct: number,
+  hz: number,
+): DesignWarning {
+  const across = pPct > 0 ? ` with ${formatNumber(pPct)} % detuning` : '';
+  return designWarning(
+    'warning',
+    'capacitor-rating-margin',
+    where,
+    `${what} is rated ${formatNumber(uRatedKv)} kV, less than ${1 + CAP_VOLTAGE_MARGIN} × the ${f(uCapKv, 3)} kV across it${across} (CAPBANK.UCAP): harmonics and a rise of the supply voltage leave it no margin; choose at least ${formatNumber(capacitorRatedVoltage(uCapKv, hz))} kV`,
+  );
 }
 
 function checkResonance(

@@ -8,6 +8,7 @@ export type WarningCode =
   | 'resonance-not-assessed'
   | 'capacitor-overvoltage'
   | 'capacitor-underrated-use'
+  | 'capacitor-rating-margin'
   | 'voltage-rise'
   | 'self-excitation'
   | 'overcompensation'
