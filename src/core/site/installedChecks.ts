@@ -96,14 +96,17 @@ export function checkInstalled(
     } else if (ratedBelowMargin(uc, ur)) {
       out.push(ratingMarginWarning(`capacitor ${row.tag}`, where, uc, ur, p ?? 0, hz));
     } else if (uc < CAP_UNDERUSE * ur) {
-      out.push(
-        designWarning(
-          'info',
-          'capacitor-underrated-use',
-          where,
-          `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * (uc / ur) ** 2, 0)} % of its nameplate kvar`,
-        ),
-      );
+      // Output per nameplate kvar of a detuned step is (Uc/Ur)²·(1 − p): KVAR.CAPBANK per kvar.
+      const share = outputPerNameplateKvarIfValid(ur, u ?? ur, p ?? 0, hz);
+      if (share !== undefined)
+        out.push(
+          designWarning(
+            'info',
+            'capacitor-underrated-use',
+            where,
+            `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * share, 1)} % of its nameplate kvar ((Uc/Ur)²·(1 − p) with p = ${formatNumber(p ?? 0)} %)`,
+          ),
+        );
     }
   }
   const buses = [...new Set(caps.map((r) => r.bus))];

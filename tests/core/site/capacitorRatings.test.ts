@@ -103,4 +103,12 @@ describe('capacitors rated below the rule', () => {
     const ok = assessBanks(s, [{ bus: 'LV', step_kvar: 25, steps: 2, p_pct: 7, u_rated_kv: 0.48 }]);
     expect(ok.warnings.some((x) => x.code === 'capacitor-rating-margin')).toBe(false);
   });
+  it('525 V units in a 7 % bank on 400 V give 62.4 % of their nameplate, (Uc/Ur)²·(1 − p)', () => {
+    // (430.1/525)² = 0.671, × 0.93 = 0.624; recomputed as a series L–C branch from the nameplate.
+    const s = site(['L1,LV,load,100,0.8,,,,,,,0.4', 'C1,LV,capacitor,,,,,,,,,0.4,20,0.525,7']);
+    const share = -capacitorStepKvar(1, 0.525, 0.4, 7);
+    expect(share).toBeCloseTo(0.624, 3);
+    const w = designCompensation(s).warnings.find((x) => x.code === 'capacitor-underrated-use');
+    expect(w?.message).toContain(`only ${(100 * share).toFixed(1)} % of its nameplate kvar`);
+  });
 });
