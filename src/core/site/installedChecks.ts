@@ -28,6 +28,9 @@ import {
 import { designWarning, type DesignWarning } from './warnings.ts';
 import { motorNoLoadReactivePower } from '../elements/motor.ts';
 import { formatNumber } from '../registry/messages.ts';
+import { soleMotorOf } from './individualCompensation.ts';
+
+export { soleMotorOf } from './individualCompensation.ts';
 
 const f = (x: number, digits = 1) => x.toFixed(digits);
 
@@ -39,15 +42,6 @@ export function installedCapacitorKvar(row: EquipmentRow, hz: number): number {
   // which runs the same call; here it delivers nothing. Anything thrown is a bug and propagates.
   const perKvar = outputPerNameplateKvarIfValid(ur, u ?? ur, p ?? 0, hz);
   return perKvar === undefined ? 0 : q * perKvar * unitsRunning(row);
-}
-
-/** The motor whose bus holds only it and capacitors (individual compensation), if any. */
-export function soleMotorOf(bus: string, graph: BusGraph): EquipmentRow | undefined {
-  if ((graph.branches.get(bus) ?? []).length > 0) return undefined;
-  const items = graph.items.get(bus) ?? [];
-  const motors = items.filter((r) => r.kind === 'motor');
-  const others = items.filter((r) => r.kind !== 'motor' && r.kind !== 'capacitor');
-  return motors.length === 1 && others.length === 0 ? motors[0] : undefined;
 }
 
 /** KVAR.MOTORCAP.MAX for one unit of the motor at voltage u. */
