@@ -23,7 +23,8 @@ import {
   roundDownToSeries,
   voltageRise,
 } from './bankRules.ts';
-import { installedCapacitorKvar, motorCapacitorLimit, soleMotorOf } from './installedChecks.ts';
+import { installedCapacitorKvar, soleMotorOf } from './installedChecks.ts';
+import { assumedI0Text, motorCapacitorLimit, type SelfExcitationLimit } from './selfExcitation.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
 import type { CapacitorRating } from './capacitorRatings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
@@ -64,6 +65,8 @@ export interface BankDesign {
   readonly steps_in: Readonly<Record<string, number>>;
   /** For individual motor compensation: KVAR.MOTORCAP.MAX of the motor. */
   readonly self_excitation_limit_kvar?: number;
+  /** The no-load current that limit rests on, and whether it was assumed (i0_pct blank). */
+  readonly self_excitation?: SelfExcitationLimit;
   readonly why: string;
 }
 
@@ -121,16 +124,31 @@ export function sizeBank(
   const motor = soleMotorOf(bus, graph);
   const limit = motor ? motorCapacitorLimit(motor, uKv) : undefined;
   if (motor && limit !== undefined) {
-    const perBus = limit * Math.max(unitsRunning(motor), 1);
+    const perBus = limit.kvar * Math.max(unitsRunning(motor), 1);
     fixed = roundDownToSeries(Math.min(most, perBus), MERGED_SERIES);
     why = `individual compensation of motor ${motor.tag}: one fixed capacitor switched with it, at most KVAR.MOTORCAP.MAX per motor`;
+    const where = {
+      bus,
+      tag: motor.tag,
+      ...(limit.i0_assumed ? { row: motor.row, column: 'i0_pct' } : {}),
+    };
+    const assumed = assumedI0Text(motor, limit);
     if (fixed < most - 1e-6) {
       warnings.push(
         designWarning(
           'info',
           'self-excitation',
-          { bus, tag: motor.tag },
-          `the bank on bus ${bus} is limited to ${fixed} kvar by the self-excitation limit of motor ${motor.tag} (${limit.toFixed(1)} kvar per motor); the rest is left to banks elsewhere`,
+          where,
+          `the bank on bus ${bus} is limited to ${fixed} kvar by the self-excitation limit of motor ${motor.tag} (${limit.kvar.toFixed(1)} kvar per motor${assumed}); the rest is left to banks elsewhere`,
+        ),
+      );
+    } else if (limit.i0_assumed) {
+      warnings.push(
+        designWarning(
+          'info',
+          'self-excitation',
+          where,
+          `the ${fixed} kvar capacitor proposed for motor ${motor.tag} on bus ${bus} stays within its self-excitation limit of ${limit.kvar.toFixed(1)} kvar per motor${assumed}`,
         ),
       );
     }
@@ -244,7 +262,7 @@ export function sizeBank(
     vrise_step_pct: vStep,
     vrise_total_pct: vTotal,
     steps_in: stepsIn,
-    ...(limit !== undefined ? { self_excitation_limit_kvar: limit } : {}),
+    ...(limit !== undefined ? { self_excitation_limit_kvar: limit.kvar, self_excitation: limit } : {}),
     why,
   };
   return { bank, warnings };

@@ -6,10 +6,9 @@
 // motor row, one or more capacitor rows and nothing else (no loads, generators, cables, reactors,
 // and no transformer or line leaving it) is taken as individual motor compensation: the
 // capacitors are switched with the motor. Their output at the operating voltage, per running
-// motor unit, must not exceed KVAR.MOTORCAP.MAX = 0.9·√3·U·I0 of one motor, with I0 taken from
-// the motor's no-load kvar (i0_pct, or the catalogue's 0.7·Qr assumption when blank).
+// motor unit, must not exceed KVAR.MOTORCAP.MAX = 0.9·√3·U·I0 of one motor, with I0 from the
+// nameplate i0_pct, or a conservative default when it is blank (selfExcitation.ts).
 import type { EquipmentRow, Site } from './model.ts';
-import { runCall } from './calls.ts';
 import { unitsRunning } from './cases.ts';
 import type { BusGraph } from './graph.ts';
 import type { BusShortCircuit } from './shortCircuit.ts';
@@ -26,11 +25,12 @@ import {
   RESONANCE_MARGIN,
 } from './bankRules.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
-import { motorNoLoadReactivePower } from '../elements/motor.ts';
 import { formatNumber } from '../registry/messages.ts';
 import { soleMotorOf } from './individualCompensation.ts';
 
 export { soleMotorOf } from './individualCompensation.ts';
+export { motorCapacitorLimit } from './selfExcitation.ts';
+import { assumedI0Text, motorCapacitorLimit } from './selfExcitation.ts';
 
 const f = (x: number, digits = 1) => x.toFixed(digits);
 
@@ -42,17 +42,6 @@ export function installedCapacitorKvar(row: EquipmentRow, hz: number): number {
   // which runs the same call; here it delivers nothing. Anything thrown is a bug and propagates.
   const perKvar = outputPerNameplateKvarIfValid(ur, u ?? ur, p ?? 0, hz);
   return perKvar === undefined ? 0 : q * perKvar * unitsRunning(row);
-}
-
-/** KVAR.MOTORCAP.MAX for one unit of the motor at voltage u. */
-export function motorCapacitorLimit(motor: EquipmentRow, uKv: number): number | undefined {
-  const { p_kw: p, eff, cos_phi: cos, i0_pct: i0 } = motor.values;
-  if (p === undefined || eff === undefined || cos === undefined || !(uKv > 0)) return undefined;
-  const q0 = motorNoLoadReactivePower(p, eff, cos, i0);
-  if (!(q0 > 0)) return undefined;
-  const i0A = q0 / (Math.sqrt(3) * uKv);
-  const r = runCall({ fn: 'KVAR.MOTORCAP.MAX', args: [uKv, i0A], columns: ['u_kv', 'i0_pct'] });
-  return r.ok ? r.value : undefined;
 }
 
 export function checkInstalled(
@@ -125,14 +114,14 @@ export function checkInstalled(
       const limit = motorCapacitorLimit(motor, u);
       const perMotor =
         onBus.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0) / Math.max(unitsRunning(motor), 1);
-      if (limit !== undefined && perMotor > limit * (1 + 1e-9)) {
+      if (limit !== undefined && perMotor > limit.kvar * (1 + 1e-9)) {
         const first = onBus[0] as EquipmentRow;
         out.push(
           designWarning(
             'error',
             'self-excitation',
             { bus, row: first.row, column: 'q_kvar', tag: first.tag },
-            `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit)} kvar (90 % of its no-load kvar): the motor can self-excite when switched off; reduce the capacitor or switch it separately`,
+            `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit.kvar)} kvar (90 % of its no-load kvar${assumedI0Text(motor, limit)}): the motor can self-excite when switched off; reduce the capacitor or switch it separately`,
           ),
         );
       }
