@@ -9,14 +9,14 @@ import type { BusShortCircuit } from './shortCircuit.ts';
 import {
   DEFAULT_DETUNING_PCT,
   FIXED_SERIES_KVAR,
-  MAX_BANK_KVAR,
-  MAX_STEPS,
   STEP_SERIES_KVAR,
   STEP_VRISE_LIMIT_PCT,
   THIRD_HARMONIC_DETUNING_PCT,
   chooseCapacitorRating,
   capacitorVoltage,
+  MAX_STEPS,
   chooseStep,
+  type StepPlan,
   nearHarmonic,
   outputPerNameplateKvar,
   resonanceOrderOf,
@@ -45,6 +45,9 @@ export interface BankDesign {
   readonly fixed_kvar: number;
   readonly step_kvar: number;
   readonly steps: number;
+  /** Steps per section (a panel with its own controller), and what switches them: for a schedule. */
+  readonly sections: readonly number[];
+  readonly switching: StepPlan['switching'] | 'fixed, switched with its feeder' | 'switched with the motor';
   readonly total_kvar: number;
   /** Detuning factor, % (0 = none) and the tuning order it gives. */
   readonly p_pct: number;
@@ -120,12 +123,15 @@ export function sizeBank(
   let fixed: number;
   let step = 0;
   let steps = 0;
+  let sections: readonly number[] = [];
+  let switching: BankDesign['switching'] = 'fixed, switched with its feeder';
   let why: string;
   const motor = soleMotorOf(bus, graph);
   const limit = motor ? motorCapacitorLimit(motor, uKv) : undefined;
   if (motor && limit !== undefined) {
     const perBus = limit.kvar * Math.max(unitsRunning(motor), 1);
     fixed = roundDownToSeries(Math.min(most, perBus), MERGED_SERIES);
+    switching = 'switched with the motor';
     why = `individual compensation of motor ${motor.tag}: one fixed capacitor switched with it, at most KVAR.MOTORCAP.MAX per motor`;
     const where = {
       bus,
@@ -157,14 +163,14 @@ export function sizeBank(
     const variable = most - fixed;
     if (variable > 1e-6) {
       const chosen = chooseStep(variable, uKv);
-      ({ step, steps } = chosen);
+      ({ step, steps, sections, switching } = chosen);
       if (chosen.capped)
         warnings.push(
           designWarning(
             'warning',
             'bank-capped',
             { bus },
-            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${MAX_STEPS} × ${step} kvar = ${grouped(MAX_BANK_KVAR)} kvar); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
+            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${steps} × ${step} kvar = ${grouped(steps * step)} kvar in ${sections.length} section${sections.length === 1 ? '' : 's'}); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
           ),
         );
     }
@@ -172,6 +178,8 @@ export function sizeBank(
       fixed > 0
         ? "fixed part for the feeding transformer's no-load kvar, automatic steps for the rest"
         : 'automatic steps';
+    if (sections.length > 1)
+      why += ` in ${sections.length} sections of ${sections.join(' + ')} steps (one controller of at most ${MAX_STEPS} outputs each)`;
   }
   const total = fixed + step * steps;
   const states = [fixed, ...Array.from({ length: steps }, (_, k) => fixed + (k + 1) * step)].filter(
@@ -262,6 +270,8 @@ export function sizeBank(
     vrise_step_pct: vStep,
     vrise_total_pct: vTotal,
     steps_in: stepsIn,
+    sections,
+    switching,
     ...(limit !== undefined ? { self_excitation_limit_kvar: limit.kvar, self_excitation: limit } : {}),
     why,
   };
