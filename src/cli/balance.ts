@@ -8,6 +8,13 @@ import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
 import { EXIT_HELP, EXIT_OK, inputError, refuseErrors, usageError } from './report.ts';
 import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptions } from './siteOptions.ts';
+import {
+  DESIGN_FLAGS,
+  DESIGN_LIST_OPTIONS,
+  DESIGN_OPTIONS_HELP,
+  DESIGN_VALUE_OPTIONS,
+  readDesignOptions,
+} from './designOptions.ts';
 import type { Site } from '../core/site/model.ts';
 import type { Problem } from '../core/site/problems.ts';
 import { rollUpAll, SiteStructureError, type BusBalance, type CaseBalance } from '../core/site/rollup.ts';
@@ -25,6 +32,7 @@ by the app (*.kvar.json), an xlsx exported by Kvar Ledger, a site file (template
 or an equipment list (CSV, or the first sheet of an xlsx).
   --json       print {case, buses, root, compensation, warnings} as JSON
 ${SITE_OPTIONS_HELP}
+${DESIGN_OPTIONS_HELP}
 ${EXIT_HELP}
 `;
 
@@ -217,9 +225,9 @@ function toText(site: Site, bal: CaseBalance, comp: Compensation, warnings: read
 export async function run(argv: string[], io: CliIo): Promise<number> {
   const parsed = parseArgs(argv, {
     command: 'balance',
-    flags: ['--json'],
-    values: [...SITE_VALUE_OPTIONS],
-    lists: [...SITE_LIST_OPTIONS],
+    flags: ['--json', ...DESIGN_FLAGS],
+    values: [...SITE_VALUE_OPTIONS, ...DESIGN_VALUE_OPTIONS],
+    lists: [...SITE_LIST_OPTIONS, ...DESIGN_LIST_OPTIONS],
   });
   if (!parsed.ok) return usageError(io, 'balance', parsed.message);
   const { positional, flags } = parsed.args;
@@ -252,11 +260,15 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     throw e;
   }
   const bal = balances.find((b) => b.case === found) as CaseBalance;
-  // The banks the page would hold for this file: its own, or the design's proposal.
-  const comp: Compensation = loaded.loaded.banks
-    ? { banks: loaded.loaded.banks, from: 'file', assessment: assessBanks(site, loaded.loaded.banks) }
+  const design = readDesignOptions(parsed.args, site);
+  if (!design.ok) return usageError(io, 'balance', `balance: ${design.message}`);
+  // The banks the page would hold for this file: its own, or the design's proposal (with the
+  // design choices given, always the proposal).
+  const fileBanks = design.options === undefined ? loaded.loaded.banks : undefined;
+  const comp: Compensation = fileBanks
+    ? { banks: fileBanks, from: 'file', assessment: assessBanks(site, fileBanks) }
     : (() => {
-        const banks = proposeChoices(site);
+        const banks = proposeChoices(site, design.options);
         return { banks, from: 'proposed' as const, assessment: assessBanks(site, banks) };
       })();
   const warnings = [

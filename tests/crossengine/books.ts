@@ -1,5 +1,5 @@
 // The workbooks every other spreadsheet program recalculates in the cross-engine suite: each
-// template's export, an invented site (and a faulty copy), a hand-made workbook with every kind
+// template's export, an invented site with a motor's own capacitor (and a faulty copy), a hand-made workbook with every kind
 // of content, and a copy of the invented site's export with a wrong cached value planted in it
 // (a program that really recalculates gives the right value back). Shared by the LibreOffice
 // and the Gnumeric checks, with the comparison they both use.
@@ -7,6 +7,7 @@ import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import ExcelJS from 'exceljs';
 import type { SiteSettings } from '../../src/core/site/model.ts';
+import { proposeChoices } from '../../src/core/site/compensation.ts';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../src/core/workbook/build.ts';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
@@ -65,9 +66,11 @@ export async function writeBooks(
     });
   }
   const quarry = inventedQuarry();
+  // The design's banks, and the crusher motor's own capacitor (switched out with it in maintenance).
+  const quarryBanks = [...proposeChoices(quarry), { bus: 'LV-CR2', fixed_kvar: 40 }];
   books.push({
     base: 'invented-quarry',
-    doc: buildWorkbook(quarry, { flavour: 'portable' }),
+    doc: buildWorkbook(quarry, { flavour: 'portable', banks: quarryBanks }),
     settings: quarry.settings,
   });
   const faulty = inventedQuarry(true);

@@ -76,6 +76,23 @@ export function inventedQuarry(faulty = false): Site {
         { q_kvar: 150, u_rated_kv: 0.76, u_kv: 0.69, p_pct: 7 },
         { crushing: 1, maintenance: 1 },
       ),
+      // A motor on a transformer of its own with nothing else on the bus: the design gives it its
+      // own capacitor, which the Compensation sheet switches out with the motor in maintenance.
+      item(
+        'TX2',
+        'MV',
+        'transformer',
+        { s_kva: 250, uk_pct: 4, p0_kw: 0.4, pk_kw: 3.2, i0_pct: 1.5, u_kv: 0.4 },
+        {},
+        { to_bus: 'LV-CR2' },
+      ),
+      item(
+        'CR-2',
+        'LV-CR2',
+        'motor',
+        { p_kw: 110, eff: 0.95, cos_phi: 0.85, i0_pct: 30, u_kv: 0.4 },
+        { crushing: 1, maintenance: 0 },
+      ),
       item(
         'PMP',
         'PIT',

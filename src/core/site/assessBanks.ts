@@ -11,12 +11,13 @@ import { infiniteSupplyNote } from './supplyStrength.ts';
 import { overloadWarnings } from './overload.ts';
 import { chargingResonanceWarnings, zoneCapacitance, zoneTops } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
-import { checkInstalled, installedCapacitorKvar } from './installedChecks.ts';
+import { checkInstalled, installedCapacitorKvar, ratingMarginWarning } from './installedChecks.ts';
 import {
   CAP_OVERVOLTAGE_LIMIT,
   STEP_VRISE_LIMIT_PCT,
   capacitorVoltage,
   nearHarmonic,
+  ratedBelowMargin,
   resonanceOrderOf,
   voltageRise,
 } from './bankRules.ts';
@@ -72,6 +73,8 @@ function bankWarnings(
           `the capacitors of the bank on bus ${c.bus} see ${f(uc, 3)} kV (CAPBANK.UCAP) but are rated ${formatNumber(c.u_rated_kv)} kV; choose a higher rated voltage`,
         ),
       );
+    } else if (c.u_rated_kv !== undefined && ratedBelowMargin(uc, c.u_rated_kv)) {
+      out.push(ratingMarginWarning(`the bank on bus ${c.bus}`, { bus: c.bus }, uc, c.u_rated_kv, p, hz));
     }
     const sc = ssc.get(c.bus);
     if (!sc) {

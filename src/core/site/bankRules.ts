@@ -6,6 +6,25 @@ import { runCall } from './calls.ts';
 import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from './harmonics.ts';
 
 export { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from './harmonics.ts';
+import { LV_MAX_KV } from './capacitorRatings.ts';
+export {
+  LV_MAX_SECTIONS,
+  LV_STEP_MAX_KVAR_AT_400V,
+  MAX_STEPS,
+  PREFERRED_STEPS_LV,
+  PREFERRED_STEPS_MV,
+  STEP_SERIES_KVAR,
+  chooseStep,
+  maxStepsAt,
+  type StepPlan,
+} from './stepRules.ts';
+export {
+  CAP_VOLTAGE_MARGIN,
+  LV_MAX_KV,
+  capacitorRatedVoltage,
+  chooseCapacitorRating,
+  ratedBelowMargin,
+} from './capacitorRatings.ts';
 
 /** Detuning factors offered (common practice; tuning orders 4.20, 3.78, 2.67). */
 export const DETUNING_CHOICES: readonly number[] = [5.67, 7, 14];
@@ -14,11 +33,6 @@ export const DEFAULT_DETUNING_PCT = 7;
 /** Used instead when the option says the 3rd harmonic is significant (common practice: 14 %). */
 export const THIRD_HARMONIC_DETUNING_PCT = 14;
 
-/** Step outputs offered at the operating voltage, kvar (common practice: makers' usual step sizes). */
-export const STEP_SERIES_KVAR: readonly number[] = [
-  5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300, 400, 500, 600, 750, 1000, 1250,
-  1500, 2000, 2500, 3000, 4000, 5000,
-];
 /** Fixed capacitor outputs, kvar (common practice; small units for transformer no-load compensation). */
 export const FIXED_SERIES_KVAR: readonly number[] = [
   2.5, 5, 7.5, 10, 12.5, 15, 20, 25, 30, 40, 50, 60, 75, 100, 150, 200,
@@ -32,31 +46,14 @@ export const REACTOR_SERIES_KVAR: readonly number[] = [
 /** Made-to-order reactor ratings are rounded up to this, kvar (common practice). */
 export const REACTOR_ROUNDING_KVAR = 50;
 
-/** Low voltage is up to 1 kV AC (published: IEC 60038 / IEC 60050-601). */
-export const LV_MAX_KV = 1;
-/** Steps aimed for: LV controllers commonly have 6 or 12 outputs, MV banks 1–4 stages (common practice). */
-export const PREFERRED_STEPS_LV = 6;
-export const PREFERRED_STEPS_MV = 3;
-/**
- * Most steps one proposed bank may have (common practice: automatic controllers offer up to 12
- * outputs). A need beyond MAX_STEPS of the largest step is not sized further: the bank is capped
- * and the design says why, instead of proposing thousands of steps.
- */
-export const MAX_STEPS = 12;
 /** A bus whose share of the need stays below this is not given a bank of its own (common practice). */
 export const MIN_BANK_KVAR_LV = 25;
 export const MIN_BANK_KVAR_MV = 300;
 
-/** Capacitor rated voltage at least this share above the voltage across it (common practice for detuned banks: +10 %). */
-export const CAP_VOLTAGE_MARGIN = 0.1;
 /** Capacitors stand 1.10 Un for 8 h in 24 h only (published: IEC 60831-1 and IEC 60871-1). */
 export const CAP_OVERVOLTAGE_LIMIT = 1.1;
 /** Below this share of the rating a capacitor gives much less than its nameplate (it scales with U²; common practice). */
 export const CAP_UNDERUSE = 0.9;
-/** LV capacitor rated voltages, kV (common practice: makers' ranges). */
-export const LV_CAPACITOR_RATINGS_KV: readonly number[] = [
-  0.4, 0.415, 0.44, 0.48, 0.525, 0.55, 0.69, 0.8, 0.9, 1.0,
-];
 
 /** Steady-state voltage step on switching one step, %: above this, warn (common practice: ~3 %, cf. rapid voltage change limits). */
 export const STEP_VRISE_LIMIT_PCT = 3;
@@ -75,34 +72,6 @@ export function roundDownToSeries(q: number, series: readonly number[]): number 
   let out = 0;
   for (const s of series) if (s <= q + 1e-9) out = s;
   return out;
-}
-
-/** The largest bank chooseStep proposes, kvar: MAX_STEPS of the largest step. */
-export const MAX_BANK_KVAR = MAX_STEPS * (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
-
-/**
- * Smallest standard step that covers q in at most the preferred number of steps for the voltage;
- * never more than MAX_STEPS steps (`capped` says the bank covers less than q).
- */
-export function chooseStep(qKvar: number, uKv: number): { step: number; steps: number; capped: boolean } {
-  const preferred = isLowVoltage(uKv) ? PREFERRED_STEPS_LV : PREFERRED_STEPS_MV;
-  const step =
-    STEP_SERIES_KVAR.find((s) => Math.ceil(qKvar / s - 1e-9) <= preferred) ??
-    (STEP_SERIES_KVAR[STEP_SERIES_KVAR.length - 1] as number);
-  const wanted = Math.max(1, Math.ceil(qKvar / step - 1e-9));
-  // NaN or an overflowing need must not become a step count either.
-  if (!(wanted <= MAX_STEPS)) return { step, steps: MAX_STEPS, capped: true };
-  return { step, steps: wanted, capped: false };
-}
-
-/** Rated voltage for capacitors that see uCapKv: LV from the makers' range, MV rounded up to 0.1 kV. */
-export function capacitorRatedVoltage(uCapKv: number): number {
-  const wanted = uCapKv * (1 + CAP_VOLTAGE_MARGIN);
-  if (isLowVoltage(uCapKv)) {
-    const lv = LV_CAPACITOR_RATINGS_KV.find((u) => u >= wanted - 1e-9);
-    if (lv !== undefined) return lv;
-  }
-  return Math.ceil(wanted * 10 - 1e-9) / 10;
 }
 
 /** The harmonic within RESONANCE_MARGIN of order h, if any. */

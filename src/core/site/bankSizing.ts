@@ -9,22 +9,24 @@ import type { BusShortCircuit } from './shortCircuit.ts';
 import {
   DEFAULT_DETUNING_PCT,
   FIXED_SERIES_KVAR,
-  MAX_BANK_KVAR,
-  MAX_STEPS,
   STEP_SERIES_KVAR,
   STEP_VRISE_LIMIT_PCT,
   THIRD_HARMONIC_DETUNING_PCT,
-  capacitorRatedVoltage,
+  chooseCapacitorRating,
   capacitorVoltage,
+  MAX_STEPS,
   chooseStep,
+  type StepPlan,
   nearHarmonic,
   outputPerNameplateKvar,
   resonanceOrderOf,
   roundDownToSeries,
   voltageRise,
 } from './bankRules.ts';
-import { installedCapacitorKvar, motorCapacitorLimit, soleMotorOf } from './installedChecks.ts';
+import { installedCapacitorKvar, soleMotorOf } from './installedChecks.ts';
+import { assumedI0Text, motorCapacitorLimit, type SelfExcitationLimit } from './selfExcitation.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
+import type { CapacitorRating } from './capacitorRatings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
 import { grouped } from './limits.ts';
 
@@ -43,6 +45,9 @@ export interface BankDesign {
   readonly fixed_kvar: number;
   readonly step_kvar: number;
   readonly steps: number;
+  /** Steps per section (a panel with its own controller), and what switches them: for a schedule. */
+  readonly sections: readonly number[];
+  readonly switching: StepPlan['switching'] | 'fixed, switched with its feeder' | 'switched with the motor';
   readonly total_kvar: number;
   /** Detuning factor, % (0 = none) and the tuning order it gives. */
   readonly p_pct: number;
@@ -50,6 +55,8 @@ export interface BankDesign {
   /** Voltage across the capacitors (CAPBANK.UCAP) and the rated voltage chosen for them. */
   readonly u_cap_kv: number;
   readonly u_rated_kv: number;
+  /** The units it is built from: unit rated voltage, units in series, arrangement, series cited. */
+  readonly capacitor_units: CapacitorRating;
   /** Nameplate kvar at u_rated_kv that gives the outputs above. */
   readonly step_rated_kvar: number;
   readonly fixed_rated_kvar: number;
@@ -61,6 +68,8 @@ export interface BankDesign {
   readonly steps_in: Readonly<Record<string, number>>;
   /** For individual motor compensation: KVAR.MOTORCAP.MAX of the motor. */
   readonly self_excitation_limit_kvar?: number;
+  /** The no-load current that limit rests on, and whether it was assumed (i0_pct blank). */
+  readonly self_excitation?: SelfExcitationLimit;
   readonly why: string;
 }
 
@@ -114,20 +123,38 @@ export function sizeBank(
   let fixed: number;
   let step = 0;
   let steps = 0;
+  let sections: readonly number[] = [];
+  let switching: BankDesign['switching'] = 'fixed, switched with its feeder';
   let why: string;
   const motor = soleMotorOf(bus, graph);
   const limit = motor ? motorCapacitorLimit(motor, uKv) : undefined;
   if (motor && limit !== undefined) {
-    const perBus = limit * Math.max(unitsRunning(motor), 1);
+    const perBus = limit.kvar * Math.max(unitsRunning(motor), 1);
     fixed = roundDownToSeries(Math.min(most, perBus), MERGED_SERIES);
+    switching = 'switched with the motor';
     why = `individual compensation of motor ${motor.tag}: one fixed capacitor switched with it, at most KVAR.MOTORCAP.MAX per motor`;
+    const where = {
+      bus,
+      tag: motor.tag,
+      ...(limit.i0_assumed ? { row: motor.row, column: 'i0_pct' } : {}),
+    };
+    const assumed = assumedI0Text(motor, limit);
     if (fixed < most - 1e-6) {
       warnings.push(
         designWarning(
           'info',
           'self-excitation',
-          { bus, tag: motor.tag },
-          `the bank on bus ${bus} is limited to ${fixed} kvar by the self-excitation limit of motor ${motor.tag} (${limit.toFixed(1)} kvar per motor); the rest is left to banks elsewhere`,
+          where,
+          `the bank on bus ${bus} is limited to ${fixed} kvar by the self-excitation limit of motor ${motor.tag} (${limit.kvar.toFixed(1)} kvar per motor${assumed}); the rest is left to banks elsewhere`,
+        ),
+      );
+    } else if (limit.i0_assumed) {
+      warnings.push(
+        designWarning(
+          'info',
+          'self-excitation',
+          where,
+          `the ${fixed} kvar capacitor proposed for motor ${motor.tag} on bus ${bus} stays within its self-excitation limit of ${limit.kvar.toFixed(1)} kvar per motor${assumed}`,
         ),
       );
     }
@@ -136,14 +163,14 @@ export function sizeBank(
     const variable = most - fixed;
     if (variable > 1e-6) {
       const chosen = chooseStep(variable, uKv);
-      ({ step, steps } = chosen);
+      ({ step, steps, sections, switching } = chosen);
       if (chosen.capped)
         warnings.push(
           designWarning(
             'warning',
             'bank-capped',
             { bus },
-            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${MAX_STEPS} × ${step} kvar = ${grouped(MAX_BANK_KVAR)} kvar); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
+            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${steps} × ${step} kvar = ${grouped(steps * step)} kvar in ${sections.length} section${sections.length === 1 ? '' : 's'}); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
           ),
         );
     }
@@ -151,6 +178,8 @@ export function sizeBank(
       fixed > 0
         ? "fixed part for the feeding transformer's no-load kvar, automatic steps for the rest"
         : 'automatic steps';
+    if (sections.length > 1)
+      why += ` in ${sections.length} sections of ${sections.join(' + ')} steps (one controller of at most ${MAX_STEPS} outputs each)`;
   }
   const total = fixed + step * steps;
   const states = [fixed, ...Array.from({ length: steps }, (_, k) => fixed + (k + 1) * step)].filter(
@@ -206,7 +235,8 @@ export function sizeBank(
   }
 
   const uCap = capacitorVoltage(uKv, p);
-  const uRated = capacitorRatedVoltage(uCap);
+  const rating = chooseCapacitorRating(uCap, hz);
+  const uRated = rating.bank_rated_kv;
   const perNameplate = outputPerNameplateKvar(uRated, uKv, p, hz);
   const vStep = sc === undefined || total === 0 ? null : voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
   const vTotal = sc === undefined || total === 0 ? null : voltageRise(total, sc.ssc_mva);
@@ -233,6 +263,7 @@ export function sizeBank(
     tuning_order: p > 0 ? 1 / Math.sqrt(p / 100) : null,
     u_cap_kv: uCap,
     u_rated_kv: uRated,
+    capacitor_units: rating,
     step_rated_kvar: step / perNameplate,
     fixed_rated_kvar: fixed / perNameplate,
     ssc_mva: sc?.ssc_mva ?? null,
@@ -240,7 +271,9 @@ export function sizeBank(
     vrise_step_pct: vStep,
     vrise_total_pct: vTotal,
     steps_in: stepsIn,
-    ...(limit !== undefined ? { self_excitation_limit_kvar: limit } : {}),
+    sections,
+    switching,
+    ...(limit !== undefined ? { self_excitation_limit_kvar: limit.kvar, self_excitation: limit } : {}),
     why,
   };
   return { bank, warnings };

@@ -4,10 +4,11 @@
 // Per case:
 // 1. The need: the capacitive kvar that brings the point of connection, as it is before
 //    compensation, to the lagging limit (KVAR.TOPF for a cos φ target, KVAR.TOTAN for tan φ).
-// 2. Each bank covers the same share of its size: need × (its total ÷ the total of all banks).
-//    Its controller switches whole steps (BANK.ROUNDUP) above the fixed part to cover that share,
-//    never more steps than it has. When the banks together are big enough, their outputs add up
-//    to at least the need.
+// 2. Each bank covers the same share of its size: need × (its total ÷ the total of all banks in
+//    service). Its controller switches whole steps (BANK.ROUNDUP) above the fixed part to cover
+//    that share, never more steps than it has. When the banks together are big enough, their
+//    outputs add up to at least the need. A bank that is a motor's own capacitor is out, fixed
+//    part too, in the cases where the motor is stopped (individualCompensation.ts).
 // 3. A shunt reactor goes in, whole, in the cases where the point of connection would still be
 //    leading beyond the limit with those capacitor outputs (cable charging at light load).
 // 4. After: the site is rolled up again with each bank's output and reactor on its bus, so the
@@ -18,6 +19,8 @@ import { runCall } from './calls.ts';
 import { bankTotal, type BankChoice } from './bankChoice.ts';
 import { kvarNeeded, requirementBand, type Need } from './requirement.ts';
 import { rollUp, type BusExtra, type CaseBalance } from './rollup.ts';
+import { buildBusGraph, type BusGraph } from './graph.ts';
+import { soleMotorOf, switchedOutWithMotor } from './individualCompensation.ts';
 
 export { WITHIN_TOL_KVAR } from './tolerance.ts';
 import { WITHIN_TOL_KVAR } from './tolerance.ts';
@@ -26,6 +29,8 @@ export interface BankInCase {
   readonly bus: string;
   readonly total_kvar: number;
   readonly steps_in: number;
+  /** false when the bank is a motor's own capacitor and the motor is stopped in this case. */
+  readonly in_service: boolean;
   /** Output switched in, kvar at the operating voltage (fixed part + steps in). */
   readonly output_kvar: number;
   /** Reactor switched in, kvar (0 when none or not needed in this case). */
@@ -88,6 +93,7 @@ export function compensateCase(
   caseName: string,
   choices: readonly BankChoice[],
   given?: CaseBalance,
+  graph: BusGraph = buildBusGraph(site.equipment),
 ): CaseCompensation {
   const before = given ?? rollUp(site, caseName);
   const banks = byBus(site, before, choices);
@@ -95,12 +101,17 @@ export function compensateCase(
   const band = requirementBand(req);
   const root = before.root;
   const need = kvarNeeded(root.p_kw, root.q_kvar, req);
-  const sumTotal = banks.reduce((s, c) => s + bankTotal(c), 0);
-  const outputs = banks.map((c) => {
+  const busP = new Map(before.buses.map((b) => [b.bus, b.p_kw]));
+  const available = banks.map(
+    (c) => !switchedOutWithMotor(soleMotorOf(c.bus, graph) !== undefined, busP.get(c.bus) ?? 0),
+  );
+  const sumTotal = banks.reduce((s, c, i) => s + (available[i] ? bankTotal(c) : 0), 0);
+  const outputs = banks.map((c, i) => {
     const total = bankTotal(c);
+    if (!available[i]) return { c, total, n: 0, out: 0, on: false };
     const share = sumTotal === 0 ? 0 : (need.capacitive_kvar * total) / sumTotal;
     const n = sumTotal === 0 ? 0 : stepsIn(c, share);
-    return { c, total, n, out: (c.fixed_kvar ?? 0) + (c.step_kvar ?? 0) * n };
+    return { c, total, n, out: (c.fixed_kvar ?? 0) + (c.step_kvar ?? 0) * n, on: true };
   });
   const capOut = outputs.reduce((s, o) => s + o.out, 0);
   // No leading limit (cos φ lagging only): never inductive kvar, as the Compensation sheet.
@@ -114,10 +125,17 @@ export function compensateCase(
   if (!lead.ok) throw new Error(lead.message);
   const inductive = Math.max(0, -lead.value);
   const extra = new Map<string, BusExtra>();
-  const inCase: BankInCase[] = outputs.map(({ c, total, n, out }) => {
+  const inCase: BankInCase[] = outputs.map(({ c, total, n, out, on }) => {
     const reactor = (c.reactor_kvar ?? 0) > 0 && inductive > WITHIN_TOL_KVAR ? (c.reactor_kvar as number) : 0;
     extra.set(c.bus, { q_absorbed_kvar: reactor, q_delivered_kvar: out });
-    return { bus: c.bus, total_kvar: total, steps_in: n, output_kvar: out, reactor_kvar: reactor };
+    return {
+      bus: c.bus,
+      total_kvar: total,
+      in_service: on,
+      steps_in: n,
+      output_kvar: out,
+      reactor_kvar: reactor,
+    };
   });
   const after = extra.size === 0 ? before : rollUp(site, caseName, extra);
   return {
@@ -137,12 +155,14 @@ export function compensate(
   choices: readonly BankChoice[],
   given?: readonly CaseBalance[],
 ): CaseCompensation[] {
+  const graph = buildBusGraph(site.equipment);
   return site.settings.cases.map((c) =>
     compensateCase(
       site,
       c,
       choices,
       given?.find((b) => b.case === c),
+      graph,
     ),
   );
 }

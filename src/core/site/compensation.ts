@@ -473,10 +473,10 @@ export function choicesFromDesign(
 }
 
 /** The design's choices, or none when the site cannot be designed yet (e.g. it is not a tree). */
-export function proposeChoices(site: Site): BankChoice[] {
+export function proposeChoices(site: Site, options: CompensationOptions = {}): BankChoice[] {
   let design: CompensationDesign;
   try {
-    design = designCompensation(site);
+    design = designCompensation(site, undefined, options);
   } catch (e) {
     if (e instanceof SiteStructureError) return [];
     throw e;

@@ -7,17 +7,19 @@
 // motor row, one or more capacitor rows and nothing else (no loads, generators, cables, reactors,
 // and no transformer or line leaving it) is taken as individual motor compensation: the
 // capacitors are switched with the motor. Their output at the operating voltage, per running
-// motor unit, must not exceed KVAR.MOTORCAP.MAX = 0.9·√3·U·I0 of one motor, with I0 taken from
-// the motor's no-load kvar (i0_pct, or the catalogue's 0.7·Qr assumption when blank).
+// motor unit, must not exceed KVAR.MOTORCAP.MAX = 0.9·√3·U·I0 of one motor, with I0 from the
+// nameplate i0_pct, or a conservative default when it is blank (selfExcitation.ts).
 import type { EquipmentRow, Site } from './model.ts';
-import { runCall } from './calls.ts';
 import { unitsRunning } from './cases.ts';
 import type { BusGraph } from './graph.ts';
 import type { BusShortCircuit } from './shortCircuit.ts';
 import {
   CAP_OVERVOLTAGE_LIMIT,
   CAP_UNDERUSE,
+  CAP_VOLTAGE_MARGIN,
+  capacitorRatedVoltage,
   capacitorVoltage,
+  ratedBelowMargin,
   nearHarmonic,
   outputPerNameplateKvarIfValid,
   resonanceOrderOf,
@@ -25,8 +27,12 @@ import {
 } from './bankRules.ts';
 import { infiniteSupplyNote, supplyWarnings } from './supplyStrength.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
-import { motorNoLoadReactivePower } from '../elements/motor.ts';
 import { formatNumber } from '../registry/messages.ts';
+import { soleMotorOf } from './individualCompensation.ts';
+
+export { soleMotorOf } from './individualCompensation.ts';
+export { motorCapacitorLimit } from './selfExcitation.ts';
+import { assumedI0Text, motorCapacitorLimit } from './selfExcitation.ts';
 
 const f = (x: number, digits = 1) => x.toFixed(digits);
 
@@ -38,26 +44,6 @@ export function installedCapacitorKvar(row: EquipmentRow, hz: number): number {
   // which runs the same call; here it delivers nothing. Anything thrown is a bug and propagates.
   const perKvar = outputPerNameplateKvarIfValid(ur, u ?? ur, p ?? 0, hz);
   return perKvar === undefined ? 0 : q * perKvar * unitsRunning(row);
-}
-
-/** The motor whose bus holds only it and capacitors (individual compensation), if any. */
-export function soleMotorOf(bus: string, graph: BusGraph): EquipmentRow | undefined {
-  if ((graph.branches.get(bus) ?? []).length > 0) return undefined;
-  const items = graph.items.get(bus) ?? [];
-  const motors = items.filter((r) => r.kind === 'motor');
-  const others = items.filter((r) => r.kind !== 'motor' && r.kind !== 'capacitor');
-  return motors.length === 1 && others.length === 0 ? motors[0] : undefined;
-}
-
-/** KVAR.MOTORCAP.MAX for one unit of the motor at voltage u. */
-export function motorCapacitorLimit(motor: EquipmentRow, uKv: number): number | undefined {
-  const { p_kw: p, eff, cos_phi: cos, i0_pct: i0 } = motor.values;
-  if (p === undefined || eff === undefined || cos === undefined || !(uKv > 0)) return undefined;
-  const q0 = motorNoLoadReactivePower(p, eff, cos, i0);
-  if (!(q0 > 0)) return undefined;
-  const i0A = q0 / (Math.sqrt(3) * uKv);
-  const r = runCall({ fn: 'KVAR.MOTORCAP.MAX', args: [uKv, i0A], columns: ['u_kv', 'i0_pct'] });
-  return r.ok ? r.value : undefined;
 }
 
 export function checkInstalled(
@@ -92,15 +78,20 @@ export function checkInstalled(
           `capacitor ${row.tag} sees ${f(uc, 3)} kV continuously, above its rating of ${formatNumber(ur)} kV; choose a higher rated voltage`,
         ),
       );
+    } else if (ratedBelowMargin(uc, ur)) {
+      out.push(ratingMarginWarning(`capacitor ${row.tag}`, where, uc, ur, p ?? 0, hz));
     } else if (uc < CAP_UNDERUSE * ur) {
-      out.push(
-        designWarning(
-          'info',
-          'capacitor-underrated-use',
-          where,
-          `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * (uc / ur) ** 2, 0)} % of its nameplate kvar`,
-        ),
-      );
+      // Output per nameplate kvar of a detuned step is (Uc/Ur)²·(1 − p): KVAR.CAPBANK per kvar.
+      const share = outputPerNameplateKvarIfValid(ur, u ?? ur, p ?? 0, hz);
+      if (share !== undefined)
+        out.push(
+          designWarning(
+            'info',
+            'capacitor-underrated-use',
+            where,
+            `capacitor ${row.tag} runs at ${f(uc, 3)} kV, well below its ${formatNumber(ur)} kV rating: it gives only ${f(100 * share, 1)} % of its nameplate kvar ((Uc/Ur)²·(1 − p) with p = ${formatNumber(p ?? 0)} %)`,
+          ),
+        );
     }
   }
   const buses = [...new Set(caps.map((r) => r.bus))];
@@ -125,20 +116,38 @@ export function checkInstalled(
       const limit = motorCapacitorLimit(motor, u);
       const perMotor =
         onBus.reduce((s, r) => s + installedCapacitorKvar(r, hz), 0) / Math.max(unitsRunning(motor), 1);
-      if (limit !== undefined && perMotor > limit * (1 + 1e-9)) {
+      if (limit !== undefined && perMotor > limit.kvar * (1 + 1e-9)) {
         const first = onBus[0] as EquipmentRow;
         out.push(
           designWarning(
             'error',
             'self-excitation',
             { bus, row: first.row, column: 'q_kvar', tag: first.tag },
-            `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit)} kvar (90 % of its no-load kvar): the motor can self-excite when switched off; reduce the capacitor or switch it separately`,
+            `capacitors switched with motor ${motor.tag} give ${f(perMotor)} kvar per motor, above KVAR.MOTORCAP.MAX = ${f(limit.kvar)} kvar (90 % of its no-load kvar${assumedI0Text(motor, limit)}): the motor can self-excite when switched off; reduce the capacitor or switch it separately`,
           ),
         );
       }
     }
   }
   return out;
+}
+
+/** Capacitors rated below the rule (rated voltage ≥ 1.1 × the voltage across them): a warning naming the rating wanted. */
+export function ratingMarginWarning(
+  what: string,
+  where: Parameters<typeof designWarning>[2],
+  uCapKv: number,
+  uRatedKv: number,
+  pPct: number,
+  hz: number,
+): DesignWarning {
+  const across = pPct > 0 ? ` with ${formatNumber(pPct)} % detuning` : '';
+  return designWarning(
+    'warning',
+    'capacitor-rating-margin',
+    where,
+    `${what} is rated ${formatNumber(uRatedKv)} kV, less than ${1 + CAP_VOLTAGE_MARGIN} × the ${f(uCapKv, 3)} kV across it${across} (CAPBANK.UCAP): harmonics and a rise of the supply voltage leave it no margin; choose at least ${formatNumber(capacitorRatedVoltage(uCapKv, hz))} kV`,
+  );
 }
 
 function checkResonance(

@@ -10,6 +10,7 @@ export type WarningCode =
   | 'overload'
   | 'capacitor-overvoltage'
   | 'capacitor-underrated-use'
+  | 'capacitor-rating-margin'
   | 'voltage-rise'
   | 'self-excitation'
   | 'overcompensation'

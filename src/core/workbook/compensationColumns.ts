@@ -31,6 +31,7 @@ export const COMP_HEADERS = {
   vriseStep: 'Voltage rise per step (%)',
   vriseTotal: 'Voltage rise, whole bank (%)',
   needCap: (c: string) => `Capacitive need ${c} (kvar)`,
+  available: (c: string) => `Bank in service ${c} (kvar)`,
   stepsIn: (c: string) => `Steps in ${c}`,
   capOut: (c: string) => `Capacitor output ${c} (kvar)`,
   reactorIn: (c: string) => `Reactor in ${c} (kvar)`,
@@ -59,6 +60,7 @@ export interface CompensationColumns {
   readonly vriseTotal: number;
   readonly note: number;
   readonly needCap: readonly number[];
+  readonly available: readonly number[];
   readonly stepsIn: readonly number[];
   readonly capOut: readonly number[];
   readonly reactorIn: readonly number[];
@@ -98,6 +100,7 @@ export function planCompensationColumns(cases: readonly string[]): CompensationC
   };
   const per = {
     needCap: [] as number[],
+    available: [] as number[],
     stepsIn: [] as number[],
     capOut: [] as number[],
     reactorIn: [] as number[],
@@ -108,6 +111,7 @@ export function planCompensationColumns(cases: readonly string[]): CompensationC
   };
   for (const c of cases) {
     per.needCap.push(add(COMP_HEADERS.needCap(c), FORMATS.kvar, 10));
+    per.available.push(add(COMP_HEADERS.available(c), FORMATS.kvar, 10));
     per.stepsIn.push(add(COMP_HEADERS.stepsIn(c), FORMATS.count, 7));
     per.capOut.push(add(COMP_HEADERS.capOut(c), FORMATS.kvar, 10));
     per.reactorIn.push(add(COMP_HEADERS.reactorIn(c), FORMATS.kvar, 9));

@@ -89,7 +89,6 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
   const n = s.buses.length;
   const cells: CellContent[][] = [cols.columns.map((c) => c.header)];
   const sumRow = summaryRow(n);
-  const sumTotal = absCell(sumRow, cols.total);
   const lag = settingRef('lagInUse');
   const lead = settingRef('leadInUse');
   const hz = settingRef('hzInUse');
@@ -147,11 +146,18 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
       // As if a bank on this bus alone had to bring it within the requirement.
       out[cols.needCap[k] as number] =
         `=MAX(0,IF(${settingRef('requirement')}="${REQUIREMENT_TEXT.tanphi}",KVAR.TOTAN(${P},${Q},${settingRef('tanLag')}),KVAR.TOPF(${P},${Q},${settingRef('cosTarget')})))`;
-      // The bank's share of the site's need is the same share of its size for every bank.
-      const share = `${root(cols.needCap)}*${total}/${sumTotal}`;
+      // A motor's own bank is out, fixed part too, while its bus draws no active power (the
+      // motor stopped): the rule of compensate.ts, from individualCompensation.ts.
+      out[cols.available[k] as number] = b.soleMotor
+        ? `=IF(${bus(busCols.p[k] as number)}=0,0,${total})`
+        : `=${total}`;
+      const avail = at(cols.available);
+      const availSum = absCell(sumRow, cols.available[k] as number);
+      // The bank's share of the site's need is the same share of its size for every bank in service.
+      const share = `${root(cols.needCap)}*${total}/${availSum}`;
       out[cols.stepsIn[k] as number] =
-        `=IF(OR(${step}=0,${steps}=0,${sumTotal}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
-      out[cols.capOut[k] as number] = `=${fixed}+${step}*${at(cols.stepsIn)}`;
+        `=IF(OR(${step}=0,${steps}=0,${avail}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
+      out[cols.capOut[k] as number] = `=IF(${avail}=0,0,${fixed}+${step}*${at(cols.stepsIn)})`;
       out[cols.reactorIn[k] as number] =
         `=IF(AND(${reactor}>0,${root(cols.needInd)}>${WITHIN_TOL_KVAR}),${reactor},0)`;
       out[cols.qAfter[k] as number] = `=${bus(busCols.qAfter[k] as number)}`;
@@ -175,10 +181,11 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     const summary = blank();
     summary[cols.bus] = COMP_HEADERS.allBanks;
     summary[cols.total] = `=SUM(${rangeOn(undefined, 1, cols.total, n, cols.total)})`;
+    for (const c of cols.available) summary[c] = `=SUM(${rangeOn(undefined, 1, c, n, c)})`;
     cells.push(blank(), summary);
   }
   return cells;
 }
 
 export const COMPENSATION_PURPOSE =
-  'Per bus: the bank there (inputs: fixed part, step, steps, detuning, capacitor rating, reactor) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the steps the bank switches (each bank covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.';
+  "Per bus: the bank there (inputs: fixed part, step, steps, detuning, capacitor rating, reactor) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the bank in service (a motor's own bank is out while the motor is stopped), the steps the bank switches (each bank in service covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.";

@@ -7,6 +7,7 @@ import { buildBusGraph } from '../site/graph.ts';
 import { busKey, unifyBusNames } from '../site/busNames.ts';
 import type { EquipmentRow } from '../site/model.ts';
 import { busVoltages } from '../site/voltages.ts';
+import { soleMotorOf } from '../site/individualCompensation.ts';
 import type { CellContent } from './document.ts';
 import { shownText } from '../text/cellText.ts';
 import { planEquipmentColumns, type EquipmentColumns } from './equipmentColumns.ts';
@@ -57,6 +58,8 @@ export interface BusInfo {
   readonly upstream?: string;
   /** The row whose u_kv gives the bus voltage. */
   readonly voltage?: RowRef;
+  /** One motor and capacitors only: a bank here is the motor's own and switches with it. */
+  readonly soleMotor?: true;
 }
 
 export interface WorkbookStructure {
@@ -163,6 +166,7 @@ export function busesOf(sheets: readonly SheetStructure[]): {
       level: graph.level.get(name),
       ...(feeder ? { feeder: ref(feeder), upstream: feeder.bus } : {}),
       ...(v ? { voltage: ref(unified[v.row - 2] as EquipmentRow) } : {}),
+      ...(soleMotorOf(name, graph) ? { soleMotor: true as const } : {}),
     };
   });
   return { buses, busIndex: new Map(buses.map((b, i) => [b.key, i])) };
@@ -189,6 +193,7 @@ export function busSignature(s: WorkbookStructure): string {
       b.upstream ?? '',
       b.voltage?.sheet ?? -1,
       b.voltage?.row ?? -1,
+      b.soleMotor === true,
     ]),
   ]);
 }

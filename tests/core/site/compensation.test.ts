@@ -74,9 +74,11 @@ describe('bank rules', () => {
     expect(nearHarmonic(9)).toBeUndefined();
   });
   it('step sizes come from the standard series, within the preferred number of steps (common practice)', () => {
-    expect(chooseStep(300, 0.4)).toEqual({ step: 50, steps: 6, capped: false });
-    expect(chooseStep(310, 0.4)).toEqual({ step: 60, steps: 6, capped: false });
-    expect(chooseStep(1100, 6.6)).toEqual({ step: 400, steps: 3, capped: false });
+    expect(chooseStep(300, 0.4)).toMatchObject({ step: 50, steps: 6, capped: false });
+    // 310 kvar in 6 steps would need 60 kvar steps, above the 50 kvar contactor limit at 400 V.
+    expect(chooseStep(310, 0.4)).toMatchObject({ step: 50, steps: 7, capped: false });
+    expect(chooseStep(310, 0.48)).toMatchObject({ step: 60, steps: 6, capped: false });
+    expect(chooseStep(1100, 6.6)).toMatchObject({ step: 400, steps: 3, capped: false });
     for (const q of [7, 99, 480, 2222]) expect(STEP_SERIES_KVAR).toContain(chooseStep(q, 0.4).step);
   });
   it('capacitor rated voltage leaves 10 % above the voltage across them (common practice)', () => {

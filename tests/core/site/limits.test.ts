@@ -3,7 +3,7 @@
 // the need (before, a motor quantity of 500 threw RangeError and 200 proposed 55,564 steps).
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { MAX_STEPS } from '../../../src/core/site/bankRules.ts';
+import { maxStepsAt } from '../../../src/core/site/bankRules.ts';
 import { designCompensation } from '../../../src/core/site/compensation.ts';
 import { MAX_BUSES, MAX_CASES, MAX_EQUIPMENT_ROWS, siteSizeProblems } from '../../../src/core/site/limits.ts';
 import type { EquipmentRow, Site } from '../../../src/core/site/model.ts';
@@ -100,16 +100,16 @@ describe('the bank design stays bounded', () => {
     ),
   });
   it.each([200, 500, 10_000])(
-    'compressors × %i: at most MAX_STEPS steps per bank, and the cap is said',
+    'compressors × %i: at most maxStepsAt steps per bank, and the cap is said',
     (qty) => {
       const site = withQty(qty);
       expect(errors(site)).toEqual([]);
       const design = designCompensation(site);
-      for (const b of design.banks) expect(b.steps).toBeLessThanOrEqual(MAX_STEPS);
+      for (const b of design.banks) expect(b.steps).toBeLessThanOrEqual(maxStepsAt(b.u_kv));
       const capped = design.warnings.filter((w) => w.code === 'bank-capped');
       expect(capped.map((w) => w.bus)).toContain('LV-REF');
       expect(capped[0]?.message).toMatch(
-        /more than the largest bank proposed \(12 × 5000 kvar = 60,000 kvar\)/,
+        /more than the largest bank proposed \(48 × 50 kvar = 2,400 kvar in 4 sections\)/,
       );
     },
   );

@@ -135,10 +135,11 @@ describe("a user's edits become the site", () => {
     const rebuilt = buildWorkbook(back.site, { flavour: 'live', banks: back.banks });
     const again = siteFromWorkbook(rebuilt);
     expect(again.banks).toEqual(back.banks);
+    // The design's bank on LV2 (400 V): steps within the 50 kvar contactor limit (stepRules.ts).
     expect(again.banks.find((b) => b.bus === 'LV2')).toMatchObject({
       fixed_kvar: 15,
-      step_kvar: 60,
-      steps: 6,
+      step_kvar: 50,
+      steps: 7,
       p_pct: 7,
       u_rated_kv: 0.48,
     });
