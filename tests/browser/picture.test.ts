@@ -290,6 +290,38 @@ describe('cell choices and marks from sheet metadata', () => {
   });
 });
 
+describe('typical values for a tender-stage list', () => {
+  it('fills the blanks of a motor given only its rating, marks them, lists them in Checks', async () => {
+    await page.click('[data-testid="menu-workbook"]');
+    await page.click('[data-testid="menu-template"]');
+    await page.click('[data-testid="template-cold-store"]');
+    await expect.poll(() => page.locator('[data-testid="title"]').inputValue()).toMatch(/Cold store/);
+    await openSheet(page, 'Motors');
+    const row = 6; // the first empty row below the demo's five motors
+    await typeInCell(page, row, await column('Tag'), 'M-TYP');
+    await typeInCell(page, row, await column('Bus'), 'LV-REF');
+    await typeInCell(page, row, await column('Rated output (kW)'), '11');
+    await page.click('[data-testid="menu-edit"]');
+    await page.click('[data-testid="menu-typical"]');
+    await expect
+      .poll(() => page.locator('[data-testid="notice"]').textContent())
+      .toMatch(/blank value\(s\) filled with typical values, marked as assumed/);
+    // IE3, 4-pole, 11 kW: 91.4 % (IEC 60034-30-1 Table 2).
+    const eff = cell(page, row, await column('Efficiency'));
+    expect(await eff.textContent()).toBe('0.914');
+    expect(await eff.getAttribute('class')).toMatch(/kl-mark-assumed/);
+    expect(await eff.getAttribute('title')).toMatch(/^Assumed: 11 kW, 4-pole, class IE3; IEC 60034-30-1/);
+    await panel('checks', true);
+    const listed = page.locator('.kl-check', { hasText: 'typical values put in for blanks' });
+    await listed.first().waitFor({ timeout: 20_000 });
+    expect(await listed.first().textContent()).toMatch(/row 7 Efficiency/);
+    await screenshot(page, '25-typical-values');
+    // The nameplate value replaces the assumption.
+    await typeInCell(page, row, await column('Efficiency'), '0.92');
+    await expect.poll(() => eff.getAttribute('class')).not.toMatch(/kl-mark-assumed/);
+  });
+});
+
 describe('the page', () => {
   it('logged no console errors', () => {
     expect(browser.errors).toEqual([]);
