@@ -4,7 +4,7 @@
 // in LibreOffice. A planted wrong cached value proves it really recalculated.
 import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import {
   BOOK_NAMES,
@@ -18,6 +18,12 @@ import {
 import { recalcToCsv } from './gnumeric.ts';
 import { sheetCsv } from './libreoffice.ts';
 
+/**
+ * Every book but two of the three edited ones: Gnumeric starts once per file (about 20 s each
+ * on a two-core machine), and LibreOffice's suite checks all three edited books.
+ */
+const GNUMERIC_BOOKS: readonly string[] = BOOK_NAMES.filter((n) => n !== 'edited-2' && n !== 'edited-3');
+
 let books: Book[] = [];
 let outDir = '';
 let planted: Planted | undefined;
@@ -28,8 +34,8 @@ beforeAll(async () => {
   books = written.books;
   planted = written.planted;
   outDir = join(work, 'csv');
-  for (const f of written.files) recalcToCsv(f, outDir);
-  // Gnumeric starts once per file (about 20 s each on a busy two-core machine, 11 files).
+  const wanted = new Set<string>([...GNUMERIC_BOOKS, 'planted']);
+  for (const f of written.files) if (wanted.has(basename(f).replace(/\.xlsx$/, ''))) recalcToCsv(f, outDir);
 }, 480_000);
 
 const csvFiles = () => readdirSync(outDir).filter((f) => f.endsWith('.csv'));
@@ -37,7 +43,7 @@ const csvFiles = () => readdirSync(outDir).filter((f) => f.endsWith('.csv'));
 describe('Gnumeric recalculating our exports', () => {
   it('exported every template, the invented site and the hand-made workbook', () => {
     expect(books.map((b) => b.base)).toEqual(expect.arrayContaining([...BOOK_NAMES]));
-    for (const b of books)
+    for (const b of books.filter((x) => GNUMERIC_BOOKS.includes(x.base)))
       for (const s of b.doc.sheets) expect(csvFiles()).toContain(`${b.base}-${s.name}.csv`);
   });
 
@@ -51,7 +57,7 @@ describe('Gnumeric recalculating our exports', () => {
     });
   });
 
-  it.each([...BOOK_NAMES])('%s: every formula cell equals the app’s value', (base) => {
+  it.each([...GNUMERIC_BOOKS])('%s: every formula cell equals the app’s value', (base) => {
     const book = books.find((b) => b.base === base);
     expect(book, `no workbook ${base}`).toBeDefined();
     const { mismatches, compared, errors } = compareBook(
