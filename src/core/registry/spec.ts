@@ -25,7 +25,7 @@ export interface Interval {
 export type ParamDefault = number | boolean | { readonly sameAs: string } | { readonly omitted: string };
 
 export interface ParamSpec {
-  /** snake_case with unit suffix, as in functions.md (e.g. p_out_kw). */
+  /** snake_case with unit suffix, as FUNCTIONS.md lists them (e.g. p_out_kw). */
   readonly name: string;
   /** Display unit: 'kW', 'kvar', 'kVA', 'kV', 'A', '%', 'Hz', 'km', 'MVA', 'µF/km', '1' (plain number), 'TRUE/FALSE'. */
   readonly unit: string;
