@@ -7,7 +7,7 @@ import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
 import { EXIT_HELP, EXIT_OK, inputError, refuseErrors, usageError } from './report.ts';
-import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptions } from './siteOptions.ts';
+import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, oneSiteFile } from './siteOptions.ts';
 import {
   DESIGN_FLAGS,
   DESIGN_LIST_OPTIONS,
@@ -230,21 +230,15 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     lists: [...SITE_LIST_OPTIONS, ...DESIGN_LIST_OPTIONS],
   });
   if (!parsed.ok) return usageError(io, 'balance', parsed.message);
-  const { positional, flags } = parsed.args;
+  const { flags } = parsed.args;
   if (flags.has('--help')) {
     io.out(USAGE);
     return EXIT_OK;
   }
-  if (positional.length !== 1)
-    return usageError(
-      io,
-      'balance',
-      `balance: give exactly one file (a workbook, a site file or an equipment list); got ${positional.length}`,
-    );
-  const file = positional[0] as string;
-  const options = readSiteOptions(parsed.args);
-  if (!options.ok) return usageError(io, 'balance', `balance: ${options.message}`);
-  const loaded = await loadSite(file, options.options);
+  const input = oneSiteFile(io, 'balance', parsed.args);
+  if (typeof input === 'number') return input;
+  const { file, options } = input;
+  const loaded = await loadSite(file, options);
   if (!loaded.ok)
     return loaded.usage
       ? usageError(io, 'balance', `balance: ${loaded.message}`)

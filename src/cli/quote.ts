@@ -7,7 +7,7 @@ import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
 import { EXIT_HELP, EXIT_OK, inputError, oneLine, refuseErrors, usageError } from './report.ts';
-import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptions } from './siteOptions.ts';
+import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, oneSiteFile } from './siteOptions.ts';
 import { CAUTION_SHORT } from '../core/cautions.ts';
 import { proposeChoices } from '../core/site/compensation.ts';
 import { SiteStructureError } from '../core/site/rollup.ts';
@@ -154,20 +154,14 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     lists: [...SITE_LIST_OPTIONS],
   });
   if (!parsed.ok) return usageError(io, 'quote', parsed.message);
-  const { positional, flags, values } = parsed.args;
+  const { flags, values } = parsed.args;
   if (flags.has('--help')) {
     io.out(USAGE);
     return EXIT_OK;
   }
-  if (positional.length !== 1)
-    return usageError(
-      io,
-      'quote',
-      `quote: give exactly one file (a workbook, a site file or an equipment list); got ${positional.length}`,
-    );
-  const file = positional[0] as string;
-  const options = readSiteOptions(parsed.args);
-  if (!options.ok) return usageError(io, 'quote', `quote: ${options.message}`);
+  const input = oneSiteFile(io, 'quote', parsed.args);
+  if (typeof input === 'number') return input;
+  const { file, options } = input;
   const ratesFile = values.get('--rates');
   let given: string[][] | undefined;
   if (ratesFile !== undefined) {
@@ -175,7 +169,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     if ('message' in r) return inputError(io, 'quote', r.message);
     given = r.rows;
   }
-  const loaded = await loadSite(file, options.options);
+  const loaded = await loadSite(file, options);
   if (!loaded.ok)
     return loaded.usage
       ? usageError(io, 'quote', `quote: ${loaded.message}`)

@@ -3,6 +3,8 @@
 // an equipment list. `balance` and `export` read them here, so both understand the same words.
 import type { Requirement } from '../core/site/model.ts';
 import type { ParsedArgs } from './args.ts';
+import type { CliIo } from './io.ts';
+import { usageError } from './report.ts';
 
 export interface ColumnChoice {
   /** A header as written in the file, or a column letter (A, B, …). */
@@ -143,4 +145,24 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
   if (typeof units === 'string') return bad(units);
   out.units = units.map(([column, unit]) => ({ column, unit }));
   return { ok: true, options: out };
+}
+
+/**
+ * The one file a site command reads and the site options given with it; or, when either is
+ * wrong, the usage error already reported (its exit status).
+ */
+export function oneSiteFile(
+  io: CliIo,
+  command: string,
+  args: ParsedArgs,
+): { readonly file: string; readonly options: SiteOptions } | number {
+  if (args.positional.length !== 1)
+    return usageError(
+      io,
+      command,
+      `${command}: give exactly one file (a workbook, a site file or an equipment list); got ${args.positional.length}`,
+    );
+  const options = readSiteOptions(args);
+  if (!options.ok) return usageError(io, command, `${command}: ${options.message}`);
+  return { file: args.positional[0] as string, options: options.options };
 }
