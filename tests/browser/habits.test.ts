@@ -4,29 +4,20 @@
 // were written.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
+import { screenshot, startApp, stopApp, type AppUnderTest, type Browser } from './harness.ts';
 import { cellText, columnOf, openSheet, rowWith, selectCell, typeInCell } from './gridHelpers.ts';
 import { contrastRatio, over, parseColour } from '../../src/ui/format/contrast.ts';
 
-let server: { url: string; close(): Promise<void> };
+let app: AppUnderTest | undefined;
 let browser: Browser;
 let page: Page;
 
 beforeAll(async () => {
-  await buildApp();
-  server = await serve();
-  browser = await launch();
-  page = browser.page;
-  await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], {
-    origin: server.url.replace(/\/$/, ''),
-  });
-  await openApp(page, server.url);
+  app = await startApp();
+  ({ browser, page } = app);
 });
 
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+afterAll(() => stopApp(app));
 
 const address = () => page.locator('[data-testid="fb-address"]').textContent();
 const caption = () => page.locator('[data-testid="sheet-caption"] strong').textContent();

@@ -106,3 +106,26 @@ export async function screenshot(page: Page, name: string): Promise<void> {
   await mkdir(ARTIFACTS, { recursive: true });
   await page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
 }
+
+/** A served build in a fresh browser, the app open on the demo, clipboard allowed: one suite's page. */
+export interface AppUnderTest {
+  readonly server: { url: string; close(): Promise<void> };
+  readonly browser: Browser;
+  readonly page: Page;
+}
+
+export async function startApp(): Promise<AppUnderTest> {
+  await buildApp();
+  const server = await serve();
+  const browser = await launch();
+  await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], {
+    origin: server.url.replace(/\/$/, ''),
+  });
+  await openApp(browser.page, server.url);
+  return { server, browser, page: browser.page };
+}
+
+export async function stopApp(app: AppUnderTest | undefined): Promise<void> {
+  await app?.browser.close();
+  await app?.server.close();
+}

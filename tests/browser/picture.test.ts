@@ -6,29 +6,22 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
+import { screenshot, startApp, stopApp, type AppUnderTest, type Browser } from './harness.ts';
 import { cell, cellText, columnOf, openSheet, rowWith, selectCell, typeInCell } from './gridHelpers.ts';
 
-let server: { url: string; close(): Promise<void> };
+let app: AppUnderTest | undefined;
 let browser: Browser;
 let page: Page;
 let dir: string;
 
 beforeAll(async () => {
-  await buildApp();
-  server = await serve();
-  browser = await launch();
-  page = browser.page;
-  await browser.context.grantPermissions(['clipboard-read', 'clipboard-write'], {
-    origin: server.url.replace(/\/$/, ''),
-  });
+  app = await startApp();
+  ({ browser, page } = app);
   dir = await mkdtemp(join(tmpdir(), 'kl-picture-'));
-  await openApp(page, server.url);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.close();
+  await stopApp(app);
   if (dir) await rm(dir, { recursive: true, force: true });
 });
 
