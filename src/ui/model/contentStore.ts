@@ -16,8 +16,10 @@ export function trimRow(row: readonly unknown[]): CellContent[] {
   return out;
 }
 
-export function trimRows(rows: readonly (readonly unknown[])[]): CellContent[][] {
-  const out = rows.map(trimRow);
+export function trimRows(rows: readonly (readonly unknown[] | undefined)[]): CellContent[][] {
+  // Array.from, not map: a sparse array (a sheet whose first rows were never written) has holes
+  // that map would keep, and a hole is not a row.
+  const out = Array.from(rows, (r) => trimRow(r ?? []));
   while (out.length > 0 && (out[out.length - 1] as CellContent[]).length === 0) out.pop();
   return out;
 }
@@ -75,7 +77,7 @@ export class ContentStore {
     if (v === null && (rows[row]?.[col] ?? null) === null) return;
     while (rows.length <= row) rows.push([]);
     if (!copied.has(row)) {
-      rows[row] = [...(rows[row] as CellContent[])];
+      rows[row] = [...(rows[row] ?? [])];
       copied.add(row);
     }
     const line = rows[row] as CellContent[];
