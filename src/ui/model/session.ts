@@ -179,6 +179,11 @@ export class WorkbookSession {
   /** Several scattered single-cell writes as one step (an edit, a cut, a clear, a paste). */
   setCells(sheetId: number, cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>): void {
     if (cells.length === 0) return;
+    const bad = cells.find(
+      (c) => !Number.isInteger(c.row) || !Number.isInteger(c.col) || c.row < 0 || c.col < 0,
+    );
+    if (bad)
+      throw new RangeError(`No cell at row ${bad.row}, column ${bad.col}: rows and columns count from 0`);
     let structural = false;
     const title = this.titleText;
     this.step(() => {

@@ -163,6 +163,27 @@ describe('the Compensation sheet follows the buses', () => {
   });
 });
 
+describe('a workbook emptied of equipment', () => {
+  // Found by the living property test: a site whose only motor was cleared has no bus left; a
+  // write addressed to a bus row computed from that empty list (row NaN) reached the content
+  // store and broke undo. The session now refuses a cell address that is not a whole number.
+  it('refuses a write to a row that is not a whole number, and still undoes the clear', () => {
+    const s = open();
+    const motors = id(s, 'Motors');
+    const rows = s.sheetContents(motors).length;
+    const width = (s.sheetContents(motors)[0] ?? []).length;
+    const all = Array.from({ length: rows - 1 }, (_, r) =>
+      Array.from({ length: width }, (_, c) => ({ row: r + 1, col: c, content: null })),
+    ).flat();
+    s.setCells(motors, all);
+    expect(() => s.setCells(id(s, 'Compensation'), [{ row: Number.NaN, col: 1, content: 5 }])).toThrow(
+      /row NaN, column 1/,
+    );
+    expect(s.undo()).toBe(true);
+    expect(s.sheetContents(motors).length).toBe(rows);
+  });
+});
+
 describe('cases follow the Site sheet', () => {
   it('adds a case in the empty Case row, renames one keeping its load factors, refuses a duplicate', () => {
     const s = open();

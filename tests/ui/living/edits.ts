@@ -104,7 +104,8 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
   const cases = model.state.cases;
   const plans = equipmentPlans(cases);
   const buses = model.state.rendered.buses.map((b) => b.name);
-  const pickBus = (k: number) => buses[k % buses.length] as string;
+  // With every row cleared there is no bus left to pick: a new one, as a user would type.
+  const pickBus = (k: number) => buses[k % buses.length] ?? `B${k % 3}`;
   const sheetId = (i: number) => model.ids.equipment[i] as number;
   const present = (i: number) =>
     (model.state.rows[i] ?? []).map((r, k) => ({ r, row: k + 1 })).filter((x) => x.r.present);
@@ -201,6 +202,7 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       return `clear row ${row + 1} of ${cols.sheet.name}`;
     }
     case 'bank': {
+      if (buses.length === 0) return 'bank: no bus';
       const comp = planCompensationColumns(cases);
       const row = 1 + (e.bus % buses.length);
       s.setCells(model.ids.comp, [
@@ -211,6 +213,7 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       return `bank on ${buses[row - 1]}: ${e.steps} × ${e.step}`;
     }
     case 'rename': {
+      if (buses.length === 0) return 'rename: no bus';
       const row = 1 + (e.bus % buses.length);
       const name = `R${e.suffix}-${buses[row - 1]}`;
       if (buses.some((b) => b.toUpperCase() === name.toUpperCase())) return 'rename: taken';
