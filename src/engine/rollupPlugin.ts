@@ -7,8 +7,9 @@
 //
 // Rows naming another bus, blanks and text count as nothing (as in SUMIF); an error value on a
 // matching row is the result (the total cannot be known). The workbook passes each bus only the
-// span of rows that holds its items on each sheet, so an edit reaches its own bus and the buses
-// above it; the export writes the same sums as SUMIF/SUMIFS over whole columns.
+// runs of rows that hold its items on each sheet (a lone row as a cell, a pair of cells), so an
+// edit reaches its own bus and the buses above it; the export writes the same sums as
+// SUMIF/SUMIFS over whole columns.
 import { CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
 import type { ImplementedFunctions } from 'hyperformula';
 import { BUS_SUM } from '../core/workbook/busSums.ts';

@@ -56,6 +56,51 @@ describe('hand-off document', () => {
     expect(numbers).toBeGreaterThan(20);
   });
 
+  it('a bus whose rows are scattered sums each run of its rows, in both flavours', () => {
+    const live = WorkbookSession.fromDoc(buildWorkbook(site, { flavour: 'live' }));
+    const motors = live.engine.getSheetId('Motors') as number;
+    const rows = live.sheetContents(motors);
+    const head = (rows[0] ?? []).map(String);
+    const col = (h: string) => head.indexOf(h);
+    const first = rows[1] ?? [];
+    const bus = String(first[col('Bus')]);
+    const at = rows.length;
+    // Below the list: a motor on the first motor's bus (a second run of its rows), and two on a new
+    // bus named like a comparison ('<AUX>', which a conditional sum would misread) with a row between.
+    const motor = (tag: string, on: string, kw: number) => {
+      const line: (string | number | null)[] = head.map(() => null);
+      line[col('Tag')] = tag;
+      line[col('Bus')] = on;
+      line[col('Rated output (kW)')] = kw;
+      line[col('Efficiency')] = 0.9;
+      line[col('cos φ')] = 0.82;
+      return line;
+    };
+    live.setBlock(motors, at, 0, [motor('X1', '<AUX>', 15), motor('X2', bus, 30), motor('X3', '<AUX>', 7.5)]);
+    const buses = live.engine.getSheetId('Buses') as number;
+    const busLine = live.engine
+      .getSheetFormulas(buses)
+      .find((_, r) => live.engine.getCellValue({ sheet: buses, row: r, col: 0 }) === bus);
+    const sum = busLine?.find((f) => f?.startsWith('=BUS.SUM(')) ?? '';
+    expect(sum.match(/Motors!\$C\$\d+(:\$C\$\d+)?,/g)?.length).toBe(2);
+    const portable = WorkbookSession.fromDoc(handOffDoc(live.toDoc()).doc);
+    const busesOf = (s: WorkbookSession) => s.engine.getSheetValues(s.engine.getSheetId('Buses') as number);
+    const [a, b] = [busesOf(live), busesOf(portable)];
+    expect(a.some((r) => r[0] === '<AUX>')).toBe(true);
+    expect(b.length).toBe(a.length);
+    a.forEach((row, r) =>
+      row.forEach((v, c) => {
+        const w = b[r]?.[c];
+        if (typeof v === 'number') expect(w).toBeCloseTo(v, 9);
+        else expect(w).toEqual(v);
+      }),
+    );
+    // <AUX>'s own P: the two motors' electrical input, Pout / η (IEC 60034-2-1 definition).
+    const aux = a.find((r) => r[0] === '<AUX>') ?? [];
+    const pOwn = (a[0] ?? []).findIndex((h) => typeof h === 'string' && h.startsWith('P own items'));
+    expect(aux[pOwn]).toBeCloseTo((15 + 7.5) / 0.9, 9);
+  });
+
   it('carries typed values, typed-over cells and notes in built-in sheets, as the page shows them', async () => {
     const s = WorkbookSession.fromDoc(buildWorkbook(site, { flavour: 'live' }));
     const loads = s.engine.getSheetId('Loads') as number;

@@ -1,10 +1,12 @@
 // What each bus's own items add up to: the only formulas that look items up by bus name. The
-// live workbook (the page) uses the engine's BUS.SUM functions over the span of rows that hold
-// the bus's items on each sheet, so an edit reaches its own bus and the buses above it only; the
+// live workbook (the page) uses the engine's BUS.SUM functions over the runs of consecutive rows
+// that hold the bus's items on each sheet, so an edit reaches its own bus and the buses above it
+// only, and the engine tracks each item row once (not every row of a span that other buses' rows
+// stretch: 500 rows pasted over 300 buses made every bus depend on almost the whole sheet). The
 // exported workbook uses classic conditional sums over whole columns, which every program reads
 // and which count a row a colleague adds at the bottom.
 import type { EquipmentColumns } from './equipmentColumns.ts';
-import { absCell, columnOn, rangeOn, textLiteral } from './refs.ts';
+import { absCell, cellOn, columnOn, rangeOn, textLiteral } from './refs.ts';
 import type { WorkbookStructure } from './structure.ts';
 import { busKey } from '../site/busNames.ts';
 
@@ -13,26 +15,30 @@ export const BUS_SUM = { all: 'BUS.SUM', absorbed: 'BUS.SUM.ABS', delivered: 'BU
 
 export type Flavour = 'live' | 'portable';
 
-/** First and last cell row of a bus's items on one sheet. */
-export interface Span {
+/** First and last cell row of consecutive rows that hold one bus's items on one sheet. */
+export interface Run {
   readonly first: number;
   readonly last: number;
 }
 
-/** Per bus key, per equipment sheet index, the span of rows that name the bus. */
-export type SpanIndex = ReadonlyMap<string, ReadonlyMap<number, Span>>;
+/** Per bus key, per equipment sheet index, the runs of rows that name the bus, top to bottom. */
+export type BusRowIndex = ReadonlyMap<string, ReadonlyMap<number, readonly Run[]>>;
 
-export function spanIndex(s: WorkbookStructure): SpanIndex {
-  const out = new Map<string, Map<number, Span>>();
+export function busRowIndex(s: WorkbookStructure): BusRowIndex {
+  const out = new Map<string, Map<number, Run[]>>();
   for (const sheet of s.sheets) {
     if (sheet.cols.role !== 'shunt') continue;
     sheet.rows.forEach((r, i) => {
       if (!r.present || r.bus === '') return;
       const key = busKey(r.bus);
       let bySheet = out.get(key);
-      if (!bySheet) out.set(key, (bySheet = new Map<number, Span>()));
-      const span = bySheet.get(sheet.index);
-      bySheet.set(sheet.index, span ? { first: span.first, last: i + 1 } : { first: i + 1, last: i + 1 });
+      if (!bySheet) out.set(key, (bySheet = new Map<number, Run[]>()));
+      let runs = bySheet.get(sheet.index);
+      if (!runs) bySheet.set(sheet.index, (runs = []));
+      const row = i + 1;
+      const lastRun = runs[runs.length - 1];
+      if (lastRun && lastRun.last === row - 1) runs[runs.length - 1] = { first: lastRun.first, last: row };
+      else runs.push({ first: row, last: row });
     });
   }
   return out;
@@ -51,21 +57,28 @@ export function criterion(name: string, nameCell: string): string | undefined {
 
 interface SumTerm {
   readonly cols: EquipmentColumns;
-  readonly span: Span | undefined;
+  readonly runs: readonly Run[];
   readonly valueCol: number;
+}
+
+/** One column's rows of a run: a cell for a run of one row (the engine tracks a cell most cheaply). */
+function runRef(sheet: string, run: Run, col: number): string {
+  return run.first === run.last
+    ? cellOn(sheet, run.first, col, true)
+    : rangeOn(sheet, run.first, col, run.last, col);
 }
 
 function terms(
   s: WorkbookStructure,
-  spans: SpanIndex,
+  busRows: BusRowIndex,
   key: string,
   pick: (c: EquipmentColumns) => number | undefined,
 ): SumTerm[] {
-  const bySheet = spans.get(key);
+  const bySheet = busRows.get(key);
   return s.sheets.flatMap((sheet) => {
     const valueCol = sheet.cols.role === 'shunt' ? pick(sheet.cols) : undefined;
     if (valueCol === undefined) return [];
-    return [{ cols: sheet.cols, span: bySheet?.get(sheet.index), valueCol }];
+    return [{ cols: sheet.cols, runs: bySheet?.get(sheet.index) ?? [], valueCol }];
   });
 }
 
@@ -75,7 +88,7 @@ function terms(
  */
 export function ownSum(
   s: WorkbookStructure,
-  spans: SpanIndex,
+  busRows: BusRowIndex,
   flavour: Flavour,
   bus: { name: string; nameCell: string },
   pick: (c: EquipmentColumns) => number | undefined,
@@ -83,21 +96,14 @@ export function ownSum(
   /** Portable 'delivered': the cell holding this bus's absorbed sum. */
   absorbedCell?: string,
 ): string {
-  const list = terms(s, spans, busKey(bus.name), pick);
+  const list = terms(s, busRows, busKey(bus.name), pick);
   if (flavour === 'live') {
-    const pairs = list
-      .filter((t) => t.span)
-      .map((t) => {
-        const { first, last } = t.span as Span;
-        const keys = rangeOn(
-          t.cols.sheet.name,
-          first,
-          t.cols.input.get('bus') as number,
-          last,
-          t.cols.input.get('bus') as number,
-        );
-        return `${keys},${rangeOn(t.cols.sheet.name, first, t.valueCol, last, t.valueCol)}`;
-      });
+    const pairs = list.flatMap((t) =>
+      t.runs.map((run) => {
+        const sheet = t.cols.sheet.name;
+        return `${runRef(sheet, run, t.cols.input.get('bus') as number)},${runRef(sheet, run, t.valueCol)}`;
+      }),
+    );
     return pairs.length === 0 ? '=0' : `=${BUS_SUM[part]}(${bus.nameCell},${pairs.join(',')})`;
   }
   const portable = (positive: boolean) => portableSum(list, bus, positive);
@@ -116,9 +122,10 @@ function portableSum(
   const parts = list.flatMap((t) => {
     const sheet = t.cols.sheet.name;
     if (crit === undefined) {
-      if (!t.span) return [];
-      const vals = rangeOn(sheet, t.span.first, t.valueCol, t.span.last, t.valueCol);
-      return [positive ? `SUMIF(${vals},">0")` : `SUM(${vals})`];
+      return t.runs.map((run) => {
+        const vals = runRef(sheet, run, t.valueCol);
+        return positive ? `SUMIF(${vals},">0")` : `SUM(${vals})`;
+      });
     }
     const keys = columnOn(sheet, t.cols.input.get('bus') as number);
     const vals = columnOn(sheet, t.valueCol);

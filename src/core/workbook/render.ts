@@ -6,7 +6,7 @@ import { busKey } from '../site/busNames.ts';
 import { shownText } from '../text/cellText.ts';
 import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from './document.ts';
 import { planBusColumns, type BusColumns } from './busColumns.ts';
-import { spanIndex, type Flavour } from './busSums.ts';
+import { busRowIndex, type Flavour } from './busSums.ts';
 import {
   BANK_INPUTS,
   NOTE_HEADER,
@@ -210,7 +210,7 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
   );
   const busCols = planBusColumns(cases);
   const compCols = planCompensationColumns(cases);
-  const spans = spanIndex(structure);
+  const busRows = busRowIndex(structure);
   const busRow = (bus: string) => {
     const i = structure.busIndex.get(busKey(bus));
     return i === undefined ? undefined : i + 1;
@@ -273,7 +273,7 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     cols: busCols,
     comp: compCols,
     flavour: opts.flavour,
-    spans,
+    busRows,
   });
   const busesOver = overridesOf(busesSheet);
   sheets.push(
@@ -293,7 +293,7 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     cols: compCols,
     busCols,
     flavour: opts.flavour,
-    spans,
+    busRows,
     inputs: bankInputsOf(compSheet, compCols),
   });
   // Bank inputs are placed by bus; whatever the sheet held in the table before is written anew.

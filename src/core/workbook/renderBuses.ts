@@ -6,7 +6,7 @@
 import type { CellContent } from './document.ts';
 import type { BusColumns } from './busColumns.ts';
 import type { CompensationColumns } from './compensationColumns.ts';
-import { ownSum, nameCellOf, type Flavour, type SpanIndex } from './busSums.ts';
+import { ownSum, nameCellOf, type Flavour, type BusRowIndex } from './busSums.ts';
 import { SHEETS } from './layout.ts';
 import { cell, cellOn } from './refs.ts';
 import type { BusInfo, WorkbookStructure } from './structure.ts';
@@ -18,23 +18,23 @@ export interface BusesInput {
   readonly cols: BusColumns;
   readonly comp: CompensationColumns;
   readonly flavour: Flavour;
-  readonly spans: SpanIndex;
+  readonly busRows: BusRowIndex;
 }
 
 /** The own-items sums of bus i: [column, formula] on the Buses sheet. */
 export function ownSumCells(input: BusesInput, i: number): Array<readonly [number, string]> {
-  const { s, cols, flavour, spans } = input;
+  const { s, cols, flavour, busRows } = input;
   const b = s.buses[i] as BusInfo;
   const r = i + 1;
   const bus = { name: b.name, nameCell: nameCellOf(r) };
   const out: Array<readonly [number, string]> = [];
   s.cases.forEach((_, k) => {
-    out.push([cols.pOwn[k] as number, ownSum(s, spans, flavour, bus, (c) => c.p?.[k], 'all')]);
-    out.push([cols.qAbsOwn[k] as number, ownSum(s, spans, flavour, bus, (c) => c.q?.[k], 'absorbed')]);
+    out.push([cols.pOwn[k] as number, ownSum(s, busRows, flavour, bus, (c) => c.p?.[k], 'all')]);
+    out.push([cols.qAbsOwn[k] as number, ownSum(s, busRows, flavour, bus, (c) => c.q?.[k], 'absorbed')]);
     const absorbed = cell(r, cols.qAbsOwn[k] as number);
     out.push([
       cols.qDelOwn[k] as number,
-      ownSum(s, spans, flavour, bus, (c) => c.q?.[k], 'delivered', absorbed),
+      ownSum(s, busRows, flavour, bus, (c) => c.q?.[k], 'delivered', absorbed),
     ]);
   });
   return out;

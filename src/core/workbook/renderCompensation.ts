@@ -7,7 +7,7 @@
 import type { CellContent } from './document.ts';
 import type { BusColumns } from './busColumns.ts';
 import { COMP_HEADERS, compensationInputCols, type CompensationColumns } from './compensationColumns.ts';
-import { ownSum, nameCellOf, type Flavour, type SpanIndex } from './busSums.ts';
+import { ownSum, nameCellOf, type Flavour, type BusRowIndex } from './busSums.ts';
 import { SHEETS } from './layout.ts';
 import { absCell, cell, cellOn, rangeOn } from './refs.ts';
 import { REQUIREMENT_TEXT, settingRef } from './settingsLayout.ts';
@@ -21,7 +21,7 @@ export interface CompensationInput {
   readonly cols: CompensationColumns;
   readonly busCols: BusColumns;
   readonly flavour: Flavour;
-  readonly spans: SpanIndex;
+  readonly busRows: BusRowIndex;
   /** Inputs typed per bus key: input column → content. */
   readonly inputs: ReadonlyMap<string, ReadonlyMap<number, CellContent>>;
 }
@@ -76,7 +76,7 @@ export function plainInstalledCell(input: CompensationInput, i: number): string 
   const b = input.s.buses[i] as BusInfo;
   return ownSum(
     input.s,
-    input.spans,
+    input.busRows,
     input.flavour,
     { name: b.name, nameCell: nameCellOf(i + 1) },
     (c) => c.resonance,

@@ -2,7 +2,7 @@
 // After every user step the session asks it what to write so that, in the same undo step:
 // - an equipment row that became an item (typed, pasted, filled, inserted) gets its computed
 //   columns, and one that stopped being one loses them;
-// - every bus sums exactly its rows (BUS.SUM over the span of its rows on each sheet);
+// - every bus sums exactly its rows (BUS.SUM over the runs of its rows on each sheet);
 // - when the buses themselves change (a new bus, a renamed one, another feeder, a voltage stated
 //   elsewhere) the Buses and Compensation sheets are written anew, banks staying with their bus.
 // Everything it writes is what render.ts writes for the same inputs, so opening the saved
@@ -11,7 +11,7 @@ import type { HyperFormula } from '../../engine/index.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 import { busKey } from '../../core/site/busNames.ts';
 import { planBusColumns, type BusColumns } from '../../core/workbook/busColumns.ts';
-import { spanIndex } from '../../core/workbook/busSums.ts';
+import { busRowIndex } from '../../core/workbook/busSums.ts';
 import {
   compensationInputCols,
   planCompensationColumns,
@@ -145,16 +145,16 @@ export class SiteModel {
       });
       return new Map(computedCells(cols, row, info, s.cases, lookup)).get(col) ?? null;
     }
-    const spans = spanIndex(s);
+    const busRows = busRowIndex(s);
     if (role.kind === 'buses')
-      return renderBusesSheet({ s, cols: bus, comp, flavour: 'live', spans })[row]?.[col] ?? null;
+      return renderBusesSheet({ s, cols: bus, comp, flavour: 'live', busRows })[row]?.[col] ?? null;
     if (role.kind === 'compensation') {
       const grid = renderCompensationSheet({
         s,
         cols: comp,
         busCols: bus,
         flavour: 'live',
-        spans,
+        busRows,
         inputs: this.bankInputs(new Map()),
       });
       return grid[row]?.[col] ?? null;
@@ -322,7 +322,7 @@ export class SiteModel {
   private sumWrites(s: WorkbookStructure, keys: ReadonlySet<string>): Write[] {
     if (keys.size === 0) return [];
     const { bus, comp } = this.plans();
-    const input = { s, cols: bus, comp, flavour: 'live' as const, spans: spanIndex(s) };
+    const input = { s, cols: bus, comp, flavour: 'live' as const, busRows: busRowIndex(s) };
     const out: Write[] = [];
     const want = (sheet: number, row: number, col: number, formula: string) => {
       if (this.isOverride(sheet, row, col)) return;
@@ -347,7 +347,7 @@ export class SiteModel {
   /** The Buses and Compensation sheets written anew for a structure, banks kept with their bus. */
   private writeDerived(s: WorkbookStructure, renamed: ReadonlyMap<string, string>): Write[] {
     const { bus, comp } = this.plans();
-    const spans = spanIndex(s);
+    const busRows = busRowIndex(s);
     const inputs = this.bankInputs(renamed);
     // A bus that goes away keeps its bank inputs aside; one that comes back gets them again.
     const retired = new Map(this.state.retired);
@@ -363,8 +363,15 @@ export class SiteModel {
       retired.delete(b.key);
     }
     this.state = { ...this.state, retired };
-    const buses = renderBusesSheet({ s, cols: bus, comp, flavour: 'live', spans });
-    const compGrid = renderCompensationSheet({ s, cols: comp, busCols: bus, flavour: 'live', spans, inputs });
+    const buses = renderBusesSheet({ s, cols: bus, comp, flavour: 'live', busRows });
+    const compGrid = renderCompensationSheet({
+      s,
+      cols: comp,
+      busCols: bus,
+      flavour: 'live',
+      busRows,
+      inputs,
+    });
     const out = [
       ...this.gridWrites(this.ids.buses, buses, this.state.extent.buses, bus.columns.length),
       ...this.gridWrites(this.ids.comp, compGrid, this.state.extent.comp, comp.columns.length),

@@ -247,7 +247,7 @@ describe('workbook shape', () => {
     expect(text).toMatch(/resonance and switching overvoltage can hurt people/i);
   });
 
-  it('sums each bus over the span of its own rows in the live flavour, one call per case and part', () => {
+  it('sums each bus over the runs of its own rows in the live flavour, one call per case and part', () => {
     const buses = doc.sheets.find((s) => s.name === 'Buses');
     const motors = doc.sheets.find((s) => s.name === 'Motors');
     expect(motors?.cells.slice(1).map((r) => [r[0], r[2]])).toEqual([
@@ -258,11 +258,11 @@ describe('workbook shape', () => {
     ]);
     const lv1 = buses?.cells.find((r) => r[0] === 'LV1') ?? [];
     const calls = lv1.filter((c): c is string => typeof c === 'string' && c.startsWith('=BUS.SUM('));
-    // Motors rows 2–3 and the one load on LV1, per case.
+    // Motors rows 2–3 (a run: a range) and the one load on LV1 (a run of one row: a cell), per case.
     expect(calls).toHaveLength(3);
     for (const c of calls)
       expect(c).toMatch(
-        /^=BUS\.SUM\(\$A\$3,Motors!\$C\$2:\$C\$3,Motors!\$[A-Z]+\$2:\$[A-Z]+\$3,Loads!\$C\$2:\$C\$2,Loads!\$[A-Z]+\$2:\$[A-Z]+\$2\)$/,
+        /^=BUS\.SUM\(\$A\$3,Motors!\$C\$2:\$C\$3,Motors!\$[A-Z]+\$2:\$[A-Z]+\$3,Loads!\$C\$2,Loads!\$[A-Z]+\$2\)$/,
       );
     const text = JSON.stringify(buses?.cells);
     // P: the three buses with motors, loads or generators; kvar: all four (MV has a cable); per case.
