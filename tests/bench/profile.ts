@@ -1,6 +1,7 @@
 // Where the time goes in one step: `npx tsx tests/bench/profile.ts <step> [rows]` runs the step
 // on the bench site under the V8 sampling profiler and prints the functions with the most self
-// time and the project files most often on the stack. Steps: rollup, build, engine, edit, export, import.
+// time and the project files most often on the stack. Steps: rollup, build, engine, edit,
+// modelEdit, modelInsert, modelPaste (the page's model), export, import.
 // A tool for reading the figures, not part of `npm run bench`.
 import { Session } from 'node:inspector/promises';
 import type { Site } from '../../src/core/site/model.ts';
@@ -14,6 +15,7 @@ import { MotorEdits } from './workbookView.ts';
 import { exportWorkbookXlsx, importKvarXlsx } from '../../src/io/xlsx/index.ts';
 import { engineValues } from './steps.ts';
 import { summarise, type Profile } from './profileSummary.ts';
+import { ModelEdits } from './modelSteps.ts';
 
 type Prepared = () => unknown;
 
@@ -35,6 +37,14 @@ async function prepare(step: string, site: Site): Promise<Prepared> {
       for (let k = 0; k < 5; k++) edits.write(hf, sheet, k);
     };
   }
+  if (step === 'modelEdit' || step === 'modelInsert' || step === 'modelPaste') {
+    // The page's model: opened outside the profile, then one kind of edit.
+    const { edits } = ModelEdits.open(live(), site);
+    const rows = site.equipment.length;
+    if (step === 'modelEdit') return () => edits.editOne(rows);
+    if (step === 'modelInsert') return () => edits.insertMotor(rows);
+    return () => edits.paste500(rows);
+  }
   if (step === 'export' || step === 'import') {
     // As the app exports: the portable document, cached results read from the live engine.
     const doc = buildWorkbook(site, { flavour: 'portable' });
@@ -45,7 +55,9 @@ async function prepare(step: string, site: Site): Promise<Prepared> {
     hf.destroy();
     return () => importKvarXlsx(bytes);
   }
-  throw new Error(`unknown step "${step}"; steps: rollup, build, engine, edit, export, import`);
+  throw new Error(
+    `unknown step "${step}"; steps: rollup, build, engine, edit, modelEdit, modelInsert, modelPaste, export, import`,
+  );
 }
 
 async function main(): Promise<void> {
