@@ -143,12 +143,28 @@ export class WorkbookSession {
     this.titleText = s.title;
   }
 
+  /**
+   * Run `work` with the engine's evaluation held until it ends: the user's cells and what the
+   * living model writes after them are evaluated once, not once per write (each evaluation walks
+   * every figure after compensation, ~8,500 cells on a 300-bus site). Nested calls join the outer one.
+   */
+  private deferred<T>(work: () => T): T {
+    if (this.engine.isEvaluationSuspended()) return work();
+    this.engine.suspendEvaluation();
+    try {
+      return work();
+    } finally {
+      // A whole-sheet rewrite inside (an engine batch) may have evaluated and resumed already.
+      if (this.engine.isEvaluationSuspended()) this.engine.resumeEvaluation();
+    }
+  }
+
   /** One undoable step: `work` returns how many engine undo entries it used. */
   private step(work: () => number): void {
     const before = this.saved();
     let entries = 0;
     try {
-      entries = work();
+      entries = this.deferred(work);
     } catch (e) {
       // Put everything back as it was: the engine's entries of this step, then the state beside it.
       for (let i = 0; i < entries; i++) this.engine.undo();
@@ -159,21 +175,26 @@ export class WorkbookSession {
     this.history.record({ engineEntries: entries, before, after: this.saved() });
   }
 
-  /** Write cells to the engine and the contents, in one engine entry; false when there is nothing. */
-  private write(writes: readonly Write[], generated = false): boolean {
-    if (writes.length === 0) return false;
+  /** Write cells to the engine and the contents; returns how many engine undo entries that took. */
+  private write(writes: readonly Write[], generated = false): number {
+    if (writes.length === 0) return 0;
     const blocks = toBlocks(writes);
     const apply = () => {
       for (const b of blocks)
         this.engine.setCellContents({ sheet: b.sheet, row: b.row, col: b.col }, b.cells);
     };
+    let entries = 1;
     if (blocks.length === 1) apply();
-    else this.engine.batch(apply);
+    // Held evaluation (a step): an engine batch would evaluate at its end; one entry per block instead.
+    else if (this.engine.isEvaluationSuspended()) {
+      apply();
+      entries = blocks.length;
+    } else this.engine.batch(apply);
     for (const w of writes) {
       // Generated formulas are not kept as typed: the model writes them again when the file opens.
       this.contents.set(w.sheet, w.row, w.col, generated && isFormula(w.content) ? null : w.content);
     }
-    return true;
+    return entries;
   }
 
   /** Several scattered single-cell writes as one step (an edit, a cut, a clear, a paste). */
@@ -201,12 +222,12 @@ export class WorkbookSession {
     cells: ReadonlyArray<{ row: number; col: number; content: CellContent }>,
   ): { entries: number; structural: boolean } {
     if (!this.site)
-      return { entries: this.write(cells.map((c) => ({ sheet: sheetId, ...c }))) ? 1 : 0, structural: false };
+      return { entries: this.write(cells.map((c) => ({ sheet: sheetId, ...c }))), structural: false };
     const edit = siteEdit(this.site, this.contents, sheetId, cells);
-    let entries = this.write(edit.writes) ? 1 : 0;
+    let entries = this.write(edit.writes);
     const follow = edit.follow();
     if (follow.rebuild) entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
-    else if (this.write(follow.writes, true)) entries++;
+    else entries += this.write(follow.writes, true);
     this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
     return { entries, structural: follow.structural };
   }
@@ -285,7 +306,7 @@ export class WorkbookSession {
       this.moveMarks(sheetId, (m) => marksAfterRows(m, at, count));
       const role = this.site?.role(sheetId);
       if (!this.site || role?.kind !== 'equipment') return 1;
-      return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, count), true) ? 1 : 0);
+      return 1 + this.write(this.site.afterEquipmentRows(role.index, at, count), true);
     });
     this.emit({ kind: 'rows', sheetId });
   }
@@ -298,7 +319,7 @@ export class WorkbookSession {
       this.moveMarks(sheetId, (m) => marksAfterRows(m, at, -count));
       const role = this.site?.role(sheetId);
       if (!this.site || role?.kind !== 'equipment') return 1;
-      return 1 + (this.write(this.site.afterEquipmentRows(role.index, at, -count), true) ? 1 : 0);
+      return 1 + this.write(this.site.afterEquipmentRows(role.index, at, -count), true);
     });
     this.emit({ kind: 'rows', sheetId });
   }
@@ -441,7 +462,9 @@ export class WorkbookSession {
   undo(): boolean {
     const s = this.history.undo();
     if (!s) return false;
-    for (let i = 0; i < s.engineEntries; i++) this.engine.undo();
+    this.deferred(() => {
+      for (let i = 0; i < s.engineEntries; i++) this.engine.undo();
+    });
     this.restore(s.before);
     this.emit({ kind: 'history' });
     return true;
@@ -450,7 +473,9 @@ export class WorkbookSession {
   redo(): boolean {
     const s = this.history.redo();
     if (!s) return false;
-    for (let i = 0; i < s.engineEntries; i++) this.engine.redo();
+    this.deferred(() => {
+      for (let i = 0; i < s.engineEntries; i++) this.engine.redo();
+    });
     this.restore(s.after);
     this.emit({ kind: 'history' });
     return true;

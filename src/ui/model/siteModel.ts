@@ -168,6 +168,11 @@ export class SiteModel {
   private valueAt(sheet: number, row: number, col: number): CellContent {
     const typed = this.contents.cell(sheet, row, col);
     if (!isFormula(typed)) return typed;
+    // The session holds evaluation during a step; a typed formula's result is needed now.
+    if (this.hf.isEvaluationSuspended()) {
+      this.hf.resumeEvaluation();
+      this.hf.suspendEvaluation();
+    }
     const v = this.hf.getCellValue({ sheet, row, col });
     return typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean' ? v : null;
   }
