@@ -33,6 +33,8 @@ export type ApplyResult =
       readonly site: Site;
       readonly added: number;
       readonly dropped: number;
+      /** How many typical values the rows took for blanks (marked as assumed). */
+      readonly assumed: number;
       readonly problems: readonly Problem[];
     }
   | { readonly ok: false; readonly message: string; readonly problems: readonly Problem[] };
@@ -119,9 +121,24 @@ export function applyImport(current: WorkbookDoc, preview: ImportPreview, opts: 
       problems: errors,
     };
   }
+  // Typical values assumed for the imported rows follow them to their place in the workbook.
+  const placed = new Map(incoming.map((e, k) => [preview.equipment.indexOf(e), kept.length + k]));
+  const assumed = preview.assumed.flatMap((a) => {
+    const index = placed.get(a.index);
+    return index === undefined ? [] : [{ ...a, index }];
+  });
   const doc = buildWorkbook(site, {
     flavour: opts.flavour ?? 'live',
+    ...(assumed.length > 0 ? { assumed } : {}),
     ...(opts.mode === 'append' && open.banks.length > 0 ? { banks: open.banks } : {}),
   });
-  return { ok: true, doc: { ...doc, title: current.title }, site, added: incoming.length, dropped, problems };
+  return {
+    ok: true,
+    doc: { ...doc, title: current.title },
+    site,
+    added: incoming.length,
+    dropped,
+    assumed: assumed.length,
+    problems,
+  };
 }
