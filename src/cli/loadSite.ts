@@ -16,6 +16,7 @@ import { CASE_PREFIX, DEFAULT_CASE } from '../core/site/parse.ts';
 import { error, info, type Problem } from '../core/site/problems.ts';
 import { readSiteFile } from '../core/site/siteFile.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
+import { fillSiteTypical, type AssumedInput } from '../core/site/typical/fillSite.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
 import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
@@ -50,6 +51,10 @@ export interface LoadedSite {
   readonly rateRows?: readonly (readonly CellContent[])[];
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
+  /** With --assume-typical: the typical values put in for blanks (indices into the site's equipment). */
+  readonly assumed: readonly AssumedInput[];
+  /** With --assume-typical: blanks left blank, and why. */
+  readonly notAssumed: readonly string[];
 }
 
 /** `usage`: the command line does not fit the file (an option names what the file lacks). */
@@ -103,6 +108,8 @@ function jsonFormat(text: string): { format: unknown } | 'not-json' | 'invalid' 
 
 type Read = {
   site: Site;
+  assumed?: readonly AssumedInput[];
+  notAssumed?: readonly string[];
   problems: Problem[];
   banks?: readonly BankChoice[];
   source: SourceKind;
@@ -240,7 +247,10 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     asked !== undefined && resolveCase(listCases, asked) === undefined ? asked : DEFAULT_CASE;
   // The settings go into the preview, which validates the rows under them as the page does.
   const settings = withOptions(defaultSettings(siteNameFromFile(file), [defaultCase]), options);
-  const preview = previewImport(mapped, { settings });
+  const preview = previewImport(mapped, {
+    settings,
+    ...(options.assumeTypical ? { fillTypical: true } : {}),
+  });
   const problems = [...preview.problems];
   // The preview checks rows only when there are some; a list of headers alone is still no site.
   if (preview.counts.rows === 0)
@@ -251,6 +261,8 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     site: { settings: { ...settings, cases: [...preview.cases] }, equipment: [...preview.equipment] },
     problems,
     source: 'list',
+    assumed: preview.assumed,
+    notAssumed: preview.notAssumed,
   };
 }
 
@@ -281,8 +293,15 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
       `--map and --unit apply to equipment lists (CSV or xlsx); ${file} is a ${describeSource(read.source)}`,
       true,
     );
-  const site: Site =
+  const given: Site =
     read.source === 'list' ? read.site : { ...read.site, settings: withOptions(read.site.settings, options) };
+  // A list was filled as its rows arrived (the import's way); any other source is filled here,
+  // before it is validated, by the same rule.
+  const fill =
+    options.assumeTypical && read.source !== 'list'
+      ? fillSiteTypical(given)
+      : { site: given, assumed: read.assumed ?? [], notAssumed: read.notAssumed ?? [] };
+  const site = fill.site;
   const caseName =
     options.caseName === undefined
       ? (site.settings.cases[0] ?? DEFAULT_CASE)
@@ -301,7 +320,11 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
   const banks = read.banks ? { banks: read.banks } : {};
   const rates = read.rateRows ? { rateRows: read.rateRows } : {};
-  return { ok: true, loaded: { site, problems, ...banks, ...rates, source: read.source, caseName } };
+  const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed };
+  return {
+    ok: true,
+    loaded: { site, problems, ...banks, ...rates, source: read.source, caseName, ...typical },
+  };
 }
 
 export function describeSource(source: SourceKind): string {

@@ -27,6 +27,8 @@ export interface SiteOptions {
   readonly caseName?: string;
   readonly map: readonly ColumnChoice[];
   readonly units: readonly UnitChoiceOption[];
+  /** Fill blank motor and transformer inputs with typical values, listed and marked as assumed. */
+  readonly assumeTypical?: boolean;
 }
 
 /** Options every site-reading command accepts (values), and the repeatable ones (lists). */
@@ -40,6 +42,7 @@ export const SITE_VALUE_OPTIONS = [
   '--case',
 ] as const;
 export const SITE_LIST_OPTIONS = ['--map', '--unit'] as const;
+export const SITE_FLAGS = ['--assume-typical'] as const;
 
 /** The --help text of these options, shared word for word by the commands. */
 export const SITE_OPTIONS_HELP = `Site settings (given ones override the file's; a CSV or xlsx list has none of its own,
@@ -58,7 +61,13 @@ Equipment lists (CSV, or the first sheet of an xlsx) are read as the page's impo
 the same header words and units ("Rated output (MW)"), decimal commas, percent signs.
   --map COLUMN=FIELD  read the column with header COLUMN (or letter, e.g. D) as FIELD (tag, bus,
                      kind, p_kw, cos_phi, load:night …; "none" ignores it); may be repeated
-  --unit COLUMN=UNIT  the unit the column's numbers are in (e.g. --unit D=MW); may be repeated`;
+  --unit COLUMN=UNIT  the unit the column's numbers are in (e.g. --unit D=MW); may be repeated
+Tender-stage lists without nameplates:
+  --assume-typical   fill blank inputs of motors (efficiency, cos φ, no-load current, from the
+                     rated output) and transformers (uk, losses, no-load current, from the kVA)
+                     with typical values, as the page's "fill blanks with typical values" does;
+                     each is listed (stderr, or "assumed" in --json) and marked in an export.
+                     Typical values are no substitute for the nameplate or the maker's data.`;
 
 export type OptionsResult =
   { readonly ok: true; readonly options: SiteOptions } | { readonly ok: false; readonly message: string };
@@ -144,6 +153,7 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
   const units = pairs(args.lists.get('--unit') ?? [], '--unit');
   if (typeof units === 'string') return bad(units);
   out.units = units.map(([column, unit]) => ({ column, unit }));
+  if (args.flags.has('--assume-typical')) out.assumeTypical = true;
   return { ok: true, options: out };
 }
 
