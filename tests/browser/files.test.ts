@@ -135,15 +135,26 @@ describe('files', () => {
       /keep this site's \(50 Hz, cos φ ≥ 0\.95, 180 MVA short-circuit power, 2 cases\)/,
     );
     await dlg.locator('[data-testid="import-default-settings"]').check();
+    // The list gives no no-load currents: fill them with typical values as the rows arrive.
+    await dlg.locator('[data-testid="import-fill-typical"]').check();
+    expect(await dlg.locator('[data-testid="import-assumed"]').textContent()).toMatch(
+      /^3 blank value\(s\) take a typical value, marked as assumed/,
+    );
     await dlg.locator('[data-testid="import-next"]').click();
     await expect
       .poll(() => page.locator('[data-testid="notice"]').textContent())
-      .toMatch(/^Imported 3 items from "client-list\.csv"/);
+      .toMatch(/^Imported 3 items from "client-list\.csv" .*2 typical value\(s\) assumed for blanks/);
     await openSheet(page, 'Motors');
     const rows = [await cellText(page, 1, 0), await cellText(page, 2, 0)];
     expect(rows.sort()).toEqual(['P-201', 'P-202']);
     const col = await columnOf(page, 'Rated output (kW)');
     expect(await cellText(page, 1, col)).toBe('90.0');
+    // The filled no-load currents are marked as assumed; the typed efficiencies are not.
+    const i0 = await columnOf(page, 'No-load current (%)');
+    expect(await cell(page, 1, i0).getAttribute('class')).toMatch(/kl-mark-assumed/);
+    expect(await cell(page, 1, await columnOf(page, 'Efficiency')).getAttribute('class')).not.toMatch(
+      /kl-mark-assumed/,
+    );
     await openSheet(page, 'Site');
     const ssc = await rowWith(page, 'Short-circuit power at the connection point');
     expect(await cellText(page, ssc, 1)).toBe('');

@@ -136,8 +136,17 @@ function previewNodes(pv: ImportPreview): Node[] {
       ),
     ),
   ]);
+  const assumed = pv.assumed.length
+    ? [
+        el('p', {
+          attrs: { 'data-testid': 'import-assumed' },
+          text: `${pv.assumed.length} blank value(s) take a typical value, marked as assumed (listed in Checks); replace them with nameplate data when known.${pv.notAssumed.length ? ` ${pv.notAssumed.length} blank(s) have no typical value (first: ${pv.notAssumed[0]}).` : ''}`,
+        }),
+      ]
+    : [];
   return [
     head,
+    ...assumed,
     ...(pv.problems.length ? [problems] : []),
     el('div', { className: 'kl-scroll' }, [table]),
     ...(pv.rows.length > shown.length
@@ -187,6 +196,12 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
   });
   const dropBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-drop' } });
   const drop = el('label', { className: 'kl-tick' }, [dropBox, ' Leave out the rows with errors']);
+  // Tender-stage lists lack nameplates: the same fill as Edit → Fill blanks, as the rows arrive.
+  const fillBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-fill-typical' } });
+  const fill = el('label', { className: 'kl-tick' }, [
+    fillBox,
+    ' Fill blanks of motors and transformers with typical values (marked as assumed)',
+  ]);
   // Replacing the equipment asks what becomes of the site settings; adding always keeps them.
   const keepBox = el('input', {
     attrs: {
@@ -239,6 +254,7 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
       );
     } else if (preview) {
       body.replaceChildren(
+        fill,
         ...previewNodes(preview),
         el('p', {
           className: 'kl-muted',
@@ -285,16 +301,22 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     }
     dlg.close();
     const left = r.dropped > 0 ? `, ${r.dropped} row(s) with errors left out` : '';
-    const done = `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`;
+    const assumed = r.assumed > 0 ? `, ${r.assumed} typical value(s) assumed for blanks` : '';
+    const done = `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}${assumed}).`;
     void openWithProgress(app, `Importing "${file.name}"`, async () => ({ doc: r.doc, note: done }));
   };
 
   back.addEventListener('click', () => ((step = 'map'), render()));
   add.addEventListener('click', () => accept('append'));
   dropBox.addEventListener('change', render);
+  const previewNow = () => previewImport(proposal, { settings, fillTypical: fillBox.checked });
+  fillBox.addEventListener('change', () => {
+    preview = previewNow();
+    render();
+  });
   next.addEventListener('click', () => {
     if (step === 'preview') return accept('replace');
-    preview = previewImport(proposal, { settings });
+    preview = previewNow();
     step = 'preview';
     render();
   });
