@@ -26,6 +26,7 @@ import {
   proposeMapping,
   withColumnTarget,
   withColumnUnit,
+  withDefaultKind,
   type MappingProposal,
 } from '../io/import/mapping.ts';
 import { readEquipmentFile } from '../io/import/table.ts';
@@ -185,6 +186,11 @@ function headersText(p: MappingProposal): string {
 
 function applyChoices(p: MappingProposal, file: string, options: SiteOptions): MappingProposal | LoadResult {
   let out = p;
+  if (options.kind !== undefined) {
+    const k = withDefaultKind(out, options.kind);
+    if (!k.ok) return fail(`--kind ${options.kind}: ${k.message}`, true);
+    out = k.proposal;
+  }
   for (const m of options.map) {
     const i = columnIndex(out, m.column);
     if (i === undefined)
@@ -236,7 +242,7 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     );
   if (mapped.missing.length > 0)
     return fail(
-      `${file}: no column for ${mapped.missing.join(', ')} (columns found: ${headersText(mapped)}); name it in the header row or use --map COLUMN=${mapped.missing[0] as string}`,
+      `${file}: no column for ${mapped.missing.join(', ')} (columns found: ${headersText(mapped)}); name it in the header row or use --map COLUMN=${mapped.missing[0] as string}${mapped.missing.includes('kind') ? ', or give every row one kind with --kind KIND' : ''}`,
     );
   // The plain load column's case: --case names it unless the list has a load:<case> column of that name.
   const listCases = mapped.columns.flatMap((c) =>
@@ -288,9 +294,12 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
     read = await readJson(file, bytes);
   read ??= await readList(file, bytes, options);
   if ('ok' in read) return read;
-  if (read.source !== 'list' && (options.map.length > 0 || options.units.length > 0))
+  if (
+    read.source !== 'list' &&
+    (options.map.length > 0 || options.units.length > 0 || options.kind !== undefined)
+  )
     return fail(
-      `--map and --unit apply to equipment lists (CSV or xlsx); ${file} is a ${describeSource(read.source)}`,
+      `--map, --unit and --kind apply to equipment lists (CSV or xlsx); ${file} is a ${describeSource(read.source)}`,
       true,
     );
   const given: Site =

@@ -27,6 +27,8 @@ export interface SiteOptions {
   readonly caseName?: string;
   readonly map: readonly ColumnChoice[];
   readonly units: readonly UnitChoiceOption[];
+  /** A list without a kind column: the kind of every row (checked against the kinds when read). */
+  readonly kind?: string;
   /** Fill blank motor and transformer inputs with typical values, listed and marked as assumed. */
   readonly assumeTypical?: boolean;
 }
@@ -40,6 +42,7 @@ export const SITE_VALUE_OPTIONS = [
   '--tan-phi',
   '--ssc-mva',
   '--case',
+  '--kind',
 ] as const;
 export const SITE_LIST_OPTIONS = ['--map', '--unit'] as const;
 export const SITE_FLAGS = ['--assume-typical'] as const;
@@ -62,6 +65,7 @@ the same header words and units ("Rated output (MW)"), decimal commas, percent s
   --map COLUMN=FIELD  read the column with header COLUMN (or letter, e.g. D) as FIELD (tag, bus,
                      kind, p_kw, cos_phi, load:night …; "none" ignores it); may be repeated
   --unit COLUMN=UNIT  the unit the column's numbers are in (e.g. --unit D=MW); may be repeated
+  --kind KIND        a list without a kind column: every row is KIND (motor, load, transformer …)
 Tender-stage lists without nameplates:
   --assume-typical   fill blank inputs of motors (efficiency, cos φ, no-load current, from the
                      rated output) and transformers (uk, losses, no-load current, from the kVA)
@@ -143,6 +147,11 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
   if (caseName !== undefined) {
     if (caseName.trim() === '') return bad('--case must not be blank');
     out.caseName = caseName.trim();
+  }
+  const kind = v('--kind');
+  if (kind !== undefined) {
+    if (kind.trim() === '') return bad('--kind must not be blank');
+    out.kind = kind.trim();
   }
   const map = pairs(args.lists.get('--map') ?? [], '--map');
   if (typeof map === 'string') return bad(map);

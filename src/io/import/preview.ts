@@ -9,7 +9,7 @@ import { describeWhere, given, problem, type Problem } from '../../core/site/pro
 import { neutraliseText } from '../csv/write.ts';
 import { mergeProblems, validateSite } from '../../core/site/validate.ts';
 import { fillSiteTypical, type AssumedInput } from '../../core/site/typical/fillSite.ts';
-import type { ColumnMapping, MappingProposal } from './mapping.ts';
+import { kindColumnMapped, type ColumnMapping, type MappingProposal } from './mapping.ts';
 import { readCell } from './values.ts';
 
 export interface PreviewRow {
@@ -65,8 +65,9 @@ function isBlank(cells: readonly unknown[]): boolean {
 function canonicalTable(
   p: MappingProposal,
   mapped: readonly ColumnMapping[],
+  everyRowKind: string | undefined,
 ): { rows: string[][]; cells: Array<Record<string, string | number | null>>; fileRows: number[] } {
-  const rows: string[][] = [mapped.map((c) => c.target as string)];
+  const rows: string[][] = [[...mapped.map((c) => c.target as string), ...(everyRowKind ? ['kind'] : [])]];
   const cells: Array<Record<string, string | number | null>> = [];
   const fileRows: number[] = [];
   p.table.rows.slice(p.headerRow).forEach((raw, k) => {
@@ -77,6 +78,13 @@ function canonicalTable(
       const text = r.kind === 'blank' ? '' : r.kind === 'number' ? String(r.value) : r.text;
       out.push(text);
       shown[c.target as string] = r.kind === 'blank' ? null : r.kind === 'number' ? r.value : r.text;
+    }
+    // The kind chosen for every row, when no column gives it (a row blank in the mapped
+    // columns stays blank, so the parser skips it as before).
+    if (everyRowKind) {
+      const blank = out.every((t) => t === '');
+      out.push(blank ? '' : everyRowKind);
+      shown.kind = blank ? null : everyRowKind;
     }
     // Blank rows stay in place (the parser skips them) so row numbers keep matching the file.
     rows.push(isBlank(raw) ? out.map(() => '') : out);
@@ -153,7 +161,8 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
   const base = opts.settings ?? DEFAULT_IMPORT_SETTINGS;
   const mapped = p.columns.filter((c) => c.target !== null);
   const byTarget = new Map(mapped.map((c) => [c.target as string, c]));
-  const { rows, cells, fileRows } = canonicalTable(p, mapped);
+  const everyRowKind = kindColumnMapped(p) ? undefined : p.defaultKind;
+  const { rows, cells, fileRows } = canonicalTable(p, mapped, everyRowKind);
   const parsed = parseEquipmentTable(rows, {
     headerRow: p.headerRow,
     defaultCase: base.cases[0] ?? DEFAULT_CASE,
@@ -181,7 +190,7 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
   const withWarnings = previewRows.filter((r) => r.status === 'warning').length;
   return {
     proposal: p,
-    targets: mapped.map((c) => c.target as string),
+    targets: [...mapped.map((c) => c.target as string), ...(everyRowKind ? ['kind'] : [])],
     rows: previewRows,
     equipment: site.equipment,
     cases: parsed.cases,

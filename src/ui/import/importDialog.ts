@@ -7,20 +7,16 @@ import {
   applyImport,
   DEFAULT_IMPORT_SETTINGS,
   describeProblem,
-  mappingTargets,
   MAPPING_MEMORY_STORAGE_KEY,
   parseMappingMemory,
   previewImport,
   proposeMapping,
   readEquipmentFile,
   rememberMapping,
-  unitChoicesFor,
-  withColumnTarget,
-  withColumnUnit,
   type ImportPreview,
-  type MappingProposal,
 } from '../../io/import/index.ts';
 import { el } from '../dom.ts';
+import { kindForEveryRow, mappingTable, previewNodes } from './importTables.ts';
 import { openDialog } from '../dialogs/dialog.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
@@ -34,125 +30,6 @@ function loadMemory() {
   } catch {
     return parseMappingMemory(null);
   }
-}
-
-function samples(p: MappingProposal, index: number): string {
-  const out: string[] = [];
-  for (const row of p.table.rows.slice(p.headerRow)) {
-    const v = row[index];
-    if (v !== null && v !== undefined && String(v).trim() !== '') out.push(String(v));
-    if (out.length === 3) break;
-  }
-  return out.join(' · ');
-}
-
-function mappingTable(
-  p: MappingProposal,
-  cases: readonly string[],
-  onChange: (next: MappingProposal) => void,
-): HTMLElement {
-  const targets = mappingTargets(cases);
-  const rows = p.columns.map((c) => {
-    const target = el('select', {
-      className: 'kl-select',
-      attrs: { 'aria-label': `Column ${c.letter} feeds`, 'data-testid': `map-${c.letter}` },
-    });
-    target.append(
-      el('option', { text: '— ignore —', attrs: { value: '' } }),
-      ...targets.map((t) => el('option', { text: t, attrs: { value: t } })),
-    );
-    target.value = c.target ?? '';
-    target.addEventListener('change', () =>
-      onChange(withColumnTarget(p, c.index, target.value === '' ? null : target.value)),
-    );
-    const unit = el('select', {
-      className: 'kl-select',
-      attrs: { 'aria-label': `Unit of column ${c.letter}` },
-    });
-    const choices = c.target ? unitChoicesFor(c.target) : [];
-    const textOnly = choices.length <= 1 && (choices[0]?.label ?? '') === '';
-    unit.append(
-      ...choices.map((u) =>
-        el('option', {
-          text: textOnly ? '—' : u.label === '' ? '(plain number)' : u.label,
-          attrs: { value: u.label },
-        }),
-      ),
-    );
-    unit.value = c.unit.label;
-    unit.disabled = choices.length <= 1;
-    unit.addEventListener('change', () => onChange(withColumnUnit(p, c.index, unit.value)));
-    return el('tr', { className: c.target ? '' : 'is-ignored' }, [
-      el('td', { className: 'kl-mono', text: c.letter }),
-      el('td', { text: c.header || '(no header)' }),
-      el('td', { className: 'kl-muted', text: samples(p, c.index) }),
-      el('td', {}, [target]),
-      el('td', {}, [unit]),
-      el('td', { className: 'kl-muted', text: c.note ?? (c.why === 'none' ? '' : c.why) }),
-    ]);
-  });
-  return el('table', { className: 'kl-import-table' }, [
-    el('thead', {}, [
-      el(
-        'tr',
-        {},
-        ['', 'header in the file', 'first values', 'feeds', 'unit', 'why'].map((h) => el('th', { text: h })),
-      ),
-    ]),
-    el('tbody', {}, rows),
-  ]);
-}
-
-function previewNodes(pv: ImportPreview): Node[] {
-  const { counts } = pv;
-  const head = el('p', {
-    attrs: { 'data-testid': 'import-counts' },
-    text: `${counts.rows} rows: ${counts.ok} fine, ${counts.withWarnings} with warnings, ${counts.withErrors} with errors.`,
-  });
-  const problems = el(
-    'ul',
-    { className: 'kl-problems', attrs: { 'data-testid': 'import-problems' } },
-    pv.problems.slice(0, 200).map((p) => el('li', { className: `is-${p.severity}`, text: p.message })),
-  );
-  const shown = pv.rows.slice(0, 60);
-  const table = el('table', { className: 'kl-import-table' }, [
-    el('thead', {}, [
-      el(
-        'tr',
-        {},
-        ['row', ...pv.targets].map((h) => el('th', { text: h })),
-      ),
-    ]),
-    el(
-      'tbody',
-      {},
-      shown.map((r) =>
-        el('tr', { className: `is-${r.status}` }, [
-          el('td', { text: String(r.row) }),
-          ...pv.targets.map((t) =>
-            el('td', { text: r.cells[t] === null || r.cells[t] === undefined ? '' : String(r.cells[t]) }),
-          ),
-        ]),
-      ),
-    ),
-  ]);
-  const assumed = pv.assumed.length
-    ? [
-        el('p', {
-          attrs: { 'data-testid': 'import-assumed' },
-          text: `${pv.assumed.length} blank value(s) take a typical value, marked as assumed (listed in Checks); replace them with nameplate data when known.${pv.notAssumed.length ? ` ${pv.notAssumed.length} blank(s) have no typical value (first: ${pv.notAssumed[0]}).` : ''}`,
-        }),
-      ]
-    : [];
-  return [
-    head,
-    ...assumed,
-    ...(pv.problems.length ? [problems] : []),
-    el('div', { className: 'kl-scroll' }, [table]),
-    ...(pv.rows.length > shown.length
-      ? [el('p', { className: 'kl-muted', text: `…and ${pv.rows.length - shown.length} more rows.` })]
-      : []),
-  ];
 }
 
 /** What the import needs of the page: the open workbook, and a way to replace it. */
@@ -243,7 +120,8 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     note.textContent = '';
     if (step === 'map') {
       if (proposal.missing.length)
-        note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}.`;
+        note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}${proposal.missing.includes('kind') ? ' (or choose below the kind every row is)' : ''}.`;
+      const everyKind = kindForEveryRow(proposal, (p) => ((proposal = p), render()));
       body.replaceChildren(
         el('p', {
           text: `${file.name}${read.value.sheet ? `, sheet "${read.value.sheet}"` : ''}: header found in row ${proposal.headerRow}. Check what each column feeds and its unit.`,
@@ -251,6 +129,7 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
         el('div', { className: 'kl-scroll' }, [
           mappingTable(proposal, settings.cases, (p) => ((proposal = p), render())),
         ]),
+        ...(everyKind ? [everyKind] : []),
       );
     } else if (preview) {
       body.replaceChildren(
