@@ -1,7 +1,7 @@
 // The header-mapping step: for each column of a client's list, the interchange column it feeds
 // (or none) and the unit its numbers are in. Suggested from remembered choices, our synonym
 // table and the units in the headers; the user can change any of it before the preview.
-import { findKind, kindNames } from '../../core/kinds/index.ts';
+import { columnLabel, findKind, kindNames } from '../../core/kinds/index.ts';
 import { NUMERIC_COLUMNS, TEXT_COLUMNS } from '../../core/site/model.ts';
 import { CASE_PREFIX } from '../../core/site/parse.ts';
 import { columnLetters as columnLetter } from '../../core/workbook/refs.ts';
@@ -159,7 +159,7 @@ function resolveClashes(columns: ColumnMapping[]): ColumnMapping[] {
       target: null,
       unit: ownUnit('tag'),
       why: 'none',
-      note: `also looks like ${c.target}, which column ${held.letter} (${held.header}) feeds`,
+      note: `also looks like ${columnLabel(c.target).label}, which column ${held.letter} (${held.header}) feeds`,
     };
   });
 }

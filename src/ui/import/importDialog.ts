@@ -15,6 +15,7 @@ import {
   rememberMapping,
   type ImportPreview,
 } from '../../io/import/index.ts';
+import { columnLabel } from '../../core/kinds/index.ts';
 import { el } from '../dom.ts';
 import { kindForEveryRow, mappingTable, previewNodes } from './importTables.ts';
 import { openDialog } from '../dialogs/dialog.ts';
@@ -120,7 +121,7 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     note.textContent = '';
     if (step === 'map') {
       if (proposal.missing.length)
-        note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}${proposal.missing.includes('kind') ? ' (or choose below the kind every row is)' : ''}.`;
+        note.textContent = `Still needed: a column for ${proposal.missing.map((t) => columnLabel(t).label).join(', ')}${proposal.missing.includes('kind') ? ' (or choose below the kind every row is)' : ''}.`;
       const everyKind = kindForEveryRow(proposal, (p) => ((proposal = p), render()));
       body.replaceChildren(
         el('p', {

@@ -1,6 +1,6 @@
 // The two tables of the import dialog: the mapping (what each column of the file feeds, its
 // unit, why) and the preview of the rows as they will arrive, with the problems and counts.
-import { kindNames } from '../../core/kinds/index.ts';
+import { columnLabel, kindNames } from '../../core/kinds/index.ts';
 import {
   kindColumnMapped,
   mappingTargets,
@@ -36,9 +36,14 @@ export function mappingTable(
     });
     target.append(
       el('option', { text: '— ignore —', attrs: { value: '' } }),
-      ...targets.map((t) => el('option', { text: t, attrs: { value: t } })),
+      ...targets.map((t) => {
+        const l = columnLabel(t, p.defaultKind);
+        // Short as the sheets head it, so the menu stays narrow; the meaning shows on hover.
+        return el('option', { text: l.label, attrs: { value: t, title: l.words } });
+      }),
     );
     target.value = c.target ?? '';
+    if (c.target) target.title = columnLabel(c.target, p.defaultKind).words;
     target.addEventListener('change', () =>
       onChange(withColumnTarget(p, c.index, target.value === '' ? null : target.value)),
     );
@@ -94,11 +99,13 @@ export function previewNodes(pv: ImportPreview): Node[] {
   const shown = pv.rows.slice(0, 60);
   const table = el('table', { className: 'kl-import-table' }, [
     el('thead', {}, [
-      el(
-        'tr',
-        {},
-        ['row', ...pv.targets].map((h) => el('th', { text: h })),
-      ),
+      el('tr', {}, [
+        el('th', { text: 'row' }),
+        ...pv.targets.map((t) => {
+          const l = columnLabel(t, pv.proposal.defaultKind);
+          return el('th', { text: l.label, attrs: { title: l.words } });
+        }),
+      ]),
     ]),
     el(
       'tbody',
