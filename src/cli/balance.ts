@@ -265,9 +265,10 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
       ? usageError(io, 'balance', `balance: ${loaded.message}`)
       : inputError(io, 'balance', loaded.message);
   const { site, problems, caseName: found } = loaded.loaded;
-  if (!flags.has('--json')) reportAssumed(io, file, site, loaded.loaded);
-  if (problems.some((p) => p.severity === 'error'))
-    return refuseErrors(io, 'balance', file, problems, 'nothing was balanced');
+  const refused = problems.some((p) => p.severity === 'error');
+  // With --json the list is in the JSON, unless the site is refused and no JSON comes.
+  if (!flags.has('--json') || refused) reportAssumed(io, file, site, loaded.loaded);
+  if (refused) return refuseErrors(io, 'balance', file, problems, 'nothing was balanced');
   let balances: CaseBalance[];
   try {
     balances = rollUpAll(site);

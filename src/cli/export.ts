@@ -62,7 +62,9 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     return loaded.usage
       ? usageError(io, 'export', `export: ${loaded.message}`)
       : inputError(io, 'export', loaded.message);
-  const { site, problems, banks, assumed } = loaded.loaded;
+  const { site, problems, banks } = loaded.loaded;
+  // Values assumed now and those the workbook already held as assumed are marked alike.
+  const assumed = [...loaded.loaded.held, ...loaded.loaded.assumed];
   reportAssumed(io, input, site, loaded.loaded);
   if (problems.some((p) => p.severity === 'error'))
     return refuseErrors(io, 'export', input, problems, 'nothing was written');

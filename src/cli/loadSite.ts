@@ -19,6 +19,7 @@ import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import { fillSiteTypical, type AssumedInput } from '../core/site/typical/fillSite.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
+import { assumedInWorkbook } from '../core/workbook/assumedIn.ts';
 import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
 import { rateRowsOf } from '../core/quote/index.ts';
 import { previewImport } from '../io/import/preview.ts';
@@ -56,6 +57,8 @@ export interface LoadedSite {
   readonly assumed: readonly AssumedInput[];
   /** With --assume-typical: blanks left blank, and why. */
   readonly notAssumed: readonly string[];
+  /** Typical values a workbook read already held as assumed (marked by the page); an export keeps them. */
+  readonly held: readonly AssumedInput[];
 }
 
 /** `usage`: the command line does not fit the file (an option names what the file lacks). */
@@ -111,6 +114,7 @@ type Read = {
   site: Site;
   assumed?: readonly AssumedInput[];
   notAssumed?: readonly string[];
+  held?: readonly AssumedInput[];
   problems: Problem[];
   banks?: readonly BankChoice[];
   source: SourceKind;
@@ -133,7 +137,14 @@ async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadRes
     const doc = parseWorkbookText(text);
     if (!doc.ok) return fail(`${file}: ${doc.message}`);
     const r = siteFromWorkbook(doc.doc);
-    return { site: r.site, problems: r.problems, banks: r.banks, source: 'workbook', ...ratesOf(doc.doc) };
+    return {
+      site: r.site,
+      problems: r.problems,
+      banks: r.banks,
+      source: 'workbook',
+      held: assumedInWorkbook(doc.doc, r),
+      ...ratesOf(doc.doc),
+    };
   }
   if (kind !== 'not-json' && kind !== 'invalid' && kind.format !== 'kvar-ledger-site')
     return fail(
@@ -156,6 +167,7 @@ async function readOwnXlsx(bytes: Uint8Array): Promise<Read | undefined> {
     problems: [...notes, ...r.problems],
     banks: r.banks,
     source: 'own-xlsx',
+    held: assumedInWorkbook(imported.doc, r),
     ...ratesOf(imported.doc),
   };
 }
@@ -329,7 +341,7 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
   const banks = read.banks ? { banks: read.banks } : {};
   const rates = read.rateRows ? { rateRows: read.rateRows } : {};
-  const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed };
+  const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed, held: read.held ?? [] };
   return {
     ok: true,
     loaded: { site, problems, ...banks, ...rates, source: read.source, caseName, ...typical },

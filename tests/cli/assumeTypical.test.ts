@@ -133,4 +133,24 @@ describe('kvar-ledger --assume-typical', () => {
     expect(r.code, r.err).toBe(0);
     expect(r.err).toMatch(/8 typical value\(s\) assumed for blanks/);
   });
+
+  it('export of a saved workbook keeps the assumed marks the page put there', async () => {
+    const { WorkbookSession } = await import('../../src/ui/model/session.ts');
+    const { workbookOf } = await import('../../src/ui/templates/templateBuild.ts');
+    const text = readFileSync(new URL('../../templates/cold-store.json', import.meta.url), 'utf8');
+    const s = WorkbookSession.fromDoc(await workbookOf('cold-store', text));
+    const filled = s.fillTypicalValues().filled;
+    expect(filled).toBeGreaterThan(0);
+    const saved = join(tmp, 'filled.kvar.json');
+    writeFileSync(saved, JSON.stringify(s.toDoc()));
+    const xlsx = join(tmp, 'filled.xlsx');
+    const r = await cli(exportRun, saved, xlsx);
+    expect(r.code, r.err).toBe(0);
+    // Nothing new was assumed, so nothing is listed; the page's marks travel to the xlsx.
+    expect(r.err).not.toMatch(/assumed/);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(readFileSync(xlsx) as unknown as ArrayBuffer);
+    const cover = wb.worksheets[0]!.getSheetValues().flat().join('\n');
+    expect(cover).toMatch(new RegExp(`${filled} value\\(s\\) are typical values assumed for blanks`));
+  });
 });

@@ -70,4 +70,22 @@ describe('import with typical values for blanks', () => {
     // The open site's own rows carry no new marks.
     expect(held.every((m) => ['FAN-9', 'PMP-9'].includes(String(motors.cells[m.row]?.[tagCol])))).toBe(true);
   });
+
+  it('adding a list keeps the assumed marks the open workbook already held', async () => {
+    const { WorkbookSession } = await import('../../../src/ui/model/session.ts');
+    const s = WorkbookSession.fromDoc(current);
+    const filled = s.fillTypicalValues();
+    expect(filled.filled).toBeGreaterThan(0);
+    const open = s.toDoc();
+    const heldBefore = open.sheets.flatMap((x) =>
+      heldAssumptions(x).map((m) => `${x.name}:${m.note}:${String(m.value)}`),
+    );
+    const r = applyImport(open, preview(true), { mode: 'append', dropRowsWithErrors: true });
+    if (!r.ok) throw new Error(r.message);
+    const heldAfter = r.doc.sheets.flatMap((x) =>
+      heldAssumptions(x).map((m) => `${x.name}:${m.note}:${String(m.value)}`),
+    );
+    expect(heldAfter).toHaveLength(heldBefore.length + r.assumed);
+    for (const h of heldBefore) expect(heldAfter).toContain(h);
+  });
 });
