@@ -197,6 +197,25 @@ describe('the same file gives the same figures in the page and the CLI', () => {
     expect(listed.sort()).toEqual(page.sort());
   });
 
+  it('a tender list imported with typical values for blanks, and --assume-typical', async () => {
+    const csv =
+      'Tag,Bus,Kind,Rated output (kW),Efficiency,cos phi,u_kv,sn_kva,to_bus\n' +
+      'T1,MV,transformer,,,,0.4,1000,LV\n' +
+      'M1,LV,motor,90,,,0.4,,\n' +
+      'M2,LV,motor,45,0.93,,0.4,,\n' +
+      'M3,LV,motor,132,,0.87,0.4,,\n';
+    const file = join(tmp, 'tender.csv');
+    writeFileSync(file, csv);
+    const table = tableFromCsvText('tender.csv', csv);
+    if (!table.ok) throw new Error('the list does not read');
+    const preview = previewImport(proposeMapping(table.value), { fillTypical: true });
+    expect(preview.assumed.length).toBeGreaterThan(0);
+    const r = applyImport(blankSiteWorkbook('tender'), preview, { mode: 'replace' });
+    if (!r.ok) throw new Error(r.message);
+    // Both propose the banks from the filled site.
+    await expectSameFigures(WorkbookSession.fromDoc(r.doc), file, 'proposed', ['--assume-typical']);
+  });
+
   it('an equipment list imported into a blank site', async () => {
     const csv =
       'Tag,Bus,Kind,Rated output (kW),Efficiency,cos phi,u_kv,sn_kva,uk_pct,i0_pct,p0_kw,pk_kw,to_bus\n' +
