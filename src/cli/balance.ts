@@ -7,7 +7,15 @@ import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
 import { EXIT_HELP, EXIT_OK, inputError, refuseErrors, usageError } from './report.ts';
-import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, oneSiteFile } from './siteOptions.ts';
+import {
+  SITE_FLAGS,
+  SITE_LIST_OPTIONS,
+  SITE_OPTIONS_HELP,
+  SITE_VALUE_OPTIONS,
+  oneSiteFile,
+} from './siteOptions.ts';
+import { assumedJson, reportAssumed } from './assumed.ts';
+import type { AssumedInput } from '../core/site/typical/fillSite.ts';
 import {
   DESIGN_FLAGS,
   DESIGN_LIST_OPTIONS,
@@ -30,7 +38,7 @@ The kW and kvar of every bus in one operating case, rolled up to the point of co
 with the compensation designed over all cases and its warnings. <file> is a workbook saved
 by the app (*.kvar.json), an xlsx exported by Kvar Ledger, a site file (templates/*.json),
 or an equipment list (CSV, or the first sheet of an xlsx).
-  --json       print {case, buses, root, compensation, warnings} as JSON
+  --json       print {case, buses, root, compensation, warnings, assumed} as JSON
 ${SITE_OPTIONS_HELP}
 ${DESIGN_OPTIONS_HELP}
 ${EXIT_HELP}
@@ -80,7 +88,18 @@ function warningJson(w: Problem & { code?: string; case?: string }) {
   };
 }
 
-function toJson(site: Site, bal: CaseBalance, comp: Compensation, warnings: readonly Problem[]) {
+interface Typical {
+  readonly assumed: readonly AssumedInput[];
+  readonly notAssumed: readonly string[];
+}
+
+function toJson(
+  site: Site,
+  bal: CaseBalance,
+  comp: Compensation,
+  warnings: readonly Problem[],
+  typical: Typical,
+) {
   const band = requirementBand(site.settings.requirement);
   const outcome = comp.assessment.cases.find((c) => c.case === bal.case);
   return {
@@ -112,6 +131,8 @@ function toJson(site: Site, bal: CaseBalance, comp: Compensation, warnings: read
       }),
     },
     warnings: warnings.map(warningJson),
+    assumed: assumedJson(site, typical.assumed),
+    not_assumed: typical.notAssumed,
     caution: CAUTION,
   };
 }
@@ -225,7 +246,7 @@ function toText(site: Site, bal: CaseBalance, comp: Compensation, warnings: read
 export async function run(argv: string[], io: CliIo): Promise<number> {
   const parsed = parseArgs(argv, {
     command: 'balance',
-    flags: ['--json', ...DESIGN_FLAGS],
+    flags: ['--json', ...DESIGN_FLAGS, ...SITE_FLAGS],
     values: [...SITE_VALUE_OPTIONS, ...DESIGN_VALUE_OPTIONS],
     lists: [...SITE_LIST_OPTIONS, ...DESIGN_LIST_OPTIONS],
   });
@@ -244,8 +265,10 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
       ? usageError(io, 'balance', `balance: ${loaded.message}`)
       : inputError(io, 'balance', loaded.message);
   const { site, problems, caseName: found } = loaded.loaded;
-  if (problems.some((p) => p.severity === 'error'))
-    return refuseErrors(io, 'balance', file, problems, 'nothing was balanced');
+  const refused = problems.some((p) => p.severity === 'error');
+  // With --json the list is in the JSON, unless the site is refused and no JSON comes.
+  if (!flags.has('--json') || refused) reportAssumed(io, file, site, loaded.loaded);
+  if (refused) return refuseErrors(io, 'balance', file, problems, 'nothing was balanced');
   let balances: CaseBalance[];
   try {
     balances = rollUpAll(site);
@@ -272,7 +295,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   ];
   io.out(
     flags.has('--json')
-      ? JSON.stringify(toJson(site, bal, comp, warnings), null, 2) + '\n'
+      ? JSON.stringify(toJson(site, bal, comp, warnings, loaded.loaded), null, 2) + '\n'
       : toText(site, bal, comp, warnings),
   );
   return EXIT_OK;

@@ -10,7 +10,14 @@ import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
 import { EXIT_HELP, EXIT_OK, inputError, problemLines, refuseErrors, usageError } from './report.ts';
-import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, readSiteOptions } from './siteOptions.ts';
+import {
+  SITE_FLAGS,
+  SITE_LIST_OPTIONS,
+  SITE_OPTIONS_HELP,
+  SITE_VALUE_OPTIONS,
+  readSiteOptions,
+} from './siteOptions.ts';
+import { reportAssumed } from './assumed.ts';
 
 const USAGE = `usage: kvar-ledger export <file> <out.xlsx> [site options]
 Builds the whole workbook (site settings, one sheet per equipment class, buses, compensation)
@@ -26,6 +33,7 @@ ${EXIT_HELP}
 export async function run(argv: string[], io: CliIo): Promise<number> {
   const parsed = parseArgs(argv, {
     command: 'export',
+    flags: [...SITE_FLAGS],
     values: [...SITE_VALUE_OPTIONS],
     lists: [...SITE_LIST_OPTIONS],
   });
@@ -55,9 +63,13 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
       ? usageError(io, 'export', `export: ${loaded.message}`)
       : inputError(io, 'export', loaded.message);
   const { site, problems, banks } = loaded.loaded;
+  // Values assumed now and those the workbook already held as assumed are marked alike.
+  const assumed = [...loaded.loaded.held, ...loaded.loaded.assumed];
+  reportAssumed(io, input, site, loaded.loaded);
   if (problems.some((p) => p.severity === 'error'))
     return refuseErrors(io, 'export', input, problems, 'nothing was written');
-  const keep = banks ? { banks } : {};
+  // Values assumed for blanks are marked in their cells, as the page's export marks them.
+  const keep = { ...(banks ? { banks } : {}), ...(assumed.length > 0 ? { assumed } : {}) };
   const doc = buildWorkbook(site, { flavour: 'portable', ...keep });
   // The xlsx library loads only for this command.
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');

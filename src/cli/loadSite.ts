@@ -16,8 +16,10 @@ import { CASE_PREFIX, DEFAULT_CASE } from '../core/site/parse.ts';
 import { error, info, type Problem } from '../core/site/problems.ts';
 import { readSiteFile } from '../core/site/siteFile.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
+import { fillSiteTypical, type AssumedInput } from '../core/site/typical/fillSite.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
+import { assumedInWorkbook } from '../core/workbook/assumedIn.ts';
 import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
 import { rateRowsOf } from '../core/quote/index.ts';
 import { previewImport } from '../io/import/preview.ts';
@@ -25,6 +27,7 @@ import {
   proposeMapping,
   withColumnTarget,
   withColumnUnit,
+  withDefaultKind,
   type MappingProposal,
 } from '../io/import/mapping.ts';
 import { readEquipmentFile } from '../io/import/table.ts';
@@ -50,6 +53,12 @@ export interface LoadedSite {
   readonly rateRows?: readonly (readonly CellContent[])[];
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
+  /** With --assume-typical: the typical values put in for blanks (indices into the site's equipment). */
+  readonly assumed: readonly AssumedInput[];
+  /** With --assume-typical: blanks left blank, and why. */
+  readonly notAssumed: readonly string[];
+  /** Typical values a workbook read already held as assumed (marked by the page); an export keeps them. */
+  readonly held: readonly AssumedInput[];
 }
 
 /** `usage`: the command line does not fit the file (an option names what the file lacks). */
@@ -103,6 +112,9 @@ function jsonFormat(text: string): { format: unknown } | 'not-json' | 'invalid' 
 
 type Read = {
   site: Site;
+  assumed?: readonly AssumedInput[];
+  notAssumed?: readonly string[];
+  held?: readonly AssumedInput[];
   problems: Problem[];
   banks?: readonly BankChoice[];
   source: SourceKind;
@@ -125,7 +137,14 @@ async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadRes
     const doc = parseWorkbookText(text);
     if (!doc.ok) return fail(`${file}: ${doc.message}`);
     const r = siteFromWorkbook(doc.doc);
-    return { site: r.site, problems: r.problems, banks: r.banks, source: 'workbook', ...ratesOf(doc.doc) };
+    return {
+      site: r.site,
+      problems: r.problems,
+      banks: r.banks,
+      source: 'workbook',
+      held: assumedInWorkbook(doc.doc, r),
+      ...ratesOf(doc.doc),
+    };
   }
   if (kind !== 'not-json' && kind !== 'invalid' && kind.format !== 'kvar-ledger-site')
     return fail(
@@ -148,6 +167,7 @@ async function readOwnXlsx(bytes: Uint8Array): Promise<Read | undefined> {
     problems: [...notes, ...r.problems],
     banks: r.banks,
     source: 'own-xlsx',
+    held: assumedInWorkbook(imported.doc, r),
     ...ratesOf(imported.doc),
   };
 }
@@ -178,6 +198,11 @@ function headersText(p: MappingProposal): string {
 
 function applyChoices(p: MappingProposal, file: string, options: SiteOptions): MappingProposal | LoadResult {
   let out = p;
+  if (options.kind !== undefined) {
+    const k = withDefaultKind(out, options.kind);
+    if (!k.ok) return fail(`--kind ${options.kind}: ${k.message}`, true);
+    out = k.proposal;
+  }
   for (const m of options.map) {
     const i = columnIndex(out, m.column);
     if (i === undefined)
@@ -229,7 +254,7 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     );
   if (mapped.missing.length > 0)
     return fail(
-      `${file}: no column for ${mapped.missing.join(', ')} (columns found: ${headersText(mapped)}); name it in the header row or use --map COLUMN=${mapped.missing[0] as string}`,
+      `${file}: no column for ${mapped.missing.join(', ')} (columns found: ${headersText(mapped)}); name it in the header row or use --map COLUMN=${mapped.missing[0] as string}${mapped.missing.includes('kind') ? ', or give every row one kind with --kind KIND' : ''}`,
     );
   // The plain load column's case: --case names it unless the list has a load:<case> column of that name.
   const listCases = mapped.columns.flatMap((c) =>
@@ -240,7 +265,10 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     asked !== undefined && resolveCase(listCases, asked) === undefined ? asked : DEFAULT_CASE;
   // The settings go into the preview, which validates the rows under them as the page does.
   const settings = withOptions(defaultSettings(siteNameFromFile(file), [defaultCase]), options);
-  const preview = previewImport(mapped, { settings });
+  const preview = previewImport(mapped, {
+    settings,
+    ...(options.assumeTypical ? { fillTypical: true } : {}),
+  });
   const problems = [...preview.problems];
   // The preview checks rows only when there are some; a list of headers alone is still no site.
   if (preview.counts.rows === 0)
@@ -251,6 +279,8 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
     site: { settings: { ...settings, cases: [...preview.cases] }, equipment: [...preview.equipment] },
     problems,
     source: 'list',
+    assumed: preview.assumed,
+    notAssumed: preview.notAssumed,
   };
 }
 
@@ -276,13 +306,23 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
     read = await readJson(file, bytes);
   read ??= await readList(file, bytes, options);
   if ('ok' in read) return read;
-  if (read.source !== 'list' && (options.map.length > 0 || options.units.length > 0))
+  if (
+    read.source !== 'list' &&
+    (options.map.length > 0 || options.units.length > 0 || options.kind !== undefined)
+  )
     return fail(
-      `--map and --unit apply to equipment lists (CSV or xlsx); ${file} is a ${describeSource(read.source)}`,
+      `--map, --unit and --kind apply to equipment lists (CSV or xlsx); ${file} is a ${describeSource(read.source)}`,
       true,
     );
-  const site: Site =
+  const given: Site =
     read.source === 'list' ? read.site : { ...read.site, settings: withOptions(read.site.settings, options) };
+  // A list was filled as its rows arrived (the import's way); any other source is filled here,
+  // before it is validated, by the same rule.
+  const fill =
+    options.assumeTypical && read.source !== 'list'
+      ? fillSiteTypical(given)
+      : { site: given, assumed: read.assumed ?? [], notAssumed: read.notAssumed ?? [] };
+  const site = fill.site;
   const caseName =
     options.caseName === undefined
       ? (site.settings.cases[0] ?? DEFAULT_CASE)
@@ -301,7 +341,11 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
   const banks = read.banks ? { banks: read.banks } : {};
   const rates = read.rateRows ? { rateRows: read.rateRows } : {};
-  return { ok: true, loaded: { site, problems, ...banks, ...rates, source: read.source, caseName } };
+  const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed, held: read.held ?? [] };
+  return {
+    ok: true,
+    loaded: { site, problems, ...banks, ...rates, source: read.source, caseName, ...typical },
+  };
 }
 
 export function describeSource(source: SourceKind): string {

@@ -7,7 +7,14 @@ import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
 import { EXIT_HELP, EXIT_OK, inputError, oneLine, refuseErrors, usageError } from './report.ts';
-import { SITE_LIST_OPTIONS, SITE_OPTIONS_HELP, SITE_VALUE_OPTIONS, oneSiteFile } from './siteOptions.ts';
+import {
+  SITE_FLAGS,
+  SITE_LIST_OPTIONS,
+  SITE_OPTIONS_HELP,
+  SITE_VALUE_OPTIONS,
+  oneSiteFile,
+} from './siteOptions.ts';
+import { reportAssumed } from './assumed.ts';
 import { CAUTION_SHORT } from '../core/cautions.ts';
 import { proposeChoices } from '../core/site/compensation.ts';
 import { SiteStructureError } from '../core/site/rollup.ts';
@@ -149,7 +156,7 @@ function toJson(
 export async function run(argv: string[], io: CliIo): Promise<number> {
   const parsed = parseArgs(argv, {
     command: 'quote',
-    flags: ['--json'],
+    flags: ['--json', ...SITE_FLAGS],
     values: [...SITE_VALUE_OPTIONS, '--rates'],
     lists: [...SITE_LIST_OPTIONS],
   });
@@ -175,6 +182,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
       ? usageError(io, 'quote', `quote: ${loaded.message}`)
       : inputError(io, 'quote', loaded.message);
   const { site, problems } = loaded.loaded;
+  reportAssumed(io, file, site, loaded.loaded);
   if (problems.some((p) => p.severity === 'error'))
     return refuseErrors(io, 'quote', file, problems, 'nothing was priced');
 

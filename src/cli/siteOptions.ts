@@ -27,6 +27,10 @@ export interface SiteOptions {
   readonly caseName?: string;
   readonly map: readonly ColumnChoice[];
   readonly units: readonly UnitChoiceOption[];
+  /** A list without a kind column: the kind of every row (checked against the kinds when read). */
+  readonly kind?: string;
+  /** Fill blank motor and transformer inputs with typical values, listed and marked as assumed. */
+  readonly assumeTypical?: boolean;
 }
 
 /** Options every site-reading command accepts (values), and the repeatable ones (lists). */
@@ -38,8 +42,10 @@ export const SITE_VALUE_OPTIONS = [
   '--tan-phi',
   '--ssc-mva',
   '--case',
+  '--kind',
 ] as const;
 export const SITE_LIST_OPTIONS = ['--map', '--unit'] as const;
+export const SITE_FLAGS = ['--assume-typical'] as const;
 
 /** The --help text of these options, shared word for word by the commands. */
 export const SITE_OPTIONS_HELP = `Site settings (given ones override the file's; a CSV or xlsx list has none of its own,
@@ -58,7 +64,14 @@ Equipment lists (CSV, or the first sheet of an xlsx) are read as the page's impo
 the same header words and units ("Rated output (MW)"), decimal commas, percent signs.
   --map COLUMN=FIELD  read the column with header COLUMN (or letter, e.g. D) as FIELD (tag, bus,
                      kind, p_kw, cos_phi, load:night …; "none" ignores it); may be repeated
-  --unit COLUMN=UNIT  the unit the column's numbers are in (e.g. --unit D=MW); may be repeated`;
+  --unit COLUMN=UNIT  the unit the column's numbers are in (e.g. --unit D=MW); may be repeated
+  --kind KIND        a list without a kind column: every row is KIND (motor, load, transformer …)
+Tender-stage lists without nameplates:
+  --assume-typical   fill blank inputs of motors (efficiency, cos φ, no-load current, from the
+                     rated output) and transformers (uk, losses, no-load current, from the kVA)
+                     with typical values, as the page's "fill blanks with typical values" does;
+                     each is listed (stderr, or "assumed" in --json) and marked in an export.
+                     Typical values are no substitute for the nameplate or the maker's data.`;
 
 export type OptionsResult =
   { readonly ok: true; readonly options: SiteOptions } | { readonly ok: false; readonly message: string };
@@ -135,6 +148,11 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
     if (caseName.trim() === '') return bad('--case must not be blank');
     out.caseName = caseName.trim();
   }
+  const kind = v('--kind');
+  if (kind !== undefined) {
+    if (kind.trim() === '') return bad('--kind must not be blank');
+    out.kind = kind.trim();
+  }
   const map = pairs(args.lists.get('--map') ?? [], '--map');
   if (typeof map === 'string') return bad(map);
   out.map = map.map(([column, target]) => ({
@@ -144,6 +162,7 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
   const units = pairs(args.lists.get('--unit') ?? [], '--unit');
   if (typeof units === 'string') return bad(units);
   out.units = units.map(([column, unit]) => ({ column, unit }));
+  if (args.flags.has('--assume-typical')) out.assumeTypical = true;
   return { ok: true, options: out };
 }
 

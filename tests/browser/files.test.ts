@@ -116,6 +116,11 @@ describe('files', () => {
     expect(await dlg.locator('img').count()).toBe(0);
     expect(await dlg.textContent()).toContain('<img src=x onerror=alert(1)>');
     expect(await dlg.locator('[data-testid="map-J"]').inputValue()).toBe('');
+    // The choices read in words, not field keys.
+    expect(await dlg.locator('[data-testid="map-E"] option:checked').textContent()).toBe('P (kW)');
+    expect(await dlg.locator('[data-testid="map-E"]').getAttribute('title')).toMatch(
+      /^Rated active power \(kW\); a motor: rated output/,
+    );
     await screenshot(page, '08-import-mapping');
     await dlg.locator('[data-testid="import-next"]').click();
     expect(await dlg.locator('[data-testid="import-counts"]').textContent()).toMatch(
@@ -124,6 +129,7 @@ describe('files', () => {
     expect(await dlg.locator('[data-testid="import-problems"]').textContent()).toMatch(
       /row 5, column G \(Power factor\)/,
     );
+    expect(await dlg.locator('.kl-import-table th').allTextContents()).toContain('Efficiency');
     await screenshot(page, '09-import-preview');
     // Nothing changed yet; accepting needs the faulty row left out.
     expect(await page.locator('[data-testid="title"]').inputValue()).toBe('Reopened from disk');
@@ -135,15 +141,26 @@ describe('files', () => {
       /keep this site's \(50 Hz, cos φ ≥ 0\.95, 180 MVA short-circuit power, 2 cases\)/,
     );
     await dlg.locator('[data-testid="import-default-settings"]').check();
+    // The list gives no no-load currents: fill them with typical values as the rows arrive.
+    await dlg.locator('[data-testid="import-fill-typical"]').check();
+    expect(await dlg.locator('[data-testid="import-assumed"]').textContent()).toMatch(
+      /^3 blank value\(s\) take a typical value, marked as assumed/,
+    );
     await dlg.locator('[data-testid="import-next"]').click();
     await expect
       .poll(() => page.locator('[data-testid="notice"]').textContent())
-      .toMatch(/^Imported 3 items from "client-list\.csv"/);
+      .toMatch(/^Imported 3 items from "client-list\.csv" .*2 typical value\(s\) assumed for blanks/);
     await openSheet(page, 'Motors');
     const rows = [await cellText(page, 1, 0), await cellText(page, 2, 0)];
     expect(rows.sort()).toEqual(['P-201', 'P-202']);
     const col = await columnOf(page, 'Rated output (kW)');
     expect(await cellText(page, 1, col)).toBe('90.0');
+    // The filled no-load currents are marked as assumed; the typed efficiencies are not.
+    const i0 = await columnOf(page, 'No-load current (%)');
+    expect(await cell(page, 1, i0).getAttribute('class')).toMatch(/kl-mark-assumed/);
+    expect(await cell(page, 1, await columnOf(page, 'Efficiency')).getAttribute('class')).not.toMatch(
+      /kl-mark-assumed/,
+    );
     await openSheet(page, 'Site');
     const ssc = await rowWith(page, 'Short-circuit power at the connection point');
     expect(await cellText(page, ssc, 1)).toBe('');
@@ -151,6 +168,36 @@ describe('files', () => {
     // The choices are remembered for the next list from this client.
     const memory = await page.evaluate(() => localStorage.getItem('kvar-ledger.import-mapping.v1'));
     expect(memory).toMatch(/rated power/);
+  });
+
+  it('imports a list without a kind column as one kind for every row', async () => {
+    const path = join(work, 'pumps.csv');
+    await writeFile(
+      path,
+      'Item,Switchboard,Motor kW,Eff %,PF\nPU-1,MCC-1,11,91,0.85\nPU-2,MCC-1,15,92,0.86\n',
+    );
+    await chooseFile('menu-import', path);
+    const dlg = page.locator('[data-testid="import"]');
+    await dlg.waitFor();
+    expect(await dlg.locator('[data-testid="import-note"]').textContent()).toMatch(
+      /Still needed: a column for Kind \(or choose below the kind every row is\)/,
+    );
+    expect(await dlg.locator('[data-testid="import-next"]').isDisabled()).toBe(true);
+    await dlg.locator('[data-testid="import-every-kind"]').selectOption('motor');
+    // Known to be motors, the rated power reads as the Motors sheet heads it.
+    expect(await dlg.locator('[data-testid="map-C"] option:checked').textContent()).toBe('Rated output (kW)');
+    await dlg.locator('[data-testid="import-next"]').click();
+    expect(await dlg.locator('[data-testid="import-counts"]').textContent()).toMatch(/2 rows: 2 fine/);
+    await dlg.locator('[data-testid="import-add"]').click();
+    // A refusal would show in the note and keep the dialog open.
+    await dlg.waitFor({ state: 'detached', timeout: 5000 }).catch(async () => {
+      throw new Error(`import refused: ${await dlg.locator('[data-testid="import-note"]').textContent()}`);
+    });
+    await expect
+      .poll(() => page.locator('[data-testid="notice"]').textContent())
+      .toMatch(/^Imported 2 items from "pumps\.csv" \(added/);
+    await openSheet(page, 'Motors');
+    expect(await rowWith(page, 'PU-2')).toBeGreaterThan(0);
   });
 
   it('inserts rows from the grid menu, and undo takes them out', async () => {

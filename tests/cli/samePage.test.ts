@@ -14,6 +14,7 @@ import { run } from '../../src/cli/balance.ts';
 import { blankSiteWorkbook } from '../../src/core/workbook/blankSite.ts';
 import { siteFromWorkbook } from '../../src/core/workbook/readSite.ts';
 import { planCompensationColumns } from '../../src/core/workbook/compensationColumns.ts';
+import { equipmentPlans } from '../../src/core/workbook/structure.ts';
 import { applyImport, previewImport, proposeMapping, tableFromCsvText } from '../../src/io/import/index.ts';
 import { parseWorkbookText } from '../../src/ui/model/docValidate.ts';
 import { WorkbookSession } from '../../src/ui/model/session.ts';
@@ -36,10 +37,10 @@ interface BalanceJson {
   compensation: { banks_from: string; met_after: boolean; buses_after: BusJson[] };
 }
 
-async function balance(file: string, caseName: string): Promise<BalanceJson> {
+async function balance(file: string, caseName: string, extra: readonly string[] = []): Promise<BalanceJson> {
   let out = '';
   let err = '';
-  const args = caseName ? [file, '--case', caseName, '--json'] : [file, '--json'];
+  const args = [...(caseName ? [file, '--case', caseName, '--json'] : [file, '--json']), ...extra];
   const code = await run(args, {
     out: (t) => void (out += t),
     err: (t) => void (err += t),
@@ -49,13 +50,18 @@ async function balance(file: string, caseName: string): Promise<BalanceJson> {
 }
 
 /** Every bus of every case: page against CLI. Returns how many figures were compared. */
-async function expectSameFigures(s: WorkbookSession, file: string, banksFrom: 'file' | 'proposed') {
-  const first = await balance(file, '');
+async function expectSameFigures(
+  s: WorkbookSession,
+  file: string,
+  banksFrom: 'file' | 'proposed',
+  extra: readonly string[] = [],
+) {
+  const first = await balance(file, '', extra);
   const cases = first.cases;
   const page = pageFaces(s, cases, first.buses.length);
   let compared = 0;
   for (const [k, c] of cases.entries()) {
-    const cli = await balance(file, c);
+    const cli = await balance(file, c, extra);
     expect(cli.compensation.banks_from).toBe(banksFrom);
     expect(page.within[k], `${file} case ${c}: within after`).toBe(cli.compensation.met_after);
     for (const b of cli.buses) {
@@ -142,6 +148,72 @@ describe('the same file gives the same figures in the page and the CLI', () => {
     const opened = parseWorkbookText(readFileSync(file, 'utf8'));
     if (!opened.ok) throw new Error(opened.message);
     await expectSameFigures(WorkbookSession.fromDoc(opened.doc), file, 'file');
+  });
+
+  it("a site file with blanks: the page's fill and --assume-typical agree", async () => {
+    const site = JSON.parse(readFileSync(join(ROOT, 'templates/pumping-station.json'), 'utf8')) as {
+      equipment: Array<Record<string, unknown>>;
+    };
+    // Clear the nameplate values of the motors and transformers inside the typical-value tables
+    // (motors up to 1 000 kW, transformer losses up to 3 150 kVA): only their ratings remain.
+    let cleared = 0;
+    for (const e of site.equipment) {
+      const gone =
+        e.kind === 'motor' && Number(e.p_kw) <= 1000
+          ? ['eff', 'cos_phi', 'i0_pct']
+          : e.kind === 'transformer' && Number(e.s_kva) <= 3150
+            ? ['uk_pct', 'p0_kw', 'pk_kw', 'i0_pct']
+            : [];
+      for (const k of gone) {
+        delete e[k];
+        cleared++;
+      }
+    }
+    expect(cleared).toBeGreaterThan(5);
+    const file = join(tmp, 'blanks.json');
+    const text = JSON.stringify(site);
+    writeFileSync(file, text);
+    const s = WorkbookSession.fromDoc(await workbookOf('blanks', text));
+    const filled = s.fillTypicalValues();
+    expect(filled.filled).toBe(cleared);
+    await expectSameFigures(s, file, 'file', ['--assume-typical']);
+    // The same values at the same cells: the page's marks against the CLI's list.
+    const doc = s.toDoc();
+    const page = doc.sheets.flatMap((sh) =>
+      (sh.marks ?? []).map(
+        (m) => `${sh.name}!${m.row + 1}:${String(sh.cells[0]?.[m.col])}=${String(m.value)}`,
+      ),
+    );
+    const cli = (await balance(file, '', ['--assume-typical'])) as unknown as {
+      assumed: Array<{ sheet: string; row: number; field: string; value: number }>;
+    };
+    const header = (sheet: string, field: string) =>
+      String(doc.sheets.find((x) => x.name === sheet)?.cells[0]?.[columnOf(sheet, field)]);
+    const columnOf = (sheet: string, field: string) =>
+      equipmentPlans(siteCases(s))
+        .find((p) => p.sheet.name === sheet)
+        ?.input.get(field) ?? -1;
+    const listed = cli.assumed.map((a) => `${a.sheet}!${a.row}:${header(a.sheet, a.field)}=${a.value}`);
+    expect(listed.sort()).toEqual(page.sort());
+  });
+
+  it('a tender list imported with typical values for blanks, and --assume-typical', async () => {
+    const csv =
+      'Tag,Bus,Kind,Rated output (kW),Efficiency,cos phi,u_kv,sn_kva,to_bus\n' +
+      'T1,MV,transformer,,,,0.4,1000,LV\n' +
+      'M1,LV,motor,90,,,0.4,,\n' +
+      'M2,LV,motor,45,0.93,,0.4,,\n' +
+      'M3,LV,motor,132,,0.87,0.4,,\n';
+    const file = join(tmp, 'tender.csv');
+    writeFileSync(file, csv);
+    const table = tableFromCsvText('tender.csv', csv);
+    if (!table.ok) throw new Error('the list does not read');
+    const preview = previewImport(proposeMapping(table.value), { fillTypical: true });
+    expect(preview.assumed.length).toBeGreaterThan(0);
+    const r = applyImport(blankSiteWorkbook('tender'), preview, { mode: 'replace' });
+    if (!r.ok) throw new Error(r.message);
+    // Both propose the banks from the filled site.
+    await expectSameFigures(WorkbookSession.fromDoc(r.doc), file, 'proposed', ['--assume-typical']);
   });
 
   it('an equipment list imported into a blank site', async () => {

@@ -24,3 +24,4 @@ export * from './spec.ts';
 export * from './expr.ts';
 export * from './columns.ts';
 export * from './sheets.ts';
+export { columnLabel, type ColumnLabel } from './labels.ts';

@@ -5,6 +5,7 @@
 import type { BankChoice } from '../site/bankChoice.ts';
 import { proposeChoices } from '../site/compensation.ts';
 import type { Site } from '../site/model.ts';
+import type { AssumedInput } from '../site/typical/fillSite.ts';
 import type { WorkbookDoc } from './document.ts';
 import { inputsFromSite } from './inputsFromSite.ts';
 import { renderWorkbook } from './render.ts';
@@ -21,9 +22,11 @@ export interface BuildOptions {
   readonly flavour: Flavour;
   /** Banks on the Compensation sheet. Default: the compensation design's proposal for the site. */
   readonly banks?: readonly BankChoice[];
+  /** Typical values the site's rows took for blanks: marked as assumed in their cells. */
+  readonly assumed?: readonly AssumedInput[];
 }
 
 export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
   const banks = opts.banks ?? proposeChoices(site);
-  return renderWorkbook(inputsFromSite(site, banks), { flavour: opts.flavour }).doc;
+  return renderWorkbook(inputsFromSite(site, banks, opts.assumed), { flavour: opts.flavour }).doc;
 }

@@ -8,7 +8,9 @@ import { entryOf } from '../text/nameTable.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
 import { buildBusGraph } from '../site/graph.ts';
 import type { EquipmentRow, Site } from '../site/model.ts';
-import type { CellContent, SheetDoc, WorkbookDoc } from './document.ts';
+import type { CellContent, CellMark, SheetDoc, WorkbookDoc } from './document.ts';
+import type { AssumedInput } from '../site/typical/fillSite.ts';
+import { assumedMark } from './typicalFill.ts';
 import { BANK_INPUTS, NOTE_HEADER, planCompensationColumns } from './compensationColumns.ts';
 import type { EquipmentColumns } from './equipmentColumns.ts';
 import { SHEETS } from './layout.ts';
@@ -70,24 +72,70 @@ function inputCells(cols: EquipmentColumns, row: EquipmentRow, cases: readonly s
   return out;
 }
 
-/** The compact workbook of a site: inputs only (headers included); render.ts fills in the rest. */
-export function inputsFromSite(site: Site, banks: readonly BankChoice[]): WorkbookDoc {
-  const cases = site.settings.cases;
+/** Where each equipment row goes: per equipment sheet, the site's row indices in sheet order. */
+export function equipmentPlacement(
+  site: Site,
+): Array<{ readonly cols: EquipmentColumns; readonly indices: readonly number[] }> {
   const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
   const order = new Map(graph.order.map((b, i) => [b, i]));
   // Rows kept together by bus, in bus order (spans stay tight and the sheet reads by bus).
   const rank = (r: EquipmentRow) => order.get(r.bus) ?? order.size;
-  const sheets: SheetDoc[] = [{ name: SHEETS.settings, cells: settingsCells(settingsInputsOf(site)) }];
-  for (const cols of equipmentPlans(cases)) {
-    const rows = site.equipment
+  return equipmentPlans(site.settings.cases).map((cols) => ({
+    cols,
+    indices: site.equipment
       .map((r, i) => ({ r, i }))
       .filter(({ r }) => {
         const k = findKind(r.kind);
         return k !== undefined && cols.kinds.includes(k);
       })
       .sort((a, b) => rank(a.r) - rank(b.r) || a.i - b.i)
-      .map(({ r }) => inputCells(cols, r, cases));
-    sheets.push({ name: cols.sheet.name, cells: [headerRow(cols), ...rows] });
+      .map(({ i }) => i),
+  }));
+}
+
+/** Where an assumed value sits in the workbook of its site: sheet, 0-based row and column. */
+export interface AssumedPlace {
+  readonly sheet: string;
+  readonly mark: CellMark;
+  readonly item: AssumedInput;
+}
+
+/** The cells of the site's workbook that hold the assumed values, each with its mark. */
+export function assumedPlaces(site: Site, assumed: readonly AssumedInput[]): AssumedPlace[] {
+  if (assumed.length === 0) return [];
+  const out: AssumedPlace[] = [];
+  for (const { cols, indices } of equipmentPlacement(site)) {
+    const rowOf = new Map(indices.map((index, k) => [index, k + 1]));
+    for (const a of assumed) {
+      const row = rowOf.get(a.index);
+      const col = cols.input.get(a.column);
+      if (row === undefined || col === undefined) continue;
+      out.push({ sheet: cols.sheet.name, mark: assumedMark(row, col, a.value, a.note), item: a });
+    }
+  }
+  return out;
+}
+
+/**
+ * The compact workbook of a site: inputs only (headers included); render.ts fills in the rest.
+ * Values in `assumed` (typical values put in for blanks) are marked as assumed where they sit.
+ */
+export function inputsFromSite(
+  site: Site,
+  banks: readonly BankChoice[],
+  assumed: readonly AssumedInput[] = [],
+): WorkbookDoc {
+  const cases = site.settings.cases;
+  const sheets: SheetDoc[] = [{ name: SHEETS.settings, cells: settingsCells(settingsInputsOf(site)) }];
+  const places = assumedPlaces(site, assumed);
+  for (const { cols, indices } of equipmentPlacement(site)) {
+    const rows = indices.map((i) => inputCells(cols, site.equipment[i] as EquipmentRow, cases));
+    const marks = places.filter((p) => p.sheet === cols.sheet.name).map((p) => p.mark);
+    sheets.push({
+      name: cols.sheet.name,
+      cells: [headerRow(cols), ...rows],
+      ...(marks.length > 0 ? { marks } : {}),
+    });
   }
   const comp = planCompensationColumns(cases);
   const compRows: CellContent[][] = [comp.columns.map((c) => c.header)];

@@ -9,6 +9,7 @@ import { validateSite } from '../../core/site/validate.ts';
 import { buildWorkbook, type Flavour } from '../../core/workbook/build.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
+import { assumedInWorkbook } from '../../core/workbook/assumedIn.ts';
 import type { ImportPreview } from './preview.ts';
 
 export interface ApplyOptions {
@@ -33,6 +34,8 @@ export type ApplyResult =
       readonly site: Site;
       readonly added: number;
       readonly dropped: number;
+      /** How many typical values the imported rows took for blanks (marked as assumed). */
+      readonly assumed: number;
       readonly problems: readonly Problem[];
     }
   | { readonly ok: false; readonly message: string; readonly problems: readonly Problem[] };
@@ -119,9 +122,26 @@ export function applyImport(current: WorkbookDoc, preview: ImportPreview, opts: 
       problems: errors,
     };
   }
+  // Typical values assumed for the imported rows follow them to their place in the workbook.
+  // The open workbook's own assumed values stay marked when the list is added to it.
+  const placed = new Map(incoming.map((e, k) => [preview.equipment.indexOf(e), kept.length + k]));
+  const arriving = preview.assumed.flatMap((a) => {
+    const index = placed.get(a.index);
+    return index === undefined ? [] : [{ ...a, index }];
+  });
+  const assumed = [...(opts.mode === 'append' ? assumedInWorkbook(current, open) : []), ...arriving];
   const doc = buildWorkbook(site, {
     flavour: opts.flavour ?? 'live',
+    ...(assumed.length > 0 ? { assumed } : {}),
     ...(opts.mode === 'append' && open.banks.length > 0 ? { banks: open.banks } : {}),
   });
-  return { ok: true, doc: { ...doc, title: current.title }, site, added: incoming.length, dropped, problems };
+  return {
+    ok: true,
+    doc: { ...doc, title: current.title },
+    site,
+    added: incoming.length,
+    dropped,
+    assumed: arriving.length,
+    problems,
+  };
 }

@@ -2,6 +2,7 @@
 //   1. readEquipmentFile(name, bytes)       → the raw table (CSV, or the first sheet of an xlsx)
 //   2. proposeMapping(table, memory)        → suggested column → interchange column and unit
 //      withColumnTarget / withColumnUnit    ← the user's changes; unitChoicesFor / mappingTargets for the menus
+//      withDefaultKind                      ← one kind for every row of a list without a kind column
 //   3. previewImport(proposal, {settings})  → converted rows, problems with row and column, canApply
 //   4. applyImport(currentDoc, preview, {mode}) → a NEW workbook document (the open one is untouched)
 //      rememberMapping(memory, proposal)    → memory to keep in localStorage (MAPPING_MEMORY_STORAGE_KEY)
@@ -10,6 +11,8 @@ export {
   proposeMapping,
   withColumnTarget,
   withColumnUnit,
+  withDefaultKind,
+  kindColumnMapped,
   rememberMapping,
   mappingTargets,
   REQUIRED_TARGETS,

@@ -1,6 +1,7 @@
 // The header-mapping step: for each column of a client's list, the interchange column it feeds
 // (or none) and the unit its numbers are in. Suggested from remembered choices, our synonym
 // table and the units in the headers; the user can change any of it before the preview.
+import { columnLabel, findKind, kindNames } from '../../core/kinds/index.ts';
 import { NUMERIC_COLUMNS, TEXT_COLUMNS } from '../../core/site/model.ts';
 import { CASE_PREFIX } from '../../core/site/parse.ts';
 import { columnLetters as columnLetter } from '../../core/workbook/refs.ts';
@@ -33,6 +34,8 @@ export interface MappingProposal {
   readonly columns: readonly ColumnMapping[];
   /** Required targets (tag, bus, kind) that no column feeds yet. */
   readonly missing: readonly string[];
+  /** The kind of every row when no column feeds kind ("every row is a motor"). */
+  readonly defaultKind?: string;
 }
 
 export const REQUIRED_TARGETS = ['tag', 'bus', 'kind'] as const;
@@ -156,13 +159,43 @@ function resolveClashes(columns: ColumnMapping[]): ColumnMapping[] {
       target: null,
       unit: ownUnit('tag'),
       why: 'none',
-      note: `also looks like ${c.target}, which column ${held.letter} (${held.header}) feeds`,
+      note: `also looks like ${columnLabel(c.target).label}, which column ${held.letter} (${held.header}) feeds`,
     };
   });
 }
 
-function missingOf(columns: readonly ColumnMapping[]): string[] {
-  return REQUIRED_TARGETS.filter((t) => !columns.some((c) => c.target === t));
+function missingOf(columns: readonly ColumnMapping[], defaultKind?: string): string[] {
+  return REQUIRED_TARGETS.filter(
+    (t) => !columns.some((c) => c.target === t) && !(t === 'kind' && defaultKind !== undefined),
+  );
+}
+
+/** Does a column feed kind? Then it decides, and a kind for every row is not used. */
+export function kindColumnMapped(p: MappingProposal): boolean {
+  return p.columns.some((c) => c.target === 'kind');
+}
+
+/**
+ * The user gives every row one kind (a registered kind's name) for a list without a kind
+ * column, or takes it back (null). A name not registered is refused with the names there are.
+ */
+export function withDefaultKind(
+  p: MappingProposal,
+  kind: string | null,
+):
+  | { readonly ok: true; readonly proposal: MappingProposal }
+  | { readonly ok: false; readonly message: string } {
+  if (kind === null) {
+    const { defaultKind: _dropped, ...rest } = p;
+    return { ok: true, proposal: { ...rest, missing: missingOf(p.columns) } };
+  }
+  const spec = findKind(kind.trim().toLowerCase());
+  if (!spec)
+    return {
+      ok: false,
+      message: `"${kind}" is not a kind of equipment; the kinds are ${kindNames().join(', ')}`,
+    };
+  return { ok: true, proposal: { ...p, defaultKind: spec.name, missing: missingOf(p.columns, spec.name) } };
 }
 
 /** Suggest a mapping for a table just read. */
@@ -207,7 +240,7 @@ export function withColumnTarget(p: MappingProposal, index: number, target: stri
       };
     return c;
   });
-  return { ...p, columns, missing: missingOf(columns) };
+  return { ...p, columns, missing: missingOf(columns, p.defaultKind) };
 }
 
 /** The user picks the unit of column `index` (a label from unitChoicesFor(target)). */
@@ -217,7 +250,7 @@ export function withColumnUnit(p: MappingProposal, index: number, unitLabel: str
     const u = unitFor(c.target, unitLabel);
     return u ? { ...c, unit: u, why: 'user' as const } : c;
   });
-  return { ...p, columns, missing: missingOf(columns) };
+  return { ...p, columns, missing: missingOf(columns, p.defaultKind) };
 }
 
 /** Store the choices of an accepted mapping for next time. */

@@ -8,7 +8,8 @@ import { nameTable } from '../../core/text/nameTable.ts';
 import { describeWhere, given, problem, type Problem } from '../../core/site/problems.ts';
 import { neutraliseText } from '../csv/write.ts';
 import { mergeProblems, validateSite } from '../../core/site/validate.ts';
-import type { ColumnMapping, MappingProposal } from './mapping.ts';
+import { fillSiteTypical, type AssumedInput } from '../../core/site/typical/fillSite.ts';
+import { kindColumnMapped, type ColumnMapping, type MappingProposal } from './mapping.ts';
 import { readCell } from './values.ts';
 
 export interface PreviewRow {
@@ -38,11 +39,20 @@ export interface ImportPreview {
   };
   /** True when required columns are mapped and no problem is an error. */
   readonly canApply: boolean;
+  /** Typical values put in for blanks (with `fillTypical`); indices into `equipment`. */
+  readonly assumed: readonly AssumedInput[];
+  /** Blanks that stay blank with `fillTypical`, and why ("row 7 (M-12): eff: …"). */
+  readonly notAssumed: readonly string[];
 }
 
 export interface PreviewOptions {
   /** The open site's settings: its first case names the plain load column, its other cases are kept. */
   readonly settings?: SiteSettings;
+  /**
+   * Fill the blank inputs of motors and transformers with typical values as the rows arrive
+   * (before they are checked), each listed as assumed; the workbook marks them.
+   */
+  readonly fillTypical?: boolean;
 }
 
 export const DEFAULT_IMPORT_SETTINGS: SiteSettings = defaultSettings('Imported list');
@@ -55,8 +65,9 @@ function isBlank(cells: readonly unknown[]): boolean {
 function canonicalTable(
   p: MappingProposal,
   mapped: readonly ColumnMapping[],
+  everyRowKind: string | undefined,
 ): { rows: string[][]; cells: Array<Record<string, string | number | null>>; fileRows: number[] } {
-  const rows: string[][] = [mapped.map((c) => c.target as string)];
+  const rows: string[][] = [[...mapped.map((c) => c.target as string), ...(everyRowKind ? ['kind'] : [])]];
   const cells: Array<Record<string, string | number | null>> = [];
   const fileRows: number[] = [];
   p.table.rows.slice(p.headerRow).forEach((raw, k) => {
@@ -67,6 +78,13 @@ function canonicalTable(
       const text = r.kind === 'blank' ? '' : r.kind === 'number' ? String(r.value) : r.text;
       out.push(text);
       shown[c.target as string] = r.kind === 'blank' ? null : r.kind === 'number' ? r.value : r.text;
+    }
+    // The kind chosen for every row, when no column gives it (a row blank in the mapped
+    // columns stays blank, so the parser skips it as before).
+    if (everyRowKind) {
+      const blank = out.every((t) => t === '');
+      out.push(blank ? '' : everyRowKind);
+      shown.kind = blank ? null : everyRowKind;
     }
     // Blank rows stay in place (the parser skips them) so row numbers keep matching the file.
     rows.push(isBlank(raw) ? out.map(() => '') : out);
@@ -125,19 +143,35 @@ function formulaLookalikes(
   return out;
 }
 
+/** A preview row's cells with the typical values assumed for it (in the columns the file maps). */
+function shownWith(
+  cells: Readonly<Record<string, string | number | null>>,
+  row: number,
+  assumed: readonly AssumedInput[],
+): Readonly<Record<string, string | number | null>> {
+  const mine = assumed.filter((a) => a.row === row && a.column in cells);
+  if (mine.length === 0) return cells;
+  const out = { ...cells };
+  for (const a of mine) out[a.column] = a.value;
+  return out;
+}
+
 /** Convert, parse and check the table under a mapping. */
 export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): ImportPreview {
   const base = opts.settings ?? DEFAULT_IMPORT_SETTINGS;
   const mapped = p.columns.filter((c) => c.target !== null);
   const byTarget = new Map(mapped.map((c) => [c.target as string, c]));
-  const { rows, cells, fileRows } = canonicalTable(p, mapped);
+  const everyRowKind = kindColumnMapped(p) ? undefined : p.defaultKind;
+  const { rows, cells, fileRows } = canonicalTable(p, mapped, everyRowKind);
   const parsed = parseEquipmentTable(rows, {
     headerRow: p.headerRow,
     defaultCase: base.cases[0] ?? DEFAULT_CASE,
   });
   const settings = settingsWith(base, parsed.cases);
-  const site: Site = { settings, equipment: parsed.equipment };
-  const validated = parsed.equipment.length > 0 ? validateSite(site) : [];
+  const read: Site = { settings, equipment: parsed.equipment };
+  const fill = opts.fillTypical ? fillSiteTypical(read) : undefined;
+  const site = fill?.site ?? read;
+  const validated = site.equipment.length > 0 ? validateSite(site) : [];
   const problems = mergeProblems(parsed.problems, [...validated, ...formulaLookalikes(cells, fileRows)]).map(
     (x) => inFileTerms(x, byTarget),
   );
@@ -150,15 +184,15 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
   cells.forEach((c, k) => {
     const row = fileRows[k] as number;
     if (isBlank(Object.values(c))) return;
-    previewRows.push({ row, cells: c, status: worst.get(row) ?? 'ok' });
+    previewRows.push({ row, cells: shownWith(c, row, fill?.assumed ?? []), status: worst.get(row) ?? 'ok' });
   });
   const withErrors = previewRows.filter((r) => r.status === 'error').length;
   const withWarnings = previewRows.filter((r) => r.status === 'warning').length;
   return {
     proposal: p,
-    targets: mapped.map((c) => c.target as string),
+    targets: [...mapped.map((c) => c.target as string), ...(everyRowKind ? ['kind'] : [])],
     rows: previewRows,
-    equipment: parsed.equipment,
+    equipment: site.equipment,
     cases: parsed.cases,
     problems,
     counts: {
@@ -168,5 +202,7 @@ export function previewImport(p: MappingProposal, opts: PreviewOptions = {}): Im
       withWarnings,
     },
     canApply: p.missing.length === 0 && !problems.some((x) => x.severity === 'error'),
+    assumed: fill?.assumed ?? [],
+    notAssumed: fill?.notAssumed ?? [],
   };
 }

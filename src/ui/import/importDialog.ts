@@ -7,20 +7,17 @@ import {
   applyImport,
   DEFAULT_IMPORT_SETTINGS,
   describeProblem,
-  mappingTargets,
   MAPPING_MEMORY_STORAGE_KEY,
   parseMappingMemory,
   previewImport,
   proposeMapping,
   readEquipmentFile,
   rememberMapping,
-  unitChoicesFor,
-  withColumnTarget,
-  withColumnUnit,
   type ImportPreview,
-  type MappingProposal,
 } from '../../io/import/index.ts';
+import { columnLabel } from '../../core/kinds/index.ts';
 import { el } from '../dom.ts';
+import { kindForEveryRow, mappingTable, previewNodes } from './importTables.ts';
 import { openDialog } from '../dialogs/dialog.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
@@ -34,116 +31,6 @@ function loadMemory() {
   } catch {
     return parseMappingMemory(null);
   }
-}
-
-function samples(p: MappingProposal, index: number): string {
-  const out: string[] = [];
-  for (const row of p.table.rows.slice(p.headerRow)) {
-    const v = row[index];
-    if (v !== null && v !== undefined && String(v).trim() !== '') out.push(String(v));
-    if (out.length === 3) break;
-  }
-  return out.join(' · ');
-}
-
-function mappingTable(
-  p: MappingProposal,
-  cases: readonly string[],
-  onChange: (next: MappingProposal) => void,
-): HTMLElement {
-  const targets = mappingTargets(cases);
-  const rows = p.columns.map((c) => {
-    const target = el('select', {
-      className: 'kl-select',
-      attrs: { 'aria-label': `Column ${c.letter} feeds`, 'data-testid': `map-${c.letter}` },
-    });
-    target.append(
-      el('option', { text: '— ignore —', attrs: { value: '' } }),
-      ...targets.map((t) => el('option', { text: t, attrs: { value: t } })),
-    );
-    target.value = c.target ?? '';
-    target.addEventListener('change', () =>
-      onChange(withColumnTarget(p, c.index, target.value === '' ? null : target.value)),
-    );
-    const unit = el('select', {
-      className: 'kl-select',
-      attrs: { 'aria-label': `Unit of column ${c.letter}` },
-    });
-    const choices = c.target ? unitChoicesFor(c.target) : [];
-    const textOnly = choices.length <= 1 && (choices[0]?.label ?? '') === '';
-    unit.append(
-      ...choices.map((u) =>
-        el('option', {
-          text: textOnly ? '—' : u.label === '' ? '(plain number)' : u.label,
-          attrs: { value: u.label },
-        }),
-      ),
-    );
-    unit.value = c.unit.label;
-    unit.disabled = choices.length <= 1;
-    unit.addEventListener('change', () => onChange(withColumnUnit(p, c.index, unit.value)));
-    return el('tr', { className: c.target ? '' : 'is-ignored' }, [
-      el('td', { className: 'kl-mono', text: c.letter }),
-      el('td', { text: c.header || '(no header)' }),
-      el('td', { className: 'kl-muted', text: samples(p, c.index) }),
-      el('td', {}, [target]),
-      el('td', {}, [unit]),
-      el('td', { className: 'kl-muted', text: c.note ?? (c.why === 'none' ? '' : c.why) }),
-    ]);
-  });
-  return el('table', { className: 'kl-import-table' }, [
-    el('thead', {}, [
-      el(
-        'tr',
-        {},
-        ['', 'header in the file', 'first values', 'feeds', 'unit', 'why'].map((h) => el('th', { text: h })),
-      ),
-    ]),
-    el('tbody', {}, rows),
-  ]);
-}
-
-function previewNodes(pv: ImportPreview): Node[] {
-  const { counts } = pv;
-  const head = el('p', {
-    attrs: { 'data-testid': 'import-counts' },
-    text: `${counts.rows} rows: ${counts.ok} fine, ${counts.withWarnings} with warnings, ${counts.withErrors} with errors.`,
-  });
-  const problems = el(
-    'ul',
-    { className: 'kl-problems', attrs: { 'data-testid': 'import-problems' } },
-    pv.problems.slice(0, 200).map((p) => el('li', { className: `is-${p.severity}`, text: p.message })),
-  );
-  const shown = pv.rows.slice(0, 60);
-  const table = el('table', { className: 'kl-import-table' }, [
-    el('thead', {}, [
-      el(
-        'tr',
-        {},
-        ['row', ...pv.targets].map((h) => el('th', { text: h })),
-      ),
-    ]),
-    el(
-      'tbody',
-      {},
-      shown.map((r) =>
-        el('tr', { className: `is-${r.status}` }, [
-          el('td', { text: String(r.row) }),
-          ...pv.targets.map((t) =>
-            el('td', { text: r.cells[t] === null || r.cells[t] === undefined ? '' : String(r.cells[t]) }),
-          ),
-        ]),
-      ),
-    ),
-  ]);
-  return [
-    head,
-    ...(pv.problems.length ? [problems] : []),
-    el('div', { className: 'kl-scroll' }, [table]),
-    ...(pv.rows.length > shown.length
-      ? [el('p', { className: 'kl-muted', text: `…and ${pv.rows.length - shown.length} more rows.` })]
-      : []),
-  ];
 }
 
 /** What the import needs of the page: the open workbook, and a way to replace it. */
@@ -187,6 +74,12 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
   });
   const dropBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-drop' } });
   const drop = el('label', { className: 'kl-tick' }, [dropBox, ' Leave out the rows with errors']);
+  // Tender-stage lists lack nameplates: the same fill as Edit → Fill blanks, as the rows arrive.
+  const fillBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-fill-typical' } });
+  const fill = el('label', { className: 'kl-tick' }, [
+    fillBox,
+    ' Fill blanks of motors and transformers with typical values (marked as assumed)',
+  ]);
   // Replacing the equipment asks what becomes of the site settings; adding always keeps them.
   const keepBox = el('input', {
     attrs: {
@@ -228,7 +121,8 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     note.textContent = '';
     if (step === 'map') {
       if (proposal.missing.length)
-        note.textContent = `Still needed: a column for ${proposal.missing.join(', ')}.`;
+        note.textContent = `Still needed: a column for ${proposal.missing.map((t) => columnLabel(t).label).join(', ')}${proposal.missing.includes('kind') ? ' (or choose below the kind every row is)' : ''}.`;
+      const everyKind = kindForEveryRow(proposal, (p) => ((proposal = p), render()));
       body.replaceChildren(
         el('p', {
           text: `${file.name}${read.value.sheet ? `, sheet "${read.value.sheet}"` : ''}: header found in row ${proposal.headerRow}. Check what each column feeds and its unit.`,
@@ -236,9 +130,11 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
         el('div', { className: 'kl-scroll' }, [
           mappingTable(proposal, settings.cases, (p) => ((proposal = p), render())),
         ]),
+        ...(everyKind ? [everyKind] : []),
       );
     } else if (preview) {
       body.replaceChildren(
+        fill,
         ...previewNodes(preview),
         el('p', {
           className: 'kl-muted',
@@ -285,16 +181,22 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
     }
     dlg.close();
     const left = r.dropped > 0 ? `, ${r.dropped} row(s) with errors left out` : '';
-    const done = `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}).`;
+    const assumed = r.assumed > 0 ? `, ${r.assumed} typical value(s) assumed for blanks` : '';
+    const done = `Imported ${r.added} items from "${file.name}" (${mode === 'append' ? 'added' : 'replacing the equipment'}${left}${assumed}).`;
     void openWithProgress(app, `Importing "${file.name}"`, async () => ({ doc: r.doc, note: done }));
   };
 
   back.addEventListener('click', () => ((step = 'map'), render()));
   add.addEventListener('click', () => accept('append'));
   dropBox.addEventListener('change', render);
+  const previewNow = () => previewImport(proposal, { settings, fillTypical: fillBox.checked });
+  fillBox.addEventListener('change', () => {
+    preview = previewNow();
+    render();
+  });
   next.addEventListener('click', () => {
     if (step === 'preview') return accept('replace');
-    preview = previewImport(proposal, { settings });
+    preview = previewNow();
     step = 'preview';
     render();
   });

@@ -29,7 +29,7 @@ import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
 import { sortedOrder } from './rowOrder.ts';
-import { planTypicalFill, type TypicalFillReport } from './typicalFill.ts';
+import { planPageFill, type TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
 
 export type SessionChange =
@@ -240,7 +240,7 @@ export class WorkbookSession {
   fillTypicalValues(): TypicalFillReport {
     const site = this.site;
     if (!site) throw new SessionError('Typical values fill the equipment sheets of a site workbook.');
-    const plan = planTypicalFill(this.contents, site.ids.equipment, equipmentPlans(site.state.cases));
+    const plan = planPageFill(this.contents, site.ids.equipment, equipmentPlans(site.state.cases));
     if (plan.filled === 0) return plan;
     this.step(() => {
       let entries = 0;

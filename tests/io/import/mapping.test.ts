@@ -51,7 +51,7 @@ describe('proposeMapping', () => {
     ]);
     expect(byHeader(p, 'Voltage (V)').unit).toEqual({ label: 'V', factor: 1e-3 });
     expect(byHeader(p, 'Eff %').unit).toEqual({ label: '%', factor: 0.01 });
-    expect(byHeader(p, 'Remarks').note).toMatch(/also looks like description, which column B/);
+    expect(byHeader(p, 'Remarks').note).toMatch(/also looks like Description, which column B/);
   });
 
   it('spots percent from the values, but not from one bad value', () => {

@@ -1,0 +1,156 @@
+// --assume-typical on the site commands: blank motor and transformer inputs take the typical
+// values the page's fill gives, listed on stderr or in --json, marked in an export; without the
+// option nothing changes. Outside values: IEC 60034-30-1 IE3 4-pole 50 Hz minimum efficiency
+// 90 kW 95.2 % (the published table, value quoted from memory of it); a motor's electrical input P = P_out / η (definition of
+// efficiency), worked by hand below.
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import ExcelJS from 'exceljs';
+import { run as balanceRun } from '../../src/cli/balance.ts';
+import { run as exportRun } from '../../src/cli/export.ts';
+import { run as quoteRun } from '../../src/cli/quote.ts';
+
+const tmp = mkdtempSync(join(tmpdir(), 'kvar-typical-'));
+
+type Run = (argv: string[], io: { out(t: string): void; err(t: string): void }) => Promise<number>;
+async function cli(run: Run, ...argv: string[]) {
+  let out = '';
+  let err = '';
+  const code = await run(argv, { out: (t) => void (out += t), err: (t) => void (err += t) });
+  return { code, out, err };
+}
+
+// An invented tender-stage list: one motor without efficiency and cos φ, one complete, a
+// transformer with only its rating.
+const LIST =
+  'Tag,Bus,Kind,Rated output (kW),Efficiency,cos phi,u_kv,sn_kva,to_bus\n' +
+  'T1,MV,transformer,,,,0.4,1000,LV\n' +
+  'M1,LV,motor,90,,,0.4,,\n' +
+  'M2,LV,motor,45,0.93,0.83,0.4,,\n';
+const file = join(tmp, 'tender.csv');
+writeFileSync(file, LIST);
+
+interface AssumedJson {
+  sheet: string;
+  row: number;
+  tag: string;
+  field: string;
+  value: number;
+  source: string;
+}
+
+describe('kvar-ledger --assume-typical', () => {
+  it('without the option the blanks are refused as before', async () => {
+    const r = await cli(balanceRun, file);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/row 3, column E \(Efficiency\): eff is required for a motor and is blank/);
+    expect(r.err).not.toMatch(/assumed/);
+  });
+
+  it('balance fills the blanks, lists each with sheet, row, tag, field, value and source', async () => {
+    const text = await cli(balanceRun, file, '--assume-typical');
+    expect(text.code, text.err).toBe(0);
+    expect(text.err).toMatch(
+      /tender\.csv: assumed: Motors row 2 \(M1\): eff = 0\.952 \(90 kW, 4-pole, class IE3; IEC 60034-30-1/,
+    );
+    expect(text.err).toMatch(/Transformers row 2 \(T1\): p0_kw = .*EU 548\/2014/);
+    expect(text.err).toMatch(/8 typical value\(s\) assumed for blanks/);
+
+    const json = await cli(balanceRun, file, '--assume-typical', '--json');
+    expect(json.code, json.err).toBe(0);
+    // With --json the list is in the JSON, not on stderr.
+    expect(json.err).toBe('');
+    const out = JSON.parse(json.out) as {
+      assumed: AssumedJson[];
+      not_assumed: string[];
+      buses: Array<{ bus: string; own_p_kw: number }>;
+    };
+    expect(out.assumed).toContainEqual(
+      expect.objectContaining({ sheet: 'Motors', row: 2, tag: 'M1', field: 'eff', value: 0.952 }),
+    );
+    // Typed values are kept: M2's efficiency and cos φ are not among the assumed.
+    expect(out.assumed.filter((a) => a.tag === 'M2').map((a) => a.field)).toEqual(['i0_pct']);
+    expect(
+      out.assumed
+        .filter((a) => a.tag === 'T1')
+        .map((a) => a.field)
+        .sort(),
+    ).toEqual(['i0_pct', 'p0_kw', 'pk_kw', 'uk_pct']);
+    expect(out.not_assumed).toEqual([]);
+    // By hand: P = 90 / 0.952 + 45 / 0.93 on bus LV (load factor 1).
+    const lv = out.buses.find((b) => b.bus === 'LV');
+    expect(lv?.own_p_kw).toBeCloseTo(90 / 0.952 + 45 / 0.93, 9);
+  });
+
+  it('without the option a complete file gives an empty list and the same figures', async () => {
+    const full = join(tmp, 'full.csv');
+    writeFileSync(
+      full,
+      'Tag,Bus,Kind,Rated output (kW),Efficiency,cos phi,i0_pct,u_kv\nM2,LV,motor,45,0.93,0.83,30,0.4\n',
+    );
+    const plain = await cli(balanceRun, full, '--json');
+    const filled = await cli(balanceRun, full, '--json', '--assume-typical');
+    expect(JSON.parse(plain.out)).toEqual(JSON.parse(filled.out));
+    expect((JSON.parse(plain.out) as { assumed: unknown[] }).assumed).toEqual([]);
+  });
+
+  it('says which blanks stay blank and why', async () => {
+    const odd = join(tmp, 'odd.csv');
+    writeFileSync(odd, 'Tag,Bus,Kind,Rated output (kW),Efficiency,cos phi,u_kv\nM9,LV,motor,5000,,,6\n');
+    const r = await cli(balanceRun, odd, '--assume-typical');
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(
+      /odd\.csv: not assumed: row 2 \(M9\): eff: 5000 kW is outside the typical-value tables/,
+    );
+  });
+
+  it('export marks the assumed cells with their source and counts them on the cover', async () => {
+    const xlsx = join(tmp, 'tender.xlsx');
+    const r = await cli(exportRun, file, xlsx, '--assume-typical');
+    expect(r.code, r.err).toBe(0);
+    expect(r.err).toMatch(/assumed: Motors row 2 \(M1\): eff = 0\.952/);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(readFileSync(xlsx) as unknown as ArrayBuffer);
+    const cover = wb.worksheets[0]!.getSheetValues().flat().join('\n');
+    expect(cover).toMatch(/8 value\(s\) are typical values assumed for blanks/);
+    const motors = wb.getWorksheet('Motors')!;
+    const header = (motors.getRow(1).values as unknown[]).map(String);
+    const eff = motors.getCell(2, header.indexOf('Efficiency'));
+    expect(eff.value).toBe(0.952);
+    expect(JSON.stringify(eff.note)).toMatch(/90 kW, 4-pole, class IE3/);
+    // A typed value carries no note.
+    expect(motors.getCell(3, header.indexOf('Efficiency')).note).toBeUndefined();
+
+    const plain = join(tmp, 'plain.xlsx');
+    const refused = await cli(exportRun, file, plain);
+    expect(refused.code).toBe(1);
+  });
+
+  it('quote prices the filled site and lists what it assumed', async () => {
+    const r = await cli(quoteRun, file, '--assume-typical');
+    expect(r.code, r.err).toBe(0);
+    expect(r.err).toMatch(/8 typical value\(s\) assumed for blanks/);
+  });
+
+  it('export of a saved workbook keeps the assumed marks the page put there', async () => {
+    const { WorkbookSession } = await import('../../src/ui/model/session.ts');
+    const { workbookOf } = await import('../../src/ui/templates/templateBuild.ts');
+    const text = readFileSync(new URL('../../templates/cold-store.json', import.meta.url), 'utf8');
+    const s = WorkbookSession.fromDoc(await workbookOf('cold-store', text));
+    const filled = s.fillTypicalValues().filled;
+    expect(filled).toBeGreaterThan(0);
+    const saved = join(tmp, 'filled.kvar.json');
+    writeFileSync(saved, JSON.stringify(s.toDoc()));
+    const xlsx = join(tmp, 'filled.xlsx');
+    const r = await cli(exportRun, saved, xlsx);
+    expect(r.code, r.err).toBe(0);
+    // Nothing new was assumed, so nothing is listed; the page's marks travel to the xlsx.
+    expect(r.err).not.toMatch(/assumed/);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(readFileSync(xlsx) as unknown as ArrayBuffer);
+    const cover = wb.worksheets[0]!.getSheetValues().flat().join('\n');
+    expect(cover).toMatch(new RegExp(`${filled} value\\(s\\) are typical values assumed for blanks`));
+  });
+});
