@@ -13,10 +13,19 @@ function usage(): string {
 }
 
 function version(): string {
-  const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as {
-    version?: string;
-  };
-  return `kvar-ledger ${pkg.version ?? 'unknown'}\n`;
+  // src/cli/main.ts or its compiled copy node_modules/.kvar-ledger-cli/cli/main.js: two or three up.
+  for (const up of ['../../package.json', '../../../package.json']) {
+    try {
+      const pkg = JSON.parse(readFileSync(new URL(up, import.meta.url), 'utf8')) as {
+        name?: string;
+        version?: string;
+      };
+      if (pkg.name === 'kvar-ledger') return `kvar-ledger ${pkg.version ?? 'unknown'}\n`;
+    } catch {
+      // not here: look one level further up
+    }
+  }
+  return 'kvar-ledger (version unknown: package.json not found)\n';
 }
 
 export async function main(argv: string[], io: CliIo): Promise<number> {
