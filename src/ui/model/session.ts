@@ -270,6 +270,11 @@ export class WorkbookSession {
         `Rows of the ${name} sheet follow the site (one row per setting, case or bus); add or remove equipment instead.`,
       );
     }
+    if (role.kind === 'quantities') {
+      throw new SessionError(
+        `Rows of the ${name} sheet follow the buses (a block of item lines per bus); change the banks on the Compensation sheet or the rates on the Rates sheet instead.`,
+      );
+    }
     if (role.kind === 'equipment' && at === 0) {
       throw new SessionError(
         `The header row of ${name} names the columns the formulas and the export rely on; it stays.`,
@@ -508,7 +513,7 @@ export class WorkbookSession {
     const doc = renameCaseColumns(this.toDoc(), caseRenames);
     const r = renderWorkbook(doc, { flavour: 'live' });
     const ids = site.ids;
-    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp];
+    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp, ids.quant];
     this.engine.batch(() => {
       for (const id of builtIn) {
         const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
