@@ -73,6 +73,10 @@ function basis(busRow: number) {
   };
 }
 
+// Numbers joined into a text are rounded first: engines print a number's full digits differently.
+const r2 = (x: string) => `ROUND(${x},2)`;
+const r3 = (x: string) => `ROUND(${x},3)`;
+
 const lineCurrent = (kvar: string, u: string, factor: number) => `${kvar}/(SQRT(3)*${u})*${factor}`;
 
 /** The device switching a circuit whose current is in `amps`: LV contactor; MV contactor or breaker. */
@@ -115,7 +119,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at "&${k.uRated}&" kV rated, "&IF(${k.lv},"three-phase","single-phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at "&${r3(k.uRated)}&" kV rated, "&IF(${k.lv},"three-phase","single-phase"))`,
       ),
       count: when('', `IF(${k.per}="","",${perPart}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),
@@ -124,9 +128,9 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   };
   switch (slot) {
     case 'stepCapacitors':
-      return capacitors(`"&${k.steps}&" steps of "&${k.step}&" kvar`, k.step, k.steps, `${k.steps}>0`);
+      return capacitors(`"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`, k.step, k.steps, `${k.steps}>0`);
     case 'fixedCapacitors':
-      return capacitors(`fixed "&${k.fixed}&" kvar`, k.fixed, '1', `${k.fixed}>0`);
+      return capacitors(`fixed "&${r2(k.fixed)}&" kvar`, k.fixed, '1', `${k.fixed}>0`);
     case 'detuning': {
       const parts = `${k.steps}+IF(${k.fixed}>0,1,0)`;
       return {
@@ -185,7 +189,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         item: onlyIf(`${k.total}>0`, code),
         what: when(
           '',
-          `"bank incomer for "&${k.total}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+          `"bank incomer for "&${r2(k.total)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
         ),
         count: when('', '1'),
         quantity: when('', '1'),
@@ -209,7 +213,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
     case 'shuntReactor':
       return {
         item: onlyIf(`${k.reactor}>0`, `${lvOrMv}&" shunt reactor"`),
-        what: when('', `"shunt reactor "&${k.reactor}&" kvar at "&${k.u}&" kV"`),
+        what: when('', `"shunt reactor "&${r2(k.reactor)}&" kvar at "&${r3(k.u)}&" kV"`),
         count: when('', '1'),
         quantity: when('', k.reactor),
         unit: 'kvar',

@@ -65,7 +65,7 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   out[QC.total] = `=${here(QC.fixed)}+${here(QC.step)}*${here(QC.steps)}`;
   out[QC.reactor] = `=${nonNegative(inp('reactor_kvar'))}`;
   out[QC.what] =
-    `=IF(${total}+${reactor}=0,"no bank or reactor chosen",IF(${known},"bank "&${total}&" kvar"&IF(${reactor}>0,", reactor "&${reactor}&" kvar","")&" at "&${u}&" kV","the voltage of the bus is unknown: state u_kv on a row of the bus"))`;
+    `=IF(${total}+${reactor}=0,"no bank or reactor chosen",IF(${known},"bank "&ROUND(${total},2)&" kvar"&IF(${reactor}>0,", reactor "&ROUND(${reactor},2)&" kvar","")&" at "&ROUND(${u},3)&" kV","the voltage of the bus is unknown: state u_kv on a row of the bus"))`;
   out[QC.unpriced] = `=IF(AND(NOT(${known}),${total}+${reactor}>0),1,0)`;
   const last = slotRow(i, SLOTS[SLOTS.length - 1] as (typeof SLOTS)[number]);
   out[QC.subtotal] =
@@ -124,11 +124,11 @@ function summary(input: QuantitiesInput, n: number): CellContent[][] {
         `=IF(SUM(${rangeOn(undefined, 1, QC.unpriced, lastBlockRow, QC.unpriced)})>0,${unpriced},SUM(${rangeOn(undefined, 1, QC.cost, lastBlockRow, QC.cost)}))`;
     else if (label === 'Installation' || label === 'Engineering') {
       out[QC.rate] = surchargePct(input, label);
-      out[QC.what] = `=${pct(label)}&" % of the equipment"`;
+      out[QC.what] = `=ROUND(${pct(label)},2)&" % of the equipment"`;
       out[QC.cost] = `=IF(ISNUMBER(${eq}),${eq}*${pct(label)}/100,${unpriced})`;
     } else if (label === 'Contingency') {
       out[QC.rate] = surchargePct(input, label);
-      out[QC.what] = `=${pct(label)}&" % of equipment, installation and engineering"`;
+      out[QC.what] = `=ROUND(${pct(label)},2)&" % of equipment, installation and engineering"`;
       out[QC.cost] =
         `=IF(ISNUMBER(${eq}),(${eq}+${amount('Installation')}+${amount('Engineering')})*${pct(label)}/100,${unpriced})`;
     } else
