@@ -117,9 +117,9 @@ export type SummaryLine = (typeof SUMMARY_LABELS)[number];
 export function summaryRowOf(busCount: number, line: SummaryLine): number {
   return busLineRow(busCount) + 1 + SUMMARY_LABELS.indexOf(line);
 }
-/** Rows of the whole generated block (header included) for n buses. */
-export function quantitiesExtent(busCount: number): number {
-  return busCount === 0 ? 1 : summaryRowOf(busCount, 'Total') + 3;
+/** Rows of the whole generated block (header included) for n buses and `cases` cases. */
+export function quantitiesExtent(busCount: number, cases: number): number {
+  return busCount === 0 ? 1 : savingCaseRow(busCount, cases) + SAVING_LABELS.length;
 }
 
 /** Texts a cost or rate cell shows instead of a number. */
@@ -130,3 +130,31 @@ export const UNPRICED_TEXT = {
   noQuantity: 'quantity unknown',
   total: 'unpriced',
 } as const;
+
+/** What it saves, below the note: a heading line, one line per case, then the yearly figures. */
+export const SAVING_HEADINGS: Partial<Record<number, string>> = {
+  [QC.bus]: 'What it saves',
+  [QC.what]: 'per year, with the Tariff sheet',
+  [QC.count]: 'Hours per year',
+  [QC.quantity]: 'kvarh charged before',
+  [QC.unit]: 'kvarh charged after',
+  [QC.amps]: 'Excess kvar before',
+  [QC.rate]: 'Excess kvar after',
+  [QC.cost]: 'Losses saved (kWh)',
+};
+export const SAVING_LABELS = [
+  'Reactive charge before',
+  'Reactive charge after',
+  'Losses saved',
+  'Annual saving',
+  'Simple payback (years)',
+] as const;
+export type SavingLine = (typeof SAVING_LABELS)[number];
+
+/** Row of the saving block's heading line for n buses. */
+export const savingHeadRow = (busCount: number) => summaryRowOf(busCount, 'Total') + 4;
+/** Row of case k's line. */
+export const savingCaseRow = (busCount: number, k: number) => savingHeadRow(busCount) + 1 + k;
+/** Row of a yearly figure, with `cases` case lines above. */
+export const savingRowOf = (busCount: number, cases: number, line: SavingLine) =>
+  savingCaseRow(busCount, cases) + SAVING_LABELS.indexOf(line);

@@ -20,7 +20,7 @@ import { BUSES_PURPOSE, renderBusesSheet } from './renderBuses.ts';
 import { COMPENSATION_PURPOSE, renderCompensationSheet } from './renderCompensation.ts';
 import { QUANTITIES_SHEET, QUANT_COLUMNS } from './quantitiesLayout.ts';
 import { QUANTITIES_PURPOSE, renderQuantitiesSheet } from './renderQuantities.ts';
-import { RATES_SHEET } from '../quote/index.ts';
+import { RATES_SHEET, TARIFF_SHEET } from '../quote/index.ts';
 import { busLookup, computedCells, headerRow } from './renderEquipment.ts';
 import {
   SETTINGS_COLUMNS,
@@ -317,6 +317,7 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     s: structure,
     comp: compCols,
     hasRates: findSheet(doc, RATES_SHEET) !== undefined,
+    hasTariff: findSheet(doc, TARIFF_SHEET) !== undefined,
   });
   const quantOver = overridesOf(quantSheet);
   sheets.push(

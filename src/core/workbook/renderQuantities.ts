@@ -19,6 +19,7 @@ import {
   summaryRowOf,
 } from './quantitiesLayout.ts';
 import { itemCells, itemRow } from './quantityFormulas.ts';
+import { savingRows } from './renderSaving.ts';
 import { absCell, cell, cellOn, rangeOn, sheetPrefix } from './refs.ts';
 import { settingRef } from './settingsLayout.ts';
 import type { WorkbookStructure } from './structure.ts';
@@ -28,6 +29,8 @@ export interface QuantitiesInput {
   readonly comp: CompensationColumns;
   /** Does the workbook have a Rates sheet? Without one every item shows "no rate". */
   readonly hasRates: boolean;
+  /** Does it have a Tariff sheet? Without one the saving is 0. */
+  readonly hasTariff: boolean;
 }
 
 const WIDTH = QUANT_COLUMNS.length;
@@ -157,7 +160,7 @@ export function renderQuantitiesSheet(input: QuantitiesInput): CellContent[][] {
       cells.push(out);
     }
   }
-  cells.push(...summary(input, n));
+  cells.push(...summary(input, n), ...savingRows(n, input.s.cases, input.hasTariff));
   return cells;
 }
 

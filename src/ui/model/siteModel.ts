@@ -22,7 +22,7 @@ import { ownSumCells, renderBusesSheet } from '../../core/workbook/renderBuses.t
 import { plainInstalledCell, renderCompensationSheet } from '../../core/workbook/renderCompensation.ts';
 import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
 import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
-import { RATES_SHEET } from '../../core/quote/index.ts';
+import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
 import { busLookup, computedCells } from '../../core/workbook/renderEquipment.ts';
 import {
   equipmentPlans,
@@ -389,8 +389,13 @@ export class SiteModel {
 
   /** The "Quantities and cost" sheet for a structure (its rates from the Rates sheet, when there is one). */
   private quantitiesGrid(s: WorkbookStructure) {
-    const hasRates = this.hf.getSheetId(RATES_SHEET) !== undefined;
-    return renderQuantitiesSheet({ s, comp: this.plans().comp, hasRates });
+    const has = (name: string) => this.hf.getSheetId(name) !== undefined;
+    return renderQuantitiesSheet({
+      s,
+      comp: this.plans().comp,
+      hasRates: has(RATES_SHEET),
+      hasTariff: has(TARIFF_SHEET),
+    });
   }
 
   /** Bank inputs per bus as the Compensation sheet holds them now (by the bus on each row). */

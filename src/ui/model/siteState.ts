@@ -41,7 +41,11 @@ export function stateOf(
     rows: r.structure.sheets.map((s) => s.rows),
     rendered: r.structure,
     overrides,
-    extent: { buses: n + 1, comp: n > 0 ? summaryRow(n) + 1 : 1, quant: quantitiesExtent(n) },
+    extent: {
+      buses: n + 1,
+      comp: n > 0 ? summaryRow(n) + 1 : 1,
+      quant: quantitiesExtent(n, r.structure.cases.length),
+    },
     notes,
     retired: new Map(),
   };

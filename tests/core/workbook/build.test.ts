@@ -195,6 +195,7 @@ describe('workbook shape', () => {
       'Compensation',
       'Quantities and cost',
       'Rates',
+      'Tariff',
     ]);
     expect(doc.title).toBe(PLANT.settings.name);
   });
