@@ -11,7 +11,7 @@ import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteArb } from './siteArb.ts';
 import { applyEdit, editArb } from './edits.ts';
 import { coreFaces, pageFaces, relDiff } from './faces.ts';
-import { coreQuote, pageQuote, type QuoteFace } from './quoteFaces.ts';
+import { coreQuote, coreSaving, pageQuote, pageSaving, type QuoteFace } from './quoteFaces.ts';
 
 const TOL = 1e-9;
 
@@ -46,6 +46,31 @@ function compare(s: WorkbookSession, log: readonly string[]): number {
 const sameOrBothNull = (a: number | null, b: number | null) =>
   a === null || b === null ? a === b : relDiff(a, b) < TOL;
 
+/** The saving block: per case hours, kvarh, excess kvar and losses; the yearly figures and payback. */
+function compareSavings(s: WorkbookSession, busCount: number, total: number | null, where: () => string) {
+  const core = coreSaving(s, total);
+  const page = pageSaving(s, busCount, core.cases.length);
+  const show = () => `page ${JSON.stringify(page)}\ncore ${JSON.stringify(core)}\n${where()}`;
+  core.cases.forEach((c, k) => {
+    const want = [
+      c.hours,
+      c.kvarh_before,
+      c.kvarh_after,
+      c.excess_before_kvar,
+      c.excess_after_kvar,
+      c.loss_kwh_saved,
+    ];
+    want.forEach((x, j) => expect(sameOrBothNull(page.perCase[k]?.[j] ?? null, x), show()).toBe(true));
+  });
+  const y = page.yearly;
+  const num = (v: unknown) => (typeof v === 'number' ? v : null);
+  expect(sameOrBothNull(num(y['Reactive charge before']), core.charge_before), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Reactive charge after']), core.charge_after), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Losses saved']), core.losses_saved), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Annual saving']), core.annual_saving), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Simple payback (years)']), core.payback_years), show()).toBe(true);
+}
+
 /** Lines with a cost compared over the whole run: the schedule must not be empty everywhere. */
 let pricedLines = 0;
 
@@ -73,6 +98,7 @@ function compareQuotes(s: WorkbookSession, where: () => string): number {
   });
   expect(sameOrBothNull(page.equipment, core.face.equipment), `equipment: ${show()}`).toBe(true);
   expect(sameOrBothNull(page.total, core.face.total), `total: ${show()}`).toBe(true);
+  compareSavings(s, core.busCount, core.face.total, where);
   return core.face.buses.reduce((n, b) => n + b.lines.filter((l) => l.cost !== null).length, 0);
 }
 

@@ -3,17 +3,25 @@
 import type { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
 import {
+  annualSaving,
   priceSchedule,
   rateRowsOf,
   readRateTable,
+  readTariff,
   siteSchedule,
+  tariffRowsOf,
   type Quote,
+  type Saving,
 } from '../../../src/core/quote/index.ts';
+import { compensate } from '../../../src/core/site/compensate.ts';
 import {
   QC,
   QUANTITIES_SHEET,
   SLOTS,
+  SAVING_LABELS,
   busLineRow,
+  savingCaseRow,
+  savingRowOf,
   slotRow,
   summaryRowOf,
 } from '../../../src/core/workbook/quantitiesLayout.ts';
@@ -92,4 +100,33 @@ function countBuses(s: WorkbookSession): number {
   let n = 0;
   while (s.engine.getCellValue({ sheet: id, row: n + 1, col: 0 }) !== null) n++;
   return n;
+}
+
+/** The saving block as the page shows it: per case [hours, kvarh before, after, losses kWh], then the yearly figures. */
+export function pageSaving(s: WorkbookSession, busCount: number, cases: number) {
+  const id = s.engine.getSheetId(QUANTITIES_SHEET) as number;
+  const v = (row: number, col: number) => s.engine.getCellValue({ sheet: id, row, col });
+  const perCase = Array.from({ length: cases }, (_, k) => {
+    const r = savingCaseRow(busCount, k);
+    return [QC.count, QC.quantity, QC.unit, QC.amps, QC.rate, QC.cost].map((c) => numOrNull(v(r, c)));
+  });
+  const yearly = Object.fromEntries(
+    SAVING_LABELS.map((l) => [l, v(savingRowOf(busCount, cases, l), QC.cost)]),
+  ) as Record<(typeof SAVING_LABELS)[number], unknown>;
+  return { perCase, yearly };
+}
+
+/** The core's saving for the workbook as saved: its Tariff sheet, P and Q at the point of connection. */
+export function coreSaving(s: WorkbookSession, total: number | null): Saving {
+  const doc = s.toDoc();
+  const read = siteFromWorkbook(doc);
+  const flows = compensate(read.site, read.banks).map((c) => ({
+    case: c.case,
+    p_kw: c.before.root.p_kw,
+    q_kvar: c.before.root.q_kvar,
+    p_after_kw: c.after.root.p_kw,
+    q_after_kvar: c.after.root.q_kvar,
+  }));
+  const { tariff } = readTariff(tariffRowsOf(doc) ?? [], read.site.settings.cases);
+  return annualSaving(flows, tariff, total);
 }
