@@ -19,7 +19,7 @@ import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
 import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
-import { rateRowsOf } from '../core/quote/index.ts';
+import { rateRowsOf, tariffRowsOf } from '../core/quote/index.ts';
 import { previewImport } from '../io/import/preview.ts';
 import {
   proposeMapping,
@@ -48,6 +48,8 @@ export interface LoadedSite {
   readonly source: SourceKind;
   /** The rows of a workbook's Rates sheet (header first); undefined when the file has none. */
   readonly rateRows?: readonly (readonly CellContent[])[];
+  /** The rows of a workbook's Tariff sheet (header first); undefined when the file has none. */
+  readonly tariffRows?: readonly (readonly CellContent[])[];
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
 }
@@ -107,11 +109,13 @@ type Read = {
   banks?: readonly BankChoice[];
   source: SourceKind;
   rateRows?: readonly (readonly CellContent[])[];
+  tariffRows?: readonly (readonly CellContent[])[];
 };
 
 const ratesOf = (doc: WorkbookDoc) => {
   const rows = rateRowsOf(doc);
-  return rows ? { rateRows: rows } : {};
+  const tariff = tariffRowsOf(doc);
+  return { ...(rows ? { rateRows: rows } : {}), ...(tariff ? { tariffRows: tariff } : {}) };
 };
 
 async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadResult> {
@@ -300,7 +304,10 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const problems =
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
   const banks = read.banks ? { banks: read.banks } : {};
-  const rates = read.rateRows ? { rateRows: read.rateRows } : {};
+  const rates = {
+    ...(read.rateRows ? { rateRows: read.rateRows } : {}),
+    ...(read.tariffRows ? { tariffRows: read.tariffRows } : {}),
+  };
   return { ok: true, loaded: { site, problems, ...banks, ...rates, source: read.source, caseName } };
 }
 
