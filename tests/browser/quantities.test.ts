@@ -1,7 +1,7 @@
 // Pricing in the page: on the demo, a rate typed on the Rates sheet reaches the "Quantities and
 // cost" sheet's total at once, by exactly the change an estimator works out by hand (quantity ×
-// change of rate, through installation, engineering and contingency), and one Ctrl+Z puts the
-// total back. The quantities come from the core schedule of the same template (src/core/quote).
+// change of rate, through installation, engineering and contingency), the simple payback moves
+// to the new total over the unchanged annual saving, and one Ctrl+Z puts the total back. The quantities come from the core schedule of the same template (src/core/quote).
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -10,7 +10,7 @@ import { ROOT, screenshot, startApp, stopApp, type AppUnderTest, type Browser } 
 import { cellText } from './gridHelpers.ts';
 import { demoRateTable, siteSchedule } from '../../src/core/quote/index.ts';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
-import { QC, QUANTITIES_SHEET, summaryRowOf } from '../../src/core/workbook/quantitiesLayout.ts';
+import { QC, QUANTITIES_SHEET, savingRowOf, summaryRowOf } from '../../src/core/workbook/quantitiesLayout.ts';
 import { columnLetters } from '../../src/core/workbook/refs.ts';
 import { inputsFromSite } from '../../src/core/workbook/inputsFromSite.ts';
 import { renderWorkbook } from '../../src/core/workbook/render.ts';
@@ -33,7 +33,11 @@ const demo = readSiteFile(readFileSync(join(ROOT, 'templates/cold-store.json'), 
 const demoBanks = demo.banks ?? [];
 const busCount = renderWorkbook(inputsFromSite(demo.site, demoBanks), { flavour: 'live' }).structure.buses
   .length;
-const TOTAL = `'${QUANTITIES_SHEET}'!${columnLetters(QC.cost)}${summaryRowOf(busCount, 'Total') + 1}`;
+const costCell = (row: number) => `'${QUANTITIES_SHEET}'!${columnLetters(QC.cost)}${row + 1}`;
+const TOTAL = costCell(summaryRowOf(busCount, 'Total'));
+const cases = demo.site.settings.cases.length;
+const SAVING = costCell(savingRowOf(busCount, cases, 'Annual saving'));
+const PAYBACK = costCell(savingRowOf(busCount, cases, 'Simple payback (years)'));
 
 async function goTo(address: string): Promise<void> {
   await page.keyboard.press('Control+g');
@@ -56,9 +60,17 @@ async function total(): Promise<number> {
   return value();
 }
 
+async function valueOf(address: string): Promise<number> {
+  await goTo(address);
+  return value();
+}
+
 describe('a rate typed on the Rates sheet', () => {
-  it('changes the total by quantity × change, through the surcharges, and undoes in one step', async () => {
+  it('changes the total by quantity × change, through the surcharges, and the payback with it', async () => {
     const before = await total();
+    const saving = await valueOf(SAVING);
+    expect(saving).toBeGreaterThan(0);
+    expect(await valueOf(PAYBACK)).toBeCloseTo(before / saving, 6);
     const rates = demoRateTable();
     expect(rates.rates[0]?.item).toBe('LV capacitor'); // row 2 of the Rates sheet
     const kvar = siteSchedule(demo.site, demoBanks)
@@ -74,6 +86,9 @@ describe('a rate typed on the Rates sheet', () => {
     const expected = before + 10 * kvar * (1 + (Installation + Engineering) / 100) * (1 + Contingency / 100);
     const after = await total();
     expect(Math.abs(after - expected)).toBeLessThan(1e-6 * expected);
+    // The rates do not change what compensation saves; the payback is the new total over it.
+    expect(await valueOf(SAVING)).toBeCloseTo(saving, 6);
+    expect(await valueOf(PAYBACK)).toBeCloseTo(after / saving, 6);
     await screenshot(page, 'quantities-total');
     await page.keyboard.press('Control+z');
     await expect.poll(total).toBeCloseTo(before, 6);
