@@ -60,12 +60,15 @@ describe('LibreOffice Calc recalculating our exports', () => {
     if (base === 'invented-quarry-fault' || base === 'hand-made') expect(errors).toBeGreaterThan(0);
   });
 
-  it('prices the demo on the Quantities and cost sheet: equipment and total are numbers there', () => {
+  it('prices the demo on the Quantities and cost sheet: total, saving and payback are numbers there', () => {
     // Every formula cell was compared above; this says the comparison covered a priced schedule.
     const rows = sheetCsv(outDir, 'cold-store', QUANTITIES_SHEET);
     const at = (label: string) => Number(rows.find((r) => r[0] === label)?.[QC.cost]);
     expect(at('Equipment')).toBeGreaterThan(0);
     expect(at('Total')).toBeGreaterThan(at('Equipment'));
+    // and what it saves with the demo tariff, and the payback of that total
+    expect(at('Annual saving')).toBeGreaterThan(0);
+    expect(at('Simple payback (years)')).toBeCloseTo(at('Total') / at('Annual saving'), 6);
   });
 
   it('shows no unknown-name error anywhere', () => {
