@@ -1,7 +1,8 @@
 // Pricing in the page: on the demo, a rate typed on the Rates sheet reaches the "Quantities and
 // cost" sheet's total at once, by exactly the change an estimator works out by hand (quantity ×
 // change of rate, through installation, engineering and contingency), the simple payback moves
-// to the new total over the unchanged annual saving, and one Ctrl+Z puts the total back. The quantities come from the core schedule of the same template (src/core/quote).
+// to the new total over the unchanged annual saving, and one Ctrl+Z puts the total back. The
+// quantities come from the core schedule of the same template (src/core/quote).
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

@@ -72,7 +72,7 @@ const FORMAT: Partial<Record<number, string>> = {
   [QC.total]: FORMATS.kvar,
   [QC.reactor]: FORMATS.kvar,
 };
-const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 14, [QC.item]: 26, [QC.what]: 48 };
+const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 22, [QC.item]: 26, [QC.what]: 48 };
 
 export const QUANT_COLUMNS: readonly ColumnInfo[] = QUANT_HEADERS.map((header, c) => ({
   header,
