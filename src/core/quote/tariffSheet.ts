@@ -75,7 +75,7 @@ export function readTariff(
 }
 
 export const TARIFF_PURPOSE =
-  "Your utility's reactive charge and the energy price, which the saving and payback on the Quantities and cost sheet use: a price per kvarh drawn above tan φ × kWh, and/or a penalty per kvar of demand above tan φ × kW each billing period; the price of a kWh lost; the hours per year of each operating case. Found by the Setting text. The values a new workbook starts with are INVENTED demo values: replace them with your utility's tariff.";
+  "Your utility's reactive charge, the price of a kWh lost and the hours per year of each case, for the saving on the Quantities and cost sheet; found by the Setting text. A new workbook's values are INVENTED demo values: enter your tariff.";
 
 const DEMO_NOTE = 'INVENTED demo value: replace with your tariff';
 

@@ -3,7 +3,7 @@
 // the equipment sum, the surcharges and the total. All plain formulas over the Compensation and
 // Rates sheets, so every edit reaches the cost in the same step. An item without a usable rate
 // shows why instead of a number, and the totals then say "unpriced", never a smaller sum.
-import { RATES_SHEET, SURCHARGES } from '../quote/index.ts';
+import { RATES_SHEET } from '../quote/index.ts';
 import { textContent } from '../text/cellText.ts';
 import type { CompensationColumns } from './compensationColumns.ts';
 import type { CellContent } from './document.ts';
@@ -165,6 +165,6 @@ export function renderQuantitiesSheet(input: QuantitiesInput): CellContent[][] {
 }
 
 export const QUANTITIES_NOTE =
-  'Estimate only: the items follow common practice sizing rules (README, "Quantities and cost"); the maker\'s offer, local codes, the utility and a licensed engineer decide the real make-up. Rates marked INVENTED on the Rates sheet are demo rates, not prices.';
+  "Estimate only: common practice sizing (README); the maker's offer, local codes, the utility and a licensed engineer decide. INVENTED demo rates are no prices.";
 
-export const QUANTITIES_PURPOSE = `Per bus: the bank of the Compensation sheet as the items read it, then its countable items (capacitor units, detuning reactors, switching devices by current class, controller, sections or frames, incomer, discharge devices, shunt reactor), each priced at the ${RATES_SHEET} sheet's rate for its Item; then the equipment, ${SURCHARGES.join(', ').toLowerCase()} and the total. An item without a usable rate shows why, and the totals then show "unpriced".`;
+export const QUANTITIES_PURPOSE = `Per bus: the bank as the items read it, its countable items priced at the ${RATES_SHEET} sheet's rates; then equipment, surcharges, total, and what it saves with the Tariff sheet. A line without a usable rate says why; the totals then say "unpriced".`;
