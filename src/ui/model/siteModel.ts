@@ -387,9 +387,18 @@ export class SiteModel {
     return out;
   }
 
+  /** The Quantities and cost sheet written anew for the buses as they are (a Rates or Tariff sheet came or went). */
+  quantitiesWrites(going?: string): Write[] {
+    const grid = this.quantitiesGrid(this.state.rendered, going);
+    const out = this.gridWrites(this.ids.quant, grid, this.state.extent.quant, QUANT_COLUMNS.length);
+    this.state = { ...this.state, extent: { ...this.state.extent, quant: grid.length } };
+    return out;
+  }
+
   /** The "Quantities and cost" sheet for a structure (its rates from the Rates sheet, when there is one). */
-  private quantitiesGrid(s: WorkbookStructure) {
-    const has = (name: string) => this.hf.getSheetId(name) !== undefined;
+  private quantitiesGrid(s: WorkbookStructure, going?: string) {
+    const has = (name: string) =>
+      this.hf.getSheetId(name) !== undefined && name.toLowerCase() !== going?.toLowerCase();
     return renderQuantitiesSheet({
       s,
       comp: this.plans().comp,

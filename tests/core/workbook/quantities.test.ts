@@ -194,6 +194,22 @@ describe('the sheet is generated', () => {
     expect(() => s.removeSheet(id)).toThrow(/can be emptied but not deleted/);
     expect(() => s.renameSheet(id, 'Prices')).toThrow(/site's own sheets/);
   });
+  it('the Rates sheet deleted or renamed: every line says "no rate" (not #REF!), as the CLI reads it', () => {
+    const s = open([LV_BANK]);
+    const q = reader(s);
+    const priced = q.total('Total');
+    expect(typeof priced).toBe('number');
+    const rates = s.engine.getSheetId(RATES_SHEET) as number;
+    s.removeSheet(rates);
+    expect(q.v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe('no rate');
+    expect(q.total('Total')).toBe('unpriced');
+    s.undo();
+    expect(q.total('Total')).toBe(priced);
+    s.renameSheet(s.engine.getSheetId(RATES_SHEET) as number, 'Old rates');
+    expect(q.total('Total')).toBe('unpriced');
+    s.renameSheet(s.engine.getSheetId('Old rates') as number, RATES_SHEET);
+    expect(q.total('Total')).toBe(priced);
+  });
   it('a rate typed on the Rates sheet reaches the cost and the total in the same step, and undoes', () => {
     const s = open([LV_BANK]);
     const q = reader(s);
