@@ -74,6 +74,8 @@ function basis(busRow: number) {
 }
 
 // Numbers joined into a text are rounded first: engines print a number's full digits differently.
+// Even so Gnumeric printed ROUND(0.48,3) with 20 digits, so the capacitor rating is left to the
+// bus line's own column rather than written into the description.
 const r2 = (x: string) => `ROUND(${x},2)`;
 const r3 = (x: string) => `ROUND(${x},3)`;
 
@@ -119,7 +121,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at "&${r3(k.uRated)}&" kV rated, "&IF(${k.lv},"three-phase","single-phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase"))`,
       ),
       count: when('', `IF(${k.per}="","",${perPart}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),
