@@ -21,7 +21,7 @@ import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
 import { assumedInWorkbook } from '../core/workbook/assumedIn.ts';
 import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
-import { rateRowsOf } from '../core/quote/index.ts';
+import { rateRowsOf, tariffRowsOf } from '../core/quote/index.ts';
 import { previewImport } from '../io/import/preview.ts';
 import {
   proposeMapping,
@@ -51,6 +51,8 @@ export interface LoadedSite {
   readonly source: SourceKind;
   /** The rows of a workbook's Rates sheet (header first); undefined when the file has none. */
   readonly rateRows?: readonly (readonly CellContent[])[];
+  /** The rows of a workbook's Tariff sheet (header first); undefined when the file has none. */
+  readonly tariffRows?: readonly (readonly CellContent[])[];
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
   /** With --assume-typical: the typical values put in for blanks (indices into the site's equipment). */
@@ -119,11 +121,13 @@ type Read = {
   banks?: readonly BankChoice[];
   source: SourceKind;
   rateRows?: readonly (readonly CellContent[])[];
+  tariffRows?: readonly (readonly CellContent[])[];
 };
 
 const ratesOf = (doc: WorkbookDoc) => {
   const rows = rateRowsOf(doc);
-  return rows ? { rateRows: rows } : {};
+  const tariff = tariffRowsOf(doc);
+  return { ...(rows ? { rateRows: rows } : {}), ...(tariff ? { tariffRows: tariff } : {}) };
 };
 
 async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadResult> {
@@ -340,7 +344,10 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const problems =
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
   const banks = read.banks ? { banks: read.banks } : {};
-  const rates = read.rateRows ? { rateRows: read.rateRows } : {};
+  const rates = {
+    ...(read.rateRows ? { rateRows: read.rateRows } : {}),
+    ...(read.tariffRows ? { tariffRows: read.tariffRows } : {}),
+  };
   const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed, held: read.held ?? [] };
   return {
     ok: true,

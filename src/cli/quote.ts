@@ -29,6 +29,7 @@ import {
   type RateTable,
 } from '../core/quote/index.ts';
 import { readCsv } from '../io/csv/read.ts';
+import { quoteSaving, savingText, type SavingResult } from './quoteSaving.ts';
 
 const USAGE = `usage: kvar-ledger quote <file> [--rates rates.csv] [site options] [--json]
 The items of the compensation per bus (capacitor units, detuning reactors, switching devices
@@ -39,7 +40,9 @@ cost at your rates, with installation, engineering and contingency. The banks ar
                 without it, the workbook's Rates sheet (none: every item unpriced);
                 for a site file or a list, INVENTED demo rates
   --json        print {site, banks_from, rates_from, currency, buses, equipment, surcharges,
-                total, unpriced} as JSON
+                total, unpriced, tariff_from, saving} as JSON
+The saving per year (reactive charge before and after, losses saved, simple payback) uses the
+workbook's Tariff sheet; a site file or a list takes an INVENTED demo tariff, said so.
 ${SITE_OPTIONS_HELP}
 ${EXIT_HELP}
 `;
@@ -89,6 +92,7 @@ function toText(
   ratesFrom: RatesFrom,
   q: Quote,
   rateProblems: readonly RateProblem[],
+  saving: string,
 ): string {
   const out = [`${name}: quantities and cost\n${from}; ${RATES_TEXT[ratesFrom]}\n`];
   if (q.buses.length === 0) out.push('\nno bank or reactor: nothing to price\n');
@@ -113,7 +117,7 @@ function toText(
   out.push('\n' + table(['', ''], sums, 1).split('\n').slice(2).join('\n'));
   for (const u of q.unpriced) out.push(`unpriced: ${oneLine(u)}\n`);
   for (const p of rateProblems) out.push(`rates: ${oneLine(p.message)}\n`);
-  out.push(`\n${CAUTION_SHORT}\n`);
+  out.push(saving, `\n${CAUTION_SHORT}\n`);
   return out.join('');
 }
 
@@ -221,11 +225,35 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     throw e;
   }
   const quote = priceSchedule(siteSchedule(site, banks), rates);
+  const isWorkbook = loaded.loaded.source === 'workbook' || loaded.loaded.source === 'own-xlsx';
+  let saving: SavingResult;
+  try {
+    saving = quoteSaving(site, banks, loaded.loaded.tariffRows, isWorkbook, quote.total);
+  } catch (e) {
+    if (e instanceof SiteStructureError) return inputError(io, 'quote', `${file}: ${e.message}`);
+    throw e;
+  }
   const fromText = from === 'file' ? 'banks as the file gives them' : 'banks proposed (the file gives none)';
   io.out(
     flags.has('--json')
-      ? JSON.stringify(toJson(site.settings.name, from, ratesFrom, quote, rateProblems), null, 2) + '\n'
-      : toText(site.settings.name, fromText, ratesFrom, quote, rateProblems),
+      ? JSON.stringify(
+          {
+            ...toJson(site.settings.name, from, ratesFrom, quote, rateProblems),
+            tariff_from: saving.from,
+            saving: saving.saving,
+            tariff_problems: saving.problems,
+          },
+          null,
+          2,
+        ) + '\n'
+      : toText(
+          site.settings.name,
+          fromText,
+          ratesFrom,
+          quote,
+          rateProblems,
+          savingText(saving, quote.currency),
+        ),
   );
   return EXIT_OK;
 }

@@ -6,7 +6,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
-import { RATES_SHEET } from '../../src/core/quote/index.ts';
+import { RATES_SHEET, TARIFF_SHEET, type Saving } from '../../src/core/quote/index.ts';
+import { QC, QUANTITIES_SHEET, savingRowOf } from '../../src/core/workbook/quantitiesLayout.ts';
+import { renderWorkbook } from '../../src/core/workbook/render.ts';
+import { WorkbookSession } from '../../src/ui/model/session.ts';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../src/core/workbook/build.ts';
 
@@ -35,6 +38,8 @@ interface Json {
   equipment: number | null;
   total: number | null;
   unpriced: string[];
+  tariff_from: string;
+  saving: Saving | null;
 }
 
 const TEMPLATE = 'templates/cold-store.json';
@@ -123,6 +128,54 @@ describe('kvar-ledger quote', () => {
     expect(j.total).toBeNull();
     expect(j.buses.flatMap((b) => b.items).every((l) => l.cost === null)).toBe(true);
     expect((await cli(file)).out).toMatch(/the workbook has no Rates sheet/);
+  });
+
+  it('a saved workbook: the saving from its Tariff sheet, the same as its Quantities and cost sheet', async () => {
+    const { site, banks } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live', ...(banks ? { banks } : {}) });
+    const sheets = doc.sheets.map((s) =>
+      s.name === TARIFF_SHEET
+        ? {
+            ...s,
+            cells: s.cells.map((row) =>
+              row[0] === 'Reactive demand penalty'
+                ? ['Reactive demand penalty', 4, 'per kvar', 'offer']
+                : row,
+            ),
+          }
+        : s,
+    );
+    const file = join(dir, 'tariff.kvar.json');
+    writeFileSync(file, JSON.stringify({ ...doc, sheets }));
+    const j = JSON.parse((await cli(file, '--json')).out) as Json;
+    expect(j.tariff_from).toBe('workbook');
+    const saving = j.saving as Saving;
+    expect(saving.charge_before).toBeGreaterThan(0);
+    // The page's sheet for the same workbook (one model): the same payback and annual saving.
+    const s = WorkbookSession.fromDoc({ ...doc, sheets });
+    const n = renderWorkbook({ ...doc, sheets }, { flavour: 'live' }).structure.buses.length;
+    const id = s.engine.getSheetId(QUANTITIES_SHEET) as number;
+    const at = (line: Parameters<typeof savingRowOf>[2]) =>
+      s.engine.getCellValue({ sheet: id, row: savingRowOf(n, saving.cases.length, line), col: QC.cost });
+    expect(at('Annual saving') as number).toBeCloseTo(saving.annual_saving, 6);
+    expect(at('Simple payback (years)') as number).toBeCloseTo(saving.payback_years as number, 9);
+    // payback = total / annual saving, recomputed from the printed figures
+    expect(saving.payback_years as number).toBeCloseTo((j.total as number) / saving.annual_saving, 12);
+    expect((await cli(file)).out).toMatch(/what it saves per year; tariff from the workbook's Tariff sheet/);
+  });
+
+  it('a workbook without a Tariff sheet prints no saving and says why', async () => {
+    const { site } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live' });
+    const file = join(dir, 'no-tariff.kvar.json');
+    writeFileSync(
+      file,
+      JSON.stringify({ ...doc, sheets: doc.sheets.filter((s) => s.name !== TARIFF_SHEET) }),
+    );
+    const j = JSON.parse((await cli(file, '--json')).out) as Json;
+    expect(j.tariff_from).toBe('none');
+    expect(j.saving).toBeNull();
+    expect((await cli(file)).out).toMatch(/no saving: the workbook has no Tariff sheet/);
   });
 
   it('a wrong command line exits 2; help documents --rates', async () => {

@@ -15,6 +15,7 @@ import {
   type Planted,
 } from './books.ts';
 import { convertToCsv, csvFiles, makeRecalcProfile, sheetCsv } from './libreoffice.ts';
+import { QC, QUANTITIES_SHEET } from '../../src/core/workbook/quantitiesLayout.ts';
 
 let books: Book[] = [];
 let outDir = '';
@@ -57,6 +58,17 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(mismatches.slice(0, 20)).toEqual([]);
     expect(compared).toBeGreaterThan(base === 'hand-made' ? 15 : 100);
     if (base === 'invented-quarry-fault' || base === 'hand-made') expect(errors).toBeGreaterThan(0);
+  });
+
+  it('prices the demo on the Quantities and cost sheet: total, saving and payback are numbers there', () => {
+    // Every formula cell was compared above; this says the comparison covered a priced schedule.
+    const rows = sheetCsv(outDir, 'cold-store', QUANTITIES_SHEET);
+    const at = (label: string) => Number(rows.find((r) => r[0] === label)?.[QC.cost]);
+    expect(at('Equipment')).toBeGreaterThan(0);
+    expect(at('Total')).toBeGreaterThan(at('Equipment'));
+    // and what it saves with the demo tariff, and the payback of that total
+    expect(at('Annual saving')).toBeGreaterThan(0);
+    expect(at('Simple payback (years)')).toBeCloseTo(at('Total') / at('Annual saving'), 6);
   });
 
   it('shows no unknown-name error anywhere', () => {

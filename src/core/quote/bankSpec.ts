@@ -4,6 +4,7 @@
 import type { BankChoice } from '../site/bankChoice.ts';
 import { runCall } from '../site/calls.ts';
 import { isLowVoltage } from '../site/bankRules.ts';
+import { sectionsOf } from '../site/stepRules.ts';
 
 export interface BankSpec {
   readonly bus: string;
@@ -25,6 +26,8 @@ export interface BankSpec {
   readonly fixed_nameplate_kvar: number | null;
   /** Shunt reactor, kvar at the operating voltage (0 when none). */
   readonly reactor_kvar: number;
+  /** Steps of each section (a controller each), as the design splits them (stepRules.ts); [] without steps. */
+  readonly sections: readonly number[];
 }
 
 const positive = (x: number | undefined): number => (x !== undefined && x > 0 ? x : 0);
@@ -67,5 +70,6 @@ export function bankSpec(choice: BankChoice, uKv: number, hz: number): BankSpec 
     step_nameplate_kvar: per === null || steps === 0 ? null : step * per,
     fixed_nameplate_kvar: per === null || fixed === 0 ? null : fixed * per,
     reactor_kvar: positive(choice.reactor_kvar),
+    sections: steps > 0 ? sectionsOf(steps) : [],
   };
 }

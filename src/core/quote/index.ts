@@ -17,3 +17,21 @@ export {
 export { demoRateTable, DEMO_SOURCE, DEMO_CURRENCY } from './demoRates.ts';
 export { priceSchedule, type Quote, type BusCost, type CostLine } from './cost.ts';
 export { RATES_SHEET, RATES_PURPOSE, ratesSheetDoc, rateRowsOf } from './ratesSheet.ts';
+export {
+  annualSaving,
+  excessKvar,
+  type CaseFlow,
+  type CaseSaving,
+  type Saving,
+  type Tariff,
+} from './saving.ts';
+export {
+  TARIFF_SHEET,
+  TARIFF_LABELS,
+  TARIFF_PURPOSE,
+  hoursLabel,
+  readTariff,
+  tariffRowsOf,
+  tariffSheetDoc,
+  type TariffProblem,
+} from './tariffSheet.ts';

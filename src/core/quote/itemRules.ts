@@ -2,6 +2,7 @@
 // devices, how many steps a section or a controller holds. Each is a named constant with where it
 // comes from: "published" (a standard says so) or "common practice" (the trade's habit, from
 // memory, no single source). Estimates only: the maker's offer decides the real make-up.
+import { MAX_STEPS, MV_CONTACTOR_MAX_KV } from '../site/stepRules.ts';
 
 /**
  * Preferred current ratings, A: the R10 series of IEC 60059 ("IEC standard current ratings",
@@ -33,14 +34,17 @@ export const MV_UNITS_MULTIPLE = 3;
 export const SECTION_KVAR_LV_PLAIN = 400;
 export const SECTION_KVAR_LV_DETUNED = 250;
 
-/** Outputs of the usual LV step controllers (common practice: 6 and 12 output models). */
-export const CONTROLLER_OUTPUTS: readonly number[] = [6, 12];
+/**
+ * Outputs of the usual step controllers (common practice: 6 and 12 output models); the larger is
+ * the design's steps per section (stepRules.ts), so the schedule has a controller per section.
+ */
+export const CONTROLLER_OUTPUTS: readonly number[] = [6, MAX_STEPS];
 
 /** Largest LV fuse-switch taken as the bank's incomer; above it a circuit breaker (common practice). */
 export const MAX_LV_FUSE_SWITCH_A = 630;
 /** MV vacuum contactors switch steps up to this current and voltage (common practice: 400 A, 12 kV). */
 export const MAX_MV_CONTACTOR_A = 400;
-export const MAX_MV_CONTACTOR_KV = 12;
+export const MAX_MV_CONTACTOR_KV = MV_CONTACTOR_MAX_KV; // the design's own limit (stepRules.ts)
 /** MV circuit breakers start at this rating (common practice: 630 A is the smallest usual frame). */
 export const MIN_MV_BREAKER_A = 630;
 /** MV contactor ratings offered (common practice). */

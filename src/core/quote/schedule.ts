@@ -104,12 +104,11 @@ function pieces(spec: BankSpec, code: string, what: string, count: number): Sche
   return { bus: spec.bus, code, what, count, unit: 'pc', quantity: count };
 }
 
-/** Controllers for n steps: the smallest model with enough outputs, or several of the largest. */
-function controllers(n: number): { outputs: number; count: number } {
-  const fits = CONTROLLER_OUTPUTS.find((o) => o >= n);
-  if (fits !== undefined) return { outputs: fits, count: 1 };
+/** One controller per section of the design, the smallest model with outputs for its largest section. */
+function controllers(sections: readonly number[]): { outputs: number; count: number } {
+  const most = sections.reduce((m, n) => Math.max(m, n), 0);
   const largest = CONTROLLER_OUTPUTS[CONTROLLER_OUTPUTS.length - 1] as number;
-  return { outputs: largest, count: Math.ceil(n / largest) };
+  return { outputs: CONTROLLER_OUTPUTS.find((o) => o >= most) ?? largest, count: sections.length };
 }
 
 /** Every item of one bus's bank and reactor, in the order an offer lists them. */
@@ -150,7 +149,7 @@ export function busSchedule(spec: BankSpec): ScheduleItem[] {
           spec.steps,
         ),
       );
-      const c = controllers(spec.steps);
+      const c = controllers(spec.sections);
       items.push(
         pieces(spec, `Step controller ${c.outputs} outputs`, `controller for ${spec.steps} steps`, c.count),
       );

@@ -1,7 +1,8 @@
 // A site (from a site file, a list or the design) as the cells a user would have typed: the
 // Site sheet's values, each equipment row on its kind's sheet, and the banks per bus on the
 // Compensation sheet. render.ts then writes every generated cell.
-import { DEMO_SOURCE, demoRateTable, ratesSheetDoc } from '../quote/index.ts';
+import { DEMO_SOURCE, demoRateTable, ratesSheetDoc, tariffSheetDoc } from '../quote/index.ts';
+import { DEFAULT_CASE } from './render.ts';
 import { findKind } from '../kinds/index.ts';
 import { textContent } from '../text/cellText.ts';
 import { entryOf } from '../text/nameTable.ts';
@@ -78,7 +79,7 @@ export function equipmentPlacement(
 ): Array<{ readonly cols: EquipmentColumns; readonly indices: readonly number[] }> {
   const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
   const order = new Map(graph.order.map((b, i) => [b, i]));
-  // Rows kept together by bus, in bus order (spans stay tight and the sheet reads by bus).
+  // Rows kept together by bus, in bus order (one run of rows per bus, and the sheet reads by bus).
   const rank = (r: EquipmentRow) => order.get(r.bus) ?? order.size;
   return equipmentPlans(site.settings.cases).map((cols) => ({
     cols,
@@ -150,6 +151,8 @@ export function inputsFromSite(
   sheets.push({ name: SHEETS.compensation, cells: compRows });
   // The user's rates, started with invented demo rates (each row says so).
   sheets.push(ratesSheetDoc(demoRateTable(), DEMO_SOURCE));
+  // The utility's charge and the hours per case, started with invented demo values (said so).
+  sheets.push(tariffSheetDoc(cases.length > 0 ? cases : [DEFAULT_CASE]));
   return { format: 'kvar-ledger-workbook', version: 2, title: site.settings.name, sheets };
 }
 

@@ -22,6 +22,7 @@ export const SHEETS = {
   banks: BANKS_SHEET.name,
   buses: 'Buses',
   compensation: 'Compensation',
+  quantities: 'Quantities and cost',
 } as const;
 
 /** Header texts of the load-factor and computed columns, per case where the text names one. */
@@ -86,7 +87,7 @@ export const FORMATS = {
 /** Sheets Kvar Ledger keeps in step with the equipment: they can be emptied, not deleted or renamed. */
 export function isBuiltInSheet(name: string, equipmentSheets: readonly string[]): boolean {
   const n = name.toLowerCase();
-  return [SHEETS.settings, SHEETS.buses, SHEETS.compensation, ...equipmentSheets].some(
+  return [SHEETS.settings, SHEETS.buses, SHEETS.compensation, SHEETS.quantities, ...equipmentSheets].some(
     (s) => s.toLowerCase() === n,
   );
 }

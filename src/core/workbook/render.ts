@@ -18,6 +18,9 @@ import type { EquipmentColumns } from './equipmentColumns.ts';
 import { SHEETS } from './layout.ts';
 import { BUSES_PURPOSE, renderBusesSheet } from './renderBuses.ts';
 import { COMPENSATION_PURPOSE, renderCompensationSheet } from './renderCompensation.ts';
+import { QUANTITIES_SHEET, QUANT_COLUMNS } from './quantitiesLayout.ts';
+import { QUANTITIES_PURPOSE, renderQuantitiesSheet } from './renderQuantities.ts';
+import { RATES_SHEET, TARIFF_SHEET } from '../quote/index.ts';
 import { busLookup, computedCells, headerRow } from './renderEquipment.ts';
 import {
   SETTINGS_COLUMNS,
@@ -306,6 +309,25 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
       COMPENSATION_PURPOSE,
       compOver,
       compSheet,
+    ),
+  );
+
+  const quantSheet = findSheet(doc, QUANTITIES_SHEET);
+  const quant = renderQuantitiesSheet({
+    s: structure,
+    comp: compCols,
+    hasRates: findSheet(doc, RATES_SHEET) !== undefined,
+    hasTariff: findSheet(doc, TARIFF_SHEET) !== undefined,
+  });
+  const quantOver = overridesOf(quantSheet);
+  sheets.push(
+    sheetDoc(
+      QUANTITIES_SHEET,
+      overlay(quantSheet, quant, quantOver),
+      QUANT_COLUMNS,
+      QUANTITIES_PURPOSE,
+      quantOver,
+      quantSheet,
     ),
   );
 

@@ -6,6 +6,7 @@
 import type { HyperFormula, SimpleCellRange } from '../../engine/index.ts';
 import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { isBuiltInSheet } from '../../core/workbook/layout.ts';
+import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
 import {
@@ -291,6 +292,11 @@ export class WorkbookSession {
         `Rows of the ${name} sheet follow the site (one row per setting, case or bus); add or remove equipment instead.`,
       );
     }
+    if (role.kind === 'quantities') {
+      throw new SessionError(
+        `Rows of the ${name} sheet follow the buses (a block of item lines per bus); change the banks on the Compensation sheet or the rates on the Rates sheet instead.`,
+      );
+    }
     if (role.kind === 'equipment' && at === 0) {
       throw new SessionError(
         `The header row of ${name} names the columns the formulas and the export rely on; it stays.`,
@@ -392,7 +398,7 @@ export class WorkbookSession {
       meta.set(id, {});
       this.layout = { order, meta };
       this.contents.seed(id, []);
-      return 1;
+      return 1 + this.pricingFollows([name]);
     });
     this.emit({ kind: 'sheets' });
     return id;
@@ -413,7 +419,7 @@ export class WorkbookSession {
     this.step(() => {
       this.engine.renameSheet(id, name);
       this.refreshFormulas();
-      return 1;
+      return 1 + this.pricingFollows([current, name]);
     });
     this.emit({ kind: 'sheets' });
   }
@@ -425,16 +431,30 @@ export class WorkbookSession {
         `${this.sheetName(id)} is one of the site's own sheets: it can be emptied but not deleted, since the buses, the compensation and the export are built from it.`,
       );
     }
+    const removed = this.sheetName(id);
     this.step(() => {
+      // Written while the sheet is still there, so undo restores the sheet before the lookups into it.
+      const follow = this.pricingFollows([removed], removed);
       this.engine.removeSheet(id);
       const meta = new Map(this.layout.meta);
       meta.delete(id);
       this.layout = { order: this.layout.order.filter((x) => x !== id), meta };
       this.contents.drop(id);
       this.refreshFormulas();
-      return 1;
+      return 1 + follow;
     });
     this.emit({ kind: 'sheets' });
+  }
+
+  /**
+   * A sheet named Rates or Tariff came or went (added, renamed, removed): the Quantities and cost
+   * sheet is written anew, so its lookups point at the sheet of that name or say there is none,
+   * as the command line reads the workbook; `going`: a sheet about to be removed, taken as absent.
+   * Returns the engine entries written (0 or 1).
+   */
+  private pricingFollows(names: readonly string[], going?: string): number {
+    if (!this.site || !names.some(isPricingSheet)) return 0;
+    return this.write(this.site.quantitiesWrites(going), true) ? 1 : 0;
   }
 
   /** After the engine rewrote references (a sheet renamed or removed): formulas as it now holds them. */
@@ -533,7 +553,7 @@ export class WorkbookSession {
     const doc = renameCaseColumns(this.toDoc(), caseRenames);
     const r = renderWorkbook(doc, { flavour: 'live' });
     const ids = site.ids;
-    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp];
+    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp, ids.quant];
     this.engine.batch(() => {
       for (const id of builtIn) {
         const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
@@ -566,6 +586,9 @@ export class WorkbookSession {
     this.engine.destroy();
   }
 }
+
+const isPricingSheet = (name: string) =>
+  [RATES_SHEET, TARIFF_SHEET].some((s) => s.toLowerCase() === name.toLowerCase());
 
 /** A renamed case's load column keeps its values: its header is renamed before the sheets are written anew. */
 function renameCaseColumns(doc: WorkbookDoc, renames: ReadonlyMap<string, string>): WorkbookDoc {

@@ -20,6 +20,9 @@ import {
 import type { EquipmentColumns } from '../../core/workbook/equipmentColumns.ts';
 import { ownSumCells, renderBusesSheet } from '../../core/workbook/renderBuses.ts';
 import { plainInstalledCell, renderCompensationSheet } from '../../core/workbook/renderCompensation.ts';
+import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
+import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
+import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
 import { busLookup, computedCells } from '../../core/workbook/renderEquipment.ts';
 import {
   equipmentPlans,
@@ -37,6 +40,7 @@ export interface SheetIds {
   readonly equipment: readonly number[];
   readonly buses: number;
   readonly comp: number;
+  readonly quant: number;
 }
 
 export type Role =
@@ -44,6 +48,7 @@ export type Role =
   | { readonly kind: 'equipment'; readonly index: number }
   | { readonly kind: 'buses' }
   | { readonly kind: 'compensation' }
+  | { readonly kind: 'quantities' }
   | { readonly kind: 'user' };
 
 /** One cell write: where and what. */
@@ -85,6 +90,7 @@ export class SiteModel {
     if (sheet === this.ids.site) return { kind: 'site' };
     if (sheet === this.ids.buses) return { kind: 'buses' };
     if (sheet === this.ids.comp) return { kind: 'compensation' };
+    if (sheet === this.ids.quant) return { kind: 'quantities' };
     const index = this.ids.equipment.indexOf(sheet);
     return index >= 0 ? { kind: 'equipment', index } : { kind: 'user' };
   }
@@ -111,6 +117,8 @@ export class SiteModel {
         if (row === 0 || row > n) return row !== n + 1; // header, summary (the blank row between is free)
         return !compensationInputCols(comp).includes(col);
       }
+      case 'quantities':
+        return row < this.state.extent.quant && col < QUANT_COLUMNS.length;
       default:
         return false;
     }
@@ -159,6 +167,7 @@ export class SiteModel {
       });
       return grid[row]?.[col] ?? null;
     }
+    if (role.kind === 'quantities') return this.quantitiesGrid(s)[row]?.[col] ?? null;
     if (role.kind === 'site')
       return settingsGenerated(settings).find(([r, c]) => r === row && c === col)?.[2] ?? null;
     return null;
@@ -377,12 +386,37 @@ export class SiteModel {
       busRows,
       inputs,
     });
+    const quant = this.quantitiesGrid(s);
     const out = [
       ...this.gridWrites(this.ids.buses, buses, this.state.extent.buses, bus.columns.length),
       ...this.gridWrites(this.ids.comp, compGrid, this.state.extent.comp, comp.columns.length),
+      ...this.gridWrites(this.ids.quant, quant, this.state.extent.quant, QUANT_COLUMNS.length),
     ];
-    this.state = { ...this.state, extent: { buses: buses.length, comp: compGrid.length } };
+    this.state = {
+      ...this.state,
+      extent: { buses: buses.length, comp: compGrid.length, quant: quant.length },
+    };
     return out;
+  }
+
+  /** The Quantities and cost sheet written anew for the buses as they are (a Rates or Tariff sheet came or went). */
+  quantitiesWrites(going?: string): Write[] {
+    const grid = this.quantitiesGrid(this.state.rendered, going);
+    const out = this.gridWrites(this.ids.quant, grid, this.state.extent.quant, QUANT_COLUMNS.length);
+    this.state = { ...this.state, extent: { ...this.state.extent, quant: grid.length } };
+    return out;
+  }
+
+  /** The "Quantities and cost" sheet for a structure (its rates from the Rates sheet, when there is one). */
+  private quantitiesGrid(s: WorkbookStructure, going?: string) {
+    const has = (name: string) =>
+      this.hf.getSheetId(name) !== undefined && name.toLowerCase() !== going?.toLowerCase();
+    return renderQuantitiesSheet({
+      s,
+      comp: this.plans().comp,
+      hasRates: has(RATES_SHEET),
+      hasTariff: has(TARIFF_SHEET),
+    });
   }
 
   /** Bank inputs per bus as the Compensation sheet holds them now (by the bus on each row). */

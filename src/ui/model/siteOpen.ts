@@ -55,6 +55,7 @@ export function openSite(doc: WorkbookDoc): OpenedSite {
     equipment: equipmentPlans(r.structure.cases).map((p) => id(p.sheet.name)),
     buses: id(SHEETS.buses),
     comp: id(SHEETS.compensation),
+    quant: id(SHEETS.quantities),
   };
   const overrides = new Map<number, Set<string>>();
   for (const s of full.sheets) {

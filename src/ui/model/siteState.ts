@@ -1,6 +1,6 @@
 // The living model's state beside the engine: for every equipment row what it is (item or not,
-// kind, bus, fed bus, voltage), the structure the Buses and Compensation sheets were last written
-// for, and the cells the user typed over. Immutable: every step makes a new state, and undo puts
+// kind, bus, fed bus, voltage), the structure the Buses, Compensation and Quantities and cost
+// sheets were last written for, and the cells the user typed over. Immutable: every step makes a new state, and undo puts
 // an old one back with the engine's own undo.
 import {
   busSignature,
@@ -12,6 +12,7 @@ import type { Rendered } from '../../core/workbook/render.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 import { settingsRows } from '../../core/workbook/settingsLayout.ts';
 import { summaryRow } from '../../core/workbook/renderCompensation.ts';
+import { quantitiesExtent } from '../../core/workbook/quantitiesLayout.ts';
 
 export interface SiteState {
   readonly cases: readonly string[];
@@ -22,7 +23,7 @@ export interface SiteState {
   /** Per sheet id, the cells in generated places the user typed over ("row,col"). */
   readonly overrides: ReadonlyMap<number, ReadonlySet<string>>;
   /** Rows (header included) of the generated block of the Buses and Compensation sheets. */
-  readonly extent: { readonly buses: number; readonly comp: number };
+  readonly extent: { readonly buses: number; readonly comp: number; readonly quant: number };
   /** Assumptions listed on the Site sheet (its layout). */
   readonly notes: number;
   /** Bank inputs of buses that went away, by bus key: back when the bus returns. */
@@ -40,7 +41,11 @@ export function stateOf(
     rows: r.structure.sheets.map((s) => s.rows),
     rendered: r.structure,
     overrides,
-    extent: { buses: n + 1, comp: n > 0 ? summaryRow(n) + 1 : 1 },
+    extent: {
+      buses: n + 1,
+      comp: n > 0 ? summaryRow(n) + 1 : 1,
+      quant: quantitiesExtent(n, r.structure.cases.length),
+    },
     notes,
     retired: new Map(),
   };

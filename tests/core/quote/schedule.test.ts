@@ -128,3 +128,19 @@ describe('what is not known is said, never counted as zero', () => {
     expect(s[1]?.items[0]?.missing).toMatch(/voltage of bus GHOST is unknown/);
   });
 });
+
+describe('controllers follow the design’s sections (stepRules.ts: at most 12 steps a section)', () => {
+  it('18 steps of 25 kvar at 400 V: two sections of 9, a 12-output controller each', () => {
+    const spec = bankSpec({ bus: 'LV1', step_kvar: 25, steps: 18, u_rated_kv: 0.44 }, 0.4, 50);
+    expect(spec.sections).toEqual([9, 9]);
+    const c = busSchedule(spec).find((i) => i.code.startsWith('Step controller'));
+    expect([c?.code, c?.count]).toEqual(['Step controller 12 outputs', 2]);
+  });
+  it('5 steps: one section, the 6-output model', () => {
+    const spec = bankSpec({ bus: 'LV1', step_kvar: 25, steps: 5, u_rated_kv: 0.44 }, 0.4, 50);
+    expect(spec.sections).toEqual([5]);
+    expect(busSchedule(spec).find((i) => i.code.startsWith('Step controller'))?.code).toBe(
+      'Step controller 6 outputs',
+    );
+  });
+});

@@ -181,7 +181,7 @@ describe('portable flavour: classic functions only, same values as live', () => 
 describe('workbook shape', () => {
   const doc = buildWorkbook(PLANT, { flavour: 'live' });
 
-  it('has the settings, equipment, buses and compensation sheets in order, then the rates', () => {
+  it('has the settings, equipment, buses, compensation and quantities sheets in order, then the rates', () => {
     expect(doc.sheets.map((s) => s.name)).toEqual([
       'Site',
       'Motors',
@@ -193,7 +193,9 @@ describe('workbook shape', () => {
       'Capacitors and reactors',
       'Buses',
       'Compensation',
+      'Quantities and cost',
       'Rates',
+      'Tariff',
     ]);
     expect(doc.title).toBe(PLANT.settings.name);
   });

@@ -1,12 +1,13 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
-// typed on the Compensation sheet, renaming a bus, adding or renaming a case, sorting rows,
-// undo and redo.
+// typed on the Compensation sheet (steps, detuning, capacitor rating), rates and tariff values
+// typed or cleared on the Rates and Tariff sheets, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
 import fc from 'fast-check';
 import type { CellContent } from '../../../src/core/workbook/document.ts';
 import { equipmentPlans } from '../../../src/core/workbook/structure.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
+import { RATES_SHEET, TARIFF_SHEET } from '../../../src/core/quote/index.ts';
 import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
 import type { WorkbookSession } from '../../../src/ui/model/session.ts';
 
@@ -20,6 +21,9 @@ export type Edit =
   | { op: 'fill'; sheet: number; row: number; n: number }
   | { op: 'clear'; sheet: number; row: number }
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number }
+  | { op: 'design'; bus: number; p: number; urFactor: number | null }
+  | { op: 'rate'; row: number; value: number | null }
+  | { op: 'tariff'; row: number; value: number | null }
   | { op: 'rename'; bus: number; suffix: number }
   | { op: 'case'; rename: boolean; suffix: number }
   | { op: 'sort'; sheet: number; by: 'tag' | 'bus' | 'p_kw' | 'computed'; descending: boolean }
@@ -82,6 +86,22 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     step: num(5, 100),
     steps: fc.integer({ min: 0, max: 6 }),
     fixed: num(0, 30),
+  }),
+  fc.record({
+    op: fc.constant('design' as const),
+    bus: fc.nat(),
+    p: fc.constantFrom(0, 5.67, 7, 14),
+    urFactor: fc.option(fc.constantFrom(1.05, 1.1, 1.2), { nil: null }),
+  }),
+  fc.record({
+    op: fc.constant('rate' as const),
+    row: fc.nat(),
+    value: fc.option(num(0, 100), { nil: null, freq: 4 }),
+  }),
+  fc.record({
+    op: fc.constant('tariff' as const),
+    row: fc.nat(),
+    value: fc.option(num(0, 5000), { nil: null, freq: 4 }),
   }),
   fc.record({ op: fc.constant('rename' as const), bus: fc.nat(), suffix: fc.nat(99) }),
   fc.record({ op: fc.constant('case' as const), rename: fc.boolean(), suffix: fc.nat(99) }),
@@ -211,6 +231,39 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
         { row, col: comp.input.fixed_kvar, content: e.fixed > 1 ? e.fixed : null },
       ]);
       return `bank on ${buses[row - 1]}: ${e.steps} × ${e.step}`;
+    }
+    case 'design': {
+      // Detuning and capacitor rating typed on the Compensation sheet (the rating a factor of U).
+      if (buses.length === 0) return 'design: no bus';
+      const comp = planCompensationColumns(cases);
+      const row = 1 + (e.bus % buses.length);
+      const u = s.engine.getCellValue({ sheet: model.ids.comp, row, col: comp.u });
+      const ur = e.urFactor !== null && typeof u === 'number' && u > 0 ? e.urFactor * u : null;
+      s.setCells(model.ids.comp, [
+        { row, col: comp.input.p_pct, content: e.p > 0 ? e.p : null },
+        { row, col: comp.input.u_rated_kv, content: ur },
+      ]);
+      return `design on ${buses[row - 1]}: p ${e.p} %, Ur ${ur}`;
+    }
+    case 'rate': {
+      // A rate typed or cleared on the Rates sheet (any row, surcharges included).
+      const rates = s.engine.getSheetId(RATES_SHEET);
+      if (rates === undefined) return 'rate: no Rates sheet';
+      const rows = s.engine.getSheetDimensions(rates).height;
+      if (rows < 2) return 'rate: no rows';
+      const row = 1 + (e.row % (rows - 1));
+      s.setCells(rates, [{ row, col: 2, content: e.value }]);
+      return `rate row ${row + 1} = ${e.value}`;
+    }
+    case 'tariff': {
+      // A tariff value or a case's hours typed or cleared on the Tariff sheet.
+      const tariff = s.engine.getSheetId(TARIFF_SHEET);
+      if (tariff === undefined) return 'tariff: no Tariff sheet';
+      const rows = s.engine.getSheetDimensions(tariff).height;
+      if (rows < 2) return 'tariff: no rows';
+      const row = 1 + (e.row % (rows - 1));
+      s.setCells(tariff, [{ row, col: 1, content: e.value }]);
+      return `tariff row ${row + 1} = ${e.value}`;
     }
     case 'rename': {
       if (buses.length === 0) return 'rename: no bus';

@@ -1,7 +1,9 @@
 // One model, four faces: after every edit made through the page's own model, each bus's P, Q and
 // cos φ before compensation and P and Q after it, as the page's engine computes them, equal the
 // core roll-up and compensation rule (what the command line prints) for the same workbook, to
-// 1e-9 relative. Random valid sites (siteArb.ts) and random sequences of 1–30 edits (edits.ts).
+// 1e-9 relative; and the "Quantities and cost" sheet's items, counts, quantities, costs and
+// totals equal the core's priced schedule (src/core/quote, what `kvar-ledger quote` prints).
+// Random valid sites (siteArb.ts) and random sequences of 1–30 edits (edits.ts).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
@@ -9,6 +11,7 @@ import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteArb } from './siteArb.ts';
 import { applyEdit, editArb } from './edits.ts';
 import { coreFaces, pageFaces, relDiff } from './faces.ts';
+import { coreQuote, coreSaving, pageQuote, pageSaving, type QuoteFace } from './quoteFaces.ts';
 
 const TOL = 1e-9;
 
@@ -36,7 +39,67 @@ function compare(s: WorkbookSession, log: readonly string[]): number {
     });
   });
   expect(page.within, where()).toEqual(core.faces.within);
+  pricedLines += compareQuotes(s, where);
   return 1;
+}
+
+const sameOrBothNull = (a: number | null, b: number | null) =>
+  a === null || b === null ? a === b : relDiff(a, b) < TOL;
+
+/** The saving block: per case hours, kvarh, excess kvar and losses; the yearly figures and payback. */
+function compareSavings(s: WorkbookSession, busCount: number, total: number | null, where: () => string) {
+  const core = coreSaving(s, total);
+  const page = pageSaving(s, busCount, core.cases.length);
+  const show = () => `page ${JSON.stringify(page)}\ncore ${JSON.stringify(core)}\n${where()}`;
+  core.cases.forEach((c, k) => {
+    const want = [
+      c.hours,
+      c.kvarh_before,
+      c.kvarh_after,
+      c.excess_before_kvar,
+      c.excess_after_kvar,
+      c.loss_kwh_saved,
+    ];
+    want.forEach((x, j) => expect(sameOrBothNull(page.perCase[k]?.[j] ?? null, x), show()).toBe(true));
+  });
+  const y = page.yearly;
+  const num = (v: unknown) => (typeof v === 'number' ? v : null);
+  expect(sameOrBothNull(num(y['Reactive charge before']), core.charge_before), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Reactive charge after']), core.charge_after), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Losses saved']), core.losses_saved), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Annual saving']), core.annual_saving), show()).toBe(true);
+  expect(sameOrBothNull(num(y['Simple payback (years)']), core.payback_years), show()).toBe(true);
+}
+
+/** Lines with a cost compared over the whole run: the schedule must not be empty everywhere. */
+let pricedLines = 0;
+
+/** Compares the schedules; returns how many priced lines it compared. */
+function compareQuotes(s: WorkbookSession, where: () => string): number {
+  const core = coreQuote(s);
+  const page: QuoteFace = pageQuote(s, core.busCount);
+  const show = () => `page ${JSON.stringify(page)}\ncore ${JSON.stringify(core.face)}\n${where()}`;
+  expect(
+    page.buses.map((b) => b.bus),
+    show(),
+  ).toEqual(core.face.buses.map((b) => b.bus));
+  core.face.buses.forEach((b, i) => {
+    const p = page.buses[i];
+    expect(
+      p?.lines.map((l) => [l.code, l.count]),
+      show(),
+    ).toEqual(b.lines.map((l) => [l.code, l.count]));
+    b.lines.forEach((l, k) => {
+      const pl = p?.lines[k];
+      expect(sameOrBothNull(pl?.quantity ?? null, l.quantity), `quantity ${l.code}: ${show()}`).toBe(true);
+      expect(sameOrBothNull(pl?.cost ?? null, l.cost), `cost ${l.code}: ${show()}`).toBe(true);
+    });
+    expect(sameOrBothNull(p?.subtotal ?? null, b.subtotal), `subtotal ${b.bus}: ${show()}`).toBe(true);
+  });
+  expect(sameOrBothNull(page.equipment, core.face.equipment), `equipment: ${show()}`).toBe(true);
+  expect(sameOrBothNull(page.total, core.face.total), `total: ${show()}`).toBe(true);
+  compareSavings(s, core.busCount, core.face.total, where);
+  return core.face.buses.reduce((n, b) => n + b.lines.filter((l) => l.cost !== null).length, 0);
 }
 
 describe('the page and the core agree after every edit', () => {
@@ -57,5 +120,6 @@ describe('the page and the core agree after every edit', () => {
     );
     // The comparison must have run on most steps (valid inputs), not been skipped.
     expect(compared).toBeGreaterThan(100);
+    expect(pricedLines).toBeGreaterThan(100);
   });
 });

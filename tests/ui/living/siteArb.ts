@@ -188,9 +188,14 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
         steps: fc.integer({ min: 1, max: 6 }),
         fixed: fc.option(num(1, 50), { nil: undefined }),
         reactor: fc.option(num(10, 200), { nil: undefined }),
+        // Detuning and the capacitor rating, so the priced schedule has capacitors to count.
+        p: fc.constantFrom(0, 5.67, 7, 14),
+        urFactor: fc.option(fc.constantFrom(1.05, 1.1, 1.2), { nil: undefined }),
       }),
       { maxLength: 3 },
     );
+    const levelOf = (bus: string) => tree.find((b) => b.name === bus)?.level ?? 0;
+    const ratedKv = (factor: number, level: number) => Math.round(factor * uOf(level) * 1000) / 1000;
     return fc.tuple(shunts, banks).map(([rowsPerBus, bankSpecs]) => {
       const all = [...branches, ...rowsPerBus.flat()];
       const equipment: EquipmentRow[] = all.map((r, i) => ({
@@ -207,6 +212,8 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
           steps: b.steps,
           ...(b.fixed ? { fixed_kvar: b.fixed } : {}),
           ...(b.reactor ? { reactor_kvar: b.reactor } : {}),
+          ...(b.p > 0 ? { p_pct: b.p } : {}),
+          ...(b.urFactor ? { u_rated_kv: ratedKv(b.urFactor, levelOf(b.bus)) } : {}),
         }));
       const site: Site = {
         settings: {

@@ -1,0 +1,160 @@
+// Where things sit on the "Quantities and cost" sheet: its columns, one block of rows per bus of
+// the Compensation sheet (a bus line with the bank as the items read it, then one line per kind
+// of item, blank where the bank has none), and the totals below the blocks. Every bus has its
+// block whether or not it has a bank, so typing a bank never moves a row.
+import type { ColumnInfo } from './document.ts';
+import { FORMATS, SHEETS } from './layout.ts';
+
+export const QUANTITIES_SHEET = SHEETS.quantities;
+
+export const QUANT_HEADERS = [
+  'Bus',
+  'Item',
+  'Description',
+  'Count (pc)',
+  'Quantity',
+  'Unit',
+  'Current (A)',
+  'Rate',
+  'Cost',
+  'Bus subtotal',
+  'Unpriced lines',
+  'U (kV)',
+  'Fixed (kvar)',
+  'Step (kvar)',
+  'Steps',
+  'Detuning p (%)',
+  'Capacitor rated voltage (kV)',
+  'Nameplate per kvar of output',
+  'Bank total (kvar)',
+  'Reactor (kvar)',
+] as const;
+
+/** Column indexes by meaning. */
+export const QC = {
+  bus: 0,
+  item: 1,
+  what: 2,
+  count: 3,
+  quantity: 4,
+  unit: 5,
+  amps: 6,
+  rate: 7,
+  cost: 8,
+  subtotal: 9,
+  unpriced: 10,
+  u: 11,
+  fixed: 12,
+  step: 13,
+  steps: 14,
+  p: 15,
+  uRated: 16,
+  perKvar: 17,
+  total: 18,
+  reactor: 19,
+} as const;
+
+const FORMAT: Partial<Record<number, string>> = {
+  [QC.count]: FORMATS.count,
+  [QC.quantity]: '0.##',
+  [QC.amps]: '0.0',
+  [QC.rate]: '#,##0.00',
+  [QC.cost]: '#,##0.00',
+  [QC.subtotal]: '#,##0.00',
+  [QC.unpriced]: FORMATS.count,
+  [QC.u]: FORMATS.kv,
+  [QC.fixed]: FORMATS.kvar,
+  [QC.step]: FORMATS.kvar,
+  [QC.steps]: FORMATS.count,
+  [QC.p]: '0.00',
+  [QC.uRated]: '0.0##',
+  [QC.perKvar]: '0.0000',
+  [QC.total]: FORMATS.kvar,
+  [QC.reactor]: FORMATS.kvar,
+};
+const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 22, [QC.item]: 26, [QC.what]: 48 };
+
+export const QUANT_COLUMNS: readonly ColumnInfo[] = QUANT_HEADERS.map((header, c) => ({
+  header,
+  width: WIDTH[c] ?? Math.max(9, Math.min(header.length + 1, 14)),
+  ...(FORMAT[c] ? { format: FORMAT[c] } : {}),
+  computed: true,
+}));
+
+/** The kinds of item, one line each in a bus's block, in the order an offer lists them. */
+export const SLOTS = [
+  'stepCapacitors',
+  'fixedCapacitors',
+  'detuning',
+  'stepSwitching',
+  'controller',
+  'enclosure',
+  'incomer',
+  'discharge',
+  'shuntReactor',
+  'reactorSwitching',
+] as const;
+export type Slot = (typeof SLOTS)[number];
+
+/** Rows per bus: the bus line and one per kind of item. */
+export const BLOCK_ROWS = 1 + SLOTS.length;
+
+/** Row of bus i's bus line (0-based bus index; row 0 is the header). */
+export const busLineRow = (i: number) => 1 + i * BLOCK_ROWS;
+/** Row of an item line of bus i. */
+export const slotRow = (i: number, slot: Slot) => busLineRow(i) + 1 + SLOTS.indexOf(slot);
+
+/** The totals below n buses' blocks (one blank row between), and the note after them. */
+export const SUMMARY_LABELS = [
+  'Currency',
+  'Equipment',
+  'Installation',
+  'Engineering',
+  'Contingency',
+  'Total',
+] as const;
+export type SummaryLine = (typeof SUMMARY_LABELS)[number];
+export function summaryRowOf(busCount: number, line: SummaryLine): number {
+  return busLineRow(busCount) + 1 + SUMMARY_LABELS.indexOf(line);
+}
+/** Rows of the whole generated block (header included) for n buses and `cases` cases. */
+export function quantitiesExtent(busCount: number, cases: number): number {
+  return busCount === 0 ? 1 : savingCaseRow(busCount, cases) + SAVING_LABELS.length;
+}
+
+/** Texts a cost or rate cell shows instead of a number. */
+export const UNPRICED_TEXT = {
+  noRate: 'no rate',
+  otherUnit: 'rate in another unit',
+  otherCurrency: 'rate in another currency',
+  noQuantity: 'quantity unknown',
+  total: 'unpriced',
+} as const;
+
+/** What it saves, below the note: a heading line, one line per case, then the yearly figures. */
+export const SAVING_HEADINGS: Partial<Record<number, string>> = {
+  [QC.bus]: 'What it saves',
+  [QC.what]: 'per year, with the Tariff sheet',
+  [QC.count]: 'Hours per year',
+  [QC.quantity]: 'kvarh charged before',
+  [QC.unit]: 'kvarh charged after',
+  [QC.amps]: 'Excess kvar before',
+  [QC.rate]: 'Excess kvar after',
+  [QC.cost]: 'Losses saved (kWh)',
+};
+export const SAVING_LABELS = [
+  'Reactive charge before',
+  'Reactive charge after',
+  'Losses saved',
+  'Annual saving',
+  'Simple payback (years)',
+] as const;
+export type SavingLine = (typeof SAVING_LABELS)[number];
+
+/** Row of the saving block's heading line for n buses. */
+export const savingHeadRow = (busCount: number) => summaryRowOf(busCount, 'Total') + 4;
+/** Row of case k's line. */
+export const savingCaseRow = (busCount: number, k: number) => savingHeadRow(busCount) + 1 + k;
+/** Row of a yearly figure, with `cases` case lines above. */
+export const savingRowOf = (busCount: number, cases: number, line: SavingLine) =>
+  savingCaseRow(busCount, cases) + SAVING_LABELS.indexOf(line);

@@ -1,0 +1,247 @@
+// The item lines of one bus's block on the "Quantities and cost" sheet, as plain formulas over
+// the bus line (the bank as read from the Compensation sheet). They follow the sizing rules of
+// src/core/quote/schedule.ts with the same named constants of itemRules.ts, so the sheet counts
+// what `kvar-ledger quote` counts; tests/ui/living compares the two after random edits.
+import { LV_MAX_KV } from '../site/bankRules.ts';
+import { itemRules } from '../quote/index.ts';
+import type { CellContent } from './document.ts';
+import { QC, type Slot } from './quantitiesLayout.ts';
+import { absCell, cell } from './refs.ts';
+
+const {
+  CAPACITOR_CURRENT_FACTOR,
+  CONTROLLER_OUTPUTS,
+  CURRENT_CLASSES_A,
+  MAX_LV_FUSE_SWITCH_A,
+  MAX_MV_CONTACTOR_A,
+  MAX_MV_CONTACTOR_KV,
+  MAX_UNIT_KVAR_LV,
+  MAX_UNIT_KVAR_MV,
+  MIN_MV_BREAKER_A,
+  MV_CONTACTOR_CLASSES_A,
+  MV_DISCHARGE_DEVICES_PER_STEP,
+  MV_UNITS_MULTIPLE,
+  REACTOR_CURRENT_FACTOR,
+  SECTION_KVAR_LV_DETUNED,
+  SECTION_KVAR_LV_PLAIN,
+} = itemRules;
+
+/**
+ * The core's 1e-9 slack at class and size boundaries, written as a quotient: the engine prints
+ * 1e-9 in exponent form when it re-reads a formula, and a literal it prints another way than it
+ * was typed breaks its undo (the cached formula is looked up by its printed text).
+ */
+const EPS = '1/1000000000';
+
+/** One item line: the cells Item, Description, Count, Quantity, Unit, Current (the rest is pricing). */
+export interface ItemCells {
+  readonly item: string;
+  readonly what: string;
+  readonly count: string;
+  readonly quantity: string;
+  readonly unit: 'pc' | 'kvar';
+  readonly amps?: string;
+}
+
+/** "125 A" for the smallest class at or above the current in `amps`; "above 4000 A" past them all. */
+export function classText(amps: string, classes: readonly number[] = CURRENT_CLASSES_A): string {
+  const last = classes[classes.length - 1] as number;
+  let f = `"above ${last} A"`;
+  for (let i = classes.length - 1; i >= 0; i--) {
+    const c = classes[i] as number;
+    f = `IF(${c}>=${amps}-${EPS},"${c} A",${f})`;
+  }
+  return f;
+}
+
+/** The bank as its bus line holds it: references to the bus line's basis cells. */
+function basis(busRow: number) {
+  const b = (col: number) => absCell(busRow, col);
+  const u = b(QC.u);
+  return {
+    u,
+    fixed: b(QC.fixed),
+    step: b(QC.step),
+    steps: b(QC.steps),
+    p: b(QC.p),
+    uRated: b(QC.uRated),
+    per: b(QC.perKvar),
+    total: b(QC.total),
+    reactor: b(QC.reactor),
+    known: `AND(ISNUMBER(${u}),${u}>0)`,
+    lv: `${u}<=${LV_MAX_KV}`,
+  };
+}
+
+// Numbers joined into a text are rounded first: engines print a number's full digits differently.
+// Even so Gnumeric printed ROUND(0.48,3) with 20 digits, so the capacitor rating is left to the
+// bus line's own column rather than written into the description.
+const r2 = (x: string) => `ROUND(${x},2)`;
+const r3 = (x: string) => `ROUND(${x},3)`;
+
+const lineCurrent = (kvar: string, u: string, factor: number) => `${kvar}/(SQRT(3)*${u})*${factor}`;
+
+/** The device switching a circuit whose current is in `amps`: LV contactor; MV contactor or breaker. */
+function switchingCode(amps: string, u: string, lv: string): string {
+  const mvContactor = `"MV contactor "&${classText(amps, MV_CONTACTOR_CLASSES_A)}`;
+  const mvBreaker = `"MV breaker "&${classText(`MAX(${amps},${MIN_MV_BREAKER_A})`)}`;
+  return `IF(${lv},"LV contactor "&${classText(amps)},IF(AND(${amps}<=${MAX_MV_CONTACTOR_A},${u}<=${MAX_MV_CONTACTOR_KV}),${mvContactor},${mvBreaker}))`;
+}
+
+/** Controllers for n steps: the smallest model with enough outputs, else several of the largest. */
+function controllerOutputs(n: string): string {
+  const largest = CONTROLLER_OUTPUTS[CONTROLLER_OUTPUTS.length - 1] as number;
+  let f = String(largest);
+  for (let i = CONTROLLER_OUTPUTS.length - 1; i >= 0; i--) {
+    const o = CONTROLLER_OUTPUTS[i] as number;
+    f = `IF(${n}<=${o},${o},${f})`;
+  }
+  return f;
+}
+function controllerCount(n: string): string {
+  const largest = CONTROLLER_OUTPUTS[CONTROLLER_OUTPUTS.length - 1] as number;
+  return `IF(${n}<=${largest},1,ROUNDUP(${n}/${largest},0))`;
+}
+
+/** Formulas of one item line at `row` of the bus whose bus line is `busRow`. */
+export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
+  const k = basis(busRow);
+  const here = (col: number) => cell(row, col);
+  const item = here(QC.item);
+  const when = (cond: string, then: string) =>
+    `=IF(${item}="","",${cond === '' ? then : `IF(${cond},${then},"")`})`;
+  const onlyIf = (cond: string, code: string) => `=IF(AND(${k.known},${cond}),${code},"")`;
+  const lvOrMv = `IF(${k.lv},"LV","MV")`;
+  const capacitors = (part: string, kvar: string, times: string, present: string): ItemCells => {
+    const nameplate = `${kvar}*${k.per}`;
+    // LV: three-phase units up to the largest size; MV: single-phase units, a multiple of three.
+    const perPart = `IF(${k.lv},ROUNDUP(${nameplate}/${MAX_UNIT_KVAR_LV}-${EPS},0),${MV_UNITS_MULTIPLE}*ROUNDUP(${nameplate}/${MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV}-${EPS},0))`;
+    const count = here(QC.count);
+    return {
+      item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
+      what: when(
+        '',
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase"))`,
+      ),
+      count: when('', `IF(${k.per}="","",${perPart}*${times})`),
+      quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),
+      unit: 'kvar',
+    };
+  };
+  switch (slot) {
+    case 'stepCapacitors':
+      return capacitors(`"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`, k.step, k.steps, `${k.steps}>0`);
+    case 'fixedCapacitors':
+      return capacitors(`fixed "&${r2(k.fixed)}&" kvar`, k.fixed, '1', `${k.fixed}>0`);
+    case 'detuning': {
+      const parts = `${k.steps}+IF(${k.fixed}>0,1,0)`;
+      return {
+        item: onlyIf(`${k.total}>0,${k.p}>0`, `${lvOrMv}&" detuning reactor "&${k.p}&" %"`),
+        what: when(
+          '',
+          `"detuning reactors, one per step"&IF(${k.fixed}>0," and the fixed part","")&", p = "&${k.p}&" %, tuned to order "&ROUND(CAPBANK.TUNE(${k.p}),2)&"; kvar of the outputs they carry"`,
+        ),
+        count: when('', parts),
+        quantity: when('', k.total),
+        unit: 'kvar',
+      };
+    }
+    case 'stepSwitching': {
+      const amps = here(QC.amps);
+      return {
+        item: onlyIf(`${k.steps}>0`, switchingCode(amps, k.u, k.lv)),
+        what: when(
+          '',
+          `"step switching, one per step, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+        ),
+        count: when('', k.steps),
+        quantity: when('', k.steps),
+        unit: 'pc',
+        amps: `=IF(AND(${k.known},${k.steps}>0),${lineCurrent(k.step, k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
+      };
+    }
+    case 'controller': {
+      const count = controllerCount(k.steps);
+      return {
+        item: onlyIf(`${k.steps}>0`, `"Step controller "&${controllerOutputs(k.steps)}&" outputs"`),
+        what: when('', `"controller for "&${k.steps}&" steps"`),
+        count: when('', count),
+        quantity: when('', count),
+        unit: 'pc',
+      };
+    }
+    case 'enclosure': {
+      const per = `IF(${k.p}>0,${SECTION_KVAR_LV_DETUNED},${SECTION_KVAR_LV_PLAIN})`;
+      const count = `IF(${k.lv},ROUNDUP(${k.total}/${per}-${EPS},0),${k.steps}+IF(${k.fixed}>0,1,0))`;
+      return {
+        item: onlyIf(`${k.total}>0`, `IF(${k.lv},"LV section","MV frame")`),
+        what: when(
+          '',
+          `IF(${k.lv},"cubicle sections, up to "&${per}&" kvar each","bank frames or enclosures, one per stage")`,
+        ),
+        count: when('', count),
+        quantity: when('', count),
+        unit: 'pc',
+      };
+    }
+    case 'incomer': {
+      const amps = here(QC.amps);
+      const code = `IF(${k.lv},IF(${amps}<=${MAX_LV_FUSE_SWITCH_A},"LV fuse-switch ","LV breaker ")&${classText(amps)},"MV breaker "&${classText(`MAX(${amps},${MIN_MV_BREAKER_A})`)})`;
+      return {
+        item: onlyIf(`${k.total}>0`, code),
+        what: when(
+          '',
+          `"bank incomer for "&${r2(k.total)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+        ),
+        count: when('', '1'),
+        quantity: when('', '1'),
+        unit: 'pc',
+        amps: `=IF(AND(${k.known},${k.total}>0),${lineCurrent(k.total, k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
+      };
+    }
+    case 'discharge': {
+      const count = `${MV_DISCHARGE_DEVICES_PER_STEP}*${k.steps}`;
+      return {
+        item: onlyIf(`NOT(${k.lv}),${k.steps}>0`, '"MV discharge VT"'),
+        what: when(
+          '',
+          `"fast-discharge voltage transformers, ${MV_DISCHARGE_DEVICES_PER_STEP} per switched step"`,
+        ),
+        count: when('', count),
+        quantity: when('', count),
+        unit: 'pc',
+      };
+    }
+    case 'shuntReactor':
+      return {
+        item: onlyIf(`${k.reactor}>0`, `${lvOrMv}&" shunt reactor"`),
+        what: when('', `"shunt reactor "&${r2(k.reactor)}&" kvar at "&${r3(k.u)}&" kV"`),
+        count: when('', '1'),
+        quantity: when('', k.reactor),
+        unit: 'kvar',
+      };
+    case 'reactorSwitching': {
+      const amps = here(QC.amps);
+      return {
+        item: onlyIf(`${k.reactor}>0`, switchingCode(amps, k.u, k.lv)),
+        what: when('', `"reactor switching, "&ROUND(${amps},2)&" A"`),
+        count: when('', '1'),
+        quantity: when('', '1'),
+        unit: 'pc',
+        amps: `=IF(AND(${k.known},${k.reactor}>0),${lineCurrent(k.reactor, k.u, REACTOR_CURRENT_FACTOR)},"")`,
+      };
+    }
+  }
+}
+
+/** Cells of a line as a row of the sheet (pricing columns left to the caller). */
+export function itemRow(c: ItemCells, width: number): CellContent[] {
+  const out = new Array<CellContent>(width).fill(null);
+  out[QC.item] = c.item;
+  out[QC.what] = c.what;
+  out[QC.count] = c.count;
+  out[QC.quantity] = c.quantity;
+  out[QC.unit] = c.unit;
+  if (c.amps !== undefined) out[QC.amps] = c.amps;
+  return out;
+}

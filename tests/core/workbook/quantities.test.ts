@@ -1,0 +1,226 @@
+// The "Quantities and cost" sheet: live formulas over the Compensation and Rates sheets that count
+// and price the items of each bus's bank. Expected figures are worked by hand here (circuit theory
+// for the nameplate: a detuned step's nameplate for an output Q is Q·(1 − p)·(Ur/U)²; line current
+// I = Q/(√3·U); 1.43 × for switching devices, IEC 60831-1's 1.3 In times the 1.1 capacitance
+// tolerance as IEC 61921 states; current classes from the R10 series of IEC 60059; unit, section
+// and controller sizes are common practice, from memory, as itemRules.ts says). The rates are
+// invented for the test; each cost is recomputed here as quantity × rate.
+import { describe, expect, it } from 'vitest';
+import { ratesSheetDoc, RATES_SHEET, type Rate } from '../../../src/core/quote/index.ts';
+import type { BankChoice } from '../../../src/core/site/bankChoice.ts';
+import { buildWorkbook } from '../../../src/core/workbook/build.ts';
+import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
+import {
+  QC,
+  QUANTITIES_SHEET,
+  SLOTS,
+  busLineRow,
+  slotRow,
+  summaryRowOf,
+} from '../../../src/core/workbook/quantitiesLayout.ts';
+import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { siteFromCsv } from '../site/fixtures.ts';
+
+const { site } = siteFromCsv(
+  [
+    'tag,bus,kind,qty,p_kw,cos_phi,u_kv,load',
+    'L1,LV1,load,1,400,0.8,0.4,1',
+    'L2,MV,load,1,2000,0.85,11,1',
+    'L3,MV2,load,1,1500,0.85,6.6,1',
+  ].join('\n'),
+);
+
+const rate = (item: string, unit: Rate['unit'], value: number): Rate => ({
+  item,
+  unit,
+  rate: value,
+  currency: 'EUR',
+  source: 'invented for this test',
+});
+const RATES: Rate[] = [
+  rate('LV capacitor', 'kvar', 10),
+  rate('LV detuning reactor 7 %', 'kvar', 12),
+  rate('LV contactor 125 A', 'pc', 250),
+  rate('Step controller 6 outputs', 'pc', 800),
+  rate('LV section', 'pc', 3000),
+  rate('LV fuse-switch 630 A', 'pc', 1000),
+];
+const SURCHARGES = { Installation: 10, Engineering: 5, Contingency: 10 };
+
+function open(banks: BankChoice[], rates = RATES): WorkbookSession {
+  const doc = buildWorkbook(site, { flavour: 'live', banks });
+  const withRates: WorkbookDoc = {
+    ...doc,
+    sheets: doc.sheets.map((s) =>
+      s.name === RATES_SHEET ? ratesSheetDoc({ rates, surcharges: SURCHARGES }) : s,
+    ),
+  };
+  return WorkbookSession.fromDoc(withRates);
+}
+
+function reader(s: WorkbookSession) {
+  const id = s.engine.getSheetId(QUANTITIES_SHEET) as number;
+  const v = (row: number, col: number) => s.engine.getCellValue({ sheet: id, row, col });
+  const buses = ['LV1', 'MV', 'MV2'];
+  const bus = (name: string) => {
+    const i = buses.indexOf(name);
+    expect(v(busLineRow(i), QC.bus)).toBe(name);
+    return i;
+  };
+  /** The item lines of a bus that hold an item: [item, count, quantity, cost]. */
+  const lines = (name: string) => {
+    const i = bus(name);
+    return SLOTS.map((slot) => slotRow(i, slot))
+      .filter((r) => v(r, QC.item) !== '')
+      .map((r) => [v(r, QC.item), v(r, QC.count), v(r, QC.quantity), v(r, QC.cost)]);
+  };
+  const total = (line: Parameters<typeof summaryRowOf>[1]) => v(summaryRowOf(3, line), QC.cost);
+  return { v, bus, lines, total, id };
+}
+
+const LV_BANK: BankChoice = { bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 7, u_rated_kv: 0.48 };
+
+describe('a 6-step 300 kvar bank, 7 % detuned, at 400 V with 480 V capacitors', () => {
+  const s = open([LV_BANK]);
+  const q = reader(s);
+  const nameplate = 6 * 50 * (1 - 0.07) * (0.48 / 0.4) ** 2; // 401.76 kvar
+
+  it('counts each item as worked by hand', () => {
+    const got = q.lines('LV1');
+    expect(got.map((l) => l[0])).toEqual([
+      'LV capacitor',
+      'LV detuning reactor 7 %',
+      'LV contactor 125 A', // 50 kvar: 72.2 A × 1.43 = 103.2 A → 125 A class
+      'Step controller 6 outputs',
+      'LV section', // 300 kvar detuned, up to 250 kvar a section → 2
+      'LV fuse-switch 630 A', // 300 kvar: 433 A × 1.43 = 619 A → 630 A class
+    ]);
+    expect(got[0]?.[1]).toBe(12); // 66.96 kvar per step: two units of 33.48 kvar (LV units up to 50)
+    expect(got[0]?.[2] as number).toBeCloseTo(nameplate, 9);
+    expect(got.slice(1).map((l) => [l[1], l[2]])).toEqual([
+      [6, 300],
+      [6, 6],
+      [1, 1],
+      [2, 2],
+      [1, 1],
+    ]);
+  });
+
+  it('prices each line at its rate; equipment, surcharges and total as an estimator adds them', () => {
+    const costs = q.lines('LV1').map((l) => l[3] as number);
+    const byHand = [nameplate * 10, 300 * 12, 6 * 250, 800, 2 * 3000, 1000];
+    costs.forEach((c, i) => expect(c).toBeCloseTo(byHand[i] as number, 9));
+    const equipment = byHand.reduce((a, b) => a + b, 0); // 16 917.60
+    expect(q.total('Equipment') as number).toBeCloseTo(equipment, 9);
+    const installation = equipment * 0.1;
+    const engineering = equipment * 0.05;
+    const contingency = (equipment + installation + engineering) * 0.1;
+    expect(q.total('Installation') as number).toBeCloseTo(installation, 9);
+    expect(q.total('Contingency') as number).toBeCloseTo(contingency, 9);
+    expect(q.total('Total') as number).toBeCloseTo(21400.764, 6);
+    expect(q.total('Currency')).toBe('EUR');
+  });
+
+  it('buses without a bank have a block with no items', () => {
+    expect(q.lines('MV')).toEqual([]);
+    expect(q.v(busLineRow(1), QC.what)).toBe('no bank or reactor chosen');
+  });
+});
+
+describe('a missing rate is shown, not zero', () => {
+  it('an item without a rate says "no rate" and the subtotal and total say "unpriced"', () => {
+    const s = open(
+      [LV_BANK],
+      RATES.filter((r) => r.item !== 'LV section'),
+    );
+    const q = reader(s);
+    const section = slotRow(0, 'enclosure');
+    expect(q.v(section, QC.rate)).toBe('no rate');
+    expect(q.v(section, QC.cost)).toBe('no rate');
+    expect(q.v(busLineRow(0), QC.subtotal)).toBe('unpriced');
+    expect(q.total('Equipment')).toBe('unpriced');
+    expect(q.total('Total')).toBe('unpriced');
+  });
+  it('a blank capacitor rated voltage leaves the capacitors without a quantity, and unpriced', () => {
+    const s = open([{ ...LV_BANK, u_rated_kv: undefined }]);
+    const q = reader(s);
+    const caps = slotRow(0, 'stepCapacitors');
+    expect(q.v(caps, QC.quantity)).toBe('');
+    expect(q.v(caps, QC.cost)).toBe('quantity unknown');
+    expect(String(q.v(caps, QC.what))).toMatch(/rated voltage is blank/);
+    expect(q.total('Total')).toBe('unpriced');
+  });
+  it('without a Rates sheet every item shows "no rate"', () => {
+    const doc = buildWorkbook(site, { flavour: 'live', banks: [LV_BANK] });
+    const s = WorkbookSession.fromDoc({ ...doc, sheets: doc.sheets.filter((x) => x.name !== RATES_SHEET) });
+    expect(reader(s).v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe('no rate');
+  });
+});
+
+describe('MV banks and a shunt reactor', () => {
+  const s = open([
+    { bus: 'MV', fixed_kvar: 1200, u_rated_kv: 12.1, reactor_kvar: 250 },
+    { bus: 'MV2', step_kvar: 400, steps: 3, p_pct: 7, u_rated_kv: 7.8 },
+  ]);
+  const q = reader(s);
+  it('1200 kvar fixed at 11 kV: 1452 kvar nameplate in 3 single-phase units, a frame, a 630 A breaker', () => {
+    const got = q.lines('MV');
+    // 1200 × (12.1/11)² = 1452 kvar; 63 A × 1.43 = 90 A, and MV breakers start at 630 A.
+    expect(got.map((l) => [l[0], l[1]])).toEqual([
+      ['MV capacitor', 3],
+      ['MV frame', 1],
+      ['MV breaker 630 A', 1],
+      ['MV shunt reactor', 1],
+      ['MV contactor 200 A', 1], // 250 kvar at 11 kV: 13.1 A
+    ]);
+    expect(got[0]?.[2] as number).toBeCloseTo(1200 * (12.1 / 11) ** 2, 9);
+  });
+  it('3 × 400 kvar at 6.6 kV, 7 %: 200 A contactors (35 A × 1.43 = 50 A), two discharge VTs a step', () => {
+    const got = new Map(q.lines('MV2').map((l) => [l[0], l]));
+    expect(got.get('MV capacitor')?.[1]).toBe(9);
+    expect(got.get('MV capacitor')?.[2] as number).toBeCloseTo(3 * 400 * 0.93 * (7.8 / 6.6) ** 2, 9);
+    expect(got.get('MV contactor 200 A')?.[1]).toBe(3);
+    expect(got.get('MV discharge VT')?.[1]).toBe(6);
+    expect(got.get('MV frame')?.[1]).toBe(3);
+  });
+});
+
+describe('the sheet is generated', () => {
+  it('refuses rows inserted or removed, deletion and renaming, saying why', () => {
+    const s = open([LV_BANK]);
+    const { id } = reader(s);
+    expect(() => s.insertRows(id, 3, 1)).toThrow(/follow the buses/);
+    expect(() => s.removeRows(id, 3, 1)).toThrow(/follow the buses/);
+    expect(() => s.removeSheet(id)).toThrow(/can be emptied but not deleted/);
+    expect(() => s.renameSheet(id, 'Prices')).toThrow(/site's own sheets/);
+  });
+  it('the Rates sheet deleted or renamed: every line says "no rate" (not #REF!), as the CLI reads it', () => {
+    const s = open([LV_BANK]);
+    const q = reader(s);
+    const priced = q.total('Total');
+    expect(typeof priced).toBe('number');
+    const rates = s.engine.getSheetId(RATES_SHEET) as number;
+    s.removeSheet(rates);
+    expect(q.v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe('no rate');
+    expect(q.total('Total')).toBe('unpriced');
+    s.undo();
+    expect(q.total('Total')).toBe(priced);
+    s.renameSheet(s.engine.getSheetId(RATES_SHEET) as number, 'Old rates');
+    expect(q.total('Total')).toBe('unpriced');
+    s.renameSheet(s.engine.getSheetId('Old rates') as number, RATES_SHEET);
+    expect(q.total('Total')).toBe(priced);
+  });
+  it('a rate typed on the Rates sheet reaches the cost and the total in the same step, and undoes', () => {
+    const s = open([LV_BANK]);
+    const q = reader(s);
+    const before = q.total('Total') as number;
+    const rates = s.engine.getSheetId(RATES_SHEET) as number;
+    // Row 2 of the Rates sheet (index 1) is "LV capacitor"; its rate in column C (index 2).
+    s.setCells(rates, [{ row: 1, col: 2, content: 11 }]);
+    // +1 per kvar of 401.76 kvar, with installation and engineering (+15 %), then contingency (+10 %).
+    const extra = 401.76 * 1 * (1 + 0.1 + 0.05) * 1.1;
+    expect(q.total('Total') as number).toBeCloseTo(before + extra, 6);
+    s.undo();
+    expect(q.total('Total') as number).toBeCloseTo(before, 9);
+  });
+});
