@@ -13,7 +13,8 @@ import { defaultSettings } from '../core/site/defaults.ts';
 import { MAX_CASES } from '../core/site/limits.ts';
 import { NUMERIC_COLUMNS, TEXT_COLUMNS, type Site, type SiteSettings } from '../core/site/model.ts';
 import { CASE_PREFIX, DEFAULT_CASE } from '../core/site/parse.ts';
-import { error, info, type Problem } from '../core/site/problems.ts';
+import { error, hasErrors, info, type Problem } from '../core/site/problems.ts';
+import { rollUpAll, runawayProblem, SiteStructureError } from '../core/site/rollup.ts';
 import { readSiteFile } from '../core/site/siteFile.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import { fillSiteTypical, type AssumedInput } from '../core/site/typical/fillSite.ts';
@@ -298,6 +299,21 @@ function withOptions(s: SiteSettings, options: SiteOptions): SiteSettings {
   };
 }
 
+/**
+ * Branch losses that run away (no site draws a terawatt): every command refuses such a site with
+ * the branch's row, as it refuses bad input, instead of failing inside the compensation rule.
+ */
+function runawayLosses(site: Site): Problem[] {
+  try {
+    return rollUpAll(site)
+      .flatMap((b) => runawayProblem(b) ?? [])
+      .slice(0, 1);
+  } catch (e) {
+    if (e instanceof SiteStructureError) return []; // said by the command that rolls up
+    throw e;
+  }
+}
+
 /** Read, name, override and validate the site in `file`. Never throws for bad input. */
 export async function loadSite(file: string, options: SiteOptions): Promise<LoadResult> {
   const bytes = readBytes(file);
@@ -341,8 +357,9 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   // A list comes validated from the import preview. A file that could not be read at all has no
   // rows to validate; say only why it could not.
   const unreadable = site.equipment.length === 0 && read.problems.some((p) => p.severity === 'error');
-  const problems =
+  const checked =
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
+  const problems = hasErrors(checked) ? checked : [...checked, ...runawayLosses(site)];
   const banks = read.banks ? { banks: read.banks } : {};
   const rates = {
     ...(read.rateRows ? { rateRows: read.rateRows } : {}),

@@ -211,6 +211,7 @@ export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string,
     add(sum, 0, -x.q_delivered_kvar);
   }
   // Bottom-up: children come after parents in graph.order, so walk it backwards.
+  let runaway = false;
   const results = new Map<string, BusBalance>();
   for (const bus of [...graph.order].reverse()) {
     const t = total.get(bus) as Sum;
@@ -223,6 +224,18 @@ export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string,
       const e = branchElement(br, apparentPower(child.p, child.abs - child.del), hz);
       elements.push(e);
       if (e.error) problems.push(error({ row: br.row, tag: br.tag }, e.error));
+      else if (
+        !runaway &&
+        !(Math.max(Math.abs(e.p_kw), e.q_absorbed_kvar, e.q_delivered_kvar) <= RUNAWAY_KVA)
+      ) {
+        runaway = true;
+        const p = error(
+          { row: br.row, tag: br.tag },
+          runawayText(br.kind, hz, found, e.q_absorbed_kvar, e.p_kw),
+        );
+        RUNAWAY.add(p);
+        problems.push(p);
+      }
       t.p += child.p + e.p_kw;
       t.abs += child.abs + e.q_absorbed_kvar;
       t.del += child.del + e.q_delivered_kvar;
@@ -235,6 +248,26 @@ export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string,
 }
 
 /** Every case of the site, in the order of the settings. */
+/**
+ * Beyond this a figure is not a site's (1 TW): losses of branches that feed one another run away
+ * when a line or transformer carries far more than its voltage allows, each one's I²X adding to
+ * the load of the one above it.
+ */
+export const RUNAWAY_KVA = 1e9;
+
+const runawayText = (kind: string, hz: number, caseName: string, q: number, p: number) =>
+  `the ${kind}'s own losses come to ${q.toExponential(2)} kvar and ${p.toExponential(2)} kW in case ${caseName} (${hz} Hz): ` +
+  `more than any site draws (${RUNAWAY_KVA.toExponential(0)} kVA), so the figures above it cannot be trusted; ` +
+  'check U (kV), length and mH/km of this branch and those below it (megawatts carried at low voltage?)';
+
+/** The problems rollUp raised for runaway losses (told apart from the same text elsewhere). */
+const RUNAWAY = new WeakSet<Problem>();
+
+/** The first branch (from the bottom of the network) whose losses run away, as an error; else undefined. */
+export function runawayProblem(bal: CaseBalance): Problem | undefined {
+  return bal.problems.find((p) => RUNAWAY.has(p));
+}
+
 export function rollUpAll(site: Site): CaseBalance[] {
   return site.settings.cases.map((c) => rollUp(site, c));
 }

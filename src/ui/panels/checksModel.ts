@@ -2,7 +2,9 @@
 // and the findings of the compensation design (requirement, resonance, overvoltage, voltage
 // rise, self-excitation, overcompensation, cable charging). Each item says where — sheet, grid
 // row and column, or the bus and case — and points at the cell to show. Pure: no DOM.
-import type { Severity } from '../../core/site/problems.ts';
+import { rollUpAll, runawayProblem } from '../../core/site/rollup.ts';
+import type { Problem, Severity } from '../../core/site/problems.ts';
+import type { Site } from '../../core/site/model.ts';
 import { validateSite } from '../../core/site/validate.ts';
 import { assessBanks } from '../../core/site/assessBanks.ts';
 import { busVoltages } from '../../core/site/voltages.ts';
@@ -143,11 +145,25 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
       // Findings for the banks on the Compensation sheet (typed, or proposed when the site was built).
       items.push(...assessBanks(read.site, read.banks).warnings.map((w) => designItem(w, doc, read.origins)));
     } catch (e) {
-      designSkipped = `The compensation design could not be checked: ${e instanceof Error ? e.message : String(e)}`;
+      // Losses that run away (megawatts through a low-voltage line) say where; anything else as it came.
+      const runaway = runawayOf(read.site);
+      const why = runaway?.message ?? (e instanceof Error ? e.message : String(e));
+      designSkipped = `The compensation design could not be checked: ${why}`;
     }
   }
   items.sort((a, b) => RANK[a.severity] - RANK[b.severity]);
   const counts = { error: 0, warning: 0, info: 0 };
   for (const i of items) counts[i.severity]++;
   return { items, counts, ...(designSkipped ? { designSkipped } : {}) };
+}
+
+/** The first runaway-losses error of any case, if the roll-up gets that far. */
+function runawayOf(site: Site): Problem | undefined {
+  try {
+    return rollUpAll(site)
+      .map(runawayProblem)
+      .find((p) => p !== undefined);
+  } catch {
+    return undefined; // a structural problem: listed with the inputs
+  }
 }

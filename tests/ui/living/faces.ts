@@ -1,5 +1,6 @@
 // Reading a session's figures (what the page shows) and the core's figures for the same
 // workbook (what the command line prints), to compare them.
+import { rollUpAll, runawayProblem } from '../../../src/core/site/rollup.ts';
 import type { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
 import { validateSite, mergeProblems } from '../../../src/core/site/validate.ts';
@@ -56,6 +57,8 @@ export function coreFaces(s: WorkbookSession): { faces: Faces; cases: readonly s
   const read = siteFromWorkbook(s.toDoc());
   const problems = mergeProblems(read.problems, validateSite(read.site));
   if (problems.some((p) => p.severity === 'error')) return undefined;
+  // Losses that run away (a long chain of low-voltage lines): the core refuses, the page shows errors.
+  if (rollUpAll(read.site).some((b) => runawayProblem(b) !== undefined)) return undefined;
   const res: CaseCompensation[] = compensate(read.site, read.banks);
   const first = res[0];
   if (!first) return undefined;
