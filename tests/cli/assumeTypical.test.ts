@@ -139,7 +139,7 @@ describe('kvar-ledger --assume-typical', () => {
     const { workbookOf } = await import('../../src/ui/templates/templateBuild.ts');
     const text = readFileSync(new URL('../../templates/cold-store.json', import.meta.url), 'utf8');
     const s = WorkbookSession.fromDoc(await workbookOf('cold-store', text));
-    const filled = s.fillTypicalValues().filled;
+    const filled = (await s.fillTypicalValues()).filled;
     expect(filled).toBeGreaterThan(0);
     const saved = join(tmp, 'filled.kvar.json');
     writeFileSync(saved, JSON.stringify(s.toDoc()));

@@ -174,7 +174,7 @@ describe('the same file gives the same figures in the page and the CLI', () => {
     const text = JSON.stringify(site);
     writeFileSync(file, text);
     const s = WorkbookSession.fromDoc(await workbookOf('blanks', text));
-    const filled = s.fillTypicalValues();
+    const filled = await s.fillTypicalValues();
     expect(filled.filled).toBe(cleared);
     await expectSameFigures(s, file, 'file', ['--assume-typical']);
     // The same values at the same cells: the page's marks against the CLI's list.

@@ -40,7 +40,7 @@ describe('filling blanks with typical values', () => {
       { row, col: col('Rated output (kW)'), content: 11 },
     ]);
     const before = s.toDoc();
-    const report = s.fillTypicalValues();
+    const report = await s.fillTypicalValues();
     expect(report.filled).toBeGreaterThanOrEqual(3);
     const value = (c: string) => s.engine.getCellValue({ sheet: motors, row, col: col(c) });
     // IE3 4-pole 11 kW: 91.4 % (IEC 60034-30-1 Table 2, the published minimum).
@@ -97,7 +97,7 @@ describe('filling blanks with typical values', () => {
       { row, col: col('Feeds bus'), content: 'LV-NEW' },
       { row, col: col('Rating (kVA)'), content: 1000 },
     ]);
-    s.fillTypicalValues();
+    await s.fillTypicalValues();
     const pk = col('Load loss (kW)');
     const mark = () => (s.meta(transformers).marks ?? []).find((m) => m.col === pk);
     expect(mark()?.row).toBe(row);
@@ -125,7 +125,7 @@ describe('filling blanks with typical values', () => {
       { row, col: col('Bus'), content: 'LV-REF' },
       { row, col: col('Rated output (kW)'), content: 5000 },
     ]);
-    const r = s.fillTypicalValues();
+    const r = await s.fillTypicalValues();
     expect(r.notAssumed.join('\n')).toMatch(
       new RegExp(`Motors row ${row + 1} \\(M-HUGE\\): eff: 5000 kW is outside the typical-value tables`),
     );

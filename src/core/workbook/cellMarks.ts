@@ -21,3 +21,8 @@ export function heldAssumptions(sheet: SheetDoc): CellMark[] {
     .filter((m) => m.kind === 'assumed' && markHolds(m, sheet.cells[m.row]?.[m.col] ?? null))
     .sort((a, b) => a.row - b.row || a.col - b.col);
 }
+
+/** The assumed-value mark of a cell: its note names the basis and the source. */
+export function assumedMark(row: number, col: number, value: number, note: string): CellMark {
+  return { row, col, kind: 'assumed', note, value };
+}

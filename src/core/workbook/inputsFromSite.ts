@@ -11,7 +11,7 @@ import { buildBusGraph } from '../site/graph.ts';
 import type { EquipmentRow, Site } from '../site/model.ts';
 import type { CellContent, CellMark, SheetDoc, WorkbookDoc } from './document.ts';
 import type { AssumedInput } from '../site/typical/fillSite.ts';
-import { assumedMark } from './typicalFill.ts';
+import { assumedMark } from './cellMarks.ts';
 import { BANK_INPUTS, NOTE_HEADER, planCompensationColumns } from './compensationColumns.ts';
 import type { EquipmentColumns } from './equipmentColumns.ts';
 import { SHEETS } from './layout.ts';

@@ -3,6 +3,7 @@
 // as one step; the rule for each row is typicalFillRow, shared with the import and the CLI.
 import { typicalFillRow } from '../site/typical/fillRow.ts';
 import type { CellContent, CellMark } from './document.ts';
+import { assumedMark } from './cellMarks.ts';
 import type { EquipmentColumns } from './equipmentColumns.ts';
 
 export type SheetRows = readonly (readonly CellContent[])[];
@@ -20,11 +21,6 @@ export interface TypicalFillPlan<K> {
   readonly sheets: ReadonlyMap<K, { cells: TypicalFillCell[]; marks: CellMark[] }>;
   /** Blanks that stay blank, and why ("Motors row 7 (M-12): eff: …"). */
   readonly notAssumed: readonly string[];
-}
-
-/** The assumed-value mark of a cell: its note names the basis and the source. */
-export function assumedMark(row: number, col: number, value: number, note: string): CellMark {
-  return { row, col, kind: 'assumed', note, value };
 }
 
 /**

@@ -249,10 +249,14 @@ export class App {
 
   /** Run a command, turning a refusal into a message instead of an exception. */
   run(fn: () => unknown): void {
-    try {
-      fn();
-    } catch (e) {
+    const refused = (e: unknown) =>
       this.status.show(e instanceof SessionError || e instanceof Error ? e.message : String(e), 'error');
+    try {
+      const r = fn();
+      // A command that loads its code first (e.g. the typical-value tables) refuses later.
+      if (r instanceof Promise) r.catch(refused);
+    } catch (e) {
+      refused(e);
     }
   }
 

@@ -211,8 +211,8 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
 }
 
 /** Typical values into the blanks of motors and transformers, saying what went in and what did not. */
-function fillTypical(app: TopBarHost): void {
-  const r = app.session.fillTypicalValues();
+async function fillTypical(app: TopBarHost): Promise<void> {
+  const r = await app.session.fillTypicalValues();
   const left =
     r.notAssumed.length === 0
       ? ''

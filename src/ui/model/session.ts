@@ -30,7 +30,7 @@ import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
 import { sortedOrder } from './rowOrder.ts';
-import { planPageFill, type TypicalFillReport } from './typicalFill.ts';
+import type { TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
 
 export type SessionChange =
@@ -236,11 +236,12 @@ export class WorkbookSession {
   /**
    * Put typical values into the blank inputs of motors and transformers that have a rating, each
    * marked as assumed with its source, as one step. Returns how many values went in and why
-   * other blanks stay blank.
+   * other blanks stay blank. The tables load on first use (not needed to open a workbook).
    */
-  fillTypicalValues(): TypicalFillReport {
+  async fillTypicalValues(): Promise<TypicalFillReport> {
     const site = this.site;
     if (!site) throw new SessionError('Typical values fill the equipment sheets of a site workbook.');
+    const { planPageFill } = await import('./typicalFill.ts');
     const plan = planPageFill(this.contents, site.ids.equipment, equipmentPlans(site.state.cases));
     if (plan.filled === 0) return plan;
     this.step(() => {

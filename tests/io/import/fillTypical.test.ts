@@ -74,7 +74,7 @@ describe('import with typical values for blanks', () => {
   it('adding a list keeps the assumed marks the open workbook already held', async () => {
     const { WorkbookSession } = await import('../../../src/ui/model/session.ts');
     const s = WorkbookSession.fromDoc(current);
-    const filled = s.fillTypicalValues();
+    const filled = await s.fillTypicalValues();
     expect(filled.filled).toBeGreaterThan(0);
     const open = s.toDoc();
     const heldBefore = open.sheets.flatMap((x) =>
