@@ -269,9 +269,9 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   // With --json the list is in the JSON, unless the site is refused and no JSON comes.
   if (!flags.has('--json') || refused) reportAssumed(io, file, site, loaded.loaded);
   if (refused) return refuseErrors(io, 'balance', file, problems, 'nothing was balanced');
-  let balances: CaseBalance[];
+  let balances: readonly CaseBalance[];
   try {
-    balances = rollUpAll(site);
+    balances = loaded.loaded.balances ?? rollUpAll(site);
   } catch (e) {
     if (e instanceof SiteStructureError) return inputError(io, 'balance', `${file}: ${e.message}`);
     throw e;

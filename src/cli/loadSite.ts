@@ -14,7 +14,7 @@ import { MAX_CASES } from '../core/site/limits.ts';
 import { NUMERIC_COLUMNS, TEXT_COLUMNS, type Site, type SiteSettings } from '../core/site/model.ts';
 import { CASE_PREFIX, DEFAULT_CASE } from '../core/site/parse.ts';
 import { error, hasErrors, info, type Problem } from '../core/site/problems.ts';
-import { rollUpAll, runawayProblem, SiteStructureError } from '../core/site/rollup.ts';
+import { rollUpAll, runawayProblem, SiteStructureError, type CaseBalance } from '../core/site/rollup.ts';
 import { readSiteFile } from '../core/site/siteFile.ts';
 import { mergeProblems, validateSite } from '../core/site/validate.ts';
 import { fillSiteTypical, type AssumedInput } from '../core/site/typical/fillSite.ts';
@@ -62,6 +62,8 @@ export interface LoadedSite {
   readonly notAssumed: readonly string[];
   /** Typical values a workbook read already held as assumed (marked by the page); an export keeps them. */
   readonly held: readonly AssumedInput[];
+  /** Every case rolled up, when the site has no input errors (commands reuse it). */
+  readonly balances?: readonly CaseBalance[];
 }
 
 /** `usage`: the command line does not fit the file (an option names what the file lacks). */
@@ -300,16 +302,16 @@ function withOptions(s: SiteSettings, options: SiteOptions): SiteSettings {
 }
 
 /**
- * Branch losses that run away (no site draws a terawatt): every command refuses such a site with
- * the branch's row, as it refuses bad input, instead of failing inside the compensation rule.
+ * Every case rolled up once, and branch losses that run away (no site draws a terawatt): every
+ * command refuses such a site with the branch's row, as it refuses bad input, instead of failing
+ * inside the compensation rule. The balances go to the command, which need not roll up again.
  */
-function runawayLosses(site: Site): Problem[] {
+function rollUpChecked(site: Site): { balances?: CaseBalance[]; runaway: Problem[] } {
   try {
-    return rollUpAll(site)
-      .flatMap((b) => runawayProblem(b) ?? [])
-      .slice(0, 1);
+    const balances = rollUpAll(site);
+    return { balances, runaway: balances.flatMap((b) => runawayProblem(b) ?? []).slice(0, 1) };
   } catch (e) {
-    if (e instanceof SiteStructureError) return []; // said by the command that rolls up
+    if (e instanceof SiteStructureError) return { runaway: [] }; // said by the command that rolls up
     throw e;
   }
 }
@@ -359,7 +361,8 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const unreadable = site.equipment.length === 0 && read.problems.some((p) => p.severity === 'error');
   const checked =
     read.source === 'list' || unreadable ? read.problems : mergeProblems(read.problems, validateSite(site));
-  const problems = hasErrors(checked) ? checked : [...checked, ...runawayLosses(site)];
+  const rolled = hasErrors(checked) ? { runaway: [] } : rollUpChecked(site);
+  const problems = [...checked, ...rolled.runaway];
   const banks = read.banks ? { banks: read.banks } : {};
   const rates = {
     ...(read.rateRows ? { rateRows: read.rateRows } : {}),
@@ -368,7 +371,16 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed, held: read.held ?? [] };
   return {
     ok: true,
-    loaded: { site, problems, ...banks, ...rates, source: read.source, caseName, ...typical },
+    loaded: {
+      site,
+      problems,
+      ...banks,
+      ...rates,
+      ...(rolled.balances ? { balances: rolled.balances } : {}),
+      source: read.source,
+      caseName,
+      ...typical,
+    },
   };
 }
 
