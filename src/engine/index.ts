@@ -7,6 +7,7 @@ import { nameTable } from '../core/text/nameTable.ts';
 import { ENGINE_LANGUAGE, engineConfig } from './config.ts';
 import { registerCataloguePlugin, registerOwnPlugin, standardPlugins, type OwnPlugin } from './plugins.ts';
 import { BUS_ROLLUP_PLUGIN } from './rollupPlugin.ts';
+import { installFastTopSort } from './topSort.ts';
 
 export { CATALOGUE_PLUGIN, registerOwnPlugin, type OwnPlugin } from './plugins.ts';
 export { engineConfig, ENGINE_LICENSE_KEY } from './config.ts';
@@ -38,6 +39,8 @@ export const BOOLEAN_NAMES: readonly SerializedNamedExpression[] = Object.freeze
 ]);
 
 function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): HyperFormula {
+  // The recalculation walk over typed arrays (topSort.ts): same order, a fraction of the time.
+  installFastTopSort();
   const names = BOOLEAN_NAMES.map((n) => ({ ...n }));
   if (sheets.length === 0) return HyperFormula.buildEmpty(config, names);
   const seen = new Map<string, string>();
