@@ -273,6 +273,12 @@ export class SiteModel {
     const overrides = new Map(this.state.overrides);
     overrides.set(sheet, moveOverrides(this.state.overrides.get(sheet), at, count));
     this.state = { ...this.state, rendered: moveRendered(this.state.rendered, index, at, count), overrides };
+    // Blank rows inserted leave every item's order, and so the buses, as they were: the moved
+    // structure above is what a new pass would find, without one over every row of the site.
+    if (count > 0) {
+      this.state = { ...this.state, rows };
+      return [];
+    }
     return this.follow(
       rows,
       removedBuses.length > 0 ? [{ index, row: -1, buses: removedBuses, rewrite: false }] : [],
