@@ -3,6 +3,8 @@
 import type { KindSpec, SheetSpec } from './spec.ts';
 
 const kinds: KindSpec[] = [];
+// Names as typed → kind: the structure pass asks once or twice per equipment row on every edit.
+const found = new Map<string, KindSpec | undefined>();
 
 /** Add a kind (the built-ins are added by index.ts; a test may add a throwaway kind). */
 export function registerKind(spec: KindSpec): void {
@@ -11,6 +13,7 @@ export function registerKind(spec: KindSpec): void {
   if (other)
     throw new Error(`kind ${spec.name}: sheet "${spec.sheet.name}" is already defined by kind ${other.name}`);
   kinds.push(spec);
+  found.clear();
 }
 
 /** Every kind, in registration order. */
@@ -24,8 +27,12 @@ export function kindNames(): readonly string[] {
 
 /** The kind named (as typed, ignoring case), or undefined. */
 export function findKind(name: string): KindSpec | undefined {
+  if (found.has(name)) return found.get(name);
   const n = name.trim().toLowerCase();
-  return kinds.find((k) => k.name === n);
+  const k = kinds.find((x) => x.name === n);
+  if (found.size > 10_000) found.clear(); // names typed by hand: keep the cache small
+  found.set(name, k);
+  return k;
 }
 
 /** The kind named; throws when unknown (callers that handle user input use findKind). */
