@@ -28,6 +28,7 @@ export const QUANT_HEADERS = [
   'Nameplate per kvar of output',
   'Bank total (kvar)',
   'Reactor (kvar)',
+  'Rates row',
 ] as const;
 
 /** Column indexes by meaning. */
@@ -52,6 +53,8 @@ export const QC = {
   perKvar: 17,
   total: 18,
   reactor: 19,
+  /** The Rates sheet row whose Item matches: one lookup per line, read by Rate. */
+  rateRow: 20,
 } as const;
 
 const FORMAT: Partial<Record<number, string>> = {
@@ -71,6 +74,7 @@ const FORMAT: Partial<Record<number, string>> = {
   [QC.perKvar]: '0.0000',
   [QC.total]: FORMATS.kvar,
   [QC.reactor]: FORMATS.kvar,
+  [QC.rateRow]: FORMATS.count,
 };
 const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 22, [QC.item]: 26, [QC.what]: 48 };
 

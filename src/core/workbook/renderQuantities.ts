@@ -76,13 +76,22 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   return out;
 }
 
-/** The rate of the item in column Item, looked up on the Rates sheet (item, unit, rate, currency). */
-function rateFormula(input: QuantitiesInput, row: number, currency: string): string {
+/**
+ * The rate of the item in column Item, from the Rates sheet (item, unit, rate, currency): the row
+ * is found once, by MATCH in the Rates row column, and Rate reads that row's cells by INDEX. One
+ * lookup per line instead of one per field keeps the sheet cheap to build and recalculate.
+ */
+function rateFormulas(input: QuantitiesInput, row: number, currency: string): [string | null, string] {
   const item = cell(row, QC.item);
-  if (!input.hasRates) return `=IF(${item}="","",${q(UNPRICED_TEXT.noRate)})`;
-  const table = `${sheetPrefix(RATES_SHEET)}$A:$E`;
-  const look = (col: number) => `VLOOKUP(${item},${table},${col},FALSE)`;
-  return `=IF(${item}="","",IFERROR(IF(${look(2)}<>${cell(row, QC.unit)},${q(UNPRICED_TEXT.otherUnit)},IF(${look(4)}<>${currency},${q(UNPRICED_TEXT.otherCurrency)},IF(AND(ISNUMBER(${look(3)}),${look(3)}>=0),${look(3)},${q(UNPRICED_TEXT.noRate)}))),${q(UNPRICED_TEXT.noRate)}))`;
+  if (!input.hasRates) return [null, `=IF(${item}="","",${q(UNPRICED_TEXT.noRate)})`];
+  const rates = sheetPrefix(RATES_SHEET);
+  const at = cell(row, QC.rateRow);
+  const field = (col: string) => `INDEX(${rates}$${col}:$${col},${at})`;
+  const [unit, rate, cur] = [field('B'), field('C'), field('D')];
+  return [
+    `=IF(${item}="","",IFERROR(MATCH(${item},${rates}$A:$A,0),""))`,
+    `=IF(${item}="","",IF(${at}="",${q(UNPRICED_TEXT.noRate)},IFERROR(IF(${unit}<>${cell(row, QC.unit)},${q(UNPRICED_TEXT.otherUnit)},IF(${cur}<>${currency},${q(UNPRICED_TEXT.otherCurrency)},IF(AND(ISNUMBER(${rate}),${rate}>=0),${rate},${q(UNPRICED_TEXT.noRate)}))),${q(UNPRICED_TEXT.noRate)})))`,
+  ];
 }
 
 function pricing(out: CellContent[], input: QuantitiesInput, row: number, currency: string): void {
@@ -93,7 +102,7 @@ function pricing(out: CellContent[], input: QuantitiesInput, row: number, curren
     cell(row, QC.cost),
   ];
   out[QC.unit] = `=IF(${item}="","",${q(out[QC.unit] as string)})`;
-  out[QC.rate] = rateFormula(input, row, currency);
+  [out[QC.rateRow], out[QC.rate]] = rateFormulas(input, row, currency);
   out[QC.cost] =
     `=IF(${item}="","",IF(NOT(ISNUMBER(${quantity})),${q(UNPRICED_TEXT.noQuantity)},IF(ISNUMBER(${rate}),${quantity}*${rate},${rate})))`;
   out[QC.unpriced] = `=IF(${item}="",0,IF(ISNUMBER(${cost}),0,1))`;

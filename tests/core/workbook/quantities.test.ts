@@ -150,6 +150,17 @@ describe('a missing rate is shown, not zero', () => {
     expect(String(q.v(caps, QC.what))).toMatch(/rated voltage is blank/);
     expect(q.total('Total')).toBe('unpriced');
   });
+  it('a rate cleared on the Rates sheet says "no rate", not a cost of 0, and the row it came from', () => {
+    const s = open([LV_BANK]);
+    const q = reader(s);
+    const caps = slotRow(0, 'stepCapacitors');
+    // Row 2 of the Rates sheet (index 1) is "LV capacitor": the line names that row.
+    expect(q.v(caps, QC.rateRow)).toBe(2);
+    s.setCells(s.engine.getSheetId(RATES_SHEET) as number, [{ row: 1, col: 2, content: null }]);
+    expect(q.v(caps, QC.rate)).toBe('no rate');
+    expect(q.v(caps, QC.cost)).toBe('no rate');
+    expect(q.total('Total')).toBe('unpriced');
+  });
   it('without a Rates sheet every item shows "no rate"', () => {
     const doc = buildWorkbook(site, { flavour: 'live', banks: [LV_BANK] });
     const s = WorkbookSession.fromDoc({ ...doc, sheets: doc.sheets.filter((x) => x.name !== RATES_SHEET) });
