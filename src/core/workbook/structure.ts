@@ -129,31 +129,45 @@ export function readSheetRows(
   return out;
 }
 
+/**
+ * The row number a site row gets here: sheet position × ROW_SPAN + cell row + 1. Only its order
+ * matters to the graph and voltage rules (first row wins), and it stays the same for an unchanged
+ * row from one edit to the next, so the row objects below can be kept between passes.
+ */
+const ROW_SPAN = 2 ** 21; // above the 1,048,576 rows a sheet can have
+const siteRows = new WeakMap<RowInfo, EquipmentRow>();
+
+function siteRow(r: RowInfo, code: number): EquipmentRow {
+  const known = siteRows.get(r);
+  if (known && known.row === code) return known;
+  const row: EquipmentRow = {
+    row: code,
+    tag: r.tag,
+    bus: r.bus,
+    kind: r.kind?.name ?? '',
+    ...(r.toBus !== '' ? { to_bus: r.toBus } : {}),
+    values: r.u !== undefined ? { u_kv: r.u } : {},
+    loads: {},
+  };
+  siteRows.set(r, row);
+  return row;
+}
+
+const refOf = (code: number): RowRef => ({ sheet: Math.floor(code / ROW_SPAN), row: (code % ROW_SPAN) - 1 });
+
 /** The buses and what feeds them, computed by the site's own graph and voltage rules. */
 export function busesOf(sheets: readonly SheetStructure[]): {
   buses: BusInfo[];
   busIndex: Map<string, number>;
 } {
   const rows: EquipmentRow[] = [];
-  const where: RowRef[] = [];
   for (const s of sheets) {
     s.rows.forEach((r, i) => {
       // A row of no known kind still names its bus: it is summed there (as an error), not lost.
-      if (!r.present || r.bus === '') return;
-      where.push({ sheet: s.index, row: i + 1 });
-      rows.push({
-        row: rows.length + 2,
-        tag: r.tag,
-        bus: r.bus,
-        kind: r.kind?.name ?? '',
-        ...(r.toBus !== '' ? { to_bus: r.toBus } : {}),
-        values: r.u !== undefined ? { u_kv: r.u } : {},
-        loads: {},
-      });
+      if (r.present && r.bus !== '') rows.push(siteRow(r, s.index * ROW_SPAN + i + 2));
     });
   }
   const unified = unifyBusNames(rows).rows;
-  const ref = (row: EquipmentRow): RowRef => where[row.row - 2] as RowRef;
   const graph = buildBusGraph(unified);
   const voltages = busVoltages(unified).voltages;
   const names = [...graph.order, ...[...graph.firstRow.keys()].filter((b) => !graph.level.has(b))];
@@ -164,8 +178,8 @@ export function busesOf(sheets: readonly SheetStructure[]): {
       name,
       key: busKey(name),
       level: graph.level.get(name),
-      ...(feeder ? { feeder: ref(feeder), upstream: feeder.bus } : {}),
-      ...(v ? { voltage: ref(unified[v.row - 2] as EquipmentRow) } : {}),
+      ...(feeder ? { feeder: refOf(feeder.row), upstream: feeder.bus } : {}),
+      ...(v ? { voltage: refOf(v.row) } : {}),
       ...(soleMotorOf(name, graph) ? { soleMotor: true as const } : {}),
     };
   });
