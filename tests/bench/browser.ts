@@ -72,7 +72,7 @@ export async function measureBrowser(
   const js = initialJsSize(outDir);
   const base = { rows, initialJsBytes: js.bytes, initialJsGzipBytes: js.gzipBytes };
   const { url, server } = await serveStatic(outDir);
-  const profile = join(workDir, 'chromium-profile');
+  const profile = join(workDir, `chromium-profile-${rows}`);
   mkdirSync(profile, { recursive: true });
   const { chromium } = await import('playwright-core');
   const context = await chromium.launchPersistentContext(profile, {

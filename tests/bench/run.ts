@@ -102,6 +102,7 @@ async function runSize(
 }
 
 const BROWSER_BUDGET_S = 300;
+const SMALL_PAGE_ROWS = 1_000;
 
 /** The page part under a budget: a wait that never ends is reported, not waited for (main exits the process). */
 function withBudget(p: Promise<BrowserResult>, seconds: number): Promise<BrowserResult> {
@@ -150,22 +151,33 @@ async function main(): Promise<void> {
       if (s.result.status === 'ok' && s.result.ms !== undefined) peer = { peer: p, startup: s.result };
     }
     for (const size of opts.sizes) await runSize(size, workDir, peer, opts.cli, steps, memory);
-    const liveTarget = workFiles(workDir, TARGET_ROWS).live;
-    const browser = !opts.browser
-      ? { status: 'not run' as const, note: '--no-browser' }
-      : existsSync(liveTarget)
-        ? await withBudget(measureBrowser(workDir, liveTarget, TARGET_ROWS), BROWSER_BUDGET_S)
-        : {
-            status: 'not run' as const,
-            note: `the ${TARGET_ROWS.toLocaleString('en-GB')}-row workbook was not built in this run`,
-          };
-    say(`page: ${browser.status}${browser.note ? ` — ${browser.note}` : ''}`);
+    const pageAt = async (rows: number): Promise<BrowserResult> => {
+      const live = workFiles(workDir, rows).live;
+      const result: BrowserResult = !opts.browser
+        ? { status: 'not run', note: '--no-browser' }
+        : existsSync(live)
+          ? await withBudget(measureBrowser(workDir, live, rows), BROWSER_BUDGET_S)
+          : {
+              status: 'not run',
+              note: `the ${rows.toLocaleString('en-GB')}-row workbook was not built in this run`,
+            };
+      say(
+        `page, ${rows.toLocaleString('en-GB')} rows: ${result.status}${result.note ? ` — ${result.note}` : ''}`,
+      );
+      return result;
+    };
+    // The page at the small size too: what an edit costs on a site most estimators open.
+    const browserSmall = opts.sizes.some((s) => s.rows === SMALL_PAGE_ROWS)
+      ? await pageAt(SMALL_PAGE_ROWS)
+      : undefined;
+    const browser = await pageAt(TARGET_ROWS);
     const results: BenchResults = {
       machine,
       sizes: opts.sizes.map(({ rows, buses }) => ({ rows, buses })),
       steps,
       memory,
       browser,
+      ...(browserSmall ? { browserSmall } : {}),
       wallSeconds: (performance.now() - t0) / 1_000,
     };
     mkdirSync(opts.outDir, { recursive: true });
