@@ -29,6 +29,7 @@ import { HEADERS } from '../../core/workbook/layout.ts';
 import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
+import { tariffRenameWrites } from './tariffRename.ts';
 import { sortedOrder } from './rowOrder.ts';
 import type { TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
@@ -227,8 +228,10 @@ export class WorkbookSession {
     const edit = siteEdit(this.site, this.contents, sheetId, cells);
     let entries = this.write(edit.writes);
     const follow = edit.follow();
-    if (follow.rebuild) entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
-    else entries += this.write(follow.writes, true);
+    if (follow.rebuild) {
+      entries += this.write(this.tariffRenames(follow.rebuild.caseRenames));
+      entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
+    } else entries += this.write(follow.writes, true);
     this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
     return { entries, structural: follow.structural };
   }
@@ -546,6 +549,13 @@ export class WorkbookSession {
       };
     });
     return { format: 'kvar-ledger-workbook', version: this.site ? 2 : 1, title: this.titleText, sheets };
+  }
+
+  /** The Tariff sheet's hours rows of renamed cases, renamed with them (tariffRename.ts). */
+  private tariffRenames(renames: ReadonlyMap<string, string>): Write[] {
+    if (renames.size === 0) return [];
+    const id = this.sheetIds().find((i) => this.sheetName(i).toLowerCase() === TARIFF_SHEET.toLowerCase());
+    return id === undefined ? [] : tariffRenameWrites(id, this.contents.get(id), renames);
   }
 
   /** Every built-in sheet written anew from the inputs (the cases or the Site layout changed). */

@@ -205,6 +205,32 @@ describe('cases follow the Site sheet', () => {
   });
 });
 
+describe('a renamed case keeps its hours per year on the Tariff sheet', () => {
+  it('renames the Tariff row with the case, the saving counts the same hours, and undo renames it back', () => {
+    const s = open();
+    const tariff = id(s, 'Tariff');
+    const settings = () => s.sheetContents(tariff).map((r) => r[0]);
+    const nightRow = settings().indexOf('Hours per year: night');
+    expect(nightRow).toBeGreaterThan(0);
+    s.setCells(tariff, [{ row: nightRow, col: 1, content: 1234 }]);
+    s.setCells(id(s, 'Site'), [{ row: FIRST_CASE_ROW + 1, col: 1, content: 'evening' }]);
+    expect(settings()[nightRow]).toBe('Hours per year: evening');
+    expect(s.sheetContents(tariff)[nightRow]?.[1]).toBe(1234);
+    // The Quantities and cost sheet reads the hours by the case's name: the renamed case finds them.
+    const q = id(s, 'Quantities and cost');
+    const hoursCell = s
+      .sheetContents(q)
+      .findIndex(
+        (r, i) =>
+          r[0] === 'evening' && typeof s.engine.getCellValue({ sheet: q, row: i, col: 3 }) === 'number',
+      );
+    expect(hoursCell).toBeGreaterThan(0);
+    expect(s.engine.getCellValue({ sheet: q, row: hoursCell, col: 3 })).toBe(1234);
+    s.undo();
+    expect(settings()[nightRow]).toBe('Hours per year: night');
+  });
+});
+
 describe('a value typed over a formula', () => {
   it('is kept, counts in the totals, is marked, and clearing it brings the formula back', () => {
     const s = open();
