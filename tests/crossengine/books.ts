@@ -6,7 +6,7 @@
 import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import ExcelJS from 'exceljs';
-import type { SiteSettings } from '../../src/core/site/model.ts';
+import type { Site, SiteSettings } from '../../src/core/site/model.ts';
 import { proposeChoices } from '../../src/core/site/compensation.ts';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../src/core/workbook/build.ts';
@@ -42,6 +42,7 @@ export const BOOK_NAMES = [
   'solar-collector',
   'invented-quarry',
   'invented-quarry-fault',
+  'invented-quarry-lagging',
   'hand-made',
   'edited-1',
   'edited-2',
@@ -78,6 +79,17 @@ export async function writeBooks(
     base: 'invented-quarry-fault',
     doc: buildWorkbook(faulty, { flavour: 'portable' }),
     settings: faulty.settings,
+  });
+  // A tariff that bills drawn kvar alone: cos φ ≥ 0.95 lagging, leading not limited (the Site
+  // sheet's lagging-only branch and the Compensation sheet's checks under it).
+  const lagging: Site = {
+    ...quarry,
+    settings: { ...quarry.settings, requirement: { kind: 'cosphi', target: 0.95, lagOnly: true } },
+  };
+  books.push({
+    base: 'invented-quarry-lagging',
+    doc: buildWorkbook(lagging, { flavour: 'portable', banks: proposeChoices(lagging) }),
+    settings: lagging.settings,
   });
   books.push({ base: 'hand-made', doc: sampleDoc() });
   // Workbooks edited through the page's own model (random sites and edits, fixed seeds), as the

@@ -71,6 +71,17 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(at('Simple payback (years)')).toBeCloseTo(at('Total') / at('Annual saving'), 6);
   });
 
+  it('covers a lagging-only requirement: the Site sheet says so and the within-requirement cells agree', () => {
+    // Every formula cell was compared above; this says one book ran the lagging-only branch.
+    const site = sheetCsv(outDir, 'invented-quarry-lagging', 'Site');
+    expect(site.some((r) => r.includes('cos φ lagging only'))).toBe(true);
+    const comp = sheetCsv(outDir, 'invented-quarry-lagging', 'Compensation');
+    const header = comp[0] ?? [];
+    const within = header.flatMap((h, c) => (h.startsWith('Within requirement') ? [c] : []));
+    expect(within.length).toBeGreaterThan(0);
+    expect(comp.slice(1).some((r) => within.some((c) => r[c] === 'yes' || r[c] === 'no'))).toBe(true);
+  });
+
   it('shows no unknown-name error anywhere', () => {
     for (const f of csvFiles(outDir)) {
       if (f.includes('_kvar_ledger') || f.includes('Functions used')) continue;
