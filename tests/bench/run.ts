@@ -9,7 +9,7 @@ import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
 import { SHEETS } from '../../src/core/workbook/layout.ts';
 import { measureBrowser } from './browser.ts';
 import { notRun, runPhaseInChild } from './child.ts';
-import { measureCliBalance, measureCliExport, measureCliStart } from './cliProcess.ts';
+import { compileCli, measureCliBalance, measureCliExport, measureCliStart } from './cliProcess.ts';
 import { describeMachine } from './machine.ts';
 import { makePeer, measurePeer, measureStartup, soffice, type Peer } from './peer.ts';
 import { workFiles, type PhaseName } from './phases.ts';
@@ -132,6 +132,7 @@ async function main(): Promise<void> {
   let peer: { peer: Peer; startup: StepResult } | undefined;
   try {
     if (opts.cli) {
+      compileCli();
       const r = measureCliStart(0);
       show(r);
       steps.push(r);
