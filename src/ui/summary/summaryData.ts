@@ -17,6 +17,7 @@ import {
   summaryRowOf,
 } from '../../core/workbook/quantitiesLayout.ts';
 import { SETTING_ROWS, VALUE_COL } from '../../core/workbook/settingsLayout.ts';
+import { formatNumber } from '../format/numberFormat.ts';
 import { casesOf, cellError, readChartData, type BusBar, type Grid } from '../charts/chartData.ts';
 
 /** A cell as the summary shows it: a number, a text (including an error's code and message), or nothing. */
@@ -59,8 +60,17 @@ export interface Money {
   readonly payback: Figure;
 }
 
+export interface Requirement {
+  /** The Site sheet's requirement text (cos φ, cos φ lagging only, tan φ). */
+  readonly kind: Figure;
+  readonly cosTarget: Figure;
+  readonly tanLag: Figure;
+  readonly tanLead: Figure;
+}
+
 export interface SummaryData {
   readonly site: string;
+  readonly requirement: Requirement;
   readonly connection: string | undefined;
   readonly cases: readonly CaseAtConnection[];
   /** Buses whose Compensation row holds a bank or a reactor. */
@@ -190,6 +200,12 @@ function money(q: Grid | undefined, caseCount: number): Money | undefined {
   };
 }
 
+/** A figure as text: a number in the format given, a text as it is, a blank as a dash. */
+export function shown(f: Figure, format: string): string {
+  if (f === undefined) return '—';
+  return typeof f === 'number' ? formatNumber(f, format) : f;
+}
+
 const mentionsInvented = (grid: Grid | undefined) =>
   (grid ?? []).some((r) => r.some((v) => typeof v === 'string' && v.includes('INVENTED')));
 
@@ -198,15 +214,22 @@ export function readSummary(values: SheetValues): SummaryData {
   const buses = values(SHEETS.buses);
   const comp = values(SHEETS.compensation);
   const cases = connectionCases(buses, comp);
-  const name = figure(site?.[SETTING_ROWS.name]?.[VALUE_COL]);
+  const setting = (key: keyof typeof SETTING_ROWS) => figure(site?.[SETTING_ROWS[key]]?.[VALUE_COL]);
+  const name = setting('name');
   const root = buses?.[1]?.[0];
   return {
     site: typeof name === 'string' ? name : '',
+    requirement: {
+      kind: setting('requirement'),
+      cosTarget: setting('cosTarget'),
+      tanLag: setting('lagInUse'),
+      tanLead: setting('leadInUse'),
+    },
     connection: typeof root === 'string' && root.trim() !== '' ? root : undefined,
     cases,
     banks: bankLines(comp),
     money: money(values(SHEETS.quantities), cases.length),
-    bars: readChartData(buses, comp).bars,
+    bars: new Map([...readChartData(buses, comp).bars].filter(([c]) => cases.some((k) => k.name === c))),
     demoValues: mentionsInvented(values(RATES_SHEET)) || mentionsInvented(values(TARIFF_SHEET)),
   };
 }
