@@ -16,10 +16,13 @@ import {
 } from './books.ts';
 import { convertToCsv, csvFiles, makeRecalcProfile, sheetCsv } from './libreoffice.ts';
 import { QC, QUANTITIES_SHEET } from '../../src/core/workbook/quantitiesLayout.ts';
+import { COVER_SHEET_NAME } from '../../src/io/xlsx/export.ts';
+import { EDITED_COVER_BASE, writeEditedCover, type CoverCheck } from './coverBook.ts';
 
 let books: Book[] = [];
 let outDir = '';
 let planted: Planted | undefined;
+let coverChecks: CoverCheck[] = [];
 
 beforeAll(async () => {
   const work = mkdtempSync(join(tmpdir(), 'kvar-crossengine-'));
@@ -27,7 +30,11 @@ beforeAll(async () => {
   books = written.books;
   planted = written.planted;
   outDir = join(work, 'csv');
-  convertToCsv(makeRecalcProfile(join(work, 'profile')), written.files, outDir);
+  const cold = books.find((b) => b.base === 'cold-store');
+  if (!cold) throw new Error('no cold-store book');
+  const cover = await writeEditedCover(work, cold);
+  coverChecks = cover.checks;
+  convertToCsv(makeRecalcProfile(join(work, 'profile')), [...written.files, cover.file], outDir);
 }, 300_000);
 
 describe('LibreOffice Calc recalculating our exports', () => {
@@ -88,5 +95,41 @@ describe('LibreOffice Calc recalculating our exports', () => {
       const text = readFileSync(join(outDir, f), 'utf8');
       expect({ f, name: text.includes('#NAME?') }).toEqual({ f, name: false });
     }
+  });
+
+  it('gives the cover’s figures the values of the sheets they refer to, and follows an edit', () => {
+    expect(coverChecks.map((c) => c.figure.label)).toEqual(
+      expect.arrayContaining([
+        'cos φ before at MV-11, summer-day',
+        'cos φ after at MV-11, winter-night',
+        'Equipment cost total with surcharges',
+        'Annual saving',
+        'Simple payback (years)',
+      ]),
+    );
+    const coverValue = (base: string, label: string) =>
+      sheetCsv(outDir, base, COVER_SHEET_NAME).find((r) => r[0] === label)?.[1] ?? '(no such row)';
+    const sheetValue = (base: string, c: CoverCheck) =>
+      sheetCsv(outDir, base, c.figure.sheet)[c.figure.row]?.[c.figure.col] ?? '';
+    for (const c of coverChecks) {
+      // As exported: the cover equals the app's value and LibreOffice's own sheet cell.
+      expect(
+        sameValue(c.before, coverValue('cold-store', c.figure.label), 'LibreOffice').ok,
+        c.figure.label,
+      ).toBe(true);
+      expect(coverValue('cold-store', c.figure.label)).toBe(sheetValue('cold-store', c));
+      // After 6 → 3 steps typed in the file: the cover equals the app's value for the edited workbook.
+      const lo = coverValue(EDITED_COVER_BASE, c.figure.label);
+      expect(sameValue(c.after, lo, 'LibreOffice'), c.figure.label).toEqual({
+        ok: true,
+        why: expect.any(String),
+      });
+      expect(lo).toBe(sheetValue(EDITED_COVER_BASE, c));
+    }
+    // The edit moved what it should: less kvar installed gives a smaller total and a lower cos φ after.
+    const moved = coverChecks.filter((c) => c.before.ok && c.after.ok && c.before.value !== c.after.value);
+    expect(moved.map((c) => c.figure.label)).toEqual(
+      expect.arrayContaining(['Equipment cost total with surcharges', 'cos φ after at MV-11, summer-day']),
+    );
   });
 });

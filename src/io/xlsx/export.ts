@@ -9,7 +9,8 @@ import { columnLetters } from '../../core/workbook/refs.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { createEngine, readCell, type CellResult, type OwnPlugin } from '../../engine/index.ts';
-import { coverRows, functionRows, FUNCTION_HEADER } from './exportCover.ts';
+import { coverRows, functionRows, FUNCTION_HEADER, type CoverFigureRow } from './exportCover.ts';
+import { coverFigures } from './coverFigures.ts';
 import {
   exportSheetCells,
   fileError,
@@ -203,9 +204,21 @@ export async function exportWorkbookXlsxWithReport(
   opts: XlsxExportOptions = {},
 ): Promise<XlsxExportReport> {
   checkNames(doc);
-  const converted = withValues(doc, opts, (valueAt) =>
-    doc.sheets.map((s) => exportSheetCells((r, c) => valueAt(s.name, r, c) ?? BLANK, s)),
-  );
+  const figures = coverFigures(doc);
+  let figureRows: CoverFigureRow[] = [];
+  const converted = withValues(doc, opts, (valueAt) => {
+    // The cover's figures cache the value of the cell they refer to, as the sheets do.
+    figureRows = figures.map((f) => {
+      const v = valueAt(f.sheet, f.row, f.col) ?? BLANK;
+      return {
+        label: f.label,
+        formula: f.formula,
+        format: f.format,
+        result: v.ok ? v.value : { error: fileError(v.error) },
+      };
+    });
+    return doc.sheets.map((s) => exportSheetCells((r, c) => valueAt(s.name, r, c) ?? BLANK, s));
+  });
   const issues = converted.flatMap((c) => c.issues);
   if (opts.strict && issues.length > 0) {
     throw new XlsxExportError(
@@ -260,6 +273,7 @@ export async function exportWorkbookXlsxWithReport(
       generator: opts.generator ?? DEFAULT_GENERATOR,
       notes,
       functionsSheet: functionsName,
+      figures: figureRows,
       ...(settings ? { settings } : {}),
     }),
   );

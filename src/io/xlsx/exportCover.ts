@@ -36,10 +36,22 @@ export interface CoverInput {
   /** Export notes: cells written as values, functions needing a newer program. */
   readonly notes: readonly string[];
   readonly functionsSheet: string;
+  /** Figures at a glance, as formulas referring to the exported sheets, with their cached values. */
+  readonly figures?: readonly CoverFigureRow[];
 }
 
-/** [] is a blank line; [label] a heading; [label, text] an entry. */
-export type CoverRow = readonly [] | readonly [string] | readonly [string, string];
+/** A figure of the cover: a formula (no leading '=') with its cached value and number format. */
+export interface CoverFigureRow {
+  readonly label: string;
+  readonly formula: string;
+  readonly result: number | string | boolean | null | { readonly error: string };
+  readonly format: string;
+}
+
+/** [] is a blank line; [label] a heading; [label, text] an entry; a figure is a live formula. */
+export type CoverRow = readonly [] | readonly [string] | readonly [string, string] | CoverFigureRow;
+
+export const FIGURES_HEADING = 'At a glance (formulas on the sheets of this file)';
 
 function requirementText(s: SiteSettings): string {
   const r = s.requirement;
@@ -67,6 +79,7 @@ export function coverRows(input: CoverInput): CoverRow[] {
     if (s.sscMva !== undefined) rows.push(['Supply short-circuit power', `${formatNumber(s.sscMva)} MVA`]);
   }
   rows.push(['Exported', isoDate(input.date)], ['Made by', input.generator], []);
+  if (input.figures && input.figures.length > 0) rows.push([FIGURES_HEADING], ...input.figures, []);
   rows.push(['Sheets']);
   for (const sh of input.doc.sheets) rows.push([sh.name, sh.purpose ?? '']);
   rows.push(

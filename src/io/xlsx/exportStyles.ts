@@ -1,8 +1,8 @@
 // How the exported sheets look: a frozen, tinted header row (inputs and computed columns tinted
 // apart), number formats and widths from the workbook's column info, a readable cover.
-import type { Worksheet } from 'exceljs';
+import type { CellFormulaValue, Worksheet } from 'exceljs';
 import type { SheetDoc } from '../../core/workbook/document.ts';
-import type { CoverRow } from './exportCover.ts';
+import type { CoverFigureRow, CoverRow } from './exportCover.ts';
 import { xmlSafe } from './exportCells.ts';
 import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
 
@@ -52,7 +52,17 @@ export function styleCover(ws: Worksheet, rows: readonly CoverRow[]): void {
   ws.getColumn(1).width = 30;
   ws.getColumn(2).width = 110;
   rows.forEach((r, i) => {
-    const row = ws.addRow(r.map(xmlSafe));
+    if (!Array.isArray(r)) {
+      const f = r as CoverFigureRow;
+      const row = ws.addRow([xmlSafe(f.label)]);
+      const cell = row.getCell(2);
+      cell.value = { formula: f.formula, result: f.result ?? '' } as CellFormulaValue;
+      cell.numFmt = f.format;
+      cell.alignment = { horizontal: 'left', vertical: 'top' };
+      row.getCell(1).alignment = { vertical: 'top' };
+      return;
+    }
+    const row = ws.addRow((r as readonly string[]).map(xmlSafe));
     const heading = r.length === 1 && r[0] !== undefined;
     if (i === 0) row.getCell(1).font = { bold: true, size: 14, color: { argb: INK } };
     else if (heading) row.getCell(1).font = { bold: true, color: { argb: INK } };

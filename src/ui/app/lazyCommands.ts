@@ -3,6 +3,7 @@
 import type { StatusBar } from '../statusBar.ts';
 import type { FileHost } from './fileActions.ts';
 import type { CopyHost } from './copies.ts';
+import type { SummarySource } from '../summary/summaryPage.ts';
 
 export type { CopyHost } from './copies.ts';
 
@@ -27,6 +28,17 @@ export function fileCommand<H extends FileHost>(
 export function bringBackCopyCommand(app: CopyHost): () => void {
   return () =>
     void import('./copies.ts').then((m) => m.bringBackCopy(app)).catch((e: unknown) => failed(app, e));
+}
+
+/** The one-page summary to print, over the page. */
+export function summaryCommand(app: {
+  readonly session: SummarySource;
+  readonly status: Pick<StatusBar, 'show'>;
+}): () => void {
+  return () =>
+    void import('../summary/summaryPage.ts')
+      .then((m) => m.openSummary(app.session))
+      .catch((e: unknown) => failed(app, e));
 }
 
 export function showAbout(catalogueSize: number): void {

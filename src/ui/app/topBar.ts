@@ -8,7 +8,13 @@ import type { ChartsPanel } from '../charts/chartsPanel.ts';
 import type { ChecksPanel } from '../panels/checksPanel.ts';
 import type { FileHost } from './fileActions.ts';
 import type { PanelName, SidePanel } from './sidePanel.ts';
-import { bringBackCopyCommand, fileCommand, showAbout, type CopyHost } from './lazyCommands.ts';
+import {
+  bringBackCopyCommand,
+  fileCommand,
+  showAbout,
+  summaryCommand,
+  type CopyHost,
+} from './lazyCommands.ts';
 import { openGoTo, stepSheet, type NavigationHost } from './navigation.ts';
 
 /** What the top bar needs of the page (the app passes itself). */
@@ -16,7 +22,7 @@ export interface TopBarHost
   extends FileHost, Omit<CopyHost, 'replaceWith'>, Omit<NavigationHost, 'session' | 'grid'> {
   readonly session: FileHost['session'] &
     NavigationHost['session'] &
-    Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo' | 'fillTypicalValues'>;
+    Pick<WorkbookSession, 'setTitle' | 'canUndo' | 'canRedo' | 'fillTypicalValues' | 'engine'>;
   readonly grid: CommandHost &
     NavigationHost['grid'] & { focus(): void; focusAfterClick(e: MouseEvent): void };
   readonly side: Pick<SidePanel, 'toggle' | 'onToggle' | 'shown'>;
@@ -107,6 +113,12 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
         hint: '.xlsx',
         run: fileCommand(app, (m) => m.exportXlsx(app)),
         testId: 'menu-export',
+      },
+      {
+        label: 'Summary page to print…',
+        hint: 'A4 / Letter',
+        run: summaryCommand(app),
+        testId: 'menu-summary',
       },
     ],
     'menu-workbook',
