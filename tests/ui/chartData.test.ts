@@ -41,6 +41,17 @@ describe('chart data', () => {
   it('finds the cases from the bus sheet headers, not the own-items columns', () => {
     expect(casesOf(buses)).toEqual(['day', 'night']);
   });
+  it('does not take the after-compensation columns for cases, even for a case called "after hours"', () => {
+    // As the Buses sheet heads them: each case, then each case after compensation, then own items.
+    const cases = ['day', 'after hours'];
+    const header = [
+      'Bus',
+      ...cases.map((c) => `Q absorbed ${c} (kvar)`),
+      ...cases.map((c) => `Q absorbed after ${c} (kvar)`),
+      ...cases.map((c) => `Q absorbed own items ${c} (kvar)`),
+    ];
+    expect(casesOf([header])).toEqual(cases);
+  });
   it('reads absorbed and delivered as magnitudes and the net with its sign', () => {
     const d = readChartData(buses, compensation);
     expect(d.bars.get('night')).toEqual([

@@ -67,14 +67,18 @@ function headerIndex(rows: Grid | undefined): Map<string, number> {
   return m;
 }
 
-/** Case names from the 'Q absorbed <case> (kvar)' headers of the Buses sheet, in sheet order. */
+/**
+ * Case names from the 'Q absorbed <case> (kvar)' headers of the Buses sheet, in sheet order. The
+ * sheet also has 'Q absorbed after <case> (kvar)' for each case: a name is that column when
+ * "after " + a case found too (a case may itself be called "after hours").
+ */
 export function casesOf(buses: Grid | undefined): string[] {
-  const out: string[] = [];
+  const all: string[] = [];
   for (const h of buses?.[0] ?? []) {
     const m = typeof h === 'string' ? /^Q absorbed (.+) \(kvar\)$/.exec(h.trim()) : null;
-    if (m && !/^own items /.test(m[1] as string)) out.push(m[1] as string);
+    if (m && !/^own items /.test(m[1] as string)) all.push(m[1] as string);
   }
-  return out;
+  return all.filter((c) => !(c.startsWith('after ') && all.includes(c.slice('after '.length))));
 }
 
 export function readChartData(buses: Grid | undefined, compensation: Grid | undefined): ChartData {
