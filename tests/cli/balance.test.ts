@@ -203,6 +203,31 @@ describe('kvar-ledger balance', () => {
     expect(j.case).toBe('winter-night');
     expectHandTotals(j.buses, 'winter-night');
   });
+  it("counts a line's I²R loss when R is given and says so on the row when it is blank", async () => {
+    // 5 km of 20 kV line with 0.12 Ω/km (a typical 240 mm² aluminium overhead conductor, from
+    // memory) feeding 6 400 kW at cos φ 0.8 (8 MVA): I = S/(√3·U) = 230.9 A, 3·I²·R·len = 96 kW.
+    const head = 'tag,bus,kind,to_bus,u_kv,r_ohm_km,l_mh_km,c_nf_km,len_km,p_kw,cos_phi';
+    const write = (name: string, r: string) => {
+      const csv = join(tmp, name);
+      writeFileSync(csv, `${head}\nL1,MV,line,B2,20,${r},1.2,10,5,,\nX1,B2,load,,20,,,,,6400,0.8\n`);
+      return csv;
+    };
+    const amps = 8000 / (Math.sqrt(3) * 20);
+    const given = JSON.parse(
+      (await balance(write('line-r.csv', '0.12'), '--json', '--ssc-mva', '250')).out,
+    ) as {
+      root: { p_kw: number };
+      warnings: { column: string | null }[];
+    };
+    expect(given.root.p_kw).toBeCloseTo(6400 + (3 * amps ** 2 * 0.12 * 5) / 1000, 9);
+    expect(given.warnings.filter((w) => w.column === 'r_ohm_km')).toEqual([]);
+    const blank = await balance(write('line-blank.csv', ''), '--ssc-mva', '250');
+    expect(blank.code).toBe(0);
+    // A list names the column by its letter too: F is r_ohm_km in this header.
+    expect(blank.out).toContain(
+      'warning row 2, column F (r_ohm_km): r_ohm_km is blank, so the kW losses of line L1 (3·I²·R) are not counted before or after compensation',
+    );
+  });
 });
 
 describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {

@@ -89,6 +89,29 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(comp.slice(1).some((r) => within.some((c) => r[c] === 'yes' || r[c] === 'no'))).toBe(true);
   });
 
+  it("counts a line's I²R loss: LibreOffice's P loss is 3·I²·R·len at its own S carried (hand formula, I = S/(√3·U))", () => {
+    let lines = 0;
+    for (const [base, kase] of [
+      ['invented-quarry', 'crushing'],
+      ['solar-collector', 'noon'],
+    ] as const) {
+      const [head, ...rows] = sheetCsv(outDir, base, 'Lines');
+      const col = (h: string) => head?.indexOf(h) ?? -1;
+      for (const r of rows.filter((x) => x[col('Tag')])) {
+        const v = (h: string) => Number(r[col(h)]);
+        const [u, rKm, len] = [v('U (kV)'), v('R (Ω/km)'), v('Length (km)')];
+        const [s, after] = [v(`S carried ${kase} (kVA)`), v(`S carried after ${kase} (kVA)`)];
+        const amps = (x: number) => x / (Math.sqrt(3) * u);
+        const hand = (x: number) => (3 * amps(x) ** 2 * rKm * len) / 1000;
+        expect(hand(s)).toBeGreaterThan(0);
+        expect(v(`P loss ${kase} (kW)`)).toBeCloseTo(hand(s), 6);
+        expect(v(`P loss after ${kase} (kW)`)).toBeCloseTo(hand(after), 6);
+        lines += 1;
+      }
+    }
+    expect(lines).toBe(5);
+  });
+
   it('shows no unknown-name error anywhere', () => {
     for (const f of csvFiles(outDir)) {
       if (f.includes('_kvar_ledger') || f.includes('Functions used')) continue;

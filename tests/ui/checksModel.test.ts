@@ -41,6 +41,27 @@ describe('checks of a workbook', () => {
     expect(r.items.some((i) => i.code !== 'input')).toBe(false);
   });
 
+  it("a line's blank resistance is a warning at its Lines row and column: its kW losses are not counted", () => {
+    const doc = template('solar-collector');
+    const lines = doc.sheets.find((s) => s.name === 'Lines');
+    const header = (lines?.cells[0] ?? []) as unknown[];
+    const col = header.indexOf('R (Ω/km)');
+    expect(col).toBeGreaterThan(0);
+    expect(collectChecks(doc).items.filter((i) => i.target?.sheet === 'Lines')).toEqual([]);
+    (lines?.cells[1] as unknown[])[col] = null;
+    const r = collectChecks(doc);
+    const found = r.items.filter((i) => i.target?.sheet === 'Lines');
+    expect(found.map((i) => [i.severity, i.code, i.where])).toEqual([
+      ['warning', 'input', 'Lines row 2, column r_ohm_km'],
+    ]);
+    expect(found[0]?.text).toMatch(
+      /kW losses of line F-A \(3·I²·R\) are not counted before or after compensation/,
+    );
+    expect(found[0]?.target).toEqual({ sheet: 'Lines', row: 2, col });
+    // a warning only: the design's findings are still listed
+    expect(r.items.some((i) => i.code === 'charging-dominates')).toBe(true);
+  });
+
   it('a blank bus on any equipment sheet is listed, errors first, and the design findings wait for it', () => {
     const doc = template('solar-collector');
     // Blank the bus of the first item on any equipment sheet that has one (an input error),

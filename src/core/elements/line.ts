@@ -28,3 +28,13 @@ export function lineSurgeImpedance(lMhKm: number, cNfKm: number): number {
 export function lineSil(uKv: number, lMhKm: number, cNfKm: number): number {
   return (uKv * uKv) / lineSurgeImpedance(lMhKm, cNfKm);
 }
+
+/**
+ * Three-phase series (I²R) loss of a line carrying sLoadKva, kW: 3·I²·R·len with
+ * I = S/(√3·U). In these units S/U is kVA/kV, so (S/U)²·R·len is in W and /1000 gives kW:
+ * P = S²·R·len/(U²·1000).
+ */
+export function lineSeriesLossKw(uKv: number, sLoadKva: number, rOhmKm: number, lenKm: number): number {
+  const ratio = sLoadKva / uKv;
+  return (ratio * ratio * rOhmKm * lenKm) / 1000;
+}

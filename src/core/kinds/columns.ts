@@ -57,6 +57,13 @@ export const COLUMN_SPECS: readonly ColumnSpec[] = [
   number('len_km', 'Length (km)', 9, '0.00', 'Route length (km)'),
   number('l_mh_km', 'L (mH/km)', 9, '0.000', 'Line inductance per phase (mH/km)'),
   number('c_nf_km', 'C (nF/km)', 9, '0.0', 'Line capacitance per phase (nF/km)'),
+  number(
+    'r_ohm_km',
+    'R (Ω/km)',
+    9,
+    '0.0000',
+    "Line conductor resistance per phase (Ω/km); blank: the line's kW losses are not counted",
+  ),
   number('q_kvar', 'Rated output (kvar)', 10, '0.0', 'Capacitor or reactor nameplate (kvar)'),
   number('u_rated_kv', 'Rated voltage (kV)', 9, KV, 'Capacitor or reactor rated voltage (kV)'),
   number('p_pct', 'Detuning p (%)', 9, '0.00', 'Detuning reactor, % of the capacitor reactance'),

@@ -57,12 +57,13 @@ export const LINES_SHEET = defineSheet({
   id: 'lines',
   name: 'Lines',
   purpose:
-    'Overhead lines: each carries the bus it feeds; series reactance absorbs kvar with the load, charging delivers kvar (KVAR.LINE).',
+    'Overhead lines: each carries the bus it feeds; series resistance loses kW with the load (KW.LINE.LOSS, when R is given), series reactance absorbs kvar with the load, charging delivers kvar (KVAR.LINE).',
   inputs: [
     ...common,
     input('to_bus'),
     ...units,
     input('u_kv'),
+    input('r_ohm_km'),
     input('l_mh_km'),
     input('c_nf_km'),
     input('len_km'),

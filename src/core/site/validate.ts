@@ -10,6 +10,7 @@ import { error, info, say, warning, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
 import { magnitudeProblems, siteSizeProblems } from './limits.ts';
 import { plausibilityProblems } from './plausibility.ts';
+import { lineResistanceProblems } from './lineResistance.ts';
 import { formatNumber } from '../registry/messages.ts';
 import { unstorableCharacter } from '../text/storable.ts';
 
@@ -125,6 +126,7 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
       );
   }
   append(out, plausibilityProblems(row, at));
+  append(out, lineResistanceProblems(row, at));
   out.push(...physicsProblems(row, kind, site, at));
   return out;
 }

@@ -25,6 +25,7 @@ const BY_UNIT: Partial<Record<Dimension, string>> = {
   length: 'len_km',
   capacitance: 'c_uf_km',
   inductance: 'l_mh_km',
+  resistance: 'r_ohm_km',
 };
 
 /** Single letters are units only at the end of a longer header or in brackets ("Voltage V", "(m)"). */

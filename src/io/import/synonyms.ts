@@ -256,6 +256,15 @@ export const HEADER_SYNONYMS: Readonly<Record<string, readonly string[]>> = {
   len_km: ['len', 'length', 'route length', 'cable length', 'line length', 'distance', 'run length'],
   l_mh_km: ['l', 'inductance', 'line inductance', 'l per km', 'inductance per km'],
   c_nf_km: ['line capacitance', 'line c', 'overhead line capacitance'],
+  r_ohm_km: [
+    'r',
+    'resistance',
+    'line resistance',
+    'conductor resistance',
+    'ac resistance',
+    'r per km',
+    'resistance per km',
+  ],
   q_kvar: [
     'q',
     'reactive power',

@@ -1,5 +1,5 @@
 // Units an imported column may be written in, and the factor that brings them to the unit of the
-// interchange column they feed (kW, kvar, kVA, kV, km, µF/km, nF/km, mH/km, fraction, %).
+// interchange column they feed (kW, kvar, kVA, kV, km, µF/km, nF/km, mH/km, Ω/km, fraction, %).
 import { entryOf } from '../../core/text/nameTable.ts';
 import { CASE_PREFIX } from '../../core/site/parse.ts';
 
@@ -11,6 +11,7 @@ export type Dimension =
   | 'length'
   | 'capacitance'
   | 'inductance'
+  | 'resistance'
   | 'fraction'
   | 'percent'
   | 'count'
@@ -60,6 +61,13 @@ const UNITS: Readonly<
     ['mH/km', 1],
     ['H/km', 1e3],
   ],
+  // Resistance per length: mΩ/m is the same as Ω/km.
+  resistance: [
+    ['mΩ/km', 1e-3],
+    ['Ω/km', 1],
+    ['mΩ/m', 1],
+    ['Ω/m', 1e3],
+  ],
   fraction: [
     ['', 1],
     ['%', 1e-2],
@@ -107,6 +115,16 @@ const SPELLINGS: Readonly<Record<string, string>> = {
   'mh/km': 'mH/km',
   mh: 'mH/km',
   'h/km': 'H/km',
+  // 'Ω'.toLowerCase() is 'ω'; the ohm sign (U+2126) lower-cases to the same letter.
+  'ω/km': 'Ω/km',
+  'ohm/km': 'Ω/km',
+  'ohms/km': 'Ω/km',
+  'mω/km': 'mΩ/km',
+  'mohm/km': 'mΩ/km',
+  'mω/m': 'mΩ/m',
+  'mohm/m': 'mΩ/m',
+  'ω/m': 'Ω/m',
+  'ohm/m': 'Ω/m',
   '%': '%',
   pct: '%',
   percent: '%',
@@ -142,6 +160,7 @@ const TARGET_UNIT: Readonly<Record<string, readonly [Dimension, string]>> = {
   c_uf_km: ['capacitance', 'µF/km'],
   c_nf_km: ['capacitance', 'nF/km'],
   l_mh_km: ['inductance', 'mH/km'],
+  r_ohm_km: ['resistance', 'Ω/km'],
 };
 
 export function dimensionOf(target: string): Dimension {

@@ -122,6 +122,25 @@ export function lineNetKvarByPhasors(
   return series.add(shunt).im;
 }
 
+/**
+ * Series loss of a line (kW) from the phase current as a phasor at power factor `cosPhi`: the
+ * voltage across the conductor's resistance times the current, summed over three phases. The
+ * loss must not depend on cos φ, only on the apparent power.
+ */
+export function lineLossByPhasors(
+  uKv: number,
+  sKva: number,
+  rOhmKm: number,
+  lenKm: number,
+  cosPhi = 0.85,
+): number {
+  const uPhase = (uKv * 1000) / Math.sqrt(3);
+  const sPhase = new Complex(cosPhi, Math.sqrt(1 - cosPhi * cosPhi)).mul((sKva * 1000) / 3); // VA
+  const current = sPhase.div(uPhase).conjugate(); // A
+  const drop = current.mul(rOhmKm * lenKm); // V across the resistance
+  return drop.mul(current.conjugate()).mul(3).re / 1000;
+}
+
 /** Surge impedance loading (MW): the through power at which the line's net Q is zero, by bisection. */
 export function silByBisection(uKv: number, lMhKm: number, cNfKm: number): number {
   return bisect((mw) => lineNetKvarByPhasors(uKv, mw * 1000, lMhKm, cNfKm, 1), 1e-3, 1e5);

@@ -8,6 +8,7 @@ import {
   cableChargingKvar,
   capacitorStepKvar,
   detunedCapacitorKv,
+  lineLossByPhasors,
   lineNetKvarByPhasors,
   parallelResonanceOrder,
   qFromPowerFactor,
@@ -113,6 +114,8 @@ export const RECOMPUTED: ReadonlyMap<string, () => number> = new Map<string, () 
   ['CABLE.CAP(8, 20, 10)', () => cableCapacitance(8, 20, 10)],
   ['KVAR.LINE(400, 0, 1, 10, 1)', () => lineNetKvarByPhasors(400, 0, 1, 10, 1)],
   ['KVAR.LINE(220, 150000, 1.3, 8.8, 60)', () => lineNetKvarByPhasors(220, 150000, 1.3, 8.8, 60)],
+  ['KW.LINE.LOSS(20, 8000, 0.12, 5)', () => lineLossByPhasors(20, 8000, 0.12, 5)],
+  ['KW.LINE.LOSS(0.4, 250, 0.206, 0.12)', () => lineLossByPhasors(0.4, 250, 0.206, 0.12, 0.9)],
   ['LINE.SIL(400, 1, 10)', () => silByBisection(400, 1, 10)],
   // The L and C are Kundur's x and b at 60 Hz (Table 6.1, 230 kV, from memory) per km.
   ['LINE.SIL(230, 1.29445, 8.9417)', () => silByBisection(230, 1.29445, 8.9417)],

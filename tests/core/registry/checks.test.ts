@@ -15,7 +15,7 @@ describe('checkCatalogue', () => {
     expect(checkCatalogue(CATALOGUE)).toEqual([]);
   });
 
-  it('holds the 28 catalogue functions, each once, in reference order', () => {
+  it('holds the 29 catalogue functions, each once, in reference order', () => {
     expect(CATALOGUE.map((f) => f.name)).toEqual([
       'KVA.TOTAL',
       'COSPHI',
@@ -34,6 +34,7 @@ describe('checkCatalogue', () => {
       'CABLE.CAP',
       'KVAR.LINE',
       'LINE.SIL',
+      'KW.LINE.LOSS',
       'KVAR.CAPBANK',
       'CAPBANK.UCAP',
       'CAPBANK.TUNE',

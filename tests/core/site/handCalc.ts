@@ -8,7 +8,7 @@
 //   transformer: losses P0 + Pk·(S/Sr)², magnetising √((i0/100·Sr)² − P0²),
 //     leakage √(uk² − ur²)/100·Sr·(S/Sr)², ur = 100·Pk/Sr (IEC 60076-1 quantities);
 //   cable charging ω·C·U² (U line-to-line), capacitor Qr·(U/Ur)²/(1 − p/100), reactor Qr·(U/Ur)²;
-//   line 3·I²·X − ω·C·U² with I = S/(√3·U).
+//   line 3·I²·R in kW and 3·I²·X − ω·C·U² in kvar with I = S/(√3·U).
 // Semantics as stated in src/core/site/cases.ts: per unit × running; load 0 = off;
 // capacitor/reactor load = share in service; transformers with n units share the load.
 
@@ -82,12 +82,13 @@ export function branchLosses(r: HandRow, sKva: number, hz: number): { p: number;
     const leak = (Math.sqrt(g('uk_pct') ** 2 - ur ** 2) / 100) * sr * ratio * ratio;
     return { p: units * (g('p0_kw') + g('pk_kw') * ratio * ratio), q: units * (mag + leak) };
   }
-  // Line: per circuit, series 3·I²·X minus charging ω·C·U².
+  // Line: per circuit, series 3·I²·R (none counted when R is blank) and 3·I²·X minus charging ω·C·U².
   const u = g('u_kv') * 1e3;
   const i = ((sKva / units) * 1e3) / (Math.sqrt(3) * u);
   const x = 2 * Math.PI * hz * g('l_mh_km') * 1e-3 * g('len_km');
+  const resistance = (n(r, 'r_ohm_km') ?? 0) * g('len_km');
   const charging = 2 * Math.PI * hz * g('c_nf_km') * 1e-9 * g('len_km') * u * u;
-  return { p: 0, q: (units * (3 * i * i * x - charging)) / 1e3 };
+  return { p: (units * 3 * i * i * resistance) / 1e3, q: (units * (3 * i * i * x - charging)) / 1e3 };
 }
 
 /** Totals of every bus (own items, fed buses and their feeders' losses), by recursion from the leaves. */

@@ -32,14 +32,17 @@ describe('capacitance per km', () => {
 
   it('a line typed in µF/km in the nF/km column is flagged, with the other reading', () => {
     const { found } = warningsOf(
-      'tag,bus,kind,to_bus,u_kv,l_mh_km,c_nf_km,len_km\nL1,A,line,B,20,1.2,0.011,5\nX,B,load,,20',
+      'tag,bus,kind,to_bus,u_kv,r_ohm_km,l_mh_km,c_nf_km,len_km\nL1,A,line,B,20,0.12,1.2,0.011,5\nX,B,load,,20',
     );
     expect(found.map((p) => p.column)).toEqual(['c_nf_km']);
     expect(found[0]?.message).toMatch(/typed in µF\/km\? 0\.011 µF\/km is 11 nF\/km/);
   });
 
   it('an overhead line of 1.2 mH/km and 10 nF/km raises nothing', () => {
-    const { found } = warningsOf('tag,bus,kind,to_bus,u_kv,l_mh_km,c_nf_km,len_km\nL1,A,line,B,20,1.2,10,5');
+    // 0.12 Ω/km: a typical 240 mm² aluminium overhead conductor (from memory).
+    const { found } = warningsOf(
+      'tag,bus,kind,to_bus,u_kv,r_ohm_km,l_mh_km,c_nf_km,len_km\nL1,A,line,B,20,0.12,1.2,10,5',
+    );
     expect(found).toEqual([]);
   });
 });

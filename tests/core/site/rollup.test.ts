@@ -23,7 +23,18 @@ const ROWS: HandRow[] = [
     u_kv: 0.4,
   },
   { tag: 'K1', bus: 'MV', kind: 'cable', u_kv: 11, c_uf_km: 0.31, len_km: 2.5 },
-  { tag: 'W1', bus: 'MV', kind: 'line', to_bus: 'FAR', u_kv: 11, l_mh_km: 1.1, c_nf_km: 9.5, len_km: 12 },
+  // 0.32 Ω/km: 95 mm² aluminium (IEC 60228 class 2 at 20 °C, from memory).
+  {
+    tag: 'W1',
+    bus: 'MV',
+    kind: 'line',
+    to_bus: 'FAR',
+    u_kv: 11,
+    r_ohm_km: 0.32,
+    l_mh_km: 1.1,
+    c_nf_km: 9.5,
+    len_km: 12,
+  },
   {
     tag: 'G1',
     bus: 'FAR',

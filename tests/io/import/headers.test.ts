@@ -26,6 +26,9 @@ describe('readHeader', () => {
     ['C (nF/km)', 'c_uf_km', 'nF/km'],
     ['Line capacitance nF/km', 'c_nf_km', 'nF/km'],
     ['Cable C µF/km', 'c_uf_km', 'µF/km'],
+    ['R (Ω/km)', 'r_ohm_km', 'Ω/km'],
+    ['Resistance ohm/km', 'r_ohm_km', 'ohm/km'],
+    ['Conductor resistance (mΩ/m)', 'r_ohm_km', 'mΩ/m'],
     ['Detuning %', 'p_pct', '%'],
     ['Load factor (night)', 'load:night', undefined],
     ['load:standby', 'load:standby', undefined],
@@ -56,6 +59,10 @@ describe('units', () => {
     expect(unitFor('eff', '%')?.factor).toBe(0.01);
     expect(unitFor('uk_pct', 'pu')?.factor).toBe(100);
     expect(unitFor('p_kw', 'kV')).toBeUndefined();
+    // resistance per length: mΩ/m = 1e-3 Ω / 1e-3 km = Ω/km; Ω/m = 1 000 Ω/km
+    expect(unitFor('r_ohm_km', 'mΩ/m')?.factor).toBe(1);
+    expect(unitFor('r_ohm_km', 'ohm/m')?.factor).toBe(1e3);
+    expect(unitFor('r_ohm_km', '\u2126/km')?.factor).toBe(1);
   });
 
   it('offers the target unit first', () => {

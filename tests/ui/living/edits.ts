@@ -1,6 +1,7 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
-// typed on the Compensation sheet (steps, detuning, capacitor rating), rates and tariff values
+// typed on the Compensation sheet (steps, detuning, capacitor rating), a line's resistance typed
+// or cleared, rates and tariff values
 // typed or cleared on the Rates and Tariff sheets, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
 import fc from 'fast-check';
@@ -22,6 +23,7 @@ export type Edit =
   | { op: 'clear'; sheet: number; row: number }
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number }
   | { op: 'design'; bus: number; p: number; urFactor: number | null }
+  | { op: 'resistance'; row: number; value: number | null }
   | { op: 'rate'; row: number; value: number | null }
   | { op: 'tariff'; row: number; value: number | null }
   | { op: 'rename'; bus: number; suffix: number }
@@ -94,6 +96,11 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     urFactor: fc.option(fc.constantFrom(1.05, 1.1, 1.2), { nil: null }),
   }),
   fc.record({
+    op: fc.constant('resistance' as const),
+    row: fc.nat(),
+    value: fc.option(num(0.01, 2), { nil: null, freq: 4 }),
+  }),
+  fc.record({
     op: fc.constant('rate' as const),
     row: fc.nat(),
     value: fc.option(num(0, 100), { nil: null, freq: 4 }),
@@ -151,6 +158,13 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       const c = e.field === 'load' ? (plans[e.sheet]?.loadDefault as number) : col(e.sheet, e.field);
       s.setCells(sheetId(e.sheet), [{ row, col: c, content: v }]);
       return `value ${e.field}=${v} at ${plans[e.sheet]?.sheet.name} row ${row + 1}`;
+    }
+    case 'resistance': {
+      const i = plans.findIndex((p) => p.sheet.id === 'lines');
+      const row = pickRow(i, e.row);
+      if (row === undefined) return 'resistance: no line';
+      s.setCells(sheetId(i), [{ row, col: col(i, 'r_ohm_km'), content: e.value }]);
+      return `resistance ${String(e.value)} on Lines row ${row + 1}`;
     }
     case 'moveBus': {
       const row = pickRow(e.sheet, e.row);

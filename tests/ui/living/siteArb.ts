@@ -142,8 +142,11 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
       tree.push({ name: `B${i}`, level: down ? up.level + 1 : up.level, parent, line: !down });
     }
     const uOf = (level: number) => LEVEL_KV[Math.min(LEVEL_KV.length - 1, level + (4 - p.levels))] as number;
-    const branches: RowSpec[] = tree.flatMap((b): RowSpec[] => {
+    const branches: RowSpec[] = tree.flatMap((b, i): RowSpec[] => {
       if (b.parent === undefined) return [];
+      // A line's resistance: blank for one in three (losses not counted), else 0.05–0.65 Ω/km.
+      const k = Math.floor((p.seed[i] as number) / 64);
+      const r = k % 3 === 0 ? undefined : 0.05 + 0.1 * (k % 7);
       const from = tree[b.parent] as { name: string };
       const u = uOf(b.level);
       return b.line
@@ -155,6 +158,7 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
               to_bus: b.name,
               values: {
                 u_kv: u,
+                ...(r === undefined ? {} : { r_ohm_km: r }),
                 l_mh_km: 1.1,
                 c_nf_km: 10,
                 len_km: u < 1 ? 0.05 + 0.05 * (b.level % 3) : 0.5 + (b.level % 3),
