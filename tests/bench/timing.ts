@@ -48,4 +48,13 @@ export function timeRepeated<T>(
   return { ms: median(times), minMs: Math.min(...times), runs: times.length, value: value as T };
 }
 
+/**
+ * Run `fn` a few times untimed first: the first edits after a large build pay for the JavaScript
+ * engine compiling the hot paths and collecting the build's garbage, a one-off cost that is not
+ * what each later edit costs. Steps that warm up say so in their note.
+ */
+export function warmUp(fn: () => unknown, times = 3): void {
+  for (let i = 0; i < times; i++) fn();
+}
+
 export const peakRssMb = (): number => process.resourceUsage().maxRSS / 1024;
