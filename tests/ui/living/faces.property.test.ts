@@ -105,13 +105,16 @@ function compareQuotes(s: WorkbookSession, where: () => string): number {
 describe('the page and the core agree after every edit', () => {
   it('on random sites and random edit sequences', { timeout: 600_000 }, () => {
     let compared = 0;
+    let steps = 0;
     fc.assert(
       fc.property(siteArb, fc.array(editArb, { minLength: 1, maxLength: 30 }), ({ site, banks }, edits) => {
         const s = WorkbookSession.fromDoc(buildWorkbook(site, { flavour: 'live', banks }));
         const log: string[] = ['open'];
+        steps++;
         compared += compare(s, log);
         for (const e of edits) {
           log.push(applyEdit(s, e));
+          steps++;
           compared += compare(s, log);
         }
         s.destroy();
@@ -128,10 +131,12 @@ describe('the page and the core agree after every edit', () => {
           : {}),
       },
     );
-    // The comparison must have run on most steps (valid inputs), not been skipped (a replay is one run).
-    if (!process.env.KVAR_PROPERTY_SEED) {
-      expect(compared).toBeGreaterThan(100);
-      expect(pricedLines).toBeGreaterThan(100);
-    }
+    // The comparison must have run on most steps (valid inputs), not been skipped, and the schedules
+    // compared must have held priced lines. Proportions, not counts: fast-check draws short edit
+    // sequences more often than long ones, so the number of steps varies from run to run (about
+    // 100–150 at 20 runs); 95 % of them compare in practice.
+    expect(steps).toBeGreaterThan(0);
+    expect(compared / steps, `${compared} of ${steps} steps compared`).toBeGreaterThan(0.7);
+    expect(pricedLines, `${pricedLines} priced lines over ${compared} comparisons`).toBeGreaterThan(compared);
   });
 });
