@@ -8,6 +8,7 @@ import { ENGINE_LANGUAGE, engineConfig } from './config.ts';
 import { registerCataloguePlugin, registerOwnPlugin, standardPlugins, type OwnPlugin } from './plugins.ts';
 import { BUS_ROLLUP_PLUGIN } from './rollupPlugin.ts';
 import { installFastTopSort } from './topSort.ts';
+import { installArrayNodeIndex } from './arrayNodes.ts';
 
 export { CATALOGUE_PLUGIN, registerOwnPlugin, type OwnPlugin } from './plugins.ts';
 export { engineConfig, ENGINE_LICENSE_KEY } from './config.ts';
@@ -41,6 +42,8 @@ export const BOOLEAN_NAMES: readonly SerializedNamedExpression[] = Object.freeze
 function build(sheets: readonly SheetInput[], config: Partial<ConfigParams>): HyperFormula {
   // The recalculation walk over typed arrays (topSort.ts): same order, a fraction of the time.
   installFastTopSort();
+  // Row and column inserts find the array formulas from a kept list (arrayNodes.ts), not a search.
+  installArrayNodeIndex();
   const names = BOOLEAN_NAMES.map((n) => ({ ...n }));
   if (sheets.length === 0) return HyperFormula.buildEmpty(config, names);
   const seen = new Map<string, string>();
