@@ -33,7 +33,8 @@ export const hoursLabel = (c: string) => `Hours per year: ${c}`;
 export const TARIFF_HEADERS = ['Setting', 'Value', 'Unit', 'Note'] as const;
 
 export interface TariffProblem {
-  readonly row: number;
+  /** The sheet row (1-based, header = 1) of the Setting at fault; absent for a row that is missing. */
+  readonly row?: number;
   readonly message: string;
 }
 
@@ -53,14 +54,22 @@ export function readTariff(
     const raw = r[1];
     const v = typeof raw === 'number' ? raw : Number(text(raw).replace(',', '.'));
     if (text(raw) === '' || !Number.isFinite(v) || v < 0) {
-      problems.push({
-        row: i + 2,
-        message: `tariff row ${i + 2}, column Value: "${text(r[0])}" must be a number ≥ 0; got "${text(raw)}"`,
-      });
+      const why =
+        text(raw) === ''
+          ? 'is blank and counts 0 until a number ≥ 0 is entered'
+          : `must be a number ≥ 0; got "${text(raw)}"`;
+      problems.push({ row: i + 2, message: `tariff row ${i + 2}, column Value: "${text(r[0])}" ${why}` });
       return;
     }
     values.set(label, v);
   });
+  // A case with no hours row would count 0 hours without a word: say which row to add.
+  const labels = new Set(rows.slice(1).map((r) => text(r[0]).toLowerCase()));
+  for (const c of cases)
+    if (!labels.has(hoursLabel(c).toLowerCase()))
+      problems.push({
+        message: `tariff: no row "${hoursLabel(c)}", so case ${c} counts 0 hours per year; add the row with the hours it runs`,
+      });
   const get = (label: string) => values.get(label.toLowerCase()) ?? 0;
   const tariff: Tariff = {
     kvarh_price: get(TARIFF_LABELS.kvarh_price),

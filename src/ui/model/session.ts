@@ -29,7 +29,7 @@ import { HEADERS } from '../../core/workbook/layout.ts';
 import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
-import { tariffRenameWrites } from './tariffRename.ts';
+import { tariffNewCaseWrites, tariffRenameWrites } from './tariffCases.ts';
 import { sortedOrder } from './rowOrder.ts';
 import type { TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
@@ -231,6 +231,7 @@ export class WorkbookSession {
     if (follow.rebuild) {
       entries += this.write(this.tariffRenames(follow.rebuild.caseRenames));
       entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
+      entries += this.write(this.tariffNewCases());
     } else entries += this.write(follow.writes, true);
     this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
     return { entries, structural: follow.structural };
@@ -551,11 +552,22 @@ export class WorkbookSession {
     return { format: 'kvar-ledger-workbook', version: this.site ? 2 : 1, title: this.titleText, sheets };
   }
 
-  /** The Tariff sheet's hours rows of renamed cases, renamed with them (tariffRename.ts). */
+  /** The Tariff sheet's hours rows of renamed cases, renamed with them (tariffCases.ts). */
   private tariffRenames(renames: ReadonlyMap<string, string>): Write[] {
-    if (renames.size === 0) return [];
-    const id = this.sheetIds().find((i) => this.sheetName(i).toLowerCase() === TARIFF_SHEET.toLowerCase());
-    return id === undefined ? [] : tariffRenameWrites(id, this.contents.get(id), renames);
+    const id = this.tariffSheetId();
+    if (renames.size === 0 || id === undefined) return [];
+    return tariffRenameWrites(id, this.contents.get(id), renames);
+  }
+
+  /** An hours row on the Tariff sheet for each case that has none (tariffCases.ts). */
+  private tariffNewCases(): Write[] {
+    const id = this.tariffSheetId();
+    if (!this.site || id === undefined) return [];
+    return tariffNewCaseWrites(id, this.contents.get(id), this.site.state.cases);
+  }
+
+  private tariffSheetId(): number | undefined {
+    return this.sheetIds().find((i) => this.sheetName(i).toLowerCase() === TARIFF_SHEET.toLowerCase());
   }
 
   /** Every built-in sheet written anew from the inputs (the cases or the Site layout changed). */

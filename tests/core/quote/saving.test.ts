@@ -75,7 +75,7 @@ describe('the worked example', () => {
 });
 
 describe('the Tariff sheet', () => {
-  it('reads settings by their text, hours per case, and reports a value that is no number', () => {
+  it('reads settings by their text, hours per case, and reports a bad value and a missing hours row', () => {
     const { tariff, problems } = readTariff(
       [
         ['Setting', 'Value', 'Unit', 'Note'],
@@ -95,6 +95,10 @@ describe('the Tariff sheet', () => {
       {
         row: 4,
         message: 'tariff row 4, column Value: "Energy price for losses" must be a number ≥ 0; got "ask"',
+      },
+      {
+        message:
+          'tariff: no row "Hours per year: night", so case night counts 0 hours per year; add the row with the hours it runs',
       },
     ]);
   });

@@ -8,6 +8,8 @@ import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { ADDED_CASE_NOTE } from '../../../src/ui/model/tariffCases.ts';
+import { collectChecks } from '../../../src/ui/panels/checksModel.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
 
 const open = () => WorkbookSession.fromDoc(buildWorkbook(PLANT, { flavour: 'live' }));
@@ -228,6 +230,47 @@ describe('a renamed case keeps its hours per year on the Tariff sheet', () => {
     expect(s.engine.getCellValue({ sheet: q, row: hoursCell, col: 3 })).toBe(1234);
     s.undo();
     expect(settings()[nightRow]).toBe('Hours per year: night');
+  });
+});
+
+describe('an added case gets its hours row on the Tariff sheet', () => {
+  it('appends the row with a blank value, Checks asks for the hours, typed hours count, undo removes it', () => {
+    const s = open();
+    const tariff = id(s, 'Tariff');
+    const rowsBefore = s.sheetContents(tariff).length;
+    const settings = () => s.sheetContents(tariff).map((r) => r[0]);
+    s.setCells(id(s, 'Site'), [{ row: FIRST_CASE_ROW + 3, col: 1, content: 'maintenance' }]);
+    const row = settings().indexOf('Hours per year: maintenance');
+    expect(row).toBe(rowsBefore);
+    expect(s.sheetContents(tariff)[row]?.slice(1)).toEqual([null, 'h', ADDED_CASE_NOTE]);
+    const asks = () =>
+      collectChecks(s.toDoc()).items.filter((i) => i.code === 'tariff' && i.text.includes('maintenance'));
+    expect(asks()).toEqual([
+      expect.objectContaining({ severity: 'warning', where: `Tariff row ${row + 1}, column Value` }),
+    ]);
+    s.setCells(tariff, [{ row, col: 1, content: 500 }]);
+    expect(asks()).toEqual([]);
+    const q = id(s, 'Quantities and cost');
+    const hours = s
+      .sheetContents(q)
+      .findIndex(
+        (r, i) =>
+          r[0] === 'maintenance' && typeof s.engine.getCellValue({ sheet: q, row: i, col: 3 }) === 'number',
+      );
+    expect(s.engine.getCellValue({ sheet: q, row: hours, col: 3 })).toBe(500);
+    s.undo();
+    s.undo();
+    expect(settings()).not.toContain('Hours per year: maintenance');
+    expect(s.sheetContents(tariff).length).toBe(rowsBefore);
+  });
+
+  it('a case without any hours row is listed by Checks, with what to add', () => {
+    const s = open();
+    const tariff = id(s, 'Tariff');
+    const row = s.sheetContents(tariff).findIndex((r) => r[0] === 'Hours per year: night');
+    s.setCells(tariff, [{ row, col: 0, content: 'Hours per year: nights' }]);
+    const items = collectChecks(s.toDoc()).items.filter((i) => i.code === 'tariff');
+    expect(items.map((i) => i.text)).toContainEqual(expect.stringMatching(/no row "Hours per year: night"/));
   });
 });
 
