@@ -79,6 +79,15 @@ export function readRateTable(rows: readonly (readonly CellContent[])[]): {
     if (item === '' && unit === '' && text(raw) === '') return;
     const bad = (column: string, message: string) => problems.push({ row, column, message });
     if (item === '') return bad('Item', `rates row ${row}: the item is blank`);
+    // The sheet finds an item's rate by its exact name (spreadsheet MATCH, any case): a name with
+    // spaces at its ends or doubled inside matches nothing there, so it matches nothing here.
+    const typed = typeof r[col.Item] === 'string' ? shownText(r[col.Item] as string) : item;
+    const tidy = typed.trim().replace(/\s+/g, ' ');
+    if (typed !== tidy)
+      return bad(
+        'Item',
+        `rates row ${row}, column Item: "${typed}" has spaces at its ends or doubled inside, so no item matches it; write it as "${tidy}"`,
+      );
     if (seen.has(itemKey(item)))
       return bad(
         'Item',

@@ -15,7 +15,7 @@ import type { DesignWarning } from '../../core/site/warnings.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
 import { locateReaderProblem, locateRuleProblem, type CheckTarget } from './checksWhere.ts';
-import { tariffItems } from './checksTariff.ts';
+import { rateItems, tariffItems } from './checksQuote.ts';
 
 export type { CheckTarget } from './checksWhere.ts';
 
@@ -126,7 +126,7 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
   }
   const inputErrors = items.some((i) => i.severity === 'error');
   items.push(...workbookItems(doc));
-  items.push(...tariffItems(doc, read.site.settings.cases));
+  items.push(...rateItems(doc), ...tariffItems(doc, read.site.settings.cases));
   const voltages = busVoltages(read.site.equipment).voltages;
   for (const bus of buildBusGraph(read.site.equipment.filter((r) => r.bus !== '')).firstRow.keys()) {
     if (voltages.has(bus)) continue;

@@ -74,9 +74,23 @@ describe('a priced 6 × 50 kvar 7 % bank', () => {
       expect.stringMatching(/"LV section" is in USD; the quote is in EUR/),
     ]);
   });
-  it('items match rates without regard to case or spacing', () => {
-    const rows = TABLE.map((r) => (r[0] === 'LV section' ? ['  lv   SECTION ', 'pc', 3000, 'EUR', ''] : r));
+  it('items match rates without regard to case', () => {
+    const rows = TABLE.map((r) => (r[0] === 'LV section' ? ['lv SECTION', 'pc', 3000, 'EUR', ''] : r));
     expect(priceSchedule(bank(), readRateTable(rows).table).total).not.toBeNull();
+  });
+  it('a name with extra spaces matches nothing, as in the sheet, and says how to write it', () => {
+    // The Quantities sheet finds a rate with MATCH(item, Rates!A:A, 0): any case, exact spacing.
+    const rows = TABLE.map((r) => (r[0] === 'LV section' ? ['  lv   SECTION ', 'pc', 3000, 'EUR', ''] : r));
+    const { table, problems } = readRateTable(rows);
+    expect(problems).toEqual([
+      {
+        row: 6,
+        column: 'Item',
+        message:
+          'rates row 6, column Item: "  lv   SECTION " has spaces at its ends or doubled inside, so no item matches it; write it as "lv SECTION"',
+      },
+    ]);
+    expect(priceSchedule(bank(), table).total).toBeNull();
   });
 });
 

@@ -6,7 +6,7 @@
 // and controller sizes are common practice, from memory, as itemRules.ts says). The rates are
 // invented for the test; each cost is recomputed here as quantity × rate.
 import { describe, expect, it } from 'vitest';
-import { ratesSheetDoc, RATES_SHEET, type Rate } from '../../../src/core/quote/index.ts';
+import { ratesSheetDoc, readRateTable, RATES_SHEET, type Rate } from '../../../src/core/quote/index.ts';
 import type { BankChoice } from '../../../src/core/site/bankChoice.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
@@ -19,6 +19,7 @@ import {
   summaryRowOf,
 } from '../../../src/core/workbook/quantitiesLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { collectChecks } from '../../../src/ui/panels/checksModel.ts';
 import { siteFromCsv } from '../site/fixtures.ts';
 
 const { site } = siteFromCsv(
@@ -160,6 +161,27 @@ describe('a missing rate is shown, not zero', () => {
     expect(q.v(caps, QC.rate)).toBe('no rate');
     expect(q.v(caps, QC.cost)).toBe('no rate');
     expect(q.total('Total')).toBe('unpriced');
+  });
+  it('a rate named with extra spaces prices nothing in the sheet, as the core reads it, and says so', () => {
+    const s = open([LV_BANK]);
+    const q = reader(s);
+    const section = slotRow(0, 'enclosure');
+    expect(typeof q.v(section, QC.cost)).toBe('number');
+    const rates = s.engine.getSheetId(RATES_SHEET) as number;
+    const row = RATES.findIndex((r) => r.item === 'LV section') + 1;
+    s.setCells(rates, [{ row, col: 0, content: 'LV section ' }]);
+    expect(q.v(section, QC.cost)).toBe('no rate');
+    expect(q.total('Total')).toBe('unpriced');
+    const { table, problems } = readRateTable(s.sheetContents(rates));
+    expect(table.rates.map((r) => r.item)).not.toContain('LV section ');
+    expect(problems).toEqual([expect.objectContaining({ row: row + 1, column: 'Item' })]);
+    expect(collectChecks(s.toDoc()).items.filter((i) => i.code === 'rates')).toEqual([
+      expect.objectContaining({
+        where: `Rates row ${row + 1}, column Item`,
+        text: expect.stringMatching(/^"LV section " has spaces .* write it as "LV section"$/),
+        target: { sheet: 'Rates', row: row + 1, col: 0 },
+      }),
+    ]);
   });
   it('without a Rates sheet every item shows "no rate"', () => {
     const doc = buildWorkbook(site, { flavour: 'live', banks: [LV_BANK] });
