@@ -14,21 +14,10 @@ import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
 import type { DesignWarning } from '../../core/site/warnings.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
-import { locateReaderProblem, locateRuleProblem, type CheckTarget } from './checksWhere.ts';
+import { locateReaderProblem, locateRuleProblem, type CheckItem } from './checksWhere.ts';
 import { rateItems, tariffItems } from './checksQuote.ts';
 
-export type { CheckTarget } from './checksWhere.ts';
-
-export interface CheckItem {
-  readonly severity: Severity;
-  /** 'input' for a problem with what was typed, else the design finding's code. */
-  readonly code: string;
-  /** "Motors row 5, column cos_phi", "bus LV-REF, item M1", or "" for the whole site. */
-  readonly where: string;
-  readonly text: string;
-  /** The cell to show: sheet, 1-based grid row, 0-based column when known. */
-  readonly target?: CheckTarget;
-}
+export type { CheckItem, CheckTarget } from './checksWhere.ts';
 
 export interface ChecksReport {
   readonly items: readonly CheckItem[];

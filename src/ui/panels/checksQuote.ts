@@ -12,7 +12,7 @@ import {
 } from '../../core/quote/index.ts';
 import { shownText } from '../../core/text/cellText.ts';
 import type { CellContent, WorkbookDoc } from '../../core/workbook/document.ts';
-import type { CheckItem } from './checksModel.ts';
+import type { CheckItem } from './checksWhere.ts';
 
 /** The Value column of the Tariff sheet (Setting, Value, Unit, Note). */
 const TARIFF_VALUE_COL = 1;

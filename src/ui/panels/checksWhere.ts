@@ -3,7 +3,7 @@
 // its message ("sheet Site, row 3, column "Frequency": ..."), while the site rules number the
 // equipment as one list from 2 (mapped back through the reader's origins). Row numbers inside
 // a message are rewritten the same way, so "(row 9)" reads "Motors row 4". Pure: no DOM.
-import { describeWhere, type Problem } from '../../core/site/problems.ts';
+import { describeWhere, type Problem, type Severity } from '../../core/site/problems.ts';
 import { equipmentSheets } from '../../core/kinds/index.ts';
 import { HEADERS, SHEETS } from '../../core/workbook/layout.ts';
 import { SETTING_LABELS } from '../../core/workbook/settingsLayout.ts';
@@ -17,6 +17,17 @@ export interface CheckTarget {
   readonly row: number;
   /** 0-based column; absent when the problem concerns the whole row. */
   readonly col?: number;
+}
+
+export interface CheckItem {
+  readonly severity: Severity;
+  /** 'input' for a problem with what was typed, else the design finding's code. */
+  readonly code: string;
+  /** "Motors row 5, column cos_phi", "bus LV-REF, item M1", or "" for the whole site. */
+  readonly where: string;
+  readonly text: string;
+  /** The cell to show: sheet, 1-based grid row, 0-based column when known. */
+  readonly target?: CheckTarget;
 }
 
 export interface Located {

@@ -57,12 +57,14 @@ describe('the summary of the cold-store demo', () => {
       expect(c.tanBefore).toBe(cell(b.tan));
       expect(c.qAfter).toBe(cell(b.qAfter));
       expect(c.cosAfter).toBe(cell(b.cosAfter));
+      expect(c.tanAfter).toBe(cell(b.tanAfter));
       expect(c.within).toBe(value(s, 'Compensation', 1, comp.within[k] as number));
       // cos φ = P / √(P² + Q²) for sinusoidal quantities (IEC 60050-131-11-46, power factor),
       // tan φ = Q / P: the cells agree with the power triangle of the summary's own P and Q.
       const [p, q] = [num(c.p), num(c.qBefore)];
       expect(num(c.cosBefore)).toBeCloseTo(Math.abs(p) / Math.hypot(p, q), 9);
       expect(num(c.tanBefore)).toBeCloseTo(q / p, 9);
+      expect(num(c.tanAfter)).toBeCloseTo(num(c.qAfter) / num(c.pAfter), 9);
     });
   });
 
