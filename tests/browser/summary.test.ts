@@ -51,6 +51,7 @@ describe('the summary page', () => {
       expect(await text(`cos-before-${k}`)).toBe(shown(c.cosBefore, '0.000'));
       expect(await text(`tan-before-${k}`)).toBe(shown(c.tanBefore, '0.000'));
       expect(await text(`cos-after-${k}`)).toBe(shown(c.cosAfter, '0.000'));
+      expect(await text(`tan-after-${k}`)).toBe(shown(c.tanAfter, '0.000'));
       expect(await text(`within-${k}`)).toBe('yes');
     }
     const m = expected.money;

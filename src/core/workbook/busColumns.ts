@@ -28,6 +28,8 @@ export interface BusColumns {
   readonly qAbsOwn: readonly number[];
   readonly qDelOwn: readonly number[];
   readonly qOwn: readonly number[];
+  /** tan φ after compensation per case, Q after ÷ P after (signed: negative leading). */
+  readonly tanAfter: readonly number[];
   readonly columns: readonly ColumnInfo[];
 }
 
@@ -88,6 +90,8 @@ export function planBusColumns(cases: readonly string[]): BusColumns {
   const qAbsOwn = per(BUS_HEADERS.qAbsOwn, FORMATS.kvar, 10);
   const qDelOwn = per(BUS_HEADERS.qDelOwn, FORMATS.kvar, 10);
   const qOwn = per(BUS_HEADERS.qOwn, FORMATS.kvar, 10);
+  // Last, so the columns of workbooks saved before it (and values typed over them) stay put.
+  const tanAfter = per(BUS_HEADERS.tanAfter, FORMATS.pf, 8);
   return {
     bus: 0,
     level: 1,
@@ -107,6 +111,7 @@ export function planBusColumns(cases: readonly string[]): BusColumns {
     qAbsOwn,
     qDelOwn,
     qOwn,
+    tanAfter,
     columns,
   };
 }

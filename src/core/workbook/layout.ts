@@ -71,6 +71,7 @@ export const BUS_HEADERS = {
   qAbsOwn: (c: string) => `Q absorbed own items ${c} (kvar)`,
   qDelOwn: (c: string) => `Q delivered own items ${c} (kvar)`,
   qOwn: (c: string) => `Q own items ${c} (kvar)`,
+  tanAfter: (c: string) => `tan φ after ${c}`,
 } as const;
 
 /** Formats of computed columns. */

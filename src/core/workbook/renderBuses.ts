@@ -125,6 +125,7 @@ export function renderBusesSheet(input: BusesInput): CellContent[][] {
         `=${here(cols.qAbsAfter[k] as number)}-${here(cols.qDelAfter[k] as number)}`;
       out[cols.sAfter[k] as number] = `=KVA.TOTAL(${PA},${QA})`;
       out[cols.cosAfter[k] as number] = `=IF(${SA}=0,"",COSPHI(${PA},${QA}))`;
+      out[cols.tanAfter[k] as number] = `=IF(${PA}=0,"",TANPHI(${PA},${QA}))`;
       out[cols.qOwn[k] as number] = `=${here(cols.qAbsOwn[k] as number)}-${here(cols.qDelOwn[k] as number)}`;
     });
     for (const [c, f] of ownSumCells(input, i)) out[c] = f;

@@ -1,5 +1,5 @@
 // The figures the cover shows at a glance, as the one-page summary does: per case cos φ before
-// and after (and tan φ before) at the point of connection, the cost total, the annual saving and
+// and after and tan φ before and after at the point of connection, the cost total, the annual saving and
 // the simple payback. Each is a formula referring to the cell of the exported sheet that holds
 // it (Buses, Quantities and cost), so the cover follows an edit made in another program.
 import { shownText } from '../../core/text/cellText.ts';
@@ -44,6 +44,7 @@ function connection(buses: SheetDoc): CoverFigure[] {
         [`cos φ before at ${root}, ${c}`, BUS_HEADERS.cos(c), '0.000'],
         [`tan φ before at ${root}, ${c}`, BUS_HEADERS.tan(c), '0.000'],
         [`cos φ after at ${root}, ${c}`, BUS_HEADERS.cosAfter(c), '0.000'],
+        [`tan φ after at ${root}, ${c}`, BUS_HEADERS.tanAfter(c), '0.000'],
       ] as const
     ).flatMap(([label, h, format]) => (col(h) < 0 ? [] : [figure(label, SHEETS.buses, 1, col(h), format)])),
   );

@@ -33,6 +33,7 @@ export interface CaseAtConnection {
   readonly pAfter: Figure;
   readonly qAfter: Figure;
   readonly cosAfter: Figure;
+  readonly tanAfter: Figure;
   readonly within: Figure;
 }
 
@@ -125,6 +126,7 @@ function connectionCases(buses: Grid | undefined, comp: Grid | undefined): CaseA
     pAfter: at(root, b(BUS_HEADERS.pAfter(name))),
     qAfter: at(root, b(BUS_HEADERS.qAfter(name))),
     cosAfter: at(root, b(BUS_HEADERS.cosAfter(name))),
+    tanAfter: at(root, b(BUS_HEADERS.tanAfter(name))),
     within: at(compRow, c(COMP_HEADERS.within(name))),
   }));
 }

@@ -78,6 +78,7 @@ function connection(d: SummaryData): HTMLElement {
       td(c.tanBefore, '0.000', `tan-before-${k}`),
       td(c.qAfter, '#,##0'),
       td(c.cosAfter, '0.000', `cos-after-${k}`),
+      td(c.tanAfter, '0.000', `tan-after-${k}`),
       td(c.within, '0', `within-${k}`),
     ]),
   );
@@ -92,6 +93,7 @@ function connection(d: SummaryData): HTMLElement {
         'tan φ before',
         'Q after (kvar)',
         'cos φ after',
+        'tan φ after',
         'Requirement met',
       ],
       rows,

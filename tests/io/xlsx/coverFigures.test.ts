@@ -1,4 +1,4 @@
-// The cover's figures at a glance: per case cos φ before and after and tan φ before at the point
+// The cover's figures at a glance: per case cos φ and tan φ before and after at the point
 // of connection, the cost total, the annual saving and the payback, each a formula referring to
 // the exported sheet's cell, cached with that cell's value. (LibreOffice recalculating them, and
 // following an edit, is in tests/crossengine/recalc.test.ts.)
@@ -52,6 +52,7 @@ describe('the cover of an exported site', () => {
         [`cos φ before at MV-11, ${c}`, bus.cos[k]],
         [`tan φ before at MV-11, ${c}`, bus.tan[k]],
         [`cos φ after at MV-11, ${c}`, bus.cosAfter[k]],
+        [`tan φ after at MV-11, ${c}`, bus.tanAfter[k]],
       ] as const) {
         const cell = f.get(label);
         expect(cell?.formula, label).toBe(`Buses!$${columnLetters(col as number)}$2`);
