@@ -113,6 +113,8 @@ function toJson(
       requirement: band.text,
       lag_tan: band.lagTan,
       lead_tan: band.leadTan,
+      /** The rated power the limits refer to at the point of connection, kW; null: the case's own P. */
+      rated_kw: site.settings.requirement.refKw ?? null,
       banks_from: comp.from,
       need_kvar: outcome?.need ?? null,
       met_before: withinRequirement(site, bal.root.p_kw, bal.root.q_kvar),

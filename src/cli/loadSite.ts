@@ -292,11 +292,17 @@ async function readList(file: string, bytes: Uint8Array, options: SiteOptions): 
 }
 
 function withOptions(s: SiteSettings, options: SiteOptions): SiteSettings {
+  const requirement = options.requirement ?? s.requirement;
   return {
     ...s,
     ...(options.name !== undefined ? { name: options.name } : {}),
     ...(options.hz !== undefined ? { hz: options.hz } : {}),
-    ...(options.requirement !== undefined ? { requirement: options.requirement } : {}),
+    ...(options.requirement !== undefined || options.ratedKw !== undefined
+      ? {
+          requirement:
+            options.ratedKw !== undefined ? { ...requirement, refKw: options.ratedKw } : requirement,
+        }
+      : {}),
     ...(options.sscMva !== undefined ? { sscMva: options.sscMva } : {}),
   };
 }

@@ -22,6 +22,8 @@ export interface SiteOptions {
   readonly name?: string;
   readonly hz?: 50 | 60;
   readonly requirement?: Requirement;
+  /** The rated power the requirement's limits refer to, kW (a site that generates). */
+  readonly ratedKw?: number;
   readonly sscMva?: number;
   /** balance: the case shown; for a list: also the name of its plain load column's case. */
   readonly caseName?: string;
@@ -40,6 +42,7 @@ export const SITE_VALUE_OPTIONS = [
   '--cos-phi',
   '--cos-phi-lagging',
   '--tan-phi',
+  '--rated-kw',
   '--ssc-mva',
   '--case',
   '--kind',
@@ -57,6 +60,8 @@ so without them it is taken as 50 Hz with cos φ ≥ 0.95 required):
                      that bills drawn kvar alone: the design never adds a reactor for it)
   --tan-phi LAG[/LEAD]  requirement as tan φ limits: at most LAG drawing kvar and LEAD delivering
                      it (LEAD defaults to LAG); numbers ≥ 0, e.g. --tan-phi 0.4/0
+  --rated-kw X       refer the requirement's limits to this rated active power, kW (> 0), not to
+                     the site's P in each case: a site that generates (allowed kvar = tan φ × X)
   --ssc-mva X        short-circuit power of the supply, MVA (> 0), for resonance and voltage rise
   --case NAME        the operating case (balance shows it; default: the first); for a list whose
                      plain "load" column names no case, NAME becomes that case's name (else "normal")
@@ -135,6 +140,13 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
         `--tan-phi must be LAG or LAG/LEAD, numbers ≥ 0 with a decimal point (e.g. 0.4/0); got "${tan}"`,
       );
     out.requirement = { kind: 'tanphi', lagMax: lag, leadMax: lead };
+  }
+  const rated = v('--rated-kw');
+  if (rated !== undefined) {
+    const x = number(rated);
+    if (x === undefined || !(x > 0) || !Number.isFinite(x))
+      return bad(`--rated-kw must be a number > 0 (kW); got "${rated}"`);
+    out.ratedKw = x;
   }
   const ssc = v('--ssc-mva');
   if (ssc !== undefined) {

@@ -161,6 +161,30 @@ describe('kvar-ledger balance', () => {
     expect(both.code).toBe(2);
     expect(both.err).toMatch(/give one of --cos-phi, --cos-phi-lagging or --tan-phi/);
   });
+  it('--rated-kw refers the limits to a rated power: the same charging is within them', async () => {
+    const csv = join(tmp, 'rated.csv');
+    // As above: about 1 140 kvar delivered beside 100 kW. Referred to P, tan φ 0.33 allows 33 kvar
+    // leading; referred to 5,000 kW rated, 0.33 × 5,000 = 1,650 kvar (hand figures).
+    writeFileSync(
+      csv,
+      'tag,bus,kind,p_kw,cos_phi,u_kv,c_uf_km,len_km\nL1,MAIN,load,100,1,11,,\nK1,MAIN,cable,,,11,0.3,10\n',
+    );
+    const json = async (...extra: string[]) =>
+      JSON.parse((await balance(csv, '--json', '--ssc-mva', '250', '--tan-phi', '0.33', ...extra)).out) as {
+        warnings: { code: string }[];
+        compensation: { requirement: string; rated_kw: number | null; met_before: boolean };
+      };
+    const own = await json();
+    expect(own.warnings.map((w) => w.code)).toContain('charging-dominates');
+    expect([own.compensation.met_before, own.compensation.rated_kw]).toEqual([false, null]);
+    const rated = await json('--rated-kw', '5000');
+    expect(rated.warnings.map((w) => w.code)).not.toContain('charging-dominates');
+    expect(rated.compensation.requirement).toMatch(/referred to 5000 kW rated power/);
+    expect([rated.compensation.met_before, rated.compensation.rated_kw]).toEqual([true, 5000]);
+    const bad = await balance(csv, '--rated-kw', '0');
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/--rated-kw must be a number > 0 \(kW\); got "0"/);
+  });
   it('reads a CSV list with a load:<case> column; --hz changes the cable charging', async () => {
     const csv = join(tmp, 'list.csv');
     writeFileSync(

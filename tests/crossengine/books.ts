@@ -40,6 +40,7 @@ export const BOOK_NAMES = [
   'cold-store',
   'pumping-station',
   'solar-collector',
+  'solar-collector-rated',
   'invented-quarry',
   'invented-quarry-fault',
   'invented-quarry-lagging',
@@ -66,6 +67,22 @@ export async function writeBooks(
       settings: site.settings,
     });
   }
+  // The solar template with its tan φ limits referred to 42,000 kW rated power (a generating
+  // site's requirement): the Compensation sheet's point-of-connection formulas take the Site
+  // sheet's rated power instead of P.
+  const solar = readSiteFile(readFileSync(join('templates', 'solar-collector.json'), 'utf8'));
+  const rated: Site = {
+    ...solar.site,
+    settings: {
+      ...solar.site.settings,
+      requirement: { ...solar.site.settings.requirement, refKw: 42_000 },
+    },
+  };
+  books.push({
+    base: 'solar-collector-rated',
+    doc: buildWorkbook(rated, { flavour: 'portable', ...(solar.banks ? { banks: solar.banks } : {}) }),
+    settings: rated.settings,
+  });
   const quarry = inventedQuarry();
   // The design's banks, and the crusher motor's own capacitor (switched out with it in maintenance).
   const quarryBanks = [...proposeChoices(quarry), { bus: 'LV-CR2', fixed_kvar: 40 }];

@@ -67,6 +67,19 @@ describe('LibreOffice Calc recalculating our exports', () => {
     if (base === 'invented-quarry-fault' || base === 'hand-made') expect(errors).toBeGreaterThan(0);
   });
 
+  it('refers the solar site’s limits to its rated power: no inductive need at night in LibreOffice', () => {
+    // Every formula cell was compared above; this says the two books really differ where the
+    // rated power enters (hand figure: 0.3287 × 42,000 kW allows 13,805 kvar leading at night).
+    const need = (base: string) => {
+      const rows = sheetCsv(outDir, base, 'Compensation');
+      const col = (rows[0] ?? []).indexOf('Inductive need night (kvar)');
+      expect(col, `${base}: no night inductive need column`).toBeGreaterThan(0);
+      return Number(rows[1]?.[col]);
+    };
+    expect(need('solar-collector')).toBeGreaterThan(1000);
+    expect(need('solar-collector-rated')).toBe(0);
+  });
+
   it('prices the demo on the Quantities and cost sheet: total, saving and payback are numbers there', () => {
     // Every formula cell was compared above; this says the comparison covered a priced schedule.
     const rows = sheetCsv(outDir, 'cold-store', QUANTITIES_SHEET);

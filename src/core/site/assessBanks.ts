@@ -22,7 +22,7 @@ import {
   voltageRise,
 } from './bankRules.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
-import { kvarNeeded } from './requirement.ts';
+import { connectionNeed } from './requirement.ts';
 import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
 import { findKind } from '../kinds/index.ts';
 import { formatNumber } from '../registry/messages.ts';
@@ -165,7 +165,7 @@ function outcomeWarnings(site: Site, cases: readonly CaseCompensation[]): Design
       );
     }
     if (!r.within_after) {
-      const n = kvarNeeded(a.p_kw, a.q_kvar, site.settings.requirement);
+      const n = connectionNeed(a.p_kw, a.q_kvar, site.settings.requirement);
       const what =
         n.capacitive_kvar > 0
           ? `${f(n.capacitive_kvar, 0)} kvar capacitive still missing`

@@ -17,7 +17,7 @@
 import type { Site } from './model.ts';
 import { runCall } from './calls.ts';
 import { bankTotal, type BankChoice } from './bankChoice.ts';
-import { kvarNeeded, requirementBand, type Need } from './requirement.ts';
+import { connectionNeed, referencePowerKw, requirementBand, type Need } from './requirement.ts';
 import { rollUp, type BusExtra, type CaseBalance } from './rollup.ts';
 import { buildBusGraph, type BusGraph } from './graph.ts';
 import { soleMotorOf, switchedOutWithMotor } from './individualCompensation.ts';
@@ -67,7 +67,7 @@ export function stepsIn(choice: BankChoice, share: number): number {
 /** Within the requirement at P, Q: neither lagging nor leading beyond its limit by more than the tolerance. */
 export function withinRequirement(site: Site, pKw: number, qKvar: number): boolean {
   const band = requirementBand(site.settings.requirement);
-  const p = Math.abs(pKw);
+  const p = referencePowerKw(pKw, site.settings.requirement);
   const lag = runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, band.lagTan], columns: [] });
   const lead = Number.isFinite(band.leadTan)
     ? runCall({ fn: 'KVAR.TOTAN', args: [p, qKvar, -band.leadTan], columns: [] })
@@ -100,7 +100,7 @@ export function compensateCase(
   const req = site.settings.requirement;
   const band = requirementBand(req);
   const root = before.root;
-  const need = kvarNeeded(root.p_kw, root.q_kvar, req);
+  const need = connectionNeed(root.p_kw, root.q_kvar, req);
   const busP = new Map(before.buses.map((b) => [b.bus, b.p_kw]));
   const available = banks.map(
     (c) => !switchedOutWithMotor(soleMotorOf(c.bus, graph) !== undefined, busP.get(c.bus) ?? 0),
@@ -118,7 +118,7 @@ export function compensateCase(
   const lead = Number.isFinite(band.leadTan)
     ? runCall({
         fn: 'KVAR.TOTAN',
-        args: [Math.abs(root.p_kw), root.q_kvar - capOut, -band.leadTan],
+        args: [referencePowerKw(root.p_kw, req), root.q_kvar - capOut, -band.leadTan],
         columns: [],
       })
     : ({ ok: true, value: 0 } as const);

@@ -14,14 +14,21 @@
 // 4. Where the site is still leading beyond the limit (cable and line charging at light load,
 //    or fixed capacitors), a shunt reactor goes on the bus with the most charging, switched in
 //    only in the cases that need it.
-import type { EquipmentRow, Site } from './model.ts';
+import type { EquipmentRow, Requirement, Site } from './model.ts';
 import { buildBusGraph } from './graph.ts';
 import { rollUp, SiteStructureError, type BusBalance, type CaseBalance } from './rollup.ts';
 import { findKind } from '../kinds/index.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
 import type { BankChoice } from './bankChoice.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
-import { kvarNeeded, meets, requirementBand, type Need } from './requirement.ts';
+import {
+  connectionNeed,
+  kvarNeeded,
+  meets,
+  referencePowerKw,
+  requirementBand,
+  type Need,
+} from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { chargingResonanceWarnings } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
@@ -167,7 +174,7 @@ export function designCompensation(
   let nextRow = site.equipment.reduce((m, r) => Math.max(m, r.row), 0) + 1;
 
   // Capacitors.
-  const rootNeed = before.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
+  const rootNeed = before.map((b) => connectionNeed(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
   let banks: BankDesign[] = [];
   let capRows: EquipmentRow[] = [];
   let bankWarnings: DesignWarning[] = [];
@@ -227,7 +234,7 @@ export function designCompensation(
       }
       const result = compensate(site, choicesFromDesign(banks, []), before);
       afterCaps = result.map((r) => r.after);
-      const short = afterCaps.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
+      const short = afterCaps.map((b) => connectionNeed(b.root.p_kw, b.root.q_kvar, req).capacitive_kvar);
       if (short.every((s) => s <= TOL_KVAR)) break;
       short.forEach((s, i) => (extra[i] = (extra[i] as number) + s));
     }
@@ -236,7 +243,7 @@ export function designCompensation(
   warnings.push(...bankWarnings);
 
   // Shunt reactor where the site is leading beyond the limit even with every step out.
-  const leadNeed = afterCaps.map((b) => kvarNeeded(b.root.p_kw, b.root.q_kvar, req).inductive_kvar);
+  const leadNeed = afterCaps.map((b) => connectionNeed(b.root.p_kw, b.root.q_kvar, req).inductive_kvar);
   const reactors: ReactorDesign[] = [];
   let reactorRows: EquipmentRow[] = [];
   if (Math.max(...leadNeed) > TOL_KVAR) {
@@ -272,15 +279,15 @@ export function designCompensation(
       ];
       // As for the capacitors: check by rolling up again; transformer kvar moves with the loading.
       const want = [...leadNeed];
-      let q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
+      let q = reactorSize(afterCaps, want, band.lagTan + band.leadTan, req);
       for (let pass = 1; pass < MAX_PASSES; pass++) {
         const trial: ReactorDesign = { bus, u_kv: u, q_kvar: q, in_service: inService, why: '' };
         const short = compensate(site, choicesFromDesign(banks, [trial]), before).map(
-          (r) => kvarNeeded(r.after.root.p_kw, r.after.root.q_kvar, req).inductive_kvar,
+          (r) => connectionNeed(r.after.root.p_kw, r.after.root.q_kvar, req).inductive_kvar,
         );
         if (short.every((x, i) => x <= TOL_KVAR || !inService[cases[i] as string])) break;
         short.forEach((x, i) => (want[i] = (want[i] as number) + (inService[cases[i] as string] ? x : 0)));
-        q = reactorSize(afterCaps, want, band.lagTan + band.leadTan);
+        q = reactorSize(afterCaps, want, band.lagTan + band.leadTan, req);
       }
       reactors.push({
         bus,
@@ -356,13 +363,18 @@ export function designCompensation(
  * A standard rating inside every window if there is one, else a made-to-order rating: the need
  * rounded up to REACTOR_ROUNDING_KVAR, or finer when the window is narrower.
  */
-function reactorSize(bal: readonly CaseBalance[], need: readonly number[], bandWidth: number): number {
+function reactorSize(
+  bal: readonly CaseBalance[],
+  need: readonly number[],
+  bandWidth: number,
+  req: Requirement,
+): number {
   let lo = 0;
   let hi = Infinity;
   need.forEach((n, i) => {
     if (n <= TOL_KVAR) return;
     lo = Math.max(lo, n);
-    hi = Math.min(hi, n + bandWidth * Math.abs((bal[i] as CaseBalance).root.p_kw));
+    hi = Math.min(hi, n + bandWidth * referencePowerKw((bal[i] as CaseBalance).root.p_kw, req));
   });
   const standard = REACTOR_SERIES_KVAR.find((q) => q >= lo && q <= hi);
   if (standard !== undefined) return standard;

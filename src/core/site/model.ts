@@ -33,14 +33,22 @@ export interface EquipmentRow {
 }
 
 /** The utility's requirement at the point of connection. */
-export type Requirement =
+export type Requirement = (
   | {
       readonly kind: 'cosphi';
       readonly target: number;
       /** Lagging only: the tariff charges drawn kvar alone and sets no leading limit. */
       readonly lagOnly?: boolean;
     }
-  | { readonly kind: 'tanphi'; readonly lagMax: number; readonly leadMax: number };
+  | { readonly kind: 'tanphi'; readonly lagMax: number; readonly leadMax: number }
+) & {
+  /**
+   * The active power the limits are referred to at the point of connection, kW: for a site that
+   * generates, its rated (registered) power, so the kvar allowed stays the same at night. Absent:
+   * the site's own |P| in each case.
+   */
+  readonly refKw?: number;
+};
 
 export interface SiteSettings {
   readonly name: string;

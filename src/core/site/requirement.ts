@@ -2,7 +2,9 @@
 // draw kvar (lagging) and deliver kvar (leading) per kW. A cos φ target is read as the same limit
 // both ways (cos φ ≥ target, lagging or leading), since many grid codes penalise both, unless it
 // is lagging only (a tariff that bills drawn kvar alone: no leading limit, so never a reactor);
-// a tan φ requirement gives the two limits separately.
+// a tan φ requirement gives the two limits separately. At the point of connection the band may be
+// referred to a rated power instead of the case's own P (grid codes for generating sites state
+// the kvar a plant must stay within as a share of its rated power, so it holds at night too).
 import type { Requirement } from './model.ts';
 import { runCall } from './calls.ts';
 import { tanFromCos } from '../elements/powerTriangle.ts';
@@ -18,6 +20,13 @@ export interface Band {
 }
 
 export function requirementBand(r: Requirement): Band {
+  const band = limitsOf(r);
+  return r.refKw === undefined
+    ? band
+    : { ...band, text: `${band.text}, referred to ${formatNumber(r.refKw)} kW rated power` };
+}
+
+function limitsOf(r: Requirement): Band {
   if (r.kind === 'cosphi') {
     const t = tanFromCos(r.target);
     if (r.lagOnly)
@@ -68,8 +77,21 @@ export function kvarNeeded(pKw: number, qKvar: number, r: Requirement): Need {
   return { capacitive_kvar: Math.max(0, lag.value), inductive_kvar: Math.max(0, -lead.value) };
 }
 
-/** Within the band, with a small tolerance for rounding (kvar). */
+/**
+ * The active power the band is applied to at the point of connection: the rated power when the
+ * requirement is referred to it (a generating site), else the case's own |P|.
+ */
+export function referencePowerKw(pKw: number, r: Requirement): number {
+  return r.refKw ?? Math.abs(pKw);
+}
+
+/** kvar needed at the point of connection, P referred as the requirement says (referencePowerKw). */
+export function connectionNeed(pKw: number, qKvar: number, r: Requirement): Need {
+  return kvarNeeded(referencePowerKw(pKw, r), qKvar, r);
+}
+
+/** The point of connection within the band, with a small tolerance for rounding (kvar). */
 export function meets(pKw: number, qKvar: number, r: Requirement, tolKvar = 1e-6): boolean {
-  const n = kvarNeeded(pKw, qKvar, r);
+  const n = connectionNeed(pKw, qKvar, r);
   return n.capacitive_kvar <= tolKvar && n.inductive_kvar <= tolKvar;
 }

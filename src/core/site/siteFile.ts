@@ -37,7 +37,7 @@ function syntaxWhere(text: string): string {
   return at === undefined ? '' : ` at ${lineAndCharacter(text, at)}`;
 }
 
-function readRequirement(r: unknown, problems: Problem[]): Requirement {
+function readLimits(r: unknown, problems: Problem[]): Requirement {
   const fallback: Requirement = DEFAULT_REQUIREMENT;
   const bad = (what: string) => {
     problems.push(error({ column: 'settings.requirement' }, `settings.requirement ${what}`));
@@ -61,6 +61,22 @@ function readRequirement(r: unknown, problems: Problem[]): Requirement {
     return { kind: 'tanphi', lagMax: r.lagMax, leadMax: r.leadMax };
   }
   return bad(`kind must be "cosphi" or "tanphi"; got ${JSON.stringify(r.kind ?? null)}`);
+}
+
+/** The requirement, and the rated power its limits are referred to when it gives one (refKw). */
+function readRequirement(r: unknown, problems: Problem[]): Requirement {
+  const limits = readLimits(r, problems);
+  if (!isObject(r) || r.refKw === undefined || r.refKw === null) return limits;
+  if (typeof r.refKw !== 'number' || !(r.refKw > 0)) {
+    problems.push(
+      error(
+        { column: 'settings.requirement' },
+        `settings.requirement refKw (the rated power the limits are referred to) must be a number > 0 (kW) or absent; got ${JSON.stringify(r.refKw)}`,
+      ),
+    );
+    return limits;
+  }
+  return { ...limits, refKw: r.refKw };
 }
 
 function readSettings(s: unknown, problems: Problem[]): SiteSettings {

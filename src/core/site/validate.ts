@@ -74,6 +74,13 @@ function validateSettings(site: Site): Problem[] {
     if (!(r.leadMax >= 0))
       out.push(error({}, `settings: leading tan φ limit must be ≥ 0; got ${formatNumber(r.leadMax)}`));
   }
+  if (r.refKw !== undefined && !(r.refKw > 0))
+    out.push(
+      error(
+        {},
+        `settings: the rated power the requirement is referred to must be > 0 kW or blank; got ${formatNumber(r.refKw)}`,
+      ),
+    );
   if (s.sscMva !== undefined && !(s.sscMva > 0))
     out.push(
       error({}, `settings: supply short-circuit power must be > 0 MVA; got ${formatNumber(s.sscMva)}`),

@@ -30,6 +30,7 @@ export function settingsInputsOf(site: Site): SettingsInputs {
     cosTarget: r.kind === 'cosphi' ? r.target : null,
     tanLag: r.kind === 'tanphi' ? r.lagMax : null,
     tanLead: r.kind === 'tanphi' ? r.leadMax : null,
+    refKw: r.refKw ?? null,
     ssc: s.sscMva ?? null,
     cases: s.cases.map(textContent),
     notes: (s.notes ?? []).map(textContent),

@@ -99,6 +99,16 @@ export function readSettings(doc: SheetDoc | undefined, ctx: ReadContext): SiteS
     };
   }
 
+  const refKw = num('refKw');
+  if (refKw !== undefined && !(refKw > 0))
+    report(
+      ctx,
+      'error',
+      spot(rowOf('refKw'), SETTING_LABELS.refKw),
+      `must be > 0 (kW) or blank (the limits then apply to the case's own active power); got ${refKw}`,
+    );
+  else if (refKw !== undefined) requirement = { ...requirement, refKw };
+
   const ssc = num('ssc');
   if (ssc !== undefined && !(ssc > 0))
     report(ctx, 'error', spot(rowOf('ssc'), SETTING_LABELS.ssc), `must be > 0 (MVA) or blank; got ${ssc}`);

@@ -84,6 +84,12 @@ export function plainInstalledCell(input: CompensationInput, i: number): string 
   );
 }
 
+/** The active power the requirement's limits apply to at the point of connection (requirement.ts). */
+function referred(p: string): string {
+  const ref = settingRef('refKw');
+  return `IF(ISBLANK(${ref}),ABS(${p}),${ref})`;
+}
+
 export function renderCompensationSheet(input: CompensationInput): CellContent[][] {
   const { s, cols, busCols, inputs } = input;
   const n = s.buses.length;
@@ -139,7 +145,8 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(IF(${step}>0,${step},${fixed}),${ssc}))`;
     out[cols.vriseTotal] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total},${ssc}))`;
     s.cases.forEach((_, k) => {
-      const P = `ABS(${bus(busCols.p[k] as number)})`;
+      // At the point of connection the limits may refer to a rated power (Site sheet), not P.
+      const P = r === 1 ? referred(bus(busCols.p[k] as number)) : `ABS(${bus(busCols.p[k] as number)})`;
       const Q = bus(busCols.q[k] as number);
       const at = (list: readonly number[]) => here(list[k] as number);
       const root = (list: readonly number[]) => absCell(1, list[k] as number);
@@ -168,7 +175,7 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
         // A blank leading limit (cos φ lagging only) never asks for inductive kvar.
         out[cols.needInd[k] as number] =
           `=IF(${lead}="",0,MAX(0,-KVAR.TOTAN(${P},${Q}-SUM(${outs}),-${lead})))`;
-        const PA = `ABS(${bus(busCols.pAfter[k] as number)})`;
+        const PA = referred(bus(busCols.pAfter[k] as number));
         const QA = bus(busCols.qAfter[k] as number);
         out[cols.within[k] as number] =
           `=IF(AND(KVAR.TOTAN(${PA},${QA},${lag})<=${WITHIN_TOL_KVAR},IF(${lead}="",TRUE(),-KVAR.TOTAN(${PA},${QA},-${lead})<=${WITHIN_TOL_KVAR})),"yes","no")`;

@@ -21,6 +21,8 @@ export interface SettingsInputs {
   readonly cosTarget: CellContent;
   readonly tanLag: CellContent;
   readonly tanLead: CellContent;
+  /** Blank: the limits apply to the case's own P. */
+  readonly refKw: CellContent;
   readonly ssc: CellContent;
   /** Case names in order (non-blank). */
   readonly cases: readonly CellContent[];
@@ -47,6 +49,10 @@ const NOTES: Partial<Record<keyof typeof SETTING_ROWS, readonly [string | null, 
   ],
   tanLag: [null, 'Used when the requirement is tan φ: the largest tan φ allowed while drawing kvar.'],
   tanLead: [null, 'Used when the requirement is tan φ: the largest |tan φ| allowed while delivering kvar.'],
+  refKw: [
+    'kW',
+    "Blank: the limits apply to the site's active power in each case. For a site that generates, the rated (registered) active power the utility refers its kvar limits to, so the kvar allowed is the same at night as at full output.",
+  ],
   ssc: [
     'MVA',
     'Of the supply at the point of connection, from the utility; resonance and voltage rise need it. Blank = unknown: Checks warns and offers a typical value for the voltage.',
@@ -117,6 +123,7 @@ export function settingsInputCells(inputs: SettingsInputs): Array<readonly [numb
     [SETTING_ROWS.cosTarget, 1, inputs.cosTarget],
     [SETTING_ROWS.tanLag, 1, inputs.tanLag],
     [SETTING_ROWS.tanLead, 1, inputs.tanLead],
+    [SETTING_ROWS.refKw, 1, inputs.refKw],
     [SETTING_ROWS.ssc, 1, inputs.ssc],
   ];
   inputs.cases.forEach((c, i) => out.push([rows.cases.first + i, 1, c]));
@@ -166,6 +173,7 @@ export function readSettingsInputs(sheet: SheetDoc | undefined): SettingsInputs 
     cosTarget: valueOf('cosTarget'),
     tanLag: valueOf('tanLag'),
     tanLead: valueOf('tanLead'),
+    refKw: valueOf('refKw'),
     ssc: valueOf('ssc'),
     cases: list('case'),
     notes: list('assumption'),

@@ -11,6 +11,7 @@ export const SETTING_LABELS = {
   cosTarget: 'Target cos φ',
   tanLag: 'tan φ limit, lagging',
   tanLead: 'tan φ limit, leading',
+  refKw: 'Rated power the limits refer to',
   ssc: 'Short-circuit power at the connection point',
   lagInUse: 'tan φ limit in use, lagging',
   leadInUse: 'tan φ limit in use, leading',
@@ -35,12 +36,13 @@ export const SETTING_ROWS = {
   cosTarget: 4,
   tanLag: 5,
   tanLead: 6,
-  ssc: 7,
-  lagInUse: 8,
-  leadInUse: 9,
-  hzInUse: 10,
+  refKw: 7,
+  ssc: 8,
+  lagInUse: 9,
+  leadInUse: 10,
+  hzInUse: 11,
 } as const;
-export const FIRST_CASE_ROW = 11;
+export const FIRST_CASE_ROW = 12;
 export const VALUE_COL = 1;
 
 /** Absolute reference to a setting's value from another sheet, e.g. Site!$B$3. */

@@ -236,11 +236,11 @@ describe('workbook shape', () => {
 
   it('refers to the frequency in use on the Site sheet instead of copying it', () => {
     const cables = doc.sheets.find((s) => s.name === 'Cables');
-    expect(JSON.stringify(cables?.cells)).toMatch(/KVAR\.CABLE\([A-Z]+2,[A-Z]+2,[A-Z]+2,Site!\$B\$11\)/);
+    expect(JSON.stringify(cables?.cells)).toMatch(/KVAR\.CABLE\([A-Z]+2,[A-Z]+2,[A-Z]+2,Site!\$B\$12\)/);
     const site = doc.sheets[0];
     expect(site?.cells[2]).toEqual(['Frequency', 50, 'Hz', expect.any(String)]);
     // 50 or 60, else #N/A in every formula that uses it.
-    expect(site?.cells[10]?.slice(0, 2)).toEqual(['Frequency in use', '=IF(OR(B3=50,B3=60),B3,NA())']);
+    expect(site?.cells[11]?.slice(0, 2)).toEqual(['Frequency in use', '=IF(OR(B3=50,B3=60),B3,NA())']);
   });
 
   it('carries the cautions on the Site sheet', () => {

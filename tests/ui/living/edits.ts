@@ -2,14 +2,14 @@
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
 // typed on the Compensation sheet (steps, detuning, capacitor rating), a line's resistance typed
 // or cleared, rates and tariff values
-// typed or cleared on the Rates and Tariff sheets, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
+// typed or cleared on the Rates and Tariff sheets, the rated power the requirement refers to, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
 import fc from 'fast-check';
 import type { CellContent } from '../../../src/core/workbook/document.ts';
 import { equipmentPlans } from '../../../src/core/workbook/structure.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../../src/core/quote/index.ts';
-import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
+import { FIRST_CASE_ROW, SETTING_ROWS } from '../../../src/core/workbook/settingsLayout.ts';
 import type { WorkbookSession } from '../../../src/ui/model/session.ts';
 
 export type Edit =
@@ -26,6 +26,7 @@ export type Edit =
   | { op: 'resistance'; row: number; value: number | null }
   | { op: 'rate'; row: number; value: number | null }
   | { op: 'tariff'; row: number; value: number | null }
+  | { op: 'ratedPower'; value: number | null }
   | { op: 'rename'; bus: number; suffix: number }
   | { op: 'case'; rename: boolean; suffix: number }
   | { op: 'sort'; sheet: number; by: 'tag' | 'bus' | 'p_kw' | 'computed'; descending: boolean }
@@ -109,6 +110,10 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     op: fc.constant('tariff' as const),
     row: fc.nat(),
     value: fc.option(num(0, 5000), { nil: null, freq: 4 }),
+  }),
+  fc.record({
+    op: fc.constant('ratedPower' as const),
+    value: fc.option(num(50, 50_000), { nil: null, freq: 3 }),
   }),
   fc.record({ op: fc.constant('rename' as const), bus: fc.nat(), suffix: fc.nat(99) }),
   fc.record({ op: fc.constant('case' as const), rename: fc.boolean(), suffix: fc.nat(99) }),
@@ -278,6 +283,12 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       const row = 1 + (e.row % (rows - 1));
       s.setCells(tariff, [{ row, col: 1, content: e.value }]);
       return `tariff row ${row + 1} = ${e.value}`;
+    }
+    case 'ratedPower': {
+      // The rated power the requirement's limits refer to, typed or cleared on the Site sheet.
+      const site = s.engine.getSheetId('Site') as number;
+      s.setCells(site, [{ row: SETTING_ROWS.refKw, col: 1, content: e.value }]);
+      return `rated power for the limits = ${e.value}`;
     }
     case 'rename': {
       if (buses.length === 0) return 'rename: no bus';

@@ -111,13 +111,18 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
   );
 }
 
-const requirementArb: fc.Arbitrary<Requirement> = fc.oneof(
+const limitsArb: fc.Arbitrary<Requirement> = fc.oneof(
   num(0.9, 0.99).map((target) => ({ kind: 'cosphi' as const, target })),
   num(0.9, 0.99).map((target) => ({ kind: 'cosphi' as const, target, lagOnly: true })),
   fc
     .record({ lagMax: num(0.2, 0.5), leadMax: num(0.1, 0.4) })
     .map((r) => ({ kind: 'tanphi' as const, ...r })),
 );
+
+/** The limits, one time in four referred to a rated power (a site that generates). */
+const requirementArb: fc.Arbitrary<Requirement> = fc
+  .tuple(limitsArb, fc.option(num(50, 50_000), { freq: 3 }))
+  .map(([r, refKw]) => (refKw === null ? r : { ...r, refKw }));
 
 export const siteArb: fc.Arbitrary<ArbSite> = fc
   .record({
