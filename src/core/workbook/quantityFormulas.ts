@@ -130,7 +130,13 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   };
   switch (slot) {
     case 'stepCapacitors':
-      return capacitors(`"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`, k.step, k.steps, `${k.steps}>0`);
+      // Units for every smallest step of the series (the bank total less the fixed part).
+      return capacitors(
+        `"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`,
+        k.step,
+        `ROUND((${k.total}-${k.fixed})/${k.step},0)`,
+        `${k.steps}>0`,
+      );
     case 'fixedCapacitors':
       return capacitors(`fixed "&${r2(k.fixed)}&" kvar`, k.fixed, '1', `${k.fixed}>0`);
     case 'detuning': {

@@ -45,7 +45,7 @@ function resonanceCheck(first: string, whole: string): string {
  * The controller step count of `n` stages in series `ser` (stepSeries.ts controllerCount): n for
  * blank or 1:1:1, 2n − 1 for 1:2:2, 2^n − 1 for 1:2:4; 0 without stages; #N/A for another series.
  */
-function controllerStepsFormula(ser: string, n: string): string {
+export function controllerStepsFormula(ser: string, n: string): string {
   return `=IF(NOT(${n}>0),0,IF(OR(ISBLANK(${ser}),${ser}="1:1:1"),${n},IF(${ser}="1:2:2",2*${n}-1,IF(${ser}="1:2:4",2^${n}-1,NA()))))`;
 }
 
