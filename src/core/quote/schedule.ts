@@ -140,7 +140,8 @@ export function busSchedule(spec: BankSpec): ScheduleItem[] {
       });
     }
     if (spec.steps > 0) {
-      const sw = switchingDevice(spec, spec.step_kvar, CAPACITOR_CURRENT_FACTOR);
+      // One device per stage, each sized for the largest stage (never below what it switches).
+      const sw = switchingDevice(spec, spec.largest_stage_kvar, CAPACITOR_CURRENT_FACTOR);
       items.push(
         pieces(
           spec,

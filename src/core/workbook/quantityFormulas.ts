@@ -103,6 +103,17 @@ function controllerCount(n: string): string {
   return `IF(${n}<=${largest},1,ROUNDUP(${n}/${largest},0))`;
 }
 
+/**
+ * The largest stage, kvar, from the bus line's basis: its smallest steps c = (total − fixed) /
+ * step over n stages tell the series apart (c = n equal stages, c = 2n − 1 for 1:2:2 whose
+ * largest is 2 steps, else 1:2:4 whose largest is (c + 1)/2 = 2^(n − 1) steps; n = 2 gives 2 in
+ * both). Every stage's device is sized for it: never below the stage it switches.
+ */
+function largestStage(k: ReturnType<typeof basis>): string {
+  const c = `ROUND((${k.total}-${k.fixed})/${k.step},0)`;
+  return `${k.step}*IF(${c}<=${k.steps},1,IF(${c}=2*${k.steps}-1,2,(${c}+1)/2))`;
+}
+
 /** Formulas of one item line at `row` of the bus whose bus line is `busRow`. */
 export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   const k = basis(busRow);
@@ -163,7 +174,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         count: when('', k.steps),
         quantity: when('', k.steps),
         unit: 'pc',
-        amps: `=IF(AND(${k.known},${k.steps}>0),${lineCurrent(k.step, k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
+        amps: `=IF(AND(${k.known},${k.steps}>0),${lineCurrent(largestStage(k), k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
       };
     }
     case 'controller': {

@@ -155,10 +155,12 @@ describe('a 1:2:2 bank of 4 stages, 25 kvar smallest, plain at 400 V with 440 V 
     expect(items.get('LV capacitor')?.quantity).toBeCloseTo(7 * 30.25, 6);
     expect(items.get('LV capacitor')?.count).toBe(7);
   });
-  it('one contactor and one controller output per physical stage: 4, one 6-output controller', () => {
+  it('one contactor per physical stage, sized for the 50 kvar stage (72.2 A × 1.43 = 103.2 A → 125 A), one 6-output controller', () => {
     expect(spec.controller_steps).toBe(7);
+    // Sized for the smallest stage it would be 36.1 A × 1.43 = 51.6 A → 63 A: too small for 50 kvar.
+    expect((25 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(51.6, 1);
     const contactors = [...items.values()].filter((i) => i.code.startsWith('LV contactor'));
-    expect(contactors.reduce((n, i) => n + (i.count ?? 0), 0)).toBe(4);
+    expect(contactors.map((i) => [i.code, i.count])).toEqual([['LV contactor 125 A', 4]]);
     expect(items.get('Step controller 6 outputs')?.count).toBe(1);
   });
   it('the incomer carries all 175 kvar: 252.6 A × 1.43 = 361.2 A → 400 A fuse-switch', () => {
