@@ -2,14 +2,7 @@
 // controller drives, how a large need is spread over sections (panels, each with its own
 // controller), and what switches the steps. Every threshold is a named constant with its kind.
 import { LV_MAX_KV } from './capacitorRatings.ts';
-import {
-  BINARY_MAX_STAGES,
-  STEP_SERIES,
-  controllerSteps,
-  largestRatio,
-  maxStagesOf,
-  type StepSeries,
-} from './stepSeries.ts';
+import { STEP_SERIES, controllerSteps, largestRatio, maxStagesOf, type StepSeries } from './stepSeries.ts';
 
 /** Step outputs offered at the operating voltage, kvar (common practice: makers' usual step sizes). */
 export const STEP_SERIES_KVAR: readonly number[] = [
@@ -40,8 +33,6 @@ export const MV_CONTACTOR_MAX_KV = 12;
  * contactors, not by adding capacitors; 1:2:2 adds at most one, binary may add many).
  */
 export const SERIES_MAX_EXTRA_STEPS = 1;
-
-export { BINARY_MAX_STAGES };
 
 export type SwitchingDevice = 'capacitor-duty contactor' | 'vacuum contactor' | 'circuit breaker';
 
@@ -87,7 +78,7 @@ export function sectionsOf(n: number): number[] {
  * The series a panel builder would take for `positions` smallest steps of `step` kvar at LV: the one
  * with the fewest physical stages that reaches as many positions (at most SERIES_MAX_EXTRA_STEPS
  * more), no stage above the largest step the voltage allows and a binary series no longer than
- * BINARY_MAX_STAGES; equal stages when nothing saves a stage (ties go to the simpler series).
+ * BINARY_MAX_STAGES (stepSeries.ts); equal stages when nothing saves a stage (ties go to the simpler series).
  */
 export function chooseSeries(
   step: number,
