@@ -29,7 +29,8 @@ import { rollUpAll, SiteStructureError, type BusBalance, type CaseBalance } from
 import { withinRequirement, type CaseCompensation } from '../core/site/compensate.ts';
 import { proposeChoices } from '../core/site/compensation.ts';
 import { assessBanks, type Assessment } from '../core/site/assessBanks.ts';
-import { bankTotal, type BankChoice } from '../core/site/bankChoice.ts';
+import { bankTotal, controllerStepsOf, type BankChoice } from '../core/site/bankChoice.ts';
+import { DEFAULT_STEP_SERIES } from '../core/site/stepSeries.ts';
 import { requirementBand } from '../core/site/requirement.ts';
 import { CAUTION_SHORT } from '../core/cautions.ts';
 
@@ -125,6 +126,8 @@ function toJson(
         const inCase = outcome?.banks.find((x) => x.bus === b.bus);
         return {
           ...b,
+          series: b.series ?? DEFAULT_STEP_SERIES,
+          controller_steps: controllerStepsOf(b),
           total_kvar: bankTotal(b),
           steps_in_case: inCase?.steps_in ?? 0,
           output_kvar_in_case: inCase?.output_kvar ?? 0,
@@ -156,14 +159,24 @@ const FROM_TEXT: Record<BanksFrom, string> = {
   proposed: 'compensation proposed (the file gives none; sized over all cases)',
 };
 
+/** A step or fixed size as typed, to 0.01 kvar (12.5 kvar steps are common; rounding to 13 misleads). */
+const sizeText = (x: number) => String(Math.round(x * 100) / 100);
+
+/** Equal stages as "6 × 50 kvar steps"; a series as "4 stages 1:2:2 = 7 × 25 kvar steps". */
+function stepsText(b: BankChoice): string {
+  const steps = `${num(controllerStepsOf(b), 0)} × ${sizeText(b.step_kvar ?? 0)} kvar steps`;
+  const series = b.series ?? DEFAULT_STEP_SERIES;
+  return series === DEFAULT_STEP_SERIES ? steps : `${b.steps} stages ${series} = ${steps}`;
+}
+
 function bankLine(
   b: BankChoice,
   u: number | undefined,
   inCase: CaseCompensation['banks'][number] | undefined,
 ) {
   const parts = [
-    (b.fixed_kvar ?? 0) > 0 ? `fixed ${num(b.fixed_kvar, 0)} kvar` : '',
-    (b.steps ?? 0) > 0 ? `${b.steps} × ${num(b.step_kvar ?? 0, 0)} kvar steps` : '',
+    (b.fixed_kvar ?? 0) > 0 ? `fixed ${sizeText(b.fixed_kvar ?? 0)} kvar` : '',
+    (b.steps ?? 0) > 0 ? stepsText(b) : '',
   ].filter(Boolean);
   const lines: string[] = [];
   const where = `  ${b.bus}${u === undefined ? '' : ` (${u} kV)`}: `;

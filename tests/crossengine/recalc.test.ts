@@ -125,6 +125,33 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(lines).toBe(5);
   });
 
+  it('recalculates banks of the 1:2:2 and 1:2:4 series: controller steps and totals by hand', () => {
+    // Every formula cell was compared above; this says the books hold both series (the
+    // templates' proposals) and LibreOffice's counts follow the ratio notation: 1:2:2 in n
+    // stages is 1 + 2(n − 1) smallest steps, 1:2:4 is 1 + 2 + … + 2^(n − 1) = 2^n − 1.
+    const seen = new Set<string>();
+    for (const base of ['pumping-station', 'cold-store']) {
+      const [head, ...rows] = sheetCsv(outDir, base, 'Compensation');
+      const col = (h: string) => head?.indexOf(h) ?? -1;
+      for (const r of rows.filter(
+        (x) => x[col('Step series')] === '1:2:2' || x[col('Step series')] === '1:2:4',
+      )) {
+        const series = r[col('Step series')] as string;
+        const [n, step, fixed] = [
+          Number(r[col('Steps')]),
+          Number(r[col('Step (kvar)')]),
+          Number(r[col('Fixed (kvar)')] || 0),
+        ];
+        let positions = 0;
+        for (let i = 0; i < n; i++) positions += series === '1:2:2' ? (i === 0 ? 1 : 2) : 2 ** i;
+        expect(Number(r[col('Controller steps')])).toBe(positions);
+        expect(Number(r[col('Bank total (kvar)')])).toBeCloseTo(fixed + step * positions, 9);
+        seen.add(series);
+      }
+    }
+    expect([...seen].sort()).toEqual(['1:2:2', '1:2:4']);
+  });
+
   it('shows no unknown-name error anywhere', () => {
     for (const f of csvFiles(outDir)) {
       if (f.includes('_kvar_ledger') || f.includes('Functions used')) continue;

@@ -5,6 +5,7 @@ import type { BankChoice } from '../site/bankChoice.ts';
 import { runCall } from '../site/calls.ts';
 import { isLowVoltage } from '../site/bankRules.ts';
 import { sectionsOf } from '../site/stepRules.ts';
+import { DEFAULT_STEP_SERIES, controllerCount, largestRatio } from '../site/stepSeries.ts';
 
 export interface BankSpec {
   readonly bus: string;
@@ -14,7 +15,11 @@ export interface BankSpec {
   /** Outputs at the operating voltage, kvar. */
   readonly fixed_kvar: number;
   readonly step_kvar: number;
+  /** Physical stages, and the smallest steps they switch (the controller step count of their series). */
   readonly steps: number;
+  readonly controller_steps: number;
+  /** The largest stage, kvar: each stage's switching device is sized for it (0 without steps). */
+  readonly largest_stage_kvar: number;
   /** Detuning factor, % (0 = plain), and the order and frequency it tunes to (null when plain). */
   readonly p_pct: number;
   readonly tuning_order: number | null;
@@ -63,6 +68,8 @@ export function bankSpec(choice: BankChoice, uKv: number, hz: number): BankSpec 
     fixed_kvar: fixed,
     step_kvar: steps > 0 ? step : 0,
     steps,
+    controller_steps: controllerCount(choice.series ?? DEFAULT_STEP_SERIES, steps),
+    largest_stage_kvar: steps > 0 ? step * largestRatio(choice.series ?? DEFAULT_STEP_SERIES, steps) : 0,
     p_pct: p,
     tuning_order: order,
     tuned_hz: order === null ? null : order * hz,

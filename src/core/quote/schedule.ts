@@ -114,7 +114,7 @@ function controllers(sections: readonly number[]): { outputs: number; count: num
 /** Every item of one bus's bank and reactor, in the order an offer lists them. */
 export function busSchedule(spec: BankSpec): ScheduleItem[] {
   const items: ScheduleItem[] = [];
-  const total = spec.fixed_kvar + spec.step_kvar * spec.steps;
+  const total = spec.fixed_kvar + spec.step_kvar * spec.controller_steps;
   const lv = spec.low_voltage;
   if (total > 0) {
     if (spec.steps > 0)
@@ -123,7 +123,7 @@ export function busSchedule(spec: BankSpec): ScheduleItem[] {
           spec,
           `${spec.steps} steps of ${fmt(spec.step_kvar)} kvar`,
           spec.step_nameplate_kvar,
-          spec.steps,
+          spec.controller_steps,
         ),
       );
     if (spec.fixed_kvar > 0)
@@ -140,7 +140,8 @@ export function busSchedule(spec: BankSpec): ScheduleItem[] {
       });
     }
     if (spec.steps > 0) {
-      const sw = switchingDevice(spec, spec.step_kvar, CAPACITOR_CURRENT_FACTOR);
+      // One device per stage, each sized for the largest stage (never below what it switches).
+      const sw = switchingDevice(spec, spec.largest_stage_kvar, CAPACITOR_CURRENT_FACTOR);
       items.push(
         pieces(
           spec,

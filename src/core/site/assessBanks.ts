@@ -4,7 +4,7 @@
 // voltage rise per step; then the outcome by the one rule for after compensation (compensate.ts):
 // the requirement per case, and buses left delivering kvar with capacitors in.
 import type { Site } from './model.ts';
-import { bankTotal, type BankChoice } from './bankChoice.ts';
+import { bankTotal, controllerStepsOf, largestStageKvar, type BankChoice } from './bankChoice.ts';
 import { buildBusGraph } from './graph.ts';
 import { busShortCircuit } from './shortCircuit.ts';
 import { infiniteSupplyNote } from './supplyStrength.ts';
@@ -93,7 +93,9 @@ function bankWarnings(
       .reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);
     const fixed = c.fixed_kvar ?? 0;
     const step = c.step_kvar ?? 0;
-    const states = [fixed, ...Array.from({ length: c.steps ?? 0 }, (_, k) => fixed + (k + 1) * step)].filter(
+    // Every position the controller switches: whole smallest steps up to its step count.
+    const positions = Math.max(0, Math.floor(controllerStepsOf(c)));
+    const states = [fixed, ...Array.from({ length: positions }, (_, k) => fixed + (k + 1) * step)].filter(
       (q) => q > 0,
     );
     // A detuned bank's capacitors alone: its output Q at the bus is U²/(Xc·(1 − p)), so the
@@ -123,14 +125,15 @@ function bankWarnings(
         }
       }
     }
-    const rise = voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
+    const stage = largestStageKvar(c);
+    const rise = voltageRise(stage, sc.ssc_mva);
     if (rise > STEP_VRISE_LIMIT_PCT) {
       out.push(
         designWarning(
           'warning',
           'voltage-rise',
           { bus: c.bus },
-          `switching one ${step > 0 ? step : fixed} kvar step on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT)${infiniteSupplyNote(sc)}, above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
+          `switching one ${f(stage)} kvar stage on bus ${c.bus} raises the voltage by ${f(rise, 2)} % (VRISE.PCT)${infiniteSupplyNote(sc)}, above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
         ),
       );
     }

@@ -29,6 +29,7 @@ import { designWarning, type DesignWarning } from './warnings.ts';
 import type { CapacitorRating } from './capacitorRatings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
 import { grouped } from './limits.ts';
+import { DEFAULT_STEP_SERIES, largestRatio, type StepSeries } from './stepSeries.ts';
 
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
@@ -43,9 +44,12 @@ export interface BankDesign {
   readonly u_kv: number;
   /** Outputs at the operating voltage, kvar (positive numbers: what the bank delivers). */
   readonly fixed_kvar: number;
+  /** The smallest stage, kvar; physical stages; their series; positions the controller switches. */
   readonly step_kvar: number;
   readonly steps: number;
-  /** Steps per section (a panel with its own controller), and what switches them: for a schedule. */
+  readonly series: StepSeries;
+  readonly controller_steps: number;
+  /** Stages per section (a panel with its own controller), and what switches them: for a schedule. */
   readonly sections: readonly number[];
   readonly switching: StepPlan['switching'] | 'fixed, switched with its feeder' | 'switched with the motor';
   readonly total_kvar: number;
@@ -64,7 +68,7 @@ export interface BankDesign {
   readonly resonance: readonly ResonancePoint[];
   readonly vrise_step_pct: number | null;
   readonly vrise_total_pct: number | null;
-  /** Steps switched in, per case (the controller's choice: whole steps covering the bus's share). */
+  /** Smallest steps switched in, per case (the controller's choice: whole steps covering the bus's share). */
   readonly steps_in: Readonly<Record<string, number>>;
   /** For individual motor compensation: KVAR.MOTORCAP.MAX of the motor. */
   readonly self_excitation_limit_kvar?: number;
@@ -123,6 +127,8 @@ export function sizeBank(
   let fixed: number;
   let step = 0;
   let steps = 0;
+  let series: StepSeries = DEFAULT_STEP_SERIES;
+  let positions = 0;
   let sections: readonly number[] = [];
   let switching: BankDesign['switching'] = 'fixed, switched with its feeder';
   let why: string;
@@ -163,14 +169,15 @@ export function sizeBank(
     const variable = most - fixed;
     if (variable > 1e-6) {
       const chosen = chooseStep(variable, uKv);
-      ({ step, steps, sections, switching } = chosen);
+      ({ step, steps, series, sections, switching } = chosen);
+      positions = chosen.controller_steps;
       if (chosen.capped)
         warnings.push(
           designWarning(
             'warning',
             'bank-capped',
             { bus },
-            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${steps} × ${step} kvar = ${grouped(steps * step)} kvar in ${sections.length} section${sections.length === 1 ? '' : 's'}); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
+            `bus ${bus} would need ${grouped(Math.round(variable))} kvar of switched capacitors, more than the largest bank proposed (${positions} × ${step} kvar = ${grouped(positions * step)} kvar in ${sections.length} section${sections.length === 1 ? '' : 's'}); the bank is capped there. Check the input: an overloaded transformer, a quantity or a power typed too large`,
           ),
         );
     }
@@ -178,11 +185,13 @@ export function sizeBank(
       fixed > 0
         ? "fixed part for the feeding transformer's no-load kvar, automatic steps for the rest"
         : 'automatic steps';
+    if (series !== DEFAULT_STEP_SERIES)
+      why += `: ${steps} stages in the series ${series} give ${positions} controller steps of ${step} kvar, with fewer stages and contactors than equal ones`;
     if (sections.length > 1)
       why += ` in ${sections.length} sections of ${sections.join(' + ')} steps (one controller of at most ${MAX_STEPS} outputs each)`;
   }
-  const total = fixed + step * steps;
-  const states = [fixed, ...Array.from({ length: steps }, (_, k) => fixed + (k + 1) * step)].filter(
+  const total = fixed + step * positions;
+  const states = [fixed, ...Array.from({ length: positions }, (_, k) => fixed + (k + 1) * step)].filter(
     (q) => q > 0,
   );
 
@@ -238,7 +247,9 @@ export function sizeBank(
   const rating = chooseCapacitorRating(uCap, hz);
   const uRated = rating.bank_rated_kv;
   const perNameplate = outputPerNameplateKvar(uRated, uKv, p, hz);
-  const vStep = sc === undefined || total === 0 ? null : voltageRise(step > 0 ? step : fixed, sc.ssc_mva);
+  // One switching operation adds at most the largest stage.
+  const stage = step > 0 ? step * largestRatio(series, steps) : fixed;
+  const vStep = sc === undefined || total === 0 ? null : voltageRise(stage, sc.ssc_mva);
   const vTotal = sc === undefined || total === 0 ? null : voltageRise(total, sc.ssc_mva);
   if (vStep !== null && vStep > STEP_VRISE_LIMIT_PCT) {
     warnings.push(
@@ -246,18 +257,20 @@ export function sizeBank(
         'warning',
         'voltage-rise',
         { bus },
-        `switching one ${step > 0 ? step : fixed} kvar step on bus ${bus} raises the voltage by ${vStep.toFixed(2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
+        `switching one ${stage} kvar stage on bus ${bus} raises the voltage by ${vStep.toFixed(2)} % (VRISE.PCT), above ${STEP_VRISE_LIMIT_PCT} %; use smaller steps`,
       ),
     );
   }
   const stepsIn = nameTable<number>();
-  for (const c of site.settings.cases) stepsIn[c] = stepsFor(entryOf(share, c) ?? 0, fixed, step, steps);
+  for (const c of site.settings.cases) stepsIn[c] = stepsFor(entryOf(share, c) ?? 0, fixed, step, positions);
   const bank: BankDesign = {
     bus,
     u_kv: uKv,
     fixed_kvar: fixed,
     step_kvar: step,
     steps,
+    series,
+    controller_steps: positions,
     total_kvar: total,
     p_pct: p,
     tuning_order: p > 0 ? 1 / Math.sqrt(p / 100) : null,
@@ -304,15 +317,19 @@ export function bankRows(
     });
   }
   if (bank.steps > 0) {
+    // One unit per smallest step the controller switches: the stages of a 1:2:2 or 1:2:4 bank
+    // are whole multiples of the smallest, so its output is the same.
+    const n = bank.controller_steps;
     const loads = nameTable<number>();
-    for (const c of cases) loads[c] = (entryOf(bank.steps_in, c) ?? 0) / bank.steps;
+    for (const c of cases) loads[c] = (entryOf(bank.steps_in, c) ?? 0) / n;
+    const stages = bank.series === DEFAULT_STEP_SERIES ? '' : ` (${bank.steps} stages ${bank.series})`;
     rows.push({
       row: firstRow + rows.length,
       tag: `${tagBase}-S`,
-      description: `proposed ${bank.steps} × ${bank.step_kvar} kvar steps`,
+      description: `proposed ${n} × ${bank.step_kvar} kvar steps${stages}`,
       bus: bank.bus,
       kind: 'capacitor',
-      values: { qty: bank.steps, running: bank.steps, q_kvar: bank.step_rated_kvar, ...common },
+      values: { qty: n, running: n, q_kvar: bank.step_rated_kvar, ...common },
       loads,
     });
   }

@@ -5,8 +5,9 @@
 // 1. The need: the capacitive kvar that brings the point of connection, as it is before
 //    compensation, to the lagging limit (KVAR.TOPF for a cos φ target, KVAR.TOTAN for tan φ).
 // 2. Each bank covers the same share of its size: need × (its total ÷ the total of all banks in
-//    service). Its controller switches whole steps (BANK.ROUNDUP) above the fixed part to cover
-//    that share, never more steps than it has. When the banks together are big enough, their
+//    service). Its controller switches whole smallest steps (BANK.ROUNDUP) above the fixed part
+//    to cover that share, never more than its controller step count (1:2:2 and 1:2:4 stages
+//    give more positions than stages: stepSeries.ts). When the banks together are big enough, their
 //    outputs add up to at least the need. A bank that is a motor's own capacitor is out, fixed
 //    part too, in the cases where the motor is stopped (individualCompensation.ts).
 // 3. A shunt reactor goes in, whole, in the cases where the point of connection would still be
@@ -16,7 +17,7 @@
 // The requirement is judged on that last roll-up.
 import type { Site } from './model.ts';
 import { runCall } from './calls.ts';
-import { bankTotal, type BankChoice } from './bankChoice.ts';
+import { bankTotal, controllerStepsOf, type BankChoice } from './bankChoice.ts';
 import { connectionNeed, referencePowerKw, requirementBand, type Need } from './requirement.ts';
 import { rollUp, type BusExtra, type CaseBalance } from './rollup.ts';
 import { buildBusGraph, type BusGraph } from './graph.ts';
@@ -56,10 +57,13 @@ function roundUp(q: number, step: number): number {
   return r.value;
 }
 
-/** Steps a bank switches in for a share of the need (the workbook's Steps-in formula). */
+/**
+ * Smallest steps a bank switches in for a share of the need (the workbook's Steps-in formula): up
+ * to its controller step count, whatever series its stages follow.
+ */
 export function stepsIn(choice: BankChoice, share: number): number {
   const step = choice.step_kvar ?? 0;
-  const steps = choice.steps ?? 0;
+  const steps = controllerStepsOf(choice);
   if (step === 0 || steps === 0) return 0;
   return Math.min(steps, roundUp(share - (choice.fixed_kvar ?? 0), step) / step);
 }

@@ -40,6 +40,7 @@ import {
   isLowVoltage,
 } from './bankRules.ts';
 import { bankRows, sizeBank, type BankDesign } from './bankSizing.ts';
+import { DEFAULT_STEP_SERIES } from './stepSeries.ts';
 import { checkInstalled } from './installedChecks.ts';
 import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
 
@@ -471,6 +472,7 @@ export function choicesFromDesign(
     if (b.steps > 0) {
       c.step_kvar = b.step_kvar;
       c.steps = b.steps;
+      if (b.series !== DEFAULT_STEP_SERIES) c.series = b.series;
     }
     if (b.p_pct > 0) c.p_pct = b.p_pct;
     c.u_rated_kv = b.u_rated_kv;

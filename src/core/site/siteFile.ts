@@ -4,12 +4,14 @@
 //    "equipment":[
 //      {"tag":"T1","bus":"MV","kind":"transformer",...,"load:night":0.4},
 //      ...],
-//    "banks":[{"bus":"LV1","fixed_kvar":20,"step_kvar":50,"steps":6,...}, ...]}   (optional)
+//    "banks":[{"bus":"LV1","fixed_kvar":20,"step_kvar":25,"steps":4,"series":"1:2:2",...}, ...]}
+//    (optional; "series" absent: equal stages)
 // Equipment keys are exactly the interchange column names (load:<case> included), so a row
 // reads the same in the file, in a CSV and in the workbook. Rows are read through
 // parseEquipmentTable, so numbers, kinds and unknown keys get the same messages; "row N" in a
 // message is the N-th equipment row of the file. `banks`, when given, are the Compensation
 // sheet's inputs per bus (a template carries the design's proposal, so opening it needs no design).
+import { STEP_SERIES_ALLOWED, seriesProblem, type StepSeries } from './stepSeries.ts';
 import { DEFAULT_CASE, DEFAULT_REQUIREMENT, defaultSettings, UNTITLED_SITE } from './defaults.ts';
 import {
   NUMERIC_COLUMNS,
@@ -178,6 +180,14 @@ function readBanks(v: unknown, problems: Problem[]): BankChoice[] | undefined {
         bad(i, `${k} must be a number ≥ 0; got ${JSON.stringify(x)}`);
       else c[k] = x;
     }
+    if (b.series !== undefined && b.series !== null) {
+      const why =
+        typeof b.series === 'string'
+          ? seriesProblem(b.series.trim(), c.steps)
+          : `must be one of ${STEP_SERIES_ALLOWED}; got ${JSON.stringify(b.series)}`;
+      if (why !== undefined) bad(i, `series ${why}`);
+      else c.series = (b.series as string).trim() as StepSeries;
+    }
     if (typeof b.note === 'string') c.note = b.note;
     out.push(c);
   });
@@ -266,6 +276,7 @@ function rowObject(row: EquipmentRow, cases: readonly string[]): Record<string, 
 function bankObject(b: BankChoice): Record<string, string | number> {
   const o: Record<string, string | number> = { bus: b.bus };
   for (const k of BANK_KEYS) if (b[k] !== undefined) o[k] = b[k] as number;
+  if (b.series !== undefined) o.series = b.series;
   if (b.note !== undefined) o.note = b.note;
   return o;
 }

@@ -2,6 +2,7 @@
 // controller drives, how a large need is spread over sections (panels, each with its own
 // controller), and what switches the steps. Every threshold is a named constant with its kind.
 import { LV_MAX_KV } from './capacitorRatings.ts';
+import { STEP_SERIES, controllerSteps, largestRatio, maxStagesOf, type StepSeries } from './stepSeries.ts';
 
 /** Step outputs offered at the operating voltage, kvar (common practice: makers' usual step sizes). */
 export const STEP_SERIES_KVAR: readonly number[] = [
@@ -26,15 +27,24 @@ export const LV_MAX_SECTIONS = 4;
 /** Vacuum contactors switch MV steps up to this voltage, kV; above it circuit breakers (common practice: 7.2 and 12 kV contactors). */
 export const MV_CONTACTOR_MAX_KV = 12;
 
-/** Steps of equal size: the rule after compensation switches equal whole steps (1:1:1…). */
-export const STEP_RATIO = '1:1:1';
+/**
+ * A series other than equal stages is taken only when it carries at most this many smallest
+ * steps more than equal stages would (common practice: a panel builder saves stages and
+ * contactors, not by adding capacitors; 1:2:2 adds at most one, binary may add many).
+ */
+export const SERIES_MAX_EXTRA_STEPS = 1;
 
 export type SwitchingDevice = 'capacitor-duty contactor' | 'vacuum contactor' | 'circuit breaker';
 
 export interface StepPlan {
+  /** The smallest stage, kvar: the resolution the controller reaches. */
   readonly step: number;
+  /** Physical stages, each with its switching device and controller output. */
   readonly steps: number;
-  /** Steps of each section, in order (one section when one controller is enough). */
+  readonly series: StepSeries;
+  /** Positions the controller switches, in smallest steps (stepSeries.ts controllerSteps). */
+  readonly controller_steps: number;
+  /** Stages of each section, in order (one section when one controller is enough). */
   readonly sections: readonly number[];
   readonly switching: SwitchingDevice;
   /** true when the need exceeds the largest bank proposed: it covers less than asked. */
@@ -65,20 +75,58 @@ export function sectionsOf(n: number): number[] {
 }
 
 /**
+ * The series a panel builder would take for `positions` smallest steps of `step` kvar at LV: the one
+ * with the fewest physical stages that reaches as many positions (at most SERIES_MAX_EXTRA_STEPS
+ * more), no stage above the largest step the voltage allows and a binary series no longer than
+ * BINARY_MAX_STAGES (stepSeries.ts); equal stages when nothing saves a stage (ties go to the simpler series).
+ */
+export function chooseSeries(
+  step: number,
+  positions: number,
+  uKv: number,
+): { series: StepSeries; stages: number } {
+  let best: { series: StepSeries; stages: number } = { series: '1:1:1', stages: positions };
+  // MV stages are few and each already large: doubling one doubles the voltage step of switching
+  // it (common practice: MV banks are built of equal stages or a fixed part).
+  if (uKv > LV_MAX_KV) return best;
+  for (const series of STEP_SERIES) {
+    let stages = 1;
+    while (controllerSteps(series, stages) < positions) stages++;
+    const fits =
+      stages <= maxStagesOf(series) &&
+      controllerSteps(series, stages) <= positions + SERIES_MAX_EXTRA_STEPS &&
+      step * largestRatio(series, stages) <= maxStepKvar(uKv) + EPS;
+    if (fits && stages < best.stages) best = { series, stages };
+  }
+  return best;
+}
+
+/**
  * The smallest standard step, no larger than the voltage allows, that covers q in at most the
  * preferred number of steps (the largest allowed when none does); as many steps as that takes,
- * never more than maxStepsAt (`capped` says the bank covers less than q).
+ * never more than maxStepsAt (`capped` says the bank covers less than q); then the series that
+ * reaches those steps with the fewest stages (chooseSeries).
  */
 export function chooseStep(qKvar: number, uKv: number): StepPlan {
   const preferred = uKv <= LV_MAX_KV ? PREFERRED_STEPS_LV : PREFERRED_STEPS_MV;
   const allowed = STEP_SERIES_KVAR.filter((s) => s <= maxStepKvar(uKv) + EPS);
-  const series = allowed.length > 0 ? allowed : STEP_SERIES_KVAR.slice(0, 1);
+  const sizes = allowed.length > 0 ? allowed : STEP_SERIES_KVAR.slice(0, 1);
   const step =
-    series.find((s) => Math.ceil(qKvar / s - EPS) <= preferred) ?? (series[series.length - 1] as number);
+    sizes.find((s) => Math.ceil(qKvar / s - EPS) <= preferred) ?? (sizes[sizes.length - 1] as number);
   const wanted = Math.max(1, Math.ceil(qKvar / step - EPS));
   const most = maxStepsAt(uKv);
   // NaN or an overflowing need must not become a step count either.
   const capped = !(wanted <= most);
-  const steps = capped ? most : wanted;
-  return { step, steps, sections: sectionsOf(steps), switching: switchingDevice(uKv), capped };
+  const positions = capped ? most : wanted;
+  // A bank beyond one controller already steps at the largest size allowed: it stays 1:1:1.
+  const { series, stages } = chooseSeries(step, positions, uKv);
+  return {
+    step,
+    steps: stages,
+    series,
+    controller_steps: controllerSteps(series, stages),
+    sections: sectionsOf(stages),
+    switching: switchingDevice(uKv),
+    capped,
+  };
 }

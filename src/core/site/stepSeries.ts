@@ -4,7 +4,8 @@
 // controller reaches is the smallest stage; the bank's total is that times the step count.
 // Common practice (power-factor controllers offer these programmes; the names are the trade's
 // ratio notation): 1:1:1… equal stages, 1:2:2… one small stage then double ones, 1:2:4…
-// binary. Not yet used by the design or the sheets: bankChoice.ts still holds equal steps.
+// binary. A bank's step is its smallest stage and its step count its physical stages; the rule
+// after compensation (compensate.ts) switches whole smallest steps up to the controller count.
 
 export const STEP_SERIES = ['1:1:1', '1:2:2', '1:2:4'] as const;
 export type StepSeries = (typeof STEP_SERIES)[number];
@@ -15,8 +16,16 @@ export type StepSeries = (typeof STEP_SERIES)[number];
  */
 export const BINARY_MAX_STAGES = 4;
 
+/** The series a blank cell means: equal stages, so workbooks saved before the column read as before. */
+export const DEFAULT_STEP_SERIES: StepSeries = '1:1:1';
+
 export function isStepSeries(text: string): text is StepSeries {
   return (STEP_SERIES as readonly string[]).includes(text);
+}
+
+/** Most physical stages a series allows (Infinity: no limit of its own). */
+export function maxStagesOf(series: StepSeries): number {
+  return series === '1:2:4' ? BINARY_MAX_STAGES : Infinity;
 }
 
 /** Stage sizes, in smallest steps, for `stages` physical stages (0 stages: none). */
@@ -27,9 +36,43 @@ export function stageRatios(series: StepSeries, stages: number): number[] {
   );
 }
 
+/** What the series cell or key may hold, for messages. */
+export const STEP_SERIES_ALLOWED = `${STEP_SERIES.join(', ')} (blank: ${'1:1:1'})`;
+
+/**
+ * Why a series typed beside a stage count cannot be built, or undefined when it can: an unknown
+ * series, a binary series beyond BINARY_MAX_STAGES, a stage count that is not whole.
+ */
+export function seriesProblem(series: string, stages: number | undefined): string | undefined {
+  if (!isStepSeries(series)) return `must be one of ${STEP_SERIES_ALLOWED}; got "${series}"`;
+  if (series === '1:1:1' || stages === undefined) return undefined;
+  if (!Number.isInteger(stages))
+    return `a ${series} series needs a whole number of stages in Steps; got ${stages}`;
+  if (stages > maxStagesOf(series))
+    return `a ${series} series has at most ${maxStagesOf(series)} stages (BINARY_MAX_STAGES); Steps gives ${stages}`;
+  return undefined;
+}
+
 /** The controller step count: switching positions above zero, in smallest steps. */
 export function controllerSteps(series: StepSeries, stages: number): number {
   return stageRatios(series, stages).reduce((a, b) => a + b, 0);
+}
+
+/**
+ * The controller step count in closed form, as the Compensation sheet writes it: n for 1:1:1
+ * (any n, as sheets saved before the series column), 2n − 1 for 1:2:2, 2^n − 1 for 1:2:4; 0 for
+ * n ≤ 0. Equal to controllerSteps for whole n (the tests enumerate it).
+ */
+export function controllerCount(series: StepSeries, n: number): number {
+  if (!(n > 0)) return 0;
+  if (series === '1:2:2') return 2 * n - 1;
+  if (series === '1:2:4') return 2 ** n - 1;
+  return n;
+}
+
+/** The largest stage, in smallest steps (0 without stages): what one switching operation adds at most. */
+export function largestRatio(series: StepSeries, stages: number): number {
+  return stageRatios(series, stages).reduce((m, r) => Math.max(m, r), 0);
 }
 
 /**

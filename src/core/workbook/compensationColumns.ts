@@ -9,6 +9,8 @@ export const BANK_INPUTS = [
   { key: 'fixed_kvar', header: 'Fixed (kvar)', format: FORMATS.kvar, width: 9 },
   { key: 'step_kvar', header: 'Step (kvar)', format: FORMATS.kvar, width: 9 },
   { key: 'steps', header: 'Steps', format: FORMATS.count, width: 7 },
+  // Text: 1:1:1, 1:2:2 or 1:2:4 (stepSeries.ts); blank is 1:1:1, so older sheets read as before.
+  { key: 'series', header: 'Step series', format: undefined, width: 8 },
   { key: 'p_pct', header: 'Detuning p (%)', format: '0.00', width: 9 },
   { key: 'u_rated_kv', header: 'Capacitor rated voltage (kV)', format: '0.0##', width: 11 },
   { key: 'reactor_kvar', header: 'Reactor (kvar)', format: FORMATS.kvar, width: 9 },
@@ -20,6 +22,8 @@ export const COMP_HEADERS = {
   bus: 'Bus',
   u: 'U (kV)',
   ssc: 'Short-circuit power (MVA)',
+  controllerSteps: 'Controller steps',
+  largestStage: 'Largest stage (kvar)',
   total: 'Bank total (kvar)',
   tune: 'Tuning order',
   uCap: 'Capacitor voltage (kV)',
@@ -48,6 +52,8 @@ export interface CompensationColumns {
   readonly u: number;
   readonly ssc: number;
   readonly input: Readonly<Record<BankInputKey, number>>;
+  readonly controllerSteps: number;
+  readonly largestStage: number;
   readonly total: number;
   readonly tune: number;
   readonly uCap: number;
@@ -86,6 +92,8 @@ export function planCompensationColumns(cases: readonly string[]): CompensationC
     BANK_INPUTS.map((b) => [b.key, add(b.header, b.format, b.width, false)]),
   ) as Record<BankInputKey, number>;
   const fixed = {
+    controllerSteps: add(COMP_HEADERS.controllerSteps, FORMATS.count, 9),
+    largestStage: add(COMP_HEADERS.largestStage, FORMATS.kvar, 9),
     total: add(COMP_HEADERS.total, FORMATS.kvar, 9),
     tune: add(COMP_HEADERS.tune, '0.00', 8),
     uCap: add(COMP_HEADERS.uCap, '0.000', 9),

@@ -144,7 +144,11 @@ export function inputsFromSite(
   for (const b of banks) {
     const line = new Array<CellContent>(comp.columns.length).fill(null);
     line[comp.bus] = textContent(b.bus);
-    for (const i of BANK_INPUTS) line[comp.input[i.key]] = b[i.key] ?? null;
+    // The series is text the engine would read as a time of day ("1:2:2"): marked as text.
+    for (const i of BANK_INPUTS) {
+      const v = b[i.key];
+      line[comp.input[i.key]] = typeof v === 'string' ? textContent(v) : (v ?? null);
+    }
     line[comp.note] = b.note ?? null;
     compRows.push(line);
   }

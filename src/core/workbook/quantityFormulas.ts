@@ -103,6 +103,17 @@ function controllerCount(n: string): string {
   return `IF(${n}<=${largest},1,ROUNDUP(${n}/${largest},0))`;
 }
 
+/**
+ * The largest stage, kvar, from the bus line's basis: its smallest steps c = (total − fixed) /
+ * step over n stages tell the series apart (c = n equal stages, c = 2n − 1 for 1:2:2 whose
+ * largest is 2 steps, else 1:2:4 whose largest is (c + 1)/2 = 2^(n − 1) steps; n = 2 gives 2 in
+ * both). Every stage's device is sized for it: never below the stage it switches.
+ */
+function largestStage(k: ReturnType<typeof basis>): string {
+  const c = `ROUND((${k.total}-${k.fixed})/${k.step},0)`;
+  return `${k.step}*IF(${c}<=${k.steps},1,IF(${c}=2*${k.steps}-1,2,(${c}+1)/2))`;
+}
+
 /** Formulas of one item line at `row` of the bus whose bus line is `busRow`. */
 export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   const k = basis(busRow);
@@ -130,7 +141,13 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   };
   switch (slot) {
     case 'stepCapacitors':
-      return capacitors(`"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`, k.step, k.steps, `${k.steps}>0`);
+      // Units for every smallest step of the series (the bank total less the fixed part).
+      return capacitors(
+        `"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`,
+        k.step,
+        `ROUND((${k.total}-${k.fixed})/${k.step},0)`,
+        `${k.steps}>0`,
+      );
     case 'fixedCapacitors':
       return capacitors(`fixed "&${r2(k.fixed)}&" kvar`, k.fixed, '1', `${k.fixed}>0`);
     case 'detuning': {
@@ -157,7 +174,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         count: when('', k.steps),
         quantity: when('', k.steps),
         unit: 'pc',
-        amps: `=IF(AND(${k.known},${k.steps}>0),${lineCurrent(k.step, k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
+        amps: `=IF(AND(${k.known},${k.steps}>0),${lineCurrent(largestStage(k), k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
       };
     }
     case 'controller': {

@@ -14,6 +14,7 @@ import type { Problem } from '../site/problems.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { equipmentSheets, type SheetInput } from '../kinds/index.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
+import { STEP_SERIES_ALLOWED, isStepSeries, seriesProblem, type StepSeries } from '../site/stepSeries.ts';
 import { nameTable } from '../text/nameTable.ts';
 import { HEADERS, SHEETS } from './layout.ts';
 import { BANK_INPUTS, NOTE_HEADER } from './compensationColumns.ts';
@@ -236,6 +237,30 @@ function kindOf(
   return undefined;
 }
 
+/** A bank's step series (text); a number is what a spreadsheet makes of 1:2:2 typed plainly: a time. */
+function readSeries(
+  doc: SheetDoc,
+  at: Spot,
+  stages: number | undefined,
+  ctx: ReadContext,
+): StepSeries | undefined {
+  const raw = doc.cells[at.row]?.[at.col];
+  if (typeof raw === 'number') {
+    report(
+      ctx,
+      'error',
+      at,
+      `must be one of ${STEP_SERIES_ALLOWED}; got the number ${raw} (a spreadsheet reads 1:2:2 typed plainly as a time of day: type '1:2:2 with a leading apostrophe)`,
+    );
+    return undefined;
+  }
+  const text = readText(doc, at, ctx);
+  if (text === undefined) return undefined;
+  const why = seriesProblem(text, stages);
+  if (why !== undefined) report(ctx, 'error', at, why);
+  return isStepSeries(text) ? text : undefined;
+}
+
 function readBanks(doc: SheetDoc | undefined, ctx: ReadContext): BankChoice[] {
   if (!doc) return [];
   const index = headerIndex(doc);
@@ -248,6 +273,12 @@ function readBanks(doc: SheetDoc | undefined, ctx: ReadContext): BankChoice[] {
     for (const b of BANK_INPUTS) {
       const col = index.get(b.header.toLowerCase());
       if (col === undefined) continue;
+      if (b.key === 'series') {
+        const series = readSeries(doc, { sheet: doc.name, row: r, col, header: b.header }, choice.steps, ctx);
+        if (series !== undefined) choice.series = series;
+        any ||= series !== undefined;
+        continue;
+      }
       const n = readNumber(doc, { sheet: doc.name, row: r, col, header: b.header }, ctx);
       if (n === undefined) continue;
       if (n < 0)

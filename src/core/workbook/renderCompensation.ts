@@ -41,6 +41,23 @@ function resonanceCheck(first: string, whole: string): string {
   return `=IF(OR(${first}="",${whole}=""),"",${text})`;
 }
 
+/**
+ * The controller step count of `n` stages in series `ser` (stepSeries.ts controllerCount): n for
+ * blank or 1:1:1, 2n − 1 for 1:2:2, 2^n − 1 for 1:2:4; 0 without stages; #N/A for another series.
+ */
+export function controllerStepsFormula(ser: string, n: string): string {
+  return `=IF(NOT(${n}>0),0,IF(OR(ISBLANK(${ser}),${ser}="1:1:1"),${n},IF(${ser}="1:2:2",2*${n}-1,IF(${ser}="1:2:4",2^${n}-1,NA()))))`;
+}
+
+/**
+ * The largest stage, kvar (bankChoice.ts largestStageKvar): the smallest step times 2 (1:2:2 from
+ * two stages) or 2^(n − 1) (1:2:4), at least one step; the fixed part when there is no step.
+ */
+function largestStageFormula(ser: string, n: string, step: string, fixed: string): string {
+  const ratio = `IF(AND(${ser}="1:2:2",${n}>=2),2,IF(${ser}="1:2:4",2^MAX(0,INT(${n})-1),1))`;
+  return `=IF(${step}>0,${step}*MAX(1,${ratio}),${fixed})`;
+}
+
 /** Short-circuit power at a bus: the supply's at the root, through the feeding transformer or line below. */
 function sscFormula(
   s: WorkbookStructure,
@@ -126,7 +143,11 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     const total = here(cols.total),
       ssc = here(cols.ssc),
       u = here(cols.u);
-    out[cols.total] = `=${fixed}+${step}*${steps}`;
+    // Steps counts physical stages; the controller switches whole smallest steps up to its count.
+    const ctrl = here(cols.controllerSteps);
+    out[cols.controllerSteps] = controllerStepsFormula(inp('series'), steps);
+    out[cols.largestStage] = largestStageFormula(inp('series'), steps, step, fixed);
+    out[cols.total] = `=${fixed}+${step}*${ctrl}`;
     out[cols.tune] = `=IF(${p}>0,CAPBANK.TUNE(${p}),"")`;
     out[cols.uCap] = `=IF(${total}=0,"",CAPBANK.UCAP(${u},${p}))`;
     out[cols.stepNameplate] =
@@ -142,7 +163,8 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     out[cols.orderTotal] =
       `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(total)}+${installed},${p}))`;
     out[cols.check] = resonanceCheck(here(cols.orderStep), here(cols.orderTotal));
-    out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(IF(${step}>0,${step},${fixed}),${ssc}))`;
+    // One switching operation adds at most the largest stage.
+    out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${here(cols.largestStage)},${ssc}))`;
     out[cols.vriseTotal] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total},${ssc}))`;
     s.cases.forEach((_, k) => {
       // At the point of connection the limits may refer to a rated power (Site sheet), not P.
@@ -163,7 +185,7 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
       // The bank's share of the site's need is the same share of its size for every bank in service.
       const share = `${root(cols.needCap)}*${total}/${availSum}`;
       out[cols.stepsIn[k] as number] =
-        `=IF(OR(${step}=0,${steps}=0,${avail}=0),0,MIN(${steps},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
+        `=IF(OR(${step}=0,${ctrl}=0,${avail}=0),0,MIN(${ctrl},BANK.ROUNDUP(${share}-${fixed},${step})/${step}))`;
       out[cols.capOut[k] as number] = `=IF(${avail}=0,0,${fixed}+${step}*${at(cols.stepsIn)})`;
       out[cols.reactorIn[k] as number] =
         `=IF(AND(${reactor}>0,${root(cols.needInd)}>${WITHIN_TOL_KVAR}),${reactor},0)`;
@@ -195,4 +217,4 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
 }
 
 export const COMPENSATION_PURPOSE =
-  "Per bus: the bank there (inputs: fixed part, step, steps, detuning, capacitor rating, reactor) and what it is: total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the bank in service (a motor's own bank is out while the motor is stopped), the steps the bank switches (each bank in service covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.";
+  "Per bus: the bank there (inputs: fixed part, smallest step, stages, their series 1:1:1, 1:2:2 or 1:2:4, detuning, capacitor rating, reactor) and what it is: the controller step count, the largest stage, total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the bank in service (a motor's own bank is out while the motor is stopped), the smallest steps the bank switches (each bank in service covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.";

@@ -3,6 +3,7 @@
 // the equipment sum, the surcharges and the total. All plain formulas over the Compensation and
 // Rates sheets, so every edit reaches the cost in the same step. An item without a usable rate
 // shows why instead of a number, and the totals then say "unpriced", never a smaller sum.
+import { controllerStepsFormula } from './renderCompensation.ts';
 import { RATES_SHEET } from '../quote/index.ts';
 import { textContent } from '../text/cellText.ts';
 import type { CompensationColumns } from './compensationColumns.ts';
@@ -65,7 +66,9 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   const hz = settingRef('hzInUse');
   out[QC.perKvar] =
     `=IF(OR(${here(QC.uRated)}="",NOT(${known})),"",IFERROR(1/ABS(KVAR.CAPBANK(1,${here(QC.uRated)},${u},${here(QC.p)},${hz},${hz})),""))`;
-  out[QC.total] = `=${here(QC.fixed)}+${here(QC.step)}*${here(QC.steps)}`;
+  // Steps are physical stages; capacitors follow the controller step count of their series.
+  const ctrl = controllerStepsFormula(inp('series'), here(QC.steps)).slice(1);
+  out[QC.total] = `=${here(QC.fixed)}+${here(QC.step)}*${ctrl}`;
   out[QC.reactor] = `=${nonNegative(inp('reactor_kvar'))}`;
   out[QC.what] =
     `=IF(${total}+${reactor}=0,"no bank or reactor chosen",IF(${known},"bank "&ROUND(${total},2)&" kvar"&IF(${reactor}>0,", reactor "&ROUND(${reactor},2)&" kvar","")&" at "&ROUND(${u},3)&" kV","the voltage of the bus is unknown: state u_kv on a row of the bus"))`;

@@ -38,6 +38,12 @@ function trimmed(cols: EquipmentColumns, col: number, v: CellContent): CellConte
   return v;
 }
 
+/** A step series typed as 1:2:2 is text, not the time of day the engine would read it as. */
+function seriesText(v: CellContent): CellContent {
+  if (typeof v !== 'string' || v.startsWith('=') || v.startsWith("'")) return v;
+  return v.trim() === '' ? null : textContent(v.trim());
+}
+
 function settingsFrom(contents: ContentStore, sheet: number, name: string): SettingsInputs {
   return readSettingsInputs({ name, cells: contents.get(sheet).map((r) => [...r]) });
 }
@@ -97,6 +103,10 @@ export function siteEdit(
         set.add(c.row);
         touched.set(role.index, set);
       }
+      continue;
+    }
+    if (role.kind === 'compensation' && c.col === site.plans().comp.input.series) {
+      writes.push({ sheet, row: c.row, col: c.col, content: seriesText(c.content) });
       continue;
     }
     writes.push({ sheet, ...c });

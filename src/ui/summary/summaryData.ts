@@ -43,6 +43,9 @@ export interface BankLine {
   readonly fixed: Figure;
   readonly step: Figure;
   readonly steps: Figure;
+  /** The stages' series (blank: equal) and the smallest steps the controller switches. */
+  readonly series: Figure;
+  readonly controllerSteps: Figure;
   readonly detuning: Figure;
   readonly uRated: Figure;
   readonly reactor: Figure;
@@ -149,6 +152,8 @@ function bankLines(comp: Grid | undefined): BankLine[] {
       fixed: at(row, input('fixed_kvar')),
       step: at(row, input('step_kvar')),
       steps: at(row, input('steps')),
+      series: at(row, input('series')),
+      controllerSteps: at(row, c(COMP_HEADERS.controllerSteps)),
       detuning: at(row, input('p_pct')),
       uRated: at(row, input('u_rated_kv')),
       reactor,

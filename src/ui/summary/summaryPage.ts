@@ -106,8 +106,14 @@ function connection(d: SummaryData): HTMLElement {
 function bankText(b: BankLine): string {
   const parts: string[] = [];
   if (typeof b.fixed === 'number' && b.fixed > 0) parts.push(`${shown(b.fixed, '0.##')} fixed`);
-  if (typeof b.steps === 'number' && b.steps > 0)
-    parts.push(`${shown(b.steps, '0')} × ${shown(b.step, '0.##')}`);
+  if (typeof b.steps === 'number' && b.steps > 0) {
+    // A 1:2:2 or 1:2:4 bank: its smallest steps, then its stages and series.
+    const series = typeof b.series === 'string' && b.series !== '' && b.series !== '1:1:1' ? b.series : '';
+    const steps = series === '' ? b.steps : b.controllerSteps;
+    parts.push(
+      `${shown(steps, '0')} × ${shown(b.step, '0.##')}${series === '' ? '' : ` (${shown(b.steps, '0')} stages ${series})`}`,
+    );
+  }
   return parts.join(' + ') || '—';
 }
 

@@ -144,3 +144,27 @@ describe('controllers follow the design’s sections (stepRules.ts: at most 12 s
     );
   });
 });
+
+describe('a 1:2:2 bank of 4 stages, 25 kvar smallest, plain at 400 V with 440 V capacitors', () => {
+  // Stages 25 + 50 + 50 + 50 = 175 kvar, 7 controller steps of 25 kvar (the ratio notation).
+  const spec = bankSpec({ bus: 'LV', step_kvar: 25, steps: 4, series: '1:2:2', u_rated_kv: 0.44 }, 0.4, 50);
+  const items = byCode(busSchedule(spec));
+  it('capacitors for 175 kvar of output: 25·(0.44/0.4)² = 30.25 kvar nameplate a smallest step, seven of them', () => {
+    const nameplate = 25 * (0.44 / 0.4) ** 2;
+    expect(nameplate).toBeCloseTo(30.25, 9);
+    expect(items.get('LV capacitor')?.quantity).toBeCloseTo(7 * 30.25, 6);
+    expect(items.get('LV capacitor')?.count).toBe(7);
+  });
+  it('one contactor per physical stage, sized for the 50 kvar stage (72.2 A × 1.43 = 103.2 A → 125 A), one 6-output controller', () => {
+    expect(spec.controller_steps).toBe(7);
+    // Sized for the smallest stage it would be 36.1 A × 1.43 = 51.6 A → 63 A: too small for 50 kvar.
+    expect((25 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(51.6, 1);
+    const contactors = [...items.values()].filter((i) => i.code.startsWith('LV contactor'));
+    expect(contactors.map((i) => [i.code, i.count])).toEqual([['LV contactor 125 A', 4]]);
+    expect(items.get('Step controller 6 outputs')?.count).toBe(1);
+  });
+  it('the incomer carries all 175 kvar: 252.6 A × 1.43 = 361.2 A → 400 A fuse-switch', () => {
+    expect((175 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(361.2, 1);
+    expect(items.get('LV fuse-switch 400 A')?.count).toBe(1);
+  });
+});

@@ -84,6 +84,17 @@ describe('Compensation sheet follows the compensation design', () => {
   });
 });
 
+/**
+ * Smallest steps a bank's stages add up to, from the ratio notation itself: 1:1:1… stages of
+ * one step each, 1:2:2… one then twos, 1:2:4… doubling (the sum of the stage ratios).
+ */
+function positionsOf(series: unknown, stages: number): number {
+  const ratio = (i: number) => (series === '1:2:2' ? (i === 0 ? 1 : 2) : series === '1:2:4' ? 2 ** i : 1);
+  let sum = 0;
+  for (let i = 0; i < stages; i++) sum += ratio(i);
+  return sum;
+}
+
 describe('one bus by hand (invented plant, bus LV2, case day)', () => {
   const doc = buildWorkbook(PLANT, { flavour: 'live' });
   const hf = liveEngine(doc);
@@ -112,13 +123,17 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
         const x = valueAt(hf, doc, 'Compensation', row, h);
         return x.ok && typeof x.value === 'number' ? x.value : 0;
       };
-      return v('Fixed (kvar)') + v('Step (kvar)') * v('Steps');
+      const series = valueAt(hf, doc, 'Compensation', row, 'Step series');
+      return v('Fixed (kvar)') + v('Step (kvar)') * positionsOf(series.ok ? series.value : '', v('Steps'));
     };
     const buses = rollUp(PLANT, 'day').buses.map((b) => b.bus);
     const sum = buses.reduce((a, b) => a + totalOf(b), 0);
     const share = (siteNeed * totalOf('LV2')) / sum;
-    const [fixed, step, steps] = [at('Fixed (kvar)'), at('Step (kvar)'), at('Steps')];
+    const [fixed, step, stages] = [at('Fixed (kvar)'), at('Step (kvar)'), at('Steps')];
+    const series = valueAt(hf, doc, 'Compensation', r, 'Step series');
+    const steps = positionsOf(series.ok ? series.value : '', stages);
     expect(step).toBeGreaterThan(0);
+    expect(at('Controller steps')).toBe(steps);
     expect(at('Steps in day')).toBe(Math.min(steps, Math.ceil((share - fixed) / step - 1e-9)));
     expect(at('Capacitor output day (kvar)')).toBe(fixed + step * at('Steps in day'));
   });
@@ -127,7 +142,9 @@ describe('one bus by hand (invented plant, bus LV2, case day)', () => {
     const ssc = at('Short-circuit power (MVA)');
     // CB2: 50 kvar at its rated 0.4 kV, no detuning: it counts in full.
     expect(at('Plain capacitors installed (kvar)')).toBe(50);
-    const total = at('Fixed (kvar)') + at('Step (kvar)') * at('Steps');
+    const series = valueAt(hf, doc, 'Compensation', r, 'Step series');
+    const total =
+      at('Fixed (kvar)') + at('Step (kvar)') * positionsOf(series.ok ? series.value : '', at('Steps'));
     expect(at('Bank total (kvar)')).toBe(total);
     expect(
       close(

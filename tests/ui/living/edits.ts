@@ -1,6 +1,6 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
-// typed on the Compensation sheet (steps, detuning, capacitor rating), a line's resistance typed
+// typed on the Compensation sheet (steps, step series, detuning, capacitor rating), a line's resistance typed
 // or cleared, rates and tariff values
 // typed or cleared on the Rates and Tariff sheets, the rated power the requirement refers to, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
@@ -21,7 +21,7 @@ export type Edit =
   | { op: 'paste'; sheet: number; n: number; bus: number; p: number }
   | { op: 'fill'; sheet: number; row: number; n: number }
   | { op: 'clear'; sheet: number; row: number }
-  | { op: 'bank'; bus: number; step: number; steps: number; fixed: number }
+  | { op: 'bank'; bus: number; step: number; steps: number; fixed: number; series: string | null }
   | { op: 'design'; bus: number; p: number; urFactor: number | null }
   | { op: 'resistance'; row: number; value: number | null }
   | { op: 'rate'; row: number; value: number | null }
@@ -89,6 +89,8 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     step: num(5, 100),
     steps: fc.integer({ min: 0, max: 6 }),
     fixed: num(0, 30),
+    // Typed as an estimator would, without an apostrophe: the page keeps it as text.
+    series: fc.constantFrom(null, '1:1:1', '1:2:2', '1:2:4'),
   }),
   fc.record({
     op: fc.constant('design' as const),
@@ -248,8 +250,9 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
         { row, col: comp.input.step_kvar, content: e.step },
         { row, col: comp.input.steps, content: e.steps },
         { row, col: comp.input.fixed_kvar, content: e.fixed > 1 ? e.fixed : null },
+        { row, col: comp.input.series, content: e.series === '1:2:4' && e.steps > 4 ? null : e.series },
       ]);
-      return `bank on ${buses[row - 1]}: ${e.steps} × ${e.step}`;
+      return `bank on ${buses[row - 1]}: ${e.steps} × ${e.step} ${e.series ?? ''}`;
     }
     case 'design': {
       // Detuning and capacitor rating typed on the Compensation sheet (the rating a factor of U).

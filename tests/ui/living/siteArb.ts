@@ -195,6 +195,8 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
         bus: fc.constantFrom(...tree.map((b) => b.name)),
         step: num(5, 100),
         steps: fc.integer({ min: 1, max: 6 }),
+        // Blank (equal stages) or a step series; a binary one within its 4 stages.
+        series: fc.constantFrom(undefined, '1:1:1' as const, '1:2:2' as const, '1:2:4' as const),
         fixed: fc.option(num(1, 50), { nil: undefined }),
         reactor: fc.option(num(10, 200), { nil: undefined }),
         // Detuning and the capacitor rating, so the priced schedule has capacitors to count.
@@ -218,7 +220,8 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
         .map((b) => ({
           bus: b.bus,
           step_kvar: b.step,
-          steps: b.steps,
+          steps: b.series === '1:2:4' ? Math.min(b.steps, 4) : b.steps,
+          ...(b.series ? { series: b.series } : {}),
           ...(b.fixed ? { fixed_kvar: b.fixed } : {}),
           ...(b.reactor ? { reactor_kvar: b.reactor } : {}),
           ...(b.p > 0 ? { p_pct: b.p } : {}),

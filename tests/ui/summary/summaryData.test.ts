@@ -88,10 +88,23 @@ describe('the summary of the cold-store demo', () => {
   it('lists the banks of the Compensation sheet and the cost, saving and payback of the Quantities sheet', async () => {
     const s = await open('cold-store');
     const d = summaryOf(s);
-    // The template's banks: LV-REF 12.5 + 6 × 50 kvar, LV-SVC 7.5 + 6 × 12.5 kvar, both 7 % at 0.48 kV.
-    expect(d.banks.map((b) => [b.bus, b.fixed, b.step, b.steps, b.detuning, b.uRated, b.total])).toEqual([
-      ['LV-REF', 12.5, 50, 6, 7, 0.48, 312.5],
-      ['LV-SVC', 7.5, 12.5, 6, 7, 0.48, 82.5],
+    // The template's banks, both 7 % at 0.48 kV: LV-REF 12.5 + 6 × 50 kvar; LV-SVC 7.5 kvar fixed
+    // and 3 stages of 1:2:4 from 12.5 kvar: 12.5 + 25 + 50, 7 steps of 12.5 kvar, 95 kvar in all.
+    expect(
+      d.banks.map((b) => [
+        b.bus,
+        b.fixed,
+        b.step,
+        b.steps,
+        b.series,
+        b.controllerSteps,
+        b.detuning,
+        b.uRated,
+        b.total,
+      ]),
+    ).toEqual([
+      ['LV-REF', 12.5, 50, 6, undefined, 6, 7, 0.48, 312.5],
+      ['LV-SVC', 7.5, 12.5, 3, '1:2:4', 7, 7, 0.48, 7.5 + 12.5 + 25 + 50],
     ]);
     const n = 3; // buses MV-11, LV-REF, LV-SVC
     const m = d.money;
