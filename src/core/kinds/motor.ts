@@ -1,6 +1,7 @@
 import { X, call, col } from './expr.ts';
 import { defineKind } from './spec.ts';
 import { MOTORS_SHEET } from './sheets.ts';
+import { MOTOR_SUPPLIES } from './supply.ts';
 
 export const MOTOR = defineKind({
   name: 'motor',
@@ -14,5 +15,6 @@ export const MOTOR = defineKind({
     q: call('KVAR.MOTOR', col('p_kw'), col('eff'), col('cos_phi'), X, col('i0_pct')),
   },
   traits: { motor: true },
+  supplies: MOTOR_SUPPLIES,
   summary: 'electrical P (KW.MOTOR) and Q (KVAR.MOTOR) at the load factor, times the units running',
 });
