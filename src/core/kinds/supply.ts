@@ -5,6 +5,7 @@
 // Spellings: case does not matter, and a hyphen reads as a space ("VSD 6-pulse" = "vsd 6 pulse").
 // The workbook's formulas compare the same way (LOWER(TRIM(SUBSTITUTE(cell,"-"," ")))), so the
 // page, the export and the core agree on every accepted spelling.
+import { ifText, normaliseText, type Expr } from './expr.ts';
 
 /** What an arrangement injects into the supply, for the detuning choice. */
 export type HarmonicClass =
@@ -80,9 +81,7 @@ export const LOAD_SUPPLIES: readonly SupplyArrangement[] = [
 ];
 
 /** Case folded, hyphens read as spaces, spaces trimmed and runs of spaces made one (as TRIM does). */
-export function normaliseSupply(text: string): string {
-  return text.replace(/-/g, ' ').replace(/ +/g, ' ').trim().toLowerCase();
-}
+export const normaliseSupply = normaliseText;
 
 export type SupplyReading =
   | { readonly ok: true; readonly arrangement: SupplyArrangement }
@@ -97,4 +96,24 @@ export function readSupply(text: string | undefined, allowed: readonly SupplyArr
   const n = normaliseSupply(text);
   const found = allowed.find((a) => [a.name, ...a.aliases].some((s) => normaliseSupply(s) === n));
   return found ? { ok: true, arrangement: found } : { ok: false, allowed: allowed.map((a) => a.name) };
+}
+
+/**
+ * The reactive power of an item by its supply: for each arrangement that draws its own
+ * displacement factor (a drive), `drawn(factor)` when the Supply cell names it (each spelling),
+ * else `own` (the item's own cos φ). Printed as nested IFs on the Supply cell.
+ */
+export function bySupply(
+  allowed: readonly SupplyArrangement[],
+  drawn: (displacement: number) => Expr,
+  own: Expr,
+): Expr {
+  let out = own;
+  for (const a of [...allowed].reverse()) {
+    if (a.displacement === undefined) continue;
+    const q = drawn(a.displacement);
+    for (const spelling of [a.name, ...a.aliases].reverse())
+      out = ifText('supply', normaliseText(spelling), q, out);
+  }
+  return out;
 }
