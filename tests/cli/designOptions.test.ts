@@ -19,11 +19,11 @@ type Bank = { bus: string; p_pct?: number; u_rated_kv?: number };
 const banksOf = (out: string) => (JSON.parse(out) as { compensation: { banks: Bank[] } }).compensation.banks;
 
 describe('balance: design choices', () => {
-  it('the template as shipped: its own banks, LV-REF detuned at 7 %, LV-SVC plain (no p_pct)', async () => {
+  it('the template as shipped: its own banks, LV-REF at 7 % (drives), LV-SVC at 14 % (electronic load)', async () => {
     const r = await balance(COLD, '--json');
     expect(banksOf(r.out).map((b) => [b.bus, b.p_pct])).toEqual([
       ['LV-REF', 7],
-      ['LV-SVC', undefined],
+      ['LV-SVC', 14],
     ]);
   });
 
@@ -40,7 +40,7 @@ describe('balance: design choices', () => {
 
   it('--third-harmonic: where a bank must be detuned, 14 %', async () => {
     const r = await balance(COLD, '--json', '--third-harmonic');
-    expect(banksOf(r.out).map((b) => b.p_pct)).toEqual([14, undefined]);
+    expect(banksOf(r.out).map((b) => b.p_pct)).toEqual([14, 14]);
   });
 
   it('--bank-bus: banks only where allowed', async () => {
