@@ -69,7 +69,8 @@ function nearOf(order: number, among: readonly number[]): number | undefined {
   return among.find((h) => Math.abs(order - h) <= RESONANCE_MARGIN * h);
 }
 
-function sharesText(s: HarmonicShares | undefined): string {
+/** "harmonic sources (…) are 39 % of transformer T1 (630 kVA) in case normal", or none. */
+export function sharesText(s: HarmonicShares | undefined): string {
   if (!s || s.six_pulse_kva + s.single_phase_kva === 0) return 'no harmonic sources on the bus or below';
   const parts = [
     ...(s.six_pulse_kva > 0 ? [`6-pulse drives and rectifiers ${Math.round(s.six_pulse_kva)} kVA`] : []),
@@ -79,7 +80,8 @@ function sharesText(s: HarmonicShares | undefined): string {
   return `${what} are ${pct(s.share)} of ${s.reference} in case ${s.case}`;
 }
 
-function thirdDominates(s: HarmonicShares | undefined): boolean {
+/** Single-phase electronic load is at least THIRD_HARMONIC_SOURCE_SHARE of the sources. */
+export function thirdDominates(s: HarmonicShares | undefined): boolean {
   if (!s) return false;
   const total = s.six_pulse_kva + s.single_phase_kva;
   return total > 0 && s.single_phase_kva / total >= THIRD_HARMONIC_SOURCE_SHARE;

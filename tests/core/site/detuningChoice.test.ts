@@ -9,6 +9,7 @@
 // (or of the 11th and 13th when 6-pulse sources are present).
 import { describe, expect, it } from 'vitest';
 import { designCompensation } from '../../../src/core/site/compensation.ts';
+import { assessBanks } from '../../../src/core/site/assessBanks.ts';
 import { validateSite } from '../../../src/core/site/validate.ts';
 import type { BankDesign } from '../../../src/core/site/bankSizing.ts';
 import { parallelResonanceOrder } from '../functions/independent.ts';
@@ -114,5 +115,37 @@ describe('detuning from harmonic sources', () => {
     );
     expect(bank?.p_pct).toBe(0);
     expect(bank?.why).toContain('detuning 0 % as chosen for this bus');
+  });
+});
+
+describe("Checks on a bank typed on the Compensation sheet, by the design's rule", () => {
+  const PUMPS = [
+    xfmr(630),
+    'P1,LV,motor,,5,55,0.94,0.85,0.8,0.4,VSD 6-pulse,,,,,',
+    'M1,LV,motor,,3,75,0.95,0.82,1,0.4,,,,,,',
+  ];
+  const OFFICE = [xfmr(400), 'LT,LV,load,,1,150,,0.92,1,0.4,electronic lighting,,,,,'];
+  const findings = (rows: string[], p?: number) => {
+    const { site } = siteFromCsv([HEAD, ...rows].join('\n'), { sscMva: SSC_MVA });
+    const bank = { bus: 'LV', step_kvar: 25, steps: 4, ...(p !== undefined ? { p_pct: p } : {}) };
+    return assessBanks(site, [bank]).warnings.filter((w) => w.code === 'detuning-choice');
+  };
+
+  it('a plain bank among 39 % of 6-pulse sources: a warning to detune at 7 %', () => {
+    const [w, ...more] = findings(PUMPS);
+    expect(more).toEqual([]);
+    expect(w?.severity).toBe('warning');
+    expect(w?.message).toContain('the plain bank on bus LV shares it with harmonic sources');
+    expect(w?.message).toContain('39 % of transformer T1 (630 kVA)');
+    expect(w?.message).toContain('detune it (7 % here)');
+  });
+  it('the same bank at 7 %: nothing to say', () => {
+    expect(findings(PUMPS, 7)).toEqual([]);
+  });
+  it('a 7 % bank among electronic lighting: information that 14 % keeps the tuning below the 3rd', () => {
+    const [w] = findings(OFFICE, 7);
+    expect(w?.severity).toBe('info');
+    expect(w?.message).toContain('14 % keeps the tuning below it');
+    expect(findings(OFFICE, 14)).toEqual([]);
   });
 });
