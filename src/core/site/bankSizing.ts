@@ -28,7 +28,7 @@ import type { CapacitorRating } from './capacitorRatings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
 import { grouped } from './limits.ts';
 import { chooseDetuning } from './detuningChoice.ts';
-import { harmonicShares } from './harmonicSources.ts';
+import { harmonicShares, isDriveFed } from './harmonicSources.ts';
 
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
@@ -126,8 +126,10 @@ export function sizeBank(
   let sections: readonly number[] = [];
   let switching: BankDesign['switching'] = 'fixed, switched with its feeder';
   let why: string;
+  // A drive-fed motor is not compensated at its terminals (the drive stands between): no
+  // individual capacitor and no self-excitation limit; the bank is an ordinary one.
   const motor = soleMotorOf(bus, graph);
-  const limit = motor ? motorCapacitorLimit(motor, uKv) : undefined;
+  const limit = motor && !isDriveFed(motor) ? motorCapacitorLimit(motor, uKv) : undefined;
   if (motor && limit !== undefined) {
     const perBus = limit.kvar * Math.max(unitsRunning(motor), 1);
     fixed = roundDownToSeries(Math.min(most, perBus), MERGED_SERIES);

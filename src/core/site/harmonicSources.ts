@@ -40,6 +40,14 @@ function classOf(row: EquipmentRow): HarmonicClass | undefined {
   return r.ok ? r.arrangement.harmonics : undefined;
 }
 
+/** A motor fed by a drive (its Supply names an arrangement with its own displacement factor). */
+export function isDriveFed(row: EquipmentRow): boolean {
+  const kind = findKind(row.kind);
+  if (!kind?.supplies) return false;
+  const r = readSupply(row.supply, kind.supplies);
+  return r.ok && r.arrangement.displacement !== undefined;
+}
+
 /** The feeding transformer's rating (all units), or undefined when a line or nothing feeds the bus. */
 function transformerRating(bus: string, graph: BusGraph): { kva: number; text: string } | undefined {
   const t = graph.feeder.get(bus);

@@ -5,6 +5,7 @@
 // memory: 0.95–0.98), 1 for an active front end at its default set point (common practice).
 import { describe, expect, it } from 'vitest';
 import { rollUp } from '../../../src/core/site/rollup.ts';
+import { designCompensation } from '../../../src/core/site/compensation.ts';
 import { validateSite } from '../../../src/core/site/validate.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { SIX_PULSE_DISPLACEMENT } from '../../../src/core/kinds/index.ts';
@@ -83,5 +84,29 @@ describe('a bus of drive-fed pumps', () => {
     const q = num(valueAt(hf, doc, 'Buses', busRow(doc, 'DOL'), 'Q normal (kvar)'));
     expect(q).toBeCloseTo(((55 * 0.8) / 0.94) * tanOf(0.96), 9);
     hf.destroy();
+  });
+});
+
+describe('a drive-fed motor alone on its bus', () => {
+  // Invented: a 90 kW fan on a 6-pulse drive, alone below its own transformer, target cos φ 1.
+  const { site } = siteFromCsv(
+    [
+      HEAD,
+      'T1,MV,transformer,LVM,,,,,,,0.4,,630,4,1,0.6,6.5',
+      'F1,LVM,motor,,1,1,90,0.94,0.85,1,0.4,VSD 6-pulse,,,,,',
+    ].join('\n'),
+    { requirement: { kind: 'cosphi', target: 1 }, sscMva: 250 },
+  );
+  it('gets an ordinary bank: no capacitor at its terminals, no self-excitation limit', () => {
+    const bank = designCompensation(site).banks.find((b) => b.bus === 'LVM');
+    expect(bank).toBeDefined();
+    expect(bank?.switching).not.toBe('switched with the motor');
+    expect(bank?.self_excitation_limit_kvar).toBeUndefined();
+    expect(bank?.why).not.toMatch(/individual compensation/);
+    // The same fan direct-on-line is compensated at its terminals, switched with it.
+    const dol = { ...site, equipment: site.equipment.map(({ supply: _s, ...r }) => r) };
+    expect(designCompensation(dol).banks.find((b) => b.bus === 'LVM')?.switching).toBe(
+      'switched with the motor',
+    );
   });
 });
