@@ -117,7 +117,9 @@ export function chooseDetuning(input: DetuningInput): DetuningChoice {
     const checked = input.assessed
       ? `no switching state of a plain bank resonates within ${pct(RESONANCE_MARGIN)} of the ${orders(relevant)}`
       : 'resonance not assessed (short-circuit power unknown)';
-    why = `; plain capacitors: ${sharesText(shares)} (at most ${pct(HARMONIC_SHARE_LIMIT)}) and ${checked}`;
+    const none = !shares || shares.six_pulse_kva + shares.single_phase_kva === 0;
+    const limit = none ? '' : ` (at most ${pct(HARMONIC_SHARE_LIMIT)})`;
+    why = `; plain capacitors: ${sharesText(shares)}${limit} and ${checked}`;
   }
   const finding = designWarning(
     'info',
