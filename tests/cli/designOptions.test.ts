@@ -19,11 +19,11 @@ type Bank = { bus: string; p_pct?: number; u_rated_kv?: number };
 const banksOf = (out: string) => (JSON.parse(out) as { compensation: { banks: Bank[] } }).compensation.banks;
 
 describe('balance: design choices', () => {
-  it('the template as shipped: both banks detuned at 7 % (its own banks)', async () => {
+  it('the template as shipped: its own banks, LV-REF at 7 % (drives), LV-SVC at 14 % (electronic load)', async () => {
     const r = await balance(COLD, '--json');
     expect(banksOf(r.out).map((b) => [b.bus, b.p_pct])).toEqual([
       ['LV-REF', 7],
-      ['LV-SVC', 7],
+      ['LV-SVC', 14],
     ]);
   });
 

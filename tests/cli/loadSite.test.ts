@@ -82,6 +82,7 @@ function meaning(r: EquipmentRow, cases: readonly string[]) {
     bus: r.bus,
     kind: r.kind,
     to_bus: r.to_bus ?? null,
+    supply: r.supply ?? null,
     description: r.description ?? null,
     values,
     load: cases.map((c) => loadFactor(r, c).value),
@@ -93,7 +94,17 @@ const meanings = (x: Site) =>
 
 /** The template's list as a table: plain `load` for the first case, load:<second> for the other. */
 function listRows(headers: Record<string, string> = {}): (string | number | null)[][] {
-  const cols = ['tag', 'description', 'bus', 'kind', 'to_bus', ...NUMERIC, 'load', `load:${second}`];
+  const cols = [
+    'tag',
+    'description',
+    'bus',
+    'kind',
+    'to_bus',
+    'supply',
+    ...NUMERIC,
+    'load',
+    `load:${second}`,
+  ];
   return [
     cols.map((c) => headers[c] ?? c),
     ...site.equipment.map((r) =>
@@ -128,6 +139,7 @@ beforeAll(async () => {
     description: 'Description',
     bus: 'Bus',
     kind: 'Type',
+    supply: 'Starter type',
     p_kw: 'Rated power (MW)',
     cos_phi: 'Power factor',
     eff: 'Efficiency',

@@ -1,5 +1,5 @@
 // An invented site for the cross-engine check (not a real plant): a quarry's crushing plant on a
-// 6.6 kV supply with every kind of equipment and two operating cases. The faulty variant gives one
+// 6.6 kV supply with every kind of equipment, drive-fed motors among them, and two operating cases. The faulty variant gives one
 // motor a no-load current inconsistent with its power factor, so error cells (and their spread
 // into the bus totals) are compared as well.
 import type { EquipmentRow, Site } from '../../src/core/site/model.ts';
@@ -53,6 +53,8 @@ export function inventedQuarry(faulty = false): Site {
         'motor',
         { p_kw: 315, eff: 0.955, cos_phi: 0.87, i0_pct: 30, u_kv: 0.69 },
         { crushing: 0.9, maintenance: 0 },
+        // Supply spellings as typed: the formulas read case and hyphens as the core does.
+        { supply: 'VSD AFE' },
       ),
       item(
         'CV',
@@ -60,6 +62,7 @@ export function inventedQuarry(faulty = false): Site {
         'motor',
         { qty: 4, running: 3, p_kw: 30, eff: 0.93, cos_phi: 0.84, u_kv: 0.69 },
         { crushing: 0.8, maintenance: 0.2 },
+        { supply: 'vsd-6-PULSE' },
       ),
       item(
         'SCR',
@@ -68,7 +71,14 @@ export function inventedQuarry(faulty = false): Site {
         { p_kw: 55, eff: 0.94, cos_phi: 0.85, i0_pct: faulty ? 95 : 32, u_kv: 0.69 },
         { crushing: 1, maintenance: 0.5 },
       ),
-      item('LT', 'LV1', 'load', { p_kw: 45, cos_phi: 0.95 }, { crushing: 1, maintenance: 0.6 }),
+      item(
+        'LT',
+        'LV1',
+        'load',
+        { p_kw: 45, cos_phi: 0.95 },
+        { crushing: 1, maintenance: 0.6 },
+        { supply: 'electronic lighting' },
+      ),
       item('DG', 'LV1', 'generator', { p_kw: 400, cos_phi: 0.8 }, { crushing: 0, maintenance: 0.5 }),
       item(
         'CB1',

@@ -41,6 +41,12 @@ export const COLUMN_SPECS: readonly ColumnSpec[] = [
   text('bus', 'Bus', 12, 'Bus the item is connected to (a transformer or line: its upstream bus)'),
   text('kind', 'Kind', 11, 'Kind of equipment'),
   text('to_bus', 'Feeds bus', 12, 'Bus a transformer or line feeds'),
+  text(
+    'supply',
+    'Supply',
+    14,
+    'What feeds a motor (direct-on-line when blank, star-delta, soft starter, VSD 6-pulse, VSD AFE) or what a load is (linear when blank, rectifier/UPS, electronic lighting, VSD 6-pulse)',
+  ),
   number('qty', 'Qty', 6, '0', 'Installed quantity'),
   number('running', 'Running', 8, '0', 'Units in service in the cases'),
   number('p_kw', 'P (kW)', 10, '0.0', 'Rated active power (kW); a motor: rated output'),

@@ -18,7 +18,18 @@ export type Expr =
   | { readonly k: 'op'; readonly op: '+' | '-' | '*' | '/'; readonly a: Expr; readonly b: Expr }
   | { readonly k: 'neg'; readonly a: Expr }
   /** then when `test` (blank read as 0) is > 0, else `otherwise`. */
-  | { readonly k: 'ifPositive'; readonly test: Expr; readonly then: Expr; readonly otherwise: Expr };
+  | { readonly k: 'ifPositive'; readonly test: Expr; readonly then: Expr; readonly otherwise: Expr }
+  /**
+   * then when the text column `key`, case folded with hyphens read as spaces and spaces trimmed
+   * (normaliseText), equals `equals` (already normalised), else `otherwise`.
+   */
+  | {
+      readonly k: 'ifText';
+      readonly key: string;
+      readonly equals: string;
+      readonly then: Expr;
+      readonly otherwise: Expr;
+    };
 
 export const num = (v: number): Expr => ({ k: 'num', v });
 export const col = (key: string): Expr => ({ k: 'col', key });
@@ -38,6 +49,20 @@ export const ifPositive = (test: Expr, then: Expr, otherwise: Expr): Expr => ({
   then,
   otherwise,
 });
+
+export const ifText = (key: string, equals: string, then: Expr, otherwise: Expr): Expr => {
+  if (normaliseText(equals) !== equals) throw new Error(`ifText: "${equals}" is not normalised`);
+  return { k: 'ifText', key, equals, then, otherwise };
+};
+
+/**
+ * Text as ifText compares it, the way the printed LOWER(TRIM(SUBSTITUTE(cell,"-"," "))) does in
+ * every spreadsheet program: hyphens read as spaces, spaces trimmed and runs of them made one
+ * (TRIM), case folded (LOWER).
+ */
+export function normaliseText(text: string): string {
+  return text.replace(/-/g, ' ').replace(/ +/g, ' ').trim().toLowerCase();
+}
 
 // ---------------------------------------------------------------- printing as formula text
 
@@ -86,6 +111,8 @@ export function printExpr(e: Expr, ctx: PrintContext): string {
           : printExpr(e.test, ctx);
       return `IF(${t}>0,${printExpr(e.then, ctx)},${printExpr(e.otherwise, ctx)})`;
     }
+    case 'ifText':
+      return `IF(LOWER(TRIM(SUBSTITUTE(${ctx.col(e.key)},"-"," ")))="${e.equals}",${printExpr(e.then, ctx)},${printExpr(e.otherwise, ctx)})`;
   }
 }
 
@@ -95,6 +122,8 @@ export interface EvalContext {
   /** The row's value for an input column; undefined = blank. */
   col(key: string): number | undefined;
   variable(name: VarName): number;
+  /** The row's text for a text column (ifText); undefined = blank. */
+  text?(key: string): string | undefined;
   /** The interchange column a variable stands for, for messages (e.g. 'load:night'). */
   variableColumn?(name: VarName): string | undefined;
 }
@@ -149,9 +178,15 @@ export function evalExpr(e: Expr, ctx: EvalContext): EvalResult {
       if (!t.ok) return t;
       return evalExpr(t.value > 0 ? e.then : e.otherwise, ctx);
     }
+    case 'ifText':
+      return evalExpr(textMatches(e, ctx) ? e.then : e.otherwise, ctx);
     case 'call':
       return evalCall(e.fn, e.args, ctx);
   }
+}
+
+function textMatches(e: Extract<Expr, { k: 'ifText' }>, ctx: EvalContext): boolean {
+  return normaliseText(ctx.text?.(e.key) ?? '') === e.equals;
 }
 
 /**
@@ -168,6 +203,7 @@ function argument(
     if (!t.ok) return t;
     return argument(t.value > 0 ? a.then : a.otherwise, ctx);
   }
+  if (a.k === 'ifText') return argument(textMatches(a, ctx) ? a.then : a.otherwise, ctx);
   return evalExpr(a, ctx);
 }
 
@@ -199,6 +235,10 @@ export function columnsOf(e: Expr, out = new Set<string>()): Set<string> {
   } else if (e.k === 'neg') columnsOf(e.a, out);
   else if (e.k === 'ifPositive') {
     columnsOf(e.test, out);
+    columnsOf(e.then, out);
+    columnsOf(e.otherwise, out);
+  } else if (e.k === 'ifText') {
+    out.add(e.key);
     columnsOf(e.then, out);
     columnsOf(e.otherwise, out);
   }

@@ -24,4 +24,5 @@ export * from './spec.ts';
 export * from './expr.ts';
 export * from './columns.ts';
 export * from './sheets.ts';
+export * from './supply.ts';
 export { columnLabel, type ColumnLabel } from './labels.ts';

@@ -1,6 +1,7 @@
 import { X, call, col, mul } from './expr.ts';
 import { defineKind } from './spec.ts';
 import { LOADS_SHEET } from './sheets.ts';
+import { LOAD_SUPPLIES } from './supply.ts';
 
 export const LOAD = defineKind({
   name: 'load',
@@ -13,5 +14,6 @@ export const LOAD = defineKind({
     p: mul(col('p_kw'), X),
     q: call('KVAR.LOAD', mul(col('p_kw'), X), col('cos_phi')),
   },
+  supplies: LOAD_SUPPLIES,
   summary: 'P = rated P × load factor, Q from cos φ (KVAR.LOAD), times the units running',
 });

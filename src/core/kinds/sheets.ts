@@ -18,6 +18,7 @@ export const MOTORS_SHEET = defineSheet({
     input('cos_phi'),
     input('i0_pct'),
     input('u_kv'),
+    input('supply'),
   ],
 });
 
@@ -25,7 +26,7 @@ export const LOADS_SHEET = defineSheet({
   id: 'loads',
   name: 'Loads',
   purpose: 'Other loads: P = rated P × load factor, Q from cos φ (KVAR.LOAD), times the units running.',
-  inputs: [...common, ...units, input('p_kw'), input('cos_phi'), input('u_kv')],
+  inputs: [...common, ...units, input('p_kw'), input('cos_phi'), input('u_kv'), input('supply')],
 });
 
 export const GENERATORS_SHEET = defineSheet({

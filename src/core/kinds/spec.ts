@@ -4,6 +4,7 @@
 // workbook's formulas). Adding a kind = one file with a defineKind call, registered in index.ts.
 import type { Expr } from './expr.ts';
 import { columnSpec, type ColumnSpec } from './columns.ts';
+import type { SupplyArrangement } from './supply.ts';
 
 /** One input column of an equipment sheet: an interchange column, with a sheet-specific header if needed. */
 export interface SheetInput {
@@ -86,6 +87,8 @@ export interface KindSpec {
   readonly shunt?: ShuntPhysics;
   readonly branch?: BranchPhysics;
   readonly traits?: KindTraits;
+  /** What may be named in the Supply column, the default (blank) first; absent: no Supply column. */
+  readonly supplies?: readonly SupplyArrangement[];
   /** One line for the reference: what the kind's rows compute. */
   readonly summary: string;
 }

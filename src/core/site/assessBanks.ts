@@ -22,6 +22,7 @@ import {
   voltageRise,
 } from './bankRules.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
+import { detuningAdvice } from './detuningCheck.ts';
 import { connectionNeed } from './requirement.ts';
 import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
 import { findKind } from '../kinds/index.ts';
@@ -63,6 +64,7 @@ function bankWarnings(
       continue;
     }
     const p = c.p_pct ?? 0;
+    for (const w of detuningAdvice(site, graph, c)) out.push(w);
     const uc = capacitorVoltage(u, p);
     if (c.u_rated_kv !== undefined && uc > c.u_rated_kv * (1 + 1e-9)) {
       out.push(

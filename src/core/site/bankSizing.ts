@@ -7,11 +7,9 @@ import { unitsRunning } from './cases.ts';
 import type { BusGraph } from './graph.ts';
 import type { BusShortCircuit } from './shortCircuit.ts';
 import {
-  DEFAULT_DETUNING_PCT,
   FIXED_SERIES_KVAR,
   STEP_SERIES_KVAR,
   STEP_VRISE_LIMIT_PCT,
-  THIRD_HARMONIC_DETUNING_PCT,
   chooseCapacitorRating,
   capacitorVoltage,
   MAX_STEPS,
@@ -30,6 +28,8 @@ import type { CapacitorRating } from './capacitorRatings.ts';
 import { entryOf, nameTable } from '../text/nameTable.ts';
 import { grouped } from './limits.ts';
 import { DEFAULT_STEP_SERIES, largestRatio, type StepSeries } from './stepSeries.ts';
+import { chooseDetuning } from './detuningChoice.ts';
+import { harmonicShares, isDriveFed } from './harmonicSources.ts';
 
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
@@ -132,8 +132,10 @@ export function sizeBank(
   let sections: readonly number[] = [];
   let switching: BankDesign['switching'] = 'fixed, switched with its feeder';
   let why: string;
+  // A drive-fed motor is not compensated at its terminals (the drive stands between): no
+  // individual capacitor and no self-excitation limit; the bank is an ordinary one.
   const motor = soleMotorOf(bus, graph);
-  const limit = motor ? motorCapacitorLimit(motor, uKv) : undefined;
+  const limit = motor && !isDriveFed(motor) ? motorCapacitorLimit(motor, uKv) : undefined;
   if (motor && limit !== undefined) {
     const perBus = limit.kvar * Math.max(unitsRunning(motor), 1);
     fixed = roundDownToSeries(Math.min(most, perBus), MERGED_SERIES);
@@ -204,13 +206,18 @@ export function sizeBank(
           const order = resonanceOrderOf(sc.ssc_mva, q * (1 - p / 100) + plainInstalled, p) as number;
           return { kvar, order, near: nearHarmonic(order) ?? null };
         });
-  let p = ctx.detuning ?? installedP ?? 0;
-  if (ctx.detuning === undefined && installedP !== undefined)
-    why += `; detuned at ${installedP} % like the installed bank`;
-  if (ctx.detuning === undefined && installedP === undefined && sweep(0).some((r) => r.near !== null)) {
-    p = ctx.thirdHarmonic ? THIRD_HARMONIC_DETUNING_PCT : DEFAULT_DETUNING_PCT;
-    why += `; detuned at ${p} % because a plain bank would resonate near a characteristic harmonic`;
-  }
+  const choice = chooseDetuning({
+    bus,
+    shares: harmonicShares(bus, site, graph),
+    plainSweep: sweep(0),
+    assessed: sc !== undefined,
+    ...(ctx.detuning !== undefined ? { explicit: ctx.detuning } : {}),
+    ...(installedP !== undefined ? { installed: installedP } : {}),
+    ...(ctx.thirdHarmonic ? { thirdHarmonic: true } : {}),
+  });
+  const p = choice.p;
+  why += choice.why;
+  if (choice.finding) warnings.push(choice.finding);
   if (sc === undefined) {
     warnings.push(
       designWarning(
@@ -223,12 +230,14 @@ export function sizeBank(
   }
   const resonance = sweep(p);
   for (const r of resonance.filter((x) => x.near !== null)) {
+    // Near an order nothing on the bus produces (no 6-pulse source, only background 5th/7th): info.
+    const produced = choice.relevant.includes(r.near as number);
     warnings.push(
       designWarning(
-        'warning',
+        produced ? 'warning' : 'info',
         'resonance',
         { bus },
-        `with ${r.kvar.toFixed(1)} kvar connected the bank on bus ${bus} resonates at order ${r.order.toFixed(2)}, near the ${r.near}th harmonic; choose another detuning or step size`,
+        `with ${r.kvar.toFixed(1)} kvar connected the bank on bus ${bus} resonates at order ${r.order.toFixed(2)}, near the ${r.near}th harmonic${produced ? '' : `, which no item on bus ${bus} or below produces (no 6-pulse drive or rectifier)`}; choose another detuning or step size`,
       ),
     );
   }

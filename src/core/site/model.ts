@@ -28,6 +28,8 @@ export interface EquipmentRow {
   readonly bus: string;
   readonly kind: EquipmentKind;
   readonly to_bus?: string;
+  /** What feeds a motor or what a load is (src/core/kinds/supply.ts), as typed; blank = the default. */
+  readonly supply?: string;
   readonly values: Readonly<Partial<Record<NumericColumn, number>>>;
   readonly loads: Readonly<Record<string, number>>;
 }

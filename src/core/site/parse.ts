@@ -222,6 +222,7 @@ function readRow(
     kind,
     ...(text.description !== undefined ? { description: text.description } : {}),
     ...(text.to_bus !== undefined ? { to_bus: text.to_bus } : {}),
+    ...(text.supply !== undefined ? { supply: text.supply } : {}),
     values,
     loads,
   };

@@ -22,6 +22,7 @@ function context(
 ): EvalContext {
   return {
     col: (key) => row.values[key],
+    text: (key) => (key === 'supply' ? row.supply : undefined),
     variable: (name) => vars[name] ?? 0,
     variableColumn: (name) => columns[name],
   };

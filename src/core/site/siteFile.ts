@@ -260,6 +260,7 @@ function rowObject(row: EquipmentRow, cases: readonly string[]): Record<string, 
   o.bus = row.bus;
   o.kind = row.kind;
   if (row.to_bus !== undefined) o.to_bus = row.to_bus;
+  if (row.supply !== undefined) o.supply = row.supply;
   for (const c of NUMERIC_COLUMNS) {
     const v = row.values[c];
     if (v !== undefined) o[c] = v;

@@ -11,6 +11,7 @@ import { busVoltages } from './voltages.ts';
 import { magnitudeProblems, siteSizeProblems } from './limits.ts';
 import { plausibilityProblems } from './plausibility.ts';
 import { lineResistanceProblems } from './lineResistance.ts';
+import { supplyProblems } from './supplyCheck.ts';
 import { formatNumber } from '../registry/messages.ts';
 import { unstorableCharacter } from '../text/storable.ts';
 
@@ -93,7 +94,7 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
   const at = (column: string) => ({ row: row.row, column, ...(row.tag ? { tag: row.tag } : {}) });
   if (row.tag === '') out.push(error(at('tag'), say.missingTag()));
   if (row.bus === '') out.push(error(at('bus'), say.missingBus()));
-  for (const key of ['tag', 'bus', 'to_bus', 'description'] as const) {
+  for (const key of ['tag', 'bus', 'to_bus', 'description', 'supply'] as const) {
     const bad = unstorableCharacter(row[key] ?? '');
     if (bad) out.push(error(at(key), say.unstorable(key, bad)));
   }
@@ -112,6 +113,7 @@ function validateRow(row: EquipmentRow, site: Site): Problem[] {
         `to_bus is used only by transformers and lines; ignored for a ${row.kind} (use kind line for a feeder)`,
       ),
     );
+  append(out, supplyProblems(row, kind, at));
   append(out, validateQuantity(row, isBranch, at));
   // An absurd magnitude (1e308 kW, a quantity of a million) stops the row here: the catalogue
   // calls below would only repeat it as overflow.

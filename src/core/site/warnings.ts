@@ -17,7 +17,8 @@ export type WarningCode =
   | 'charging-dominates'
   | 'bus-voltage-unknown'
   | 'detuned-and-plain-mixed'
-  | 'bank-capped';
+  | 'bank-capped'
+  | 'detuning-choice';
 
 export interface DesignWarning extends Problem {
   readonly code: WarningCode;

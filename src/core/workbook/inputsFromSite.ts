@@ -46,6 +46,8 @@ export function otherValues(
   const pairs: string[] = [];
   if (row.to_bus !== undefined && row.to_bus !== '' && !cols.input.has('to_bus'))
     pairs.push(`to_bus=${row.to_bus}`);
+  if (row.supply !== undefined && row.supply !== '' && !cols.input.has('supply'))
+    pairs.push(`supply=${row.supply}`);
   for (const [k, v] of Object.entries(row.values)) {
     if (v === undefined || cols.input.has(k) || (k === 'load' && cols.loadDefault !== undefined)) continue;
     pairs.push(`${k}=${v}`);
@@ -66,6 +68,7 @@ function inputCells(cols: EquipmentColumns, row: EquipmentRow, cases: readonly s
     else if (key === 'description')
       out[c] = row.description === undefined ? null : textContent(row.description);
     else if (key === 'to_bus') out[c] = row.to_bus === undefined ? null : textContent(row.to_bus);
+    else if (key === 'supply') out[c] = row.supply === undefined ? null : textContent(row.supply);
     else out[c] = row.values[key] ?? null;
   }
   if (cols.loadDefault !== undefined) out[cols.loadDefault] = row.values.load ?? null;

@@ -105,7 +105,12 @@ function readOther(
   at: Spot,
   cases: readonly string[],
   ctx: ReadContext,
-  row: { values: Partial<Record<NumericColumn, number>>; loads: Record<string, number>; to_bus?: string },
+  row: {
+    values: Partial<Record<NumericColumn, number>>;
+    loads: Record<string, number>;
+    to_bus?: string;
+    supply?: string;
+  },
 ): void {
   for (const part of text.split(';')) {
     const p = part.trim();
@@ -115,6 +120,7 @@ function readOther(
     const value = eq < 0 ? '' : p.slice(eq + 1).trim();
     const n = Number(value);
     if (key === 'to_bus' && value !== '') row.to_bus = value;
+    else if (key === 'supply' && value !== '') row.supply = value;
     else if (key.startsWith('load:') && cases.includes(key.slice(5)) && value !== '' && Number.isFinite(n))
       row.loads[key.slice(5)] = n;
     else if (NUMERIC.has(key) && value !== '' && Number.isFinite(n)) row.values[key as NumericColumn] = n;
@@ -165,6 +171,7 @@ function readEquipmentSheet(
       values: Partial<Record<NumericColumn, number>>;
       loads: Record<string, number>;
       to_bus?: string;
+      supply?: string;
     };
     const tagCol = cols.find((c) => c.role.kind === 'text' && c.role.key === 'tag');
     const tag = tagCol
@@ -188,6 +195,7 @@ function readEquipmentSheet(
       }
     }
     if (text.to_bus !== undefined) row.to_bus = text.to_bus;
+    if (text.supply !== undefined) row.supply = text.supply;
     const kind = kindOf(
       layout,
       text.kind,
@@ -211,6 +219,7 @@ function readEquipmentSheet(
       kind,
       ...(text.description !== undefined ? { description: text.description } : {}),
       ...(row.to_bus !== undefined ? { to_bus: row.to_bus } : {}),
+      ...(row.supply !== undefined ? { supply: row.supply } : {}),
       values: row.values,
       loads: row.loads,
     });

@@ -141,6 +141,7 @@ const TARGET_UNIT: Readonly<Record<string, readonly [Dimension, string]>> = {
   bus: ['text', ''],
   kind: ['text', ''],
   to_bus: ['text', ''],
+  supply: ['text', ''],
   qty: ['count', ''],
   running: ['count', ''],
   p_kw: ['power', 'kW'],

@@ -115,7 +115,9 @@ describe('designCompensation', () => {
   it('detunes the added bank there, and says plain and detuned units should not be mixed', () => {
     const bank = d7.banks.find((b) => b.bus === 'LV');
     expect(bank?.p_pct).toBe(7);
-    expect(bank?.why).toContain('resonate near a characteristic harmonic');
+    expect(bank?.why).toMatch(
+      /but a plain bank with [\d.]+ kvar connected would resonate at order [\d.]+, near the (5th|7th)/,
+    );
     expect(bank?.resonance.every((r) => r.near === null)).toBe(true);
     expect(d7.warnings.some((x) => x.code === 'detuned-and-plain-mixed' && x.bus === 'LV')).toBe(true);
     expect(bank?.u_cap_kv).toBeCloseTo(0.4 / 0.93, 12);

@@ -3,6 +3,8 @@
 // hide in both. Sources:
 //   motor input P = P_out·x/η; Q(x) = Q0 + (Qr − Q0)·x², Qr = P_out/η·tan φ, Q0 = i0/100·P_out/(η·cos φ)
 //     (or 0.7·Qr when i0 is not given: the catalogue's stated common-practice assumption);
+//   a motor fed by a drive: Q = P·tan(acos DPF), DPF 0.96 behind a 6-pulse drive, 1 behind an
+//     active front end (common practice, from memory: 6-pulse drives draw 0.95–0.98);
 //   load Q = P·tan φ; generator Q = −P·tan φ (over-excited); power triangle S² = P² + Q²
 //     (IEC 60050-131);
 //   transformer: losses P0 + Pk·(S/Sr)², magnetising √((i0/100·Sr)² − P0²),
@@ -17,6 +19,7 @@ export interface HandRow {
   bus: string;
   kind: string;
   to_bus?: string;
+  supply?: string;
   [key: string]: string | number | undefined;
 }
 
@@ -42,6 +45,12 @@ export function itemPower(r: HandRow, caseName: string, hz: number): { p: number
   const g = (k: string) => n(r, k) as number;
   switch (r.kind) {
     case 'motor': {
+      const fed = (r.supply ?? '').replace(/-/g, ' ').replace(/ +/g, ' ').trim().toLowerCase();
+      const dpf = fed === 'vsd 6 pulse' ? 0.96 : fed === 'vsd afe' ? 1 : undefined;
+      if (dpf !== undefined) {
+        const p = units * ((g('p_kw') * x) / g('eff'));
+        return { p, q: p * tanOf(dpf) };
+      }
       const qr = (g('p_kw') / g('eff')) * tanOf(g('cos_phi'));
       const i0 = n(r, 'i0_pct');
       const q0 = i0 === undefined ? 0.7 * qr : (i0 / 100) * (g('p_kw') / (g('eff') * g('cos_phi')));

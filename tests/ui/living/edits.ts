@@ -1,7 +1,7 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
 // typed on the Compensation sheet (steps, step series, detuning, capacitor rating), a line's resistance typed
-// or cleared, rates and tariff values
+// or cleared, a motor's or load's supply typed or cleared, rates and tariff values
 // typed or cleared on the Rates and Tariff sheets, the rated power the requirement refers to, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
 import fc from 'fast-check';
@@ -11,6 +11,7 @@ import { planCompensationColumns } from '../../../src/core/workbook/compensation
 import { RATES_SHEET, TARIFF_SHEET } from '../../../src/core/quote/index.ts';
 import { FIRST_CASE_ROW, SETTING_ROWS } from '../../../src/core/workbook/settingsLayout.ts';
 import type { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { LOAD_SUPPLY_TEXTS, MOTOR_SUPPLY_TEXTS } from './siteArb.ts';
 
 export type Edit =
   | { op: 'value'; sheet: number; row: number; field: 'p_kw' | 'cos_phi' | 'qty' | 'load'; value: number }
@@ -24,6 +25,7 @@ export type Edit =
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number; series: string | null }
   | { op: 'design'; bus: number; p: number; urFactor: number | null }
   | { op: 'resistance'; row: number; value: number | null }
+  | { op: 'supply'; sheet: number; row: number; text: string | null }
   | { op: 'rate'; row: number; value: number | null }
   | { op: 'tariff'; row: number; value: number | null }
   | { op: 'ratedPower'; value: number | null }
@@ -99,6 +101,13 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     urFactor: fc.option(fc.constantFrom(1.05, 1.1, 1.2), { nil: null }),
   }),
   fc.record({
+    op: fc.constant('supply' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    row: fc.nat(),
+    // Motors' and loads' spellings on either sheet: the other sheet's words are refused there.
+    text: fc.option(fc.constantFrom(...MOTOR_SUPPLY_TEXTS, ...LOAD_SUPPLY_TEXTS), { nil: null, freq: 4 }),
+  }),
+  fc.record({
     op: fc.constant('resistance' as const),
     row: fc.nat(),
     value: fc.option(num(0.01, 2), { nil: null, freq: 4 }),
@@ -165,6 +174,12 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       const c = e.field === 'load' ? (plans[e.sheet]?.loadDefault as number) : col(e.sheet, e.field);
       s.setCells(sheetId(e.sheet), [{ row, col: c, content: v }]);
       return `value ${e.field}=${v} at ${plans[e.sheet]?.sheet.name} row ${row + 1}`;
+    }
+    case 'supply': {
+      const row = pickRow(e.sheet, e.row);
+      if (row === undefined) return 'supply: no row';
+      s.setCells(sheetId(e.sheet), [{ row, col: col(e.sheet, 'supply'), content: e.text }]);
+      return `supply ${String(e.text)} on ${plans[e.sheet]?.sheet.name} row ${row + 1}`;
     }
     case 'resistance': {
       const i = plans.findIndex((p) => p.sheet.id === 'lines');

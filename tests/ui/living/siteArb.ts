@@ -38,6 +38,19 @@ const loadsArb = (cases: readonly string[], range: [number, number]) =>
       return out;
     });
 
+/** Supply cells as an estimator types them: blank, the defaults, drives and other spellings. */
+export const MOTOR_SUPPLY_TEXTS = [
+  'direct-on-line',
+  'DOL',
+  'star-delta',
+  'VSD 6-pulse',
+  'vsd-6-PULSE',
+  'VSD AFE',
+];
+export const LOAD_SUPPLY_TEXTS = ['linear', 'Rectifier/UPS', 'electronic lighting', 'VSD 6-pulse'];
+const supplyArb = (texts: readonly string[]) =>
+  fc.option(fc.constantFrom(...texts), { nil: undefined }).map((s) => (s ? { supply: s } : {}));
+
 function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrary<RowSpec> {
   const units = fc
     .record({ qty: fc.option(fc.integer({ min: 1, max: 4 }), { nil: undefined }) })
@@ -50,20 +63,29 @@ function shuntArb(bus: string, u: number, cases: readonly string[]): fc.Arbitrar
       load: fc.option(loadFactor([0, 1.2]), { nil: undefined }),
       units,
       loads: loadsArb(cases, [0, 1.2]),
+      supply: supplyArb(MOTOR_SUPPLY_TEXTS),
     })
-    .map(({ p, eff, cos, load, units, loads }) => ({
+    .map(({ p, eff, cos, load, units, loads, supply }) => ({
       tag: '',
       bus,
       kind: 'motor',
+      ...supply,
       values: { p_kw: p, eff, cos_phi: cos, u_kv: u, ...units, ...(load !== undefined ? { load } : {}) },
       loads,
     }));
   const load = fc
-    .record({ p: num(1, 600), cos: cosPhi(0.6, 1), units, loads: loadsArb(cases, [0, 1.5]) })
-    .map(({ p, cos, units, loads }) => ({
+    .record({
+      p: num(1, 600),
+      cos: cosPhi(0.6, 1),
+      units,
+      loads: loadsArb(cases, [0, 1.5]),
+      supply: supplyArb(LOAD_SUPPLY_TEXTS),
+    })
+    .map(({ p, cos, units, loads, supply }) => ({
       tag: '',
       bus,
       kind: 'load',
+      ...supply,
       values: { p_kw: p, cos_phi: cos, ...units },
       loads,
     }));

@@ -88,8 +88,9 @@ describe('the summary of the cold-store demo', () => {
   it('lists the banks of the Compensation sheet and the cost, saving and payback of the Quantities sheet', async () => {
     const s = await open('cold-store');
     const d = summaryOf(s);
-    // The template's banks, both 7 % at 0.48 kV: LV-REF 12.5 + 6 × 50 kvar; LV-SVC 7.5 kvar fixed
-    // and 3 stages of 1:2:4 from 12.5 kvar: 12.5 + 25 + 50, 7 steps of 12.5 kvar, 95 kvar in all.
+    // The template's banks: LV-REF 12.5 + 5 × 40 kvar at 7 % (drives), 0.48 kV; LV-SVC 7.5 kvar fixed
+    // and 3 stages of 1:2:4 from 10 kvar (10 + 20 + 40: 7 steps of 10 kvar) at 14 % (electronic
+    // load), 0.525 kV: 77.5 kvar in all.
     expect(
       d.banks.map((b) => [
         b.bus,
@@ -103,8 +104,8 @@ describe('the summary of the cold-store demo', () => {
         b.total,
       ]),
     ).toEqual([
-      ['LV-REF', 12.5, 50, 6, undefined, 6, 7, 0.48, 312.5],
-      ['LV-SVC', 7.5, 12.5, 3, '1:2:4', 7, 7, 0.48, 7.5 + 12.5 + 25 + 50],
+      ['LV-REF', 12.5, 40, 5, undefined, 5, 7, 0.48, 212.5],
+      ['LV-SVC', 7.5, 10, 3, '1:2:4', 7, 14, 0.525, 7.5 + 10 + 20 + 40],
     ]);
     const n = 3; // buses MV-11, LV-REF, LV-SVC
     const m = d.money;
@@ -127,11 +128,11 @@ describe('the summary after an edit', () => {
     const before = summaryOf(s);
     const cases = before.cases.map((c) => c.name);
     const comp = planCompensationColumns(cases);
-    // LV-REF is row 2 of the Compensation sheet: 6 steps become 3.
+    // LV-REF is row 2 of the Compensation sheet: 5 steps become 3.
     const row = s.sheetContents(sheet(s, 'Compensation')).findIndex((r) => r[0] === 'LV-REF');
     s.setCells(sheet(s, 'Compensation'), [{ row, col: comp.input.steps, content: 3 }]);
     const after = summaryOf(s);
-    expect(after.banks.find((b) => b.bus === 'LV-REF')?.total).toBe(12.5 + 3 * 50);
+    expect(after.banks.find((b) => b.bus === 'LV-REF')?.total).toBe(12.5 + 3 * 40);
     expect(num(after.money?.total)).toBeLessThan(num(before.money?.total));
     expect(num(after.cases[0]?.qAfter)).toBeGreaterThan(num(before.cases[0]?.qAfter));
     const core = coreFaces(s);
