@@ -214,6 +214,13 @@ function physicsProblems(
     };
     const r = shuntPower(probe, kind, c, hz);
     if (!r.ok) report(r);
+    // Behind a drive the motor's own cos φ is not used, but it is still its nameplate: a value
+    // no motor can have is reported as for a motor on the line.
+    if (r.ok && probe.supply !== undefined) {
+      const { supply: _drive, ...own } = probe;
+      const plain = shuntPower(own, kind, c, hz);
+      if (!plain.ok) report(plain);
+    }
   }
   return out;
 }

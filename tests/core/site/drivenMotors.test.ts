@@ -37,6 +37,18 @@ describe('a bus of drive-fed pumps', () => {
     expect([...problems, ...validateSite(site)].filter((p) => p.severity === 'error')).toEqual([]);
   });
 
+  it('still refuses a nameplate cos φ no motor has, though the drive hides it from the supply', () => {
+    const rows = ROWS.map((r) => (r.startsWith('PD,') ? r.replace(',0.85,0.8,', ',1.4,0.8,') : r));
+    const bad = siteFromCsv([HEAD, ...rows].join('\n')).site;
+    const errors = validateSite(bad).filter((p) => p.severity === 'error');
+    expect(errors).toEqual([
+      expect.objectContaining({
+        column: 'cos_phi',
+        message: expect.stringMatching(/must be in \(0, 1\]; got 1\.4/),
+      }),
+    ]);
+  });
+
   // By hand: 6-pulse pumps: P = 2 · 55 · 0.8 / 0.94 = 93.617 kW; Q = P · tan(acos 0.96) = 27.305 kvar.
   // AFE pump: P = 55 / 0.94 = 58.511 kW; Q = 0.
   const p6 = (2 * 55 * 0.8) / 0.94;
