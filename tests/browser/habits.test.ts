@@ -57,7 +57,7 @@ describe('keyboard', () => {
   });
 
   it('opens the cell menu with Shift+F10 and the menu key, and pastes from it', async () => {
-    await selectCell(page, 10, 12);
+    await selectCell(page, 10, 13);
     await page.keyboard.press('Shift+F10');
     const menu = page.locator('[data-testid="grid-menu"]');
     await menu.waitFor();
@@ -68,16 +68,16 @@ describe('keyboard', () => {
     await expect.poll(() => menu.count()).toBe(0);
     // Escape gave the keyboard back to the grid.
     await page.keyboard.press('ArrowRight');
-    expect(await address()).toBe('Motors!N11');
+    expect(await address()).toBe('Motors!O11');
     await page.keyboard.press('ContextMenu');
     await menu.waitFor();
     await page.keyboard.press('Escape');
     await page.evaluate(() => navigator.clipboard.writeText('42'));
     await page.keyboard.press('Shift+F10');
     await menu.locator('.kl-menu-item', { hasText: 'Paste' }).click();
-    await expect.poll(() => cellText(page, 10, 13)).toBe('42');
+    await expect.poll(() => cellText(page, 10, 14)).toBe('42');
     await undo();
-    await expect.poll(() => cellText(page, 10, 13)).toBe('');
+    await expect.poll(() => cellText(page, 10, 14)).toBe('');
   });
 
   it('stops Ctrl+Arrow at the edge of the data', async () => {
