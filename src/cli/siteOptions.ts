@@ -141,19 +141,16 @@ export function readSiteOptions(args: ParsedArgs): OptionsResult {
       );
     out.requirement = { kind: 'tanphi', lagMax: lag, leadMax: lead };
   }
-  const rated = v('--rated-kw');
-  if (rated !== undefined) {
-    const x = number(rated);
+  for (const [option, unit, key] of [
+    ['--rated-kw', 'kW', 'ratedKw'],
+    ['--ssc-mva', 'MVA', 'sscMva'],
+  ] as const) {
+    const text = v(option);
+    if (text === undefined) continue;
+    const x = number(text);
     if (x === undefined || !(x > 0) || !Number.isFinite(x))
-      return bad(`--rated-kw must be a number > 0 (kW); got "${rated}"`);
-    out.ratedKw = x;
-  }
-  const ssc = v('--ssc-mva');
-  if (ssc !== undefined) {
-    const x = number(ssc);
-    if (x === undefined || !(x > 0) || !Number.isFinite(x))
-      return bad(`--ssc-mva must be a number > 0 (MVA); got "${ssc}"`);
-    out.sscMva = x;
+      return bad(`${option} must be a number > 0 (${unit}); got "${text}"`);
+    out[key] = x;
   }
   const caseName = v('--case');
   if (caseName !== undefined) {
