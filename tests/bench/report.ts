@@ -1,6 +1,7 @@
 // results.json and results.md: every step per size with its ratio to the floor and to the peer,
 // the targets of the 10,000-row site and whether each is met, memory, the page, the machine.
 import type { Machine } from './machine.ts';
+import { PHASES } from './phases.ts';
 import { STEP_NAMES, type BrowserResult, type MemoryResult, type StepId, type StepResult } from './record.ts';
 import { sizeLabel, TARGET_ROWS } from './sizes.ts';
 
@@ -217,13 +218,13 @@ export function renderMarkdown(r: BenchResults): string {
   lines.push(
     '## Peak memory (resident set, MB, per child process)',
     '',
-    'The engine process also runs the xlsx export (from its engine, before the edits); the xlsx process runs the import.',
+    "The engine process also runs the xlsx export (from its engine); the edits process builds an engine of its own and edits it; the model process is the page's model; the xlsx process runs the import.",
     '',
-    '| Size | ' + ['core', 'engine', 'xlsx'].join(' | ') + ' |',
-    '|---|--:|--:|--:|',
+    '| Size | ' + PHASES.join(' | ') + ' |',
+    '|---|' + PHASES.map(() => '--:|').join(''),
   );
   for (const size of r.sizes) {
-    const cells = ['core', 'engine', 'xlsx'].map((phase) => {
+    const cells = PHASES.map((phase) => {
       const mem = r.memory.find((x) => x.rows === size.rows && x.phase === phase);
       return mem
         ? `${Math.round(mem.peakRssMb).toLocaleString('en-GB')}${mem.complete ? '' : ' (stopped; at least)'}`

@@ -59,6 +59,7 @@ async function runSize(
   };
   await phase('core', undefined, '');
   await phase('engine', files.live, 'not run: buildWorkbook (live) did not finish');
+  await phase('edits', files.live, 'not run: buildWorkbook (live) did not finish');
   await phase('model', files.live, 'not run: buildWorkbook (live) did not finish');
   await phase('xlsx', files.xlsx, 'not run: the xlsx export (engine phase) did not finish');
   const roots = existsSync(files.roots)

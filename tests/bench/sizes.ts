@@ -9,6 +9,7 @@ export interface BenchSize {
   readonly budget: {
     readonly core: number;
     readonly engine: number;
+    readonly edits: number;
     readonly model: number;
     readonly xlsx: number;
     readonly cli: number;
@@ -21,17 +22,17 @@ export const SIZES: readonly BenchSize[] = [
   {
     rows: 1_000,
     buses: 30,
-    budget: { core: 60, engine: 90, model: 90, xlsx: 60, cli: 60, cliExport: 60, peer: 60 },
+    budget: { core: 60, engine: 90, edits: 60, model: 90, xlsx: 60, cli: 60, cliExport: 60, peer: 60 },
   },
   {
     rows: 10_000,
     buses: 300,
-    budget: { core: 120, engine: 180, model: 180, xlsx: 120, cli: 90, cliExport: 120, peer: 120 },
+    budget: { core: 120, engine: 180, edits: 120, model: 180, xlsx: 120, cli: 90, cliExport: 120, peer: 120 },
   },
   {
     rows: 50_000,
     buses: 1_000,
-    budget: { core: 150, engine: 180, model: 180, xlsx: 90, cli: 60, cliExport: 120, peer: 60 },
+    budget: { core: 150, engine: 180, edits: 150, model: 180, xlsx: 90, cli: 60, cliExport: 120, peer: 60 },
   },
 ];
 
