@@ -27,6 +27,13 @@ const UNITS: Record<TariffKey, string> = {
   energy_price: 'per kWh',
 };
 
+/**
+ * Hours in a leap year (366 × 24): the cases of one site share one year, so hours above this
+ * count some hour twice and overstate the saving. 8,784 rather than 8,760 so that a leap year's
+ * hours typed as such are not refused.
+ */
+export const HOURS_PER_YEAR_MAX = 8784;
+
 /** The Setting text of a case's hours. */
 export const hoursLabel = (c: string) => `Hours per year: ${c}`;
 
@@ -71,6 +78,8 @@ export function readTariff(
         message: `tariff: no row "${hoursLabel(c)}", so case ${c} counts 0 hours per year; add the row with the hours it runs`,
       });
   const get = (label: string) => values.get(label.toLowerCase()) ?? 0;
+  const yearProblem = overfullYear(rows, cases, get);
+  if (yearProblem) problems.push(yearProblem);
   const tariff: Tariff = {
     kvarh_price: get(TARIFF_LABELS.kvarh_price),
     kvarh_free_tan: get(TARIFF_LABELS.kvarh_free_tan),
@@ -81,6 +90,23 @@ export function readTariff(
     hours: new Map(cases.map((c) => [c, get(hoursLabel(c))])),
   };
   return { tariff, problems };
+}
+
+/** The cases' hours add up to more than a year: reported at the first hours row. */
+function overfullYear(
+  rows: readonly (readonly CellContent[])[],
+  cases: readonly string[],
+  get: (label: string) => number,
+): TariffProblem | undefined {
+  const total = cases.reduce((sum, c) => sum + get(hoursLabel(c)), 0);
+  if (!(total > HOURS_PER_YEAR_MAX)) return undefined;
+  const wanted = new Set(cases.map((c) => hoursLabel(c).toLowerCase()));
+  const first = rows.findIndex((r, i) => i > 0 && wanted.has(text(r[0]).toLowerCase()));
+  const each = cases.map((c) => `${c} ${get(hoursLabel(c)).toLocaleString('en-GB')} h`).join(', ');
+  return {
+    ...(first > 0 ? { row: first + 1 } : {}),
+    message: `tariff${first > 0 ? ` row ${first + 1}, column Value` : ''}: the cases' hours add up to ${total.toLocaleString('en-GB')} h per year (${each}), more than a year has (${HOURS_PER_YEAR_MAX.toLocaleString('en-GB')} h in a leap year), so the saving counts some hours twice; share the year between the cases`,
+  };
 }
 
 export const TARIFF_PURPOSE =

@@ -103,3 +103,31 @@ describe('the Tariff sheet', () => {
     ]);
   });
 });
+
+describe('hours of the cases against the hours of a year', () => {
+  const sheet = (day: number, night: number) => [
+    ['Setting', 'Value', 'Unit', 'Note'],
+    ['Energy price for losses', 0.1, 'per kWh', ''],
+    ['Hours per year: day', day, 'h', ''],
+    ['Hours per year: night', night, 'h', ''],
+  ];
+
+  it('says when the cases share more hours than a year has, at the first hours row', () => {
+    // A year has 365 × 24 = 8,760 h, a leap year 366 × 24 = 8,784 h (calendar arithmetic).
+    // A case typed as running all year beside another counts those hours twice.
+    const { problems } = readTariff(sheet(8760, 4380), ['day', 'night']);
+    expect(problems).toEqual([
+      {
+        row: 3,
+        message:
+          "tariff row 3, column Value: the cases' hours add up to 13,140 h per year (day 8,760 h, night 4,380 h), more than a year has (8,784 h in a leap year), so the saving counts some hours twice; share the year between the cases",
+      },
+    ]);
+  });
+
+  it('accepts a year shared exactly, and a leap year typed as such', () => {
+    expect(readTariff(sheet(4380, 4380), ['day', 'night']).problems).toEqual([]);
+    expect(readTariff(sheet(4392, 4392), ['day', 'night']).problems).toEqual([]);
+    expect(readTariff(sheet(4392, 4393), ['day', 'night']).problems).toHaveLength(1);
+  });
+});

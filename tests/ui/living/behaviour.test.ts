@@ -249,7 +249,11 @@ describe('an added case gets its hours row on the Tariff sheet', () => {
       expect.objectContaining({ severity: 'warning', where: `Tariff row ${row + 1}, column Value` }),
     ]);
     s.setCells(tariff, [{ row, col: 1, content: 500 }]);
-    expect(asks()).toEqual([]);
+    // The hours are no longer asked for; the demo's three cases already share the year, so
+    // Checks now says that the four add up to more than a year.
+    expect(asks()).toEqual([
+      expect.objectContaining({ text: expect.stringMatching(/add up to 9,260 h per year/) }),
+    ]);
     const q = id(s, 'Quantities and cost');
     const hours = s
       .sheetContents(q)
@@ -271,6 +275,20 @@ describe('an added case gets its hours row on the Tariff sheet', () => {
     s.setCells(tariff, [{ row, col: 0, content: 'Hours per year: nights' }]);
     const items = collectChecks(s.toDoc()).items.filter((i) => i.code === 'tariff');
     expect(items.map((i) => i.text)).toContainEqual(expect.stringMatching(/no row "Hours per year: night"/));
+  });
+
+  it('hours that add up to more than a year are listed by Checks at the first hours row', () => {
+    const s = open();
+    const tariff = id(s, 'Tariff');
+    const rows = s.sheetContents(tariff);
+    const day = rows.findIndex((r) => r[0] === 'Hours per year: day');
+    const first = rows.findIndex((r) => String(r[0]).startsWith('Hours per year: '));
+    expect(collectChecks(s.toDoc()).items.filter((i) => /add up to/.test(i.text))).toEqual([]);
+    s.setCells(tariff, [{ row: day, col: 1, content: 8760 }]);
+    const items = collectChecks(s.toDoc()).items.filter((i) => /add up to/.test(i.text));
+    expect(items).toHaveLength(1);
+    expect(items[0]?.where).toBe(`Tariff row ${first + 1}, column Value`);
+    expect(items[0]?.target).toEqual({ sheet: 'Tariff', row: first + 1, col: 1 });
   });
 });
 
