@@ -49,22 +49,24 @@ function priceLine(item: ScheduleItem, byItem: ReadonlyMap<string, Rate>, curren
       cost: null,
       unpriced: `the rate for "${item.code}" is per ${rate.unit}; the item is counted per ${item.unit}`,
     };
-  if (rate.currency !== currency)
+  // Compared as the sheet's <> compares text: without regard to case.
+  if (rate.currency.toLowerCase() !== currency.toLowerCase())
     return {
       item,
       rate,
       cost: null,
-      unpriced: `the rate for "${item.code}" is in ${rate.currency || 'no currency'}; the quote is in ${currency}`,
+      unpriced: `the rate for "${item.code}" is in ${rate.currency || 'no currency'}; the quote is in ${currency || 'no currency'}`,
     };
   return { item, rate, cost: item.quantity * rate.rate };
 }
 
 /**
  * The quote: installation and engineering as percentages of the equipment, contingency of
- * equipment plus both (common estimating practice). The currency is the first rate's.
+ * equipment plus both (common estimating practice). The currency is the table's own (its first
+ * row's, as the sheet reads it), else the first rate's.
  */
 export function priceSchedule(schedule: readonly BusScheduleEntry[], table: RateTable): Quote {
-  const currency = table.rates[0]?.currency ?? '';
+  const currency = table.currency ?? table.rates[0]?.currency ?? '';
   const byItem = new Map(table.rates.map((r) => [itemKey(r.item), r]));
   const buses: BusCost[] = schedule.map((e) => {
     const lines = e.items.map((i) => priceLine(i, byItem, currency));

@@ -44,5 +44,9 @@ export function demoRateTable(): RateTable {
     r('LV shunt reactor', 'kvar', 20),
     r('MV shunt reactor', 'kvar', 30),
   ];
-  return { rates, surcharges: { Installation: 15, Engineering: 8, Contingency: 10 } };
+  return {
+    rates,
+    surcharges: { Installation: 15, Engineering: 8, Contingency: 10 },
+    currency: DEMO_CURRENCY,
+  };
 }

@@ -23,6 +23,11 @@ export interface RateTable {
   readonly rates: readonly Rate[];
   /** Percentages; a surcharge not given is 0 % (it is optional). */
   readonly surcharges: Readonly<Record<SurchargeName, number>>;
+  /**
+   * The quote's currency: the Currency of the table's first row, which is where the Quantities
+   * sheet reads it. Absent (a table built in code): the first rate's.
+   */
+  readonly currency?: string;
 }
 
 export interface RateProblem {
@@ -120,7 +125,15 @@ export function readRateTable(rows: readonly (readonly CellContent[])[]): {
       source: text(r[col['Source and date']]),
     });
   });
-  return { table: { rates, surcharges }, problems };
+  const currency = text(rows[1]?.[col.Currency]);
+  const other = rates.find((r) => r.currency.toLowerCase() !== currency.toLowerCase());
+  if (other !== undefined)
+    problems.push({
+      row: 2,
+      column: 'Currency',
+      message: `rates row 2, column Currency: the quote is in the currency of the first row, ${currency === '' ? 'which is blank' : `"${currency}"`}, so "${other.item}" (in ${other.currency === '' ? 'no currency' : `"${other.currency}"`}) and any other rate in another currency is unpriced; give every rate the same currency, or put the quote's currency on the first row`,
+    });
+  return { table: { rates, surcharges, currency }, problems };
 }
 
 /** The table as rows (header first), surcharges last: what the Rates sheet and rates.csv hold. */

@@ -21,6 +21,7 @@ import {
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { collectChecks } from '../../../src/ui/panels/checksModel.ts';
 import { siteFromCsv } from '../site/fixtures.ts';
+import { coreQuote } from '../../ui/living/quoteFaces.ts';
 
 const { site } = siteFromCsv(
   [
@@ -180,6 +181,33 @@ describe('a missing rate is shown, not zero', () => {
         where: `Rates row ${row + 1}, column Item`,
         text: expect.stringMatching(/^"LV section " has spaces .* write it as "LV section"$/),
         target: { sheet: 'Rates', row: row + 1, col: 0 },
+      }),
+    ]);
+  });
+  it("the quote's currency is the first Rates row's, in the sheet and in the core alike", () => {
+    const s = open([LV_BANK]);
+    const q = reader(s);
+    const rates = s.engine.getSheetId(RATES_SHEET) as number;
+    const CURRENCY = 3;
+    const coreTotal = () => coreQuote(s).quote.total;
+    expect(q.total('Total')).toBeCloseTo(coreTotal() as number, 9);
+    // A spreadsheet's <> compares text without regard to case: "eur" is the same currency.
+    s.setCells(rates, [{ row: 1, col: CURRENCY, content: 'eur' }]);
+    expect(typeof q.total('Total')).toBe('number');
+    expect(q.total('Total')).toBeCloseTo(coreTotal() as number, 9);
+    expect(collectChecks(s.toDoc()).items.filter((i) => i.code === 'rates')).toEqual([]);
+    // The first row's currency left blank: every other rate is in another currency, in both.
+    s.setCells(rates, [{ row: 1, col: CURRENCY, content: null }]);
+    expect(q.v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe(10);
+    expect(q.v(slotRow(0, 'enclosure'), QC.rate)).toBe('rate in another currency');
+    expect(q.total('Total')).toBe('unpriced');
+    expect(coreTotal()).toBeNull();
+    expect(collectChecks(s.toDoc()).items.filter((i) => i.code === 'rates')).toEqual([
+      expect.objectContaining({
+        where: 'Rates row 2, column Currency',
+        text: expect.stringMatching(
+          /^the quote is in the currency of the first row, which is blank, so "LV detuning reactor 7 %" \(in "EUR"\)/,
+        ),
       }),
     ]);
   });
