@@ -33,5 +33,6 @@ export {
   readTariff,
   tariffRowsOf,
   tariffSheetDoc,
+  TARIFF_COL,
   type TariffProblem,
 } from './tariffSheet.ts';

@@ -39,6 +39,14 @@ export const hoursLabel = (c: string) => `Hours per year: ${c}`;
 
 export const TARIFF_HEADERS = ['Setting', 'Value', 'Unit', 'Note'] as const;
 
+/** Where each column of the Tariff sheet is: the sheet is read by position, in header order. */
+export const TARIFF_COL = {
+  setting: TARIFF_HEADERS.indexOf('Setting'),
+  value: TARIFF_HEADERS.indexOf('Value'),
+  unit: TARIFF_HEADERS.indexOf('Unit'),
+  note: TARIFF_HEADERS.indexOf('Note'),
+} as const;
+
 export interface TariffProblem {
   /** The sheet row (1-based, header = 1) of the Setting at fault; absent for a row that is missing. */
   readonly row?: number;
@@ -56,22 +64,25 @@ export function readTariff(
   const values = new Map<string, number>();
   const problems: TariffProblem[] = [];
   rows.slice(1).forEach((r, i) => {
-    const label = text(r[0]).toLowerCase();
+    const label = text(r[TARIFF_COL.setting]).toLowerCase();
     if (label === '' || values.has(label)) return;
-    const raw = r[1];
+    const raw = r[TARIFF_COL.value];
     const v = typeof raw === 'number' ? raw : Number(text(raw).replace(',', '.'));
     if (text(raw) === '' || !Number.isFinite(v) || v < 0) {
       const why =
         text(raw) === ''
           ? 'is blank and counts 0 until a number ≥ 0 is entered'
           : `must be a number ≥ 0; got "${text(raw)}"`;
-      problems.push({ row: i + 2, message: `tariff row ${i + 2}, column Value: "${text(r[0])}" ${why}` });
+      problems.push({
+        row: i + 2,
+        message: `tariff row ${i + 2}, column Value: "${text(r[TARIFF_COL.setting])}" ${why}`,
+      });
       return;
     }
     values.set(label, v);
   });
   // A case with no hours row would count 0 hours without a word: say which row to add.
-  const labels = new Set(rows.slice(1).map((r) => text(r[0]).toLowerCase()));
+  const labels = new Set(rows.slice(1).map((r) => text(r[TARIFF_COL.setting]).toLowerCase()));
   for (const c of cases)
     if (!labels.has(hoursLabel(c).toLowerCase()))
       problems.push({
@@ -101,7 +112,7 @@ function overfullYear(
   const total = cases.reduce((sum, c) => sum + get(hoursLabel(c)), 0);
   if (!(total > HOURS_PER_YEAR_MAX)) return undefined;
   const wanted = new Set(cases.map((c) => hoursLabel(c).toLowerCase()));
-  const first = rows.findIndex((r, i) => i > 0 && wanted.has(text(r[0]).toLowerCase()));
+  const first = rows.findIndex((r, i) => i > 0 && wanted.has(text(r[TARIFF_COL.setting]).toLowerCase()));
   const each = cases.map((c) => `${c} ${get(hoursLabel(c)).toLocaleString('en-GB')} h`).join(', ');
   return {
     ...(first > 0 ? { row: first + 1 } : {}),

@@ -4,7 +4,7 @@
 // - a case renamed takes its "Hours per year" row with it;
 // - a case added gets a row of its own, its Value blank for the user to fill in (Checks and the
 //   command line say that it is blank until then).
-import { hoursLabel } from '../../core/quote/index.ts';
+import { hoursLabel, TARIFF_COL } from '../../core/quote/index.ts';
 import { shownText, textContent } from '../../core/text/cellText.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 import type { Write } from './siteModel.ts';
@@ -30,14 +30,14 @@ export function tariffRenameWrites(
 ): Write[] {
   const at = new Map<string, number>();
   rows.forEach((r, i) => {
-    const key = label(r[0]);
+    const key = label(r[TARIFF_COL.setting]);
     if (i > 0 && key !== '' && !at.has(key)) at.set(key, i);
   });
   const out: Write[] = [];
   for (const [from, to] of renames) {
     const row = at.get(hoursLabel(from).toLowerCase());
     if (row === undefined || at.has(hoursLabel(to).toLowerCase())) continue;
-    out.push({ sheet, row, col: 0, content: textContent(hoursLabel(to)) });
+    out.push({ sheet, row, col: TARIFF_COL.setting, content: textContent(hoursLabel(to)) });
   }
   return out;
 }
@@ -51,16 +51,16 @@ export function tariffNewCaseWrites(
   rows: readonly (readonly CellContent[])[],
   cases: readonly string[],
 ): Write[] {
-  const have = new Set(rows.slice(1).map((r) => label(r[0])));
+  const have = new Set(rows.slice(1).map((r) => label(r[TARIFF_COL.setting])));
   let next = rows.length;
   while (next > 1 && (rows[next - 1] ?? []).every(blank)) next--;
   const out: Write[] = [];
   for (const c of cases) {
     if (have.has(hoursLabel(c).toLowerCase())) continue;
     out.push(
-      { sheet, row: next, col: 0, content: textContent(hoursLabel(c)) },
-      { sheet, row: next, col: 2, content: ADDED_CASE_UNIT },
-      { sheet, row: next, col: 3, content: ADDED_CASE_NOTE },
+      { sheet, row: next, col: TARIFF_COL.setting, content: textContent(hoursLabel(c)) },
+      { sheet, row: next, col: TARIFF_COL.unit, content: ADDED_CASE_UNIT },
+      { sheet, row: next, col: TARIFF_COL.note, content: ADDED_CASE_NOTE },
     );
     next++;
   }

@@ -8,14 +8,12 @@ import {
   readRateTable,
   readTariff,
   tariffRowsOf,
+  TARIFF_COL,
   TARIFF_SHEET,
 } from '../../core/quote/index.ts';
 import { shownText } from '../../core/text/cellText.ts';
 import type { CellContent, WorkbookDoc } from '../../core/workbook/document.ts';
 import type { CheckItem } from './checksWhere.ts';
-
-/** The Value column of the Tariff sheet (Setting, Value, Unit, Note). */
-const TARIFF_VALUE_COL = 1;
 
 const sheetNamed = (doc: WorkbookDoc, name: string) =>
   doc.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase())?.name ?? name;
@@ -29,7 +27,7 @@ export function tariffItems(doc: WorkbookDoc, cases: readonly string[]): CheckIt
     code: 'tariff',
     where: p.row !== undefined ? `${sheet} row ${p.row}, column Value` : `${sheet} sheet`,
     text: p.message.replace(/^tariff( row \d+, column Value)?: /, ''),
-    ...(p.row !== undefined ? { target: { sheet, row: p.row, col: TARIFF_VALUE_COL } } : {}),
+    ...(p.row !== undefined ? { target: { sheet, row: p.row, col: TARIFF_COL.value } } : {}),
   }));
 }
 
