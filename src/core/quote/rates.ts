@@ -76,6 +76,8 @@ export function readRateTable(rows: readonly (readonly CellContent[])[]): {
   const surcharges: Record<SurchargeName, number> = { Installation: 0, Engineering: 0, Contingency: 0 };
   const problems: RateProblem[] = [];
   const seen = new Set<string>();
+  /** The sheet row of each rate, for problems found once all are read. */
+  const rateRows: number[] = [];
   rows.slice(1).forEach((r, i) => {
     const row = i + 2;
     const item = text(r[col.Item]);
@@ -117,6 +119,7 @@ export function readRateTable(rows: readonly (readonly CellContent[])[]): {
       surcharges[name] = value;
       return;
     }
+    rateRows.push(row);
     rates.push({
       item,
       unit: unit as PricedUnit,
@@ -126,14 +129,39 @@ export function readRateTable(rows: readonly (readonly CellContent[])[]): {
     });
   });
   const currency = text(rows[1]?.[col.Currency]);
-  const other = rates.find((r) => r.currency.toLowerCase() !== currency.toLowerCase());
-  if (other !== undefined)
-    problems.push({
+  const problem = currencyProblem(rates, rateRows, currency);
+  if (problem) problems.push(problem);
+  return { table: { rates, surcharges, currency }, problems };
+}
+
+/**
+ * Rates in another currency than the quote's (the first row's, compared as spreadsheets compare
+ * text) are unpriced: said at the first row to change. A blank first currency is that row.
+ */
+function currencyProblem(
+  rates: readonly Rate[],
+  rateRows: readonly number[],
+  currency: string,
+): RateProblem | undefined {
+  const others = rates.flatMap((r, i) =>
+    r.currency.toLowerCase() === currency.toLowerCase() ? [] : [{ rate: r, row: rateRows[i] as number }],
+  );
+  const first = others[0];
+  if (first === undefined) return undefined;
+  const more = others.length > 1 ? `, as are ${others.length - 1} other rate(s) in another currency` : '';
+  const fix = 'give every rate the same currency, or put the currency of the quote on the first row';
+  if (currency === '')
+    return {
       row: 2,
       column: 'Currency',
-      message: `rates row 2, column Currency: the quote is in the currency of the first row, ${currency === '' ? 'which is blank' : `"${currency}"`}, so "${other.item}" (in ${other.currency === '' ? 'no currency' : `"${other.currency}"`}) and any other rate in another currency is unpriced; give every rate the same currency, or put the quote's currency on the first row`,
-    });
-  return { table: { rates, surcharges, currency }, problems };
+      message: `rates row 2, column Currency: the quote is in the currency of the first row, which is blank, so "${first.rate.item}" (in "${first.rate.currency}") is unpriced${more}; ${fix}`,
+    };
+  const its = first.rate.currency === '' ? 'no currency' : `"${first.rate.currency}"`;
+  return {
+    row: first.row,
+    column: 'Currency',
+    message: `rates row ${first.row}, column Currency: "${first.rate.item}" is in ${its}, not in "${currency}", the currency of the quote (the first row's), so it is unpriced${more}; ${fix}`,
+  };
 }
 
 /** The table as rows (header first), surcharges last: what the Rates sheet and rates.csv hold. */

@@ -74,6 +74,33 @@ describe('a priced 6 × 50 kvar 7 % bank', () => {
       expect.stringMatching(/"LV section" is in USD; the quote is in EUR/),
     ]);
   });
+  it("a rate in another currency than the first row's is reported at its row, or at row 2 when that is blank", () => {
+    const withCurrency = (item: string, currency: string) =>
+      TABLE.map((r) => (r[0] === item ? [...r.slice(0, 3), currency, ...r.slice(4)] : r));
+    const one = readRateTable(withCurrency('LV section', 'USD'));
+    expect(one.table.currency).toBe('EUR');
+    expect(one.problems).toEqual([
+      {
+        row: 6,
+        column: 'Currency',
+        message:
+          'rates row 6, column Currency: "LV section" is in "USD", not in "EUR", the currency of the quote (the first row\'s), so it is unpriced; give every rate the same currency, or put the currency of the quote on the first row',
+      },
+    ]);
+    // Spreadsheets compare text without regard to case: "eur" is the quote's currency.
+    const lower = withCurrency('LV section', 'eur');
+    expect(readRateTable(lower).problems).toEqual([]);
+    expect(priceSchedule(bank(), readRateTable(lower).table).total).not.toBeNull();
+    const blankFirst = withCurrency('LV capacitor', '');
+    expect(readRateTable(blankFirst).problems).toEqual([
+      {
+        row: 2,
+        column: 'Currency',
+        message:
+          'rates row 2, column Currency: the quote is in the currency of the first row, which is blank, so "LV detuning reactor 7 %" (in "EUR") is unpriced, as are 4 other rate(s) in another currency; give every rate the same currency, or put the currency of the quote on the first row',
+      },
+    ]);
+  });
   it('items match rates without regard to case', () => {
     const rows = TABLE.map((r) => (r[0] === 'LV section' ? ['lv SECTION', 'pc', 3000, 'EUR', ''] : r));
     expect(priceSchedule(bank(), readRateTable(rows).table).total).not.toBeNull();
