@@ -174,6 +174,7 @@ export function renderMarkdown(r: BenchResults): string {
       '. ' +
       'Floor = a typed-array loop computing the same bus totals (tests/bench/floor.ts). Peer = LibreOffice recalculating the exported workbook headless, net of its start-up. ' +
       'ms = median of several runs for fast steps, one run for slow ones; whole processes (CLI, LibreOffice) give their fastest run and their CPU time (user + system). ' +
+      "Steps inside a bench process give the CPU time of that process over the same run(s) (every thread, the garbage collector's included, so it can exceed ms); ms well above CPU ms means the step waited for a busy machine. " +
       "Check = the step's root P and Q agree with the floor (1e-9 relative).",
     '',
   );

@@ -5,6 +5,17 @@ export interface Timing {
   readonly ms: number;
   readonly minMs: number;
   readonly runs: number;
+  /** CPU time of this process in the run(s) (median), all its threads: see cpuNow. */
+  readonly cpuMs: number;
+}
+
+/**
+ * CPU time of this process so far, ms (user + system, every thread, the collector's included).
+ * Beside the wall time it shows how much of a step waited for a busy shared machine.
+ */
+export function cpuNow(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
 }
 
 export function median(xs: readonly number[]): number {
@@ -14,16 +25,20 @@ export function median(xs: readonly number[]): number {
 }
 
 /** Time `fn` once; returns its value too. */
-export function timeOnce<T>(fn: () => T): { value: T; ms: number } {
+export function timeOnce<T>(fn: () => T): { value: T; ms: number; cpuMs: number } {
+  const c0 = cpuNow();
   const t0 = performance.now();
   const value = fn();
-  return { value, ms: performance.now() - t0 };
+  return { value, ms: performance.now() - t0, cpuMs: cpuNow() - c0 };
 }
 
-export async function timeOnceAsync<T>(fn: () => Promise<T>): Promise<{ value: T; ms: number }> {
+export async function timeOnceAsync<T>(
+  fn: () => Promise<T>,
+): Promise<{ value: T; ms: number; cpuMs: number }> {
+  const c0 = cpuNow();
   const t0 = performance.now();
   const value = await fn();
-  return { value, ms: performance.now() - t0 };
+  return { value, ms: performance.now() - t0, cpuMs: cpuNow() - c0 };
 }
 
 /**
@@ -36,16 +51,25 @@ export function timeRepeated<T>(
   maxTotalMs = 2_000,
 ): Timing & { value: T } {
   const times: number[] = [];
+  const cpu: number[] = [];
   let value: T | undefined;
   let spent = 0;
   for (let i = 0; i < maxRuns && (i === 0 || spent < maxTotalMs); i++) {
+    const c0 = cpuNow();
     const t0 = performance.now();
     value = fn(i);
     const dt = performance.now() - t0;
+    cpu.push(cpuNow() - c0);
     times.push(dt);
     spent += dt;
   }
-  return { ms: median(times), minMs: Math.min(...times), runs: times.length, value: value as T };
+  return {
+    ms: median(times),
+    minMs: Math.min(...times),
+    runs: times.length,
+    cpuMs: median(cpu),
+    value: value as T,
+  };
 }
 
 /**
