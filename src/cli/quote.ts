@@ -30,8 +30,10 @@ import {
 } from '../core/quote/index.ts';
 import { readCsv } from '../io/csv/read.ts';
 import { quoteSaving, savingText, type SavingResult } from './quoteSaving.ts';
+import { optionsJson, optionsText, siteOptions } from './quoteOptions.ts';
+import type { OptionFigures } from '../core/quote/options.ts';
 
-const USAGE = `usage: kvar-ledger quote <file> [--rates rates.csv] [site options] [--json]
+const USAGE = `usage: kvar-ledger quote <file> [--rates rates.csv] [--compare] [site options] [--json]
 The items of the compensation per bus (capacitor units, detuning reactors, switching devices
 by current class, controllers, sections, incomers, discharge devices, shunt reactors) and their
 cost at your rates, with installation, engineering and contingency. The banks are the file's
@@ -39,8 +41,12 @@ cost at your rates, with installation, engineering and contingency. The banks ar
   --rates FILE  a CSV with the columns Item, Unit (pc, kvar or %), Rate, Currency, Source and date;
                 without it, the workbook's Rates sheet (none: every item unpriced);
                 for a site file or a list, INVENTED demo rates
+  --compare     add the design options side by side: the banks as the file gives them, the
+                design's proposal, plain capacitors, every bank detuned 7 %, one bank at the
+                point of connection; each with its cost, saving, payback, whether the
+                requirement is met in every case, and its Checks findings
   --json        print {site, banks_from, rates_from, currency, buses, equipment, surcharges,
-                total, unpriced, tariff_from, saving} as JSON
+                total, unpriced, tariff_from, saving, options (with --compare)} as JSON
 The saving per year (reactive charge before and after, losses saved, simple payback) uses the
 workbook's Tariff sheet; a site file or a list takes an INVENTED demo tariff, said so.
 ${SITE_OPTIONS_HELP}
@@ -160,7 +166,7 @@ function toJson(
 export async function run(argv: string[], io: CliIo): Promise<number> {
   const parsed = parseArgs(argv, {
     command: 'quote',
-    flags: ['--json', ...SITE_FLAGS],
+    flags: ['--json', '--compare', ...SITE_FLAGS],
     values: [...SITE_VALUE_OPTIONS, '--rates'],
     lists: [...SITE_LIST_OPTIONS],
   });
@@ -233,6 +239,20 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     if (e instanceof SiteStructureError) return inputError(io, 'quote', `${file}: ${e.message}`);
     throw e;
   }
+  let compared: OptionFigures[] | undefined;
+  try {
+    if (flags.has('--compare'))
+      compared = siteOptions(
+        site,
+        loaded.loaded.banks,
+        rates,
+        loaded.loaded.tariffRows,
+        saving.from === 'none',
+      );
+  } catch (e) {
+    if (e instanceof SiteStructureError) return inputError(io, 'quote', `${file}: ${e.message}`);
+    throw e;
+  }
   const fromText = from === 'file' ? 'banks as the file gives them' : 'banks proposed (the file gives none)';
   io.out(
     flags.has('--json')
@@ -242,6 +262,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
             tariff_from: saving.from,
             saving: saving.saving,
             tariff_problems: saving.problems,
+            ...(compared ? { options: optionsJson(compared) } : {}),
           },
           null,
           2,
@@ -252,7 +273,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
           ratesFrom,
           quote,
           rateProblems,
-          savingText(saving, quote.currency),
+          savingText(saving, quote.currency) + (compared ? optionsText(compared, table) : ''),
         ),
   );
   return EXIT_OK;

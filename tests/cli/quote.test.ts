@@ -184,3 +184,37 @@ describe('kvar-ledger quote', () => {
     expect((await cli('--help')).out).toMatch(/--rates FILE/);
   });
 });
+
+describe('kvar-ledger quote --compare', () => {
+  interface Option {
+    id: string;
+    name: string;
+    same_as: string | null;
+    banks: { bus: string; p_pct?: number }[];
+    total: number | null;
+    annual_saving: number;
+    payback_years: number | null;
+    meets_every_case: boolean;
+    errors: number;
+    warnings: number;
+  }
+
+  it('lists the design options, the first being the quote itself, in text and JSON', async () => {
+    const r = await cli(TEMPLATE, '--compare', '--json');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out) as Json & { options: Option[] };
+    expect(j.options.map((o) => o.id)).toEqual(['current', 'proposal', 'plain', 'detuned', 'central']);
+    // The banks as given are what the quote above priced, with the same saving.
+    const first = j.options[0] as Option;
+    expect(first.total).toBeCloseTo(j.total as number, 9);
+    expect(first.annual_saving).toBeCloseTo(j.saving?.annual_saving as number, 9);
+    expect(j.options[1]?.same_as).toBe('Banks as given');
+    expect(j.options.find((o) => o.id === 'plain')?.banks.every((b) => (b.p_pct ?? 0) === 0)).toBe(true);
+    const text = await cli(TEMPLATE, '--compare');
+    expect(text.out).toMatch(/design options side by side/);
+    expect(text.out).toMatch(/^Plain capacitors +\d/m);
+    expect(text.out).toMatch(/One bank at the connection: a single bank on MV-11/);
+    const plain = await cli(TEMPLATE);
+    expect(plain.out).not.toMatch(/design options/);
+  });
+});

@@ -1,0 +1,83 @@
+// `kvar-ledger quote --compare`: the design options side by side (src/core/quote/options.ts),
+// priced at the same rates and judged by the same rules as the quote itself.
+import { compareOptions, standardOptions, type OptionFigures } from '../core/quote/options.ts';
+import { readTariff, tariffSheetDoc, type RateTable } from '../core/quote/index.ts';
+import type { BankChoice } from '../core/site/bankChoice.ts';
+import type { Site } from '../core/site/model.ts';
+import type { CellContent } from '../core/workbook/document.ts';
+
+/** The options for the site, with the tariff the quote's saving uses (none: no charge, no saving). */
+export function siteOptions(
+  site: Site,
+  held: readonly BankChoice[] | undefined,
+  rates: RateTable,
+  tariffRows: readonly (readonly CellContent[])[] | undefined,
+  hasNoTariff: boolean,
+): OptionFigures[] {
+  const cases = site.settings.cases;
+  const rows = hasNoTariff ? [] : (tariffRows ?? tariffSheetDoc(cases).cells);
+  return compareOptions(site, standardOptions(site, held), rates, readTariff(rows, cases).tariff);
+}
+
+const money = (x: number | null) =>
+  x === null ? 'unpriced' : x.toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+const kvar = (x: number) => `${Math.round(x).toLocaleString('en-GB')} kvar`;
+
+function row(f: OptionFigures): string[] {
+  return [
+    f.name,
+    kvar(f.capacitor_kvar),
+    kvar(f.reactor_kvar),
+    money(f.total),
+    money(f.annual_saving),
+    f.payback_years === null ? '–' : `${f.payback_years.toFixed(2)} y`,
+    f.meets_every_case ? 'met' : 'missed',
+    `${f.errors} / ${f.warnings}`,
+  ];
+}
+
+/** The options as a table, then what each one is; `table` lays out rows as the quote does. */
+export function optionsText(
+  figures: readonly OptionFigures[],
+  table: (header: string[], rows: string[][], leftCols: number) => string,
+): string {
+  if (figures.length === 0) return '\nno design options: the site does not roll up\n';
+  const currency = figures[0]?.currency ?? '';
+  const header = [
+    'option',
+    'capacitors',
+    'reactors',
+    `total ${currency}`,
+    'saving / year',
+    'payback',
+    'requirement',
+    'errors / warnings',
+  ];
+  const out = ['\ndesign options side by side (same rates, tariff and rules)\n'];
+  out.push(table(header, figures.map(row), 1));
+  for (const f of figures)
+    out.push(`  ${f.name}: ${f.summary}${f.sameAs ? `; the same banks as "${f.sameAs}"` : ''}\n`);
+  out.push('  errors / warnings: the findings Checks lists for the option once its banks are typed in\n');
+  return out.join('');
+}
+
+/** The options for --json. */
+export function optionsJson(figures: readonly OptionFigures[]) {
+  return figures.map((f) => ({
+    id: f.id,
+    name: f.name,
+    summary: f.summary,
+    same_as: f.sameAs ?? null,
+    banks: f.banks,
+    capacitor_kvar: f.capacitor_kvar,
+    reactor_kvar: f.reactor_kvar,
+    total: f.total,
+    unpriced_lines: f.unpriced_lines,
+    currency: f.currency,
+    annual_saving: f.annual_saving,
+    payback_years: f.payback_years,
+    meets_every_case: f.meets_every_case,
+    errors: f.errors,
+    warnings: f.warnings,
+  }));
+}
