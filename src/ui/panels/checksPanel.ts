@@ -5,6 +5,7 @@ import { clear, el } from '../dom.ts';
 import { columnLetters } from '../model/address.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import type { CheckItem, CheckTarget, ChecksReport } from './checksModel.ts';
+import { OptionsSection } from './optionsSection.ts';
 
 const QUIET_MS = 600;
 
@@ -14,18 +15,21 @@ export class ChecksPanel {
   private session: WorkbookSession | undefined;
   private timer: ReturnType<typeof setTimeout> | undefined;
   private dirty = true;
+  private readonly options: OptionsSection;
   visible = false;
   /** Set by the app: select the cell an item concerns. */
   onJump: (target: CheckTarget) => void = () => {};
 
   constructor() {
     this.body = el('div', { className: 'kl-checks-body' });
+    this.options = new OptionsSection(() => void this.drawOptions());
     this.root = el('section', { className: 'kl-checks', attrs: { 'data-testid': 'checks' } }, [
       el('p', {
         className: 'kl-muted',
         text: 'Input problems and cells typed over formulas, then the findings for the banks on the Compensation sheet: capacitor voltage, resonance, voltage rise, and the requirement after compensation in every case.',
       }),
       this.body,
+      this.options.root,
     ]);
   }
 
@@ -47,6 +51,7 @@ export class ChecksPanel {
     // time they run, keeping them out of the page's first download.
     void import('./checksModel.ts')
       .then(({ collectChecks }) => this.render(collectChecks(doc)))
+      .then(() => (this.options.wanted ? this.drawOptions() : undefined))
       .catch((e: unknown) => {
         clear(this.body);
         this.body.append(
@@ -56,6 +61,17 @@ export class ChecksPanel {
           }),
         );
       });
+  }
+
+  /** The design options for the workbook as it is now (their code loads on first use). */
+  private async drawOptions(): Promise<void> {
+    if (!this.session) return;
+    const doc = this.session.toDoc();
+    const [{ optionsOfDoc }, { renderOptions }] = await Promise.all([
+      import('./optionsModel.ts'),
+      import('./optionsView.ts'),
+    ]);
+    renderOptions(this.options.body, optionsOfDoc(doc));
   }
 
   private render(r: ChecksReport): void {

@@ -1,0 +1,58 @@
+// The cards of the design options (loaded with their figures, on first use).
+import { clear, el } from '../dom.ts';
+import type { OptionFigures } from '../../core/quote/options.ts';
+import type { OptionsReport } from './optionsModel.ts';
+
+const money = (x: number | null) =>
+  x === null ? 'unpriced' : x.toLocaleString('en-GB', { maximumFractionDigits: 0 });
+const kvar = (x: number) => `${Math.round(x).toLocaleString('en-GB')}`;
+
+export function renderOptions(body: HTMLElement, r: OptionsReport): void {
+  clear(body);
+  if (!r.ok) {
+    body.append(el('p', { className: 'kl-muted', text: r.message }));
+    return;
+  }
+  const currency = r.options[0]?.currency ?? '';
+  body.append(
+    el(
+      'ul',
+      { className: 'kl-option-list' },
+      r.options.map((o) => card(o, currency)),
+    ),
+    el('p', {
+      className: 'kl-muted',
+      text: 'To see an option as live formulas, type its banks onto the Compensation sheet (kvar-ledger quote --compare --json lists them). Estimates only: the final design follows local codes, the utility and a licensed engineer.',
+    }),
+  );
+}
+
+function card(o: OptionFigures, currency: string): HTMLElement {
+  const facts: [string, string][] = [
+    ['Capacitors', `${kvar(o.capacitor_kvar)} kvar`],
+    ['Reactors', `${kvar(o.reactor_kvar)} kvar`],
+    ['Total', `${money(o.total)} ${o.total === null ? '' : currency}`.trim()],
+    ['Saving a year', `${money(o.annual_saving)} ${currency}`.trim()],
+    ['Payback', o.payback_years === null ? '–' : `${o.payback_years.toFixed(2)} years`],
+    ['Requirement', o.meets_every_case ? 'met in every case' : 'missed in some case'],
+    [
+      'Findings',
+      `${o.errors} error${o.errors === 1 ? '' : 's'}, ${o.warnings} warning${o.warnings === 1 ? '' : 's'}`,
+    ],
+  ];
+  return el('li', { className: 'kl-option', attrs: { 'data-option': o.id } }, [
+    el('strong', { text: o.name }),
+    el('span', {
+      className: 'kl-muted',
+      text: ` — ${o.summary}${o.sameAs ? `; the same banks as “${o.sameAs}”` : ''}`,
+    }),
+    // The figures of an option that installs the same banks as one above are those figures.
+    o.sameAs
+      ? null
+      : el(
+          'dl',
+          {},
+          facts.flatMap(([k, v]) => [el('dt', { text: k }), el('dd', { text: v })]),
+        ),
+  ]);
+}
