@@ -8,6 +8,11 @@ import type { CheckItem, CheckTarget, ChecksReport } from './checksModel.ts';
 import { OptionsSection } from './optionsSection.ts';
 
 const QUIET_MS = 600;
+/**
+ * Above this many equipment rows the options are redone on request, not after every edit: five
+ * designs take seconds there (about 10 s at 10,000 rows on the bench machine).
+ */
+const OPTIONS_FOLLOW_ROWS = 2_000;
 
 export class ChecksPanel {
   readonly root: HTMLElement;
@@ -16,6 +21,8 @@ export class ChecksPanel {
   private timer: ReturnType<typeof setTimeout> | undefined;
   private dirty = true;
   private readonly options: OptionsSection;
+  /** Equipment rows of the site the options were last worked out for. */
+  private optionsRows = 0;
   visible = false;
   /** Set by the app: select the cell an item concerns. */
   onJump: (target: CheckTarget) => void = () => {};
@@ -51,7 +58,7 @@ export class ChecksPanel {
     // time they run, keeping them out of the page's first download.
     void import('./checksModel.ts')
       .then(({ collectChecks }) => this.render(collectChecks(doc)))
-      .then(() => (this.options.wanted ? this.drawOptions() : undefined))
+      .then(() => this.afterChecks())
       .catch((e: unknown) => {
         clear(this.body);
         this.body.append(
@@ -63,6 +70,18 @@ export class ChecksPanel {
       });
   }
 
+  /**
+   * The options follow the checks on sites of up to OPTIONS_FOLLOW_ROWS equipment rows; on a
+   * larger one they are marked out of date instead, with a button to redo them, so that an edit
+   * never waits for five designs.
+   */
+  private afterChecks(): Promise<void> | undefined {
+    if (!this.options.wanted) return undefined;
+    if (this.optionsRows <= OPTIONS_FOLLOW_ROWS) return this.drawOptions();
+    this.options.markStale();
+    return undefined;
+  }
+
   /** The design options for the workbook as it is now (their code loads on first use). */
   private async drawOptions(): Promise<void> {
     if (!this.session) return;
@@ -71,7 +90,9 @@ export class ChecksPanel {
       import('./optionsModel.ts'),
       import('./optionsView.ts'),
     ]);
-    renderOptions(this.options.body, optionsOfDoc(doc));
+    const report = optionsOfDoc(doc);
+    this.optionsRows = report.rows;
+    renderOptions(this.options.body, report);
   }
 
   private render(r: ChecksReport): void {

@@ -11,7 +11,22 @@ export class OptionsSection {
   /** The user asked for the options: they are worked out with every run of the checks. */
   wanted = false;
 
+  private readonly stale: HTMLElement;
+
   constructor(onAsk: () => void) {
+    const redo = el('button', {
+      className: 'kl-btn',
+      text: 'Compare again',
+      attrs: { type: 'button', 'data-testid': 'options-redo' },
+    });
+    this.stale = el('p', { className: 'kl-options-stale', attrs: { hidden: '' } }, [
+      'The workbook changed since these options were worked out (on a site this large they are not redone after every edit). ',
+      redo,
+    ]);
+    redo.addEventListener('click', () => {
+      this.stale.hidden = true;
+      onAsk();
+    });
     this.body = el('div', { attrs: { 'data-testid': 'options-body' } });
     const ask = el('button', {
       className: 'kl-btn',
@@ -32,7 +47,13 @@ export class OptionsSection {
         text: 'The banks as the Compensation sheet holds them, the proposed design, plain capacitors, every bank detuned 7 %, and one bank at the point of connection, each priced at the Rates sheet, saved at the Tariff sheet and judged by the same rules.',
       }),
       ask,
+      this.stale,
       this.body,
     ]);
+  }
+
+  /** The cards below no longer describe the workbook: say so and offer to redo them. */
+  markStale(): void {
+    this.stale.hidden = false;
   }
 }
