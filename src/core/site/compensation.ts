@@ -30,7 +30,7 @@ import {
   type Need,
 } from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
-import { chargingResonanceWarnings } from './chargingResonance.ts';
+import { chargingResonanceWarnings, zoneChargingMost } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
 import {
   MIN_BANK_KVAR_LV,
@@ -201,6 +201,7 @@ export function designCompensation(
     if (candidates.length === 0 && graph.root !== undefined && voltages.has(graph.root))
       candidates = [graph.root];
     const extra = rootNeed.map(() => 0);
+    const charging = zoneChargingMost(site, graph, before);
     for (let pass = 0; pass < MAX_PASSES && candidates.length > 0; pass++) {
       const need = rootNeed.map((n, i) => n + (extra[i] as number));
       let shares = allocate(candidates, before, need);
@@ -221,6 +222,7 @@ export function designCompensation(
           graph,
           sc: ssc.get(bus),
           uKv: (voltages.get(bus) as { u_kv: number }).u_kv,
+          chargingKvar: charging.get(bus) ?? 0,
           ...(entryOf(options.detuning, bus) !== undefined
             ? { detuning: entryOf(options.detuning, bus) as number }
             : {}),
