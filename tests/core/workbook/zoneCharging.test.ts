@@ -6,57 +6,17 @@
 // - parallel resonance h = √(Ssc/Qc) (IEEE Std 1036), voltage rise 100·Qc/Ssc (IEEE Std 1036).
 // The solar template at night with one more 33 kV cable, energised at night only, and a plain
 // bank typed on block A's 33 kV bus (joined to the collector bus by its cable feeder: one zone).
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { assessBanks } from '../../../src/core/site/assessBanks.ts';
-import type { BankChoice } from '../../../src/core/site/bankChoice.ts';
+import { designCompensation, proposeChoices } from '../../../src/core/site/compensation.ts';
+import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { zoneChargingMost } from '../../../src/core/site/chargingResonance.ts';
 import { buildBusGraph } from '../../../src/core/site/graph.ts';
-import type { Site } from '../../../src/core/site/model.ts';
 import { rollUp } from '../../../src/core/site/rollup.ts';
-import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { COMP_HEADERS } from '../../../src/core/workbook/compensationColumns.ts';
 import { busRow, liveEngine, num, portableEngine, valueAt } from './engineDoc.ts';
-
-const SOLAR = join(import.meta.dirname, '../../../templates/solar-collector.json');
-const raw = JSON.parse(readFileSync(SOLAR, 'utf8')) as {
-  settings: { sscMva: number };
-  equipment: Array<Record<string, number | string>>;
-};
-const base = readSiteFile(readFileSync(SOLAR, 'utf8')).site;
-// A 33 kV cable of 3 km at 0.3 µF/km on block B's bus, energised at night only (invented).
-const CABLE = { u: 33, c: 0.3e-6, len: 3 };
-const site: Site = {
-  ...base,
-  equipment: [
-    ...base.equipment,
-    {
-      row: 1000,
-      tag: 'CB-X',
-      bus: 'BLK-B',
-      kind: 'cable',
-      values: { u_kv: CABLE.u, c_uf_km: CABLE.c * 1e6, len_km: CABLE.len },
-      loads: { noon: 0, night: 1 },
-    },
-  ],
-};
-const bank: BankChoice = { bus: 'BLK-A', fixed_kvar: 0, step_kvar: 300, steps: 4 };
-
-// Hand figures.
-const q = (cF: number, len: number, uKv: number) => (2 * Math.PI * 50 * cF * len * (uKv * 1e3) ** 2) / 1e3;
-const lines = raw.equipment
-  .filter((r) => r.kind === 'line')
-  .reduce((s, r) => s + q((r.c_nf_km as number) * 1e-9, r.len_km as number, 33), 0);
-const cable = q(CABLE.c, CABLE.len, CABLE.u); // about 308 kvar
-const nightCharging = lines + cable;
-const gt = raw.equipment.find((r) => r.tag === 'GT1') as Record<string, number>;
-const sscMv = 1 / (1 / raw.settings.sscMva + (gt.uk_pct as number) / 100 / ((gt.s_kva as number) / 1000));
-const fa = raw.equipment.find((r) => r.tag === 'F-A') as Record<string, number>;
-const xLine = 2 * Math.PI * 50 * (fa.l_mh_km as number) * 1e-3 * (fa.len_km as number);
-const sscA = 1 / (1 / sscMv + xLine / 33 ** 2); // MVA at BLK-A
-const order = (kvar: number) => Math.sqrt((sscA * 1000) / kvar);
+import { bank, nightCharging, order, site, sscA } from './chargedSolar.ts';
 
 describe('charging in the Compensation sheet: the solar template with a plain bank on a collector bus', () => {
   it('the hand figures: about 2.7 Mvar of charging at night against about 357 MVA', () => {
@@ -115,5 +75,56 @@ describe('charging in the Compensation sheet: the solar template with a plain ba
     expect(w).toHaveLength(1);
     expect(w[0]?.message).toMatch(/kvar of cable and line charging/);
     expect(w[0]?.message).toMatch(/near the 11th harmonic/);
+  });
+});
+
+describe('the design counts the same charging: a 20 kV cable beside a proposed plain bank', () => {
+  // Invented: a 10 km 20 kV cable of 0.25 µF/km on the point of connection (250 MVA), one
+  // 1,600 kVA transformer to a 1,200 kW load at cos φ 0.75; cos φ 0.95 asked; the bank on 20 kV.
+  const file = JSON.stringify({
+    format: 'kvar-ledger-site',
+    version: 1,
+    settings: {
+      name: 'cable beside a bank',
+      hz: 50,
+      cases: ['day'],
+      requirement: { kind: 'cosphi', target: 0.95 },
+      sscMva: 250,
+    },
+    equipment: [
+      { tag: 'C1', bus: 'MV', kind: 'cable', u_kv: 20, c_uf_km: 0.25, len_km: 10 },
+      {
+        tag: 'T1',
+        bus: 'MV',
+        kind: 'transformer',
+        to_bus: 'LV',
+        s_kva: 1600,
+        uk_pct: 6,
+        i0_pct: 1,
+        p0_kw: 2,
+        pk_kw: 14,
+        u_kv: 0.4,
+      },
+      { tag: 'L1', bus: 'LV', kind: 'load', p_kw: 1200, cos_phi: 0.75, u_kv: 0.4 },
+    ],
+  });
+  const { site: s, problems } = readSiteFile(file);
+  const charging = (2 * Math.PI * 50 * 0.25e-6 * 10 * 20e3 ** 2) / 1e3; // 314.16 kvar
+
+  it('resonance and voltage rise of the proposal, by hand and on the sheet', () => {
+    expect(problems.filter((p) => p.severity === 'error')).toEqual([]);
+    const d = designCompensation(s, undefined, { bankBuses: ['MV'] });
+    const b = d.banks.find((x) => x.bus === 'MV');
+    expect(b?.p_pct).toBe(0);
+    const total = b?.total_kvar as number;
+    const last = b?.resonance[b.resonance.length - 1];
+    expect(last?.charging_kvar).toBeCloseTo(charging, 9);
+    expect(last?.order).toBeCloseTo(Math.sqrt(250_000 / (total + charging)), 9);
+    expect(b?.vrise_total_pct).toBeCloseTo((100 * (total + charging)) / 250_000, 9);
+    const doc = buildWorkbook(s, { flavour: 'live', banks: proposeChoices(s, { bankBuses: ['MV'] }) });
+    const hf = liveEngine(doc);
+    const at = (h: string) => num(valueAt(hf, doc, 'Compensation', busRow(doc, 'MV', 'Compensation'), h));
+    expect(at(COMP_HEADERS.orderTotal)).toBeCloseTo(last?.order as number, 9);
+    expect(at(COMP_HEADERS.vriseTotal)).toBeCloseTo(b?.vrise_total_pct as number, 9);
   });
 });
