@@ -17,6 +17,8 @@ import {
 } from './compensation.ts';
 import type { Site } from './model.ts';
 import { SiteStructureError } from './rollup.ts';
+import { bankTotal } from './bankChoice.ts';
+import { designWarning, type DesignWarning } from './warnings.ts';
 
 export type ChoiceOrigin = 'typed' | 'detuning typed' | 'proposed';
 
@@ -110,4 +112,46 @@ export function designWithSheet(
     origins,
     overridden,
   };
+}
+
+const kvar = (x: number) => `${Math.round(x * 10) / 10} kvar`;
+const detuningText = (p: number | undefined) => ((p ?? 0) > 0 ? `detuned ${p} %` : 'plain');
+
+/**
+ * What Checks says per bus of the Compensation sheet: a bank there (it stands as typed), or a
+ * detuning typed alone, with the bank the design proposes for it (what designWithSheet gives).
+ */
+export function choiceFindings(site: Site, typed: readonly BankChoice[]): DesignWarning[] {
+  const out: DesignWarning[] = [];
+  for (const c of typed.filter(isTypedBank)) {
+    const what = [
+      ...(hasBankChoice(c) ? [`bank of ${kvar(bankTotal(c))}, ${detuningText(c.p_pct)}`] : []),
+      ...(hasReactorChoice(c) ? [`reactor of ${kvar(c.reactor_kvar ?? 0)}`] : []),
+    ].join(' and ');
+    out.push(
+      designWarning(
+        'info',
+        'bank-choice',
+        { bus: c.bus },
+        `on the Compensation sheet (typed, or kept from the design): ${what}; it stands as it is, and the design proposes nothing more on bus ${c.bus}`,
+      ),
+    );
+  }
+  if (!typed.some(isDetuningOnly)) return out;
+  const d = designWithSheet(site, typed);
+  for (const c of typed.filter(isDetuningOnly)) {
+    const bank = d.choices.find((x) => x.bus === c.bus && hasBankChoice(x));
+    const proposal = bank
+      ? `the design proposes a bank of ${kvar(bankTotal(bank))} (${bank.fixed_kvar ? `fixed ${kvar(bank.fixed_kvar)}, ` : ''}${bank.steps ?? 0} stages of ${kvar(bank.step_kvar ?? 0)}) there, ${detuningText(c.p_pct)}: type its sizes to keep it`
+      : `the design proposes no bank there (the bus's share of the need is too small or nothing is needed)`;
+    out.push(
+      designWarning(
+        'info',
+        'bank-choice',
+        { bus: c.bus },
+        `detuning ${c.p_pct} % typed alone on the Compensation sheet (no sizes): ${proposal}`,
+      ),
+    );
+  }
+  return out;
 }
