@@ -27,7 +27,7 @@ import type { Site } from '../core/site/model.ts';
 import type { Problem } from '../core/site/problems.ts';
 import { rollUpAll, SiteStructureError, type BusBalance, type CaseBalance } from '../core/site/rollup.ts';
 import { withinRequirement, type CaseCompensation } from '../core/site/compensate.ts';
-import { proposeChoices } from '../core/site/compensation.ts';
+import { designWithSheet, type ChoiceOrigin } from '../core/site/sheetChoices.ts';
 import { assessBanks, type Assessment } from '../core/site/assessBanks.ts';
 import { bankTotal, controllerStepsOf, type BankChoice } from '../core/site/bankChoice.ts';
 import { DEFAULT_STEP_SERIES } from '../core/site/stepSeries.ts';
@@ -48,13 +48,17 @@ ${EXIT_HELP}
 const CAUTION = CAUTION_SHORT;
 
 /** Where the banks come from: the page keeps a file's banks and proposes them for a file without. */
-type BanksFrom = 'file' | 'proposed';
+type BanksFrom = 'file' | 'proposed' | 'file and proposed';
 
 /** The compensation a balance reports: the banks in use and what they do in every case. */
 interface Compensation {
   readonly banks: readonly BankChoice[];
   readonly from: BanksFrom;
   readonly assessment: Assessment;
+  /** Per bus, whether the file typed the bank, a detuning alone, or the design proposed it. */
+  readonly origins?: ReadonlyMap<string, ChoiceOrigin>;
+  /** Design options the file's typed choices won over, one sentence each. */
+  readonly overridden?: readonly string[];
 }
 
 function busJson(b: BusBalance) {
@@ -117,6 +121,7 @@ function toJson(
       /** The rated power the limits refer to at the point of connection, kW; null: the case's own P. */
       rated_kw: site.settings.requirement.refKw ?? null,
       banks_from: comp.from,
+      options_set_aside: comp.overridden ?? [],
       need_kvar: outcome?.need ?? null,
       met_before: withinRequirement(site, bal.root.p_kw, bal.root.q_kvar),
       met_after: outcome?.within_after ?? null,
@@ -126,6 +131,7 @@ function toJson(
         const inCase = outcome?.banks.find((x) => x.bus === b.bus);
         return {
           ...b,
+          chosen: comp.origins?.get(b.bus) ?? (comp.from === 'file' ? 'typed' : 'proposed'),
           series: b.series ?? DEFAULT_STEP_SERIES,
           controller_steps: controllerStepsOf(b),
           total_kvar: bankTotal(b),
@@ -157,6 +163,8 @@ function table(header: string[], rows: string[][], leftCols = 1): string {
 const FROM_TEXT: Record<BanksFrom, string> = {
   file: 'compensation as the file gives it',
   proposed: 'compensation proposed (the file gives none; sized over all cases)',
+  'file and proposed':
+    'compensation as the file types it, the rest proposed for the buses it leaves open (sized over all cases)',
 };
 
 /** A step or fixed size as typed, to 0.01 kvar (12.5 kvar steps are common; rounding to 13 misleads). */
@@ -252,6 +260,8 @@ function toText(site: Site, bal: CaseBalance, comp: Compensation, warnings: read
       );
     }
   }
+  if ((comp.overridden ?? []).length > 0)
+    out.push('\ndesign options set aside:\n' + (comp.overridden ?? []).map((o) => `  ${o}\n`).join(''));
   if (warnings.length > 0)
     out.push('\nwarnings:\n' + warnings.map((w) => `  ${w.severity.padEnd(7)} ${w.message}\n`).join(''));
   out.push(`\n${CAUTION}\n`);
@@ -294,14 +304,25 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const bal = balances.find((b) => b.case === found) as CaseBalance;
   const design = readDesignOptions(parsed.args, site);
   if (!design.ok) return usageError(io, 'balance', `balance: ${design.message}`);
-  // The banks the page would hold for this file: its own, or the design's proposal (with the
-  // design choices given, always the proposal).
-  const fileBanks = design.options === undefined ? loaded.loaded.banks : undefined;
-  const comp: Compensation = fileBanks
+  // The banks the page would hold for this file: its own as typed; with a design option, the
+  // design's for the buses the file leaves open and with a detuning typed alone on a bus
+  // (sheetChoices.ts); the design's alone for a file without banks.
+  const fileBanks = loaded.loaded.banks;
+  // Without an option the file's rows stand as the page shows them (a detuning typed alone
+  // proposes nothing until the design is asked for).
+  const asTyped = fileBanks !== undefined && design.options === undefined;
+  const comp: Compensation = asTyped
     ? { banks: fileBanks, from: 'file', assessment: assessBanks(site, fileBanks) }
     : (() => {
-        const banks = proposeChoices(site, design.options);
-        return { banks, from: 'proposed' as const, assessment: assessBanks(site, banks) };
+        const d = designWithSheet(site, fileBanks, design.options);
+        const typed = [...d.origins.values()].some((o) => o !== 'proposed');
+        return {
+          banks: d.choices,
+          from: typed ? ('file and proposed' as const) : ('proposed' as const),
+          assessment: assessBanks(site, d.choices),
+          origins: d.origins,
+          overridden: d.overridden,
+        };
       })();
   const warnings = [
     ...problems,

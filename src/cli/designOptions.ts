@@ -1,7 +1,9 @@
 // The design's own choices a command line can give: detuning per bus, the buses that may get a
 // capacitor bank, the bus for a shunt reactor, and a significant 3rd harmonic (14 % detuning
-// where a bank must be detuned). Given any of them, `balance` proposes the banks anew with them,
-// in place of the banks a file holds. Bus names are checked against the site once it is read.
+// where a bank must be detuned). Given any of them, `balance` has the design propose for the buses
+// the file leaves open (src/core/site/sheetChoices.ts): a bank or a detuning the file types on a
+// bus wins there, and the output names each option set aside. Bus names are checked against the
+// site once it is read.
 import type { CompensationOptions } from '../core/site/compensation.ts';
 import { DETUNING_CHOICES } from '../core/site/bankRules.ts';
 import type { Site } from '../core/site/model.ts';
@@ -13,7 +15,8 @@ export const DESIGN_LIST_OPTIONS = ['--detune', '--bank-bus'] as const;
 
 const ALLOWED_P = [0, ...DETUNING_CHOICES];
 
-export const DESIGN_OPTIONS_HELP = `Design choices (given any, the banks are proposed anew with them, in place of a file's own):
+export const DESIGN_OPTIONS_HELP = `Design choices (given any, the design proposes banks for the buses the file leaves open; a bank
+or a detuning the file types on a bus wins there, and the output names each option set aside):
   --detune BUS=P     detuning of the bank on BUS, % (${ALLOWED_P.join(', ')}; 0 = plain); may be repeated
   --bank-bus BUS     a bus that may get a capacitor bank (default: every bus whose own items draw
                      kvar); may be repeated

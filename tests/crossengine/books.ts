@@ -1,6 +1,6 @@
 // The workbooks every other spreadsheet program recalculates in the cross-engine suite: each
 // template's export, an invented site with a motor's own capacitor (and a faulty copy), a hand-made workbook with every kind
-// of content, and a copy of the invented site's export with a wrong cached value planted in it
+// of content, the solar template with charging beside a plain bank, and a copy of the invented site's export with a wrong cached value planted in it
 // (a program that really recalculates gives the right value back). Shared by the LibreOffice
 // and the Gnumeric checks, with the comparison they both use.
 import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -16,6 +16,7 @@ import { exportWorkbookXlsx } from '../../src/io/xlsx/export.ts';
 import { sampleDoc } from '../io/xlsx/docFixtures.ts';
 import { inventedQuarry } from './inventedSite.ts';
 import { editedWorkbooks } from './editedWorkbooks.ts';
+import * as chargedSolar from '../core/workbook/chargedSolar.ts';
 
 /** Relative tolerance of the check; an absolute floor covers results that cancel to ~0. */
 export const REL = 1e-9;
@@ -41,6 +42,7 @@ export const BOOK_NAMES = [
   'pumping-station',
   'solar-collector',
   'solar-collector-rated',
+  'solar-collector-charged',
   'invented-quarry',
   'invented-quarry-fault',
   'invented-quarry-lagging',
@@ -82,6 +84,13 @@ export async function writeBooks(
     base: 'solar-collector-rated',
     doc: buildWorkbook(rated, { flavour: 'portable', ...(solar.banks ? { banks: solar.banks } : {}) }),
     settings: rated.settings,
+  });
+  // The solar template with a night-only cable and a plain bank on a collector bus: the
+  // Compensation sheet's charging column, resonance orders and voltage rise.
+  books.push({
+    base: 'solar-collector-charged',
+    doc: buildWorkbook(chargedSolar.site, { flavour: 'portable', banks: [chargedSolar.bank] }),
+    settings: chargedSolar.site.settings,
   });
   const quarry = inventedQuarry();
   // The design's banks, and the crusher motor's own capacitor (switched out with it in maintenance).

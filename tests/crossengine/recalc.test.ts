@@ -17,6 +17,8 @@ import {
 import { convertToCsv, csvFiles, makeRecalcProfile, sheetCsv } from './libreoffice.ts';
 import { QC, QUANTITIES_SHEET } from '../../src/core/workbook/quantitiesLayout.ts';
 import { COVER_SHEET_NAME } from '../../src/io/xlsx/export.ts';
+import { COMP_HEADERS } from '../../src/core/workbook/compensationColumns.ts';
+import * as chargedSolar from '../core/workbook/chargedSolar.ts';
 import { EDITED_COVER_BASE, writeEditedCover, type CoverCheck } from './coverBook.ts';
 
 let books: Book[] = [];
@@ -78,6 +80,21 @@ describe('LibreOffice Calc recalculating our exports', () => {
     };
     expect(need('solar-collector')).toBeGreaterThan(1000);
     expect(need('solar-collector-rated')).toBe(0);
+  });
+
+  it('counts the zone’s cable and line charging in resonance and voltage rise (hand formulas, IEEE Std 1036)', () => {
+    // Every formula cell was compared above; this says LibreOffice's own figures are the hand's:
+    // h = √(Ssc/(Q + charging)), rise 100·(Q + charging)/Ssc, charging 2πf·C·len·U² at night.
+    const [head, ...rows] = sheetCsv(outDir, 'solar-collector-charged', 'Compensation');
+    const row = rows.find((r) => r[0] === chargedSolar.bank.bus) ?? [];
+    const at = (h: string) => Number(row[head?.indexOf(h) ?? -1]);
+    expect(at(COMP_HEADERS.zoneCharging)).toBeCloseTo(chargedSolar.nightCharging, 6);
+    expect(at(COMP_HEADERS.orderStep)).toBeCloseTo(chargedSolar.order(300 + chargedSolar.nightCharging), 9);
+    expect(at(COMP_HEADERS.orderTotal)).toBeCloseTo(chargedSolar.order(1200 + chargedSolar.nightCharging), 9);
+    expect(at(COMP_HEADERS.vriseTotal)).toBeCloseTo(
+      (100 * (1200 + chargedSolar.nightCharging)) / (chargedSolar.sscA * 1000),
+      9,
+    );
   });
 
   it('prices the demo on the Quantities and cost sheet: total, saving and payback are numbers there', () => {

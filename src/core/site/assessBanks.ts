@@ -23,6 +23,8 @@ import {
 } from './bankRules.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
 import { detuningAdvice } from './detuningCheck.ts';
+import { relevantHarmonics } from './detuningChoice.ts';
+import { harmonicShares } from './harmonicSources.ts';
 import { connectionNeed } from './requirement.ts';
 import { designWarning, sortWarnings, type DesignWarning } from './warnings.ts';
 import { findKind } from '../kinds/index.ts';
@@ -103,6 +105,7 @@ function bankWarnings(
     // A detuned bank's capacitors alone: its output Q at the bus is U²/(Xc·(1 − p)), so the
     // capacitor-only kvar in RESONANCE.ORDER is Q·(1 − p/100). Charging counts with a plain bank
     // only: beside a detuned one it resonates with the supply on its own (chargingResonance.ts).
+    const relevant = relevantHarmonics(harmonicShares(c.bus, site, graph));
     const top = tops.get(c.bus) ?? c.bus;
     const chargingBy =
       p > 0
@@ -115,12 +118,15 @@ function bankWarnings(
         const near = order === undefined ? undefined : nearHarmonic(order);
         if (order !== undefined && near !== undefined) {
           const withCharging = ch.kvar > 0 ? ` and ${f(ch.kvar)} kvar of cable and line charging` : '';
+          // The design's rule (detuningChoice.ts): near an order nothing on the bus or below
+          // produces (no 6-pulse source, only the background 5th and 7th), information only.
+          const produced = relevant.includes(near);
           out.push(
             designWarning(
-              'warning',
+              produced ? 'warning' : 'info',
               'resonance',
               { bus: c.bus, ...(ch.case !== undefined && ch.kvar > 0 ? { case: ch.case } : {}) },
-              `with ${f(q + plain)} kvar connected${withCharging} the bank on bus ${c.bus} resonates at order ${f(order, 2)}${infiniteSupplyNote(sc)}, near the ${near}th harmonic; choose another detuning or step size`,
+              `with ${f(q + plain)} kvar connected${withCharging} the bank on bus ${c.bus} resonates at order ${f(order, 2)}${infiniteSupplyNote(sc)}, near the ${near}th harmonic${produced ? '' : `, which no item on bus ${c.bus} or below produces (no 6-pulse drive or rectifier)`}; choose another detuning or step size`,
             ),
           );
           break search;

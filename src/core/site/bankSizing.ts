@@ -34,6 +34,8 @@ import { harmonicShares, isDriveFed } from './harmonicSources.ts';
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
   readonly kvar: number;
+  /** Cable and line charging of the zone counted with it (plain banks only), kvar. */
+  readonly charging_kvar: number;
   readonly order: number;
   /** The characteristic harmonic it is too close to, or null. */
   readonly near: number | null;
@@ -82,6 +84,8 @@ export interface BankContext {
   readonly graph: BusGraph;
   readonly sc: BusShortCircuit | undefined;
   readonly uKv: number;
+  /** Cable and line charging in the bus's zone, the most of any case (chargingResonance.ts). */
+  readonly chargingKvar?: number;
   readonly detuning?: number;
   readonly thirdHarmonic?: boolean;
 }
@@ -114,6 +118,7 @@ export function sizeBank(
 ): { bank: BankDesign; warnings: DesignWarning[] } {
   const warnings: DesignWarning[] = [];
   const { site, graph, sc, uKv } = ctx;
+  const charging = ctx.chargingKvar ?? 0;
   const hz = site.settings.hz;
   const shares = Object.values(share);
   const most = Math.max(0, ...shares);
@@ -203,8 +208,15 @@ export function sizeBank(
       : states.map((q) => {
           const kvar = q + plainInstalled;
           // The capacitors alone: a detuned bank's output q holds q·(1 − p) of capacitor kvar.
-          const order = resonanceOrderOf(sc.ssc_mva, q * (1 - p / 100) + plainInstalled, p) as number;
-          return { kvar, order, near: nearHarmonic(order) ?? null };
+          // Charging counts with a plain bank only: beside a detuned one it resonates with the
+          // supply on its own (chargingResonance.ts), as Checks judges it (assessBanks.ts).
+          const withCharging = p > 0 ? 0 : charging;
+          const order = resonanceOrderOf(
+            sc.ssc_mva,
+            q * (1 - p / 100) + plainInstalled + withCharging,
+            p,
+          ) as number;
+          return { kvar, charging_kvar: withCharging, order, near: nearHarmonic(order) ?? null };
         });
   const choice = chooseDetuning({
     bus,
@@ -237,7 +249,7 @@ export function sizeBank(
         produced ? 'warning' : 'info',
         'resonance',
         { bus },
-        `with ${r.kvar.toFixed(1)} kvar connected the bank on bus ${bus} resonates at order ${r.order.toFixed(2)}, near the ${r.near}th harmonic${produced ? '' : `, which no item on bus ${bus} or below produces (no 6-pulse drive or rectifier)`}; choose another detuning or step size`,
+        `with ${r.kvar.toFixed(1)} kvar connected${r.charging_kvar > 0 ? ` and ${r.charging_kvar.toFixed(1)} kvar of cable and line charging` : ''} the bank on bus ${bus} resonates at order ${r.order.toFixed(2)}, near the ${r.near}th harmonic${produced ? '' : `, which no item on bus ${bus} or below produces (no 6-pulse drive or rectifier)`}; choose another detuning or step size`,
       ),
     );
   }
@@ -259,7 +271,9 @@ export function sizeBank(
   // One switching operation adds at most the largest stage.
   const stage = step > 0 ? step * largestRatio(series, steps) : fixed;
   const vStep = sc === undefined || total === 0 ? null : voltageRise(stage, sc.ssc_mva);
-  const vTotal = sc === undefined || total === 0 ? null : voltageRise(total, sc.ssc_mva);
+  // The whole bank in, with the plain capacitors and the cable and line charging already there.
+  const vTotal =
+    sc === undefined || total === 0 ? null : voltageRise(total + plainInstalled + charging, sc.ssc_mva);
   if (vStep !== null && vStep > STEP_VRISE_LIMIT_PCT) {
     warnings.push(
       designWarning(

@@ -57,6 +57,23 @@ export function zoneCapacitance(
   return out;
 }
 
+/**
+ * Per bus, the most cable and line charging its zone holds in any of these cases, kvar: what the
+ * design's resonance sweep and the Compensation sheet's resonance and voltage-rise columns count
+ * (the case with the most charging gives the lowest resonance order and the highest voltage).
+ */
+export function zoneChargingMost(
+  site: Site,
+  graph: BusGraph,
+  balances: readonly CaseBalance[],
+): Map<string, number> {
+  const most = new Map<string, number>();
+  for (const bal of balances)
+    for (const [top, z] of zoneCapacitance(site, graph, bal))
+      most.set(top, Math.max(most.get(top) ?? 0, z.charging_kvar));
+  return new Map([...zoneTops(graph)].map(([bus, top]) => [bus, most.get(top) ?? 0]));
+}
+
 const f = (x: number, d = 1) => x.toFixed(d);
 
 /**

@@ -30,7 +30,7 @@ import {
   type Need,
 } from './requirement.ts';
 import { busShortCircuit } from './shortCircuit.ts';
-import { chargingResonanceWarnings } from './chargingResonance.ts';
+import { chargingResonanceWarnings, zoneChargingMost } from './chargingResonance.ts';
 import { busVoltages } from './voltages.ts';
 import {
   MIN_BANK_KVAR_LV,
@@ -53,6 +53,10 @@ export interface CompensationOptions {
   readonly thirdHarmonic?: boolean;
   /** Bus for a shunt reactor; default: the bus with the most cable and line charging. */
   readonly reactorBus?: string;
+  /** Buses that get a bank besides those (a detuning typed alone on the Compensation sheet). */
+  readonly alsoBankBuses?: readonly string[];
+  /** Buses whose bank is typed: no proposal there (sheetChoices.ts). */
+  readonly typedBuses?: readonly string[];
 }
 
 export interface ReactorDesign {
@@ -186,7 +190,10 @@ export function designCompensation(
       before.flatMap((bal) => bal.buses.filter((x) => x.own_q_kvar > 0).map((x) => x.bus)),
     );
     const lagging = (b: string) => laggingBuses.has(b);
-    let candidates = (options.bankBuses ?? graph.order.filter(lagging)).filter((b) => {
+    const typed = new Set(options.typedBuses ?? []);
+    const wanted = [...(options.bankBuses ?? graph.order.filter(lagging)), ...(options.alsoBankBuses ?? [])];
+    let candidates = [...new Set(wanted)].filter((b) => {
+      if (typed.has(b)) return false;
       if (voltages.has(b)) return true;
       warnings.push(
         designWarning(
@@ -198,9 +205,10 @@ export function designCompensation(
       );
       return false;
     });
-    if (candidates.length === 0 && graph.root !== undefined && voltages.has(graph.root))
+    if (candidates.length === 0 && graph.root !== undefined && voltages.has(graph.root) && typed.size === 0)
       candidates = [graph.root];
     const extra = rootNeed.map(() => 0);
+    const charging = zoneChargingMost(site, graph, before);
     for (let pass = 0; pass < MAX_PASSES && candidates.length > 0; pass++) {
       const need = rootNeed.map((n, i) => n + (extra[i] as number));
       let shares = allocate(candidates, before, need);
@@ -221,6 +229,7 @@ export function designCompensation(
           graph,
           sc: ssc.get(bus),
           uKv: (voltages.get(bus) as { u_kv: number }).u_kv,
+          chargingKvar: charging.get(bus) ?? 0,
           ...(entryOf(options.detuning, bus) !== undefined
             ? { detuning: entryOf(options.detuning, bus) as number }
             : {}),

@@ -18,7 +18,8 @@ export type WarningCode =
   | 'bus-voltage-unknown'
   | 'detuned-and-plain-mixed'
   | 'bank-capped'
-  | 'detuning-choice';
+  | 'detuning-choice'
+  | 'bank-choice';
 
 export interface DesignWarning extends Problem {
   readonly code: WarningCode;

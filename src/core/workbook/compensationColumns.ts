@@ -43,6 +43,7 @@ export const COMP_HEADERS = {
   cosAfter: (c: string) => `cos φ after ${c}`,
   needInd: (c: string) => `Inductive need ${c} (kvar)`,
   within: (c: string) => `Within requirement ${c}`,
+  zoneCharging: 'Charging in zone, most of any case (kvar)',
   /** Label of the summary row below the buses. */
   allBanks: 'All banks',
 } as const;
@@ -74,6 +75,8 @@ export interface CompensationColumns {
   readonly cosAfter: readonly number[];
   readonly needInd: readonly number[];
   readonly within: readonly number[];
+  /** Cable and line charging of the bus's zone (zoneCharging.ts); last, so older sheets keep their columns. */
+  readonly zoneCharging: number;
   readonly columns: readonly ColumnInfo[];
 }
 
@@ -128,7 +131,8 @@ export function planCompensationColumns(cases: readonly string[]): CompensationC
     per.needInd.push(add(COMP_HEADERS.needInd(c), FORMATS.kvar, 10));
     per.within.push(add(COMP_HEADERS.within(c), undefined, 9));
   }
-  return { bus: 0, u, ssc, input, ...fixed, ...per, columns };
+  const zoneCharging = add(COMP_HEADERS.zoneCharging, FORMATS.kvar, 11);
+  return { bus: 0, u, ssc, input, ...fixed, ...per, zoneCharging, columns };
 }
 
 /** Input columns of the Compensation sheet (typed by the user, kept per bus). */

@@ -15,6 +15,7 @@ import type { BusInfo, WorkbookStructure } from './structure.ts';
 import { CHARACTERISTIC_HARMONICS, RESONANCE_MARGIN } from '../site/harmonics.ts';
 import { WITHIN_TOL_KVAR } from '../site/tolerance.ts';
 import { textContent } from '../text/cellText.ts';
+import { zoneChargingFormula, zoneTopIndex } from './zoneCharging.ts';
 
 export interface CompensationInput {
   readonly s: WorkbookStructure;
@@ -116,6 +117,7 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
   const lead = settingRef('leadInUse');
   const hz = settingRef('hzInUse');
   const rowOfBus = new Map(s.buses.map((b, i) => [b.key, i + 1]));
+  const tops = zoneTopIndex(s);
   s.buses.forEach((b, i) => {
     const r = i + 1;
     const out: CellContent[] = new Array<CellContent>(cols.columns.length).fill(null);
@@ -154,18 +156,22 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
       `=IF(OR(${step}=0,ISBLANK(${ur})),"",-${step}/KVAR.CAPBANK(1,${ur},${u},${p},${hz},${hz}))`;
     out[cols.plainInstalled] = plainInstalledCell(input, i);
     const installed = here(cols.plainInstalled);
+    const charging = here(cols.zoneCharging);
+    out[cols.zoneCharging] = zoneChargingFormula(s, input.busRows, input.flavour, tops, i);
     const first = `IF(${fixed}>0,${fixed},${step})`;
     // The capacitors alone resonate with the supply: a bank of output Q at the bus holds Q·(1 − p)
-    // of capacitor kvar (its output is U²/(Xc − p·Xc)), which RESONANCE.ORDER takes with p.
-    const capOnly = (q: string) => `${q}*(1-${p}/100)`;
-    out[cols.orderStep] =
-      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(first)}+${installed},${p}))`;
-    out[cols.orderTotal] =
-      `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(total)}+${installed},${p}))`;
+    // of capacitor kvar (its output is U²/(Xc − p·Xc)), which RESONANCE.ORDER takes with p. The
+    // zone's charging counts with a plain bank only: beside a detuned one it resonates with the
+    // supply on its own (Checks reports that), as assessBanks.ts and bankSizing.ts count it.
+    const capOnly = (q: string) => `${q}*(1-${p}/100)+${installed}+IF(${p}>0,0,${charging})`;
+    out[cols.orderStep] = `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(first)},${p}))`;
+    out[cols.orderTotal] = `=IF(OR(${ssc}="",${total}=0),"",RESONANCE.ORDER(${ssc},${capOnly(total)},${p}))`;
     out[cols.check] = resonanceCheck(here(cols.orderStep), here(cols.orderTotal));
     // One switching operation adds at most the largest stage.
     out[cols.vriseStep] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${here(cols.largestStage)},${ssc}))`;
-    out[cols.vriseTotal] = `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total},${ssc}))`;
+    // The whole bank in, with the plain capacitors and the charging already there.
+    out[cols.vriseTotal] =
+      `=IF(OR(${ssc}="",${total}=0),"",VRISE.PCT(${total}+${installed}+${charging},${ssc}))`;
     s.cases.forEach((_, k) => {
       // At the point of connection the limits may refer to a rated power (Site sheet), not P.
       const P = r === 1 ? referred(bus(busCols.p[k] as number)) : `ABS(${bus(busCols.p[k] as number)})`;
@@ -217,4 +223,4 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
 }
 
 export const COMPENSATION_PURPOSE =
-  "Per bus: the bank there (inputs: fixed part, smallest step, stages, their series 1:1:1, 1:2:2 or 1:2:4, detuning, capacitor rating, reactor) and what it is: the controller step count, the largest stage, total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise. Per case: the need at the bus, the bank in service (a motor's own bank is out while the motor is stopped), the smallest steps the bank switches (each bank in service covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.";
+  "Per bus: the bank there (inputs: fixed part, smallest step, stages, their series 1:1:1, 1:2:2 or 1:2:4, detuning, capacitor rating, reactor) and what it is: the controller step count, the largest stage, total, tuning, capacitor voltage, resonance order from the first step to the whole bank, voltage rise per stage and with the whole bank in. Resonance and the whole bank's voltage rise count the plain capacitors on the bus and the cable and line charging of the bus's zone (the buses joined to it by lines) in the case with the most charging (last column); a detuned bank's resonance leaves the charging out, which Checks judges on its own. Per case: the need at the bus, the bank in service (a motor's own bank is out while the motor is stopped), the smallest steps the bank switches (each bank in service covers the same share of its size of the need at the point of connection), its output, the reactor in, and Q and cos φ after (from the Buses sheet, losses at the compensated loading). At the point of connection: whether the requirement is met.";

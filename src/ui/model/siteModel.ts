@@ -20,6 +20,7 @@ import {
 import type { EquipmentColumns } from '../../core/workbook/equipmentColumns.ts';
 import { ownSumCells, renderBusesSheet } from '../../core/workbook/renderBuses.ts';
 import { plainInstalledCell, renderCompensationSheet } from '../../core/workbook/renderCompensation.ts';
+import { zoneChargingFormula, zoneMatesOf, zoneTopIndex } from '../../core/workbook/zoneCharging.ts';
 import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
 import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
@@ -361,6 +362,10 @@ export class SiteModel {
         plainInstalledCell({ ...input, cols: comp, busCols: bus, inputs: new Map() }, i),
       );
     }
+    // A cable added or removed on a bus changes the charging of every bus in its zone.
+    const tops = zoneTopIndex(s);
+    for (const j of zoneMatesOf(s, tops, keys))
+      want(this.ids.comp, j + 1, comp.zoneCharging, zoneChargingFormula(s, input.busRows, 'live', tops, j));
     return out;
   }
 

@@ -7,6 +7,7 @@ import type { Problem, Severity } from '../../core/site/problems.ts';
 import type { Site } from '../../core/site/model.ts';
 import { validateSite } from '../../core/site/validate.ts';
 import { assessBanks } from '../../core/site/assessBanks.ts';
+import { choiceFindings } from '../../core/site/sheetChoices.ts';
 import { busVoltages } from '../../core/site/voltages.ts';
 import { buildBusGraph } from '../../core/site/graph.ts';
 import { a1 } from '../model/address.ts';
@@ -135,6 +136,8 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
     try {
       // Findings for the banks on the Compensation sheet (typed, or proposed when the site was built).
       items.push(...assessBanks(read.site, read.banks).warnings.map((w) => designItem(w, doc, read.origins)));
+      // Per bus, which choice is typed and what the design proposes for a detuning typed alone.
+      items.push(...choiceFindings(read.site, read.banks).map((w) => designItem(w, doc, read.origins)));
     } catch (e) {
       // Losses that run away (megawatts through a low-voltage line) say where; anything else as it came.
       const runaway = runawayOf(read.site);

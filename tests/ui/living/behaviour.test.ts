@@ -5,12 +5,13 @@
 // independently in each test from the power triangle (P, Q = P·tan φ) and the motor's P = Pout/η.
 import { describe, expect, it } from 'vitest';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
-import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
+import { COMP_HEADERS, planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { ADDED_CASE_NOTE } from '../../../src/ui/model/tariffCases.ts';
 import { collectChecks } from '../../../src/ui/panels/checksModel.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
+import * as chargedSolar from '../../core/workbook/chargedSolar.ts';
 
 const open = () => WorkbookSession.fromDoc(buildWorkbook(PLANT, { flavour: 'live' }));
 const id = (s: WorkbookSession, name: string) => s.engine.getSheetId(name) as number;
@@ -318,5 +319,36 @@ describe('a value typed over a formula', () => {
     expect(() => s.setCells(id(s, 'Motors'), [{ row: 0, col: 0, content: 'Name' }])).toThrow(
       /header row of Motors/,
     );
+  });
+});
+
+describe('the charging of a zone follows a cable typed on any of its buses', () => {
+  it('a cable added on block B counts in block A’s resonance at once (one zone through the feeders)', () => {
+    const s = WorkbookSession.fromDoc(
+      buildWorkbook(chargedSolar.site, { flavour: 'live', banks: [chargedSolar.bank] }),
+    );
+    const comp = id(s, 'Compensation');
+    const rowA = s.sheetContents(comp).findIndex((r) => r[0] === 'BLK-A');
+    const charging = () =>
+      s.engine.getCellValue({
+        sheet: comp,
+        row: rowA,
+        col: col(s, 'Compensation', COMP_HEADERS.zoneCharging),
+      });
+    expect(charging()).toBeCloseTo(chargedSolar.nightCharging, 6);
+    const cables = id(s, 'Cables');
+    const row = s.sheetContents(cables).length;
+    s.setCells(cables, [
+      { row, col: col(s, 'Cables', 'Tag'), content: 'CB-Y' },
+      { row, col: col(s, 'Cables', 'Bus'), content: 'BLK-B' },
+      { row, col: col(s, 'Cables', 'U (kV)'), content: 33 },
+      { row, col: col(s, 'Cables', 'C (µF/km)'), content: 0.2 },
+      { row, col: col(s, 'Cables', 'Length (km)'), content: 2 },
+    ]);
+    // Q = 2πf·C·len·U² (IEC 60287-1-1 / any cable handbook), energised in every case.
+    const added = (2 * Math.PI * 50 * 0.2e-6 * 2 * 33e3 ** 2) / 1e3;
+    expect(charging()).toBeCloseTo(chargedSolar.nightCharging + added, 6);
+    expect(s.undo()).toBe(true);
+    expect(charging()).toBeCloseTo(chargedSolar.nightCharging, 6);
   });
 });

@@ -1,5 +1,6 @@
 // One model, four faces: after every edit made through the page's own model, each bus's P, Q and
-// cos φ before compensation and P and Q after it, as the page's engine computes them, equal the
+// cos φ before compensation and P and Q after it, and the charging of its zone that the Compensation
+// sheet's resonance columns count, as the page's engine computes them, equal the
 // core roll-up and compensation rule (what the command line prints) for the same workbook, to
 // 1e-9 relative; and the "Quantities and cost" sheet's items, counts, quantities, costs and
 // totals equal the core's priced schedule (src/core/quote, what `kvar-ledger quote` prints).
@@ -25,6 +26,11 @@ function compare(s: WorkbookSession, log: readonly string[]): number {
     where(),
   ).toEqual(core.faces.buses.map((b) => b.bus));
   core.faces.buses.forEach((b, i) => {
+    const charging = page.buses[i]?.charging ?? NaN;
+    expect(
+      relDiff(charging, b.charging),
+      `${b.bus} zone charging: page ${charging} core ${b.charging}; ${where()}`,
+    ).toBeLessThan(TOL);
     b.cases.forEach((c, k) => {
       const p = page.buses[i]?.cases[k];
       if (!p) throw new Error(`no page figures for ${b.bus} case ${k}: ${where()}`);

@@ -5,6 +5,8 @@ import type { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
 import { validateSite, mergeProblems } from '../../../src/core/site/validate.ts';
 import { compensate, type CaseCompensation } from '../../../src/core/site/compensate.ts';
+import { zoneChargingMost } from '../../../src/core/site/chargingResonance.ts';
+import { buildBusGraph } from '../../../src/core/site/graph.ts';
 import { planBusColumns } from '../../../src/core/workbook/busColumns.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 
@@ -12,6 +14,8 @@ export interface BusFigures {
   readonly bus: string;
   /** Per case: P, Q, cos φ before; P, Q after. */
   readonly cases: ReadonlyArray<readonly [number, number, number | null, number, number]>;
+  /** Cable and line charging of the bus's zone, the most of any case (Compensation sheet, last column). */
+  readonly charging: number;
 }
 
 export interface Faces {
@@ -46,6 +50,7 @@ export function pageFaces(s: WorkbookSession, cases: readonly string[], busCount
           num(v(buses, r, cols.qAfter[k] as number)),
         ] as const;
       }),
+      charging: num(v(compId, r, comp.zoneCharging)),
     });
   }
   const within = cases.map((_, k) => v(compId, 1, comp.within[k] as number) === 'yes');
@@ -62,8 +67,14 @@ export function coreFaces(s: WorkbookSession): { faces: Faces; cases: readonly s
   const res: CaseCompensation[] = compensate(read.site, read.banks);
   const first = res[0];
   if (!first) return undefined;
+  const charging = zoneChargingMost(
+    read.site,
+    buildBusGraph(read.site.equipment),
+    res.map((c) => c.before),
+  );
   const buses = first.before.buses.map((b, i) => ({
     bus: b.bus,
+    charging: charging.get(b.bus) ?? 0,
     cases: res.map((c) => {
       const before = c.before.buses[i];
       const after = c.after.buses[i];
