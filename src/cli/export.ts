@@ -75,7 +75,12 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
   // Cached results come from the live flavour (same layout, same values, one fast roll-up).
   const live = buildWorkbook(site, { flavour: 'live', ...keep });
-  const report = await exportWorkbookXlsxWithReport(doc, { settings: site.settings, valuesFrom: live });
+  const { optionsForExport } = await import('../core/quote/docOptions.ts');
+  const report = await exportWorkbookXlsxWithReport(doc, {
+    settings: site.settings,
+    valuesFrom: live,
+    ...optionsForExport(live),
+  });
   try {
     writeFileSync(output, report.bytes);
   } catch (e) {

@@ -23,6 +23,7 @@ import {
   markAssumptions,
   markOverrides,
   styleCover,
+  styleOptionsSheet,
   styleDataSheet,
   styleFunctionsSheet,
 } from './exportStyles.ts';
@@ -39,6 +40,8 @@ import {
   type SheetMeta,
 } from './metadata.ts';
 import { sheetNameProblem, uniqueSheetName } from './sheetNames.ts';
+import { OPTIONS_SHEET_NAME, optionsSheetRows } from './exportOptions.ts';
+import type { OptionFigures } from '../../core/quote/options.ts';
 
 export interface XlsxExportOptions {
   /** The site's settings, for the cover (name, frequency, requirement, cases, notes). */
@@ -59,6 +62,10 @@ export interface XlsxExportOptions {
   readonly strict?: boolean;
   /** Program name and version on the cover. */
   readonly generator?: string;
+  /** Design options side by side, written on a sheet of their own (values). */
+  readonly options?: readonly OptionFigures[];
+  /** Why the options are not in the file, for the cover (e.g. a site too large to work them out unasked). */
+  readonly optionsLeftOut?: string;
 }
 
 export interface XlsxExportReport {
@@ -232,6 +239,11 @@ export async function exportWorkbookXlsxWithReport(
   const taken = doc.sheets.map((s) => s.name);
   const coverName = uniqueSheetName(COVER_SHEET_NAME, taken);
   const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
+  const options = opts.options ?? [];
+  const optionsName =
+    options.length > 0
+      ? uniqueSheetName(OPTIONS_SHEET_NAME, [...taken, coverName, functionsName])
+      : undefined;
   const typedOver = doc.sheets.flatMap((s) => (s.overrides ?? []).map(([r, c]) => `${s.name}!${a1Of(r, c)}`));
   const assumed = doc.sheets.flatMap((s) => heldAssumptions(s).map((m) => `${s.name}!${a1Of(m.row, m.col)}`));
   const notes = [
@@ -250,6 +262,10 @@ export async function exportWorkbookXlsxWithReport(
           `Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`,
         ]
       : []),
+    ...(optionsName
+      ? [`Design options side by side, as values worked out at export: sheet ${optionsName}.`]
+      : []),
+    ...(opts.optionsLeftOut ? [opts.optionsLeftOut] : []),
     ...issues.slice(0, MAX_COVER_ISSUES).map((i) => `${i.where}: ${i.message}.`),
     ...(issues.length > MAX_COVER_ISSUES
       ? [`… and ${issues.length - MAX_COVER_ISSUES} more cells written as values.`]
@@ -290,12 +306,13 @@ export async function exportWorkbookXlsxWithReport(
   });
 
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));
+  if (optionsName) styleOptionsSheet(wb.addWorksheet(optionsName), optionsSheetRows(options));
   writeMeta(wb, {
     format: META_MARKER,
     version: META_VERSION,
     doc,
     sheets: sheetsMeta,
-    generated: [coverName, functionsName],
+    generated: [coverName, functionsName, ...(optionsName ? [optionsName] : [])],
   });
 
   // Fastest deflate level: the file grows by about a third, the export is much quicker.

@@ -36,7 +36,12 @@ export async function handOff(
   resultAt?: ResultReader,
 ): Promise<{ bytes: Uint8Array; issues: number; overrides: number }> {
   const out = handOffDoc(doc);
+  // The design options, worked out from the live workbook (its code loads with the export).
+  const options = isSiteDoc(doc)
+    ? (await import('../../core/quote/docOptions.ts')).optionsForExport(doc)
+    : {};
   const r = await exportWorkbookXlsxWithReport(out.doc, {
+    ...options,
     ...(out.settings ? { settings: out.settings } : {}),
     ...(resultAt ? { valueAt: resultAt } : {}),
   });

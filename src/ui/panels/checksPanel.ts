@@ -8,11 +8,6 @@ import type { CheckItem, CheckTarget, ChecksReport } from './checksModel.ts';
 import { OptionsSection } from './optionsSection.ts';
 
 const QUIET_MS = 600;
-/**
- * Above this many equipment rows the options are redone on request, not after every edit: five
- * designs take seconds there (about 10 s at 10,000 rows on the bench machine).
- */
-const OPTIONS_FOLLOW_ROWS = 2_000;
 
 export class ChecksPanel {
   readonly root: HTMLElement;
@@ -21,8 +16,8 @@ export class ChecksPanel {
   private timer: ReturnType<typeof setTimeout> | undefined;
   private dirty = true;
   private readonly options: OptionsSection;
-  /** Equipment rows of the site the options were last worked out for. */
-  private optionsRows = 0;
+  /** The site was small enough for the options to follow every edit. */
+  private optionsFollow = true;
   visible = false;
   /** Set by the app: select the cell an item concerns. */
   onJump: (target: CheckTarget) => void = () => {};
@@ -71,13 +66,13 @@ export class ChecksPanel {
   }
 
   /**
-   * The options follow the checks on sites of up to OPTIONS_FOLLOW_ROWS equipment rows; on a
-   * larger one they are marked out of date instead, with a button to redo them, so that an edit
-   * never waits for five designs.
+   * The options follow the checks on sites small enough (OPTIONS_UNASKED_MAX_ROWS, docOptions.ts);
+   * on a larger one they are marked out of date instead, with a button to redo them, so that an
+   * edit never waits for five designs.
    */
   private afterChecks(): Promise<void> | undefined {
     if (!this.options.wanted) return undefined;
-    if (this.optionsRows <= OPTIONS_FOLLOW_ROWS) return this.drawOptions();
+    if (this.optionsFollow) return this.drawOptions();
     this.options.markStale();
     return undefined;
   }
@@ -87,11 +82,11 @@ export class ChecksPanel {
     if (!this.session) return;
     const doc = this.session.toDoc();
     const [{ optionsOfDoc }, { renderOptions }] = await Promise.all([
-      import('./optionsModel.ts'),
+      import('../../core/quote/docOptions.ts'),
       import('./optionsView.ts'),
     ]);
     const report = optionsOfDoc(doc);
-    this.optionsRows = report.rows;
+    this.optionsFollow = report.unasked;
     renderOptions(this.options.body, report);
   }
 

@@ -1,7 +1,7 @@
 // The cards of the design options (loaded with their figures, on first use).
 import { clear, el } from '../dom.ts';
 import type { OptionFigures } from '../../core/quote/options.ts';
-import type { OptionsReport } from './optionsModel.ts';
+import type { OptionsReport } from '../../core/quote/docOptions.ts';
 
 const money = (x: number | null) =>
   x === null ? 'unpriced' : x.toLocaleString('en-GB', { maximumFractionDigits: 0 });
