@@ -75,7 +75,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
   // Cached results come from the live flavour (same layout, same values, one fast roll-up).
   const live = buildWorkbook(site, { flavour: 'live', ...keep });
-  const { optionsForExport } = await import('../core/quote/docOptions.ts');
+  const { optionsForExport } = await import('../core/options/index.ts');
   const report = await exportWorkbookXlsxWithReport(doc, {
     settings: site.settings,
     valuesFrom: live,

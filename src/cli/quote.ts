@@ -31,7 +31,7 @@ import {
 import { readCsv } from '../io/csv/read.ts';
 import { quoteSaving, savingText, type SavingResult } from './quoteSaving.ts';
 import { optionsJson, optionsText, siteOptions } from './quoteOptions.ts';
-import type { OptionFigures } from '../core/quote/options.ts';
+import type { OptionFigures } from '../core/options/index.ts';
 
 const USAGE = `usage: kvar-ledger quote <file> [--rates rates.csv] [--compare] [site options] [--json]
 The items of the compensation per bus (capacitor units, detuning reactors, switching devices

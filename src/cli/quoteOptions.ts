@@ -1,6 +1,6 @@
 // `kvar-ledger quote --compare`: the design options side by side (src/core/quote/options.ts),
 // priced at the same rates and judged by the same rules as the quote itself.
-import { compareOptions, standardOptions, type OptionFigures } from '../core/quote/options.ts';
+import { compareOptions, standardOptions, type OptionFigures } from '../core/options/index.ts';
 import { readTariff, tariffSheetDoc, type RateTable } from '../core/quote/index.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import type { Site } from '../core/site/model.ts';

@@ -5,7 +5,7 @@ import type { Page } from 'playwright-core';
 import { buildApp, launch, openApp, screenshot, serve, type Browser } from './harness.ts';
 import { cellText, openSheet, typeInCell } from './gridHelpers.ts';
 import { readFileSync } from 'node:fs';
-import { compareOptions, standardOptions } from '../../src/core/quote/options.ts';
+import { compareOptions, standardOptions } from '../../src/core/options/index.ts';
 import { demoRateTable, readTariff, tariffSheetDoc } from '../../src/core/quote/index.ts';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
 

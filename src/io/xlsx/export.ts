@@ -41,7 +41,7 @@ import {
 } from './metadata.ts';
 import { sheetNameProblem, uniqueSheetName } from './sheetNames.ts';
 import { OPTIONS_SHEET_NAME, optionsSheetRows } from './exportOptions.ts';
-import type { OptionFigures } from '../../core/quote/options.ts';
+import type { OptionFigures } from '../../core/options/index.ts';
 
 export interface XlsxExportOptions {
   /** The site's settings, for the cover (name, frequency, requirement, cases, notes). */

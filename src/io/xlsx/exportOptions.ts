@@ -2,7 +2,7 @@
 // (src/core/quote/options.ts), then the banks of each option, so a colleague can type an
 // option's banks onto the Compensation sheet and see its figures as live formulas. The figures
 // are values worked out by Kvar Ledger at export, and the sheet says so.
-import type { OptionFigures } from '../../core/quote/options.ts';
+import type { OptionFigures } from '../../core/options/index.ts';
 import { CAUTION_SHORT } from '../../core/cautions.ts';
 
 export const OPTIONS_SHEET_NAME = 'Options compared';

@@ -37,9 +37,7 @@ export async function handOff(
 ): Promise<{ bytes: Uint8Array; issues: number; overrides: number }> {
   const out = handOffDoc(doc);
   // The design options, worked out from the live workbook (its code loads with the export).
-  const options = isSiteDoc(doc)
-    ? (await import('../../core/quote/docOptions.ts')).optionsForExport(doc)
-    : {};
+  const options = isSiteDoc(doc) ? (await import('../../core/options/index.ts')).optionsForExport(doc) : {};
   const r = await exportWorkbookXlsxWithReport(out.doc, {
     ...options,
     ...(out.settings ? { settings: out.settings } : {}),

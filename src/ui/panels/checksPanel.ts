@@ -73,8 +73,9 @@ export class ChecksPanel {
   private afterChecks(): Promise<void> | undefined {
     if (!this.options.wanted) return undefined;
     if (this.optionsFollow) return this.drawOptions();
-    this.options.markStale();
-    return undefined;
+    return import('./optionsView.ts').then(({ renderStale }) =>
+      renderStale(this.options.stale, () => void this.drawOptions()),
+    );
   }
 
   /** The design options for the workbook as it is now (their code loads on first use). */
@@ -82,7 +83,7 @@ export class ChecksPanel {
     if (!this.session) return;
     const doc = this.session.toDoc();
     const [{ optionsOfDoc }, { renderOptions }] = await Promise.all([
-      import('../../core/quote/docOptions.ts'),
+      import('../../core/options/index.ts'),
       import('./optionsView.ts'),
     ]);
     const report = optionsOfDoc(doc);

@@ -1,14 +1,21 @@
 // The cards of the design options (loaded with their figures, on first use).
 import { clear, el } from '../dom.ts';
-import type { OptionFigures } from '../../core/quote/options.ts';
-import type { OptionsReport } from '../../core/quote/docOptions.ts';
+import type { OptionFigures } from '../../core/options/index.ts';
+import type { OptionsReport } from '../../core/options/index.ts';
 
 const money = (x: number | null) =>
   x === null ? 'unpriced' : x.toLocaleString('en-GB', { maximumFractionDigits: 0 });
 const kvar = (x: number) => `${Math.round(x).toLocaleString('en-GB')}`;
 
+const ABOUT =
+  'The banks as the Compensation sheet holds them, the proposed design, plain capacitors, every bank detuned 7 %, and one bank at the point of connection, each priced at the Rates sheet, saved at the Tariff sheet and judged by the same rules.';
+
 export function renderOptions(body: HTMLElement, r: OptionsReport): void {
   clear(body);
+  body.append(
+    el('h3', { text: 'Design options side by side' }),
+    el('p', { className: 'kl-muted', text: ABOUT }),
+  );
   if (!r.ok) {
     body.append(el('p', { className: 'kl-muted', text: r.message }));
     return;
@@ -55,4 +62,24 @@ function card(o: OptionFigures, currency: string): HTMLElement {
           facts.flatMap(([k, v]) => [el('dt', { text: k }), el('dd', { text: v })]),
         ),
   ]);
+}
+
+/** The cards below no longer describe the workbook (a large site): say so and offer to redo them. */
+export function renderStale(host: HTMLElement, redo: () => void): void {
+  const again = el('button', {
+    className: 'kl-btn',
+    text: 'Compare again',
+    attrs: { type: 'button', 'data-testid': 'options-redo' },
+  });
+  again.addEventListener('click', () => {
+    clear(host);
+    redo();
+  });
+  clear(host);
+  host.append(
+    el('p', { className: 'kl-options-stale' }, [
+      'The workbook changed since these options were worked out (on a site this large they are not redone after every edit). ',
+      again,
+    ]),
+  );
 }

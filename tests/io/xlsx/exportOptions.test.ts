@@ -4,11 +4,7 @@
 import { readFileSync } from 'node:fs';
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
-import {
-  OPTIONS_UNASKED_MAX_ROWS,
-  optionsForExport,
-  optionsOfDoc,
-} from '../../../src/core/quote/docOptions.ts';
+import { OPTIONS_UNASKED_MAX_ROWS, optionsForExport, optionsOfDoc } from '../../../src/core/options/index.ts';
 import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { exportWorkbookXlsxWithReport, importKvarXlsx } from '../../../src/io/xlsx/index.ts';

@@ -6,7 +6,7 @@
 // banks, and the payback against cost ÷ saving worked out here. Sites: the invented templates.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { compareOptions, DETUNED_OPTION_P, standardOptions } from '../../../src/core/quote/options.ts';
+import { compareOptions, DETUNED_OPTION_P, standardOptions } from '../../../src/core/options/index.ts';
 import { demoRateTable, readTariff, tariffSheetDoc } from '../../../src/core/quote/index.ts';
 import { bankTotal } from '../../../src/core/site/bankChoice.ts';
 import { buildBusGraph } from '../../../src/core/site/graph.ts';

@@ -1,8 +1,8 @@
-// The design options of a workbook (options.ts): its site and banks read back as the CLI reads
+// The design options of a workbook (compare.ts): its site and banks read back as the CLI reads
 // them, priced at its Rates sheet and saved at its Tariff sheet. The Checks panel shows them and
 // the export writes them on a sheet of their own.
-import { rateRowsOf, readRateTable, readTariff, tariffRowsOf } from './index.ts';
-import { compareOptions, standardOptions, type OptionFigures } from './options.ts';
+import { rateRowsOf, readRateTable, readTariff, tariffRowsOf } from '../quote/index.ts';
+import { compareOptions, standardOptions, type OptionFigures } from './compare.ts';
 import { validateSite } from '../site/validate.ts';
 import type { WorkbookDoc } from '../workbook/document.ts';
 import { siteFromWorkbook } from '../workbook/readSite.ts';

@@ -3,8 +3,8 @@
 // detuned, one bank at the point of connection), each priced at the same rates and judged by the
 // same rules: cost, what it saves a year, simple payback, whether the requirement is met in every
 // case, and how many findings Checks would list. Every figure comes from the one after-
-// compensation rule (compensate.ts via assessBanks.ts), the schedule and cost of this folder and
-// the saving of saving.ts, so an option's figures are what the workbook shows once its banks are
+// compensation rule (compensate.ts via assessBanks.ts), the schedule, cost and saving of
+// src/core/quote, so an option's figures are what the workbook shows once its banks are
 // typed onto the Compensation sheet.
 import { assessBanks } from '../site/assessBanks.ts';
 import { bankTotal, type BankChoice } from '../site/bankChoice.ts';
@@ -12,10 +12,7 @@ import { proposeChoices } from '../site/compensation.ts';
 import { buildBusGraph } from '../site/graph.ts';
 import type { Site } from '../site/model.ts';
 import { DEFAULT_STEP_SERIES } from '../site/stepSeries.ts';
-import { priceSchedule } from './cost.ts';
-import type { RateTable } from './rates.ts';
-import { annualSaving, type Tariff } from './saving.ts';
-import { siteSchedule } from './siteSchedule.ts';
+import { annualSaving, priceSchedule, siteSchedule, type RateTable, type Tariff } from '../quote/index.ts';
 
 export type OptionId = 'current' | 'proposal' | 'plain' | 'detuned' | 'central';
 

@@ -1,0 +1,16 @@
+// Design options side by side: the same site compensated in a few ways, each priced, saved and
+// judged by the same rules (compare.ts), and read from a workbook (fromWorkbook.ts).
+export {
+  compareOptions,
+  DETUNED_OPTION_P,
+  standardOptions,
+  type OptionFigures,
+  type OptionId,
+  type OptionSpec,
+} from './compare.ts';
+export {
+  OPTIONS_UNASKED_MAX_ROWS,
+  optionsForExport,
+  optionsOfDoc,
+  type OptionsReport,
+} from './fromWorkbook.ts';
