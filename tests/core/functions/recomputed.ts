@@ -9,6 +9,7 @@ import {
   capacitorStepKvar,
   detunedCapacitorKv,
   lineLossByPhasors,
+  seriesKvarByPhasors,
   lineNetKvarByPhasors,
   parallelResonanceOrder,
   qFromPowerFactor,
@@ -116,6 +117,8 @@ export const RECOMPUTED: ReadonlyMap<string, () => number> = new Map<string, () 
   ['KVAR.LINE(220, 150000, 1.3, 8.8, 60)', () => lineNetKvarByPhasors(220, 150000, 1.3, 8.8, 60)],
   ['KW.LINE.LOSS(20, 8000, 0.12, 5)', () => lineLossByPhasors(20, 8000, 0.12, 5)],
   ['KW.LINE.LOSS(0.4, 250, 0.206, 0.12)', () => lineLossByPhasors(0.4, 250, 0.206, 0.12, 0.9)],
+  ['KVAR.SERIES(0.4, 300, 0.08, 0.15)', () => seriesKvarByPhasors(0.4, 300, 0.08, 0.15, 0.9)],
+  ['KVAR.SERIES(20, 8000, 0.35, 5)', () => seriesKvarByPhasors(20, 8000, 0.35, 5)],
   ['LINE.SIL(400, 1, 10)', () => silByBisection(400, 1, 10)],
   // The L and C are Kundur's x and b at 60 Hz (Table 6.1, 230 kV, from memory) per km.
   ['LINE.SIL(230, 1.29445, 8.9417)', () => silByBisection(230, 1.29445, 8.9417)],

@@ -253,6 +253,14 @@ describe('cables and lines', () => {
       1e-12,
     );
   });
+  it('KVAR.SERIES: 150 m of 400 V cable with 0.08 Ω/km (typical LV cable reactance, common practice) carrying 300 kVA absorbs 3·I²·X·len (hand calculation)', () => {
+    const current = 300 / (Math.sqrt(3) * 0.4); // A: 433
+    expectAbs(current, 433, 0.1);
+    const kvar = (3 * current * current * 0.08 * 0.15) / 1000;
+    expectRel(value(fn('KVAR.SERIES'), 0.4, 300, 0.08, 0.15), kvar, 1e-12);
+    expectAbs(kvar, 6.75, 1e-9);
+    expect(failure(fn('KVAR.SERIES'), 0.4, 300, -0.08, 0.15)).toContain('argument 3 (x_ohm_km) must be ≥ 0');
+  });
   it('1 mH/km, 10 nF/km (common practice): Zc ≈ 316 Ω; a 400 kV line charges ≈ 0.50 Mvar/km; SIL ≈ 506 MW', () => {
     expectAbs(lineSurgeImpedance(1, 10), 316, 0.5);
     expectAbs(value(fn('KVAR.LINE'), 400, 0, 1, 10, 1) / 1000, -0.5, 0.005);
