@@ -125,6 +125,26 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(lines).toBe(5);
   });
 
+  it("counts a feeder cable's I²R and I²X: LibreOffice's losses are 3·I²·R·len and 3·I²·X·len at its own S carried (hand formula, I = S/(√3·U))", () => {
+    const [head, ...rows] = sheetCsv(outDir, 'invented-quarry', 'Feeders');
+    const col = (h: string) => head?.indexOf(h) ?? -1;
+    const feeders = rows.filter((x) => x[col('Tag')]);
+    expect(feeders.length).toBe(1);
+    for (const r of feeders)
+      for (const kase of ['crushing', 'maintenance']) {
+        const v = (h: string) => Number(r[col(h)]);
+        const [u, rKm, xKm, len] = [v('U (kV)'), v('R (Ω/km)'), v('X (Ω/km)'), v('Length (km)')];
+        const [s, after] = [v(`S carried ${kase} (kVA)`), v(`S carried after ${kase} (kVA)`)];
+        const amps = (x: number) => x / (Math.sqrt(3) * u);
+        const hand = (x: number, ohmKm: number) => (3 * amps(x) ** 2 * ohmKm * len) / 1000;
+        expect(hand(s, rKm)).toBeGreaterThan(0);
+        expect(v(`P loss ${kase} (kW)`)).toBeCloseTo(hand(s, rKm), 6);
+        expect(v(`P loss after ${kase} (kW)`)).toBeCloseTo(hand(after, rKm), 6);
+        expect(v(`Q absorbed ${kase} (kvar)`)).toBeCloseTo(hand(s, xKm), 6);
+        expect(v(`Q absorbed after ${kase} (kvar)`)).toBeCloseTo(hand(after, xKm), 6);
+      }
+  });
+
   it('recalculates banks of the 1:2:2 and 1:2:4 series: controller steps and totals by hand', () => {
     // Every formula cell was compared above; this says the books hold both series (the
     // templates' proposals) and LibreOffice's counts follow the ratio notation: 1:2:2 in n

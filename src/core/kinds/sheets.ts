@@ -79,6 +79,23 @@ export const CABLES_SHEET = defineSheet({
   inputs: [...common, ...units, input('u_kv'), input('c_uf_km'), input('len_km')],
 });
 
+export const FEEDERS_SHEET = defineSheet({
+  id: 'feeders',
+  name: 'Feeders',
+  purpose:
+    'Feeder cables: each carries the bus it feeds like a line; series resistance loses kW (KW.LINE.LOSS, when R is given) and series reactance absorbs kvar (KVAR.SERIES, when X is given) with the load, charging delivers kvar (KVAR.CABLE, when C is given). A cable that feeds no bus stays on the Cables sheet.',
+  inputs: [
+    ...common,
+    input('to_bus'),
+    ...units,
+    input('u_kv'),
+    input('r_ohm_km'),
+    input('x_ohm_km'),
+    input('c_uf_km'),
+    input('len_km'),
+  ],
+});
+
 export const BANKS_SHEET = defineSheet({
   id: 'banks',
   name: 'Capacitors and reactors',
