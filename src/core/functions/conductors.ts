@@ -23,10 +23,7 @@ function tableText(metal: ConductorMetal, a: string): string {
   return `${head}NA()${')'.repeat(sizes.length)}`;
 }
 
-function conductorFunction(
-  metal: ConductorMetal,
-  examples: FunctionSpec['examples'],
-): FunctionSpec {
+function conductorFunction(metal: ConductorMetal, examples: FunctionSpec['examples']): FunctionSpec {
   const sizes = standardSections(metal);
   return defineFunction({
     name: `CABLE.R.${metal.toUpperCase()}`,
