@@ -71,6 +71,27 @@ export const COLUMN_SPECS: readonly ColumnSpec[] = [
     'Line or feeder cable conductor resistance per phase (Ω/km); blank: its kW losses are not counted',
   ),
   number(
+    'cu_mm2',
+    'Cu (mm²)',
+    8,
+    '0.#',
+    'Copper conductor cross-section (mm², a standard IEC 60228 size); used for R when R is blank',
+  ),
+  number(
+    'al_mm2',
+    'Al (mm²)',
+    8,
+    '0.#',
+    'Aluminium conductor cross-section (mm², a standard IEC 60228 size); used for R when R is blank',
+  ),
+  number(
+    'theta_c',
+    'θ conductor (°C)',
+    9,
+    '0',
+    'Conductor temperature for R from the cross-section (°C; blank: 20 °C, the table value)',
+  ),
+  number(
     'x_ohm_km',
     'X (Ω/km)',
     9,

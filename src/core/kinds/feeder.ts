@@ -4,6 +4,7 @@
 // loss and validation says so on the row (lineResistance.ts), a blank C counts no charging.
 import { HZ, S_UNIT, call, col, ifPositive, neg, num } from './expr.ts';
 import { defineKind } from './spec.ts';
+import { SERIES_LOSS } from './conductor.ts';
 import { FEEDERS_SHEET } from './sheets.ts';
 
 export const FEEDER = defineKind({
@@ -13,11 +14,7 @@ export const FEEDER = defineKind({
   required: ['u_kv', 'len_km'],
   voltageAt: 'both',
   branch: {
-    pLoss: ifPositive(
-      col('r_ohm_km'),
-      call('KW.LINE.LOSS', col('u_kv'), S_UNIT, col('r_ohm_km'), col('len_km')),
-      num(0),
-    ),
+    pLoss: SERIES_LOSS,
     qAbsorbed: ifPositive(
       col('x_ohm_km'),
       call('KVAR.SERIES', col('u_kv'), S_UNIT, col('x_ohm_km'), col('len_km')),
@@ -31,5 +28,5 @@ export const FEEDER = defineKind({
   },
   traits: { charging: true },
   summary:
-    'series loss 3·I²·R (KW.LINE.LOSS, when R is given) and absorption 3·I²·X (KVAR.SERIES, when X is given) at the loading of the bus it feeds, and charging ω·C·U² (KVAR.CABLE, when C is given)',
+    'series loss 3·I²·R (KW.LINE.LOSS; R as given, or by CABLE.R.CU / CABLE.R.AL from the cross-section) and absorption 3·I²·X (KVAR.SERIES, when X is given) at the loading of the bus it feeds, and charging ω·C·U² (KVAR.CABLE, when C is given)',
 });

@@ -1,8 +1,8 @@
 // The series impedance of a line or feeder cable row: optional, because tender-stage lists
-// often leave it out, but never silently 0. A blank R says that the row's kW losses are not
-// counted, a feeder's blank X that its series kvar is not; negative is refused; a value outside
-// what conductors have says so with the range and, where it fits, the unit it was probably
-// typed in.
+// often leave it out, but never silently 0. A blank R with no cross-section (cu_mm2, al_mm2)
+// says that the row's kW losses are not counted, a feeder's blank X that its series kvar is
+// not; negative is refused; a value outside what conductors have says so with the range and,
+// where it fits, the unit it was probably typed in.
 import type { EquipmentRow } from './model.ts';
 import { error, say, warning, type Problem } from './problems.ts';
 import { formatNumber } from '../registry/messages.ts';
@@ -33,7 +33,7 @@ interface Quantity {
 
 const R: Quantity = {
   column: 'r_ohm_km',
-  what: "enter the conductor's resistance per phase in Ω/km from the maker's data",
+  what: "enter the conductor's resistance per phase in Ω/km from the maker's data, or its cross-section in cu_mm2 or al_mm2",
   range: LINE_R_OHM_KM,
   usual: 'line and cable conductors (IEC 60228 class 2, 1.5 mm² to 2 500 mm² copper, from memory)',
   blankMeans: (name) => `the kW losses of ${name} (3·I²·R) are not counted before or after compensation`,
@@ -58,7 +58,21 @@ export function lineResistanceProblems(row: EquipmentRow, at: At): Problem[] {
   const quantities = BY_KIND[row.kind];
   if (!quantities) return [];
   const name = row.tag ? `${row.kind} ${row.tag}` : `this ${row.kind}`;
-  return quantities.flatMap((q) => quantityProblems(row.values[q.column], q, name, at));
+  const v = row.values;
+  const cu = (v.cu_mm2 ?? 0) > 0;
+  const al = (v.al_mm2 ?? 0) > 0;
+  const fromSection = v.r_ohm_km === undefined && (cu || al);
+  return [
+    ...quantities.flatMap((q) => (q === R && fromSection ? [] : quantityProblems(v[q.column], q, name, at))),
+    ...(cu && al
+      ? [
+          warning(
+            at('al_mm2'),
+            `both cu_mm2 and al_mm2 are given for ${name}; R ${v.r_ohm_km === undefined ? 'comes from the copper section' : 'is the r_ohm_km typed'}, so clear the metal the conductor is not`,
+          ),
+        ]
+      : []),
+  ];
 }
 
 function quantityProblems(v: number | undefined, q: Quantity, name: string, at: At): Problem[] {
