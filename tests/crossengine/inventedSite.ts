@@ -35,7 +35,7 @@ export function inventedQuarry(faulty = false): Site {
         'MV',
         'line',
         // 0.32 Ω/km: 95 mm² aluminium (IEC 60228 class 2 at 20 °C, from memory).
-        { u_kv: 6.6, r_ohm_km: 0.32, l_mh_km: 1.1, c_nf_km: 10.5, len_km: 3.2 },
+        { u_kv: 6.6, r_ohm_km: 0.32, l_mh_km: 1.1, c_nf_km: 10.5, len_km: 3.2, i_rated_a: 200 },
         {},
         { to_bus: 'PIT' },
       ),
@@ -85,7 +85,7 @@ export function inventedQuarry(faulty = false): Site {
         'FDR-WSH',
         'LV1',
         'feeder',
-        { u_kv: 0.69, r_ohm_km: 0.0991, x_ohm_km: 0.08, c_uf_km: 0.6, len_km: 0.25 },
+        { u_kv: 0.69, r_ohm_km: 0.0991, x_ohm_km: 0.08, c_uf_km: 0.6, len_km: 0.25, i_rated_a: 400 },
         {},
         { to_bus: 'WASH' },
       ),

@@ -125,7 +125,7 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(lines).toBe(5);
   });
 
-  it("counts a feeder cable's I²R and I²X: LibreOffice's losses are 3·I²·R·len and 3·I²·X·len at its own S carried (hand formula, I = S/(√3·U))", () => {
+  it("counts a feeder cable's I²R and I²X and its loading: LibreOffice's losses are 3·I²·R·len and 3·I²·X·len at its own S carried (hand formula, I = S/(√3·U))", () => {
     const [head, ...rows] = sheetCsv(outDir, 'invented-quarry', 'Feeders');
     const col = (h: string) => head?.indexOf(h) ?? -1;
     const feeders = rows.filter((x) => x[col('Tag')]);
@@ -142,6 +142,8 @@ describe('LibreOffice Calc recalculating our exports', () => {
         expect(v(`P loss after ${kase} (kW)`)).toBeCloseTo(hand(after, rKm), 6);
         expect(v(`Q absorbed ${kase} (kvar)`)).toBeCloseTo(hand(s, xKm), 6);
         expect(v(`Q absorbed after ${kase} (kvar)`)).toBeCloseTo(hand(after, xKm), 6);
+        // and its loading against the rated current, S/(√3·U·I_rated)
+        expect(v(`Loading after ${kase} (%)`)).toBeCloseTo((100 * amps(after)) / v('Rated current (A)'), 6);
       }
   });
 

@@ -98,6 +98,13 @@ export const COLUMN_SPECS: readonly ColumnSpec[] = [
     '0.0000',
     'Feeder cable series reactance per phase (Ω/km); blank: its series kvar (3·I²·X) is not counted',
   ),
+  number(
+    'i_rated_a',
+    'Rated current (A)',
+    9,
+    '0',
+    "Line or feeder cable current rating per phase as installed (A, maker's or IEC 60287 rating); blank: no loading or overload check",
+  ),
   number('q_kvar', 'Rated output (kvar)', 10, '0.0', 'Capacitor or reactor nameplate (kvar)'),
   number('u_rated_kv', 'Rated voltage (kV)', 9, KV, 'Capacitor or reactor rated voltage (kV)'),
   number('p_pct', 'Detuning p (%)', 9, '0.00', 'Detuning reactor, % of the capacitor reactance'),

@@ -3,6 +3,9 @@
 // temperature; else 0, which validation reports (lineResistance.ts).
 import { S_UNIT, call, col, ifPositive, mul, num, type Expr } from './expr.ts';
 
+/** Rated kVA of one unit from its current rating: √3·U·I (kV × A = kVA); blank I gives 0, no rating. */
+export const RATED_KVA: Expr = mul(num(Math.sqrt(3)), mul(col('u_kv'), col('i_rated_a')));
+
 /** R from the cross-section, Ω/km; 0 when neither section is given. */
 const FROM_SECTION: Expr = ifPositive(
   col('cu_mm2'),

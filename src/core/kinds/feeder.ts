@@ -4,7 +4,7 @@
 // loss and validation says so on the row (lineResistance.ts), a blank C counts no charging.
 import { HZ, S_UNIT, call, col, ifPositive, neg, num } from './expr.ts';
 import { defineKind } from './spec.ts';
-import { SERIES_LOSS } from './conductor.ts';
+import { RATED_KVA, SERIES_LOSS } from './conductor.ts';
 import { FEEDERS_SHEET } from './sheets.ts';
 
 export const FEEDER = defineKind({
@@ -15,6 +15,7 @@ export const FEEDER = defineKind({
   voltageAt: 'both',
   branch: {
     pLoss: SERIES_LOSS,
+    rating: RATED_KVA,
     qAbsorbed: ifPositive(
       col('x_ohm_km'),
       call('KVAR.SERIES', col('u_kv'), S_UNIT, col('x_ohm_km'), col('len_km')),

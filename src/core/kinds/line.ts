@@ -1,6 +1,6 @@
 import { HZ, S_UNIT, call, col, neg, num, sub } from './expr.ts';
 import { defineKind } from './spec.ts';
-import { SERIES_LOSS } from './conductor.ts';
+import { RATED_KVA, SERIES_LOSS } from './conductor.ts';
 import { LINES_SHEET } from './sheets.ts';
 
 const net = (s: typeof S_UNIT) =>
@@ -16,6 +16,7 @@ export const LINE = defineKind({
     // The resistance is optional: blank counts no loss, and validation says so on the row
     // (plausibility.ts), so the gap is never silent.
     pLoss: SERIES_LOSS,
+    rating: RATED_KVA,
     // Series absorption = the net kvar at this loading + the charging it offsets.
     qAbsorbed: sub(net(S_UNIT), net(num(0))),
     qDelivered: neg(net(num(0))),

@@ -71,6 +71,7 @@ export const LINES_SHEET = defineSheet({
     input('l_mh_km'),
     input('c_nf_km'),
     input('len_km'),
+    input('i_rated_a'),
   ],
 });
 
@@ -97,6 +98,7 @@ export const FEEDERS_SHEET = defineSheet({
     input('x_ohm_km'),
     input('c_uf_km'),
     input('len_km'),
+    input('i_rated_a'),
   ],
 });
 
