@@ -63,7 +63,7 @@ function conductorFunction(metal: ConductorMetal, examples: FunctionSpec['exampl
         : undefined,
     compute: ([a, t]) => resistanceAt(metal, resistance20(metal, num(a)) as number, num(t)),
     expand: ([a, t]) => `${tableText(metal, a as string)}*(1+${ALPHA20[metal]}*(${t}-20))`,
-    // No guard for a size off the table: the piecewise formula ends in NA() there already.
+    expandGuards: ([a]) => [`AND(${sizes.map((s) => `${a}<>${s}`).join(',')})`],
   });
 }
 

@@ -1,6 +1,7 @@
 // The series loss of a line or feeder cable row: with R as typed when given; else with R from
 // the copper or aluminium cross-section by IEC 60228 (CABLE.R.CU, CABLE.R.AL) at the conductor
-// temperature; else 0, which validation reports (lineResistance.ts).
+// temperature; else 0, which validation reports (lineResistance.ts). And their rating from
+// the rated current.
 import { S_UNIT, call, col, ifPositive, mul, num, type Expr } from './expr.ts';
 
 /** Rated kVA of one unit from its current rating: √3·U·I (kV × A = kVA); blank I gives 0, no rating. */

@@ -1,7 +1,8 @@
 // A feeder cable: a cable that feeds a bus is a branch like a line, with its series R and X
 // given per km in Ω (the way cable makers state them) and its charging in µF/km like a cable
-// on the Cables sheet. Every value but voltage and length is optional: a blank R or X counts no
-// loss and validation says so on the row (lineResistance.ts), a blank C counts no charging.
+// on the Cables sheet. Every value but voltage and length is optional: a blank R (with no
+// cross-section) or X counts no loss and validation says so on the row (lineResistance.ts), a
+// blank C counts no charging, a blank rated current gives no loading.
 import { HZ, S_UNIT, call, col, ifPositive, neg, num } from './expr.ts';
 import { defineKind } from './spec.ts';
 import { RATED_KVA, SERIES_LOSS } from './conductor.ts';

@@ -13,8 +13,8 @@ export const LINE = defineKind({
   required: ['u_kv', 'l_mh_km', 'c_nf_km', 'len_km'],
   voltageAt: 'both',
   branch: {
-    // The resistance is optional: blank counts no loss, and validation says so on the row
-    // (plausibility.ts), so the gap is never silent.
+    // The resistance is optional (typed, or from the cross-section): with neither, no loss is
+    // counted and validation says so on the row (lineResistance.ts), so the gap is never silent.
     pLoss: SERIES_LOSS,
     rating: RATED_KVA,
     // Series absorption = the net kvar at this loading + the charging it offsets.
