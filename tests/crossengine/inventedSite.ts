@@ -79,13 +79,13 @@ export function inventedQuarry(faulty = false): Site {
         { crushing: 1, maintenance: 0.6 },
         { supply: 'electronic lighting' },
       ),
-      // A 690 V feeder cable to the washing plant: 250 m of 185 mm² copper (R 0.0991 Ω/km,
-      // IEC 60228 class 2 at 20 °C, from memory; X 0.08 Ω/km typical of LV cables, common practice).
+      // A 690 V feeder cable to the washing plant: 250 m of 185 mm² copper at 90 °C, R from the
+      // section (IEC 60228 class 2); X 0.08 Ω/km typical of LV cables (common practice).
       item(
         'FDR-WSH',
         'LV1',
         'feeder',
-        { u_kv: 0.69, r_ohm_km: 0.0991, x_ohm_km: 0.08, c_uf_km: 0.6, len_km: 0.25, i_rated_a: 400 },
+        { u_kv: 0.69, cu_mm2: 185, theta_c: 90, x_ohm_km: 0.08, c_uf_km: 0.6, len_km: 0.25, i_rated_a: 400 },
         {},
         { to_bus: 'WASH' },
       ),

@@ -133,7 +133,11 @@ describe('LibreOffice Calc recalculating our exports', () => {
     for (const r of feeders)
       for (const kase of ['crushing', 'maintenance']) {
         const v = (h: string) => Number(r[col(h)]);
-        const [u, rKm, xKm, len] = [v('U (kV)'), v('R (Ω/km)'), v('X (Ω/km)'), v('Length (km)')];
+        // R from the section: 185 mm² copper 0.0991 Ω/km at 20 °C (IEC 60228 Table 2, from memory)
+        // at 90 °C by 1 + 3.93e-3·70 (IEC 60287-1-1, from memory).
+        expect([v('Cu (mm²)'), v('θ conductor (°C)')]).toEqual([185, 90]);
+        const rKm = 0.0991 * (1 + 3.93e-3 * 70);
+        const [u, xKm, len] = [v('U (kV)'), v('X (Ω/km)'), v('Length (km)')];
         const [s, after] = [v(`S carried ${kase} (kVA)`), v(`S carried after ${kase} (kVA)`)];
         const amps = (x: number) => x / (Math.sqrt(3) * u);
         const hand = (x: number, ohmKm: number) => (3 * amps(x) ** 2 * ohmKm * len) / 1000;
