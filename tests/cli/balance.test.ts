@@ -271,7 +271,7 @@ describe('kvar-ledger balance: bad input exits 1 saying what and where', () => {
     // page's import names them (letter and header).
     expect(lines.slice(1)).toEqual([
       `${csv}: row 2, column F (cos_phi): KVAR.MOTOR: argument 3 (cos_phi) must be in (0, 1]; got 1.3`,
-      `${csv}: row 3, column C (kind): kind must be one of motor, load, generator, transformer, line, cable, capacitor, reactor; got "heater"`,
+      `${csv}: row 3, column C (kind): kind must be one of motor, load, generator, transformer, line, cable, feeder, capacitor, reactor; got "heater"`,
       `${csv}: row 4, column A (tag): tag is blank; every item needs a unique tag`,
     ]);
   });

@@ -1,5 +1,5 @@
 // An invented site for the cross-engine check (not a real plant): a quarry's crushing plant on a
-// 6.6 kV supply with every kind of equipment, drive-fed motors among them, and two operating cases. The faulty variant gives one
+// 6.6 kV supply with every kind of equipment (a feeder cable among them), drive-fed motors among them, and two operating cases. The faulty variant gives one
 // motor a no-load current inconsistent with its power factor, so error cells (and their spread
 // into the bus totals) are compared as well.
 import type { EquipmentRow, Site } from '../../src/core/site/model.ts';
@@ -35,7 +35,7 @@ export function inventedQuarry(faulty = false): Site {
         'MV',
         'line',
         // 0.32 Ω/km: 95 mm² aluminium (IEC 60228 class 2 at 20 °C, from memory).
-        { u_kv: 6.6, r_ohm_km: 0.32, l_mh_km: 1.1, c_nf_km: 10.5, len_km: 3.2 },
+        { u_kv: 6.6, r_ohm_km: 0.32, l_mh_km: 1.1, c_nf_km: 10.5, len_km: 3.2, i_rated_a: 200 },
         {},
         { to_bus: 'PIT' },
       ),
@@ -79,6 +79,24 @@ export function inventedQuarry(faulty = false): Site {
         { crushing: 1, maintenance: 0.6 },
         { supply: 'electronic lighting' },
       ),
+      // A 690 V feeder cable to the washing plant: 250 m of 185 mm² copper at 90 °C, R from the
+      // section (IEC 60228 class 2); X 0.08 Ω/km typical of LV cables (common practice).
+      item(
+        'FDR-WSH',
+        'LV1',
+        'feeder',
+        { u_kv: 0.69, cu_mm2: 185, theta_c: 90, x_ohm_km: 0.08, c_uf_km: 0.6, len_km: 0.25, i_rated_a: 400 },
+        {},
+        { to_bus: 'WASH' },
+      ),
+      item(
+        'WSH-P',
+        'WASH',
+        'motor',
+        { qty: 2, running: 2, p_kw: 75, eff: 0.94, cos_phi: 0.85, i0_pct: 32, u_kv: 0.69 },
+        { crushing: 0.9, maintenance: 0.3 },
+      ),
+      item('WSH-L', 'WASH', 'load', { p_kw: 30, cos_phi: 0.9 }, { crushing: 1, maintenance: 0.5 }),
       item('DG', 'LV1', 'generator', { p_kw: 400, cos_phi: 0.8 }, { crushing: 0, maintenance: 0.5 }),
       item(
         'CB1',

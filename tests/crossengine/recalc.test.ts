@@ -142,6 +142,32 @@ describe('LibreOffice Calc recalculating our exports', () => {
     expect(lines).toBe(5);
   });
 
+  it("counts a feeder cable's I²R and I²X and its loading: LibreOffice's losses are 3·I²·R·len and 3·I²·X·len at its own S carried (hand formula, I = S/(√3·U))", () => {
+    const [head, ...rows] = sheetCsv(outDir, 'invented-quarry', 'Feeders');
+    const col = (h: string) => head?.indexOf(h) ?? -1;
+    const feeders = rows.filter((x) => x[col('Tag')]);
+    expect(feeders.length).toBe(1);
+    for (const r of feeders)
+      for (const kase of ['crushing', 'maintenance']) {
+        const v = (h: string) => Number(r[col(h)]);
+        // R from the section: 185 mm² copper 0.0991 Ω/km at 20 °C (IEC 60228 Table 2, from memory)
+        // at 90 °C by 1 + 3.93e-3·70 (IEC 60287-1-1, from memory).
+        expect([v('Cu (mm²)'), v('θ conductor (°C)')]).toEqual([185, 90]);
+        const rKm = 0.0991 * (1 + 3.93e-3 * 70);
+        const [u, xKm, len] = [v('U (kV)'), v('X (Ω/km)'), v('Length (km)')];
+        const [s, after] = [v(`S carried ${kase} (kVA)`), v(`S carried after ${kase} (kVA)`)];
+        const amps = (x: number) => x / (Math.sqrt(3) * u);
+        const hand = (x: number, ohmKm: number) => (3 * amps(x) ** 2 * ohmKm * len) / 1000;
+        expect(hand(s, rKm)).toBeGreaterThan(0);
+        expect(v(`P loss ${kase} (kW)`)).toBeCloseTo(hand(s, rKm), 6);
+        expect(v(`P loss after ${kase} (kW)`)).toBeCloseTo(hand(after, rKm), 6);
+        expect(v(`Q absorbed ${kase} (kvar)`)).toBeCloseTo(hand(s, xKm), 6);
+        expect(v(`Q absorbed after ${kase} (kvar)`)).toBeCloseTo(hand(after, xKm), 6);
+        // and its loading against the rated current, S/(√3·U·I_rated)
+        expect(v(`Loading after ${kase} (%)`)).toBeCloseTo((100 * amps(after)) / v('Rated current (A)'), 6);
+      }
+  });
+
   it('recalculates banks of the 1:2:2 and 1:2:4 series: controller steps and totals by hand', () => {
     // Every formula cell was compared above; this says the books hold both series (the
     // templates' proposals) and LibreOffice's counts follow the ratio notation: 1:2:2 in n

@@ -38,3 +38,12 @@ export function lineSeriesLossKw(uKv: number, sLoadKva: number, rOhmKm: number, 
   const ratio = sLoadKva / uKv;
   return (ratio * ratio * rOhmKm * lenKm) / 1000;
 }
+
+/**
+ * Three-phase series absorption of a line or cable carrying sLoadKva, kvar: 3·I²·X·len with
+ * I = S/(√3·U) and X the series reactance per phase in Ω/km; the same units as the loss above.
+ */
+export function lineSeriesKvar(uKv: number, sLoadKva: number, xOhmKm: number, lenKm: number): number {
+  const ratio = sLoadKva / uKv;
+  return (ratio * ratio * xOhmKm * lenKm) / 1000;
+}

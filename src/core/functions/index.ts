@@ -5,7 +5,8 @@ import { COSPHI, KVA_TOTAL, TANPHI } from './powerTriangle.ts';
 import { KVAR_GEN, KVAR_GEN_MAX, KVAR_LOAD, KVAR_MOTOR, KVAR_MOTORCAP_MAX, KW_MOTOR } from './loads.ts';
 import { KVAR_XFMR_LEAK, KVAR_XFMR_MAG, KW_XFMR_LOSS, XFMR_UKMIN } from './transformers.ts';
 import { CABLE_CAP, KVAR_CABLE, KVAR_LINE, LINE_SIL } from './cables.ts';
-import { KW_LINE_LOSS } from './lineLoss.ts';
+import { KVAR_SERIES, KW_LINE_LOSS } from './lineLoss.ts';
+import { CABLE_R_AL, CABLE_R_CU } from './conductors.ts';
 import { CAPBANK_TUNE, CAPBANK_UCAP, KVAR_CAPBANK, KVAR_REACTOR } from './compensation.ts';
 import { BANK_ROUNDUP, KVAR_PERKW, KVAR_TOPF, KVAR_TOTAN } from './sizing.ts';
 import { RESONANCE_ORDER, SC_MVA_XFMR, VRISE_PCT } from './network.ts';
@@ -29,6 +30,9 @@ export const CATALOGUE: readonly FunctionSpec[] = [
   KVAR_LINE,
   LINE_SIL,
   KW_LINE_LOSS,
+  KVAR_SERIES,
+  CABLE_R_CU,
+  CABLE_R_AL,
   KVAR_CAPBANK,
   CAPBANK_UCAP,
   CAPBANK_TUNE,

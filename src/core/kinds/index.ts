@@ -6,10 +6,12 @@ import { GENERATOR } from './generator.ts';
 import { TRANSFORMER } from './transformer.ts';
 import { LINE } from './line.ts';
 import { CABLE } from './cable.ts';
+import { FEEDER } from './feeder.ts';
 import { CAPACITOR } from './capacitor.ts';
 import { REACTOR } from './reactor.ts';
 
-for (const k of [MOTOR, LOAD, GENERATOR, TRANSFORMER, LINE, CABLE, CAPACITOR, REACTOR]) registerKind(k);
+for (const k of [MOTOR, LOAD, GENERATOR, TRANSFORMER, LINE, CABLE, FEEDER, CAPACITOR, REACTOR])
+  registerKind(k);
 
 export {
   allKinds,

@@ -1,5 +1,6 @@
-import { HZ, S_UNIT, call, col, ifPositive, neg, num, sub } from './expr.ts';
+import { HZ, S_UNIT, call, col, neg, num, sub } from './expr.ts';
 import { defineKind } from './spec.ts';
+import { RATED_KVA, SERIES_LOSS } from './conductor.ts';
 import { LINES_SHEET } from './sheets.ts';
 
 const net = (s: typeof S_UNIT) =>
@@ -12,18 +13,15 @@ export const LINE = defineKind({
   required: ['u_kv', 'l_mh_km', 'c_nf_km', 'len_km'],
   voltageAt: 'both',
   branch: {
-    // The resistance is optional: blank counts no loss, and validation says so on the row
-    // (plausibility.ts), so the gap is never silent.
-    pLoss: ifPositive(
-      col('r_ohm_km'),
-      call('KW.LINE.LOSS', col('u_kv'), S_UNIT, col('r_ohm_km'), col('len_km')),
-      num(0),
-    ),
+    // The resistance is optional (typed, or from the cross-section): with neither, no loss is
+    // counted and validation says so on the row (lineResistance.ts), so the gap is never silent.
+    pLoss: SERIES_LOSS,
+    rating: RATED_KVA,
     // Series absorption = the net kvar at this loading + the charging it offsets.
     qAbsorbed: sub(net(S_UNIT), net(num(0))),
     qDelivered: neg(net(num(0))),
   },
   traits: { charging: true },
   summary:
-    'series loss 3·I²·R (KW.LINE.LOSS, when R is given) and absorption 3·I²·X at the loading of the bus it feeds, and charging ω·C·U² (KVAR.LINE)',
+    'series loss 3·I²·R (KW.LINE.LOSS; R as given, or by CABLE.R.CU / CABLE.R.AL from the cross-section) and absorption 3·I²·X at the loading of the bus it feeds, and charging ω·C·U² (KVAR.LINE)',
 });

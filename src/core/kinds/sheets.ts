@@ -4,6 +4,8 @@ import { defineSheet, input } from './spec.ts';
 
 const common = [input('tag'), input('description'), input('bus')];
 const units = [input('qty'), input('running')];
+// The cross-section and temperature that give R when it is blank (lines and feeder cables).
+const conductor = [input('cu_mm2'), input('al_mm2'), input('theta_c')];
 
 export const MOTORS_SHEET = defineSheet({
   id: 'motors',
@@ -58,16 +60,18 @@ export const LINES_SHEET = defineSheet({
   id: 'lines',
   name: 'Lines',
   purpose:
-    'Overhead lines: each carries the bus it feeds; series resistance loses kW with the load (KW.LINE.LOSS, when R is given), series reactance absorbs kvar with the load, charging delivers kvar (KVAR.LINE).',
+    'Overhead lines: each carries the bus it feeds; series resistance loses kW with the load (KW.LINE.LOSS, R as given or from the cross-section by CABLE.R.CU / CABLE.R.AL), series reactance absorbs kvar with the load, charging delivers kvar (KVAR.LINE).',
   inputs: [
     ...common,
     input('to_bus'),
     ...units,
     input('u_kv'),
     input('r_ohm_km'),
+    ...conductor,
     input('l_mh_km'),
     input('c_nf_km'),
     input('len_km'),
+    input('i_rated_a'),
   ],
 });
 
@@ -77,6 +81,25 @@ export const CABLES_SHEET = defineSheet({
   purpose:
     'Cables: charging kvar delivered while energised (KVAR.CABLE); load factor 0 = de-energised in that case.',
   inputs: [...common, ...units, input('u_kv'), input('c_uf_km'), input('len_km')],
+});
+
+export const FEEDERS_SHEET = defineSheet({
+  id: 'feeders',
+  name: 'Feeders',
+  purpose:
+    'Feeder cables: each carries the bus it feeds like a line; series resistance loses kW (KW.LINE.LOSS, R as given or from the cross-section by CABLE.R.CU / CABLE.R.AL) and series reactance absorbs kvar (KVAR.SERIES, when X is given) with the load, charging delivers kvar (KVAR.CABLE, when C is given). A cable that feeds no bus stays on the Cables sheet.',
+  inputs: [
+    ...common,
+    input('to_bus'),
+    ...units,
+    input('u_kv'),
+    input('r_ohm_km'),
+    ...conductor,
+    input('x_ohm_km'),
+    input('c_uf_km'),
+    input('len_km'),
+    input('i_rated_a'),
+  ],
 });
 
 export const BANKS_SHEET = defineSheet({

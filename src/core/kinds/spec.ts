@@ -60,8 +60,11 @@ export interface BranchPhysics {
   readonly qAbsorbed: Expr;
   /** kvar delivered (charging) whatever the loading, as a positive amount. */
   readonly qDelivered?: Expr;
-  /** Rated power column, for the loading in %. */
-  readonly rating?: string;
+  /**
+   * Rated power of one unit in kVA, for the loading in %: a required column (a transformer's
+   * s_kva), or an expression of optional columns (blank or 0: no rating, no loading).
+   */
+  readonly rating?: string | Expr;
 }
 
 /** What the design and checks need to know about a kind beyond its physics. */

@@ -48,6 +48,7 @@ export const COLUMN_BOUNDS: Readonly<Partial<Record<NumericColumn, ColumnBound>>
   c_uf_km: { max: 100, unit: 'µF/km' },
   l_mh_km: { max: 100, unit: 'mH/km' },
   r_ohm_km: { max: 1_000, unit: 'Ω/km' },
+  x_ohm_km: { max: 1_000, unit: 'Ω/km' },
   c_nf_km: { max: 100_000, unit: 'nF/km' },
   len_km: { max: 5_000, unit: 'km' },
   q_kvar: { max: 1_000_000, unit: 'kvar' },

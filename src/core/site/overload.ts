@@ -3,6 +3,9 @@
 // what the plant carries; the loading before compensation is quoted beside it. A transformer
 // above 100 % of its rated power exceeds its nameplate continuous rating (IEC 60076-1 defines
 // rated power as the continuous loading; short overloads follow the loading guide IEC 60076-7).
+// A line or feeder cable with a rated current is loaded at S/(√3·U·I_rated): above 100 % its
+// conductor runs hotter than its rating allows (the rating as installed, from the maker or the
+// IEC 60287 calculation, with its grouping and ambient).
 import type { CaseCompensation } from './compensate.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
 

@@ -53,7 +53,7 @@ function outside(
 /** Plausibility warnings for one row whose required values are present. */
 export function plausibilityProblems(row: EquipmentRow, at: At): Problem[] {
   const v = row.values;
-  if (row.kind === 'cable' && v.c_uf_km !== undefined && v.c_uf_km > 0)
+  if ((row.kind === 'cable' || row.kind === 'feeder') && v.c_uf_km !== undefined && v.c_uf_km > 0)
     return outside(at, 'c_uf_km', v.c_uf_km, 'µF/km', CABLE_C_UF_KM, 'power cables', {
       factor: 1e-3,
       unit: 'nF/km',

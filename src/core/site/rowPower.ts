@@ -80,7 +80,7 @@ export function branchPower(
   if (!abs.ok) return abs;
   const del = run(b.qDelivered, ctx);
   if (!del.ok) return del;
-  const rated = b.rating ? row.values[b.rating] : undefined;
+  const rated = unitRatingKva(row, kind, hz);
   return {
     ok: true,
     p: n * p.value,
@@ -97,4 +97,13 @@ export function resonanceKvar(row: EquipmentRow, hz: number): number {
   if (!e) return 0;
   const r = evalExpr(e, context(row, { hz, x: 1, n: unitsRunning(row) }, {}));
   return r.ok ? r.value * unitsRunning(row) : 0;
+}
+
+/** A branch unit's rated kVA: its column, or its expression (blank, 0 or an error: no rating). */
+export function unitRatingKva(row: EquipmentRow, kind: KindSpec, hz: number): number | undefined {
+  const rating = kind.branch?.rating;
+  if (rating === undefined) return undefined;
+  if (typeof rating === 'string') return row.values[rating];
+  const r = evalExpr(rating, context(row, { hz, n: branchUnits(row) }, {}));
+  return r.ok && r.value > 0 ? r.value : undefined;
 }

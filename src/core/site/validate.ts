@@ -4,7 +4,7 @@
 import { findKind, kindNames, type KindSpec } from '../kinds/index.ts';
 import type { EquipmentRow, Site } from './model.ts';
 import { loadFactor } from './cases.ts';
-import { branchPower, shuntPower } from './rowPower.ts';
+import { branchPower, shuntPower, unitRatingKva } from './rowPower.ts';
 import { buildBusGraph } from './graph.ts';
 import { error, info, say, warning, type Problem } from './problems.ts';
 import { busVoltages } from './voltages.ts';
@@ -184,7 +184,7 @@ function physicsProblems(
   const report = (r: { message: string; column: string | undefined }) =>
     out.push(error(at(r.column ?? kind.required[0] ?? 'kind'), r.message));
   if (kind.role === 'branch') {
-    const rating = kind.branch?.rating ? (row.values[kind.branch.rating] ?? 0) : 0;
+    const rating = unitRatingKva(row, kind, hz) ?? 0;
     for (const s of new Set([0, rating])) {
       const r = branchPower(row, kind, s, hz);
       if (!r.ok) return (report(r), out);

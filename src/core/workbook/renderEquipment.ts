@@ -97,7 +97,7 @@ export function computedCells(
       const sUnit = `${cell(r, sc)}/${n}`;
       const print = printer(cols, r, { n, hz, sUnit });
       const lc = loading?.[k];
-      if (lc !== undefined) out.push([lc, b.rating ? `=100*${sUnit}/${at(b.rating)}` : '=0']);
+      if (lc !== undefined) out.push([lc, loadingFormula(b.rating, sUnit, at, print)]);
       const pc = pLoss?.[k];
       if (pc !== undefined) out.push([pc, b.pLoss ? `=${n}*${wrapProduct(print(b.pLoss), b.pLoss)}` : '=0']);
       out.push([qLoss?.[k] as number, `=${n}*${wrapProduct(print(b.qAbsorbed), b.qAbsorbed)}`]);
@@ -105,6 +105,19 @@ export function computedCells(
   phase(buses.sCol, cols.sCarried, cols.loading, cols.pLoss, cols.qLoss);
   phase(buses.sAfterCol, cols.sCarriedAfter, cols.loadingAfter, cols.pLossAfter, cols.qLossAfter);
   return out;
+}
+
+/** Loading in % of one unit's rating: by its column, or blank where an optional rating is not given. */
+function loadingFormula(
+  rating: string | Expr | undefined,
+  sUnit: string,
+  at: (key: string) => string,
+  print: (e: Expr) => string,
+): string {
+  if (rating === undefined) return '=0';
+  if (typeof rating === 'string') return `=100*${sUnit}/${at(rating)}`;
+  const kva = print(rating);
+  return `=IF(${kva}>0,100*${sUnit}/(${kva}),"")`;
 }
 
 /** A printed expression as the right operand of a product: sums and negations in brackets. */

@@ -280,6 +280,7 @@ export const HEADER_SYNONYMS: Readonly<Record<string, readonly string[]>> = {
     'r per km',
     'resistance per km',
   ],
+  x_ohm_km: ['x', 'reactance', 'series reactance', 'cable reactance', 'x per km', 'reactance per km'],
   q_kvar: [
     'q',
     'reactive power',

@@ -162,6 +162,7 @@ const TARGET_UNIT: Readonly<Record<string, readonly [Dimension, string]>> = {
   c_nf_km: ['capacitance', 'nF/km'],
   l_mh_km: ['inductance', 'mH/km'],
   r_ohm_km: ['resistance', 'Ω/km'],
+  x_ohm_km: ['resistance', 'Ω/km'],
 };
 
 export function dimensionOf(target: string): Dimension {

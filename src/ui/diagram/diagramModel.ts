@@ -9,7 +9,7 @@ import { busVoltages } from '../../core/site/voltages.ts';
 import { cellError, type Grid } from '../charts/chartData.ts';
 
 export interface Feeder {
-  readonly kind: 'transformer' | 'line';
+  readonly kind: 'transformer' | 'line' | 'feeder';
   readonly tag: string;
   /** Rating of a transformer, kVA (times units in parallel). */
   readonly sKva?: number;
@@ -190,7 +190,7 @@ export function buildDiagramModel(input: {
       ...(feederRow && parent !== undefined
         ? {
             feeder: {
-              kind: feederRow.kind as 'transformer' | 'line',
+              kind: feederRow.kind as 'transformer' | 'line' | 'feeder',
               tag: feederRow.tag,
               units: units(feederRow),
               ...(feederRow.values.s_kva !== undefined ? { sKva: feederRow.values.s_kva } : {}),

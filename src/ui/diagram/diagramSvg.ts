@@ -37,6 +37,7 @@ function feederLabel(b: DiagramBus): string[] {
   const f = b.feeder;
   if (!f) return [];
   if (f.kind === 'line') return [clip(f.tag, 22), 'line'];
+  if (f.kind === 'feeder') return [clip(f.tag, 22), 'feeder cable'];
   const rating = f.sKva === undefined ? '' : `${formatNumber(f.sKva, '#,##0')} kVA`;
   return [clip(f.tag, 22), [f.units > 1 ? `${f.units} ×` : '', rating].filter(Boolean).join(' ')];
 }

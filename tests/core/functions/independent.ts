@@ -141,6 +141,25 @@ export function lineLossByPhasors(
   return drop.mul(current.conjugate()).mul(3).re / 1000;
 }
 
+/**
+ * Series absorption of a line or cable (kvar) from the phase current as a phasor at power factor
+ * `cosPhi`: the voltage across the series reactance times the conjugate current, three phases,
+ * imaginary part. Like the loss, it must depend on the apparent power alone.
+ */
+export function seriesKvarByPhasors(
+  uKv: number,
+  sKva: number,
+  xOhmKm: number,
+  lenKm: number,
+  cosPhi = 0.85,
+): number {
+  const uPhase = (uKv * 1000) / Math.sqrt(3);
+  const sPhase = new Complex(cosPhi, Math.sqrt(1 - cosPhi * cosPhi)).mul((sKva * 1000) / 3); // VA
+  const current = sPhase.div(uPhase).conjugate(); // A
+  const drop = current.mul(new Complex(0, xOhmKm * lenKm)); // V across the reactance
+  return drop.mul(current.conjugate()).mul(3).im / 1000;
+}
+
 /** Surge impedance loading (MW): the through power at which the line's net Q is zero, by bisection. */
 export function silByBisection(uKv: number, lMhKm: number, cNfKm: number): number {
   return bisect((mw) => lineNetKvarByPhasors(uKv, mw * 1000, lMhKm, cNfKm, 1), 1e-3, 1e5);

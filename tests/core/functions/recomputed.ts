@@ -9,6 +9,7 @@ import {
   capacitorStepKvar,
   detunedCapacitorKv,
   lineLossByPhasors,
+  seriesKvarByPhasors,
   lineNetKvarByPhasors,
   parallelResonanceOrder,
   qFromPowerFactor,
@@ -116,6 +117,14 @@ export const RECOMPUTED: ReadonlyMap<string, () => number> = new Map<string, () 
   ['KVAR.LINE(220, 150000, 1.3, 8.8, 60)', () => lineNetKvarByPhasors(220, 150000, 1.3, 8.8, 60)],
   ['KW.LINE.LOSS(20, 8000, 0.12, 5)', () => lineLossByPhasors(20, 8000, 0.12, 5)],
   ['KW.LINE.LOSS(0.4, 250, 0.206, 0.12)', () => lineLossByPhasors(0.4, 250, 0.206, 0.12, 0.9)],
+  ['KVAR.SERIES(0.4, 300, 0.08, 0.15)', () => seriesKvarByPhasors(0.4, 300, 0.08, 0.15, 0.9)],
+  ['KVAR.SERIES(20, 8000, 0.35, 5)', () => seriesKvarByPhasors(20, 8000, 0.35, 5)],
+  // Table values as typed from IEC 60228 Table 2 (from memory); temperature by the "inferred zero
+  // resistance" form R20·(T0 + θ)/(T0 + 20) with T0 = 1/α20 − 20 (234.5 °C for copper).
+  ['CABLE.R.CU(185)', () => 0.0991],
+  ['CABLE.R.CU(240, 90)', () => (0.0754 * (1 / 3.93e-3 - 20 + 90)) / (1 / 3.93e-3)],
+  ['CABLE.R.AL(240)', () => 0.125],
+  ['CABLE.R.AL(95, 70)', () => (0.32 * (1 / 4.03e-3 - 20 + 70)) / (1 / 4.03e-3)],
   ['LINE.SIL(400, 1, 10)', () => silByBisection(400, 1, 10)],
   // The L and C are Kundur's x and b at 60 Hz (Table 6.1, 230 kV, from memory) per km.
   ['LINE.SIL(230, 1.29445, 8.9417)', () => silByBisection(230, 1.29445, 8.9417)],

@@ -253,6 +253,25 @@ describe('cables and lines', () => {
       1e-12,
     );
   });
+  it('KVAR.SERIES: 150 m of 400 V cable with 0.08 Ω/km (typical LV cable reactance, common practice) carrying 300 kVA absorbs 3·I²·X·len (hand calculation)', () => {
+    const current = 300 / (Math.sqrt(3) * 0.4); // A: 433
+    expectAbs(current, 433, 0.1);
+    const kvar = (3 * current * current * 0.08 * 0.15) / 1000;
+    expectRel(value(fn('KVAR.SERIES'), 0.4, 300, 0.08, 0.15), kvar, 1e-12);
+    expectAbs(kvar, 6.75, 1e-9);
+    expect(failure(fn('KVAR.SERIES'), 0.4, 300, -0.08, 0.15)).toContain('argument 3 (x_ohm_km) must be ≥ 0');
+  });
+  it('CABLE.R.CU / CABLE.R.AL: IEC 60228 Table 2 class 2 at 20 °C (from memory), 1.5 mm² copper 12.1 Ω/km to 2 500 mm² 0.0072; copper at 90 °C is 27.5 % higher (α20 = 3.93e-3 /K, IEC 60287-1-1, from memory)', () => {
+    expect(value(fn('CABLE.R.CU'), 1.5)).toBe(12.1);
+    expect(value(fn('CABLE.R.CU'), 2500)).toBe(0.0072);
+    expect(value(fn('CABLE.R.AL'), 150)).toBe(0.206);
+    // aluminium has about 1.6 times copper's resistivity (0.028264 against 0.017241 Ω·mm²/m, IEC 60028 and 60889, from memory)
+    expectRel(value(fn('CABLE.R.AL'), 240) / value(fn('CABLE.R.CU'), 240), 0.028264 / 0.017241, 0.03);
+    expectRel(value(fn('CABLE.R.CU'), 120, 90), 0.153 * 1.2751, 1e-12);
+    expect(failure(fn('CABLE.R.CU'), 180)).toContain(
+      'must be a standard copper cross-section of IEC 60228 class 2',
+    );
+  });
   it('1 mH/km, 10 nF/km (common practice): Zc ≈ 316 Ω; a 400 kV line charges ≈ 0.50 Mvar/km; SIL ≈ 506 MW', () => {
     expectAbs(lineSurgeImpedance(1, 10), 316, 0.5);
     expectAbs(value(fn('KVAR.LINE'), 400, 0, 1, 10, 1) / 1000, -0.5, 0.005);

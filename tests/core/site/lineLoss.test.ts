@@ -93,7 +93,7 @@ describe('line resistance: blank, negative, implausible', () => {
     const found = validateSite(site);
     expect(found.map((p) => [p.severity, p.row, p.column])).toEqual([['warning', 2, 'r_ohm_km']]);
     expect(found[0]?.message).toBe(
-      "row 2, column r_ohm_km: r_ohm_km is blank, so the kW losses of line L1 (3·I²·R) are not counted before or after compensation; enter the conductor's resistance per phase in Ω/km from the maker's data",
+      "row 2, column r_ohm_km: r_ohm_km is blank, so the kW losses of line L1 (3·I²·R) are not counted before or after compensation; enter the conductor's resistance per phase in Ω/km from the maker's data, or its cross-section in cu_mm2 or al_mm2",
     );
   });
 

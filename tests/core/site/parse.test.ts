@@ -72,7 +72,7 @@ M1,LV,Motor,75,0.95,0.86,0.8,0.2,0`),
         column: 'kind',
         tag: 'X1',
         message:
-          'row 2, column kind: kind must be one of motor, load, generator, transformer, line, cable, capacitor, reactor; got "transformr"',
+          'row 2, column kind: kind must be one of motor, load, generator, transformer, line, cable, feeder, capacitor, reactor; got "transformr"',
       },
     ]);
     expect(r.equipment.map((e) => e.tag)).toEqual(['L1']);
@@ -82,7 +82,7 @@ M1,LV,Motor,75,0.95,0.86,0.8,0.2,0`),
     expect(r.problems.map((p) => p.message)).toEqual([
       'row 1, column bus: the header row has no bus column; it is required',
       'row 1, column kind: the header row has no kind column; it is required',
-      'row 2, column kind: kind is blank; it must be one of motor, load, generator, transformer, line, cable, capacitor, reactor',
+      'row 2, column kind: kind is blank; it must be one of motor, load, generator, transformer, line, cable, feeder, capacitor, reactor',
     ]);
   });
   it('reports an empty table and a duplicated header', () => {

@@ -69,7 +69,7 @@ describe('validateSite', () => {
   });
   it('unknown kind (reported by the table reader)', () => {
     expect(errorsOf([XFMR, MOTOR.replace('motor', 'pump')]).map((p) => p.message)).toEqual([
-      'row 3, column kind: kind must be one of motor, load, generator, transformer, line, cable, capacitor, reactor; got "pump"',
+      'row 3, column kind: kind must be one of motor, load, generator, transformer, line, cable, feeder, capacitor, reactor; got "pump"',
     ]);
   });
   it('unknown kind in a site built by a program', () => {
@@ -87,7 +87,7 @@ describe('validateSite', () => {
       ],
     };
     expect(validateSite(bad).map((p) => p.message)).toContain(
-      'row 9, column kind: kind must be one of motor, load, generator, transformer, line, cable, capacitor, reactor; got "heater"',
+      'row 9, column kind: kind must be one of motor, load, generator, transformer, line, cable, feeder, capacitor, reactor; got "heater"',
     );
   });
   it("a value outside the catalogue function domain, in the catalogue's words", () => {

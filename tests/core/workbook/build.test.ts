@@ -190,6 +190,7 @@ describe('workbook shape', () => {
       'Transformers',
       'Lines',
       'Cables',
+      'Feeders',
       'Capacitors and reactors',
       'Buses',
       'Compensation',

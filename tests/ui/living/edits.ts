@@ -1,7 +1,7 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
 // grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
-// typed on the Compensation sheet (steps, step series, detuning, capacitor rating), a line's resistance typed
-// or cleared, a motor's or load's supply typed or cleared, rates and tariff values
+// typed on the Compensation sheet (steps, step series, detuning, capacitor rating), a line's resistance or a feeder
+// cable's resistance or reactance typed or cleared, a motor's or load's supply typed or cleared, rates and tariff values
 // typed or cleared on the Rates and Tariff sheets, the rated power the requirement refers to, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
 // Each edit picks its target from the workbook as it is when it runs.
 import fc from 'fast-check';
@@ -24,7 +24,13 @@ export type Edit =
   | { op: 'clear'; sheet: number; row: number }
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number; series: string | null }
   | { op: 'design'; bus: number; p: number; urFactor: number | null }
-  | { op: 'resistance'; row: number; value: number | null }
+  | {
+      op: 'resistance';
+      on: 'lines' | 'feeders';
+      column: 'r_ohm_km' | 'x_ohm_km';
+      row: number;
+      value: number | null;
+    }
   | { op: 'supply'; sheet: number; row: number; text: string | null }
   | { op: 'rate'; row: number; value: number | null }
   | { op: 'tariff'; row: number; value: number | null }
@@ -62,13 +68,14 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
   }),
   fc.record({
     op: fc.constant('insert' as const),
-    sheet: fc.integer({ min: 0, max: 6 }),
+    sheet: fc.integer({ min: 0, max: 7 }),
     at: fc.nat(),
     count: fc.integer({ min: 1, max: 3 }),
   }),
   fc.record({
     op: fc.constant('remove' as const),
-    sheet: fc.constantFrom(...SHUNT_SHEETS, 5, 6),
+    // Cables and Capacitors and reactors (removing a branch would cut its bus off).
+    sheet: fc.constantFrom(...SHUNT_SHEETS, 5, 7),
     row: fc.nat(),
   }),
   fc.record({
@@ -107,11 +114,24 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     // Motors' and loads' spellings on either sheet: the other sheet's words are refused there.
     text: fc.option(fc.constantFrom(...MOTOR_SUPPLY_TEXTS, ...LOAD_SUPPLY_TEXTS), { nil: null, freq: 4 }),
   }),
-  fc.record({
-    op: fc.constant('resistance' as const),
-    row: fc.nat(),
-    value: fc.option(num(0.01, 2), { nil: null, freq: 4 }),
-  }),
+  fc
+    .record({
+      // A line's R, a feeder cable's R or X (a line's X comes from its inductance).
+      target: fc.constantFrom(
+        ['lines', 'r_ohm_km'] as const,
+        ['feeders', 'r_ohm_km'] as const,
+        ['feeders', 'x_ohm_km'] as const,
+      ),
+      row: fc.nat(),
+      value: fc.option(num(0.01, 2), { nil: null, freq: 4 }),
+    })
+    .map(({ target, row, value }) => ({
+      op: 'resistance' as const,
+      on: target[0],
+      column: target[1],
+      row,
+      value,
+    })),
   fc.record({
     op: fc.constant('rate' as const),
     row: fc.nat(),
@@ -130,7 +150,7 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
   fc.record({ op: fc.constant('case' as const), rename: fc.boolean(), suffix: fc.nat(99) }),
   fc.record({
     op: fc.constant('sort' as const),
-    sheet: fc.integer({ min: 0, max: 6 }),
+    sheet: fc.integer({ min: 0, max: 7 }),
     by: fc.constantFrom('tag' as const, 'bus' as const, 'p_kw' as const, 'computed' as const),
     descending: fc.boolean(),
   }),
@@ -182,11 +202,11 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       return `supply ${String(e.text)} on ${plans[e.sheet]?.sheet.name} row ${row + 1}`;
     }
     case 'resistance': {
-      const i = plans.findIndex((p) => p.sheet.id === 'lines');
+      const i = plans.findIndex((p) => p.sheet.id === e.on);
       const row = pickRow(i, e.row);
-      if (row === undefined) return 'resistance: no line';
-      s.setCells(sheetId(i), [{ row, col: col(i, 'r_ohm_km'), content: e.value }]);
-      return `resistance ${String(e.value)} on Lines row ${row + 1}`;
+      if (row === undefined) return `resistance: no row on ${e.on}`;
+      s.setCells(sheetId(i), [{ row, col: col(i, e.column), content: e.value }]);
+      return `${e.column} ${String(e.value)} on ${plans[i]?.sheet.name} row ${row + 1}`;
     }
     case 'moveBus': {
       const row = pickRow(e.sheet, e.row);

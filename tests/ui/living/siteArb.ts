@@ -176,6 +176,37 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
       const r = k % 3 === 0 ? undefined : 0.05 + 0.1 * (k % 7);
       const from = tree[b.parent] as { name: string };
       const u = uOf(b.level);
+      // Where R is blank, one time in two the conductor's section gives it instead (copper or
+      // aluminium, at 20 °C or a conductor temperature).
+      const section =
+        r !== undefined || k % 2 === 0
+          ? {}
+          : {
+              [k % 4 === 1 ? 'cu_mm2' : 'al_mm2']: [16, 50, 95, 185, 240][k % 5] as number,
+              ...(Math.floor(k / 6) % 2 === 0 ? {} : { theta_c: 70 }),
+            };
+      // A rated current one time in three (loading and overload), low enough to overload at times.
+      const rating = k % 3 === 2 ? { i_rated_a: 20 + 60 * (k % 7) } : {};
+      // One line in four is a feeder cable instead, its X and C each blank one time in three.
+      const len = u < 1 ? 0.05 + 0.05 * (b.level % 3) : 0.5 + (b.level % 3);
+      if (b.line && k % 4 === 1)
+        return [
+          {
+            tag: '',
+            bus: from.name,
+            kind: 'feeder',
+            to_bus: b.name,
+            values: {
+              u_kv: u,
+              ...(r === undefined ? section : { r_ohm_km: r }),
+              ...(k % 3 === 1 ? {} : { x_ohm_km: 0.06 + 0.02 * (k % 5) }),
+              ...(k % 9 === 5 ? {} : { c_uf_km: 0.2 + 0.1 * (k % 4) }),
+              len_km: len,
+              ...rating,
+            },
+            loads: {},
+          },
+        ];
       return b.line
         ? [
             {
@@ -185,10 +216,11 @@ export const siteArb: fc.Arbitrary<ArbSite> = fc
               to_bus: b.name,
               values: {
                 u_kv: u,
-                ...(r === undefined ? {} : { r_ohm_km: r }),
+                ...(r === undefined ? section : { r_ohm_km: r }),
                 l_mh_km: 1.1,
                 c_nf_km: 10,
-                len_km: u < 1 ? 0.05 + 0.05 * (b.level % 3) : 0.5 + (b.level % 3),
+                len_km: len,
+                ...rating,
               },
               loads: {},
             },
