@@ -12,7 +12,11 @@ import { proposeChoices } from '../site/compensation.ts';
 import { buildBusGraph } from '../site/graph.ts';
 import type { Site } from '../site/model.ts';
 import { DEFAULT_STEP_SERIES } from '../site/stepSeries.ts';
-import { annualSaving, priceSchedule, siteSchedule, type RateTable, type Tariff } from '../quote/index.ts';
+// Straight from the quote's modules, not its index: see the architecture test (first download).
+import { priceSchedule } from '../quote/cost.ts';
+import type { RateTable } from '../quote/rates.ts';
+import { annualSaving, type Tariff } from '../quote/saving.ts';
+import { siteSchedule } from '../quote/siteSchedule.ts';
 
 export type OptionId = 'current' | 'proposal' | 'plain' | 'detuned' | 'central';
 

@@ -1,7 +1,10 @@
 // The design options of a workbook (compare.ts): its site and banks read back as the CLI reads
 // them, priced at its Rates sheet and saved at its Tariff sheet. The Checks panel shows them and
 // the export writes them on a sheet of their own.
-import { rateRowsOf, readRateTable, readTariff, tariffRowsOf } from '../quote/index.ts';
+// Straight from the quote's modules, not its index: see the architecture test (first download).
+import { readRateTable } from '../quote/rates.ts';
+import { rateRowsOf } from '../quote/ratesSheet.ts';
+import { readTariff, tariffRowsOf } from '../quote/tariffSheet.ts';
 import { compareOptions, standardOptions, type OptionFigures } from './compare.ts';
 import { validateSite } from '../site/validate.ts';
 import type { WorkbookDoc } from '../workbook/document.ts';
