@@ -310,7 +310,7 @@ export function designCompensation(
       before.forEach((b, i) => {
         if ((leadNeed[i] as number) <= TOL_KVAR) return;
         const charging = b.elements
-          .filter((e) => e.kind === 'cable' || e.kind === 'line')
+          .filter((e) => findKind(e.kind)?.traits?.charging)
           .reduce((s, e) => s + e.q_delivered_kvar, 0);
         warnings.push(
           designWarning(
@@ -404,7 +404,7 @@ function chargingBus(
 ): string | undefined {
   const byBus = new Map<string, number>();
   for (const e of bal.elements) {
-    if ((e.kind === 'cable' || e.kind === 'line') && voltages.has(e.bus))
+    if (findKind(e.kind)?.traits?.charging && voltages.has(e.bus))
       byBus.set(e.bus, (byBus.get(e.bus) ?? 0) + e.q_delivered_kvar);
   }
   let best = root !== undefined && voltages.has(root) ? root : undefined;

@@ -158,3 +158,22 @@ describe('feeder series values: blank, negative, implausible', () => {
     expect(found[0]?.message).toContain('typed in Ω/m? 0.00008 Ω/m is 0.08 Ω/km');
   });
 });
+
+describe('a feeder whose charging leaves the connection leading at light load', () => {
+  // 20 km of 33 kV cable at 0.2 µF/km (typical of 33 kV XLPE, common practice) charges
+  // ω·C·U² = 2π·50·0.2e-6·20·33,000² / 1000 ≈ 1,368 kvar: far beyond a 200 kW night load's limit.
+  const csv = [HEAD, 'F1,POC,feeder,FAR,33,0.1,0.12,0.2,20,,,,', 'P1,FAR,load,,33,,,,,2000,0.9,1,0.1'];
+  const { site, problems } = siteFromCsv(csv.join('\n'), settings);
+
+  it('names the feeder charging in the warning and puts the reactor where the charging is', async () => {
+    expect(problems).toEqual([]);
+    const { designCompensation } = await import('../../../src/core/site/compensation.ts');
+    const design = designCompensation(site);
+    const q = charging(33, 0.2, 20);
+    expect(q).toBeCloseTo(1368.5, 0);
+    const w = design.warnings.find((x) => x.code === 'charging-dominates' && x.message.includes('night'));
+    const said = /cable and line charging (\d+) kvar/.exec(w?.message ?? '');
+    expect(Number(said?.[1])).toBeCloseTo(q, -1);
+    expect(design.reactors.map((r) => r.bus)).toEqual(['POC']);
+  });
+});
