@@ -73,14 +73,14 @@ export const COLUMN_SPECS: readonly ColumnSpec[] = [
   number(
     'cu_mm2',
     'Cu (mm²)',
-    8,
+    10,
     '0.#',
     'Copper conductor cross-section (mm², a standard IEC 60228 size); used for R when R is blank',
   ),
   number(
     'al_mm2',
     'Al (mm²)',
-    8,
+    10,
     '0.#',
     'Aluminium conductor cross-section (mm², a standard IEC 60228 size); used for R when R is blank',
   ),
