@@ -238,7 +238,7 @@ export class WorkbookSession {
   }
 
   /**
-   * Put typical values into the blank inputs of motors and transformers that have a rating, each
+   * Put typical values into the blank inputs of motors, transformers and feeders that have a rating, each
    * marked as assumed with its source, as one step. Returns how many values went in and why
    * other blanks stay blank. The tables load on first use (not needed to open a workbook).
    */

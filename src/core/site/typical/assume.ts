@@ -11,6 +11,7 @@ import {
   type Poles,
 } from './motors.ts';
 import type { TypicalSource } from './sources.ts';
+import { CABLE_X_BANDS, cableReactance } from './cables.ts';
 import {
   ecodesignLosses,
   transformerNoLoadCurrent,
@@ -60,6 +61,7 @@ function isBlank(v: number | undefined): boolean {
 export function assumeTypical(row: RowInputs, opts: AssumeOptions = {}): Assumptions {
   if (row.kind === 'motor') return assumeMotor(row.values, opts);
   if (row.kind === 'transformer') return assumeTransformer(row.values, opts);
+  if (row.kind === 'feeder') return assumeFeeder(row.values);
   return { assumed: [], notAssumed: [] };
 }
 
@@ -91,6 +93,20 @@ function collect(
     });
   }
   return { assumed, notAssumed };
+}
+
+function assumeFeeder(values: RowInputs['values']): Assumptions {
+  const u = values.u_kv;
+  if (isBlank(u) || !((u as number) > 0))
+    return {
+      assumed: [],
+      notAssumed: isBlank(values.x_ohm_km) ? ['x_ohm_km: no typical value without the voltage (u_kv)'] : [],
+    };
+  return collect(
+    values,
+    [{ column: 'x_ohm_km', get: () => cableReactance(u as number), step: 0.01, basis: `${u} kV cable` }],
+    `no typical reactance above ${CABLE_X_BANDS[CABLE_X_BANDS.length - 1]?.upToKv} kV: take the maker's data`,
+  );
 }
 
 function assumeMotor(values: RowInputs['values'], opts: AssumeOptions): Assumptions {

@@ -1,7 +1,7 @@
 // The one rule for filling blanks with typical values, used by the page (its open workbook's
 // cells), the import (the rows as they arrive) and the command line (a site read from a file).
-// Only motors and transformers have tables; only a blank input is filled, never a typed number,
-// text or formula; and a value comes only from a typed rating (rated output, kVA).
+// Motors, transformers and feeder cables have tables; only a blank input is filled, never a typed
+// number, text or formula; and a value comes only from a typed rating (rated output, kVA, kV).
 import type { NumericColumn } from '../model.ts';
 import { assumeTypical } from './assume.ts';
 
@@ -22,10 +22,21 @@ export interface RowFill {
 }
 
 /** Kinds with typical-value tables. */
-export const TYPICAL_KINDS: ReadonlySet<string> = new Set(['motor', 'transformer']);
+export const TYPICAL_KINDS: ReadonlySet<string> = new Set(['motor', 'transformer', 'feeder']);
 
-/** The inputs the tables read or fill (motors: p_kw, eff, cos_phi, i0_pct; transformers: s_kva …). */
-const TABLE_INPUTS = ['p_kw', 'eff', 'cos_phi', 'i0_pct', 's_kva', 'uk_pct', 'p0_kw', 'pk_kw'] as const;
+/** The inputs the tables read or fill (motors: p_kw, eff, cos_phi, i0_pct; transformers: s_kva …; feeders: u_kv, x_ohm_km). */
+const TABLE_INPUTS = [
+  'p_kw',
+  'eff',
+  'cos_phi',
+  'i0_pct',
+  's_kva',
+  'uk_pct',
+  'p0_kw',
+  'pk_kw',
+  'u_kv',
+  'x_ohm_km',
+] as const;
 
 /** "assumed 0.914 (11 kW, 4-pole, class IE3; source)" → "11 kW, 4-pole, class IE3; source". */
 const basisOf = (note: string): string => note.replace(/^assumed \S+ \((.*)\)$/, '$1');

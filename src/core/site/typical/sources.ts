@@ -57,6 +57,11 @@ export const SOURCES = {
     ref: 'Short-circuit power at the point of connection of an industrial site as commonly met in European distribution networks, by nominal voltage (about a third to a half of the switchgear ratings usual at that level: 16 kA at 10 kV, 16 kA at 20 kV, 25 kA at 33 kV); common practice, values from memory: a placeholder until the utility states its minimum and maximum',
     kind: 'common practice',
   },
+  cableReactance: {
+    label: 'typical cable reactance by voltage (common practice)',
+    ref: 'Series reactance of power cables as commonly quoted in makers’ data: about 0.08 Ω/km for low-voltage multicore cables and about 0.11 Ω/km for medium-voltage single-core XLPE cables in trefoil (up to 36 kV); common practice, values from memory',
+    kind: 'common practice',
+  },
 } as const satisfies Record<string, TypicalSource>;
 
 export type SourceId = keyof typeof SOURCES;

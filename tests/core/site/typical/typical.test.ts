@@ -21,6 +21,8 @@ import {
 } from '../../../../src/core/site/typical/transformers.ts';
 import { band, lookup } from '../../../../src/core/site/typical/interpolate.ts';
 import { assumeTypical } from '../../../../src/core/site/typical/assume.ts';
+import { SOURCES } from '../../../../src/core/site/typical/sources.ts';
+import { typicalFillRow } from '../../../../src/core/site/typical/fillRow.ts';
 import { motorNoLoadTooHigh } from '../../../../src/core/elements/motor.ts';
 
 describe('motor efficiency, IEC 60034-30-1', () => {
@@ -254,5 +256,48 @@ describe('assumeTypical', () => {
     expect(big.assumed.map((a) => a.column)).toEqual(['uk_pct', 'i0_pct']);
     expect(big.notAssumed[0]).toMatch(/^p0_kw: 10000 kVA is outside/);
     expect(assumeTypical({ kind: 'capacitor', values: {} })).toEqual({ assumed: [], notAssumed: [] });
+  });
+});
+
+describe('feeder cable reactance by voltage (common practice, from memory)', () => {
+  it('a blank X takes 0.08 Ω/km at low voltage and 0.11 Ω/km up to 36 kV, naming the source', () => {
+    const lv = assumeTypical({ kind: 'feeder', values: { u_kv: 0.4, len_km: 0.2 } });
+    expect(lv.assumed).toEqual([
+      expect.objectContaining({ column: 'x_ohm_km', value: 0.08, source: SOURCES.cableReactance }),
+    ]);
+    expect(lv.assumed[0]?.note).toBe(
+      'assumed 0.08 (0.4 kV cable; typical cable reactance by voltage (common practice))',
+    );
+    const mv = assumeTypical({ kind: 'feeder', values: { u_kv: 20, len_km: 5 } });
+    expect(mv.assumed.map((a) => [a.column, a.value])).toEqual([['x_ohm_km', 0.11]]);
+    // The bands meet at 1 kV: a 1 kV cable is low voltage, 1.1 kV medium.
+    expect(assumeTypical({ kind: 'feeder', values: { u_kv: 1 } }).assumed[0]?.value).toBe(0.08);
+    expect(assumeTypical({ kind: 'feeder', values: { u_kv: 1.1 } }).assumed[0]?.value).toBe(0.11);
+  });
+
+  it('keeps a typed X, and says why none is assumed above 36 kV or without a voltage', () => {
+    expect(assumeTypical({ kind: 'feeder', values: { u_kv: 0.4, x_ohm_km: 0.07 } })).toEqual({
+      assumed: [],
+      notAssumed: [],
+    });
+    expect(assumeTypical({ kind: 'feeder', values: { u_kv: 66 } }).notAssumed).toEqual([
+      "x_ohm_km: no typical reactance above 36 kV: take the maker's data",
+    ]);
+    expect(assumeTypical({ kind: 'feeder', values: {} }).notAssumed).toEqual([
+      'x_ohm_km: no typical value without the voltage (u_kv)',
+    ]);
+  });
+
+  it('fills a feeder row through the one rule, never over text typed in the cell', () => {
+    const row: Record<string, number | string | null> = { u_kv: 11, x_ohm_km: null };
+    expect(typicalFillRow('feeder', (k) => row[k]).writes).toEqual([
+      {
+        column: 'x_ohm_km',
+        value: 0.11,
+        note: '11 kV cable; typical cable reactance by voltage (common practice)',
+      },
+    ]);
+    row.x_ohm_km = 'ask the maker';
+    expect(typicalFillRow('feeder', (k) => row[k]).writes).toEqual([]);
   });
 });
