@@ -8,7 +8,7 @@ import { readTariff, tariffRowsOf } from '../quote/tariffSheet.ts';
 import { compareOptions, standardOptions, type OptionFigures } from './compare.ts';
 import { validateSite } from '../site/validate.ts';
 import type { WorkbookDoc } from '../workbook/document.ts';
-import { siteFromWorkbook } from '../workbook/readSite.ts';
+import { siteFromWorkbook, type SiteFromWorkbook } from '../workbook/readSite.ts';
 
 /**
  * Above this many equipment rows the options are worked out only when asked for: five designs
@@ -24,7 +24,11 @@ export type OptionsReport = { readonly unasked: boolean } & (
 );
 
 export function optionsOfDoc(doc: WorkbookDoc): OptionsReport {
-  const read = siteFromWorkbook(doc);
+  return optionsOfRead(doc, siteFromWorkbook(doc));
+}
+
+/** The options of a workbook already read back (the export reads it once for both questions). */
+function optionsOfRead(doc: WorkbookDoc, read: SiteFromWorkbook): OptionsReport {
   const unasked = read.site.equipment.length <= OPTIONS_UNASKED_MAX_ROWS;
   // The inputs as Checks judges them: read back, then validated.
   const errors = [...read.problems, ...validateSite(read.site)].filter((p) => p.severity === 'error').length;
@@ -56,12 +60,13 @@ export function optionsForExport(doc: WorkbookDoc): {
   options?: readonly OptionFigures[];
   optionsLeftOut?: string;
 } {
-  const rows = siteFromWorkbook(doc).site.equipment.length;
+  const read = siteFromWorkbook(doc);
+  const rows = read.site.equipment.length;
   if (rows > OPTIONS_UNASKED_MAX_ROWS)
     return {
       optionsLeftOut: `Design options are not in this file: with ${rows.toLocaleString('en-GB')} equipment rows (more than ${OPTIONS_UNASKED_MAX_ROWS.toLocaleString('en-GB')}) they are worked out on request only (Checks → Compare design options, or kvar-ledger quote --compare).`,
     };
-  const r = optionsOfDoc(doc);
+  const r = optionsOfRead(doc, read);
   return r.ok
     ? { options: r.options }
     : { optionsLeftOut: `Design options are not in this file. ${r.message}` };

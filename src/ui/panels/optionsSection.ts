@@ -13,7 +13,7 @@ export class OptionsSection {
   /** The user asked for the options: they are worked out with every run of the checks. */
   wanted = false;
 
-  constructor(readonly ask: () => void) {
+  constructor(ask: () => void) {
     this.body = el('div', { attrs: { 'data-testid': 'options-body' } });
     this.stale = el('div');
     const button = el('button', {
