@@ -1,8 +1,21 @@
 // A1-style references for the formulas the workbook builder writes. Rows and columns are
 // 0-based here (as in SheetDoc.cells) and become 1-based letters and numbers in the text.
 
+// Letters and sheet prefixes are asked for once per reference, tens of thousands of times when
+// a paste rewrites every bus's sums: each is worked out once.
+const letters: string[] = [];
+const prefixes = new Map<string, string>();
+
 /** 0 → A, 25 → Z, 26 → AA. */
 export function columnLetters(col: number): string {
+  const known = letters[col];
+  if (known !== undefined) return known;
+  const s = lettersOf(col);
+  if (Number.isInteger(col) && col >= 0 && col < 16_384) letters[col] = s;
+  return s;
+}
+
+function lettersOf(col: number): string {
   let n = col + 1;
   let s = '';
   while (n > 0) {
@@ -15,7 +28,12 @@ export function columnLetters(col: number): string {
 
 /** Sheet name as a formula prefix: bare when it is a plain word, quoted otherwise. */
 export function sheetPrefix(sheet: string): string {
-  return /^[A-Za-z_][A-Za-z0-9_]*$/.test(sheet) ? `${sheet}!` : `'${sheet.replace(/'/g, "''")}'!`;
+  let p = prefixes.get(sheet);
+  if (p === undefined) {
+    p = /^[A-Za-z_][A-Za-z0-9_]*$/.test(sheet) ? `${sheet}!` : `'${sheet.replace(/'/g, "''")}'!`;
+    if (prefixes.size < 1_000) prefixes.set(sheet, p);
+  }
+  return p;
 }
 
 /** A cell on the same sheet, relative: F12. */

@@ -11,7 +11,7 @@ import type { HyperFormula } from '../../engine/index.ts';
 import type { CellContent } from '../../core/workbook/document.ts';
 import { busKey } from '../../core/site/busNames.ts';
 import { planBusColumns, type BusColumns } from '../../core/workbook/busColumns.ts';
-import { busRowIndex } from '../../core/workbook/busSums.ts';
+import { busRowIndex, type BusRowIndex, type Run } from '../../core/workbook/busSums.ts';
 import {
   compensationInputCols,
   planCompensationColumns,
@@ -310,13 +310,18 @@ export class SiteModel {
     }
     for (const c of changed)
       if (c.rewrite) writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
-    const buses = new Set(
-      changed
-        .flatMap((c) => c.buses)
-        .filter((b) => b !== '')
-        .map(busKey),
-    );
-    writes.push(...this.sumWrites(next, buses));
+    const keysOf = (list: typeof changed) =>
+      new Set(
+        list
+          .flatMap((c) => c.buses)
+          .filter((b) => b !== '')
+          .map(busKey),
+      );
+    // Only rows of sheets that carry charging (cables, lines, feeders) move a zone's charging.
+    const charging = keysOf(changed.filter((c) => carriesCharging(next.sheets[c.index]?.cols)));
+    const busRows = busRowIndex(next);
+    writes.push(...this.sumWrites(next, keysOf(changed), charging, busRows, runsSeen.get(this.state.rows)));
+    runsSeen.set(rows, busRows);
     this.state = { ...this.state, rows };
     return writes;
   }
@@ -339,33 +344,49 @@ export class SiteModel {
     return out;
   }
 
-  /** The own-item sums of the buses named, where the engine's formula differs from the one wanted. */
-  private sumWrites(s: WorkbookStructure, keys: ReadonlySet<string>): Write[] {
+  /**
+   * The own-item sums of the buses named, where the engine's formula differs from the one wanted;
+   * the zone charging of the buses sharing a zone with `charging`. `before`: the runs of rows the
+   * engine's sums were written for, when known: a bus whose runs changed is written without
+   * reading its formulas back (a paste over every bus changes them all).
+   */
+  private sumWrites(
+    s: WorkbookStructure,
+    keys: ReadonlySet<string>,
+    charging: ReadonlySet<string>,
+    busRows: BusRowIndex,
+    before: BusRowIndex | undefined,
+  ): Write[] {
     if (keys.size === 0) return [];
     const { bus, comp } = this.plans();
-    const input = { s, cols: bus, comp, flavour: 'live' as const, busRows: busRowIndex(s) };
+    const input = { s, cols: bus, comp, flavour: 'live' as const, busRows };
     const out: Write[] = [];
-    const want = (sheet: number, row: number, col: number, formula: string) => {
+    const want = (sheet: number, row: number, col: number, formula: string, moved: boolean) => {
       if (this.isOverride(sheet, row, col)) return;
-      const have = this.hf.getCellFormula({ sheet, row, col });
-      if (have === undefined || squash(have) !== squash(formula))
-        out.push({ sheet, row, col, content: formula });
+      if (!moved) {
+        const have = this.hf.getCellFormula({ sheet, row, col });
+        if (have !== undefined && squash(have) === squash(formula)) return;
+      }
+      out.push({ sheet, row, col, content: formula });
     };
     for (const key of keys) {
       const i = s.busIndex.get(key);
       if (i === undefined) continue;
-      for (const [col, f] of ownSumCells(input, i)) want(this.ids.buses, i + 1, col, f);
+      const moved = before !== undefined && !sameRuns(before.get(key), busRows.get(key));
+      for (const [col, f] of ownSumCells(input, i)) want(this.ids.buses, i + 1, col, f, moved);
       want(
         this.ids.comp,
         i + 1,
         comp.plainInstalled,
         plainInstalledCell({ ...input, cols: comp, busCols: bus, inputs: new Map() }, i),
+        false,
       );
     }
     // A cable added or removed on a bus changes the charging of every bus in its zone.
+    if (charging.size === 0) return out;
     const tops = zoneTopIndex(s);
-    for (const j of zoneMatesOf(s, tops, keys))
-      want(this.ids.comp, j + 1, comp.zoneCharging, zoneChargingFormula(s, input.busRows, 'live', tops, j));
+    for (const j of zoneMatesOf(s, tops, charging))
+      want(this.ids.comp, j + 1, comp.zoneCharging, zoneChargingFormula(s, busRows, 'live', tops, j), false);
     return out;
   }
 
@@ -471,6 +492,34 @@ function rowNeedsRewrite(a: RowInfo, b: RowInfo): boolean {
 }
 
 /** Formula text compared without spaces and letter case (the engine prints its own way). */
+/**
+ * The runs of rows each bus's sums were last written for, per rows list of the state (the state
+ * is replaced, never changed in place, so a list in hand names one version of the rows).
+ */
+const runsSeen = new WeakMap<object, BusRowIndex>();
+
+type BusRuns = ReadonlyMap<number, readonly Run[]>;
+
+/** Same runs of rows on every sheet (both known). */
+function sameRuns(a: BusRuns | undefined, b: BusRuns | undefined): boolean {
+  if (a === undefined || b === undefined) return a === b;
+  if (a.size !== b.size) return false;
+  for (const [sheet, runs] of a) {
+    const other = b.get(sheet);
+    if (!other || other.length !== runs.length) return false;
+    for (let k = 0; k < runs.length; k++)
+      if (runs[k]?.first !== other[k]?.first || runs[k]?.last !== other[k]?.last) return false;
+  }
+  return true;
+}
+
+/** A sheet whose rows deliver charging: cables (a shunt sheet of charging kinds), lines, feeders. */
+function carriesCharging(cols: EquipmentColumns | undefined): boolean {
+  if (!cols) return false;
+  if (cols.role === 'branch') return true;
+  return cols.kinds.some((kind) => kind.traits?.charging);
+}
+
 function squash(f: string): string {
   return f.replace(/\s+/g, '').toUpperCase();
 }
