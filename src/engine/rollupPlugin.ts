@@ -1,15 +1,15 @@
-// The bus sums of the live workbook: BUS.SUM, BUS.SUM.ABS and BUS.SUM.DEL add up value columns
-// over the rows whose bus column names a given bus (ignoring case, like SUMIF).
+// The bus sums of the live workbook: BUS.SUM, BUS.SUM.ABS and BUS.SUM.DEL add up the runs of
+// rows that hold one bus's items on each sheet.
 //
-//   BUS.SUM(bus, bus_column_1, values_1, [bus_column_2, values_2, ...])   Σ values
-//   BUS.SUM.ABS(...same...)                                              Σ of the positive values
-//   BUS.SUM.DEL(...same...)                                              size of Σ of the negative ones
+//   BUS.SUM(values_1, [values_2, ...])        Σ values
+//   BUS.SUM.ABS(values_1, [values_2, ...])    Σ of the positive values
+//   BUS.SUM.DEL(values_1, [values_2, ...])    size of Σ of the negative ones
 //
-// Rows naming another bus, blanks and text count as nothing (as in SUMIF); an error value on a
-// matching row is the result (the total cannot be known). The workbook passes each bus only the
-// runs of rows that hold its items on each sheet (a lone row as a cell, a pair of cells), so an
-// edit reaches its own bus and the buses above it; the export writes the same sums as
-// SUMIF/SUMIFS over whole columns.
+// The living model (src/ui/model/siteModel.ts) passes each bus exactly the rows that name it (a
+// lone row as a cell, a run of rows as a range) and writes the sums again whenever those rows
+// change, so an edit reaches its own bus and the buses above it only. Blanks and text count as
+// nothing; an error value is the result (the total cannot be known). The export writes the same
+// sums as SUMIF/SUMIFS over whole columns, which every program reads.
 import { CellError, ErrorType, FunctionArgumentType, FunctionPlugin, SimpleRangeValue } from 'hyperformula';
 import type { ImplementedFunctions } from 'hyperformula';
 import { BUS_SUM } from '../core/workbook/busSums.ts';
@@ -25,17 +25,17 @@ export const ROLLUP_FUNCTION_DOCS: ReadonlyArray<{
 }> = [
   {
     name: BUS_SUM.all,
-    signature: `${BUS_SUM.all}(bus, bus_column_1, values_1, [bus_column_2, values_2, ...])`,
-    summary: 'The sum of the values on the rows whose bus column names the bus (ignoring case), like SUMIF.',
+    signature: `${BUS_SUM.all}(values_1, [values_2, ...])`,
+    summary: "The sum of a bus's own rows: one argument per run of rows that name the bus, on each sheet.",
   },
   {
     name: BUS_SUM.absorbed,
-    signature: `${BUS_SUM.absorbed}(bus, bus_column_1, values_1, ...)`,
+    signature: `${BUS_SUM.absorbed}(values_1, [values_2, ...])`,
     summary: 'As BUS.SUM, the positive values only (kvar absorbed).',
   },
   {
     name: BUS_SUM.delivered,
-    signature: `${BUS_SUM.delivered}(bus, bus_column_1, values_1, ...)`,
+    signature: `${BUS_SUM.delivered}(values_1, [values_2, ...])`,
     summary: 'As BUS.SUM, the size of the negative values only (kvar delivered).',
   },
 ];
@@ -45,29 +45,18 @@ export type Cell = number | string | boolean | null | CellError;
 
 export type Part = 'all' | 'absorbed' | 'delivered';
 
-/** One pair of arguments: the bus name of each row and that row's value. */
-export interface KeyedColumn {
+/** One argument: a column of values. */
+export interface ValueColumn {
   readonly height: number;
-  key(row: number): Cell;
   value(row: number): Cell;
 }
 
-/** The comparison key of a bus name, ignoring case; a number names the bus of its text. */
-export function busCellKey(v: Cell): string | undefined {
-  if (typeof v === 'string') return v === '' ? undefined : v.toUpperCase();
-  if (typeof v === 'number') return String(v);
-  return undefined;
-}
-
-/** The kernel: the sum for one bus over every pair. Pure, tested directly. */
-export function sumForBus(bus: Cell, pairs: readonly KeyedColumn[], part: Part): number | CellError {
-  const want = busCellKey(bus);
-  if (want === undefined) return 0;
+/** The kernel: the sum over every column. Pure, tested directly. */
+export function sumOfRuns(columns: readonly ValueColumn[], part: Part): number | CellError {
   let total = 0;
-  for (const pair of pairs) {
-    for (let r = 0; r < pair.height; r++) {
-      if (busCellKey(pair.key(r)) !== want) continue;
-      const v = pair.value(r);
+  for (const column of columns) {
+    for (let r = 0; r < column.height; r++) {
+      const v = column.value(r);
       if (v instanceof CellError) return v;
       if (typeof v !== 'number') continue;
       if (part === 'all') total += v;
@@ -142,37 +131,16 @@ export class BusRollupPlugin extends FunctionPlugin {
 
   private sum(fn: string, node: CallNode, state: State, part: Part): number | CellError {
     try {
-      const args = node.args;
-      if (args.length < 3 || args.length % 2 === 0) {
-        return fail(fn, `takes a bus and then pairs of (bus column, values); got ${args.length} arguments`);
-      }
-      const bus: unknown = this.evaluateAst(args[0] as never, state as never);
-      if (bus instanceof CellError) return bus;
-      const pairs: KeyedColumn[] = [];
-      for (let k = 1; k < args.length; k += 2) {
-        const keys = this.column(fn, args[k] as ArgNode, state, k + 1, 'bus column');
-        if (keys instanceof CellError) return keys;
-        const values = this.column(fn, args[k + 1] as ArgNode, state, k + 2, 'values');
+      const columns: ValueColumn[] = [];
+      for (let k = 0; k < node.args.length; k++) {
+        const values = this.column(fn, node.args[k] as ArgNode, state, k + 1, 'values');
         if (values instanceof CellError) return values;
-        if (values.height !== keys.height) {
-          const where = this.where(args[k] as ArgNode, state);
-          return fail(
-            fn,
-            `argument ${k + 2} (values) has ${values.height} rows but argument ${k + 1} (bus column${where}) has ${keys.height}; they must cover the same rows`,
-          );
-        }
-        pairs.push({ height: keys.height, key: keys.read, value: values.read });
+        columns.push({ height: values.height, value: values.read });
       }
-      return sumForBus(asCell(bus), pairs, part);
+      return sumOfRuns(columns, part);
     } catch (e) {
       return fail(fn, `internal error: ${e instanceof Error ? e.message : String(e)}`);
     }
-  }
-
-  private where(node: ArgNode, state: State): string {
-    const b = blockOf(node, state);
-    if (!b) return '';
-    return ` on ${sheetNameOf(this, b.sheet) ?? `sheet ${b.sheet + 1}`}`;
   }
 
   /** A one-column argument, read straight from the engine's store when it is a plain range. */
@@ -180,8 +148,13 @@ export class BusRollupPlugin extends FunctionPlugin {
     const b = blockOf(node, state);
     const store = cellStoreOf(this);
     if (b && store) {
-      if (b.width !== 1)
-        return fail(fn, `argument ${position} (${what}) must be one column; got ${b.width} columns`);
+      if (b.width !== 1) {
+        const sheet = sheetNameOf(this, b.sheet) ?? `sheet ${b.sheet + 1}`;
+        return fail(
+          fn,
+          `argument ${position} (${what} on ${sheet}) must be one column; got ${b.width} columns`,
+        );
+      }
       const address = { sheet: b.sheet, col: b.col, row: 0 };
       return {
         height: b.height,
@@ -210,12 +183,8 @@ function metadata(method: string) {
     method,
     // Ranges are read by the method itself; never spread a range into one call per cell.
     vectorizationForbidden: true,
-    parameters: [
-      { argumentType: FunctionArgumentType.ANY },
-      { argumentType: FunctionArgumentType.RANGE },
-      { argumentType: FunctionArgumentType.RANGE },
-    ],
-    repeatLastArgs: 2,
+    parameters: [{ argumentType: FunctionArgumentType.RANGE }],
+    repeatLastArgs: 1,
   };
 }
 

@@ -3,6 +3,8 @@
 // that hold the bus's items on each sheet, so an edit reaches its own bus and the buses above it
 // only, and the engine tracks each item row once (not every row of a span that other buses' rows
 // stretch: 500 rows pasted over 300 buses made every bus depend on almost the whole sheet). The
+// runs are found here by bus name and written again whenever they change, so the sums take the
+// value columns alone (half the references to read when a paste rewrites every bus's sums). The
 // exported workbook uses classic conditional sums over whole columns, which every program reads
 // and which count a row a colleague adds at the bottom.
 import type { EquipmentColumns } from './equipmentColumns.ts';
@@ -104,10 +106,9 @@ export function ownSum(
     let args = '';
     for (const t of list) {
       const sheet = t.cols.sheet.name;
-      const busCol = t.cols.input.get('bus') as number;
-      for (const run of t.runs) args += `,${runRef(sheet, run, busCol)},${runRef(sheet, run, t.valueCol)}`;
+      for (const run of t.runs) args += `,${runRef(sheet, run, t.valueCol)}`;
     }
-    return args === '' ? '=0' : `=${BUS_SUM[part]}(${bus.nameCell}${args})`;
+    return args === '' ? '=0' : `=${BUS_SUM[part]}(${args.slice(1)})`;
   }
   const portable = (positive: boolean) => portableSum(list, bus, positive);
   if (part === 'all') return `=${portable(false)}`;
