@@ -253,7 +253,12 @@ export class SiteModel {
     const rows = this.state.rows.map((r) => [...r]);
     const list = rows[index] as RowInfo[];
     const removedBuses: string[] = [];
+    const widened = new Set(this.state.widened);
     if (count > 0) {
+      // Rows inserted between two rows of one bus land inside the range its sums read.
+      const [above, below] = [list[at - 2], list[at - 1]];
+      if (above?.present && below?.present && above.bus !== '' && busKey(above.bus) === busKey(below.bus))
+        widened.add(busKey(above.bus));
       if (at - 1 < list.length)
         list.splice(
           at - 1,
@@ -277,7 +282,7 @@ export class SiteModel {
     // Blank rows inserted leave every item's order, and so the buses, as they were: the moved
     // structure above is what a new pass would find, without one over every row of the site.
     if (count > 0) {
-      this.state = { ...this.state, rows };
+      this.state = { ...this.state, rows, ...(widened.size > 0 ? { widened } : {}) };
       return [];
     }
     return this.follow(
@@ -305,24 +310,26 @@ export class SiteModel {
       for (const c of changed)
         if (c.rewrite && next.sheets[c.index]?.cols.role !== 'branch')
           writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
-      this.state = { ...this.state, rows, rendered: next };
+      this.state = { ...this.state, rows, rendered: next, widened: undefined };
       return writes;
     }
     for (const c of changed)
       if (c.rewrite) writes.push(...this.rowWrites(next, c.index, c.row, rows[c.index]?.[c.row - 1]));
+    const widened = this.state.widened ?? new Set<string>();
     const keysOf = (list: typeof changed) =>
-      new Set(
-        list
+      new Set([
+        ...list
           .flatMap((c) => c.buses)
           .filter((b) => b !== '')
           .map(busKey),
-      );
+        ...widened,
+      ]);
     // Only rows of sheets that carry charging (cables, lines, feeders) move a zone's charging.
     const charging = keysOf(changed.filter((c) => carriesCharging(next.sheets[c.index]?.cols)));
     const busRows = busRowIndex(next);
     writes.push(...this.sumWrites(next, keysOf(changed), charging, busRows, runsSeen.get(this.state.rows)));
     runsSeen.set(rows, busRows);
-    this.state = { ...this.state, rows };
+    this.state = { ...this.state, rows, widened: undefined };
     return writes;
   }
 

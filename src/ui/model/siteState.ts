@@ -28,6 +28,12 @@ export interface SiteState {
   readonly notes: number;
   /** Bank inputs of buses that went away, by bus key: back when the bus returns. */
   readonly retired: ReadonlyMap<string, ReadonlyMap<number, CellContent>>;
+  /**
+   * Bus keys whose sums the engine widened over blank rows inserted inside one of their runs of
+   * rows (it stretches a range over rows inserted within it): written again at the next change of
+   * items, before anything typed into those rows could count on them.
+   */
+  readonly widened?: ReadonlySet<string>;
 }
 
 export function stateOf(

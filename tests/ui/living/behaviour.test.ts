@@ -67,6 +67,26 @@ describe('equipment sheets are tables that grow and shrink', () => {
     expect(busValue(s, 'LV2', 'P own items day (kW)')).toBeCloseTo(before + motorP(30, 0.92), 9);
   });
 
+  it("rows inserted inside one bus's run of rows: a motor of another bus typed there counts on its own bus only", () => {
+    const s = open();
+    const m = id(s, 'Motors');
+    const rows = s.sheetContents(m);
+    const busCol = col(s, 'Motors', 'Bus');
+    // Two neighbouring motors on one bus: the engine widens that bus's range over rows inserted between them.
+    const r = rows.findIndex((line, i) => i > 0 && line[busCol] && line[busCol] === rows[i + 1]?.[busCol]);
+    expect(r).toBeGreaterThan(0);
+    const runBus = String(rows[r]?.[busCol]);
+    const other = ['LV1', 'LV2'].find((b) => b !== runBus) as string;
+    const [runBefore, otherBefore] = [
+      busValue(s, runBus, 'P own items day (kW)'),
+      busValue(s, other, 'P own items day (kW)'),
+    ];
+    s.insertRows(m, r + 1, 3);
+    typeMotor(s, r + 2, 'M-MID', other, 45, 0.93, 0.84);
+    expect(busValue(s, runBus, 'P own items day (kW)')).toBeCloseTo(runBefore, 9);
+    expect(busValue(s, other, 'P own items day (kW)')).toBeCloseTo(otherBefore + motorP(45, 0.93), 9);
+  });
+
   it('rows pasted at once count, each on its bus; deleting them takes them out', () => {
     const s = open();
     const [lv1, pump] = [

@@ -1,5 +1,5 @@
 // Random edits an estimator makes, applied through the page's own model (the session), as the
-// grid would: typing, inserting, deleting, pasting, filling, moving items between buses, banks
+// grid would: typing, inserting (and typing into the rows inserted), deleting, pasting, filling, moving items between buses, banks
 // typed on the Compensation sheet (steps, step series, detuning, capacitor rating), a line's resistance or a feeder
 // cable's resistance or reactance typed or cleared, a motor's or load's supply typed or cleared, rates and tariff values
 // typed or cleared on the Rates and Tariff sheets, the rated power the requirement refers to, renaming a bus, adding or renaming a case, sorting rows, undo and redo.
@@ -18,6 +18,7 @@ export type Edit =
   | { op: 'moveBus'; sheet: number; row: number; bus: number }
   | { op: 'type'; sheet: number; bus: number; p: number; cos: number }
   | { op: 'insert'; sheet: number; at: number; count: number }
+  | { op: 'insertTyped'; sheet: number; at: number; count: number; bus: number; p: number }
   | { op: 'remove'; sheet: number; row: number }
   | { op: 'paste'; sheet: number; n: number; bus: number; p: number }
   | { op: 'fill'; sheet: number; row: number; n: number }
@@ -71,6 +72,16 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     sheet: fc.integer({ min: 0, max: 7 }),
     at: fc.nat(),
     count: fc.integer({ min: 1, max: 3 }),
+  }),
+  fc.record({
+    // Rows inserted just below an item (often inside its bus's run of rows) and a row typed
+    // into the last of them, on any bus: the engine widens the run's range over inserted rows.
+    op: fc.constant('insertTyped' as const),
+    sheet: fc.constantFrom(...SHUNT_SHEETS),
+    at: fc.nat(),
+    count: fc.integer({ min: 1, max: 3 }),
+    bus: fc.nat(),
+    p: num(1, 300),
   }),
   fc.record({
     op: fc.constant('remove' as const),
@@ -231,6 +242,22 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
       const at = 1 + (e.at % Math.max(1, rows));
       s.insertRows(sheetId(e.sheet), at, e.count);
       return `insert ${e.count} rows at ${at + 1} on ${plans[e.sheet]?.sheet.name}`;
+    }
+    case 'insertTyped': {
+      const below = pickRow(e.sheet, e.at);
+      if (below === undefined) return 'insertTyped: no row';
+      const at = below + 1;
+      s.insertRows(sheetId(e.sheet), at, e.count);
+      const row = at + e.count - 1;
+      const cells: Array<{ row: number; col: number; content: CellContent }> = [
+        { row, col: col(e.sheet, 'tag'), content: `I${++tags}` },
+        { row, col: col(e.sheet, 'bus'), content: pickBus(e.bus) },
+        { row, col: col(e.sheet, 'p_kw'), content: e.p },
+        { row, col: col(e.sheet, 'cos_phi'), content: 0.82 },
+      ];
+      if (e.sheet === 0) cells.push({ row, col: col(e.sheet, 'eff'), content: 0.93 });
+      s.setCells(sheetId(e.sheet), cells);
+      return `insert ${e.count} rows below row ${below + 1} of ${plans[e.sheet]?.sheet.name}, type a row on ${pickBus(e.bus)} at row ${row + 1}`;
     }
     case 'remove': {
       const row = pickRow(e.sheet, e.row);
