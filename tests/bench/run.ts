@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
 import { SHEETS } from '../../src/core/workbook/layout.ts';
 import { measureBrowser } from './browser.ts';
-import { notRun, runPhaseInChild } from './child.ts';
+import { compileWorker, notRun, runPhaseInChild } from './child.ts';
 import { compileCli, measureCliBalance, measureCliExport, measureCliStart } from './cliProcess.ts';
 import { describeMachine } from './machine.ts';
 import { makePeer, measurePeer, measureStartup, soffice, type Peer } from './peer.ts';
@@ -132,6 +132,7 @@ async function main(): Promise<void> {
   const memory: MemoryResult[] = [];
   let peer: { peer: Peer; startup: StepResult } | undefined;
   try {
+    compileWorker();
     if (opts.cli) {
       compileCli();
       const r = measureCliStart(0);

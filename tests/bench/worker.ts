@@ -1,4 +1,5 @@
-// Child-process entry of one phase: `node --import tsx tests/bench/worker.ts <phase> <rows> <buses> <workDir>`.
+// Child-process entry of one phase, compiled by tsc first (child.ts):
+// `node node_modules/.kvar-ledger-bench/tests/bench/worker.js <phase> <rows> <buses> <workDir>`.
 // Each message is one line on stdout, prefixed so that anything else printed is ignored.
 import { MESSAGE_PREFIX, PHASES, runPhase, type PhaseMessage, type PhaseName } from './phases.ts';
 import { peakRssMb } from './timing.ts';
