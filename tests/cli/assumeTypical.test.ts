@@ -184,3 +184,33 @@ describe('kvar-ledger --assume-typical on a feeder cable', () => {
     expect(j.root.q_kvar).toBeCloseTo(qLoad + i2x, 6);
   });
 });
+
+describe('kvar-ledger --assume-typical on an overhead line', () => {
+  // An invented list: a 20 kV line of 240 mm² aluminium with L and C blank, feeding 8 MVA over
+  // 5 km. Typical 20 kV line: 1.1 mH/km and 10.5 nF/km (common practice, from memory). By hand:
+  // I = 230.9 A; 3·I²·(2π·50·1.1e-3)·5 = 276.5 kvar absorbed, ω·C·U²·len = 6.6 kvar delivered.
+  const lineList =
+    'Tag,Bus,Kind,to_bus,u_kv,al_mm2,l_mh_km,c_nf_km,len_km,p_kw,cos_phi\n' +
+    'L1,MV,line,FAR,20,240,,,5,,\n' +
+    'X1,FAR,load,,20,,,,,6400,0.8\n';
+  const lineFile = join(tmp, 'line.csv');
+  writeFileSync(lineFile, lineList);
+
+  it('assumes L and C by voltage, says so, and counts the line I²X and charging', async () => {
+    const text = await cli(balanceRun, lineFile, '--assume-typical');
+    expect(text.code, text.err).toBe(0);
+    expect(text.err).toMatch(
+      /Lines row 2 \(L1\): l_mh_km = 1\.1 \(20 kV single-circuit overhead line; typical overhead line L and C/,
+    );
+    const r = await cli(balanceRun, lineFile, '--assume-typical', '--json');
+    const j = JSON.parse(r.out) as { root: { q_kvar: number }; assumed: AssumedJson[] };
+    expect(j.assumed.map((a) => [a.sheet, a.field, a.value])).toEqual([
+      ['Lines', 'l_mh_km', 1.1],
+      ['Lines', 'c_nf_km', 10.5],
+    ]);
+    const amps = 8000 / (Math.sqrt(3) * 20);
+    const i2x = (3 * amps ** 2 * (2 * Math.PI * 50 * 1.1e-3) * 5) / 1000;
+    const charging = (2 * Math.PI * 50 * 10.5e-9 * 20_000 ** 2 * 5) / 1000;
+    expect(j.root.q_kvar).toBeCloseTo(4800 + i2x - charging, 6);
+  });
+});

@@ -131,3 +131,47 @@ describe('filling blanks with typical values', () => {
     );
   });
 });
+
+describe('filling a line with blank inductance and capacitance', () => {
+  it('takes 1.1 mH/km and 10.5 nF/km at 11 kV, marked assumed, and the sheet counts their I²X', async () => {
+    const s = await demo();
+    const lines = s.engine.getSheetId('Lines') as number;
+    const loads = s.engine.getSheetId('Loads') as number;
+    const lc = columns(s, lines);
+    const dc = columns(s, loads);
+    const row = s.sheetContents(lines).length;
+    s.setCells(lines, [
+      { row, col: lc('Tag'), content: 'L-TYP' },
+      { row, col: lc('Bus'), content: 'MV-11' },
+      { row, col: lc('Feeds bus'), content: 'FAR' },
+      { row, col: lc('U (kV)'), content: 11 },
+      { row, col: lc('Length (km)'), content: 3 },
+    ]);
+    const drow = s.sheetContents(loads).length;
+    s.setCells(loads, [
+      { row: drow, col: dc('Tag'), content: 'FAR-LOAD' },
+      { row: drow, col: dc('Bus'), content: 'FAR' },
+      { row: drow, col: dc('P (kW)'), content: 1600 },
+      { row: drow, col: dc('cos φ'), content: 0.8 },
+      { row: drow, col: dc('Load (default)'), content: 1 },
+    ]);
+    await s.fillTypicalValues();
+    const value = (c: string) => s.engine.getCellValue({ sheet: lines, row, col: lc(c) });
+    // Typical single-circuit MV line (common practice, from memory; see lineTypical.test.ts).
+    expect(value('L (mH/km)')).toBe(1.1);
+    expect(value('C (nF/km)')).toBe(10.5);
+    const marks = (s.meta(lines).marks ?? []).filter((m) => m.row === row);
+    expect(marks.map((m) => [m.col, m.kind])).toEqual([
+      [lc('L (mH/km)'), 'assumed'],
+      [lc('C (nF/km)'), 'assumed'],
+    ]);
+    // By hand: 2000 kVA at 11 kV is 105.0 A; X = 2π·50 Hz·1.1 mH/km = 0.3456 Ω/km;
+    // 3·I²·X·3 km = 34.3 kvar. Charging ω·C·U²·len = 314.16 · 10.5e-9 · 11 000² · 3 = 1.2 kvar.
+    const amps = 2000 / (Math.sqrt(3) * 11);
+    const i2x = (3 * amps ** 2 * (2 * Math.PI * 50 * 1.1e-3) * 3) / 1000;
+    expect(i2x).toBeCloseTo(34.3, 1);
+    expect(value('Q absorbed summer-day (kvar)') as number).toBeCloseTo(i2x, 6);
+    const charging = (2 * Math.PI * 50 * 10.5e-9 * 11_000 ** 2 * 3) / 1000;
+    expect(Math.abs(value('Q delivered (kvar)') as number)).toBeCloseTo(charging, 6);
+  });
+});

@@ -18,6 +18,7 @@ export {
   equipmentSheets,
   findKind,
   isBranchKind,
+  isCapacitorKind,
   kindNames,
   kindOf,
   registerKind,

@@ -56,6 +56,11 @@ export function equipmentSheets(): ReadonlyArray<{
   return out;
 }
 
+/** A kind with the capacitor trait: installed compensation, counted in resonance (never by its name). */
+export function isCapacitorKind(name: string): boolean {
+  return findKind(name)?.traits?.capacitor === true;
+}
+
 export function isBranchKind(name: string): boolean {
   return findKind(name)?.role === 'branch';
 }

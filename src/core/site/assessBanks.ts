@@ -37,6 +37,21 @@ export interface Assessment {
 
 const f = (x: number, d = 1) => x.toFixed(d);
 
+/** Of the switching states near a harmonic, the one nearest it (relative distance of the order). */
+function nearestState(
+  states: readonly number[],
+  orderOf: (q: number) => { order: number; near: number | undefined } | undefined,
+): { q: number; order: number; near: number } | undefined {
+  let best: { q: number; order: number; near: number; off: number } | undefined;
+  for (const q of states) {
+    const r = orderOf(q);
+    if (r?.near === undefined) continue;
+    const off = Math.abs(r.order / r.near - 1);
+    if (best === undefined || off < best.off) best = { q, order: r.order, near: r.near, off };
+  }
+  return best && { q: best.q, order: best.order, near: best.near };
+}
+
 function bankWarnings(
   site: Site,
   choices: readonly BankChoice[],
@@ -111,27 +126,28 @@ function bankWarnings(
       p > 0
         ? [{ case: undefined, kvar: 0 }]
         : zones.map((z) => ({ case: z.case, kvar: z.zones.get(top)?.charging_kvar ?? 0 }));
-    search: for (const ch of chargingBy) {
-      for (const q of states) {
-        const connected = q * (1 - p / 100) + plain + ch.kvar;
-        const order = resonanceOrderOf(sc.ssc_mva, connected, p);
-        const near = order === undefined ? undefined : nearHarmonic(order);
-        if (order !== undefined && near !== undefined) {
-          const withCharging = ch.kvar > 0 ? ` and ${f(ch.kvar)} kvar of cable and line charging` : '';
-          // The design's rule (detuningChoice.ts): near an order nothing on the bus or below
-          // produces (no 6-pulse source, only the background 5th and 7th), information only.
-          const produced = relevant.includes(near);
-          out.push(
-            designWarning(
-              produced ? 'warning' : 'info',
-              'resonance',
-              { bus: c.bus, ...(ch.case !== undefined && ch.kvar > 0 ? { case: ch.case } : {}) },
-              `with ${f(q + plain)} kvar connected${withCharging} the bank on bus ${c.bus} resonates at order ${f(order, 2)}${infiniteSupplyNote(sc)}, near the ${near}th harmonic${produced ? '' : `, which no item on bus ${c.bus} or below produces (no 6-pulse drive or rectifier)`}; choose another detuning or step size`,
-            ),
-          );
-          break search;
-        }
-      }
+    // Every case whose charging brings a switching state near a harmonic gets its finding, the
+    // state nearest the harmonic in that case: a finding tied to the first case found would
+    // vanish from a listing of another case (`balance --case night`) where it holds as well.
+    const seen = new Set<string>();
+    for (const ch of chargingBy) {
+      const worst = nearestState(states, (q) => {
+        const order = resonanceOrderOf(sc.ssc_mva, q * (1 - p / 100) + plain + ch.kvar, p);
+        return order === undefined ? undefined : { order, near: nearHarmonic(order) };
+      });
+      if (worst === undefined) continue;
+      const { q, order, near } = worst;
+      const withCharging = ch.kvar > 0 ? ` and ${f(ch.kvar)} kvar of cable and line charging` : '';
+      // The design's rule (detuningChoice.ts): near an order nothing on the bus or below
+      // produces (no 6-pulse source, only the background 5th and 7th), information only.
+      const produced = relevant.includes(near);
+      const message = `with ${f(q + plain)} kvar connected${withCharging} the bank on bus ${c.bus} resonates at order ${f(order, 2)}${infiniteSupplyNote(sc)}, near the ${near}th harmonic${produced ? '' : `, which no item on bus ${c.bus} or below produces (no 6-pulse drive or rectifier)`}; choose another detuning or step size`;
+      const where = { bus: c.bus, ...(ch.case !== undefined && ch.kvar > 0 ? { case: ch.case } : {}) };
+      // Cases without charging give the same finding, for no case in particular: said once.
+      const key = `${where.case ?? ''}|${message}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      out.push(designWarning(produced ? 'warning' : 'info', 'resonance', where, message));
     }
     const stage = largestStageKvar(c);
     const rise = voltageRise(stage, sc.ssc_mva);

@@ -30,6 +30,7 @@ import { grouped } from './limits.ts';
 import { DEFAULT_STEP_SERIES, largestRatio, type StepSeries } from './stepSeries.ts';
 import { chooseDetuning } from './detuningChoice.ts';
 import { harmonicShares, isDriveFed } from './harmonicSources.ts';
+import { isCapacitorKind } from '../kinds/index.ts';
 
 export interface ResonancePoint {
   /** Capacitor kvar connected on the bus in this switching state (installed plain + this bank). */
@@ -123,7 +124,7 @@ export function sizeBank(
   const shares = Object.values(share);
   const most = Math.max(0, ...shares);
   const least = Math.max(0, Math.min(...shares));
-  const installed = (graph.items.get(bus) ?? []).filter((r) => r.kind === 'capacitor');
+  const installed = (graph.items.get(bus) ?? []).filter((r) => isCapacitorKind(r.kind));
   const plainInstalled = installed
     .filter((r) => !(r.values.p_pct && r.values.p_pct > 0))
     .reduce((s, r) => s + installedCapacitorKvar(r, hz), 0);

@@ -9,6 +9,7 @@
 // and the Compensation sheet's formulas both read it that way.
 import type { EquipmentRow } from './model.ts';
 import type { BusGraph } from './graph.ts';
+import { isCapacitorKind } from '../kinds/index.ts';
 
 /** The motor whose bus holds only it and capacitors (individual compensation), if any. */
 export function soleMotorOf(
@@ -18,7 +19,7 @@ export function soleMotorOf(
   if ((graph.branches.get(bus) ?? []).length > 0) return undefined;
   const items = graph.items.get(bus) ?? [];
   const motors = items.filter((r) => r.kind === 'motor');
-  const others = items.filter((r) => r.kind !== 'motor' && r.kind !== 'capacitor');
+  const others = items.filter((r) => r.kind !== 'motor' && !isCapacitorKind(r.kind));
   return motors.length === 1 && others.length === 0 ? motors[0] : undefined;
 }
 

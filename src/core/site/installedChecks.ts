@@ -33,6 +33,7 @@ import { soleMotorOf } from './individualCompensation.ts';
 export { soleMotorOf } from './individualCompensation.ts';
 export { motorCapacitorLimit } from './selfExcitation.ts';
 import { assumedI0Text, motorCapacitorLimit } from './selfExcitation.ts';
+import { isCapacitorKind } from '../kinds/index.ts';
 
 const f = (x: number, digits = 1) => x.toFixed(digits);
 
@@ -54,7 +55,7 @@ export function checkInstalled(
 ): DesignWarning[] {
   const out: DesignWarning[] = [...supplyWarnings(site, graph, voltages)];
   const hz = site.settings.hz;
-  const caps = site.equipment.filter((r) => r.kind === 'capacitor');
+  const caps = site.equipment.filter((r) => isCapacitorKind(r.kind));
   for (const row of caps) {
     const { u_rated_kv: ur, u_kv: u, p_pct: p } = row.values;
     if (ur === undefined) continue;

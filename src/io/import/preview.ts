@@ -49,7 +49,7 @@ export interface PreviewOptions {
   /** The open site's settings: its first case names the plain load column, its other cases are kept. */
   readonly settings?: SiteSettings;
   /**
-   * Fill the blank inputs of motors, transformers and feeders with typical values as the rows arrive
+   * Fill the blank inputs of motors, transformers, feeders and lines with typical values as the rows arrive
    * (before they are checked), each listed as assumed; the workbook marks them.
    */
   readonly fillTypical?: boolean;

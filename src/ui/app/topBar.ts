@@ -222,7 +222,7 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
   return { root, title };
 }
 
-/** Typical values into the blanks of motors, transformers and feeders, saying what went in and what did not. */
+/** Typical values into the blanks of motors, transformers, feeders and lines, saying what went in and what did not. */
 async function fillTypical(app: TopBarHost): Promise<void> {
   const r = await app.session.fillTypicalValues();
   const left =

@@ -78,7 +78,7 @@ export async function runImport(app: ImportHost, file: File): Promise<void> {
   const fillBox = el('input', { attrs: { type: 'checkbox', 'data-testid': 'import-fill-typical' } });
   const fill = el('label', { className: 'kl-tick' }, [
     fillBox,
-    ' Fill blanks of motors, transformers and feeder cables with typical values (marked as assumed)',
+    ' Fill blanks of motors, transformers, feeder cables and lines with typical values (marked as assumed)',
   ]);
   // Replacing the equipment asks what becomes of the site settings; adding always keeps them.
   const keepBox = el('input', {

@@ -16,7 +16,7 @@ import { rollUp } from '../../../src/core/site/rollup.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { COMP_HEADERS } from '../../../src/core/workbook/compensationColumns.ts';
 import { busRow, liveEngine, num, portableEngine, valueAt } from './engineDoc.ts';
-import { bank, nightCharging, order, site, sscA } from './chargedSolar.ts';
+import { bank, lines, nightCharging, order, site, sscA } from './chargedSolar.ts';
 
 describe('charging in the Compensation sheet: the solar template with a plain bank on a collector bus', () => {
   it('the hand figures: about 2.7 Mvar of charging at night against about 357 MVA', () => {
@@ -70,13 +70,18 @@ describe('charging in the Compensation sheet: the solar template with a plain ba
     expect(got).toBeCloseTo(1 / Math.sqrt(0.07 + (1200 * 0.93) / (sscA * 1000)), 9);
   });
 
-  it('Checks warns of the same resonance, naming the charging', () => {
+  it('Checks warns of the same resonance in each case, naming that case’s charging', () => {
     const w = assessBanks(site, [bank]).warnings.filter((x) => x.code === 'resonance' && x.bus === 'BLK-A');
-    expect(w).toHaveLength(1);
-    expect(w[0]?.message).toMatch(/kvar of cable and line charging/);
-    expect(w[0]?.message).toMatch(/near the 11th harmonic/);
-    // The inverters are no 6-pulse source: information, by the design's rule.
-    expect(w[0]?.severity).toBe('info');
+    // Near the 11th at noon (the lines' charging) and at night (with the cable too): a listing of
+    // either case (`balance --case night`) shows it.
+    expect(w.map((x) => x.case)).toEqual(['noon', 'night']);
+    expect(w[0]?.message).toContain(`${lines.toFixed(1)} kvar of cable and line charging`);
+    expect(w[1]?.message).toContain(`${nightCharging.toFixed(1)} kvar of cable and line charging`);
+    for (const x of w) {
+      expect(x.message).toMatch(/near the 11th harmonic/);
+      // The inverters are no 6-pulse source: information, by the design's rule.
+      expect(x.severity).toBe('info');
+    }
   });
 });
 

@@ -89,3 +89,24 @@ describe('import with typical values for blanks', () => {
     for (const h of heldBefore) expect(heldAfter).toContain(h);
   });
 });
+
+describe('import of a line without inductance and capacitance', () => {
+  // A typical single-circuit MV line: 1.1 mH/km and 10.5 nF/km (common practice, from memory;
+  // checked against the line geometry in tests/core/site/typical/lineTypical.test.ts).
+  const LINE_LIST = 'Tag,Bus,Kind,to_bus,u_kv,l_mh_km,c_nf_km,len_km\n' + 'OHL-9,MV-11,line,FAR-9,11,,,2\n';
+
+  it('the preview fills L and C by voltage and lists them as assumed', () => {
+    const t = tableFromCsvText('line.csv', LINE_LIST);
+    if (!t.ok) throw new Error(t.problem.message);
+    const opts = { settings: siteFromWorkbook(current).site.settings };
+    const plain = previewImport(proposeMapping(t.value), { ...opts, fillTypical: false });
+    expect(plain.problems.some((p) => /l_mh_km is required/.test(p.message))).toBe(true);
+    const filled = previewImport(proposeMapping(t.value), { ...opts, fillTypical: true });
+    expect(filled.rows[0]?.cells.l_mh_km).toBe(1.1);
+    expect(filled.rows[0]?.cells.c_nf_km).toBe(10.5);
+    expect(filled.assumed.map((a) => [a.tag, a.column, a.value])).toEqual([
+      ['OHL-9', 'l_mh_km', 1.1],
+      ['OHL-9', 'c_nf_km', 10.5],
+    ]);
+  });
+});

@@ -25,6 +25,7 @@ export type Edit =
   | { op: 'clear'; sheet: number; row: number }
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number; series: string | null }
   | { op: 'design'; bus: number; p: number; urFactor: number | null }
+  | { op: 'detuneAlone'; bus: number; p: number }
   | {
       op: 'resistance';
       on: 'lines' | 'feeders';
@@ -117,6 +118,12 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     bus: fc.nat(),
     p: fc.constantFrom(0, 5.67, 7, 14),
     urFactor: fc.option(fc.constantFrom(1.05, 1.1, 1.2), { nil: null }),
+  }),
+  // A detuning typed alone: the row's sizes and reactor cleared, only p (%) left on it.
+  fc.record({
+    op: fc.constant('detuneAlone' as const),
+    bus: fc.nat(),
+    p: fc.constantFrom(5.67, 7, 14),
   }),
   fc.record({
     op: fc.constant('supply' as const),
@@ -328,6 +335,20 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
         { row, col: comp.input.u_rated_kv, content: ur },
       ]);
       return `design on ${buses[row - 1]}: p ${e.p} %, Ur ${ur}`;
+    }
+    case 'detuneAlone': {
+      if (buses.length === 0) return 'detuneAlone: no bus';
+      const comp = planCompensationColumns(cases);
+      const row = 1 + (e.bus % buses.length);
+      s.setCells(model.ids.comp, [
+        { row, col: comp.input.fixed_kvar, content: null },
+        { row, col: comp.input.step_kvar, content: null },
+        { row, col: comp.input.steps, content: null },
+        { row, col: comp.input.series, content: null },
+        { row, col: comp.input.reactor_kvar, content: null },
+        { row, col: comp.input.p_pct, content: e.p },
+      ]);
+      return `detuning ${e.p} % typed alone on ${buses[row - 1]}`;
     }
     case 'rate': {
       // A rate typed or cleared on the Rates sheet (any row, surcharges included).

@@ -12,6 +12,7 @@ import {
 } from './motors.ts';
 import type { TypicalSource } from './sources.ts';
 import { CABLE_X_BANDS, cableReactance } from './cables.ts';
+import { LINE_BANDS, LINE_TYPICAL_ABOVE_KV, lineCapacitance, lineInductance } from './lines.ts';
 import {
   ecodesignLosses,
   transformerNoLoadCurrent,
@@ -62,6 +63,7 @@ export function assumeTypical(row: RowInputs, opts: AssumeOptions = {}): Assumpt
   if (row.kind === 'motor') return assumeMotor(row.values, opts);
   if (row.kind === 'transformer') return assumeTransformer(row.values, opts);
   if (row.kind === 'feeder') return assumeFeeder(row.values);
+  if (row.kind === 'line') return assumeLine(row.values);
   return { assumed: [], notAssumed: [] };
 }
 
@@ -106,6 +108,27 @@ function assumeFeeder(values: RowInputs['values']): Assumptions {
     values,
     [{ column: 'x_ohm_km', get: () => cableReactance(u as number), step: 0.01, basis: `${u} kV cable` }],
     `no typical reactance above ${CABLE_X_BANDS[CABLE_X_BANDS.length - 1]?.upToKv} kV: take the maker's data`,
+  );
+}
+
+function assumeLine(values: RowInputs['values']): Assumptions {
+  const u = values.u_kv;
+  if (isBlank(u) || !((u as number) > 0)) {
+    const blank = (['l_mh_km', 'c_nf_km'] as const).filter((c) => isBlank(values[c]));
+    return { assumed: [], notAssumed: blank.map((c) => `${c}: no typical value without the voltage (u_kv)`) };
+  }
+  const kv = u as number;
+  const basis = `${kv} kV single-circuit overhead line`;
+  const top = LINE_BANDS[LINE_BANDS.length - 1]?.upToKv;
+  return collect(
+    values,
+    [
+      { column: 'l_mh_km', get: () => lineInductance(kv), step: 0.01, basis },
+      { column: 'c_nf_km', get: () => lineCapacitance(kv), step: 0.1, basis },
+    ],
+    kv > LINE_TYPICAL_ABOVE_KV
+      ? `no typical value above ${top} kV, where bundled conductors and double circuits decide: take the utility's or the maker's data`
+      : `no typical value at or below ${LINE_TYPICAL_ABOVE_KV} kV, where open-wire lines and aerial bundled cables differ threefold: take the maker's data`,
   );
 }
 

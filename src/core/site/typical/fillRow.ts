@@ -1,6 +1,6 @@
 // The one rule for filling blanks with typical values, used by the page (its open workbook's
 // cells), the import (the rows as they arrive) and the command line (a site read from a file).
-// Motors, transformers and feeder cables have tables; only a blank input is filled, never a typed
+// Motors, transformers, feeder cables and overhead lines have tables; only a blank input is filled, never a typed
 // number, text or formula; and a value comes only from a typed rating (rated output, kVA, kV).
 import type { NumericColumn } from '../model.ts';
 import { assumeTypical } from './assume.ts';
@@ -22,9 +22,9 @@ export interface RowFill {
 }
 
 /** Kinds with typical-value tables. */
-export const TYPICAL_KINDS: ReadonlySet<string> = new Set(['motor', 'transformer', 'feeder']);
+export const TYPICAL_KINDS: ReadonlySet<string> = new Set(['motor', 'transformer', 'feeder', 'line']);
 
-/** The inputs the tables read or fill (motors: p_kw, eff, cos_phi, i0_pct; transformers: s_kva …; feeders: u_kv, x_ohm_km). */
+/** The inputs the tables read or fill (motors: p_kw, eff, cos_phi, i0_pct; transformers: s_kva …; feeders: u_kv, x_ohm_km; lines: u_kv, l_mh_km, c_nf_km). */
 const TABLE_INPUTS = [
   'p_kw',
   'eff',
@@ -36,6 +36,8 @@ const TABLE_INPUTS = [
   'pk_kw',
   'u_kv',
   'x_ohm_km',
+  'l_mh_km',
+  'c_nf_km',
 ] as const;
 
 /** "assumed 0.914 (11 kW, 4-pole, class IE3; source)" → "11 kW, 4-pole, class IE3; source". */

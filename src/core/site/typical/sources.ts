@@ -62,6 +62,11 @@ export const SOURCES = {
     ref: 'Series reactance of power cables as commonly quoted in makers’ data: about 0.08 Ω/km for low-voltage multicore cables and about 0.11 Ω/km for medium-voltage single-core XLPE cables in trefoil (up to 36 kV); common practice, values from memory',
     kind: 'common practice',
   },
+  lineGeometry: {
+    label: 'typical overhead line L and C by voltage (common practice)',
+    ref: 'Inductance and capacitance per phase of single-circuit overhead lines with one conductor per phase, L = 0.2·ln(D/r′) mH/km and C = 55.6/ln(D/r) nF/km as in power-system textbooks (e.g. Grainger and Stevenson, Power System Analysis, chapters 4 and 5), at the spacings and conductor sizes commonly used: about 1.2 m and r ≈ 6 mm up to 36 kV (1.1 mH/km, 10.5 nF/km), about 4.5 m and r ≈ 10.5 mm at 66–132 kV (1.25 mH/km, 9.2 nF/km); common practice, values from memory',
+    kind: 'common practice',
+  },
 } as const satisfies Record<string, TypicalSource>;
 
 export type SourceId = keyof typeof SOURCES;
