@@ -37,7 +37,7 @@ describe('Checks panel', () => {
     await typeInCell(page, 1, 7, '1.3');
     await expect.poll(() => summary().textContent(), { timeout: 20_000 }).toMatch(/^1 error,/);
     const item = page.locator('.kl-check.is-error').first();
-    expect(await item.locator('.kl-check-where').textContent()).toBe('Motors row 2, column cos_phi');
+    expect(await item.locator('.kl-check-where').textContent()).toBe('Motors row 2, column cos φ');
     expect(await item.locator('.kl-check-text').textContent()).toMatch(/must be in \(0, 1\]; got 1\.3/);
     await screenshot(page, '11-checks');
     await openSheet(page, 'Site');

@@ -151,7 +151,7 @@ describe('Checks: each entry jumps to its cell', () => {
     const cos = await column('cos φ');
     await typeInCell(page, 2, cos, '1.4');
     await openSheet(page, 'Site');
-    await jump(/^Motors row 3, column cos_phi$/);
+    await jump(/^Motors row 3, column cos φ$/);
     await expect.poll(caption).toBe('Motors');
     expect(await address()).toBe(`Motors!${String.fromCharCode(65 + cos)}3`);
     await undo();
@@ -167,7 +167,7 @@ describe('Checks: each entry jumps to its cell', () => {
     expect(await checksSummary()).toMatch(/^1 error/);
     expect(await entry.locator('.kl-check-text').textContent()).toContain('LV-REFF (Loads row 3)');
     await openSheet(page, 'Site');
-    await jump(/^Loads row 3, column bus$/);
+    await jump(/^Loads row 3, column Bus$/);
     await expect.poll(caption).toBe('Loads');
     expect(await address()).toBe(`Loads!${String.fromCharCode(65 + busCol)}3`);
     await undo();

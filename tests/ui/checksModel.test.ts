@@ -35,8 +35,10 @@ describe('checks of a workbook', () => {
     const r = collectChecks(doc);
     const bad = r.items.find((i) => i.severity === 'error');
     expect(bad?.target).toEqual({ sheet: 'Motors', row: 3, col });
-    expect(bad?.where).toBe('Motors row 3, column cos_phi');
+    // The grid's header names the column, in the place and in the message, not the site file's key.
+    expect(bad?.where).toBe('Motors row 3, column cos φ');
     expect(bad?.text).toContain('got 1.3');
+    expect(bad?.text).not.toContain('cos_phi');
     expect(r.designSkipped).toMatch(/input errors/);
     expect(r.items.some((i) => i.code !== 'input')).toBe(false);
   });
@@ -52,7 +54,7 @@ describe('checks of a workbook', () => {
     const r = collectChecks(doc);
     const found = r.items.filter((i) => i.target?.sheet === 'Lines');
     expect(found.map((i) => [i.severity, i.code, i.where])).toEqual([
-      ['warning', 'input', 'Lines row 2, column r_ohm_km'],
+      ['warning', 'input', 'Lines row 2, column R (Ω/km)'],
     ]);
     expect(found[0]?.text).toMatch(
       /kW losses of line F-A \(3·I²·R\) are not counted before or after compensation/,
@@ -105,7 +107,7 @@ describe('checks of a workbook', () => {
     const r = collectChecks(doc);
     const bad = r.items.find((i) => i.severity === 'error' && i.text.includes(typo));
     expect(bad?.target).toEqual({ sheet: 'Loads', row: lastRow + 1, col: busCol });
-    expect(bad?.where).toBe(`Loads row ${lastRow + 1}, column bus`);
+    expect(bad?.where).toBe(`Loads row ${lastRow + 1}, column Bus`);
     expect(bad?.text).toContain(`${typo} (Loads row ${lastRow + 1})`);
     expect(bad?.text).not.toMatch(/\(row \d+\)/);
   });

@@ -53,7 +53,12 @@ function settingsRow(doc: SheetDoc | undefined, label: string): number | undefin
 }
 
 /** The grid column of an interchange column ('cos_phi', 'load:night') on an equipment sheet. */
-function columnOf(doc: WorkbookDoc, sheet: string, column: string | undefined): number | undefined {
+/** The grid column and header of an input named by its key (the site file's name for it). */
+function columnOf(
+  doc: WorkbookDoc,
+  sheet: string,
+  column: string | undefined,
+): { index: number | undefined; header: string } | undefined {
   if (!column) return undefined;
   const s = findSheet(doc.sheets, sheet);
   const layout = equipmentSheets().find((l) => l.sheet.name === s?.name)?.sheet;
@@ -63,10 +68,19 @@ function columnOf(doc: WorkbookDoc, sheet: string, column: string | undefined): 
     : column === 'load'
       ? HEADERS.loadDefault
       : layout.inputs.find((c) => c.key === column)?.header;
-  return header === undefined ? undefined : headerIndex(s).get(header.toLowerCase());
+  return header === undefined ? undefined : { index: headerIndex(s).get(header.toLowerCase()), header };
 }
 
-/** A problem of the workbook reader: its message names the sheet, grid row and column header. */
+/**
+ * The message with the input's key (l_mh_km, cos_phi, load:night) replaced by the header the user
+ * sees in the grid. Keys that are plain words (bus, tag, qty) stay: they also occur as words.
+ */
+function withHeader(text: string, key: string | undefined, header: string | undefined): string {
+  if (!key || !header || key === header || !/[_:]/.test(key)) return text;
+  const escaped = key.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  return text.replace(new RegExp(`(^|[^A-Za-z0-9_:])${escaped}(?![A-Za-z0-9_])`, 'g'), `$1${header}`);
+}
+
 export function locateReaderProblem(p: Problem, doc: WorkbookDoc): Located {
   const m = READER.exec(p.message);
   if (m) {
@@ -113,10 +127,13 @@ export function locateRuleProblem(
   const text = sheetRows(bare(p), origins);
   if (origin) {
     const row = origin.row + 1;
-    const col = columnOf(doc, origin.sheet, p.column);
+    const found = columnOf(doc, origin.sheet, p.column);
+    const col = found?.index;
+    // The grid's header, not the site file's key: "column L (mH/km)", not "column l_mh_km".
+    const name = found?.header ?? p.column;
     return {
-      where: [`${origin.sheet} row ${row}`, p.column ? `column ${p.column}` : ''].filter(Boolean).join(', '),
-      text,
+      where: [`${origin.sheet} row ${row}`, name ? `column ${name}` : ''].filter(Boolean).join(', '),
+      text: withHeader(text, p.column, found?.header),
       target: { sheet: origin.sheet, row, ...(col !== undefined ? { col } : {}) },
       key: `${origin.sheet}|${row}|${p.column ?? ''}`,
     };
