@@ -85,12 +85,26 @@ export const QUANT_COLUMNS: readonly ColumnInfo[] = QUANT_HEADERS.map((header, c
   computed: true,
 }));
 
-/** The kinds of item, one line each in a bus's block, in the order an offer lists them. */
+/**
+ * The kinds of item, one line each in a bus's block, in the order an offer lists them. Stages are
+ * counted by size: a line per stage size of STAGE_RATIOS (1, 2, 4, 8 smallest steps, the suffix
+ * is its index) for capacitor units, detuning reactors and switching devices.
+ */
 export const SLOTS = [
-  'stepCapacitors',
+  'stageCapacitors0',
+  'stageCapacitors1',
+  'stageCapacitors2',
+  'stageCapacitors3',
   'fixedCapacitors',
-  'detuning',
-  'stepSwitching',
+  'stageDetuning0',
+  'stageDetuning1',
+  'stageDetuning2',
+  'stageDetuning3',
+  'fixedDetuning',
+  'stageSwitching0',
+  'stageSwitching1',
+  'stageSwitching2',
+  'stageSwitching3',
   'controller',
   'enclosure',
   'incomer',
