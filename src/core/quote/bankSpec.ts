@@ -36,8 +36,14 @@ export interface BankSpec {
   readonly p_pct: number;
   readonly tuning_order: number | null;
   readonly tuned_hz: number | null;
-  /** Capacitor rated voltage, kV (null when the sheet leaves it blank). */
+  /**
+   * Capacitor rated voltage, kV: as typed on the sheet, else the design's by its one rule
+   * (CAPBANK.URATED of the voltage across the capacitors, capacitorRatings.ts); null when neither
+   * can be had (a detuning the catalogue refuses).
+   */
   readonly u_rated_kv: number | null;
+  /** Where u_rated_kv came from. */
+  readonly u_rated_from: 'typed' | 'design';
   /** Nameplate kvar at u_rated_kv giving the fixed part's output (null when unknown). */
   readonly fixed_nameplate_kvar: number | null;
   /** Shunt reactor, kvar at the operating voltage (0 when none). */
@@ -57,6 +63,14 @@ function nameplatePerOutput(uRated: number, u: number, p: number, hz: number): n
   return r.ok && r.value !== 0 ? 1 / Math.abs(r.value) : null;
 }
 
+/** The design's rating for capacitors of a p % detuned bank at u: CAPBANK.URATED(CAPBANK.UCAP(u, p), f). */
+function designRating(u: number, p: number, hz: number): number | null {
+  const across = runCall({ fn: 'CAPBANK.UCAP', args: [u, p], columns: [] });
+  if (!across.ok) return null;
+  const r = runCall({ fn: 'CAPBANK.URATED', args: [across.value, hz], columns: [] });
+  return r.ok ? r.value : null;
+}
+
 function tuningOrder(p: number): number | null {
   if (!(p > 0)) return null;
   const r = runCall({ fn: 'CAPBANK.TUNE', args: [p], columns: [] });
@@ -69,7 +83,8 @@ export function bankSpec(choice: BankChoice, uKv: number, hz: number): BankSpec 
   const fixed = positive(choice.fixed_kvar);
   const step = positive(choice.step_kvar);
   const steps = step > 0 ? Math.max(0, Math.floor(choice.steps ?? 0)) : 0;
-  const uRated = choice.u_rated_kv !== undefined && choice.u_rated_kv > 0 ? choice.u_rated_kv : null;
+  const typed = choice.u_rated_kv !== undefined && choice.u_rated_kv > 0 ? choice.u_rated_kv : null;
+  const uRated = typed ?? designRating(uKv, p, hz);
   const per = uRated === null ? null : nameplatePerOutput(uRated, uKv, p, hz);
   const order = tuningOrder(p);
   const series = choice.series ?? DEFAULT_STEP_SERIES;
@@ -92,6 +107,7 @@ export function bankSpec(choice: BankChoice, uKv: number, hz: number): BankSpec 
     tuning_order: order,
     tuned_hz: order === null ? null : order * hz,
     u_rated_kv: uRated,
+    u_rated_from: typed === null ? 'design' : 'typed',
     fixed_nameplate_kvar: per === null || fixed === 0 ? null : fixed * per,
     reactor_kvar: positive(choice.reactor_kvar),
     sections: steps > 0 ? sectionsOf(steps) : [],

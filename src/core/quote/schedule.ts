@@ -59,7 +59,7 @@ function capacitorUnits(
       count: null,
       unit: 'kvar',
       quantity: null,
-      missing: `capacitor rated voltage is blank for bus ${spec.bus} (Compensation sheet, column "Capacitor rated voltage (kV)")`,
+      missing: `capacitor rated voltage is unknown for bus ${spec.bus}: the detuning cannot be built (Compensation sheet, columns "Detuning p (%)" and "Capacitor rated voltage (kV)")`,
     };
   // Each stage is built of whole units: LV three-phase units up to the largest size; MV
   // single-phase units, a multiple of three.
@@ -70,7 +70,7 @@ function capacitorUnits(
   return {
     bus: spec.bus,
     code,
-    what: `capacitor units, ${part}: ${perStage} a stage, ${perStage * stages} × ${fmt(unitKvar)} kvar nameplate at ${spec.u_rated_kv} kV rated${spec.low_voltage ? ', three-phase' : ', single-phase'}`,
+    what: `capacitor units, ${part}: ${perStage} a stage, ${perStage * stages} × ${fmt(unitKvar)} kvar nameplate at ${spec.u_rated_kv} kV rated${spec.u_rated_from === 'design' ? " (the design's rating)" : ''}${spec.low_voltage ? ', three-phase' : ', single-phase'}`,
     count: perStage * stages,
     unit: 'kvar',
     quantity: nameplate * stages,

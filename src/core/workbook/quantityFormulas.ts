@@ -139,7 +139,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase"))`,
       ),
       count: when('', `IF(${k.per}="","",${perStage}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),

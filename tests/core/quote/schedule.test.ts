@@ -104,11 +104,29 @@ describe('a shunt reactor', () => {
 });
 
 describe('what is not known is said, never counted as zero', () => {
-  it('a blank capacitor rated voltage leaves the capacitors without a quantity and names the input', () => {
-    const items = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6 }, 0.4, 50));
+  it("a blank capacitor rated voltage takes the design's rating: 1.1 × 400 V = 440 V (makers' IEC ranges, from memory)", () => {
+    const spec = bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6 }, 0.4, 50);
+    expect([spec.u_rated_kv, spec.u_rated_from]).toEqual([0.44, 'design']);
+    const cap = busSchedule(spec).find((i) => i.code === 'LV capacitor');
+    // 50 · (0.44/0.4)² = 60.5 kvar nameplate a step: two units each, 12 in all
+    expect(cap?.quantity).toBeCloseTo(6 * 50 * 1.1 ** 2, 9);
+    expect(cap?.count).toBe(12);
+    expect(cap?.what).toContain("at 0.44 kV rated (the design's rating)");
+  });
+  it('7 % detuned and blank: 400/(1 − 0.07) = 430 V across, × 1.1 = 473 V → 480 V, as if typed', () => {
+    const blank = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 7 }, 0.4, 50));
+    const typed = busSchedule(
+      bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 7, u_rated_kv: 0.48 }, 0.4, 50),
+    );
+    expect(blank.map((i) => [i.code, i.count, i.quantity])).toEqual(
+      typed.map((i) => [i.code, i.count, i.quantity]),
+    );
+  });
+  it('a detuning the catalogue refuses leaves the capacitors without a quantity and names the inputs', () => {
+    const items = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 100 }, 0.4, 50));
     const cap = items.find((i) => i.code === 'LV capacitor');
     expect(cap?.quantity).toBeNull();
-    expect(cap?.missing).toMatch(/rated voltage is blank for bus LV1/);
+    expect(cap?.missing).toMatch(/rated voltage is unknown for bus LV1/);
     expect(items.find((i) => i.code === 'LV contactor 125 A')?.count).toBe(6);
   });
   it('a site: buses without a bank are left out; a bus of unknown voltage says so', () => {

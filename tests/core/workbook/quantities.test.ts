@@ -144,13 +144,19 @@ describe('a missing rate is shown, not zero', () => {
     expect(q.total('Equipment')).toBe('unpriced');
     expect(q.total('Total')).toBe('unpriced');
   });
-  it('a blank capacitor rated voltage leaves the capacitors without a quantity, and unpriced', () => {
-    const s = open([{ ...LV_BANK, u_rated_kv: undefined }]);
+  it("a blank capacitor rated voltage takes the design's: 7 % at 400 V gives 480 V units, as if typed", () => {
+    // 400/(1 − 0.07) = 430 V across the capacitors, × 1.1 = 473 V → 480 V (makers' IEC ranges, from memory).
+    const blank = reader(open([{ ...LV_BANK, u_rated_kv: undefined }]));
+    expect(blank.v(busLineRow(0), QC.uRated)).toBe(0.48);
+    expect(blank.lines('LV1')).toEqual(reader(open([LV_BANK])).lines('LV1'));
+  });
+  it('a detuning the catalogue refuses leaves the capacitors without a quantity, and unpriced', () => {
+    const s = open([{ ...LV_BANK, u_rated_kv: undefined, p_pct: 100 }]);
     const q = reader(s);
     const caps = slotRow(0, 'stageCapacitors0');
     expect(q.v(caps, QC.quantity)).toBe('');
     expect(q.v(caps, QC.cost)).toBe('quantity unknown');
-    expect(String(q.v(caps, QC.what))).toMatch(/rated voltage is blank/);
+    expect(String(q.v(caps, QC.what))).toMatch(/rated voltage is unknown/);
     expect(q.total('Total')).toBe('unpriced');
   });
   it('a rate cleared on the Rates sheet says "no rate", not a cost of 0, and the row it came from', () => {
