@@ -8,10 +8,10 @@ import {
   IEC_LV_RATINGS_KV,
   IEC_MV_ROUNDING_KV,
   IEEE18_LV_RATINGS_KV,
-  IEEE18_MV_UNIT_RATINGS_KV,
+  IEEE_STAR_BANKS,
   LV_MAX_KV,
-  MAX_UNITS_IN_SERIES,
   capacitorRatedVoltage,
+  unitsInSeriesFor,
 } from '../site/capacitorRatings.ts';
 
 const FAMILY = 'Compensation equipment';
@@ -33,25 +33,16 @@ function firstFitting(list: readonly number[], wanted: string, otherwise: string
   return f;
 }
 
-/**
- * Every bank voltage a star of 1 to MAX_UNITS_IN_SERIES IEEE 18 units in series can have,
- * ascending: the smallest of them at or above the wanted voltage is the smallest of the best
- * banks for each count in series, which is what the rule takes.
- */
-const IEEE_STAR_BANKS_KV: readonly number[] = [
-  ...new Set(
-    Array.from({ length: MAX_UNITS_IN_SERIES }, (_, i) =>
-      IEEE18_MV_UNIT_RATINGS_KV.map((u) => Math.sqrt(3) * (i + 1) * u),
-    ).flat(),
-  ),
-].sort((a, b) => a - b);
-
 /** chooseCapacitorRating(uc, hz).bank_rated_kv in classic functions. */
 function ratingFormula(uc: string, hz: string): string {
   const w = `(${uc}*${1 + CAP_VOLTAGE_MARGIN})`;
   const lastOf = (list: readonly number[]) => list[list.length - 1] as number;
   const madeToOrder = `ROUND(ROUNDUP(${w}/${IEC_MV_ROUNDING_KV}-1/1000000000,0)*${IEC_MV_ROUNDING_KV},3)`;
-  const star = firstFitting(IEEE_STAR_BANKS_KV, w, madeToOrder);
+  const star = firstFitting(
+    IEEE_STAR_BANKS.map((b) => b.kv),
+    w,
+    madeToOrder,
+  );
   const iecLv = firstFitting(IEC_LV_RATINGS_KV, w, 'NA()');
   const ieeeLv = firstFitting(IEEE18_LV_RATINGS_KV, w, 'NA()');
   return (
@@ -112,4 +103,60 @@ export const CAPBANK_URATED = defineFunction({
   ],
   compute: ([uc, hz]) => capacitorRatedVoltage(num(uc), num(hz)),
   expand: ([uc, hz]) => ratingFormula(uc as string, hz as string),
+});
+
+/** unitsInSeriesFor(ur, hz) in classic functions: the star banks of more than one unit in series. */
+function seriesFormula(ur: string, hz: string): string {
+  let f = '1';
+  const stars = IEEE_STAR_BANKS.filter((b) => b.n > 1);
+  for (let i = stars.length - 1; i >= 0; i--) {
+    const b = stars[i] as { kv: number; n: number };
+    f = `IF(ABS(${ur}-${b.kv})<=${EPS * 1e9}/1000000000,${b.n},${f})`;
+  }
+  return `IF(AND(${hz}=60,${ur}>${LV_MAX_KV + EPS}),${f},1)`;
+}
+
+export const CAPBANK_USERIES = defineFunction({
+  name: 'CAPBANK.USERIES',
+  family: FAMILY,
+  summary: 'Capacitor units in series per phase of a bank of this rated voltage.',
+  description:
+    'At 60 Hz above 1 kV, a rating that a star of IEEE 18 single-phase units reaches with several units in series per phase ' +
+    '(the fewest that reach it) gives that number; otherwise 1 (LV three-phase units, or MV units made to the rating).',
+  params: [
+    {
+      name: 'u_rated_kv',
+      unit: 'kV',
+      doc: "the bank's rated voltage, line-to-line",
+      domain: { lo: 0, loOpen: true },
+    },
+    {
+      name: 'f_hz',
+      unit: 'Hz',
+      doc: 'system frequency (60: IEEE 18 units)',
+      domain: { lo: 0, loOpen: true },
+      default: 50,
+    },
+  ],
+  result: { unit: '1', doc: 'units in series per phase' },
+  source: {
+    kind: 'from memory',
+    ref: 'IEEE Std 18-2012 Table 1 (unit ratings, from memory); units in star, common practice',
+  },
+  examples: [
+    {
+      args: [46.003269449029375, 60],
+      expect: 2,
+      note: 'two 13.28 kV units a phase in star make 46 kV (recomputed in the tests)',
+    },
+    {
+      args: [16.5, 60],
+      expect: 1,
+      note: 'no IEEE 18 star gives 16.5 kV: one unit made to it (recomputed in the tests)',
+    },
+    { args: [0.44], expect: 1, note: 'LV three-phase units (recomputed in the tests)' },
+    { args: [0, 60], expect: { error: 'argument 1 (u_rated_kv) must be > 0; got 0' }, note: 'no rating' },
+  ],
+  compute: ([ur, hz]) => unitsInSeriesFor(num(ur), num(hz)),
+  expand: ([ur, hz]) => seriesFormula(ur as string, hz as string),
 });

@@ -44,6 +44,8 @@ export interface BankSpec {
   readonly u_rated_kv: number | null;
   /** Where u_rated_kv came from. */
   readonly u_rated_from: 'typed' | 'design';
+  /** Units in series per phase for that rating (CAPBANK.USERIES); null when the rating is unknown. */
+  readonly units_in_series: number | null;
   /** Nameplate kvar at u_rated_kv giving the fixed part's output (null when unknown). */
   readonly fixed_nameplate_kvar: number | null;
   /** Shunt reactor, kvar at the operating voltage (0 when none). */
@@ -68,6 +70,11 @@ function designRating(u: number, p: number, hz: number): number | null {
   const across = runCall({ fn: 'CAPBANK.UCAP', args: [u, p], columns: [] });
   if (!across.ok) return null;
   const r = runCall({ fn: 'CAPBANK.URATED', args: [across.value, hz], columns: [] });
+  return r.ok ? r.value : null;
+}
+
+function unitsInSeries(uRated: number, hz: number): number | null {
+  const r = runCall({ fn: 'CAPBANK.USERIES', args: [uRated, hz], columns: [] });
   return r.ok ? r.value : null;
 }
 
@@ -108,6 +115,7 @@ export function bankSpec(choice: BankChoice, uKv: number, hz: number): BankSpec 
     tuned_hz: order === null ? null : order * hz,
     u_rated_kv: uRated,
     u_rated_from: typed === null ? 'design' : 'typed',
+    units_in_series: uRated === null ? null : unitsInSeries(uRated, hz),
     fixed_nameplate_kvar: per === null || fixed === 0 ? null : fixed * per,
     reactor_kvar: positive(choice.reactor_kvar),
     sections: steps > 0 ? sectionsOf(steps) : [],

@@ -62,20 +62,27 @@ function capacitorUnits(
       missing: `capacitor rated voltage is unknown for bus ${spec.bus}: the detuning cannot be built (Compensation sheet, columns "Detuning p (%)" and "Capacitor rated voltage (kV)")`,
     };
   // Each stage is built of whole units: LV three-phase units up to the largest size; MV
-  // single-phase units, a multiple of three.
+  // single-phase units in star, a multiple of three times the units in series of the rating.
+  const series = spec.units_in_series ?? 1;
   const perStage = spec.low_voltage
     ? Math.ceil(nameplate / MAX_UNIT_KVAR_LV - 1e-9)
-    : MV_UNITS_MULTIPLE * Math.ceil(nameplate / (MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV) - 1e-9);
+    : MV_UNITS_MULTIPLE *
+      series *
+      Math.ceil(nameplate / (MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV * series) - 1e-9);
   const unitKvar = nameplate / perStage;
   return {
     bus: spec.bus,
     code,
-    what: `capacitor units, ${part}: ${perStage} a stage, ${perStage * stages} × ${fmt(unitKvar)} kvar nameplate at ${spec.u_rated_kv} kV rated${spec.u_rated_from === 'design' ? " (the design's rating)" : ''}${spec.low_voltage ? ', three-phase' : ', single-phase'}`,
+    what: `capacitor units, ${part}: ${perStage} a stage, ${perStage * stages} × ${fmt(unitKvar)} kvar nameplate at ${spec.u_rated_kv} kV rated${spec.u_rated_from === 'design' ? " (the design's rating)" : ''}${spec.low_voltage ? ', three-phase' : `, single-phase units of ${r3(unitKv(spec, series))} kV in star, ${series} in series a phase`}`,
     count: perStage * stages,
     unit: 'kvar',
     quantity: nameplate * stages,
   };
 }
+
+const r3 = (x: number) => Math.round(x * 1000) / 1000;
+/** Rated voltage of one single-phase unit of a star bank: the bank's over √3 and the units in series. */
+const unitKv = (spec: BankSpec, series: number) => (spec.u_rated_kv ?? 0) / (Math.sqrt(3) * series);
 
 const stagesText = (g: StageGroup) =>
   `${g.stages} ${g.stages === 1 ? 'stage' : 'stages'} of ${fmt(g.kvar)} kvar`;

@@ -29,6 +29,7 @@ export const QUANT_HEADERS = [
   'Bank total (kvar)',
   'Reactor (kvar)',
   'Rates row',
+  'Units in series',
 ] as const;
 
 /** Column indexes by meaning. */
@@ -55,6 +56,8 @@ export const QC = {
   reactor: 19,
   /** The Rates sheet row whose Item matches: one lookup per line, read by Rate. */
   rateRow: 20,
+  /** Capacitor units in series per phase of the rating (CAPBANK.USERIES): MV units come in 3 × it. */
+  inSeries: 21,
 } as const;
 
 const FORMAT: Partial<Record<number, string>> = {
@@ -75,6 +78,7 @@ const FORMAT: Partial<Record<number, string>> = {
   [QC.total]: FORMATS.kvar,
   [QC.reactor]: FORMATS.kvar,
   [QC.rateRow]: FORMATS.count,
+  [QC.inSeries]: FORMATS.count,
 };
 const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 22, [QC.item]: 26, [QC.what]: 48 };
 

@@ -69,6 +69,7 @@ function basis(busRow: number) {
     per: b(QC.perKvar),
     total: b(QC.total),
     reactor: b(QC.reactor),
+    inSeries: b(QC.inSeries),
     known: `AND(ISNUMBER(${u}),${u}>0)`,
     lv: `${u}<=${LV_MAX_KV}`,
   };
@@ -132,14 +133,14 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   const capacitors = (part: string, kvar: string, times: string, present: string): ItemCells => {
     const nameplate = `${kvar}*${k.per}`;
     // Each stage is built of whole units: LV three-phase units up to the largest size; MV
-    // single-phase units, a multiple of three.
-    const perStage = `IF(${k.lv},ROUNDUP(${nameplate}/${MAX_UNIT_KVAR_LV}-${EPS},0),${MV_UNITS_MULTIPLE}*ROUNDUP(${nameplate}/${MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV}-${EPS},0))`;
+    // single-phase units in star, a multiple of three times the units in series of the rating.
+    const perStage = `IF(${k.lv},ROUNDUP(${nameplate}/${MAX_UNIT_KVAR_LV}-${EPS},0),${MV_UNITS_MULTIPLE}*${k.inSeries}*ROUNDUP(${nameplate}/(${MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV}*${k.inSeries})-${EPS},0))`;
     const count = here(QC.count);
     return {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase in star, "&${k.inSeries}&" in series a phase"))`,
       ),
       count: when('', `IF(${k.per}="","",${perStage}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),

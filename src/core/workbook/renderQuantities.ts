@@ -65,6 +65,7 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   // (CAPBANK.URATED, as bankSpec.ts takes it).
   out[QC.uRated] =
     `=IF(AND(ISNUMBER(${ur}),${ur}>0),${ur},IF(${known},IFERROR(CAPBANK.URATED(CAPBANK.UCAP(${u},${here(QC.p)}),${hz}),""),""))`;
+  out[QC.inSeries] = `=IF(${here(QC.uRated)}="","",CAPBANK.USERIES(${here(QC.uRated)},${hz}))`;
   // Nameplate kvar at the rated voltage per kvar of output at the bus: the Compensation sheet's
   // step nameplate rule, 1 / |KVAR.CAPBANK(1, Ur, U, p, f, f)|.
   out[QC.perKvar] =

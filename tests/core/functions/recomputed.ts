@@ -139,6 +139,11 @@ export const RECOMPUTED: ReadonlyMap<string, () => number> = new Map<string, () 
   ['CAPBANK.URATED(0.43)', () => firstAtLeast([0.44, 0.48, 0.525], 1.1 * 0.43)],
   ['CAPBANK.URATED(0.516, 60)', () => firstAtLeast([0.48, 0.6], 1.1 * 0.516)],
   ['CAPBANK.URATED(7.1)', () => Math.ceil(10 * 1.1 * 7.1) / 10],
+  // Units in series: the rating over √3 times a unit of IEEE 18 Table 1 (13.28 kV) is a whole 2;
+  // 16.5 kV is no star of its units (16.5/√3 = 9.53 kV is none of them, nor a half, third or quarter of one).
+  ['CAPBANK.USERIES(46.003269449029375, 60)', () => Math.round(46.003269449029375 / Math.sqrt(3) / 13.28)],
+  ['CAPBANK.USERIES(16.5, 60)', () => 1],
+  ['CAPBANK.USERIES(0.44)', () => 1],
   ['CAPBANK.TUNE(5.67)', () => tuningOrderByBisection(5.67)],
   ['CAPBANK.TUNE(7)', () => tuningOrderByBisection(7)],
   ['CAPBANK.TUNE(14)', () => tuningOrderByBisection(14)],

@@ -227,3 +227,24 @@ describe('a 1:2:4 bank of 4 stages, 10/20/40/80 kvar at 690 V: every stage size 
     expect(caps.reduce((a, i) => a + (i.quantity ?? 0), 0)).toBeCloseTo(150, 9);
   });
 });
+
+describe('a 60 Hz MV bank of IEEE 18 units: 1200 kvar fixed, plain, at 24.9 kV, rating blank', () => {
+  // By hand: 1.1 × 24.9 = 27.39 kV wanted. IEEE 18 Table 1 single-phase units (from memory) in
+  // star: 1 a phase needs ≥ 15.81 kV → 19.92 (bank 34.50 kV); 2 need ≥ 7.91 → 7.96 (27.57 kV);
+  // 3 need ≥ 5.27 → 6.64 (34.50); 4 need ≥ 3.95 → 4.16 (28.82). Two 7.96 kV units a phase.
+  const spec = bankSpec({ bus: 'MV', fixed_kvar: 1200 }, 24.9, 60);
+  const bank = Math.sqrt(3) * 2 * 7.96;
+  it("takes the design's 27.57 kV star of two 7.96 kV units in series a phase", () => {
+    expect(spec.u_rated_kv).toBeCloseTo(bank, 9);
+    expect(spec.units_in_series).toBe(2);
+  });
+  it('1200 · (27.57/24.9)² = 1471.6 kvar nameplate in 3 × 2 units of 245.3 kvar (up to 500 kvar a unit)', () => {
+    const nameplate = 1200 * (bank / 24.9) ** 2;
+    expect(nameplate).toBeCloseTo(1471.6, 1);
+    const cap = busSchedule(spec).find((i) => i.code === 'MV capacitor');
+    expect(cap?.count).toBe(6);
+    expect(cap?.quantity).toBeCloseTo(nameplate, 6);
+    expect(cap?.what).toContain('6 × 245.27 kvar');
+    expect(cap?.what).toContain('units of 7.96 kV in star, 2 in series a phase');
+  });
+});

@@ -15,7 +15,7 @@ describe('checkCatalogue', () => {
     expect(checkCatalogue(CATALOGUE)).toEqual([]);
   });
 
-  it('holds the 33 catalogue functions, each once, in reference order', () => {
+  it('holds the 34 catalogue functions, each once, in reference order', () => {
     expect(CATALOGUE.map((f) => f.name)).toEqual([
       'KVA.TOTAL',
       'COSPHI',
@@ -42,6 +42,7 @@ describe('checkCatalogue', () => {
       'CAPBANK.UCAP',
       'CAPBANK.TUNE',
       'CAPBANK.URATED',
+      'CAPBANK.USERIES',
       'KVAR.REACTOR',
       'KVAR.PERKW',
       'KVAR.TOPF',

@@ -316,6 +316,24 @@ describe('a 1:2:2 series of 25/50/50 kvar at 400 V, 440 V capacitors: items per 
   });
 });
 
+describe('a 60 Hz MV bank with the rating blank: IEEE 18 units in series, in the sheet as in the core', () => {
+  it('two 7.96 kV units a phase at 24.9 kV (schedule.test.ts works it by hand): 6 units for 1200 kvar', () => {
+    const { site: site60 } = siteFromCsv(
+      ['tag,bus,kind,qty,p_kw,cos_phi,u_kv,load', 'L1,MV,load,1,3000,0.8,24.9,1'].join('\n'),
+      { hz: 60 },
+    );
+    const s = WorkbookSession.fromDoc(
+      buildWorkbook(site60, { flavour: 'live', banks: [{ bus: 'MV', fixed_kvar: 1200 }] }),
+    );
+    const id = s.engine.getSheetId(QUANTITIES_SHEET) as number;
+    const v = (row: number, col: number) => s.engine.getCellValue({ sheet: id, row, col });
+    expect(v(busLineRow(0), QC.uRated) as number).toBeCloseTo(Math.sqrt(3) * 2 * 7.96, 9);
+    expect(v(busLineRow(0), QC.inSeries)).toBe(2);
+    expect(v(slotRow(0, 'fixedCapacitors'), QC.count)).toBe(6);
+    expect(pageQuote(s, 1)).toEqual(coreQuote(s).face);
+  });
+});
+
 describe('the sheet is generated', () => {
   it('refuses rows inserted or removed, deletion and renaming, saying why', () => {
     const s = open([LV_BANK]);
