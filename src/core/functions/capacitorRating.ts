@@ -20,34 +20,32 @@ const num = (x: number | boolean | undefined): number => x as number;
 /** The rule's slack at the boundaries of a series (capacitorRatings.ts compares v ≥ wanted − 1e-9). */
 const EPS = 1e-9;
 
+/** A constant of the expansion in 12 significant digits: within 1e-11 of the rule's, short enough to fit. */
+const short = (x: number) => String(Number(x.toPrecision(12)));
+
 /**
- * The first value of the ascending list at or above `wanted`, else `otherwise`: written as
- * wanted ≤ v + 1e-9 with v + 1e-9 worked out here, so the argument appears once per value.
+ * The first value of the ascending list at or above (1 + margin) × `across` (the caller makes sure
+ * one is): MIN of IF(across ≤ (v + 1e-9)/(1 + margin), v, above all) over the values, the bounds
+ * worked out here. Flat, not nested IFs: other programs accept 64 levels of nesting, and the
+ * argument appears once per value, so the formula stays within the xlsx length.
  */
-function firstFitting(list: readonly number[], wanted: string, otherwise: string): string {
-  let f = otherwise;
-  for (let i = list.length - 1; i >= 0; i--) {
-    const v = list[i] as number;
-    f = `IF(${wanted}<=${v + EPS},${v},${f})`;
-  }
-  return f;
+function firstFitting(list: readonly number[], across: string): string {
+  const above = short(2 * (list[list.length - 1] as number));
+  const bound = (v: number) => short((v + EPS) / (1 + CAP_VOLTAGE_MARGIN));
+  return `MIN(${list.map((v) => `IF(${across}<=${bound(v)},${short(v)},${above})`).join(',')})`;
 }
 
 /** chooseCapacitorRating(uc, hz).bank_rated_kv in classic functions. */
 function ratingFormula(uc: string, hz: string): string {
   const w = `(${uc}*${1 + CAP_VOLTAGE_MARGIN})`;
+  const below = (v: number) => `${uc}<=${short((v + EPS) / (1 + CAP_VOLTAGE_MARGIN))}`;
   const lastOf = (list: readonly number[]) => list[list.length - 1] as number;
   const madeToOrder = `ROUND(ROUNDUP(${w}/${IEC_MV_ROUNDING_KV}-1/1000000000,0)*${IEC_MV_ROUNDING_KV},3)`;
-  const star = firstFitting(
-    IEEE_STAR_BANKS.map((b) => b.kv),
-    w,
-    madeToOrder,
-  );
-  const iecLv = firstFitting(IEC_LV_RATINGS_KV, w, 'NA()');
-  const ieeeLv = firstFitting(IEEE18_LV_RATINGS_KV, w, 'NA()');
+  const stars = IEEE_STAR_BANKS.map((b) => b.kv);
   return (
-    `IF(AND(${hz}=60,${w}<=${lastOf(IEEE18_LV_RATINGS_KV) + EPS}),${ieeeLv},` +
-    `IF(${w}<=${LV_MAX_KV + EPS},${iecLv},IF(${hz}=60,${star},${madeToOrder})))`
+    `IF(AND(${hz}=60,${below(lastOf(IEEE18_LV_RATINGS_KV))}),${firstFitting(IEEE18_LV_RATINGS_KV, uc)},` +
+    `IF(${below(LV_MAX_KV)},${firstFitting(IEC_LV_RATINGS_KV, uc)},` +
+    `IF(AND(${hz}=60,${below(lastOf(stars))}),${firstFitting(stars, uc)},${madeToOrder})))`
   );
 }
 
@@ -105,15 +103,15 @@ export const CAPBANK_URATED = defineFunction({
   expand: ([uc, hz]) => ratingFormula(uc as string, hz as string),
 });
 
-/** unitsInSeriesFor(ur, hz) in classic functions: the star banks of more than one unit in series. */
+/**
+ * unitsInSeriesFor(ur, hz) in classic functions: 1 plus, for the star bank the rating is (within
+ * 1e-9 kV), its units in series less one; a flat sum, since other programs nest 64 levels at most.
+ */
 function seriesFormula(ur: string, hz: string): string {
-  let f = '1';
-  const stars = IEEE_STAR_BANKS.filter((b) => b.n > 1);
-  for (let i = stars.length - 1; i >= 0; i--) {
-    const b = stars[i] as { kv: number; n: number };
-    f = `IF(ABS(${ur}-${b.kv})<=${EPS * 1e9}/1000000000,${b.n},${f})`;
-  }
-  return `IF(AND(${hz}=60,${ur}>${LV_MAX_KV + EPS}),${f},1)`;
+  const terms = IEEE_STAR_BANKS.filter((b) => b.n > 1).map(
+    (b) => `(ABS(${ur}-${short(b.kv)})<=1/1000000000)*${b.n - 1}`,
+  );
+  return `IF(AND(${hz}=60,${ur}>${LV_MAX_KV + EPS}),1+${terms.join('+')},1)`;
 }
 
 export const CAPBANK_USERIES = defineFunction({

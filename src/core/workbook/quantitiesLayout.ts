@@ -30,6 +30,7 @@ export const QUANT_HEADERS = [
   'Reactor (kvar)',
   'Rates row',
   'Units in series',
+  'Voltage across capacitors (kV)',
 ] as const;
 
 /** Column indexes by meaning. */
@@ -58,6 +59,8 @@ export const QC = {
   rateRow: 20,
   /** Capacitor units in series per phase of the rating (CAPBANK.USERIES): MV units come in 3 × it. */
   inSeries: 21,
+  /** CAPBANK.UCAP of the bus line, in a cell of its own: CAPBANK.URATED's expansion repeats its argument. */
+  uCap: 22,
 } as const;
 
 const FORMAT: Partial<Record<number, string>> = {
@@ -79,6 +82,7 @@ const FORMAT: Partial<Record<number, string>> = {
   [QC.reactor]: FORMATS.kvar,
   [QC.rateRow]: FORMATS.count,
   [QC.inSeries]: FORMATS.count,
+  [QC.uCap]: FORMATS.kv,
 };
 const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 22, [QC.item]: 26, [QC.what]: 48 };
 

@@ -63,8 +63,10 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   const hz = settingRef('hzInUse');
   // As typed, else the design's rating by its one rule for the voltage across the capacitors
   // (CAPBANK.URATED, as bankSpec.ts takes it).
+  const uCap = here(QC.uCap);
+  out[QC.uCap] = `=IF(${known},IFERROR(CAPBANK.UCAP(${u},${here(QC.p)}),""),"")`;
   out[QC.uRated] =
-    `=IF(AND(ISNUMBER(${ur}),${ur}>0),${ur},IF(${known},IFERROR(CAPBANK.URATED(CAPBANK.UCAP(${u},${here(QC.p)}),${hz}),""),""))`;
+    `=IF(AND(ISNUMBER(${ur}),${ur}>0),${ur},IF(ISNUMBER(${uCap}),IFERROR(CAPBANK.URATED(${uCap},${hz}),""),""))`;
   out[QC.inSeries] = `=IF(${here(QC.uRated)}="","",CAPBANK.USERIES(${here(QC.uRated)},${hz}))`;
   // Nameplate kvar at the rated voltage per kvar of output at the bus: the Compensation sheet's
   // step nameplate rule, 1 / |KVAR.CAPBANK(1, Ur, U, p, f, f)|.
