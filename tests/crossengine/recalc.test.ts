@@ -15,7 +15,7 @@ import {
   type Planted,
 } from './books.ts';
 import { convertToCsv, csvFiles, makeRecalcProfile, sheetCsv } from './libreoffice.ts';
-import { QC, QUANTITIES_SHEET } from '../../src/core/workbook/quantitiesLayout.ts';
+import { QC, QUANTITIES_SHEET, busLineRow, slotRow } from '../../src/core/workbook/quantitiesLayout.ts';
 import { COVER_SHEET_NAME } from '../../src/io/xlsx/export.ts';
 import { COMP_HEADERS } from '../../src/core/workbook/compensationColumns.ts';
 import * as chargedSolar from '../core/workbook/chargedSolar.ts';
@@ -193,6 +193,42 @@ describe('LibreOffice Calc recalculating our exports', () => {
       }
     }
     expect([...seen].sort()).toEqual(['1:2:2', '1:2:4']);
+  });
+
+  it('counts the switching devices and capacitor lines of those banks per stage size (hand figures)', () => {
+    // Every formula cell was compared above; this says LibreOffice's Quantities sheet has a line
+    // per stage size: 1:2:2 in n stages has one stage of 1 smallest step and n − 1 of 2, 1:2:4 one
+    // of each 2^g below 2^n; each device is sized by its own stage, I = Q/(√3·U) × 1.43 (the
+    // capacitor margin of IEC 60831-1 and IEC 61921), in a class at or above that current.
+    const sizes = ['stageSwitching0', 'stageSwitching1', 'stageSwitching2', 'stageSwitching3'] as const;
+    let banks = 0;
+    for (const base of ['pumping-station', 'cold-store']) {
+      const [head, ...rows] = sheetCsv(outDir, base, 'Compensation');
+      const col = (h: string) => head?.indexOf(h) ?? -1;
+      const quant = sheetCsv(outDir, base, QUANTITIES_SHEET);
+      rows.forEach((r, i) => {
+        const series = r[col('Step series')];
+        if (series !== '1:2:2' && series !== '1:2:4') return;
+        const [n, step, u] = [
+          Number(r[col('Steps')]),
+          Number(r[col('Step (kvar)')]),
+          Number(r[col('U (kV)')]),
+        ];
+        expect(quant[busLineRow(i)]?.[QC.bus]).toBe(r[0]);
+        sizes.forEach((slot, g) => {
+          const line = quant[slotRow(i, slot)] ?? [];
+          const stages = series === '1:2:2' ? (g === 0 ? 1 : g === 1 ? n - 1 : 0) : g < n ? 1 : 0;
+          if (stages === 0) return expect(line[QC.item] ?? '').toBe('');
+          const amps = ((step * 2 ** g) / (Math.sqrt(3) * u)) * 1.43;
+          expect(Number(line[QC.count])).toBe(stages);
+          expect(Number(line[QC.amps])).toBeCloseTo(amps, 6);
+          const rating = Number(/(\d+(?:\.\d+)?) A$/.exec(line[QC.item] ?? '')?.[1]);
+          expect(rating).toBeGreaterThanOrEqual(amps);
+        });
+        banks += 1;
+      });
+    }
+    expect(banks).toBeGreaterThan(1);
   });
 
   it('shows no unknown-name error anywhere', () => {

@@ -8,6 +8,7 @@ import { CABLE_CAP, KVAR_CABLE, KVAR_LINE, LINE_SIL } from './cables.ts';
 import { KVAR_SERIES, KW_LINE_LOSS } from './lineLoss.ts';
 import { CABLE_R_AL, CABLE_R_CU } from './conductors.ts';
 import { CAPBANK_TUNE, CAPBANK_UCAP, KVAR_CAPBANK, KVAR_REACTOR } from './compensation.ts';
+import { CAPBANK_URATED, CAPBANK_USERIES } from './capacitorRating.ts';
 import { BANK_ROUNDUP, KVAR_PERKW, KVAR_TOPF, KVAR_TOTAN } from './sizing.ts';
 import { RESONANCE_ORDER, SC_MVA_XFMR, VRISE_PCT } from './network.ts';
 
@@ -36,6 +37,8 @@ export const CATALOGUE: readonly FunctionSpec[] = [
   KVAR_CAPBANK,
   CAPBANK_UCAP,
   CAPBANK_TUNE,
+  CAPBANK_URATED,
+  CAPBANK_USERIES,
   KVAR_REACTOR,
   KVAR_PERKW,
   KVAR_TOPF,

@@ -12,6 +12,7 @@ import { proposeChoices } from '../site/compensation.ts';
 import { buildBusGraph } from '../site/graph.ts';
 import type { Site } from '../site/model.ts';
 import { DEFAULT_STEP_SERIES } from '../site/stepSeries.ts';
+import { busVoltages } from '../site/voltages.ts';
 // Straight from the quote's modules, not its index: see the architecture test (first download).
 import { priceSchedule } from '../quote/cost.ts';
 import type { RateTable } from '../quote/rates.ts';
@@ -87,7 +88,9 @@ export function standardOptions(site: Site, held: readonly BankChoice[] | undefi
     {
       id: 'central',
       name: 'One bank at the connection',
-      summary: `a single bank on ${graph.root}, the point of connection; the transformers below still carry their kvar`,
+      summary: busVoltages(site.equipment).voltages.has(graph.root)
+        ? `a single bank on ${graph.root}, the point of connection; the transformers below still carry their kvar`
+        : `no bank: no row on ${graph.root}, the point of connection, states its voltage (u_kv), so no bank there can be sized`,
       banks: proposeChoices(site, { bankBuses: [graph.root] }),
     },
   );

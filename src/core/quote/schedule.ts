@@ -2,7 +2,7 @@
 // devices per step by current class, the controller, sections or frames, the incomer, discharge
 // devices (MV) and shunt reactors with their switching device. Pure: a BankSpec in, items out.
 // How a bank's properties are read is bankSpec.ts's; the sizing constants are itemRules.ts's.
-import type { BankSpec } from './bankSpec.ts';
+import type { BankSpec, StageGroup } from './bankSpec.ts';
 import {
   CAPACITOR_CURRENT_FACTOR,
   CONTROLLER_OUTPUTS,
@@ -43,8 +43,13 @@ export interface ScheduleItem {
 const r1 = (x: number) => Math.round(x * 100) / 100;
 const fmt = (x: number) => String(r1(x));
 
-/** Capacitor units for one part (a step or the fixed part) of nameplate q, `times` over. */
-function capacitorUnits(spec: BankSpec, part: string, nameplate: number | null, times: number): ScheduleItem {
+/** Capacitor units for `stages` stages (or the fixed part) of nameplate `nameplate` each. */
+function capacitorUnits(
+  spec: BankSpec,
+  part: string,
+  nameplate: number | null,
+  stages: number,
+): ScheduleItem {
   const code = spec.low_voltage ? 'LV capacitor' : 'MV capacitor';
   if (nameplate === null)
     return {
@@ -54,22 +59,33 @@ function capacitorUnits(spec: BankSpec, part: string, nameplate: number | null, 
       count: null,
       unit: 'kvar',
       quantity: null,
-      missing: `capacitor rated voltage is blank for bus ${spec.bus} (Compensation sheet, column "Capacitor rated voltage (kV)")`,
+      missing: `capacitor rated voltage is unknown for bus ${spec.bus}: the detuning cannot be built (Compensation sheet, columns "Detuning p (%)" and "Capacitor rated voltage (kV)")`,
     };
-  // LV: three-phase units up to the largest size; MV: single-phase units, a multiple of three.
-  const perPart = spec.low_voltage
+  // Each stage is built of whole units: LV three-phase units up to the largest size; MV
+  // single-phase units in star, a multiple of three times the units in series of the rating.
+  const series = spec.units_in_series ?? 1;
+  const perStage = spec.low_voltage
     ? Math.ceil(nameplate / MAX_UNIT_KVAR_LV - 1e-9)
-    : MV_UNITS_MULTIPLE * Math.ceil(nameplate / (MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV) - 1e-9);
-  const unitKvar = nameplate / perPart;
+    : MV_UNITS_MULTIPLE *
+      series *
+      Math.ceil(nameplate / (MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV * series) - 1e-9);
+  const unitKvar = nameplate / perStage;
   return {
     bus: spec.bus,
     code,
-    what: `capacitor units, ${part}: ${perPart * times} × ${fmt(unitKvar)} kvar nameplate at ${spec.u_rated_kv} kV rated${spec.low_voltage ? ', three-phase' : ', single-phase'}`,
-    count: perPart * times,
+    what: `capacitor units, ${part}: ${perStage} a stage, ${perStage * stages} × ${fmt(unitKvar)} kvar nameplate at ${spec.u_rated_kv} kV rated${spec.u_rated_from === 'design' ? " (the design's rating)" : ''}${spec.low_voltage ? ', three-phase' : `, single-phase units of ${r3(unitKv(spec, series))} kV in star, ${series} in series a phase`}`,
+    count: perStage * stages,
     unit: 'kvar',
-    quantity: nameplate * times,
+    quantity: nameplate * stages,
   };
 }
+
+const r3 = (x: number) => Math.round(x * 1000) / 1000;
+/** Rated voltage of one single-phase unit of a star bank: the bank's over √3 and the units in series. */
+const unitKv = (spec: BankSpec, series: number) => (spec.u_rated_kv ?? 0) / (Math.sqrt(3) * series);
+
+const stagesText = (g: StageGroup) =>
+  `${g.stages} ${g.stages === 1 ? 'stage' : 'stages'} of ${fmt(g.kvar)} kvar`;
 
 /** The device switching a circuit of `kvar` at the bus: LV contactor; MV contactor or breaker by class. */
 function switchingDevice(spec: BankSpec, kvar: number, factor: number): { code: string; amps: number } {
@@ -111,45 +127,48 @@ function controllers(sections: readonly number[]): { outputs: number; count: num
   return { outputs: CONTROLLER_OUTPUTS.find((o) => o >= most) ?? largest, count: sections.length };
 }
 
-/** Every item of one bus's bank and reactor, in the order an offer lists them. */
+/**
+ * Every item of one bus's bank and reactor, in the order an offer lists them. Stages of one size
+ * are one line each (capacitor units, detuning reactors, switching devices), since each size has
+ * its own make-up and current class: a 1:2:2 bank of 25/50/50 kvar takes one device for 25 kvar
+ * and two for 50 kvar.
+ */
 export function busSchedule(spec: BankSpec): ScheduleItem[] {
   const items: ScheduleItem[] = [];
   const total = spec.fixed_kvar + spec.step_kvar * spec.controller_steps;
   const lv = spec.low_voltage;
+  const groups = spec.stage_groups.filter((g) => g.stages > 0);
   if (total > 0) {
-    if (spec.steps > 0)
-      items.push(
-        capacitorUnits(
-          spec,
-          `${spec.steps} steps of ${fmt(spec.step_kvar)} kvar`,
-          spec.step_nameplate_kvar,
-          spec.controller_steps,
-        ),
-      );
+    for (const g of groups) items.push(capacitorUnits(spec, stagesText(g), g.nameplate_kvar, g.stages));
     if (spec.fixed_kvar > 0)
       items.push(capacitorUnits(spec, `fixed ${fmt(spec.fixed_kvar)} kvar`, spec.fixed_nameplate_kvar, 1));
     if (spec.p_pct > 0) {
-      const parts = spec.steps + (spec.fixed_kvar > 0 ? 1 : 0);
-      items.push({
+      const code = `${lv ? 'LV' : 'MV'} detuning reactor ${spec.p_pct} %`;
+      const tuned = `p = ${spec.p_pct} %, tuned to ${fmt(spec.tuned_hz ?? 0)} Hz (order ${fmt(spec.tuning_order ?? 0)})`;
+      const reactors = (what: string, count: number, kvar: number): ScheduleItem => ({
         bus: spec.bus,
-        code: `${lv ? 'LV' : 'MV'} detuning reactor ${spec.p_pct} %`,
-        what: `detuning reactors, one per ${spec.fixed_kvar > 0 ? 'step and the fixed part' : 'step'}, p = ${spec.p_pct} %, tuned to ${fmt(spec.tuned_hz ?? 0)} Hz (order ${fmt(spec.tuning_order ?? 0)}); kvar of the outputs they carry`,
-        count: parts,
+        code,
+        what: `detuning reactors, ${what}, ${tuned}; kvar of the outputs they carry`,
+        count,
         unit: 'kvar',
-        quantity: total,
+        quantity: kvar * count,
       });
+      for (const g of groups) items.push(reactors(`one per stage, ${stagesText(g)}`, g.stages, g.kvar));
+      if (spec.fixed_kvar > 0) items.push(reactors('one for the fixed part', 1, spec.fixed_kvar));
     }
-    if (spec.steps > 0) {
-      // One device per stage, each sized for the largest stage (never below what it switches).
-      const sw = switchingDevice(spec, spec.largest_stage_kvar, CAPACITOR_CURRENT_FACTOR);
+    for (const g of groups) {
+      // Each stage's device is sized by the current of that stage.
+      const sw = switchingDevice(spec, g.kvar, CAPACITOR_CURRENT_FACTOR);
       items.push(
         pieces(
           spec,
           sw.code,
-          `step switching, one per step (${fmt(sw.amps)} A with the 1.43 capacitor margin)`,
-          spec.steps,
+          `stage switching, one per stage of ${fmt(g.kvar)} kvar (${fmt(sw.amps)} A with the 1.43 capacitor margin)`,
+          g.stages,
         ),
       );
+    }
+    if (spec.steps > 0) {
       const c = controllers(spec.sections);
       items.push(
         pieces(spec, `Step controller ${c.outputs} outputs`, `controller for ${spec.steps} steps`, c.count),

@@ -121,3 +121,34 @@ export function capacitorRatedVoltage(uCapKv: number, hz = 50): number {
 export function ratedBelowMargin(uCapKv: number, uRatedKv: number): boolean {
   return uRatedKv < uCapKv * (1 + CAP_VOLTAGE_MARGIN) * (1 - EPS);
 }
+
+/**
+ * Every bank voltage a star of 1 to MAX_UNITS_IN_SERIES IEEE 18 units in series can have,
+ * ascending, each with the fewest units in series that reach it (values within 1e-9 kV are one).
+ * The smallest of them at or above a wanted voltage is the best star ieeeStar finds.
+ */
+export const IEEE_STAR_BANKS: ReadonlyArray<{ readonly kv: number; readonly n: number }> = (() => {
+  const all = Array.from({ length: MAX_UNITS_IN_SERIES }, (_, i) =>
+    IEEE18_MV_UNIT_RATINGS_KV.map((u) => ({ kv: SQRT3 * (i + 1) * u, n: i + 1 })),
+  )
+    .flat()
+    .sort((a, b) => a.kv - b.kv || a.n - b.n);
+  const out: { kv: number; n: number }[] = [];
+  for (const b of all) {
+    const last = out[out.length - 1];
+    if (last !== undefined && b.kv <= last.kv + EPS) {
+      if (b.n < last.n) out[out.length - 1] = b;
+    } else out.push(b);
+  }
+  return out;
+})();
+
+/**
+ * Units in series per phase for a bank rated uRatedKv: at 60 Hz above LV, the fewest of a star of
+ * IEEE 18 units that make that rating; otherwise 1 (LV three-phase units, MV units made to it).
+ * For the design's own rating this is the count chooseCapacitorRating picks.
+ */
+export function unitsInSeriesFor(uRatedKv: number, hz: number): number {
+  if (hz !== 60 || !(uRatedKv > LV_MAX_KV + EPS)) return 1;
+  return IEEE_STAR_BANKS.find((b) => Math.abs(uRatedKv - b.kv) <= EPS)?.n ?? 1;
+}

@@ -70,6 +70,18 @@ export function controllerCount(series: StepSeries, n: number): number {
   return n;
 }
 
+/**
+ * The stage sizes any series may have, in smallest steps: 1, 2, 4 … up to the largest stage of
+ * the longest binary series. Items are counted per stage size (one switching device class, one
+ * capacitor make-up each), so a bank has at most this many kinds of stage.
+ */
+export const STAGE_RATIOS: readonly number[] = Array.from({ length: BINARY_MAX_STAGES }, (_, i) => 2 ** i);
+
+/** How many of the `stages` physical stages of a series are `ratio` smallest steps large. */
+export function stagesOfRatio(series: StepSeries, stages: number, ratio: number): number {
+  return stageRatios(series, stages).filter((r) => r === ratio).length;
+}
+
 /** The largest stage, in smallest steps (0 without stages): what one switching operation adds at most. */
 export function largestRatio(series: StepSeries, stages: number): number {
   return stageRatios(series, stages).reduce((m, r) => Math.max(m, r), 0);

@@ -29,6 +29,8 @@ export const QUANT_HEADERS = [
   'Bank total (kvar)',
   'Reactor (kvar)',
   'Rates row',
+  'Units in series',
+  'Voltage across capacitors (kV)',
 ] as const;
 
 /** Column indexes by meaning. */
@@ -55,6 +57,10 @@ export const QC = {
   reactor: 19,
   /** The Rates sheet row whose Item matches: one lookup per line, read by Rate. */
   rateRow: 20,
+  /** Capacitor units in series per phase of the rating (CAPBANK.USERIES): MV units come in 3 × it. */
+  inSeries: 21,
+  /** CAPBANK.UCAP of the bus line, in a cell of its own: CAPBANK.URATED's expansion repeats its argument. */
+  uCap: 22,
 } as const;
 
 const FORMAT: Partial<Record<number, string>> = {
@@ -75,6 +81,8 @@ const FORMAT: Partial<Record<number, string>> = {
   [QC.total]: FORMATS.kvar,
   [QC.reactor]: FORMATS.kvar,
   [QC.rateRow]: FORMATS.count,
+  [QC.inSeries]: FORMATS.count,
+  [QC.uCap]: FORMATS.kv,
 };
 const WIDTH: Partial<Record<number, number>> = { [QC.bus]: 22, [QC.item]: 26, [QC.what]: 48 };
 
@@ -85,12 +93,26 @@ export const QUANT_COLUMNS: readonly ColumnInfo[] = QUANT_HEADERS.map((header, c
   computed: true,
 }));
 
-/** The kinds of item, one line each in a bus's block, in the order an offer lists them. */
+/**
+ * The kinds of item, one line each in a bus's block, in the order an offer lists them. Stages are
+ * counted by size: a line per stage size of STAGE_RATIOS (1, 2, 4, 8 smallest steps, the suffix
+ * is its index) for capacitor units, detuning reactors and switching devices.
+ */
 export const SLOTS = [
-  'stepCapacitors',
+  'stageCapacitors0',
+  'stageCapacitors1',
+  'stageCapacitors2',
+  'stageCapacitors3',
   'fixedCapacitors',
-  'detuning',
-  'stepSwitching',
+  'stageDetuning0',
+  'stageDetuning1',
+  'stageDetuning2',
+  'stageDetuning3',
+  'fixedDetuning',
+  'stageSwitching0',
+  'stageSwitching1',
+  'stageSwitching2',
+  'stageSwitching3',
   'controller',
   'enclosure',
   'incomer',

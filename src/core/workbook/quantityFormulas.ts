@@ -6,6 +6,7 @@ import { LV_MAX_KV } from '../site/bankRules.ts';
 import { itemRules } from '../quote/index.ts';
 import type { CellContent } from './document.ts';
 import { QC, type Slot } from './quantitiesLayout.ts';
+import { STAGE_RATIOS } from '../site/stepSeries.ts';
 import { absCell, cell } from './refs.ts';
 
 const {
@@ -68,6 +69,7 @@ function basis(busRow: number) {
     per: b(QC.perKvar),
     total: b(QC.total),
     reactor: b(QC.reactor),
+    inSeries: b(QC.inSeries),
     known: `AND(ISNUMBER(${u}),${u}>0)`,
     lv: `${u}<=${LV_MAX_KV}`,
   };
@@ -104,15 +106,20 @@ function controllerCount(n: string): string {
 }
 
 /**
- * The largest stage, kvar, from the bus line's basis: its smallest steps c = (total − fixed) /
- * step over n stages tell the series apart (c = n equal stages, c = 2n − 1 for 1:2:2 whose
- * largest is 2 steps, else 1:2:4 whose largest is (c + 1)/2 = 2^(n − 1) steps; n = 2 gives 2 in
- * both). Every stage's device is sized for it: never below the stage it switches.
+ * Physical stages of size STAGE_RATIOS[g] (1, 2, 4, 8 smallest steps), from the bus line's basis:
+ * its smallest steps c = (total − fixed) / step over n stages tell the series apart (c = n equal
+ * stages; c = 2n − 1 for 1:2:2, one stage of 1 and n − 1 of 2; else 1:2:4, one stage of each
+ * size below 2^n; n = 2 gives c = 3 and the same stages in both), as stepSeries.ts stagesOfRatio.
  */
-function largestStage(k: ReturnType<typeof basis>): string {
-  const c = `ROUND((${k.total}-${k.fixed})/${k.step},0)`;
-  return `${k.step}*IF(${c}<=${k.steps},1,IF(${c}=2*${k.steps}-1,2,(${c}+1)/2))`;
+function stagesOfSize(k: ReturnType<typeof basis>, g: number): string {
+  const [n, c] = [k.steps, `IF(${k.step}>0,ROUND((${k.total}-${k.fixed})/${k.step},0),0)`];
+  if (g === 0) return `IF(${n}>0,IF(${c}<=${n},${n},1),0)`;
+  if (g === 1) return `IF(${c}<=${n},0,IF(${c}=2*${n}-1,${n}-1,1))`;
+  return `IF(${c}<=${n},0,IF(${c}=2*${n}-1,0,IF(${n}>${g},1,0)))`;
 }
+
+/** The stage-size index of a per-size slot ("stageSwitching2" → 2). */
+const sizeIndex = (slot: Slot) => Number(slot.slice(-1));
 
 /** Formulas of one item line at `row` of the bus whose bus line is `busRow`. */
 export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
@@ -125,56 +132,73 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
   const lvOrMv = `IF(${k.lv},"LV","MV")`;
   const capacitors = (part: string, kvar: string, times: string, present: string): ItemCells => {
     const nameplate = `${kvar}*${k.per}`;
-    // LV: three-phase units up to the largest size; MV: single-phase units, a multiple of three.
-    const perPart = `IF(${k.lv},ROUNDUP(${nameplate}/${MAX_UNIT_KVAR_LV}-${EPS},0),${MV_UNITS_MULTIPLE}*ROUNDUP(${nameplate}/${MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV}-${EPS},0))`;
+    // Each stage is built of whole units: LV three-phase units up to the largest size; MV
+    // single-phase units in star, a multiple of three times the units in series of the rating.
+    const perStage = `IF(${k.lv},ROUNDUP(${nameplate}/${MAX_UNIT_KVAR_LV}-${EPS},0),${MV_UNITS_MULTIPLE}*${k.inSeries}*ROUNDUP(${nameplate}/(${MV_UNITS_MULTIPLE * MAX_UNIT_KVAR_MV}*${k.inSeries})-${EPS},0))`;
     const count = here(QC.count);
     return {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is blank (Compensation sheet)","capacitor units, ${part}: "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase in star, "&${k.inSeries}&" in series a phase"))`,
       ),
-      count: when('', `IF(${k.per}="","",${perPart}*${times})`),
+      count: when('', `IF(${k.per}="","",${perStage}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),
       unit: 'kvar',
     };
   };
+  const tuned = `"p = "&${k.p}&" %, tuned to order "&ROUND(CAPBANK.TUNE(${k.p}),2)&"; kvar of the outputs they carry"`;
+  const reactors = (what: string, count: string, kvar: string, present: string): ItemCells => ({
+    item: onlyIf(`${present},${k.p}>0`, `${lvOrMv}&" detuning reactor "&${k.p}&" %"`),
+    what: when('', `"detuning reactors, ${what}, "&${tuned}`),
+    count: when('', count),
+    quantity: when('', `${kvar}*${count}`),
+    unit: 'kvar',
+  });
+  // The stages of this line's size (per-size slots only).
+  const stage = () => {
+    const g = sizeIndex(slot);
+    const stages = stagesOfSize(k, g);
+    const kvar = `${k.step}*${STAGE_RATIOS[g] as number}`;
+    const text = `"&${stages}&IF(${stages}=1," stage"," stages")&" of "&${r2(kvar)}&" kvar`;
+    return { stages, kvar, text };
+  };
   switch (slot) {
-    case 'stepCapacitors':
-      // Units for every smallest step of the series (the bank total less the fixed part).
-      return capacitors(
-        `"&${k.steps}&" steps of "&${r2(k.step)}&" kvar`,
-        k.step,
-        `ROUND((${k.total}-${k.fixed})/${k.step},0)`,
-        `${k.steps}>0`,
-      );
+    case 'stageCapacitors0':
+    case 'stageCapacitors1':
+    case 'stageCapacitors2':
+    case 'stageCapacitors3': {
+      const { stages, kvar, text } = stage();
+      return capacitors(text, kvar, stages, `${stages}>0`);
+    }
     case 'fixedCapacitors':
       return capacitors(`fixed "&${r2(k.fixed)}&" kvar`, k.fixed, '1', `${k.fixed}>0`);
-    case 'detuning': {
-      const parts = `${k.steps}+IF(${k.fixed}>0,1,0)`;
-      return {
-        item: onlyIf(`${k.total}>0,${k.p}>0`, `${lvOrMv}&" detuning reactor "&${k.p}&" %"`),
-        what: when(
-          '',
-          `"detuning reactors, one per step"&IF(${k.fixed}>0," and the fixed part","")&", p = "&${k.p}&" %, tuned to order "&ROUND(CAPBANK.TUNE(${k.p}),2)&"; kvar of the outputs they carry"`,
-        ),
-        count: when('', parts),
-        quantity: when('', k.total),
-        unit: 'kvar',
-      };
+    case 'stageDetuning0':
+    case 'stageDetuning1':
+    case 'stageDetuning2':
+    case 'stageDetuning3': {
+      const { stages, kvar, text } = stage();
+      return reactors(`one per stage, ${text}`, stages, kvar, `${stages}>0`);
     }
-    case 'stepSwitching': {
+    case 'fixedDetuning':
+      return reactors('one for the fixed part', '1', k.fixed, `${k.fixed}>0`);
+    case 'stageSwitching0':
+    case 'stageSwitching1':
+    case 'stageSwitching2':
+    case 'stageSwitching3': {
+      // Each stage's device is sized by the current of that stage.
+      const { stages, kvar: stageKvar } = stage();
       const amps = here(QC.amps);
       return {
-        item: onlyIf(`${k.steps}>0`, switchingCode(amps, k.u, k.lv)),
+        item: onlyIf(`${stages}>0`, switchingCode(amps, k.u, k.lv)),
         what: when(
           '',
-          `"step switching, one per step, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+          `"stage switching, one per stage of "&${r2(stageKvar)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
         ),
-        count: when('', k.steps),
-        quantity: when('', k.steps),
+        count: when('', stages),
+        quantity: when('', stages),
         unit: 'pc',
-        amps: `=IF(AND(${k.known},${k.steps}>0),${lineCurrent(largestStage(k), k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
+        amps: `=IF(AND(${k.known},${stages}>0),${lineCurrent(stageKvar, k.u, CAPACITOR_CURRENT_FACTOR)},"")`,
       };
     }
     case 'controller': {

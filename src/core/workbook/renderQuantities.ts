@@ -60,10 +60,16 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   out[QC.steps] = `=IF(${here(QC.step)}>0,INT(${n}),0)`;
   out[QC.p] = `=${nonNegative(inp('p_pct'))}`;
   const ur = inp('u_rated_kv');
-  out[QC.uRated] = `=IF(AND(ISNUMBER(${ur}),${ur}>0),${ur},"")`;
+  const hz = settingRef('hzInUse');
+  // As typed, else the design's rating by its one rule for the voltage across the capacitors
+  // (CAPBANK.URATED, as bankSpec.ts takes it).
+  const uCap = here(QC.uCap);
+  out[QC.uCap] = `=IF(${known},IFERROR(CAPBANK.UCAP(${u},${here(QC.p)}),""),"")`;
+  out[QC.uRated] =
+    `=IF(AND(ISNUMBER(${ur}),${ur}>0),${ur},IF(ISNUMBER(${uCap}),IFERROR(CAPBANK.URATED(${uCap},${hz}),""),""))`;
+  out[QC.inSeries] = `=IF(${here(QC.uRated)}="","",CAPBANK.USERIES(${here(QC.uRated)},${hz}))`;
   // Nameplate kvar at the rated voltage per kvar of output at the bus: the Compensation sheet's
   // step nameplate rule, 1 / |KVAR.CAPBANK(1, Ur, U, p, f, f)|.
-  const hz = settingRef('hzInUse');
   out[QC.perKvar] =
     `=IF(OR(${here(QC.uRated)}="",NOT(${known})),"",IFERROR(1/ABS(KVAR.CAPBANK(1,${here(QC.uRated)},${u},${here(QC.p)},${hz},${hz})),""))`;
   // Steps are physical stages; capacitors follow the controller step count of their series.

@@ -75,6 +75,7 @@ function reactorKvar(qKvar: number, uRatedKv: number, uKv = uRatedKv): number {
 }
 
 /** kvar to add to reach a target: present Q minus the Q allowed at the target (Pythagoras). */
+const firstAtLeast = (list: number[], x: number) => list.find((v) => v >= x) ?? NaN;
 const toPowerFactor = (p: number, q: number, cos: number) => q - qFromPowerFactor(p, cos);
 
 /** IEC 60287-1-1: C = ε/(18·ln(Di/dc)) µF/km (the 18 stands for 1/(2π·ε0) in these units). */
@@ -133,6 +134,16 @@ export const RECOMPUTED: ReadonlyMap<string, () => number> = new Map<string, () 
   ['KVAR.CAPBANK(80, 0.525, 0.4, 7)', () => capacitorStepKvar(80, 0.525, 0.4, 7)],
   ['CAPBANK.UCAP(0.4, 6)', () => detunedCapacitorKv(0.4, 6)],
   ['CAPBANK.UCAP(0.69, 7)', () => detunedCapacitorKv(0.69, 7)],
+  // The first rating at or above 1.1 × the voltage across, picked by hand from the lists
+  // (makers' IEC LV ranges 0.44, 0.48, 0.525 kV; IEEE 18 LV 0.48, 0.6 kV; MV made to order in 0.1 kV).
+  ['CAPBANK.URATED(0.43)', () => firstAtLeast([0.44, 0.48, 0.525], 1.1 * 0.43)],
+  ['CAPBANK.URATED(0.516, 60)', () => firstAtLeast([0.48, 0.6], 1.1 * 0.516)],
+  ['CAPBANK.URATED(7.1)', () => Math.ceil(10 * 1.1 * 7.1) / 10],
+  // Units in series: the rating over √3 times a unit of IEEE 18 Table 1 (13.28 kV) is a whole 2;
+  // 16.5 kV is no star of its units (16.5/√3 = 9.53 kV is none of them, nor a half, third or quarter of one).
+  ['CAPBANK.USERIES(46.003269449029375, 60)', () => Math.round(46.003269449029375 / Math.sqrt(3) / 13.28)],
+  ['CAPBANK.USERIES(16.5, 60)', () => 1],
+  ['CAPBANK.USERIES(0.44)', () => 1],
   ['CAPBANK.TUNE(5.67)', () => tuningOrderByBisection(5.67)],
   ['CAPBANK.TUNE(7)', () => tuningOrderByBisection(7)],
   ['CAPBANK.TUNE(14)', () => tuningOrderByBisection(14)],

@@ -6,6 +6,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
 import { CATALOGUE, findFunction } from '../../../src/core/functions/index.ts';
 import { lineSurgeImpedance } from '../../../src/core/elements/line.ts';
+import { chooseCapacitorRating } from '../../../src/core/site/capacitorRatings.ts';
 import type { FunctionSpec } from '../../../src/core/registry/spec.ts';
 import { expectAbs, expectRel, failure, value } from './helpers.ts';
 import {
@@ -340,6 +341,25 @@ describe('compensation equipment', () => {
     // 7 % tunes to 3.78: just below it the output is finite and large, at 4× it is an error
     expect(Number.isFinite(value(fn('KVAR.CAPBANK'), 50, 0.4, 0.4, 7, 50, 185))).toBe(true);
     failure(fn('KVAR.CAPBANK'), 50, 0.4, 0.4, 7, 50, 200);
+  });
+  it('capacitor rating: 1.1 × the voltage across, first of the series at or above (ratings from memory)', () => {
+    // 400 V plain, 50 Hz: 440 V is the first makers' IEC rating at or above 1.1 × 400 = 440 V.
+    expect(value(fn('CAPBANK.URATED'), 0.4, 50)).toBe(0.44);
+    // 11 kV plain, 50 Hz: made to order at 1.1 × 11 = 12.1 kV (IEC 60871-1: the purchaser states it).
+    expect(value(fn('CAPBANK.URATED'), 11, 50)).toBeCloseTo(12.1, 12);
+    // 13.8 kV plain, 60 Hz: 15.18 kV wanted; IEEE 18 Table 1 units in star, worked by hand:
+    // 1 in series needs ≥ 8.76 kV → 9.54 kV (bank 16.52 kV); 2 need ≥ 4.38 → 4.8 (16.63);
+    // 3 need ≥ 2.92 → 4.16 (21.62); 4 need ≥ 2.19 → 2.4 (16.63): one 9.54 kV unit a phase.
+    expect(value(fn('CAPBANK.URATED'), 13.8, 60)).toBeCloseTo(Math.sqrt(3) * 9.54, 12);
+  });
+  it('units in series: for every rating the design picks at 60 Hz, the count it picks (IEEE 18 stars)', () => {
+    // 13.8 kV plain → one 9.54 kV unit a phase (worked above); 34.5 kV plain: 37.95 kV wanted,
+    // 1 unit needs ≥ 21.9 → 22.8 (39.49 kV); 2 need ≥ 10.96 → 11.4 (39.49 kV, the same): the fewest, 1.
+    expect(value(fn('CAPBANK.USERIES'), Math.sqrt(3) * 9.54, 60)).toBe(1);
+    for (let uc = 1; uc <= 150; uc += 0.37) {
+      const r = chooseCapacitorRating(uc, 60);
+      expect(value(fn('CAPBANK.USERIES'), r.bank_rated_kv, 60), `${uc} kV across`).toBe(r.units_in_series);
+    }
   });
   it('capacitor voltage 400 V with 6 % → 425.5 V (recomputed: voltage divider of the series L–C branch)', () => {
     expectAbs(value(fn('CAPBANK.UCAP'), 0.4, 6) * 1000, 425.5, 0.05);

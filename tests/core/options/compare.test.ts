@@ -19,6 +19,7 @@ import {
   savingRowOf,
 } from '../../../src/core/workbook/quantitiesLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { siteFromCsv } from '../site/fixtures.ts';
 
 const template = (name: string) =>
   readSiteFile(readFileSync(new URL(`../../../templates/${name}.json`, import.meta.url), 'utf8'));
@@ -104,5 +105,31 @@ describe('options for a site that holds no banks', () => {
       'detuned',
       'central',
     ]);
+  });
+});
+
+describe('one bank at the connection, when the point of connection has no stated voltage', () => {
+  it('says in its line why it has no bank, rather than only missing the requirement', () => {
+    // The transformer leaves u_kv blank, so only the LV bus has a voltage (from its load's row).
+    const { site, problems } = siteFromCsv(
+      [
+        'tag,bus,kind,p_kw,cos_phi,s_kva,uk_pct,p0_kw,pk_kw,i0_pct,to_bus,u_kv',
+        'T1,MV,transformer,,,1000,6,1.1,10,1,LV,',
+        'L1,LV,load,600,0.75,,,,,,,0.4',
+      ].join('\n'),
+    );
+    expect(problems.filter((p) => p.severity === 'error')).toEqual([]);
+    const central = standardOptions(site, undefined).find((o) => o.id === 'central');
+    expect(central?.banks.filter((b) => bankTotal(b) > 0)).toEqual([]);
+    expect(central?.summary).toBe(
+      'no bank: no row on MV, the point of connection, states its voltage (u_kv), so no bank there can be sized',
+    );
+  });
+  it('keeps its usual line when the voltage is stated', () => {
+    const { site } = template('cold-store');
+    const root = buildBusGraph(site.equipment).root;
+    expect(standardOptions(site, undefined).find((o) => o.id === 'central')?.summary).toMatch(
+      new RegExp(`^a single bank on ${root}, the point of connection`),
+    );
   });
 });

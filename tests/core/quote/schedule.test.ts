@@ -104,11 +104,29 @@ describe('a shunt reactor', () => {
 });
 
 describe('what is not known is said, never counted as zero', () => {
-  it('a blank capacitor rated voltage leaves the capacitors without a quantity and names the input', () => {
-    const items = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6 }, 0.4, 50));
+  it("a blank capacitor rated voltage takes the design's rating: 1.1 × 400 V = 440 V (makers' IEC ranges, from memory)", () => {
+    const spec = bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6 }, 0.4, 50);
+    expect([spec.u_rated_kv, spec.u_rated_from]).toEqual([0.44, 'design']);
+    const cap = busSchedule(spec).find((i) => i.code === 'LV capacitor');
+    // 50 · (0.44/0.4)² = 60.5 kvar nameplate a step: two units each, 12 in all
+    expect(cap?.quantity).toBeCloseTo(6 * 50 * 1.1 ** 2, 9);
+    expect(cap?.count).toBe(12);
+    expect(cap?.what).toContain("at 0.44 kV rated (the design's rating)");
+  });
+  it('7 % detuned and blank: 400/(1 − 0.07) = 430 V across, × 1.1 = 473 V → 480 V, as if typed', () => {
+    const blank = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 7 }, 0.4, 50));
+    const typed = busSchedule(
+      bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 7, u_rated_kv: 0.48 }, 0.4, 50),
+    );
+    expect(blank.map((i) => [i.code, i.count, i.quantity])).toEqual(
+      typed.map((i) => [i.code, i.count, i.quantity]),
+    );
+  });
+  it('a detuning the catalogue refuses leaves the capacitors without a quantity and names the inputs', () => {
+    const items = busSchedule(bankSpec({ bus: 'LV1', step_kvar: 50, steps: 6, p_pct: 100 }, 0.4, 50));
     const cap = items.find((i) => i.code === 'LV capacitor');
     expect(cap?.quantity).toBeNull();
-    expect(cap?.missing).toMatch(/rated voltage is blank for bus LV1/);
+    expect(cap?.missing).toMatch(/rated voltage is unknown for bus LV1/);
     expect(items.find((i) => i.code === 'LV contactor 125 A')?.count).toBe(6);
   });
   it('a site: buses without a bank are left out; a bus of unknown voltage says so', () => {
@@ -145,26 +163,88 @@ describe('controllers follow the design’s sections (stepRules.ts: at most 12 s
   });
 });
 
-describe('a 1:2:2 bank of 4 stages, 25 kvar smallest, plain at 400 V with 440 V capacitors', () => {
-  // Stages 25 + 50 + 50 + 50 = 175 kvar, 7 controller steps of 25 kvar (the ratio notation).
-  const spec = bankSpec({ bus: 'LV', step_kvar: 25, steps: 4, series: '1:2:2', u_rated_kv: 0.44 }, 0.4, 50);
-  const items = byCode(busSchedule(spec));
-  it('capacitors for 175 kvar of output: 25·(0.44/0.4)² = 30.25 kvar nameplate a smallest step, seven of them', () => {
-    const nameplate = 25 * (0.44 / 0.4) ** 2;
-    expect(nameplate).toBeCloseTo(30.25, 9);
-    expect(items.get('LV capacitor')?.quantity).toBeCloseTo(7 * 30.25, 6);
-    expect(items.get('LV capacitor')?.count).toBe(7);
+describe('a 1:2:2 bank of 3 stages, 25/50/50 kvar, plain at 400 V with 440 V capacitors', () => {
+  // Stages 25 + 50 + 50 = 125 kvar, 5 controller steps of 25 kvar (the ratio notation). Each
+  // stage is its own circuit: its units, its contactor, sized by its own current.
+  const spec = bankSpec({ bus: 'LV', step_kvar: 25, steps: 3, series: '1:2:2', u_rated_kv: 0.44 }, 0.4, 50);
+  const items = busSchedule(spec);
+  const lines = (prefix: string) =>
+    items.filter((i) => i.code.startsWith(prefix)).map((i) => [i.code, i.count, i.quantity]);
+
+  it('capacitors per stage: 25·(0.44/0.4)² = 30.25 kvar nameplate, one unit; a 50 kvar stage two of 30.25', () => {
+    const small = 25 * (0.44 / 0.4) ** 2;
+    expect(small).toBeCloseTo(30.25, 9);
+    const caps = items.filter((i) => i.code === 'LV capacitor');
+    expect(caps.map((i) => i.count)).toEqual([1, 4]); // 1 stage × 1 unit; 2 stages × 2 units
+    expect(caps[0]?.quantity).toBeCloseTo(small, 9);
+    expect(caps[1]?.quantity).toBeCloseTo(2 * 2 * small, 9);
+    expect(caps[1]?.what).toContain('2 stages of 50 kvar: 2 a stage, 4 × 30.25 kvar');
   });
-  it('one contactor per physical stage, sized for the 50 kvar stage (72.2 A × 1.43 = 103.2 A → 125 A), one 6-output controller', () => {
-    expect(spec.controller_steps).toBe(7);
-    // Sized for the smallest stage it would be 36.1 A × 1.43 = 51.6 A → 63 A: too small for 50 kvar.
+  it('one contactor per stage by its own current: 25 kvar 51.6 A → 63 A once, 50 kvar 103.2 A → 125 A twice', () => {
+    expect(spec.controller_steps).toBe(5);
     expect((25 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(51.6, 1);
-    const contactors = [...items.values()].filter((i) => i.code.startsWith('LV contactor'));
-    expect(contactors.map((i) => [i.code, i.count])).toEqual([['LV contactor 125 A', 4]]);
-    expect(items.get('Step controller 6 outputs')?.count).toBe(1);
+    expect((50 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(103.2, 1);
+    expect(lines('LV contactor')).toEqual([
+      ['LV contactor 63 A', 1, 1],
+      ['LV contactor 125 A', 2, 2],
+    ]);
+    expect(lines('Step controller')).toEqual([['Step controller 6 outputs', 1, 1]]);
   });
-  it('the incomer carries all 175 kvar: 252.6 A × 1.43 = 361.2 A → 400 A fuse-switch', () => {
-    expect((175 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(361.2, 1);
-    expect(items.get('LV fuse-switch 400 A')?.count).toBe(1);
+  it('the incomer carries all 125 kvar: 180.4 A × 1.43 = 258 A → 315 A fuse-switch; one section', () => {
+    expect((125 / (Math.sqrt(3) * 0.4)) * 1.43).toBeCloseTo(258.0, 1);
+    expect(lines('LV fuse-switch')).toEqual([['LV fuse-switch 315 A', 1, 1]]);
+    expect(lines('LV section')).toEqual([['LV section', 1, 1]]);
+  });
+  it('7 % detuned, a reactor per stage: one for 25 kvar, two for 50 kvar, 125 kvar carried', () => {
+    const detuned = busSchedule(
+      bankSpec({ bus: 'LV', step_kvar: 25, steps: 3, series: '1:2:2', p_pct: 7, u_rated_kv: 0.48 }, 0.4, 50),
+    );
+    const r = detuned.filter((i) => i.code === 'LV detuning reactor 7 %');
+    expect(r.map((i) => [i.count, i.quantity])).toEqual([
+      [1, 25],
+      [2, 100],
+    ]);
+  });
+});
+
+describe('a 1:2:4 bank of 4 stages, 10/20/40/80 kvar at 690 V: every stage size its own line', () => {
+  // 150 kvar in 15 steps of 10; currents 10/(√3·0.69) = 8.37 A × 1.43 = 11.97 A → 16 A, then 23.9 →
+  // 25 A, 47.9 → 50 A, 95.7 → 100 A (IEC 60059 R10 classes).
+  const items = busSchedule(
+    bankSpec({ bus: 'LV', step_kvar: 10, steps: 4, series: '1:2:4', u_rated_kv: 0.69 }, 0.69, 50),
+  );
+  it('four contactors of four classes and capacitors for 1 + 1 + 1 + 2 units (LV units up to 50 kvar)', () => {
+    const amps = [10, 20, 40, 80].map((q) => (q / (Math.sqrt(3) * 0.69)) * 1.43);
+    expect(amps.map((a) => Math.round(a * 10) / 10)).toEqual([12, 23.9, 47.9, 95.7]);
+    expect(items.filter((i) => i.code.startsWith('LV contactor')).map((i) => [i.code, i.count])).toEqual([
+      ['LV contactor 16 A', 1],
+      ['LV contactor 25 A', 1],
+      ['LV contactor 50 A', 1],
+      ['LV contactor 100 A', 1],
+    ]);
+    const caps = items.filter((i) => i.code === 'LV capacitor');
+    expect(caps.map((i) => i.count)).toEqual([1, 1, 1, 2]);
+    expect(caps.reduce((a, i) => a + (i.quantity ?? 0), 0)).toBeCloseTo(150, 9);
+  });
+});
+
+describe('a 60 Hz MV bank of IEEE 18 units: 1200 kvar fixed, plain, at 24.9 kV, rating blank', () => {
+  // By hand: 1.1 × 24.9 = 27.39 kV wanted. IEEE 18 Table 1 single-phase units (from memory) in
+  // star: 1 a phase needs ≥ 15.81 kV → 19.92 (bank 34.50 kV); 2 need ≥ 7.91 → 7.96 (27.57 kV);
+  // 3 need ≥ 5.27 → 6.64 (34.50); 4 need ≥ 3.95 → 4.16 (28.82). Two 7.96 kV units a phase.
+  const spec = bankSpec({ bus: 'MV', fixed_kvar: 1200 }, 24.9, 60);
+  const bank = Math.sqrt(3) * 2 * 7.96;
+  it("takes the design's 27.57 kV star of two 7.96 kV units in series a phase", () => {
+    expect(spec.u_rated_kv).toBeCloseTo(bank, 9);
+    expect(spec.units_in_series).toBe(2);
+  });
+  it('1200 · (27.57/24.9)² = 1471.6 kvar nameplate in 3 × 2 units of 245.3 kvar (up to 500 kvar a unit)', () => {
+    const nameplate = 1200 * (bank / 24.9) ** 2;
+    expect(nameplate).toBeCloseTo(1471.6, 1);
+    const cap = busSchedule(spec).find((i) => i.code === 'MV capacitor');
+    expect(cap?.count).toBe(6);
+    expect(cap?.quantity).toBeCloseTo(nameplate, 6);
+    expect(cap?.what).toContain('6 × 245.27 kvar');
+    expect(cap?.what).toContain('units of 7.96 kV in star, 2 in series a phase');
   });
 });

@@ -15,7 +15,7 @@ describe('checkCatalogue', () => {
     expect(checkCatalogue(CATALOGUE)).toEqual([]);
   });
 
-  it('holds the 32 catalogue functions, each once, in reference order', () => {
+  it('holds the 34 catalogue functions, each once, in reference order', () => {
     expect(CATALOGUE.map((f) => f.name)).toEqual([
       'KVA.TOTAL',
       'COSPHI',
@@ -41,6 +41,8 @@ describe('checkCatalogue', () => {
       'KVAR.CAPBANK',
       'CAPBANK.UCAP',
       'CAPBANK.TUNE',
+      'CAPBANK.URATED',
+      'CAPBANK.USERIES',
       'KVAR.REACTOR',
       'KVAR.PERKW',
       'KVAR.TOPF',

@@ -21,7 +21,8 @@ import {
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { collectChecks } from '../../../src/ui/panels/checksModel.ts';
 import { siteFromCsv } from '../site/fixtures.ts';
-import { coreQuote } from '../../ui/living/quoteFaces.ts';
+import { coreQuote, pageQuote } from '../../ui/living/quoteFaces.ts';
+import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 
 const { site } = siteFromCsv(
   [
@@ -143,19 +144,25 @@ describe('a missing rate is shown, not zero', () => {
     expect(q.total('Equipment')).toBe('unpriced');
     expect(q.total('Total')).toBe('unpriced');
   });
-  it('a blank capacitor rated voltage leaves the capacitors without a quantity, and unpriced', () => {
-    const s = open([{ ...LV_BANK, u_rated_kv: undefined }]);
+  it("a blank capacitor rated voltage takes the design's: 7 % at 400 V gives 480 V units, as if typed", () => {
+    // 400/(1 − 0.07) = 430 V across the capacitors, × 1.1 = 473 V → 480 V (makers' IEC ranges, from memory).
+    const blank = reader(open([{ ...LV_BANK, u_rated_kv: undefined }]));
+    expect(blank.v(busLineRow(0), QC.uRated)).toBe(0.48);
+    expect(blank.lines('LV1')).toEqual(reader(open([LV_BANK])).lines('LV1'));
+  });
+  it('a detuning the catalogue refuses leaves the capacitors without a quantity, and unpriced', () => {
+    const s = open([{ ...LV_BANK, u_rated_kv: undefined, p_pct: 100 }]);
     const q = reader(s);
-    const caps = slotRow(0, 'stepCapacitors');
+    const caps = slotRow(0, 'stageCapacitors0');
     expect(q.v(caps, QC.quantity)).toBe('');
     expect(q.v(caps, QC.cost)).toBe('quantity unknown');
-    expect(String(q.v(caps, QC.what))).toMatch(/rated voltage is blank/);
+    expect(String(q.v(caps, QC.what))).toMatch(/rated voltage is unknown/);
     expect(q.total('Total')).toBe('unpriced');
   });
   it('a rate cleared on the Rates sheet says "no rate", not a cost of 0, and the row it came from', () => {
     const s = open([LV_BANK]);
     const q = reader(s);
-    const caps = slotRow(0, 'stepCapacitors');
+    const caps = slotRow(0, 'stageCapacitors0');
     // Row 2 of the Rates sheet (index 1) is "LV capacitor": the line names that row.
     expect(q.v(caps, QC.rateRow)).toBe(2);
     s.setCells(s.engine.getSheetId(RATES_SHEET) as number, [{ row: 1, col: 2, content: null }]);
@@ -198,7 +205,7 @@ describe('a missing rate is shown, not zero', () => {
     expect(collectChecks(s.toDoc()).items.filter((i) => i.code === 'rates')).toEqual([]);
     // The first row's currency left blank: every other rate is in another currency, in both.
     s.setCells(rates, [{ row: 1, col: CURRENCY, content: null }]);
-    expect(q.v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe(10);
+    expect(q.v(slotRow(0, 'stageCapacitors0'), QC.rate)).toBe(10);
     expect(q.v(slotRow(0, 'enclosure'), QC.rate)).toBe('rate in another currency');
     expect(q.total('Total')).toBe('unpriced');
     expect(coreTotal()).toBeNull();
@@ -214,7 +221,7 @@ describe('a missing rate is shown, not zero', () => {
   it('without a Rates sheet every item shows "no rate"', () => {
     const doc = buildWorkbook(site, { flavour: 'live', banks: [LV_BANK] });
     const s = WorkbookSession.fromDoc({ ...doc, sheets: doc.sheets.filter((x) => x.name !== RATES_SHEET) });
-    expect(reader(s).v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe('no rate');
+    expect(reader(s).v(slotRow(0, 'stageCapacitors0'), QC.rate)).toBe('no rate');
   });
 });
 
@@ -246,6 +253,87 @@ describe('MV banks and a shunt reactor', () => {
   });
 });
 
+describe('a 1:2:2 series of 25/50/50 kvar at 400 V, 440 V capacitors: items per stage size', () => {
+  // Each stage is its own circuit, sized by its own current I = Q/(√3·U) × 1.43: 25 kvar 51.6 A →
+  // 63 A, 50 kvar 103.2 A → 125 A, 100 kvar 206.4 A → 250 A (IEC 60059 R10 classes). Nameplate
+  // Q·(Ur/U)² = 30.25 kvar per 25 kvar of output (plain), so one unit for 25 kvar and two for 50.
+  const bank: BankChoice = { bus: 'LV1', step_kvar: 25, steps: 3, series: '1:2:2', u_rated_kv: 0.44 };
+  const comp = planCompensationColumns(site.settings.cases);
+  const lv1Row = 1; // LV1 is the first bus of the Compensation sheet
+  const codesCounts = (q: ReturnType<typeof reader>) => q.lines('LV1').map((l) => [l[0], l[1]]);
+
+  it('counts units, contactors and the incomer per stage size, as worked by hand', () => {
+    const q = reader(open([bank]));
+    expect(codesCounts(q)).toEqual([
+      ['LV capacitor', 1], // the 25 kvar stage: 30.25 kvar, one unit
+      ['LV capacitor', 4], // two 50 kvar stages of 60.5 kvar: two units each
+      ['LV contactor 63 A', 1],
+      ['LV contactor 125 A', 2],
+      ['Step controller 6 outputs', 1],
+      ['LV section', 1], // 125 kvar plain, up to 400 kvar a section
+      ['LV fuse-switch 315 A', 1], // 125 kvar: 180.4 A × 1.43 = 258 A
+    ]);
+    const quantities = q.lines('LV1').map((l) => l[2] as number);
+    expect(quantities[0]).toBeCloseTo(30.25, 9);
+    expect(quantities[1]).toBeCloseTo(2 * 60.5, 9);
+  });
+
+  it('an edit of the steps or the series changes the lines at once, and the core counts the same', () => {
+    const s = open([bank]);
+    const q = reader(s);
+    const compSheet = s.engine.getSheetId('Compensation') as number;
+    s.setCells(compSheet, [{ row: lv1Row, col: comp.input.steps, content: 4 }]);
+    expect(codesCounts(q)).toEqual([
+      ['LV capacitor', 1],
+      ['LV capacitor', 6],
+      ['LV contactor 63 A', 1],
+      ['LV contactor 125 A', 3],
+      ['Step controller 6 outputs', 1],
+      ['LV section', 1],
+      ['LV fuse-switch 400 A', 1], // 175 kvar: 252.6 A × 1.43 = 361.2 A
+    ]);
+    expect(pageQuote(s, 3)).toEqual(coreQuote(s).face);
+    // 1:2:4 with 3 stages: 25/50/100 kvar, three contactor classes.
+    s.setCells(compSheet, [
+      { row: lv1Row, col: comp.input.steps, content: 3 },
+      { row: lv1Row, col: comp.input.series, content: '1:2:4' },
+    ]);
+    expect(codesCounts(q).filter(([c]) => String(c).startsWith('LV contactor'))).toEqual([
+      ['LV contactor 63 A', 1],
+      ['LV contactor 125 A', 1],
+      ['LV contactor 250 A', 1],
+    ]);
+    expect(pageQuote(s, 3)).toEqual(coreQuote(s).face);
+  });
+
+  it('7 % detuned: a detuning reactor line per stage size, 25 + 2 × 50 kvar carried', () => {
+    const q = reader(open([{ ...bank, p_pct: 7, u_rated_kv: 0.48 }]));
+    const reactors = q.lines('LV1').filter((l) => l[0] === 'LV detuning reactor 7 %');
+    expect(reactors.map((l) => [l[1], l[2]])).toEqual([
+      [1, 25],
+      [2, 100],
+    ]);
+  });
+});
+
+describe('a 60 Hz MV bank with the rating blank: IEEE 18 units in series, in the sheet as in the core', () => {
+  it('two 7.96 kV units a phase at 24.9 kV (schedule.test.ts works it by hand): 6 units for 1200 kvar', () => {
+    const { site: site60 } = siteFromCsv(
+      ['tag,bus,kind,qty,p_kw,cos_phi,u_kv,load', 'L1,MV,load,1,3000,0.8,24.9,1'].join('\n'),
+      { hz: 60 },
+    );
+    const s = WorkbookSession.fromDoc(
+      buildWorkbook(site60, { flavour: 'live', banks: [{ bus: 'MV', fixed_kvar: 1200 }] }),
+    );
+    const id = s.engine.getSheetId(QUANTITIES_SHEET) as number;
+    const v = (row: number, col: number) => s.engine.getCellValue({ sheet: id, row, col });
+    expect(v(busLineRow(0), QC.uRated) as number).toBeCloseTo(Math.sqrt(3) * 2 * 7.96, 9);
+    expect(v(busLineRow(0), QC.inSeries)).toBe(2);
+    expect(v(slotRow(0, 'fixedCapacitors'), QC.count)).toBe(6);
+    expect(pageQuote(s, 1)).toEqual(coreQuote(s).face);
+  });
+});
+
 describe('the sheet is generated', () => {
   it('refuses rows inserted or removed, deletion and renaming, saying why', () => {
     const s = open([LV_BANK]);
@@ -262,7 +350,7 @@ describe('the sheet is generated', () => {
     expect(typeof priced).toBe('number');
     const rates = s.engine.getSheetId(RATES_SHEET) as number;
     s.removeSheet(rates);
-    expect(q.v(slotRow(0, 'stepCapacitors'), QC.rate)).toBe('no rate');
+    expect(q.v(slotRow(0, 'stageCapacitors0'), QC.rate)).toBe('no rate');
     expect(q.total('Total')).toBe('unpriced');
     s.undo();
     expect(q.total('Total')).toBe(priced);
