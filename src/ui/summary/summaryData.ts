@@ -47,7 +47,9 @@ export interface BankLine {
   readonly series: Figure;
   readonly controllerSteps: Figure;
   readonly detuning: Figure;
+  /** The capacitors' rated voltage the quote prices: as typed, else the design's (uRatedByDesign). */
   readonly uRated: Figure;
+  readonly uRatedByDesign: boolean;
   readonly reactor: Figure;
   readonly total: Figure;
   readonly tuning: Figure;
@@ -134,8 +136,21 @@ function connectionCases(buses: Grid | undefined, comp: Grid | undefined): CaseA
   }));
 }
 
-function bankLines(comp: Grid | undefined): BankLine[] {
+/** Per bus name, the capacitor rating its Quantities block prices (typed, else the design's). */
+function pricedRatings(q: Grid | undefined): Map<string, Figure> {
+  const out = new Map<string, Figure>();
+  if (!q) return out;
+  const n = blockCount(q);
+  for (let i = 0; i < n; i++) {
+    const line = q[busLineRow(i)];
+    out.set(String(line?.[QC.bus]), figure(line?.[QC.uRated]));
+  }
+  return out;
+}
+
+function bankLines(comp: Grid | undefined, quantities: Grid | undefined): BankLine[] {
   const c = columnsOf(comp);
+  const priced = pricedRatings(quantities);
   const input = (key: (typeof BANK_INPUTS)[number]['key']) =>
     c(BANK_INPUTS.find((b) => b.key === key)?.header ?? '');
   const out: BankLine[] = [];
@@ -146,6 +161,8 @@ function bankLines(comp: Grid | undefined): BankLine[] {
     const reactor = at(row, input('reactor_kvar'));
     const chosen = (typeof total === 'number' && total > 0) || (typeof reactor === 'number' && reactor > 0);
     if (!chosen && typeof total !== 'string') continue;
+    const typedRating = at(row, input('u_rated_kv'));
+    const byDesign = typedRating === undefined && typeof priced.get(bus) === 'number';
     out.push({
       bus,
       u: at(row, c(COMP_HEADERS.u)),
@@ -155,7 +172,8 @@ function bankLines(comp: Grid | undefined): BankLine[] {
       series: at(row, input('series')),
       controllerSteps: at(row, c(COMP_HEADERS.controllerSteps)),
       detuning: at(row, input('p_pct')),
-      uRated: at(row, input('u_rated_kv')),
+      uRated: byDesign ? priced.get(bus) : typedRating,
+      uRatedByDesign: byDesign,
       reactor,
       total,
       tuning: at(row, c(COMP_HEADERS.tune)),
@@ -234,7 +252,7 @@ export function readSummary(values: SheetValues): SummaryData {
     },
     connection: typeof root === 'string' && root.trim() !== '' ? root : undefined,
     cases,
-    banks: bankLines(comp),
+    banks: bankLines(comp, values(SHEETS.quantities)),
     money: money(values(SHEETS.quantities), cases.length),
     bars: new Map([...readChartData(buses, comp).bars].filter(([c]) => cases.some((k) => k.name === c))),
     demoValues: mentionsInvented(values(RATES_SHEET)) || mentionsInvented(values(TARIFF_SHEET)),

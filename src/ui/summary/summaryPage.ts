@@ -141,7 +141,10 @@ function banks(d: SummaryData): HTMLElement {
               td(b.total, '#,##0.#'),
               td(b.detuning, '0.##'),
               td(b.tuning, '0.00'),
-              td(b.uRated, '0.0##'),
+              // A rating left blank is priced at the design's: say so beside it.
+              b.uRatedByDesign
+                ? el('td', { text: `${shown(b.uRated, '0.0##')} (design)` })
+                : td(b.uRated, '0.0##'),
               td(b.reactor, '#,##0.#'),
               td(b.check ?? 'no finding', '0'),
             ]),

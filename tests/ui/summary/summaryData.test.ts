@@ -85,6 +85,26 @@ describe('the summary of the cold-store demo', () => {
     });
   });
 
+  it("shows the rating the quote prices: a blank rating is the design's, and says so", async () => {
+    const s = await open('cold-store');
+    const comp = planCompensationColumns(['day', 'night']);
+    const row = (s.sheetContents(sheet(s, 'Compensation')) as unknown[][]).findIndex(
+      (r) => r[0] === 'LV-REF',
+    );
+    expect(row).toBeGreaterThan(0);
+    s.setCells(sheet(s, 'Compensation'), [{ row, col: comp.input.u_rated_kv, content: null }]);
+    const line = summaryOf(s).banks.find((b) => b.bus === 'LV-REF');
+    // 400 V with 7 % detuning: the capacitors see 0.4 / (1 − 0.07) = 0.430 kV, and their rating
+    // must be at least 1.1 × that, 0.473 kV (common practice, from memory); the first LV rating
+    // of the IEC 60831-1 series at or above it is 0.48 kV.
+    expect((0.4 / (1 - 0.07)) * 1.1).toBeCloseTo(0.473, 3);
+    expect(line?.uRated).toBe(0.48);
+    expect(line?.uRatedByDesign).toBe(true);
+    s.setCells(sheet(s, 'Compensation'), [{ row, col: comp.input.u_rated_kv, content: 0.525 }]);
+    const typed = summaryOf(s).banks.find((b) => b.bus === 'LV-REF');
+    expect([typed?.uRated, typed?.uRatedByDesign]).toEqual([0.525, false]);
+  });
+
   it('lists the banks of the Compensation sheet and the cost, saving and payback of the Quantities sheet', async () => {
     const s = await open('cold-store');
     const d = summaryOf(s);
