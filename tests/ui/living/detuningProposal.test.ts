@@ -12,6 +12,8 @@ import { compensate } from '../../../src/core/site/compensate.ts';
 import { heldProposals } from '../../../src/core/workbook/cellMarks.ts';
 import type { CellContent, WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { handOffDoc } from '../../../src/ui/app/handOff.ts';
+import { exportWorkbookXlsxWithReport, importKvarXlsx } from '../../../src/io/xlsx/index.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
 import { coreFaces, pageFaces, relDiff } from './faces.ts';
 
@@ -134,5 +136,28 @@ describe('a detuning typed alone takes the design’s bank', () => {
     const line = s.sheetContents(comp)[1] ?? [];
     for (const k of SIZE_KEYS) expect(line[plan.input[k]] ?? null).toBeNull();
     expect(line[plan.input.p_pct]).toBe(7);
+  });
+
+  it('the export carries each proposed value with a note; our import reads them back as inputs', async () => {
+    const { s, comp, row, bus } = open();
+    s.setCells(comp, detuneAlone(row, 7));
+    const step = s.sheetContents(comp)[row]?.[plan.input.step_kvar];
+    const steps = s.sheetContents(comp)[row]?.[plan.input.steps];
+    const handOff = handOffDoc(s.toDoc());
+    const bytes = (
+      await exportWorkbookXlsxWithReport(handOff.doc, handOff.settings ? { settings: handOff.settings } : {})
+    ).bytes;
+    const { default: ExcelJS } = await import('exceljs');
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(bytes as unknown as ArrayBuffer);
+    const note = wb.getWorksheet('Compensation')!.getCell(row + 1, plan.input.step_kvar + 1).note;
+    expect(JSON.stringify(note)).toMatch(/Proposed: proposed by the design on .* for bus /);
+
+    const back = await importKvarXlsx(bytes);
+    if (!back.ok) throw new Error(back.problem.message);
+    const bank = siteFromWorkbook(back.doc).banks.find((c) => c.bus === bus);
+    expect(bank?.step_kvar).toBe(step);
+    expect(bank?.steps).toBe(steps);
+    expect(bank?.p_pct).toBe(7);
   });
 });
