@@ -247,17 +247,25 @@ export class WorkbookSession {
 
   /**
    * Compensation rows the edit left with a detuning alone get the design's bank, marked as
-   * proposed, in the same step (detuningProposal.ts). The gate (a number in p (%)) keeps the
-   * whole-workbook read off every other edit.
+   * proposed, in the same step (detuningProposal.ts). The gate (a number in p (%), no size or
+   * reactor typed) keeps the whole-workbook read off every other edit.
    */
   private proposeForDetuning(rows: readonly number[]): { entries: number; structural: boolean } {
     const site = this.site;
     if (!site) return { entries: 0, structural: false };
     const comp = site.plans().comp;
-    const candidates = [...new Set(rows)].filter((r) => {
-      const p = this.contents.cell(site.ids.comp, r, comp.input.p_pct);
-      return r > 0 && p !== null && p !== '' && Number.isFinite(Number(p));
-    });
+    const typed = (r: number, c: number) => {
+      const v = this.contents.cell(site.ids.comp, r, c);
+      return v !== null && v !== '';
+    };
+    const sizes = [comp.input.fixed_kvar, comp.input.step_kvar, comp.input.steps, comp.input.reactor_kvar];
+    const candidates = [...new Set(rows)].filter(
+      (r) =>
+        r > 0 &&
+        typed(r, comp.input.p_pct) &&
+        Number.isFinite(Number(this.contents.cell(site.ids.comp, r, comp.input.p_pct))) &&
+        sizes.every((c) => !typed(r, c) || this.contents.cell(site.ids.comp, r, c) === 0),
+    );
     if (candidates.length === 0) return { entries: 0, structural: false };
     const proposal = detuningProposal(this.toDoc(), candidates, comp);
     if (proposal.cells.length === 0) return { entries: 0, structural: false };
