@@ -32,7 +32,8 @@ export interface SheetChoices {
 }
 
 const isTypedBank = (c: BankChoice) => hasBankChoice(c) || hasReactorChoice(c);
-const isDetuningOnly = (c: BankChoice) => !isTypedBank(c) && c.p_pct !== undefined && c.p_pct >= 0;
+/** A row with a detuning p (%) typed and neither bank sizes nor a reactor. */
+export const isDetuningOnly = (c: BankChoice) => !isTypedBank(c) && c.p_pct !== undefined && c.p_pct >= 0;
 
 /** Typed choices win over options for their buses; the sentences name each option set aside. */
 function optionsForOpenBuses(

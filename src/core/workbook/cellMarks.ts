@@ -26,3 +26,15 @@ export function heldAssumptions(sheet: SheetDoc): CellMark[] {
 export function assumedMark(row: number, col: number, value: number, note: string): CellMark {
   return { row, col, kind: 'assumed', note, value };
 }
+
+/** The proposed-value marks of a sheet that still hold, in row order. */
+export function heldProposals(sheet: SheetDoc): CellMark[] {
+  return (sheet.marks ?? [])
+    .filter((m) => m.kind === 'proposed' && markHolds(m, sheet.cells[m.row]?.[m.col] ?? null))
+    .sort((a, b) => a.row - b.row || a.col - b.col);
+}
+
+/** The proposed-value mark of a cell: its note says what the design proposed and when. */
+export function proposedMark(row: number, col: number, value: CellContent, note: string): CellMark {
+  return { row, col, kind: 'proposed', note, value };
+}

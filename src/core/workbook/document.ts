@@ -48,14 +48,15 @@ export interface CellChoice {
 }
 
 /**
- * A cell whose value deserves a second look: 'assumed' (a typical value put in for a blank) or
- * 'override' (typed over what the workbook would give). With `value`, the mark holds only while
- * the cell still contains that value: typing over an assumed value ends the assumption.
+ * A cell whose value deserves a second look: 'assumed' (a typical value put in for a blank),
+ * 'override' (typed over what the workbook would give) or 'proposed' (a bank size the design put
+ * into a Compensation row that had only a detuning typed). With `value`, the mark holds only while
+ * the cell still contains that value: typing over an assumed or proposed value ends the mark.
  */
 export interface CellMark {
   readonly row: number;
   readonly col: number;
-  readonly kind: 'assumed' | 'override';
+  readonly kind: 'assumed' | 'override' | 'proposed';
   readonly note: string;
   readonly value?: CellContent;
 }

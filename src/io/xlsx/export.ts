@@ -22,6 +22,7 @@ import {
 import {
   markAssumptions,
   markOverrides,
+  markProposals,
   styleCover,
   styleOptionsSheet,
   styleDataSheet,
@@ -303,6 +304,7 @@ export async function exportWorkbookXlsxWithReport(
     styleDataSheet(ws, s, { headerOnly: true });
     markOverrides(ws, s);
     markAssumptions(ws, s);
+    markProposals(ws, s);
   });
 
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));

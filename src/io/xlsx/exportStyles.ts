@@ -4,7 +4,7 @@ import type { CellFormulaValue, Worksheet } from 'exceljs';
 import type { SheetDoc } from '../../core/workbook/document.ts';
 import type { CoverFigureRow, CoverRow } from './exportCover.ts';
 import { xmlSafe } from './exportCells.ts';
-import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
+import { heldAssumptions, heldProposals } from '../../core/workbook/cellMarks.ts';
 
 const INK = 'FF1F2A33';
 const INPUT_HEADER = 'FFE3E9EE';
@@ -122,5 +122,17 @@ export function markAssumptions(ws: Worksheet, sheet: SheetDoc): void {
     cell.fill = solid(ASSUMED_FILL);
     cell.font = { italic: true };
     cell.note = `Assumed (typical value at tender stage): ${m.note}. Replace with nameplate or maker's data.`;
+  }
+}
+
+const PROPOSED_FILL = 'FFDFEAE4';
+
+/** Mark the bank sizes the design proposed for a row with a detuning typed alone: a pale fir fill and a note. */
+export function markProposals(ws: Worksheet, sheet: SheetDoc): void {
+  for (const m of heldProposals(sheet)) {
+    const cell = ws.getCell(m.row + 1, m.col + 1);
+    cell.fill = solid(PROPOSED_FILL);
+    cell.font = { underline: 'single' };
+    cell.note = `Proposed: ${m.note}. It counts as an input; check it against the makers' data.`;
   }
 }

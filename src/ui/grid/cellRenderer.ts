@@ -43,10 +43,12 @@ const ALL_CLASSES = [
   'kl-formula',
   'kl-mark-assumed',
   'kl-mark-override',
+  'kl-mark-proposed',
   'kl-choice',
 ];
 const OVERRIDE_TITLE =
   "Typed over: Kvar Ledger's formula is replaced by this value, which counts as typed. Clear the cell (Delete) to bring the formula back.";
+const MARK_TITLE = { assumed: 'Assumed', override: 'Typed over', proposed: 'Proposed' } as const;
 /** Horizontal padding and border of a cell, px. */
 const CELL_CHROME = 13;
 
@@ -94,7 +96,7 @@ export function makeCellRenderer(ctx: RenderContext) {
       const mark = notes.mark(row, col, () => ctx.engine.getCellSerialized(address) as never);
       if (mark) {
         td.classList.add(`kl-mark-${mark.kind}`);
-        hover.unshift(`${mark.kind === 'assumed' ? 'Assumed' : 'Typed over'}: ${mark.note}`);
+        hover.unshift(`${MARK_TITLE[mark.kind]}: ${mark.note}`);
       }
       const choice = notes.choice(row, col);
       if (choice) {

@@ -238,7 +238,9 @@ export class GridView implements EditHost, ChoiceHost {
     if (c.kind === 'title') return;
     if (this.applying && c.kind === 'cells' && c.sheetId === this.current) {
       // The grid renders itself once the change is applied; rendering here would draw twice.
+      // The edit may have marked cells (a bank proposed for a detuning typed alone): read them.
       this.measure();
+      this.readNotes();
       return;
     }
     this.reload();

@@ -33,6 +33,7 @@ import { tariffNewCaseWrites, tariffRenameWrites } from './tariffCases.ts';
 import { sortedOrder } from './rowOrder.ts';
 import type { TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
+import { detuningProposal } from './detuningProposal.ts';
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -234,7 +235,63 @@ export class WorkbookSession {
       entries += this.write(this.tariffNewCases());
     } else entries += this.write(follow.writes, true);
     this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
+    let structural = follow.structural;
+    if (sheetId === this.site.ids.comp) {
+      this.setMarks(sheetId, cells, []);
+      const proposed = this.proposeForDetuning(cells.map((c) => c.row));
+      entries += proposed.entries;
+      structural ||= proposed.structural;
+    }
+    return { entries, structural };
+  }
+
+  /**
+   * Compensation rows the edit left with a detuning alone get the design's bank, marked as
+   * proposed, in the same step (detuningProposal.ts). The gate (a number in p (%), no size or
+   * reactor typed) keeps the whole-workbook read off every other edit.
+   */
+  private proposeForDetuning(rows: readonly number[]): { entries: number; structural: boolean } {
+    const site = this.site;
+    if (!site) return { entries: 0, structural: false };
+    const comp = site.plans().comp;
+    const typed = (r: number, c: number) => {
+      const v = this.contents.cell(site.ids.comp, r, c);
+      return v !== null && v !== '';
+    };
+    const sizes = [comp.input.fixed_kvar, comp.input.step_kvar, comp.input.steps, comp.input.reactor_kvar];
+    const candidates = [...new Set(rows)].filter(
+      (r) =>
+        r > 0 &&
+        typed(r, comp.input.p_pct) &&
+        Number.isFinite(Number(this.contents.cell(site.ids.comp, r, comp.input.p_pct))) &&
+        sizes.every((c) => !typed(r, c) || this.contents.cell(site.ids.comp, r, c) === 0),
+    );
+    if (candidates.length === 0) return { entries: 0, structural: false };
+    const proposal = detuningProposal(this.toDoc(), candidates, comp);
+    if (proposal.cells.length === 0) return { entries: 0, structural: false };
+    const edit = siteEdit(site, this.contents, site.ids.comp, proposal.cells);
+    let entries = this.write(edit.writes);
+    const follow = edit.follow();
+    entries += this.write(follow.writes, true);
+    this.setMarks(site.ids.comp, proposal.cells, proposal.marks);
     return { entries, structural: follow.structural };
+  }
+
+  /** The proposed marks of the written cells go (typing over makes a value the user's); `added` come in. */
+  private setMarks(
+    sheetId: number,
+    written: ReadonlyArray<{ row: number; col: number }>,
+    added: readonly CellMark[],
+  ): void {
+    const m = this.layout.meta.get(sheetId) ?? {};
+    const at = new Set(written.map((c) => `${c.row},${c.col}`));
+    const kept = (m.marks ?? []).filter((k) => k.kind !== 'proposed' || !at.has(`${k.row},${k.col}`));
+    if (kept.length === (m.marks ?? []).length && added.length === 0) return;
+    const meta = new Map(this.layout.meta);
+    const marks = [...kept, ...added];
+    const { marks: _old, ...rest } = m;
+    meta.set(sheetId, marks.length > 0 ? { ...rest, marks } : rest);
+    this.layout = { ...this.layout, meta };
   }
 
   /**

@@ -36,7 +36,7 @@ function marksOf(v: unknown): CellMark[] {
   return v.filter(
     (m): m is CellMark =>
       isCell(m) &&
-      ((m as CellMark).kind === 'assumed' || (m as CellMark).kind === 'override') &&
+      ['assumed', 'override', 'proposed'].includes((m as CellMark).kind) &&
       typeof (m as CellMark).note === 'string',
   );
 }

@@ -23,20 +23,25 @@ describe('Checks: the choice per bus', () => {
     const standing = report.items.filter((i) => i.code === 'bank-choice' && i.where === `bus ${bus}`);
     expect(standing).toHaveLength(1);
     expect(standing[0]?.text).toContain('it stands as it is, and the design proposes nothing more');
-    // Clear the sizes, keep only a 14 % detuning: the design proposes the bank at 14 %.
-    s.setCells(comp, [
-      { row: withBank, col: plan.input.fixed_kvar, content: null },
-      { row: withBank, col: plan.input.step_kvar, content: null },
-      { row: withBank, col: plan.input.steps, content: null },
-      { row: withBank, col: plan.input.series, content: null },
-      { row: withBank, col: plan.input.u_rated_kv, content: null },
-      { row: withBank, col: plan.input.reactor_kvar, content: null },
-      { row: withBank, col: plan.input.p_pct, content: 14 },
-    ]);
-    const read = siteFromWorkbook(s.toDoc());
+    // A workbook whose row holds only a 14 % detuning (as a file may come): the design proposes
+    // the bank at 14 %. (On the page, typing it fills the row instead: detuningProposal.test.ts.)
+    const saved = s.toDoc();
+    const doc = {
+      ...saved,
+      sheets: saved.sheets.map((sh) => {
+        if (sh.name !== 'Compensation') return sh;
+        const cells = sh.cells.map((line) => [...line]);
+        const line = cells[withBank] ?? [];
+        for (const k of ['fixed_kvar', 'step_kvar', 'steps', 'series', 'u_rated_kv', 'reactor_kvar'] as const)
+          line[plan.input[k]] = null;
+        line[plan.input.p_pct] = 14;
+        return { ...sh, cells };
+      }),
+    };
+    const read = siteFromWorkbook(doc);
     const want = designWithSheet(read.site, read.banks).choices.find((c) => c.bus === bus);
     expect(want?.p_pct).toBe(14);
-    report = collectChecks(s.toDoc());
+    report = collectChecks(doc);
     const alone = report.items.filter((i) => i.code === 'bank-choice' && i.where === `bus ${bus}`);
     expect(alone).toHaveLength(1);
     expect(alone[0]?.severity).toBe('info');

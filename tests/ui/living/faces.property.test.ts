@@ -11,7 +11,7 @@ import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteArb } from './siteArb.ts';
 import { applyEdit, editArb } from './edits.ts';
-import { coreFaces, pageFaces, relDiff } from './faces.ts';
+import { coreFaces, expectedDetuningRow, pageFaces, relDiff, rowSizes } from './faces.ts';
 import { coreQuote, coreSaving, pageQuote, pageSaving, type QuoteFace } from './quoteFaces.ts';
 
 const TOL = 1e-9;
@@ -119,7 +119,16 @@ describe('the page and the core agree after every edit', () => {
         steps++;
         compared += compare(s, log);
         for (const e of edits) {
+          // A detuning typed alone: the row takes the core design's bank (detuningProposal.ts).
+          const cases = s.site?.state.cases ?? [];
+          const busCount = s.site?.state.rendered.buses.length ?? 0;
+          const alone = e.op === 'detuneAlone' && busCount > 0 ? e : undefined;
+          const detuned = alone ? 1 + (alone.bus % busCount) : undefined;
+          const want = alone && detuned ? expectedDetuningRow(s, detuned, alone.p, cases) : undefined;
           log.push(applyEdit(s, e));
+          if (detuned !== undefined) {
+            expect(rowSizes(s, detuned, cases), `row ${detuned}: ${log.join(' → ')}`).toEqual(want);
+          }
           steps++;
           compared += compare(s, log);
         }

@@ -9,6 +9,9 @@ import { zoneChargingMost } from '../../../src/core/site/chargingResonance.ts';
 import { buildBusGraph } from '../../../src/core/site/graph.ts';
 import { planBusColumns } from '../../../src/core/workbook/busColumns.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
+import { designWithSheet } from '../../../src/core/site/sheetChoices.ts';
+import { hasBankChoice, type BankChoice } from '../../../src/core/site/bankChoice.ts';
+import type { CellContent } from '../../../src/core/workbook/document.ts';
 
 export interface BusFigures {
   readonly bus: string;
@@ -88,4 +91,65 @@ export function coreFaces(s: WorkbookSession): { faces: Faces; cases: readonly s
 /** Relative difference with a floor of 1 (kW or kvar). */
 export function relDiff(a: number, b: number): number {
   return Math.abs(a - b) / Math.max(1, Math.abs(a), Math.abs(b));
+}
+
+/** The sizes a Compensation row holds (blank and 0 read as null), in the order of SIZE_KEYS. */
+const SIZE_KEYS = ['fixed_kvar', 'step_kvar', 'steps', 'series', 'u_rated_kv', 'reactor_kvar'] as const;
+
+export function rowSizes(s: WorkbookSession, row: number, cases: readonly string[]): CellContent[] {
+  const comp = planCompensationColumns(cases);
+  const line = s.sheetContents(s.engine.getSheetId('Compensation') as number)[row] ?? [];
+  return SIZE_KEYS.map((k) => {
+    const v = line[comp.input[k]] ?? null;
+    return v === 0 || v === '' ? null : v;
+  });
+}
+
+/**
+ * What a Compensation row should hold after a detuning p (%) is typed alone on it, from the core:
+ * the workbook as saved before the edit, the row's sizes and reactor cleared and p typed, read
+ * back and designed with designWithSheet (what Checks and `kvar-ledger balance` propose). The
+ * design's bank fills the blanks; a capacitor rating typed before stays. Inputs with errors, a
+ * design that refuses the site or no bank proposed: the row keeps only what was typed.
+ */
+export function expectedDetuningRow(
+  s: WorkbookSession,
+  row: number,
+  p: number,
+  cases: readonly string[],
+): CellContent[] {
+  const comp = planCompensationColumns(cases);
+  const saved = s.toDoc();
+  const doc = {
+    ...saved,
+    sheets: saved.sheets.map((sh) => {
+      if (sh.name !== 'Compensation') return sh;
+      const cells = sh.cells.map((line) => [...line]);
+      while (cells.length <= row) cells.push([]);
+      const line = cells[row] as CellContent[];
+      for (const k of SIZE_KEYS) if (k !== 'u_rated_kv') line[comp.input[k]] = null;
+      line[comp.input.p_pct] = p;
+      return { ...sh, cells };
+    }),
+  };
+  const typedUr = doc.sheets.find((x) => x.name === 'Compensation')?.cells[row]?.[comp.input.u_rated_kv];
+  const asTyped = SIZE_KEYS.map((k) =>
+    k === 'u_rated_kv' && typedUr != null && typedUr !== '' ? typedUr : null,
+  );
+  const read = siteFromWorkbook(doc);
+  const bus = String(doc.sheets.find((x) => x.name === 'Compensation')?.cells[row]?.[0]);
+  if (mergeProblems(read.problems, validateSite(read.site)).some((x) => x.severity === 'error'))
+    return asTyped;
+  let bank: BankChoice | undefined;
+  try {
+    bank = designWithSheet(read.site, read.banks).choices.find((c) => c.bus === bus && hasBankChoice(c));
+  } catch {
+    return asTyped;
+  }
+  if (!bank) return asTyped;
+  return SIZE_KEYS.map((k, i) => {
+    if (asTyped[i] !== null) return asTyped[i] ?? null;
+    const v = bank[k];
+    return v === undefined || v === 0 ? null : v;
+  });
 }
