@@ -13,6 +13,8 @@ let page: Page;
 beforeAll(async () => {
   app = await startApp();
   ({ browser, page } = app);
+  // The design behind a detuning typed alone loads once the workbook is on screen.
+  await page.waitForSelector('#app[data-proposer="ready"]', { state: 'attached' });
 });
 
 afterAll(async () => {

@@ -13,6 +13,7 @@ import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts
 import { App } from './app.ts';
 import { fileCommand } from './lazyCommands.ts';
 import { watchPageLife } from './pageLife.ts';
+import { loadDetuningProposer } from '../model/session.ts';
 
 const SECOND_TAB =
   'This workbook is already open in another tab. This tab works on a copy: its changes are saved apart in this browser (Workbook → Bring back a copy from another tab…) and never over the other tab’s work.';
@@ -155,5 +156,7 @@ export async function boot(root: HTMLElement): Promise<App> {
     }
   });
   root.dataset.ready = 'true';
+  // The design behind a detuning typed alone, after the workbook is on screen (not in the first download).
+  void loadDetuningProposer().then(() => (root.dataset.proposer = 'ready'));
   return app;
 }

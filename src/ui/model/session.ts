@@ -33,7 +33,19 @@ import { tariffNewCaseWrites, tariffRenameWrites } from './tariffCases.ts';
 import { sortedOrder } from './rowOrder.ts';
 import type { TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
-import { detuningProposal } from './detuningProposal.ts';
+
+/**
+ * The design behind a detuning typed alone (detuningProposal.ts): the whole compensation design,
+ * kept out of the first download. The page loads it once the workbook is on screen (boot.ts);
+ * until it has loaded, a detuning typed alone is left as typed and Checks describes the bank the
+ * design would propose. Tests load it before they edit.
+ */
+type DetuningProposer = (typeof import('./detuningProposal.ts'))['detuningProposal'];
+let detuningProposal: DetuningProposer | undefined;
+
+export async function loadDetuningProposer(): Promise<void> {
+  detuningProposal ??= (await import('./detuningProposal.ts')).detuningProposal;
+}
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -266,7 +278,7 @@ export class WorkbookSession {
         Number.isFinite(Number(this.contents.cell(site.ids.comp, r, comp.input.p_pct))) &&
         sizes.every((c) => !typed(r, c) || this.contents.cell(site.ids.comp, r, c) === 0),
     );
-    if (candidates.length === 0) return { entries: 0, structural: false };
+    if (candidates.length === 0 || !detuningProposal) return { entries: 0, structural: false };
     const proposal = detuningProposal(this.toDoc(), candidates, comp);
     if (proposal.cells.length === 0) return { entries: 0, structural: false };
     const edit = siteEdit(site, this.contents, site.ids.comp, proposal.cells);

@@ -3,7 +3,7 @@
 // proposed, in the same step. The expected bank is the core's design over the same workbook with
 // the row holding the detuning alone, computed here from the document, not read from the page;
 // the after-compensation figures are compared with the core's compensate() over that design.
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
@@ -11,7 +11,7 @@ import { designWithSheet } from '../../../src/core/site/sheetChoices.ts';
 import { compensate } from '../../../src/core/site/compensate.ts';
 import { heldProposals } from '../../../src/core/workbook/cellMarks.ts';
 import type { CellContent, WorkbookDoc } from '../../../src/core/workbook/document.ts';
-import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { loadDetuningProposer, WorkbookSession } from '../../../src/ui/model/session.ts';
 import { handOffDoc } from '../../../src/ui/app/handOff.ts';
 import { exportWorkbookXlsxWithReport, importKvarXlsx } from '../../../src/io/xlsx/index.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
@@ -49,6 +49,9 @@ function withDetuningAlone(doc: WorkbookDoc, row: number, p: number): WorkbookDo
     }),
   };
 }
+
+// The page loads the design behind a detuning typed alone after opening; here, before any edit.
+beforeAll(loadDetuningProposer);
 
 describe('a detuning typed alone takes the design’s bank', () => {
   it('fills the row with designWithSheet’s bank at 7 %, marked as proposed; the bus counts it', () => {

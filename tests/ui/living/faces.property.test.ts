@@ -5,10 +5,10 @@
 // 1e-9 relative; and the "Quantities and cost" sheet's items, counts, quantities, costs and
 // totals equal the core's priced schedule (src/core/quote, what `kvar-ledger quote` prints).
 // Random valid sites (siteArb.ts) and random sequences of 1–30 edits (edits.ts).
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
-import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { loadDetuningProposer, WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteArb } from './siteArb.ts';
 import { applyEdit, editArb } from './edits.ts';
 import { coreFaces, expectedDetuningRow, pageFaces, relDiff, rowSizes } from './faces.ts';
@@ -107,6 +107,9 @@ function compareQuotes(s: WorkbookSession, where: () => string): number {
   compareSavings(s, core.busCount, core.face.total, where);
   return core.face.buses.reduce((n, b) => n + b.lines.filter((l) => l.cost !== null).length, 0);
 }
+
+// The page loads the design behind a detuning typed alone after opening; here, before any edit.
+beforeAll(loadDetuningProposer);
 
 describe('the page and the core agree after every edit', () => {
   it('on random sites and random edit sequences', { timeout: 600_000 }, () => {
