@@ -83,12 +83,14 @@ export function annualSaving(flows: readonly CaseFlow[], t: Tariff, cost: number
   );
   const losses_saved = t.energy_price * sum((c) => c.loss_kwh_saved);
   const annual_saving = charge_before - charge_after + losses_saved;
+  // A saving so small that the cost over it overflows pays nothing back (the sheet says "no saving").
+  const payback = cost !== null && annual_saving > 0 ? cost / annual_saving : null;
   return {
     cases,
     charge_before,
     charge_after,
     losses_saved,
     annual_saving,
-    payback_years: cost !== null && annual_saving > 0 ? cost / annual_saving : null,
+    payback_years: payback !== null && Number.isFinite(payback) ? payback : null,
   };
 }

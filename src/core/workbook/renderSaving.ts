@@ -66,7 +66,7 @@ export function savingRows(n: number, cases: readonly string[], hasTariff: boole
     'Reactive charge after': charge(QC.unit, QC.rate),
     'Losses saved': `=${t('energy_price')}*SUM(${col(QC.cost)})`,
     'Annual saving': `=${at('Reactive charge before')}-${at('Reactive charge after')}+${at('Losses saved')}`,
-    'Simple payback (years)': `=IF(NOT(ISNUMBER(${total})),"${UNPRICED_TEXT.total}",IF(${saving}>0,${total}/${saving},"no saving"))`,
+    'Simple payback (years)': `=IF(NOT(ISNUMBER(${total})),"${UNPRICED_TEXT.total}",IF(${saving}>0,IFERROR(${total}/${saving},"no saving"),"no saving"))`,
   };
   for (const label of SAVING_LABELS) {
     const out = new Array<CellContent>(WIDTH).fill(null);

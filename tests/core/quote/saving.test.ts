@@ -62,6 +62,13 @@ describe('the worked example', () => {
     const none = FLOWS.map((f) => ({ ...f, p_after_kw: f.p_kw, q_after_kvar: f.q_kvar }));
     expect(annualSaving(none, TARIFF, 60000).payback_years).toBeNull();
   });
+  it('no payback when the saving is so small that the cost over it overflows (a price of 5e-324)', () => {
+    const tiny: Tariff = { ...TARIFF, kvarh_price: 5e-324, demand_price: 0, energy_price: 0 };
+    const s = annualSaving(FLOWS, tiny, 60000);
+    expect(s.annual_saving).toBeGreaterThan(0);
+    expect(60000 / s.annual_saving).toBe(Infinity);
+    expect(s.payback_years).toBeNull();
+  });
   it('a case the tariff gives no hours counts nothing, demand included', () => {
     const dayOnly = { ...TARIFF, hours: new Map([['day', 4000]]) };
     const s1 = annualSaving(FLOWS, dayOnly, null);
