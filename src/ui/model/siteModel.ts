@@ -498,7 +498,6 @@ function rowNeedsRewrite(a: RowInfo, b: RowInfo): boolean {
   return a.present !== b.present || a.kind !== b.kind || a.toBus !== b.toBus;
 }
 
-/** Formula text compared without spaces and letter case (the engine prints its own way). */
 /**
  * The runs of rows each bus's sums were last written for, per rows list of the state (the state
  * is replaced, never changed in place, so a list in hand names one version of the rows).
@@ -527,6 +526,7 @@ function carriesCharging(cols: EquipmentColumns | undefined): boolean {
   return cols.kinds.some((kind) => kind.traits?.charging);
 }
 
+/** Formula text compared without spaces and letter case (the engine prints its own way). */
 function squash(f: string): string {
   return f.replace(/\s+/g, '').toUpperCase();
 }
