@@ -61,6 +61,13 @@ describe('the summary page', () => {
     expect(await text('summary-saving')).toBe(`${shown(m.saving, '#,##0')} EUR`);
     expect(await text('summary-payback')).toBe(`${shown(m.payback, '0.0')} years`);
     expect(await page.locator('[data-testid="summary-banks"] tbody tr').count()).toBe(2);
+    // The schedule: a line per bus with a bank, its items as the Quantities sheet counts them.
+    const schedule = page.locator('[data-testid="summary-schedule"] tbody tr');
+    expect(await schedule.count()).toBe(m.schedule.length);
+    const svc = m.schedule.find((b) => b.bus === 'LV-SVC');
+    const svcRow = (await schedule.allInnerTexts()).find((t) => t.startsWith('LV-SVC')) ?? '';
+    expect(svcRow).toContain('1 × LV contactor');
+    expect(svcRow).toContain(`${shown(svc?.subtotal, '#,##0')} EUR`);
     expect(await page.locator('[data-testid="summary-page"] svg.kl-bars').count()).toBe(2);
     expect(await text('summary-cautions')).toMatch(/can hurt people.*licensed engineer.*INVENTED/s);
     await screenshot(page, 'summary');

@@ -56,8 +56,26 @@ export interface BankLine {
   readonly check: Figure;
 }
 
+/** One countable item of the schedule: a line of a bus's block on the Quantities and cost sheet. */
+export interface ItemLine {
+  readonly item: Figure;
+  readonly what: Figure;
+  readonly count: Figure;
+  readonly quantity: Figure;
+  readonly unit: Figure;
+  readonly cost: Figure;
+}
+
+export interface BusItems {
+  readonly bus: string;
+  readonly items: readonly ItemLine[];
+  readonly subtotal: Figure;
+}
+
 export interface Money {
   readonly currency: string;
+  /** Per bus with items, in the sheet's order: its item lines (lines without an item left out) and subtotal. */
+  readonly schedule: readonly BusItems[];
   readonly equipment: Figure;
   readonly total: Figure;
   /** Why the total is unpriced: one line per item without a usable rate ("bus: item — reason"). */
@@ -203,19 +221,33 @@ function money(q: Grid | undefined, caseCount: number): Money | undefined {
   if (line('Total')?.[QC.bus] !== 'Total' || saving('Annual saving')?.[QC.bus] !== 'Annual saving')
     return undefined;
   const unpriced: string[] = [];
+  const schedule: BusItems[] = [];
   for (let i = 0; i < n; i++) {
+    const items: ItemLine[] = [];
     const bus = String(q[busLineRow(i)]?.[QC.bus]);
     const busLine = q[busLineRow(i)];
     if (busLine?.[QC.unpriced] === 1) unpriced.push(`${bus}: ${String(figure(busLine[QC.what]) ?? '')}`);
     for (const slot of SLOTS) {
       const r = q[slotRow(i, slot)];
+      const item = figure(r?.[QC.item]);
+      if (item !== undefined)
+        items.push({
+          item,
+          what: figure(r?.[QC.what]),
+          count: figure(r?.[QC.count]),
+          quantity: figure(r?.[QC.quantity]),
+          unit: figure(r?.[QC.unit]),
+          cost: figure(r?.[QC.cost]),
+        });
       if (r?.[QC.unpriced] !== 1) continue;
       unpriced.push(`${bus}: ${String(figure(r[QC.item]) ?? slot)} — ${String(figure(r[QC.cost]) ?? '')}`);
     }
+    if (items.length > 0) schedule.push({ bus, items, subtotal: figure(busLine?.[QC.subtotal]) });
   }
   const currency = figure(line('Currency')?.[QC.cost]);
   return {
     currency: typeof currency === 'string' ? currency : '',
+    schedule,
     equipment: figure(line('Equipment')?.[QC.cost]),
     total: figure(line('Total')?.[QC.cost]),
     // The fixed part and the steps of a bank are both "capacitor" lines: one reason is enough.

@@ -14,6 +14,7 @@ import {
   shown,
   type BankLine,
   type Figure,
+  type ItemLine,
   type Money,
   type SummaryData,
 } from './summaryData.ts';
@@ -161,6 +162,30 @@ function moneyLine(label: string, value: string, testId: string, strong = false)
   ]);
 }
 
+/** An item as an offer line: "6 × LV contactor 63 A", or for items priced per kvar "LV capacitor 300 kvar (12 pc)". */
+function itemText(l: ItemLine): string {
+  const item = shown(l.item, '0');
+  if (l.unit === 'kvar') return `${item} ${shown(l.quantity, '#,##0.##')} kvar (${shown(l.count, '0')} pc)`;
+  return `${shown(l.count, '0')} × ${item}`;
+}
+
+/** The schedule per bus: its items in one cell, so the page stays one page; the bus's subtotal beside. */
+function schedule(m: Money, cur: (f: Figure) => string): HTMLElement | null {
+  if (m.schedule.length === 0) return null;
+  const rows = m.schedule.map((b) =>
+    el('tr', {}, [
+      el('th', { text: b.bus }),
+      el('td', { className: 'is-text', text: b.items.map(itemText).join('; ') }),
+      el('td', { className: 'is-nowrap', text: cur(b.subtotal) }),
+    ]),
+  );
+  return table(
+    ['Bus', 'Equipment schedule (Quantities and cost sheet)', 'Subtotal'],
+    rows,
+    'summary-schedule',
+  );
+}
+
 function money(m: Money | undefined): HTMLElement {
   const head = el('h2', { text: 'Cost and what it saves' });
   if (!m)
@@ -195,6 +220,7 @@ function money(m: Money | undefined): HTMLElement {
       ),
     ]),
     why,
+    schedule(m, cur),
   ]);
 }
 

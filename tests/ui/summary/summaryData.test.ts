@@ -140,6 +140,32 @@ describe('the summary of the cold-store demo', () => {
     expect(d.demoValues).toBe(true);
     expect(d.bars.get('summer-day')?.map((b) => b.bus)).toEqual(['MV-11', 'LV-REF', 'LV-SVC']);
   });
+
+  it('lists the schedule item by item, as the core prices it', async () => {
+    const s = await open('cold-store');
+    const m = summaryOf(s).money;
+    if (!m) throw new Error('no money block');
+    // The core's schedule (src/core/quote) for the same workbook: the same lines, bus by bus.
+    const core = coreQuote(s).face.buses.flatMap((b) =>
+      b.lines.map((l) => [b.bus, l.code, l.count, l.quantity, l.cost]),
+    );
+    expect(core.length).toBeGreaterThan(6);
+    const page = m.schedule.flatMap((b) => b.items.map((l) => [b.bus, l.item, l.count, l.quantity, l.cost]));
+    expect(page.length).toBe(core.length);
+    page.forEach((line, i) => {
+      const want = core[i] ?? [];
+      expect(line.slice(0, 3), `line ${i}`).toEqual(want.slice(0, 3));
+      expect(num(line[3])).toBeCloseTo(num(want[3]), 9);
+      expect(num(line[4])).toBeCloseTo(num(want[4]), 6);
+    });
+    // Per-stage switching of the 1:2:4 bank: a contactor line per stage size, each counted once.
+    const svc = m.schedule.find((b) => b.bus === 'LV-SVC');
+    const contactors = svc?.items.filter((l) => String(l.item).startsWith('LV contactor')) ?? [];
+    expect(contactors.map((l) => l.count)).toEqual([1, 1, 1]);
+    // Each bus's subtotal is its block's sum on the sheet, and the core's.
+    for (const b of coreQuote(s).face.buses)
+      expect(num(m.schedule.find((x) => x.bus === b.bus)?.subtotal)).toBeCloseTo(num(b.subtotal), 6);
+  });
 });
 
 describe('the summary after an edit', () => {
