@@ -28,7 +28,7 @@ import {
   styleDataSheet,
   styleFunctionsSheet,
 } from './exportStyles.ts';
-import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
+import { heldAssumptions, heldProposals } from '../../core/workbook/cellMarks.ts';
 import { loadExcelJs } from './loadExcelJs.ts';
 import {
   META_MARKER,
@@ -247,10 +247,16 @@ export async function exportWorkbookXlsxWithReport(
       : undefined;
   const typedOver = doc.sheets.flatMap((s) => (s.overrides ?? []).map(([r, c]) => `${s.name}!${a1Of(r, c)}`));
   const assumed = doc.sheets.flatMap((s) => heldAssumptions(s).map((m) => `${s.name}!${a1Of(m.row, m.col)}`));
+  const proposed = doc.sheets.flatMap((s) => heldProposals(s).map((m) => `${s.name}!${a1Of(m.row, m.col)}`));
   const notes = [
     ...(assumed.length > 0
       ? [
           `${assumed.length} value(s) are typical values assumed for blanks at tender stage (marked, with their source in a note): ${assumed.slice(0, MAX_COVER_ISSUES).join(', ')}${assumed.length > MAX_COVER_ISSUES ? ' …' : ''}. Replace them with nameplate or maker's data.`,
+        ]
+      : []),
+    ...(proposed.length > 0
+      ? [
+          `${proposed.length} value(s) are bank sizes the design proposed for a row with only a detuning typed (marked, with a note): ${proposed.slice(0, MAX_COVER_ISSUES).join(', ')}${proposed.length > MAX_COVER_ISSUES ? ' …' : ''}. Check them or type your own.`,
         ]
       : []),
     ...(typedOver.length > 0

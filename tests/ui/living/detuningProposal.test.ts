@@ -155,6 +155,11 @@ describe('a detuning typed alone takes the design’s bank', () => {
     await wb.xlsx.load(bytes as unknown as ArrayBuffer);
     const note = wb.getWorksheet('Compensation')!.getCell(row + 1, plan.input.step_kvar + 1).note;
     expect(JSON.stringify(note)).toMatch(/Proposed: proposed by the design on .* for bus /);
+    // The cover lists the proposed cells, as it lists assumed ones.
+    const cover: string[] = [];
+    wb.getWorksheet('Cover')!.eachRow((r) => r.eachCell((c) => cover.push(String(c.value))));
+    const stepCell = `Compensation!${String.fromCharCode(65 + plan.input.step_kvar)}${row + 1}`;
+    expect(cover.find((t) => t.includes('the design proposed'))).toContain(stepCell);
 
     const back = await importKvarXlsx(bytes);
     if (!back.ok) throw new Error(back.problem.message);
