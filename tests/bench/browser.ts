@@ -1,9 +1,14 @@
 // The page in headless Chromium (Debian's, through playwright-core): the built app served on
 // 127.0.0.1, the 10,000-row workbook opened the way a user opens a *.kvar.json file
 // (Workbook → Open file…), then a reload, which restores it from the browser's storage: that is
-// "navigation to an interactive grid" for this site. Edits are typed into a motor's load cell with
-// the charts panel (bus totals) open; each is timed from the Enter key to the next frame after the
-// charts changed. Memory from the DevTools protocol; initial JavaScript from the built files.
+// "navigation to an interactive grid" for this site, and the first edit typed after it gives
+// "navigation to the first edit recalculated". Edits are typed into a motor's load cell with the
+// charts panel (bus totals) open; each is timed from the Enter key to the next frame after the
+// charts changed. Then the grid is scrolled with the wheel while one more edit recalculates (the
+// longest gap between frames), and a motor row is copied into a row inserted below it (Edit →
+// Insert rows below, then Ctrl+D), timed to the repainted grid and totals. Every edit is applied
+// to the site too and the page's root P checked against the floor. Memory from the DevTools
+// protocol; initial JavaScript from the built files.
 import { mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
@@ -16,7 +21,15 @@ import type { BrowserResult, Check } from './record.ts';
 import { SIZES } from './sizes.ts';
 import { median } from './timing.ts';
 import { MotorEdits } from './workbookView.ts';
-import { installPaintProbe, measureEditPaint, readyAt, selectCell } from './pageProbes.ts';
+import {
+  editPaint,
+  installPaintProbe,
+  measureEditPaint,
+  measureInsertAndFill,
+  readyAt,
+  scrollDuringEdit,
+  selectCell,
+} from './pageProbes.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARGS = [
@@ -112,6 +125,17 @@ export async function measureBrowser(
       times.push(await measureEditPaint(page, String(value)));
       edits.record(1 + k, value); // Enter moves the selection one row down: the next motor.
     }
+    // Scrolling while the next edit recalculates (Enter has moved the selection to the next motor).
+    const scrollValue = edits.value(EDITS);
+    const scroll = await scrollDuringEdit(page, String(scrollValue));
+    edits.record(1 + EDITS, scrollValue);
+    // A structural edit: a row inserted below an unedited motor and that motor filled into it.
+    const copied = EDITS + 3;
+    await selectCell(page, copied, 0);
+    await page.keyboard.press('Shift+End');
+    await installPaintProbe(page, '[data-testid=grid]', 'klGridProbe');
+    const structural = await measureInsertAndFill(page, 'klGridProbe', 'klProbe');
+    edits.duplicate(copied);
     const jsHeapUsedMb = await heapUsedMb(page);
     const check = await checkRoot(page, edits);
 
@@ -123,12 +147,24 @@ export async function measureBrowser(
     );
     await page.reload();
     const openMs = await readyAt(page, doc.title);
+    // The first edit after opening, as soon as the grid shows: to its repainted bus totals, on the
+    // page's clock (from navigation). The charts panel may come back closed.
+    await page.click(`[data-testid=sheet-tab][data-sheet="${SHEETS.motors}"]`);
+    if ((await page.locator('[data-testid=charts]').count()) === 0)
+      await page.click('[data-testid=toggle-charts]');
+    await selectCell(page, 1, edits.col);
+    await installPaintProbe(page, '[data-testid=charts]');
+    const firstValue = edits.value(EDITS + 1);
+    const first = await editPaint(page, String(firstValue));
+    edits.record(1, firstValue);
     const restored = await checkRoot(page, edits);
     const note = [
       `file open (choose → interactive) ${Math.round(fileOpenMs)} ms`,
+      `structural edit: insert ${Math.round(structural.insertMs)} ms, fill down ${Math.round(structural.fillMs)} ms`,
+      `scrolling during an edit: ${scroll.frames} frames, ${scroll.framesOver50} over 50 ms`,
       `edits typed into "${HEADERS.loadCase(site.settings.cases[0] as string)}" of ${SHEETS.motors}`,
       restored.agrees
-        ? 'the restored workbook shows the same root P'
+        ? 'the restored workbook, edited once more, shows the root P of the edited site'
         : `after the reload (restored from browser storage) ${restored.detail}`,
     ].join('; ');
     return {
@@ -138,6 +174,9 @@ export async function measureBrowser(
       openMs,
       editPaintMs: median(times),
       editPaintRuns: times.length,
+      structuralPaintMs: structural.insertMs + structural.fillMs,
+      firstEditMs: first.t1,
+      scrollLongestFrameMs: scroll.longestFrameMs,
       jsHeapUsedMb,
       check,
     };

@@ -62,60 +62,167 @@ export async function selectCell(page: Page, row: number, col: number): Promise<
 
 interface Probe {
   armed: boolean;
+  /** What starts the clock: the Enter key, Ctrl+D, or a click on a menu item. */
+  start: 'Enter' | 'fill' | 'click';
   t0: number;
   t1: number;
   seen: boolean;
 }
 
-/** Watch `selector` for changes; an armed probe records the Enter key and the frame after the first change. */
-export async function installPaintProbe(page: Page, selector: string): Promise<void> {
-  const found = await page.evaluate((sel) => {
-    const target = document.querySelector(sel);
-    if (!target) return false;
-    const probe: Probe = { armed: false, t0: 0, t1: 0, seen: false };
-    (window as unknown as { klProbe: Probe }).klProbe = probe;
-    document.addEventListener(
-      'keydown',
-      (e) => {
-        if (probe.armed && e.key === 'Enter' && probe.t0 === 0) probe.t0 = performance.now();
-      },
-      true,
-    );
-    new MutationObserver(() => {
-      if (!probe.armed || probe.t0 === 0 || probe.seen) return;
-      probe.seen = true;
-      // The frame after the change: rAF runs before that frame's paint, the task after it runs once painted.
-      requestAnimationFrame(() =>
-        setTimeout(() => {
-          probe.t1 = performance.now();
-          probe.armed = false;
-        }, 0),
+type ProbeWindow = Record<string, Probe>;
+
+/**
+ * Watch `selector` for changes under the name `name`; an armed probe records the start (see
+ * Probe.start) and the frame after the first change. Several probes may watch different elements.
+ */
+export async function installPaintProbe(page: Page, selector: string, name = 'klProbe'): Promise<void> {
+  const found = await page.evaluate(
+    ([sel, key]) => {
+      const target = document.querySelector(sel as string);
+      if (!target) return false;
+      const probe: Probe = { armed: false, start: 'Enter', t0: 0, t1: 0, seen: false };
+      (window as unknown as ProbeWindow)[key as string] = probe;
+      // No named functions in here: the bench runs under tsx, whose name-keeping helper the page lacks.
+      document.addEventListener(
+        'keydown',
+        (e) => {
+          const starts =
+            (probe.start === 'Enter' && e.key === 'Enter') ||
+            (probe.start === 'fill' && e.ctrlKey && e.key.toLowerCase() === 'd');
+          if (starts && probe.armed && probe.t0 === 0) probe.t0 = performance.now();
+        },
+        true,
       );
-    }).observe(target, { subtree: true, childList: true, characterData: true, attributes: true });
-    return true;
-  }, selector);
+      document.addEventListener(
+        'click',
+        (e) => {
+          const starts = probe.start === 'click' && (e.target as Element | null)?.closest('[role=menuitem]');
+          if (starts && probe.armed && probe.t0 === 0) probe.t0 = performance.now();
+        },
+        true,
+      );
+      new MutationObserver(() => {
+        if (!probe.armed || probe.t0 === 0 || probe.seen) return;
+        probe.seen = true;
+        // The frame after the change: rAF runs before that frame's paint, the task after it runs once painted.
+        requestAnimationFrame(() =>
+          setTimeout(() => {
+            probe.t1 = performance.now();
+            probe.armed = false;
+          }, 0),
+        );
+      }).observe(target, { subtree: true, childList: true, characterData: true, attributes: true });
+      return true;
+    },
+    [selector, name],
+  );
   if (!found) throw new Error(`the page has no ${selector} to watch`);
 }
 
-/** Type a value into the active cell and press Enter; ms from Enter to the repainted watched element. */
-export async function measureEditPaint(page: Page, value: string): Promise<number> {
-  await page.evaluate(() =>
-    Object.assign((window as unknown as { klProbe: Probe }).klProbe, {
-      armed: true,
-      t0: 0,
-      t1: 0,
-      seen: false,
-    }),
+async function arm(page: Page, name: string, start: Probe['start']): Promise<void> {
+  await page.evaluate(
+    ([key, how]) =>
+      Object.assign((window as unknown as ProbeWindow)[key as string] as Probe, {
+        armed: true,
+        start: how,
+        t0: 0,
+        t1: 0,
+        seen: false,
+      }),
+    [name, start],
   );
-  await page.keyboard.type(value);
-  await page.keyboard.press('Enter');
+}
+
+/** The probe's start and end on the page's clock (ms since navigation), once it has seen its frame. */
+async function settled(page: Page, name: string): Promise<{ t0: number; t1: number }> {
   const handle = await page.waitForFunction(
-    () => {
-      const p = (window as unknown as { klProbe: Probe }).klProbe;
-      return p.t1 > 0 ? p.t1 - p.t0 : false;
+    (key) => {
+      const p = (window as unknown as ProbeWindow)[key];
+      return p && p.t1 > 0 ? { t0: p.t0, t1: p.t1 } : false;
     },
-    undefined,
+    name,
     { timeout: WAIT_MS },
   );
-  return (await handle.jsonValue()) as number;
+  return (await handle.jsonValue()) as { t0: number; t1: number };
+}
+
+/** Type a value into the active cell and press Enter; ms from Enter to the repainted watched element. */
+export async function measureEditPaint(page: Page, value: string, name = 'klProbe'): Promise<number> {
+  const { t0, t1 } = await editPaint(page, value, name);
+  return t1 - t0;
+}
+
+/** As measureEditPaint, with both ends on the page's clock (ms since navigation). */
+export async function editPaint(
+  page: Page,
+  value: string,
+  name = 'klProbe',
+): Promise<{ t0: number; t1: number }> {
+  await arm(page, name, 'Enter');
+  await page.keyboard.type(value);
+  await page.keyboard.press('Enter');
+  return settled(page, name);
+}
+
+/**
+ * A structural edit as a user makes it: with a whole row selected, Edit → Insert rows below
+ * (timed to the repainted grid, watched by `gridProbe`), then Ctrl+D fills the row above into the
+ * new one (timed to the repainted bus totals, watched by `totalsProbe`). The row must be selected
+ * across every column before the call.
+ */
+export async function measureInsertAndFill(
+  page: Page,
+  gridProbe: string,
+  totalsProbe: string,
+): Promise<{ insertMs: number; fillMs: number }> {
+  await page.click('[data-testid=menu-edit]');
+  await arm(page, gridProbe, 'click');
+  await page.click('[data-testid=menu-insert-below]');
+  const insert = await settled(page, gridProbe);
+  await arm(page, totalsProbe, 'fill');
+  await page.keyboard.press('Control+d');
+  const fill = await settled(page, totalsProbe);
+  return { insertMs: insert.t1 - insert.t0, fillMs: fill.t1 - fill.t0 };
+}
+
+/**
+ * Scroll the grid with the mouse wheel while an edit recalculates: the longest gap between two
+ * frames (ms) from the first wheel step to the last, and how many gaps exceed 50 ms. The edit is
+ * typed into the active cell a few steps into the scrolling.
+ */
+export async function scrollDuringEdit(
+  page: Page,
+  value: string,
+): Promise<{ longestFrameMs: number; framesOver50: number; frames: number }> {
+  await page.evaluate(() => {
+    const w = window as unknown as { klFrames: number[]; klFramesOn: boolean; klTick: FrameRequestCallback };
+    w.klFrames = [];
+    w.klFramesOn = true;
+    w.klTick = (t: number) => {
+      w.klFrames.push(t);
+      if (w.klFramesOn) requestAnimationFrame(w.klTick);
+    };
+    requestAnimationFrame(w.klTick);
+  });
+  const grid = await page.locator('[data-testid=grid] .ht_master').boundingBox();
+  if (!grid) throw new Error('the grid is not on screen');
+  await page.mouse.move(grid.x + grid.width / 2, grid.y + grid.height / 2);
+  for (let k = 0; k < 24; k++) {
+    await page.mouse.wheel(0, k % 12 < 6 ? 120 : -120);
+    if (k === 4) {
+      await page.keyboard.type(value);
+      await page.keyboard.press('Enter');
+    }
+    await page.waitForTimeout(40);
+  }
+  return page.evaluate(() => {
+    const w = window as unknown as { klFrames: number[]; klFramesOn: boolean };
+    w.klFramesOn = false;
+    const gaps = w.klFrames.slice(1).map((t, i) => t - (w.klFrames[i] as number));
+    return {
+      longestFrameMs: Math.max(0, ...gaps),
+      framesOver50: gaps.filter((g) => g > 50).length,
+      frames: gaps.length,
+    };
+  });
 }

@@ -64,6 +64,12 @@ export interface BrowserResult {
   readonly openMs?: number;
   readonly editPaintMs?: number;
   readonly editPaintRuns?: number;
+  /** A row inserted below a motor (to the repainted grid) plus Fill down of that motor into it (to the repainted totals). */
+  readonly structuralPaintMs?: number;
+  /** Navigation (a reload restoring the workbook) to the first edit's repainted totals, page clock. */
+  readonly firstEditMs?: number;
+  /** The longest gap between frames while the grid scrolls during an edit's recalculation. */
+  readonly scrollLongestFrameMs?: number;
   readonly jsHeapUsedMb?: number;
   readonly initialJsBytes?: number;
   readonly initialJsGzipBytes?: number;

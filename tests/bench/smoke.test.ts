@@ -78,7 +78,7 @@ describe('bench smoke (1,000 rows / 30 buses)', () => {
     const both = renderMarkdown({ ...results, browser: page(10_000, 60), browserSmall: page(1_000, 20) });
     expect(both).toContain('| What | 1,000 rows | 10,000 rows |');
     expect(both).toContain('| Edit to repainted bus total (ms, median) | 20.0 (7 edits) | 60.0 (7 edits) |');
-    expect(both).toMatch(/One edit to repainted bus totals, page, 1,000 rows \| ≤ 25 ms \| 20\.0 ms \| yes/);
+    expect(both).toMatch(/Value edit to repainted bus total, page, 1,000 rows \| ≤ 25 ms \| 20\.0 ms \| yes/);
   });
 
   it("the page's model: open, a typed edit, an inserted motor row and 500 pasted rows agree with the core", () => {

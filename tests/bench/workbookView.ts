@@ -61,6 +61,7 @@ export class MotorEdits {
   /** Tag of each data row (index 0 = cells row 1): the builder may order rows its own way. */
   private readonly tags: readonly string[];
   private readonly log = new Map<string, number>();
+  private readonly copies: string[] = [];
 
   constructor(
     doc: WorkbookDoc,
@@ -103,13 +104,22 @@ export class MotorEdits {
     this.log.set(tag, value);
   }
 
-  /** The site with every logged edit applied (the first case's load factor of those motors). */
+  /** Log a copy of data row `row`'s motor put into a row inserted below it (Fill down). */
+  duplicate(row: number): void {
+    const tag = this.tags[row - 1];
+    if (tag === undefined) throw new Error(`the Motors sheet has no data row ${row}`);
+    this.copies.push(tag);
+  }
+
+  /** The site with every logged edit applied (the first case's load factor of those motors), copies added. */
   editedSite(): Site {
     const caseName = this.site.settings.cases[0] as string;
-    const equipment = this.site.equipment.map((r) => {
+    const edited = (r: Site['equipment'][number]) => {
       const v = r.kind === 'motor' ? this.log.get(r.tag) : undefined;
       return v === undefined ? r : { ...r, loads: { ...r.loads, [caseName]: v } };
-    });
-    return { ...this.site, equipment };
+    };
+    const equipment = this.site.equipment.map(edited);
+    const copies = this.copies.map((tag) => equipment.find((r) => r.kind === 'motor' && r.tag === tag));
+    return { ...this.site, equipment: [...equipment, ...copies.filter((r) => r !== undefined)] };
   }
 }

@@ -131,7 +131,11 @@ export function buildTopBar(app: TopBarHost): { root: HTMLElement; title: HTMLIn
       'separator',
       { label: 'Fill down', hint: 'Ctrl+D', run: () => app.run(() => fillDown(app.grid)) },
       { label: 'Insert rows above', run: () => app.run(() => insertRows(app.grid, 'above')) },
-      { label: 'Insert rows below', run: () => app.run(() => insertRows(app.grid, 'below')) },
+      {
+        label: 'Insert rows below',
+        run: () => app.run(() => insertRows(app.grid, 'below')),
+        testId: 'menu-insert-below',
+      },
       { label: 'Delete rows', run: () => app.run(() => deleteRows(app.grid)) },
       {
         label: 'Sort rows by this column, ascending',
