@@ -10,6 +10,7 @@ import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
 import {
+  marksAfterMoves,
   marksAfterOrder,
   marksAfterRows,
   metaExtras,
@@ -209,6 +210,8 @@ export class WorkbookSession {
       // Generated formulas are not kept as typed: the model writes them again when the file opens.
       this.contents.set(w.sheet, w.row, w.col, generated && isFormula(w.content) ? null : w.content);
     }
+    const moves = generated ? this.site?.takeCompensationMoves() : undefined;
+    if (moves && this.site) this.moveMarks(this.site.ids.comp, (m) => marksAfterMoves(m, moves));
     return entries;
   }
 

@@ -96,3 +96,15 @@ export function marksAfterOrder(
     return row === undefined ? m : { ...m, row };
   });
 }
+
+/** Marks after rows moved to other rows: `moves` maps an old row to its new one (undefined: gone). */
+export function marksAfterMoves(
+  marks: readonly CellMark[],
+  moves: ReadonlyMap<number, number | undefined>,
+): CellMark[] {
+  return marks.flatMap((m) => {
+    if (!moves.has(m.row)) return [m];
+    const row = moves.get(m.row);
+    return row === undefined ? [] : [{ ...m, row }];
+  });
+}

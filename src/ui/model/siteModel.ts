@@ -400,6 +400,7 @@ export class SiteModel {
   /** The Buses and Compensation sheets written anew for a structure, banks kept with their bus. */
   private writeDerived(s: WorkbookStructure, renamed: ReadonlyMap<string, string>): Write[] {
     const { bus, comp } = this.plans();
+    this.noteCompensationMoves(s, renamed);
     const busRows = busRowIndex(s);
     const inputs = this.bankInputs(renamed);
     // A bus that goes away keeps its bank inputs aside; one that comes back gets them again.
@@ -436,6 +437,29 @@ export class SiteModel {
       extent: { buses: buses.length, comp: compGrid.length, quant: quant.length },
     };
     return out;
+  }
+
+  /** Compensation rows (1-based) whose bus moved with the last rewrite: old row → new row, undefined when gone. */
+  private compensationMoves: Map<number, number | undefined> | undefined;
+
+  private noteCompensationMoves(s: WorkbookStructure, renamed: ReadonlyMap<string, string>): void {
+    const moves = new Map<number, number | undefined>();
+    this.state.rendered.buses.forEach((b, i) => {
+      const to = s.busIndex.get(renamed.get(b.key) ?? b.key);
+      const row = to === undefined ? undefined : to + 1;
+      if (row !== i + 1) moves.set(i + 1, row);
+    });
+    this.compensationMoves = moves.size > 0 ? moves : undefined;
+  }
+
+  /**
+   * Where the Compensation sheet's rows went when the buses last changed, once: cell marks on that
+   * sheet (assumed, proposed) follow their bus with it, as the bank inputs do.
+   */
+  takeCompensationMoves(): ReadonlyMap<number, number | undefined> | undefined {
+    const moves = this.compensationMoves;
+    this.compensationMoves = undefined;
+    return moves;
   }
 
   /** The Quantities and cost sheet written anew for the buses as they are (a Rates or Tariff sheet came or went). */

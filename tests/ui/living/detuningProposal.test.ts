@@ -123,6 +123,34 @@ describe('a detuning typed alone takes the design’s bank', () => {
     expect(marks()).toEqual([]);
   });
 
+  it('the proposed marks move with their bus when a new bus moves its Compensation row', () => {
+    const { s, comp, row, bus } = open();
+    s.setCells(comp, detuneAlone(row, 7));
+    const layoutMarks = () => heldProposals({ ...s.toDoc().sheets.find((x) => x.name === 'Compensation')! });
+    const before = layoutMarks();
+    expect(before.length).toBeGreaterThan(0);
+    expect(new Set(before.map((m) => m.row))).toEqual(new Set([row]));
+    // A transformer typed above the others feeds a new bus, which the sheet lists before this one.
+    const xf = s.engine.getSheetId('Transformers') as number;
+    s.insertRows(xf, 1, 1);
+    s.setCells(xf, [
+      { row: 1, col: 0, content: 'T0' },
+      { row: 1, col: 2, content: 'MV' },
+      { row: 1, col: 3, content: 'AUX' },
+      { row: 1, col: 6, content: 630 },
+      { row: 1, col: 7, content: 6 },
+    ]);
+    const rows = s.sheetContents(comp);
+    const now = rows.findIndex((r, i) => i > 0 && r[0] === bus);
+    expect(now).not.toBe(row);
+    const after = layoutMarks();
+    expect(after.map((m) => [m.col, m.value])).toEqual(before.map((m) => [m.col, m.value]));
+    expect(new Set(after.map((m) => m.row))).toEqual(new Set([now]));
+    // Undo takes the new bus away and the marks back to their row.
+    s.undo();
+    expect(new Set(layoutMarks().map((m) => m.row))).toEqual(new Set([row]));
+  });
+
   it('writes nothing where the design proposes no bank (no need on the site)', () => {
     // The plant's requirement met by anything: cos φ 0.5 needs no kvar on any bus.
     const site = {
