@@ -152,10 +152,8 @@ export function renderCompensationSheet(input: CompensationInput): CellContent[]
     out[cols.total] = `=${fixed}+${step}*${ctrl}`;
     out[cols.tune] = `=IF(${p}>0,CAPBANK.TUNE(${p}),"")`;
     out[cols.uCap] = `=IF(${total}=0,"",CAPBANK.UCAP(${u},${p}))`;
-    // A blank rating is the design's, by its one rule (CAPBANK.URATED), as the quote prices it.
-    const rating = `IF(ISBLANK(${ur}),CAPBANK.URATED(${here(cols.uCap)},${hz}),${ur})`;
     out[cols.stepNameplate] =
-      `=IF(OR(${step}=0,${total}=0),"",-${step}/KVAR.CAPBANK(1,${rating},${u},${p},${hz},${hz}))`;
+      `=IF(OR(${step}=0,ISBLANK(${ur})),"",-${step}/KVAR.CAPBANK(1,${ur},${u},${p},${hz},${hz}))`;
     out[cols.plainInstalled] = plainInstalledCell(input, i);
     const installed = here(cols.plainInstalled);
     const charging = here(cols.zoneCharging);
