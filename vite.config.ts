@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import { DEV_HEADERS, HOST_HEADERS } from './src/host/headers.ts';
@@ -44,6 +45,9 @@ export default defineConfig({
           include: ['tests/**/*.test.ts'],
           exclude: ['tests/browser/**', 'tests/crossengine/**', 'node_modules/**'],
           testTimeout: 30_000,
+          // Vitest's default is one worker less than the cores: on a two-core machine (CI's) the
+          // unit files then run one at a time. They are independent; use every core.
+          maxWorkers: Math.max(2, availableParallelism()),
         },
       },
       {
