@@ -1,0 +1,174 @@
+// A kind's physics compiled once into JavaScript closures, for the roll-up's per-row work: the
+// tree evaluator (evalExpr) walks the tree, looks each function up by name and builds its
+// result objects at every row of every case. The closures do the same arithmetic in the same
+// order and call the same catalogue functions through the same validation (evaluate), so their
+// values equal the tree's; when anything fails (a division by zero, an argument the catalogue
+// refuses) they stop, and the tree evaluator runs instead to give the message and its column.
+// tests/core/kinds/compile.property.test.ts pins the two together on every kind.
+import { findFunction } from '../functions/index.ts';
+import { evaluate, type RawArg } from '../registry/evaluate.ts';
+import { evalExpr, normaliseText, type EvalContext, type EvalResult, type Expr } from './expr.ts';
+
+/** The physics as a closure: the value, or a throw of FAILED where evalExpr gives an error. */
+export type Compiled = (ctx: EvalContext) => number;
+
+/**
+ * Thrown by a compiled closure where the tree evaluator gives an error, and caught by the
+ * callers here (made once: no stack is captured per row).
+ */
+const FAILED = new Error('compiled evaluation failed; the tree evaluator gives the message');
+
+const compiled = new WeakMap<Expr, Compiled>();
+
+/** The closure for a tree, compiled on first use (trees are frozen data: kinds never change them). */
+export function compileExpr(e: Expr): Compiled {
+  let f = compiled.get(e);
+  if (f === undefined) {
+    f = compile(e);
+    compiled.set(e, f);
+  }
+  return f;
+}
+
+/**
+ * Evaluate through the compiled closure; where it fails, through the tree, which gives the
+ * message. Same result as evalExpr(e, ctx); never throws.
+ */
+export function evalCompiled(e: Expr, ctx: EvalContext): EvalResult {
+  const f = compileExpr(e);
+  try {
+    return { ok: true, value: f(ctx) };
+  } catch (x) {
+    if (x !== FAILED) throw x;
+    return evalExpr(e, ctx);
+  }
+}
+
+/** Run closures that may fail; the fallback (the tree evaluator) runs when one of them does. */
+export function tryCompiled<T>(run: () => T, fallback: () => T): T {
+  try {
+    return run();
+  } catch (x) {
+    if (x !== FAILED) throw x;
+    return fallback();
+  }
+}
+
+const fail = (): never => {
+  throw FAILED;
+};
+
+// Text as ifText compares it; sites repeat a handful of supply texts over thousands of rows.
+const normalised = new Map<string, string>();
+function normalisedText(text: string): string {
+  let t = normalised.get(text);
+  if (t === undefined) {
+    t = normaliseText(text);
+    if (normalised.size > 1_000) normalised.clear(); // texts typed by hand: keep the cache small
+    normalised.set(text, t);
+  }
+  return t;
+}
+
+function textMatcher(key: string, equals: string): (ctx: EvalContext) => boolean {
+  return (ctx) => normalisedText(ctx.text?.(key) ?? '') === equals;
+}
+
+function compile(e: Expr): Compiled {
+  switch (e.k) {
+    case 'num': {
+      const v = e.v;
+      return () => v;
+    }
+    case 'col': {
+      const key = e.key;
+      return (ctx) => ctx.col(key) ?? 0;
+    }
+    case 'var': {
+      const name = e.name;
+      return (ctx) => ctx.variable(name);
+    }
+    case 'neg': {
+      const a = compileExpr(e.a);
+      return (ctx) => -a(ctx);
+    }
+    case 'op':
+      return compileOp(e.op, compileExpr(e.a), compileExpr(e.b));
+    case 'ifPositive': {
+      const test = compileExpr(e.test);
+      const then = compileExpr(e.then);
+      const otherwise = compileExpr(e.otherwise);
+      return (ctx) => (test(ctx) > 0 ? then(ctx) : otherwise(ctx));
+    }
+    case 'ifText': {
+      const matches = textMatcher(e.key, e.equals);
+      const then = compileExpr(e.then);
+      const otherwise = compileExpr(e.otherwise);
+      return (ctx) => (matches(ctx) ? then(ctx) : otherwise(ctx));
+    }
+    case 'call':
+      return compileCall(e.fn, e.args);
+  }
+}
+
+function compileOp(op: '+' | '-' | '*' | '/', a: Compiled, b: Compiled): Compiled {
+  switch (op) {
+    case '+':
+      return (ctx) => {
+        const x = a(ctx);
+        return x + b(ctx);
+      };
+    case '-':
+      return (ctx) => {
+        const x = a(ctx);
+        return x - b(ctx);
+      };
+    case '*':
+      return (ctx) => {
+        const x = a(ctx);
+        return x * b(ctx);
+      };
+    case '/':
+      return (ctx) => {
+        const x = a(ctx);
+        const y = b(ctx);
+        return y === 0 ? fail() : x / y;
+      };
+  }
+}
+
+type CompiledArgument = (ctx: EvalContext) => number | null;
+
+/** An argument as the engine hands it over: a cell (or a choice landing on one) passes a blank as null. */
+function compileArgument(a: Expr): CompiledArgument {
+  if (a.k === 'col') {
+    const key = a.key;
+    return (ctx) => ctx.col(key) ?? null;
+  }
+  if (a.k === 'ifPositive') {
+    const test = compileExpr(a.test);
+    const then = compileArgument(a.then);
+    const otherwise = compileArgument(a.otherwise);
+    return (ctx) => (test(ctx) > 0 ? then(ctx) : otherwise(ctx));
+  }
+  if (a.k === 'ifText') {
+    const matches = textMatcher(a.key, a.equals);
+    const then = compileArgument(a.then);
+    const otherwise = compileArgument(a.otherwise);
+    return (ctx) => (matches(ctx) ? then(ctx) : otherwise(ctx));
+  }
+  return compileExpr(a);
+}
+
+function compileCall(fn: string, args: readonly Expr[]): Compiled {
+  const spec = findFunction(fn);
+  if (!spec) return fail;
+  const parts = args.map(compileArgument);
+  const count = parts.length;
+  return (ctx) => {
+    const raw = new Array<RawArg>(count);
+    for (let i = 0; i < count; i++) raw[i] = (parts[i] as CompiledArgument)(ctx);
+    const r = evaluate(spec, raw);
+    return r.ok ? r.value : fail();
+  };
+}
