@@ -6,7 +6,7 @@
 // refuses) they stop, and the tree evaluator runs instead to give the message and its column.
 // tests/core/kinds/compile.property.test.ts pins the two together on every kind.
 import { findFunction } from '../functions/index.ts';
-import { evaluate, type RawArg } from '../registry/evaluate.ts';
+import { evaluateValue, type RawArg } from '../registry/evaluate.ts';
 import { evalExpr, normaliseText, type EvalContext, type EvalResult, type Expr } from './expr.ts';
 
 /** The physics as a closure: the value, or a throw of FAILED where evalExpr gives an error. */
@@ -70,8 +70,26 @@ function normalisedText(text: string): string {
   return t;
 }
 
-function textMatcher(key: string, equals: string): (ctx: EvalContext) => boolean {
-  return (ctx) => normalisedText(ctx.text?.(key) ?? '') === equals;
+type IfText = Extract<Expr, { k: 'ifText' }>;
+
+/**
+ * A run of text tests on one column (ifText whose `otherwise` is again ifText on the same
+ * column, as bySupply writes a kind's supply arrangements) as one look-up of the row's text:
+ * the first test in the run that matches wins, as when the tree is walked.
+ */
+function textChoice<T>(e: IfText, part: (e: Expr) => T): (ctx: EvalContext) => T {
+  const key = e.key;
+  const branches = new Map<string, T>();
+  let at: Expr = e;
+  while (at.k === 'ifText' && at.key === key) {
+    if (!branches.has(at.equals)) branches.set(at.equals, part(at.then));
+    at = at.otherwise;
+  }
+  const otherwise = part(at);
+  return (ctx) => {
+    const text = ctx.text?.(key);
+    return branches.get(text === undefined ? '' : normalisedText(text)) ?? otherwise;
+  };
 }
 
 function compile(e: Expr): Compiled {
@@ -101,10 +119,8 @@ function compile(e: Expr): Compiled {
       return (ctx) => (test(ctx) > 0 ? then(ctx) : otherwise(ctx));
     }
     case 'ifText': {
-      const matches = textMatcher(e.key, e.equals);
-      const then = compileExpr(e.then);
-      const otherwise = compileExpr(e.otherwise);
-      return (ctx) => (matches(ctx) ? then(ctx) : otherwise(ctx));
+      const choose = textChoice(e, compileExpr);
+      return (ctx) => choose(ctx)(ctx);
     }
     case 'call':
       return compileCall(e.fn, e.args);
@@ -152,10 +168,8 @@ function compileArgument(a: Expr): CompiledArgument {
     return (ctx) => (test(ctx) > 0 ? then(ctx) : otherwise(ctx));
   }
   if (a.k === 'ifText') {
-    const matches = textMatcher(a.key, a.equals);
-    const then = compileArgument(a.then);
-    const otherwise = compileArgument(a.otherwise);
-    return (ctx) => (matches(ctx) ? then(ctx) : otherwise(ctx));
+    const choose = textChoice(a, compileArgument);
+    return (ctx) => choose(ctx)(ctx);
   }
   return compileExpr(a);
 }
@@ -168,7 +182,7 @@ function compileCall(fn: string, args: readonly Expr[]): Compiled {
   return (ctx) => {
     const raw = new Array<RawArg>(count);
     for (let i = 0; i < count; i++) raw[i] = (parts[i] as CompiledArgument)(ctx);
-    const r = evaluate(spec, raw);
-    return r.ok ? r.value : fail();
+    const v = evaluateValue(spec, raw);
+    return v === v ? v : fail(); // NaN: evaluate gives an error
   };
 }
