@@ -9,7 +9,7 @@ import { branchPower, shuntPower } from './rowPower.ts';
 import { loadFactor, resolveCase, unitsRunning } from './cases.ts';
 import type { BusGraph } from './graph.ts';
 import { error, type Problem } from './problems.ts';
-import { siteTopology, type BranchPlace } from './topology.ts';
+import { siteTopology, type BranchPlace, type ShuntPlace, type SiteTopology } from './topology.ts';
 import { apparentPower, powerFactor, tanPhi } from '../elements/powerTriangle.ts';
 
 export type Sense = 'lagging' | 'leading' | 'unity';
@@ -171,8 +171,42 @@ function busResult(bus: string, graph: BusGraph, u: number | undefined, total: S
   };
 }
 
-/** The balance of every bus in one case. Throws SiteStructureError when the site is not a tree or the case is unknown. */
-export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string, BusExtra>): CaseBalance {
+/** The shunt items of one case: what a roll-up with banks added (compensate.ts) shares with the one without. */
+interface ShuntPass {
+  readonly top: SiteTopology;
+  readonly hz: number;
+  readonly elements: readonly ElementBalance[];
+  readonly problems: readonly Problem[];
+}
+
+/** The shunt pass each balance was summed from. */
+const SHUNT_PASS = new WeakMap<CaseBalance, ShuntPass>();
+
+function shuntPass(top: SiteTopology, caseName: string, hz: number, reuse?: CaseBalance): ShuntPass {
+  const known = reuse === undefined ? undefined : SHUNT_PASS.get(reuse);
+  if (known !== undefined && known.top === top && known.hz === hz && reuse?.case === caseName) return known;
+  const elements: ElementBalance[] = [];
+  const problems: Problem[] = [];
+  for (const { row, kind } of top.shunts) {
+    const e = shuntElement(row, kind, caseName, hz);
+    elements.push(e);
+    if (e.error) problems.push(error({ row: row.row, tag: row.tag }, e.error));
+  }
+  return { top, hz, elements, problems };
+}
+
+/**
+ * The balance of every bus in one case. Throws SiteStructureError when the site is not a tree or
+ * the case is unknown. `extra`: kvar added on buses (banks switched in). `same`: a balance of
+ * this site in this case (with or without extra) whose items are taken as they are instead of
+ * being computed again; a balance of another site or case is ignored.
+ */
+export function rollUp(
+  site: Site,
+  caseName: string,
+  extra?: ReadonlyMap<string, BusExtra>,
+  same?: CaseBalance,
+): CaseBalance {
   const found = resolveCase(site.settings.cases, caseName);
   if (found === undefined) {
     throw new SiteStructureError([
@@ -185,16 +219,14 @@ export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string,
   const hz = site.settings.hz;
   const own: Sum[] = graph.order.map(() => ({ p: 0, abs: 0, del: 0 }));
   const total: Sum[] = graph.order.map(() => ({ p: 0, abs: 0, del: 0 }));
-  const elements: ElementBalance[] = [];
-  const problems: Problem[] = [];
-  for (const { row, kind, bus } of top.shunts) {
-    const e = shuntElement(row, kind, found, hz);
-    elements.push(e);
-    if (e.error) problems.push(error({ row: row.row, tag: row.tag }, e.error));
-    const sum = own[bus] as Sum;
+  const pass = shuntPass(top, found, hz, same);
+  const elements: ElementBalance[] = pass.elements.slice();
+  const problems: Problem[] = pass.problems.slice();
+  pass.elements.forEach((e, i) => {
+    const sum = own[(top.shunts[i] as ShuntPlace).bus] as Sum;
     add(sum, e.p_kw, e.q_absorbed_kvar);
     add(sum, 0, -e.q_delivered_kvar);
-  }
+  });
   for (const [bus, x] of extra ?? []) {
     const at = top.place.get(bus);
     if (at === undefined) continue;
@@ -236,7 +268,9 @@ export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string,
     buses[i] = busResult(bus, graph, voltages.get(bus), t, o);
   }
   elements.sort((a, b) => a.row - b.row);
-  return { case: found, hz, buses, root: buses[0] as BusBalance, elements, problems };
+  const balance: CaseBalance = { case: found, hz, buses, root: buses[0] as BusBalance, elements, problems };
+  SHUNT_PASS.set(balance, pass);
+  return balance;
 }
 
 /** Every case of the site, in the order of the settings. */
