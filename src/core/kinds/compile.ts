@@ -177,12 +177,17 @@ function compileArgument(a: Expr): CompiledArgument {
 function compileCall(fn: string, args: readonly Expr[]): Compiled {
   const spec = findFunction(fn);
   if (!spec) return fail;
-  const parts = args.map(compileArgument);
-  const count = parts.length;
-  return (ctx) => {
-    const raw = new Array<RawArg>(count);
-    for (let i = 0; i < count; i++) raw[i] = (parts[i] as CompiledArgument)(ctx);
+  const value = (raw: RawArg[]): number => {
     const v = evaluateValue(spec, raw);
     return v === v ? v : fail(); // NaN: evaluate gives an error
   };
+  const parts = args.map(compileArgument);
+  // The catalogue's functions take two to five arguments: an array literal per call, no loop.
+  const [a, b, c, d, e] = parts;
+  if (parts.length === 2 && a && b) return (ctx) => value([a(ctx), b(ctx)]);
+  if (parts.length === 3 && a && b && c) return (ctx) => value([a(ctx), b(ctx), c(ctx)]);
+  if (parts.length === 4 && a && b && c && d) return (ctx) => value([a(ctx), b(ctx), c(ctx), d(ctx)]);
+  if (parts.length === 5 && a && b && c && d && e)
+    return (ctx) => value([a(ctx), b(ctx), c(ctx), d(ctx), e(ctx)]);
+  return (ctx) => value(parts.map((p) => p(ctx)));
 }

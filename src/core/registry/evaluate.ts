@@ -82,6 +82,7 @@ function settle(spec: FunctionSpec, raw: readonly RawArg[]): number | string {
     const params = spec.params;
     if (raw.length > params.length) return msg.tooMany(params.length, raw.length);
     const vals: Array<number | boolean | undefined> = new Array<number | boolean | undefined>(params.length);
+    let blank = false; // an argument left to its default
     for (let i = 0; i < params.length; i++) {
       const p = params[i] as ParamSpec;
       const r = raw[i];
@@ -104,8 +105,9 @@ function settle(spec: FunctionSpec, raw: readonly RawArg[]): number | string {
       const one = coerceOne(i + 1, p, r);
       if (!one.ok) return one.message;
       vals[i] = one.value;
+      if (one.value === undefined) blank = true;
     }
-    applyDefaults(spec, vals);
+    if (blank) applyDefaults(spec, vals);
     const cross = spec.check?.(vals);
     if (cross) return cross;
     const value = spec.compute(vals as Args);
