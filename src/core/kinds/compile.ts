@@ -20,7 +20,7 @@ const FAILED = new Error('compiled evaluation failed; the tree evaluator gives t
 
 const compiled = new WeakMap<Expr, Compiled>();
 
-/** The closure for a tree, compiled on first use (trees are frozen data: kinds never change them). */
+/** The closure for a tree, compiled on first use (a tree is never changed once built). */
 export function compileExpr(e: Expr): Compiled {
   let f = compiled.get(e);
   if (f === undefined) {
