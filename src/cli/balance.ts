@@ -312,14 +312,14 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   // proposes nothing until the design is asked for).
   const asTyped = fileBanks !== undefined && design.options === undefined;
   const comp: Compensation = asTyped
-    ? { banks: fileBanks, from: 'file', assessment: assessBanks(site, fileBanks) }
+    ? { banks: fileBanks, from: 'file', assessment: assessBanks(site, fileBanks, balances) }
     : (() => {
-        const d = designWithSheet(site, fileBanks, design.options);
+        const d = designWithSheet(site, fileBanks, design.options, balances);
         const typed = [...d.origins.values()].some((o) => o !== 'proposed');
         return {
           banks: d.choices,
           from: typed ? ('file and proposed' as const) : ('proposed' as const),
-          assessment: assessBanks(site, d.choices),
+          assessment: assessBanks(site, d.choices, balances),
           origins: d.origins,
           overridden: d.overridden,
         };

@@ -31,7 +31,6 @@ import {
   withDefaultKind,
   type MappingProposal,
 } from '../io/import/mapping.ts';
-import { readEquipmentFile } from '../io/import/table.ts';
 import { unitChoicesFor } from '../io/import/units.ts';
 import { describeProblem } from '../io/xlsx/fileProblem.ts';
 import { parseWorkbookText } from '../ui/model/docValidate.ts';
@@ -250,6 +249,9 @@ function applyChoices(p: MappingProposal, file: string, options: SiteOptions): M
 }
 
 async function readList(file: string, bytes: Uint8Array, options: SiteOptions): Promise<Read | LoadResult> {
+  // Loaded here: the list reader brings the xlsx reader and, through it, the engine, which a
+  // site file or a workbook never needs (a third of a small site's whole run was loading them).
+  const { readEquipmentFile } = await import('../io/import/index.ts');
   const table = await readEquipmentFile(basename(file), bytes);
   if (!table.ok) return fail(`${file}: ${describeProblem(table.problem)}`);
   const mapped = applyChoices(proposeMapping(table.value), file, options);

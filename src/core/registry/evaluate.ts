@@ -48,16 +48,13 @@ function coerceOne(pos: number, p: ParamSpec, raw: RawArg): One {
 
 /** Fill defaults: constants, or the value of another (earlier or later) argument. */
 function applyDefaults(spec: FunctionSpec, vals: Array<number | boolean | undefined>): void {
-  spec.params.forEach((p, i) => {
-    if (vals[i] !== undefined || p.default === undefined) return;
-    const d = p.default;
+  const params = spec.params;
+  for (let i = 0; i < params.length; i++) {
+    const d = (params[i] as ParamSpec).default;
+    if (vals[i] !== undefined || d === undefined) continue;
     if (typeof d === 'number' || typeof d === 'boolean') vals[i] = d;
-    else if ('sameAs' in d) vals[i] = vals[spec.params.findIndex((q) => q.name === d.sameAs)];
-  });
-}
-
-function failed(spec: FunctionSpec, tail: string): Outcome {
-  return { ok: false, message: withFunction(spec.name, tail) };
+    else if ('sameAs' in d) vals[i] = vals[params.findIndex((q) => q.name === d.sameAs)];
+  }
 }
 
 /**
@@ -66,10 +63,26 @@ function failed(spec: FunctionSpec, tail: string): Outcome {
  * messages are built only when there is something to report.
  */
 export function evaluate(spec: FunctionSpec, raw: readonly RawArg[]): Outcome {
+  const r = settle(spec, raw);
+  return typeof r === 'number' ? { ok: true, value: r } : { ok: false, message: withFunction(spec.name, r) };
+}
+
+/**
+ * evaluate's value, or NaN where evaluate gives an error (its values are always finite), for
+ * callers that need the number alone at every row and ask evaluate for the message.
+ */
+export function evaluateValue(spec: FunctionSpec, raw: readonly RawArg[]): number {
+  const r = settle(spec, raw);
+  return typeof r === 'number' ? r : NaN;
+}
+
+/** The value, or what failed (the message without the function's name). */
+function settle(spec: FunctionSpec, raw: readonly RawArg[]): number | string {
   try {
     const params = spec.params;
-    if (raw.length > params.length) return failed(spec, msg.tooMany(params.length, raw.length));
+    if (raw.length > params.length) return msg.tooMany(params.length, raw.length);
     const vals: Array<number | boolean | undefined> = new Array<number | boolean | undefined>(params.length);
+    let blank = false; // an argument left to its default
     for (let i = 0; i < params.length; i++) {
       const p = params[i] as ParamSpec;
       const r = raw[i];
@@ -85,25 +98,23 @@ export function evaluate(spec: FunctionSpec, raw: readonly RawArg[]): Outcome {
       }
       if (r === undefined && !isOptional(p)) {
         const required = params.filter((q) => !isOptional(q)).length;
-        return failed(
-          spec,
-          raw.length < required
-            ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p)
-            : msg.missing(i + 1, p),
-        );
+        return raw.length < required
+          ? msg.tooFew(required, raw.length) + '; ' + msg.missing(i + 1, p)
+          : msg.missing(i + 1, p);
       }
       const one = coerceOne(i + 1, p, r);
-      if (!one.ok) return failed(spec, one.message);
+      if (!one.ok) return one.message;
       vals[i] = one.value;
+      if (one.value === undefined) blank = true;
     }
-    applyDefaults(spec, vals);
+    if (blank) applyDefaults(spec, vals);
     const cross = spec.check?.(vals);
-    if (cross) return failed(spec, cross);
+    if (cross) return cross;
     const value = spec.compute(vals as Args);
-    if (!Number.isFinite(value)) return failed(spec, msg.notFinite(value));
-    return { ok: true, value: value === 0 ? 0 : value };
+    if (!Number.isFinite(value)) return msg.notFinite(value);
+    return value === 0 ? 0 : value;
   } catch (e) {
-    return failed(spec, msg.internal(e));
+    return msg.internal(e);
   }
 }
 

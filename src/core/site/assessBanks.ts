@@ -22,6 +22,7 @@ import {
   voltageRise,
 } from './bankRules.ts';
 import { compensate, type CaseCompensation } from './compensate.ts';
+import type { CaseBalance } from './rollup.ts';
 import { detuningAdvice } from './detuningCheck.ts';
 import { relevantHarmonics } from './detuningChoice.ts';
 import { harmonicShares } from './harmonicSources.ts';
@@ -222,10 +223,17 @@ function outcomeWarnings(site: Site, cases: readonly CaseCompensation[]): Design
   return out;
 }
 
-/** Findings for a valid site with these banks (SiteStructureError when it does not roll up). */
-export function assessBanks(site: Site, choices: readonly BankChoice[]): Assessment {
+/**
+ * Findings for a valid site with these banks (SiteStructureError when it does not roll up).
+ * `before`: the site's balances already rolled up (any cases missing are rolled up here).
+ */
+export function assessBanks(
+  site: Site,
+  choices: readonly BankChoice[],
+  before?: readonly CaseBalance[],
+): Assessment {
   const graph = buildBusGraph(site.equipment);
-  const cases = compensate(site, choices);
+  const cases = compensate(site, choices, before);
   const tops = zoneTops(graph);
   const warnings = [
     ...checkInstalled(site, graph, busShortCircuit(site, graph), busVoltages(site.equipment).voltages),

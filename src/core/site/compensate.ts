@@ -141,7 +141,7 @@ export function compensateCase(
       reactor_kvar: reactor,
     };
   });
-  const after = extra.size === 0 ? before : rollUp(site, caseName, extra);
+  const after = extra.size === 0 ? before : rollUp(site, caseName, extra, before);
   return {
     case: before.case,
     before,

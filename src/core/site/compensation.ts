@@ -120,11 +120,18 @@ export function designCompensation(
   };
 }
 
-/** The design's choices, or none when the site cannot be designed yet (e.g. it is not a tree). */
-export function proposeChoices(site: Site, options: CompensationOptions = {}): BankChoice[] {
+/**
+ * The design's choices, or none when the site cannot be designed yet (e.g. it is not a tree).
+ * `before`: the site's balances already rolled up, as designCompensation takes them.
+ */
+export function proposeChoices(
+  site: Site,
+  options: CompensationOptions = {},
+  before?: readonly CaseBalance[],
+): BankChoice[] {
   let design: CompensationDesign;
   try {
-    design = designCompensation(site, undefined, options);
+    design = designCompensation(site, before, options);
   } catch (e) {
     if (e instanceof SiteStructureError) return [];
     throw e;

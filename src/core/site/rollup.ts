@@ -4,12 +4,12 @@
 // bottom up: a transformer or line adds the total of the bus it feeds plus its own losses at
 // that loading into its upstream bus, level by level to the root, the point of connection.
 import type { EquipmentKind, EquipmentRow, Site } from './model.ts';
-import { findKind } from '../kinds/index.ts';
+import { findKind, type KindSpec } from '../kinds/index.ts';
 import { branchPower, shuntPower } from './rowPower.ts';
 import { loadFactor, resolveCase, unitsRunning } from './cases.ts';
-import { buildBusGraph, type BusGraph } from './graph.ts';
+import type { BusGraph } from './graph.ts';
 import { error, type Problem } from './problems.ts';
-import { busVoltages } from './voltages.ts';
+import { siteTopology, type BranchPlace, type ShuntPlace, type SiteTopology } from './topology.ts';
 import { apparentPower, powerFactor, tanPhi } from '../elements/powerTriangle.ts';
 
 export type Sense = 'lagging' | 'leading' | 'unity';
@@ -116,14 +116,18 @@ function shuntResult(
   return error === undefined ? e : { ...e, error };
 }
 
-function shuntElement(row: EquipmentRow, caseName: string, hz: number): ElementBalance {
-  const kind = findKind(row.kind);
-  const n = unitsRunning(row);
-  const lf = loadFactor(row, caseName).value;
-  if (!kind) return shuntResult(row, n, lf, 0, 0, `unknown kind "${row.kind}"`);
+function shuntElement(
+  row: EquipmentRow,
+  kind: KindSpec | undefined,
+  caseName: string,
+  hz: number,
+): ElementBalance {
+  const off = (message: string) =>
+    shuntResult(row, unitsRunning(row), loadFactor(row, caseName).value, 0, 0, message);
+  if (!kind) return off(`unknown kind "${row.kind}"`);
   const r = shuntPower(row, kind, caseName, hz);
-  if (!r.ok) return shuntResult(row, n, lf, 0, 0, r.message);
-  return shuntResult(row, n, lf, r.p, r.q);
+  if (!r.ok) return off(r.message);
+  return shuntResult(row, r.running, r.load, r.p, r.q);
 }
 
 /** Losses of a transformer or line carrying the apparent power sKva of the bus it feeds. */
@@ -167,60 +171,81 @@ function busResult(bus: string, graph: BusGraph, u: number | undefined, total: S
   };
 }
 
-/** The balance of every bus in one case. Throws SiteStructureError when the site is not a tree or the case is unknown. */
-export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string, BusExtra>): CaseBalance {
+/** The shunt items of one case: what a roll-up with banks added (compensate.ts) shares with the one without. */
+interface ShuntPass {
+  readonly top: SiteTopology;
+  readonly hz: number;
+  readonly elements: readonly ElementBalance[];
+  readonly problems: readonly Problem[];
+}
+
+/** The shunt pass each balance was summed from. */
+const SHUNT_PASS = new WeakMap<CaseBalance, ShuntPass>();
+
+function shuntPass(top: SiteTopology, caseName: string, hz: number, reuse?: CaseBalance): ShuntPass {
+  const known = reuse === undefined ? undefined : SHUNT_PASS.get(reuse);
+  if (known !== undefined && known.top === top && known.hz === hz && reuse?.case === caseName) return known;
+  const elements: ElementBalance[] = [];
+  const problems: Problem[] = [];
+  for (const { row, kind } of top.shunts) {
+    const e = shuntElement(row, kind, caseName, hz);
+    elements.push(e);
+    if (e.error) problems.push(error({ row: row.row, tag: row.tag }, e.error));
+  }
+  return { top, hz, elements, problems };
+}
+
+/**
+ * The balance of every bus in one case. Throws SiteStructureError when the site is not a tree or
+ * the case is unknown. `extra`: kvar added on buses (banks switched in). `same`: a balance of
+ * this site in this case (with or without extra) whose items are taken as they are instead of
+ * being computed again; a balance of another site or case is ignored.
+ */
+export function rollUp(
+  site: Site,
+  caseName: string,
+  extra?: ReadonlyMap<string, BusExtra>,
+  same?: CaseBalance,
+): CaseBalance {
   const found = resolveCase(site.settings.cases, caseName);
   if (found === undefined) {
     throw new SiteStructureError([
       error({}, `unknown case "${caseName}"; the site's cases are ${site.settings.cases.join(', ')}`),
     ]);
   }
-  const graph = buildBusGraph(site.equipment.filter((r) => r.bus !== ''));
-  const structural = graph.problems.filter((p) => p.severity === 'error');
-  if (structural.length > 0 || graph.root === undefined) {
-    throw new SiteStructureError(
-      structural.length > 0
-        ? structural
-        : [error({}, 'the site has no bus fed by nothing (no point of connection)')],
-    );
-  }
+  const top = siteTopology(site);
+  if (top.structural.length > 0) throw new SiteStructureError(top.structural);
+  const { graph, voltages } = top;
   const hz = site.settings.hz;
-  const voltages = busVoltages(site.equipment).voltages;
-  const own = new Map<string, Sum>();
-  const total = new Map<string, Sum>();
-  for (const b of graph.order) {
-    own.set(b, { p: 0, abs: 0, del: 0 });
-    total.set(b, { p: 0, abs: 0, del: 0 });
-  }
-  const elements: ElementBalance[] = [];
-  const problems: Problem[] = [];
-  for (const row of site.equipment) {
-    if (findKind(row.kind)?.role === 'branch') continue;
-    const sum = own.get(row.bus);
-    if (!sum) continue;
-    const e = shuntElement(row, found, hz);
-    elements.push(e);
-    if (e.error) problems.push(error({ row: row.row, tag: row.tag }, e.error));
+  const own: Sum[] = graph.order.map(() => ({ p: 0, abs: 0, del: 0 }));
+  const total: Sum[] = graph.order.map(() => ({ p: 0, abs: 0, del: 0 }));
+  const pass = shuntPass(top, found, hz, same);
+  const elements: ElementBalance[] = pass.elements.slice();
+  const problems: Problem[] = pass.problems.slice();
+  pass.elements.forEach((e, i) => {
+    const sum = own[(top.shunts[i] as ShuntPlace).bus] as Sum;
     add(sum, e.p_kw, e.q_absorbed_kvar);
     add(sum, 0, -e.q_delivered_kvar);
-  }
+  });
   for (const [bus, x] of extra ?? []) {
-    const sum = own.get(bus);
-    if (!sum) continue;
+    const at = top.place.get(bus);
+    if (at === undefined) continue;
+    const sum = own[at] as Sum;
     add(sum, 0, x.q_absorbed_kvar);
     add(sum, 0, -x.q_delivered_kvar);
   }
   // Bottom-up: children come after parents in graph.order, so walk it backwards.
   let runaway = false;
-  const results = new Map<string, BusBalance>();
-  for (const bus of [...graph.order].reverse()) {
-    const t = total.get(bus) as Sum;
-    const o = own.get(bus) as Sum;
+  const buses: BusBalance[] = new Array<BusBalance>(graph.order.length);
+  for (let i = graph.order.length - 1; i >= 0; i--) {
+    const bus = graph.order[i] as string;
+    const t = total[i] as Sum;
+    const o = own[i] as Sum;
     t.p += o.p;
     t.abs += o.abs;
     t.del += o.del;
-    for (const br of graph.branches.get(bus) ?? []) {
-      const child = total.get(br.to_bus as string) as Sum;
+    for (const { row: br, to } of top.branches[i] as readonly BranchPlace[]) {
+      const child = total[to] as Sum;
       const e = branchElement(br, apparentPower(child.p, child.abs - child.del), hz);
       elements.push(e);
       if (e.error) problems.push(error({ row: br.row, tag: br.tag }, e.error));
@@ -240,11 +265,12 @@ export function rollUp(site: Site, caseName: string, extra?: ReadonlyMap<string,
       t.abs += child.abs + e.q_absorbed_kvar;
       t.del += child.del + e.q_delivered_kvar;
     }
-    results.set(bus, busResult(bus, graph, voltages.get(bus)?.u_kv, t, o));
+    buses[i] = busResult(bus, graph, voltages.get(bus), t, o);
   }
-  const buses = graph.order.map((b) => results.get(b) as BusBalance);
   elements.sort((a, b) => a.row - b.row);
-  return { case: found, hz, buses, root: buses[0] as BusBalance, elements, problems };
+  const balance: CaseBalance = { case: found, hz, buses, root: buses[0] as BusBalance, elements, problems };
+  SHUNT_PASS.set(balance, pass);
+  return balance;
 }
 
 /** Every case of the site, in the order of the settings. */

@@ -16,7 +16,7 @@ import {
   type CompensationOptions,
 } from './compensation.ts';
 import type { Site } from './model.ts';
-import { SiteStructureError } from './rollup.ts';
+import { SiteStructureError, type CaseBalance } from './rollup.ts';
 import { bankTotal } from './bankChoice.ts';
 import { designWarning, type DesignWarning } from './warnings.ts';
 
@@ -86,16 +86,18 @@ export function designWithSheet(
   site: Site,
   typed: readonly BankChoice[] | undefined,
   options: CompensationOptions = {},
+  /** The site's balances already rolled up (without banks), if any. */
+  before?: readonly CaseBalance[],
 ): SheetChoices {
   const rows = typed ?? [];
   const { options: open, overridden } = optionsForOpenBuses(rows, options);
   const kept = rows.filter(isTypedBank);
   const origins = new Map<string, ChoiceOrigin>(kept.map((c) => [c.bus, 'typed']));
   let proposed: BankChoice[];
-  if (kept.length === 0) proposed = proposeChoices(site, open);
+  if (kept.length === 0) proposed = proposeChoices(site, open, before);
   else {
     try {
-      const withTyped = compensate(site, kept).map((r) => r.after);
+      const withTyped = compensate(site, kept, before).map((r) => r.after);
       const d = designCompensation(site, withTyped, open);
       proposed = choicesFromDesign(d.banks, d.reactors);
     } catch (e) {
