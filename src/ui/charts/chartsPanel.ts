@@ -3,6 +3,7 @@
 // after every recalculation while visible.
 import { SHEETS } from '../../core/workbook/layout.ts';
 import { clear, el } from '../dom.ts';
+import { patchChildren } from '../domPatch.ts';
 import type { WorkbookSession } from '../model/session.ts';
 import { busBarChart } from './barChart.ts';
 import { busesToDraw, readChartData, type ChartData, type Grid } from './chartData.ts';
@@ -18,6 +19,10 @@ export class ChartsPanel {
   private readonly cases: HTMLElement;
   private readonly body: HTMLElement;
   private chosen: string | undefined;
+  /** The data last drawn: a click on a case draws it again for that case. */
+  private data: ChartData | undefined;
+  /** The case buttons on screen (their names and the chosen one), so unchanged ones are kept. */
+  private casesShown = '';
   private session: WorkbookSession | undefined;
   private dirty = true;
   visible = false;
@@ -57,19 +62,23 @@ export class ChartsPanel {
     this.render(data);
   }
 
+  /**
+   * Draw into a detached copy, then patch the panel: after an edit most bars and numbers are as
+   * they were, and the browser restyles and repaints only those that moved.
+   */
   private render(data: ChartData): void {
+    this.data = data;
+    const body = el('div');
+    this.fill(data, body);
+    this.renderCases(data);
+    patchChildren(this.body, body);
+  }
+
+  private renderCases(data: ChartData): void {
+    const key = JSON.stringify([data.cases, this.chosen]);
+    if (key === this.casesShown) return;
+    this.casesShown = key;
     clear(this.cases);
-    clear(this.body);
-    if (data.cases.length === 0) {
-      this.body.append(
-        el('p', {
-          className: 'kl-muted',
-          text: `No "${SHEETS.buses}" sheet with per-case totals in this workbook. Start from a template (Workbook → New from template) to get bus totals and charts.`,
-        }),
-      );
-      return;
-    }
-    if (!this.chosen || !data.cases.includes(this.chosen)) this.chosen = data.cases[0];
     for (const c of data.cases) {
       const b = el('button', {
         className: `kl-seg${c === this.chosen ? ' is-on' : ''}`,
@@ -78,15 +87,28 @@ export class ChartsPanel {
       });
       b.addEventListener('click', () => {
         this.chosen = c;
-        this.render(data);
+        if (this.data) this.render(this.data);
       });
       this.cases.append(b);
     }
+  }
+
+  private fill(data: ChartData, body: HTMLElement): void {
+    if (data.cases.length === 0) {
+      body.append(
+        el('p', {
+          className: 'kl-muted',
+          text: `No "${SHEETS.buses}" sheet with per-case totals in this workbook. Start from a template (Workbook → New from template) to get bus totals and charts.`,
+        }),
+      );
+      return;
+    }
+    if (!this.chosen || !data.cases.includes(this.chosen)) this.chosen = data.cases[0];
     const c = this.chosen as string;
     const tri = data.triangles.get(c);
     const triError = data.triangleErrors.get(c);
     if (!tri && triError)
-      this.body.append(
+      body.append(
         el('h3', { className: 'kl-chart-title', text: `Point of connection — ${c}` }),
         el('p', {
           className: 'kl-text-error',
@@ -96,7 +118,7 @@ export class ChartsPanel {
       );
     if (tri) {
       const rows = triangleRows(tri);
-      this.body.append(
+      body.append(
         el('h3', { className: 'kl-chart-title', text: `Point of connection ${tri.bus} — ${c}` }),
         triangleChart(tri),
         el('table', { className: 'kl-chart-table', attrs: { 'data-testid': 'triangle-table' } }, [
@@ -125,7 +147,7 @@ export class ChartsPanel {
     }
     const all = data.bars.get(c) ?? [];
     const bars = busesToDraw(all);
-    this.body.append(
+    body.append(
       el('h3', { className: 'kl-chart-title', text: `kvar per bus — ${c}` }),
       bars.length < all.length
         ? el('p', {

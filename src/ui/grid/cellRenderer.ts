@@ -65,10 +65,9 @@ export function makeCellRenderer(ctx: RenderContext) {
       value = undefined;
     }
     const view = cellView(value, header ? undefined : info);
-    td.classList.remove(...ALL_CLASSES);
-    td.classList.add(header ? 'kl-head' : KIND_CLASS[view.kind]);
-    if (!header && info?.computed && row < ctx.dataRows()) td.classList.add('kl-calc');
-    if (!header && ctx.engine.doesCellHaveFormula(address)) td.classList.add('kl-formula');
+    const classes = [header ? 'kl-head' : KIND_CLASS[view.kind]];
+    if (!header && info?.computed && row < ctx.dataRows()) classes.push('kl-calc');
+    if (!header && ctx.engine.doesCellHaveFormula(address)) classes.push('kl-formula');
 
     const hover: string[] = [];
     let text = view.text;
@@ -79,33 +78,64 @@ export function makeCellRenderer(ctx: RenderContext) {
     } else if ((view.kind === 'text' || header) && text !== '' && textWidth(text) > room) {
       hover.push(text);
     }
-    if (header) {
-      const span = document.createElement('span');
-      span.className = 'kl-head-text';
-      span.textContent = text;
-      td.replaceChildren(span);
-    } else td.textContent = text;
+    if (header) showHeaderText(td, text);
+    else showText(td, text);
 
     const notes = ctx.notes();
     // A value typed over one of Kvar Ledger's formulas, known to the living model.
     if (!header && (ctx.isOverride?.(row, col) ?? false)) {
-      td.classList.add('kl-mark-override');
+      classes.push('kl-mark-override');
       hover.unshift(OVERRIDE_TITLE);
     }
     if (notes && !header) {
       const mark = notes.mark(row, col, () => ctx.engine.getCellSerialized(address) as never);
       if (mark) {
-        td.classList.add(`kl-mark-${mark.kind}`);
+        classes.push(`kl-mark-${mark.kind}`);
         hover.unshift(`${MARK_TITLE[mark.kind]}: ${mark.note}`);
       }
       const choice = notes.choice(row, col);
       if (choice) {
-        td.classList.add('kl-choice');
+        classes.push('kl-choice');
         hover.push(`${choice.message} Choose with Alt+↓ or the ▾.`);
       }
     }
     if (view.error) hover.push(`${view.error.code} ${view.error.message}`);
-    if (hover.length > 0) td.title = hover.join('\n');
-    else if (td.title) td.removeAttribute('title');
+    // The grid clears a cell's classes before it calls the renderer; one write puts ours back.
+    if (td.classList.length > 0) td.classList.remove(...ALL_CLASSES);
+    td.classList.add(...classes);
+    const title = hover.join('\n');
+    if (td.title !== title) {
+      if (title) td.title = title;
+      else td.removeAttribute('title');
+    }
   };
+}
+
+/*
+ * The grid renders every cell in view after each change. Text written again unchanged would still
+ * make the browser lay the cell out anew, so a cell whose text is the same is left alone.
+ */
+function showText(td: HTMLTableCellElement, text: string): void {
+  const only = td.firstChild;
+  if (only === null) {
+    if (text !== '') td.textContent = text;
+  } else if (only === td.lastChild && only.nodeType === Node.TEXT_NODE) {
+    if ((only as Text).data !== text) {
+      if (text === '') td.textContent = '';
+      else (only as Text).data = text;
+    }
+  } else td.textContent = text;
+}
+
+/** Header texts sit in a span, so they can wrap onto two lines. */
+function showHeaderText(td: HTMLTableCellElement, text: string): void {
+  const only = td.firstChild;
+  if (only instanceof HTMLSpanElement && only === td.lastChild && only.className === 'kl-head-text') {
+    if (only.textContent !== text) only.textContent = text;
+    return;
+  }
+  const span = document.createElement('span');
+  span.className = 'kl-head-text';
+  span.textContent = text;
+  td.replaceChildren(span);
 }

@@ -12,14 +12,18 @@ export function decorateColumnHeader(
   if (col < 0) return;
   const label = headerLabel(columnLetters(col), columns?.[col]);
   const host = th.querySelector('.colHeader') ?? th.firstElementChild ?? th;
-  host.textContent = label.letter;
+  // Headers are drawn again with every render: unchanged text is not written again (no relayout).
+  if (host.textContent !== label.letter) host.textContent = label.letter;
   let detail = th.querySelector<HTMLElement>('.kl-colunit');
   if (!detail) {
     detail = document.createElement('span');
     detail.className = 'kl-colunit';
     host.after(detail);
   }
-  detail.textContent = label.detail;
+  if (detail.textContent !== label.detail) detail.textContent = label.detail;
   th.classList.toggle('kl-calc-col', label.computed);
-  th.title = columns?.[col] ? `${columns[col]?.header}${label.computed ? ' — computed by formula' : ''}` : '';
+  const title = columns?.[col]
+    ? `${columns[col]?.header}${label.computed ? ' — computed by formula' : ''}`
+    : '';
+  if (th.title !== title) th.title = title;
 }

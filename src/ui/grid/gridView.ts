@@ -52,6 +52,8 @@ export class GridView implements EditHost, ChoiceHost {
   readonly hot: HotInstance;
   private current = -1;
   private dataRows = 0;
+  /** The grid's copy of the sheet: the array the grid holds (it edits it in place). */
+  private data: string[][] = [['']];
   private cellNotes: CellNotes | undefined;
   private readonly menu: CellMenu;
   private readonly detachChoices: () => void;
@@ -207,8 +209,9 @@ export class GridView implements EditHost, ChoiceHost {
     // Selection first goes to a plain cell, so no frozen-row overlay is asked for a cell while
     // the number of frozen rows changes; then the new sheet; then its first data cell.
     this.hot.deselectCell();
+    this.data = gridData(this.session.sheetContents(sheetId), cols?.length ?? 0);
     this.hot.updateSettings({
-      data: gridData(this.session.sheetContents(sheetId), cols?.length ?? 0),
+      data: this.data,
       fixedRowsTop: this.hasHeaderRow() ? 1 : 0,
       // Tag and Bus (and what lies between) stay in view on equipment sheets.
       fixedColumnsStart: frozen,
@@ -230,17 +233,45 @@ export class GridView implements EditHost, ChoiceHost {
     if (!this.session.sheetIds().includes(this.current)) return;
     this.measure();
     this.readNotes();
-    this.hot.updateData(gridData(this.session.sheetContents(this.current), this.columns()?.length ?? 0));
+    if (this.syncCopy()) this.hot.render();
     this.reportSelection();
+  }
+
+  /**
+   * Bring the grid's copy in line with the contents. Of the same shape, only the cells that differ
+   * are written, in place: giving the grid a whole new copy re-renders and re-measures everything.
+   * Returns false when the grid has taken a new copy (which renders itself).
+   */
+  private syncCopy(): boolean {
+    const next = gridData(this.session.sheetContents(this.current), this.columns()?.length ?? 0);
+    const cur = this.data;
+    const sameShape =
+      this.hot.getSettings().data === cur &&
+      cur.length === next.length &&
+      cur.every((row, r) => row.length === next[r]?.length);
+    if (!sameShape) {
+      this.data = next;
+      this.hot.updateData(next);
+      return false;
+    }
+    next.forEach((row, r) => {
+      const mine = cur[r] as string[];
+      row.forEach((text, c) => {
+        if (mine[c] !== text) mine[c] = text;
+      });
+    });
+    return true;
   }
 
   private onSessionChange(c: SessionChange): void {
     if (c.kind === 'title') return;
-    if (this.applying && c.kind === 'cells' && c.sheetId === this.current) {
+    if (this.applying && (c.kind === 'cells' || c.kind === 'rows') && c.sheetId === this.current) {
       // The grid renders itself once the change is applied; rendering here would draw twice.
       // The edit may have marked cells (a bank proposed for a detuning typed alone): read them.
       this.measure();
       this.readNotes();
+      // The model may have written more of this sheet than the edit (a row's typed defaults).
+      if (c.kind === 'rows') this.syncCopy();
       return;
     }
     this.reload();
