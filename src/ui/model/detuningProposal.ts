@@ -11,6 +11,7 @@ import { bankTotal, hasBankChoice, type BankChoice } from '../../core/site/bankC
 import type { CompensationColumns } from '../../core/workbook/compensationColumns.ts';
 import { proposedMark } from '../../core/workbook/cellMarks.ts';
 import { SHEETS } from '../../core/workbook/layout.ts';
+import { textContent } from '../../core/text/cellText.ts';
 
 /** The inputs the design's bank fills (the detuning stays as typed; a proposal has no reactor). */
 const PROPOSED_INPUTS = ['fixed_kvar', 'step_kvar', 'steps', 'series', 'u_rated_kv'] as const;
@@ -82,8 +83,11 @@ export function detuningProposal(
       const typed = sheet.cells[row]?.[col];
       if (value === undefined || value === 0 || (typed !== null && typed !== undefined && typed !== ''))
         continue;
-      cells.push({ row, col, content: value });
-      marks.push(proposedMark(row, col, value, note));
+      // A series (1:2:2) goes in as the sheet holds typed text, marked so the engine keeps it as
+      // text: the mark's value must be the cell's content, or the mark would not hold.
+      const content = typeof value === 'string' ? textContent(value) : value;
+      cells.push({ row, col, content });
+      marks.push(proposedMark(row, col, content, note));
     }
   }
   return { cells, marks };

@@ -8,6 +8,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
+import { heldProposals } from '../../../src/core/workbook/cellMarks.ts';
 import { loadDetuningProposer, WorkbookSession } from '../../../src/ui/model/session.ts';
 import { siteArb } from './siteArb.ts';
 import { applyEdit, editArb } from './edits.ts';
@@ -131,6 +132,11 @@ describe('the page and the core agree after every edit', () => {
           log.push(applyEdit(s, e));
           if (detuned !== undefined) {
             expect(rowSizes(s, detuned, cases), `row ${detuned}: ${log.join(' → ')}`).toEqual(want);
+            // Every cell the design filled keeps its proposed mark (its value is the cell's content).
+            const sheet = s.toDoc().sheets.find((x) => x.name === 'Compensation');
+            const marked = (sheet?.marks ?? []).filter((m) => m.kind === 'proposed' && m.row === detuned);
+            const held = sheet ? heldProposals(sheet).filter((m) => m.row === detuned) : [];
+            expect(held.length, `marks of row ${detuned}: ${log.join(' → ')}`).toBe(marked.length);
           }
           steps++;
           compared += compare(s, log);
@@ -139,6 +145,10 @@ describe('the page and the core agree after every edit', () => {
       }),
       {
         numRuns: Number(process.env.KVAR_PROPERTY_RUNS ?? 20),
+        // Shrinking a failure re-runs whole edit sequences and once ran for over twenty minutes:
+        // stop after five (a stop counts as a failure and prints the seed and path to replay).
+        interruptAfterTimeLimit: 300_000,
+        markInterruptAsFailure: true,
         // Replaying a reported failure: KVAR_PROPERTY_SEED and KVAR_PROPERTY_PATH from its message.
         ...(process.env.KVAR_PROPERTY_SEED
           ? {

@@ -12,6 +12,7 @@ import { planCompensationColumns } from '../../../src/core/workbook/compensation
 import { designWithSheet } from '../../../src/core/site/sheetChoices.ts';
 import { hasBankChoice, type BankChoice } from '../../../src/core/site/bankChoice.ts';
 import type { CellContent } from '../../../src/core/workbook/document.ts';
+import { shownText } from '../../../src/core/text/cellText.ts';
 
 export interface BusFigures {
   readonly bus: string;
@@ -101,7 +102,9 @@ export function rowSizes(s: WorkbookSession, row: number, cases: readonly string
   const line = s.sheetContents(s.engine.getSheetId('Compensation') as number)[row] ?? [];
   return SIZE_KEYS.map((k) => {
     const v = line[comp.input[k]] ?? null;
-    return v === 0 || v === '' ? null : v;
+    // A series is held as text marked for the engine ('1:2:2); compare the text it shows.
+    if (typeof v === 'string') return v === '' ? null : shownText(v);
+    return v === 0 ? null : v;
   });
 }
 
