@@ -25,7 +25,6 @@ export {
 } from './registry.ts';
 export * from './spec.ts';
 export * from './expr.ts';
-export { compileExpr, evalCompiled, tryCompiled, type Compiled } from './compile.ts';
 export * from './columns.ts';
 export * from './sheets.ts';
 export * from './supply.ts';

@@ -1,16 +1,16 @@
 // One equipment row's power in one case, from its kind's physics (src/core/kinds): the value
 // the roll-up adds up and the workbook's formulas compute. Rules per case are in cases.ts.
 import {
-  compileExpr,
-  evalCompiled,
   evalExpr,
   findKind,
-  tryCompiled,
   type EvalContext,
   type Expr,
   type KindSpec,
   type VarName,
 } from '../kinds/index.ts';
+// Not through kinds/index.ts: only the roll-up runs compiled physics, and the page loads the
+// roll-up on demand, so the compiler stays out of the page's first download.
+import { compileExpr, evalCompiled, tryCompiled } from '../kinds/compile.ts';
 import { loadFactor, unitsRunning } from './cases.ts';
 import type { EquipmentRow } from './model.ts';
 

@@ -11,9 +11,7 @@ import {
   call,
   col,
   columnsOf,
-  compileExpr,
   div,
-  evalCompiled,
   evalExpr,
   HZ,
   ifPositive,
@@ -23,12 +21,12 @@ import {
   neg,
   num,
   sub,
-  tryCompiled,
   X,
   type EvalContext,
   type Expr,
   type KindSpec,
 } from '../../../src/core/kinds/index.ts';
+import { compileExpr, evalCompiled, tryCompiled } from '../../../src/core/kinds/compile.ts';
 
 /** Every physics tree of a kind, named for messages. */
 function trees(k: KindSpec): Array<[string, Expr]> {
