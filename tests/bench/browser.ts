@@ -10,6 +10,7 @@
 // to the site too and the page's root P checked against the floor. Memory from the DevTools
 // protocol; initial JavaScript from the built files.
 import { mkdirSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import type { WorkbookDoc } from '../../src/core/workbook/document.ts';
@@ -94,6 +95,8 @@ export async function measureBrowser(
     args: ARGS,
     viewport: { width: 1600, height: 1000 },
   });
+  // Which measurement was running, for the note when one fails.
+  let stage = 'open the app';
   try {
     const page = context.pages()[0] ?? (await context.newPage());
     page.setDefaultTimeout(WAIT_MS);
@@ -112,6 +115,7 @@ export async function measureBrowser(
     await readyAt(page, doc.title);
     const fileOpenMs = performance.now() - t0;
     // Edits with the bus totals (charts panel) on screen.
+    stage = 'value edits';
     const size = SIZES.find((s) => s.rows === rows) ?? { rows, buses: 300 };
     const site = generateSite(size);
     const edits = new MotorEdits(doc, site);
@@ -125,10 +129,12 @@ export async function measureBrowser(
       times.push(await measureEditPaint(page, String(value)));
       edits.record(1 + k, value); // Enter moves the selection one row down: the next motor.
     }
+    stage = 'scrolling during an edit';
     // Scrolling while the next edit recalculates (Enter has moved the selection to the next motor).
     const scrollValue = edits.value(EDITS);
     const scroll = await scrollDuringEdit(page, String(scrollValue));
     edits.record(1 + EDITS, scrollValue);
+    stage = 'structural edit';
     // A structural edit: a row inserted below an unedited motor and that motor filled into it.
     const copied = EDITS + 3;
     await selectCell(page, copied, 0);
@@ -136,9 +142,11 @@ export async function measureBrowser(
     await installPaintProbe(page, '[data-testid=grid]', 'klGridProbe');
     const structural = await measureInsertAndFill(page, 'klGridProbe', 'klProbe');
     edits.duplicate(copied);
+    stage = 'heap and root check';
     const jsHeapUsedMb = await heapUsedMb(page);
     const check = await checkRoot(page, edits);
 
+    stage = 'reload';
     // Navigation to an interactive grid of this workbook: a reload restores it from the browser's storage.
     await page.waitForFunction(
       () => document.querySelector('[data-testid=save-status]')?.textContent?.startsWith('Saved') === true,
@@ -147,6 +155,7 @@ export async function measureBrowser(
     );
     await page.reload();
     const openMs = await readyAt(page, doc.title);
+    stage = 'first edit after the reload';
     // The first edit after opening, as soon as the grid shows: to its repainted bus totals, on the
     // page's clock (from navigation). The charts panel may come back closed.
     await page.click(`[data-testid=sheet-tab][data-sheet="${SHEETS.motors}"]`);
@@ -181,7 +190,20 @@ export async function measureBrowser(
       check,
     };
   } catch (e) {
-    return { status: 'failed', note: firstLine(e), ...base };
+    // What the page showed when the step failed, kept after the work files are removed.
+    const shot = join(tmpdir(), `kvar-bench-page-failure-${rows}.png`);
+    const page = context.pages()[0];
+    const saved = page
+      ? await page.screenshot({ path: shot }).then(
+          () => true,
+          () => false,
+        )
+      : false;
+    return {
+      status: 'failed',
+      note: `${stage}: ${firstLine(e)}${saved ? ` (screenshot: ${shot})` : ''}`,
+      ...base,
+    };
   } finally {
     await context.close();
     server.close();
