@@ -36,13 +36,26 @@ export async function readyAt(page: Page, title: string | undefined): Promise<nu
   return (await handle.jsonValue()) as number;
 }
 
+/** Longer than any double-click interval (the grid library's and the system's). */
+const DOUBLE_CLICK_GAP_MS = 800;
+let lastCellClick = 0;
+
 /** Select a cell of the sheet on screen through the go-to box (Ctrl+G); the formula bar must agree. */
 export async function selectCell(page: Page, row: number, col: number): Promise<void> {
   const want = `!${letters(col)}${row + 1}`;
-  // Any cell in sight gives the grid the keyboard (the last match is the one drawn on top).
+  // Any cell in sight gives the grid the keyboard (the last match is the one drawn on top). Two
+  // clicks on that cell close together are a double click, which opens its editor and turns
+  // Ctrl+G into typing: the click waits until the last one is long past.
+  const since = Date.now() - lastCellClick;
+  if (since < DOUBLE_CLICK_GAP_MS) await page.waitForTimeout(DOUBLE_CLICK_GAP_MS - since);
   await page.locator('.kl-grid-host tr[aria-rowindex="3"] td[aria-colindex="2"]').last().click();
+  lastCellClick = Date.now();
   await page.keyboard.press('Control+g');
-  await page.locator('[data-testid="prompt"] input').fill(want.slice(1));
+  const box = page.locator('[data-testid="prompt"] input');
+  await box.waitFor({ state: 'visible', timeout: 10_000 }).catch(() => {
+    throw new Error(`the go-to box (Ctrl+G) did not open to select ${want.slice(1)}`);
+  });
+  await box.fill(want.slice(1));
   await page.keyboard.press('Enter');
   try {
     await page.waitForFunction(
