@@ -82,8 +82,13 @@ function basis(busRow: number) {
 // Numbers joined into a text are rounded first: engines print a number's full digits differently.
 // Even so Gnumeric printed ROUND(0.48,3) with 20 digits, so the capacitor rating is left to the
 // bus line's own column rather than written into the description.
-const r2 = (x: string) => `ROUND(${x},2)`;
-const r3 = (x: string) => `ROUND(${x},3)`;
+// A decimal tie (7.5 kvar × 1.21 = 9.075) is a hair below it in binary: LibreOffice rounds the
+// decimal (9.08), our engine the binary value (9.07). Nudged 1e-9 away from zero first, both
+// round a tie up and print the same text; no figure is that close to a tie otherwise. (Written as
+// a division: the engine's undo lost formulas holding the literal 0.000000001.)
+const nudged = (x: string) => `${x}+SIGN(${x})/1000000000`;
+const r2 = (x: string) => `ROUND(${nudged(x)},2)`;
+const r3 = (x: string) => `ROUND(${nudged(x)},3)`;
 
 const lineCurrent = (kvar: string, u: string, factor: number) => `${kvar}/(SQRT(3)*${u})*${factor}`;
 
@@ -144,14 +149,14 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase in star, "&${k.inSeries}&" in series a phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&${r2(`${nameplate}*${times}/${count}`)}&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase in star, "&${k.inSeries}&" in series a phase"))`,
       ),
       count: when('', `IF(${k.per}="","",${perStage}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),
       unit: 'kvar',
     };
   };
-  const tuned = `"p = "&${k.p}&" %, tuned to order "&ROUND(CAPBANK.TUNE(${k.p}),2)&"; kvar of the outputs they carry"`;
+  const tuned = `"p = "&${k.p}&" %, tuned to order "&${r2(`CAPBANK.TUNE(${k.p})`)}&"; kvar of the outputs they carry"`;
   const reactors = (what: string, count: string, kvar: string, present: string): ItemCells => ({
     item: onlyIf(`${present},${k.p}>0`, `${lvOrMv}&" detuning reactor "&${k.p}&" %"`),
     what: when('', `"detuning reactors, ${what}, "&${tuned}`),
@@ -197,7 +202,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         item: onlyIf(`${stages}>0`, switchingCode(amps, k.u, k.lv)),
         what: when(
           '',
-          `"stage switching, one per stage of "&${r2(stageKvar)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+          `"stage switching, one per stage of "&${r2(stageKvar)}&" kvar, "&${r2(amps)}&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
         ),
         count: when('', stages),
         quantity: when('', stages),
@@ -236,7 +241,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         item: onlyIf(`${k.total}>0`, code),
         what: when(
           '',
-          `"bank incomer for "&${r2(k.total)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+          `"bank incomer for "&${r2(k.total)}&" kvar, "&${r2(amps)}&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
         ),
         count: when('', '1'),
         quantity: when('', '1'),
@@ -269,7 +274,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       const amps = here(QC.amps);
       return {
         item: onlyIf(`${k.reactor}>0`, switchingCode(amps, k.u, k.lv)),
-        what: when('', `"reactor switching, "&ROUND(${amps},2)&" A"`),
+        what: when('', `"reactor switching, "&${r2(amps)}&" A"`),
         count: when('', '1'),
         quantity: when('', '1'),
         unit: 'pc',
