@@ -314,7 +314,7 @@ export class SiteModel {
     const next = this.structure(rows);
     const writes: Write[] = [];
     if (!sameBuses(next, this.state.rendered)) {
-      writes.push(...this.writeDerived(next, renamed));
+      append(writes, this.writeDerived(next, renamed));
       for (const s of next.sheets) {
         if (s.cols.role !== 'branch') continue;
         s.rows.forEach((info, i) => {
@@ -450,7 +450,7 @@ export class SiteModel {
       ...this.state,
       extent: { ...this.state.extent, buses: buses.length, comp: compGrid.length, quant: quant.length },
     };
-    out.push(...this.optionsWrites(s));
+    append(out, this.optionsWrites(s));
     return out;
   }
 
@@ -482,7 +482,8 @@ export class SiteModel {
     const grid = this.quantitiesGrid(this.state.rendered, going);
     const out = this.gridWrites(this.ids.quant, grid, this.state.extent.quant, QUANT_COLUMNS.length);
     this.state = { ...this.state, extent: { ...this.state.extent, quant: grid.length } };
-    return [...out, ...this.optionsWrites(this.state.rendered, going)];
+    append(out, this.optionsWrites(this.state.rendered, going));
+    return out;
   }
 
   /**
@@ -491,6 +492,7 @@ export class SiteModel {
    */
   private optionsWrites(s: WorkbookStructure, going?: string): Write[] {
     const { cells, compact } = this.optionsGrid(s, going);
+    // The whole block in one write (one engine entry while a step holds evaluation).
     const out = this.gridWrites(
       this.ids.opts,
       cells,
@@ -578,6 +580,14 @@ export class SiteModel {
     }
     return out;
   }
+}
+
+/**
+ * Writes added to a list one by one: the derived sheets' writes run to 100,000 and more (the
+ * Design options sheet alone), beyond what a spread into push() passes as arguments.
+ */
+function append(to: Write[], more: readonly Write[]): void {
+  for (const w of more) to.push(w);
 }
 
 /** A row's computed cells change with whether it is an item, its kind and (a branch) the bus it feeds. */
