@@ -82,13 +82,23 @@ function basis(busRow: number) {
 // Numbers joined into a text are rounded first: engines print a number's full digits differently.
 // Even so Gnumeric printed ROUND(0.48,3) with 20 digits, so the capacitor rating is left to the
 // bus line's own column rather than written into the description.
-// A decimal tie (7.5 kvar × 1.21 = 9.075) is a hair below it in binary: LibreOffice rounds the
-// decimal (9.08), our engine the binary value (9.07). Nudged 1e-9 away from zero first, both
-// round a tie up and print the same text; no figure is that close to a tie otherwise. (Written as
-// a division: the engine's undo lost formulas holding the literal 0.000000001.)
-const nudged = (x: string) => `${x}+SIGN(${x})/1000000000`;
-const r2 = (x: string) => `ROUND(${nudged(x)},2)`;
-const r3 = (x: string) => `ROUND(${nudged(x)},3)`;
+// A number joined into a text is printed from whole numbers: Gnumeric printed ROUND(6.12,2)
+// joined to a text as 6.1199999999999999999, and a decimal tie (7.5 kvar × 1.21 = 9.075, a hair
+// below in binary) rounded to 9.08 in LibreOffice and 9.07 in our engine. The hundredths (or
+// thousandths) are counted as a whole number, nudged 1e-7 up so a tie rounds up everywhere, and
+// written as integer part, point and digits without trailing zeros: the same text in every program.
+function decimalText(x: string, places: 2 | 3): string {
+  const scale = 10 ** places;
+  const c = `ROUND(ABS(${x})*${scale}+1/10000000,0)`;
+  const d = `MOD(${c},${scale})`;
+  const digits =
+    places === 2
+      ? `IF(MOD(${d},10)=0,${d}/10,RIGHT("0"&${d},2))`
+      : `IF(MOD(${d},100)=0,${d}/100,IF(MOD(${d},10)=0,RIGHT("0"&${d}/10,2),RIGHT("00"&${d},3)))`;
+  return `(IF(${x}<0,"-","")&INT(${c}/${scale})&IF(${d}=0,"","."&${digits}))`;
+}
+const r2 = (x: string) => decimalText(x, 2);
+const r3 = (x: string) => decimalText(x, 3);
 
 const lineCurrent = (kvar: string, u: string, factor: number) => `${kvar}/(SQRT(3)*${u})*${factor}`;
 
