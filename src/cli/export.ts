@@ -6,6 +6,7 @@
 import { writeFileSync } from 'node:fs';
 import { extname } from 'node:path';
 import { buildWorkbook } from '../core/workbook/build.ts';
+import { optionDrafts } from '../core/workbook/optionInputs.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';
@@ -69,7 +70,13 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   if (problems.some((p) => p.severity === 'error'))
     return refuseErrors(io, 'export', input, problems, 'nothing was written');
   // Values assumed for blanks are marked in their cells, as the page's export marks them.
-  const keep = { ...(banks ? { banks } : {}), ...(assumed.length > 0 ? { assumed } : {}) };
+  // A workbook's own design options stay; a site file or a list gets the standard ones.
+  const optionSheet = loaded.loaded.optionSheet;
+  const keep = {
+    ...(banks ? { banks } : {}),
+    ...(assumed.length > 0 ? { assumed } : {}),
+    ...(optionSheet ? { options: optionDrafts(optionSheet, site.settings.cases) } : {}),
+  };
   const doc = buildWorkbook(site, { flavour: 'portable', ...keep });
   // The xlsx library loads only for this command.
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');

@@ -21,7 +21,8 @@ import { fillSiteTypical, type AssumedInput } from '../core/site/typical/fillSit
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import { siteFromWorkbook } from '../core/workbook/readSite.ts';
 import { assumedInWorkbook } from '../core/workbook/assumedIn.ts';
-import type { CellContent, WorkbookDoc } from '../core/workbook/document.ts';
+import type { CellContent, SheetDoc, WorkbookDoc } from '../core/workbook/document.ts';
+import { OPTIONS_SHEET } from '../core/workbook/optionsLayout.ts';
 import { rateRowsOf, tariffRowsOf } from '../core/quote/index.ts';
 import { previewImport } from '../io/import/preview.ts';
 import {
@@ -53,6 +54,8 @@ export interface LoadedSite {
   readonly rateRows?: readonly (readonly CellContent[])[];
   /** The rows of a workbook's Tariff sheet (header first); undefined when the file has none. */
   readonly tariffRows?: readonly (readonly CellContent[])[];
+  /** A workbook's Design options sheet (its option blocks); undefined when the file has none. */
+  readonly optionSheet?: SheetDoc;
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
   /** With --assume-typical: the typical values put in for blanks (indices into the site's equipment). */
@@ -124,12 +127,18 @@ type Read = {
   source: SourceKind;
   rateRows?: readonly (readonly CellContent[])[];
   tariffRows?: readonly (readonly CellContent[])[];
+  optionSheet?: SheetDoc;
 };
 
 const ratesOf = (doc: WorkbookDoc) => {
   const rows = rateRowsOf(doc);
   const tariff = tariffRowsOf(doc);
-  return { ...(rows ? { rateRows: rows } : {}), ...(tariff ? { tariffRows: tariff } : {}) };
+  const optionSheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET);
+  return {
+    ...(rows ? { rateRows: rows } : {}),
+    ...(tariff ? { tariffRows: tariff } : {}),
+    ...(optionSheet ? { optionSheet } : {}),
+  };
 };
 
 async function readJson(file: string, bytes: Uint8Array): Promise<Read | LoadResult> {
@@ -375,6 +384,7 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const rates = {
     ...(read.rateRows ? { rateRows: read.rateRows } : {}),
     ...(read.tariffRows ? { tariffRows: read.tariffRows } : {}),
+    ...(read.optionSheet ? { optionSheet: read.optionSheet } : {}),
   };
   const typical = { assumed: fill.assumed, notAssumed: fill.notAssumed, held: read.held ?? [] };
   return {

@@ -41,10 +41,11 @@ cost at your rates, with installation, engineering and contingency. The banks ar
   --rates FILE  a CSV with the columns Item, Unit (pc, kvar or %), Rate, Currency, Source and date;
                 without it, the workbook's Rates sheet (none: every item unpriced);
                 for a site file or a list, INVENTED demo rates
-  --compare     add the design options side by side: the banks as the file gives them, the
-                design's proposal, plain capacitors, every bank detuned 7 %, one bank at the
-                point of connection; each with its cost, saving, payback, whether the
-                requirement is met in every case, and its Checks findings
+  --compare     add the design options side by side: the banks as the file gives them, then
+                a workbook's own options (its Design options sheet), else the design's
+                proposal, plain capacitors, every bank detuned 7 %, one bank at the point of
+                connection; each with its cost, saving, payback, whether the requirement is
+                met in every case, and its Checks findings
   --json        print {site, banks_from, rates_from, currency, buses, equipment, surcharges,
                 total, unpriced, tariff_from, saving, options (with --compare)} as JSON
 The saving per year (reactive charge before and after, losses saved, simple payback) uses the
@@ -248,6 +249,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
         rates,
         loaded.loaded.tariffRows,
         saving.from === 'none',
+        loaded.loaded.optionSheet,
       );
   } catch (e) {
     if (e instanceof SiteStructureError) return inputError(io, 'quote', `${file}: ${e.message}`);

@@ -1,22 +1,36 @@
-// `kvar-ledger quote --compare`: the design options side by side (src/core/quote/options.ts),
-// priced at the same rates and judged by the same rules as the quote itself.
-import { compareOptions, standardOptions, type OptionFigures } from '../core/options/index.ts';
+// `kvar-ledger quote --compare`: the design options side by side (src/core/options), priced at
+// the same rates and judged by the same rules as the quote itself: a workbook's own option blocks
+// (its Design options sheet), else the standard options.
+import {
+  compareOptions,
+  givenOption,
+  sheetOptions,
+  standardOptions,
+  type OptionFigures,
+} from '../core/options/index.ts';
 import { readTariff, tariffSheetDoc, type RateTable } from '../core/quote/index.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
 import type { Site } from '../core/site/model.ts';
-import type { CellContent } from '../core/workbook/document.ts';
+import type { CellContent, SheetDoc } from '../core/workbook/document.ts';
 
-/** The options for the site, with the tariff the quote's saving uses (none: no charge, no saving). */
+/**
+ * The options for the site, with the tariff the quote's saving uses (none: no charge, no saving):
+ * the banks held, then the workbook's option blocks when `optionSheet` is given.
+ */
 export function siteOptions(
   site: Site,
   held: readonly BankChoice[] | undefined,
   rates: RateTable,
   tariffRows: readonly (readonly CellContent[])[] | undefined,
   hasNoTariff: boolean,
+  optionSheet?: SheetDoc,
 ): OptionFigures[] {
   const cases = site.settings.cases;
   const rows = hasNoTariff ? [] : (tariffRows ?? tariffSheetDoc(cases).cells);
-  return compareOptions(site, standardOptions(site, held), rates, readTariff(rows, cases).tariff);
+  const specs = optionSheet
+    ? [...(held ? [givenOption(held)] : []), ...sheetOptions(optionSheet, cases)]
+    : standardOptions(site, held);
+  return compareOptions(site, specs, rates, readTariff(rows, cases).tariff);
 }
 
 const money = (x: number | null) =>

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { buildAndMeasure, INITIAL_JS_BUDGET, ROOT } from './bundleSize.ts';
 
 describe('bundle size', () => {
-  it('keeps the initial JavaScript within 431 kB gzip and the xlsx library out of it', async () => {
+  it('keeps the initial JavaScript within 437 kB gzip and the xlsx library out of it', async () => {
     const r = await buildAndMeasure();
     await mkdir(join(ROOT, 'test-artifacts'), { recursive: true });
     await writeFile(join(ROOT, 'test-artifacts', 'bundle-size.json'), JSON.stringify(r, null, 1));

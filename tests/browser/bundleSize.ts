@@ -10,8 +10,8 @@ import { gzipSync } from 'node:zlib';
 import { build } from 'vite';
 
 export const ROOT = resolve(import.meta.dirname, '../..');
-/** The page's budget (README, download size): initial JavaScript and the first visit's extra at most 431 kB gzip (kB = 1000 bytes, as Vite prints). */
-export const INITIAL_JS_BUDGET = 431_000;
+/** The page's budget (README, download size): initial JavaScript and the first visit's extra at most 437 kB gzip (kB = 1000 bytes, as Vite prints). */
+export const INITIAL_JS_BUDGET = 437_000;
 
 interface ManifestChunk {
   readonly file: string;

@@ -12,6 +12,8 @@ import { renderWorkbook } from '../../src/core/workbook/render.ts';
 import { WorkbookSession } from '../../src/ui/model/session.ts';
 import { readSiteFile } from '../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../src/core/workbook/build.ts';
+import { OPTIONS_SHEET, planOptionColumns } from '../../src/core/workbook/optionsLayout.ts';
+import { sheetOptions } from '../core/workbook/optionFaces.ts';
 
 let dir: string;
 beforeAll(() => {
@@ -216,5 +218,58 @@ describe('kvar-ledger quote --compare', () => {
     expect(text.out).toMatch(/One bank at the connection: a single bank on MV-11/);
     const plain = await cli(TEMPLATE);
     expect(plain.out).not.toMatch(/design options/);
+  });
+});
+
+describe("kvar-ledger quote --compare on a workbook's own options", () => {
+  it('prices the option blocks of its Design options sheet, as the sheet shows them', async () => {
+    const { site, banks } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live', ...(banks ? { banks } : {}) });
+    // The estimator renames option 3 and gives its first bank a 40 kvar reactor.
+    const sheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET)!;
+    const cols = planOptionColumns(site.settings.cases);
+    const title = sheet.cells.findIndex((line) => line[1] === 'Option 3');
+    (sheet.cells[title] as unknown[])[0] = 'Detuned, with a reactor';
+    const bankLine = sheet.cells.findIndex(
+      (line, r) => r > title && typeof line[cols.input.step_kvar] === 'number',
+    );
+    (sheet.cells[bankLine] as unknown[])[cols.input.reactor_kvar] = 40;
+    const file = join(dir, 'own-options.json');
+    writeFileSync(file, JSON.stringify(renderWorkbook(doc, { flavour: 'live' }).doc));
+    const r = await cli(file, '--compare', '--json');
+    expect(r.code, r.err).toBe(0);
+    const j = JSON.parse(r.out) as {
+      options: Array<{
+        id: string;
+        name: string;
+        reactor_kvar: number;
+        total: number | null;
+        annual_saving: number;
+      }>;
+    };
+    expect(j.options.map((o) => o.name)).toEqual([
+      'Banks as given',
+      'Proposed design',
+      'Plain capacitors',
+      'Detuned, with a reactor',
+      'One bank at the connection',
+    ]);
+    expect(j.options[3]?.reactor_kvar).toBe(40);
+    // The same workbook in the page's engine: the sheet's table shows what the command prints.
+    const s = WorkbookSession.fromDoc(
+      JSON.parse(readFileSync(file, 'utf8')) as Parameters<typeof WorkbookSession.fromDoc>[0],
+    );
+    const shown = sheetOptions(
+      (name, row, col) => s.engine.getCellValue({ sheet: s.engine.getSheetId(name) as number, row, col }),
+      [0, 1, 2, 3],
+    );
+    s.destroy();
+    shown.forEach((o, k) => {
+      const printed = j.options[k + 1]!;
+      expect(o.name).toBe(printed.name);
+      if (printed.total === null) expect(o.total).toBeNull();
+      else expect(o.total).toBeCloseTo(printed.total, 6);
+      expect(o.saving).toBeCloseTo(printed.annual_saving, 6);
+    });
   });
 });

@@ -17,6 +17,7 @@ import {
 import { convertToCsv, csvFiles, makeRecalcProfile, sheetCsv } from './libreoffice.ts';
 import { QC, QUANTITIES_SHEET, busLineRow, slotRow } from '../../src/core/workbook/quantitiesLayout.ts';
 import { COVER_SHEET_NAME } from '../../src/io/xlsx/export.ts';
+import { OPTIONS_SHEET, OPTION_BLOCKS, TABLE, tableRow } from '../../src/core/workbook/optionsLayout.ts';
 import { COMP_HEADERS } from '../../src/core/workbook/compensationColumns.ts';
 import * as chargedSolar from '../core/workbook/chargedSolar.ts';
 import { EDITED_COVER_BASE, writeEditedCover, type CoverCheck } from './coverBook.ts';
@@ -106,6 +107,18 @@ describe('LibreOffice Calc recalculating our exports', () => {
     // and what it saves with the demo tariff, and the payback of that total
     expect(at('Annual saving')).toBeGreaterThan(0);
     expect(at('Simple payback (years)')).toBeCloseTo(at('Total') / at('Annual saving'), 6);
+  });
+
+  it("prices the demo's design options on the Design options sheet: every option a number, payback = total / saving", () => {
+    // Every formula cell was compared above; this says the comparison covered live option blocks.
+    const rows = sheetCsv(outDir, 'cold-store', OPTIONS_SHEET);
+    for (let j = 0; j < OPTION_BLOCKS; j++) {
+      const line = rows[tableRow(j)] ?? [];
+      const at = (c: { col: number }) => Number(line[c.col]);
+      expect(at(TABLE.total), line.join('|')).toBeGreaterThan(0);
+      expect(at(TABLE.saving), line.join('|')).toBeGreaterThan(0);
+      expect(at(TABLE.payback)).toBeCloseTo(at(TABLE.total) / at(TABLE.saving), 6);
+    }
   });
 
   it('covers a lagging-only requirement: the Site sheet says so and the within-requirement cells agree', () => {

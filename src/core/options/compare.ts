@@ -8,26 +8,25 @@
 // typed onto the Compensation sheet.
 import { assessBanks } from '../site/assessBanks.ts';
 import { bankTotal, type BankChoice } from '../site/bankChoice.ts';
-import { proposeChoices } from '../site/compensation.ts';
-import { buildBusGraph } from '../site/graph.ts';
 import type { Site } from '../site/model.ts';
 import { DEFAULT_STEP_SERIES } from '../site/stepSeries.ts';
-import { busVoltages } from '../site/voltages.ts';
+import { BLOCK_IDS, type OptionSpec } from '../site/designOptions.ts';
+import type { SheetDoc } from '../workbook/document.ts';
+import { optionDrafts } from '../workbook/optionInputs.ts';
+export {
+  BLOCK_IDS,
+  DETUNED_OPTION_P,
+  draftOptions,
+  givenOption,
+  standardOptions,
+  type OptionId,
+  type OptionSpec,
+} from '../site/designOptions.ts';
 // Straight from the quote's modules, not its index: see the architecture test (first download).
 import { priceSchedule } from '../quote/cost.ts';
 import type { RateTable } from '../quote/rates.ts';
 import { annualSaving, type Tariff } from '../quote/saving.ts';
 import { siteSchedule } from '../quote/siteSchedule.ts';
-
-export type OptionId = 'current' | 'proposal' | 'plain' | 'detuned' | 'central';
-
-export interface OptionSpec {
-  readonly id: OptionId;
-  readonly name: string;
-  /** What the option is, in a line. */
-  readonly summary: string;
-  readonly banks: readonly BankChoice[];
-}
 
 export interface OptionFigures extends OptionSpec {
   /** The name of an earlier option with the very same banks, when there is one. */
@@ -46,55 +45,14 @@ export interface OptionFigures extends OptionSpec {
   readonly warnings: number;
 }
 
-/** The detuning the common options give every bus, % (0 = plain capacitors). */
-export const DETUNED_OPTION_P = 7;
-
-/**
- * The options compared for a site: the banks it holds (when it holds any), the design's
- * proposal, plain capacitors on every bus, 7 % detuning on every bus, and one bank at the point
- * of connection. A site that does not roll up gets none.
- */
-export function standardOptions(site: Site, held: readonly BankChoice[] | undefined): OptionSpec[] {
-  const graph = buildBusGraph(site.equipment);
-  if (graph.root === undefined) return [];
-  const everyBus = (p: number) => Object.fromEntries(graph.order.map((b) => [b, p]));
-  const out: OptionSpec[] = [];
-  if (held !== undefined)
-    out.push({
-      id: 'current',
-      name: 'Banks as given',
-      summary: "the banks the workbook's Compensation sheet or the site file holds",
-      banks: held,
-    });
-  out.push(
-    {
-      id: 'proposal',
-      name: 'Proposed design',
-      summary: 'a bank on each bus whose own items draw kvar, detuned where harmonic sources call for it',
-      banks: proposeChoices(site),
-    },
-    {
-      id: 'plain',
-      name: 'Plain capacitors',
-      summary: 'the proposed buses, no detuning reactors anywhere',
-      banks: proposeChoices(site, { detuning: everyBus(0) }),
-    },
-    {
-      id: 'detuned',
-      name: `All detuned ${DETUNED_OPTION_P} %`,
-      summary: `the proposed buses, every bank with ${DETUNED_OPTION_P} % detuning reactors`,
-      banks: proposeChoices(site, { detuning: everyBus(DETUNED_OPTION_P) }),
-    },
-    {
-      id: 'central',
-      name: 'One bank at the connection',
-      summary: busVoltages(site.equipment).voltages.has(graph.root)
-        ? `a single bank on ${graph.root}, the point of connection; the transformers below still carry their kvar`
-        : `no bank: no row on ${graph.root}, the point of connection, states its voltage (u_kv), so no bank there can be sized`,
-      banks: proposeChoices(site, { bankBuses: [graph.root] }),
-    },
-  );
-  return out;
+/** The options typed on a Design options sheet, each with the id of its block. */
+export function sheetOptions(sheet: SheetDoc, cases: readonly string[]): OptionSpec[] {
+  return optionDrafts(sheet, cases).map((d) => ({
+    id: BLOCK_IDS[d.block] ?? 'proposal',
+    name: d.name,
+    summary: d.summary,
+    banks: d.banks,
+  }));
 }
 
 /**

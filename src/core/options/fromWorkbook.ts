@@ -1,21 +1,27 @@
-// The design options of a workbook (compare.ts): its site and banks read back as the CLI reads
-// them, priced at its Rates sheet and saved at its Tariff sheet. The Checks panel shows them and
-// the export writes them on a sheet of their own.
+// The design options of a workbook (compare.ts): its site, its banks and the options typed on its
+// Design options sheet read back as the CLI reads them, priced at its Rates sheet and saved at its
+// Tariff sheet. The Checks panel shows them; the export writes Checks' counts beside the sheet's table.
 // Straight from the quote's modules, not its index: see the architecture test (first download).
 import { readRateTable } from '../quote/rates.ts';
 import { rateRowsOf } from '../quote/ratesSheet.ts';
 import { readTariff, tariffRowsOf } from '../quote/tariffSheet.ts';
-import { compareOptions, standardOptions, type OptionFigures } from './compare.ts';
+import {
+  BLOCK_IDS,
+  compareOptions,
+  draftOptions,
+  givenOption,
+  sheetOptions,
+  standardOptions,
+  type OptionFigures,
+  type OptionSpec,
+} from './compare.ts';
+import { GIVEN_ROW, OPTIONS_SHEET, TABLE, tableRow } from '../workbook/optionsLayout.ts';
 import { validateSite } from '../site/validate.ts';
 import type { WorkbookDoc } from '../workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../workbook/readSite.ts';
+import { OPTIONS_UNASKED_MAX_ROWS } from '../site/limits.ts';
 
-/**
- * Above this many equipment rows the options are worked out only when asked for: five designs
- * take seconds there (about 10 s at 10,000 rows on the bench machine). The Checks panel then
- * redoes them on request, and the export leaves them out and says so.
- */
-export const OPTIONS_UNASKED_MAX_ROWS = 2_000;
+export { OPTIONS_UNASKED_MAX_ROWS };
 
 /** `unasked`: the site is small enough for the options to be worked out without being asked. */
 export type OptionsReport = { readonly unasked: boolean } & (
@@ -25,6 +31,26 @@ export type OptionsReport = { readonly unasked: boolean } & (
 
 export function optionsOfDoc(doc: WorkbookDoc): OptionsReport {
   return optionsOfRead(doc, siteFromWorkbook(doc));
+}
+
+/**
+ * The designs a workbook compares: the banks it holds, then the options typed on its Design
+ * options sheet; a workbook without that sheet (saved before it) gets the standard options.
+ */
+export function workbookOptions(doc: WorkbookDoc, read: SiteFromWorkbook): OptionSpec[] {
+  const sheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET);
+  if (!sheet) return standardOptions(read.site, read.banks);
+  return [givenOption(read.banks), ...sheetOptions(sheet, read.site.settings.cases)];
+}
+
+/**
+ * The standard options for a workbook that has no Design options sheet yet (render.ts
+ * draftOptions): none while its inputs have errors or above OPTIONS_UNASKED_MAX_ROWS rows.
+ */
+export function draftOptionsOfDoc(doc: WorkbookDoc): OptionSpec[] {
+  const read = siteFromWorkbook(doc);
+  if ([...read.problems, ...validateSite(read.site)].some((p) => p.severity === 'error')) return [];
+  return draftOptions(read.site);
 }
 
 /** The options of a workbook already read back (the export reads it once for both questions). */
@@ -47,7 +73,7 @@ function optionsOfRead(doc: WorkbookDoc, read: SiteFromWorkbook): OptionsReport 
     return {
       unasked,
       ok: true,
-      options: compareOptions(read.site, standardOptions(read.site, read.banks), rates, tariff),
+      options: compareOptions(read.site, workbookOptions(doc, read), rates, tariff),
     };
   } catch (e) {
     // A site that does not roll up (a loop, losses that run away) says why, as Checks does.
@@ -55,19 +81,37 @@ function optionsOfRead(doc: WorkbookDoc, read: SiteFromWorkbook): OptionsReport 
   }
 }
 
-/** What the export writes of the options: the options, or a line for the cover saying why not. */
+/**
+ * What the export adds to the Design options sheet: Checks' counts beside its table, or a line
+ * for the cover saying why there are none.
+ */
 export function optionsForExport(doc: WorkbookDoc): {
-  options?: readonly OptionFigures[];
+  optionFindings?: ReadonlyArray<readonly [number, number, number]>;
   optionsLeftOut?: string;
 } {
   const read = siteFromWorkbook(doc);
   const rows = read.site.equipment.length;
   if (rows > OPTIONS_UNASKED_MAX_ROWS)
     return {
-      optionsLeftOut: `Design options are not in this file: with ${rows.toLocaleString('en-GB')} equipment rows (more than ${OPTIONS_UNASKED_MAX_ROWS.toLocaleString('en-GB')}) they are worked out on request only (Checks → Compare design options, or kvar-ledger quote --compare).`,
+      optionsLeftOut: `Design options: the sheet ${OPTIONS_SHEET} holds the options' inputs only, no figures: with ${rows.toLocaleString('en-GB')} equipment rows (more than ${OPTIONS_UNASKED_MAX_ROWS.toLocaleString('en-GB')}) they are worked out on request only (Checks → Compare design options, or kvar-ledger quote --compare).`,
     };
   const r = optionsOfRead(doc, read);
   return r.ok
-    ? { options: r.options }
-    : { optionsLeftOut: `Design options are not in this file. ${r.message}` };
+    ? { optionFindings: findingsCells(r.options) }
+    : {
+        optionsLeftOut: `Design options: no counts of Checks' findings beside the table of ${OPTIONS_SHEET}. ${r.message}`,
+      };
+}
+
+/**
+ * Checks' counts of errors and warnings per design, as values for the Design options sheet's
+ * table: [row, column, value]. Spreadsheet maths cannot give them; the sheet says when they were counted.
+ */
+export function findingsCells(options: readonly OptionFigures[]): Array<readonly [number, number, number]> {
+  return options.flatMap((o) => {
+    const block = (BLOCK_IDS as readonly string[]).indexOf(o.id);
+    const row = o.id === 'current' ? GIVEN_ROW : block < 0 ? undefined : tableRow(block);
+    if (row === undefined) return [];
+    return [[row, TABLE.errors.col, o.errors] as const, [row, TABLE.warnings.col, o.warnings] as const];
+  });
 }

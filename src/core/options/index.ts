@@ -1,8 +1,12 @@
 // Design options side by side: the same site compensated in a few ways, each priced, saved and
 // judged by the same rules (compare.ts), and read from a workbook (fromWorkbook.ts).
 export {
+  BLOCK_IDS,
   compareOptions,
   DETUNED_OPTION_P,
+  draftOptions,
+  givenOption,
+  sheetOptions,
   standardOptions,
   type OptionFigures,
   type OptionId,
@@ -10,7 +14,10 @@ export {
 } from './compare.ts';
 export {
   OPTIONS_UNASKED_MAX_ROWS,
+  draftOptionsOfDoc,
+  findingsCells,
   optionsForExport,
+  workbookOptions,
   optionsOfDoc,
   type OptionsReport,
 } from './fromWorkbook.ts';

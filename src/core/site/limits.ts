@@ -20,6 +20,14 @@ export const MAX_BUSES = 1_000;
 export const MAX_CASES = 20;
 /** Rows of any one sheet of a workbook: a full equipment sheet plus its header and notes. */
 export const MAX_SHEET_ROWS = MAX_EQUIPMENT_ROWS + 1_000;
+/**
+ * Above this many equipment rows the design options are worked out only when asked for: five
+ * designs take seconds there (about 10 s at 10,000 rows on the bench machine), and the Design
+ * options sheet's blocks would add tens of formulas per bus and option. The Checks panel then
+ * redoes them on request, the sheet keeps the options' inputs without formulas, and the export
+ * says so on its cover.
+ */
+export const OPTIONS_UNASKED_MAX_ROWS = 2_000;
 /** Columns of any one sheet (the widest built sheet at MAX_CASES cases is far below). */
 export const MAX_SHEET_COLUMNS = 512;
 

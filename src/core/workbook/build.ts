@@ -7,6 +7,8 @@ import { proposeChoices } from '../site/compensation.ts';
 import type { Site } from '../site/model.ts';
 import type { AssumedInput } from '../site/typical/fillSite.ts';
 import type { WorkbookDoc } from './document.ts';
+import { draftOptions } from '../site/designOptions.ts';
+import type { OptionDraft } from './optionInputs.ts';
 import { inputsFromSite } from './inputsFromSite.ts';
 import { renderWorkbook } from './render.ts';
 import type { Flavour } from './busSums.ts';
@@ -24,9 +26,12 @@ export interface BuildOptions {
   readonly banks?: readonly BankChoice[];
   /** Typical values the site's rows took for blanks: marked as assumed in their cells. */
   readonly assumed?: readonly AssumedInput[];
+  /** The Design options sheet's options. Default: the standard options drafted by the design. */
+  readonly options?: readonly OptionDraft[];
 }
 
 export function buildWorkbook(site: Site, opts: BuildOptions): WorkbookDoc {
   const banks = opts.banks ?? proposeChoices(site);
-  return renderWorkbook(inputsFromSite(site, banks, opts.assumed), { flavour: opts.flavour }).doc;
+  const options = opts.options ?? draftOptions(site);
+  return renderWorkbook(inputsFromSite(site, banks, opts.assumed, options), { flavour: opts.flavour }).doc;
 }

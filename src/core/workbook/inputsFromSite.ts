@@ -19,6 +19,7 @@ import { headerRow } from './renderEquipment.ts';
 import { REQUIREMENT_TEXT } from './settingsLayout.ts';
 import { settingsCells, type SettingsInputs } from './renderSettings.ts';
 import { equipmentPlans } from './structure.ts';
+import { optionInputsSheet, type OptionDraft } from './optionInputs.ts';
 
 export function settingsInputsOf(site: Site): SettingsInputs {
   const s = site.settings;
@@ -129,6 +130,8 @@ export function inputsFromSite(
   site: Site,
   banks: readonly BankChoice[],
   assumed: readonly AssumedInput[] = [],
+  /** The Design options sheet's options, marked as proposed (none: its blocks start blank). */
+  options: readonly OptionDraft[] = [],
 ): WorkbookDoc {
   const cases = site.settings.cases;
   const sheets: SheetDoc[] = [{ name: SHEETS.settings, cells: settingsCells(settingsInputsOf(site)) }];
@@ -161,6 +164,7 @@ export function inputsFromSite(
   sheets.push(ratesSheetDoc(demoRateTable(), DEMO_SOURCE));
   // The utility's charge and the hours per case, started with invented demo values (said so).
   sheets.push(tariffSheetDoc(cases.length > 0 ? cases : [DEFAULT_CASE]));
+  if (options.length > 0) sheets.push(optionInputsSheet(options, cases.length > 0 ? cases : [DEFAULT_CASE]));
   return { format: 'kvar-ledger-workbook', version: 2, title: site.settings.name, sheets };
 }
 

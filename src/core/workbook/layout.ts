@@ -23,6 +23,7 @@ export const SHEETS = {
   buses: 'Buses',
   compensation: 'Compensation',
   quantities: 'Quantities and cost',
+  options: 'Design options',
 } as const;
 
 /** Header texts of the load-factor and computed columns, per case where the text names one. */
@@ -88,7 +89,12 @@ export const FORMATS = {
 /** Sheets Kvar Ledger keeps in step with the equipment: they can be emptied, not deleted or renamed. */
 export function isBuiltInSheet(name: string, equipmentSheets: readonly string[]): boolean {
   const n = name.toLowerCase();
-  return [SHEETS.settings, SHEETS.buses, SHEETS.compensation, SHEETS.quantities, ...equipmentSheets].some(
-    (s) => s.toLowerCase() === n,
-  );
+  return [
+    SHEETS.settings,
+    SHEETS.buses,
+    SHEETS.compensation,
+    SHEETS.quantities,
+    SHEETS.options,
+    ...equipmentSheets,
+  ].some((s) => s.toLowerCase() === n);
 }

@@ -125,10 +125,13 @@ export type Slot = (typeof SLOTS)[number];
 /** Rows per bus: the bus line and one per kind of item. */
 export const BLOCK_ROWS = 1 + SLOTS.length;
 
-/** Row of bus i's bus line (0-based bus index; row 0 is the header). */
-export const busLineRow = (i: number) => 1 + i * BLOCK_ROWS;
+/**
+ * Row of bus i's bus line (0-based bus index). `origin` is the row of the first bus line: 1 on
+ * this sheet (row 0 is the header); the Design options sheet lays the same blocks out lower down.
+ */
+export const busLineRow = (i: number, origin = 1) => origin + i * BLOCK_ROWS;
 /** Row of an item line of bus i. */
-export const slotRow = (i: number, slot: Slot) => busLineRow(i) + 1 + SLOTS.indexOf(slot);
+export const slotRow = (i: number, slot: Slot, origin = 1) => busLineRow(i, origin) + 1 + SLOTS.indexOf(slot);
 
 /** The totals below n buses' blocks (one blank row between), and the note after them. */
 export const SUMMARY_LABELS = [
@@ -140,8 +143,8 @@ export const SUMMARY_LABELS = [
   'Total',
 ] as const;
 export type SummaryLine = (typeof SUMMARY_LABELS)[number];
-export function summaryRowOf(busCount: number, line: SummaryLine): number {
-  return busLineRow(busCount) + 1 + SUMMARY_LABELS.indexOf(line);
+export function summaryRowOf(busCount: number, line: SummaryLine, origin = 1): number {
+  return busLineRow(busCount, origin) + 1 + SUMMARY_LABELS.indexOf(line);
 }
 /** Rows of the whole generated block (header included) for n buses and `cases` cases. */
 export function quantitiesExtent(busCount: number, cases: number): number {
@@ -178,9 +181,10 @@ export const SAVING_LABELS = [
 export type SavingLine = (typeof SAVING_LABELS)[number];
 
 /** Row of the saving block's heading line for n buses. */
-export const savingHeadRow = (busCount: number) => summaryRowOf(busCount, 'Total') + 4;
+export const savingHeadRow = (busCount: number, origin = 1) => summaryRowOf(busCount, 'Total', origin) + 4;
 /** Row of case k's line. */
-export const savingCaseRow = (busCount: number, k: number) => savingHeadRow(busCount) + 1 + k;
+export const savingCaseRow = (busCount: number, k: number, origin = 1) =>
+  savingHeadRow(busCount, origin) + 1 + k;
 /** Row of a yearly figure, with `cases` case lines above. */
-export const savingRowOf = (busCount: number, cases: number, line: SavingLine) =>
-  savingCaseRow(busCount, cases) + SAVING_LABELS.indexOf(line);
+export const savingRowOf = (busCount: number, cases: number, line: SavingLine, origin = 1) =>
+  savingCaseRow(busCount, cases, origin) + SAVING_LABELS.indexOf(line);

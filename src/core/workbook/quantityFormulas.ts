@@ -82,8 +82,23 @@ function basis(busRow: number) {
 // Numbers joined into a text are rounded first: engines print a number's full digits differently.
 // Even so Gnumeric printed ROUND(0.48,3) with 20 digits, so the capacitor rating is left to the
 // bus line's own column rather than written into the description.
-const r2 = (x: string) => `ROUND(${x},2)`;
-const r3 = (x: string) => `ROUND(${x},3)`;
+// A number joined into a text is printed from whole numbers: Gnumeric printed ROUND(6.12,2)
+// joined to a text as 6.1199999999999999999, and a decimal tie (7.5 kvar × 1.21 = 9.075, a hair
+// below in binary) rounded to 9.08 in LibreOffice and 9.07 in our engine. The hundredths (or
+// thousandths) are counted as a whole number, nudged 1e-7 up so a tie rounds up everywhere, and
+// written as integer part, point and digits without trailing zeros: the same text in every program.
+function decimalText(x: string, places: 2 | 3): string {
+  const scale = 10 ** places;
+  const c = `ROUND(ABS(${x})*${scale}+1/10000000,0)`;
+  const d = `MOD(${c},${scale})`;
+  const digits =
+    places === 2
+      ? `IF(MOD(${d},10)=0,${d}/10,RIGHT("0"&${d},2))`
+      : `IF(MOD(${d},100)=0,${d}/100,IF(MOD(${d},10)=0,RIGHT("0"&${d}/10,2),RIGHT("00"&${d},3)))`;
+  return `(IF(${x}<0,"-","")&INT(${c}/${scale})&IF(${d}=0,"","."&${digits}))`;
+}
+const r2 = (x: string) => decimalText(x, 2);
+const r3 = (x: string) => decimalText(x, 3);
 
 const lineCurrent = (kvar: string, u: string, factor: number) => `${kvar}/(SQRT(3)*${u})*${factor}`;
 
@@ -144,14 +159,14 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       item: onlyIf(present, `IF(${k.lv},"LV capacitor","MV capacitor")`),
       what: when(
         '',
-        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&ROUND(${nameplate}*${times}/${count},2)&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase in star, "&${k.inSeries}&" in series a phase"))`,
+        `IF(${k.per}="","capacitor units, ${part}: the capacitor rated voltage is unknown (Compensation sheet: detuning)","capacitor units, ${part}: "&${count}/${times}&" a stage, "&${count}&" × "&${r2(`${nameplate}*${times}/${count}`)}&" kvar nameplate at the rated voltage, "&IF(${k.lv},"three-phase","single-phase in star, "&${k.inSeries}&" in series a phase"))`,
       ),
       count: when('', `IF(${k.per}="","",${perStage}*${times})`),
       quantity: when('', `IF(${k.per}="","",${nameplate}*${times})`),
       unit: 'kvar',
     };
   };
-  const tuned = `"p = "&${k.p}&" %, tuned to order "&ROUND(CAPBANK.TUNE(${k.p}),2)&"; kvar of the outputs they carry"`;
+  const tuned = `"p = "&${k.p}&" %, tuned to order "&${r2(`CAPBANK.TUNE(${k.p})`)}&"; kvar of the outputs they carry"`;
   const reactors = (what: string, count: string, kvar: string, present: string): ItemCells => ({
     item: onlyIf(`${present},${k.p}>0`, `${lvOrMv}&" detuning reactor "&${k.p}&" %"`),
     what: when('', `"detuning reactors, ${what}, "&${tuned}`),
@@ -197,7 +212,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         item: onlyIf(`${stages}>0`, switchingCode(amps, k.u, k.lv)),
         what: when(
           '',
-          `"stage switching, one per stage of "&${r2(stageKvar)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+          `"stage switching, one per stage of "&${r2(stageKvar)}&" kvar, "&${r2(amps)}&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
         ),
         count: when('', stages),
         quantity: when('', stages),
@@ -236,7 +251,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
         item: onlyIf(`${k.total}>0`, code),
         what: when(
           '',
-          `"bank incomer for "&${r2(k.total)}&" kvar, "&ROUND(${amps},2)&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
+          `"bank incomer for "&${r2(k.total)}&" kvar, "&${r2(amps)}&" A with the ${CAPACITOR_CURRENT_FACTOR} capacitor margin"`,
         ),
         count: when('', '1'),
         quantity: when('', '1'),
@@ -269,7 +284,7 @@ export function itemCells(slot: Slot, row: number, busRow: number): ItemCells {
       const amps = here(QC.amps);
       return {
         item: onlyIf(`${k.reactor}>0`, switchingCode(amps, k.u, k.lv)),
-        what: when('', `"reactor switching, "&ROUND(${amps},2)&" A"`),
+        what: when('', `"reactor switching, "&${r2(amps)}&" A"`),
         count: when('', '1'),
         quantity: when('', '1'),
         unit: 'pc',

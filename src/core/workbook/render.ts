@@ -21,6 +21,10 @@ import { COMPENSATION_PURPOSE, renderCompensationSheet } from './renderCompensat
 import { QUANTITIES_SHEET, QUANT_COLUMNS } from './quantitiesLayout.ts';
 import { QUANTITIES_PURPOSE, renderQuantitiesSheet } from './renderQuantities.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../quote/index.ts';
+import { MAX_SHEET_ROWS, OPTIONS_UNASKED_MAX_ROWS } from '../site/limits.ts';
+import { optionInputsSheet, readOptionInputs, type OptionDraft } from './optionInputs.ts';
+import { OPTIONS_SHEET, optionsExtent, planOptionColumns } from './optionsLayout.ts';
+import { OPTIONS_PURPOSE, renderOptionsSheet, type OptionsInput } from './renderOptions.ts';
 import { busLookup, computedCells, headerRow } from './renderEquipment.ts';
 import {
   SETTINGS_COLUMNS,
@@ -43,6 +47,12 @@ export const DEFAULT_CASE = 'normal';
 
 export interface RenderOptions {
   readonly flavour: Flavour;
+  /**
+   * The options a workbook without a Design options sheet (made or saved before it) starts with:
+   * core/options draftOptionsOfDoc. Passed in, not imported, so the page's first download does
+   * not carry the design; without it such a workbook's option blocks start blank.
+   */
+  readonly draftOptions?: (doc: WorkbookDoc) => readonly OptionDraft[];
   /** Values of formula cells in input places (the page passes its engine's), for reading the structure. */
   readonly valueReader?: (sheet: string) => ValueOf | undefined;
 }
@@ -192,6 +202,8 @@ export interface Rendered {
   readonly structure: WorkbookStructure;
   readonly busCols: BusColumns;
   readonly compCols: CompensationColumns;
+  /** The Design options sheet holds inputs only (optionsLeftOut says why), no formulas. */
+  readonly optionsCompact: boolean;
 }
 
 /** The full workbook for a document: every built-in sheet with its generated cells. */
@@ -331,6 +343,19 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     ),
   );
 
+  const rows = equipment.reduce((sum, e) => sum + e.rows.filter((r) => r.present).length, 0);
+  const optionsCompact = optionsLeftOut(rows, structure) !== undefined;
+  sheets.push(
+    optionsSheet(doc, opts, {
+      s: structure,
+      busCols,
+      comp: compCols,
+      hasRates: findSheet(doc, RATES_SHEET) !== undefined,
+      hasTariff: findSheet(doc, TARIFF_SHEET) !== undefined,
+      rows,
+    }),
+  );
+
   const builtIn = new Set(sheets.map((s) => s.name.toLowerCase()));
   for (const s of doc.sheets) if (!builtIn.has(s.name.toLowerCase())) sheets.push(s);
   return {
@@ -338,7 +363,71 @@ export function renderWorkbook(doc: WorkbookDoc, opts: RenderOptions): Rendered 
     structure,
     busCols,
     compCols,
+    optionsCompact,
   };
+}
+
+/**
+ * The Design options sheet: laid out anew from the inputs typed on it. Cells a user typed over a
+ * formula are kept while the layout stays (same buses and cases); the input marks move with
+ * their bus. A site above OPTIONS_UNASKED_MAX_ROWS equipment rows keeps the inputs only.
+ */
+function optionsSheet(
+  doc: WorkbookDoc,
+  opts: RenderOptions,
+  at: Omit<OptionsInput, 'cols' | 'typed' | 'leftOut'> & { readonly rows: number },
+): SheetDoc {
+  const cols = planOptionColumns(at.s.cases);
+  const leftOut = optionsLeftOut(at.rows, at.s);
+  // A workbook made or saved before the sheet existed starts with the standard options.
+  const own =
+    findSheet(doc, OPTIONS_SHEET) ?? (leftOut !== undefined ? undefined : drafted(doc, opts, at.s.cases));
+  const { cells, marks } = renderOptionsSheet({
+    ...at,
+    cols,
+    typed: readOptionInputs(own, cols),
+    ...(leftOut !== undefined ? { leftOut } : {}),
+  });
+  const same = own !== undefined && sameLayout(own.cells, cells);
+  const over = same ? overridesOf(own) : new Set<string>();
+  const out = sheetDoc(
+    OPTIONS_SHEET,
+    same ? overlay(own, cells, over) : cells,
+    cols.columns,
+    OPTIONS_PURPOSE,
+    over,
+  );
+  return marks.length > 0 ? { ...out, marks } : out;
+}
+
+/**
+ * Why the Design options sheet holds inputs only, for a site of `rows` equipment rows: above
+ * OPTIONS_UNASKED_MAX_ROWS, or when its blocks would not fit a sheet; undefined when they fit.
+ */
+export function optionsLeftOut(rows: number, s: WorkbookStructure): string | undefined {
+  if (rows <= OPTIONS_UNASKED_MAX_ROWS && optionsExtent(s.buses.length, s.cases.length) <= MAX_SHEET_ROWS)
+    return undefined;
+  return `The options' figures are not formulas here: with ${rows.toLocaleString('en-GB')} equipment rows (more than ${OPTIONS_UNASKED_MAX_ROWS.toLocaleString('en-GB')}) or ${s.buses.length.toLocaleString('en-GB')} buses they are worked out on request (Checks → Compare design options, or kvar-ledger quote --compare). The inputs below are kept.`;
+}
+
+/** The drafted options in compact form, when a drafter is given and drafts any. */
+function drafted(doc: WorkbookDoc, opts: RenderOptions, cases: readonly string[]): SheetDoc | undefined {
+  const drafts = opts.draftOptions?.(doc) ?? [];
+  return drafts.length > 0 ? optionInputsSheet(drafts, cases) : undefined;
+}
+
+/** Do two layouts of the Design options sheet put the same lines in the same rows? Labels and bus names decide. */
+function sameLayout(
+  old: readonly (readonly CellContent[])[],
+  now: readonly (readonly CellContent[])[],
+): boolean {
+  if (old.length !== now.length) return false;
+  for (let r = 0; r < now.length; r++)
+    for (const c of [0, 1]) {
+      const v = now[r]?.[c] ?? null;
+      if (typeof v === 'string' && !v.startsWith('=') && v !== (old[r]?.[c] ?? null)) return false;
+    }
+  return true;
 }
 
 function sheetDoc(

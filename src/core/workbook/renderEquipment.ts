@@ -24,13 +24,19 @@ export type ComputedCells = Array<readonly [number, CellContent]>;
 const UNITS = (running: string, qty: string) =>
   `IF(ISBLANK(${running}),IF(ISBLANK(${qty}),1,${qty}),${running})`;
 
-function printer(cols: EquipmentColumns, r: number, vars: Partial<Record<VarName, string>>) {
+function printer(
+  cols: EquipmentColumns,
+  r: number,
+  vars: Partial<Record<VarName, string>>,
+  /** How a cell of the row is referred to: relative on its own sheet unless said otherwise. */
+  ref: (row: number, col: number) => string = cell,
+) {
   return (e: Expr) =>
     printExpr(e, {
       col: (key) => {
         const c = cols.input.get(key);
         if (c === undefined) throw new Error(`sheet ${cols.sheet.name} has no ${key} column`);
-        return cell(r, c);
+        return ref(r, c);
       },
       variable: (name) => {
         const v = vars[name];
@@ -105,6 +111,28 @@ export function computedCells(
   phase(buses.sCol, cols.sCarried, cols.loading, cols.pLoss, cols.qLoss);
   phase(buses.sAfterCol, cols.sCarriedAfter, cols.loadingAfter, cols.pLossAfter, cols.qLossAfter);
   return out;
+}
+
+/**
+ * A branch row's losses when it carries the apparent power in `carried` (all units together), as
+ * formulas read from another sheet: [P loss, Q absorbed]. The Design options sheet takes each
+ * option's losses at its own loading with these, the same physics as the row's own columns.
+ */
+export function branchLossesFrom(
+  cols: EquipmentColumns,
+  r: number,
+  kind: KindSpec | undefined,
+  carried: string,
+): readonly [string, string] {
+  const b = kind?.branch;
+  if (!b) return ['0', '0'];
+  const ref = (row: number, col: number) => cellOn(cols.sheet.name, row, col, true);
+  const n = ref(r, cols.inService);
+  const print = printer(cols, r, { n, hz: settingRef('hzInUse'), sUnit: `${carried}/${n}` }, ref);
+  return [
+    b.pLoss ? `${n}*${wrapProduct(print(b.pLoss), b.pLoss)}` : '0',
+    `${n}*${wrapProduct(print(b.qAbsorbed), b.qAbsorbed)}`,
+  ];
 }
 
 /** Loading in % of one unit's rating: by its column, or blank where an optional rating is not given. */

@@ -6,7 +6,7 @@
 import { controllerStepsFormula } from './renderCompensation.ts';
 import { RATES_SHEET } from '../quote/index.ts';
 import { textContent } from '../text/cellText.ts';
-import type { CompensationColumns } from './compensationColumns.ts';
+import type { BankInputKey, CompensationColumns } from './compensationColumns.ts';
 import type { CellContent } from './document.ts';
 import { SHEETS } from './layout.ts';
 import {
@@ -34,25 +34,41 @@ export interface QuantitiesInput {
   readonly hasTariff: boolean;
 }
 
+/** What pricing needs to know of the workbook. */
+export interface Priced {
+  /** Does the workbook have a Rates sheet? Without one every item shows "no rate". */
+  readonly hasRates: boolean;
+}
+
 const WIDTH = QUANT_COLUMNS.length;
 const q = (t: string) => `"${t}"`;
 
 /** A number typed in an input cell, else 0 (blank, text); never below 0. */
 const nonNegative = (ref: string) => `MAX(0,IF(ISNUMBER(${ref}),${ref},0))`;
 
-function busLine(input: QuantitiesInput, i: number): CellContent[] {
-  const { comp } = input;
-  const r = busLineRow(i);
-  const compRow = i + 1;
-  const inp = (key: keyof CompensationColumns['input']) =>
-    cellOn(SHEETS.compensation, compRow, comp.input[key], true);
+/** Where a bank's bus line sits and where it reads the bank from (this sheet, or an option's block). */
+export interface BankLinePlace {
+  /** Row of the bus line. */
+  readonly row: number;
+  /** Row of the last item line below it. */
+  readonly lastRow: number;
+  readonly busName: CellContent;
+  /** The bus voltage, kV. */
+  readonly u: string;
+  /** A bank input cell (the Compensation sheet's, or the option's own). */
+  readonly inp: (key: BankInputKey) => string;
+}
+
+/** The bank as the items read it, on its bus line. */
+export function bankLine(place: BankLinePlace): CellContent[] {
+  const { inp } = place;
+  const r = place.row;
   const here = (col: number) => cell(r, col);
   const out = new Array<CellContent>(WIDTH).fill(null);
-  const b = input.s.buses[i];
-  out[QC.bus] = b ? textContent(b.name) : null;
+  out[QC.bus] = place.busName;
   const [u, total, reactor] = [here(QC.u), here(QC.total), here(QC.reactor)];
   const known = `AND(ISNUMBER(${u}),${u}>0)`;
-  out[QC.u] = `=${cellOn(SHEETS.compensation, compRow, comp.u, true)}`;
+  out[QC.u] = `=${place.u}`;
   out[QC.fixed] = `=${nonNegative(inp('fixed_kvar'))}`;
   // A step counts with a whole number of steps above zero, as the core reads a bank (bankSpec.ts).
   const [st, n] = [inp('step_kvar'), inp('steps')];
@@ -79,10 +95,21 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
   out[QC.what] =
     `=IF(${total}+${reactor}=0,"no bank or reactor chosen",IF(${known},"bank "&ROUND(${total},2)&" kvar"&IF(${reactor}>0,", reactor "&ROUND(${reactor},2)&" kvar","")&" at "&ROUND(${u},3)&" kV","the voltage of the bus is unknown: state u_kv on a row of the bus"))`;
   out[QC.unpriced] = `=IF(AND(NOT(${known}),${total}+${reactor}>0),1,0)`;
-  const last = slotRow(i, SLOTS[SLOTS.length - 1] as (typeof SLOTS)[number]);
   out[QC.subtotal] =
-    `=IF(SUM(${rangeOn(undefined, r, QC.unpriced, last, QC.unpriced)})>0,"${UNPRICED_TEXT.total}",SUM(${rangeOn(undefined, r + 1, QC.cost, last, QC.cost)}))`;
+    `=IF(SUM(${rangeOn(undefined, r, QC.unpriced, place.lastRow, QC.unpriced)})>0,"${UNPRICED_TEXT.total}",SUM(${rangeOn(undefined, r + 1, QC.cost, place.lastRow, QC.cost)}))`;
   return out;
+}
+
+function busLine(input: QuantitiesInput, i: number): CellContent[] {
+  const compRow = i + 1;
+  const b = input.s.buses[i];
+  return bankLine({
+    row: busLineRow(i),
+    lastRow: slotRow(i, SLOTS[SLOTS.length - 1] as (typeof SLOTS)[number]),
+    busName: b ? textContent(b.name) : null,
+    u: cellOn(SHEETS.compensation, compRow, input.comp.u, true),
+    inp: (key) => cellOn(SHEETS.compensation, compRow, input.comp.input[key], true),
+  });
 }
 
 /**
@@ -90,7 +117,7 @@ function busLine(input: QuantitiesInput, i: number): CellContent[] {
  * is found once, by MATCH in the Rates row column, and Rate reads that row's cells by INDEX. One
  * lookup per line instead of one per field keeps the sheet cheap to build and recalculate.
  */
-function rateFormulas(input: QuantitiesInput, row: number, currency: string): [string | null, string] {
+function rateFormulas(input: Priced, row: number, currency: string): [string | null, string] {
   const item = cell(row, QC.item);
   if (!input.hasRates) return [null, `=IF(${item}="","",${q(UNPRICED_TEXT.noRate)})`];
   const rates = sheetPrefix(RATES_SHEET);
@@ -103,7 +130,7 @@ function rateFormulas(input: QuantitiesInput, row: number, currency: string): [s
   ];
 }
 
-function pricing(out: CellContent[], input: QuantitiesInput, row: number, currency: string): void {
+function pricing(out: CellContent[], input: Priced, row: number, currency: string): void {
   const [item, quantity, rate, cost] = [
     cell(row, QC.item),
     cell(row, QC.quantity),
@@ -118,18 +145,19 @@ function pricing(out: CellContent[], input: QuantitiesInput, row: number, curren
 }
 
 /** A surcharge's percentage from the Rates sheet's "%" row of that name; 0 when there is none. */
-function surchargePct(input: QuantitiesInput, name: string): string {
+function surchargePct(input: Priced, name: string): string {
   if (!input.hasRates) return '=0';
   const table = `${sheetPrefix(RATES_SHEET)}$A:$E`;
   const look = (col: number) => `VLOOKUP("${name}",${table},${col},FALSE)`;
   return `=IFERROR(IF(AND(${look(2)}="%",ISNUMBER(${look(3)})),${look(3)},0),0)`;
 }
 
-function summary(input: QuantitiesInput, n: number): CellContent[][] {
-  const row = (line: (typeof SUMMARY_LABELS)[number]) => summaryRowOf(n, line);
+/** Equipment, surcharges and total below n buses' blocks whose first bus line is at `origin`; then the note. */
+export function costSummary(input: Priced, n: number, origin = 1): CellContent[][] {
+  const row = (line: (typeof SUMMARY_LABELS)[number]) => summaryRowOf(n, line, origin);
   const amount = (line: (typeof SUMMARY_LABELS)[number]) => cell(row(line), QC.cost);
   const pct = (line: (typeof SUMMARY_LABELS)[number]) => cell(row(line), QC.rate);
-  const lastBlockRow = busLineRow(n) - 1;
+  const lastBlockRow = busLineRow(n, origin) - 1;
   const eq = amount('Equipment');
   const unpriced = q(UNPRICED_TEXT.total);
   const lines: CellContent[][] = [new Array<CellContent>(WIDTH).fill(null)];
@@ -142,7 +170,7 @@ function summary(input: QuantitiesInput, n: number): CellContent[][] {
         : null;
     else if (label === 'Equipment')
       out[QC.cost] =
-        `=IF(SUM(${rangeOn(undefined, 1, QC.unpriced, lastBlockRow, QC.unpriced)})>0,${unpriced},SUM(${rangeOn(undefined, 1, QC.cost, lastBlockRow, QC.cost)}))`;
+        `=IF(SUM(${rangeOn(undefined, origin, QC.unpriced, lastBlockRow, QC.unpriced)})>0,${unpriced},SUM(${rangeOn(undefined, origin, QC.cost, lastBlockRow, QC.cost)}))`;
     else if (label === 'Installation' || label === 'Engineering') {
       out[QC.rate] = surchargePct(input, label);
       out[QC.what] = `=ROUND(${pct(label)},2)&" % of the equipment"`;
@@ -163,6 +191,16 @@ function summary(input: QuantitiesInput, n: number): CellContent[][] {
   return lines;
 }
 
+/** The priced item lines below bus i's bus line, one per slot; `currency` is the quote's currency cell. */
+export function itemLines(input: Priced, i: number, currency: string, origin = 1): CellContent[][] {
+  return SLOTS.map((slot) => {
+    const row = slotRow(i, slot, origin);
+    const out = itemRow(itemCells(slot, row, busLineRow(i, origin)), WIDTH);
+    pricing(out, input, row, currency);
+    return out;
+  });
+}
+
 /** Every generated cell of the sheet: header, one block per bus, totals and the note. */
 export function renderQuantitiesSheet(input: QuantitiesInput): CellContent[][] {
   const n = input.s.buses.length;
@@ -171,14 +209,9 @@ export function renderQuantitiesSheet(input: QuantitiesInput): CellContent[][] {
   const currency = absCell(summaryRowOf(n, 'Currency'), QC.cost);
   for (let i = 0; i < n; i++) {
     cells.push(busLine(input, i));
-    for (const slot of SLOTS) {
-      const row = slotRow(i, slot);
-      const out = itemRow(itemCells(slot, row, busLineRow(i)), QUANT_COLUMNS.length);
-      pricing(out, input, row, currency);
-      cells.push(out);
-    }
+    cells.push(...itemLines(input, i, currency));
   }
-  cells.push(...summary(input, n), ...savingRows(n, input.s.cases, input.hasTariff));
+  cells.push(...costSummary(input, n), ...savingRows(n, input.s.cases, input.hasTariff));
   return cells;
 }
 

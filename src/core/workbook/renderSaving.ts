@@ -29,20 +29,39 @@ function tariffValue(label: string, hasTariff: boolean): string {
   return `IFERROR(IF(AND(ISNUMBER(${look}),${look}>=0),${look},0),0)`;
 }
 
+/**
+ * Where the saving reads P and Q after compensation at the point of connection, per case: the
+ * Buses sheet's (the chosen design), or a design option's own roll-up. `origin`: the row of the
+ * first bus line of the blocks above (quantitiesLayout.ts).
+ */
+export interface SavingPlace {
+  readonly origin: number;
+  readonly after: (k: number) => readonly [p: string, q: string];
+}
+
 /** The saving block's rows for n buses and the cases given (appended below the note). */
-export function savingRows(n: number, cases: readonly string[], hasTariff: boolean): CellContent[][] {
+export function savingRows(
+  n: number,
+  cases: readonly string[],
+  hasTariff: boolean,
+  place?: SavingPlace,
+): CellContent[][] {
   const busCols = planBusColumns(cases);
   const root = (col: number) => cellOn(SHEETS.buses, 1, col, true);
+  const origin = place?.origin ?? 1;
   const t = (key: keyof typeof TARIFF_LABELS) => tariffValue(TARIFF_LABELS[key], hasTariff);
   const head = new Array<CellContent>(WIDTH).fill(null);
   for (const [c, text] of Object.entries(SAVING_HEADINGS)) head[Number(c)] = text ?? null;
   const rows: CellContent[][] = [new Array<CellContent>(WIDTH).fill(null), head];
   const excess = (p: string, q: string, tan: string) => `MAX(0,${q}-${tan}*ABS(${p}))`;
   cases.forEach((c, k) => {
-    const r = savingCaseRow(n, k);
+    const r = savingCaseRow(n, k, origin);
     const out = new Array<CellContent>(WIDTH).fill(null);
     const [P, Q] = [root(busCols.p[k] as number), root(busCols.q[k] as number)];
-    const [PA, QA] = [root(busCols.pAfter[k] as number), root(busCols.qAfter[k] as number)];
+    const [PA, QA] = place?.after(k) ?? [
+      root(busCols.pAfter[k] as number),
+      root(busCols.qAfter[k] as number),
+    ];
     const hours = cell(r, QC.count);
     out[QC.bus] = textContent(c);
     out[QC.count] = `=${tariffValue(hoursLabel(c), hasTariff)}`;
@@ -53,13 +72,14 @@ export function savingRows(n: number, cases: readonly string[], hasTariff: boole
     out[QC.cost] = `=(${P}-${PA})*${hours}`;
     rows.push(out);
   });
-  const first = savingCaseRow(n, 0);
-  const last = savingCaseRow(n, cases.length - 1);
+  const first = savingCaseRow(n, 0, origin);
+  const last = savingCaseRow(n, cases.length - 1, origin);
   const col = (c: number) => rangeOn(undefined, first, c, last, c);
-  const at = (line: (typeof SAVING_LABELS)[number]) => cell(savingRowOf(n, cases.length, line), QC.cost);
+  const at = (line: (typeof SAVING_LABELS)[number]) =>
+    cell(savingRowOf(n, cases.length, line, origin), QC.cost);
   const charge = (kvarh: number, excessCol: number) =>
     `=${t('kvarh_price')}*SUM(${col(kvarh)})+${t('demand_price')}*${t('periods_per_year')}*MAX(0,${col(excessCol)})`;
-  const total = cell(summaryRowOf(n, 'Total'), QC.cost);
+  const total = cell(summaryRowOf(n, 'Total', origin), QC.cost);
   const saving = at('Annual saving');
   const formulas: Record<(typeof SAVING_LABELS)[number], string> = {
     'Reactive charge before': charge(QC.quantity, QC.amps),

@@ -24,7 +24,6 @@ import {
   markOverrides,
   markProposals,
   styleCover,
-  styleOptionsSheet,
   styleDataSheet,
   styleFunctionsSheet,
 } from './exportStyles.ts';
@@ -41,8 +40,7 @@ import {
   type SheetMeta,
 } from './metadata.ts';
 import { sheetNameProblem, uniqueSheetName } from './sheetNames.ts';
-import { OPTIONS_SHEET_NAME, optionsSheetRows } from './exportOptions.ts';
-import type { OptionFigures } from '../../core/options/index.ts';
+import { OPTIONS_SHEET } from '../../core/workbook/optionsLayout.ts';
 
 export interface XlsxExportOptions {
   /** The site's settings, for the cover (name, frequency, requirement, cases, notes). */
@@ -63,9 +61,12 @@ export interface XlsxExportOptions {
   readonly strict?: boolean;
   /** Program name and version on the cover. */
   readonly generator?: string;
-  /** Design options side by side, written on a sheet of their own (values). */
-  readonly options?: readonly OptionFigures[];
-  /** Why the options are not in the file, for the cover (e.g. a site too large to work them out unasked). */
+  /**
+   * Checks' counts of errors and warnings per design, written as values beside the Design
+   * options sheet's table: [row, column, value] (core/options findingsCells).
+   */
+  readonly optionFindings?: ReadonlyArray<readonly [number, number, number]>;
+  /** Why the options have no figures or counts in the file, for the cover (e.g. a site too large). */
   readonly optionsLeftOut?: string;
 }
 
@@ -240,11 +241,15 @@ export async function exportWorkbookXlsxWithReport(
   const taken = doc.sheets.map((s) => s.name);
   const coverName = uniqueSheetName(COVER_SHEET_NAME, taken);
   const functionsName = uniqueSheetName(FUNCTIONS_SHEET_NAME, [...taken, coverName]);
-  const options = opts.options ?? [];
-  const optionsName =
-    options.length > 0
-      ? uniqueSheetName(OPTIONS_SHEET_NAME, [...taken, coverName, functionsName])
-      : undefined;
+  const optionsAt = doc.sheets.findIndex((s) => s.name === OPTIONS_SHEET);
+  const findings = optionsAt >= 0 ? (opts.optionFindings ?? []) : [];
+  const optionRows = (converted[optionsAt] as SheetCells | undefined)?.rows;
+  for (const [r, c, value] of findings) {
+    const line = optionRows?.[r];
+    if (!line) continue;
+    while (line.length <= c) line.push({ kind: 'empty' });
+    line[c] = { kind: 'value', value };
+  }
   const typedOver = doc.sheets.flatMap((s) => (s.overrides ?? []).map(([r, c]) => `${s.name}!${a1Of(r, c)}`));
   const assumed = doc.sheets.flatMap((s) => heldAssumptions(s).map((m) => `${s.name}!${a1Of(m.row, m.col)}`));
   const proposed = doc.sheets.flatMap((s) => heldProposals(s).map((m) => `${s.name}!${a1Of(m.row, m.col)}`));
@@ -256,7 +261,7 @@ export async function exportWorkbookXlsxWithReport(
       : []),
     ...(proposed.length > 0
       ? [
-          `${proposed.length} value(s) are bank sizes the design proposed for a row with only a detuning typed (marked, with a note): ${proposed.slice(0, MAX_COVER_ISSUES).join(', ')}${proposed.length > MAX_COVER_ISSUES ? ' …' : ''}. Check them or type your own.`,
+          `${proposed.length} value(s) are bank sizes the design proposed (a Compensation row with only a detuning typed, or a design option's bank; marked, with a note): ${proposed.slice(0, MAX_COVER_ISSUES).join(', ')}${proposed.length > MAX_COVER_ISSUES ? ' …' : ''}. Check them or type your own.`,
         ]
       : []),
     ...(typedOver.length > 0
@@ -269,8 +274,10 @@ export async function exportWorkbookXlsxWithReport(
           `Uses functions newer than the 2007 file format (${newer.join(', ')}); they need a recent spreadsheet program.`,
         ]
       : []),
-    ...(optionsName
-      ? [`Design options side by side, as values worked out at export: sheet ${optionsName}.`]
+    ...(optionsAt >= 0
+      ? [
+          `Design options side by side as live formulas: sheet ${OPTIONS_SHEET}${findings.length > 0 ? '; the errors and warnings beside its table were counted by Checks at export (values)' : ''}.`,
+        ]
       : []),
     ...(opts.optionsLeftOut ? [opts.optionsLeftOut] : []),
     ...issues.slice(0, MAX_COVER_ISSUES).map((i) => `${i.where}: ${i.message}.`),
@@ -314,13 +321,12 @@ export async function exportWorkbookXlsxWithReport(
   });
 
   styleFunctionsSheet(wb.addWorksheet(functionsName), [...FUNCTION_HEADER], functionRows(catalogue));
-  if (optionsName) styleOptionsSheet(wb.addWorksheet(optionsName), optionsSheetRows(options));
   writeMeta(wb, {
     format: META_MARKER,
     version: META_VERSION,
     doc,
     sheets: sheetsMeta,
-    generated: [coverName, functionsName, ...(optionsName ? [optionsName] : [])],
+    generated: [coverName, functionsName],
   });
 
   // Fastest deflate level: the file grows by about a third, the export is much quicker.

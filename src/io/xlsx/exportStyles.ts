@@ -88,21 +88,6 @@ export function styleFunctionsSheet(ws: Worksheet, header: string[], rows: reado
   ws.views = [{ state: 'frozen', xSplit: 0, ySplit: 1, topLeftCell: 'A2', activeCell: 'A2' }];
 }
 
-/** The options sheet: its two header rows (those starting "Option") bold and tinted, notes wrapped. */
-export function styleOptionsSheet(ws: Worksheet, rows: readonly (string | number | null)[][]): void {
-  [30, 48, 12, 12, 14, 10, 14, 12, 14, 8, 10, 24].forEach((w, i) => (ws.getColumn(i + 1).width = w));
-  for (const r of rows) {
-    const row = ws.addRow(r.map((c) => (typeof c === 'string' ? xmlSafe(c) : c)));
-    if (r[0] === 'Option')
-      row.eachCell((cell) => {
-        cell.font = { bold: true, color: { argb: INK } };
-        cell.fill = solid(INPUT_HEADER);
-        cell.border = { bottom: { style: 'thin', color: { argb: RULE } } };
-      });
-    else row.eachCell((cell) => (cell.alignment = { vertical: 'top' }));
-  }
-}
-
 /** Mark the cells typed over formulas: a fill, copper ink and a note saying what happened. */
 const ASSUMED_FILL = 'FFFFF6CC';
 

@@ -374,6 +374,11 @@ export class WorkbookSession {
         `Rows of the ${name} sheet follow the buses (a block of item lines per bus); change the banks on the Compensation sheet or the rates on the Rates sheet instead.`,
       );
     }
+    if (role.kind === 'options') {
+      throw new SessionError(
+        `Rows of the ${name} sheet follow the buses (a block per option, a bus line per bus); type an option's banks on its bus lines instead.`,
+      );
+    }
     if (role.kind === 'equipment' && at === 0) {
       throw new SessionError(
         `The header row of ${name} names the columns the formulas and the export rely on; it stays.`,
@@ -527,11 +532,11 @@ export class WorkbookSession {
    * A sheet named Rates or Tariff came or went (added, renamed, removed): the Quantities and cost
    * sheet is written anew, so its lookups point at the sheet of that name or say there is none,
    * as the command line reads the workbook; `going`: a sheet about to be removed, taken as absent.
-   * Returns the engine entries written (0 or 1).
+   * Returns the engine entries written (one per sheet written while a step holds evaluation).
    */
   private pricingFollows(names: readonly string[], going?: string): number {
     if (!this.site || !names.some(isPricingSheet)) return 0;
-    return this.write(this.site.quantitiesWrites(going), true) ? 1 : 0;
+    return this.write(this.site.quantitiesWrites(going), true);
   }
 
   /** After the engine rewrote references (a sheet renamed or removed): formulas as it now holds them. */
@@ -648,7 +653,7 @@ export class WorkbookSession {
     const doc = renameCaseColumns(this.toDoc(), caseRenames);
     const r = renderWorkbook(doc, { flavour: 'live' });
     const ids = site.ids;
-    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp, ids.quant];
+    const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp, ids.quant, ids.opts];
     this.engine.batch(() => {
       for (const id of builtIn) {
         const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;

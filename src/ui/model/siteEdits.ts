@@ -125,7 +125,8 @@ export function siteEdit(
         }
       }
       const out: Write[] = [];
-      if (touched.size > 0) out.push(...site.afterEquipmentWrites(touched, renamed));
+      // One by one: rewriting the derived sheets runs to 100,000 writes and more, beyond a spread.
+      if (touched.size > 0) for (const w of site.afterEquipmentWrites(touched, renamed)) out.push(w);
       const settings = settingsFrom(contents, site.ids.site, 'Site');
       for (const c of restores) {
         if (out.some((w) => w.sheet === sheet && w.row === c.row && w.col === c.col)) continue;

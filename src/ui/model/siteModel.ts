@@ -24,6 +24,10 @@ import { zoneChargingFormula, zoneMatesOf, zoneTopIndex } from '../../core/workb
 import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
 import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
+import { readOptionInputs } from '../../core/workbook/optionInputs.ts';
+import { isOptionInput, planOptionColumns, type OptionColumns } from '../../core/workbook/optionsLayout.ts';
+import { optionsLeftOut } from '../../core/workbook/render.ts';
+import { renderOptionsSheet } from '../../core/workbook/renderOptions.ts';
 import { busLookup, computedCells } from '../../core/workbook/renderEquipment.ts';
 import {
   equipmentPlans,
@@ -42,6 +46,7 @@ export interface SheetIds {
   readonly buses: number;
   readonly comp: number;
   readonly quant: number;
+  readonly opts: number;
 }
 
 export type Role =
@@ -50,6 +55,7 @@ export type Role =
   | { readonly kind: 'buses' }
   | { readonly kind: 'compensation' }
   | { readonly kind: 'quantities' }
+  | { readonly kind: 'options' }
   | { readonly kind: 'user' };
 
 /** One cell write: where and what. */
@@ -92,6 +98,7 @@ export class SiteModel {
     if (sheet === this.ids.buses) return { kind: 'buses' };
     if (sheet === this.ids.comp) return { kind: 'compensation' };
     if (sheet === this.ids.quant) return { kind: 'quantities' };
+    if (sheet === this.ids.opts) return { kind: 'options' };
     const index = this.ids.equipment.indexOf(sheet);
     return index >= 0 ? { kind: 'equipment', index } : { kind: 'user' };
   }
@@ -120,6 +127,12 @@ export class SiteModel {
       }
       case 'quantities':
         return row < this.state.extent.quant && col < QUANT_COLUMNS.length;
+      case 'options': {
+        const cols = this.optionColumns();
+        if (row >= this.state.extent.opts || col >= cols.columns.length) return false;
+        const s = this.state.rendered;
+        return !isOptionInput(cols, s.buses.length, s.cases.length, this.state.optionsCompact, row, col);
+      }
       default:
         return false;
     }
@@ -169,6 +182,7 @@ export class SiteModel {
       return grid[row]?.[col] ?? null;
     }
     if (role.kind === 'quantities') return this.quantitiesGrid(s)[row]?.[col] ?? null;
+    if (role.kind === 'options') return this.optionsGrid(s).cells[row]?.[col] ?? null;
     if (role.kind === 'site')
       return settingsGenerated(settings).find(([r, c]) => r === row && c === col)?.[2] ?? null;
     return null;
@@ -300,7 +314,7 @@ export class SiteModel {
     const next = this.structure(rows);
     const writes: Write[] = [];
     if (!sameBuses(next, this.state.rendered)) {
-      writes.push(...this.writeDerived(next, renamed));
+      append(writes, this.writeDerived(next, renamed));
       for (const s of next.sheets) {
         if (s.cols.role !== 'branch') continue;
         s.rows.forEach((info, i) => {
@@ -434,8 +448,9 @@ export class SiteModel {
     ];
     this.state = {
       ...this.state,
-      extent: { buses: buses.length, comp: compGrid.length, quant: quant.length },
+      extent: { ...this.state.extent, buses: buses.length, comp: compGrid.length, quant: quant.length },
     };
+    append(out, this.optionsWrites(s));
     return out;
   }
 
@@ -462,12 +477,62 @@ export class SiteModel {
     return moves;
   }
 
-  /** The Quantities and cost sheet written anew for the buses as they are (a Rates or Tariff sheet came or went). */
+  /** The Quantities and cost and Design options sheets written anew (a Rates or Tariff sheet came or went). */
   quantitiesWrites(going?: string): Write[] {
     const grid = this.quantitiesGrid(this.state.rendered, going);
     const out = this.gridWrites(this.ids.quant, grid, this.state.extent.quant, QUANT_COLUMNS.length);
     this.state = { ...this.state, extent: { ...this.state.extent, quant: grid.length } };
+    append(out, this.optionsWrites(this.state.rendered, going));
     return out;
+  }
+
+  /**
+   * The Design options sheet written anew for a structure, each option's inputs kept with its
+   * block and bus (read from the sheet as it is, by block label and bus name).
+   */
+  private optionsWrites(s: WorkbookStructure, going?: string): Write[] {
+    const { cells, compact } = this.optionsGrid(s, going);
+    // The whole block in one write (one engine entry while a step holds evaluation).
+    const out = this.gridWrites(
+      this.ids.opts,
+      cells,
+      this.state.extent.opts,
+      this.optionColumns().columns.length,
+    );
+    this.state = {
+      ...this.state,
+      extent: { ...this.state.extent, opts: cells.length },
+      optionsCompact: compact,
+    };
+    return out;
+  }
+
+  private optionColumns(): OptionColumns {
+    const cases = this.state.cases;
+    if (this.optionColsFor?.cases !== cases) this.optionColsFor = { cases, cols: planOptionColumns(cases) };
+    return this.optionColsFor.cols;
+  }
+
+  private optionColsFor: { cases: readonly string[]; cols: OptionColumns } | undefined;
+
+  private optionsGrid(s: WorkbookStructure, going?: string) {
+    const has = (name: string) =>
+      this.hf.getSheetId(name) !== undefined && name.toLowerCase() !== going?.toLowerCase();
+    const cols = this.optionColumns();
+    const typed = readOptionInputs({ cells: this.contents.get(this.ids.opts) }, cols);
+    const rows = this.state.rows.reduce((n, list) => n + list.filter((r) => r.present).length, 0);
+    const leftOut = optionsLeftOut(rows, s);
+    const { cells } = renderOptionsSheet({
+      s,
+      cols,
+      busCols: this.plans().bus,
+      comp: this.plans().comp,
+      hasRates: has(RATES_SHEET),
+      hasTariff: has(TARIFF_SHEET),
+      typed,
+      ...(leftOut !== undefined ? { leftOut } : {}),
+    });
+    return { cells, compact: leftOut !== undefined };
   }
 
   /** The "Quantities and cost" sheet for a structure (its rates from the Rates sheet, when there is one). */
@@ -515,6 +580,14 @@ export class SiteModel {
     }
     return out;
   }
+}
+
+/**
+ * Writes added to a list one by one: the derived sheets' writes run to 100,000 and more (the
+ * Design options sheet alone), beyond what a spread into push() passes as arguments.
+ */
+function append(to: Write[], more: readonly Write[]): void {
+  for (const w of more) to.push(w);
 }
 
 /** A row's computed cells change with whether it is an item, its kind and (a branch) the bus it feeds. */

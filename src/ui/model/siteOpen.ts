@@ -56,6 +56,7 @@ export function openSite(doc: WorkbookDoc): OpenedSite {
     buses: id(SHEETS.buses),
     comp: id(SHEETS.compensation),
     quant: id(SHEETS.quantities),
+    opts: id(SHEETS.options),
   };
   const overrides = new Map<number, Set<string>>();
   for (const s of full.sheets) {

@@ -13,6 +13,7 @@ import type { CellContent } from '../../core/workbook/document.ts';
 import { settingsRows } from '../../core/workbook/settingsLayout.ts';
 import { summaryRow } from '../../core/workbook/renderCompensation.ts';
 import { quantitiesExtent } from '../../core/workbook/quantitiesLayout.ts';
+import { OPTIONS_SHEET } from '../../core/workbook/optionsLayout.ts';
 
 export interface SiteState {
   readonly cases: readonly string[];
@@ -23,7 +24,14 @@ export interface SiteState {
   /** Per sheet id, the cells in generated places the user typed over ("row,col"). */
   readonly overrides: ReadonlyMap<number, ReadonlySet<string>>;
   /** Rows (header included) of the generated block of the Buses and Compensation sheets. */
-  readonly extent: { readonly buses: number; readonly comp: number; readonly quant: number };
+  readonly extent: {
+    readonly buses: number;
+    readonly comp: number;
+    readonly quant: number;
+    readonly opts: number;
+  };
+  /** The Design options sheet holds inputs only (a site too large for its formulas). */
+  readonly optionsCompact: boolean;
   /** Assumptions listed on the Site sheet (its layout). */
   readonly notes: number;
   /** Bank inputs of buses that went away, by bus key: back when the bus returns. */
@@ -51,7 +59,9 @@ export function stateOf(
       buses: n + 1,
       comp: n > 0 ? summaryRow(n) + 1 : 1,
       quant: quantitiesExtent(n, r.structure.cases.length),
+      opts: r.doc.sheets.find((s) => s.name === OPTIONS_SHEET)?.cells.length ?? 0,
     },
+    optionsCompact: r.optionsCompact,
     notes,
     retired: new Map(),
   };

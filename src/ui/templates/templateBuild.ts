@@ -1,6 +1,7 @@
 // A site file's text → its summary for the template list, or a live workbook. A template carries
-// its banks (the design's proposal, kept current by a test), so opening one on a first visit does
-// not download the design; a site file without banks has them proposed on the way.
+// its banks (the design's proposal, kept current by a test); the design options of its Design
+// options sheet are drafted by the design, loaded on demand here (the page loads it after opening
+// anyway, for the detuning proposal); a site file without banks has them proposed on the way.
 import { readSiteFile } from '../../core/site/siteFile.ts';
 import { inputsFromSite } from '../../core/workbook/inputsFromSite.ts';
 import { renderWorkbook } from '../../core/workbook/render.ts';
@@ -33,5 +34,7 @@ export async function workbookOf(id: string, text: string): Promise<WorkbookDoc>
   if (errors.length > 0)
     throw new Error(`template "${id}" has problems: ${errors.slice(0, 3).map((p) => p.message).join('; ')}`);
   const chosen = banks ?? (await import('../../core/site/compensation.ts')).proposeChoices(site);
-  return renderWorkbook(inputsFromSite(site, chosen), { flavour: 'live' }).doc;
+  // The Design options sheet starts with the standard options (their design loads now, on demand).
+  const { draftOptions } = await import('../../core/site/designOptions.ts');
+  return renderWorkbook(inputsFromSite(site, chosen, [], draftOptions(site)), { flavour: 'live' }).doc;
 }

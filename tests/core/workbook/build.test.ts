@@ -181,7 +181,7 @@ describe('portable flavour: classic functions only, same values as live', () => 
 describe('workbook shape', () => {
   const doc = buildWorkbook(PLANT, { flavour: 'live' });
 
-  it('has the settings, equipment, buses, compensation and quantities sheets in order, then the rates', () => {
+  it('has the settings, equipment, buses, compensation, quantities and options sheets in order, then the rates', () => {
     expect(doc.sheets.map((s) => s.name)).toEqual([
       'Site',
       'Motors',
@@ -195,6 +195,7 @@ describe('workbook shape', () => {
       'Buses',
       'Compensation',
       'Quantities and cost',
+      'Design options',
       'Rates',
       'Tariff',
     ]);

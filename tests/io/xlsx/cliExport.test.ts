@@ -27,7 +27,7 @@ describe('kvar-ledger export', () => {
     expect(r.err).toBe('');
     expect(r.code).toBe(0);
     expect(r.out).toMatch(
-      /^wrote .*cold\.xlsx: 14 sheets, \d+ live formulas, \d+ catalogue functions written out\n$/,
+      /^wrote .*cold\.xlsx: 15 sheets, \d+ live formulas, \d+ catalogue functions written out\n$/,
     );
     const back = await importKvarXlsx(new Uint8Array(readFileSync(out)));
     const { site } = readSiteFile(readFileSync('templates/cold-store.json', 'utf8'));

@@ -8,6 +8,8 @@ import fc from 'fast-check';
 import type { CellContent } from '../../../src/core/workbook/document.ts';
 import { equipmentPlans } from '../../../src/core/workbook/structure.ts';
 import { planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
+import { blockOrigin, planOptionColumns } from '../../../src/core/workbook/optionsLayout.ts';
+import { busLineRow } from '../../../src/core/workbook/quantitiesLayout.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../../src/core/quote/index.ts';
 import { FIRST_CASE_ROW, SETTING_ROWS } from '../../../src/core/workbook/settingsLayout.ts';
 import type { WorkbookSession } from '../../../src/ui/model/session.ts';
@@ -26,6 +28,15 @@ export type Edit =
   | { op: 'bank'; bus: number; step: number; steps: number; fixed: number; series: string | null }
   | { op: 'design'; bus: number; p: number; urFactor: number | null }
   | { op: 'detuneAlone'; bus: number; p: number }
+  | {
+      op: 'optionBank';
+      option: number;
+      bus: number;
+      step: number | null;
+      steps: number;
+      p: number;
+      reactor: number;
+    }
   | {
       op: 'resistance';
       on: 'lines' | 'feeders';
@@ -104,6 +115,16 @@ export const editArb: fc.Arbitrary<Edit> = fc.oneof(
     n: fc.integer({ min: 1, max: 4 }),
   }),
   fc.record({ op: fc.constant('clear' as const), sheet: fc.constantFrom(...SHUNT_SHEETS), row: fc.nat() }),
+  fc.record({
+    // A bank typed into a design option's block (Design options sheet); a blank step clears it.
+    op: fc.constant('optionBank' as const),
+    option: fc.nat(3),
+    bus: fc.nat(),
+    step: fc.option(num(5, 100), { nil: null }),
+    steps: fc.integer({ min: 0, max: 6 }),
+    p: fc.constantFrom(0, 5.67, 7, 14),
+    reactor: fc.constantFrom(0, 0, 50),
+  }),
   fc.record({
     op: fc.constant('bank' as const),
     bus: fc.nat(),
@@ -322,6 +343,20 @@ export function applyEdit(s: WorkbookSession, e: Edit): string {
         { row, col: comp.input.series, content: e.series === '1:2:4' && e.steps > 4 ? null : e.series },
       ]);
       return `bank on ${buses[row - 1]}: ${e.steps} × ${e.step} ${e.series ?? ''}`;
+    }
+    case 'optionBank': {
+      if (buses.length === 0) return 'optionBank: no bus';
+      const cols = planOptionColumns(cases);
+      const i = e.bus % buses.length;
+      const row = busLineRow(i, blockOrigin(e.option, buses.length, cases.length));
+      if (model.state.optionsCompact) return 'optionBank: the options hold inputs only';
+      s.setCells(model.ids.opts, [
+        { row, col: cols.input.step_kvar, content: e.step },
+        { row, col: cols.input.steps, content: e.step === null ? null : e.steps },
+        { row, col: cols.input.p_pct, content: e.p > 0 ? e.p : null },
+        { row, col: cols.input.reactor_kvar, content: e.reactor > 0 ? e.reactor : null },
+      ]);
+      return `option ${e.option + 1} bank on ${buses[i]}: ${e.steps} × ${e.step} p ${e.p} reactor ${e.reactor}`;
     }
     case 'design': {
       // Detuning and capacitor rating typed on the Compensation sheet (the rating a factor of U).

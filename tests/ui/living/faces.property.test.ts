@@ -14,6 +14,7 @@ import { siteArb } from './siteArb.ts';
 import { applyEdit, editArb } from './edits.ts';
 import { coreFaces, expectedDetuningRow, pageFaces, relDiff, rowSizes } from './faces.ts';
 import { coreQuote, coreSaving, pageQuote, pageSaving, type QuoteFace } from './quoteFaces.ts';
+import { coreOptions, expectSameOptions, sheetOptions } from '../../core/workbook/optionFaces.ts';
 
 const TOL = 1e-9;
 
@@ -47,6 +48,7 @@ function compare(s: WorkbookSession, log: readonly string[]): number {
   });
   expect(page.within, where()).toEqual(core.faces.within);
   pricedLines += compareQuotes(s, where);
+  compareOptionSheet(s, where);
   return 1;
 }
 
@@ -109,6 +111,29 @@ function compareQuotes(s: WorkbookSession, where: () => string): number {
   return core.face.buses.reduce((n, b) => n + b.lines.filter((l) => l.cost !== null).length, 0);
 }
 
+/**
+ * The Design options sheet's table: each option's kvar, total, saving, payback and requirement as
+ * the page's engine shows them, against the core's compare.ts for the banks typed in its blocks.
+ */
+function compareOptionSheet(s: WorkbookSession, where: () => string): void {
+  if (s.site?.state.optionsCompact) return;
+  const core = coreOptions(s.toDoc());
+  const value = (sheet: string, row: number, col: number) =>
+    s.engine.getCellValue({ sheet: s.engine.getSheetId(sheet) as number, row, col });
+  expectSameOptions(
+    sheetOptions(
+      value,
+      core.map((o) => o.block),
+    ),
+    core,
+    where(),
+  );
+  optionsCompared += core.length;
+}
+
+/** Options compared over the whole run: the sheet must not be empty everywhere. */
+let optionsCompared = 0;
+
 // The page loads the design behind a detuning typed alone after opening; here, before any edit.
 beforeAll(loadDetuningProposer);
 
@@ -166,5 +191,8 @@ describe('the page and the core agree after every edit', () => {
     expect(steps).toBeGreaterThan(0);
     expect(compared / steps, `${compared} of ${steps} steps compared`).toBeGreaterThan(0.7);
     expect(pricedLines, `${pricedLines} priced lines over ${compared} comparisons`).toBeGreaterThan(compared);
+    expect(optionsCompared, `${optionsCompared} options over ${compared} comparisons`).toBeGreaterThan(
+      compared,
+    );
   });
 });
