@@ -1,11 +1,15 @@
-// `kvar-ledger export <file> <out.xlsx> [site options]`: build the full workbook in its portable
-// form (catalogue and classic functions only) and write the hand-off xlsx. The file is read by
+// `kvar-ledger export <file> <out.xlsx> [site options]`: the full workbook in its portable form
+// (catalogue and classic functions only) as the hand-off xlsx. A workbook (saved by the app, or
+// our own xlsx) goes out whole, as the page exports it; a site file or a list is built first. The file is read by
 // the command line's one loader (loadSite.ts), as `balance` reads it. Bad input exits 1 with
 // every problem on one line with its row and column, and nothing is written; a wrong command
 // line exits 2.
 import { writeFileSync } from 'node:fs';
 import { extname } from 'node:path';
+import type { Problem } from '../core/site/problems.ts';
 import { buildWorkbook } from '../core/workbook/build.ts';
+import type { WorkbookDoc } from '../core/workbook/document.ts';
+import type { XlsxExportReport } from '../io/xlsx/export.ts';
 import { optionDrafts } from '../core/workbook/optionInputs.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
@@ -69,6 +73,24 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   reportAssumed(io, input, site, loaded.loaded);
   if (problems.some((p) => p.severity === 'error'))
     return refuseErrors(io, 'export', input, problems, 'nothing was written');
+  // A workbook goes out whole, as the page exports it: its Rates and Tariff, its own sheets,
+  // notes and typed-over cells, rendered in the portable flavour.
+  const own = loaded.loaded.doc;
+  if (own) {
+    const { renderWorkbook } = await import('../core/workbook/render.ts');
+    const { draftOptionsOfDoc, optionsForExport } = await import('../core/options/index.ts');
+    const render = (flavour: 'live' | 'portable') =>
+      renderWorkbook(own, { flavour, draftOptions: draftOptionsOfDoc }).doc;
+    const live = render('live');
+    const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
+    const doc = render('portable');
+    const report = await exportWorkbookXlsxWithReport(doc, {
+      settings: site.settings,
+      valuesFrom: live,
+      ...optionsForExport(live),
+    });
+    return written(io, input, output, { ...report, doc }, problems);
+  }
   // Values assumed for blanks are marked in their cells, as the page's export marks them.
   // A workbook's own design options stay; a site file or a list gets the standard ones.
   const optionSheet = loaded.loaded.optionSheet;
@@ -88,6 +110,18 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     valuesFrom: live,
     ...optionsForExport(live),
   });
+  return written(io, input, output, { ...report, doc }, problems);
+}
+
+/** Write the exported file and say what it holds; notes and cells written as values go to stderr. */
+function written(
+  io: CliIo,
+  input: string,
+  output: string,
+  report: XlsxExportReport & { doc: WorkbookDoc },
+  problems: readonly Problem[],
+): number {
+  const doc = report.doc;
   try {
     writeFileSync(output, report.bytes);
   } catch (e) {

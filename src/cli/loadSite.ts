@@ -56,6 +56,11 @@ export interface LoadedSite {
   readonly tariffRows?: readonly (readonly CellContent[])[];
   /** A workbook's Design options sheet (its option blocks); undefined when the file has none. */
   readonly optionSheet?: SheetDoc;
+  /**
+   * The workbook itself, for a workbook saved by the app or an xlsx exported by Kvar Ledger, when
+   * no option changed its site (settings, --assume-typical): what `export` writes back whole.
+   */
+  readonly doc?: WorkbookDoc;
   /** The case asked for with --case (resolved against the site's cases), else the first. */
   readonly caseName: string;
   /** With --assume-typical: the typical values put in for blanks (indices into the site's equipment). */
@@ -128,13 +133,16 @@ type Read = {
   rateRows?: readonly (readonly CellContent[])[];
   tariffRows?: readonly (readonly CellContent[])[];
   optionSheet?: SheetDoc;
+  doc?: WorkbookDoc;
 };
 
+/** What a workbook carries beyond its site: itself, its Rates, Tariff and Design options sheets. */
 const ratesOf = (doc: WorkbookDoc) => {
   const rows = rateRowsOf(doc);
   const tariff = tariffRowsOf(doc);
   const optionSheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET);
   return {
+    doc,
     ...(rows ? { rateRows: rows } : {}),
     ...(tariff ? { tariffRows: tariff } : {}),
     ...(optionSheet ? { optionSheet } : {}),
@@ -381,7 +389,13 @@ export async function loadSite(file: string, options: SiteOptions): Promise<Load
   const rolled = hasErrors(checked) ? { runaway: [] } : rollUpChecked(site);
   const problems = [...checked, ...rolled.runaway];
   const banks = read.banks ? { banks: read.banks } : {};
+  // The site as read is the site the workbook holds unless an option changed it.
+  const settingsGiven = [options.name, options.hz, options.requirement, options.ratedKw, options.sscMva].some(
+    (v) => v !== undefined,
+  );
+  const unchanged = !settingsGiven && (!options.assumeTypical || fill.assumed.length === 0);
   const rates = {
+    ...(read.doc && unchanged ? { doc: read.doc } : {}),
     ...(read.rateRows ? { rateRows: read.rateRows } : {}),
     ...(read.tariffRows ? { tariffRows: read.tariffRows } : {}),
     ...(read.optionSheet ? { optionSheet: read.optionSheet } : {}),

@@ -41,6 +41,43 @@ describe('kvar-ledger export', () => {
       expect(cover).toContain(s);
   });
 
+  it("writes a saved workbook whole: the user's rates, tariff and own sheets", async () => {
+    // A workbook as the page saves it, with a rate and a tariff price typed over the demo values
+    // and a sheet of the user's own. Rebuilt from its site, the export would carry the demo ones.
+    const { site } = readSiteFile(readFileSync('templates/cold-store.json', 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live' });
+    const sheet = (name: string) => {
+      const s = doc.sheets.find((x) => x.name === name);
+      if (!s) throw new Error(`no ${name} sheet`);
+      return s;
+    };
+    const rates = sheet('Rates').cells as (string | number | null)[][];
+    const rateCol = (rates[0] ?? []).indexOf('Rate');
+    const priced = rates.findIndex((r, i) => i > 0 && typeof r[rateCol] === 'number');
+    expect(rateCol).toBeGreaterThan(0);
+    expect(priced).toBeGreaterThan(0);
+    (rates[priced] as (string | number | null)[])[rateCol] = 777;
+    const tariff = sheet('Tariff').cells as (string | number | null)[][];
+    const valueCol = (tariff[0] ?? []).indexOf('Value');
+    const price = tariff.findIndex((r, i) => i > 0 && typeof r[valueCol] === 'number');
+    (tariff[price] as (string | number | null)[])[valueCol] = 0.123;
+    const own = { name: 'Site visit', cells: [['Visit on 3 March'], ['Cable trays full on level 2']] };
+    const saved = { ...doc, sheets: [...doc.sheets, own] };
+    const file = join(dir, 'saved.kvar.json');
+    writeFileSync(file, JSON.stringify(saved));
+    const out = join(dir, 'saved.xlsx');
+    const r = await cli(file, out);
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    const back = await importKvarXlsx(new Uint8Array(readFileSync(out)));
+    if (!back.ok) throw new Error('the export did not import back');
+    const cellOf = (name: string, row: number, col: number) =>
+      back.doc.sheets.find((x) => x.name === name)?.cells[row]?.[col];
+    expect(cellOf('Rates', priced, rateCol)).toBe(777);
+    expect(cellOf('Tariff', price, valueCol)).toBe(0.123);
+    expect(back.doc.sheets.find((x) => x.name === 'Site visit')?.cells).toEqual(own.cells);
+  });
+
   it('writes the workbook of a CSV list', async () => {
     const list = join(dir, 'list.csv');
     writeFileSync(
