@@ -9,6 +9,8 @@ import { sizeLabel, TARGET_ROWS } from './sizes.ts';
 const SMALL_ROWS = 1_000;
 /** The child-process phase that builds the engine: its peak memory is the engine process's. */
 const ENGINE_PHASE = 'engine';
+/** The child that builds an engine and edits it, and does nothing else. */
+const EDITS_PHASE = 'edits';
 
 export interface BenchResults {
   readonly machine: Machine;
@@ -158,6 +160,9 @@ export function targets(r: BenchResults): TargetOutcome[] {
     });
   };
   smallStep('cliBalance', SMALL_ROWS, 'CLI balance (whole process), 1,000 rows', 400);
+  smallStep('xlsxExport', SMALL_ROWS, 'xlsx export, page (in-process), 1,000 rows', 1_000);
+  smallStep('cliExport', SMALL_ROWS, 'xlsx export, CLI (whole process), 1,000 rows', 1_000);
+  smallStep('xlsxImport', SMALL_ROWS, 'xlsx import, 1,000 rows', 1_000);
   const floorTimes = (rows: number, label: string) => {
     const roll = okMs(r.steps.find((s) => s.step === 'rollup' && s.rows === rows));
     const floor = okMs(r.steps.find((s) => s.step === 'floor' && s.rows === rows));
@@ -172,19 +177,22 @@ export function targets(r: BenchResults): TargetOutcome[] {
   floorTimes(TARGET_ROWS, '');
   floorTimes(SMALL_ROWS, ', 1,000 rows');
   page(b, 'Page memory (JS heap used)', '≤ 150 MB', b.jsHeapUsedMb, 'MB', 150);
-  const engine = r.memory.find((m) => m.rows === TARGET_ROWS && m.phase === ENGINE_PHASE);
+  // The engine's own process is the one that builds an engine and edits it; the engine phase's
+  // child also writes the xlsx export, whose peak is the export's, given beside it.
+  const held = r.memory.find((m) => m.rows === TARGET_ROWS && m.phase === EDITS_PHASE);
+  const withExport = r.memory.find((m) => m.rows === TARGET_ROWS && m.phase === ENGINE_PHASE);
   out.push({
-    what: 'Engine process memory (peak RSS)',
+    what: 'Engine process memory (peak RSS: an engine built and edited)',
     target: '≤ 400 MB',
-    measured: engine ? `${Math.round(engine.peakRssMb)} MB` : 'not measured',
-    ...(engine ? { met: engine.peakRssMb <= 400 } : {}),
+    measured: held
+      ? `${Math.round(held.peakRssMb)} MB${withExport ? `; ${Math.round(withExport.peakRssMb)} MB with the xlsx export in the same process` : ''}`
+      : 'not measured',
+    ...(held ? { met: held.peakRssMb <= 400 } : {}),
   });
-  page(
-    b,
+  bothSizes(
     'Scrolling the grid while an edit recalculates (longest frame)',
-    '≤ 50 ms',
-    b.scrollLongestFrameMs,
-    'ms',
+    (x) => x.scrollLongestFrameMs,
+    50,
     50,
   );
   return out;
