@@ -9,7 +9,6 @@
 // saving over the option's flows at the point of connection, and whether it meets the
 // requirement in every case.
 import { WITHIN_TOL_KVAR } from '../site/tolerance.ts';
-import { busKey } from '../site/busNames.ts';
 import { textContent } from '../text/cellText.ts';
 import type { BusColumns } from './busColumns.ts';
 import type { CompensationColumns } from './compensationColumns.ts';
@@ -19,6 +18,7 @@ import type { OptionInputs } from './optionInputs.ts';
 import { MET_LABEL, TITLE, optionLabel, type OptionColumns } from './optionsLayout.ts';
 import { QC, SLOTS, busLineRow, savingCaseRow, slotRow, summaryRowOf } from './quantitiesLayout.ts';
 import { controllerStepsFormula } from './renderCompensation.ts';
+import { fedBuses } from './renderBuses.ts';
 import { branchLossesFrom } from './renderEquipment.ts';
 import { bankLine, costSummary, itemLines } from './renderQuantities.ts';
 import { savingRows } from './renderSaving.ts';
@@ -33,17 +33,6 @@ export interface BlockInput {
   readonly comp: CompensationColumns;
   readonly hasRates: boolean;
   readonly hasTariff: boolean;
-}
-
-/** Each bus's buses fed through a transformer or line (indices into s.buses). */
-export function fedBuses(s: WorkbookStructure): Map<string, number[]> {
-  const out = new Map<string, number[]>();
-  s.buses.forEach((b, j) => {
-    if (!b.feeder || b.upstream === undefined) return;
-    const key = busKey(b.upstream);
-    out.set(key, [...(out.get(key) ?? []), j]);
-  });
-  return out;
 }
 
 /** The active power the requirement's limits apply to at the point of connection (requirement.ts). */

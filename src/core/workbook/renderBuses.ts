@@ -40,7 +40,8 @@ export function ownSumCells(input: BusesInput, i: number): Array<readonly [numbe
   return out;
 }
 
-function childrenOf(s: WorkbookStructure): Map<string, number[]> {
+/** Each bus's buses fed through a transformer or line (indices into s.buses), by bus key. */
+export function fedBuses(s: WorkbookStructure): Map<string, number[]> {
   const out = new Map<string, number[]>();
   s.buses.forEach((b, j) => {
     if (!b.feeder || b.upstream === undefined) return;
@@ -53,7 +54,7 @@ function childrenOf(s: WorkbookStructure): Map<string, number[]> {
 export function renderBusesSheet(input: BusesInput): CellContent[][] {
   const { s, cols, comp } = input;
   const cells: CellContent[][] = [cols.columns.map((c) => c.header)];
-  const children = childrenOf(s);
+  const children = fedBuses(s);
   s.buses.forEach((b, i) => {
     const r = i + 1;
     const out: CellContent[] = new Array<CellContent>(cols.columns.length).fill(null);
