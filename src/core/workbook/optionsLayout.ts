@@ -32,8 +32,9 @@ export const TABLE = {
   what: { col: 2, header: 'What it is' },
   capacitor: { col: 3, header: 'Capacitors (kvar)' },
   reactor: { col: 4, header: 'Reactors (kvar)' },
-  total: { col: 5, header: 'Total' },
-  currency: { col: 6, header: 'Currency' },
+  // The total sits in a column with a number format (the blocks' Current), as the saving does.
+  currency: { col: 5, header: 'Currency' },
+  total: { col: 6, header: 'Total' },
   saving: { col: 7, header: 'Saving a year' },
   payback: { col: 8, header: 'Payback (years)' },
   met: { col: 9, header: 'Requirement in every case' },
