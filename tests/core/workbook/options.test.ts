@@ -77,7 +77,9 @@ describe('Design options of random sites', () => {
       }),
       { numRuns: Number(process.env.KVAR_PROPERTY_RUNS ?? 12) },
     );
-  });
+    // Each run builds a workbook and its engine and prices five designs: 20-24 s for the twelve
+    // runs beside the other property tests, near the default 30 s.
+  }, 120_000);
 });
 
 describe('one option worked by hand', () => {
