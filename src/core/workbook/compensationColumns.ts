@@ -80,15 +80,23 @@ export interface CompensationColumns {
   readonly columns: readonly ColumnInfo[];
 }
 
-export function planCompensationColumns(cases: readonly string[]): CompensationColumns {
-  const columns: ColumnInfo[] = [{ header: COMP_HEADERS.bus, width: 14 }];
-  const add = (header: string, format: string | undefined, width: number, computed = true) =>
+/**
+ * Appends a column to `columns` and returns its index: at least as wide as its header (up to 16
+ * characters), computed unless said otherwise. Shared by the sheets that lay out bank columns.
+ */
+export function columnAdder(columns: ColumnInfo[]) {
+  return (header: string, format: string | undefined, width: number, computed = true): number =>
     columns.push({
       header,
       ...(format ? { format } : {}),
       width: Math.max(width, Math.min(header.length + 1, 16)),
       ...(computed ? { computed } : {}),
     }) - 1;
+}
+
+export function planCompensationColumns(cases: readonly string[]): CompensationColumns {
+  const columns: ColumnInfo[] = [{ header: COMP_HEADERS.bus, width: 14 }];
+  const add = columnAdder(columns);
   const u = add(COMP_HEADERS.u, FORMATS.kv, 8);
   const ssc = add(COMP_HEADERS.ssc, '0.0', 10);
   const input = Object.fromEntries(

@@ -6,7 +6,7 @@
 // bank does and the option's roll-up after compensation; then the option's cost summary, what it
 // saves, and whether it meets the requirement in every case. Every bus has its lines in every
 // block, so typing a bank never moves a row.
-import { BANK_INPUTS, type BankInputKey } from './compensationColumns.ts';
+import { BANK_INPUTS, columnAdder, type BankInputKey } from './compensationColumns.ts';
 import type { ColumnInfo } from './document.ts';
 import { FORMATS, SHEETS } from './layout.ts';
 import {
@@ -97,13 +97,7 @@ export function planOptionColumns(cases: readonly string[]): OptionColumns {
   const columns: ColumnInfo[] = QUANT_COLUMNS.map((c, i) =>
     CLASHING.has(i) ? { ...c, header: counted(QUANT_HEADERS[i] as string) } : c,
   );
-  const add = (header: string, format: string | undefined, width: number, computed = true) =>
-    columns.push({
-      header,
-      ...(format ? { format } : {}),
-      width: Math.max(width, Math.min(header.length + 1, 16)),
-      ...(computed ? { computed } : {}),
-    }) - 1;
+  const add = columnAdder(columns);
   const input = Object.fromEntries(
     BANK_INPUTS.map((b) => [b.key, add(b.header, b.format, b.width, false)]),
   ) as Record<BankInputKey, number>;

@@ -4,12 +4,10 @@
 // export writes Checks' counts beside the table as values and says so.
 import { CAUTION_SHORT } from '../cautions.ts';
 import { textContent } from '../text/cellText.ts';
-import type { BusColumns } from './busColumns.ts';
 import { summaryRow } from './renderCompensation.ts';
-import type { CompensationColumns } from './compensationColumns.ts';
 import type { CellContent, CellMark } from './document.ts';
 import { SHEETS } from './layout.ts';
-import { renderBlock } from './optionBlock.ts';
+import { renderBlock, type BlockInput } from './optionBlock.ts';
 import type { OptionInputs } from './optionInputs.ts';
 import {
   CAUTION_ROW,
@@ -26,19 +24,12 @@ import {
   metRow,
   optionLabel,
   tableRow,
-  type OptionColumns,
 } from './optionsLayout.ts';
 import { QC, QUANTITIES_SHEET, busLineRow, savingRowOf, summaryRowOf } from './quantitiesLayout.ts';
 import { cell, cellOn, rangeOn, textLiteral } from './refs.ts';
-import type { WorkbookStructure } from './structure.ts';
 
-export interface OptionsInput {
-  readonly s: WorkbookStructure;
-  readonly cols: OptionColumns;
-  readonly busCols: BusColumns;
-  readonly comp: CompensationColumns;
-  readonly hasRates: boolean;
-  readonly hasTariff: boolean;
+/** A block's input, and what the user typed on the sheet. */
+export interface OptionsInput extends BlockInput {
   readonly typed: readonly OptionInputs[];
   /**
    * Why the blocks hold no formulas (a site too large for them to be worked out unasked): the
