@@ -14,10 +14,10 @@ import type { Problem } from '../site/problems.ts';
 import type { SheetDoc, WorkbookDoc } from './document.ts';
 import { equipmentSheets, type SheetInput } from '../kinds/index.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
-import { STEP_SERIES_ALLOWED, isStepSeries, seriesProblem, type StepSeries } from '../site/stepSeries.ts';
 import { nameTable } from '../text/nameTable.ts';
 import { HEADERS, SHEETS } from './layout.ts';
 import { BANK_INPUTS, NOTE_HEADER } from './compensationColumns.ts';
+import { readBankInputs } from './readBankInputs.ts';
 
 /** What this reader needs of an equipment sheet: its name, inputs and the kinds it holds. */
 interface EquipmentSheetLayout {
@@ -246,55 +246,19 @@ function kindOf(
   return undefined;
 }
 
-/** A bank's step series (text); a number is what a spreadsheet makes of 1:2:2 typed plainly: a time. */
-function readSeries(
-  doc: SheetDoc,
-  at: Spot,
-  stages: number | undefined,
-  ctx: ReadContext,
-): StepSeries | undefined {
-  const raw = doc.cells[at.row]?.[at.col];
-  if (typeof raw === 'number') {
-    report(
-      ctx,
-      'error',
-      at,
-      `must be one of ${STEP_SERIES_ALLOWED}; got the number ${raw} (a spreadsheet reads 1:2:2 typed plainly as a time of day: type '1:2:2 with a leading apostrophe)`,
-    );
-    return undefined;
-  }
-  const text = readText(doc, at, ctx);
-  if (text === undefined) return undefined;
-  const why = seriesProblem(text, stages);
-  if (why !== undefined) report(ctx, 'error', at, why);
-  return isStepSeries(text) ? text : undefined;
-}
-
 function readBanks(doc: SheetDoc | undefined, ctx: ReadContext): BankChoice[] {
   if (!doc) return [];
   const index = headerIndex(doc);
+  const columns = BANK_INPUTS.flatMap((b) => {
+    const col = index.get(b.header.toLowerCase());
+    return col === undefined ? [] : [{ key: b.key, col, header: b.header }];
+  });
   const out: BankChoice[] = [];
   for (let r = 1; r < doc.cells.length; r++) {
     const bus = readText(doc, { sheet: doc.name, row: r, col: 0, header: 'Bus' }, ctx);
     if (bus === undefined) break; // the bus list ends at the first blank row; a summary follows
-    const choice: { -readonly [K in keyof BankChoice]: BankChoice[K] } = { bus };
-    let any = false;
-    for (const b of BANK_INPUTS) {
-      const col = index.get(b.header.toLowerCase());
-      if (col === undefined) continue;
-      if (b.key === 'series') {
-        const series = readSeries(doc, { sheet: doc.name, row: r, col, header: b.header }, choice.steps, ctx);
-        if (series !== undefined) choice.series = series;
-        any ||= series !== undefined;
-        continue;
-      }
-      const n = readNumber(doc, { sheet: doc.name, row: r, col, header: b.header }, ctx);
-      if (n === undefined) continue;
-      if (n < 0)
-        report(ctx, 'error', { sheet: doc.name, row: r, col, header: b.header }, `must be ≥ 0; got ${n}`);
-      choice[b.key] = n;
-      any = true;
-    }
+    const { inputs, any } = readBankInputs(doc, r, columns, ctx);
+    const choice: { -readonly [K in keyof BankChoice]: BankChoice[K] } = { bus, ...inputs };
     const noteCol = index.get(NOTE_HEADER.toLowerCase());
     const note =
       noteCol === undefined
