@@ -94,11 +94,21 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
   // Values assumed for blanks are marked in their cells, as the page's export marks them.
   // A workbook's own design options stay; a site file or a list gets the standard ones.
   const optionSheet = loaded.loaded.optionSheet;
+  const drafts = optionSheet ? optionDrafts(optionSheet, site.settings.cases) : undefined;
   const keep = {
     ...(banks ? { banks } : {}),
     ...(assumed.length > 0 ? { assumed } : {}),
-    ...(optionSheet ? { options: optionDrafts(optionSheet, site.settings.cases) } : {}),
+    ...(drafts ? { options: drafts } : {}),
   };
+  // The workbook is rebuilt from its site here (the options given changed it): an option input
+  // that cannot be read does not come along, and the user is told which.
+  const leftOut = (drafts ?? []).flatMap((d) =>
+    d.problems.map((p) => ({
+      ...p,
+      severity: 'warning' as const,
+      message: `${p.message}; left out of the export (option "${d.name}")`,
+    })),
+  );
   const doc = buildWorkbook(site, { flavour: 'portable', ...keep });
   // The xlsx library loads only for this command.
   const { exportWorkbookXlsxWithReport } = await import('../io/xlsx/export.ts');
@@ -110,7 +120,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     valuesFrom: live,
     ...optionsForExport(live),
   });
-  return written(io, input, output, { ...report, doc }, problems);
+  return written(io, input, output, { ...report, doc }, [...problems, ...leftOut]);
 }
 
 /** Write the exported file and say what it holds; notes and cells written as values go to stderr. */

@@ -31,7 +31,7 @@ import {
 import { readCsv } from '../io/csv/read.ts';
 import { quoteSaving, savingText, type SavingResult } from './quoteSaving.ts';
 import { optionsJson, optionsText, siteOptions } from './quoteOptions.ts';
-import type { OptionFigures } from '../core/options/index.ts';
+import type { OptionOutcome } from '../core/options/index.ts';
 
 const USAGE = `usage: kvar-ledger quote <file> [--rates rates.csv] [--compare] [site options] [--json]
 The items of the compensation per bus (capacitor units, detuning reactors, switching devices
@@ -240,7 +240,7 @@ export async function run(argv: string[], io: CliIo): Promise<number> {
     if (e instanceof SiteStructureError) return inputError(io, 'quote', `${file}: ${e.message}`);
     throw e;
   }
-  let compared: OptionFigures[] | undefined;
+  let compared: OptionOutcome[] | undefined;
   try {
     if (flags.has('--compare'))
       compared = siteOptions(

@@ -2,11 +2,13 @@
 // the same rates and judged by the same rules as the quote itself: a workbook's own option blocks
 // (its Design options sheet), else the standard options.
 import {
-  compareOptions,
   givenOption,
+  isUnread,
   sheetOptions,
   standardOptions,
+  weighOptions,
   type OptionFigures,
+  type OptionOutcome,
 } from '../core/options/index.ts';
 import { readTariff, tariffSheetDoc, type RateTable } from '../core/quote/index.ts';
 import type { BankChoice } from '../core/site/bankChoice.ts';
@@ -24,20 +26,22 @@ export function siteOptions(
   tariffRows: readonly (readonly CellContent[])[] | undefined,
   hasNoTariff: boolean,
   optionSheet?: SheetDoc,
-): OptionFigures[] {
+): OptionOutcome[] {
   const cases = site.settings.cases;
   const rows = hasNoTariff ? [] : (tariffRows ?? tariffSheetDoc(cases).cells);
   const specs = optionSheet
     ? [...(held ? [givenOption(held)] : []), ...sheetOptions(optionSheet, cases)]
     : standardOptions(site, held);
-  return compareOptions(site, specs, rates, readTariff(rows, cases).tariff);
+  return weighOptions(site, specs, rates, readTariff(rows, cases).tariff);
 }
 
 const money = (x: number | null) =>
   x === null ? 'unpriced' : x.toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 const kvar = (x: number) => `${Math.round(x).toLocaleString('en-GB')} kvar`;
 
-function row(f: OptionFigures): string[] {
+function row(o: OptionOutcome): string[] {
+  if (isUnread(o)) return [o.name, 'not worked out: see below', '', '', '', '', '', ''];
+  const f: OptionFigures = o;
   return [
     f.name,
     kvar(f.capacitor_kvar),
@@ -52,11 +56,11 @@ function row(f: OptionFigures): string[] {
 
 /** The options as a table, then what each one is; `table` lays out rows as the quote does. */
 export function optionsText(
-  figures: readonly OptionFigures[],
+  figures: readonly OptionOutcome[],
   table: (header: string[], rows: string[][], leftCols: number) => string,
 ): string {
   if (figures.length === 0) return '\nno design options: the site does not roll up\n';
-  const currency = figures[0]?.currency ?? '';
+  const currency = figures.find((f): f is OptionFigures => !isUnread(f))?.currency ?? '';
   const header = [
     'option',
     'capacitors',
@@ -69,15 +73,28 @@ export function optionsText(
   ];
   const out = ['\ndesign options side by side (same rates, tariff and rules)\n'];
   out.push(table(header, figures.map(row), 1));
-  for (const f of figures)
+  for (const f of figures) {
+    if (isUnread(f)) {
+      out.push(`  ${f.name}: not worked out until its inputs are mended: ${f.unread.join('; ')}\n`);
+      continue;
+    }
     out.push(`  ${f.name}: ${f.summary}${f.sameAs ? `; the same banks as "${f.sameAs}"` : ''}\n`);
+  }
   out.push('  errors / warnings: the findings Checks lists for the option once its banks are typed in\n');
   return out.join('');
 }
 
 /** The options for --json. */
-export function optionsJson(figures: readonly OptionFigures[]) {
-  return figures.map((f) => ({
+export function optionsJson(figures: readonly OptionOutcome[]) {
+  return figures.map((f) =>
+    isUnread(f)
+      ? { id: f.id, name: f.name, summary: f.summary, banks: f.banks, unread: f.unread }
+      : figuresJson(f),
+  );
+}
+
+function figuresJson(f: OptionFigures) {
+  return {
     id: f.id,
     name: f.name,
     summary: f.summary,
@@ -93,5 +110,5 @@ export function optionsJson(figures: readonly OptionFigures[]) {
     meets_every_case: f.meets_every_case,
     errors: f.errors,
     warnings: f.warnings,
-  }));
+  };
 }

@@ -273,3 +273,33 @@ describe("kvar-ledger quote --compare on a workbook's own options", () => {
     });
   });
 });
+
+describe('kvar-ledger quote --compare with an option input that cannot be read', () => {
+  it('lists that option with the cell to mend and prices the others', async () => {
+    const { site, banks } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+    const doc = buildWorkbook(site, { flavour: 'live', ...(banks ? { banks } : {}) });
+    const sheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET)!;
+    const cols = planOptionColumns(site.settings.cases);
+    const title = sheet.cells.findIndex((line) => line[1] === 'Option 2');
+    const bankLine = sheet.cells.findIndex(
+      (line, r) => r > title && typeof line[cols.input.step_kvar] === 'number',
+    );
+    (sheet.cells[bankLine] as unknown[])[cols.input.step_kvar] = '40 kvar';
+    const file = join(dir, 'unread-option.json');
+    writeFileSync(file, JSON.stringify(renderWorkbook(doc, { flavour: 'live' }).doc));
+    const where = `sheet ${OPTIONS_SHEET}, row ${bankLine + 1}, column "Step (kvar)": must be a number; got "40 kvar"`;
+
+    const j = await cli(file, '--compare', '--json');
+    expect(j.code, j.err).toBe(0);
+    const options = (
+      JSON.parse(j.out) as { options: Array<{ name: string; unread?: string[]; total?: unknown }> }
+    ).options;
+    expect(options[2]).toMatchObject({ name: 'Plain capacitors', unread: [where] });
+    expect(options[2]).not.toHaveProperty('total');
+    expect(options.filter((o) => o.unread !== undefined)).toHaveLength(1);
+
+    const text = await cli(file, '--compare');
+    expect(text.code, text.err).toBe(0);
+    expect(text.out).toContain(`Plain capacitors: not worked out until its inputs are mended: ${where}`);
+  });
+});

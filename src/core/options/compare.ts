@@ -45,6 +45,16 @@ export interface OptionFigures extends OptionSpec {
   readonly warnings: number;
 }
 
+/** An option whose inputs could not all be read: listed with what is wrong, no figures. */
+export interface UnreadOption extends OptionSpec {
+  readonly unread: readonly string[];
+}
+
+export type OptionOutcome = OptionFigures | UnreadOption;
+
+export const isUnread = (o: OptionOutcome): o is UnreadOption =>
+  o.unread !== undefined && o.unread.length > 0;
+
 /** The options typed on a Design options sheet, each with the id of its block. */
 export function sheetOptions(sheet: SheetDoc, cases: readonly string[]): OptionSpec[] {
   return optionDrafts(sheet, cases).map((d) => ({
@@ -52,6 +62,7 @@ export function sheetOptions(sheet: SheetDoc, cases: readonly string[]): OptionS
     name: d.name,
     summary: d.summary,
     banks: d.banks,
+    ...(d.problems.length > 0 ? { unread: d.problems.map((p) => p.message) } : {}),
   }));
 }
 
@@ -66,6 +77,29 @@ function banksKey(banks: readonly BankChoice[]): string {
       .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)),
   );
   return JSON.stringify(canonical.map((e) => JSON.stringify(e)).sort());
+}
+
+/**
+ * The options as a workbook holds them: each one whose inputs were all read compared as
+ * compareOptions does, each other one as it was, with what could not be read.
+ */
+export function weighOptions(
+  site: Site,
+  specs: readonly OptionSpec[],
+  rates: RateTable,
+  tariff: Tariff,
+): OptionOutcome[] {
+  const unread = (s: OptionSpec) => s.unread !== undefined && s.unread.length > 0;
+  const figures = compareOptions(
+    site,
+    specs.filter((s) => !unread(s)),
+    rates,
+    tariff,
+  );
+  let next = 0;
+  return specs.map((s) =>
+    unread(s) ? { ...s, unread: s.unread ?? [] } : (figures[next++] as OptionFigures),
+  );
 }
 
 /** Each option priced, its saving and payback worked out, and judged, at the same rates and tariff. */

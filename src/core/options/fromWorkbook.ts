@@ -7,12 +7,13 @@ import { rateRowsOf } from '../quote/ratesSheet.ts';
 import { readTariff, tariffRowsOf } from '../quote/tariffSheet.ts';
 import {
   BLOCK_IDS,
-  compareOptions,
+  weighOptions,
+  isUnread,
   draftOptions,
   givenOption,
   sheetOptions,
   standardOptions,
-  type OptionFigures,
+  type OptionOutcome,
   type OptionSpec,
 } from './compare.ts';
 import { GIVEN_ROW, OPTIONS_SHEET, TABLE, tableRow } from '../workbook/optionsLayout.ts';
@@ -25,7 +26,7 @@ export { OPTIONS_UNASKED_MAX_ROWS };
 
 /** `unasked`: the site is small enough for the options to be worked out without being asked. */
 export type OptionsReport = { readonly unasked: boolean } & (
-  | { readonly ok: true; readonly options: readonly OptionFigures[] }
+  | { readonly ok: true; readonly options: readonly OptionOutcome[] }
   | { readonly ok: false; readonly message: string }
 );
 
@@ -73,7 +74,7 @@ function optionsOfRead(doc: WorkbookDoc, read: SiteFromWorkbook): OptionsReport 
     return {
       unasked,
       ok: true,
-      options: compareOptions(read.site, workbookOptions(doc, read), rates, tariff),
+      options: weighOptions(read.site, workbookOptions(doc, read), rates, tariff),
     };
   } catch (e) {
     // A site that does not roll up (a loop, losses that run away) says why, as Checks does.
@@ -107,8 +108,10 @@ export function optionsForExport(doc: WorkbookDoc): {
  * Checks' counts of errors and warnings per design, as values for the Design options sheet's
  * table: [row, column, value]. Spreadsheet maths cannot give them; the sheet says when they were counted.
  */
-export function findingsCells(options: readonly OptionFigures[]): Array<readonly [number, number, number]> {
+export function findingsCells(options: readonly OptionOutcome[]): Array<readonly [number, number, number]> {
   return options.flatMap((o) => {
+    // An option not worked out has no findings to count: its cells stay blank.
+    if (isUnread(o)) return [];
     const block = (BLOCK_IDS as readonly string[]).indexOf(o.id);
     const row = o.id === 'current' ? GIVEN_ROW : block < 0 ? undefined : tableRow(block);
     if (row === undefined) return [];

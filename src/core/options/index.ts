@@ -3,6 +3,8 @@
 export {
   BLOCK_IDS,
   compareOptions,
+  isUnread,
+  weighOptions,
   DETUNED_OPTION_P,
   draftOptions,
   givenOption,
@@ -10,6 +12,8 @@ export {
   standardOptions,
   type OptionFigures,
   type OptionId,
+  type OptionOutcome,
+  type UnreadOption,
   type OptionSpec,
 } from './compare.ts';
 export {

@@ -23,6 +23,11 @@ export interface OptionSpec {
   /** What the option is, in a line. */
   readonly summary: string;
   readonly banks: readonly BankChoice[];
+  /**
+   * What in the option's inputs could not be read (messages with sheet, row and column): such an
+   * option is listed with them, not worked out, until they are mended.
+   */
+  readonly unread?: readonly string[];
 }
 
 /** The banks a workbook or site file holds, as the first design compared. */

@@ -6,7 +6,9 @@
 import { busKey } from '../site/busNames.ts';
 import type { BankChoice } from '../site/bankChoice.ts';
 import { shownText, textContent } from '../text/cellText.ts';
+import type { Problem } from '../site/problems.ts';
 import { BANK_INPUTS } from './compensationColumns.ts';
+import { readBankInputs } from './readBankInputs.ts';
 import type { CellContent, CellMark, SheetDoc } from './document.ts';
 import { proposedMark } from './cellMarks.ts';
 import {
@@ -27,6 +29,8 @@ export interface OptionInputs {
   readonly marks: ReadonlyMap<string, readonly CellMark[]>;
   /** Per bus key: the bus as its line names it. */
   readonly buses: ReadonlyMap<string, string>;
+  /** Per bus key: the row (0-based) of its line on the sheet read. */
+  readonly rows: ReadonlyMap<string, number>;
 }
 
 /** An option as the design gives it: the shape of compare.ts's OptionSpec this module needs. */
@@ -53,6 +57,7 @@ export function readOptionInputs(
     banks: new Map<string, Map<number, CellContent>>(),
     marks: new Map<string, CellMark[]>(),
     buses: new Map<string, string>(),
+    rows: new Map<string, number>(),
   }));
   if (!sheet) return out;
   const labels = new Map(Array.from({ length: OPTION_BLOCKS }, (_, j) => [optionLabel(j), j]));
@@ -82,6 +87,7 @@ export function readOptionInputs(
     if (block.banks.has(key)) continue;
     block.banks.set(key, values);
     block.buses.set(key, name);
+    block.rows.set(key, r);
     const marks = (marksByRow.get(r) ?? []).filter((m) => wanted.includes(m.col));
     if (marks.length > 0) block.marks.set(key, marks);
   }
@@ -91,29 +97,31 @@ export function readOptionInputs(
 const text = (v: CellContent | undefined) =>
   v === null || v === undefined ? '' : (typeof v === 'string' ? shownText(v) : String(v)).trim();
 
+/** An option as typed on the sheet: its block, and what in its bank inputs could not be read. */
+export interface SheetOptionDraft extends OptionDraft {
+  readonly block: number;
+  /** Each with its sheet, row and column; the option's figures wait until they are mended. */
+  readonly problems: readonly Problem[];
+}
+
 /**
  * The options of a workbook's Design options sheet as the core takes them (compare.ts), block by
- * block; a block with neither a name nor a bank is left out. A bank input that is not a number
- * (or, for the series, not text) counts as blank, as the sheet's formulas take it.
+ * block; a block with neither a name nor a bank is left out. Bank inputs are read as on the
+ * Compensation sheet (readBankInputs.ts): a value that cannot be read is one of the option's
+ * problems, never a silent blank.
  */
-export function optionDrafts(
-  sheet: SheetDoc | undefined,
-  cases: readonly string[],
-): Array<OptionDraft & { readonly block: number }> {
+export function optionDrafts(sheet: SheetDoc | undefined, cases: readonly string[]): SheetOptionDraft[] {
+  if (!sheet) return [];
   const cols = planOptionColumns(cases);
+  const columns = BANK_INPUTS.map((b) => ({ key: b.key, col: cols.input[b.key], header: b.header }));
   return readOptionInputs(sheet, cols).flatMap((o, j) => {
     if (text(o.name) === '' && o.banks.size === 0) return [];
-    const banks = [...o.banks].map(([key, values]) => {
-      const choice: { -readonly [K in keyof BankChoice]: BankChoice[K] } = { bus: o.buses.get(key) ?? key };
-      for (const b of BANK_INPUTS) {
-        const v = values.get(cols.input[b.key]);
-        if (b.key === 'series') {
-          if (typeof v === 'string') choice.series = text(v) as BankChoice['series'];
-        } else if (typeof v === 'number') choice[b.key] = v;
-      }
-      return choice;
+    const problems: Problem[] = [];
+    const banks = [...o.banks.keys()].map((key) => {
+      const { inputs } = readBankInputs(sheet, o.rows.get(key) as number, columns, { problems });
+      return { bus: o.buses.get(key) ?? key, ...inputs };
     });
-    return [{ block: j, name: text(o.name) || optionLabel(j), summary: text(o.what), banks }];
+    return [{ block: j, name: text(o.name) || optionLabel(j), summary: text(o.what), banks, problems }];
   });
 }
 

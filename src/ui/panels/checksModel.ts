@@ -15,6 +15,7 @@ import { heldAssumptions } from '../../core/workbook/cellMarks.ts';
 import type { DesignWarning } from '../../core/site/warnings.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { siteFromWorkbook, type SiteFromWorkbook } from '../../core/workbook/readSite.ts';
+import { optionInputItems } from './checksOptions.ts';
 import { locateReaderProblem, locateRuleProblem, type CheckItem } from './checksWhere.ts';
 import { rateItems, tariffItems } from './checksQuote.ts';
 
@@ -117,6 +118,7 @@ export function collectChecks(doc: WorkbookDoc): ChecksReport {
   const inputErrors = items.some((i) => i.severity === 'error');
   items.push(...workbookItems(doc));
   items.push(...rateItems(doc), ...tariffItems(doc, read.site.settings.cases));
+  items.push(...optionInputItems(doc, read.site.settings.cases));
   const voltages = busVoltages(read.site.equipment).voltages;
   for (const bus of buildBusGraph(read.site.equipment.filter((r) => r.bus !== '')).firstRow.keys()) {
     if (voltages.has(bus)) continue;

@@ -1,7 +1,11 @@
 // The cards of the design options (loaded with their figures, on first use).
 import { clear, el } from '../dom.ts';
-import type { OptionFigures } from '../../core/options/index.ts';
-import type { OptionsReport } from '../../core/options/index.ts';
+import {
+  isUnread,
+  type OptionFigures,
+  type OptionsReport,
+  type UnreadOption,
+} from '../../core/options/index.ts';
 
 const money = (x: number | null) =>
   x === null ? 'unpriced' : x.toLocaleString('en-GB', { maximumFractionDigits: 0 });
@@ -20,18 +24,32 @@ export function renderOptions(body: HTMLElement, r: OptionsReport): void {
     body.append(el('p', { className: 'kl-muted', text: r.message }));
     return;
   }
-  const currency = r.options[0]?.currency ?? '';
+  const currency = r.options.find((o): o is OptionFigures => !isUnread(o))?.currency ?? '';
   body.append(
     el(
       'ul',
       { className: 'kl-option-list' },
-      r.options.map((o) => card(o, currency)),
+      r.options.map((o) => (isUnread(o) ? unreadCard(o) : card(o, currency))),
     ),
     el('p', {
       className: 'kl-muted',
-      text: 'To see an option as live formulas, type its banks onto the Compensation sheet (kvar-ledger quote --compare --json lists them). Estimates only: the final design follows local codes, the utility and a licensed engineer.',
+      text: 'Each option is also live formulas on the Design options sheet: type its banks there (the options proposed when the workbook was made are marked). Estimates only: the final design follows local codes, the utility and a licensed engineer.',
     }),
   );
+}
+
+/** An option with inputs that could not be read: what is wrong, where, and no figures. */
+function unreadCard(o: UnreadOption): HTMLElement {
+  return el('li', { className: 'kl-option', attrs: { 'data-option': o.id, 'data-unread': 'true' } }, [
+    el('strong', { text: o.name }),
+    el('span', { className: 'kl-muted', text: ` — ${o.summary}` }),
+    el('p', { text: 'Not worked out until its inputs are mended:' }),
+    el(
+      'ul',
+      {},
+      o.unread.map((m) => el('li', { text: m })),
+    ),
+  ]);
 }
 
 function card(o: OptionFigures, currency: string): HTMLElement {

@@ -1,7 +1,12 @@
 // Test helpers: the design options as the Design options sheet shows them (its table, evaluated
 // by an engine) and as the core works them out (compare.ts) for the same workbook.
 import type { HyperFormula } from 'hyperformula';
-import { compareOptions } from '../../../src/core/options/index.ts';
+import {
+  compareOptions,
+  isUnread,
+  type OptionFigures,
+  type OptionOutcome,
+} from '../../../src/core/options/index.ts';
 import { rateRowsOf, readRateTable, readTariff, tariffRowsOf } from '../../../src/core/quote/index.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { optionDrafts } from '../../../src/core/workbook/optionInputs.ts';
@@ -98,4 +103,10 @@ export function expectSameOptions(
     }
     expect(s.met, `${label} met`).toBe(c.met);
   });
+}
+
+/** An option's figures; fails the test, with what could not be read, when it was not worked out. */
+export function figuresOf(o: OptionOutcome): OptionFigures {
+  if (isUnread(o)) throw new Error(`option ${o.name} was not worked out: ${o.unread.join('; ')}`);
+  return o;
 }

@@ -20,6 +20,7 @@ import { GIVEN_ROW, OPTIONS_SHEET, TABLE, tableRow } from '../../../src/core/wor
 import { renderWorkbook } from '../../../src/core/workbook/render.ts';
 import { exportWorkbookXlsxWithReport, importKvarXlsx } from '../../../src/io/xlsx/index.ts';
 import { generateSite } from '../../bench/generateSite.ts';
+import { figuresOf } from '../../core/workbook/optionFaces.ts';
 
 const { site, banks } = readSiteFile(
   readFileSync(new URL('../../../templates/cold-store.json', import.meta.url), 'utf8'),
@@ -46,7 +47,8 @@ describe('the exported Design options sheet', () => {
     expect(wanted.options.map((o) => o.id)).toEqual(['current', 'proposal', 'plain', 'detuned', 'central']);
     wanted.options.forEach((o, j) => {
       const row = rows[j === 0 ? GIVEN_ROW : tableRow(j - 1)] as unknown[];
-      expect([row[TABLE.errors.col], row[TABLE.warnings.col]], o.name).toEqual([o.errors, o.warnings]);
+      const f = figuresOf(o);
+      expect([row[TABLE.errors.col], row[TABLE.warnings.col]], o.name).toEqual([f.errors, f.warnings]);
     });
     const cover = JSON.stringify(await sheetRows(r.bytes, 'Cover'));
     expect(cover).toContain(`Design options side by side as live formulas: sheet ${OPTIONS_SHEET}`);
