@@ -94,6 +94,11 @@ export function readOptionInputs(
   return out;
 }
 
+/** Has anything been typed in the option blocks (a name, what it is, a bank input)? */
+export function anyOptionTyped(inputs: readonly OptionInputs[]): boolean {
+  return inputs.some((o) => o.banks.size > 0 || !blank(o.name) || !blank(o.what));
+}
+
 const text = (v: CellContent | undefined) =>
   v === null || v === undefined ? '' : (typeof v === 'string' ? shownText(v) : String(v)).trim();
 

@@ -8,7 +8,7 @@ import { FormulaAssist } from '../autocomplete/formulaAssist.ts';
 import { FormulaBar } from '../formulaBar.ts';
 import { GridView, type Selection } from '../grid/gridView.ts';
 import { fillDown } from '../grid/gridMenu.ts';
-import { WorkbookSession, SessionError } from '../model/session.ts';
+import { WorkbookSession, SessionError, loadOptionDrafter } from '../model/session.ts';
 import { LazyReference } from '../panels/lazyReference.ts';
 import { SheetList } from '../sheetList.ts';
 import { StatusBar } from '../statusBar.ts';
@@ -144,6 +144,11 @@ export class App {
     if (this.side.shown === 'functions') this.reference.refresh();
     if (opts.note) this.status.show(opts.note, 'info', 10_000);
     this.keeping.opened(next, opts.changed === true);
+    // A workbook saved before the Design options sheet: its blocks drafted once the design loads.
+    if (next.awaitsOptionDraft)
+      void loadOptionDrafter().then(() => {
+        if (this.session === next) next.draftMissingOptions();
+      });
   }
 
   /**

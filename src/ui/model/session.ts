@@ -7,7 +7,9 @@ import type { HyperFormula, SimpleCellRange } from '../../engine/index.ts';
 import type { CellAt, CellContent, SheetDoc, WorkbookDoc } from '../../core/workbook/document.ts';
 import { isBuiltInSheet } from '../../core/workbook/layout.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
-import { renderWorkbook } from '../../core/workbook/render.ts';
+import { renderWorkbook, type RenderOptions } from '../../core/workbook/render.ts';
+import { anyOptionTyped, readOptionInputs } from '../../core/workbook/optionInputs.ts';
+import { OPTIONS_SHEET, planOptionColumns } from '../../core/workbook/optionsLayout.ts';
 import { createWorkbookEngine, UNDO_LIMIT } from './engineBridge.ts';
 import {
   marksAfterMoves,
@@ -48,6 +50,19 @@ export async function loadDetuningProposer(): Promise<void> {
   detuningProposal ??= (await import('./detuningProposal.ts')).detuningProposal;
 }
 
+/**
+ * The standard options for a workbook made or saved before the Design options sheet existed
+ * (core/options draftOptionsOfDoc): the design, kept out of the first download like the one
+ * above. Such a workbook opens with blank option blocks; once this has loaded the page drafts
+ * them (draftMissingOptions).
+ */
+type OptionDrafter = (typeof import('../../core/options/fromWorkbook.ts'))['draftOptionsOfDoc'];
+let optionDrafter: OptionDrafter | undefined;
+
+export async function loadOptionDrafter(): Promise<void> {
+  optionDrafter ??= (await import('../../core/options/fromWorkbook.ts')).draftOptionsOfDoc;
+}
+
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
   | { readonly kind: 'rows'; readonly sheetId: number }
@@ -77,12 +92,15 @@ export class WorkbookSession {
     readonly contents: ContentStore,
     /** The living model, for a site workbook; undefined for any other workbook. */
     readonly site: SiteModel | undefined,
+    /** A site workbook opened without a Design options sheet: its blocks wait for a draft. */
+    private optionsToDraft = false,
   ) {}
 
   static fromDoc(doc: WorkbookDoc): WorkbookSession {
     if (isSiteDoc(doc)) {
       const o = openSite(doc);
-      return new WorkbookSession(o.engine, o.title, o.layout, o.contents, o.site);
+      const missing = !doc.sheets.some((s) => s.name.toLowerCase() === OPTIONS_SHEET.toLowerCase());
+      return new WorkbookSession(o.engine, o.title, o.layout, o.contents, o.site, missing);
     }
     const engine = createWorkbookEngine(doc.sheets.map((s) => ({ name: s.name, cells: s.cells })));
     const layout = layoutOf(engine, doc.sheets);
@@ -246,7 +264,7 @@ export class WorkbookSession {
     const follow = edit.follow();
     if (follow.rebuild) {
       entries += this.write(this.tariffRenames(follow.rebuild.caseRenames));
-      entries += this.rebuild(follow.rebuild.caseRenames) ? 1 : 0;
+      entries += this.rebuild(renameCaseColumns(this.toDoc(), follow.rebuild.caseRenames)) ? 1 : 0;
       entries += this.write(this.tariffNewCases());
     } else entries += this.write(follow.writes, true);
     this.titleText = siteTitle(this.contents, this.site.ids.site, this.titleText);
@@ -647,11 +665,13 @@ export class WorkbookSession {
     return this.sheetIds().find((i) => this.sheetName(i).toLowerCase() === TARIFF_SHEET.toLowerCase());
   }
 
-  /** Every built-in sheet written anew from the inputs (the cases or the Site layout changed). */
-  private rebuild(caseRenames: ReadonlyMap<string, string>): boolean {
+  /**
+   * Every built-in sheet written anew from the inputs of `doc` (the cases or the Site layout
+   * changed, or option blocks drafted); the Design options sheet's marks come with its cells.
+   */
+  private rebuild(doc: WorkbookDoc, draftOptions?: RenderOptions['draftOptions']): boolean {
     const site = this.site as SiteModel;
-    const doc = renameCaseColumns(this.toDoc(), caseRenames);
-    const r = renderWorkbook(doc, { flavour: 'live' });
+    const r = renderWorkbook(doc, { flavour: 'live', ...(draftOptions ? { draftOptions } : {}) });
     const ids = site.ids;
     const builtIn = [ids.site, ...ids.equipment, ids.buses, ids.comp, ids.quant, ids.opts];
     this.engine.batch(() => {
@@ -664,8 +684,10 @@ export class WorkbookSession {
     const overrides = new Map<number, Set<string>>();
     for (const id of builtIn) {
       const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
+      const { marks: _old, ...kept } = meta.get(id) ?? {};
       meta.set(id, {
-        ...meta.get(id),
+        ...(id === ids.opts ? kept : meta.get(id)),
+        ...(id === ids.opts && sheet.marks ? { marks: sheet.marks } : {}),
         ...(sheet.columns ? { columns: sheet.columns } : {}),
         purpose: sheet.purpose ?? '',
       });
@@ -678,6 +700,34 @@ export class WorkbookSession {
       const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
       this.contents.replace(id, stripGenerated(site, id, sheet.cells));
     }
+    return true;
+  }
+
+  /** Opened without a Design options sheet, its blocks not drafted yet (draftMissingOptions). */
+  get awaitsOptionDraft(): boolean {
+    return this.optionsToDraft;
+  }
+
+  /**
+   * A site workbook opened without a Design options sheet (made or saved before it) has blank
+   * option blocks: once the design has loaded (loadOptionDrafter), the standard options are
+   * drafted into them, marked as proposed, as one undoable step, as the CLI and a new workbook
+   * have them. Nothing when something was typed there meanwhile, or the inputs have errors (the
+   * design cannot run; Checks says why). True when the options were drafted.
+   */
+  draftMissingOptions(): boolean {
+    const site = this.site;
+    if (!site || !this.optionsToDraft || !optionDrafter) return false;
+    this.optionsToDraft = false;
+    const cols = planOptionColumns(site.state.cases);
+    if (anyOptionTyped(readOptionInputs({ cells: this.contents.get(site.ids.opts) }, cols))) return false;
+    const doc = this.toDoc();
+    const drafts = optionDrafter(doc);
+    if (drafts.length === 0) return false;
+    // Without its sheet, the workbook is drafted as render.ts drafts one saved before the sheet.
+    const without = { ...doc, sheets: doc.sheets.filter((s) => s.name !== this.sheetName(site.ids.opts)) };
+    this.step(() => (this.rebuild(without, () => drafts) ? 1 : 0));
+    this.emit({ kind: 'rows', sheetId: site.ids.opts });
     return true;
   }
 
