@@ -32,12 +32,13 @@ export const TABLE = {
   what: { col: 2, header: 'What it is' },
   capacitor: { col: 3, header: 'Capacitors (kvar)' },
   reactor: { col: 4, header: 'Reactors (kvar)' },
-  // The total sits in a column with a number format (the blocks' Current), as the saving does.
-  currency: { col: 5, header: 'Currency' },
-  total: { col: 6, header: 'Total' },
-  saving: { col: 7, header: 'Saving a year' },
-  payback: { col: 8, header: 'Payback (years)' },
-  met: { col: 9, header: 'Requirement in every case' },
+  // Text in the blocks' unformatted Unit column; the money in their grouped Rate, Cost and Bus
+  // subtotal columns (21,336.21), so each figure reads in the format it needs.
+  met: { col: 5, header: 'Requirement in every case' },
+  currency: { col: 6, header: 'Currency' },
+  total: { col: 7, header: 'Total' },
+  saving: { col: 8, header: 'Saving a year' },
+  payback: { col: 9, header: 'Payback (years)' },
   errors: { col: 10, header: 'Errors (Checks)' },
   warnings: { col: 11, header: 'Warnings (Checks)' },
 } as const;
