@@ -673,7 +673,8 @@ export class WorkbookSession {
     }
     this.layout = { order: this.layout.order, meta };
     const notes = readSettingsInputs(r.doc.sheets[0]).notes.length;
-    site.state = { ...stateOf(r, overrides, notes), retired: site.state.retired };
+    const { retired, retiredOptions } = site.state;
+    site.state = { ...stateOf(r, overrides, notes), retired, retiredOptions };
     for (const id of builtIn) {
       const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
       this.contents.replace(id, stripGenerated(site, id, sheet.cells));

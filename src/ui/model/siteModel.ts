@@ -24,7 +24,7 @@ import { zoneChargingFormula, zoneMatesOf, zoneTopIndex } from '../../core/workb
 import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
 import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
-import { readOptionInputs } from '../../core/workbook/optionInputs.ts';
+import { readOptionInputs, type OptionInputs } from '../../core/workbook/optionInputs.ts';
 import { isOptionInput, planOptionColumns, type OptionColumns } from '../../core/workbook/optionsLayout.ts';
 import { optionsLeftOut } from '../../core/workbook/render.ts';
 import { renderOptionsSheet } from '../../core/workbook/renderOptions.ts';
@@ -39,6 +39,7 @@ import {
 import type { ContentStore } from './contentStore.ts';
 import { settingsGenerated, type SettingsInputs } from '../../core/workbook/renderSettings.ts';
 import { moveOverrides, moveRendered, sameBuses, type SiteState } from './siteState.ts';
+import { optionsFollowBuses } from './optionsAside.ts';
 
 export interface SheetIds {
   readonly site: number;
@@ -488,10 +489,16 @@ export class SiteModel {
 
   /**
    * The Design options sheet written anew for a structure, each option's inputs kept with its
-   * block and bus (read from the sheet as it is, by block label and bus name).
+   * block and bus (read from the sheet as it is, by block label and bus name); those of a bus gone
+   * kept aside until it returns (optionsAside.ts).
    */
   private optionsWrites(s: WorkbookStructure, going?: string): Write[] {
-    const { cells, compact } = this.optionsGrid(s, going);
+    const follow = optionsFollowBuses(
+      this.typedOptions(),
+      (key) => s.busIndex.has(key),
+      this.state.retiredOptions,
+    );
+    const { cells, compact } = this.optionsGrid(s, going, follow.typed);
     // The whole block in one write (one engine entry while a step holds evaluation).
     const out = this.gridWrites(
       this.ids.opts,
@@ -503,6 +510,7 @@ export class SiteModel {
       ...this.state,
       extent: { ...this.state.extent, opts: cells.length },
       optionsCompact: compact,
+      retiredOptions: follow.retired,
     };
     return out;
   }
@@ -515,11 +523,15 @@ export class SiteModel {
 
   private optionColsFor: { cases: readonly string[]; cols: OptionColumns } | undefined;
 
-  private optionsGrid(s: WorkbookStructure, going?: string) {
+  /** The options as typed on the sheet now, block by block. */
+  private typedOptions(): OptionInputs[] {
+    return readOptionInputs({ cells: this.contents.get(this.ids.opts) }, this.optionColumns());
+  }
+
+  private optionsGrid(s: WorkbookStructure, going?: string, typed = this.typedOptions()) {
     const has = (name: string) =>
       this.hf.getSheetId(name) !== undefined && name.toLowerCase() !== going?.toLowerCase();
     const cols = this.optionColumns();
-    const typed = readOptionInputs({ cells: this.contents.get(this.ids.opts) }, cols);
     const rows = this.state.rows.reduce((n, list) => n + list.filter((r) => r.present).length, 0);
     const leftOut = optionsLeftOut(rows, s);
     const { cells } = renderOptionsSheet({
