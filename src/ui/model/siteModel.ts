@@ -451,7 +451,7 @@ export class SiteModel {
       ...this.state,
       extent: { ...this.state.extent, buses: buses.length, comp: compGrid.length, quant: quant.length },
     };
-    append(out, this.optionsWrites(s));
+    append(out, this.optionsWrites(s, undefined, renamed));
     return out;
   }
 
@@ -489,14 +489,20 @@ export class SiteModel {
 
   /**
    * The Design options sheet written anew for a structure, each option's inputs kept with its
-   * block and bus (read from the sheet as it is, by block label and bus name); those of a bus gone
-   * kept aside until it returns (optionsAside.ts).
+   * block and bus (read from the sheet as it is, by block label and bus name; `renamed`: buses
+   * renamed since, old key → new key); those of a bus gone kept aside until it returns
+   * (optionsAside.ts).
    */
-  private optionsWrites(s: WorkbookStructure, going?: string): Write[] {
+  private optionsWrites(
+    s: WorkbookStructure,
+    going?: string,
+    renamed: ReadonlyMap<string, string> = new Map(),
+  ): Write[] {
     const follow = optionsFollowBuses(
       this.typedOptions(),
       (key) => s.busIndex.has(key),
       this.state.retiredOptions,
+      renamed,
     );
     const { cells, compact } = this.optionsGrid(s, going, follow.typed);
     // The whole block in one write (one engine entry while a step holds evaluation).

@@ -5,7 +5,8 @@
 // edit (what was typed or drafted), never computed by the code under test.
 import { describe, expect, it } from 'vitest';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
-import type { CellContent } from '../../../src/core/workbook/document.ts';
+import { heldProposals } from '../../../src/core/workbook/cellMarks.ts';
+import type { CellContent, CellMark } from '../../../src/core/workbook/document.ts';
 import { OPTIONS_SHEET, optionLabel, planOptionColumns } from '../../../src/core/workbook/optionsLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
@@ -46,6 +47,10 @@ function optionBank(s: WorkbookSession, j: number, bus: string): Map<number, Cel
 }
 
 const banksOf = (s: WorkbookSession, bus: string) => [0, 1, 2, 3].map((j) => optionBank(s, j, bus));
+
+/** The proposed marks of the options sheet that still hold their value. */
+const heldMarks = (s: WorkbookSession): CellMark[] =>
+  heldProposals(s.toDoc().sheets.find((x) => x.name === OPTIONS_SHEET)!);
 
 /** A motor on bus `on` typed into row `row` of the Motors sheet. */
 function typeMotor(s: WorkbookSession, row: number, tag: string, on: string) {
@@ -119,5 +124,31 @@ describe('an option’s bank on a bus that goes away', () => {
     expect(optionLine(s, 0, 'AUX')).toBe(-1);
     s.setCells(motors, [{ row: motorRow, col: busCol, content: 'AUX' }]);
     expect(banksOf(s, 'AUX')).toEqual(banks);
+  });
+});
+
+describe('a bus renamed on the Buses sheet', () => {
+  it('keeps its banks in every option, with their proposed marks; undo renames them back', () => {
+    const s = open();
+    const before = banksOf(s, 'LV2');
+    expect(before.filter((b) => b.size > 0).length).toBeGreaterThan(1);
+    const marksBefore = heldMarks(s);
+    const lv2Rows = [0, 1, 2, 3].map((j) => optionLine(s, j, 'LV2'));
+    const lv2Marks = marksBefore.filter((m) => lv2Rows.includes(m.row));
+    expect(lv2Marks.length).toBeGreaterThan(0);
+    const buses = id(s, 'Buses');
+    const row = s.sheetContents(buses).findIndex((r) => r[0] === 'LV2');
+    s.setCells(buses, [{ row, col: 0, content: 'LV-SOUTH' }]);
+    expect(optionLine(s, 0, 'LV2')).toBe(-1);
+    expect(banksOf(s, 'LV-SOUTH')).toEqual(before);
+    // Every mark LV2's banks had is on LV-SOUTH's line of the same option.
+    const blockOfRow = new Map([0, 1, 2, 3].map((j) => [optionLine(s, j, 'LV-SOUTH'), j]));
+    const want = lv2Marks.map((m) => [optionLine(s, lv2Rows.indexOf(m.row), 'LV-SOUTH'), m.col, m.value]);
+    const after = heldMarks(s);
+    expect(after.length).toBe(marksBefore.length);
+    expect(after.filter((m) => blockOfRow.has(m.row)).map((m) => [m.row, m.col, m.value])).toEqual(want);
+    s.undo();
+    expect(banksOf(s, 'LV2')).toEqual(before);
+    expect(heldMarks(s)).toEqual(marksBefore);
   });
 });
