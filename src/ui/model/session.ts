@@ -210,8 +210,9 @@ export class WorkbookSession {
       // Generated formulas are not kept as typed: the model writes them again when the file opens.
       this.contents.set(w.sheet, w.row, w.col, generated && isFormula(w.content) ? null : w.content);
     }
-    const moves = generated ? this.site?.takeCompensationMoves() : undefined;
-    if (moves && this.site) this.moveMarks(this.site.ids.comp, (m) => marksAfterMoves(m, moves));
+    // Marks on the derived sheets' rows follow their bus when a rewrite moved it.
+    const moves = generated ? this.site?.takeRowMoves() : undefined;
+    for (const [sheet, rows] of moves ?? []) this.moveMarks(sheet, (m) => marksAfterMoves(m, rows));
     return entries;
   }
 

@@ -25,7 +25,12 @@ import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
 import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
 import { readOptionInputs, type OptionInputs } from '../../core/workbook/optionInputs.ts';
-import { isOptionInput, planOptionColumns, type OptionColumns } from '../../core/workbook/optionsLayout.ts';
+import {
+  isOptionInput,
+  optionRowMoves,
+  planOptionColumns,
+  type OptionColumns,
+} from '../../core/workbook/optionsLayout.ts';
 import { optionsLeftOut } from '../../core/workbook/render.ts';
 import { renderOptionsSheet } from '../../core/workbook/renderOptions.ts';
 import { busLookup, computedCells } from '../../core/workbook/renderEquipment.ts';
@@ -455,8 +460,16 @@ export class SiteModel {
     return out;
   }
 
-  /** Compensation rows (1-based) whose bus moved with the last rewrite: old row → new row, undefined when gone. */
-  private compensationMoves: Map<number, number | undefined> | undefined;
+  /**
+   * Rows of the derived sheets whose bus moved with the last rewrite, per sheet id: old row → new
+   * row, undefined when gone (the Compensation sheet's rows, the Design options sheet's lines).
+   */
+  private rowMoves = new Map<number, ReadonlyMap<number, number | undefined>>();
+
+  private noteRowMoves(sheet: number, moves: ReadonlyMap<number, number | undefined>): void {
+    if (moves.size > 0) this.rowMoves.set(sheet, moves);
+    else this.rowMoves.delete(sheet);
+  }
 
   private noteCompensationMoves(s: WorkbookStructure, renamed: ReadonlyMap<string, string>): void {
     const moves = new Map<number, number | undefined>();
@@ -465,16 +478,16 @@ export class SiteModel {
       const row = to === undefined ? undefined : to + 1;
       if (row !== i + 1) moves.set(i + 1, row);
     });
-    this.compensationMoves = moves.size > 0 ? moves : undefined;
+    this.noteRowMoves(this.ids.comp, moves);
   }
 
   /**
-   * Where the Compensation sheet's rows went when the buses last changed, once: cell marks on that
-   * sheet (assumed, proposed) follow their bus with it, as the bank inputs do.
+   * Where the derived sheets' rows went when the buses last changed, once, per sheet id: cell
+   * marks there (assumed, proposed) follow their bus with it, as the bank inputs do.
    */
-  takeCompensationMoves(): ReadonlyMap<number, number | undefined> | undefined {
-    const moves = this.compensationMoves;
-    this.compensationMoves = undefined;
+  takeRowMoves(): ReadonlyMap<number, ReadonlyMap<number, number | undefined>> {
+    const moves = this.rowMoves;
+    this.rowMoves = new Map();
     return moves;
   }
 
@@ -505,6 +518,15 @@ export class SiteModel {
       renamed,
     );
     const { cells, compact } = this.optionsGrid(s, going, follow.typed);
+    const was = this.state.rendered;
+    this.noteRowMoves(
+      this.ids.opts,
+      optionRowMoves(
+        { busCount: was.buses.length, cases: was.cases.length, compact: this.state.optionsCompact },
+        { busCount: s.buses.length, cases: s.cases.length, compact },
+        was.buses.map((b) => s.busIndex.get(renamed.get(b.key) ?? b.key)),
+      ),
+    );
     // The whole block in one write (one engine entry while a step holds evaluation).
     const out = this.gridWrites(
       this.ids.opts,

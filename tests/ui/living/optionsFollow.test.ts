@@ -68,18 +68,14 @@ function withAux() {
   const s = open();
   const row = s.sheetContents(id(s, 'Motors')).length;
   typeMotor(s, row, 'M9', 'AUX');
-  const opts = id(s, OPTIONS_SHEET);
-  for (const [j, step] of [
-    [0, 40],
-    [2, 60],
-  ] as const) {
-    const line = optionLine(s, j, 'AUX');
-    expect(line).toBeGreaterThan(0);
-    s.setCells(opts, [
-      { row: line, col: cols.input.step_kvar, content: step },
-      { row: line, col: cols.input.steps, content: 3 },
-    ]);
-  }
+  const [first, third] = [optionLine(s, 0, 'AUX'), optionLine(s, 2, 'AUX')];
+  expect(Math.min(first, third)).toBeGreaterThan(0);
+  s.setCells(id(s, OPTIONS_SHEET), [
+    { row: first, col: cols.input.step_kvar, content: 40 },
+    { row: first, col: cols.input.steps, content: 3 },
+    { row: third, col: cols.input.step_kvar, content: 60 },
+    { row: third, col: cols.input.steps, content: 3 },
+  ]);
   const banks = banksOf(s, 'AUX');
   expect(banks.map((b) => b.get(cols.input.step_kvar))).toEqual([40, undefined, 60, undefined]);
   return { s, motorRow: row, banks };
@@ -149,6 +145,39 @@ describe('a bus renamed on the Buses sheet', () => {
     expect(after.filter((m) => blockOfRow.has(m.row)).map((m) => [m.row, m.col, m.value])).toEqual(want);
     s.undo();
     expect(banksOf(s, 'LV2')).toEqual(before);
+    expect(heldMarks(s)).toEqual(marksBefore);
+  });
+});
+
+describe('the proposed marks of option inputs', () => {
+  it('move with their bus when a new bus moves the blocks’ rows, and back on undo', () => {
+    const s = open();
+    const marksBefore = heldMarks(s);
+    expect(marksBefore.length).toBeGreaterThan(0);
+    // Each mark by option and bus, as the sheet has it now.
+    const busAt = (r: number) => String(s.sheetContents(id(s, OPTIONS_SHEET))[r]?.[0]);
+    const blockAt = (r: number) =>
+      [0, 1, 2, 3].filter((j) => {
+        const title = s.sheetContents(id(s, OPTIONS_SHEET)).findIndex((l) => l[1] === optionLabel(j));
+        return title < r;
+      }).length - 1;
+    const placed = marksBefore.map((m) => ({ j: blockAt(m.row), bus: busAt(m.row), m }));
+    // A transformer typed above the others feeds a new bus, which the sheet lists before the others.
+    const xf = id(s, 'Transformers');
+    s.insertRows(xf, 1, 1);
+    s.setCells(xf, [
+      { row: 1, col: col(s, 'Transformers', 'Tag'), content: 'T0' },
+      { row: 1, col: col(s, 'Transformers', 'Bus'), content: 'MV' },
+      { row: 1, col: col(s, 'Transformers', 'Feeds bus'), content: 'AUX' },
+      { row: 1, col: col(s, 'Transformers', 'Rating (kVA)'), content: 630 },
+      { row: 1, col: col(s, 'Transformers', 'uk (%)'), content: 6 },
+    ]);
+    const moved = placed.map((p) => ({ ...p.m, row: optionLine(s, p.j, p.bus) }));
+    expect(moved.some((m, k) => m.row !== marksBefore[k]?.row)).toBe(true);
+    const after = heldMarks(s);
+    const key = (m: CellMark) => `${m.row},${m.col},${String(m.value)}`;
+    expect(after.map(key).sort()).toEqual(moved.map(key).sort());
+    s.undo();
     expect(heldMarks(s)).toEqual(marksBefore);
   });
 });
