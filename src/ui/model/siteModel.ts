@@ -4,7 +4,8 @@
 //   columns, and one that stopped being one loses them;
 // - every bus sums exactly its rows (BUS.SUM over the runs of its rows on each sheet);
 // - when the buses themselves change (a new bus, a renamed one, another feeder, a voltage stated
-//   elsewhere) the Buses and Compensation sheets are written anew, banks staying with their bus.
+//   elsewhere) the Buses, Compensation and Design options sheets are written anew, banks (and
+//   their cells' marks) staying with their bus.
 // Everything it writes is what render.ts writes for the same inputs, so opening the saved
 // workbook gives the same sheets.
 import type { HyperFormula } from '../../engine/index.ts';
