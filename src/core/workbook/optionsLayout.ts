@@ -15,6 +15,7 @@ import {
   QUANT_COLUMNS,
   QUANT_HEADERS,
   SAVING_LABELS,
+  busLineRow,
   savingCaseRow,
 } from './quantitiesLayout.ts';
 
@@ -148,6 +149,46 @@ export const TITLE = { name: QC.bus, label: QC.item, what: QC.what } as const;
 
 /** Title line of option j when the blocks hold inputs only (a site too large for their formulas). */
 export const compactTitleRow = (j: number, busCount: number) => CAUTION_ROW + 2 + j * (busCount + 2);
+
+/** How the blocks sit: how many buses and cases, and whether they hold inputs only (compact). */
+export interface OptionsShape {
+  readonly busCount: number;
+  readonly cases: number;
+  readonly compact: boolean;
+}
+
+/** Title line of option j, in either layout. */
+export const optionTitleRow = (j: number, at: OptionsShape) =>
+  at.compact ? compactTitleRow(j, at.busCount) : blockTitleRow(j, at.busCount, at.cases);
+
+/** The line of bus i (its bank inputs) in option j's block, in either layout. */
+export const optionBusRow = (j: number, i: number, at: OptionsShape) =>
+  at.compact ? compactTitleRow(j, at.busCount) + 1 + i : busLineRow(i, blockOrigin(j, at.busCount, at.cases));
+
+/**
+ * Where every block's title line and bus lines went when the sheet was laid out anew: old row →
+ * new row, undefined where the line is gone (its bus, or every block when no bus is left). Lines
+ * that stay where they were are left out. `busTo[i]`: the new index of old bus i (undefined: gone).
+ */
+export function optionRowMoves(
+  before: OptionsShape,
+  after: OptionsShape,
+  busTo: readonly (number | undefined)[],
+): Map<number, number | undefined> {
+  const moves = new Map<number, number | undefined>();
+  if (before.busCount === 0) return moves;
+  const note = (from: number, to: number | undefined) => {
+    if (from !== to) moves.set(from, to);
+  };
+  for (let j = 0; j < OPTION_BLOCKS; j++) {
+    note(optionTitleRow(j, before), after.busCount === 0 ? undefined : optionTitleRow(j, after));
+    for (let i = 0; i < before.busCount; i++) {
+      const to = busTo[i];
+      note(optionBusRow(j, i, before), to === undefined ? undefined : optionBusRow(j, to, after));
+    }
+  }
+  return moves;
+}
 
 /**
  * Is (row, col) a cell users type on this sheet (an option's name or what it is, a bank input of

@@ -228,8 +228,9 @@ export class WorkbookSession {
       // Generated formulas are not kept as typed: the model writes them again when the file opens.
       this.contents.set(w.sheet, w.row, w.col, generated && isFormula(w.content) ? null : w.content);
     }
-    const moves = generated ? this.site?.takeCompensationMoves() : undefined;
-    if (moves && this.site) this.moveMarks(this.site.ids.comp, (m) => marksAfterMoves(m, moves));
+    // Marks on the derived sheets' rows follow their bus when a rewrite moved it.
+    const moves = generated ? this.site?.takeRowMoves() : undefined;
+    for (const [sheet, rows] of moves ?? []) this.moveMarks(sheet, (m) => marksAfterMoves(m, rows));
     return entries;
   }
 
@@ -695,7 +696,8 @@ export class WorkbookSession {
     }
     this.layout = { order: this.layout.order, meta };
     const notes = readSettingsInputs(r.doc.sheets[0]).notes.length;
-    site.state = { ...stateOf(r, overrides, notes), retired: site.state.retired };
+    const { retired, retiredOptions } = site.state;
+    site.state = { ...stateOf(r, overrides, notes), retired, retiredOptions };
     for (const id of builtIn) {
       const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
       this.contents.replace(id, stripGenerated(site, id, sheet.cells));

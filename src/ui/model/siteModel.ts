@@ -4,7 +4,8 @@
 //   columns, and one that stopped being one loses them;
 // - every bus sums exactly its rows (BUS.SUM over the runs of its rows on each sheet);
 // - when the buses themselves change (a new bus, a renamed one, another feeder, a voltage stated
-//   elsewhere) the Buses and Compensation sheets are written anew, banks staying with their bus.
+//   elsewhere) the Buses, Compensation and Design options sheets are written anew, banks (and
+//   their cells' marks) staying with their bus.
 // Everything it writes is what render.ts writes for the same inputs, so opening the saved
 // workbook gives the same sheets.
 import type { HyperFormula } from '../../engine/index.ts';
@@ -24,8 +25,13 @@ import { zoneChargingFormula, zoneMatesOf, zoneTopIndex } from '../../core/workb
 import { QUANT_COLUMNS } from '../../core/workbook/quantitiesLayout.ts';
 import { renderQuantitiesSheet } from '../../core/workbook/renderQuantities.ts';
 import { RATES_SHEET, TARIFF_SHEET } from '../../core/quote/index.ts';
-import { readOptionInputs } from '../../core/workbook/optionInputs.ts';
-import { isOptionInput, planOptionColumns, type OptionColumns } from '../../core/workbook/optionsLayout.ts';
+import { readOptionInputs, type OptionInputs } from '../../core/workbook/optionInputs.ts';
+import {
+  isOptionInput,
+  optionRowMoves,
+  planOptionColumns,
+  type OptionColumns,
+} from '../../core/workbook/optionsLayout.ts';
 import { optionsLeftOut } from '../../core/workbook/render.ts';
 import { renderOptionsSheet } from '../../core/workbook/renderOptions.ts';
 import { busLookup, computedCells } from '../../core/workbook/renderEquipment.ts';
@@ -39,6 +45,7 @@ import {
 import type { ContentStore } from './contentStore.ts';
 import { settingsGenerated, type SettingsInputs } from '../../core/workbook/renderSettings.ts';
 import { moveOverrides, moveRendered, sameBuses, type SiteState } from './siteState.ts';
+import { optionsFollowBuses } from './optionsAside.ts';
 
 export interface SheetIds {
   readonly site: number;
@@ -450,12 +457,20 @@ export class SiteModel {
       ...this.state,
       extent: { ...this.state.extent, buses: buses.length, comp: compGrid.length, quant: quant.length },
     };
-    append(out, this.optionsWrites(s));
+    append(out, this.optionsWrites(s, undefined, renamed));
     return out;
   }
 
-  /** Compensation rows (1-based) whose bus moved with the last rewrite: old row → new row, undefined when gone. */
-  private compensationMoves: Map<number, number | undefined> | undefined;
+  /**
+   * Rows of the derived sheets whose bus moved with the last rewrite, per sheet id: old row → new
+   * row, undefined when gone (the Compensation sheet's rows, the Design options sheet's lines).
+   */
+  private rowMoves = new Map<number, ReadonlyMap<number, number | undefined>>();
+
+  private noteRowMoves(sheet: number, moves: ReadonlyMap<number, number | undefined>): void {
+    if (moves.size > 0) this.rowMoves.set(sheet, moves);
+    else this.rowMoves.delete(sheet);
+  }
 
   private noteCompensationMoves(s: WorkbookStructure, renamed: ReadonlyMap<string, string>): void {
     const moves = new Map<number, number | undefined>();
@@ -464,16 +479,16 @@ export class SiteModel {
       const row = to === undefined ? undefined : to + 1;
       if (row !== i + 1) moves.set(i + 1, row);
     });
-    this.compensationMoves = moves.size > 0 ? moves : undefined;
+    this.noteRowMoves(this.ids.comp, moves);
   }
 
   /**
-   * Where the Compensation sheet's rows went when the buses last changed, once: cell marks on that
-   * sheet (assumed, proposed) follow their bus with it, as the bank inputs do.
+   * Where the derived sheets' rows went when the buses last changed, once, per sheet id: cell
+   * marks there (assumed, proposed) follow their bus with it, as the bank inputs do.
    */
-  takeCompensationMoves(): ReadonlyMap<number, number | undefined> | undefined {
-    const moves = this.compensationMoves;
-    this.compensationMoves = undefined;
+  takeRowMoves(): ReadonlyMap<number, ReadonlyMap<number, number | undefined>> {
+    const moves = this.rowMoves;
+    this.rowMoves = new Map();
     return moves;
   }
 
@@ -488,10 +503,31 @@ export class SiteModel {
 
   /**
    * The Design options sheet written anew for a structure, each option's inputs kept with its
-   * block and bus (read from the sheet as it is, by block label and bus name).
+   * block and bus (read from the sheet as it is, by block label and bus name; `renamed`: buses
+   * renamed since, old key → new key); those of a bus gone kept aside until it returns
+   * (optionsAside.ts).
    */
-  private optionsWrites(s: WorkbookStructure, going?: string): Write[] {
-    const { cells, compact } = this.optionsGrid(s, going);
+  private optionsWrites(
+    s: WorkbookStructure,
+    going?: string,
+    renamed: ReadonlyMap<string, string> = new Map(),
+  ): Write[] {
+    const follow = optionsFollowBuses(
+      this.typedOptions(),
+      (key) => s.busIndex.has(key),
+      this.state.retiredOptions,
+      renamed,
+    );
+    const { cells, compact } = this.optionsGrid(s, going, follow.typed);
+    const was = this.state.rendered;
+    this.noteRowMoves(
+      this.ids.opts,
+      optionRowMoves(
+        { busCount: was.buses.length, cases: was.cases.length, compact: this.state.optionsCompact },
+        { busCount: s.buses.length, cases: s.cases.length, compact },
+        was.buses.map((b) => s.busIndex.get(renamed.get(b.key) ?? b.key)),
+      ),
+    );
     // The whole block in one write (one engine entry while a step holds evaluation).
     const out = this.gridWrites(
       this.ids.opts,
@@ -503,6 +539,7 @@ export class SiteModel {
       ...this.state,
       extent: { ...this.state.extent, opts: cells.length },
       optionsCompact: compact,
+      retiredOptions: follow.retired,
     };
     return out;
   }
@@ -515,11 +552,15 @@ export class SiteModel {
 
   private optionColsFor: { cases: readonly string[]; cols: OptionColumns } | undefined;
 
-  private optionsGrid(s: WorkbookStructure, going?: string) {
+  /** The options as typed on the sheet now, block by block. */
+  private typedOptions(): OptionInputs[] {
+    return readOptionInputs({ cells: this.contents.get(this.ids.opts) }, this.optionColumns());
+  }
+
+  private optionsGrid(s: WorkbookStructure, going?: string, typed = this.typedOptions()) {
     const has = (name: string) =>
       this.hf.getSheetId(name) !== undefined && name.toLowerCase() !== going?.toLowerCase();
     const cols = this.optionColumns();
-    const typed = readOptionInputs({ cells: this.contents.get(this.ids.opts) }, cols);
     const rows = this.state.rows.reduce((n, list) => n + list.filter((r) => r.present).length, 0);
     const leftOut = optionsLeftOut(rows, s);
     const { cells } = renderOptionsSheet({

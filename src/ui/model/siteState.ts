@@ -15,6 +15,9 @@ import { summaryRow } from '../../core/workbook/renderCompensation.ts';
 import { quantitiesExtent } from '../../core/workbook/quantitiesLayout.ts';
 import { OPTIONS_SHEET } from '../../core/workbook/optionsLayout.ts';
 
+/** Per option block (index), bank inputs (input column → content) by bus key. */
+export type RetiredOptions = readonly ReadonlyMap<string, ReadonlyMap<number, CellContent>>[];
+
 export interface SiteState {
   readonly cases: readonly string[];
   /** Per equipment sheet (registry order), rows[i] is cell row i + 1. */
@@ -36,6 +39,8 @@ export interface SiteState {
   readonly notes: number;
   /** Bank inputs of buses that went away, by bus key: back when the bus returns. */
   readonly retired: ReadonlyMap<string, ReadonlyMap<number, CellContent>>;
+  /** The same for the Design options sheet: per option block, the banks of buses that went away. */
+  readonly retiredOptions: RetiredOptions;
   /**
    * Bus keys whose sums the engine widened over blank rows inserted inside one of their runs of
    * rows (it stretches a range over rows inserted within it): written again at the next change of
@@ -64,6 +69,7 @@ export function stateOf(
     optionsCompact: r.optionsCompact,
     notes,
     retired: new Map(),
+    retiredOptions: [],
   };
 }
 
