@@ -88,9 +88,16 @@ export function standardOptions(site: Site, held: readonly BankChoice[] | undefi
 /**
  * The options a new workbook starts with on its Design options sheet: the standard ones less the
  * banks as given (its Compensation sheet holds those). None above OPTIONS_UNASKED_MAX_ROWS rows,
- * where four designs would take seconds and the sheet keeps inputs only.
+ * where four designs would take seconds and the sheet keeps inputs only; none either for a site
+ * the design cannot balance (losses that run away, a broken bus graph): the workbook still opens,
+ * with blank option blocks, and Checks runs the same design and says why.
  */
 export function draftOptions(site: Site): OptionSpec[] {
   if (site.equipment.length > OPTIONS_UNASKED_MAX_ROWS) return [];
-  return standardOptions(site, undefined);
+  try {
+    return standardOptions(site, undefined);
+  } catch (e) {
+    if (e instanceof Error) return [];
+    throw e;
+  }
 }

@@ -11,6 +11,7 @@ import { describe, expect, it } from 'vitest';
 import type { EquipmentRow, Site } from '../../../src/core/site/model.ts';
 import { rollUp, runawayProblem, RUNAWAY_KVA } from '../../../src/core/site/rollup.ts';
 import { writeSiteFile } from '../../../src/core/site/siteFile.ts';
+import { draftOptions, standardOptions } from '../../../src/core/site/designOptions.ts';
 
 function chain(uKv: number, lines: number, loadKw: number): Site {
   const equipment: EquipmentRow[] = Array.from({ length: lines }, (_, i) => ({
@@ -84,5 +85,16 @@ describe('runaway branch losses', () => {
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/row \d+: the line's own losses come to/);
     expect(r.stderr).not.toMatch(/internal error/);
+  });
+});
+
+describe('the design options of a site whose losses run away', () => {
+  // The page's property test found a site whose own design balanced but one standard option (a
+  // different set of banks) ran away, and building its workbook threw: a workbook starts with
+  // blank option blocks instead, and Checks says why when the options are compared.
+  it('are none to start a workbook with, where the design itself refuses the site', () => {
+    const site = chain(0.4, 12, 2000);
+    expect(() => standardOptions(site, undefined)).toThrow(/must be 0 or between/);
+    expect(draftOptions(site)).toEqual([]);
   });
 });
