@@ -10,6 +10,7 @@ import type { CellContent, CellMark } from '../../../src/core/workbook/document.
 import { OPTIONS_SHEET, optionLabel, planOptionColumns } from '../../../src/core/workbook/optionsLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
+import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
 
 const cols = planOptionColumns(PLANT.settings.cases);
 const INPUTS = Object.values(cols.input);
@@ -179,5 +180,30 @@ describe('the proposed marks of option inputs', () => {
     expect(after.map(key).sort()).toEqual(moved.map(key).sort());
     s.undo();
     expect(heldMarks(s)).toEqual(marksBefore);
+  });
+});
+
+describe('a case added on the Site sheet', () => {
+  // Every block grows by a line per case (its saving rows), so every bus line but the first
+  // block's moves: the workbook is written anew from its inputs and the marks must come along.
+  it('keeps every proposed mark on its option input; undo gives the old layout back', () => {
+    const s = open();
+    const site = s.site!;
+    const before = heldMarks(s);
+    const marked = (s.toDoc().sheets.find((x) => x.name === OPTIONS_SHEET)?.marks ?? []).length;
+    expect(before.length).toBe(marked);
+    expect(before.length).toBeGreaterThan(0);
+    const valuesOf = (list: readonly CellMark[]) => list.map((m) => m.value).sort();
+    s.setCells(site.ids.site, [
+      { row: FIRST_CASE_ROW + site.state.cases.length, col: 1, content: 'standby' },
+    ]);
+    expect(site.state.cases).toContain('standby');
+    const after = heldMarks(s);
+    expect(after.length).toBe(before.length);
+    expect(valuesOf(after)).toEqual(valuesOf(before));
+    expect(after.map((m) => m.row)).not.toEqual(before.map((m) => m.row));
+    s.undo();
+    expect(heldMarks(s)).toEqual(before);
+    s.destroy();
   });
 });
