@@ -56,11 +56,11 @@ export async function loadDetuningProposer(): Promise<void> {
  * above. Such a workbook opens with blank option blocks; once this has loaded the page drafts
  * them (draftMissingOptions).
  */
-type OptionDrafter = (typeof import('../../core/options/fromWorkbook.ts'))['draftOptionsOfDoc'];
+type OptionDrafter = (typeof import('../../core/options/index.ts'))['draftOptionsOfDoc'];
 let optionDrafter: OptionDrafter | undefined;
 
 export async function loadOptionDrafter(): Promise<void> {
-  optionDrafter ??= (await import('../../core/options/fromWorkbook.ts')).draftOptionsOfDoc;
+  optionDrafter ??= (await import('../../core/options/index.ts')).draftOptionsOfDoc;
 }
 
 export type SessionChange =
