@@ -10,7 +10,7 @@ import type { Problem } from '../core/site/problems.ts';
 import { buildWorkbook } from '../core/workbook/build.ts';
 import type { WorkbookDoc } from '../core/workbook/document.ts';
 import type { XlsxExportReport } from '../io/xlsx/export.ts';
-import { optionDrafts } from '../core/workbook/optionInputs.ts';
+import { optionDrafts } from '../core/workbook/optionDrafts.ts';
 import { parseArgs } from './args.ts';
 import type { CliIo } from './io.ts';
 import { loadSite } from './loadSite.ts';

@@ -12,7 +12,7 @@ import type { Site } from '../site/model.ts';
 import { DEFAULT_STEP_SERIES } from '../site/stepSeries.ts';
 import { BLOCK_IDS, type OptionSpec } from '../site/designOptions.ts';
 import type { SheetDoc } from '../workbook/document.ts';
-import { optionDrafts } from '../workbook/optionInputs.ts';
+import { optionDrafts } from '../workbook/optionDrafts.ts';
 export {
   BLOCK_IDS,
   DETUNED_OPTION_P,

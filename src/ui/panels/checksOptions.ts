@@ -3,7 +3,7 @@
 // said with its row and column, as on the Compensation sheet. The option is not worked out until
 // it is mended (the comparison lists it without figures); the balance and the chosen design do
 // not depend on it, so the rest of Checks goes on.
-import { optionDrafts } from '../../core/workbook/optionInputs.ts';
+import { optionDrafts } from '../../core/workbook/optionDrafts.ts';
 import { OPTIONS_SHEET } from '../../core/workbook/optionsLayout.ts';
 import type { WorkbookDoc } from '../../core/workbook/document.ts';
 import { locateReaderProblem, type CheckItem } from './checksWhere.ts';

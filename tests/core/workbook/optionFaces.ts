@@ -9,7 +9,7 @@ import {
 } from '../../../src/core/options/index.ts';
 import { rateRowsOf, readRateTable, readTariff, tariffRowsOf } from '../../../src/core/quote/index.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
-import { optionDrafts } from '../../../src/core/workbook/optionInputs.ts';
+import { optionDrafts } from '../../../src/core/workbook/optionDrafts.ts';
 import { OPTIONS_SHEET, TABLE, tableRow } from '../../../src/core/workbook/optionsLayout.ts';
 import { siteFromWorkbook } from '../../../src/core/workbook/readSite.ts';
 import { expect } from 'vitest';

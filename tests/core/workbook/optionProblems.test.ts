@@ -9,7 +9,7 @@ import { isUnread, optionsOfDoc, sheetOptions } from '../../../src/core/options/
 import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import type { CellContent, WorkbookDoc } from '../../../src/core/workbook/document.ts';
-import { optionDrafts } from '../../../src/core/workbook/optionInputs.ts';
+import { optionDrafts } from '../../../src/core/workbook/optionDrafts.ts';
 import {
   OPTIONS_SHEET,
   blockOrigin,

@@ -20,7 +20,7 @@ import {
   optionLabel,
   tableRow,
 } from '../../../src/core/workbook/optionsLayout.ts';
-import { optionDrafts } from '../../../src/core/workbook/optionInputs.ts';
+import { optionDrafts } from '../../../src/core/workbook/optionDrafts.ts';
 import { busLineRow } from '../../../src/core/workbook/quantitiesLayout.ts';
 import { siteArb } from '../../ui/living/siteArb.ts';
 import { liveEngine, portableEngine, sheet, templateSites } from './engineDoc.ts';

@@ -15,7 +15,7 @@ import {
 import { heldProposals } from '../../../src/core/workbook/cellMarks.ts';
 import { readSiteFile } from '../../../src/core/site/siteFile.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
-import { optionDrafts } from '../../../src/core/workbook/optionInputs.ts';
+import { optionDrafts } from '../../../src/core/workbook/optionDrafts.ts';
 import { GIVEN_ROW, OPTIONS_SHEET, TABLE, tableRow } from '../../../src/core/workbook/optionsLayout.ts';
 import { renderWorkbook } from '../../../src/core/workbook/render.ts';
 import { exportWorkbookXlsxWithReport, importKvarXlsx } from '../../../src/io/xlsx/index.ts';

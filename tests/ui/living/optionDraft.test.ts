@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { draftOptionsOfDoc } from '../../../src/core/options/index.ts';
 import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
-import { optionDrafts } from '../../../src/core/workbook/optionInputs.ts';
+import { optionDrafts } from '../../../src/core/workbook/optionDrafts.ts';
 import { OPTIONS_SHEET, TITLE, blockTitleRow } from '../../../src/core/workbook/optionsLayout.ts';
 import { renderWorkbook } from '../../../src/core/workbook/render.ts';
 import { loadOptionDrafter, WorkbookSession } from '../../../src/ui/model/session.ts';
