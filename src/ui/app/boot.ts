@@ -13,7 +13,7 @@ import { DEMO_TEMPLATE, templateWorkbook } from '../templates/templateCatalog.ts
 import { App } from './app.ts';
 import { fileCommand } from './lazyCommands.ts';
 import { watchPageLife } from './pageLife.ts';
-import { loadDetuningProposer } from '../model/session.ts';
+import { loadDetuningProposer } from '../model/designLoaders.ts';
 
 const SECOND_TAB =
   'This workbook is already open in another tab. This tab works on a copy: its changes are saved apart in this browser (Workbook → Bring back a copy from another tab…) and never over the other tab’s work.';

@@ -28,7 +28,7 @@ import { stateOf, type SiteState } from './siteState.ts';
 import { isSiteDoc, openSite, siteTitle, stripGenerated } from './siteOpen.ts';
 import { layoutOf } from './layoutOf.ts';
 import { readSettingsInputs } from '../../core/workbook/renderSettings.ts';
-import { HEADERS } from '../../core/workbook/layout.ts';
+import { renameCaseColumns } from './caseRenames.ts';
 import { siteEdit } from './siteEdits.ts';
 import { toBlocks } from './writeBlocks.ts';
 import { SessionError } from './sessionError.ts';
@@ -36,32 +36,7 @@ import { tariffNewCaseWrites, tariffRenameWrites } from './tariffCases.ts';
 import { sortedOrder } from './rowOrder.ts';
 import type { TypicalFillReport } from './typicalFill.ts';
 import { equipmentPlans } from '../../core/workbook/structure.ts';
-
-/**
- * The design behind a detuning typed alone (detuningProposal.ts): the whole compensation design,
- * kept out of the first download. The page loads it once the workbook is on screen (boot.ts);
- * until it has loaded, a detuning typed alone is left as typed and Checks describes the bank the
- * design would propose. Tests load it before they edit.
- */
-type DetuningProposer = (typeof import('./detuningProposal.ts'))['detuningProposal'];
-let detuningProposal: DetuningProposer | undefined;
-
-export async function loadDetuningProposer(): Promise<void> {
-  detuningProposal ??= (await import('./detuningProposal.ts')).detuningProposal;
-}
-
-/**
- * The standard options for a workbook made or saved before the Design options sheet existed
- * (core/options draftOptionsOfDoc): the design, kept out of the first download like the one
- * above. Such a workbook opens with blank option blocks; once this has loaded the page drafts
- * them (draftMissingOptions).
- */
-type OptionDrafter = (typeof import('../../core/options/index.ts'))['draftOptionsOfDoc'];
-let optionDrafter: OptionDrafter | undefined;
-
-export async function loadOptionDrafter(): Promise<void> {
-  optionDrafter ??= (await import('../../core/options/index.ts')).draftOptionsOfDoc;
-}
+import { loadedDetuningProposal, loadedOptionDrafter } from './designLoaders.ts';
 
 export type SessionChange =
   | { readonly kind: 'cells'; readonly sheetId: number }
@@ -300,6 +275,7 @@ export class WorkbookSession {
         Number.isFinite(Number(this.contents.cell(site.ids.comp, r, comp.input.p_pct))) &&
         sizes.every((c) => !typed(r, c) || this.contents.cell(site.ids.comp, r, c) === 0),
     );
+    const detuningProposal = loadedDetuningProposal();
     if (candidates.length === 0 || !detuningProposal) return { entries: 0, structural: false };
     const proposal = detuningProposal(this.toDoc(), candidates, comp);
     if (proposal.cells.length === 0) return { entries: 0, structural: false };
@@ -719,6 +695,7 @@ export class WorkbookSession {
    */
   draftMissingOptions(): boolean {
     const site = this.site;
+    const optionDrafter = loadedOptionDrafter();
     if (!site || !this.optionsToDraft || !optionDrafter) return false;
     this.optionsToDraft = false;
     const cols = planOptionColumns(site.state.cases);
@@ -741,18 +718,3 @@ export class WorkbookSession {
 
 const isPricingSheet = (name: string) =>
   [RATES_SHEET, TARIFF_SHEET].some((s) => s.toLowerCase() === name.toLowerCase());
-
-/** A renamed case's load column keeps its values: its header is renamed before the sheets are written anew. */
-function renameCaseColumns(doc: WorkbookDoc, renames: ReadonlyMap<string, string>): WorkbookDoc {
-  if (renames.size === 0) return doc;
-  const headers = new Map([...renames].map(([a, b]) => [HEADERS.loadCase(a), HEADERS.loadCase(b)]));
-  return {
-    ...doc,
-    sheets: doc.sheets.map((s) => {
-      const first = s.cells[0];
-      if (!first || !first.some((h) => typeof h === 'string' && headers.has(h))) return s;
-      const row = first.map((h) => (typeof h === 'string' ? (headers.get(h) ?? h) : h));
-      return { ...s, cells: [row, ...s.cells.slice(1)] };
-    }),
-  };
-}

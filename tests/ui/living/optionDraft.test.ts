@@ -10,7 +10,8 @@ import type { WorkbookDoc } from '../../../src/core/workbook/document.ts';
 import { optionDrafts } from '../../../src/core/workbook/optionDrafts.ts';
 import { OPTIONS_SHEET, TITLE, blockTitleRow } from '../../../src/core/workbook/optionsLayout.ts';
 import { renderWorkbook } from '../../../src/core/workbook/render.ts';
-import { loadOptionDrafter, WorkbookSession } from '../../../src/ui/model/session.ts';
+import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { loadOptionDrafter } from '../../../src/ui/model/designLoaders.ts';
 import { coreOptions, expectSameOptions, sheetOptions } from '../../core/workbook/optionFaces.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
 
