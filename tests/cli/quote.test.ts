@@ -301,5 +301,11 @@ describe('kvar-ledger quote --compare with an option input that cannot be read',
     const text = await cli(file, '--compare');
     expect(text.code, text.err).toBe(0);
     expect(text.out).toContain(`Plain capacitors: not worked out until its inputs are mended: ${where}`);
+
+    // The balance does not depend on it, and still says it, as Checks does.
+    let out = '';
+    const code = await main(['balance', file], { out: (x) => (out += x), err: (x) => (out += x) });
+    expect(code).toBe(0);
+    expect(out).toContain(`${where}; the option "Plain capacitors" is not worked out until this is mended`);
   });
 });
