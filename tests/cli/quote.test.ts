@@ -221,18 +221,24 @@ describe('kvar-ledger quote --compare', () => {
   });
 });
 
+/** The template's workbook, its Design options sheet, and the title and first stepped bank line of option `label`. */
+function optionsWorkbook(label: string) {
+  const { site, banks } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
+  const doc = buildWorkbook(site, { flavour: 'live', ...(banks ? { banks } : {}) });
+  const sheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET)!;
+  const cols = planOptionColumns(site.settings.cases);
+  const title = sheet.cells.findIndex((line) => line[1] === label);
+  const bankLine = sheet.cells.findIndex(
+    (line, r) => r > title && typeof line[cols.input.step_kvar] === 'number',
+  );
+  return { doc, sheet, cols, title, bankLine };
+}
+
 describe("kvar-ledger quote --compare on a workbook's own options", () => {
   it('prices the option blocks of its Design options sheet, as the sheet shows them', async () => {
-    const { site, banks } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
-    const doc = buildWorkbook(site, { flavour: 'live', ...(banks ? { banks } : {}) });
     // The estimator renames option 3 and gives its first bank a 40 kvar reactor.
-    const sheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET)!;
-    const cols = planOptionColumns(site.settings.cases);
-    const title = sheet.cells.findIndex((line) => line[1] === 'Option 3');
+    const { doc, sheet, cols, title, bankLine } = optionsWorkbook('Option 3');
     (sheet.cells[title] as unknown[])[0] = 'Detuned, with a reactor';
-    const bankLine = sheet.cells.findIndex(
-      (line, r) => r > title && typeof line[cols.input.step_kvar] === 'number',
-    );
     (sheet.cells[bankLine] as unknown[])[cols.input.reactor_kvar] = 40;
     const file = join(dir, 'own-options.json');
     writeFileSync(file, JSON.stringify(renderWorkbook(doc, { flavour: 'live' }).doc));
@@ -276,14 +282,7 @@ describe("kvar-ledger quote --compare on a workbook's own options", () => {
 
 describe('kvar-ledger quote --compare with an option input that cannot be read', () => {
   it('lists that option with the cell to mend and prices the others', async () => {
-    const { site, banks } = readSiteFile(readFileSync(TEMPLATE, 'utf8'));
-    const doc = buildWorkbook(site, { flavour: 'live', ...(banks ? { banks } : {}) });
-    const sheet = doc.sheets.find((s) => s.name === OPTIONS_SHEET)!;
-    const cols = planOptionColumns(site.settings.cases);
-    const title = sheet.cells.findIndex((line) => line[1] === 'Option 2');
-    const bankLine = sheet.cells.findIndex(
-      (line, r) => r > title && typeof line[cols.input.step_kvar] === 'number',
-    );
+    const { doc, sheet, cols, bankLine } = optionsWorkbook('Option 2');
     (sheet.cells[bankLine] as unknown[])[cols.input.step_kvar] = '40 kvar';
     const file = join(dir, 'unread-option.json');
     writeFileSync(file, JSON.stringify(renderWorkbook(doc, { flavour: 'live' }).doc));
