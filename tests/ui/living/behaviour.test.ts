@@ -8,18 +8,13 @@ import { buildWorkbook } from '../../../src/core/workbook/build.ts';
 import { COMP_HEADERS, planCompensationColumns } from '../../../src/core/workbook/compensationColumns.ts';
 import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { columnOf as col, sheetIdOf as id } from './sessionLookups.ts';
 import { ADDED_CASE_NOTE } from '../../../src/ui/model/tariffCases.ts';
 import { collectChecks } from '../../../src/ui/panels/checksModel.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
 import * as chargedSolar from '../../core/workbook/chargedSolar.ts';
 
 const open = () => WorkbookSession.fromDoc(buildWorkbook(PLANT, { flavour: 'live' }));
-const id = (s: WorkbookSession, name: string) => s.engine.getSheetId(name) as number;
-const col = (s: WorkbookSession, sheet: string, header: string) => {
-  const c = (s.sheetContents(id(s, sheet))[0] ?? []).indexOf(header);
-  if (c < 0) throw new Error(`${sheet} has no column ${header}`);
-  return c;
-};
 const bus = (s: WorkbookSession, name: string) =>
   s.sheetContents(id(s, 'Buses')).findIndex((r) => r[0] === name);
 const busValue = (s: WorkbookSession, name: string, header: string) =>

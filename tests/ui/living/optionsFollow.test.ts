@@ -9,6 +9,7 @@ import { heldProposals } from '../../../src/core/workbook/cellMarks.ts';
 import type { CellContent, CellMark } from '../../../src/core/workbook/document.ts';
 import { OPTIONS_SHEET, optionLabel, planOptionColumns } from '../../../src/core/workbook/optionsLayout.ts';
 import { WorkbookSession } from '../../../src/ui/model/session.ts';
+import { columnOf as col, sheetIdOf as id } from './sessionLookups.ts';
 import { PLANT } from '../../core/workbook/sites.ts';
 import { FIRST_CASE_ROW } from '../../../src/core/workbook/settingsLayout.ts';
 
@@ -16,12 +17,6 @@ const cols = planOptionColumns(PLANT.settings.cases);
 const INPUTS = Object.values(cols.input);
 
 const open = () => WorkbookSession.fromDoc(buildWorkbook(PLANT, { flavour: 'live' }));
-const id = (s: WorkbookSession, name: string) => s.engine.getSheetId(name) as number;
-const col = (s: WorkbookSession, sheet: string, header: string) => {
-  const c = (s.sheetContents(id(s, sheet))[0] ?? []).indexOf(header);
-  if (c < 0) throw new Error(`${sheet} has no column ${header}`);
-  return c;
-};
 
 /** Row of `bus`'s line in option j's block, found by the block's label and the bus name (-1: none). */
 function optionLine(s: WorkbookSession, j: number, bus: string): number {
