@@ -52,8 +52,7 @@ export interface UnreadOption extends OptionSpec {
 
 export type OptionOutcome = OptionFigures | UnreadOption;
 
-export const isUnread = (o: OptionOutcome): o is UnreadOption =>
-  o.unread !== undefined && o.unread.length > 0;
+export const isUnread = (o: OptionSpec): o is UnreadOption => o.unread !== undefined && o.unread.length > 0;
 
 /** The options typed on a Design options sheet, each with the id of its block. */
 export function sheetOptions(sheet: SheetDoc, cases: readonly string[]): OptionSpec[] {
@@ -89,17 +88,14 @@ export function weighOptions(
   rates: RateTable,
   tariff: Tariff,
 ): OptionOutcome[] {
-  const unread = (s: OptionSpec) => s.unread !== undefined && s.unread.length > 0;
   const figures = compareOptions(
     site,
-    specs.filter((s) => !unread(s)),
+    specs.filter((s) => !isUnread(s)),
     rates,
     tariff,
   );
   let next = 0;
-  return specs.map((s) =>
-    unread(s) ? { ...s, unread: s.unread ?? [] } : (figures[next++] as OptionFigures),
-  );
+  return specs.map((s) => (isUnread(s) ? s : (figures[next++] as OptionFigures)));
 }
 
 /** Each option priced, its saving and payback worked out, and judged, at the same rates and tariff. */
