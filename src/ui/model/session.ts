@@ -661,10 +661,12 @@ export class WorkbookSession {
     const overrides = new Map<number, Set<string>>();
     for (const id of builtIn) {
       const sheet = r.doc.sheets.find((s) => s.name === this.sheetName(id)) as SheetDoc;
-      const { marks: _old, ...kept } = meta.get(id) ?? {};
+      // The options sheet's marks come laid out with its cells; the other sheets keep theirs.
+      const { marks: was, ...rest } = meta.get(id) ?? {};
+      const marks = id === ids.opts ? sheet.marks : was;
       meta.set(id, {
-        ...(id === ids.opts ? kept : meta.get(id)),
-        ...(id === ids.opts && sheet.marks ? { marks: sheet.marks } : {}),
+        ...rest,
+        ...(marks && marks.length > 0 ? { marks } : {}),
         ...(sheet.columns ? { columns: sheet.columns } : {}),
         purpose: sheet.purpose ?? '',
       });
